@@ -1,0 +1,103 @@
+// Command swaysheet evaluates scenario files and prints the result as JSON,
+// or as a short table with -summary.
+//
+//	go run ./core/cmd/swaysheet [-summary] [-no-history] FILE.json ...
+package main
+
+import (
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"text/tabwriter"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+func main() {
+	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
+
+func run(args []string, stdout, stderr io.Writer) int {
+	fs := flag.NewFlagSet("swaysheet", flag.ContinueOnError)
+	fs.SetOutput(stderr)
+	summary := fs.Bool("summary", false, "print a short table instead of the result JSON")
+	noHistory := fs.Bool("no-history", false, "leave the time histories out of the result JSON")
+	fs.Usage = func() {
+		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		return 2
+	}
+	if fs.NArg() == 0 {
+		fs.Usage()
+		return 2
+	}
+	status := 0
+	for _, name := range fs.Args() {
+		res, err := evaluate(name, sway.Options{NoHistory: *noHistory || *summary})
+		if err != nil {
+			fmt.Fprintf(stderr, "%s: %v\n", name, err)
+			status = 1
+			continue
+		}
+		if *summary {
+			printSummary(stdout, name, res)
+			continue
+		}
+		enc := json.NewEncoder(stdout)
+		enc.SetIndent("", "  ")
+		if err := enc.Encode(res); err != nil {
+			fmt.Fprintf(stderr, "%s: %v\n", name, err)
+			status = 1
+		}
+	}
+	return status
+}
+
+func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+	f, err := os.Open(name)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	s, err := scenario.Decode(f)
+	if err != nil {
+		return nil, err
+	}
+	return sway.EvaluateWith(s, opt)
+}
+
+func printSummary(w io.Writer, file string, r *sway.Result) {
+	fmt.Fprintf(w, "%s\n%s\n", r.Name, file)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	row := func(label string, v float64, unit string) { fmt.Fprintf(tw, "  %s\t%.4g\t%s\n", label, v, unit) }
+	row("period (small swing)", r.PeriodS, "s")
+	row("period at residual swing", r.PeriodAmplitudeS, "s")
+	row("peak swing", r.PeakSwingDeg, "deg")
+	row("peak excursion", r.PeakExcursionM, "m")
+	row("residual swing", r.ResidualSwingDeg, "deg")
+	row("residual excursion", r.ResidualExcursionM, "m")
+	row("tension max", r.TensionMaxN/1000, "kN")
+	row("tension min", r.TensionMinN/1000, "kN")
+	row("tension factor", r.TensionFactor, "")
+	if r.WindForceN > 0 {
+		row("wind lean", r.WindLeanDeg, "deg")
+	}
+	row("run", r.RunS, "s")
+	tw.Flush()
+	for _, c := range r.Checks {
+		mark := "within"
+		if !c.Within {
+			mark = "OUTSIDE"
+		}
+		fmt.Fprintf(w, "  check %s: %.4g (limit %.4g %s) %s\n", c.Label, c.Value, c.Limit, c.Unit, mark)
+	}
+	for _, s := range r.Warnings {
+		fmt.Fprintf(w, "  warning: %s\n", s)
+	}
+	fmt.Fprintln(w)
+}

@@ -1,0 +1,163 @@
+// Package motion describes how one crane axis moves in time: travel of the
+// trolley, bridge or gantry, slewing, a trolley on a jib changing the radius,
+// or hoisting. A Profile gives position, speed and acceleration at any time
+// and lists the times where the acceleration jumps, so that an integrator can
+// restart there.
+//
+// Positions are in the axis' own SI unit: metres for travel, radius and
+// hoist, radians for slew.
+package motion
+
+import (
+	"math"
+	"sort"
+)
+
+// State is position, speed and acceleration of an axis at one instant.
+type State struct {
+	Pos, Vel, Acc float64
+}
+
+// Profile is the motion of one axis relative to where it starts.
+// At must be defined for every t; before its start a profile is at rest at
+// zero, after its end it is at rest at its final position.
+type Profile interface {
+	At(t float64) State
+	// Breakpoints lists, ascending, the times where the acceleration or its
+	// derivative is not smooth.
+	Breakpoints() []float64
+	// End is the time from which the axis stays at rest.
+	End() float64
+}
+
+// Trapezoid is a point-to-point move with a trapezoidal speed profile:
+// constant acceleration up to the top speed, cruise, constant deceleration to
+// rest. If the distance is too short to reach the top speed, the move is
+// triangular and peaks at PeakSpeed.
+type Trapezoid struct {
+	Start    float64 // s
+	Distance float64 // signed, axis units
+	Speed    float64 // top speed, > 0
+	Accel    float64 // > 0
+	Decel    float64 // > 0
+
+	// Derived by NewTrapezoid.
+	peak, tAcc, tCruise, tDec float64
+}
+
+// NewTrapezoid builds a trapezoidal move. Speed, accel and decel must be
+// positive; the caller validates user input before calling.
+func NewTrapezoid(start, distance, speed, accel, decel float64) *Trapezoid {
+	if !(speed > 0 && accel > 0 && decel > 0) {
+		panic("motion: trapezoid needs positive speed, acceleration and deceleration")
+	}
+	p := &Trapezoid{Start: start, Distance: distance, Speed: speed, Accel: accel, Decel: decel}
+	d := math.Abs(distance)
+	v := speed
+	// Distance covered by the two ramps at full speed.
+	if ramps := v*v/(2*accel) + v*v/(2*decel); ramps > d {
+		v = math.Sqrt(2 * d * accel * decel / (accel + decel))
+	}
+	p.peak = v
+	if v > 0 {
+		p.tAcc = v / accel
+		p.tDec = v / decel
+		p.tCruise = math.Max(0, (d-v*v/(2*accel)-v*v/(2*decel))/v)
+	}
+	return p
+}
+
+// Triangular reports whether the move is too short to reach its top speed.
+func (p *Trapezoid) Triangular() bool { return p.peak < p.Speed*(1-1e-12) }
+
+// PeakSpeed is the highest speed the move reaches.
+func (p *Trapezoid) PeakSpeed() float64 { return p.peak }
+
+// Duration is the time from start to rest.
+func (p *Trapezoid) Duration() float64 { return p.tAcc + p.tCruise + p.tDec }
+
+// End implements Profile.
+func (p *Trapezoid) End() float64 { return p.Start + p.Duration() }
+
+// Breakpoints implements Profile.
+func (p *Trapezoid) Breakpoints() []float64 {
+	t1 := p.Start + p.tAcc
+	t2 := t1 + p.tCruise
+	return dedupe([]float64{p.Start, t1, t2, t2 + p.tDec})
+}
+
+// At implements Profile.
+func (p *Trapezoid) At(t float64) State {
+	sign := 1.0
+	if p.Distance < 0 {
+		sign = -1
+	}
+	tau := t - p.Start
+	var s State
+	switch {
+	case tau <= 0:
+		return State{}
+	case tau < p.tAcc:
+		s = State{Pos: 0.5 * p.Accel * tau * tau, Vel: p.Accel * tau, Acc: p.Accel}
+	case tau < p.tAcc+p.tCruise:
+		u := tau - p.tAcc
+		s = State{Pos: 0.5*p.peak*p.tAcc + p.peak*u, Vel: p.peak}
+	case tau < p.Duration():
+		u := p.Duration() - tau // time left
+		s = State{Pos: math.Abs(p.Distance) - 0.5*p.Decel*u*u, Vel: p.Decel * u, Acc: -p.Decel}
+	default:
+		s = State{Pos: math.Abs(p.Distance)}
+	}
+	return State{Pos: sign * s.Pos, Vel: sign * s.Vel, Acc: sign * s.Acc}
+}
+
+// Sum is several profiles on one axis added together: a sequence of moves,
+// or moves that overlap.
+type Sum []Profile
+
+// At implements Profile.
+func (m Sum) At(t float64) State {
+	var s State
+	for _, p := range m {
+		q := p.At(t)
+		s.Pos += q.Pos
+		s.Vel += q.Vel
+		s.Acc += q.Acc
+	}
+	return s
+}
+
+// Breakpoints implements Profile.
+func (m Sum) Breakpoints() []float64 {
+	var all []float64
+	for _, p := range m {
+		all = append(all, p.Breakpoints()...)
+	}
+	return dedupe(all)
+}
+
+// End implements Profile.
+func (m Sum) End() float64 {
+	e := 0.0
+	for _, p := range m {
+		e = math.Max(e, p.End())
+	}
+	return e
+}
+
+// Breakpoints merges the breakpoints of several profiles.
+func Breakpoints(ps ...Profile) []float64 {
+	return Sum(ps).Breakpoints()
+}
+
+// dedupe sorts ts and drops times closer than 1e-9 s to the one before.
+func dedupe(ts []float64) []float64 {
+	sort.Float64s(ts)
+	out := ts[:0]
+	for _, t := range ts {
+		if len(out) == 0 || t-out[len(out)-1] > 1e-9 {
+			out = append(out, t)
+		}
+	}
+	return out
+}

@@ -1,0 +1,300 @@
+// Package ode integrates systems of ordinary differential equations
+// y' = f(t, y) with the explicit embedded Runge-Kutta pair of Dormand and
+// Prince, order 5 with an order-4 error estimate, adaptive step size and a
+// continuous (dense) output of order 4 inside every step.
+//
+// The tableau is that of
+//
+//	J. R. Dormand and P. J. Prince, "A family of embedded Runge-Kutta
+//	formulae", J. Comp. Appl. Math. 6 (1980) 19-26,
+//
+// and the step-size control (with Lund stabilisation) and the dense output
+// follow
+//
+//	E. Hairer, S. P. Norsett and G. Wanner, "Solving Ordinary Differential
+//	Equations I", 2nd ed., Springer 1993, sec. II.4-II.6 (code DOPRI5).
+//
+// The solver is driven one step at a time so that the caller can look at
+// every step (to find peaks with the dense output), restart at points where f
+// is not smooth (Reset), and project the state back onto a constraint
+// manifold between steps (SetState).
+package ode
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// Func evaluates dy = f(t, y). It must not keep y or dy.
+type Func func(t float64, y, dy []float64)
+
+// Settings tune the solver. The zero value is usable.
+type Settings struct {
+	// RelTol and AbsTol bound the local error of each component:
+	// |err_i| <= AbsTol + RelTol*|y_i|. Zero means 1e-8 and 1e-10.
+	RelTol, AbsTol float64
+	// MaxStep bounds the step size; zero means no bound.
+	MaxStep float64
+	// MaxSteps bounds the number of accepted plus rejected steps over the
+	// life of the solver; zero means 1e6.
+	MaxSteps int
+}
+
+// ErrTooManySteps is returned by Step when Settings.MaxSteps is reached.
+var ErrTooManySteps = errors.New("ode: step limit reached")
+
+// Dormand-Prince 5(4) coefficients.
+const (
+	c2, c3, c4, c5 = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
+
+	a21                     = 1.0 / 5
+	a31, a32                = 3.0 / 40, 9.0 / 40
+	a41, a42, a43           = 44.0 / 45, -56.0 / 15, 32.0 / 9
+	a51, a52, a53, a54      = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
+	a61, a62, a63, a64, a65 = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
+	a71, a73, a74, a75, a76 = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
+
+	// Error coefficients: 5th-order weights minus 4th-order weights.
+	e1, e3, e4, e5, e6, e7 = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
+
+	// Dense output coefficients (Hairer, Norsett & Wanner, DOPRI5 CONTD5).
+	d1, d3, d4 = -12715105075.0 / 11282082432, 87487479700.0 / 32700410799, -10690763975.0 / 1880347072
+	d5, d6, d7 = 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
+)
+
+// Solver holds the state and workspace of one integration. Create it with
+// New, start it with Reset, then call Step until it reports the end.
+type Solver struct {
+	f        Func
+	n        int
+	set      Settings
+	t, h     float64
+	told     float64
+	y, ynew  []float64
+	k        [7][]float64
+	tmp      []float64
+	cont     [5][]float64
+	facOld   float64
+	started  bool
+	fresh    bool // k[0] holds f(t, y)
+	Accepted int  // accepted steps
+	Rejected int  // rejected steps
+	Evals    int  // evaluations of f
+}
+
+// New returns a solver for an n-dimensional system.
+func New(f Func, n int, s Settings) *Solver {
+	if n <= 0 {
+		panic("ode: dimension must be positive")
+	}
+	if s.RelTol == 0 {
+		s.RelTol = 1e-8
+	}
+	if s.AbsTol == 0 {
+		s.AbsTol = 1e-10
+	}
+	if s.MaxSteps == 0 {
+		s.MaxSteps = 1_000_000
+	}
+	if s.RelTol < 0 || s.AbsTol < 0 || s.MaxStep < 0 || s.MaxSteps < 0 {
+		panic("ode: negative setting")
+	}
+	v := &Solver{f: f, n: n, set: s}
+	mk := func() []float64 { return make([]float64, n) }
+	v.y, v.ynew, v.tmp = mk(), mk(), mk()
+	for i := range v.k {
+		v.k[i] = mk()
+	}
+	for i := range v.cont {
+		v.cont[i] = mk()
+	}
+	return v
+}
+
+// Reset places the solver at (t, y). Call it at the start and after every
+// point where f or its derivatives jump: the next step starts afresh from
+// there. The step size guess of an earlier run is kept if there was one.
+func (v *Solver) Reset(t float64, y []float64) {
+	if len(y) != v.n {
+		panic("ode: state length mismatch")
+	}
+	v.t, v.told = t, t
+	copy(v.y, y)
+	v.fresh = false
+	v.facOld = 1e-4
+}
+
+// SetState replaces the current state (for instance after projecting it onto
+// a constraint) without moving in time.
+func (v *Solver) SetState(y []float64) {
+	copy(v.y, y)
+	v.fresh = false
+}
+
+// T returns the current time.
+func (v *Solver) T() float64 { return v.t }
+
+// State returns the current state. The slice belongs to the solver.
+func (v *Solver) State() []float64 { return v.y }
+
+// LastStep returns the interval [t0, t1] of the last accepted step.
+func (v *Solver) LastStep() (t0, t1 float64) { return v.told, v.t }
+
+func (v *Solver) eval(t float64, y, dy []float64) {
+	v.f(t, y, dy)
+	v.Evals++
+}
+
+func (v *Solver) errNorm(y0, y1, e []float64) float64 {
+	var sum float64
+	for i := range v.n {
+		sk := v.set.AbsTol + v.set.RelTol*math.Max(math.Abs(y0[i]), math.Abs(y1[i]))
+		r := e[i] / sk
+		sum += r * r
+	}
+	return math.Sqrt(sum / float64(v.n))
+}
+
+// initialStep is the starting step heuristic of Hairer, Norsett & Wanner
+// (sec. II.4, "Starting step size").
+func (v *Solver) initialStep(tEnd float64) float64 {
+	f0 := v.k[0]
+	d0 := v.errNorm(v.y, v.y, v.y)
+	d1 := v.errNorm(v.y, v.y, f0)
+	var h0 float64
+	if d0 < 1e-5 || d1 < 1e-5 {
+		h0 = 1e-6
+	} else {
+		h0 = 0.01 * d0 / d1
+	}
+	h0 = math.Min(h0, tEnd-v.t)
+	for i := range v.n {
+		v.tmp[i] = v.y[i] + h0*f0[i]
+	}
+	v.eval(v.t+h0, v.tmp, v.k[1])
+	for i := range v.n {
+		v.ynew[i] = v.k[1][i] - f0[i]
+	}
+	d2 := v.errNorm(v.y, v.y, v.ynew) / h0
+	var h1 float64
+	if m := math.Max(d1, d2); m <= 1e-15 {
+		h1 = math.Max(1e-6, h0*1e-3)
+	} else {
+		h1 = math.Pow(0.01/m, 0.2)
+	}
+	return math.Min(100*h0, h1)
+}
+
+// Step advances by one accepted step, never beyond tEnd. It reports done
+// when the solver has reached tEnd.
+func (v *Solver) Step(tEnd float64) (done bool, err error) {
+	if tEnd <= v.t {
+		return true, nil
+	}
+	n := v.n
+	y, ynew, tmp := v.y, v.ynew, v.tmp
+	k1, k2, k3, k4, k5, k6, k7 := v.k[0], v.k[1], v.k[2], v.k[3], v.k[4], v.k[5], v.k[6]
+	if !v.fresh {
+		v.eval(v.t, y, k1)
+		v.fresh = true
+	}
+	if !v.started || v.h <= 0 {
+		v.h = v.initialStep(tEnd)
+		v.started = true
+	}
+	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, 0.04
+	const expo1 = 0.2 - beta*0.75
+	span := tEnd - v.t
+	for {
+		if v.Accepted+v.Rejected >= v.set.MaxSteps {
+			return false, fmt.Errorf("%w (%d steps at t = %.6g)", ErrTooManySteps, v.set.MaxSteps, v.t)
+		}
+		h := v.h
+		if v.set.MaxStep > 0 && h > v.set.MaxStep {
+			h = v.set.MaxStep
+		}
+		last := false
+		if h >= span*(1-1e-12) {
+			h, last = span, true
+		}
+		t := v.t
+		for i := range n {
+			tmp[i] = y[i] + h*a21*k1[i]
+		}
+		v.eval(t+c2*h, tmp, k2)
+		for i := range n {
+			tmp[i] = y[i] + h*(a31*k1[i]+a32*k2[i])
+		}
+		v.eval(t+c3*h, tmp, k3)
+		for i := range n {
+			tmp[i] = y[i] + h*(a41*k1[i]+a42*k2[i]+a43*k3[i])
+		}
+		v.eval(t+c4*h, tmp, k4)
+		for i := range n {
+			tmp[i] = y[i] + h*(a51*k1[i]+a52*k2[i]+a53*k3[i]+a54*k4[i])
+		}
+		v.eval(t+c5*h, tmp, k5)
+		for i := range n {
+			tmp[i] = y[i] + h*(a61*k1[i]+a62*k2[i]+a63*k3[i]+a64*k4[i]+a65*k5[i])
+		}
+		tn := t + h
+		if last {
+			tn = tEnd
+		}
+		v.eval(tn, tmp, k6)
+		for i := range n {
+			ynew[i] = y[i] + h*(a71*k1[i]+a73*k3[i]+a74*k4[i]+a75*k5[i]+a76*k6[i])
+		}
+		v.eval(tn, ynew, k7)
+		for i := range n {
+			tmp[i] = h * (e1*k1[i] + e3*k3[i] + e4*k4[i] + e5*k5[i] + e6*k6[i] + e7*k7[i])
+		}
+		errv := v.errNorm(y, ynew, tmp)
+		if math.IsNaN(errv) || math.IsInf(errv, 0) {
+			errv = 1e10
+		}
+		fac11 := math.Pow(errv, expo1)
+		fac := fac11 / math.Pow(v.facOld, beta)
+		fac = math.Max(1/facMax, math.Min(1/facMin, fac/safe))
+		if errv <= 1 {
+			v.facOld = math.Max(errv, 1e-4)
+			v.Accepted++
+			for i := range n {
+				ydiff := ynew[i] - y[i]
+				bspl := h*k1[i] - ydiff
+				v.cont[0][i] = y[i]
+				v.cont[1][i] = ydiff
+				v.cont[2][i] = bspl
+				v.cont[3][i] = ydiff - h*k7[i] - bspl
+				v.cont[4][i] = h * (d1*k1[i] + d3*k3[i] + d4*k4[i] + d5*k5[i] + d6*k6[i] + d7*k7[i])
+			}
+			copy(k1, k7) // first same as last
+			copy(y, ynew)
+			v.told, v.t = t, tn
+			v.h = h / fac
+			return last, nil
+		}
+		v.Rejected++
+		v.h = h / math.Min(1/facMin, fac11/safe)
+		if v.h < 1e-14*math.Max(1, math.Abs(t)) {
+			return false, fmt.Errorf("ode: step size underflow at t = %.6g", t)
+		}
+	}
+}
+
+// Dense writes into out the continuous extension of the last accepted step
+// at time t, which should lie in [t0, t1] of LastStep. Its error is of
+// order 4 in the step size.
+func (v *Solver) Dense(t float64, out []float64) {
+	h := v.t - v.told
+	var s float64
+	if h > 0 {
+		s = (t - v.told) / h
+	}
+	s1 := 1 - s
+	c := v.cont
+	for i := range v.n {
+		out[i] = c[0][i] + s*(c[1][i]+s1*(c[2][i]+s*(c[3][i]+s1*c[4][i])))
+	}
+}

@@ -1,0 +1,147 @@
+// Package pendulum is the equation of motion of a hook load: a point mass m
+// on a massless, inextensible rope of length L(t) hung from a suspension
+// point S(t) that moves in three dimensions. Nothing is linearised.
+//
+// The state is the rope direction n (a unit vector from the suspension point
+// to the load) and its rate u = dn/dt, so the load sits at P = S + L*n. The
+// axes are x and y horizontal, z up; gravity is -g*z.
+//
+// Newton's law for the load, m*P” = -T*n + m*g_vec + F, with
+// P” = S” + L”*n + 2*L'*u + L*n”, and the constraint n.n = 1 (so n.u = 0
+// and n.n” = -|u|^2) give
+//
+//	n” = [ (I - n n^T)(a - S”) - 2 L' u ] / L - |u|^2 n
+//	T  = m * [ (a - S”).n - L” + L |u|^2 ]
+//
+// where a = g_vec + F/m is the applied acceleration (gravity, wind, drag).
+// The rope tension T is thus an algebraic function of the state at each
+// instant. The rope is assumed taut: where T would be negative the model no
+// longer holds (the load would be in free flight and snatch the rope).
+//
+// Integrating n” directly lets |n| drift from 1 by the integrator's local
+// error; Project puts the state back onto the constraint after each step, so
+// the rope length error stays at rounding level over any run.
+package pendulum
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/units"
+)
+
+// Kinematics gives position, velocity and acceleration of a point.
+type Kinematics struct {
+	Pos, Vel, Acc r3.Vec
+}
+
+// Model is one hook load and the motions imposed on it.
+type Model struct {
+	Mass    float64 // kg, > 0
+	Gravity float64 // m/s^2; zero means standard gravity
+
+	// Suspension gives the suspension point's motion at time t.
+	Suspension func(t float64) Kinematics
+	// Rope gives rope length L, dL/dt and d2L/dt2 at time t (L > 0).
+	Rope func(t float64) (l, dl, ddl float64)
+	// Force is the applied force on the load besides gravity and rope
+	// tension (wind, air drag), N, given time and the load's position and
+	// velocity. Nil means none.
+	Force func(t float64, pos, vel r3.Vec) r3.Vec
+}
+
+// StateLen is the length of the state vector: n then u.
+const StateLen = 6
+
+// Point is everything known about the load at one instant.
+type Point struct {
+	T          float64 // time, s
+	Dir, Rate  r3.Vec  // n and dn/dt
+	Rope       float64 // L, m
+	Suspension Kinematics
+	LoadPos    r3.Vec  // P, m
+	LoadVel    r3.Vec  // dP/dt, m/s
+	Tension    float64 // N
+}
+
+// SwingRad is the rope angle from the downward vertical, radians.
+func (p *Point) SwingRad() float64 {
+	return math.Atan2(math.Hypot(p.Dir.X, p.Dir.Y), -p.Dir.Z)
+}
+
+// Excursion is the horizontal distance of the load from the point under
+// the suspension point, m.
+func (p *Point) Excursion() float64 {
+	return p.Rope * math.Hypot(p.Dir.X, p.Dir.Y)
+}
+
+func (m *Model) g() float64 {
+	if m.Gravity == 0 {
+		return units.StandardGravity
+	}
+	return m.Gravity
+}
+
+// Eval fills p from time t and state y, and returns n” in acc.
+func (m *Model) Eval(t float64, y []float64, p *Point) (acc r3.Vec) {
+	n := r3.Vec{X: y[0], Y: y[1], Z: y[2]}
+	u := r3.Vec{X: y[3], Y: y[4], Z: y[5]}
+	s := m.Suspension(t)
+	l, dl, ddl := m.Rope(t)
+	pos := r3.Add(s.Pos, r3.Scale(l, n))
+	vel := r3.Add(s.Vel, r3.Add(r3.Scale(dl, n), r3.Scale(l, u)))
+	a := r3.Vec{Z: -m.g()}
+	if m.Force != nil {
+		a = r3.Add(a, r3.Scale(1/m.Mass, m.Force(t, pos, vel)))
+	}
+	rel := r3.Sub(a, s.Acc) // applied acceleration seen from the suspension point
+	radial := r3.Dot(rel, n)
+	uu := r3.Dot(u, u)
+	tangential := r3.Sub(rel, r3.Scale(radial, n))
+	acc = r3.Sub(r3.Scale(1/l, r3.Sub(tangential, r3.Scale(2*dl, u))), r3.Scale(uu, n))
+	if p != nil {
+		*p = Point{T: t, Dir: n, Rate: u, Rope: l, Suspension: s, LoadPos: pos, LoadVel: vel,
+			Tension: m.Mass * (radial - ddl + l*uu)}
+	}
+	return acc
+}
+
+// Func is the right-hand side y' = f(t, y) for an ODE solver.
+func (m *Model) Func(t float64, y, dy []float64) {
+	acc := m.Eval(t, y, nil)
+	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
+	dy[3], dy[4], dy[5] = acc.X, acc.Y, acc.Z
+}
+
+// Project puts y back onto the constraint |n| = 1, n.u = 0 and returns how
+// far |n| was from 1 before.
+func Project(y []float64) float64 {
+	norm := math.Sqrt(y[0]*y[0] + y[1]*y[1] + y[2]*y[2])
+	y[0], y[1], y[2] = y[0]/norm, y[1]/norm, y[2]/norm
+	d := y[0]*y[3] + y[1]*y[4] + y[2]*y[5]
+	y[3] -= d * y[0]
+	y[4] -= d * y[1]
+	y[5] -= d * y[2]
+	return math.Abs(norm - 1)
+}
+
+// StateFromSwing returns the state for a rope at angle theta from the
+// downward vertical, leaning toward azimuth phi (radians from +x toward +y),
+// with the load moving horizontally relative to the suspension point at
+// velocity (vx, vy) m/s on a rope of length l. The vertical part of the
+// velocity follows from the constraint.
+func StateFromSwing(theta, phi, vx, vy, l float64) []float64 {
+	st, ct := math.Sin(theta), math.Cos(theta)
+	n := r3.Vec{X: st * math.Cos(phi), Y: st * math.Sin(phi), Z: -ct}
+	// Velocity of the load relative to the suspension point is l*u with
+	// u.n = 0: take the horizontal part given and solve for u_z.
+	ux, uy := vx/l, vy/l
+	uz := 0.0
+	if n.Z != 0 {
+		uz = -(n.X*ux + n.Y*uy) / n.Z
+	}
+	y := []float64{n.X, n.Y, n.Z, ux, uy, uz}
+	Project(y)
+	return y
+}

@@ -1,0 +1,239 @@
+// Package scenario is the swaysheet scenario file: one lift's load, rope,
+// crane motions, wind, initial swing, limits and solver settings, as JSON.
+//
+// The format is versioned (Format and Version). All quantities are SI and
+// each field carries its unit in its name (rope_length_m, speed_m_per_s);
+// angles are in degrees. Decode rejects unknown fields, missing required
+// fields and out-of-range values, naming the field, the value and the
+// accepted range. The JSON Schema of the format is schema.json beside this
+// file.
+package scenario
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+)
+
+// FormatName and Version identify the file format.
+const (
+	FormatName = "swaysheet-scenario"
+	Version    = 1
+)
+
+// Axis names.
+const (
+	TravelX = "travel_x" // trolley or bridge travel along x, m
+	TravelY = "travel_y" // travel along y, m
+	Slew    = "slew"     // slewing about the vertical axis through the origin, deg
+	Radius  = "radius"   // trolley on a jib: change of slew radius, m
+	Hoist   = "hoist"    // hoisting: positive up (rope shortens), m
+)
+
+// Axes lists the axis names in display order.
+var Axes = []string{TravelX, TravelY, Slew, Radius, Hoist}
+
+// Scenario is one lift to check.
+type Scenario struct {
+	Format      string `json:"format"`
+	Version     int    `json:"version"`
+	Name        string `json:"name"`
+	Description string `json:"description,omitempty"`
+	// Example marks invented demonstration data.
+	Example bool `json:"example,omitempty"`
+
+	Load     Load      `json:"load"`
+	Crane    Crane     `json:"crane,omitzero"`
+	Motions  []Motion  `json:"motions"`
+	Wind     *Wind     `json:"wind,omitempty"`
+	Initial  *Initial  `json:"initial,omitempty"`
+	Limits   *Limits   `json:"limits,omitempty"`
+	Settings *Settings `json:"settings,omitempty"`
+	// Sheet holds the user's reference fields for the printed check sheet.
+	Sheet *Sheet `json:"sheet,omitempty"`
+}
+
+// Load is the hook load and its rope.
+type Load struct {
+	MassKg *float64 `json:"mass_kg"`
+	// RopeLengthM is the distance from the rope's upper point of rotation
+	// (trolley sheave, boom or jib tip) to the load's centre of mass, hook
+	// block and rigging included.
+	RopeLengthM *float64 `json:"rope_length_m"`
+	// AreaM2 is the load's projected area facing the wind, m^2.
+	AreaM2 float64 `json:"area_m2,omitempty"`
+	// DragCoefficient, when positive, adds quadratic air drag on the load's
+	// motion: F = -0.5*rho*c*A*|v|*v.
+	DragCoefficient float64 `json:"drag_coefficient,omitempty"`
+}
+
+// Crane is the crane's geometry at the start of the run. The suspension
+// point is at (x + r*cos(slew), y + r*sin(slew)), with x and y the travel
+// positions and r the slew radius.
+type Crane struct {
+	// Kind describes the crane: overhead, gantry, tower, slewing, monorail.
+	Kind    string  `json:"kind,omitempty"`
+	RadiusM float64 `json:"radius_m,omitempty"`
+	SlewDeg float64 `json:"slew_deg,omitempty"`
+}
+
+// Motion is one move of one axis. Travel, radius and hoist axes take the
+// _m fields, the slew axis the _deg fields.
+type Motion struct {
+	Axis    string  `json:"axis"`
+	Profile string  `json:"profile,omitempty"` // "trapezoid" (default)
+	StartS  float64 `json:"start_s,omitempty"`
+
+	DistanceM   *float64 `json:"distance_m,omitempty"`
+	SpeedMPerS  *float64 `json:"speed_m_per_s,omitempty"`
+	AccelMPerS2 *float64 `json:"accel_m_per_s2,omitempty"`
+	DecelMPerS2 *float64 `json:"decel_m_per_s2,omitempty"`
+
+	AngleDeg      *float64 `json:"angle_deg,omitempty"`
+	RateDegPerS   *float64 `json:"rate_deg_per_s,omitempty"`
+	AccelDegPerS2 *float64 `json:"accel_deg_per_s2,omitempty"`
+	DecelDegPerS2 *float64 `json:"decel_deg_per_s2,omitempty"`
+}
+
+// Wind is a steady horizontal force on the load, given directly or from a
+// wind speed as F = q*A*c with q = 0.5*rho*v^2.
+type Wind struct {
+	ForceN            *float64 `json:"force_n,omitempty"`
+	SpeedMPerS        *float64 `json:"speed_m_per_s,omitempty"`
+	ShapeFactor       float64  `json:"shape_factor,omitempty"`
+	AirDensityKgPerM3 float64  `json:"air_density_kg_per_m3,omitempty"`
+	// TowardDeg is the direction the wind pushes the load, degrees from +x
+	// toward +y.
+	TowardDeg float64 `json:"toward_deg,omitempty"`
+	StartS    float64 `json:"start_s,omitempty"`
+	// DurationS is how long the wind blows; zero means to the end of the run.
+	DurationS float64 `json:"duration_s,omitempty"`
+}
+
+// Initial is the swing at time zero; the zero value hangs still.
+type Initial struct {
+	SwingDeg  float64 `json:"swing_deg,omitempty"`
+	TowardDeg float64 `json:"toward_deg,omitempty"`
+	// Horizontal velocity of the load relative to the suspension point.
+	VelocityXMPerS float64 `json:"velocity_x_m_per_s,omitempty"`
+	VelocityYMPerS float64 `json:"velocity_y_m_per_s,omitempty"`
+}
+
+// Limits are the plan's allowed values; each is optional.
+type Limits struct {
+	PeakSwingDeg     *float64 `json:"peak_swing_deg,omitempty"`
+	PeakExcursionM   *float64 `json:"peak_excursion_m,omitempty"`
+	ResidualSwingDeg *float64 `json:"residual_swing_deg,omitempty"`
+	TensionFactor    *float64 `json:"tension_factor,omitempty"`
+}
+
+// Settings tune the computation; the zero value is the default.
+type Settings struct {
+	// Accuracy is "default" or "tight".
+	Accuracy string `json:"accuracy,omitempty"`
+	// RelTol overrides the integrator's relative tolerance.
+	RelTol float64 `json:"rel_tol,omitempty"`
+	// SettlePeriods is how many sway periods are simulated after the last
+	// motion ends to measure the residual swing (at least 2; default 3).
+	SettlePeriods float64 `json:"settle_periods,omitempty"`
+	// DurationS is the shortest run; the run is longer if the motions need it.
+	DurationS float64 `json:"duration_s,omitempty"`
+	// Samples is the number of evenly spaced points in the time histories.
+	Samples int `json:"samples,omitempty"`
+}
+
+// Sheet is free text for the printed check sheet.
+type Sheet struct {
+	Project         string `json:"project,omitempty"`
+	LiftReference   string `json:"lift_reference,omitempty"`
+	Crane           string `json:"crane,omitempty"`
+	LoadDescription string `json:"load_description,omitempty"`
+	PreparedBy      string `json:"prepared_by,omitempty"`
+	CheckedBy       string `json:"checked_by,omitempty"`
+	Date            string `json:"date,omitempty"`
+}
+
+// FieldError is one bad value, named by its JSON path.
+type FieldError struct {
+	Field   string `json:"field"`
+	Message string `json:"message"`
+}
+
+func (e FieldError) Error() string { return e.Field + ": " + e.Message }
+
+// Errors is every problem found in one scenario.
+type Errors []FieldError
+
+func (es Errors) Error() string {
+	parts := make([]string, len(es))
+	for i, e := range es {
+		parts[i] = e.Error()
+	}
+	return strings.Join(parts, "; ")
+}
+
+// MaxFileBytes bounds the size of a scenario file.
+const MaxFileBytes = 1 << 20
+
+// Decode reads one scenario from JSON and validates it.
+func Decode(r io.Reader) (*Scenario, error) {
+	data, err := io.ReadAll(io.LimitReader(r, MaxFileBytes+1))
+	if err != nil {
+		return nil, err
+	}
+	return Parse(data)
+}
+
+// Parse decodes and validates one scenario.
+func Parse(data []byte) (*Scenario, error) {
+	if len(data) > MaxFileBytes {
+		return nil, Errors{{Field: "(file)", Message: fmt.Sprintf("the file is larger than %d bytes", MaxFileBytes)}}
+	}
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.DisallowUnknownFields()
+	var s Scenario
+	if err := dec.Decode(&s); err != nil {
+		return nil, Errors{jsonError(err)}
+	}
+	if dec.More() {
+		return nil, Errors{{Field: "(file)", Message: "there is more after the scenario's closing brace"}}
+	}
+	if err := s.Validate(); err != nil {
+		return nil, err
+	}
+	return &s, nil
+}
+
+func jsonError(err error) FieldError {
+	var te *json.UnmarshalTypeError
+	var se *json.SyntaxError
+	switch {
+	case errors.As(err, &te):
+		f := te.Field
+		if f == "" {
+			f = "(file)"
+		}
+		return FieldError{Field: f, Message: fmt.Sprintf("expected %s, found a JSON %s", te.Type, te.Value)}
+	case errors.As(err, &se):
+		return FieldError{Field: "(file)", Message: fmt.Sprintf("not valid JSON at byte %d: %v", se.Offset, se)}
+	case errors.Is(err, io.EOF):
+		return FieldError{Field: "(file)", Message: "the file is empty"}
+	case errors.Is(err, io.ErrUnexpectedEOF):
+		return FieldError{Field: "(file)", Message: "the file ends in the middle of the scenario"}
+	}
+	msg := strings.TrimPrefix(err.Error(), "json: ")
+	if f, ok := strings.CutPrefix(msg, "unknown field "); ok {
+		return FieldError{Field: strings.Trim(f, `"`), Message: "unknown field; see the scenario schema for the accepted fields"}
+	}
+	return FieldError{Field: "(file)", Message: msg}
+}
+
+// Encode writes s as indented JSON.
+func Encode(w io.Writer, s *Scenario) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(s)
+}

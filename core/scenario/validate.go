@@ -1,0 +1,253 @@
+package scenario
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+)
+
+// Range is the accepted interval of one field, with its unit for messages.
+type Range struct {
+	Min, Max float64
+	Unit     string
+	// OpenMin excludes Min itself (the value must be above it).
+	OpenMin bool
+}
+
+// Ranges lists the accepted range of every numeric field by its path; []
+// stands for any list index. The page shows these beside its inputs, so
+// they are kept in this one place.
+var Ranges = map[string]Range{
+	"load.mass_kg":          {Min: 0.1, Max: 2e6, Unit: "kg"},
+	"load.rope_length_m":    {Min: MinRopeM, Max: 500, Unit: "m"},
+	"load.area_m2":          {Min: 0, Max: 2000, Unit: "m²"},
+	"load.drag_coefficient": {Min: 0, Max: 3, Unit: ""},
+	"crane.radius_m":        {Min: 0, Max: 150, Unit: "m"},
+	"crane.slew_deg":        {Min: -360, Max: 360, Unit: "deg"},
+
+	"motions[].start_s":          {Min: 0, Max: MaxRunS, Unit: "s"},
+	"motions[].distance_m":       {Min: -2000, Max: 2000, Unit: "m"},
+	"motions[].speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
+	"motions[].accel_m_per_s2":   {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
+	"motions[].decel_m_per_s2":   {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
+	"motions[].angle_deg":        {Min: -3600, Max: 3600, Unit: "deg"},
+	"motions[].rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
+	"motions[].accel_deg_per_s2": {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
+	"motions[].decel_deg_per_s2": {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
+
+	"wind.force_n":               {Min: 0, Max: 1e7, Unit: "N"},
+	"wind.speed_m_per_s":         {Min: 0, Max: 60, Unit: "m/s"},
+	"wind.shape_factor":          {Min: 0, Max: 3, Unit: ""},
+	"wind.air_density_kg_per_m3": {Min: 0, Max: 1.5, Unit: "kg/m³"},
+	"wind.toward_deg":            {Min: -360, Max: 360, Unit: "deg"},
+	"wind.start_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
+	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s"},
+
+	"initial.swing_deg":          {Min: 0, Max: 89, Unit: "deg"},
+	"initial.toward_deg":         {Min: -360, Max: 360, Unit: "deg"},
+	"initial.velocity_x_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
+	"initial.velocity_y_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
+
+	"limits.peak_swing_deg":     {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.peak_excursion_m":   {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.residual_swing_deg": {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.tension_factor":     {Min: 1, Max: 10, Unit: ""},
+
+	"settings.rel_tol":        {Min: 1e-13, Max: 1e-3, Unit: ""},
+	"settings.settle_periods": {Min: 2, Max: 50, Unit: "periods"},
+	"settings.duration_s":     {Min: 0, Max: MaxRunS, Unit: "s"},
+	"settings.samples":        {Min: 50, Max: 5000, Unit: "points"},
+}
+
+// Bounds that other packages check against.
+const (
+	// MinRopeM is the shortest rope the model accepts at any time, m.
+	MinRopeM = 0.3
+	// MaxRunS is the longest run the model simulates, s.
+	MaxRunS = 3600.0
+	// MaxRadiusM is the largest slew radius at any time, m.
+	MaxRadiusM = 150.0
+)
+
+// Profiles lists the motion profile names this version reads.
+var Profiles = []string{"trapezoid"}
+
+type checker struct{ errs Errors }
+
+func (c *checker) add(field, format string, args ...any) {
+	c.errs = append(c.errs, FieldError{Field: field, Message: fmt.Sprintf(format, args...)})
+}
+
+// RangeText is the accepted range in words, for messages.
+func (r Range) Text() string {
+	lo := "from " + num(r.Min)
+	if r.OpenMin {
+		lo = "above " + num(r.Min)
+	}
+	u := ""
+	if r.Unit != "" {
+		u = " " + r.Unit
+	}
+	return fmt.Sprintf("accepted %s up to %s%s", lo, num(r.Max), u)
+}
+
+func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// value checks v against the range named key and reports it under field.
+func (c *checker) value(field, key string, v float64) {
+	r, ok := Ranges[key]
+	if !ok {
+		panic("scenario: no range for " + key)
+	}
+	if math.IsNaN(v) || math.IsInf(v, 0) || v > r.Max || v < r.Min || (r.OpenMin && v == r.Min) {
+		c.add(field, "%s is out of range: %s", num(v), r.Text())
+	}
+}
+
+// required checks a pointer field that must be present.
+func (c *checker) required(field, key string, v *float64) {
+	if v == nil {
+		c.add(field, "is required: %s", Ranges[key].Text())
+		return
+	}
+	c.value(field, key, *v)
+}
+
+// optional checks a pointer field that may be absent.
+func (c *checker) optional(field, key string, v *float64) {
+	if v != nil {
+		c.value(field, key, *v)
+	}
+}
+
+// forbidden reports a field that does not belong to the axis.
+func (c *checker) forbidden(field string, v *float64, why string) {
+	if v != nil {
+		c.add(field, "does not apply here: %s", why)
+	}
+}
+
+// Validate checks every field of s against its accepted range and the
+// rules that tie fields together.
+func (s *Scenario) Validate() error {
+	var c checker
+	if s.Format != FormatName {
+		c.add("format", "is %q: a scenario file has format %q", s.Format, FormatName)
+	}
+	if s.Version != Version {
+		c.add("version", "%d is not supported: this build reads version %d", s.Version, Version)
+	}
+	c.required("load.mass_kg", "load.mass_kg", s.Load.MassKg)
+	c.required("load.rope_length_m", "load.rope_length_m", s.Load.RopeLengthM)
+	c.value("load.area_m2", "load.area_m2", s.Load.AreaM2)
+	c.value("load.drag_coefficient", "load.drag_coefficient", s.Load.DragCoefficient)
+	if s.Load.DragCoefficient > 0 && s.Load.AreaM2 == 0 {
+		c.add("load.area_m2", "is required when load.drag_coefficient is set: %s", Ranges["load.area_m2"].Text())
+	}
+	c.value("crane.radius_m", "crane.radius_m", s.Crane.RadiusM)
+	c.value("crane.slew_deg", "crane.slew_deg", s.Crane.SlewDeg)
+	if len(s.Motions) > 100 {
+		c.add("motions", "has %d moves: at most 100 are accepted", len(s.Motions))
+	}
+	for i := range s.Motions {
+		s.Motions[i].validate(&c, fmt.Sprintf("motions[%d]", i))
+	}
+	if w := s.Wind; w != nil {
+		w.validate(&c, s.Load.AreaM2)
+	}
+	if in := s.Initial; in != nil {
+		c.value("initial.swing_deg", "initial.swing_deg", in.SwingDeg)
+		c.value("initial.toward_deg", "initial.toward_deg", in.TowardDeg)
+		c.value("initial.velocity_x_m_per_s", "initial.velocity_x_m_per_s", in.VelocityXMPerS)
+		c.value("initial.velocity_y_m_per_s", "initial.velocity_y_m_per_s", in.VelocityYMPerS)
+	}
+	if l := s.Limits; l != nil {
+		c.optional("limits.peak_swing_deg", "limits.peak_swing_deg", l.PeakSwingDeg)
+		c.optional("limits.peak_excursion_m", "limits.peak_excursion_m", l.PeakExcursionM)
+		c.optional("limits.residual_swing_deg", "limits.residual_swing_deg", l.ResidualSwingDeg)
+		c.optional("limits.tension_factor", "limits.tension_factor", l.TensionFactor)
+	}
+	if st := s.Settings; st != nil {
+		switch st.Accuracy {
+		case "", "default", "tight":
+		default:
+			c.add("settings.accuracy", "is %q: accepted \"default\" or \"tight\"", st.Accuracy)
+		}
+		if st.RelTol != 0 {
+			c.value("settings.rel_tol", "settings.rel_tol", st.RelTol)
+		}
+		if st.SettlePeriods != 0 {
+			c.value("settings.settle_periods", "settings.settle_periods", st.SettlePeriods)
+		}
+		c.value("settings.duration_s", "settings.duration_s", st.DurationS)
+		if st.Samples != 0 {
+			c.value("settings.samples", "settings.samples", float64(st.Samples))
+		}
+	}
+	if len(c.errs) > 0 {
+		return c.errs
+	}
+	return nil
+}
+
+func (m *Motion) validate(c *checker, at string) {
+	f := func(name string) string { return at + "." + name }
+	key := func(name string) string { return "motions[]." + name }
+	switch m.Profile {
+	case "", "trapezoid":
+	default:
+		c.add(f("profile"), "is %q: accepted %q", m.Profile, Profiles)
+		return
+	}
+	c.value(f("start_s"), key("start_s"), m.StartS)
+	switch m.Axis {
+	case TravelX, TravelY, Radius, Hoist:
+		c.required(f("distance_m"), key("distance_m"), m.DistanceM)
+		c.required(f("speed_m_per_s"), key("speed_m_per_s"), m.SpeedMPerS)
+		c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
+		c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
+		why := "the " + m.Axis + " axis moves in metres; use distance_m, speed_m_per_s, accel_m_per_s2, decel_m_per_s2"
+		c.forbidden(f("angle_deg"), m.AngleDeg, why)
+		c.forbidden(f("rate_deg_per_s"), m.RateDegPerS, why)
+		c.forbidden(f("accel_deg_per_s2"), m.AccelDegPerS2, why)
+		c.forbidden(f("decel_deg_per_s2"), m.DecelDegPerS2, why)
+	case Slew:
+		c.required(f("angle_deg"), key("angle_deg"), m.AngleDeg)
+		c.required(f("rate_deg_per_s"), key("rate_deg_per_s"), m.RateDegPerS)
+		c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
+		c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
+		why := "the slew axis moves in degrees; use angle_deg, rate_deg_per_s, accel_deg_per_s2, decel_deg_per_s2"
+		c.forbidden(f("distance_m"), m.DistanceM, why)
+		c.forbidden(f("speed_m_per_s"), m.SpeedMPerS, why)
+		c.forbidden(f("accel_m_per_s2"), m.AccelMPerS2, why)
+		c.forbidden(f("decel_m_per_s2"), m.DecelMPerS2, why)
+	case "":
+		c.add(f("axis"), "is required: accepted %q", Axes)
+	default:
+		c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+	}
+}
+
+func (w *Wind) validate(c *checker, area float64) {
+	switch {
+	case w.ForceN != nil && w.SpeedMPerS != nil:
+		c.add("wind.force_n", "give either wind.force_n or wind.speed_m_per_s, not both")
+	case w.ForceN == nil && w.SpeedMPerS == nil:
+		c.add("wind.force_n", "is required (or wind.speed_m_per_s): %s", Ranges["wind.force_n"].Text())
+	}
+	c.optional("wind.force_n", "wind.force_n", w.ForceN)
+	c.optional("wind.speed_m_per_s", "wind.speed_m_per_s", w.SpeedMPerS)
+	c.value("wind.shape_factor", "wind.shape_factor", w.ShapeFactor)
+	c.value("wind.air_density_kg_per_m3", "wind.air_density_kg_per_m3", w.AirDensityKgPerM3)
+	if w.SpeedMPerS != nil {
+		if area == 0 {
+			c.add("load.area_m2", "is required when the wind is given as a speed: %s", Ranges["load.area_m2"].Text())
+		}
+		if w.ShapeFactor == 0 {
+			c.add("wind.shape_factor", "is required when the wind is given as a speed: above 0 up to 3 (about 1.2 to 2 for boxes and plates)")
+		}
+	}
+	c.value("wind.toward_deg", "wind.toward_deg", w.TowardDeg)
+	c.value("wind.start_s", "wind.start_s", w.StartS)
+	c.value("wind.duration_s", "wind.duration_s", w.DurationS)
+}

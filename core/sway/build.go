@@ -1,0 +1,238 @@
+package sway
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/pendulum"
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+)
+
+// setup is a scenario turned into a model ready to integrate.
+type setup struct {
+	model       pendulum.Model
+	y0          []float64
+	breaks      []float64 // restart times, ascending, within [0, end]
+	motionEnd   float64   // last motion at rest
+	activityEnd float64   // last motion or wind change
+	ropeEnd     float64   // rope length when all motion has ended, m
+	ropeStart   float64
+	windForce   float64 // N, while the wind blows
+	phases      []Phase
+	warnings    []string
+}
+
+// axes holds the summed profile of each axis.
+type axes struct {
+	x, y, slew, radius, hoist motion.Sum
+}
+
+func (a *axes) of(name string) *motion.Sum {
+	switch name {
+	case scenario.TravelX:
+		return &a.x
+	case scenario.TravelY:
+		return &a.y
+	case scenario.Slew:
+		return &a.slew
+	case scenario.Radius:
+		return &a.radius
+	case scenario.Hoist:
+		return &a.hoist
+	}
+	panic("sway: unknown axis " + name) // Validate rejects these first
+}
+
+func deref(p *float64, def float64) float64 {
+	if p == nil {
+		return def
+	}
+	return *p
+}
+
+// Profile builds the motion profile of one validated move, in the axis'
+// SI unit (m or rad).
+func Profile(m *scenario.Motion) *motion.Trapezoid {
+	if m.Axis == scenario.Slew {
+		acc := *m.AccelDegPerS2 * units.Degree
+		return motion.NewTrapezoid(m.StartS, *m.AngleDeg*units.Degree, *m.RateDegPerS*units.Degree,
+			acc, deref(m.DecelDegPerS2, *m.AccelDegPerS2)*units.Degree)
+	}
+	return motion.NewTrapezoid(m.StartS, *m.DistanceM, *m.SpeedMPerS, *m.AccelMPerS2,
+		deref(m.DecelMPerS2, *m.AccelMPerS2))
+}
+
+func build(s *scenario.Scenario) (*setup, error) {
+	if err := s.Validate(); err != nil {
+		return nil, err
+	}
+	su := &setup{}
+	var ax axes
+	var breaks []float64
+	for i := range s.Motions {
+		m := &s.Motions[i]
+		p := Profile(m)
+		sum := ax.of(m.Axis)
+		*sum = append(*sum, p)
+		breaks = append(breaks, p.Breakpoints()...)
+		su.motionEnd = math.Max(su.motionEnd, p.End())
+		unit, speedUnit, scale := "m", "m/s", 1.0
+		if m.Axis == scenario.Slew {
+			unit, speedUnit, scale = "deg", "deg/s", 1/units.Degree
+		}
+		if p.Triangular() {
+			su.warnings = append(su.warnings, fmt.Sprintf(
+				"Move %d (%s, %.4g %s) is too short to reach its top speed of %.4g %s: it peaks at %.4g %s (triangular speed profile).",
+				i+1, m.Axis, math.Abs(p.Distance)*scale, unit, p.Speed*scale, speedUnit, p.PeakSpeed()*scale, speedUnit))
+		}
+		bp := p.Breakpoints()
+		su.phases = append(su.phases, Phase{Motion: i, Axis: m.Axis, StartS: bp[0], EndS: bp[len(bp)-1],
+			AccelEndS: p.Start + p.PeakSpeed()/p.Accel, DecelStartS: p.End() - p.PeakSpeed()/p.Decel})
+	}
+	su.activityEnd = su.motionEnd
+
+	l0 := *s.Load.RopeLengthM
+	mass := *s.Load.MassKg
+	r0 := s.Crane.RadiusM
+	slew0 := s.Crane.SlewDeg * units.Degree
+
+	// The rope and the radius must stay in range over the whole run. Both
+	// are piecewise quadratic in time, so looking at every breakpoint and
+	// every turning point is exact; a fine grid covers overlapping moves.
+	if err := checkSpan(ax.hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
+		"load.rope_length_m", "the rope length", "m"); err != nil {
+		return nil, err
+	}
+	if err := checkSpan(ax.radius, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
+		"crane.radius_m", "the slew radius", "m"); err != nil {
+		return nil, err
+	}
+	su.ropeStart = l0
+	su.ropeEnd = l0 - ax.hoist.At(su.motionEnd+1).Pos
+	if len(ax.slew) > 0 && r0 == 0 && len(ax.radius) == 0 {
+		su.warnings = append(su.warnings, "The crane slews with the load at radius 0 m: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.")
+	}
+
+	// Wind.
+	var windDir r3.Vec
+	windOn, windOff := math.Inf(1), math.Inf(1)
+	if w := s.Wind; w != nil {
+		if w.ForceN != nil {
+			su.windForce = *w.ForceN
+		} else {
+			rho := w.AirDensityKgPerM3
+			if rho == 0 {
+				rho = units.AirDensity
+			}
+			su.windForce = 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * s.Load.AreaM2 * w.ShapeFactor
+		}
+		th := w.TowardDeg * units.Degree
+		windDir = r3.Vec{X: math.Cos(th), Y: math.Sin(th)}
+		windOn = w.StartS
+		breaks = append(breaks, w.StartS)
+		su.activityEnd = math.Max(su.activityEnd, w.StartS)
+		if w.DurationS > 0 {
+			windOff = w.StartS + w.DurationS
+			breaks = append(breaks, windOff)
+			su.activityEnd = math.Max(su.activityEnd, windOff)
+		}
+	}
+	rho := units.AirDensity
+	if s.Wind != nil && s.Wind.AirDensityKgPerM3 > 0 {
+		rho = s.Wind.AirDensityKgPerM3
+	}
+	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
+
+	su.model = pendulum.Model{
+		Mass: mass,
+		Suspension: suspension(ax.x, ax.y, ax.slew, ax.radius, r0, slew0,
+			len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0),
+		Rope: func(t float64) (float64, float64, float64) {
+			h := ax.hoist.At(t)
+			return l0 - h.Pos, -h.Vel, -h.Acc
+		},
+	}
+	if su.windForce > 0 || dragK > 0 {
+		wf := r3.Scale(su.windForce, windDir)
+		su.model.Force = func(t float64, _, vel r3.Vec) r3.Vec {
+			var f r3.Vec
+			if t >= windOn && t < windOff {
+				f = wf
+			}
+			if dragK > 0 {
+				f = r3.Sub(f, r3.Scale(dragK*r3.Norm(vel), vel))
+			}
+			return f
+		}
+	}
+
+	// Initial state.
+	var in scenario.Initial
+	if s.Initial != nil {
+		in = *s.Initial
+	}
+	su.y0 = pendulum.StateFromSwing(in.SwingDeg*units.Degree, in.TowardDeg*units.Degree,
+		in.VelocityXMPerS, in.VelocityYMPerS, l0)
+	su.breaks = breaks
+	return su, nil
+}
+
+// suspension returns the suspension point's motion: travel on x and y plus
+// a point at radius r on an arm slewed by angle phi about the origin.
+func suspension(x, y, slew, radius motion.Sum, r0, phi0 float64, slewing bool) func(float64) pendulum.Kinematics {
+	if !slewing {
+		return func(t float64) pendulum.Kinematics {
+			a, b := x.At(t), y.At(t)
+			return pendulum.Kinematics{
+				Pos: r3.Vec{X: a.Pos, Y: b.Pos},
+				Vel: r3.Vec{X: a.Vel, Y: b.Vel},
+				Acc: r3.Vec{X: a.Acc, Y: b.Acc},
+			}
+		}
+	}
+	return func(t float64) pendulum.Kinematics {
+		a, b := x.At(t), y.At(t)
+		p, q := slew.At(t), radius.At(t)
+		phi, w, al := phi0+p.Pos, p.Vel, p.Acc
+		r, rd, rdd := r0+q.Pos, q.Vel, q.Acc
+		c, s := math.Cos(phi), math.Sin(phi)
+		// Radial and tangential unit vectors er = (c, s), et = (-s, c):
+		// position r*er; velocity rd*er + r*w*et;
+		// acceleration (rdd - r*w^2)*er + (r*al + 2*rd*w)*et.
+		vr, vt := rd, r*w
+		ar, at := rdd-r*w*w, r*al+2*rd*w
+		return pendulum.Kinematics{
+			Pos: r3.Vec{X: a.Pos + r*c, Y: b.Pos + r*s},
+			Vel: r3.Vec{X: a.Vel + vr*c - vt*s, Y: b.Vel + vr*s + vt*c},
+			Acc: r3.Vec{X: a.Acc + ar*c - at*s, Y: b.Acc + ar*s + at*c},
+		}
+	}
+}
+
+// checkSpan reports an error if value(position of the summed profile)
+// leaves [lo, hi] at any time up to end.
+func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field, what, unit string) error {
+	if len(p) == 0 {
+		return nil
+	}
+	ts := p.Breakpoints()
+	// Turning points inside each piece, where the speed passes zero.
+	for i := 0; i+1 < len(ts); i++ {
+		a, b := p.At(ts[i]+1e-12), p.At(ts[i+1]-1e-12)
+		if a.Vel*b.Vel < 0 && b.Vel != a.Vel {
+			ts = append(ts, ts[i]+(ts[i+1]-ts[i])*a.Vel/(a.Vel-b.Vel))
+		}
+	}
+	for _, t := range ts {
+		v := value(p.At(t).Pos)
+		if v < lo-1e-9 || v > hi+1e-9 {
+			return scenario.Errors{{Field: field, Message: fmt.Sprintf(
+				"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, v, unit, t, lo, hi, unit)}}
+		}
+	}
+	return nil
+}

@@ -1,0 +1,257 @@
+// Package sway evaluates a scenario: it integrates the nonlinear
+// three-dimensional hook-load model of package pendulum through the crane
+// motions of the scenario and reports the figures a lift plan needs: sway
+// period, peak and residual swing, load excursion and rope tension, with
+// time histories for plots, the checks against the plan's limits and
+// warnings in plain words.
+package sway
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/mathext"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+)
+
+// Result is what an evaluation reports. SI units, angles in degrees.
+type Result struct {
+	Name string `json:"name"`
+	// PeriodS is the small-amplitude period 2*pi*sqrt(L/g) at the rope
+	// length at the end of the run.
+	PeriodS float64 `json:"period_s"`
+	// PeriodAmplitudeS is the period of a free swing of the residual
+	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)).
+	PeriodAmplitudeS float64 `json:"period_amplitude_s"`
+	// PeakSwingDeg is the largest rope angle from the vertical over the run.
+	PeakSwingDeg   float64 `json:"peak_swing_deg"`
+	PeakSwingTimeS float64 `json:"peak_swing_time_s"`
+	// PeakExcursionM is the largest horizontal distance of the load from
+	// the point under the suspension point.
+	PeakExcursionM float64 `json:"peak_excursion_m"`
+	// ResidualSwingDeg is the largest rope angle from the vertical after
+	// the last motion has ended (over at least two periods).
+	ResidualSwingDeg   float64 `json:"residual_swing_deg"`
+	ResidualExcursionM float64 `json:"residual_excursion_m"`
+	TensionMaxN        float64 `json:"tension_max_n"`
+	TensionMinN        float64 `json:"tension_min_n"`
+	// TensionFactor is TensionMaxN / (m*g).
+	TensionFactor float64 `json:"tension_factor"`
+	// StaticTensionN is m*g.
+	StaticTensionN float64 `json:"static_tension_n"`
+	// WindForceN and WindLeanDeg are the steady wind force and the rope's
+	// steady lean under it, atan(F/(m*g)).
+	WindForceN  float64 `json:"wind_force_n"`
+	WindLeanDeg float64 `json:"wind_lean_deg"`
+
+	RopeLengthStartM float64 `json:"rope_length_start_m"`
+	RopeLengthEndM   float64 `json:"rope_length_end_m"`
+	MotionEndS       float64 `json:"motion_end_s"`
+	RunS             float64 `json:"run_s"`
+
+	Checks      []Check  `json:"checks"`
+	Warnings    []string `json:"warnings"`
+	Assumptions []string `json:"assumptions"`
+	Phases      []Phase  `json:"phases"`
+	History     History  `json:"history"`
+	Solver      Stats    `json:"solver"`
+}
+
+// Check is one result held against one of the plan's limits.
+type Check struct {
+	Name   string  `json:"name"` // the Result field checked
+	Label  string  `json:"label"`
+	Value  float64 `json:"value"`
+	Limit  float64 `json:"limit"`
+	Unit   string  `json:"unit"`
+	Within bool    `json:"within"`
+}
+
+// Phase is the time span of one move, for marking plots.
+type Phase struct {
+	Motion      int     `json:"motion"`
+	Axis        string  `json:"axis"`
+	StartS      float64 `json:"start_s"`
+	AccelEndS   float64 `json:"accel_end_s"`
+	DecelStartS float64 `json:"decel_start_s"`
+	EndS        float64 `json:"end_s"`
+}
+
+// History holds evenly sampled time series, one slice per quantity.
+type History struct {
+	TimeS    []float64 `json:"time_s"`
+	SwingDeg []float64 `json:"swing_deg"`
+	RelXM    []float64 `json:"rel_x_m"` // load relative to the suspension point
+	RelYM    []float64 `json:"rel_y_m"`
+	RelZM    []float64 `json:"rel_z_m"`
+	LoadXM   []float64 `json:"load_x_m"` // load on the ground frame
+	LoadYM   []float64 `json:"load_y_m"`
+	HookXM   []float64 `json:"hook_x_m"` // suspension point on the ground frame
+	HookYM   []float64 `json:"hook_y_m"`
+	TensionN []float64 `json:"tension_n"`
+	RopeM    []float64 `json:"rope_m"`
+}
+
+// Stats describe the integration.
+type Stats struct {
+	RelTol   float64 `json:"rel_tol"`
+	Steps    int     `json:"steps"`
+	Rejected int     `json:"rejected"`
+	Evals    int     `json:"evals"`
+	// ConstraintError is the largest relative rope length error |n|-1
+	// seen before each projection.
+	ConstraintError float64 `json:"constraint_error"`
+}
+
+// Options control an evaluation beyond the scenario's own settings.
+type Options struct {
+	// NoHistory skips the time histories (for the planner's many runs).
+	NoHistory bool
+}
+
+// Tolerances of the "default" and "tight" accuracy settings.
+const (
+	DefaultRelTol = 1e-8
+	TightRelTol   = 1e-11
+)
+
+// SwingValidityDeg is the rope angle above which a warning says the
+// results leave the range this tool is meant for.
+const SwingValidityDeg = 30.0
+
+// maxSteps bounds the work of one evaluation.
+const maxSteps = 2_000_000
+
+// Assumptions is what the model takes for granted, in plain words.
+var Assumptions = []string{
+	"The load is a point mass at its centre of mass on a straight, massless rope that does not stretch; hook block and rigging are part of the rope length.",
+	"The rope length runs from the rope's upper point of rotation (trolley sheave, boom or jib tip) to the load's centre of mass.",
+	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
+	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
+	"The load does not spin, and swing of the load relative to the hook (double pendulum) is not modelled.",
+	"Wind is a steady horizontal force on the load; gusts are sudden steps; air drag, if set, is quadratic in the load's speed.",
+	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
+}
+
+// Evaluate runs one scenario with default options.
+func Evaluate(s *scenario.Scenario) (*Result, error) {
+	return EvaluateWith(s, Options{})
+}
+
+// EvaluateWith runs one scenario.
+func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
+	su, err := build(s)
+	if err != nil {
+		return nil, err
+	}
+	g := units.StandardGravity
+	mass := *s.Load.MassKg
+	var st scenario.Settings
+	if s.Settings != nil {
+		st = *s.Settings
+	}
+	relTol := DefaultRelTol
+	if st.Accuracy == "tight" {
+		relTol = TightRelTol
+	}
+	if st.RelTol != 0 {
+		relTol = st.RelTol
+	}
+	settle := st.SettlePeriods
+	if settle == 0 {
+		settle = 3
+	}
+	samples := st.Samples
+	if samples == 0 {
+		samples = 601
+	}
+	period := 2 * math.Pi * math.Sqrt(su.ropeEnd/g)
+	tEnd := math.Max(su.activityEnd+settle*period, st.DurationS)
+	if tEnd > scenario.MaxRunS {
+		return nil, scenario.Errors{{Field: "settings.duration_s", Message: fmt.Sprintf(
+			"the run would last %.4g s (motions end at %.4g s, then %.3g periods of %.4g s to measure the residual swing): at most %g s is simulated",
+			tEnd, su.activityEnd, settle, period, scenario.MaxRunS)}}
+	}
+
+	res := &Result{
+		Name:             s.Name,
+		PeriodS:          period,
+		StaticTensionN:   mass * g,
+		WindForceN:       su.windForce,
+		WindLeanDeg:      math.Atan2(su.windForce, mass*g) / units.Degree,
+		RopeLengthStartM: su.ropeStart,
+		RopeLengthEndM:   su.ropeEnd,
+		MotionEndS:       su.motionEnd,
+		RunS:             tEnd,
+		Assumptions:      Assumptions,
+		Phases:           su.phases,
+		Warnings:         append([]string{}, su.warnings...),
+	}
+	if res.Phases == nil {
+		res.Phases = []Phase{}
+	}
+	sc := newScanner(&su.model, su.motionEnd)
+	if !opt.NoHistory {
+		sc.hist = &res.History
+		sc.sampleDt = tEnd / float64(samples-1)
+		sc.samples = samples
+	}
+	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
+		return nil, err
+	}
+	res.PeakSwingDeg = sc.swing.max / units.Degree
+	res.PeakSwingTimeS = sc.swing.at
+	res.PeakExcursionM = sc.excursion.max
+	res.ResidualSwingDeg = sc.resSwing.max / units.Degree
+	res.ResidualExcursionM = sc.resExcursion.max
+	res.TensionMaxN = sc.tension.max
+	res.TensionMinN = -sc.tensionLow.max
+	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
+	k := math.Sin(sc.resSwing.max / 2)
+	res.PeriodAmplitudeS = 4 * math.Sqrt(su.ropeEnd/g) * mathext.CompleteK(k*k)
+	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
+		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
+
+	res.Checks, res.Warnings = checks(s, res, res.Warnings)
+	return res, nil
+}
+
+func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) {
+	out := []Check{}
+	add := func(name, label string, v float64, lim *float64, unit string) {
+		if lim == nil {
+			return
+		}
+		c := Check{Name: name, Label: label, Value: v, Limit: *lim, Unit: unit, Within: v <= *lim}
+		out = append(out, c)
+		if !c.Within {
+			warn = append(warn, fmt.Sprintf("%s of %.4g %s is outside the plan's limit of %.4g %s.", label, v, unit, *lim, unit))
+		}
+	}
+	if l := s.Limits; l != nil {
+		add("peak_swing_deg", "Peak swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
+		add("peak_excursion_m", "Peak excursion", r.PeakExcursionM, l.PeakExcursionM, "m")
+		add("residual_swing_deg", "Residual swing", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("tension_factor", "Tension factor", r.TensionFactor, l.TensionFactor, "")
+		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
+			warn = append(warn, fmt.Sprintf("The wind alone leans the rope %.3g deg, more than the plan's swing limit of %.3g deg: no drive setting can keep the load inside it. Wait for less wind or change the limit.", r.WindLeanDeg, *l.PeakSwingDeg))
+		}
+	}
+	if r.TensionMinN <= 0 {
+		warn = append(warn, "The rope goes slack (tension reaches zero): the model no longer holds, and the load can snatch the rope when it tightens. Reduce the motion.")
+	}
+	if r.PeakSwingDeg > SwingValidityDeg {
+		warn = append(warn, fmt.Sprintf("The rope swings %.3g deg from the vertical, above %g deg: this is outside the range the tool is meant for, and rigging, hook and crane behave in ways the model leaves out.", r.PeakSwingDeg, SwingValidityDeg))
+	}
+	if warn == nil {
+		warn = []string{}
+	}
+	return out, warn
+}
+
+// ErrStepLimit is returned when an evaluation needs more integration steps
+// than it is allowed.
+var ErrStepLimit = errors.New("sway: the computation needed too many steps; shorten the run or loosen settings.rel_tol")
