@@ -227,12 +227,17 @@ func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field,
 			ts = append(ts, ts[i]+(ts[i+1]-ts[i])*a.Vel/(a.Vel-b.Vel))
 		}
 	}
+	worst, at, bad := 0.0, 0.0, false
 	for _, t := range ts {
 		v := value(p.At(t).Pos)
-		if v < lo-1e-9 || v > hi+1e-9 {
-			return scenario.Errors{{Field: field, Message: fmt.Sprintf(
-				"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, v, unit, t, lo, hi, unit)}}
+		over := math.Max(lo-v, v-hi)
+		if over > 1e-9 && (!bad || over > math.Max(lo-worst, worst-hi)) {
+			worst, at, bad = v, t, true
 		}
+	}
+	if bad {
+		return scenario.Errors{{Field: field, Message: fmt.Sprintf(
+			"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, worst, unit, at, lo, hi, unit)}}
 	}
 	return nil
 }

@@ -58,18 +58,33 @@ const (
 	nQuantities
 )
 
+// value is the quantity q at p, or a cheaper quantity that rises and falls
+// with it: for the swing angle theta, 1 - cos(theta) = 1 + n_z (written so
+// that it keeps its precision near the vertical); for the excursion, its
+// square. swingDeg and excursionM turn them back.
 func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 	switch q {
 	case qSwing:
-		return p.SwingRad()
+		n := p.Dir
+		if n.Z < 0 {
+			return (n.X*n.X + n.Y*n.Y) / (1 - n.Z)
+		}
+		return 1 + n.Z
 	case qExcursion:
-		return p.Excursion()
+		return p.Rope * p.Rope * (p.Dir.X*p.Dir.X + p.Dir.Y*p.Dir.Y)
 	case qTension:
 		return p.Tension
 	default:
 		return -p.Tension
 	}
 }
+
+// swingRad turns the swing value back into the angle:
+// 1 - cos(theta) = 2*sin^2(theta/2).
+func swingRad(v float64) float64 { return 2 * math.Asin(math.Sqrt(math.Max(0, math.Min(1, v/2)))) }
+
+// excursionM turns the excursion value back into metres.
+func excursionM(v float64) float64 { return math.Sqrt(math.Max(0, v)) }
 
 func (s *scanner) ext(q quantity, residual bool) *extremum {
 	switch q {
@@ -99,7 +114,7 @@ func (s *scanner) at(t float64) *pendulum.Point {
 }
 
 // interior is the number of points looked at inside each step.
-const interior = 4
+const interior = 3
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
 	s.solver = ode.New(s.model.Func, pendulum.StateLen, ode.Settings{

@@ -114,7 +114,7 @@ type Options struct {
 
 // Tolerances of the "default" and "tight" accuracy settings.
 const (
-	DefaultRelTol = 1e-8
+	DefaultRelTol = 1e-7
 	TightRelTol   = 1e-11
 )
 
@@ -202,15 +202,15 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
 		return nil, err
 	}
-	res.PeakSwingDeg = sc.swing.max / units.Degree
+	res.PeakSwingDeg = swingRad(sc.swing.max) / units.Degree
 	res.PeakSwingTimeS = sc.swing.at
-	res.PeakExcursionM = sc.excursion.max
-	res.ResidualSwingDeg = sc.resSwing.max / units.Degree
-	res.ResidualExcursionM = sc.resExcursion.max
+	res.PeakExcursionM = excursionM(sc.excursion.max)
+	res.ResidualSwingDeg = swingRad(sc.resSwing.max) / units.Degree
+	res.ResidualExcursionM = excursionM(sc.resExcursion.max)
 	res.TensionMaxN = sc.tension.max
 	res.TensionMinN = -sc.tensionLow.max
 	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
-	k := math.Sin(sc.resSwing.max / 2)
+	k := math.Sin(res.ResidualSwingDeg * units.Degree / 2)
 	res.PeriodAmplitudeS = 4 * math.Sqrt(su.ropeEnd/g) * mathext.CompleteK(k*k)
 	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
 		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
