@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
@@ -121,13 +122,16 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
 	})
 	y := append([]float64(nil), y0...)
-	// Segments between restarts.
+	// Segments between restarts. The breakpoints come move by move and
+	// from the wind, so they are sorted here: an unsorted list would skip
+	// every restart that comes after a later one.
 	var cuts []float64
 	for _, b := range breaks {
 		if b > 1e-12 && b < tEnd-1e-12 {
 			cuts = append(cuts, b)
 		}
 	}
+	sort.Float64s(cuts)
 	cuts = append(cuts, tEnd)
 
 	t := 0.0
@@ -169,9 +173,14 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
-					interiorMax := j > 0 && j < interior+1 && v >= vs[q][j-1] && v >= vs[q][j+1]
-					if interiorMax && (v > e.max || (r != nil && v > r.max)) {
-						tm, vm := s.refine(q, ts[j-1], ts[j+1])
+					// A sample at least as large as its neighbours in the
+					// step brackets a maximum. At the first or last sample
+					// of the step the maximum may still lie just inside
+					// the step, between it and the next sample in.
+					lo, hi := max(j-1, 0), min(j+1, interior+1)
+					localMax := v >= vs[q][lo] && v >= vs[q][hi]
+					if localMax && (v > e.max || (r != nil && v > r.max)) {
+						tm, vm := s.refine(q, ts[lo], ts[hi])
 						if vm > v {
 							v, tt := vm, tm
 							e.offer(v, tt)
