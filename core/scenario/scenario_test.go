@@ -169,18 +169,25 @@ func TestSchemaMatchesRanges(t *testing.T) {
 	}
 	props := sch["properties"].(map[string]any)
 	for key, r := range Ranges {
-		obj, field, _ := strings.Cut(key, ".")
-		var p map[string]any
-		if obj == "motions[]" {
-			p = props["motions"].(map[string]any)["items"].(map[string]any)
-		} else {
-			p = props[obj].(map[string]any)
+		parts := strings.Split(key, ".")
+		node := sch
+		for _, part := range parts {
+			if part == "motions[]" {
+				node = props["motions"].(map[string]any)["items"].(map[string]any)
+				continue
+			}
+			next, ok := node["properties"].(map[string]any)[part].(map[string]any)
+			if !ok {
+				t.Errorf("schema lacks %s at %s", key, part)
+				node = nil
+				break
+			}
+			node = next
 		}
-		f, ok := p["properties"].(map[string]any)[field].(map[string]any)
-		if !ok {
-			t.Errorf("schema lacks %s", key)
+		if node == nil {
 			continue
 		}
+		f := node
 		lo, loKey := f["minimum"], "minimum"
 		if r.OpenMin {
 			lo, loKey = f["exclusiveMinimum"], "exclusiveMinimum"

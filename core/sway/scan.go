@@ -6,6 +6,8 @@ import (
 	"math"
 	"sort"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
@@ -28,12 +30,15 @@ func (e *extremum) offer(v, t float64) bool {
 // scanner integrates the model and watches every step for extremes,
 // locating each to the accuracy of the dense output.
 type scanner struct {
-	model     *pendulum.Model
+	model     pendulum.System
 	solver    *ode.Solver
 	motionEnd float64
+	nq        quantity // quantities watched: all of them with rigging
 
-	swing, excursion, resSwing, resExcursion, tension, tensionLow extremum
-	constraintErr                                                 float64
+	ext           [nQuantities]extremum
+	resSwing      extremum // swing after the last motion
+	resExcursion  extremum
+	constraintErr float64
 
 	hist     *History
 	sampleDt float64
@@ -44,8 +49,12 @@ type scanner struct {
 	pt pendulum.Point
 }
 
-func newScanner(m *pendulum.Model, motionEnd float64) *scanner {
-	return &scanner{model: m, motionEnd: motionEnd, y: make([]float64, pendulum.StateLen)}
+func newScanner(m pendulum.System, motionEnd float64) *scanner {
+	nq := qRigAngle
+	if _, ok := m.(*pendulum.Double); ok {
+		nq = nQuantities
+	}
+	return &scanner{model: m, motionEnd: motionEnd, nq: nq, y: make([]float64, m.Len())}
 }
 
 // quantity is one scalar watched along the run.
@@ -56,28 +65,51 @@ const (
 	qExcursion
 	qTension
 	qTensionLow
+	// With a hook block and rigging:
+	qRigAngle  // angle between rope and rigging
+	qRopeSwing // the rope's own angle from the vertical
+	qRigTension
+	qRigTensionLow
 	nQuantities
 )
 
 // value is the quantity q at p, or a cheaper quantity that rises and falls
-// with it: for the swing angle theta, 1 - cos(theta) = 1 + n_z (written so
-// that it keeps its precision near the vertical); for the excursion, its
-// square. swingDeg and excursionM turn them back.
+// with it: for an angle theta from the vertical, 1 - cos(theta) (written
+// so that it keeps its precision near the vertical); for the excursion,
+// its square. swingRad and excursionM turn them back.
 func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 	switch q {
 	case qSwing:
-		n := p.Dir
-		if n.Z < 0 {
-			return (n.X*n.X + n.Y*n.Y) / (1 - n.Z)
-		}
-		return 1 + n.Z
+		return oneMinusCos(p.Rel(), r3.Vec{Z: -1})
 	case qExcursion:
-		return p.Rope * p.Rope * (p.Dir.X*p.Dir.X + p.Dir.Y*p.Dir.Y)
+		d := p.Rel()
+		return d.X*d.X + d.Y*d.Y
 	case qTension:
 		return p.Tension
-	default:
+	case qTensionLow:
 		return -p.Tension
+	case qRigAngle:
+		return oneMinusCos(p.RiggingDir, p.Dir)
+	case qRopeSwing:
+		return oneMinusCos(p.Dir, r3.Vec{Z: -1})
+	case qRigTension:
+		return p.RiggingTension
+	default:
+		return -p.RiggingTension
 	}
+}
+
+// oneMinusCos is 1 - cos of the angle between d and the unit vector e:
+// |d x e|^2 / (|d| (|d| + d.e)) where d.e > 0, which keeps its precision
+// for small angles.
+func oneMinusCos(d, e r3.Vec) float64 {
+	l := r3.Norm(d)
+	c := r3.Dot(d, e)
+	if c > 0 {
+		x := r3.Cross(d, e)
+		return r3.Dot(x, x) / (l * (l + c))
+	}
+	return 1 - c/l
 }
 
 // swingRad turns the swing value back into the angle:
@@ -87,29 +119,21 @@ func swingRad(v float64) float64 { return 2 * math.Asin(math.Sqrt(math.Max(0, ma
 // excursionM turns the excursion value back into metres.
 func excursionM(v float64) float64 { return math.Sqrt(math.Max(0, v)) }
 
-func (s *scanner) ext(q quantity, residual bool) *extremum {
+// residualOf is the residual tracker of q, or nil.
+func (s *scanner) residualOf(q quantity) *extremum {
 	switch q {
 	case qSwing:
-		if residual {
-			return &s.resSwing
-		}
-		return &s.swing
+		return &s.resSwing
 	case qExcursion:
-		if residual {
-			return &s.resExcursion
-		}
-		return &s.excursion
-	case qTension:
-		return &s.tension
-	default:
-		return &s.tensionLow
+		return &s.resExcursion
 	}
+	return nil
 }
 
 // at evaluates the load at time t inside the last step.
 func (s *scanner) at(t float64) *pendulum.Point {
 	s.solver.Dense(t, s.y)
-	pendulum.Project(s.y)
+	s.model.Project(s.y)
 	s.model.Eval(t, s.y, &s.pt)
 	return &s.pt
 }
@@ -118,7 +142,7 @@ func (s *scanner) at(t float64) *pendulum.Point {
 const interior = 3
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
-	s.solver = ode.New(s.model.Func, pendulum.StateLen, ode.Settings{
+	s.solver = ode.New(s.model.Func, s.model.Len(), ode.Settings{
 		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
 	})
 	y := append([]float64(nil), y0...)
@@ -161,15 +185,15 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				tt := t0 + (t1-t0)*float64(j)/(interior+1)
 				p := s.at(tt)
 				ts[j] = tt
-				for q := range nQuantities {
+				for q := range s.nq {
 					vs[q][j] = s.value(q, p)
 				}
 			}
-			for q := range nQuantities {
-				e := s.ext(q, false)
+			for q := range s.nq {
+				e := &s.ext[q]
 				var r *extremum
-				if q <= qExcursion && residual {
-					r = s.ext(q, true)
+				if residual {
+					r = s.residualOf(q)
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
@@ -199,7 +223,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			s.emitSamples(t0, t1)
 			// Back onto the constraint for the next step.
 			y := s.solver.State()
-			if d := pendulum.Project(y); d > s.constraintErr {
+			if d := s.model.Project(y); d > s.constraintErr {
 				s.constraintErr = d
 			}
 			s.solver.SetState(y)
@@ -245,11 +269,11 @@ func (s *scanner) refine(q quantity, a, b float64) (float64, float64) {
 }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
-	for q := range nQuantities {
+	for q := range s.nq {
 		v := s.value(q, p)
-		s.ext(q, false).offer(v, p.T)
-		if q <= qExcursion && p.T >= s.motionEnd-1e-12 {
-			s.ext(q, true).offer(v, p.T)
+		s.ext[q].offer(v, p.T)
+		if r := s.residualOf(q); r != nil && p.T >= s.motionEnd-1e-12 {
+			r.offer(v, p.T)
 		}
 	}
 }
@@ -274,10 +298,7 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 
 func (s *scanner) record(p *pendulum.Point) {
 	h := s.hist
-	rel := p.LoadPos
-	rel.X -= p.Suspension.Pos.X
-	rel.Y -= p.Suspension.Pos.Y
-	rel.Z -= p.Suspension.Pos.Z
+	rel := p.Rel()
 	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
 	h.SwingDeg = append(h.SwingDeg, p.SwingRad()/units.Degree)
 	h.RelXM = append(h.RelXM, rel.X)
@@ -285,8 +306,8 @@ func (s *scanner) record(p *pendulum.Point) {
 	h.RelZM = append(h.RelZM, rel.Z)
 	h.LoadXM = append(h.LoadXM, p.LoadPos.X)
 	h.LoadYM = append(h.LoadYM, p.LoadPos.Y)
-	h.HookXM = append(h.HookXM, p.Suspension.Pos.X)
-	h.HookYM = append(h.HookYM, p.Suspension.Pos.Y)
+	h.SuspensionXM = append(h.SuspensionXM, p.Suspension.Pos.X)
+	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
 	s.next++
