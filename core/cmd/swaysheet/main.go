@@ -87,6 +87,14 @@ func printSummary(w io.Writer, file string, r *sway.Result) {
 	if r.WindForceN > 0 {
 		row("wind lean", r.WindLeanDeg, "deg")
 	}
+	if rg := r.Rigging; rg != nil {
+		row("mode periods (linear)", rg.ModePeriodsS[0], fmt.Sprintf("s and %.4g s", rg.ModePeriodsS[1]))
+		row("mode periods (simulated)", rg.SimulatedPeriodsS[0], fmt.Sprintf("s and %.4g s", rg.SimulatedPeriodsS[1]))
+		row("second mode share", 100*rg.SecondModeShare, "%")
+		row("peak rope swing", rg.PeakRopeSwingDeg, "deg")
+		row("peak rigging angle to rope", rg.PeakRiggingAngleDeg, "deg")
+		row("rigging tension max", rg.RiggingTensionMaxN/1000, "kN")
+	}
 	row("run", r.RunS, "s")
 	tw.Flush()
 	for _, c := range r.Checks {
