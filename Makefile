@@ -40,8 +40,16 @@ test-wasm:
 test-browser:
 	@echo "browser tests: none yet"
 
-bench:
-	$(GO) test -run '^$$' -bench . -benchtime 200x ./core/...
+# Speed and size, side by side, in one table (see README "Benchmarks").
+BENCH := $(OUT)/bench
+bench: deps
+	@mkdir -p $(BENCH)
+	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... | tee $(BENCH)/go-bench.txt
+	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
+	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
+	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	@echo
+	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
 
 clean:
 	rm -rf $(OUT) dist
