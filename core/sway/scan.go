@@ -139,7 +139,7 @@ func (s *scanner) at(t float64) *pendulum.Point {
 }
 
 // interior is the number of points looked at inside each step.
-const interior = 3
+const interior = 2
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
 	s.solver = ode.New(s.model.Func, s.model.Len(), ode.Settings{
@@ -169,6 +169,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			continue
 		}
 		s.solver.Reset(t, s.solver.State())
+		carry := false // the first sample of the step is the last of the one before
 		for {
 			done, err := s.solver.Step(cut)
 			if err != nil {
@@ -181,7 +182,16 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any
 			// interior maximum that beats the best so far.
+			if carry {
+				ts[0] = t0
+				for q := range s.nq {
+					vs[q][0] = vs[q][interior+1]
+				}
+			}
 			for j := 0; j < interior+2; j++ {
+				if j == 0 && carry {
+					continue
+				}
 				tt := t0 + (t1-t0)*float64(j)/(interior+1)
 				p := s.at(tt)
 				ts[j] = tt
@@ -204,7 +214,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 					lo, hi := max(j-1, 0), min(j+1, interior+1)
 					localMax := v >= vs[q][lo] && v >= vs[q][hi]
 					if localMax && (v > e.max || (r != nil && v > r.max)) {
-						tm, vm := s.refine(q, ts[lo], ts[hi])
+						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
 						if vm > v {
 							v, tt := vm, tm
 							e.offer(v, tt)
@@ -221,12 +231,15 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 			}
 			s.emitSamples(t0, t1)
-			// Back onto the constraint for the next step.
+			carry = true
+			// Back onto the constraint for the next step. The slope at the
+			// step's end is kept: it differs from the slope at the
+			// projected state by the size of the projection, far below the
+			// local error, and it saves an evaluation per step.
 			y := s.solver.State()
 			if d := s.model.Project(y); d > s.constraintErr {
 				s.constraintErr = d
 			}
-			s.solver.SetState(y)
 			if done {
 				break
 			}
@@ -243,29 +256,53 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	return nil
 }
 
-// refine finds the maximum of quantity q in [a, b] by golden-section search
-// on the dense output.
-func (s *scanner) refine(q quantity, a, b float64) (float64, float64) {
-	const inv = 0.6180339887498949
-	c := b - inv*(b-a)
-	d := a + inv*(b-a)
-	fc := s.value(q, s.at(c))
-	fd := s.value(q, s.at(d))
-	for i := 0; i < 40 && b-a > 1e-9*(1+math.Abs(b)); i++ {
-		if fc > fd {
-			b, d, fd = d, c, fc
-			c = b - inv*(b-a)
-			fc = s.value(q, s.at(c))
-		} else {
-			a, c, fc = c, d, fd
-			d = a + inv*(b-a)
-			fd = s.value(q, s.at(d))
+// refine finds the maximum of quantity q near m, given its values at
+// a <= m <= b, by successive parabolic interpolation on the dense output
+// (R. P. Brent, "Algorithms for Minimization without Derivatives", 1973,
+// ch. 5, without the golden-section fallback: the bracket is a small part
+// of a step, where the quantity is smooth). When m is at an end of the
+// bracket, its midpoint is looked at first.
+func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
+	if m <= a || m >= b {
+		m = 0.5 * (a + b)
+		fm = s.value(q, s.at(m))
+	}
+	for range 8 {
+		if fm < fa || fm < fb {
+			// Not bracketed: the largest value is at an end.
+			if fa > fb {
+				return a, fa
+			}
+			return b, fb
+		}
+		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
+		den := (m-a)*(fm-fb) - (m-b)*(fm-fa)
+		if den == 0 {
+			break
+		}
+		x := m - 0.5*num/den
+		if !(x > a && x < b) {
+			break
+		}
+		fx := s.value(q, s.at(x))
+		if math.Abs(x-m) <= 1e-7*(b-a) {
+			if fx > fm {
+				m, fm = x, fx
+			}
+			break
+		}
+		switch {
+		case x < m && fx >= fm:
+			b, fb, m, fm = m, fm, x, fx
+		case x < m:
+			a, fa = x, fx
+		case fx >= fm:
+			a, fa, m, fm = m, fm, x, fx
+		default:
+			b, fb = x, fx
 		}
 	}
-	if fc > fd {
-		return c, fc
-	}
-	return d, fd
+	return m, fm
 }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
