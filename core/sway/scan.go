@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
@@ -106,13 +107,16 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
 	})
 	y := append([]float64(nil), y0...)
-	// Segments between restarts.
+	// Segments between restarts. The breakpoints come move by move and
+	// from the wind, so they are sorted here: an unsorted list would skip
+	// every restart that comes after a later one.
 	var cuts []float64
 	for _, b := range breaks {
 		if b > 1e-12 && b < tEnd-1e-12 {
 			cuts = append(cuts, b)
 		}
 	}
+	sort.Float64s(cuts)
 	cuts = append(cuts, tEnd)
 
 	t := 0.0
@@ -154,9 +158,31 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
-					interiorMax := j > 0 && j < interior+1 && v >= vs[q][j-1] && v >= vs[q][j+1]
-					if interiorMax && (v > e.max || (r != nil && v > r.max)) {
-						tm, vm := s.refine(q, ts[j-1], ts[j+1])
+					// Refine a sample that may be the top of a peak and may
+					// beat the best so far once refined (the top lies above
+					// the samples by at most an eighth of their second
+					// difference; a full one is allowed). Inside the step
+					// that is a sample at least as large as both its
+					// neighbours. At the first or last sample the peak may
+					// lie just inside the step or just outside it: look
+					// which way the quantity moves at the step's end.
+					lo, hi := max(j-1, 0), min(j+1, interior+1)
+					localMax := v >= vs[q][lo] && v >= vs[q][hi]
+					if localMax {
+						k := min(max(j, 1), interior)
+						slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
+						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
+					}
+					if localMax && (j == 0 || j == interior+1) {
+						eps := 1e-6 * (t1 - t0)
+						if j == 0 {
+							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
+						} else {
+							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
+						}
+					}
+					if localMax {
+						tm, vm := s.refine(q, ts[lo], ts[hi])
 						if vm > v {
 							v, tt := vm, tm
 							e.offer(v, tt)
@@ -203,7 +229,10 @@ func (s *scanner) refine(q quantity, a, b float64) (float64, float64) {
 	d := a + inv*(b-a)
 	fc := s.value(q, s.at(c))
 	fd := s.value(q, s.at(d))
-	for i := 0; i < 40 && b-a > 1e-9*(1+math.Abs(b)); i++ {
+	// Near its top a peak is flat: narrowing the bracket to 1e-5 of its
+	// width leaves the value within about 1e-10 of the variation across it.
+	stop := math.Max(1e-5*(b-a), 1e-12*(1+math.Abs(b)))
+	for i := 0; i < 40 && b-a > stop; i++ {
 		if fc > fd {
 			b, d, fd = d, c, fc
 			c = b - inv*(b-a)

@@ -371,7 +371,7 @@ def solve(model, rtol=RTOL, atol=ATOL, per_step=8):
                 j = int(np.argmax(vals))
                 tm, vm = tt[j], vals[j]
                 lo, hi = max(j - 1, 0), min(j + 1, per_step)
-                if vm >= min(p.v for p in targets) - 1e-4 * abs(vm):
+                if vm >= min(p.v for p in targets) - 1e-2 * abs(vm):
                     col = {"swing": 0, "exc": 1, "ten": 2, "neg_ten": 2}[name]
                     sgn = -1.0 if name == "neg_ten" else 1.0
 
