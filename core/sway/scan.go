@@ -40,6 +40,8 @@ type scanner struct {
 	resExcursion  extremum
 	constraintErr float64
 
+	segStart, segEnd float64 // the segment between restarts being integrated
+
 	hist     *History
 	sampleDt float64
 	samples  int
@@ -134,15 +136,32 @@ func (s *scanner) residualOf(q quantity) *extremum {
 func (s *scanner) at(t float64) *pendulum.Point {
 	s.solver.Dense(t, s.y)
 	s.model.Project(s.y)
-	s.model.Eval(t, s.y, &s.pt)
-	return &s.pt
+	s.model.Eval(s.inSegment(t), s.y, &s.pt)
+	p := &s.pt
+	p.T = t
+	return p
 }
+
+// inSegment moves t just inside the current segment between restarts.
+// The motions' accelerations jump at the segment's ends; evaluating the
+// model a hair inside makes every evaluation of a segment, the solver's
+// and the scanner's, see that segment's own acceleration and not the next
+// one's. The shift, 1e-12 of the time, moves positions by far less than
+// the integration error.
+func (s *scanner) inSegment(t float64) float64 {
+	d := 1e-12 * math.Max(1, math.Abs(t))
+	return math.Max(s.segStart+d, math.Min(s.segEnd-d, t))
+}
+
+// fn is the right-hand side the solver integrates: the model's, inside the
+// current segment.
+func (s *scanner) fn(t float64, y, dy []float64) { s.model.Func(s.inSegment(t), y, dy) }
 
 // interior is the number of points looked at inside each step.
 const interior = 2
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
-	s.solver = ode.New(s.model.Func, s.model.Len(), ode.Settings{
+	s.solver = ode.New(s.fn, s.model.Len(), ode.Settings{
 		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
 	})
 	y := append([]float64(nil), y0...)
@@ -160,7 +179,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 
 	t := 0.0
 	s.solver.Reset(0, y)
-	s.model.Eval(0, y, &s.pt)
+	s.segStart, s.segEnd = 0, cuts[0]
+	s.model.Eval(s.inSegment(0), y, &s.pt)
+	s.pt.T = 0
 	s.observePoint(&s.pt)
 	var ts [interior + 2]float64
 	var vs [nQuantities][interior + 2]float64
@@ -168,6 +189,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		if cut <= t {
 			continue
 		}
+		s.segStart, s.segEnd = t, cut
 		s.solver.Reset(t, s.solver.State())
 		carry := false // the first sample of the step is the last of the one before
 		for {
@@ -207,13 +229,30 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
-					// A sample at least as large as its neighbours in the
-					// step brackets a maximum. At the first or last sample
-					// of the step the maximum may still lie just inside
-					// the step, between it and the next sample in.
+					// Refine a sample that may be the top of a peak and may
+					// beat the best so far once refined (the top lies above
+					// the samples by at most an eighth of their second
+					// difference; a full one is allowed). Inside the step
+					// that is a sample at least as large as both its
+					// neighbours. At the first or last sample the peak may
+					// lie just inside the step or just outside it: look
+					// which way the quantity moves at the step's end.
 					lo, hi := max(j-1, 0), min(j+1, interior+1)
 					localMax := v >= vs[q][lo] && v >= vs[q][hi]
-					if localMax && (v > e.max || (r != nil && v > r.max)) {
+					if localMax {
+						k := min(max(j, 1), interior)
+						slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
+						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
+					}
+					if localMax && (j == 0 || j == interior+1) {
+						eps := 1e-6 * (t1 - t0)
+						if j == 0 {
+							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
+						} else {
+							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
+						}
+					}
+					if localMax {
 						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
 						if vm > v {
 							v, tt := vm, tm
@@ -249,7 +288,8 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	if s.hist != nil {
 		// The last sample falls on tEnd exactly.
 		for s.next < s.samples {
-			s.model.Eval(tEnd, s.solver.State(), &s.pt)
+			s.model.Eval(s.inSegment(tEnd), s.solver.State(), &s.pt)
+			s.pt.T = tEnd
 			s.record(&s.pt)
 		}
 	}
@@ -259,21 +299,29 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 // refine finds the maximum of quantity q near m, given its values at
 // a <= m <= b, by successive parabolic interpolation on the dense output
 // (R. P. Brent, "Algorithms for Minimization without Derivatives", 1973,
-// ch. 5, without the golden-section fallback: the bracket is a small part
-// of a step, where the quantity is smooth). When m is at an end of the
-// bracket, its midpoint is looked at first.
+// ch. 5, with halving in place of the golden-section fallback: the
+// bracket is a small part of a step, where the quantity is smooth). When m
+// is at an end of the bracket, its midpoint is looked at first.
 func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
 	if m <= a || m >= b {
 		m = 0.5 * (a + b)
 		fm = s.value(q, s.at(m))
 	}
-	for range 8 {
+	for range 30 {
 		if fm < fa || fm < fb {
-			// Not bracketed: the largest value is at an end.
+			// Not bracketed: the top lies toward the larger end, between
+			// it and m. Halve toward it and look again.
 			if fa > fb {
-				return a, fa
+				b, fb = m, fm
+			} else {
+				a, fa = m, fm
 			}
-			return b, fb
+			if b-a <= 1e-9*(1+math.Abs(b)) {
+				break
+			}
+			m = 0.5 * (a + b)
+			fm = s.value(q, s.at(m))
+			continue
 		}
 		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
 		den := (m-a)*(fm-fb) - (m-b)*(fm-fa)
@@ -301,6 +349,12 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 		default:
 			b, fb = x, fx
 		}
+	}
+	switch {
+	case fa > fm && fa >= fb:
+		return a, fa
+	case fb > fm:
+		return b, fb
 	}
 	return m, fm
 }
