@@ -54,6 +54,8 @@ type Scenario struct {
 	Settings *Settings `json:"settings,omitempty"`
 	// Sheet holds the user's reference fields for the printed check sheet.
 	Sheet *Sheet `json:"sheet,omitempty"`
+	// Plan asks the planner for drive settings (see profiles.go).
+	Plan *Plan `json:"plan,omitempty"`
 }
 
 // Load is the hook load and its rope.
@@ -108,6 +110,9 @@ type Motion struct {
 	RateDegPerS   *float64 `json:"rate_deg_per_s,omitempty"`
 	AccelDegPerS2 *float64 `json:"accel_deg_per_s2,omitempty"`
 	DecelDegPerS2 *float64 `json:"decel_deg_per_s2,omitempty"`
+
+	// Fields of the other profiles and the input shaper (see profiles.go).
+	ProfileFields
 }
 
 // Wind is a steady horizontal force on the load, given directly or from a

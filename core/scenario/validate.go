@@ -72,7 +72,7 @@ const (
 )
 
 // Profiles lists the motion profile names this version reads.
-var Profiles = []string{"trapezoid"}
+var Profiles = []string{ProfileTrapezoid, ProfileSCurve, ProfileSteps, ProfileHardStop, ProfileSeries}
 
 type checker struct{ errs Errors }
 
@@ -190,6 +190,9 @@ func (s *Scenario) Validate() error {
 			c.value("settings.samples", "settings.samples", float64(st.Samples))
 		}
 	}
+	if p := s.Plan; p != nil {
+		p.validate(&c, s)
+	}
 	if len(c.errs) > 0 {
 		return c.errs
 	}
@@ -200,11 +203,17 @@ func (m *Motion) validate(c *checker, at string) {
 	f := func(name string) string { return at + "." + name }
 	key := func(name string) string { return "motions[]." + name }
 	switch m.Profile {
-	case "", "trapezoid":
+	case "", ProfileTrapezoid, ProfileSCurve:
+		m.validateProfile(c, at) // the S-curve's rounding; nothing else belongs here
+	case ProfileSteps, ProfileHardStop, ProfileSeries:
+		m.validateProfile(c, at)
+		m.validateShaper(c, at)
+		return
 	default:
 		c.add(f("profile"), "is %q: accepted %q", m.Profile, Profiles)
 		return
 	}
+	m.validateShaper(c, at)
 	c.value(f("start_s"), key("start_s"), m.StartS)
 	switch m.Axis {
 	case TravelX, TravelY, Radius, Hoist:

@@ -54,8 +54,9 @@ func deref(p *float64, def float64) float64 {
 	return *p
 }
 
-// Profile builds the motion profile of one validated move, in the axis'
-// SI unit (m or rad).
+// Profile builds the trapezoidal profile of one validated move, in the
+// axis' SI unit (m or rad), from its distance, speed and ramps (start_s
+// included, shaper not). BuildProfile builds every profile kind.
 func Profile(m *scenario.Motion) *motion.Trapezoid {
 	if m.Axis == scenario.Slew {
 		acc := *m.AccelDegPerS2 * units.Degree
@@ -75,23 +76,18 @@ func build(s *scenario.Scenario) (*setup, error) {
 	var breaks []float64
 	for i := range s.Motions {
 		m := &s.Motions[i]
-		p := Profile(m)
+		p, err := BuildProfile(s, m)
+		if err != nil {
+			return nil, err
+		}
 		sum := ax.of(m.Axis)
 		*sum = append(*sum, p)
 		breaks = append(breaks, p.Breakpoints()...)
 		su.motionEnd = math.Max(su.motionEnd, p.End())
-		unit, speedUnit, scale := "m", "m/s", 1.0
-		if m.Axis == scenario.Slew {
-			unit, speedUnit, scale = "deg", "deg/s", 1/units.Degree
+		if w := profileWarning(i, m, p); w != "" {
+			su.warnings = append(su.warnings, w)
 		}
-		if p.Triangular() {
-			su.warnings = append(su.warnings, fmt.Sprintf(
-				"Move %d (%s, %.4g %s) is too short to reach its top speed of %.4g %s: it peaks at %.4g %s (triangular speed profile).",
-				i+1, m.Axis, math.Abs(p.Distance)*scale, unit, p.Speed*scale, speedUnit, p.PeakSpeed()*scale, speedUnit))
-		}
-		bp := p.Breakpoints()
-		su.phases = append(su.phases, Phase{Motion: i, Axis: m.Axis, StartS: bp[0], EndS: bp[len(bp)-1],
-			AccelEndS: p.Start + p.PeakSpeed()/p.Accel, DecelStartS: p.End() - p.PeakSpeed()/p.Decel})
+		su.phases = append(su.phases, phaseOf(i, m.Axis, p))
 	}
 	su.activityEnd = su.motionEnd
 

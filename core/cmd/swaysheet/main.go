@@ -1,7 +1,10 @@
 // Command swaysheet evaluates scenario files and prints the result as JSON,
-// or as a short table with -summary.
+// or as a short table with -summary. With -plan it runs the planning
+// request of each file (its "plan" block) and prints the ranked table of
+// drive settings, or the plan as JSON with -json.
 //
 //	go run ./core/cmd/swaysheet [-summary] [-no-history] FILE.json ...
+//	go run ./core/cmd/swaysheet -plan [-json] FILE.json ...
 package main
 
 import (
@@ -25,8 +28,11 @@ func run(args []string, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	summary := fs.Bool("summary", false, "print a short table instead of the result JSON")
 	noHistory := fs.Bool("no-history", false, "leave the time histories out of the result JSON")
+	planning := fs.Bool("plan", false, "plan the scenario's move: print the ranked table of drive settings")
+	planJSON := fs.Bool("json", false, "with -plan: print the plan as JSON instead of the table")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
+		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -35,6 +41,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if fs.NArg() == 0 {
 		fs.Usage()
 		return 2
+	}
+	if *planning {
+		return runPlans(fs.Args(), *planJSON, stdout, stderr)
 	}
 	status := 0
 	for _, name := range fs.Args() {

@@ -1,0 +1,301 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/scenario"
+	"swaysheet/core/shaper"
+	"swaysheet/core/units"
+)
+
+// axisUnit is the axis' display unit per SI unit (1 for m, 1/deg for rad).
+func (rq *request) axisUnit() float64 {
+	if rq.slew {
+		return 1 / units.Degree
+	}
+	return 1
+}
+
+func (rq *request) speedText(v float64) string {
+	if rq.slew {
+		d := v / units.Degree
+		rpm, _ := units.FromSI("angular_speed", "rpm", d)
+		return fmt.Sprintf("%.3g deg/s (%.3g rpm)", d, rpm)
+	}
+	mpm, _ := units.FromSI("speed", "m/min", v)
+	return fmt.Sprintf("%.3g m/s (%.3g m/min)", v, mpm)
+}
+
+func (rq *request) accelText(a float64) string {
+	if rq.slew {
+		return fmt.Sprintf("%.3g deg/s²", a/units.Degree)
+	}
+	return fmt.Sprintf("%.3g m/s²", a)
+}
+
+// motionFor is a trapezoidal scenario move of the planned axis, SI inputs.
+func (rq *request) motionFor(a, v float64) scenario.Motion {
+	f := func(x float64) *float64 { return &x }
+	m := scenario.Motion{Axis: rq.s.Plan.Axis, Profile: scenario.ProfileTrapezoid}
+	if rq.slew {
+		d := units.Degree
+		m.AngleDeg, m.RateDegPerS, m.AccelDegPerS2, m.DecelDegPerS2 = f(rq.dist/d), f(v/d), f(a/d), f(a/d)
+	} else {
+		m.DistanceM, m.SpeedMPerS, m.AccelMPerS2, m.DecelMPerS2 = f(rq.dist), f(v), f(a), f(a)
+	}
+	return m
+}
+
+func (rq *request) setAccel(o *Option, a, v float64) {
+	if rq.slew {
+		o.AccelDegPerS2, o.TopRateDegPerS = a/units.Degree, v/units.Degree
+	} else {
+		o.AccelMPerS2, o.TopSpeedMPerS = a, v
+	}
+}
+
+// trapezoidOption is a plain ramp setting: acceleration a, top speed v.
+func (rq *request) trapezoidOption(key, label string, a, v float64) *Option {
+	p := motion.NewTrapezoid(0, rq.dist, v, a, a)
+	o := &Option{Key: key, Label: label, Drive: scenario.DriveVariableSpeed, Motion: rq.motionFor(a, v), profile: p}
+	rq.setAccel(o, a, v)
+	o.RampS = p.PeakSpeed() / a
+	o.MoveTimeS = p.Duration()
+	o.Settings = []string{fmt.Sprintf("Acceleration and deceleration %s: ramp time %.3g s to %s.",
+		rq.accelText(a), o.RampS, rq.speedText(p.PeakSpeed()))}
+	if p.Triangular() {
+		o.Settings = append(o.Settings, fmt.Sprintf("The move is too short to reach %s: the drive starts braking as soon as it peaks at %s.",
+			rq.speedText(v), rq.speedText(p.PeakSpeed())))
+	}
+	return o
+}
+
+func (rq *request) wholePeriodOption(n int) *Option {
+	a, v := rq.wholePeriodAccel(n)
+	word := "periods"
+	if n == 1 {
+		word = "period"
+	}
+	o := rq.trapezoidOption(fmt.Sprintf("whole_periods_%d", n), fmt.Sprintf("Ramp time of %d sway %s", n, word), a, v)
+	o.Settings = append([]string{fmt.Sprintf("Set the ramp time to %d × %.3g s = %.3g s (%d whole sway %s) for starting and for stopping: each ramp then leaves no residual swing in linear theory.",
+		n, rq.designT, float64(n)*rq.designT, n, word)}, o.Settings...)
+	return o
+}
+
+// design returns the shaper of the given kind for the request.
+func (rq *request) design(kind string) (*shaper.Shaper, error) {
+	z := rq.zeta
+	if kind == shaper.EI {
+		z = 0 // the EI formula used is the undamped one
+	}
+	return shaper.New(kind, rq.designT, z, rq.tol)
+}
+
+func shaperLabel(kind string) string { return strings.ToUpper(kind) }
+
+// shapedDrive is the drive-limits move through a shaper, for a
+// variable-speed drive.
+func (rq *request) shapedDrive(kind string) (*Option, error) {
+	sh, err := rq.design(kind)
+	if err != nil {
+		return nil, err
+	}
+	base := motion.NewTrapezoid(0, rq.dist, rq.vmax, rq.amax, rq.amax)
+	p := sh.Apply(base)
+	o := &Option{Key: kind + "_" + scenario.DriveVariableSpeed, Label: shaperLabel(kind) + "-shaped speed profile (variable-speed drive)",
+		Drive: scenario.DriveVariableSpeed, Shaper: kind, profile: p, Motion: rq.motionFor(rq.amax, rq.vmax)}
+	o.Motion.Shaper = &scenario.ShaperSpec{Kind: kind, PeriodS: &rq.designT, DampingRatio: sh.Damping, TolerancePct: sh.Tolerance * 100}
+	rq.setAccel(o, rq.amax, rq.vmax)
+	o.RampS = base.PeakSpeed()/rq.amax + sh.Duration()
+	o.MoveTimeS = p.End()
+	// The shaped speed is piecewise linear: its corners are the breakpoints.
+	for _, t := range p.Breakpoints() {
+		o.SpeedProfile = append(o.SpeedProfile, Knot{TS: t, Speed: p.At(t).Vel * rq.axisUnit()})
+	}
+	o.Settings = []string{fmt.Sprintf("Program the drive's speed profile (multi-segment ramps or the drive's own sway-control function), tuned to a sway period of %.3g s:", rq.designT)}
+	o.Settings = append(o.Settings, rq.segments(o.SpeedProfile)...)
+	o.Settings = append(o.Settings, fmt.Sprintf("Each start and each stop takes %.3g s in all (the drive's ramp of %.3g s spread over %.3g s more).",
+		o.RampS, base.PeakSpeed()/rq.amax, sh.Duration()))
+	return o, nil
+}
+
+// segments describes a piecewise linear speed profile in words.
+func (rq *request) segments(ks []Knot) []string {
+	unit, acc := "m/s", "m/s²"
+	if rq.slew {
+		unit, acc = "deg/s", "deg/s²"
+	}
+	var out []string
+	for i := 0; i+1 < len(ks); i++ {
+		a, b := ks[i], ks[i+1]
+		if math.Abs(b.Speed-a.Speed) < 1e-9 {
+			if i+2 < len(ks) && math.Abs(a.Speed) > 1e-9 {
+				out = append(out, fmt.Sprintf("  %.2f–%.2f s: hold %.3g %s", a.TS, b.TS, a.Speed, unit))
+			}
+			continue
+		}
+		out = append(out, fmt.Sprintf("  %.2f–%.2f s: ramp %.3g → %.3g %s (%.3g %s)", a.TS, b.TS, a.Speed, b.Speed, unit,
+			(b.Speed-a.Speed)/(b.TS-a.TS), acc))
+	}
+	return out
+}
+
+// shapedPendant is the shaper as pendant steps: step k is pressed so that
+// its ramp (at the drive's acceleration) is centred where the k-th impulse
+// of the shaper falls, and its speed is the sum of the first k impulse
+// amplitudes times the top speed. The stop releases the steps in the same
+// pattern D/V later, which covers the distance D exactly.
+func (rq *request) shapedPendant(kind string) (*Option, error) {
+	sh, err := rq.design(kind)
+	if err != nil {
+		return nil, err
+	}
+	d := math.Abs(rq.dist)
+	sign := math.Copysign(1, rq.dist)
+	v := rq.vmax
+	var press []float64
+	var cum []float64
+	layout := func(v float64) float64 {
+		press, cum = press[:0], cum[:0]
+		c := 0.0
+		tau0 := sh.Impulses[0].A * v / rq.amax
+		last := 0.0
+		for _, im := range sh.Impulses {
+			c += im.A
+			tau := im.A * v / rq.amax
+			t := math.Max(0, im.T-tau/2+tau0/2)
+			press = append(press, t)
+			cum = append(cum, c)
+			last = t + tau
+		}
+		return last // time full speed is reached
+	}
+	// Full speed must be reached before the first release: lower the top
+	// speed for a short move.
+	for range 30 {
+		full := layout(v)
+		if d/v >= full {
+			break
+		}
+		v = math.Min(v, d/full) * 0.999
+	}
+	ts := d / v
+	var steps []scenario.SpeedStep
+	var ms []motion.Step
+	o := &Option{Key: kind + "_" + scenario.DrivePendant, Label: shaperLabel(kind) + " pendant steps (step-speed drive)",
+		Drive: scenario.DrivePendant, Shaper: kind}
+	addStep := func(t, frac float64) {
+		sp := sign * frac * v * rq.axisUnit()
+		if math.Abs(frac) < 1e-12 {
+			sp = 0
+		}
+		st := scenario.SpeedStep{AtS: t}
+		if rq.slew {
+			st.RateDegPerS = &sp
+		} else {
+			st.SpeedMPerS = &sp
+		}
+		steps = append(steps, st)
+		ms = append(ms, motion.Step{AtS: t, Speed: sign * frac * v})
+		o.Presses = append(o.Presses, Press{AtS: t, Pct: 100 * frac, Speed: sp})
+	}
+	for i := range press {
+		addStep(press[i], cum[i])
+	}
+	for i := range press {
+		addStep(ts+press[i], 1-cum[i])
+	}
+	p, err := motion.NewSteps(ms, rq.amax, rq.amax)
+	if err != nil {
+		return nil, fmt.Errorf("plan: pendant steps for %s: %w", kind, err)
+	}
+	o.profile = p
+	a := rq.amax
+	m := scenario.Motion{Axis: rq.s.Plan.Axis, Profile: scenario.ProfileSteps}
+	m.Steps = steps
+	if rq.slew {
+		ad := a / units.Degree
+		m.AccelDegPerS2, m.DecelDegPerS2 = &ad, &ad
+	} else {
+		m.AccelMPerS2, m.DecelMPerS2 = &a, &a
+	}
+	o.Motion = m
+	rq.setAccel(o, a, v)
+	o.RampS = press[len(press)-1] + (1-cum[len(cum)-2])*v/a
+	o.MoveTimeS = p.End()
+	pcts := make([]string, len(cum))
+	for i, c := range cum {
+		pcts[i] = fmt.Sprintf("%.0f %%", 100*c)
+	}
+	o.Settings = []string{fmt.Sprintf("The pendant needs speed steps at %s of %s (set the drive's step speeds to these), with the drive's ramp of %s; tuned to a sway period of %.3g s.",
+		strings.Join(pcts, ", "), rq.speedText(v), rq.accelText(a), rq.designT)}
+	for i, pr := range o.Presses {
+		verb := "press to"
+		if i >= len(press) {
+			verb = "release to"
+		}
+		what := fmt.Sprintf("%.0f %%, %s", pr.Pct, rq.speedText(math.Abs(pr.Speed)/rq.axisUnit()))
+		if pr.Pct < 1e-9 {
+			what = "stop"
+		}
+		o.Settings = append(o.Settings, fmt.Sprintf("  at %.2f s: %s %s", pr.AtS, verb, what))
+	}
+	if v < rq.vmax*(1-1e-9) {
+		o.Settings = append(o.Settings, fmt.Sprintf("The move is too short for the steps at full speed: the top step is lowered to %s.", rq.speedText(v)))
+	}
+	return o, nil
+}
+
+// curves computes the plot data in linear theory.
+func curves(rq *request) Curves {
+	g := units.StandardGravity
+	var c Curves
+	at := &c.AccelTime
+	at.Basis = "linear theory: one ramp of time t_a to the top speed V leaves 2*(a/g)*|sin(pi*t_a/T)| rad with a = V/t_a (hook speed R*w for a slew)"
+	const n = 121
+	vHook := rq.vmax * rq.k
+	for i := range n {
+		t := 3 * rq.designT * float64(i) / (n - 1)
+		at.RampS = append(at.RampS, t)
+		at.Periods = append(at.Periods, t/rq.designT)
+	}
+	for _, l := range rq.ropes {
+		tl := period(l)
+		s := RampSeries{RopeLengthM: l}
+		for _, t := range at.RampS {
+			r := vHook * 2 * math.Pi / tl / g // limit t -> 0: V*w/g
+			if t > 0 {
+				r = 2 * vHook / (g * t) * math.Abs(math.Sin(math.Pi*t/tl))
+			}
+			s.ResidualDeg = append(s.ResidualDeg, r/units.Degree)
+		}
+		at.Series = append(at.Series, s)
+	}
+	re := &c.RopeError
+	re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990), w = sqrt(g/L)"
+	ld := g * rq.designT * rq.designT / (4 * math.Pi * math.Pi)
+	lo, hi := rq.ropes[0], rq.ropes[0]
+	for _, l := range rq.ropes {
+		lo, hi = math.Min(lo, l), math.Max(hi, l)
+	}
+	re.RangePct = [2]float64{100 * (lo/ld - 1), 100 * (hi/ld - 1)}
+	for i := -50; i <= 50; i++ {
+		re.ErrorPct = append(re.ErrorPct, float64(i))
+	}
+	for _, kind := range shaper.Kinds {
+		sh, err := rq.design(kind)
+		if err != nil {
+			continue
+		}
+		s := ShaperSeries{Shaper: kind}
+		for _, e := range re.ErrorPct {
+			w := math.Sqrt(g / (ld * (1 + e/100)))
+			s.ResidualPct = append(s.ResidualPct, 100*sh.Residual(w, sh.Damping))
+		}
+		re.Series = append(re.Series, s)
+	}
+	return c
+}

@@ -1,0 +1,89 @@
+package plan
+
+import (
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+)
+
+// WriteTable prints a plan as a ranked table with the crew settings of
+// each option, the recommendation and the cautions.
+func WriteTable(w io.Writer, r *Result) error {
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s\n", r.Name)
+	if r.Axis == "slew" {
+		fmt.Fprintf(&b, "Slew %.4g deg at radius %.4g m, top rate %.3g deg/s (outward lean %.2g deg at that rate)\n",
+			r.AngleDeg, r.RadiusM, r.TopRateDegPerS, r.SlewLeanDeg)
+	} else {
+		fmt.Fprintf(&b, "Travel %.4g m on %s, top speed %.3g m/s\n", r.DistanceM, r.Axis, r.TopSpeedMPerS)
+	}
+	fmt.Fprintf(&b, "Rope %.4g m (period %.3g s); simulated at %s m; shapers tuned to %.3g s (rope %.4g m)\n",
+		r.RopeLengthM, r.PeriodS, floats(r.RopeLengthsM), r.DesignPeriodS, r.DesignRopeM)
+	fmt.Fprintf(&b, "Limits: %s\n\n", limitsText(r.Limits))
+	for _, m := range r.Infeasible {
+		fmt.Fprintf(&b, "NOT FEASIBLE: %s\n", m)
+	}
+	if len(r.Options) > 0 {
+		tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+		fmt.Fprintln(tw, "rank\toption\tmove s\t+s\tpeak deg\tpeak m\tresidual deg\tlimits")
+		for i, o := range r.Options {
+			mark := "  "
+			if i == r.Recommended {
+				mark = "=>"
+			}
+			ok := "within"
+			if !o.Within {
+				ok = "OUTSIDE: " + strings.Join(o.Outside, "; ")
+			}
+			fmt.Fprintf(tw, "%s%d\t%s\t%.3g\t%.3g\t%.3g\t%.3g\t%.2g\t%s\n", mark, o.Rank, o.Label, o.MoveTimeS, o.PenaltyS,
+				o.WorstPeakSwingDeg, o.WorstPeakExcursionM, o.WorstResidualSwingDeg, ok)
+		}
+		tw.Flush()
+		fmt.Fprintln(&b, "(peak and residual: the worst over the rope lengths simulated; +s: longer than at the drive limits)")
+		fmt.Fprintln(&b)
+	}
+	fmt.Fprintf(&b, "%s\n", r.Reason)
+	for _, n := range r.Notes {
+		fmt.Fprintf(&b, "Note: %s\n", n)
+	}
+	for i, o := range r.Options {
+		mark := ""
+		if i == r.Recommended {
+			mark = " (recommended)"
+		}
+		fmt.Fprintf(&b, "\n%d. %s%s\n", o.Rank, o.Label, mark)
+		for _, s := range o.Settings {
+			fmt.Fprintf(&b, "   %s\n", s)
+		}
+		for _, v := range o.Verified {
+			fmt.Fprintf(&b, "   rope %.4g m: peak %.3g deg, %.3g m; residual %.2g deg\n", v.RopeLengthM, v.PeakSwingDeg, v.PeakExcursionM, v.ResidualSwingDeg)
+		}
+	}
+	fmt.Fprintln(&b)
+	for _, c := range r.Cautions {
+		fmt.Fprintf(&b, "Caution: %s\n", c)
+	}
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+func floats(xs []float64) string {
+	s := make([]string, len(xs))
+	for i, x := range xs {
+		s[i] = fmt.Sprintf("%.4g", x)
+	}
+	return strings.Join(s, ", ")
+}
+
+func limitsText(l Limits) string {
+	var parts []string
+	if l.PeakSwingDeg > 0 {
+		parts = append(parts, fmt.Sprintf("peak swing %.3g deg", l.PeakSwingDeg))
+	}
+	if l.PeakExcursionM > 0 {
+		parts = append(parts, fmt.Sprintf("peak excursion %.3g m", l.PeakExcursionM))
+	}
+	parts = append(parts, fmt.Sprintf("residual swing %.3g deg", l.ResidualSwingDeg))
+	return strings.Join(parts, ", ")
+}

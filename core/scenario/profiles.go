@@ -1,0 +1,427 @@
+package scenario
+
+import (
+	"fmt"
+	"strings"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/units"
+)
+
+// Motion profile names.
+const (
+	ProfileTrapezoid = "trapezoid" // point to point, constant acceleration
+	ProfileSCurve    = "s_curve"   // point to point, jerk-limited
+	ProfileSteps     = "steps"     // step-speed pendant or two-speed drive
+	ProfileHardStop  = "hard_stop" // moving from t = 0, then braking
+	ProfileSeries    = "series"    // recorded or planned time series (CSV)
+)
+
+// ProfileFields are the fields of the profiles other than the trapezoid,
+// and the input shaper any profile may pass through. Each belongs only to
+// the profile named beside it.
+type ProfileFields struct {
+	// s_curve: a jerk limit (in the axis' unit) or a rounding time, one of.
+	JerkMPerS3   *float64 `json:"jerk_m_per_s3,omitempty"`
+	JerkDegPerS3 *float64 `json:"jerk_deg_per_s3,omitempty"`
+	RoundingS    *float64 `json:"rounding_s,omitempty"`
+	// steps: the speed steps in time, reached with accel_*/decel_*.
+	Steps []SpeedStep `json:"steps,omitempty"`
+	// hard_stop: when the brake sets in; speed_m_per_s / rate_deg_per_s is
+	// the speed from t = 0 and decel_* the braking.
+	BrakeAtS *float64 `json:"brake_at_s,omitempty"`
+	// series: the CSV text of the record (see motion.ParseCSV) and the
+	// column for this axis (default <axis>_m_per_s or <axis>_m, slew_deg_per_s
+	// or slew_deg).
+	CSV    string `json:"csv,omitempty"`
+	Column string `json:"column,omitempty"`
+	// Shaper passes the move through an input shaper (any profile).
+	Shaper *ShaperSpec `json:"shaper,omitempty"`
+}
+
+// SpeedStep is one step of a step-speed move: at AtS after the motion's
+// start_s the drive heads for this speed (signed).
+type SpeedStep struct {
+	AtS         float64  `json:"at_s"`
+	SpeedMPerS  *float64 `json:"speed_m_per_s,omitempty"`
+	RateDegPerS *float64 `json:"rate_deg_per_s,omitempty"`
+}
+
+// ShaperSpec is an input shaper on a motion: kind zv, zvd or ei, designed
+// for a sway period given directly or through a rope length (default: the
+// load's rope length).
+type ShaperSpec struct {
+	Kind         string   `json:"kind"`
+	PeriodS      *float64 `json:"period_s,omitempty"`
+	RopeLengthM  *float64 `json:"rope_length_m,omitempty"`
+	DampingRatio float64  `json:"damping_ratio,omitempty"`
+	// TolerancePct is the EI shaper's residual at its design period, %.
+	TolerancePct float64 `json:"tolerance_pct,omitempty"`
+}
+
+// ShaperKinds are the accepted shaper kinds.
+var ShaperKinds = []string{"zv", "zvd", "ei"}
+
+// Plan asks the planner (package plan) for drive settings for one move of
+// the travel or slew axis. The rope length is load.rope_length_m, with an
+// optional range around it; the limits are the scenario's limits, of which
+// residual_swing_deg and one of peak_swing_deg or peak_excursion_m are
+// required.
+type Plan struct {
+	Axis string `json:"axis"`
+
+	DistanceM      *float64 `json:"distance_m,omitempty"`
+	TopSpeedMPerS  *float64 `json:"top_speed_m_per_s,omitempty"`
+	MaxAccelMPerS2 *float64 `json:"max_accel_m_per_s2,omitempty"`
+
+	AngleDeg         *float64 `json:"angle_deg,omitempty"`
+	TopRateDegPerS   *float64 `json:"top_rate_deg_per_s,omitempty"`
+	MaxAccelDegPerS2 *float64 `json:"max_accel_deg_per_s2,omitempty"`
+
+	// The rope lengths the load may have during the move (hoisting, or
+	// doubt about where the centre of mass is); both or neither.
+	RopeLengthMinM *float64 `json:"rope_length_min_m,omitempty"`
+	RopeLengthMaxM *float64 `json:"rope_length_max_m,omitempty"`
+
+	DampingRatio   float64 `json:"damping_ratio,omitempty"`
+	EITolerancePct float64 `json:"ei_tolerance_pct,omitempty"`
+	// Drive is "variable_speed", "pendant" or empty for both.
+	Drive string `json:"drive,omitempty"`
+}
+
+// Drive kinds for a plan.
+const (
+	DriveVariableSpeed = "variable_speed"
+	DrivePendant       = "pendant"
+)
+
+// MaxSteps bounds the steps of one step-speed move.
+const MaxSteps = 50
+
+func init() {
+	for k, r := range map[string]Range{
+		"motions[].jerk_m_per_s3":              {Min: 0, Max: 50, Unit: "m/s³", OpenMin: true},
+		"motions[].jerk_deg_per_s3":            {Min: 0, Max: 300, Unit: "deg/s³", OpenMin: true},
+		"motions[].rounding_s":                 {Min: 0, Max: 60, Unit: "s"},
+		"motions[].brake_at_s":                 {Min: 0, Max: MaxRunS, Unit: "s"},
+		"motions[].steps[].at_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
+		"motions[].steps[].speed_m_per_s":      {Min: -10, Max: 10, Unit: "m/s"},
+		"motions[].steps[].rate_deg_per_s":     {Min: -36, Max: 36, Unit: "deg/s"},
+		"motions[].shaper.period_s":            {Min: 0.5, Max: 120, Unit: "s"},
+		"motions[].shaper.rope_length_m":       {Min: MinRopeM, Max: 500, Unit: "m"},
+		"motions[].shaper.damping_ratio":       {Min: 0, Max: 0.3, Unit: ""},
+		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%"},
+		"plan.distance_m":                      {Min: -2000, Max: 2000, Unit: "m"},
+		"plan.top_speed_m_per_s":               {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
+		"plan.max_accel_m_per_s2":              {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
+		"plan.angle_deg":                       {Min: -3600, Max: 3600, Unit: "deg"},
+		"plan.top_rate_deg_per_s":              {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
+		"plan.max_accel_deg_per_s2":            {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
+		"plan.rope_length_min_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
+		"plan.rope_length_max_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
+		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
+		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%"},
+		"motions[].hard_stop.speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
+		"motions[].hard_stop.rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
+		"motions[].hard_stop.decel_m_per_s2":   {Min: 0, Max: 10, Unit: "m/s²", OpenMin: true},
+		"motions[].hard_stop.decel_deg_per_s2": {Min: 0, Max: 60, Unit: "deg/s²", OpenMin: true},
+	} {
+		Ranges[k] = r
+	}
+}
+
+// metric reports whether the axis moves in metres (else degrees).
+func metric(axis string) bool { return axis != Slew }
+
+// DefaultColumn is the CSV column a series motion of the axis reads when
+// none is named: the speed column if the record has it, else the position.
+func DefaultColumn(axis string, s *motion.Series) string {
+	unit := "_m"
+	if !metric(axis) {
+		unit = "_deg"
+	}
+	if _, ok := s.Column(axis + unit + "_per_s"); ok {
+		return axis + unit + "_per_s"
+	}
+	return axis + unit
+}
+
+// ColumnScale is the factor from a CSV column's unit to the axis' SI unit.
+func ColumnScale(axis string) float64 {
+	if metric(axis) {
+		return 1
+	}
+	return units.Degree
+}
+
+// validateProfile checks the fields of the non-trapezoid profiles, and
+// that no field of another profile is given.
+func (m *Motion) validateProfile(c *checker, at string) {
+	f := func(name string) string { return at + "." + name }
+	key := func(name string) string { return "motions[]." + name }
+	p := m.Profile
+	if p == "" {
+		p = ProfileTrapezoid
+	}
+	not := func(field string, given bool, belongs string) {
+		if given {
+			c.add(f(field), "does not apply to profile %q: it belongs to profile %q", p, belongs)
+		}
+	}
+	if p != ProfileSCurve {
+		not("jerk_m_per_s3", m.JerkMPerS3 != nil, ProfileSCurve)
+		not("jerk_deg_per_s3", m.JerkDegPerS3 != nil, ProfileSCurve)
+		not("rounding_s", m.RoundingS != nil, ProfileSCurve)
+	}
+	if p != ProfileSteps {
+		not("steps", m.Steps != nil, ProfileSteps)
+	}
+	if p != ProfileHardStop {
+		not("brake_at_s", m.BrakeAtS != nil, ProfileHardStop)
+	}
+	if p != ProfileSeries {
+		not("csv", m.CSV != "", ProfileSeries)
+		not("column", m.Column != "", ProfileSeries)
+	}
+	if p == ProfileTrapezoid {
+		return
+	}
+	if p != ProfileSCurve { // the trapezoid's checks cover the S-curve's axis
+		switch m.Axis {
+		case TravelX, TravelY, Radius, Hoist, Slew:
+		case "":
+			c.add(f("axis"), "is required: accepted %q", Axes)
+			return
+		default:
+			c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+			return
+		}
+	}
+	met := metric(m.Axis)
+	// only lists the kinematic fields the profile takes; others are errors.
+	only := func(why string, allowed ...string) {
+		given := map[string]bool{
+			"distance_m": m.DistanceM != nil, "speed_m_per_s": m.SpeedMPerS != nil,
+			"accel_m_per_s2": m.AccelMPerS2 != nil, "decel_m_per_s2": m.DecelMPerS2 != nil,
+			"angle_deg": m.AngleDeg != nil, "rate_deg_per_s": m.RateDegPerS != nil,
+			"accel_deg_per_s2": m.AccelDegPerS2 != nil, "decel_deg_per_s2": m.DecelDegPerS2 != nil,
+		}
+		ok := map[string]bool{}
+		for _, a := range allowed {
+			ok[a] = true
+		}
+		for _, name := range []string{"distance_m", "speed_m_per_s", "accel_m_per_s2", "decel_m_per_s2",
+			"angle_deg", "rate_deg_per_s", "accel_deg_per_s2", "decel_deg_per_s2"} {
+			if given[name] && !ok[name] {
+				c.add(f(name), "does not apply here: %s", why)
+			}
+		}
+	}
+	switch p {
+	case ProfileSCurve:
+		n := 0
+		for _, v := range []*float64{m.JerkMPerS3, m.JerkDegPerS3, m.RoundingS} {
+			if v != nil {
+				n++
+			}
+		}
+		if n != 1 {
+			jerk := "jerk_m_per_s3"
+			if !met {
+				jerk = "jerk_deg_per_s3"
+			}
+			c.add(f("rounding_s"), "give exactly one of rounding_s (%s) or %s (%s) for an S-curve",
+				Ranges[key("rounding_s")].Text(), jerk, Ranges[key(jerk)].Text())
+		}
+		c.optional(f("rounding_s"), key("rounding_s"), m.RoundingS)
+		if met {
+			c.optional(f("jerk_m_per_s3"), key("jerk_m_per_s3"), m.JerkMPerS3)
+			c.forbidden(f("jerk_deg_per_s3"), m.JerkDegPerS3, "the "+m.Axis+" axis moves in metres; use jerk_m_per_s3")
+		} else {
+			c.optional(f("jerk_deg_per_s3"), key("jerk_deg_per_s3"), m.JerkDegPerS3)
+			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the slew axis moves in degrees; use jerk_deg_per_s3")
+		}
+	case ProfileSteps:
+		c.value(f("start_s"), key("start_s"), m.StartS)
+		if met {
+			only("a step-speed move takes steps[] and the ramps accel_m_per_s2 and decel_m_per_s2", "accel_m_per_s2", "decel_m_per_s2")
+			c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
+			c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
+		} else {
+			only("a step-speed slew takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
+			c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
+			c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
+		}
+		if len(m.Steps) == 0 || len(m.Steps) > MaxSteps {
+			c.add(f("steps"), "has %d steps: accepted from 1 up to %d, the last one to speed 0", len(m.Steps), MaxSteps)
+			return
+		}
+		for i, st := range m.Steps {
+			g := func(name string) string { return fmt.Sprintf("%s.steps[%d].%s", at, i, name) }
+			c.value(g("at_s"), key("steps[].at_s"), st.AtS)
+			if i > 0 && st.AtS < m.Steps[i-1].AtS {
+				c.add(g("at_s"), "%s s comes before step %d at %s s: steps must be in time order", num(st.AtS), i-1, num(m.Steps[i-1].AtS))
+			}
+			var v *float64
+			if met {
+				v = st.SpeedMPerS
+				c.required(g("speed_m_per_s"), key("steps[].speed_m_per_s"), st.SpeedMPerS)
+				c.forbidden(g("rate_deg_per_s"), st.RateDegPerS, "the "+m.Axis+" axis moves in metres; use speed_m_per_s")
+			} else {
+				v = st.RateDegPerS
+				c.required(g("rate_deg_per_s"), key("steps[].rate_deg_per_s"), st.RateDegPerS)
+				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the slew axis moves in degrees; use rate_deg_per_s")
+			}
+			if i == len(m.Steps)-1 && v != nil && *v != 0 {
+				name := "speed_m_per_s"
+				if !met {
+					name = "rate_deg_per_s"
+				}
+				c.add(g(name), "is %s: the last step must be to 0, so that the move ends at rest", num(*v))
+			}
+		}
+	case ProfileHardStop:
+		if m.StartS != 0 {
+			c.add(f("start_s"), "does not apply to a hard stop: it moves from t = 0; set brake_at_s for when the brake sets in")
+		}
+		c.required(f("brake_at_s"), key("brake_at_s"), m.BrakeAtS)
+		if met {
+			only("a hard stop takes speed_m_per_s (moving in the axis' + direction from t = 0), brake_at_s and decel_m_per_s2", "speed_m_per_s", "decel_m_per_s2")
+			c.required(f("speed_m_per_s"), key("hard_stop.speed_m_per_s"), m.SpeedMPerS)
+			c.required(f("decel_m_per_s2"), key("hard_stop.decel_m_per_s2"), m.DecelMPerS2)
+		} else {
+			only("a hard stop takes rate_deg_per_s (slewing in the + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
+			c.required(f("rate_deg_per_s"), key("hard_stop.rate_deg_per_s"), m.RateDegPerS)
+			c.required(f("decel_deg_per_s2"), key("hard_stop.decel_deg_per_s2"), m.DecelDegPerS2)
+		}
+	case ProfileSeries:
+		c.value(f("start_s"), key("start_s"), m.StartS)
+		only("a series takes its motion from csv")
+		if strings.TrimSpace(m.CSV) == "" {
+			c.add(f("csv"), "is required: the CSV text of the record, header time_s and the axis column (for example %s_m_per_s)", m.Axis)
+			return
+		}
+		if _, err := m.SeriesProfile(); err != nil {
+			c.add(f("csv"), "%v", err)
+		}
+	}
+}
+
+// SeriesProfile parses the CSV of a series motion and builds its profile
+// in the axis' SI unit (without the start_s shift).
+func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
+	s, err := motion.ParseCSV(strings.NewReader(m.CSV))
+	if err != nil {
+		return nil, err
+	}
+	col := m.Column
+	if col == "" {
+		col = DefaultColumn(m.Axis, s)
+	}
+	unit := "_m"
+	if !metric(m.Axis) {
+		unit = "_deg"
+	}
+	if col != m.Axis+unit && col != m.Axis+unit+"_per_s" && m.Column == "" {
+		return nil, fmt.Errorf("no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column", m.Axis, m.Axis, unit, m.Axis, unit)
+	}
+	p, err := s.Profile(col, ColumnScale(m.Axis))
+	if err != nil {
+		return nil, err
+	}
+	if e := p.End(); e+m.StartS > MaxRunS {
+		return nil, fmt.Errorf("the record ends at %g s: at most %g s is simulated", e, MaxRunS)
+	}
+	return p, nil
+}
+
+func (m *Motion) validateShaper(c *checker, at string) {
+	sh := m.Shaper
+	if sh == nil {
+		return
+	}
+	f := func(name string) string { return at + ".shaper." + name }
+	key := func(name string) string { return "motions[].shaper." + name }
+	switch sh.Kind {
+	case "zv", "zvd", "ei":
+	case "":
+		c.add(f("kind"), "is required: accepted %q", ShaperKinds)
+	default:
+		c.add(f("kind"), "is %q: accepted %q", sh.Kind, ShaperKinds)
+	}
+	if sh.PeriodS != nil && sh.RopeLengthM != nil {
+		c.add(f("period_s"), "give either period_s or rope_length_m for the shaper's design, not both")
+	}
+	c.optional(f("period_s"), key("period_s"), sh.PeriodS)
+	c.optional(f("rope_length_m"), key("rope_length_m"), sh.RopeLengthM)
+	c.value(f("damping_ratio"), key("damping_ratio"), sh.DampingRatio)
+	c.value(f("tolerance_pct"), key("tolerance_pct"), sh.TolerancePct)
+	if sh.Kind == "ei" && sh.DampingRatio != 0 {
+		c.add(f("damping_ratio"), "is %s: the EI shaper here is the undamped one; use 0, or shaper zv or zvd", num(sh.DampingRatio))
+	}
+	if sh.Kind != "ei" && sh.TolerancePct != 0 {
+		c.add(f("tolerance_pct"), "applies to the ei shaper only")
+	}
+}
+
+func (p *Plan) validate(c *checker, s *Scenario) {
+	switch p.Axis {
+	case TravelX, TravelY:
+		c.required("plan.distance_m", "plan.distance_m", p.DistanceM)
+		c.required("plan.top_speed_m_per_s", "plan.top_speed_m_per_s", p.TopSpeedMPerS)
+		c.required("plan.max_accel_m_per_s2", "plan.max_accel_m_per_s2", p.MaxAccelMPerS2)
+		why := "a travel move is planned in metres; use distance_m, top_speed_m_per_s, max_accel_m_per_s2"
+		c.forbidden("plan.angle_deg", p.AngleDeg, why)
+		c.forbidden("plan.top_rate_deg_per_s", p.TopRateDegPerS, why)
+		c.forbidden("plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2, why)
+		if p.DistanceM != nil && *p.DistanceM == 0 {
+			c.add("plan.distance_m", "is 0: give the distance to travel, %s", Ranges["plan.distance_m"].Text())
+		}
+	case Slew:
+		c.required("plan.angle_deg", "plan.angle_deg", p.AngleDeg)
+		c.required("plan.top_rate_deg_per_s", "plan.top_rate_deg_per_s", p.TopRateDegPerS)
+		c.required("plan.max_accel_deg_per_s2", "plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2)
+		why := "a slew is planned in degrees; use angle_deg, top_rate_deg_per_s, max_accel_deg_per_s2"
+		c.forbidden("plan.distance_m", p.DistanceM, why)
+		c.forbidden("plan.top_speed_m_per_s", p.TopSpeedMPerS, why)
+		c.forbidden("plan.max_accel_m_per_s2", p.MaxAccelMPerS2, why)
+		if p.AngleDeg != nil && *p.AngleDeg == 0 {
+			c.add("plan.angle_deg", "is 0: give the slew angle, %s", Ranges["plan.angle_deg"].Text())
+		}
+		if s.Crane.RadiusM <= 0 {
+			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
+		}
+	case "":
+		c.add("plan.axis", "is required: accepted %q", []string{TravelX, TravelY, Slew})
+		return
+	default:
+		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, []string{TravelX, TravelY, Slew})
+		return
+	}
+	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {
+		c.add("plan.rope_length_min_m", "give both plan.rope_length_min_m and plan.rope_length_max_m, or neither")
+	}
+	c.optional("plan.rope_length_min_m", "plan.rope_length_min_m", p.RopeLengthMinM)
+	c.optional("plan.rope_length_max_m", "plan.rope_length_max_m", p.RopeLengthMaxM)
+	if p.RopeLengthMinM != nil && p.RopeLengthMaxM != nil && s.Load.RopeLengthM != nil {
+		lo, hi, l := *p.RopeLengthMinM, *p.RopeLengthMaxM, *s.Load.RopeLengthM
+		if !(lo <= l && l <= hi) {
+			c.add("plan.rope_length_min_m", "the range %s to %s m must contain load.rope_length_m = %s m", num(lo), num(hi), num(l))
+		}
+	}
+	c.value("plan.damping_ratio", "plan.damping_ratio", p.DampingRatio)
+	c.value("plan.ei_tolerance_pct", "plan.ei_tolerance_pct", p.EITolerancePct)
+	switch p.Drive {
+	case "", DriveVariableSpeed, DrivePendant:
+	default:
+		c.add("plan.drive", "is %q: accepted %q, %q or empty for both", p.Drive, DriveVariableSpeed, DrivePendant)
+	}
+	l := s.Limits
+	if l == nil || l.ResidualSwingDeg == nil {
+		c.add("limits.residual_swing_deg", "is required for a plan: the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
+	}
+	if l == nil || (l.PeakSwingDeg == nil && l.PeakExcursionM == nil) {
+		c.add("limits.peak_swing_deg", "a plan needs limits.peak_swing_deg (%s) or limits.peak_excursion_m (%s)",
+			Ranges["limits.peak_swing_deg"].Text(), Ranges["limits.peak_excursion_m"].Text())
+	}
+}

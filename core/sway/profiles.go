@@ -1,0 +1,149 @@
+package sway
+
+import (
+	"fmt"
+	"math"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/scenario"
+	"swaysheet/core/shaper"
+	"swaysheet/core/units"
+)
+
+// BuildProfile builds the motion profile of one validated move of s, of
+// any profile kind, in the axis' SI unit (m or rad), with its start_s and
+// its input shaper. A shaper designed through a rope length (its own or
+// the load's) gets the small-swing period 2*pi*sqrt(L/g).
+func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, error) {
+	scale := 1.0
+	if m.Axis == scenario.Slew {
+		scale = units.Degree
+	}
+	acc := func() (float64, float64) {
+		a, d := m.AccelMPerS2, m.DecelMPerS2
+		if m.Axis == scenario.Slew {
+			a, d = m.AccelDegPerS2, m.DecelDegPerS2
+		}
+		return *a * scale, deref(d, *a) * scale
+	}
+	var p motion.Profile
+	switch m.Profile {
+	case "", scenario.ProfileTrapezoid:
+		p = Profile(m)
+	case scenario.ProfileSCurve:
+		t := Profile(m)
+		r := 0.0
+		switch {
+		case m.RoundingS != nil:
+			r = *m.RoundingS
+		case m.JerkMPerS3 != nil:
+			r = t.Accel / *m.JerkMPerS3
+		case m.JerkDegPerS3 != nil:
+			r = t.Accel / (*m.JerkDegPerS3 * units.Degree)
+		}
+		p = motion.NewSCurve(t.Start, t.Distance, t.Speed, t.Accel, t.Decel, r)
+	case scenario.ProfileSteps:
+		a, d := acc()
+		steps := make([]motion.Step, len(m.Steps))
+		for i, st := range m.Steps {
+			v := st.SpeedMPerS
+			if m.Axis == scenario.Slew {
+				v = st.RateDegPerS
+			}
+			steps[i] = motion.Step{AtS: m.StartS + st.AtS, Speed: *v * scale}
+		}
+		sp, err := motion.NewSteps(steps, a, d)
+		if err != nil {
+			return nil, scenario.Errors{{Field: "steps", Message: err.Error()}}
+		}
+		p = sp
+	case scenario.ProfileHardStop:
+		v, d := m.SpeedMPerS, m.DecelMPerS2
+		if m.Axis == scenario.Slew {
+			v, d = m.RateDegPerS, m.DecelDegPerS2
+		}
+		p = motion.NewHardStop(*v*scale, *m.BrakeAtS, *d*scale)
+	case scenario.ProfileSeries:
+		pw, err := m.SeriesProfile()
+		if err != nil {
+			return nil, scenario.Errors{{Field: "csv", Message: err.Error()}}
+		}
+		p = pw
+		if m.StartS != 0 {
+			p = &motion.Shaped{Base: pw, Impulses: []motion.Impulse{{A: 1, T: m.StartS}}}
+		}
+	default:
+		panic("sway: unknown profile " + m.Profile) // Validate rejects these first
+	}
+	if sh := m.Shaper; sh != nil {
+		period := 0.0
+		switch {
+		case sh.PeriodS != nil:
+			period = *sh.PeriodS
+		default:
+			l := *s.Load.RopeLengthM
+			if sh.RopeLengthM != nil {
+				l = *sh.RopeLengthM
+			}
+			period = 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
+		}
+		d, err := shaper.New(sh.Kind, period, sh.DampingRatio, sh.TolerancePct/100)
+		if err != nil {
+			return nil, scenario.Errors{{Field: "shaper", Message: err.Error()}}
+		}
+		p = d.Apply(p)
+	}
+	return p, nil
+}
+
+// phaseOf finds the phase times of any profile: the cruise is the longest
+// span between breakpoints at steady, non-zero speed; without one, the
+// acceleration ends and the deceleration starts at the peak speed.
+func phaseOf(i int, axis string, p motion.Profile) Phase {
+	if t, ok := p.(*motion.Trapezoid); ok {
+		bp := t.Breakpoints()
+		return Phase{Motion: i, Axis: axis, StartS: bp[0], EndS: bp[len(bp)-1],
+			AccelEndS: t.Start + t.PeakSpeed()/t.Accel, DecelStartS: t.End() - t.PeakSpeed()/t.Decel}
+	}
+	bp := p.Breakpoints()
+	ph := Phase{Motion: i, Axis: axis, StartS: bp[0], EndS: p.End()}
+	best, peak, peakAt := 0.0, -1.0, bp[0]
+	for j := 0; j+1 < len(bp); j++ {
+		a, b := bp[j], bp[j+1]
+		mid := p.At(0.5 * (a + b))
+		if v := math.Abs(p.At(a).Vel); v > peak {
+			peak, peakAt = v, a
+		}
+		if mid.Acc == 0 && mid.Vel != 0 && b-a > best {
+			best, ph.AccelEndS, ph.DecelStartS = b-a, a, b
+		}
+	}
+	if best == 0 {
+		ph.AccelEndS, ph.DecelStartS = peakAt, peakAt
+	}
+	return ph
+}
+
+// profileWarning says when a point-to-point move is too short to reach
+// its top speed.
+func profileWarning(i int, m *scenario.Motion, p motion.Profile) string {
+	var t *motion.Trapezoid
+	switch q := p.(type) {
+	case *motion.Trapezoid:
+		t = q
+	case *motion.SCurve:
+		t = q.Base
+	case *motion.Shaped:
+		return profileWarning(i, m, q.Base)
+	}
+	if t == nil || !t.Triangular() {
+		return ""
+	}
+	unit, speedUnit, scale := "m", "m/s", 1.0
+	if m.Axis == scenario.Slew {
+		unit, speedUnit, scale = "deg", "deg/s", 1/units.Degree
+	}
+	return fmt.Sprintf(
+		"Move %d (%s, %.4g %s) is too short to reach its top speed of %.4g %s: it peaks at %.4g %s (triangular speed profile).",
+		i+1, m.Axis, math.Abs(t.Distance)*scale, unit, t.Speed*scale, speedUnit, t.PeakSpeed()*scale, speedUnit)
+}
