@@ -24,6 +24,7 @@ import (
 	"text/tabwriter"
 	"time"
 
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -110,6 +111,26 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 		rows = append(rows, Row{Group: group, Name: base, Value: full, Unit: "us",
 			Note: fmt.Sprintf("%d steps, %.0f s simulated; figures only %.0f us; median of %d",
 				res.Solver.Steps, res.RunS, bare, repeat)})
+	}
+	// One full plan for each scenario that asks for one.
+	for i, s := range scs {
+		if s.Plan == nil {
+			continue
+		}
+		n := max(5, repeat/5)
+		ts := make([]float64, n)
+		var pr *plan.Result
+		for k := range ts {
+			start := time.Now()
+			var err error
+			if pr, err = plan.Make(s); err != nil {
+				return nil, fmt.Errorf("%s: %w", files[i], err)
+			}
+			ts[k] = float64(time.Since(start).Nanoseconds()) / 1e6
+		}
+		base := strings.TrimSuffix(filepath.Base(files[i]), ".json")
+		rows = append(rows, Row{Group: strings.Replace(group, "core", "planner", 1), Name: base, Value: Median(ts), Unit: "ms",
+			Note: fmt.Sprintf("%d options verified at %d rope lengths; median of %d", len(pr.Options), len(pr.RopeLengthsM), n)})
 	}
 	return rows, nil
 }
