@@ -247,3 +247,33 @@ func BenchmarkPlanSlew(b *testing.B) {
 		}
 	}
 }
+
+// Each option's move, saved as a scenario motion, reads back through the
+// scenario format and evaluates.
+func TestOptionMotionsRoundTrip(t *testing.T) {
+	s := load(t, "plan-tower-slew.json")
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, o := range r.Options {
+		sc := *s
+		sc.Plan = nil
+		sc.Motions = []scenario.Motion{o.Motion}
+		var buf strings.Builder
+		if err := scenario.Encode(&buf, &sc); err != nil {
+			t.Fatal(err)
+		}
+		back, err := scenario.Parse([]byte(buf.String()))
+		if err != nil {
+			t.Fatalf("%s: %v", o.Label, err)
+		}
+		res, err := sway.EvaluateWith(back, sway.Options{NoHistory: true})
+		if err != nil {
+			t.Fatalf("%s: %v", o.Label, err)
+		}
+		if math.Abs(res.MotionEndS-o.MoveTimeS) > 1e-9 {
+			t.Errorf("%s: saved move ends at %g s, option says %g s", o.Label, res.MotionEndS, o.MoveTimeS)
+		}
+	}
+}
