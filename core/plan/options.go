@@ -258,9 +258,9 @@ func curves(rq *request) Curves {
 	const n = 121
 	vHook := rq.vmax * rq.k
 	for i := range n {
-		t := 3 * rq.designT * float64(i) / (n - 1)
-		at.RampS = append(at.RampS, t)
-		at.Periods = append(at.Periods, t/rq.designT)
+		q := 3 * float64(i) / (n - 1)
+		at.RampS = append(at.RampS, q*rq.designT)
+		at.Periods = append(at.Periods, q)
 	}
 	for _, l := range rq.ropes {
 		tl := period(l)

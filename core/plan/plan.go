@@ -285,21 +285,27 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			}
 		}
 	}
-	if err := rq.verifyAll(opts); err != nil {
+	// The peak search runs beside the verification of the other options.
+	var peakSims int
+	var peakErr error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		if rq.drive != scenario.DrivePendant {
+			peak, peakSims, peakErr = rq.peakLimited()
+		}
+	}()
+	err := rq.verifyAll(opts)
+	<-done
+	if err != nil {
 		return nil, err
 	}
-	res.Simulations = len(opts) * len(rq.ropes)
-	if rq.drive != scenario.DrivePendant {
-		var n int
-		var err error
-		peak, n, err = rq.peakLimited(fastest)
-		res.Simulations += n
-		if err != nil {
-			return nil, err
-		}
-		if peak != nil {
-			opts = append(opts, peak)
-		}
+	if peakErr != nil {
+		return nil, peakErr
+	}
+	res.Simulations = len(opts)*len(rq.ropes) + peakSims
+	if peak != nil {
+		opts = append(opts, peak)
 	}
 	res.Options = rank(opts, fastest.MoveTimeS)
 	rq.recommend(res)
@@ -527,17 +533,18 @@ func (o *Option) peakRatio(lim Limits) float64 {
 
 // peakLimited finds the largest acceleration whose simulated peak is inside
 // the peak limits at every rope length, starting from g*tan(theta/2) (less
-// the slew lean). It returns nil if the drive-limits move already is.
-func (rq *request) peakLimited(fastest *Option) (*Option, int, error) {
-	if fastest.peakRatio(rq.lim) <= 1 {
-		return nil, 0, nil
-	}
+// the slew lean). It returns nil if that acceleration is the drive's
+// largest, which the drive-limits option already covers.
+func (rq *request) peakLimited() (*Option, int, error) {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if rq.slew {
 		th -= math.Atan(rq.radius * rq.vmax * rq.vmax / g)
 	}
 	a := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
+	if a >= rq.amax {
+		return nil, 0, nil
+	}
 	var best *Option
 	sims := 0
 	for iter := 0; iter < 6; iter++ {
