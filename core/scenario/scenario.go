@@ -243,7 +243,11 @@ func jsonError(err error) FieldError {
 	}
 	msg := strings.TrimPrefix(err.Error(), "json: ")
 	if f, ok := strings.CutPrefix(msg, "unknown field "); ok {
-		return FieldError{Field: strings.Trim(f, `"`), Message: "unknown field; see the scenario schema for the accepted fields"}
+		name := strings.Trim(f, `"`)
+		if name == "" {
+			name = `""` // a key that is the empty string
+		}
+		return FieldError{Field: name, Message: "unknown field; see the scenario schema for the accepted fields"}
 	}
 	return FieldError{Field: "(file)", Message: msg}
 }

@@ -18,7 +18,7 @@ func withHook(s *scenario.Scenario, mHook, rigging float64) *scenario.Scenario {
 // small-amplitude periods in each mode agree with it.
 func TestRiggingModePeriods(t *testing.T) {
 	s := withHook(still(6000, 10), 1200, 4)
-	s.Motions = []scenario.Motion{travel(0, 10, 0.5, 0.3, 0.3)}
+	s.Motions = []scenario.Motion{move(0, 10, 0.5, 0.3, 0.3)}
 	r := mustEval(t, s)
 	rg := r.Rigging
 	if rg == nil {
@@ -45,7 +45,7 @@ func TestRiggingModePeriods(t *testing.T) {
 // pendulum as m1/m2 -> 0 and L2 -> 0 with the sum fixed).
 func TestLightHookTendsToSinglePendulum(t *testing.T) {
 	single := still(8000, 8.5)
-	single.Motions = []scenario.Motion{travel(1, 18, 0.5, 0.25, 0.25)}
+	single.Motions = []scenario.Motion{move(1, 18, 0.5, 0.25, 0.25)}
 	a := mustEval(t, single)
 	double := withHook(still(8000, 8.2), 2, 0.3)
 	double.Motions = single.Motions
@@ -77,7 +77,7 @@ func TestLightHookTendsToSinglePendulum(t *testing.T) {
 // mode, and the result says so.
 func TestHeavyHookWarnsOfSecondMode(t *testing.T) {
 	s := withHook(still(800, 6), 1500, 5)
-	s.Motions = []scenario.Motion{travel(0, 10, 0.5, 0.3, 0.3)}
+	s.Motions = []scenario.Motion{move(0, 10, 0.5, 0.3, 0.3)}
 	r := mustEval(t, s)
 	found := false
 	for _, w := range r.Warnings {

@@ -24,7 +24,8 @@ type Result struct {
 	// length at the end of the run.
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
-	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)).
+	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
+	// over the top (180 deg), where there is no swing period.
 	PeriodAmplitudeS float64 `json:"period_amplitude_s"`
 	// PeakSwingDeg is the largest rope angle from the vertical over the run.
 	PeakSwingDeg   float64 `json:"peak_swing_deg"`
@@ -221,9 +222,16 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	res.TensionMinN = -sc.ext[qTensionLow].max
 	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
 	k := math.Sin(res.ResidualSwingDeg * units.Degree / 2)
-	// Amplitude correction of the plane pendulum, 2K(k^2)/pi, applied to
-	// the period (for a hook block and rigging, to the slower mode).
-	res.PeriodAmplitudeS = period * 2 * mathext.CompleteK(k*k) / math.Pi
+	if k*k < 1 {
+		// Amplitude correction of the plane pendulum, 2K(k^2)/pi, applied
+		// to the period (for a hook block and rigging, to the slower mode).
+		res.PeriodAmplitudeS = period * 2 * mathext.CompleteK(k*k) / math.Pi
+	}
+	if math.IsInf(res.PeriodAmplitudeS, 0) || k*k >= 1 {
+		// The load goes over the top: it circles and has no swing period.
+		res.PeriodAmplitudeS = 0
+		res.Warnings = append(res.Warnings, "The load swings over the top of its circle (180 deg): it whirls round the suspension point and has no swing period.")
+	}
 	if s.Load.Hook != nil {
 		if err := rigging(s, sc, su.ropeEnd, res); err != nil {
 			return nil, err

@@ -26,7 +26,7 @@ func still(mass, rope float64) *scenario.Scenario {
 	}
 }
 
-func travel(start, dist, speed, acc, dec float64) scenario.Motion {
+func move(start, dist, speed, acc, dec float64) scenario.Motion {
 	return scenario.Motion{Axis: scenario.TravelX, StartS: start, DistanceM: f(dist),
 		SpeedMPerS: f(speed), AccelMPerS2: f(acc), DecelMPerS2: f(dec)}
 }
@@ -98,7 +98,7 @@ func TestFreeSwingPeriodAndAmplitude(t *testing.T) {
 func TestSuddenAccelerationPeak(t *testing.T) {
 	s := still(2000, 4)
 	// 2 m/s^2 for 4 s: several periods of 4 s before the cruise.
-	s.Motions = []scenario.Motion{travel(0, 60, 8, 2, 2)}
+	s.Motions = []scenario.Motion{move(0, 60, 8, 2, 2)}
 	r := mustEval(t, s)
 	want := 2 * math.Atan(2/g) / units.Degree
 	if math.Abs(r.PeakSwingDeg-want) > 1e-4 {
@@ -117,14 +117,14 @@ func TestWholePeriodAccelerationLeavesNoSwing(t *testing.T) {
 	const a = 0.2
 	s := still(3000, l)
 	v := a * period // ramp lasts exactly one period, both ways
-	s.Motions = []scenario.Motion{travel(1, 40, v, a, a)}
+	s.Motions = []scenario.Motion{move(1, 40, v, a, a)}
 	r := mustEval(t, s)
 	if r.ResidualSwingDeg >= 0.01 {
 		t.Errorf("residual swing %.5f deg after one-period ramps, want below 0.01 deg", r.ResidualSwingDeg)
 	}
 	// Half a period leaves the largest residual of one phase; two phases
 	// of half a period with a cruise of a whole period between them add up.
-	s.Motions = []scenario.Motion{travel(1, a*period*period/4+a*period/2*period, v/2, a, a)}
+	s.Motions = []scenario.Motion{move(1, a*period*period/4+a*period/2*period, v/2, a, a)}
 	r = mustEval(t, s)
 	lin := 2 * 2 * (a / g) / units.Degree
 	if math.Abs(r.ResidualSwingDeg/lin-1) > 0.01 {
@@ -208,7 +208,7 @@ func TestSlewOutwardLean(t *testing.T) {
 // (issue requirement: below 1e-9 of L), with the default tolerance.
 func TestRopeLengthConstraintLongRun(t *testing.T) {
 	s := still(5000, 10)
-	s.Motions = []scenario.Motion{travel(0, 40, 0.5, 0.3, 0.3), travel(120, -40, 0.5, 0.3, 0.3)}
+	s.Motions = []scenario.Motion{move(0, 40, 0.5, 0.3, 0.3), move(120, -40, 0.5, 0.3, 0.3)}
 	s.Settings = &scenario.Settings{DurationS: 600, Samples: 3001}
 	r := mustEval(t, s)
 	if r.RunS < 600 {
@@ -282,7 +282,7 @@ func TestExamplesEvaluateCleanly(t *testing.T) {
 func TestWarnings(t *testing.T) {
 	// A hard stop from speed on a short rope: large swing, slack rope.
 	s := still(1000, 1)
-	s.Motions = []scenario.Motion{travel(0, 20, 5, 5, 5)}
+	s.Motions = []scenario.Motion{move(0, 20, 5, 5, 5)}
 	r := mustEval(t, s)
 	has := func(sub string) bool {
 		for _, w := range r.Warnings {
@@ -297,7 +297,7 @@ func TestWarnings(t *testing.T) {
 	}
 	// A short move that cannot reach its speed.
 	s = still(1000, 5)
-	s.Motions = []scenario.Motion{travel(0, 0.5, 1, 0.2, 0.2)}
+	s.Motions = []scenario.Motion{move(0, 0.5, 1, 0.2, 0.2)}
 	r = mustEval(t, s)
 	if !has("too short to reach its top speed") {
 		t.Errorf("warnings %q", r.Warnings)
@@ -320,7 +320,7 @@ func TestSlackRopeWarned(t *testing.T) {
 	// near the top.
 	s := still(1000, 3)
 	s.Initial = &scenario.Initial{SwingDeg: 89, TowardDeg: 0, VelocityXMPerS: 0, VelocityYMPerS: 0}
-	s.Motions = []scenario.Motion{travel(0, -30, 6, 5, 5)}
+	s.Motions = []scenario.Motion{move(0, -30, 6, 5, 5)}
 	r := mustEval(t, s)
 	if r.TensionMinN > 0 {
 		t.Skipf("tension stayed positive (%v N)", r.TensionMinN)
@@ -351,7 +351,7 @@ func TestBuildRejectsRopeReachingZero(t *testing.T) {
 
 func TestRunTooLong(t *testing.T) {
 	s := still(1000, 10)
-	s.Motions = []scenario.Motion{travel(3500, 40, 0.5, 0.3, 0.3)}
+	s.Motions = []scenario.Motion{move(3500, 40, 0.5, 0.3, 0.3)}
 	_, err := Evaluate(s)
 	if err == nil || !strings.Contains(err.Error(), "at most 3600 s") {
 		t.Fatalf("got %v", err)
