@@ -67,13 +67,18 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return status
 }
 
-func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+// readScenario opens and decodes one scenario file.
+func readScenario(name string) (*scenario.Scenario, error) {
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, err
 	}
 	defer f.Close()
-	s, err := scenario.Decode(f)
+	return scenario.Decode(f)
+}
+
+func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+	s, err := readScenario(name)
 	if err != nil {
 		return nil, err
 	}
