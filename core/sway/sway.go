@@ -25,7 +25,7 @@ type Result struct {
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
 	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
-	// over the top (180 deg), where there is no swing period.
+	// over the top (179 deg or more), where there is no swing period.
 	PeriodAmplitudeS float64 `json:"period_amplitude_s"`
 	// PeakSwingDeg is the largest rope angle from the vertical over the run.
 	PeakSwingDeg   float64 `json:"peak_swing_deg"`
@@ -123,6 +123,10 @@ const (
 // results leave the range this tool is meant for.
 const SwingValidityDeg = 30.0
 
+// overTopDeg is the residual swing from which the load is taken to whirl
+// over the top; PeriodAmplitudeS is then zero.
+const overTopDeg = 179.0
+
 // maxSteps bounds the work of one evaluation.
 const maxSteps = 2_000_000
 
@@ -211,14 +215,14 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	res.TensionMaxN = sc.tension.max
 	res.TensionMinN = -sc.tensionLow.max
 	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
-	k := math.Sin(sc.resSwing.max / 2)
-	if k*k < 1 {
+	// A swing that reaches the top of its circle (179 deg and more, where
+	// the elliptic integral grows without bound) whirls round the
+	// suspension point and has no swing period.
+	if sc.resSwing.max < overTopDeg*units.Degree {
+		k := math.Sin(sc.resSwing.max / 2)
 		res.PeriodAmplitudeS = 4 * math.Sqrt(su.ropeEnd/g) * mathext.CompleteK(k*k)
-	}
-	if math.IsInf(res.PeriodAmplitudeS, 0) || k*k >= 1 {
-		// The load goes over the top: it circles and has no swing period.
-		res.PeriodAmplitudeS = 0
-		res.Warnings = append(res.Warnings, "The load swings over the top of its circle (180 deg): it whirls round the suspension point and has no swing period.")
+	} else {
+		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
 		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
