@@ -57,3 +57,18 @@ func TestBadMotion(t *testing.T) {
 		}
 	}
 }
+
+// TestStepLimit checks that a run needing more integration steps than
+// allowed ends with an error that says what to do, instead of running on.
+func TestStepLimit(t *testing.T) {
+	s := readScenario(t, "testdata/scenarios/bay-travel.json")
+	_, err := sway.EvaluateWith(s, sway.Options{NoHistory: true, MaxSteps: 300})
+	if !errors.Is(err, sway.ErrStepLimit) {
+		t.Fatalf("want the step limit error, got %v", err)
+	}
+	for _, want := range []string{"too many steps", "settings.rel_tol", "300 steps by t ="} {
+		if !strings.Contains(err.Error(), want) {
+			t.Errorf("message %q lacks %q", err, want)
+		}
+	}
+}

@@ -31,6 +31,7 @@ type scanner struct {
 	model     *pendulum.Model
 	solver    *ode.Solver
 	motionEnd float64
+	maxSteps  int
 
 	swing, excursion, resSwing, resExcursion, tension, tensionLow extremum
 	constraintErr                                                 float64
@@ -45,7 +46,7 @@ type scanner struct {
 }
 
 func newScanner(m *pendulum.Model, motionEnd float64) *scanner {
-	return &scanner{model: m, motionEnd: motionEnd, y: make([]float64, pendulum.StateLen)}
+	return &scanner{model: m, motionEnd: motionEnd, maxSteps: maxSteps, y: make([]float64, pendulum.StateLen)}
 }
 
 // quantity is one scalar watched along the run.
@@ -104,7 +105,7 @@ const interior = 4
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
 	s.solver = ode.New(s.model.Func, pendulum.StateLen, ode.Settings{
-		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
+		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: s.maxSteps,
 	})
 	y := append([]float64(nil), y0...)
 	// Segments between restarts. The breakpoints come move by move and
@@ -134,7 +135,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			done, err := s.solver.Step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
-					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, maxSteps, s.solver.T(), tEnd)
+					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.solver.T(), tEnd)
 				}
 				return err
 			}

@@ -111,6 +111,9 @@ type Stats struct {
 type Options struct {
 	// NoHistory skips the time histories (for the planner's many runs).
 	NoHistory bool
+	// MaxSteps bounds the integration steps, accepted and rejected; zero
+	// means 2,000,000. The evaluation ends with ErrStepLimit when hit.
+	MaxSteps int
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -199,6 +202,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Phases = []Phase{}
 	}
 	sc := newScanner(&su.model, su.motionEnd)
+	if opt.MaxSteps > 0 {
+		sc.maxSteps = opt.MaxSteps
+	}
 	if !opt.NoHistory {
 		sc.hist = &res.History
 		sc.sampleDt = tEnd / float64(samples-1)
