@@ -213,7 +213,7 @@ func Parse(data []byte) (*Scenario, error) {
 	dec.DisallowUnknownFields()
 	var s Scenario
 	if err := dec.Decode(&s); err != nil {
-		return nil, Errors{jsonError(err)}
+		return nil, Errors{jsonError(err, data)}
 	}
 	if dec.More() {
 		return nil, Errors{{Field: "(file)", Message: "there is more after the scenario's closing brace"}}
@@ -224,7 +224,7 @@ func Parse(data []byte) (*Scenario, error) {
 	return &s, nil
 }
 
-func jsonError(err error) FieldError {
+func jsonError(err error, data []byte) FieldError {
 	var te *json.UnmarshalTypeError
 	var se *json.SyntaxError
 	switch {
@@ -233,7 +233,7 @@ func jsonError(err error) FieldError {
 		if f == "" {
 			f = "(file)"
 		}
-		return FieldError{Field: f, Message: fmt.Sprintf("expected %s, found a JSON %s", te.Type, te.Value)}
+		return FieldError{Field: f, Message: typeMessage(te.Type, te.Value)}
 	case errors.As(err, &se):
 		return FieldError{Field: "(file)", Message: fmt.Sprintf("not valid JSON at byte %d: %v", se.Offset, se)}
 	case errors.Is(err, io.EOF):
@@ -247,7 +247,7 @@ func jsonError(err error) FieldError {
 		if name == "" {
 			name = `""` // a key that is the empty string
 		}
-		return FieldError{Field: name, Message: "unknown field; see the scenario schema for the accepted fields"}
+		return FieldError{Field: unknownFieldPath(data, name), Message: "unknown field; see the scenario schema for the accepted fields"}
 	}
 	return FieldError{Field: "(file)", Message: msg}
 }

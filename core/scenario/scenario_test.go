@@ -40,7 +40,7 @@ func TestBadInputMessages(t *testing.T) {
 		{"zero speed", `"speed_m_per_s": 0.5`, "motions[0].speed_m_per_s", "0 is out of range: accepted above 0"},
 		{"bad axis", `"axis": "travel_x"`, "motions[0].axis", `is "sideways": accepted`},
 		{"slew fields on travel", `"axis": "travel_x"`, "motions[0].angle_deg", "does not apply here"},
-		{"wrong type", `"mass_kg": 1000,`, "load.mass_kg", "expected float64, found a JSON string"},
+		{"wrong type", `"mass_kg": 1000,`, "load.mass_kg", "expected a number, found a JSON string"},
 		{"wrong format", `"format": "swaysheet-scenario"`, "format", "a scenario file has format"},
 		{"future version", `"version": 1`, "version", "2 is not supported"},
 		{"bad accuracy", `"name": "t",`, "settings.accuracy", `accepted "default" or "tight"`},

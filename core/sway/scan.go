@@ -34,6 +34,7 @@ type scanner struct {
 	solver    *ode.Solver
 	motionEnd float64
 	nq        quantity // quantities watched: all of them with rigging
+	maxSteps  int
 
 	ext           [nQuantities]extremum
 	resSwing      extremum // swing after the last motion
@@ -56,7 +57,7 @@ func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	if _, ok := m.(*pendulum.Double); ok {
 		nq = nQuantities
 	}
-	return &scanner{model: m, motionEnd: motionEnd, nq: nq, y: make([]float64, m.Len())}
+	return &scanner{model: m, motionEnd: motionEnd, nq: nq, maxSteps: maxSteps, y: make([]float64, m.Len())}
 }
 
 // quantity is one scalar watched along the run.
@@ -162,7 +163,7 @@ const interior = 2
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
 	s.solver = ode.New(s.fn, s.model.Len(), ode.Settings{
-		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
+		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: s.maxSteps,
 	})
 	y := append([]float64(nil), y0...)
 	// Segments between restarts. The breakpoints come move by move and
@@ -196,7 +197,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			done, err := s.solver.Step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
-					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, maxSteps, s.solver.T(), tEnd)
+					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.solver.T(), tEnd)
 				}
 				return err
 			}

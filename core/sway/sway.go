@@ -25,7 +25,7 @@ type Result struct {
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
 	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
-	// over the top (180 deg), where there is no swing period.
+	// over the top (179 deg or more), where there is no swing period.
 	PeriodAmplitudeS float64 `json:"period_amplitude_s"`
 	// PeakSwingDeg is the largest rope angle from the vertical over the run.
 	PeakSwingDeg   float64 `json:"peak_swing_deg"`
@@ -115,6 +115,9 @@ type Stats struct {
 type Options struct {
 	// NoHistory skips the time histories (for the planner's many runs).
 	NoHistory bool
+	// MaxSteps bounds the integration steps, accepted and rejected; zero
+	// means 2,000,000. The evaluation ends with ErrStepLimit when hit.
+	MaxSteps int
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -126,6 +129,10 @@ const (
 // SwingValidityDeg is the rope angle above which a warning says the
 // results leave the range this tool is meant for.
 const SwingValidityDeg = 30.0
+
+// overTopDeg is the residual swing from which the load is taken to whirl
+// over the top; PeriodAmplitudeS is then zero.
+const overTopDeg = 179.0
 
 // maxSteps bounds the work of one evaluation.
 const maxSteps = 2_000_000
@@ -205,6 +212,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Phases = []Phase{}
 	}
 	sc := newScanner(su.model, su.motionEnd)
+	if opt.MaxSteps > 0 {
+		sc.maxSteps = opt.MaxSteps
+	}
 	if !opt.NoHistory {
 		sc.hist = &res.History
 		sc.sampleDt = tEnd / float64(samples-1)
@@ -221,16 +231,16 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	res.TensionMaxN = sc.ext[qTension].max
 	res.TensionMinN = -sc.ext[qTensionLow].max
 	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
-	k := math.Sin(res.ResidualSwingDeg * units.Degree / 2)
-	if k*k < 1 {
+	// A swing that reaches the top of its circle (179 deg and more, where
+	// the elliptic integral grows without bound) whirls round the
+	// suspension point and has no swing period.
+	if res.ResidualSwingDeg < overTopDeg {
+		k := math.Sin(res.ResidualSwingDeg * units.Degree / 2)
 		// Amplitude correction of the plane pendulum, 2K(k^2)/pi, applied
 		// to the period (for a hook block and rigging, to the slower mode).
 		res.PeriodAmplitudeS = period * 2 * mathext.CompleteK(k*k) / math.Pi
-	}
-	if math.IsInf(res.PeriodAmplitudeS, 0) || k*k >= 1 {
-		// The load goes over the top: it circles and has no swing period.
-		res.PeriodAmplitudeS = 0
-		res.Warnings = append(res.Warnings, "The load swings over the top of its circle (180 deg): it whirls round the suspension point and has no swing period.")
+	} else {
+		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
 		if err := rigging(s, sc, su.ropeEnd, res); err != nil {
