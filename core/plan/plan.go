@@ -222,7 +222,7 @@ type request struct {
 // validated first.
 func Make(s *scenario.Scenario) (*Result, error) {
 	if s.Plan == nil {
-		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request"}}
+		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
 	}
 	if err := s.Validate(); err != nil {
 		return nil, err
