@@ -50,6 +50,7 @@ func (rq *request) motionFor(a, v float64) scenario.Motion {
 }
 
 func (rq *request) setAccel(o *Option, a, v float64) {
+	o.accelSI = a
 	if rq.slew {
 		o.AccelDegPerS2, o.TopRateDegPerS = a/units.Degree, v/units.Degree
 	} else {

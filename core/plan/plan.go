@@ -121,6 +121,7 @@ type Option struct {
 	Motion scenario.Motion `json:"motion"`
 
 	profile motion.Profile
+	accelSI float64
 }
 
 // Verified is one simulation of an option.
@@ -532,22 +533,29 @@ func (o *Option) peakRatio(lim Limits) float64 {
 }
 
 // peakLimited finds the largest acceleration whose simulated peak is inside
-// the peak limits at every rope length, starting from g*tan(theta/2) (less
-// the slew lean). It returns nil if that acceleration is the drive's
-// largest, which the drive-limits option already covers.
+// the peak limits at every rope length. The first guess is the largest
+// acceleration, from g*tan(theta/2) (less the slew lean) down in steps of
+// 2 %, whose linear-theory peak (linearPeak) is inside the limits; the
+// simulation then corrects it (scaling by limit/peak). It returns nil when
+// the answer is the drive's largest acceleration, which the drive-limits
+// option already is.
 func (rq *request) peakLimited() (*Option, int, error) {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if rq.slew {
 		th -= math.Atan(rq.radius * rq.vmax * rq.vmax / g)
 	}
-	a := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
-	if a >= rq.amax {
-		return nil, 0, nil
+	a0 := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
+	a := a0
+	for range 200 {
+		if rq.linearRatio(a) <= 0.99 {
+			break
+		}
+		a *= 0.98
 	}
 	var best *Option
 	sims := 0
-	for iter := 0; iter < 6; iter++ {
+	for range 6 {
 		o := rq.trapezoidOption("peak_limited", "Acceleration for the peak limit", a, rq.vmax)
 		if err := rq.verifyAll([]*Option{o}); err != nil {
 			return nil, sims, err
@@ -558,25 +566,27 @@ func (rq *request) peakLimited() (*Option, int, error) {
 			if best == nil || o.accel() > best.accel() {
 				best = o
 			}
-			if r > 0.97 || a >= rq.amax {
+			if r > 0.95 || a >= rq.amax {
 				break
 			}
 		}
 		// The peak grows about in proportion to the acceleration.
 		next := math.Min(rq.amax, a*0.985/r)
-		if best != nil && next <= best.accel() {
+		if best != nil && next <= best.accel()*1.01 {
 			break
 		}
 		a = next
 	}
-	if best != nil {
-		best.Settings = append(best.Settings, fmt.Sprintf("Starting value g*tan(theta_lim/2) = %s, refined by simulation to keep the peak inside the limit at every rope length.",
-			rq.accelText(math.Min(rq.amax, g*math.Tan(th/2)/rq.k))))
+	if best == nil || best.accel() >= rq.amax*(1-1e-9) {
+		return nil, sims, nil
 	}
+	best.Settings = append(best.Settings, fmt.Sprintf("Found from g*tan(theta_lim/2) = %s (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits, then corrected by simulation at every rope length.",
+		rq.accelText(a0)))
 	return best, sims, nil
 }
 
-func (o *Option) accel() float64 { return o.AccelMPerS2 + o.AccelDegPerS2 }
+// accel is the option's acceleration setting in SI (m/s² or rad/s²).
+func (o *Option) accel() float64 { return o.accelSI }
 
 // rank sorts options: those within every limit first, fastest first;
 // then the others, fastest first.
