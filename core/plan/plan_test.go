@@ -6,6 +6,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/mathext"
+
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -274,6 +276,41 @@ func TestOptionMotionsRoundTrip(t *testing.T) {
 		}
 		if math.Abs(res.MotionEndS-o.MoveTimeS) > 1e-9 {
 			t.Errorf("%s: saved move ends at %g s, option says %g s", o.Label, res.MotionEndS, o.MoveTimeS)
+		}
+	}
+}
+
+// From rest, a suspension point accelerating uniformly at a swings the rope
+// between 0 and 2*atan(a/g): the pendulum swings with amplitude atan(a/g)
+// about the apparent gravity g' = sqrt(g^2 + a^2) tilted by atan(a/g)
+// (exact, not a small-angle result; field notes). Its period there is
+// 4*sqrt(L/g')*K(k), k = sin(atan(a/g)/2) (large-amplitude pendulum; K the
+// complete elliptic integral, Abramowitz & Stegun 17.3). So the planner's
+// starting value a = g*tan(theta/2) peaks at exactly theta for one sudden
+// ramp, and a ramp lasting exactly that period leaves the load at rest.
+func TestSuddenAccelerationPeak(t *testing.T) {
+	g := units.StandardGravity
+	l, mass, brake := 6.0, 1000.0, 1.0
+	for _, thDeg := range []float64{2, 5, 10} {
+		a := g * math.Tan(thDeg*units.Degree/2)
+		k := math.Sin(thDeg * units.Degree / 4)
+		T := 4 * math.Sqrt(l/math.Hypot(g, a)) * mathext.CompleteK(k*k)
+		v := a * T
+		m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop}
+		m.SpeedMPerS, m.DecelMPerS2, m.BrakeAtS = &v, &a, &brake
+		sc := &scenario.Scenario{Format: scenario.FormatName, Version: 1, Name: "sudden ramp",
+			Load: scenario.Load{MassKg: &mass, RopeLengthM: &l}, Motions: []scenario.Motion{m},
+			Settings: &scenario.Settings{Accuracy: "tight"}}
+		res, err := sway.EvaluateWith(sc, sway.Options{NoHistory: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		t.Logf("theta %g: peak %.8f residual %.2e", thDeg, res.PeakSwingDeg, res.ResidualSwingDeg)
+		if math.Abs(res.PeakSwingDeg-thDeg) > 1e-5 {
+			t.Errorf("theta %g: peak %.7f deg, want 2*atan(a/g) = %g", thDeg, res.PeakSwingDeg, thDeg)
+		}
+		if res.ResidualSwingDeg > 1e-4 {
+			t.Errorf("theta %g: ramp of one exact period leaves %g deg", thDeg, res.ResidualSwingDeg)
 		}
 	}
 }
