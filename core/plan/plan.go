@@ -258,6 +258,9 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			rq.speedText(rq.vmax), rq.speedText(base.PeakSpeed())))
 	}
 
+	if rq.zeta > 0 {
+		res.Notes = append(res.Notes, fmt.Sprintf("ZV and ZVD are designed for the damping ratio %.3g; EI uses its undamped form.", rq.zeta))
+	}
 	var opts []*Option
 	add := func(o *Option) { opts = append(opts, o) }
 	fastest := rq.trapezoidOption("drive_limits", "Drive limits, no sway control", rq.amax, rq.vmax)

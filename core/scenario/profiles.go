@@ -317,13 +317,14 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 	col := m.Column
 	if col == "" {
 		col = DefaultColumn(m.Axis, s)
-	}
-	unit := "_m"
-	if !metric(m.Axis) {
-		unit = "_deg"
-	}
-	if col != m.Axis+unit && col != m.Axis+unit+"_per_s" && m.Column == "" {
-		return nil, fmt.Errorf("no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column", m.Axis, m.Axis, unit, m.Axis, unit)
+		if _, ok := s.Column(col); !ok {
+			unit := "_m"
+			if !metric(m.Axis) {
+				unit = "_deg"
+			}
+			return nil, fmt.Errorf("the record has no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column",
+				m.Axis, m.Axis, unit, m.Axis, unit)
+		}
 	}
 	p, err := s.Profile(col, ColumnScale(m.Axis))
 	if err != nil {
