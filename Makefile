@@ -5,7 +5,7 @@ GOROOT := $(shell $(GO) env GOROOT)
 WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve bench reference dist clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve bench reference fuzz dist clean
 
 all: test
 
@@ -28,20 +28,48 @@ vet:
 
 # Every test: unit and physics tests, the core built for js/wasm, wasm tests
 # under node, browser tests in headless Chromium.
-test: deps vet test-go test-wasm test-browser
+test: deps vet test-go test-wasm test-browser fuzz
 
 test-go:
 	$(GO) test ./...
 
 test-wasm:
 	GOOS=js GOARCH=wasm $(GO) build ./core/...
-	GOOS=js GOARCH=wasm $(GO) test -exec="$(WASM_EXEC)" ./core/... ./wasm/...
+	GOOS=js GOARCH=wasm $(GO) test -exec="$(WASM_EXEC)" ./core/... $(if $(wildcard wasm/*.go),./wasm/...)
 
 test-browser:
 	@echo "browser tests: none yet"
 
-bench:
-	$(GO) test -run '^$$' -bench . -benchtime 200x ./core/...
+# Fuzz targets, each for FUZZTIME (go test -fuzz takes one target at a time).
+# Seeds: every scenario file plus core/*/testdata/fuzz/. A failing input is
+# written to the package's testdata/fuzz/FuzzX/ and fails the run. The CSV
+# import fuzz target comes with the planner; add its line here.
+FUZZTIME ?= 10s
+fuzz:
+	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
+	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
+
+# Regenerate testdata/reference/results.json with SciPy (Debian's
+# python3-scipy, installed when missing). The tests read the committed file
+# and need no Python.
+PYTHON_REF ?= /usr/bin/python3
+reference:
+	@$(PYTHON_REF) -c 'import scipy' 2>/dev/null || { \
+	  echo "installing: python3-scipy"; \
+	  if [ "$$(id -u)" = 0 ]; then apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq python3-scipy; \
+	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq python3-scipy; fi; }
+	$(PYTHON_REF) testdata/reference/reference.py generate
+
+# Speed and size, side by side, in one table (see README "Benchmarks").
+BENCH := $(OUT)/bench
+bench: deps
+	@mkdir -p $(BENCH)
+	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... | tee $(BENCH)/go-bench.txt
+	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
+	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
+	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	@echo
+	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
 
 clean:
 	rm -rf $(OUT) dist

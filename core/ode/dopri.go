@@ -135,7 +135,11 @@ func (v *Solver) SetState(y []float64) {
 // T returns the current time.
 func (v *Solver) T() float64 { return v.t }
 
-// State returns the current state. The slice belongs to the solver.
+// State returns the current state. The slice belongs to the solver. A
+// caller may change it in place by a small amount (a projection onto a
+// constraint, of the order of the local error): the solver then keeps the
+// slope it had, which costs no evaluation and stays within the error
+// control. Use SetState for anything larger.
 func (v *Solver) State() []float64 { return v.y }
 
 // LastStep returns the interval [t0, t1] of the last accepted step.

@@ -54,26 +54,52 @@ type Model struct {
 // StateLen is the length of the state vector: n then u.
 const StateLen = 6
 
+// System is a hook-load model that an evaluation integrates: the single
+// pendulum Model or the hook-and-rigging Double.
+type System interface {
+	// Len is the length of the state vector.
+	Len() int
+	// Func is the right-hand side y' = f(t, y).
+	Func(t float64, y, dy []float64)
+	// Project puts y back onto the rope constraints and returns the
+	// largest relative length error it removed.
+	Project(y []float64) float64
+	// Eval fills p from time t and state y.
+	Eval(t float64, y []float64, p *Point)
+}
+
 // Point is everything known about the load at one instant.
 type Point struct {
 	T          float64 // time, s
-	Dir, Rate  r3.Vec  // n and dn/dt
-	Rope       float64 // L, m
+	Dir, Rate  r3.Vec  // rope direction n and dn/dt
+	Rope       float64 // rope length L, m
 	Suspension Kinematics
 	LoadPos    r3.Vec  // P, m
 	LoadVel    r3.Vec  // dP/dt, m/s
-	Tension    float64 // N
+	Tension    float64 // rope tension, N
+
+	// With a hook block and rigging (Double) only:
+	HookPos        r3.Vec  // hook block, m
+	RiggingDir     r3.Vec  // unit vector hook to load
+	RiggingTension float64 // N
 }
 
-// SwingRad is the rope angle from the downward vertical, radians.
+// Rel is the load's position relative to the suspension point.
+func (p *Point) Rel() r3.Vec { return r3.Sub(p.LoadPos, p.Suspension.Pos) }
+
+// SwingRad is the angle from the downward vertical of the line from the
+// suspension point to the load, radians. For a single rope it is the rope
+// angle.
 func (p *Point) SwingRad() float64 {
-	return math.Atan2(math.Hypot(p.Dir.X, p.Dir.Y), -p.Dir.Z)
+	d := p.Rel()
+	return math.Atan2(math.Hypot(d.X, d.Y), -d.Z)
 }
 
 // Excursion is the horizontal distance of the load from the point under
 // the suspension point, m.
 func (p *Point) Excursion() float64 {
-	return p.Rope * math.Hypot(p.Dir.X, p.Dir.Y)
+	d := p.Rel()
+	return math.Hypot(d.X, d.Y)
 }
 
 func (m *Model) g() float64 {
@@ -83,8 +109,17 @@ func (m *Model) g() float64 {
 	return m.Gravity
 }
 
-// Eval fills p from time t and state y, and returns n” in acc.
-func (m *Model) Eval(t float64, y []float64, p *Point) (acc r3.Vec) {
+// Len implements System.
+func (m *Model) Len() int { return StateLen }
+
+// Eval implements System.
+func (m *Model) Eval(t float64, y []float64, p *Point) { m.eval(t, y, p) }
+
+// Project implements System.
+func (m *Model) Project(y []float64) float64 { return Project(y) }
+
+// eval fills p (if not nil) from time t and state y, and returns n”.
+func (m *Model) eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 	n := r3.Vec{X: y[0], Y: y[1], Z: y[2]}
 	u := r3.Vec{X: y[3], Y: y[4], Z: y[5]}
 	s := m.Suspension(t)
@@ -109,7 +144,7 @@ func (m *Model) Eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 
 // Func is the right-hand side y' = f(t, y) for an ODE solver.
 func (m *Model) Func(t float64, y, dy []float64) {
-	acc := m.Eval(t, y, nil)
+	acc := m.eval(t, y, nil)
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
 	dy[3], dy[4], dy[5] = acc.X, acc.Y, acc.Z
 }

@@ -70,6 +70,18 @@ type Load struct {
 	// DragCoefficient, when positive, adds quadratic air drag on the load's
 	// motion: F = -0.5*rho*c*A*|v|*v.
 	DragCoefficient float64 `json:"drag_coefficient,omitempty"`
+	// Hook, when present, models the hook block and the rigged load as two
+	// masses (a double pendulum). Then RopeLengthM runs to the hook block's
+	// centre of mass and MassKg is the rigged load without the hook block.
+	Hook *Hook `json:"hook,omitempty"`
+}
+
+// Hook is the hook block and the rigging below it.
+type Hook struct {
+	MassKg *float64 `json:"mass_kg"`
+	// RiggingLengthM is the distance from the hook block's centre of mass
+	// to the load's centre of mass, slings and spreader included.
+	RiggingLengthM *float64 `json:"rigging_length_m"`
 }
 
 // Crane is the crane's geometry at the start of the run. The suspension
@@ -231,7 +243,11 @@ func jsonError(err error) FieldError {
 	}
 	msg := strings.TrimPrefix(err.Error(), "json: ")
 	if f, ok := strings.CutPrefix(msg, "unknown field "); ok {
-		return FieldError{Field: strings.Trim(f, `"`), Message: "unknown field; see the scenario schema for the accepted fields"}
+		name := strings.Trim(f, `"`)
+		if name == "" {
+			name = `""` // a key that is the empty string
+		}
+		return FieldError{Field: name, Message: "unknown field; see the scenario schema for the accepted fields"}
 	}
 	return FieldError{Field: "(file)", Message: msg}
 }

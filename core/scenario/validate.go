@@ -18,12 +18,14 @@ type Range struct {
 // stands for any list index. The page shows these beside its inputs, so
 // they are kept in this one place.
 var Ranges = map[string]Range{
-	"load.mass_kg":          {Min: 0.1, Max: 2e6, Unit: "kg"},
-	"load.rope_length_m":    {Min: MinRopeM, Max: 500, Unit: "m"},
-	"load.area_m2":          {Min: 0, Max: 2000, Unit: "m²"},
-	"load.drag_coefficient": {Min: 0, Max: 3, Unit: ""},
-	"crane.radius_m":        {Min: 0, Max: 150, Unit: "m"},
-	"crane.slew_deg":        {Min: -360, Max: 360, Unit: "deg"},
+	"load.mass_kg":               {Min: 0.1, Max: 2e6, Unit: "kg"},
+	"load.rope_length_m":         {Min: MinRopeM, Max: 500, Unit: "m"},
+	"load.area_m2":               {Min: 0, Max: 2000, Unit: "m²"},
+	"load.drag_coefficient":      {Min: 0, Max: 3, Unit: ""},
+	"load.hook.mass_kg":          {Min: 0.1, Max: 2e5, Unit: "kg"},
+	"load.hook.rigging_length_m": {Min: 0.1, Max: 100, Unit: "m"},
+	"crane.radius_m":             {Min: 0, Max: 150, Unit: "m"},
+	"crane.slew_deg":             {Min: -360, Max: 360, Unit: "deg"},
 
 	"motions[].start_s":          {Min: 0, Max: MaxRunS, Unit: "s"},
 	"motions[].distance_m":       {Min: -2000, Max: 2000, Unit: "m"},
@@ -143,6 +145,10 @@ func (s *Scenario) Validate() error {
 	c.value("load.drag_coefficient", "load.drag_coefficient", s.Load.DragCoefficient)
 	if s.Load.DragCoefficient > 0 && s.Load.AreaM2 == 0 {
 		c.add("load.area_m2", "is required when load.drag_coefficient is set: %s", Ranges["load.area_m2"].Text())
+	}
+	if h := s.Load.Hook; h != nil {
+		c.required("load.hook.mass_kg", "load.hook.mass_kg", h.MassKg)
+		c.required("load.hook.rigging_length_m", "load.hook.rigging_length_m", h.RiggingLengthM)
 	}
 	c.value("crane.radius_m", "crane.radius_m", s.Crane.RadiusM)
 	c.value("crane.slew_deg", "crane.slew_deg", s.Crane.SlewDeg)

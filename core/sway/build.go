@@ -14,7 +14,7 @@ import (
 
 // setup is a scenario turned into a model ready to integrate.
 type setup struct {
-	model       pendulum.Model
+	model       pendulum.System
 	y0          []float64
 	breaks      []float64 // restart times, ascending, within [0, end]
 	motionEnd   float64   // last motion at rest
@@ -143,18 +143,16 @@ func build(s *scenario.Scenario) (*setup, error) {
 	}
 	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
 
-	su.model = pendulum.Model{
-		Mass: mass,
-		Suspension: suspension(ax.x, ax.y, ax.slew, ax.radius, r0, slew0,
-			len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0),
-		Rope: func(t float64) (float64, float64, float64) {
-			h := ax.hoist.At(t)
-			return l0 - h.Pos, -h.Vel, -h.Acc
-		},
+	susp := suspension(ax.x, ax.y, ax.slew, ax.radius, r0, slew0,
+		len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0)
+	rope := func(t float64) (float64, float64, float64) {
+		h := ax.hoist.At(t)
+		return l0 - h.Pos, -h.Vel, -h.Acc
 	}
+	var force func(t float64, pos, vel r3.Vec) r3.Vec
 	if su.windForce > 0 || dragK > 0 {
 		wf := r3.Scale(su.windForce, windDir)
-		su.model.Force = func(t float64, _, vel r3.Vec) r3.Vec {
+		force = func(t float64, _, vel r3.Vec) r3.Vec {
 			var f r3.Vec
 			if t >= windOn && t < windOff {
 				f = wf
@@ -165,14 +163,26 @@ func build(s *scenario.Scenario) (*setup, error) {
 			return f
 		}
 	}
+	hook := s.Load.Hook
+	if hook == nil {
+		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
+	} else {
+		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
+			Suspension: susp, Rope: rope, Force: force}
+	}
 
 	// Initial state.
 	var in scenario.Initial
 	if s.Initial != nil {
 		in = *s.Initial
 	}
-	su.y0 = pendulum.StateFromSwing(in.SwingDeg*units.Degree, in.TowardDeg*units.Degree,
-		in.VelocityXMPerS, in.VelocityYMPerS, l0)
+	if hook == nil {
+		su.y0 = pendulum.StateFromSwing(in.SwingDeg*units.Degree, in.TowardDeg*units.Degree,
+			in.VelocityXMPerS, in.VelocityYMPerS, l0)
+	} else {
+		su.y0 = pendulum.DoubleStateFromSwing(in.SwingDeg*units.Degree, in.TowardDeg*units.Degree,
+			in.VelocityXMPerS, in.VelocityYMPerS, l0, *hook.RiggingLengthM)
+	}
 	su.breaks = breaks
 	return su, nil
 }
@@ -223,12 +233,17 @@ func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field,
 			ts = append(ts, ts[i]+(ts[i+1]-ts[i])*a.Vel/(a.Vel-b.Vel))
 		}
 	}
+	worst, at, bad := 0.0, 0.0, false
 	for _, t := range ts {
 		v := value(p.At(t).Pos)
-		if v < lo-1e-9 || v > hi+1e-9 {
-			return scenario.Errors{{Field: field, Message: fmt.Sprintf(
-				"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, v, unit, t, lo, hi, unit)}}
+		over := math.Max(lo-v, v-hi)
+		if over > 1e-9 && (!bad || over > math.Max(lo-worst, worst-hi)) {
+			worst, at, bad = v, t, true
 		}
+	}
+	if bad {
+		return scenario.Errors{{Field: field, Message: fmt.Sprintf(
+			"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, worst, unit, at, lo, hi, unit)}}
 	}
 	return nil
 }

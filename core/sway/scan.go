@@ -4,6 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
@@ -27,12 +30,17 @@ func (e *extremum) offer(v, t float64) bool {
 // scanner integrates the model and watches every step for extremes,
 // locating each to the accuracy of the dense output.
 type scanner struct {
-	model     *pendulum.Model
+	model     pendulum.System
 	solver    *ode.Solver
 	motionEnd float64
+	nq        quantity // quantities watched: all of them with rigging
 
-	swing, excursion, resSwing, resExcursion, tension, tensionLow extremum
-	constraintErr                                                 float64
+	ext           [nQuantities]extremum
+	resSwing      extremum // swing after the last motion
+	resExcursion  extremum
+	constraintErr float64
+
+	segStart, segEnd float64 // the segment between restarts being integrated
 
 	hist     *History
 	sampleDt float64
@@ -43,8 +51,12 @@ type scanner struct {
 	pt pendulum.Point
 }
 
-func newScanner(m *pendulum.Model, motionEnd float64) *scanner {
-	return &scanner{model: m, motionEnd: motionEnd, y: make([]float64, pendulum.StateLen)}
+func newScanner(m pendulum.System, motionEnd float64) *scanner {
+	nq := qRigAngle
+	if _, ok := m.(*pendulum.Double); ok {
+		nq = nQuantities
+	}
+	return &scanner{model: m, motionEnd: motionEnd, nq: nq, y: make([]float64, m.Len())}
 }
 
 // quantity is one scalar watched along the run.
@@ -55,69 +67,121 @@ const (
 	qExcursion
 	qTension
 	qTensionLow
+	// With a hook block and rigging:
+	qRigAngle  // angle between rope and rigging
+	qRopeSwing // the rope's own angle from the vertical
+	qRigTension
+	qRigTensionLow
 	nQuantities
 )
 
+// value is the quantity q at p, or a cheaper quantity that rises and falls
+// with it: for an angle theta from the vertical, 1 - cos(theta) (written
+// so that it keeps its precision near the vertical); for the excursion,
+// its square. swingRad and excursionM turn them back.
 func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 	switch q {
 	case qSwing:
-		return p.SwingRad()
+		return oneMinusCos(p.Rel(), r3.Vec{Z: -1})
 	case qExcursion:
-		return p.Excursion()
+		d := p.Rel()
+		return d.X*d.X + d.Y*d.Y
 	case qTension:
 		return p.Tension
-	default:
+	case qTensionLow:
 		return -p.Tension
+	case qRigAngle:
+		return oneMinusCos(p.RiggingDir, p.Dir)
+	case qRopeSwing:
+		return oneMinusCos(p.Dir, r3.Vec{Z: -1})
+	case qRigTension:
+		return p.RiggingTension
+	default:
+		return -p.RiggingTension
 	}
 }
 
-func (s *scanner) ext(q quantity, residual bool) *extremum {
+// oneMinusCos is 1 - cos of the angle between d and the unit vector e:
+// |d x e|^2 / (|d| (|d| + d.e)) where d.e > 0, which keeps its precision
+// for small angles.
+func oneMinusCos(d, e r3.Vec) float64 {
+	l := r3.Norm(d)
+	c := r3.Dot(d, e)
+	if c > 0 {
+		x := r3.Cross(d, e)
+		return r3.Dot(x, x) / (l * (l + c))
+	}
+	return 1 - c/l
+}
+
+// swingRad turns the swing value back into the angle:
+// 1 - cos(theta) = 2*sin^2(theta/2).
+func swingRad(v float64) float64 { return 2 * math.Asin(math.Sqrt(math.Max(0, math.Min(1, v/2)))) }
+
+// excursionM turns the excursion value back into metres.
+func excursionM(v float64) float64 { return math.Sqrt(math.Max(0, v)) }
+
+// residualOf is the residual tracker of q, or nil.
+func (s *scanner) residualOf(q quantity) *extremum {
 	switch q {
 	case qSwing:
-		if residual {
-			return &s.resSwing
-		}
-		return &s.swing
+		return &s.resSwing
 	case qExcursion:
-		if residual {
-			return &s.resExcursion
-		}
-		return &s.excursion
-	case qTension:
-		return &s.tension
-	default:
-		return &s.tensionLow
+		return &s.resExcursion
 	}
+	return nil
 }
 
 // at evaluates the load at time t inside the last step.
 func (s *scanner) at(t float64) *pendulum.Point {
 	s.solver.Dense(t, s.y)
-	pendulum.Project(s.y)
-	s.model.Eval(t, s.y, &s.pt)
-	return &s.pt
+	s.model.Project(s.y)
+	s.model.Eval(s.inSegment(t), s.y, &s.pt)
+	p := &s.pt
+	p.T = t
+	return p
 }
 
+// inSegment moves t just inside the current segment between restarts.
+// The motions' accelerations jump at the segment's ends; evaluating the
+// model a hair inside makes every evaluation of a segment, the solver's
+// and the scanner's, see that segment's own acceleration and not the next
+// one's. The shift, 1e-12 of the time, moves positions by far less than
+// the integration error.
+func (s *scanner) inSegment(t float64) float64 {
+	d := 1e-12 * math.Max(1, math.Abs(t))
+	return math.Max(s.segStart+d, math.Min(s.segEnd-d, t))
+}
+
+// fn is the right-hand side the solver integrates: the model's, inside the
+// current segment.
+func (s *scanner) fn(t float64, y, dy []float64) { s.model.Func(s.inSegment(t), y, dy) }
+
 // interior is the number of points looked at inside each step.
-const interior = 4
+const interior = 2
 
 func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) error {
-	s.solver = ode.New(s.model.Func, pendulum.StateLen, ode.Settings{
+	s.solver = ode.New(s.fn, s.model.Len(), ode.Settings{
 		RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxSteps,
 	})
 	y := append([]float64(nil), y0...)
-	// Segments between restarts.
+	// Segments between restarts. The breakpoints come move by move and
+	// from the wind, so they are sorted here: an unsorted list would skip
+	// every restart that comes after a later one.
 	var cuts []float64
 	for _, b := range breaks {
 		if b > 1e-12 && b < tEnd-1e-12 {
 			cuts = append(cuts, b)
 		}
 	}
+	sort.Float64s(cuts)
 	cuts = append(cuts, tEnd)
 
 	t := 0.0
 	s.solver.Reset(0, y)
-	s.model.Eval(0, y, &s.pt)
+	s.segStart, s.segEnd = 0, cuts[0]
+	s.model.Eval(s.inSegment(0), y, &s.pt)
+	s.pt.T = 0
 	s.observePoint(&s.pt)
 	var ts [interior + 2]float64
 	var vs [nQuantities][interior + 2]float64
@@ -125,7 +189,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		if cut <= t {
 			continue
 		}
+		s.segStart, s.segEnd = t, cut
 		s.solver.Reset(t, s.solver.State())
+		carry := false // the first sample of the step is the last of the one before
 		for {
 			done, err := s.solver.Step(cut)
 			if err != nil {
@@ -138,25 +204,56 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any
 			// interior maximum that beats the best so far.
+			if carry {
+				ts[0] = t0
+				for q := range s.nq {
+					vs[q][0] = vs[q][interior+1]
+				}
+			}
 			for j := 0; j < interior+2; j++ {
+				if j == 0 && carry {
+					continue
+				}
 				tt := t0 + (t1-t0)*float64(j)/(interior+1)
 				p := s.at(tt)
 				ts[j] = tt
-				for q := range nQuantities {
+				for q := range s.nq {
 					vs[q][j] = s.value(q, p)
 				}
 			}
-			for q := range nQuantities {
-				e := s.ext(q, false)
+			for q := range s.nq {
+				e := &s.ext[q]
 				var r *extremum
-				if q <= qExcursion && residual {
-					r = s.ext(q, true)
+				if residual {
+					r = s.residualOf(q)
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
-					interiorMax := j > 0 && j < interior+1 && v >= vs[q][j-1] && v >= vs[q][j+1]
-					if interiorMax && (v > e.max || (r != nil && v > r.max)) {
-						tm, vm := s.refine(q, ts[j-1], ts[j+1])
+					// Refine a sample that may be the top of a peak and may
+					// beat the best so far once refined (the top lies above
+					// the samples by at most an eighth of their second
+					// difference; a full one is allowed). Inside the step
+					// that is a sample at least as large as both its
+					// neighbours. At the first or last sample the peak may
+					// lie just inside the step or just outside it: look
+					// which way the quantity moves at the step's end.
+					lo, hi := max(j-1, 0), min(j+1, interior+1)
+					localMax := v >= vs[q][lo] && v >= vs[q][hi]
+					if localMax {
+						k := min(max(j, 1), interior)
+						slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
+						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
+					}
+					if localMax && (j == 0 || j == interior+1) {
+						eps := 1e-6 * (t1 - t0)
+						if j == 0 {
+							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
+						} else {
+							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
+						}
+					}
+					if localMax {
+						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
 						if vm > v {
 							v, tt := vm, tm
 							e.offer(v, tt)
@@ -173,12 +270,15 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 			}
 			s.emitSamples(t0, t1)
-			// Back onto the constraint for the next step.
+			carry = true
+			// Back onto the constraint for the next step. The slope at the
+			// step's end is kept: it differs from the slope at the
+			// projected state by the size of the projection, far below the
+			// local error, and it saves an evaluation per step.
 			y := s.solver.State()
-			if d := pendulum.Project(y); d > s.constraintErr {
+			if d := s.model.Project(y); d > s.constraintErr {
 				s.constraintErr = d
 			}
-			s.solver.SetState(y)
 			if done {
 				break
 			}
@@ -188,44 +288,83 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	if s.hist != nil {
 		// The last sample falls on tEnd exactly.
 		for s.next < s.samples {
-			s.model.Eval(tEnd, s.solver.State(), &s.pt)
+			s.model.Eval(s.inSegment(tEnd), s.solver.State(), &s.pt)
+			s.pt.T = tEnd
 			s.record(&s.pt)
 		}
 	}
 	return nil
 }
 
-// refine finds the maximum of quantity q in [a, b] by golden-section search
-// on the dense output.
-func (s *scanner) refine(q quantity, a, b float64) (float64, float64) {
-	const inv = 0.6180339887498949
-	c := b - inv*(b-a)
-	d := a + inv*(b-a)
-	fc := s.value(q, s.at(c))
-	fd := s.value(q, s.at(d))
-	for i := 0; i < 40 && b-a > 1e-9*(1+math.Abs(b)); i++ {
-		if fc > fd {
-			b, d, fd = d, c, fc
-			c = b - inv*(b-a)
-			fc = s.value(q, s.at(c))
-		} else {
-			a, c, fc = c, d, fd
-			d = a + inv*(b-a)
-			fd = s.value(q, s.at(d))
+// refine finds the maximum of quantity q near m, given its values at
+// a <= m <= b, by successive parabolic interpolation on the dense output
+// (R. P. Brent, "Algorithms for Minimization without Derivatives", 1973,
+// ch. 5, with halving in place of the golden-section fallback: the
+// bracket is a small part of a step, where the quantity is smooth). When m
+// is at an end of the bracket, its midpoint is looked at first.
+func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
+	if m <= a || m >= b {
+		m = 0.5 * (a + b)
+		fm = s.value(q, s.at(m))
+	}
+	for range 30 {
+		if fm < fa || fm < fb {
+			// Not bracketed: the top lies toward the larger end, between
+			// it and m. Halve toward it and look again.
+			if fa > fb {
+				b, fb = m, fm
+			} else {
+				a, fa = m, fm
+			}
+			if b-a <= 1e-9*(1+math.Abs(b)) {
+				break
+			}
+			m = 0.5 * (a + b)
+			fm = s.value(q, s.at(m))
+			continue
+		}
+		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
+		den := (m-a)*(fm-fb) - (m-b)*(fm-fa)
+		if den == 0 {
+			break
+		}
+		x := m - 0.5*num/den
+		if !(x > a && x < b) {
+			break
+		}
+		fx := s.value(q, s.at(x))
+		if math.Abs(x-m) <= 1e-7*(b-a) {
+			if fx > fm {
+				m, fm = x, fx
+			}
+			break
+		}
+		switch {
+		case x < m && fx >= fm:
+			b, fb, m, fm = m, fm, x, fx
+		case x < m:
+			a, fa = x, fx
+		case fx >= fm:
+			a, fa, m, fm = m, fm, x, fx
+		default:
+			b, fb = x, fx
 		}
 	}
-	if fc > fd {
-		return c, fc
+	switch {
+	case fa > fm && fa >= fb:
+		return a, fa
+	case fb > fm:
+		return b, fb
 	}
-	return d, fd
+	return m, fm
 }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
-	for q := range nQuantities {
+	for q := range s.nq {
 		v := s.value(q, p)
-		s.ext(q, false).offer(v, p.T)
-		if q <= qExcursion && p.T >= s.motionEnd-1e-12 {
-			s.ext(q, true).offer(v, p.T)
+		s.ext[q].offer(v, p.T)
+		if r := s.residualOf(q); r != nil && p.T >= s.motionEnd-1e-12 {
+			r.offer(v, p.T)
 		}
 	}
 }
@@ -250,10 +389,7 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 
 func (s *scanner) record(p *pendulum.Point) {
 	h := s.hist
-	rel := p.LoadPos
-	rel.X -= p.Suspension.Pos.X
-	rel.Y -= p.Suspension.Pos.Y
-	rel.Z -= p.Suspension.Pos.Z
+	rel := p.Rel()
 	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
 	h.SwingDeg = append(h.SwingDeg, p.SwingRad()/units.Degree)
 	h.RelXM = append(h.RelXM, rel.X)
@@ -261,8 +397,8 @@ func (s *scanner) record(p *pendulum.Point) {
 	h.RelZM = append(h.RelZM, rel.Z)
 	h.LoadXM = append(h.LoadXM, p.LoadPos.X)
 	h.LoadYM = append(h.LoadYM, p.LoadPos.Y)
-	h.HookXM = append(h.HookXM, p.Suspension.Pos.X)
-	h.HookYM = append(h.HookYM, p.Suspension.Pos.Y)
+	h.SuspensionXM = append(h.SuspensionXM, p.Suspension.Pos.X)
+	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
 	s.next++

@@ -24,7 +24,8 @@ type Result struct {
 	// length at the end of the run.
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
-	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)).
+	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
+	// over the top (180 deg), where there is no swing period.
 	PeriodAmplitudeS float64 `json:"period_amplitude_s"`
 	// PeakSwingDeg is the largest rope angle from the vertical over the run.
 	PeakSwingDeg   float64 `json:"peak_swing_deg"`
@@ -38,7 +39,8 @@ type Result struct {
 	ResidualExcursionM float64 `json:"residual_excursion_m"`
 	TensionMaxN        float64 `json:"tension_max_n"`
 	TensionMinN        float64 `json:"tension_min_n"`
-	// TensionFactor is TensionMaxN / (m*g).
+	// TensionFactor is TensionMaxN / (m*g), with the hook block's mass in
+	// m when it is modelled.
 	TensionFactor float64 `json:"tension_factor"`
 	// StaticTensionN is m*g.
 	StaticTensionN float64 `json:"static_tension_n"`
@@ -51,6 +53,9 @@ type Result struct {
 	RopeLengthEndM   float64 `json:"rope_length_end_m"`
 	MotionEndS       float64 `json:"motion_end_s"`
 	RunS             float64 `json:"run_s"`
+
+	// Rigging is present when the scenario models hook block and rigging.
+	Rigging *Rigging `json:"rigging,omitempty"`
 
 	Checks      []Check  `json:"checks"`
 	Warnings    []string `json:"warnings"`
@@ -82,17 +87,17 @@ type Phase struct {
 
 // History holds evenly sampled time series, one slice per quantity.
 type History struct {
-	TimeS    []float64 `json:"time_s"`
-	SwingDeg []float64 `json:"swing_deg"`
-	RelXM    []float64 `json:"rel_x_m"` // load relative to the suspension point
-	RelYM    []float64 `json:"rel_y_m"`
-	RelZM    []float64 `json:"rel_z_m"`
-	LoadXM   []float64 `json:"load_x_m"` // load on the ground frame
-	LoadYM   []float64 `json:"load_y_m"`
-	HookXM   []float64 `json:"hook_x_m"` // suspension point on the ground frame
-	HookYM   []float64 `json:"hook_y_m"`
-	TensionN []float64 `json:"tension_n"`
-	RopeM    []float64 `json:"rope_m"`
+	TimeS        []float64 `json:"time_s"`
+	SwingDeg     []float64 `json:"swing_deg"`
+	RelXM        []float64 `json:"rel_x_m"` // load relative to the suspension point
+	RelYM        []float64 `json:"rel_y_m"`
+	RelZM        []float64 `json:"rel_z_m"`
+	LoadXM       []float64 `json:"load_x_m"` // load on the ground frame
+	LoadYM       []float64 `json:"load_y_m"`
+	SuspensionXM []float64 `json:"suspension_x_m"` // suspension point on the ground frame
+	SuspensionYM []float64 `json:"suspension_y_m"`
+	TensionN     []float64 `json:"tension_n"`
+	RopeM        []float64 `json:"rope_m"`
 }
 
 // Stats describe the integration.
@@ -114,7 +119,7 @@ type Options struct {
 
 // Tolerances of the "default" and "tight" accuracy settings.
 const (
-	DefaultRelTol = 1e-8
+	DefaultRelTol = 1e-7
 	TightRelTol   = 1e-11
 )
 
@@ -131,7 +136,7 @@ var Assumptions = []string{
 	"The rope length runs from the rope's upper point of rotation (trolley sheave, boom or jib tip) to the load's centre of mass.",
 	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
 	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
-	"The load does not spin, and swing of the load relative to the hook (double pendulum) is not modelled.",
+	"The load does not spin. Swing of the load relative to the hook is modelled only when hook block and rigging are entered (two point masses); otherwise hook and load swing as one.",
 	"Wind is a steady horizontal force on the load; gusts are sudden steps; air drag, if set, is quadratic in the load's speed.",
 	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
 }
@@ -169,6 +174,12 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		samples = 601
 	}
 	period := 2 * math.Pi * math.Sqrt(su.ropeEnd/g)
+	staticN := mass * g
+	if h := s.Load.Hook; h != nil {
+		// The slower of the two modes is the sway period people see.
+		period = 2 * math.Pi / modes(h, mass, su.ropeEnd).Omega[0]
+		staticN = (mass + *h.MassKg) * g
+	}
 	tEnd := math.Max(su.activityEnd+settle*period, st.DurationS)
 	if tEnd > scenario.MaxRunS {
 		return nil, scenario.Errors{{Field: "settings.duration_s", Message: fmt.Sprintf(
@@ -179,7 +190,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	res := &Result{
 		Name:             s.Name,
 		PeriodS:          period,
-		StaticTensionN:   mass * g,
+		StaticTensionN:   staticN,
 		WindForceN:       su.windForce,
 		WindLeanDeg:      math.Atan2(su.windForce, mass*g) / units.Degree,
 		RopeLengthStartM: su.ropeStart,
@@ -193,7 +204,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if res.Phases == nil {
 		res.Phases = []Phase{}
 	}
-	sc := newScanner(&su.model, su.motionEnd)
+	sc := newScanner(su.model, su.motionEnd)
 	if !opt.NoHistory {
 		sc.hist = &res.History
 		sc.sampleDt = tEnd / float64(samples-1)
@@ -202,16 +213,30 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
 		return nil, err
 	}
-	res.PeakSwingDeg = sc.swing.max / units.Degree
-	res.PeakSwingTimeS = sc.swing.at
-	res.PeakExcursionM = sc.excursion.max
-	res.ResidualSwingDeg = sc.resSwing.max / units.Degree
-	res.ResidualExcursionM = sc.resExcursion.max
-	res.TensionMaxN = sc.tension.max
-	res.TensionMinN = -sc.tensionLow.max
+	res.PeakSwingDeg = swingRad(sc.ext[qSwing].max) / units.Degree
+	res.PeakSwingTimeS = sc.ext[qSwing].at
+	res.PeakExcursionM = excursionM(sc.ext[qExcursion].max)
+	res.ResidualSwingDeg = swingRad(sc.resSwing.max) / units.Degree
+	res.ResidualExcursionM = excursionM(sc.resExcursion.max)
+	res.TensionMaxN = sc.ext[qTension].max
+	res.TensionMinN = -sc.ext[qTensionLow].max
 	res.TensionFactor = res.TensionMaxN / res.StaticTensionN
-	k := math.Sin(sc.resSwing.max / 2)
-	res.PeriodAmplitudeS = 4 * math.Sqrt(su.ropeEnd/g) * mathext.CompleteK(k*k)
+	k := math.Sin(res.ResidualSwingDeg * units.Degree / 2)
+	if k*k < 1 {
+		// Amplitude correction of the plane pendulum, 2K(k^2)/pi, applied
+		// to the period (for a hook block and rigging, to the slower mode).
+		res.PeriodAmplitudeS = period * 2 * mathext.CompleteK(k*k) / math.Pi
+	}
+	if math.IsInf(res.PeriodAmplitudeS, 0) || k*k >= 1 {
+		// The load goes over the top: it circles and has no swing period.
+		res.PeriodAmplitudeS = 0
+		res.Warnings = append(res.Warnings, "The load swings over the top of its circle (180 deg): it whirls round the suspension point and has no swing period.")
+	}
+	if s.Load.Hook != nil {
+		if err := rigging(s, sc, su.ropeEnd, res); err != nil {
+			return nil, err
+		}
+	}
 	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
 		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
 

@@ -67,13 +67,18 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return status
 }
 
-func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+// readScenario opens and decodes one scenario file.
+func readScenario(name string) (*scenario.Scenario, error) {
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, err
 	}
 	defer f.Close()
-	s, err := scenario.Decode(f)
+	return scenario.Decode(f)
+}
+
+func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+	s, err := readScenario(name)
 	if err != nil {
 		return nil, err
 	}
@@ -95,6 +100,14 @@ func printSummary(w io.Writer, file string, r *sway.Result) {
 	row("tension factor", r.TensionFactor, "")
 	if r.WindForceN > 0 {
 		row("wind lean", r.WindLeanDeg, "deg")
+	}
+	if rg := r.Rigging; rg != nil {
+		row("mode periods (linear)", rg.ModePeriodsS[0], fmt.Sprintf("s and %.4g s", rg.ModePeriodsS[1]))
+		row("mode periods (simulated)", rg.SimulatedPeriodsS[0], fmt.Sprintf("s and %.4g s", rg.SimulatedPeriodsS[1]))
+		row("second mode share", 100*rg.SecondModeShare, "%")
+		row("peak rope swing", rg.PeakRopeSwingDeg, "deg")
+		row("peak rigging angle to rope", rg.PeakRiggingAngleDeg, "deg")
+		row("rigging tension max", rg.RiggingTensionMaxN/1000, "kN")
 	}
 	row("run", r.RunS, "s")
 	tw.Flush()

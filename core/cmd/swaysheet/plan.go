@@ -4,10 +4,8 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"os"
 
 	"swaysheet/core/plan"
-	"swaysheet/core/scenario"
 )
 
 // runPlans plans each file and prints the table (or JSON).
@@ -42,12 +40,7 @@ func runPlans(names []string, asJSON bool, stdout, stderr io.Writer) int {
 }
 
 func planFile(name string) (*plan.Result, error) {
-	f, err := os.Open(name)
-	if err != nil {
-		return nil, err
-	}
-	defer f.Close()
-	s, err := scenario.Decode(f)
+	s, err := readScenario(name)
 	if err != nil {
 		return nil, err
 	}

@@ -1,0 +1,228 @@
+// Command swaybench measures how long the core takes to evaluate each
+// example scenario, natively or as js/wasm under node, and assembles the
+// measurements of every part of `make bench` into one table.
+//
+//	swaybench -json [-repeat N] DIR          time every scenario in DIR, print JSON rows
+//	swaybench -table FILE.json ...           print the table of all rows
+//
+// A row is {"group","name","value","unit","note"}; the table prints them
+// by group, in the order the files give them.
+package main
+
+import (
+	"bufio"
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"runtime"
+	"slices"
+	"sort"
+	"strings"
+	"text/tabwriter"
+	"time"
+
+	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// Row is one measurement.
+type Row struct {
+	Group string  `json:"group"`
+	Name  string  `json:"name"`
+	Value float64 `json:"value"`
+	Unit  string  `json:"unit"`
+	Note  string  `json:"note,omitempty"`
+}
+
+func main() {
+	asJSON := flag.Bool("json", false, "time the scenarios in DIR and print JSON rows")
+	table := flag.Bool("table", false, "print the table of the rows in the given files")
+	repeat := flag.Int("repeat", 51, "evaluations per scenario; the median is reported")
+	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
+	flag.Parse()
+	switch {
+	case *asJSON && flag.NArg() == 1:
+		g := *group
+		if g == "" {
+			g = "core " + runtime.GOOS + "/" + runtime.GOARCH
+		}
+		rows, err := timeScenarios(flag.Arg(0), *repeat, g)
+		if err != nil {
+			fmt.Fprintln(os.Stderr, "swaybench:", err)
+			os.Exit(1)
+		}
+		enc := json.NewEncoder(os.Stdout)
+		for _, r := range rows {
+			enc.Encode(r)
+		}
+	case *table:
+		if err := printTable(os.Stdout, flag.Args()); err != nil {
+			fmt.Fprintln(os.Stderr, "swaybench:", err)
+			os.Exit(1)
+		}
+	default:
+		fmt.Fprintln(os.Stderr, "usage: swaybench -json [-repeat N] DIR | swaybench -table FILE.json ...")
+		os.Exit(2)
+	}
+}
+
+func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
+	files, err := filepath.Glob(filepath.Join(dir, "*.json"))
+	if err != nil {
+		return nil, err
+	}
+	sort.Strings(files)
+	var scs []*scenario.Scenario
+	for _, name := range files {
+		data, err := os.ReadFile(name)
+		if err != nil {
+			return nil, err
+		}
+		s, err := scenario.Parse(data)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", name, err)
+		}
+		scs = append(scs, s)
+	}
+	// Warm up first: a JIT (V8 for wasm) compiles hot code in tiers, and
+	// the first runs would otherwise time the compiler.
+	for range 10 {
+		for _, s := range scs {
+			if _, err := sway.Evaluate(s); err != nil {
+				return nil, err
+			}
+		}
+	}
+	var rows []Row
+	for i, s := range scs {
+		full, res, err := timeIt(s, repeat, sway.Options{})
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", files[i], err)
+		}
+		bare, _, err := timeIt(s, repeat, sway.Options{NoHistory: true})
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", files[i], err)
+		}
+		base := strings.TrimSuffix(filepath.Base(files[i]), ".json")
+		rows = append(rows, Row{Group: group, Name: base, Value: full, Unit: "us",
+			Note: fmt.Sprintf("%d steps, %.0f s simulated; figures only %.0f us; median of %d",
+				res.Solver.Steps, res.RunS, bare, repeat)})
+	}
+	// One full plan for each scenario that asks for one.
+	for i, s := range scs {
+		if s.Plan == nil {
+			continue
+		}
+		n := max(5, repeat/5)
+		ts := make([]float64, n)
+		var pr *plan.Result
+		for k := range ts {
+			start := time.Now()
+			var err error
+			if pr, err = plan.Make(s); err != nil {
+				return nil, fmt.Errorf("%s: %w", files[i], err)
+			}
+			ts[k] = float64(time.Since(start).Nanoseconds()) / 1e6
+		}
+		base := strings.TrimSuffix(filepath.Base(files[i]), ".json")
+		rows = append(rows, Row{Group: strings.Replace(group, "core", "planner", 1), Name: base, Value: Median(ts), Unit: "ms",
+			Note: fmt.Sprintf("%d options verified at %d rope lengths; median of %d", len(pr.Options), len(pr.RopeLengthsM), n)})
+	}
+	return rows, nil
+}
+
+// timeIt returns the median wall time of repeat evaluations, microseconds.
+func timeIt(s *scenario.Scenario, repeat int, opt sway.Options) (float64, *sway.Result, error) {
+	ts := make([]float64, repeat)
+	var res *sway.Result
+	var err error
+	for i := range ts {
+		start := time.Now()
+		res, err = sway.EvaluateWith(s, opt)
+		ts[i] = float64(time.Since(start).Nanoseconds()) / 1e3
+		if err != nil {
+			return 0, nil, err
+		}
+	}
+	return Median(ts), res, nil
+}
+
+// Median of xs (xs is reordered).
+func Median(xs []float64) float64 {
+	slices.Sort(xs)
+	n := len(xs)
+	if n%2 == 1 {
+		return xs[n/2]
+	}
+	return 0.5 * (xs[n/2-1] + xs[n/2])
+}
+
+func printTable(w io.Writer, files []string) error {
+	var rows []Row
+	for _, name := range files {
+		f, err := os.Open(name)
+		if err != nil {
+			return err
+		}
+		sc := bufio.NewScanner(f)
+		for sc.Scan() {
+			line := strings.TrimSpace(sc.Text())
+			if line == "" {
+				continue
+			}
+			var r Row
+			if err := json.Unmarshal([]byte(line), &r); err != nil {
+				f.Close()
+				return fmt.Errorf("%s: %w", name, err)
+			}
+			rows = append(rows, r)
+		}
+		f.Close()
+	}
+	fmt.Fprintf(w, "swaysheet benchmarks, %s\n", time.Now().UTC().Format("2006-01-02 15:04 MST"))
+	fmt.Fprintf(w, "processor: %s (%d cores); %s\n\n", cpuName(), runtime.NumCPU(), runtime.Version())
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "group\tscenario or item\tvalue\tunit\tnote")
+	var groups []string
+	for _, r := range rows {
+		if !slices.Contains(groups, r.Group) {
+			groups = append(groups, r.Group)
+		}
+	}
+	for _, g := range groups {
+		for _, r := range rows {
+			if r.Group == g {
+				fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", r.Group, r.Name, format(r.Value), r.Unit, r.Note)
+			}
+		}
+	}
+	return tw.Flush()
+}
+
+func format(v float64) string {
+	switch {
+	case v >= 1000:
+		return fmt.Sprintf("%.0f", v)
+	case v >= 10:
+		return fmt.Sprintf("%.1f", v)
+	default:
+		return fmt.Sprintf("%.3g", v)
+	}
+}
+
+func cpuName() string {
+	data, err := os.ReadFile("/proc/cpuinfo")
+	if err != nil {
+		return runtime.GOARCH
+	}
+	for _, line := range strings.Split(string(data), "\n") {
+		if k, v, ok := strings.Cut(line, ":"); ok && strings.TrimSpace(k) == "model name" {
+			return strings.TrimSpace(v)
+		}
+	}
+	return runtime.GOARCH
+}

@@ -1,0 +1,125 @@
+package sway
+
+import (
+	"fmt"
+	"math"
+
+	"swaysheet/core/ode"
+	"swaysheet/core/pendulum"
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+)
+
+// Rigging reports the hook block and rigging when a scenario models them
+// as a second mass.
+type Rigging struct {
+	// ModePeriodsS are the two small-swing periods of the linearised
+	// two-mass pendulum at the rope length at the end of the run, slower
+	// mode first.
+	ModePeriodsS [2]float64 `json:"mode_periods_s"`
+	// SimulatedPeriodsS are the same periods measured on the nonlinear
+	// model, released from rest in each mode shape at 0.05 deg.
+	SimulatedPeriodsS [2]float64 `json:"simulated_periods_s"`
+	// SecondModeShare is the second mode's share of the load's swing after
+	// a sudden acceleration (linear theory), 0 to 1.
+	SecondModeShare float64 `json:"second_mode_share"`
+	// PeakRopeSwingDeg is the largest angle of the rope itself from the
+	// vertical (peak_swing_deg is the line from suspension point to load).
+	PeakRopeSwingDeg float64 `json:"peak_rope_swing_deg"`
+	// PeakRiggingAngleDeg is the largest angle between rope and rigging:
+	// the swing of the load relative to the hook.
+	PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg"`
+	RiggingTensionMaxN  float64 `json:"rigging_tension_max_n"`
+	RiggingTensionMinN  float64 `json:"rigging_tension_min_n"`
+}
+
+// SecondModeWarnShare is the second mode's share of the load's swing from
+// which a warning says it matters for the plan.
+const SecondModeWarnShare = 0.05
+
+// modes returns the linear modes of a scenario with a hook block at rope
+// length l1.
+func modes(h *scenario.Hook, massLoad, l1 float64) pendulum.Modes {
+	return pendulum.LinearModes(*h.MassKg, massLoad, l1, *h.RiggingLengthM, units.StandardGravity)
+}
+
+// modePeriod measures the period of one mode on the nonlinear model with a
+// fixed suspension point: released from rest in the mode shape at a small
+// angle, the time between up-crossings of the hook's horizontal speed.
+func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float64, error) {
+	d := &pendulum.Double{M1: m1, M2: m2, L2: l2,
+		Suspension: func(float64) pendulum.Kinematics { return pendulum.Kinematics{} },
+		Rope:       func(float64) (float64, float64, float64) { return l1, 0, 0 },
+	}
+	// Scale so that the larger of the two angles is 0.05 deg.
+	a := 0.05 * units.Degree / math.Max(math.Abs(shape[0]), math.Abs(shape[1]))
+	th1, th2 := a*shape[0], a*shape[1]
+	y := []float64{math.Sin(th1), 0, -math.Cos(th1), 0, 0, 0, math.Sin(th2), 0, -math.Cos(th2), 0, 0, 0}
+	v := ode.New(d.Func, pendulum.DoubleStateLen, ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000})
+	v.Reset(0, y)
+	period := 2 * math.Pi / omega
+	var ups []float64
+	buf := make([]float64, pendulum.DoubleStateLen)
+	// The rope's rate u1x crosses zero from below at the far turning point
+	// of each cycle.
+	for len(ups) < 4 {
+		done, err := v.Step(20 * period)
+		if err != nil {
+			return 0, err
+		}
+		t0, t1 := v.LastStep()
+		v.Dense(t0, buf)
+		f0 := buf[3]
+		if f1 := v.State()[3]; f0 < 0 && f1 >= 0 {
+			a, b := t0, t1
+			for range 50 {
+				c := 0.5 * (a + b)
+				v.Dense(c, buf)
+				if buf[3] < 0 {
+					a = c
+				} else {
+					b = c
+				}
+			}
+			ups = append(ups, 0.5*(a+b))
+		}
+		yy := v.State()
+		d.Project(yy)
+		v.SetState(yy)
+		if done {
+			break
+		}
+	}
+	if len(ups) < 2 {
+		return 0, fmt.Errorf("sway: no full cycle of the mode found")
+	}
+	return (ups[len(ups)-1] - ups[0]) / float64(len(ups)-1), nil
+}
+
+// rigging fills the hook-and-rigging figures and their warning.
+func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result) error {
+	h := s.Load.Hook
+	md := modes(h, *s.Load.MassKg, ropeEnd)
+	rg := &Rigging{
+		SecondModeShare:     md.LoadShare[1],
+		PeakRiggingAngleDeg: swingRad(sc.ext[qRigAngle].max) / units.Degree,
+		RiggingTensionMaxN:  sc.ext[qRigTension].max,
+		RiggingTensionMinN:  -sc.ext[qRigTensionLow].max,
+	}
+	for i := range 2 {
+		rg.ModePeriodsS[i] = 2 * math.Pi / md.Omega[i]
+		p, err := modePeriod(*h.MassKg, *s.Load.MassKg, ropeEnd, *h.RiggingLengthM, md.Shape[i], md.Omega[i])
+		if err != nil {
+			return err
+		}
+		rg.SimulatedPeriodsS[i] = p
+	}
+	rg.PeakRopeSwingDeg = swingRad(sc.ext[qRopeSwing].max) / units.Degree
+	res.Rigging = rg
+	if rg.SecondModeShare >= SecondModeWarnShare {
+		res.Warnings = append(res.Warnings, fmt.Sprintf(
+			"The hook block and rigging swing in two modes: %.3g s and %.3g s. The second carries about %.0f%% of the load's swing, enough to matter: a drive setting tuned to one period leaves the other ringing.",
+			rg.ModePeriodsS[0], rg.ModePeriodsS[1], 100*rg.SecondModeShare))
+	}
+	return nil
+}

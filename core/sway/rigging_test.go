@@ -1,0 +1,89 @@
+package sway
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"swaysheet/core/scenario"
+)
+
+func withHook(s *scenario.Scenario, mHook, rigging float64) *scenario.Scenario {
+	s.Load.Hook = &scenario.Hook{MassKg: f(mHook), RiggingLengthM: f(rigging)}
+	return s
+}
+
+// Source: linearised two-mass pendulum (closed form in pendulum.LinearModes,
+// checked there against gonum eigenvalues); the nonlinear model's free
+// small-amplitude periods in each mode agree with it.
+func TestRiggingModePeriods(t *testing.T) {
+	s := withHook(still(6000, 10), 1200, 4)
+	s.Motions = []scenario.Motion{move(0, 10, 0.5, 0.3, 0.3)}
+	r := mustEval(t, s)
+	rg := r.Rigging
+	if rg == nil {
+		t.Fatal("no rigging block in the result")
+	}
+	for i := range 2 {
+		if rel := math.Abs(rg.SimulatedPeriodsS[i]/rg.ModePeriodsS[i] - 1); rel > 1e-4 {
+			t.Errorf("mode %d: simulated %.6g s, linear %.6g s", i, rg.SimulatedPeriodsS[i], rg.ModePeriodsS[i])
+		}
+	}
+	if r.PeriodS != rg.ModePeriodsS[0] {
+		t.Errorf("period_s %v should be the slower mode %v", r.PeriodS, rg.ModePeriodsS[0])
+	}
+	if math.Abs(r.StaticTensionN/(7200*g)-1) > 1e-15 {
+		t.Errorf("static tension %v", r.StaticTensionN)
+	}
+	if rg.PeakRiggingAngleDeg <= 0 || rg.RiggingTensionMaxN <= 6000*g*0.99 {
+		t.Errorf("rigging figures %+v", rg)
+	}
+}
+
+// A hook block far lighter than the load on short rigging behaves as a
+// single pendulum of length rope plus rigging (the limit of the two-mass
+// pendulum as m1/m2 -> 0 and L2 -> 0 with the sum fixed).
+func TestLightHookTendsToSinglePendulum(t *testing.T) {
+	single := still(8000, 8.5)
+	single.Motions = []scenario.Motion{move(1, 18, 0.5, 0.25, 0.25)}
+	a := mustEval(t, single)
+	double := withHook(still(8000, 8.2), 2, 0.3)
+	double.Motions = single.Motions
+	b := mustEval(t, double)
+	for _, q := range []struct {
+		name string
+		x, y float64
+	}{
+		{"period_s", a.PeriodS, b.PeriodS},
+		{"peak_swing_deg", a.PeakSwingDeg, b.PeakSwingDeg},
+		{"peak_excursion_m", a.PeakExcursionM, b.PeakExcursionM},
+		{"residual_swing_deg", a.ResidualSwingDeg, b.ResidualSwingDeg},
+	} {
+		if math.Abs(q.y/q.x-1) > 0.01 {
+			t.Errorf("%s: single %.5g, light hook %.5g", q.name, q.x, q.y)
+		}
+	}
+	if b.Rigging.SecondModeShare > 0.01 {
+		t.Errorf("second mode share %v", b.Rigging.SecondModeShare)
+	}
+	for _, w := range b.Warnings {
+		if strings.Contains(w, "two modes") {
+			t.Errorf("unexpected warning %q", w)
+		}
+	}
+}
+
+// A heavy hook block with a light load on long slings brings in the second
+// mode, and the result says so.
+func TestHeavyHookWarnsOfSecondMode(t *testing.T) {
+	s := withHook(still(800, 6), 1500, 5)
+	s.Motions = []scenario.Motion{move(0, 10, 0.5, 0.3, 0.3)}
+	r := mustEval(t, s)
+	found := false
+	for _, w := range r.Warnings {
+		found = found || strings.Contains(w, "two modes")
+	}
+	if r.Rigging.SecondModeShare < SecondModeWarnShare || !found {
+		t.Errorf("share %v, warnings %q", r.Rigging.SecondModeShare, r.Warnings)
+	}
+}

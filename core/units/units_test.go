@@ -1,0 +1,69 @@
+package units
+
+import (
+	"math"
+	"testing"
+)
+
+// Source: NIST Special Publication 811 (2008), appendix B: the foot, inch,
+// pound and pound-force are exact by definition; tonne-force is
+// 1000 kg times standard gravity; rpm is 2*pi/60 rad/s.
+func TestFactorsAreTheDefinitions(t *testing.T) {
+	for _, c := range []struct {
+		q, sym string
+		want   float64
+	}{
+		{"length", "ft", 0.3048},
+		{"length", "in", 0.0254},
+		{"mass", "lb", 0.45359237},
+		{"mass", "sh tn", 907.18474},
+		{"mass", "t", 1000},
+		{"force", "lbf", 4.4482216152605},
+		{"force", "kip", 4448.2216152605},
+		{"force", "tf", 9806.65},
+		{"speed", "m/min", 1.0 / 60},
+		{"speed", "ft/min", 0.3048 / 60},
+		{"acceleration", "ft/s²", 0.3048},
+		{"angular_speed", "rpm", 6}, // 1 rpm = 360 deg / 60 s
+		{"area", "ft²", 0.09290304},
+	} {
+		got, ok := ToSI(c.q, c.sym, 1)
+		if !ok {
+			t.Errorf("%s %s: unknown", c.q, c.sym)
+			continue
+		}
+		if math.Abs(got/c.want-1) > 1e-15 {
+			t.Errorf("1 %s = %.17g SI, want %.17g", c.sym, got, c.want)
+		}
+	}
+	if RevPerMinute != 2*math.Pi/60 {
+		t.Errorf("rpm")
+	}
+}
+
+func TestRoundTripAndTable(t *testing.T) {
+	for name, q := range Table {
+		if q.Units[0].ToSI != 1 {
+			t.Errorf("%s: first unit must be the SI unit", name)
+		}
+		found := 0
+		for _, u := range q.Units {
+			if u.Symbol == q.SIDefault || u.Symbol == q.USDefault {
+				found++
+			}
+			for _, v := range []float64{0, 1, 12.5, -3.75, 1e4} {
+				si, _ := ToSI(name, u.Symbol, v)
+				back, _ := FromSI(name, u.Symbol, si)
+				if math.Abs(back-v) > 1e-12*math.Max(1, math.Abs(v)) {
+					t.Errorf("%s %s: %v -> %v -> %v", name, u.Symbol, v, si, back)
+				}
+			}
+		}
+		if found == 0 {
+			t.Errorf("%s: default units not in the list", name)
+		}
+	}
+	if _, ok := ToSI("length", "furlong", 1); ok {
+		t.Error("unknown unit accepted")
+	}
+}

@@ -1,0 +1,515 @@
+#!/usr/bin/python3
+"""Independent reference solution of swaysheet scenarios with SciPy.
+
+Run with Debian's /usr/bin/python3 (python3-scipy, python3-numpy):
+
+    /usr/bin/python3 testdata/reference/reference.py generate   # writes results.json
+    /usr/bin/python3 testdata/reference/reference.py show FILE.json
+    /usr/bin/python3 testdata/reference/reference.py time FILE.json --rtol 1e-8 --atol 1e-10
+
+`make reference` runs the first. The Go tests in core/sway compare the core
+with the committed results.json; they need no Python.
+
+Why a second solver
+-------------------
+The core integrates the rope direction unit vector n and dn/dt, projected
+back onto |n| = 1 after every step, with its own Dormand-Prince 5(4) code.
+This script shares none of that: it integrates the load's Cartesian
+position P and velocity V in the ground frame, with the rope as a distance
+constraint whose tension is a Lagrange multiplier, using SciPy's
+solve_ivp(method="DOP853") (Hairer, Norsett & Wanner's 8(5,3) pair) at
+rtol = atol = 1e-12.
+
+Equations. Let S(t) be the suspension point, L(t) the rope length,
+r = P - S the rope vector, a(t, P, V) = g_vec + F/m the applied
+acceleration (gravity -g_n*z, wind, quadratic drag). The constraint is
+
+    c(r, t) = (r.r - L^2) / 2 = 0,
+    c'  = r.r' - L L',
+    c'' = r.r'' + r'.r' - L'^2 - L L''.
+
+Newton's law for the load is P'' = a - mu r, with mu = T / (m |r|) >= 0 the
+multiplier (T the rope tension). Putting r'' = a - S'' - mu r into the
+stabilised constraint c'' + 2 w c' + w^2 c = 0 (Baumgarte, Comput. Methods
+Appl. Mech. Eng. 1, 1972) gives
+
+    mu = [ r.(a - S'') + r'.r' - L'^2 - L L'' + 2 w c' + w^2 c ] / (r.r)
+
+with w = sqrt(g_n / L(t)). On the exact solution c = c' = 0 and the
+stabilising terms vanish; they only stop the drift of the rope length.
+
+Motions are rebuilt from the scenario format's documentation
+(core/scenario/scenario.go): trapezoidal speed profiles per axis, summed
+when several moves share an axis; travel on x and y; slew about the
+vertical axis through the origin at radius r (which a "radius" move
+changes); hoist positive up (rope shortens). The suspension point is the
+complex number  z = x + i y + r e^{i phi}, whose derivatives follow from
+differentiating that product.
+
+Figures reported, each as the result JSON of the core names it:
+period_s (2 pi sqrt(L_end/g)), peak_swing_deg and its time, peak_excursion_m
+(horizontal distance of load from the point under the suspension point),
+residual_swing_deg and residual_excursion_m (largest after the last motion
+has ended, to the end of the run), tension_max_n, tension_min_n,
+tension_factor = tension_max_n / (m g), run_s, motion_end_s, and sampled
+states at a few of the history sample times.
+
+Adding the planner's recommended moves
+--------------------------------------
+Put each planned move as an ordinary scenario file in
+testdata/reference/scenarios/ (name it planned-*.json) and run
+`make reference`. If the planner writes a motion profile other than
+"trapezoid", add it to PROFILES below (a function returning an object with
+at(t) -> (pos, vel, acc) and breakpoints()), derived from that profile's
+documentation; the script stops with a clear message on an unknown profile.
+"""
+
+import argparse
+import glob
+import json
+import math
+import os
+import platform
+import statistics
+import sys
+import time
+
+import numpy as np
+import scipy
+from scipy.integrate import solve_ivp
+
+G_N = 9.80665          # standard gravity, m/s^2 (3rd CGPM 1901; ISO 80000-3)
+RHO_AIR = 1.25         # default air density, kg/m^3, as core/scenario documents
+DEG = math.pi / 180
+RTOL = ATOL = 1e-12
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+ROOT = os.path.dirname(os.path.dirname(HERE))
+RESULTS = os.path.join(HERE, "results.json")
+
+# Scenario files the reference covers, relative to the repository root.
+SCENARIO_GLOBS = ["testdata/scenarios/*.json", "testdata/reference/scenarios/*.json"]
+
+# Number of history samples the core takes when settings.samples is unset
+# (core/sway), and the sample indices at which states are recorded here.
+DEFAULT_SAMPLES = 601
+SAMPLE_FRACTIONS = [0.0, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1.0]
+
+
+# ---------------------------------------------------------------- motions
+
+class TrapezoidMove:
+    """Point-to-point move: constant acceleration `acc` from rest to speed
+    v_top, cruise, constant deceleration `dec` to rest, covering |distance|
+    in the direction of its sign. When the distance is shorter than the two
+    ramps at full speed (v^2/2acc + v^2/2dec > d) the move never cruises and
+    peaks at v = sqrt(2 d acc dec / (acc + dec))."""
+
+    def __init__(self, start, distance, speed, acc, dec):
+        self.t0 = start
+        self.sign = -1.0 if distance < 0 else 1.0
+        d = abs(distance)
+        v = speed
+        if v * v / (2 * acc) + v * v / (2 * dec) > d:
+            v = math.sqrt(2 * d * acc * dec / (acc + dec))
+        self.v, self.acc, self.dec, self.d = v, acc, dec, d
+        self.ta = v / acc if v > 0 else 0.0
+        self.td = v / dec if v > 0 else 0.0
+        self.tc = max(0.0, (d - v * v / (2 * acc) - v * v / (2 * dec)) / v) if v > 0 else 0.0
+
+    def end(self):
+        return self.t0 + self.ta + self.tc + self.td
+
+    def breakpoints(self):
+        return [self.t0, self.t0 + self.ta, self.t0 + self.ta + self.tc, self.end()]
+
+    def at(self, t):
+        """Position, speed and acceleration at time t (rest outside the move)."""
+        s = t - self.t0
+        ta, tc, td = self.ta, self.tc, self.td
+        if s <= 0:
+            return 0.0, 0.0, 0.0
+        if s < ta:
+            p, v, a = 0.5 * self.acc * s * s, self.acc * s, self.acc
+        elif s < ta + tc:
+            p, v, a = 0.5 * self.v * ta + self.v * (s - ta), self.v, 0.0
+        elif s < ta + tc + td:
+            # Distance covered so far = d minus what the deceleration still needs.
+            left = ta + tc + td - s
+            p, v, a = self.d - 0.5 * self.dec * left * left, self.dec * left, -self.dec
+        else:
+            p, v, a = self.d, 0.0, 0.0
+        return self.sign * p, self.sign * v, self.sign * a
+
+
+def trapezoid(m):
+    if m["axis"] == "slew":
+        acc = m["accel_deg_per_s2"]
+        return TrapezoidMove(m.get("start_s", 0.0), m["angle_deg"] * DEG, m["rate_deg_per_s"] * DEG,
+                             acc * DEG, m.get("decel_deg_per_s2", acc) * DEG)
+    acc = m["accel_m_per_s2"]
+    return TrapezoidMove(m.get("start_s", 0.0), m["distance_m"], m["speed_m_per_s"], acc,
+                         m.get("decel_m_per_s2", acc))
+
+
+# Motion profiles by the scenario's "profile" name.
+PROFILES = {"trapezoid": trapezoid}
+
+
+class Axis:
+    """Sum of the moves of one axis."""
+
+    def __init__(self):
+        self.moves = []
+
+    def at(self, t):
+        p = v = a = 0.0
+        for mv in self.moves:
+            q = mv.at(t)
+            p += q[0]
+            v += q[1]
+            a += q[2]
+        return p, v, a
+
+
+# --------------------------------------------------------------- scenario
+
+class Model:
+    """One scenario turned into the constrained Cartesian equations above."""
+
+    def __init__(self, sc):
+        self.sc = sc
+        load = sc["load"]
+        self.m = load["mass_kg"]
+        self.l0 = load["rope_length_m"]
+        crane = sc.get("crane", {})
+        self.r0 = crane.get("radius_m", 0.0)
+        self.phi0 = crane.get("slew_deg", 0.0) * DEG
+        self.axes = {k: Axis() for k in ("travel_x", "travel_y", "slew", "radius", "hoist")}
+        breaks = []
+        self.motion_end = 0.0
+        for m in sc.get("motions", []):
+            prof = m.get("profile", "trapezoid") or "trapezoid"
+            if prof not in PROFILES:
+                sys.exit("reference.py: motion profile %r is not implemented here; add it to PROFILES" % prof)
+            mv = PROFILES[prof](m)
+            self.axes[m["axis"]].moves.append(mv)
+            breaks += mv.breakpoints()
+            self.motion_end = max(self.motion_end, mv.end())
+        self.activity_end = self.motion_end
+
+        # Wind: a horizontal force F toward `toward_deg`, on from start_s,
+        # off after duration_s (0: to the end of the run).
+        w = sc.get("wind")
+        self.wind = np.zeros(3)
+        self.wind_on, self.wind_off = math.inf, math.inf
+        rho = RHO_AIR
+        if w is not None:
+            if w.get("air_density_kg_per_m3", 0) > 0:
+                rho = w["air_density_kg_per_m3"]
+            if "force_n" in w:
+                f = w["force_n"]
+            else:
+                f = 0.5 * rho * w["speed_m_per_s"] ** 2 * load.get("area_m2", 0.0) * w["shape_factor"]
+            self.wind_force = f
+            th = w.get("toward_deg", 0.0) * DEG
+            self.wind = f * np.array([math.cos(th), math.sin(th), 0.0])
+            self.wind_on = w.get("start_s", 0.0)
+            breaks.append(self.wind_on)
+            self.activity_end = max(self.activity_end, self.wind_on)
+            if w.get("duration_s", 0) > 0:
+                self.wind_off = self.wind_on + w["duration_s"]
+                breaks.append(self.wind_off)
+                self.activity_end = max(self.activity_end, self.wind_off)
+        else:
+            self.wind_force = 0.0
+        # Quadratic drag F = -0.5 rho c A |V| V on the load's ground velocity V.
+        self.drag = 0.5 * rho * load.get("drag_coefficient", 0.0) * load.get("area_m2", 0.0)
+
+        self.l_end = self.rope(self.motion_end + 1.0)[0]
+        st = sc.get("settings") or {}
+        settle = st.get("settle_periods", 0) or 3.0
+        self.period = 2 * math.pi * math.sqrt(self.l_end / G_N)
+        self.t_end = max(self.activity_end + settle * self.period, st.get("duration_s", 0.0))
+        self.samples = st.get("samples", 0) or DEFAULT_SAMPLES
+        self.breaks = sorted(set(b for b in breaks if 1e-12 < b < self.t_end - 1e-12))
+
+    def rope(self, t):
+        h = self.axes["hoist"].at(t)
+        return self.l0 - h[0], -h[1], -h[2]
+
+    def suspension(self, t):
+        """Suspension point position, velocity, acceleration (3-vectors, z = 0)."""
+        x, y = self.axes["travel_x"].at(t), self.axes["travel_y"].at(t)
+        p, q = self.axes["slew"].at(t), self.axes["radius"].at(t)
+        phi, dphi, ddphi = self.phi0 + p[0], p[1], p[2]
+        r, dr, ddr = self.r0 + q[0], q[1], q[2]
+        e = complex(math.cos(phi), math.sin(phi))
+        z = complex(x[0], y[0]) + r * e
+        dz = complex(x[1], y[1]) + complex(dr, r * dphi) * e
+        ddz = complex(x[2], y[2]) + complex(ddr - r * dphi * dphi, r * ddphi + 2 * dr * dphi) * e
+        return (np.array([z.real, z.imag, 0.0]), np.array([dz.real, dz.imag, 0.0]),
+                np.array([ddz.real, ddz.imag, 0.0]))
+
+    def applied(self, t, vel):
+        a = np.array([0.0, 0.0, -G_N])
+        if self.wind_on <= t < self.wind_off:
+            a = a + self.wind / self.m
+        if self.drag > 0:
+            a = a - (self.drag / self.m) * np.linalg.norm(vel) * vel
+        return a
+
+    def multiplier(self, t, y):
+        """mu = T/(m|r|) and the pieces used by rhs and by the outputs."""
+        pos, vel = y[:3], y[3:]
+        s, ds, dds = self.suspension(t)
+        l, dl, ddl = self.rope(t)
+        r, dr = pos - s, vel - ds
+        a = self.applied(t, vel)
+        c = 0.5 * (r @ r - l * l)
+        dc = r @ dr - l * dl
+        w = math.sqrt(G_N / l)
+        mu = (r @ (a - dds) + dr @ dr - dl * dl - l * ddl + 2 * w * dc + w * w * c) / (r @ r)
+        return mu, r, a, l
+
+    def rhs(self, t, y):
+        mu, r, a, _ = self.multiplier(t, y)
+        return np.concatenate((y[3:], a - mu * r))
+
+    def initial(self):
+        """Load at the initial swing angle toward its azimuth; horizontal
+        velocity relative to the suspension point as given, vertical part
+        from the rope constraint r.r' = L L' (L' = 0 at t = 0: every move
+        starts from rest)."""
+        ini = self.sc.get("initial") or {}
+        th = ini.get("swing_deg", 0.0) * DEG
+        az = ini.get("toward_deg", 0.0) * DEG
+        s, ds, _ = self.suspension(0.0)
+        l, dl, _ = self.rope(0.0)
+        r = l * np.array([math.sin(th) * math.cos(az), math.sin(th) * math.sin(az), -math.cos(th)])
+        vx, vy = ini.get("velocity_x_m_per_s", 0.0), ini.get("velocity_y_m_per_s", 0.0)
+        vz = (l * dl - r[0] * vx - r[1] * vy) / r[2]
+        return np.concatenate((s + r, ds + np.array([vx, vy, vz])))
+
+
+# ---------------------------------------------------------------- figures
+
+def figures(model, t, y):
+    """Swing (rad), horizontal excursion (m), tension (N) at the points given
+    (t shape (k,), y shape (6, k))."""
+    k = len(t)
+    swing, exc, ten = np.empty(k), np.empty(k), np.empty(k)
+    for j in range(k):
+        mu, r, _, _ = model.multiplier(t[j], y[:, j])
+        h = math.hypot(r[0], r[1])
+        swing[j] = math.atan2(h, -r[2])
+        exc[j] = h
+        ten[j] = model.m * mu * math.sqrt(r @ r)
+    return swing, exc, ten
+
+
+class Peak:
+    def __init__(self):
+        self.v, self.t = -math.inf, 0.0
+
+    def offer(self, v, t):
+        if v > self.v:
+            self.v, self.t = v, t
+
+
+def golden_max(f, a, b, tol=1e-11):
+    """Maximum of a unimodal f on [a, b] by golden-section search."""
+    inv = (math.sqrt(5) - 1) / 2
+    c, d = b - inv * (b - a), a + inv * (b - a)
+    fc, fd = f(c), f(d)
+    while b - a > tol * (1 + abs(b)):
+        if fc > fd:
+            b, d, fd = d, c, fc
+            c = b - inv * (b - a)
+            fc = f(c)
+        else:
+            a, c, fc = c, d, fd
+            d = a + inv * (b - a)
+            fd = f(d)
+    return (c, fc) if fc > fd else (d, fd)
+
+
+def solve(model, rtol=RTOL, atol=ATOL, per_step=8):
+    """Integrate the whole run piece by piece between breakpoints, scanning
+    every step of the dense output for maxima. Returns the figures."""
+    edges = [0.0] + model.breaks + [model.t_end]
+    y = model.initial()
+    peaks = {k: Peak() for k in ("swing", "exc", "res_swing", "res_exc", "ten", "neg_ten")}
+    sample_times = [round(f * (model.samples - 1)) * (model.t_end / (model.samples - 1))
+                    for f in SAMPLE_FRACTIONS]
+    sample_times[-1] = model.t_end
+    samples = {}
+    nfev = steps = 0
+    max_rope_err = 0.0
+    for a, b in zip(edges[:-1], edges[1:]):
+        if b <= a:
+            continue
+        sol = solve_ivp(model.rhs, (a, b), y, method="DOP853", rtol=rtol, atol=atol, dense_output=True)
+        if not sol.success:
+            raise RuntimeError("solve_ivp failed on [%g, %g]: %s" % (a, b, sol.message))
+        nfev += sol.nfev
+        steps += len(sol.t) - 1
+        residual = a >= model.motion_end - 1e-12
+        ts = sol.t
+        for i in range(len(ts) - 1):
+            tt = np.linspace(ts[i], ts[i + 1], per_step + 1)
+            yy = sol.sol(tt)
+            sw, ex, te = figures(model, tt, yy)
+            for name, vals in (("swing", sw), ("exc", ex), ("ten", te), ("neg_ten", -te)):
+                targets = [peaks[name]]
+                if residual and name in ("swing", "exc"):
+                    targets.append(peaks["res_" + name])
+                # The largest sample of the step, then the exact maximum
+                # around it: between its neighbours, or between the end
+                # sample and the one inside the step (the maximum may lie
+                # just inside a step whose end sample is the largest).
+                j = int(np.argmax(vals))
+                tm, vm = tt[j], vals[j]
+                lo, hi = max(j - 1, 0), min(j + 1, per_step)
+                if vm >= min(p.v for p in targets) - 1e-2 * abs(vm):
+                    col = {"swing": 0, "exc": 1, "ten": 2, "neg_ten": 2}[name]
+                    sgn = -1.0 if name == "neg_ten" else 1.0
+
+                    def f(t_, col=col, sgn=sgn):
+                        return sgn * figures(model, [t_], sol.sol(t_).reshape(6, 1))[col][0]
+                    t2, v2 = golden_max(f, tt[lo], tt[hi])
+                    if v2 > vm:
+                        tm, vm = t2, v2
+                for p in targets:
+                    p.offer(vm, tm)
+        for st in sample_times:
+            if a - 1e-12 <= st <= b + 1e-12 and st not in samples:
+                ys = sol.sol(st)
+                mu, r, _, l = model.multiplier(st, ys)
+                s = model.suspension(st)[0]
+                samples[st] = {
+                    "time_s": st,
+                    "rel_x_m": r[0], "rel_y_m": r[1], "rel_z_m": r[2],
+                    "suspension_x_m": s[0], "suspension_y_m": s[1],
+                    "swing_deg": math.atan2(math.hypot(r[0], r[1]), -r[2]) / DEG,
+                    "tension_n": model.m * mu * math.sqrt(r @ r),
+                    "rope_m": l,
+                }
+        y = sol.y[:, -1]
+        rr = y[:3] - model.suspension(b)[0]
+        max_rope_err = max(max_rope_err, abs(math.sqrt(rr @ rr) - model.rope(b)[0]) / model.rope(b)[0])
+    if model.motion_end >= model.t_end:
+        raise RuntimeError("no residual window")
+    mg = model.m * G_N
+    return {
+        "period_s": model.period,
+        "run_s": model.t_end,
+        "motion_end_s": model.motion_end,
+        "rope_length_end_m": model.l_end,
+        "wind_force_n": model.wind_force,
+        "peak_swing_deg": peaks["swing"].v / DEG,
+        "peak_swing_time_s": peaks["swing"].t,
+        "peak_excursion_m": peaks["exc"].v,
+        "residual_swing_deg": peaks["res_swing"].v / DEG,
+        "residual_excursion_m": peaks["res_exc"].v,
+        "tension_max_n": peaks["ten"].v,
+        "tension_min_n": -peaks["neg_ten"].v,
+        "tension_factor": peaks["ten"].v / mg,
+        "samples": [samples[t] for t in sorted(samples)],
+        "solver": {"steps": steps, "nfev": nfev, "rope_length_rel_error": max_rope_err},
+    }
+
+
+# ---------------------------------------------------------------- commands
+
+def load(path):
+    with open(path) as f:
+        return json.load(f)
+
+
+def scenario_paths():
+    out = []
+    for g in SCENARIO_GLOBS:
+        out += sorted(glob.glob(os.path.join(ROOT, g)))
+    return [os.path.relpath(p, ROOT) for p in out]
+
+
+def cmd_generate(args):
+    entries = []
+    for rel in scenario_paths():
+        t0 = time.perf_counter()
+        res = solve(Model(load(os.path.join(ROOT, rel))))
+        print("%-52s peak %8.5f deg  residual %8.5f deg  %6.2f s" % (
+            rel, res["peak_swing_deg"], res["residual_swing_deg"], time.perf_counter() - t0), file=sys.stderr)
+        entries.append({"scenario": rel, "result": res})
+    doc = {
+        "what": "Reference results for swaysheet scenarios, from testdata/reference/reference.py",
+        "formulation": "Cartesian load position and velocity; rope tension as a Lagrange multiplier; "
+                       "Baumgarte stabilisation with w = sqrt(g/L)",
+        "solver": "scipy.integrate.solve_ivp, method DOP853, rtol %g, atol %g, restarted at every motion "
+                  "breakpoint; peaks located on the dense output by golden-section search" % (RTOL, ATOL),
+        "scipy": scipy.__version__,
+        "numpy": np.__version__,
+        "python": platform.python_version(),
+        "scenarios": entries,
+    }
+    with open(RESULTS, "w") as f:
+        json.dump(doc, f, indent=1)
+        f.write("\n")
+    print("wrote %s (%d scenarios)" % (os.path.relpath(RESULTS, ROOT), len(entries)), file=sys.stderr)
+
+
+def cmd_show(args):
+    for p in args.files:
+        res = solve(Model(load(p)))
+        json.dump(res, sys.stdout, indent=1)
+        print()
+
+
+def cmd_time(args):
+    """Wall time of one full evaluation at the given tolerances (median of
+    --repeat runs) and the accuracy it reaches against the rtol = atol =
+    1e-12 solution: largest error of the sampled rope vector (m) and the
+    error of the peak and residual swing (deg)."""
+    for p in args.files:
+        model = Model(load(p))
+        ref = solve(model)
+        for rtol in args.rtol:
+            atol = args.atol if args.atol is not None else rtol * 1e-2
+            times = []
+            for _ in range(args.repeat):
+                t0 = time.perf_counter()
+                res = solve(model, rtol=rtol, atol=atol)
+                times.append(time.perf_counter() - t0)
+            pos_err = max(math.dist((a["rel_x_m"], a["rel_y_m"], a["rel_z_m"]),
+                                    (b["rel_x_m"], b["rel_y_m"], b["rel_z_m"]))
+                          for a, b in zip(res["samples"], ref["samples"]))
+            out = {
+                "scenario": p, "rtol": rtol, "atol": atol,
+                "wall_s_median": statistics.median(times), "repeats": args.repeat,
+                "steps": res["solver"]["steps"], "nfev": res["solver"]["nfev"],
+                "sample_position_error_m": pos_err,
+                "peak_swing_error_deg": abs(res["peak_swing_deg"] - ref["peak_swing_deg"]),
+                "residual_swing_error_deg": abs(res["residual_swing_deg"] - ref["residual_swing_deg"]),
+                "scipy": scipy.__version__,
+            }
+            print(json.dumps(out))
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
+    sub = ap.add_subparsers(dest="cmd", required=True)
+    sub.add_parser("generate", help="solve every scenario and write results.json")
+    s = sub.add_parser("show", help="print the reference result of scenario files")
+    s.add_argument("files", nargs="+")
+    t = sub.add_parser("time", help="wall time and accuracy at given tolerances")
+    t.add_argument("files", nargs="+")
+    t.add_argument("--rtol", type=float, nargs="+", default=[1e-8])
+    t.add_argument("--atol", type=float, default=None, help="default: rtol/100, as the core")
+    t.add_argument("--repeat", type=int, default=3)
+    args = ap.parse_args()
+    {"generate": cmd_generate, "show": cmd_show, "time": cmd_time}[args.cmd](args)
+
+
+if __name__ == "__main__":
+    main()
