@@ -278,7 +278,13 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			add(o)
 		}
 	}
-	if rq.drive != scenario.DriveVariableSpeed {
+	if own := s.Plan.PendantStepsPct; len(own) > 0 && rq.drive != scenario.DriveVariableSpeed {
+		o, _, err := rq.ownPendant(own)
+		if err != nil {
+			return nil, err
+		}
+		add(o)
+	} else if rq.drive != scenario.DriveVariableSpeed {
 		for _, kind := range shaper.Kinds {
 			o, err := rq.shapedPendant(kind)
 			if err != nil {
