@@ -56,6 +56,9 @@ func TestSCurve(t *testing.T) {
 		if want := p.Base.End() + c.r; math.Abs(p.End()-want) > 1e-12 {
 			t.Errorf("%+v: ends at %g, want the trapezoid's end plus the rounding time, %g", c, p.End(), want)
 		}
+		if want := p.Base.PeakSpeed(); p.Base.Duration()-2*want/c.a > c.r && math.Abs(p.PeakSpeed()-want) > 1e-12 {
+			t.Errorf("%+v: peak speed %g, want the trapezoid's %g (cruise longer than the rounding)", c, p.PeakSpeed(), want)
+		}
 		if p.At(1.9) != (State{}) {
 			t.Errorf("%+v: moves before its start", c)
 		}

@@ -63,22 +63,21 @@ type Result struct {
 	// SlewLeanDeg is the outward lean atan(R*w^2/g) at the top slew rate.
 	SlewLeanDeg float64 `json:"slew_lean_deg,omitempty"`
 
-	RopeLengthM    float64   `json:"rope_length_m"`
-	RopeLengthsM   []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
-	PeriodS        float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length
-	DesignPeriodS  float64   `json:"design_period_s"`
-	DesignRopeM    float64   `json:"design_rope_length_m"`
-	Limits         Limits    `json:"limits"`
-	Options        []Option  `json:"options"`
-	Recommended    int       `json:"recommended"` // index in Options, -1 if none
-	Reason         string    `json:"reason"`
-	Infeasible     []string  `json:"infeasible"` // what to change, when nothing fits
-	Notes          []string  `json:"notes"`
-	Curves         Curves    `json:"curves"`
-	Assumptions    []string  `json:"assumptions"`
-	Cautions       []string  `json:"cautions"`
-	Simulations    int       `json:"simulations"`
-	SimulationTolS float64   `json:"-"`
+	RopeLengthM   float64   `json:"rope_length_m"`
+	RopeLengthsM  []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
+	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length
+	DesignPeriodS float64   `json:"design_period_s"`
+	DesignRopeM   float64   `json:"design_rope_length_m"`
+	Limits        Limits    `json:"limits"`
+	Options       []Option  `json:"options"`
+	Recommended   int       `json:"recommended"` // index in Options, -1 if none
+	Reason        string    `json:"reason"`
+	Infeasible    []string  `json:"infeasible"` // what to change, when nothing fits
+	Notes         []string  `json:"notes"`
+	Curves        Curves    `json:"curves"`
+	Assumptions   []string  `json:"assumptions"`
+	Cautions      []string  `json:"cautions"`
+	Simulations   int       `json:"simulations"`
 }
 
 // Limits are the plan's limits; a zero means not given.
