@@ -42,12 +42,12 @@ test-browser:
 
 # Fuzz targets, each for FUZZTIME (go test -fuzz takes one target at a time).
 # Seeds: every scenario file plus core/*/testdata/fuzz/. A failing input is
-# written to the package's testdata/fuzz/FuzzX/ and fails the run. The CSV
-# import fuzz target comes with the planner; add its line here.
+# written to the package's testdata/fuzz/FuzzX/ and fails the run.
 FUZZTIME ?= 10s
 fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
+	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
 
 # Regenerate testdata/reference/results.json with SciPy (Debian's
 # python3-scipy, installed when missing). The tests read the committed file

@@ -56,6 +56,9 @@ func TestSCurve(t *testing.T) {
 		if want := p.Base.End() + c.r; math.Abs(p.End()-want) > 1e-12 {
 			t.Errorf("%+v: ends at %g, want the trapezoid's end plus the rounding time, %g", c, p.End(), want)
 		}
+		if want := p.Base.PeakSpeed(); p.Base.Duration()-2*want/c.a > c.r && math.Abs(p.PeakSpeed()-want) > 1e-12 {
+			t.Errorf("%+v: peak speed %g, want the trapezoid's %g (cruise longer than the rounding)", c, p.PeakSpeed(), want)
+		}
 		if p.At(1.9) != (State{}) {
 			t.Errorf("%+v: moves before its start", c)
 		}
@@ -214,6 +217,8 @@ func TestCSVErrors(t *testing.T) {
 		{"short row", "time_s,x_m\n0,0\n1\n", "line 3: has 1 values: the header names 2 columns"},
 		{"gap", "time_s,x_m\n0,0\n0.1,0\n0.2,0\n0.3,0\n9,0\n", "line 6, column time_s: a gap of 8.7 s after 0.3 s (line 5)"},
 		{"twice", "time_s,x_m,x_m\n0,0,0\n1,0,0\n", "line 1, column x_m: the column is named twice"},
+		{"too close", "time_s,x_m\n0,0\n1e-9,0\n", "line 3, column time_s: time 1e-09 s is only 1e-09 s after line 2"},
+		{"too large", "time_s,x_m\n0,0\n1,1e308\n", "line 3, column x_m: 1e308 is too large: accepted from -1e+06 to 1e+06"},
 		{"comment lines count", "# recorded on the bay crane\ntime_s,x_m\n0,0\n1,x\n", "line 4, column x_m"},
 	} {
 		_, err := ParseCSV(strings.NewReader(c.text))

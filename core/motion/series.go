@@ -45,6 +45,10 @@ const (
 	GapFactor = 20.0
 	// MaxSeriesRows bounds the size of one record.
 	MaxSeriesRows = 200_000
+	// MaxSeriesValue bounds every value (time, position or speed) in size.
+	MaxSeriesValue = 1e6
+	// MinStepS is the shortest accepted time step between samples.
+	MinStepS = 1e-6
 )
 
 // CSVError is a problem with one place in a CSV record. Line counts from 1
@@ -88,7 +92,6 @@ func ParseCSV(r io.Reader) (*Series, error) {
 		if err == io.EOF {
 			break
 		}
-		line, _ := cr.FieldPos(0)
 		if err != nil {
 			var pe *csv.ParseError
 			if errors.As(err, &pe) {
@@ -96,6 +99,7 @@ func ParseCSV(r io.Reader) (*Series, error) {
 			}
 			return nil, err
 		}
+		line, _ := cr.FieldPos(0)
 		if header {
 			header = false
 			if err := s.readHeader(rec, line); err != nil {
@@ -122,10 +126,17 @@ func ParseCSV(r io.Reader) (*Series, error) {
 			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
 				return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf("%q is not a number", cell)}
 			}
+			if math.Abs(v) > MaxSeriesValue {
+				return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf("%s is too large: accepted from %g to %g", cell, -MaxSeriesValue, MaxSeriesValue)}
+			}
 			if j == 0 {
 				if n := len(s.TimeS); n > 0 && v <= s.TimeS[n-1] {
 					return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf(
 						"time %g s does not come after %g s on line %d: times must increase", v, s.TimeS[n-1], s.lines[n-1])}
+				}
+				if n := len(s.TimeS); n > 0 && v-s.TimeS[n-1] < MinStepS {
+					return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf(
+						"time %g s is only %.3g s after line %d: samples closer than %g s are not accepted", v, v-s.TimeS[n-1], s.lines[n-1], MinStepS)}
 				}
 				s.TimeS = append(s.TimeS, v)
 				s.lines = append(s.lines, line)

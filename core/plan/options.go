@@ -50,6 +50,7 @@ func (rq *request) motionFor(a, v float64) scenario.Motion {
 }
 
 func (rq *request) setAccel(o *Option, a, v float64) {
+	o.accelSI = a
 	if rq.slew {
 		o.AccelDegPerS2, o.TopRateDegPerS = a/units.Degree, v/units.Degree
 	} else {
@@ -153,44 +154,74 @@ func (rq *request) shapedPendant(kind string) (*Option, error) {
 	if err != nil {
 		return nil, err
 	}
+	return rq.pendant(kind+"_"+scenario.DrivePendant, shaperLabel(kind)+" pendant steps (step-speed drive)", kind, sh.Impulses)
+}
+
+// pendant lays out pendant presses for an impulse sequence (see
+// shapedPendant).
+func (rq *request) pendant(key, label, kind string, imps []motion.Impulse) (*Option, error) {
+	n := len(imps)
+	// The stop releases the steps from the top down: the time-reversed
+	// sequence B_j = A_(n+1-j) at t_n - t_(n+1-j), whose residual V(w) has
+	// the same size at every frequency (its sum is the complex conjugate of
+	// the start's, turned by w*t_n).
+	rev := make([]motion.Impulse, n)
+	for j := range imps {
+		rev[j] = motion.Impulse{A: imps[n-1-j].A, T: imps[n-1].T - imps[n-1-j].T}
+	}
 	d := math.Abs(rq.dist)
 	sign := math.Copysign(1, rq.dist)
 	v := rq.vmax
-	var press []float64
-	var cum []float64
-	layout := func(v float64) float64 {
-		press, cum = press[:0], cum[:0]
-		c := 0.0
-		tau0 := sh.Impulses[0].A * v / rq.amax
-		last := 0.0
-		for _, im := range sh.Impulses {
-			c += im.A
+	// layout puts the presses of a sequence so that each ramp (at the
+	// drive's acceleration) is centred where its impulse falls, and returns
+	// the press times, the time full change is reached and the distance lag
+	// sum A_i*(press_i + ramp_i/2) against one instant change at 0, s.
+	layout := func(seq []motion.Impulse, v float64) (press []float64, full, lag float64) {
+		tau0 := seq[0].A * v / rq.amax
+		for _, im := range seq {
 			tau := im.A * v / rq.amax
 			t := math.Max(0, im.T-tau/2+tau0/2)
+			if k := len(press); k > 0 {
+				t = math.Max(t, press[k-1]) // pressed in order
+			}
 			press = append(press, t)
-			cum = append(cum, c)
-			last = t + tau
+			full = math.Max(full, t+tau)
+			lag += im.A * (t + tau/2)
 		}
-		return last // time full speed is reached
+		return press, full, lag
 	}
+	var up, down []float64
+	var ts float64
 	// Full speed must be reached before the first release: lower the top
-	// speed for a short move.
+	// speed for a short move. The distance is V*(ts - lag_up + lag_down).
 	for range 30 {
-		full := layout(v)
-		if d/v >= full {
+		var full, lagUp, lagDown float64
+		up, full, lagUp = layout(imps, v)
+		down, _, lagDown = layout(rev, v)
+		ts = d/v + lagUp - lagDown
+		if ts+down[0] >= full {
 			break
 		}
-		v = math.Min(v, d/full) * 0.999
+		v *= 0.97
 	}
-	ts := d / v
+	cum := make([]float64, n)
+	c := 0.0
+	for i, im := range imps {
+		c += im.A
+		cum[i] = c
+	}
+	press := up
 	var steps []scenario.SpeedStep
 	var ms []motion.Step
-	o := &Option{Key: kind + "_" + scenario.DrivePendant, Label: shaperLabel(kind) + " pendant steps (step-speed drive)",
-		Drive: scenario.DrivePendant, Shaper: kind}
+	o := &Option{Key: key, Label: label, Drive: scenario.DrivePendant, Shaper: kind}
 	addStep := func(t, frac float64) {
 		sp := sign * frac * v * rq.axisUnit()
 		if math.Abs(frac) < 1e-12 {
 			sp = 0
+		}
+		if k := len(o.Presses); k > 0 && t-o.Presses[k-1].AtS < 1e-9 {
+			// Two steps at one moment: press straight to the second.
+			steps, ms, o.Presses = steps[:k-1], ms[:k-1], o.Presses[:k-1]
 		}
 		st := scenario.SpeedStep{AtS: t}
 		if rq.slew {
@@ -202,11 +233,15 @@ func (rq *request) shapedPendant(kind string) (*Option, error) {
 		ms = append(ms, motion.Step{AtS: t, Speed: sign * frac * v})
 		o.Presses = append(o.Presses, Press{AtS: t, Pct: 100 * frac, Speed: sp})
 	}
-	for i := range press {
-		addStep(press[i], cum[i])
+	for i := range up {
+		addStep(up[i], cum[i])
 	}
-	for i := range press {
-		addStep(ts+press[i], 1-cum[i])
+	for j := range down {
+		rest := 0.0 // speed left after release j: the steps below it
+		if j+1 < n {
+			rest = cum[n-2-j]
+		}
+		addStep(ts+down[j], rest)
 	}
 	p, err := motion.NewSteps(ms, rq.amax, rq.amax)
 	if err != nil {
@@ -224,17 +259,20 @@ func (rq *request) shapedPendant(kind string) (*Option, error) {
 	}
 	o.Motion = m
 	rq.setAccel(o, a, v)
-	o.RampS = press[len(press)-1] + (1-cum[len(cum)-2])*v/a
+	o.RampS = press[n-1] + imps[n-1].A*v/a
 	o.MoveTimeS = p.End()
 	pcts := make([]string, len(cum))
 	for i, c := range cum {
 		pcts[i] = fmt.Sprintf("%.0f %%", 100*c)
 	}
-	o.Settings = []string{fmt.Sprintf("The pendant needs speed steps at %s of %s (set the drive's step speeds to these), with the drive's ramp of %s; tuned to a sway period of %.3g s.",
-		strings.Join(pcts, ", "), rq.speedText(v), rq.accelText(a), rq.designT)}
-	for i, pr := range o.Presses {
+	need := "The pendant needs speed steps at %s of %s (set the drive's step speeds to these), with the drive's ramp of %s; tuned to a sway period of %.3g s."
+	if kind == "" {
+		need = "The pendant's own speed steps at %s of %s, with the drive's ramp of %s; press times chosen for a sway period of %.3g s and the rope-length range."
+	}
+	o.Settings = []string{fmt.Sprintf(need, strings.Join(pcts, ", "), rq.speedText(v), rq.accelText(a), rq.designT)}
+	for _, pr := range o.Presses {
 		verb := "press to"
-		if i >= len(press) {
+		if pr.AtS >= ts+down[0]-1e-9 {
 			verb = "release to"
 		}
 		what := fmt.Sprintf("%.0f %%, %s", pr.Pct, rq.speedText(math.Abs(pr.Speed)/rq.axisUnit()))
@@ -298,4 +336,113 @@ func curves(rq *request) Curves {
 		re.Series = append(re.Series, s)
 	}
 	return c
+}
+
+// ownPendant times the presses of the crew's own pendant steps (fractions
+// c_1 < ... < c_n = 1 of top speed, so impulses A_i = c_i - c_(i-1)). In
+// linear theory the residual of presses at t_i is the shaper residual
+// V(w) of the impulses (A_i, t_i) (Singer & Seering 1990); the times are
+// chosen to make the worst V over five sway frequencies across the rope-
+// length range as small as can be (coordinate search on a grid of T/60 up
+// to 1.5 T; t_1 = 0; a small weight on the last time prefers short
+// sequences). Two steps come out at 0 and about T/2, the operators' rule
+// (common practice), leaving |2c_1 - 1| of the vibration.
+func (rq *request) ownPendant(pcts []float64) (*Option, float64, error) {
+	n := len(pcts)
+	imps := make([]motion.Impulse, n)
+	prev := 0.0
+	for i, p := range pcts {
+		imps[i] = motion.Impulse{A: p/100 - prev, T: float64(i) * rq.designT / 2}
+		prev = p / 100
+	}
+	g := units.StandardGravity
+	lo, hi := rq.ropes[0], rq.ropes[0]
+	for _, l := range rq.ropes {
+		lo, hi = math.Min(lo, l), math.Max(hi, l)
+	}
+	var ws []float64
+	for j := range 5 {
+		l := lo + (hi-lo)*float64(j)/4
+		ws = append(ws, math.Sqrt(g/l))
+	}
+	cost := func() float64 {
+		worst := 0.0
+		for _, w := range ws {
+			worst = math.Max(worst, shaper.Residual(imps, w, 0))
+		}
+		return worst + 0.002*imps[n-1].T/rq.designT
+	}
+	step := rq.designT / 60
+	// descend is a coordinate search from the times in imps, keeping
+	// t_(i-1) <= t_i <= t_(i+1) (steps are pressed in order).
+	descend := func() float64 {
+		best := cost()
+		for range 30 {
+			improved := false
+			for i := 1; i < n; i++ {
+				keep := imps[i].T
+				lo, hi := imps[i-1].T, 90*step
+				if i+1 < n {
+					hi = imps[i+1].T
+				}
+				for k := math.Ceil(lo/step - 1e-9); k*step <= hi+1e-9; k++ {
+					imps[i].T = k * step
+					if c := cost(); c < best-1e-12 {
+						best, keep, improved = c, imps[i].T, true
+					}
+				}
+				imps[i].T = keep
+			}
+			if !improved {
+				break
+			}
+		}
+		return best
+	}
+	// Starts: evenly spaced presses 1/n, 1/(n-1), ..., 1/2 of a period
+	// apart (equal steps 1/n apart cancel exactly), and for three steps
+	// every pair of times on the grid.
+	bestCost := math.Inf(1)
+	bestT := make([]float64, n)
+	try := func() {
+		if c := descend(); c < bestCost {
+			bestCost = c
+			for i := range imps {
+				bestT[i] = imps[i].T
+			}
+		}
+	}
+	for m := n; m >= 2; m-- {
+		for i := range imps {
+			imps[i].T = float64(i) * rq.designT / float64(m)
+		}
+		try()
+	}
+	if n == 3 {
+		for k2 := 0; k2 <= 90; k2 += 3 {
+			for k3 := k2; k3 <= 90; k3 += 3 {
+				imps[1].T, imps[2].T = float64(k2)*step, float64(k3)*step
+				if c := cost(); c < bestCost {
+					try()
+				}
+			}
+		}
+	}
+	for i := range imps {
+		imps[i].T = bestT[i]
+	}
+	worst := 0.0
+	for _, w := range ws {
+		worst = math.Max(worst, shaper.Residual(imps, w, 0))
+	}
+	words := make([]string, n)
+	for i, p := range pcts {
+		words[i] = fmt.Sprintf("%.3g %%", p)
+	}
+	o, err := rq.pendant("own_pendant", "Your pendant steps ("+strings.Join(words, ", ")+") timed for the sway", "", imps)
+	if err != nil {
+		return nil, 0, err
+	}
+	o.Settings = append(o.Settings, fmt.Sprintf("Linear theory: these press times leave at most %.2g %% of the swing an instant press to full speed would leave, over the rope-length range.", 100*worst))
+	return o, worst, nil
 }

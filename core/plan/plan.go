@@ -63,22 +63,21 @@ type Result struct {
 	// SlewLeanDeg is the outward lean atan(R*w^2/g) at the top slew rate.
 	SlewLeanDeg float64 `json:"slew_lean_deg,omitempty"`
 
-	RopeLengthM    float64   `json:"rope_length_m"`
-	RopeLengthsM   []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
-	PeriodS        float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length
-	DesignPeriodS  float64   `json:"design_period_s"`
-	DesignRopeM    float64   `json:"design_rope_length_m"`
-	Limits         Limits    `json:"limits"`
-	Options        []Option  `json:"options"`
-	Recommended    int       `json:"recommended"` // index in Options, -1 if none
-	Reason         string    `json:"reason"`
-	Infeasible     []string  `json:"infeasible"` // what to change, when nothing fits
-	Notes          []string  `json:"notes"`
-	Curves         Curves    `json:"curves"`
-	Assumptions    []string  `json:"assumptions"`
-	Cautions       []string  `json:"cautions"`
-	Simulations    int       `json:"simulations"`
-	SimulationTolS float64   `json:"-"`
+	RopeLengthM   float64   `json:"rope_length_m"`
+	RopeLengthsM  []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
+	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length
+	DesignPeriodS float64   `json:"design_period_s"`
+	DesignRopeM   float64   `json:"design_rope_length_m"`
+	Limits        Limits    `json:"limits"`
+	Options       []Option  `json:"options"`
+	Recommended   int       `json:"recommended"` // index in Options, -1 if none
+	Reason        string    `json:"reason"`
+	Infeasible    []string  `json:"infeasible"` // what to change, when nothing fits
+	Notes         []string  `json:"notes"`
+	Curves        Curves    `json:"curves"`
+	Assumptions   []string  `json:"assumptions"`
+	Cautions      []string  `json:"cautions"`
+	Simulations   int       `json:"simulations"`
 }
 
 // Limits are the plan's limits; a zero means not given.
@@ -121,6 +120,7 @@ type Option struct {
 	Motion scenario.Motion `json:"motion"`
 
 	profile motion.Profile
+	accelSI float64
 }
 
 // Verified is one simulation of an option.
@@ -222,7 +222,7 @@ type request struct {
 // validated first.
 func Make(s *scenario.Scenario) (*Result, error) {
 	if s.Plan == nil {
-		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request"}}
+		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
 	}
 	if err := s.Validate(); err != nil {
 		return nil, err
@@ -257,6 +257,9 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			rq.speedText(rq.vmax), rq.speedText(base.PeakSpeed())))
 	}
 
+	if rq.zeta > 0 {
+		res.Notes = append(res.Notes, fmt.Sprintf("ZV and ZVD are designed for the damping ratio %.3g; EI uses its undamped form.", rq.zeta))
+	}
 	var opts []*Option
 	add := func(o *Option) { opts = append(opts, o) }
 	fastest := rq.trapezoidOption("drive_limits", "Drive limits, no sway control", rq.amax, rq.vmax)
@@ -274,7 +277,13 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			add(o)
 		}
 	}
-	if rq.drive != scenario.DriveVariableSpeed {
+	if own := s.Plan.PendantStepsPct; len(own) > 0 && rq.drive != scenario.DriveVariableSpeed {
+		o, _, err := rq.ownPendant(own)
+		if err != nil {
+			return nil, err
+		}
+		add(o)
+	} else if rq.drive != scenario.DriveVariableSpeed {
 		for _, kind := range shaper.Kinds {
 			o, err := rq.shapedPendant(kind)
 			if err != nil {
@@ -532,22 +541,29 @@ func (o *Option) peakRatio(lim Limits) float64 {
 }
 
 // peakLimited finds the largest acceleration whose simulated peak is inside
-// the peak limits at every rope length, starting from g*tan(theta/2) (less
-// the slew lean). It returns nil if that acceleration is the drive's
-// largest, which the drive-limits option already covers.
+// the peak limits at every rope length. The first guess is the largest
+// acceleration, from g*tan(theta/2) (less the slew lean) down in steps of
+// 2 %, whose linear-theory peak (linearPeak) is inside the limits; the
+// simulation then corrects it (scaling by limit/peak). It returns nil when
+// the answer is the drive's largest acceleration, which the drive-limits
+// option already is.
 func (rq *request) peakLimited() (*Option, int, error) {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if rq.slew {
 		th -= math.Atan(rq.radius * rq.vmax * rq.vmax / g)
 	}
-	a := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
-	if a >= rq.amax {
-		return nil, 0, nil
+	a0 := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
+	a := a0
+	for range 200 {
+		if rq.linearRatio(a) <= 0.99 {
+			break
+		}
+		a *= 0.98
 	}
 	var best *Option
 	sims := 0
-	for iter := 0; iter < 6; iter++ {
+	for range 6 {
 		o := rq.trapezoidOption("peak_limited", "Acceleration for the peak limit", a, rq.vmax)
 		if err := rq.verifyAll([]*Option{o}); err != nil {
 			return nil, sims, err
@@ -558,25 +574,27 @@ func (rq *request) peakLimited() (*Option, int, error) {
 			if best == nil || o.accel() > best.accel() {
 				best = o
 			}
-			if r > 0.97 || a >= rq.amax {
+			if r > 0.95 || a >= rq.amax {
 				break
 			}
 		}
 		// The peak grows about in proportion to the acceleration.
 		next := math.Min(rq.amax, a*0.985/r)
-		if best != nil && next <= best.accel() {
+		if best != nil && next <= best.accel()*1.01 {
 			break
 		}
 		a = next
 	}
-	if best != nil {
-		best.Settings = append(best.Settings, fmt.Sprintf("Starting value g*tan(theta_lim/2) = %s, refined by simulation to keep the peak inside the limit at every rope length.",
-			rq.accelText(math.Min(rq.amax, g*math.Tan(th/2)/rq.k))))
+	if best == nil || best.accel() >= rq.amax*(1-1e-9) {
+		return nil, sims, nil
 	}
+	best.Settings = append(best.Settings, fmt.Sprintf("Found from g*tan(theta_lim/2) = %s (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits, then corrected by simulation at every rope length.",
+		rq.accelText(a0)))
 	return best, sims, nil
 }
 
-func (o *Option) accel() float64 { return o.AccelMPerS2 + o.AccelDegPerS2 }
+// accel is the option's acceleration setting in SI (m/s² or rad/s²).
+func (o *Option) accel() float64 { return o.accelSI }
 
 // rank sorts options: those within every limit first, fastest first;
 // then the others, fastest first.

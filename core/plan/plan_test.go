@@ -6,6 +6,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/mathext"
+
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -31,7 +33,7 @@ func load(t testing.TB, name string) *scenario.Scenario {
 // ends of the range. The limits are the invented examples' own (demo
 // data); the check is of the planner against the simulation.
 func TestRecommendedWithinLimits(t *testing.T) {
-	for _, name := range []string{"plan-bay-travel.json", "plan-tower-slew.json"} {
+	for _, name := range []string{"plan-bay-travel.json", "plan-tower-slew.json", "plan-gantry-pendant.json"} {
 		s := load(t, name)
 		r, err := Make(s)
 		if err != nil {
@@ -275,5 +277,86 @@ func TestOptionMotionsRoundTrip(t *testing.T) {
 		if math.Abs(res.MotionEndS-o.MoveTimeS) > 1e-9 {
 			t.Errorf("%s: saved move ends at %g s, option says %g s", o.Label, res.MotionEndS, o.MoveTimeS)
 		}
+	}
+}
+
+// From rest, a suspension point accelerating uniformly at a swings the rope
+// between 0 and 2*atan(a/g): the pendulum swings with amplitude atan(a/g)
+// about the apparent gravity g' = sqrt(g^2 + a^2) tilted by atan(a/g)
+// (exact, not a small-angle result; field notes). Its period there is
+// 4*sqrt(L/g')*K(k), k = sin(atan(a/g)/2) (large-amplitude pendulum; K the
+// complete elliptic integral, Abramowitz & Stegun 17.3). So the planner's
+// starting value a = g*tan(theta/2) peaks at exactly theta for one sudden
+// ramp, and a ramp lasting exactly that period leaves the load at rest.
+func TestSuddenAccelerationPeak(t *testing.T) {
+	g := units.StandardGravity
+	l, mass, brake := 6.0, 1000.0, 1.0
+	for _, thDeg := range []float64{2, 5, 10} {
+		a := g * math.Tan(thDeg*units.Degree/2)
+		k := math.Sin(thDeg * units.Degree / 4)
+		T := 4 * math.Sqrt(l/math.Hypot(g, a)) * mathext.CompleteK(k*k)
+		v := a * T
+		m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop}
+		m.SpeedMPerS, m.DecelMPerS2, m.BrakeAtS = &v, &a, &brake
+		sc := &scenario.Scenario{Format: scenario.FormatName, Version: 1, Name: "sudden ramp",
+			Load: scenario.Load{MassKg: &mass, RopeLengthM: &l}, Motions: []scenario.Motion{m},
+			Settings: &scenario.Settings{Accuracy: "tight"}}
+		res, err := sway.EvaluateWith(sc, sway.Options{NoHistory: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		t.Logf("theta %g: peak %.8f residual %.2e", thDeg, res.PeakSwingDeg, res.ResidualSwingDeg)
+		if math.Abs(res.PeakSwingDeg-thDeg) > 1e-5 {
+			t.Errorf("theta %g: peak %.7f deg, want 2*atan(a/g) = %g", thDeg, res.PeakSwingDeg, thDeg)
+		}
+		if res.ResidualSwingDeg > 1e-4 {
+			t.Errorf("theta %g: ramp of one exact period leaves %g deg", thDeg, res.ResidualSwingDeg)
+		}
+	}
+}
+
+// The crew's own pendant steps: with a half-speed first step the planner
+// presses full speed half a period later (the operators' rule, common
+// practice; it is the undamped ZV shaper, Singer & Seering 1990), and
+// releases the same way; five equal steps come out with a linear-theory
+// residual of a few per cent, and the simulation confirms each option.
+func TestOwnPendantSteps(t *testing.T) {
+	s := load(t, "plan-bay-travel.json")
+	s.Plan.PendantStepsPct = []float64{50, 100}
+	s.Plan.Drive = scenario.DrivePendant
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var own *Option
+	for i := range r.Options {
+		if r.Options[i].Key == "own_pendant" {
+			own = &r.Options[i]
+		}
+	}
+	if own == nil || len(own.Presses) != 4 {
+		t.Fatalf("own pendant option: %+v", own)
+	}
+	if got := own.Presses[1].AtS; math.Abs(got-r.DesignPeriodS/2) > r.DesignPeriodS/60 {
+		t.Errorf("second press at %g s, want half the period, %g s", got, r.DesignPeriodS/2)
+	}
+	if !own.Within {
+		t.Errorf("half-speed steps half a period apart: %v", own.Outside)
+	}
+	s.Plan.PendantStepsPct = []float64{20, 40, 60, 80, 100}
+	r, err = Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, o := range r.Options {
+		if o.Key == "own_pendant" && (!o.Within || len(o.Presses) < 6) {
+			t.Errorf("five steps: %v, %d presses", o.Outside, len(o.Presses))
+		}
+	}
+	s.Plan.PendantStepsPct = []float64{60, 30, 90}
+	_, err = Make(s)
+	if err == nil || !strings.Contains(err.Error(), "plan.pendant_steps_pct[1]: 30 % is not above the step before (60 %)") ||
+		!strings.Contains(err.Error(), "plan.pendant_steps_pct[2]: is 90: the last step is the top speed, 100 %") {
+		t.Errorf("bad steps: %v", err)
 	}
 }

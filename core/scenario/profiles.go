@@ -87,6 +87,10 @@ type Plan struct {
 	EITolerancePct float64 `json:"ei_tolerance_pct,omitempty"`
 	// Drive is "variable_speed", "pendant" or empty for both.
 	Drive string `json:"drive,omitempty"`
+	// PendantStepsPct are the speeds of the crew's own pendant steps, % of
+	// the top speed, ascending, the last 100. Given, the planner times the
+	// presses of these steps instead of asking for a shaper's steps.
+	PendantStepsPct []float64 `json:"pendant_steps_pct,omitempty"`
 }
 
 // Drive kinds for a plan.
@@ -121,6 +125,7 @@ func init() {
 		"plan.rope_length_max_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
 		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
 		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%"},
+		"plan.pendant_steps_pct[]":             {Min: 0, Max: 100, Unit: "%", OpenMin: true},
 		"motions[].hard_stop.speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
 		"motions[].hard_stop.rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
 		"motions[].hard_stop.decel_m_per_s2":   {Min: 0, Max: 10, Unit: "m/s²", OpenMin: true},
@@ -317,13 +322,14 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 	col := m.Column
 	if col == "" {
 		col = DefaultColumn(m.Axis, s)
-	}
-	unit := "_m"
-	if !metric(m.Axis) {
-		unit = "_deg"
-	}
-	if col != m.Axis+unit && col != m.Axis+unit+"_per_s" && m.Column == "" {
-		return nil, fmt.Errorf("no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column", m.Axis, m.Axis, unit, m.Axis, unit)
+		if _, ok := s.Column(col); !ok {
+			unit := "_m"
+			if !metric(m.Axis) {
+				unit = "_deg"
+			}
+			return nil, fmt.Errorf("the record has no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column",
+				m.Axis, m.Axis, unit, m.Axis, unit)
+		}
 	}
 	p, err := s.Profile(col, ColumnScale(m.Axis))
 	if err != nil {
@@ -415,6 +421,24 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 	case "", DriveVariableSpeed, DrivePendant:
 	default:
 		c.add("plan.drive", "is %q: accepted %q, %q or empty for both", p.Drive, DriveVariableSpeed, DrivePendant)
+	}
+	if n := len(p.PendantStepsPct); n > 0 {
+		if n > 5 {
+			c.add("plan.pendant_steps_pct", "has %d steps: accepted 1 to 5", n)
+		}
+		for i, v := range p.PendantStepsPct {
+			f := fmt.Sprintf("plan.pendant_steps_pct[%d]", i)
+			c.value(f, "plan.pendant_steps_pct[]", v)
+			if i > 0 && v <= p.PendantStepsPct[i-1] {
+				c.add(f, "%s %% is not above the step before (%s %%): list the steps from slowest to fastest", num(v), num(p.PendantStepsPct[i-1]))
+			}
+		}
+		if last := p.PendantStepsPct[n-1]; last != 100 {
+			c.add(fmt.Sprintf("plan.pendant_steps_pct[%d]", n-1), "is %s: the last step is the top speed, 100 %%", num(last))
+		}
+		if p.Drive == DriveVariableSpeed {
+			c.add("plan.pendant_steps_pct", "applies to a pendant: set plan.drive to %q or leave it empty", DrivePendant)
+		}
 	}
 	l := s.Limits
 	if l == nil || l.ResidualSwingDeg == nil {

@@ -16,7 +16,8 @@
 //	                                 A = [(1+V)/4, (1-V)/2, (1+V)/4] at [0, T/2, T]
 //
 // (Singhose, Seering & Singer, "Residual vibration reduction using vector
-// diagrams to generate shaped inputs", ASME J. Mech. Design 116, 1994.)
+// diagrams to generate shaped inputs", ASME J. Mech. Design 116, 1994;
+// journal and volume from memory.)
 // EI leaves exactly V of the vibration at the design frequency and none at
 // two frequencies either side of it, which widens the band of low residual.
 //
