@@ -123,7 +123,7 @@
     else obj[ks[ks.length - 1]] = v;
   }
   function rangeKey(p) { return p.replace(/\[\d+\]/g, '[]'); }
-  function fieldId(p) { return 'f-' + p.replace(/[^a-z0-9]+/gi, '-'); }
+  function fieldId(p) { return 'f-' + p.replace(/[^a-z0-9_]+/gi, '-').replace(/-$/, ''); }
 
   // ------------------------------------------------------------------ form
 
@@ -410,7 +410,8 @@
     saveCurrent();
     updateBanner();
     clearTimeout(timer);
-    timer = setTimeout(evaluate, 250);
+    S.waiting = true;
+    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 250);
   }
 
   function evaluate() {
@@ -423,10 +424,12 @@
     if (busy) { again = true; return; }
     busy = true;
     var sent = JSON.stringify(S.scenario);
+    S.lastSent = sent;
     clearTimeout(progressTimer);
     progressTimer = setTimeout(function () { $('progress').hidden = false; document.body.dataset.state = 'computing'; }, 120);
     call('evaluate', sent).then(function (r) {
       busy = false;
+      S.lastDone = sent;
       clearTimeout(progressTimer);
       $('progress').hidden = true;
       document.body.dataset.state = 'ready';
@@ -483,7 +486,7 @@
       'load from the point below the hook', verdict('peak_excursion_m', 'length')));
     h.push(tile('r-residual', 'Residual swing', fmtRes(r.residual_swing_deg), 'deg',
       'after the last move; excursion ' + esc(fmtRes(toShown('length', r.residual_excursion_m)) + ' ' + L.symbol), verdict('residual_swing_deg', null, 'deg')));
-    h.push(tile('r-factor', 'Tension factor', fmtRes(r.tension_factor), '\u00D7 static',
+    h.push(tile('r-factor', 'Tension factor', fmtRes(r.tension_factor), '\u00D7',
       'peak rope pull / load weight', verdict('tension_factor', null, '')));
     h.push(tile('r-tension', 'Peak rope tension', fmtRes(toShown('force', r.tension_max_n)), F.symbol,
       'lowest ' + esc(fmtRes(toShown('force', r.tension_min_n)) + ' ' + F.symbol) + '; static ' + esc(fmtRes(toShown('force', r.static_tension_n)) + ' ' + F.symbol)));
@@ -884,7 +887,11 @@
   // scenario as JSON (read only).
   window.swaysheet = {
     scenarioJSON: function () { return JSON.stringify(S.scenario); },
-    resultCount: function () { return S.count; }
+    resultCount: function () { return S.count; },
+    // settled is true when the core has answered for the inputs as they are.
+    settled: function () {
+      return !S.waiting && !busy && !again && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
+    }
   };
 
   start();
