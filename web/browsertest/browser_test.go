@@ -519,7 +519,14 @@ func TestPage(t *testing.T) {
 		if !bytes.HasPrefix(shot, []byte("\x89PNG")) {
 			t.Fatal("screenshot is not a PNG")
 		}
-		for name, b := range map[string][]byte{"portrait-tablet.png": shot, "portrait-tablet-full.png": full} {
+		h.do(chromedp.EmulateViewport(1180, 820))
+		time.Sleep(300 * time.Millisecond)
+		land, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot())
+		if err != nil {
+			t.Fatal(err)
+		}
+		h.do(chromedp.EmulateViewport(820, 1180))
+		for name, b := range map[string][]byte{"portrait-tablet.png": shot, "portrait-tablet-full.png": full, "landscape-tablet.png": land} {
 			if err := os.WriteFile(filepath.Join(dir, name), b, 0o644); err != nil {
 				t.Fatal(err)
 			}

@@ -128,11 +128,11 @@
   // ------------------------------------------------------------------ form
 
   var AXES = [
-    ['travel_x', 'Travel x (trolley or bridge)'],
-    ['travel_y', 'Travel y (bridge or gantry)'],
+    ['travel_x', 'Travel x'],
+    ['travel_y', 'Travel y'],
     ['slew', 'Slew'],
-    ['radius', 'Trolley on the jib (radius)'],
-    ['hoist', 'Hoist (up is positive)']
+    ['radius', 'Trolley on jib (radius)'],
+    ['hoist', 'Hoist (up +)']
   ];
   var KINDS = [['', 'not given'], ['overhead', 'overhead crane'], ['gantry', 'gantry crane'], ['tower', 'tower crane'],
     ['slewing', 'slewing (mobile or crawler) crane'], ['monorail', 'monorail hoist']];
@@ -206,7 +206,7 @@
       mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + '</h4>' +
         '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">' +
         selectField(at + '.axis', 'Axis', AXES, m.axis) +
-        selectField(at + '.profile', 'Speed profile', [['trapezoid', 'ramp up, run, ramp down (trapezoid)']], m.profile || 'trapezoid') +
+        selectField(at + '.profile', 'Speed profile', [['trapezoid', 'trapezoid: ramp, run, ramp']], m.profile || 'trapezoid') +
         numField(at + '.start_s', 'Starts at', { optional: true }) +
         numField(at + '.' + F.distance, slew ? 'Slew angle' : (m.axis === 'hoist' ? 'Hoist distance' : 'Distance')) +
         numField(at + '.' + F.speed, slew ? 'Slew rate' : 'Speed') +

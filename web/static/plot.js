@@ -112,7 +112,8 @@
     (opt.hlines || []).forEach(function (h) {
       var y = Y(h.y).toFixed(1);
       o.push('<line x1="' + m.l + '" y1="' + y + '" x2="' + (m.l + pw) + '" y2="' + y + '" class="limit"/>');
-      o.push('<text x="' + (m.l + pw - 6) + '" y="' + y + '" dy="-0.4em" text-anchor="end" class="limit-text">' + esc(h.label) + '</text>');
+      var below = Y(h.y) < m.t + 20;
+      o.push('<text x="' + (m.l + pw - 6) + '" y="' + y + '" dy="' + (below ? '1.1em' : '-0.4em') + '" text-anchor="end" class="limit-text">' + esc(h.label) + '</text>');
     });
     opt.series.forEach(function (s) {
       var d = [];
