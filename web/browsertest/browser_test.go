@@ -23,7 +23,6 @@ import (
 
 	"github.com/chromedp/cdproto/browser"
 	"github.com/chromedp/cdproto/network"
-	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/target"
 	"github.com/chromedp/chromedp"
 
@@ -143,16 +142,6 @@ func setup(t *testing.T) *harness {
 			}()
 		}
 	}()
-	// window.confirm (delete) is answered yes.
-	dialogs := chromedp.Events(ctx, page.JavascriptDialogOpening)
-	go func() {
-		for _, err := range dialogs {
-			if err != nil {
-				return
-			}
-			_, _ = chromedp.Call(ctx, page.HandleJavaScriptDialog, page.HandleJavaScriptDialogParams{Accept: true})
-		}
-	}()
 	h.do(chromedp.EmulateViewport(820, 1180), chromedp.Navigate(h.url))
 	h.settle()
 	return h
@@ -160,6 +149,7 @@ func setup(t *testing.T) *harness {
 
 func (h *harness) do(a ...chromedp.Action[chromedp.Void]) {
 	h.t.Helper()
+
 	if err := chromedp.Do(h.ctx, a...); err != nil {
 		h.t.Fatal(err)
 	}
@@ -421,7 +411,8 @@ func TestPage(t *testing.T) {
 			t.Errorf("restored scenario differs:\n%v\n%v", got, saved)
 		}
 		// Delete the damaged entry; the other stays.
-		h.do(chromedp.Click(chromedp.ID("open-saved")), chromedp.Click(chromedp.CSS(`#saved-list button[data-sdel="0"]`)))
+		h.do(chromedp.Click(chromedp.ID("open-saved")), chromedp.Click(chromedp.CSS(`#saved-list button[data-sdel="0"]`)),
+			chromedp.Click(chromedp.ID("del-yes")))
 		if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`!document.getElementById('saved-list').textContent.includes('Broken')`,
 			chromedp.WithPollingTimeout(10*time.Second))); err != nil {
 			t.Errorf("delete: %v", err)
@@ -532,6 +523,17 @@ func TestPage(t *testing.T) {
 			}
 		}
 		t.Logf("screenshots in %s", dir)
+	})
+
+	t.Run("touch targets are at least 44 px", func(t *testing.T) {
+		h.t = t
+		small := eval[string](h, `Array.from(document.querySelectorAll('button,input,select,textarea,a.button,summary'))
+			.filter(function (e) { var r = e.getBoundingClientRect(); return r.width > 0 && (r.height < 44 || r.width < 44); })
+			.map(function (e) { var r = e.getBoundingClientRect(); return (e.id || e.className || e.tagName) + ' ' + Math.round(r.width) + 'x' + Math.round(r.height); })
+			.join(', ')`)
+		if small != "" {
+			t.Errorf("targets smaller than 44 px: %s", small)
+		}
 	})
 
 	t.Run("no request leaves the origin", func(t *testing.T) {

@@ -392,7 +392,8 @@
   function shownMessage(fe) {
     var r = S.ranges[rangeKey(fe.field)];
     var el = document.querySelector('[data-path="' + cssEsc(fe.field) + '"]');
-    var msg = fe.message.charAt(0).toUpperCase() + fe.message.slice(1);
+    var msg = fe.message.replace(/^is required/, 'required');
+    msg = msg.charAt(0).toUpperCase() + msg.slice(1);
     if (!r || !el || !el.dataset.dq) return msg;
     var u = unitOf(el.dataset.dq);
     if (u.to_si === 1 && u.symbol === r.unit) return msg;
@@ -669,12 +670,18 @@
         inp.onkeydown = function (ev) { if (ev.key === 'Enter') { ev.preventDefault(); done(); } };
         $('ren-cancel').onclick = renderSaved;
       } else if (el.dataset.sdel !== undefined) {
+        // Ask in the list itself: no blocking browser dialog.
         var e2 = list[Number(el.dataset.sdel)];
-        if (window.confirm('Delete the saved scenario \u201C' + e2.name + '\u201D?')) {
+        var row = el.closest('li');
+        row.innerHTML = '<span>Delete \u201C' + esc(e2.name) + '\u201D for good?</span><span class="btns">' +
+          '<button type="button" id="del-yes">Yes, delete</button><button type="button" id="del-no">Keep it</button></span>';
+        $('del-no').focus();
+        $('del-yes').onclick = function () {
           st.removeItem(e2.key);
           $('save-msg').textContent = 'Deleted \u201C' + e2.name + '\u201D.';
           renderSaved();
-        }
+        };
+        $('del-no').onclick = renderSaved;
       }
     };
   }
