@@ -4,8 +4,9 @@ GO ?= go
 GOROOT := $(shell $(GO) env GOROOT)
 WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
+ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve bench reference fuzz dist clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench reference fuzz dist clean
 
 all: test
 
@@ -37,8 +38,26 @@ test-wasm:
 	GOOS=js GOARCH=wasm $(GO) build ./core/...
 	GOOS=js GOARCH=wasm $(GO) test -exec="$(WASM_EXEC)" ./core/... $(if $(wildcard wasm/*.go),./wasm/...)
 
+# Browser tests: headless Chromium driven from Go (web/browsertest). The
+# test builds the wasm itself; the screenshots go to out/browser/.
 test-browser:
-	@echo "browser tests: none yet"
+	SWAYSHEET_BROWSER=1 $(GO) test -count=1 -timeout 8m ./web/browsertest/
+
+# The wasm embeds copies of the example scenarios for pages opened from a
+# file; a test in wasm/bridge fails when they differ from testdata/scenarios.
+examples:
+	rm -f wasm/bridge/examples/*.json
+	cp testdata/scenarios/*.json wasm/bridge/examples/
+
+# The page's build output: the wasm and Go's matching wasm_exec.js.
+wasm:
+	@mkdir -p $(OUT)/web
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(OUT)/web/swaysheet.wasm ./wasm
+	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
+
+# Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
+serve: wasm
+	$(GO) run ./web/serve -addr $(ADDR) -build $(OUT)/web
 
 # Fuzz targets, each for FUZZTIME (go test -fuzz takes one target at a time).
 # Seeds: every scenario file plus core/*/testdata/fuzz/. A failing input is

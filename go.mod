@@ -2,4 +2,11 @@ module swaysheet
 
 go 1.26.8
 
-require gonum.org/v1/gonum v0.17.0
+require (
+	github.com/chromedp/cdproto v0.159.0
+	github.com/chromedp/chromedp v0.23.0
+	github.com/syumai/tinyutil v0.3.2
+	gonum.org/v1/gonum v0.17.0
+)
+
+require github.com/go-json-experiment/json v0.0.0-20260213210345-44df1a37e875 // indirect

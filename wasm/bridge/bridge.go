@@ -1,0 +1,119 @@
+// Package bridge is the table of calls the page makes into the core: each
+// takes JSON and gives JSON, the same JSON as the scenario file and the
+// command line. It converts between JSON and the core's types and does
+// nothing else; the js/wasm main in the parent directory exposes it to
+// JavaScript.
+//
+// Every reply is one JSON object: {"result": ...} on success, or
+// {"error": {"message": ..., "fields": [{"field": ..., "message": ...}]}}
+// when the input is bad or anything inside failed, a panic included.
+package bridge
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// Func is one call: it reads its JSON input and returns a value to encode
+// as the reply's result.
+type Func func(env *Env, input []byte) (any, error)
+
+// Env is what the calls may use from their surroundings.
+type Env struct {
+	// Fetch reads a file from the page's own origin by a URL relative to
+	// the page (nil: no network; embedded copies are used).
+	Fetch func(url string) ([]byte, error)
+}
+
+// Calls is the table of calls by name. A new core feature (the planner)
+// is one more entry here.
+var Calls = map[string]Func{
+	"evaluate": evaluate,
+	"validate": validate,
+	"units":    unitTable,
+	"ranges":   ranges,
+	"examples": examples,
+	"version":  version,
+}
+
+// Error is the reply's error object.
+type Error struct {
+	Message string                `json:"message"`
+	Fields  []scenario.FieldError `json:"fields"`
+}
+
+type reply struct {
+	Result any    `json:"result,omitempty"`
+	Error  *Error `json:"error,omitempty"`
+}
+
+// Call runs the named call on input and returns the reply JSON. It never
+// panics: a panic inside a call becomes an error reply.
+func Call(env *Env, name string, input []byte) (out []byte) {
+	defer func() {
+		if p := recover(); p != nil {
+			out = encode(reply{Error: &Error{
+				Message: fmt.Sprintf("internal error in %s: %v (please report this with the scenario file)", name, p),
+				Fields:  []scenario.FieldError{},
+			}})
+		}
+	}()
+	f, ok := Calls[name]
+	if !ok {
+		return encode(reply{Error: &Error{Message: fmt.Sprintf("unknown call %q", name), Fields: []scenario.FieldError{}}})
+	}
+	if env == nil {
+		env = &Env{}
+	}
+	res, err := f(env, input)
+	if err != nil {
+		return encode(reply{Error: toError(err)})
+	}
+	return encode(reply{Result: res})
+}
+
+func encode(r reply) []byte {
+	b, err := json.Marshal(r)
+	if err != nil {
+		// A result that cannot be encoded (NaN, Inf) is reported, never sent.
+		b, _ = json.Marshal(reply{Error: &Error{Message: "the result could not be encoded: " + err.Error(), Fields: []scenario.FieldError{}}})
+	}
+	return b
+}
+
+func toError(err error) *Error {
+	var fe scenario.Errors
+	if errors.As(err, &fe) {
+		e := &Error{Fields: []scenario.FieldError(fe)}
+		if len(fe) == 1 {
+			e.Message = fe[0].Error()
+		} else {
+			e.Message = fmt.Sprintf("%d fields need attention: %s", len(fe), fe.Error())
+		}
+		return e
+	}
+	return &Error{Message: err.Error(), Fields: []scenario.FieldError{}}
+}
+
+// evaluate runs one scenario: input is the scenario JSON, the result is
+// the sway.Result JSON.
+func evaluate(_ *Env, input []byte) (any, error) {
+	s, err := scenario.Parse(input)
+	if err != nil {
+		return nil, err
+	}
+	return sway.Evaluate(s)
+}
+
+// validate checks a scenario without running it; the result is
+// {"valid": true}.
+func validate(_ *Env, input []byte) (any, error) {
+	if _, err := scenario.Parse(input); err != nil {
+		return nil, err
+	}
+	return map[string]bool{"valid": true}, nil
+}

@@ -1,0 +1,192 @@
+package bridge
+
+import (
+	"bytes"
+	"embed"
+	"encoding/json"
+	"fmt"
+	"path"
+	"sort"
+	"strings"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+)
+
+// Version is the tool's version, shown on the page.
+const Version = "0.1.0-dev"
+
+func version(*Env, []byte) (any, error) {
+	return map[string]string{"version": Version, "format": scenario.FormatName,
+		"format_version": fmt.Sprint(scenario.Version)}, nil
+}
+
+// UnitTable is the reply of the "units" call: the core/units table, the
+// standard gravity, and the two unit systems.
+type UnitTable struct {
+	Quantities      map[string]units.Quantity `json:"quantities"`
+	StandardGravity float64                   `json:"standard_gravity_m_per_s2"`
+	Systems         []string                  `json:"systems"`
+}
+
+func unitTable(*Env, []byte) (any, error) {
+	return UnitTable{Quantities: units.Table, StandardGravity: units.StandardGravity,
+		Systems: []string{"si", "us"}}, nil
+}
+
+// FieldRange is one accepted range from scenario.Ranges, with the quantity
+// of core/units whose SI unit it is given in ("" when none).
+type FieldRange struct {
+	Min      float64 `json:"min"`
+	Max      float64 `json:"max"`
+	Unit     string  `json:"unit"`
+	OpenMin  bool    `json:"open_min"`
+	Text     string  `json:"text"`
+	Quantity string  `json:"quantity"`
+}
+
+func ranges(*Env, []byte) (any, error) {
+	out := make(map[string]FieldRange, len(scenario.Ranges))
+	for k, r := range scenario.Ranges {
+		out[k] = FieldRange{Min: r.Min, Max: r.Max, Unit: r.Unit, OpenMin: r.OpenMin,
+			Text: r.Text(), Quantity: QuantityOf(r.Unit)}
+	}
+	return out, nil
+}
+
+// QuantityOf names the quantity of units.Table whose SI unit has the given
+// symbol, or "" when there is none. Angles are in degrees in scenarios, so
+// "deg" is the angle quantity.
+func QuantityOf(siSymbol string) string {
+	names := make([]string, 0, len(units.Table))
+	for k := range units.Table {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	for _, k := range names {
+		q := units.Table[k]
+		if len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
+			return k
+		}
+	}
+	return ""
+}
+
+//go:embed examples/*.json
+var embedded embed.FS
+
+// Example is one scenario of the example library.
+type Example struct {
+	File        string          `json:"file"`
+	Name        string          `json:"name"`
+	Description string          `json:"description"`
+	Scenario    json.RawMessage `json:"scenario"`
+}
+
+// Examples is the reply of the "examples" call.
+type Examples struct {
+	// Source is "origin" when the files came from the page's own origin,
+	// "embedded" when the copies built into the wasm were used.
+	Source string `json:"source"`
+	// Note says why the embedded copies were used.
+	Note     string    `json:"note,omitempty"`
+	Demo     string    `json:"demo"`
+	Examples []Example `json:"examples"`
+}
+
+// DemoFile is the example loaded when the page opens for the first time.
+const DemoFile = "bay-travel.json"
+
+// ExamplesBase is where the page's origin serves the example files,
+// relative to the page; index.json lists the file names.
+const ExamplesBase = "examples/"
+
+type examplesInput struct {
+	// Base overrides ExamplesBase (a URL ending in "/").
+	Base string `json:"base"`
+}
+
+func examples(env *Env, input []byte) (any, error) {
+	var in examplesInput
+	if len(input) > 0 {
+		if err := json.Unmarshal(input, &in); err != nil {
+			return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"base\": URL}: " + err.Error()}}
+		}
+	}
+	base := in.Base
+	if base == "" {
+		base = ExamplesBase
+	}
+	if env.Fetch != nil {
+		list, err := fetchExamples(env.Fetch, base)
+		if err == nil {
+			return &Examples{Source: "origin", Demo: DemoFile, Examples: list}, nil
+		}
+		ex, _ := embeddedExamples()
+		ex.Note = "the example files could not be read from the page's origin (" + err.Error() + "); the copies built into the tool are shown"
+		return ex, nil
+	}
+	return embeddedExamples()
+}
+
+func fetchExamples(fetch func(string) ([]byte, error), base string) ([]Example, error) {
+	idx, err := fetch(base + "index.json")
+	if err != nil {
+		return nil, err
+	}
+	var files []string
+	if err := json.Unmarshal(idx, &files); err != nil {
+		return nil, fmt.Errorf("%sindex.json is not a list of file names: %v", base, err)
+	}
+	var out []Example
+	for _, f := range files {
+		if f != path.Base(f) || !strings.HasSuffix(f, ".json") {
+			return nil, fmt.Errorf("%sindex.json names %q, not a .json file beside it", base, f)
+		}
+		data, err := fetch(base + f)
+		if err != nil {
+			return nil, err
+		}
+		ex, err := example(f, data)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, ex)
+	}
+	if len(out) == 0 {
+		return nil, fmt.Errorf("%sindex.json lists no examples", base)
+	}
+	return out, nil
+}
+
+func embeddedExamples() (*Examples, error) {
+	ents, err := embedded.ReadDir("examples")
+	if err != nil {
+		return nil, err
+	}
+	out := &Examples{Source: "embedded", Demo: DemoFile}
+	for _, e := range ents {
+		data, err := embedded.ReadFile("examples/" + e.Name())
+		if err != nil {
+			return nil, err
+		}
+		ex, err := example(e.Name(), data)
+		if err != nil {
+			return nil, err
+		}
+		out.Examples = append(out.Examples, ex)
+	}
+	return out, nil
+}
+
+func example(file string, data []byte) (Example, error) {
+	s, err := scenario.Parse(data)
+	if err != nil {
+		return Example{}, fmt.Errorf("example %s: %v", file, err)
+	}
+	var compact bytes.Buffer
+	if err := json.Compact(&compact, data); err != nil {
+		return Example{}, err
+	}
+	return Example{File: file, Name: s.Name, Description: s.Description, Scenario: json.RawMessage(compact.Bytes())}, nil
+}

@@ -1,0 +1,63 @@
+//go:build js && wasm
+
+// Command wasm is the swaysheet core for the page, built as
+// GOOS=js GOARCH=wasm and run inside a Web Worker (web/static/worker.js).
+//
+// It defines one JavaScript function,
+//
+//	swaysheetCall(name, inputJSON, done)
+//
+// that runs the call of bridge.Calls named name on a goroutine and calls
+// done(replyJSON) with the reply, so a call that waits (the example
+// library's fetch) never blocks the worker's event loop. It then sets
+// swaysheetReady = true and blocks forever: the program never exits while
+// the page is open.
+package main
+
+import (
+	"fmt"
+	"io"
+	"net/http"
+	"syscall/js"
+
+	"github.com/syumai/tinyutil/httputil"
+
+	"swaysheet/wasm/bridge"
+)
+
+func main() {
+	register()
+	select {}
+}
+
+func register() {
+	env := &bridge.Env{Fetch: fetch}
+	js.Global().Set("swaysheetCall", js.FuncOf(func(this js.Value, args []js.Value) any {
+		if len(args) < 3 || args[0].Type() != js.TypeString || args[1].Type() != js.TypeString || args[2].Type() != js.TypeFunction {
+			return js.ValueOf(`{"error":{"message":"swaysheetCall(name, inputJSON, done) needs two strings and a function","fields":[]}}`)
+		}
+		name, input, done := args[0].String(), args[1].String(), args[2]
+		go func() {
+			done.Invoke(string(bridge.Call(env, name, []byte(input))))
+		}()
+		return js.Undefined()
+	}))
+	js.Global().Set("swaysheetReady", true)
+}
+
+// fetch reads url, relative to the worker's own location, from the page's
+// origin with the Fetch API through tinyutil's httputil.
+func fetch(url string) ([]byte, error) {
+	if loc := js.Global().Get("location"); loc.Truthy() {
+		url = js.Global().Get("URL").New(url, loc.Get("href")).Call("toString").String()
+	}
+	resp, err := httputil.Get(url)
+	if err != nil {
+		return nil, err
+	}
+	defer resp.Body.Close()
+	if resp.StatusCode != http.StatusOK {
+		return nil, fmt.Errorf("%s: %s", url, resp.Status)
+	}
+	return io.ReadAll(io.LimitReader(resp.Body, 1<<20))
+}

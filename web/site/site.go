@@ -1,0 +1,90 @@
+// Package site serves the page's own files and nothing else: the static
+// page (web/static), the built wasm and Go's wasm_exec.js (the build
+// folder), and the example scenarios (testdata/scenarios) under
+// /examples/, with /examples/index.json listing them.
+package site
+
+import (
+	"encoding/json"
+	"net/http"
+	"os"
+	"path"
+	"path/filepath"
+	"sort"
+	"strings"
+)
+
+// Dirs are the folders served.
+type Dirs struct {
+	Static   string // web/static
+	Build    string // holds swaysheet.wasm and wasm_exec.js
+	Examples string // testdata/scenarios
+}
+
+// CSP allows the page to load only its own files; wasm needs
+// 'wasm-unsafe-eval'.
+const CSP = "default-src 'self'; script-src 'self' 'wasm-unsafe-eval'; style-src 'self'; " +
+	"img-src 'self' data: blob:; connect-src 'self'; worker-src 'self'; object-src 'none'; " +
+	"base-uri 'none'; form-action 'none'; frame-ancestors 'none'"
+
+var built = map[string]bool{"swaysheet.wasm": true, "wasm_exec.js": true}
+
+// Handler serves d. Only GET and HEAD of plain files are answered.
+func Handler(d Dirs) http.Handler {
+	return http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
+		if r.Method != http.MethodGet && r.Method != http.MethodHead {
+			http.Error(w, "only GET and HEAD", http.StatusMethodNotAllowed)
+			return
+		}
+		h := w.Header()
+		h.Set("Content-Security-Policy", CSP)
+		h.Set("X-Content-Type-Options", "nosniff")
+		h.Set("Referrer-Policy", "no-referrer")
+		h.Set("Cache-Control", "no-cache")
+		p := path.Clean("/" + r.URL.Path)
+		switch {
+		case p == "/":
+			file(w, r, filepath.Join(d.Static, "index.html"))
+		case p == "/examples/index.json":
+			index(w, d.Examples)
+		case strings.HasPrefix(p, "/examples/"):
+			name := strings.TrimPrefix(p, "/examples/")
+			if strings.Contains(name, "/") || !strings.HasSuffix(name, ".json") {
+				http.NotFound(w, r)
+				return
+			}
+			file(w, r, filepath.Join(d.Examples, name))
+		case built[strings.TrimPrefix(p, "/")]:
+			file(w, r, filepath.Join(d.Build, strings.TrimPrefix(p, "/")))
+		default:
+			file(w, r, filepath.Join(d.Static, filepath.FromSlash(strings.TrimPrefix(p, "/"))))
+		}
+	})
+}
+
+func file(w http.ResponseWriter, r *http.Request, name string) {
+	st, err := os.Stat(name)
+	if err != nil || st.IsDir() {
+		http.NotFound(w, r)
+		return
+	}
+	if strings.HasSuffix(name, ".wasm") {
+		w.Header().Set("Content-Type", "application/wasm")
+	}
+	http.ServeFile(w, r, name)
+}
+
+func index(w http.ResponseWriter, dir string) {
+	files, err := filepath.Glob(filepath.Join(dir, "*.json"))
+	if err != nil {
+		http.Error(w, err.Error(), http.StatusInternalServerError)
+		return
+	}
+	names := []string{}
+	for _, f := range files {
+		names = append(names, filepath.Base(f))
+	}
+	sort.Strings(names)
+	w.Header().Set("Content-Type", "application/json")
+	_ = json.NewEncoder(w).Encode(names)
+}
