@@ -5,6 +5,11 @@
 //
 //	go run ./core/cmd/swaysheet [-summary] [-no-history] FILE.json ...
 //	go run ./core/cmd/swaysheet -plan [-json] FILE.json ...
+//	go run ./core/cmd/swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...
+//
+// With -sheet it writes the printable check sheet of each file as
+// OUTDIR/NAME.html (web/sheet, the same renderer the page prints with) and
+// prints each file written with the scenario's fingerprint.
 package main
 
 import (
@@ -30,9 +35,13 @@ func run(args []string, stdout, stderr io.Writer) int {
 	noHistory := fs.Bool("no-history", false, "leave the time histories out of the result JSON")
 	planning := fs.Bool("plan", false, "plan the scenario's move: print the ranked table of drive settings")
 	planJSON := fs.Bool("json", false, "with -plan: print the plan as JSON instead of the table")
+	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
+	sheetUnits := fs.String("units", "si", "with -sheet: the unit system of the sheet, si or us")
+	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
+		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -41,6 +50,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if fs.NArg() == 0 {
 		fs.Usage()
 		return 2
+	}
+	if *sheetDir != "" {
+		return runSheets(*sheetDir, fs.Args(), *sheetUnits, *sheetLink, stdout, stderr)
 	}
 	if *planning {
 		return runPlans(fs.Args(), *planJSON, stdout, stderr)

@@ -1,0 +1,414 @@
+// Package sheet writes the one-page check sheet of a scenario as HTML: the
+// user's reference fields, every input with its unit, the results held
+// against the plan's limits, the planner's recommended drive settings, the
+// rope-angle and load-path plots as inline SVG, the warnings, the model's
+// assumptions, the safety cautions, the tool's version, the scenario's
+// fingerprint, a QR code that carries the scenario, and signature lines.
+//
+// The command line (swaysheet -sheet) and the page (through the wasm
+// bridge) both call Build, so a sheet printed from the page and one
+// written by the command line agree. The HTML comes from html/template:
+// text the user typed is always text, never markup. Nothing on the sheet
+// is told by colour alone; it prints in black and white.
+package sheet
+
+import (
+	"bytes"
+	"compress/flate"
+	_ "embed"
+	"encoding/base64"
+	"fmt"
+	"html/template"
+	"io"
+	"strings"
+
+	qrcode "github.com/skip2/go-qrcode"
+
+	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// CSS is the sheet's style sheet: written into a stand-alone sheet, and
+// served to the page as sheet.css (web/static/sheet.css is a copy; a test
+// keeps the two the same).
+//
+//go:embed sheet.css
+var CSS string
+
+// Cautions are printed on every sheet.
+var Cautions = []string{
+	"These figures are an estimate from a simplified model, not a guarantee of how the load will move.",
+	"The crane manufacturer's instructions, load charts and wind limits, the approved lift plan, local lifting codes and regulations and the person in charge of the lift take precedence over this sheet.",
+	"Nobody stands or works under a suspended load. Use tag lines where the lift plan calls for them.",
+	"Stop the lift when sway or wind exceeds the plan's limits. A qualified person approves the lift.",
+}
+
+// Input is what a sheet is made of. Scenario is required; the rest is
+// computed or defaulted when absent.
+type Input struct {
+	Scenario *scenario.Scenario
+	// Result is the evaluation of Scenario; nil: evaluated by Build.
+	Result *sway.Result
+	// Plan is the planner's result; nil: planned by Build when the
+	// scenario has a plan block.
+	Plan *plan.Result
+	// Units are the display units by quantity (core/units names, plus
+	// "wind_speed"), as the page's unit choosers hold them; a quantity
+	// left out takes the default of System ("si" or "us").
+	Units  map[string]string
+	System string
+	// Version is the tool's version printed on the sheet.
+	Version string
+	// LinkBase is the page's address; the QR code holds LinkBase +
+	// "#z=" + the scenario (see ShareFragment).
+	LinkBase string
+	// PrintedAt is the time the sheet is made, as text.
+	PrintedAt string
+}
+
+// Sheet is a built sheet.
+type Sheet struct {
+	Fingerprint string
+	// QRText is the text the QR code carries.
+	QRText string
+	data   *view
+}
+
+// ShareFragment is the URL fragment "z=..." that carries a scenario: its
+// canonical JSON (scenario.Canonical), compressed with DEFLATE (RFC 1951,
+// no zlib or gzip header) and written in unpadded base64url (RFC 4648
+// section 5).
+func ShareFragment(canonical []byte) string {
+	var buf bytes.Buffer
+	zw, _ := flate.NewWriter(&buf, flate.BestCompression)
+	zw.Write(canonical)
+	zw.Close()
+	return "z=" + base64.RawURLEncoding.EncodeToString(buf.Bytes())
+}
+
+// ReadShareFragment is the inverse of ShareFragment (with or without the
+// leading "#"). It reads at most scenario.MaxFileBytes.
+func ReadShareFragment(frag string) ([]byte, error) {
+	frag = strings.TrimPrefix(frag, "#")
+	b64, ok := strings.CutPrefix(frag, "z=")
+	if !ok {
+		return nil, fmt.Errorf("the link holds no scenario (no #z= part)")
+	}
+	raw, err := base64.RawURLEncoding.DecodeString(b64)
+	if err != nil {
+		return nil, fmt.Errorf("the link's scenario is damaged: %v", err)
+	}
+	out, err := io.ReadAll(io.LimitReader(flate.NewReader(bytes.NewReader(raw)), scenario.MaxFileBytes+1))
+	if err != nil {
+		return nil, fmt.Errorf("the link's scenario is damaged: %v", err)
+	}
+	if len(out) > scenario.MaxFileBytes {
+		return nil, fmt.Errorf("the link's scenario is larger than %d bytes", scenario.MaxFileBytes)
+	}
+	return out, nil
+}
+
+type check struct {
+	Label, Value, Limit, Unit string
+	Within                    bool
+	HasLimit                  bool
+}
+
+type planView struct {
+	Err         string
+	Axis        string
+	Recommended *plan.Option
+	Reason      string
+	Infeasible  []string
+	Notes       []string
+	Others      []plan.Option
+	Unit        string
+	Ropes       string
+}
+
+type view struct {
+	Title       string
+	Name        string
+	Description string
+	Example     bool
+	Refs        []Row
+	Inputs      []Group
+	Results     []Row
+	Checks      []check
+	AnyOutside  bool
+	Plan        *planView
+	AnglePlot   template.HTML
+	PathPlot    template.HTML
+	Warnings    []string
+	Assumptions []string
+	Cautions    []string
+	Version     string
+	PrintedAt   string
+	Fingerprint string
+	QR          template.HTML
+	QRNote      string
+	EvalErr     string
+	ResultsFor  string
+	// Dense sets smaller type for a sheet with much to say.
+	Dense bool
+}
+
+// Build computes what the sheet needs and returns it ready to write.
+func Build(in Input) (*Sheet, error) {
+	s := in.Scenario
+	if s == nil {
+		return nil, fmt.Errorf("sheet: no scenario")
+	}
+	canon, err := scenario.Canonical(s)
+	if err != nil {
+		return nil, err
+	}
+	fp, err := scenario.Fingerprint(s)
+	if err != nil {
+		return nil, err
+	}
+	u := unitChooser{chosen: in.Units, system: in.System}
+	v := &view{
+		Title: "Hook-load sway check sheet", Name: s.Name, Description: s.Description, Example: s.Example,
+		Inputs: inputGroups(s, u), Version: in.Version, PrintedAt: in.PrintedAt, Fingerprint: fp,
+		Cautions: Cautions, Assumptions: sway.Assumptions,
+	}
+	if v.Version == "" {
+		v.Version = "unknown"
+	}
+	sh := s.Sheet
+	if sh == nil {
+		sh = &scenario.Sheet{}
+	}
+	v.Refs = []Row{
+		{Label: "Project", Value: sh.Project}, {Label: "Lift reference", Value: sh.LiftReference},
+		{Label: "Crane", Value: sh.Crane}, {Label: "Load", Value: sh.LoadDescription},
+		{Label: "Prepared by", Value: sh.PreparedBy}, {Label: "Checked by", Value: sh.CheckedBy},
+		{Label: "Date and time of the lift", Value: sh.Date},
+	}
+	if s.Plan != nil {
+		v.Plan = planSection(s, in.Plan, u)
+		if v.Plan.Err == "" {
+			v.Assumptions = append(append([]string{}, v.Assumptions...), plan.Assumptions...)
+			v.Cautions = mergeCautions(v.Cautions, plan.Cautions)
+		}
+	}
+	res := in.Result
+	evalScenario := s
+	if p := v.Plan; p != nil && p.Recommended != nil && len(s.Motions) == 0 {
+		// A planning request without moves of its own: the results and
+		// plots are those of the recommended move.
+		c := *s
+		c.Motions = []scenario.Motion{p.Recommended.Motion}
+		evalScenario = &c
+		res = nil
+		v.ResultsFor = "the recommended move (" + p.Recommended.Label + "), at the nominal rope length"
+	}
+	if res == nil {
+		res, err = sway.Evaluate(evalScenario)
+		if err != nil {
+			v.EvalErr = err.Error()
+			res = nil
+		}
+	}
+	if res != nil {
+		fillResults(v, res, u)
+	}
+	v.Dense = density(v) > 62
+	qrText := in.LinkBase + "#" + ShareFragment(canon)
+	qr, err := qrcode.New(qrText, qrcode.Medium)
+	if err != nil {
+		qr, err = qrcode.New(qrText, qrcode.Low)
+	}
+	if err != nil {
+		v.QRNote = "The scenario is too large for a QR code (" + err.Error() + "); reopen it from the scenario file with the fingerprint below."
+		qrText = ""
+	} else {
+		v.QR = template.HTML(qrSVG(qr.Bitmap(), "QR code holding the scenario"))
+		v.QRNote = "Scan to reopen this exact scenario."
+	}
+	return &Sheet{Fingerprint: fp, QRText: qrText, data: v}, nil
+}
+
+func fillResults(v *view, r *sway.Result, u unitChooser) {
+	num := func(x float64) string { return Num(x, 4) }
+	length := func(x float64) (string, string) { a, s := u.show("length", x); return num(a), s }
+	force := func(x float64) (string, string) { a, s := u.show("force", x); return num(a), s }
+	add := func(label, val, unit string) { v.Results = append(v.Results, Row{Label: label, Value: val, Unit: unit}) }
+	add("Sway period (small swing)", num(r.PeriodS), "s")
+	if r.PeriodAmplitudeS > 0 {
+		add("Sway period at the residual swing", num(r.PeriodAmplitudeS), "s")
+	}
+	add(fmt.Sprintf("Peak swing (at %s s)", num(r.PeakSwingTimeS)), num(r.PeakSwingDeg), "deg")
+	x, s := length(r.PeakExcursionM)
+	add("Peak excursion", x, s)
+	add("Residual swing after the last move", num(r.ResidualSwingDeg), "deg")
+	x, s = length(r.ResidualExcursionM)
+	add("Residual excursion", x, s)
+	x, s = force(r.TensionMaxN)
+	add("Peak rope tension", x, s)
+	x, s = force(r.TensionMinN)
+	add("Lowest rope tension", x, s)
+	x, s = force(r.StaticTensionN)
+	add("Static rope tension (weight)", x, s)
+	add("Tension factor (peak / static)", num(r.TensionFactor), "×")
+	if r.WindForceN > 0 {
+		x, s = force(r.WindForceN)
+		add("Wind force", x, s)
+		add("Steady wind lean", num(r.WindLeanDeg), "deg")
+	}
+	if rg := r.Rigging; rg != nil {
+		add("Mode periods (hook and load)", num(rg.ModePeriodsS[0])+" and "+num(rg.ModePeriodsS[1]), "s")
+		add("Peak rope swing (hook block)", num(rg.PeakRopeSwingDeg), "deg")
+		add("Peak rigging angle to the rope", num(rg.PeakRiggingAngleDeg), "deg")
+		x, s = force(rg.RiggingTensionMaxN)
+		add("Peak rigging tension", x, s)
+	}
+	add("Moves end at", num(r.MotionEndS), "s")
+	add("Time simulated", num(r.RunS), "s")
+	byName := map[string]sway.Check{}
+	for _, c := range r.Checks {
+		byName[c.Name] = c
+	}
+	for _, k := range []struct{ name, label, q, unit string }{
+		{"peak_swing_deg", "Peak swing", "", "deg"},
+		{"peak_excursion_m", "Peak excursion", "length", ""},
+		{"residual_swing_deg", "Residual swing", "", "deg"},
+		{"tension_factor", "Tension factor", "", "×"},
+	} {
+		c, ok := byName[k.name]
+		if !ok {
+			v.Checks = append(v.Checks, check{Label: k.label})
+			continue
+		}
+		val, lim, unit := c.Value, c.Limit, k.unit
+		if k.q != "" {
+			val, unit = u.show(k.q, c.Value)
+			lim, _ = u.show(k.q, c.Limit)
+		}
+		v.Checks = append(v.Checks, check{Label: k.label, Value: num(val), Limit: num(lim), Unit: unit, Within: c.Within, HasLimit: true})
+		if !c.Within {
+			v.AnyOutside = true
+		}
+	}
+	v.Warnings = r.Warnings
+	h := r.History
+	lim := []hline{}
+	for _, c := range r.Checks {
+		if c.Name == "peak_swing_deg" {
+			lim = append(lim, hline{Y: c.Limit, Text: "limit " + num(c.Limit) + " deg"})
+		}
+	}
+	v.AnglePlot = template.HTML(chart("Rope angle from the vertical", "time, s", "rope angle, deg",
+		[]series{{X: h.TimeS, Y: h.SwingDeg, Width: 1.3, Name: "rope angle"}}, lim))
+	_, ls := u.show("length", 1)
+	conv := func(xs []float64) []float64 {
+		out := make([]float64, len(xs))
+		for i, x := range xs {
+			out[i], _ = u.show("length", x)
+		}
+		return out
+	}
+	v.PathPlot = template.HTML(chart("Load path seen from above", "x, "+ls, "y, "+ls, []series{
+		{X: conv(h.SuspensionXM), Y: conv(h.SuspensionYM), Dash: "4 2.5", Width: 1, Name: "hook point"},
+		{X: conv(h.LoadXM), Y: conv(h.LoadYM), Width: 1.4, Name: "load"},
+	}, nil))
+}
+
+func planSection(s *scenario.Scenario, r *plan.Result, u unitChooser) *planView {
+	pv := &planView{}
+	if r == nil {
+		var err error
+		r, err = plan.Make(s)
+		if err != nil {
+			pv.Err = err.Error()
+			return pv
+		}
+	}
+	pv.Axis = r.Axis
+	pv.Reason = r.Reason
+	ls := make([]string, len(r.RopeLengthsM))
+	for i, l := range r.RopeLengthsM {
+		x, _ := u.show("length", l)
+		ls[i] = Num(x, 4)
+	}
+	_, sym := u.show("length", 1)
+	pv.Ropes = strings.Join(ls, ", ") + " " + sym
+	pv.Infeasible = r.Infeasible
+	pv.Notes = r.Notes
+	if r.Recommended >= 0 && r.Recommended < len(r.Options) {
+		o := r.Options[r.Recommended]
+		pv.Recommended = &o
+	}
+	for i, o := range r.Options {
+		if i != r.Recommended && len(pv.Others) < 3 {
+			pv.Others = append(pv.Others, o)
+		}
+	}
+	return pv
+}
+
+var funcs = template.FuncMap{
+	"num": func(v float64) string { return Num(v, 4) },
+	"blank": func(s string) bool { return strings.TrimSpace(s) == "" },
+}
+
+var tmpl = template.Must(template.New("sheet").Funcs(funcs).Parse(sheetHTML))
+
+// WriteFragment writes the sheet as one <article> element, for a page
+// that has sheet.css.
+func (sh *Sheet) WriteFragment(w io.Writer) error {
+	return tmpl.ExecuteTemplate(w, "body", sh.data)
+}
+
+// WriteDocument writes the sheet as a stand-alone HTML file with its
+// style sheet inside; it has no script.
+func (sh *Sheet) WriteDocument(w io.Writer) error {
+	return tmpl.ExecuteTemplate(w, "doc", struct {
+		*view
+		CSS template.CSS
+	}{sh.data, template.CSS(CSS)})
+}
+
+// Fragment is WriteFragment into a string.
+func (sh *Sheet) Fragment() (string, error) {
+	var b strings.Builder
+	err := sh.WriteFragment(&b)
+	return b.String(), err
+}
+
+// mergeCautions adds the planner's cautions that say more than the
+// sheet's own (the first of the planner's repeats the sheet's first two).
+func mergeCautions(own, more []string) []string {
+	out := append([]string{}, own...)
+	for _, c := range more {
+		if strings.HasPrefix(c, "These settings are an estimate") || strings.HasPrefix(c, "Nobody stands") || strings.HasPrefix(c, "Stop when") {
+			continue
+		}
+		out = append(out, c)
+	}
+	return out
+}
+
+// density is a rough count of the sheet's lines of text beyond the fixed
+// parts; above 62 the sheet is set in smaller type to stay on one page.
+func density(v *view) int {
+	n := len(v.Results) + len(v.Checks) + len(v.Assumptions)*2 + len(v.Cautions)*2
+	in := 0
+	for _, g := range v.Inputs {
+		in += len(g.Rows) + 1
+	}
+	n += in / 2
+	for _, w := range v.Warnings {
+		n += 1 + len(w)/150
+	}
+	n += len(v.Description) / 120
+	if p := v.Plan; p != nil {
+		n += 6 + len(p.Notes)*2
+		if p.Recommended != nil {
+			n += (len(p.Recommended.Settings) + 1) / 2 * 2
+		}
+	}
+	return n
+}

@@ -1,0 +1,234 @@
+package sheet
+
+import (
+	"bytes"
+	"image"
+	"image/color"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+
+	"github.com/makiuchi-d/gozxing"
+	gzqr "github.com/makiuchi-d/gozxing/qrcode"
+	qrcode "github.com/skip2/go-qrcode"
+
+	"swaysheet/core/scenario"
+)
+
+const hostile = `<img src=x onerror=alert(1)>`
+
+func demo(t *testing.T, name string) *scenario.Scenario {
+	t.Helper()
+	data, err := os.ReadFile(filepath.Join("../../testdata/scenarios", name))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := scenario.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+func build(t *testing.T, s *scenario.Scenario, in Input) (*Sheet, string) {
+	t.Helper()
+	in.Scenario = s
+	sh, err := Build(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b bytes.Buffer
+	if err := sh.WriteDocument(&b); err != nil {
+		t.Fatal(err)
+	}
+	return sh, b.String()
+}
+
+// Text typed into the reference fields is escaped: no element of it
+// reaches the HTML.
+func TestReferenceFieldsAreText(t *testing.T) {
+	s := demo(t, "bay-travel.json")
+	s.Name = hostile
+	s.Sheet = &scenario.Sheet{Project: hostile, LiftReference: `"><script>alert(2)</script>`,
+		Crane: "Bay 3 & 4", PreparedBy: "O'Neil", CheckedBy: "</article>", Date: "2026-12-02 07:30"}
+	_, doc := build(t, s, Input{})
+	for _, bad := range []string{"<img", "<script", "onerror=alert(1)>", "</article></article>"} {
+		if strings.Contains(doc, bad) {
+			t.Errorf("the sheet holds %q as markup", bad)
+		}
+	}
+	for _, want := range []string{"&lt;img src=x onerror=alert(1)&gt;", "Bay 3 &amp; 4", "2026-12-02 07:30"} {
+		if !strings.Contains(doc, want) {
+			t.Errorf("the sheet lacks %q", want)
+		}
+	}
+	if strings.Count(doc, "<article") != 1 || strings.Count(doc, "</article>") != 1 {
+		t.Error("a reference field closed the sheet's element")
+	}
+}
+
+// The fingerprint printed is the SHA-256 of the canonical JSON.
+func TestFingerprintPrinted(t *testing.T) {
+	s := demo(t, "bay-travel.json")
+	sh, doc := build(t, s, Input{})
+	fp, _ := scenario.Fingerprint(s)
+	if sh.Fingerprint != fp || !strings.Contains(doc, fp) {
+		t.Fatalf("fingerprint %s not on the sheet", fp)
+	}
+	s.Sheet = &scenario.Sheet{CheckedBy: "A. Checker"}
+	sh2, _ := build(t, s, Input{})
+	if sh2.Fingerprint == fp {
+		t.Fatal("a changed reference field kept the fingerprint")
+	}
+}
+
+// The sheet holds every input, with its unit, in the chosen unit system.
+func TestInputsAndUnits(t *testing.T) {
+	s := demo(t, "bay-travel.json")
+	_, si := build(t, s, Input{System: "si"})
+	for _, want := range []string{">7200<", ">8.5<", "m/min", "m/s²", "Peak swing", "within", "OUTSIDE", "Safety cautions", "What the model assumes"} {
+		if !strings.Contains(si, want) {
+			t.Errorf("SI sheet lacks %q", want)
+		}
+	}
+	_, us := build(t, s, Input{System: "us"})
+	// 8.5 m = 27.887 ft; 7200 kg = 15873.3 lb (NIST SP 811 factors).
+	for _, want := range []string{">27.8871<", ">15873.3<", "ft/min", ">lb<"} {
+		if !strings.Contains(us, want) {
+			t.Errorf("US sheet lacks %q", want)
+		}
+	}
+	_, own := build(t, s, Input{Units: map[string]string{"length": "in", "mass": "t"}})
+	if !strings.Contains(own, ">7.2<") || !strings.Contains(own, ">334.646<") {
+		t.Error("the page's own unit choice is not used")
+	}
+}
+
+// Every example renders, and a plan example shows the recommended settings.
+func TestEveryExample(t *testing.T) {
+	files, _ := filepath.Glob("../../testdata/scenarios/*.json")
+	for _, f := range files {
+		s := demo(t, filepath.Base(f))
+		_, doc := build(t, s, Input{Version: "test"})
+		if s.Plan != nil && !strings.Contains(doc, "Recommended drive settings") {
+			t.Errorf("%s: no planner section", f)
+		}
+		if strings.Count(doc, "<svg") != 3 {
+			t.Errorf("%s: want 3 SVGs (QR and two plots), got %d", f, strings.Count(doc, "<svg"))
+		}
+	}
+}
+
+// The QR code decodes (with an independent decoder, gozxing) to a link
+// whose fragment gives back the canonical JSON of the same scenario.
+func TestQRCodeCarriesScenario(t *testing.T) {
+	for _, name := range []string{"bay-travel.json", "plan-tower-slew.json"} {
+		s := demo(t, name)
+		s.Sheet = &scenario.Sheet{Project: hostile, PreparedBy: "Ünal Öz"}
+		sh, doc := build(t, s, Input{LinkBase: "https://example.org/swaysheet/"})
+		qr, err := qrcode.New(sh.QRText, qrcode.Medium)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// The SVG on the sheet is drawn from the same bitmap: check it
+		// holds one path square for each dark module.
+		dark := 0
+		for _, row := range qr.Bitmap() {
+			for _, b := range row {
+				if b {
+					dark++
+				}
+			}
+		}
+		m := regexp.MustCompile(`M\d+ \d+h(\d+)v1h-\d+z`).FindAllStringSubmatch(doc, -1)
+		drawn := 0
+		for _, x := range m {
+			n := 0
+			for _, c := range x[1] {
+				n = n*10 + int(c-'0')
+			}
+			drawn += n
+		}
+		if drawn != dark {
+			t.Fatalf("%s: the SVG draws %d modules, the code has %d", name, drawn, dark)
+		}
+		text := decodeQR(t, qr.Bitmap())
+		if text != sh.QRText {
+			t.Fatalf("%s: QR decodes to %q, want %q", name, text, sh.QRText)
+		}
+		base, frag, ok := strings.Cut(text, "#")
+		if !ok || base != "https://example.org/swaysheet/" {
+			t.Fatalf("%s: QR text %q is not a link to the page", name, text)
+		}
+		got, err := ReadShareFragment(frag)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want, _ := scenario.Canonical(s)
+		if !bytes.Equal(got, want) {
+			t.Fatalf("%s: QR scenario differs:\n got %s\nwant %s", name, got, want)
+		}
+		back, err := scenario.Parse(got)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if fp, _ := scenario.Fingerprint(back); fp != sh.Fingerprint {
+			t.Fatalf("%s: reopened scenario has another fingerprint", name)
+		}
+	}
+}
+
+// decodeQR renders bits at 4 px a module and decodes them with gozxing.
+func decodeQR(t *testing.T, bits [][]bool) string {
+	t.Helper()
+	const px = 4
+	n := len(bits)
+	img := image.NewGray(image.Rect(0, 0, n*px, n*px))
+	for y := 0; y < n*px; y++ {
+		for x := 0; x < n*px; x++ {
+			c := color.Gray{Y: 255}
+			if bits[y/px][x/px] {
+				c.Y = 0
+			}
+			img.SetGray(x, y, c)
+		}
+	}
+	bmp, err := gozxing.NewBinaryBitmapFromImage(img)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := gzqr.NewQRCodeReader().Decode(bmp, map[gozxing.DecodeHintType]interface{}{gozxing.DecodeHintType_PURE_BARCODE: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res.GetText()
+}
+
+func TestShareFragmentBadInput(t *testing.T) {
+	for _, bad := range []string{"", "#s=abc", "#z=!!!", "#z=AAAA", "z=" + strings.Repeat("A", 100)} {
+		if _, err := ReadShareFragment(bad); err == nil {
+			t.Errorf("%q: no error", bad)
+		}
+	}
+}
+
+// web/static/sheet.css is the page's copy of sheet.css.
+func TestPageCopyOfCSS(t *testing.T) {
+	page, err := os.ReadFile("../static/sheet.css")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if string(page) != CSS {
+		t.Fatal("web/static/sheet.css differs from web/sheet/sheet.css: run make sheetcss")
+	}
+}
+
+func TestNum(t *testing.T) {
+	for v, want := range map[float64]string{0: "0", 8.5: "8.5", 0.25: "0.25", 12345.678: "12350", 1e-7: "1e-07", 0.00595: "0.00595", -2.5: "-2.5"} {
+		if got := Num(v, 4); got != want {
+			t.Errorf("Num(%g) = %q, want %q", v, got, want)
+		}
+	}
+}
