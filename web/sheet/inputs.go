@@ -4,7 +4,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
-	"regexp"
 	"sort"
 	"strconv"
 	"strings"
@@ -98,16 +97,34 @@ var suffixUnit = []struct{ suffix, unit string }{
 	{"_m", "m"}, {"_s", "s"}, {"_n", "N"}, {"_pct", "%"},
 }
 
-var index = regexp.MustCompile(`\[\d+\]`)
+// dropIndex writes "[n]" of a path as "[]" ("motions[2].x" -> "motions[].x").
+func dropIndex(p string) string {
+	var b strings.Builder
+	for i := 0; i < len(p); i++ {
+		b.WriteByte(p[i])
+		if p[i] == '[' {
+			j := i + 1
+			for j < len(p) && p[j] >= '0' && p[j] <= '9' {
+				j++
+			}
+			if j < len(p) && p[j] == ']' && j > i+1 {
+				i = j - 1
+			}
+		}
+	}
+	return b.String()
+}
 
 // fieldUnit gives the SI unit and the display quantity of a scenario path.
 func fieldUnit(path string) (si, q string) {
-	key := index.ReplaceAllString(path, "[]")
+	key := dropIndex(path)
 	if r, ok := scenario.Ranges[key]; ok {
 		si = r.Unit
 	} else {
 		last := path[strings.LastIndex(path, ".")+1:]
-		last = index.ReplaceAllString(last, "")
+		if k := strings.IndexByte(last, '['); k >= 0 {
+			last = last[:k]
+		}
 		for _, s := range suffixUnit {
 			if strings.HasSuffix(last, s.suffix) {
 				si = s.unit

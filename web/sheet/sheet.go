@@ -18,7 +18,6 @@ import (
 	_ "embed"
 	"encoding/base64"
 	"fmt"
-	"html/template"
 	"io"
 	"strings"
 
@@ -138,15 +137,15 @@ type view struct {
 	Checks      []check
 	AnyOutside  bool
 	Plan        *planView
-	AnglePlot   template.HTML
-	PathPlot    template.HTML
+	AnglePlot   markup
+	PathPlot    markup
 	Warnings    []string
 	Assumptions []string
 	Cautions    []string
 	Version     string
 	PrintedAt   string
 	Fingerprint string
-	QR          template.HTML
+	QR          markup
 	QRNote      string
 	EvalErr     string
 	ResultsFor  string
@@ -225,7 +224,7 @@ func Build(in Input) (*Sheet, error) {
 		v.QRNote = "The scenario is too large for a QR code (" + err.Error() + "); reopen it from the scenario file with the fingerprint below."
 		qrText = ""
 	} else {
-		v.QR = template.HTML(qrSVG(qr.Bitmap(), "QR code holding the scenario"))
+		v.QR = markup(qrSVG(qr.Bitmap(), "QR code holding the scenario"))
 		v.QRNote = "Scan to reopen this exact scenario."
 	}
 	return &Sheet{Fingerprint: fp, QRText: qrText, data: v}, nil
@@ -235,7 +234,9 @@ func fillResults(v *view, r *sway.Result, u unitChooser) {
 	num := func(x float64) string { return Num(x, 4) }
 	length := func(x float64) (string, string) { a, s := u.show("length", x); return num(a), s }
 	force := func(x float64) (string, string) { a, s := u.show("force", x); return num(a), s }
-	add := func(label, val, unit string) { v.Results = append(v.Results, Row{Label: label, Value: val, Unit: unit}) }
+	add := func(label, val, unit string) {
+		v.Results = append(v.Results, Row{Label: label, Value: val, Unit: unit})
+	}
 	add("Sway period (small swing)", num(r.PeriodS), "s")
 	if r.PeriodAmplitudeS > 0 {
 		add("Sway period at the residual swing", num(r.PeriodAmplitudeS), "s")
@@ -300,7 +301,7 @@ func fillResults(v *view, r *sway.Result, u unitChooser) {
 			lim = append(lim, hline{Y: c.Limit, Text: "limit " + num(c.Limit) + " deg"})
 		}
 	}
-	v.AnglePlot = template.HTML(chart("Rope angle from the vertical", "time, s", "rope angle, deg",
+	v.AnglePlot = markup(chart("Rope angle from the vertical", "time, s", "rope angle, deg",
 		[]series{{X: h.TimeS, Y: h.SwingDeg, Width: 1.3, Name: "rope angle"}}, lim))
 	_, ls := u.show("length", 1)
 	conv := func(xs []float64) []float64 {
@@ -310,7 +311,7 @@ func fillResults(v *view, r *sway.Result, u unitChooser) {
 		}
 		return out
 	}
-	v.PathPlot = template.HTML(chart("Load path seen from above", "x, "+ls, "y, "+ls, []series{
+	v.PathPlot = markup(chart("Load path seen from above", "x, "+ls, "y, "+ls, []series{
 		{X: conv(h.SuspensionXM), Y: conv(h.SuspensionYM), Dash: "4 2.5", Width: 1, Name: "hook point"},
 		{X: conv(h.LoadXM), Y: conv(h.LoadYM), Width: 1.4, Name: "load"},
 	}, nil))
@@ -349,26 +350,22 @@ func planSection(s *scenario.Scenario, r *plan.Result, u unitChooser) *planView 
 	return pv
 }
 
-var funcs = template.FuncMap{
-	"num": func(v float64) string { return Num(v, 4) },
-	"blank": func(s string) bool { return strings.TrimSpace(s) == "" },
-}
-
-var tmpl = template.Must(template.New("sheet").Funcs(funcs).Parse(sheetHTML))
-
 // WriteFragment writes the sheet as one <article> element, for a page
 // that has sheet.css.
 func (sh *Sheet) WriteFragment(w io.Writer) error {
-	return tmpl.ExecuteTemplate(w, "body", sh.data)
+	var h htmlWriter
+	h.body(sh.data)
+	_, err := io.WriteString(w, h.String())
+	return err
 }
 
 // WriteDocument writes the sheet as a stand-alone HTML file with its
 // style sheet inside; it has no script.
 func (sh *Sheet) WriteDocument(w io.Writer) error {
-	return tmpl.ExecuteTemplate(w, "doc", struct {
-		*view
-		CSS template.CSS
-	}{sh.data, template.CSS(CSS)})
+	var h htmlWriter
+	h.doc(sh.data)
+	_, err := io.WriteString(w, h.String())
+	return err
 }
 
 // Fragment is WriteFragment into a string.
