@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench reference fuzz dist clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench reference fuzz dist single-wasm sheetcss clean
 
 all: test
 
@@ -54,6 +54,22 @@ wasm:
 	@mkdir -p $(OUT)/web
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(OUT)/web/swaysheet.wasm ./wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
+
+# The wasm of the single-file page: no net/http (a page opened from a file
+# has no origin to fetch from; the examples are the copies inside it),
+# symbols stripped.
+single-wasm:
+	@mkdir -p $(OUT)/single
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
+
+# dist/web: the page to host on any web server (with its service worker);
+# dist/swaysheet.html: one file, the wasm inside, that opens from a file.
+dist: wasm single-wasm
+	$(GO) run ./web/cmd/swaydist -build $(OUT)/web -single-wasm $(OUT)/single/swaysheet.wasm -out dist
+
+# web/static/sheet.css is the page's copy of the check sheet's style sheet.
+sheetcss:
+	cp web/sheet/sheet.css web/static/sheet.css
 
 # Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
 serve: wasm

@@ -12,6 +12,9 @@ import (
 	"path/filepath"
 	"sort"
 	"strings"
+
+	"swaysheet/core/version"
+	"swaysheet/web/offline"
 )
 
 // Dirs are the folders served.
@@ -45,6 +48,8 @@ func Handler(d Dirs) http.Handler {
 		switch {
 		case p == "/":
 			file(w, r, filepath.Join(d.Static, "index.html"))
+		case p == "/sw.js":
+			serviceWorker(w, d)
 		case p == "/examples/index.json":
 			index(w, d.Examples)
 		case strings.HasPrefix(p, "/examples/"):
@@ -62,6 +67,23 @@ func Handler(d Dirs) http.Handler {
 	})
 }
 
+// serviceWorker writes web/static/sw.js filled in with the files of the
+// page as they are now and their version (web/offline), as make dist does.
+func serviceWorker(w http.ResponseWriter, d Dirs) {
+	tmpl, err := os.ReadFile(filepath.Join(d.Static, "sw.js"))
+	if err != nil {
+		http.Error(w, err.Error(), http.StatusNotFound)
+		return
+	}
+	files, err := offline.Collect(offline.Dirs{Static: d.Static, Build: d.Build, Examples: d.Examples})
+	if err != nil {
+		http.Error(w, err.Error(), http.StatusInternalServerError)
+		return
+	}
+	w.Header().Set("Content-Type", "text/javascript; charset=utf-8")
+	_, _ = w.Write(offline.ServiceWorker(tmpl, offline.Version(version.Version, files), files))
+}
+
 func file(w http.ResponseWriter, r *http.Request, name string) {
 	st, err := os.Stat(name)
 	if err != nil || st.IsDir() {
@@ -70,6 +92,9 @@ func file(w http.ResponseWriter, r *http.Request, name string) {
 	}
 	if strings.HasSuffix(name, ".wasm") {
 		w.Header().Set("Content-Type", "application/wasm")
+	}
+	if strings.HasSuffix(name, ".webmanifest") {
+		w.Header().Set("Content-Type", "application/manifest+json")
 	}
 	http.ServeFile(w, r, name)
 }

@@ -12,7 +12,7 @@
   var worker = null, nextId = 1, waiting = {};
 
   function startWorker() {
-    worker = new Worker('worker.js');
+    worker = new Worker(window.swaysheetWorkerURL || 'worker.js');
     worker.onmessage = function (e) {
       var m = e.data;
       if (m.id === 0) { engineError(JSON.parse(m.out).error.message); return; }
@@ -190,6 +190,11 @@
   function renderForm() {
     var s = S.scenario, h = [];
     h.push(section('Lift', textField('name', 'Scenario name') + textField('description', 'Description', true)));
+    h.push(section('Check sheet references',
+      textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
+      textField('sheet.crane', 'Crane (make, model, fleet number)') + textField('sheet.load_description', 'Load description') +
+      textField('sheet.prepared_by', 'Prepared by') + textField('sheet.checked_by', 'Checked by') +
+      textField('sheet.date', 'Date and time of the lift'), 'sheet-refs'));
     h.push(section('Load and rope',
       numField('load.mass_kg', 'Load mass', { hint: 'hook block and rigging included' }) +
       numField('load.rope_length_m', 'Rope length', { hint: 'sheave to the load\u2019s centre of mass' }) +
@@ -503,6 +508,8 @@
       '<h3>Warnings</h3><ul>' + w.map(function (t) { return '<li><span aria-hidden="true">\u26A0</span> ' + esc(t) + '</li>'; }).join('') + '</ul>' :
       '<p class="no-warn"><span aria-hidden="true">\u2714</span> No warnings for these inputs.</p>';
     $('assumptions').innerHTML = (r.assumptions || []).map(function (t) { return '<li>' + esc(t) + '</li>'; }).join('');
+    // The check sheet (sheet.js) follows each result.
+    document.dispatchEvent(new CustomEvent('swaysheet:result'));
     renderPlots();
   }
 
@@ -775,15 +782,35 @@
   // openLink loads the scenario of the URL fragment, first keeping the
   // inputs it replaces among the saved scenarios.
   function openLink() {
+    if (/^#z=[A-Za-z0-9_-]+$/.test(location.hash)) {
+      var frag = location.hash;
+      history.replaceState(null, '', location.href.split('#')[0]);
+      call('unshare', frag).then(function (r) {
+        if (r.error) {
+          notice('\u2716 The link does not hold a readable scenario (' + r.error.message + '); the previous inputs are kept.');
+          renderForm();
+          updateBanner();
+          changed();
+          return;
+        }
+        keepBeforeLink(r.result);
+        load(r.result, 'Opened the scenario from the link.');
+      });
+      return true;
+    }
     var o = fromHash();
     if (!o) return false;
     history.replaceState(null, '', location.href.split('#')[0]);
+    keepBeforeLink(o);
+    load(o, 'Opened the scenario from the link.');
+    return true;
+  }
+
+  function keepBeforeLink(o) {
     if (S.scenario && JSON.stringify(S.scenario) !== JSON.stringify(o) && !S.scenario.example) {
       var st = store();
       if (st) try { st.setItem(SAVED + 'Kept before opening a link ' + new Date().toISOString().slice(0, 19).replace('T', ' '), JSON.stringify({ saved_at: new Date().toISOString(), scenario: S.scenario })); } catch (e) { /* ignore */ }
     }
-    load(o, 'Opened the scenario from the link.');
-    return true;
   }
 
   function bindShare() {
@@ -894,6 +921,10 @@
   // scenario as JSON (read only).
   window.swaysheet = {
     scenarioJSON: function () { return JSON.stringify(S.scenario); },
+    // For the check sheet (sheet.js): a core call, and the units shown.
+    call: call,
+    units: function () { return S.chosen; },
+    system: function () { return S.sys; },
     resultCount: function () { return S.count; },
     // settled is true when the core has answered for the inputs as they are.
     settled: function () {

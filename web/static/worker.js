@@ -2,7 +2,15 @@
 // main thread. Messages in: {id, name, input}; out: {id, out} where out is
 // the reply JSON of the named call (see wasm/bridge).
 'use strict';
-importScripts('wasm_exec.js');
+// The single-file build (make dist) puts wasm_exec.js and the gzipped,
+// base64 wasm (self.swaysheetWasmGz) in front of this file.
+if (typeof Go === 'undefined') importScripts('wasm_exec.js');
+
+async function embeddedWasm() {
+  var bin = atob(self.swaysheetWasmGz), gz = new Uint8Array(bin.length);
+  for (var i = 0; i < bin.length; i++) gz[i] = bin.charCodeAt(i);
+  return new Response(new Blob([gz]).stream().pipeThrough(new DecompressionStream('gzip'))).arrayBuffer();
+}
 
 function errorReply(msg) {
   return JSON.stringify({ error: { message: msg, fields: [] } });
@@ -11,14 +19,16 @@ function errorReply(msg) {
 var ready = (async function () {
   var go = new Go();
   var inst;
-  if (WebAssembly.instantiateStreaming) {
+  if (self.swaysheetWasmGz) {
+    inst = (await WebAssembly.instantiate(await embeddedWasm(), go.importObject)).instance;
+  } else if (WebAssembly.instantiateStreaming) {
     try {
       inst = (await WebAssembly.instantiateStreaming(fetch('swaysheet.wasm'), go.importObject)).instance;
     } catch (e) {
       inst = null;
     }
   }
-  if (!inst) {
+  if (!inst && !self.swaysheetWasmGz) {
     var resp = await fetch('swaysheet.wasm');
     if (!resp.ok) throw new Error('swaysheet.wasm: ' + resp.status + ' ' + resp.statusText);
     inst = (await WebAssembly.instantiate(await resp.arrayBuffer(), go.importObject)).instance;

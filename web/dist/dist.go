@@ -1,0 +1,159 @@
+// Package dist builds the page for use anywhere (make dist):
+//
+//   - Static writes a folder to host on any web server: every file of the
+//     page, the example library and a filled-in service worker;
+//   - Single writes one self-contained HTML file that opens from a file
+//     (file://) with no server: style sheets and scripts inline, the wasm
+//     gzipped and base64-encoded inside, decompressed in the browser with
+//     DecompressionStream, and run in a Web Worker made from a blob.
+package dist
+
+import (
+	"bytes"
+	"compress/gzip"
+	"crypto/sha256"
+	"encoding/base64"
+	"encoding/json"
+	"fmt"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+
+	"swaysheet/web/offline"
+)
+
+// Static writes the hostable folder into out.
+func Static(d offline.Dirs, toolVersion, out string) ([]offline.File, error) {
+	files, err := offline.Collect(d)
+	if err != nil {
+		return nil, err
+	}
+	tmpl, err := os.ReadFile(filepath.Join(d.Static, "sw.js"))
+	if err != nil {
+		return nil, err
+	}
+	all := append(append([]offline.File{}, files...),
+		offline.File{Name: "sw.js", Data: offline.ServiceWorker(tmpl, offline.Version(toolVersion, files), files)})
+	for _, f := range all {
+		p := filepath.Join(out, filepath.FromSlash(f.Name))
+		if err := os.MkdirAll(filepath.Dir(p), 0o755); err != nil {
+			return nil, err
+		}
+		if err := os.WriteFile(p, f.Data, 0o644); err != nil {
+			return nil, err
+		}
+	}
+	return all, nil
+}
+
+var (
+	styleLink = regexp.MustCompile(`<link rel="stylesheet" href="([a-z0-9._-]+)">`)
+	scriptTag = regexp.MustCompile(`<script src="([a-z0-9._-]+)"></script>`)
+	otherLink = regexp.MustCompile(`<link rel="(manifest|icon)"[^>]*>\n?`)
+	cspMeta   = regexp.MustCompile(`<meta http-equiv="Content-Security-Policy" content="[^"]*">`)
+)
+
+// Single builds the one-file page from the static folder, Go's
+// wasm_exec.js and a wasm built for it (GOOS=js GOARCH=wasm, -tags
+// nofetch: a page opened from a file has no origin to fetch from, and the
+// examples come from the copies built into the wasm).
+func Single(static string, wasmExec, wasm []byte) ([]byte, error) {
+	read := func(n string) (string, error) {
+		b, err := os.ReadFile(filepath.Join(static, n))
+		return string(b), err
+	}
+	page, err := read("index.html")
+	if err != nil {
+		return nil, err
+	}
+	worker, err := read("worker.js")
+	if err != nil {
+		return nil, err
+	}
+	var gz bytes.Buffer
+	zw, _ := gzip.NewWriterLevel(&gz, gzip.BestCompression)
+	zw.Write(wasm)
+	zw.Close()
+	b64 := base64.StdEncoding.EncodeToString(gz.Bytes())
+
+	var styleHashes, scriptHashes []string
+	hash := func(s string) string {
+		sum := sha256.Sum256([]byte(s))
+		return "'sha256-" + base64.StdEncoding.EncodeToString(sum[:]) + "'"
+	}
+	var ferr error
+	page = styleLink.ReplaceAllStringFunc(page, func(m string) string {
+		css, err := read(styleLink.FindStringSubmatch(m)[1])
+		if err != nil {
+			ferr = err
+		}
+		css = strings.ReplaceAll(css, "</", `<\/`)
+		styleHashes = append(styleHashes, hash(css))
+		return "<style>" + css + "</style>"
+	})
+	first := true
+	page = scriptTag.ReplaceAllStringFunc(page, func(m string) string {
+		js, err := read(scriptTag.FindStringSubmatch(m)[1])
+		if err != nil {
+			ferr = err
+		}
+		out := ""
+		if first {
+			// Before the page's own scripts: the worker, made from a blob
+			// that holds wasm_exec.js, the wasm and worker.js.
+			first = false
+			pre := "window.swaysheetSingleFile = true;\nwindow.swaysheetWorkerURL = URL.createObjectURL(new Blob([" +
+				jsString(string(wasmExec)) + ", '\\nself.swaysheetWasmGz = ', JSON.stringify(document.getElementById('swaysheet-wasm').textContent.trim()), ';\\n', " +
+				jsString(worker) + "], { type: 'text/javascript' }));\n"
+			scriptHashes = append(scriptHashes, hash(pre))
+			out = "<script>" + pre + "</script>\n"
+		}
+		js = strings.ReplaceAll(js, "</script", `<\/script`)
+		scriptHashes = append(scriptHashes, hash(js))
+		return out + "<script>" + js + "</script>"
+	})
+	if ferr != nil {
+		return nil, ferr
+	}
+	icon, err := os.ReadFile(filepath.Join(static, "icon-192.png"))
+	if err != nil {
+		return nil, err
+	}
+	page = otherLink.ReplaceAllString(page, "")
+	page = strings.Replace(page, "</title>", "</title>\n<link rel=\"icon\" href=\"data:image/png;base64,"+base64.StdEncoding.EncodeToString(icon)+"\">", 1)
+	// Only the page's own inline scripts and styles run; the wasm runs in a
+	// blob worker; nothing is fetched from anywhere.
+	csp := "default-src 'none'; script-src " + strings.Join(scriptHashes, " ") + " 'wasm-unsafe-eval'; worker-src blob:; style-src " +
+		strings.Join(styleHashes, " ") + "; img-src data: blob:; connect-src 'none'; object-src 'none'; base-uri 'none'; form-action 'none'"
+	if !cspMeta.MatchString(page) {
+		return nil, fmt.Errorf("index.html has no Content-Security-Policy meta to replace")
+	}
+	page = cspMeta.ReplaceAllLiteralString(page, `<meta http-equiv="Content-Security-Policy" content="`+csp+`">`)
+	data := "<script type=\"application/octet-stream\" id=\"swaysheet-wasm\">\n" + wrap(b64, 120) + "</script>\n"
+	i := strings.Index(page, "<script>")
+	if i < 0 {
+		return nil, fmt.Errorf("no script in index.html")
+	}
+	page = page[:i] + data + page[i:]
+	return []byte(page), nil
+}
+
+// jsString is s as a JavaScript string literal that is safe inside a
+// <script> element.
+func jsString(s string) string {
+	b, _ := json.Marshal(s)
+	return strings.ReplaceAll(string(b), "</", `<\/`)
+}
+
+func wrap(s string, n int) string {
+	var b strings.Builder
+	for len(s) > n {
+		b.WriteString(s[:n])
+		b.WriteByte('\n')
+		s = s[n:]
+	}
+	b.WriteString(s)
+	b.WriteByte('\n')
+	return b.String()
+}

@@ -1,0 +1,219 @@
+// Package sheettest checks the printed check sheet and the offline page in
+// headless Chromium: print to PDF at A4 and US Letter (pdfinfo, pdftotext),
+// reference fields that hold markup, the QR code read back from the
+// printed page, the page reloaded and used with the network off, and the
+// single-file build opened from a file. It runs with SWAYSHEET_BROWSER=1
+// (make test-browser).
+package sheettest
+
+import (
+	"context"
+	"net/http"
+	"net/http/httptest"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"github.com/chromedp/cdproto/page"
+	"github.com/chromedp/cdproto/runtime"
+	"github.com/chromedp/chromedp"
+)
+
+const root = "../.."
+
+type browser struct {
+	t       *testing.T
+	ctx     context.Context
+	mu      sync.Mutex
+	dialogs []string
+	logs    []string
+}
+
+func need(t *testing.T) {
+	if os.Getenv("SWAYSHEET_BROWSER") != "1" {
+		t.Skip("browser tests run with SWAYSHEET_BROWSER=1 (make test-browser)")
+	}
+	for _, tool := range []string{"chromium", "pdfinfo", "pdftotext", "pdftoppm"} {
+		if _, err := exec.LookPath(tool); err != nil {
+			t.Fatalf("%s is not installed (make deps installs it)", tool)
+		}
+	}
+}
+
+// buildWasm builds the wasm (with extra go build arguments) into dir with
+// Go's wasm_exec.js beside it.
+func buildWasm(t *testing.T, dir string, args ...string) {
+	t.Helper()
+	cmd := exec.Command("go", append(append([]string{"build", "-trimpath"}, args...), "-o", filepath.Join(dir, "swaysheet.wasm"), "./wasm")...)
+	cmd.Dir = root
+	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
+	if out, err := cmd.CombinedOutput(); err != nil {
+		t.Fatalf("building the wasm: %v\n%s", err, out)
+	}
+	wexec, err := os.ReadFile(filepath.Join(goruntime(), "lib", "wasm", "wasm_exec.js"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "wasm_exec.js"), wexec, 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+func goruntime() string { return goroot }
+
+var goroot = func() string {
+	out, err := exec.Command("go", "env", "GOROOT").Output()
+	if err != nil {
+		return ""
+	}
+	return strings.TrimSpace(string(out))
+}()
+
+// served counts the requests a test server answers.
+type served struct {
+	mu sync.Mutex
+	n  int
+}
+
+func serve(t *testing.T, h http.Handler) (*httptest.Server, *served) {
+	c := &served{}
+	srv := httptest.NewServer(http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
+		c.mu.Lock()
+		c.n++
+		c.mu.Unlock()
+		h.ServeHTTP(w, r)
+	}))
+	t.Cleanup(srv.Close)
+	return srv, c
+}
+
+func (c *served) count() int {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.n
+}
+
+func open(t *testing.T) *browser {
+	t.Helper()
+	opts := append(chromedp.DefaultExecAllocatorOptions[:], chromedp.ExecPath("chromium"), chromedp.NoSandbox,
+		chromedp.DisableGPU, chromedp.NoFirstRun, chromedp.UserDataDir(t.TempDir()),
+		chromedp.Flag("disable-background-networking", true), chromedp.Flag("disable-component-update", true),
+		chromedp.Flag("disable-sync", true), chromedp.Flag("disable-quic", true))
+	actx, cancelA := chromedp.NewExecAllocator(context.Background(), opts...)
+	ctx, cancelC := chromedp.NewContext(actx)
+	ctx, cancelT := context.WithTimeout(ctx, 4*time.Minute)
+	t.Cleanup(func() { cancelT(); cancelC(); cancelA() })
+	b := &browser{t: t, ctx: ctx}
+	if err := chromedp.Do(ctx); err != nil {
+		t.Fatal(err)
+	}
+	if err := chromedp.Listen(ctx, func(ev any) {
+		switch e := ev.(type) {
+		case *page.EventJavascriptDialogOpening:
+			b.mu.Lock()
+			b.dialogs = append(b.dialogs, e.Message)
+			b.mu.Unlock()
+			go chromedp.Call(ctx, page.HandleJavaScriptDialog, page.HandleJavaScriptDialogParams{Accept: false})
+		case *runtime.EventConsoleAPICalled:
+			var parts []string
+			for _, a := range e.Args {
+				parts = append(parts, string(a.Value))
+			}
+			b.mu.Lock()
+			b.logs = append(b.logs, strings.Join(parts, " "))
+			b.mu.Unlock()
+		case *runtime.EventExceptionThrown:
+			b.mu.Lock()
+			desc := e.ExceptionDetails.Text
+			if e.ExceptionDetails.Exception != nil {
+				desc += " " + e.ExceptionDetails.Exception.Description
+			}
+			b.logs = append(b.logs, "exception: "+desc)
+			b.mu.Unlock()
+		}
+	}); err != nil {
+		t.Fatal(err)
+	}
+	b.do(chromedp.EmulateViewport(820, 1180))
+	return b
+}
+
+func (b *browser) do(a ...chromedp.Action[chromedp.Void]) {
+	b.t.Helper()
+	if err := chromedp.Do(b.ctx, a...); err != nil {
+		b.t.Fatalf("%v (console: %s)", err, b.console())
+	}
+}
+
+func (b *browser) console() string {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	return strings.Join(b.logs, " | ")
+}
+
+func eval[T any](b *browser, expr string) T {
+	b.t.Helper()
+	v, err := chromedp.Run(b.ctx, chromedp.Evaluate[T](expr))
+	if err != nil {
+		b.t.Fatalf("%s: %v (console: %s)", expr, err, b.console())
+	}
+	return v
+}
+
+func (b *browser) poll(expr string, what string) {
+	b.t.Helper()
+	if _, err := chromedp.Run(b.ctx, chromedp.Poll[bool](expr,
+		chromedp.WithPollingTimeout(60*time.Second), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
+		b.t.Fatalf("%s: %v (console: %s)", what, err, b.console())
+	}
+}
+
+// settle waits until the core has answered for the inputs as they are.
+func (b *browser) settle() {
+	b.t.Helper()
+	b.poll(`!!(window.swaysheet && document.body.dataset.state === 'ready' && window.swaysheet.settled() && document.querySelector('#headline .tile'))`, "the page did not settle")
+}
+
+func (b *browser) text(sel string) string {
+	b.t.Helper()
+	return strings.TrimSpace(eval[string](b, `(function(){var e=document.querySelector(`+strconv.Quote(sel)+`);return e?e.textContent:'(missing)';})()`))
+}
+
+// typeInto replaces a field's text by typing, as a person does.
+func (b *browser) typeInto(sel, text string) {
+	b.t.Helper()
+	b.do(chromedp.Click(chromedp.CSS(sel)),
+		chromedp.KeyEvent("a", chromedp.KeyModifiers(chromedp.ModifierCtrl)),
+		chromedp.KeyEvent("\b"),
+		chromedp.SendKeys(chromedp.CSS(sel), text))
+}
+
+func fmtRes(v float64) string {
+	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 4, 64), 64)
+	return strconv.FormatFloat(x, 'f', -1, 64)
+}
+
+var _ = runtime.Enable // the console events need nothing enabled beyond chromedp's defaults
+
+// waitSheet waits for the check sheet of the inputs as they are and
+// returns its fingerprint.
+func (b *browser) waitSheet() string {
+	b.t.Helper()
+	for i := 0; i < 600; i++ {
+		fp := eval[string](b, `(function(){var h=document.getElementById('sheet-host');return (h.dataset.ready==='error'?'error: '+h.textContent:'')||(h.querySelector('article.sw-sheet')&&h.dataset.fingerprint)||'';})()`)
+		if strings.HasPrefix(fp, "error: ") {
+			b.t.Fatalf("the check sheet failed: %s", fp)
+		}
+		if fp != "" {
+			return fp
+		}
+		time.Sleep(50 * time.Millisecond)
+	}
+	b.t.Fatalf("no check sheet (console: %s)", b.console())
+	return ""
+}

@@ -1,0 +1,70 @@
+package sheettest
+
+import (
+	"os"
+	"path/filepath"
+	"strconv"
+	"testing"
+
+	"github.com/chromedp/chromedp"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+	"swaysheet/web/dist"
+)
+
+// The single file, opened as file:// with no server, computes the demo
+// scenario: the figures shown are the core's own for it.
+func TestSingleFileFromDisk(t *testing.T) {
+	need(t)
+	dir := t.TempDir()
+	buildWasm(t, dir, "-tags", "nofetch", "-ldflags=-s -w")
+	wexec, _ := os.ReadFile(filepath.Join(dir, "wasm_exec.js"))
+	wasm, _ := os.ReadFile(filepath.Join(dir, "swaysheet.wasm"))
+	html, err := dist.Single(filepath.Join(root, "web", "static"), wexec, wasm)
+	if err != nil {
+		t.Fatal(err)
+	}
+	file := filepath.Join(dir, "swaysheet.html")
+	if err := os.WriteFile(file, html, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	os.Remove(filepath.Join(dir, "swaysheet.wasm")) // nothing beside the file
+	os.Remove(filepath.Join(dir, "wasm_exec.js"))
+
+	b := open(t)
+	b.do(chromedp.Navigate("file://" + file))
+	b.settle()
+	data, err := os.ReadFile(filepath.Join(root, "testdata", "scenarios", "bay-travel.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, _ := scenario.Parse(data)
+	r, err := sway.Evaluate(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := b.text("#r-period .num"); got != fmtRes(r.PeriodS) {
+		t.Errorf("period shown %q, the core gives %q", got, fmtRes(r.PeriodS))
+	}
+	if got := b.text("#r-peak .num"); got != fmtRes(r.PeakSwingDeg) {
+		t.Errorf("peak swing shown %q, the core gives %q", got, fmtRes(r.PeakSwingDeg))
+	}
+	if name := eval[string](b, `JSON.parse(window.swaysheet.scenarioJSON()).name`); name != s.Name {
+		t.Errorf("the demo is %q, want %q", name, s.Name)
+	}
+	// Change an input and get a new result, still from the file.
+	n := eval[int](b, `window.swaysheet.resultCount()`)
+	b.typeInto("#f-load-rope_length_m", "12")
+	b.poll(`window.swaysheet.resultCount() > `+itoa(n)+` && window.swaysheet.settled()`, "no new result")
+	if got := b.text("#r-period .num"); got == fmtRes(r.PeriodS) {
+		t.Error("a longer rope kept the period")
+	}
+	if eval[string](b, `document.getElementById('engine-error').hidden ? '' : document.getElementById('engine-error').textContent`) != "" {
+		t.Error("the engine reported an error")
+	}
+	// The print sheet is made there too.
+	b.waitSheet()
+}
+
+func itoa(n int) string { return strconv.Itoa(n) }
