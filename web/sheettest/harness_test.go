@@ -217,3 +217,19 @@ func (b *browser) waitSheet() string {
 	b.t.Fatalf("no check sheet (console: %s)", b.console())
 	return ""
 }
+
+func (b *browser) sleep() { time.Sleep(50 * time.Millisecond) }
+
+// pollThrough is poll across a navigation: an evaluation cut off by the
+// page reloading is tried again.
+func (b *browser) pollThrough(expr, what string) {
+	b.t.Helper()
+	for i := 0; i < 1200; i++ {
+		v, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](expr))
+		if err == nil && v {
+			return
+		}
+		time.Sleep(50 * time.Millisecond)
+	}
+	b.t.Fatalf("%s (console: %s)", what, b.console())
+}
