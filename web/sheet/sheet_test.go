@@ -19,7 +19,9 @@ import (
 
 const hostile = `<img src=x onerror=alert(1)>`
 
-func demo(t *testing.T, name string) *scenario.Scenario {
+func demo(t *testing.T, name string) *scenario.Scenario { return demoB(t, name) }
+
+func demoB(t testing.TB, name string) *scenario.Scenario {
 	t.Helper()
 	data, err := os.ReadFile(filepath.Join("../../testdata/scenarios", name))
 	if err != nil {

@@ -31,6 +31,14 @@ func TestSingleFileFromDisk(t *testing.T) {
 	}
 	os.Remove(filepath.Join(dir, "swaysheet.wasm")) // nothing beside the file
 	os.Remove(filepath.Join(dir, "wasm_exec.js"))
+	// SWAYSHEET_SINGLE_FILE tests a file that make dist wrote instead.
+	if f := os.Getenv("SWAYSHEET_SINGLE_FILE"); f != "" {
+		abs, err := filepath.Abs(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		file = abs
+	}
 
 	b := open(t)
 	b.do(chromedp.Navigate("file://" + file))

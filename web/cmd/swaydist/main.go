@@ -22,6 +22,7 @@ func main() {
 	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm and wasm_exec.js")
 	single := flag.String("single-wasm", filepath.Join("out", "single", "swaysheet.wasm"), "the wasm built with -tags nofetch for the single file")
 	out := flag.String("out", "dist", "output folder")
+	gzFile := flag.String("single-gz", "", "the single file's wasm, already gzipped (zopfli); empty: gzip -9 here")
 	flag.Parse()
 	d := offline.Dirs{Static: filepath.Join("web", "static"), Build: *build, Examples: filepath.Join("testdata", "scenarios")}
 	web := filepath.Join(*out, "web")
@@ -41,7 +42,16 @@ func main() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	page, err := dist.Single(d.Static, wexec, wasm)
+	var page []byte
+	if *gzFile != "" {
+		gz, err := os.ReadFile(*gzFile)
+		if err != nil {
+			log.Fatal(err)
+		}
+		page, err = dist.SingleGz(d.Static, wexec, gz)
+	} else {
+		page, err = dist.Single(d.Static, wexec, wasm)
+	}
 	if err != nil {
 		log.Fatal(err)
 	}
