@@ -118,6 +118,10 @@ type Options struct {
 	// MaxSteps bounds the integration steps, accepted and rejected; zero
 	// means 2,000,000. The evaluation ends with ErrStepLimit when hit.
 	MaxSteps int
+	// NoModePeriods skips measuring the two mode periods on the nonlinear
+	// model with a hook block (rigging.simulated_periods_s stays zero;
+	// for the planner's many runs).
+	NoModePeriods bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -243,7 +247,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res); err != nil {
+		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
