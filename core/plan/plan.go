@@ -436,7 +436,7 @@ func (rq *request) precheck(res *Result) []string {
 			}
 			f = 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * rq.s.Load.AreaM2 * w.ShapeFactor
 		}
-		lean := math.Atan2(f, *rq.s.Load.MassKg*g)
+		lean := rq.steadyLean(f)
 		if lean >= th {
 			msgs = append(msgs, fmt.Sprintf("The wind alone leans the rope %.3g deg, at or above the swing allowed by the limits (%.3g deg): no drive setting can keep the load inside them. Wait for less wind, or change the limits.",
 				lean/units.Degree, th/units.Degree))

@@ -218,3 +218,23 @@ func (rq *request) modeReason(o *Option) string {
 	}
 	return fmt.Sprintf("Of %s it is tuned to the first only%s; the simulation of both masses keeps the residual swing inside the limit.", modes, left)
 }
+
+// steadyLean is the steady angle from the vertical of the line from the
+// suspension point to the load under a steady horizontal force f (N) on
+// the load: atan(f/(m*g)) for the single pendulum; with a hook block the
+// rope leans atan(f/((m1+m2)*g)) and the rigging atan(f/(m2*g)) (statics
+// of the two masses), at the shortest rope simulated (the largest angle).
+func (rq *request) steadyLean(f float64) float64 {
+	g := units.StandardGravity
+	m2 := *rq.s.Load.MassKg
+	h := rq.s.Load.Hook
+	if h == nil {
+		return math.Atan2(f, m2*g)
+	}
+	l1 := rq.ropes[0]
+	for _, l := range rq.ropes {
+		l1 = math.Min(l1, l)
+	}
+	a1, a2 := math.Atan2(f, (m2+*h.MassKg)*g), math.Atan2(f, m2*g)
+	return math.Atan2(l1*math.Sin(a1)+rq.rig*math.Sin(a2), l1*math.Cos(a1)+rq.rig*math.Cos(a2))
+}
