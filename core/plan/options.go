@@ -486,5 +486,13 @@ func (rq *request) ownPendant(pcts []float64) (*Option, float64, error) {
 		return nil, 0, err
 	}
 	o.Settings = append(o.Settings, fmt.Sprintf("Linear theory: these press times leave at most %.2g %% of the swing an instant press to full speed would leave, over the rope-length range.", 100*worst))
+	if rq.s.Load.Hook != nil {
+		o.ModeResidualPct = rq.modeResidual(imps, 0)
+		if rq.share2 >= MinSecondShare {
+			o.TwoMode = true
+			o.Settings = append(o.Settings, fmt.Sprintf("The times are chosen for both sway modes of hook block and rigging (%.3g s and %.3g s), each weighted by its share of the load's swing: they leave at most %.2g %% and %.2g %% in each mode.",
+				rq.designT, rq.designT2, o.ModeResidualPct[0], o.ModeResidualPct[1]))
+		}
+	}
 	return o, worst, nil
 }

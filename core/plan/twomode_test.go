@@ -157,3 +157,28 @@ func BenchmarkPlanHeavyHook(b *testing.B) {
 		}
 	}
 }
+
+// The crew's own pendant steps under the heavy hook block are timed with
+// both modes in view (each mode's residual vibration V, Singer & Seering
+// 1990, weighted by its share of the load's swing), and four equal steps
+// then keep the simulated residual of both masses inside the example's
+// limit.
+func TestOwnPendantStepsTwoModes(t *testing.T) {
+	s := load(t, "plan-precast-hook.json")
+	s.Plan.Drive = scenario.DrivePendant
+	s.Plan.PendantStepsPct = []float64{25, 50, 75, 100}
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, o := range r.Options {
+		if o.Key != "own_pendant" {
+			continue
+		}
+		if !o.TwoMode || len(o.ModeResidualPct) != 2 || !o.Within {
+			t.Errorf("own steps: two-mode %v, mode residuals %v, outside %v", o.TwoMode, o.ModeResidualPct, o.Outside)
+		}
+		return
+	}
+	t.Fatal("no own_pendant option")
+}

@@ -5,7 +5,7 @@ and rigging (load.hook), with SciPy.
 Run with Debian's /usr/bin/python3 (python3-scipy, python3-numpy):
 
     /usr/bin/python3 testdata/reference/double.py generate   # writes results_double.json
-    /usr/bin/python3 testdata/reference/double.py show FILE.json
+    /usr/bin/python3 testdata/reference/double.py show FILE.json [--rtol 1e-13]
 
 `make reference` runs the first after reference.py. The Go test
 core/sway/reference_double_test.go compares the core with the committed
@@ -317,7 +317,7 @@ def cmd_generate(args):
 
 def cmd_show(args):
     for p in args.files:
-        json.dump(solve(DoubleModel(ref.load(p))), sys.stdout, indent=1)
+        json.dump(solve(DoubleModel(ref.load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
         print()
 
 
@@ -327,6 +327,7 @@ def main():
     sub.add_parser("generate", help="solve every hook-block scenario and write results_double.json")
     s = sub.add_parser("show", help="print the reference result of scenario files")
     s.add_argument("files", nargs="+")
+    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
     args = ap.parse_args()
     {"generate": cmd_generate, "show": cmd_show}[args.cmd](args)
 
