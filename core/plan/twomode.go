@@ -23,8 +23,9 @@ import (
 // the convolution of a shaper of each kind for the first mode with one
 // for the second (impulses at all sums of the times, amplitudes the
 // products; its residual vibration is the product of the two, zero at
-// both design frequencies: Singer & Seering 1990 on cascaded shapers for
-// several modes, shaper.Convolve). Each mode's design frequency is the
+// both design frequencies: shaper.Convolve, after Singer & Seering 1990
+// and Singhose, Crain & Seering 1997, "Convolved and simultaneous two-mode
+// input shapers", from memory). Each mode's design frequency is the
 // middle of that mode's frequencies over the rope-length range. Every
 // option is verified by the nonlinear simulation of both masses
 // (pendulum.Double), so what a single-mode option leaves in the second

@@ -39,10 +39,11 @@
 // so V_(A*B)(w) = V_A(w) * V_B(w) undamped (and with damping, the
 // exponential weights factor the same way): it is zero wherever either
 // shaper's is, at both design frequencies, and its duration is the sum of
-// the two durations (Singer & Seering 1990 on cascading shapers for
-// several modes; Singhose, Seering & Singer, "Shaper design for
-// multiple-mode systems", from memory, on the convolved multi-mode
-// shaper and its direct alternatives).
+// the two durations. The factoring is shown here; the convolution as a
+// way to shape several modes goes back to Singer & Seering 1990, and
+// Singhose, Crain & Seering, "Convolved and simultaneous two-mode input
+// shapers", IEE Proc. Control Theory Appl. 144 (1997), compare it with
+// shorter direct two-mode designs (both attributions from memory).
 package shaper
 
 import (

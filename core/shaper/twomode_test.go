@@ -10,8 +10,10 @@ import (
 )
 
 // The convolved shaper's residual vibration is the product of its two
-// factors' at every frequency and damping (the rotating-vector sum
-// factors: Singer & Seering 1990, cascaded shapers for several modes), so
+// factors' at every frequency and damping (the rotating-vector sum of the
+// residual vibration function of Singer & Seering 1990 factors for a
+// convolution; two-mode convolved shapers: Singhose, Crain & Seering 1997,
+// from memory), so
 // the two-mode ZV and ZVD leave nothing at either design frequency and the
 // two-mode EI at most its tolerance.
 func TestTwoModeResidualFunction(t *testing.T) {
