@@ -230,6 +230,9 @@ func jsonError(err error, data []byte) FieldError {
 	switch {
 	case errors.As(err, &te):
 		f := te.Field
+		if p := pathAtOffset(data, te.Offset); p != "" {
+			f = p
+		}
 		if f == "" {
 			f = "(file)"
 		}
