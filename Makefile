@@ -81,12 +81,17 @@ reference:
 
 # Speed and size, side by side, in one table (see README "Benchmarks").
 BENCH := $(OUT)/bench
+# Scenarios timed with SciPy beside the core (those in the reference data).
+BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.json tower-slew.json \
+	slew-with-trolley.json hoist-during-travel.json hard-stop.json wind-gust.json)
 bench: deps
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... | tee $(BENCH)/go-bench.txt
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	@$(PYTHON_REF) -c 'import scipy' 2>/dev/null || $(MAKE) --no-print-directory reference
+	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) $(BENCH_SCIPY) > $(BENCH)/scipy.json
 	@echo
 	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
 

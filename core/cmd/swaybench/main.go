@@ -3,6 +3,7 @@
 // measurements of every part of `make bench` into one table.
 //
 //	swaybench -json [-repeat N] DIR          time every scenario in DIR, print JSON rows
+//	swaybench -scipy REF.json FILE.json ...  time SciPy at the core's accuracy
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -43,8 +44,21 @@ func main() {
 	table := flag.Bool("table", false, "print the table of the rows in the given files")
 	repeat := flag.Int("repeat", 51, "evaluations per scenario; the median is reported")
 	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
+	scipy := flag.String("scipy", "", "with the reference results JSON: time SciPy beside the core for the given scenario files")
+	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
+	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	flag.Parse()
 	switch {
+	case *scipy != "":
+		rows, err := scipyRows(*scipy, *python, *script, flag.Args(), *repeat)
+		if err != nil {
+			fmt.Fprintln(os.Stderr, "swaybench:", err)
+			os.Exit(1)
+		}
+		enc := json.NewEncoder(os.Stdout)
+		for _, r := range rows {
+			enc.Encode(r)
+		}
 	case *asJSON && flag.NArg() == 1:
 		g := *group
 		if g == "" {
