@@ -197,6 +197,7 @@ func printTable(w io.Writer, files []string) error {
 		}
 		f.Close()
 	}
+	rows = append(rows, ratios(rows)...)
 	fmt.Fprintf(w, "swaysheet benchmarks, %s\n", time.Now().UTC().Format("2006-01-02 15:04 MST"))
 	fmt.Fprintf(w, "processor: %s (%d cores); %s\n\n", cpuName(), runtime.NumCPU(), runtime.Version())
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -215,6 +216,25 @@ func printTable(w io.Writer, files []string) error {
 		}
 	}
 	return tw.Flush()
+}
+
+// ratios adds, for every scenario timed both natively and as wasm, the
+// ratio of the two.
+func ratios(rows []Row) []Row {
+	native := map[string]float64{}
+	for _, r := range rows {
+		if strings.HasPrefix(r.Group, "core ") && !strings.Contains(r.Group, "wasm") {
+			native[r.Name] = r.Value
+		}
+	}
+	var out []Row
+	for _, r := range rows {
+		if r.Group == "core js/wasm" && native[r.Name] > 0 {
+			out = append(out, Row{Group: "wasm / native", Name: r.Name, Value: r.Value / native[r.Name], Unit: "x",
+				Note: "full evaluation, wasm under node over native, same machine"})
+		}
+	}
+	return out
 }
 
 func format(v float64) string {
