@@ -41,9 +41,9 @@ func fmtRes(v float64) string {
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
-// fmtField is the page's input format: 12 significant digits.
+// fmtField is the page's input format: 10 significant digits.
 func fmtField(v float64) string {
-	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 12, 64), 64)
+	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 10, 64), 64)
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
@@ -334,6 +334,16 @@ func TestPage(t *testing.T) {
 		if !reflect.DeepEqual(h.scenario(), s) {
 			t.Error("switching units changed the scenario")
 		}
+		// A bad value typed in US units is reported in US units.
+		keep := h.value("#f-motions-0-speed_m_per_s")
+		h.typeInto("#f-motions-0-speed_m_per_s", "5000")
+		h.settle()
+		// 10 m/s, the core's upper bound, is 1968.5 ft/min (ft = 0.3048 m, NIST SP 811).
+		if msg := h.text("#f-motions-0-speed_m_per_s-msg"); !strings.Contains(msg, "5000 ft/min is out of range") || !strings.Contains(msg, "1969 ft/min") {
+			t.Errorf("US range message: %q", msg)
+		}
+		h.typeInto("#f-motions-0-speed_m_per_s", keep)
+		h.settle()
 		h.do(chromedp.Click(chromedp.ID("sys-si")))
 		h.settle()
 		if back := snap(); !reflect.DeepEqual(back, si) {

@@ -85,9 +85,9 @@
   function toShown(dq, v) { return v / unitOf(dq).to_si; }
   function toSI(dq, v) { return v * unitOf(dq).to_si; }
 
-  // Field values: 12 significant digits, so that SI -> US -> SI shows the
-  // number typed; results: 4 significant digits.
-  function fmtField(v) { return Number(v.toPrecision(12)).toString(); }
+  // Field values: 10 significant digits (the scenario keeps the full
+  // value in SI, so SI -> US -> SI shows the number typed); results: 4.
+  function fmtField(v) { return Number(v.toPrecision(10)).toString(); }
   function fmtRes(v) {
     if (!isFinite(v)) return '\u2014';
     return Number(v.toPrecision(4)).toString();
@@ -414,7 +414,11 @@
     var u = unitOf(el.dataset.dq);
     if (u.to_si === 1 && u.symbol === r.unit) return msg;
     var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-    return msg + ' In ' + u.symbol + ': accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRes(lo) + ' up to ' + fmtRes(hi) + ' ' + u.symbol + '.';
+    var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRes(lo) + ' up to ' + fmtRes(hi) + ' ' + u.symbol;
+    if (/ is out of range: /.test(fe.message)) {
+      return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
+    }
+    return msg.replace(/\.?$/, '.') + ' In ' + u.symbol + ': ' + accepted + '.';
   }
 
   function cssEsc(s) { return window.CSS && CSS.escape ? CSS.escape(s) : s.replace(/["\\\[\]]/g, '\\$&'); }
