@@ -88,6 +88,9 @@
   // Field values: 10 significant digits (the scenario keeps the full
   // value in SI, so SI -> US -> SI shows the number typed); results: 4.
   function fmtField(v) { return Number(v.toPrecision(10)).toString(); }
+  // Range bounds: 6 significant digits, so a bound is not rounded past
+  // itself (10 m/s is 1968.5 ft/min, not 1969).
+  function fmtRange(v) { return Number(v.toPrecision(6)).toString(); }
   function fmtRes(v) {
     if (!isFinite(v)) return '\u2014';
     return Number(v.toPrecision(4)).toString();
@@ -162,7 +165,7 @@
     var hint = '';
     if (r.text !== undefined) {
       var lo = dq ? toShown(dq, r.min) : r.min, hi = dq ? toShown(dq, r.max) : r.max;
-      hint = (r.open_min ? 'above ' : '') + fmtRes(lo) + ' to ' + fmtRes(hi) + (u.symbol ? ' ' + u.symbol : '');
+      hint = (r.open_min ? 'above ' : '') + fmtRange(lo) + ' to ' + fmtRange(hi) + (u.symbol ? ' ' + u.symbol : '');
     }
     if (opts.hint) hint = opts.hint + (hint ? '; ' + hint : '');
     var id = fieldId(path);
@@ -414,7 +417,7 @@
     var u = unitOf(el.dataset.dq);
     if (u.to_si === 1 && u.symbol === r.unit) return msg;
     var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-    var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRes(lo) + ' up to ' + fmtRes(hi) + ' ' + u.symbol;
+    var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
     if (/ is out of range: /.test(fe.message)) {
       return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
     }
