@@ -85,9 +85,12 @@
   function toShown(dq, v) { return v / unitOf(dq).to_si; }
   function toSI(dq, v) { return v * unitOf(dq).to_si; }
 
-  // Field values: 12 significant digits, so that SI -> US -> SI shows the
-  // number typed; results: 4 significant digits.
-  function fmtField(v) { return Number(v.toPrecision(12)).toString(); }
+  // Field values: 10 significant digits (the scenario keeps the full
+  // value in SI, so SI -> US -> SI shows the number typed); results: 4.
+  function fmtField(v) { return Number(v.toPrecision(10)).toString(); }
+  // Range bounds: 6 significant digits, so a bound is not rounded past
+  // itself (10 m/s is 1968.5 ft/min, not 1969).
+  function fmtRange(v) { return Number(v.toPrecision(6)).toString(); }
   function fmtRes(v) {
     if (!isFinite(v)) return '\u2014';
     return Number(v.toPrecision(4)).toString();
@@ -139,6 +142,16 @@
   var LINEAR = { distance: 'distance_m', speed: 'speed_m_per_s', accel: 'accel_m_per_s2', decel: 'decel_m_per_s2' };
   var ANGULAR = { distance: 'angle_deg', speed: 'rate_deg_per_s', accel: 'accel_deg_per_s2', decel: 'decel_deg_per_s2' };
 
+  // PV follows each control: a plain-text copy of its value for paper,
+  // where a text box would cut long text (filled in by syncPrint).
+  var PV = '<span class="pv" aria-hidden="true"></span>';
+
+  function syncPrint(el) {
+    var pv = el.nextElementSibling;
+    if (!pv || !pv.classList.contains('pv')) return;
+    pv.textContent = el.tagName === 'SELECT' ? (el.selectedOptions[0] ? el.selectedOptions[0].textContent : '') : el.value;
+  }
+
   // numField describes one number input bound to a scenario path.
   function numField(path, label, opts) {
     opts = opts || {};
@@ -152,14 +165,14 @@
     var hint = '';
     if (r.text !== undefined) {
       var lo = dq ? toShown(dq, r.min) : r.min, hi = dq ? toShown(dq, r.max) : r.max;
-      hint = (r.open_min ? 'above ' : '') + fmtRes(lo) + ' to ' + fmtRes(hi) + (u.symbol ? ' ' + u.symbol : '');
+      hint = (r.open_min ? 'above ' : '') + fmtRange(lo) + ' to ' + fmtRange(hi) + (u.symbol ? ' ' + u.symbol : '');
     }
     if (opts.hint) hint = opts.hint + (hint ? '; ' + hint : '');
     var id = fieldId(path);
     return '<div class="field" data-field="' + esc(path) + '">' +
       '<label for="' + id + '">' + esc(label) + (opts.optional ? ' <span class="opt">(optional)</span>' : '') + '</label>' +
       '<div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-path="' + esc(path) + '" data-dq="' + esc(dq) + '"' +
-      (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg">' +
+      (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg">' + PV +
       '<span class="unit" aria-label="unit">' + esc(u.symbol || '\u00A0') + '</span></div>' +
       '<p class="hint" id="' + id + '-hint">' + esc(hint) + '</p>' +
       '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
@@ -171,15 +184,15 @@
       '<select id="' + id + '" data-select="' + esc(path) + '"' + (extra || '') + '>' +
       options.map(function (o) {
         return '<option value="' + esc(o[0]) + '"' + (o[0] === value ? ' selected' : '') + '>' + esc(o[1]) + '</option>';
-      }).join('') + '</select><p class="msg" id="' + id + '-msg" role="alert"></p></div>';
+      }).join('') + '</select>' + PV + '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
   }
 
-  function textField(path, label, multiline) {
+  function textField(path, label, multiline, wide) {
     var id = fieldId(path), v = getPath(S.scenario, path) || '';
     var input = multiline ?
-      '<textarea id="' + id + '" data-text="' + esc(path) + '" rows="2">' + esc(v) + '</textarea>' :
+      '<textarea id="' + id + '" data-text="' + esc(path) + '" rows="3">' + esc(v) + '</textarea>' :
       '<input id="' + id + '" type="text" data-text="' + esc(path) + '" value="' + esc(v) + '">';
-    return '<div class="field wide" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) + '</label>' + input +
+    return '<div class="field' + (multiline || wide ? ' wide' : '') + '" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) + '</label>' + input + PV +
       '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
   }
 
@@ -189,7 +202,7 @@
 
   function renderForm() {
     var s = S.scenario, h = [];
-    h.push(section('Lift', textField('name', 'Scenario name') + textField('description', 'Description', true)));
+    h.push(section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card'));
     h.push(section('Load and rope',
       numField('load.mass_kg', 'Load mass', { hint: 'hook block and rigging included' }) +
       numField('load.rope_length_m', 'Rope length', { hint: 'sheave to the load\u2019s centre of mass' }) +
@@ -214,7 +227,7 @@
         numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' }) +
         '</div></div>');
     });
-    h.push('<fieldset class="card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
+    h.push('<fieldset class="card wide-card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
       '<button type="button" id="add-move">Add a move</button></fieldset>');
     var w = s.wind, wb = '';
     wb += '<div class="field"><label class="check"><input type="checkbox" id="wind-on"' + (w ? ' checked' : '') + '> Wind on the load</label></div>';
@@ -241,10 +254,14 @@
       numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load from the point below the hook' }) +
       numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
       numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' })));
-    h.push(section('Units shown', unitChoosers()));
+    h.push(section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
+      textField('sheet.crane', 'Crane') + textField('sheet.load_description', 'Load') + textField('sheet.prepared_by', 'Prepared by') +
+      textField('sheet.checked_by', 'Checked by') + textField('sheet.date', 'Date and time'), 'sheet-card'));
+    h.push(section('Units shown', unitChoosers(), 'units-card'));
     h.push(section('Computation', selectField('settings.accuracy', 'Accuracy',
       [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
     $('form').innerHTML = h.join('');
+    $('form').querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
     showErrors();
   }
 
@@ -324,11 +341,13 @@
     var f = $('form');
     f.addEventListener('input', function (e) {
       var el = e.target;
+      syncPrint(el);
       if (el.dataset.path) onNumberInput(el);
       else if (el.dataset.text) { setPath(S.scenario, el.dataset.text, el.value === '' ? undefined : el.value); changed(); }
     });
     f.addEventListener('change', function (e) {
       var el = e.target;
+      syncPrint(el);
       if (el.dataset.select) onSelect(el);
       else if (el.dataset.unit) { S.chosen[el.dataset.unit] = el.value; saveUnits(); renderAll(); }
       else if (el.id === 'wind-on') {
@@ -398,7 +417,11 @@
     var u = unitOf(el.dataset.dq);
     if (u.to_si === 1 && u.symbol === r.unit) return msg;
     var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-    return msg + ' In ' + u.symbol + ': accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRes(lo) + ' up to ' + fmtRes(hi) + ' ' + u.symbol + '.';
+    var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
+    if (/ is out of range: /.test(fe.message)) {
+      return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
+    }
+    return msg.replace(/\.?$/, '.') + ' In ' + u.symbol + ': ' + accepted + '.';
   }
 
   function cssEsc(s) { return window.CSS && CSS.escape ? CSS.escape(s) : s.replace(/["\\\[\]]/g, '\\$&'); }
@@ -883,6 +906,8 @@
       document.body.dataset.state = 'ready';
     });
   }
+
+  $('do-print').onclick = function () { window.print(); };
 
   $('example-own').onclick = function () {
     delete S.scenario.example;
