@@ -425,7 +425,7 @@ func TestPage(t *testing.T) {
 		h.do(chromedp.Click(chromedp.ID("open-saved")), chromedp.Click(chromedp.CSS(`#saved-list button[data-sdel="0"]`)),
 			chromedp.Click(chromedp.ID("del-yes")))
 		if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`!document.getElementById('saved-list').textContent.includes('Broken')`,
-			chromedp.WithPollingTimeout(10*time.Second))); err != nil {
+			chromedp.WithPollingTimeout(30*time.Second))); err != nil {
 			t.Errorf("delete: %v", err)
 		}
 		if list := h.text("#saved-list"); !strings.Contains(list, "Girder lift B") {
@@ -441,7 +441,7 @@ func TestPage(t *testing.T) {
 		want := h.scenario()
 		h.do(chromedp.Click(chromedp.ID("do-export")))
 		var file string
-		for i := 0; i < 100 && file == ""; i++ {
+		for i := 0; i < 300 && file == ""; i++ {
 			time.Sleep(100 * time.Millisecond)
 			m, _ := filepath.Glob(filepath.Join(h.dl, "*.json"))
 			if len(m) > 0 {
@@ -463,7 +463,7 @@ func TestPage(t *testing.T) {
 		h.settle()
 		h.do(chromedp.SetUploadFiles(chromedp.ID("import-file"), []string{file}))
 		if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`document.getElementById('notice').textContent.includes('Imported')`,
-			chromedp.WithPollingTimeout(10*time.Second))); err != nil {
+			chromedp.WithPollingTimeout(30*time.Second))); err != nil {
 			t.Fatal(err)
 		}
 		h.settle()

@@ -438,11 +438,16 @@
     timer = setTimeout(function () { S.waiting = false; evaluate(); }, 250);
   }
 
+  function noResults() {
+    if (!S.result) $('headline').innerHTML = '<p class="waiting">\u2716 No results yet: correct the marked fields.</p>';
+  }
+
   function evaluate() {
     if (Object.keys(S.bad).length) {
       S.coreErrors = [];
       showErrors();
       $('stale').hidden = !S.result;
+      noResults();
       return;
     }
     if (busy) { again = true; return; }
@@ -462,6 +467,7 @@
         S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
         showErrors();
         $('stale').hidden = !S.result;
+        noResults();
         return;
       }
       S.coreErrors = [];
