@@ -93,6 +93,7 @@ bench: deps scipy-deps
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
 	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) $(BENCH_SCIPY) > $(BENCH)/scipy.json
+	SWAYSHEET_BROWSER=1 SWAYSHEET_BENCH_OUT=$(CURDIR)/$(BENCH)/browser.json $(GO) test -count=1 -run '^TestBenchPage$$' ./web/browsertest
 	@echo
 	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
 

@@ -251,7 +251,7 @@
       numField('initial.toward_deg', 'Swing toward', { optional: true, hint: 'degrees from +x toward +y' })));
     h.push(section('Limits from the lift plan',
       numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
-      numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load from the point below the suspension point' }) +
+      numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
       numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
       numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' })));
     h.push(section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
@@ -435,7 +435,7 @@
     updateBanner();
     clearTimeout(timer);
     S.waiting = true;
-    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 250);
+    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 30);
   }
 
   function noResults() {
@@ -513,7 +513,7 @@
     h.push(tile('r-peak', 'Peak swing', fmtRes(r.peak_swing_deg), 'deg',
       'at ' + esc(fmtRes(r.peak_swing_time_s)) + ' s', verdict('peak_swing_deg', null, 'deg')));
     h.push(tile('r-excursion', 'Peak excursion', fmtRes(toShown('length', r.peak_excursion_m)), L.symbol,
-      'load from the point below the suspension point', verdict('peak_excursion_m', 'length')));
+      'load off plumb, sideways', verdict('peak_excursion_m', 'length')));
     h.push(tile('r-residual', 'Residual swing', fmtRes(r.residual_swing_deg), 'deg',
       'after the last move; excursion ' + esc(fmtRes(toShown('length', r.residual_excursion_m)) + ' ' + L.symbol), verdict('residual_swing_deg', null, 'deg')));
     h.push(tile('r-factor', 'Tension factor', fmtRes(r.tension_factor), '\u00D7',
@@ -556,13 +556,13 @@
     $('plot-angle').innerHTML = P.chart({ id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
       series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
       '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
-    $('plot-path').innerHTML = P.chart({ id: 'path', title: 'Seen from above: load and suspension point paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+    $('plot-path').innerHTML = P.chart({ id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
       series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
         { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
       '<figcaption>The load (solid) and the suspension point (dashed) on the ground plan.</figcaption>';
     var circles = [];
     if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-    $('plot-rel').innerHTML = P.chart({ id: 'rel', title: 'Seen from above: load around the point below the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+    $('plot-rel').innerHTML = P.chart({ id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
       series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), label: 'load', cls: 's1' }], circles: circles }) +
       '<figcaption>' + (circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.') + '</figcaption>';
     var st = toShown('force', r.static_tension_n);
