@@ -62,7 +62,7 @@ func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float6
 	buf := make([]float64, pendulum.DoubleStateLen)
 	// The rope's rate u1x crosses zero from below at the far turning point
 	// of each cycle.
-	for len(ups) < 4 {
+	for len(ups) < 3 {
 		done, err := v.Step(20 * period)
 		if err != nil {
 			return 0, err

@@ -116,7 +116,7 @@ type Options struct {
 	// NoHistory skips the time histories (for the planner's many runs).
 	NoHistory bool
 	// MaxSteps bounds the integration steps, accepted and rejected; zero
-	// means 2,000,000. The evaluation ends with ErrStepLimit when hit.
+	// means 500,000. The evaluation ends with ErrStepLimit when hit.
 	MaxSteps int
 	// NoModePeriods skips measuring the two mode periods on the nonlinear
 	// model with a hook block (rigging.simulated_periods_s stays zero;
@@ -139,7 +139,7 @@ const SwingValidityDeg = 30.0
 const overTopDeg = 179.0
 
 // maxSteps bounds the work of one evaluation.
-const maxSteps = 2_000_000
+const maxSteps = 500_000
 
 // Assumptions is what the model takes for granted, in plain words.
 var Assumptions = []string{
