@@ -30,6 +30,10 @@
 // With a range of rope lengths the shapers and whole-period ramps are tuned
 // to the middle of the range of sway frequencies, w_mid = (w(Lmin) +
 // w(Lmax))/2, which keeps the worst residual at the two ends equal.
+//
+// With a hook block and rigging (load.hook) the load swings in two modes;
+// the single-mode options are tuned to the slower one and two-mode shapers
+// (two shapers convolved) are offered beside them: see twomode.go.
 package plan
 
 import (
