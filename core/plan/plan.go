@@ -429,18 +429,7 @@ func (rq *request) precheck(res *Result) []string {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if w := rq.s.Wind; w != nil {
-		// The steady lean under the scenario's wind (force from speed as in sway).
-		f := 0.0
-		if w.ForceN != nil {
-			f = *w.ForceN
-		} else {
-			rho := w.AirDensityKgPerM3
-			if rho == 0 {
-				rho = units.AirDensity
-			}
-			f = 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * rq.s.Load.AreaM2 * w.ShapeFactor
-		}
-		lean := rq.steadyLean(f)
+		lean := rq.steadyLean(sway.WindForceN(rq.s))
 		if lean >= th {
 			msgs = append(msgs, fmt.Sprintf("The wind alone leans the rope %.3g deg, at or above the swing allowed by the limits (%.3g deg): no drive setting can keep the load inside them. Wait for less wind, or change the limits.",
 				lean/units.Degree, th/units.Degree))

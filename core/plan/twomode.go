@@ -226,16 +226,10 @@ func (rq *request) modeReason(o *Option) string {
 // rope leans atan(f/((m1+m2)*g)) and the rigging atan(f/(m2*g)) (statics
 // of the two masses), at the shortest rope simulated (the largest angle).
 func (rq *request) steadyLean(f float64) float64 {
-	g := units.StandardGravity
-	m2 := *rq.s.Load.MassKg
-	h := rq.s.Load.Hook
-	if h == nil {
-		return math.Atan2(f, m2*g)
-	}
+	// The shortest rope of the range leans the line to the load the most.
 	l1 := rq.ropes[0]
 	for _, l := range rq.ropes {
 		l1 = math.Min(l1, l)
 	}
-	a1, a2 := math.Atan2(f, (m2+*h.MassKg)*g), math.Atan2(f, m2*g)
-	return math.Atan2(l1*math.Sin(a1)+rq.rig*math.Sin(a2), l1*math.Cos(a1)+rq.rig*math.Cos(a2))
+	return sway.WindLeanRad(rq.s, f, l1)
 }

@@ -203,7 +203,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		PeriodS:          period,
 		StaticTensionN:   staticN,
 		WindForceN:       su.windForce,
-		WindLeanDeg:      windLeanDeg(s, su.windForce, su.ropeEnd),
+		WindLeanDeg:      WindLeanRad(s, su.windForce, su.ropeEnd) / units.Degree,
 		RopeLengthStartM: su.ropeStart,
 		RopeLengthEndM:   su.ropeEnd,
 		MotionEndS:       su.motionEnd,
@@ -258,24 +258,24 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	return res, nil
 }
 
-// windLeanDeg is the steady lean of the line from the suspension point to
+// WindLeanRad is the steady lean of the line from the suspension point to
 // the load under a steady horizontal force F on the load (static
 // equilibrium): atan(F/(m*g)) for one rope; with a hook block, the rope
 // leans atan(F/((m1+m2)*g)) and the rigging atan(F/(m2*g)), and the line to
-// the load lies between.
-func windLeanDeg(s *scenario.Scenario, force, rope float64) float64 {
+// the load lies between (rope: the rope length to the hook block).
+func WindLeanRad(s *scenario.Scenario, force, rope float64) float64 {
 	g := units.StandardGravity
 	m2 := *s.Load.MassKg
 	h := s.Load.Hook
 	if h == nil {
-		return math.Atan2(force, m2*g) / units.Degree
+		return math.Atan2(force, m2*g)
 	}
 	l2 := *h.RiggingLengthM
 	t1 := math.Atan2(force, (m2+*h.MassKg)*g)
 	t2 := math.Atan2(force, m2*g)
 	x := rope*math.Sin(t1) + l2*math.Sin(t2)
 	z := rope*math.Cos(t1) + l2*math.Cos(t2)
-	return math.Atan2(x, z) / units.Degree
+	return math.Atan2(x, z)
 }
 
 func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) {
