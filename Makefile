@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench reference fuzz dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference fuzz dist single-wasm sheetcss clean
 
 all: test
 
@@ -93,26 +93,35 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
 
-# Regenerate testdata/reference/results.json with SciPy (Debian's
+# Regenerate testdata/reference/results.json and results_double.json (hook
+# block and rigging) with SciPy (Debian's
 # python3-scipy, installed when missing). The tests read the committed file
 # and need no Python.
 PYTHON_REF ?= /usr/bin/python3
-reference:
+scipy-deps:
 	@$(PYTHON_REF) -c 'import scipy' 2>/dev/null || { \
 	  echo "installing: python3-scipy"; \
 	  if [ "$$(id -u)" = 0 ]; then apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq python3-scipy; \
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq python3-scipy; fi; }
+
+reference: scipy-deps
+	$(PYTHON_REF) testdata/reference/double.py generate
 	$(PYTHON_REF) testdata/reference/reference.py generate
 
 # Speed and size, side by side, in one table (see README "Benchmarks").
 BENCH := $(OUT)/bench
-bench: deps dist
+# Scenarios timed with SciPy beside the core (those in the reference data).
+BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.json tower-slew.json \
+	slew-with-trolley.json hoist-during-travel.json hard-stop.json wind-gust.json)
+bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./web/sheet/ | tee $(BENCH)/go-bench.txt
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) $(BENCH_SCIPY) > $(BENCH)/scipy.json
+	SWAYSHEET_BROWSER=1 SWAYSHEET_BENCH_OUT=$(CURDIR)/$(BENCH)/browser.json $(GO) test -count=1 -run '^TestBenchPage$$' ./web/browsertest
 	@echo
 	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
 

@@ -124,17 +124,29 @@ func (m *Model) eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 	u := r3.Vec{X: y[3], Y: y[4], Z: y[5]}
 	s := m.Suspension(t)
 	l, dl, ddl := m.Rope(t)
-	pos := r3.Add(s.Pos, r3.Scale(l, n))
-	vel := r3.Add(s.Vel, r3.Add(r3.Scale(dl, n), r3.Scale(l, u)))
-	a := r3.Vec{Z: -m.g()}
-	if m.Force != nil {
-		a = r3.Add(a, r3.Scale(1/m.Mass, m.Force(t, pos, vel)))
+	// Position and velocity of the load: only the applied force and the
+	// caller's point need them.
+	var pos, vel r3.Vec
+	if m.Force != nil || p != nil {
+		pos = r3.Add(s.Pos, r3.Scale(l, n))
+		vel = r3.Add(s.Vel, r3.Add(r3.Scale(dl, n), r3.Scale(l, u)))
 	}
-	rel := r3.Sub(a, s.Acc) // applied acceleration seen from the suspension point
+	// Applied acceleration seen from the suspension point, a - S”.
+	rel := r3.Vec{X: -s.Acc.X, Y: -s.Acc.Y, Z: -m.g() - s.Acc.Z}
+	if m.Force != nil {
+		rel = r3.Add(rel, r3.Scale(1/m.Mass, m.Force(t, pos, vel)))
+	}
 	radial := r3.Dot(rel, n)
 	uu := r3.Dot(u, u)
-	tangential := r3.Sub(rel, r3.Scale(radial, n))
-	acc = r3.Sub(r3.Scale(1/l, r3.Sub(tangential, r3.Scale(2*dl, u))), r3.Scale(uu, n))
+	il := 1 / l
+	// n” = [rel - radial*n - 2 L' u]/L - |u|^2 n
+	cn := -radial*il - uu
+	cu := -2 * dl * il
+	acc = r3.Vec{
+		X: rel.X*il + cn*n.X + cu*u.X,
+		Y: rel.Y*il + cn*n.Y + cu*u.Y,
+		Z: rel.Z*il + cn*n.Z + cu*u.Z,
+	}
 	if p != nil {
 		*p = Point{T: t, Dir: n, Rate: u, Rope: l, Suspension: s, LoadPos: pos, LoadVel: vel,
 			Tension: m.Mass * (radial - ddl + l*uu)}

@@ -119,3 +119,70 @@ func fieldByTag(t reflect.Type, key string) (reflect.StructField, bool) {
 	}
 	return fold, found
 }
+
+// pathAtOffset returns the path (like "motions[1].distance_m") of the JSON
+// value that ends at byte offset off of data, where encoding/json reports a
+// value of the wrong type (its own field name leaves out list indices). It
+// returns "" if no value ends there.
+func pathAtOffset(data []byte, off int64) string {
+	type frame struct {
+		array   bool
+		index   int
+		key     string
+		wantKey bool
+	}
+	var stack []frame
+	path := func() string {
+		var b strings.Builder
+		for i, f := range stack {
+			if f.array {
+				fmt.Fprintf(&b, "[%d]", f.index)
+				continue
+			}
+			if i > 0 {
+				b.WriteByte('.')
+			}
+			b.WriteString(f.key)
+		}
+		return b.String()
+	}
+	// valueDone moves the innermost frame past the value just read.
+	valueDone := func() {
+		if n := len(stack); n > 0 {
+			if stack[n-1].array {
+				stack[n-1].index++
+			} else {
+				stack[n-1].wantKey = true
+			}
+		}
+	}
+	dec := json.NewDecoder(bytes.NewReader(data))
+	for {
+		tok, err := dec.Token()
+		if err != nil {
+			return ""
+		}
+		if d, ok := tok.(json.Delim); ok {
+			switch d {
+			case '{', '[':
+				if dec.InputOffset() == off {
+					return path()
+				}
+				stack = append(stack, frame{array: d == '[', wantKey: d == '{'})
+			default:
+				stack = stack[:len(stack)-1]
+				valueDone()
+			}
+			continue
+		}
+		if n := len(stack); n > 0 && !stack[n-1].array && stack[n-1].wantKey {
+			stack[n-1].key, _ = tok.(string)
+			stack[n-1].wantKey = false
+			continue
+		}
+		if dec.InputOffset() == off {
+			return path()
+		}
+		valueDone()
+	}
+}

@@ -154,7 +154,8 @@ type Settings struct {
 	// RelTol overrides the integrator's relative tolerance.
 	RelTol float64 `json:"rel_tol,omitempty"`
 	// SettlePeriods is how many sway periods are simulated after the last
-	// motion ends to measure the residual swing (at least 2; default 3).
+	// motion ends, or the wind last changes if that is later, to measure the
+	// residual swing (at least 2; default 3).
 	SettlePeriods float64 `json:"settle_periods,omitempty"`
 	// DurationS is the shortest run; the run is longer if the motions need it.
 	DurationS float64 `json:"duration_s,omitempty"`
@@ -230,6 +231,9 @@ func jsonError(err error, data []byte) FieldError {
 	switch {
 	case errors.As(err, &te):
 		f := te.Field
+		if p := pathAtOffset(data, te.Offset); p != "" {
+			f = p
+		}
 		if f == "" {
 			f = "(file)"
 		}

@@ -155,3 +155,17 @@ func TestSchemaCoversFields(t *testing.T) {
 		}
 	}
 }
+
+// Near a horizontal rope a modest horizontal velocity means a huge speed
+// along the arc; the whole speed is bounded.
+func TestInitialSpeedAlongTheArcBounded(t *testing.T) {
+	in := strings.Replace(good, `"name": "t",`, `"name": "t", "initial": {"swing_deg": 89, "velocity_x_m_per_s": 5},`, 1)
+	_, err := Parse([]byte(in))
+	if err == nil || !strings.Contains(err.Error(), "initial.velocity_x_m_per_s: with the rope at 89 deg") {
+		t.Fatalf("got %v", err)
+	}
+	in = strings.Replace(good, `"name": "t",`, `"name": "t", "initial": {"swing_deg": 10, "velocity_y_m_per_s": 3},`, 1)
+	if _, err := Parse([]byte(in)); err != nil {
+		t.Fatalf("sideways push at 10 deg: %v", err)
+	}
+}

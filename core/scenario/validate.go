@@ -67,6 +67,9 @@ const (
 	MinRopeM = 0.3
 	// MaxRunS is the longest run the model simulates, s.
 	MaxRunS = 3600.0
+	// MaxInitialSpeed is the largest initial speed of the load relative to
+	// the suspension point, m/s.
+	MaxInitialSpeed = 20.0
 	// MaxRadiusM is the largest slew radius at any time, m.
 	MaxRadiusM = 150.0
 )
@@ -166,6 +169,15 @@ func (s *Scenario) Validate() error {
 		c.value("initial.toward_deg", "initial.toward_deg", in.TowardDeg)
 		c.value("initial.velocity_x_m_per_s", "initial.velocity_x_m_per_s", in.VelocityXMPerS)
 		c.value("initial.velocity_y_m_per_s", "initial.velocity_y_m_per_s", in.VelocityYMPerS)
+		// The vertical part of the load's velocity follows from the rope:
+		// n.v = 0. Near a horizontal rope a small horizontal speed means a
+		// huge vertical one, so the whole speed is bounded too.
+		th, az := in.SwingDeg*math.Pi/180, in.TowardDeg*math.Pi/180
+		nx, ny, nz := math.Sin(th)*math.Cos(az), math.Sin(th)*math.Sin(az), -math.Cos(th)
+		vz := -(nx*in.VelocityXMPerS + ny*in.VelocityYMPerS) / nz
+		if v := math.Sqrt(in.VelocityXMPerS*in.VelocityXMPerS + in.VelocityYMPerS*in.VelocityYMPerS + vz*vz); v > MaxInitialSpeed {
+			c.add("initial.velocity_x_m_per_s", "with the rope at %.3g deg this horizontal velocity makes the load move at %.4g m/s along its arc: at most %g m/s is accepted", in.SwingDeg, v, MaxInitialSpeed)
+		}
 	}
 	if l := s.Limits; l != nil {
 		c.optional("limits.peak_swing_deg", "limits.peak_swing_deg", l.PeakSwingDeg)

@@ -361,7 +361,7 @@ func TestRunTooLong(t *testing.T) {
 func BenchmarkExamples(b *testing.B) {
 	ex := loadExamples(b)
 	for _, name := range []string{"bay-travel", "diagonal-travel", "tower-slew", "slew-with-trolley",
-		"hoist-during-travel", "hard-stop", "wind-gust"} {
+		"hoist-during-travel", "hard-stop", "wind-gust", "heavy-hook-long-slings"} {
 		s, ok := ex[name]
 		if !ok {
 			continue

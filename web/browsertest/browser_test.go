@@ -23,6 +23,7 @@ import (
 
 	"github.com/chromedp/cdproto/browser"
 	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/target"
 	"github.com/chromedp/chromedp"
 
@@ -40,9 +41,9 @@ func fmtRes(v float64) string {
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
-// fmtField is the page's input format: 12 significant digits.
+// fmtField is the page's input format: 10 significant digits.
 func fmtField(v float64) string {
-	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 12, 64), 64)
+	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 10, 64), 64)
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
@@ -295,7 +296,7 @@ func TestPage(t *testing.T) {
 		snap := func() []string {
 			var out []string
 			for _, f := range fields {
-				out = append(out, h.value(f)+" "+h.text("[data-field] "+f+" + .unit"))
+				out = append(out, h.value(f)+" "+h.text("[data-field] "+f+" ~ .unit"))
 			}
 			for _, r := range results {
 				out = append(out, h.text(r))
@@ -321,7 +322,7 @@ func TestPage(t *testing.T) {
 				t.Errorf("US: %s shows %q, want %q", sel, got, w)
 			}
 		}
-		if u := h.text("[data-field] #f-load-rope_length_m + .unit"); u != "ft" {
+		if u := h.text("[data-field] #f-load-rope_length_m ~ .unit"); u != "ft" {
 			t.Errorf("rope length unit %q, want ft", u)
 		}
 		if got, w := h.text("#r-excursion .num"), fmtRes(r.PeakExcursionM/units.Foot); got != w {
@@ -333,6 +334,16 @@ func TestPage(t *testing.T) {
 		if !reflect.DeepEqual(h.scenario(), s) {
 			t.Error("switching units changed the scenario")
 		}
+		// A bad value typed in US units is reported in US units.
+		keep := h.value("#f-motions-0-speed_m_per_s")
+		h.typeInto("#f-motions-0-speed_m_per_s", "5000")
+		h.settle()
+		// 10 m/s, the core's upper bound, is 1968.5 ft/min (ft = 0.3048 m, NIST SP 811).
+		if msg := h.text("#f-motions-0-speed_m_per_s-msg"); !strings.Contains(msg, "5000 ft/min is out of range") || !strings.Contains(msg, "1968.5 ft/min") {
+			t.Errorf("US range message: %q", msg)
+		}
+		h.typeInto("#f-motions-0-speed_m_per_s", keep)
+		h.settle()
 		h.do(chromedp.Click(chromedp.ID("sys-si")))
 		h.settle()
 		if back := snap(); !reflect.DeepEqual(back, si) {
@@ -414,7 +425,7 @@ func TestPage(t *testing.T) {
 		h.do(chromedp.Click(chromedp.ID("open-saved")), chromedp.Click(chromedp.CSS(`#saved-list button[data-sdel="0"]`)),
 			chromedp.Click(chromedp.ID("del-yes")))
 		if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`!document.getElementById('saved-list').textContent.includes('Broken')`,
-			chromedp.WithPollingTimeout(10*time.Second))); err != nil {
+			chromedp.WithPollingTimeout(30*time.Second))); err != nil {
 			t.Errorf("delete: %v", err)
 		}
 		if list := h.text("#saved-list"); !strings.Contains(list, "Girder lift B") {
@@ -430,7 +441,7 @@ func TestPage(t *testing.T) {
 		want := h.scenario()
 		h.do(chromedp.Click(chromedp.ID("do-export")))
 		var file string
-		for i := 0; i < 100 && file == ""; i++ {
+		for i := 0; i < 300 && file == ""; i++ {
 			time.Sleep(100 * time.Millisecond)
 			m, _ := filepath.Glob(filepath.Join(h.dl, "*.json"))
 			if len(m) > 0 {
@@ -452,7 +463,7 @@ func TestPage(t *testing.T) {
 		h.settle()
 		h.do(chromedp.SetUploadFiles(chromedp.ID("import-file"), []string{file}))
 		if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`document.getElementById('notice').textContent.includes('Imported')`,
-			chromedp.WithPollingTimeout(10*time.Second))); err != nil {
+			chromedp.WithPollingTimeout(30*time.Second))); err != nil {
 			t.Fatal(err)
 		}
 		h.settle()
@@ -523,6 +534,67 @@ func TestPage(t *testing.T) {
 			}
 		}
 		t.Logf("screenshots in %s", dir)
+	})
+
+	t.Run("prints on one page at A4 and Letter; typed markup stays text", func(t *testing.T) {
+		h.t = t
+		pdfinfo, err1 := exec.LookPath("pdfinfo")
+		pdftotext, err2 := exec.LookPath("pdftotext")
+		if err1 != nil || err2 != nil {
+			t.Fatal("pdfinfo and pdftotext are needed (make deps installs poppler-utils)")
+		}
+		dialogs := chromedp.Events(h.ctx, page.JavascriptDialogOpening)
+		opened := make(chan string, 4)
+		go func() {
+			for ev, err := range dialogs {
+				if err != nil {
+					return
+				}
+				opened <- ev.Message
+				_, _ = chromedp.Call(h.ctx, page.HandleJavaScriptDialog, page.HandleJavaScriptDialogParams{Accept: true})
+			}
+		}()
+		const markup = `<img src=x onerror=alert(1)>`
+		h.typeInto("#f-sheet-project", markup)
+		h.settle()
+		if got := h.scenario()["sheet"].(map[string]any)["project"]; got != markup {
+			t.Errorf("project field holds %q", got)
+		}
+		dir := t.TempDir()
+		for _, paper := range []struct {
+			name string
+			w, h float64 // inches
+		}{{"A4", 8.27, 11.69}, {"Letter", 8.5, 11}} {
+			res, err := chromedp.Call(h.ctx, page.PrintToPDF, page.PrintToPDFParams{PaperWidth: paper.w, PaperHeight: paper.h})
+			if err != nil {
+				t.Fatal(err)
+			}
+			f := filepath.Join(os.Getenv("SWAYSHEET_PDF_DIR"), paper.name+".pdf")
+			if os.Getenv("SWAYSHEET_PDF_DIR") == "" {
+				f = filepath.Join(dir, paper.name+".pdf")
+			}
+			if err := os.WriteFile(f, res.Data, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			info, _ := exec.Command(pdfinfo, f).Output()
+			if !strings.Contains(string(info), "\nPages:           1\n") {
+				t.Errorf("%s: not one page:\n%s", paper.name, info)
+			}
+			// Reading order, with line breaks and spaces removed: a long text
+			// wraps in its box on paper.
+			raw, _ := exec.Command(pdftotext, "-raw", f, "-").Output()
+			text := strings.Join(strings.Fields(string(raw)), "")
+			for _, want := range []string{"CAUTIONS", "Nobody under a suspended load", "Sway period", "Rope length", markup, "WHAT THE MODEL ASSUMES"} {
+				if !strings.Contains(text, strings.Join(strings.Fields(want), "")) {
+					t.Errorf("%s: the printed text lacks %q", paper.name, want)
+				}
+			}
+		}
+		select {
+		case m := <-opened:
+			t.Errorf("a dialog opened: %q", m)
+		case <-time.After(300 * time.Millisecond):
+		}
 	})
 
 	t.Run("touch targets are at least 44 px", func(t *testing.T) {

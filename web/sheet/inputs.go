@@ -198,6 +198,7 @@ func inputGroups(s *scenario.Scenario, u unitChooser) []Group {
 			for i, m := range ms {
 				g := Group{Title: fmt.Sprintf("Move %d", i+1)}
 				flatten(&g, fmt.Sprintf("motions[%d]", i), "", m, u)
+				capitalise(&g)
 				out = append(out, g)
 			}
 			return
@@ -208,6 +209,7 @@ func inputGroups(s *scenario.Scenario, u unitChooser) []Group {
 		}
 		g := Group{Title: t}
 		flatten(&g, k, "", v, u)
+		capitalise(&g)
 		if len(g.Rows) > 0 {
 			out = append(out, g)
 		}
@@ -331,4 +333,14 @@ func Num(v float64, sig int) string {
 		return strconv.FormatFloat(r, 'f', -1, 64)
 	}
 	return strconv.FormatFloat(r, 'g', -1, 64)
+}
+
+// capitalise starts each row's label with a capital letter.
+func capitalise(g *Group) {
+	for i, r := range g.Rows {
+		if r.Label != "" {
+			rs := []rune(r.Label)
+			g.Rows[i].Label = strings.ToUpper(string(rs[0])) + string(rs[1:])
+		}
+	}
 }

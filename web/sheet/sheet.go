@@ -39,7 +39,7 @@ var CSS string
 var Cautions = []string{
 	"These figures are an estimate from a simplified model, not a guarantee of how the load will move.",
 	"The crane manufacturer's instructions, load charts and wind limits, the approved lift plan, local lifting codes and regulations and the person in charge of the lift take precedence over this sheet.",
-	"Nobody stands or works under a suspended load. Use tag lines where the lift plan calls for them.",
+	"Nobody under a suspended load: nobody stands or works under it. Use tag lines where the lift plan calls for them.",
 	"Stop the lift when sway or wind exceeds the plan's limits. A qualified person approves the lift.",
 }
 

@@ -76,8 +76,10 @@ var goroot = func() string {
 
 // served counts the requests a test server answers.
 type served struct {
-	mu sync.Mutex
-	n  int
+	mu    sync.Mutex
+	n     int
+	paths []string
+	down  bool // answer nothing: the connection is cut, as with no network
 }
 
 func serve(t *testing.T, h http.Handler) (*httptest.Server, *served) {
@@ -85,7 +87,19 @@ func serve(t *testing.T, h http.Handler) (*httptest.Server, *served) {
 	srv := httptest.NewServer(http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
 		c.mu.Lock()
 		c.n++
+		c.paths = append(c.paths, r.URL.Path)
+		down := c.down
 		c.mu.Unlock()
+		if down {
+			if hj, ok := w.(http.Hijacker); ok {
+				if conn, _, err := hj.Hijack(); err == nil {
+					conn.Close()
+					return
+				}
+			}
+			http.Error(w, "down", http.StatusServiceUnavailable)
+			return
+		}
 		h.ServeHTTP(w, r)
 	}))
 	t.Cleanup(srv.Close)
@@ -232,4 +246,16 @@ func (b *browser) pollThrough(expr, what string) {
 		time.Sleep(50 * time.Millisecond)
 	}
 	b.t.Fatalf("%s (console: %s)", what, b.console())
+}
+
+func (c *served) since(n int) []string {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return append([]string{}, c.paths[n:]...)
+}
+
+func (c *served) setDown(d bool) {
+	c.mu.Lock()
+	c.down = d
+	c.mu.Unlock()
 }

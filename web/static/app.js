@@ -85,9 +85,12 @@
   function toShown(dq, v) { return v / unitOf(dq).to_si; }
   function toSI(dq, v) { return v * unitOf(dq).to_si; }
 
-  // Field values: 12 significant digits, so that SI -> US -> SI shows the
-  // number typed; results: 4 significant digits.
-  function fmtField(v) { return Number(v.toPrecision(12)).toString(); }
+  // Field values: 10 significant digits (the scenario keeps the full
+  // value in SI, so SI -> US -> SI shows the number typed); results: 4.
+  function fmtField(v) { return Number(v.toPrecision(10)).toString(); }
+  // Range bounds: 6 significant digits, so a bound is not rounded past
+  // itself (10 m/s is 1968.5 ft/min, not 1969).
+  function fmtRange(v) { return Number(v.toPrecision(6)).toString(); }
   function fmtRes(v) {
     if (!isFinite(v)) return '\u2014';
     return Number(v.toPrecision(4)).toString();
@@ -139,6 +142,16 @@
   var LINEAR = { distance: 'distance_m', speed: 'speed_m_per_s', accel: 'accel_m_per_s2', decel: 'decel_m_per_s2' };
   var ANGULAR = { distance: 'angle_deg', speed: 'rate_deg_per_s', accel: 'accel_deg_per_s2', decel: 'decel_deg_per_s2' };
 
+  // PV follows each control: a plain-text copy of its value for paper,
+  // where a text box would cut long text (filled in by syncPrint).
+  var PV = '<span class="pv" aria-hidden="true"></span>';
+
+  function syncPrint(el) {
+    var pv = el.nextElementSibling;
+    if (!pv || !pv.classList.contains('pv')) return;
+    pv.textContent = el.tagName === 'SELECT' ? (el.selectedOptions[0] ? el.selectedOptions[0].textContent : '') : el.value;
+  }
+
   // numField describes one number input bound to a scenario path.
   function numField(path, label, opts) {
     opts = opts || {};
@@ -152,14 +165,14 @@
     var hint = '';
     if (r.text !== undefined) {
       var lo = dq ? toShown(dq, r.min) : r.min, hi = dq ? toShown(dq, r.max) : r.max;
-      hint = (r.open_min ? 'above ' : '') + fmtRes(lo) + ' to ' + fmtRes(hi) + (u.symbol ? ' ' + u.symbol : '');
+      hint = (r.open_min ? 'above ' : '') + fmtRange(lo) + ' to ' + fmtRange(hi) + (u.symbol ? ' ' + u.symbol : '');
     }
     if (opts.hint) hint = opts.hint + (hint ? '; ' + hint : '');
     var id = fieldId(path);
     return '<div class="field" data-field="' + esc(path) + '">' +
       '<label for="' + id + '">' + esc(label) + (opts.optional ? ' <span class="opt">(optional)</span>' : '') + '</label>' +
       '<div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-path="' + esc(path) + '" data-dq="' + esc(dq) + '"' +
-      (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg">' +
+      (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg">' + PV +
       '<span class="unit" aria-label="unit">' + esc(u.symbol || '\u00A0') + '</span></div>' +
       '<p class="hint" id="' + id + '-hint">' + esc(hint) + '</p>' +
       '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
@@ -171,15 +184,15 @@
       '<select id="' + id + '" data-select="' + esc(path) + '"' + (extra || '') + '>' +
       options.map(function (o) {
         return '<option value="' + esc(o[0]) + '"' + (o[0] === value ? ' selected' : '') + '>' + esc(o[1]) + '</option>';
-      }).join('') + '</select><p class="msg" id="' + id + '-msg" role="alert"></p></div>';
+      }).join('') + '</select>' + PV + '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
   }
 
-  function textField(path, label, multiline) {
+  function textField(path, label, multiline, wide) {
     var id = fieldId(path), v = getPath(S.scenario, path) || '';
     var input = multiline ?
-      '<textarea id="' + id + '" data-text="' + esc(path) + '" rows="2">' + esc(v) + '</textarea>' :
+      '<textarea id="' + id + '" data-text="' + esc(path) + '" rows="3">' + esc(v) + '</textarea>' :
       '<input id="' + id + '" type="text" data-text="' + esc(path) + '" value="' + esc(v) + '">';
-    return '<div class="field wide" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) + '</label>' + input +
+    return '<div class="field' + (multiline || wide ? ' wide' : '') + '" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) + '</label>' + input + PV +
       '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
   }
 
@@ -189,12 +202,7 @@
 
   function renderForm() {
     var s = S.scenario, h = [];
-    h.push(section('Lift', textField('name', 'Scenario name') + textField('description', 'Description', true)));
-    h.push(section('Check sheet references',
-      textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
-      textField('sheet.crane', 'Crane (make, model, fleet number)') + textField('sheet.load_description', 'Load description') +
-      textField('sheet.prepared_by', 'Prepared by') + textField('sheet.checked_by', 'Checked by') +
-      textField('sheet.date', 'Date and time of the lift'), 'sheet-refs'));
+    h.push(section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card'));
     h.push(section('Load and rope',
       numField('load.mass_kg', 'Load mass', { hint: 'hook block and rigging included' }) +
       numField('load.rope_length_m', 'Rope length', { hint: 'sheave to the load\u2019s centre of mass' }) +
@@ -219,7 +227,7 @@
         numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' }) +
         '</div></div>');
     });
-    h.push('<fieldset class="card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
+    h.push('<fieldset class="card wide-card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
       '<button type="button" id="add-move">Add a move</button></fieldset>');
     var w = s.wind, wb = '';
     wb += '<div class="field"><label class="check"><input type="checkbox" id="wind-on"' + (w ? ' checked' : '') + '> Wind on the load</label></div>';
@@ -243,13 +251,17 @@
       numField('initial.toward_deg', 'Swing toward', { optional: true, hint: 'degrees from +x toward +y' })));
     h.push(section('Limits from the lift plan',
       numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
-      numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load from the point below the hook' }) +
+      numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
       numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
       numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' })));
-    h.push(section('Units shown', unitChoosers()));
+    h.push(section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
+      textField('sheet.crane', 'Crane') + textField('sheet.load_description', 'Load') + textField('sheet.prepared_by', 'Prepared by') +
+      textField('sheet.checked_by', 'Checked by') + textField('sheet.date', 'Date and time'), 'sheet-card'));
+    h.push(section('Units shown', unitChoosers(), 'units-card'));
     h.push(section('Computation', selectField('settings.accuracy', 'Accuracy',
       [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
     $('form').innerHTML = h.join('');
+    $('form').querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
     showErrors();
   }
 
@@ -329,11 +341,13 @@
     var f = $('form');
     f.addEventListener('input', function (e) {
       var el = e.target;
+      syncPrint(el);
       if (el.dataset.path) onNumberInput(el);
       else if (el.dataset.text) { setPath(S.scenario, el.dataset.text, el.value === '' ? undefined : el.value); changed(); }
     });
     f.addEventListener('change', function (e) {
       var el = e.target;
+      syncPrint(el);
       if (el.dataset.select) onSelect(el);
       else if (el.dataset.unit) { S.chosen[el.dataset.unit] = el.value; saveUnits(); renderAll(); }
       else if (el.id === 'wind-on') {
@@ -403,7 +417,11 @@
     var u = unitOf(el.dataset.dq);
     if (u.to_si === 1 && u.symbol === r.unit) return msg;
     var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-    return msg + ' In ' + u.symbol + ': accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRes(lo) + ' up to ' + fmtRes(hi) + ' ' + u.symbol + '.';
+    var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
+    if (/ is out of range: /.test(fe.message)) {
+      return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
+    }
+    return msg.replace(/\.?$/, '.') + ' In ' + u.symbol + ': ' + accepted + '.';
   }
 
   function cssEsc(s) { return window.CSS && CSS.escape ? CSS.escape(s) : s.replace(/["\\\[\]]/g, '\\$&'); }
@@ -417,7 +435,11 @@
     updateBanner();
     clearTimeout(timer);
     S.waiting = true;
-    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 250);
+    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 30);
+  }
+
+  function noResults() {
+    if (!S.result) $('headline').innerHTML = '<p class="waiting">\u2716 No results yet: correct the marked fields.</p>';
   }
 
   function evaluate() {
@@ -425,6 +447,7 @@
       S.coreErrors = [];
       showErrors();
       $('stale').hidden = !S.result;
+      noResults();
       return;
     }
     if (busy) { again = true; return; }
@@ -444,6 +467,7 @@
         S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
         showErrors();
         $('stale').hidden = !S.result;
+        noResults();
         return;
       }
       S.coreErrors = [];
@@ -489,7 +513,7 @@
     h.push(tile('r-peak', 'Peak swing', fmtRes(r.peak_swing_deg), 'deg',
       'at ' + esc(fmtRes(r.peak_swing_time_s)) + ' s', verdict('peak_swing_deg', null, 'deg')));
     h.push(tile('r-excursion', 'Peak excursion', fmtRes(toShown('length', r.peak_excursion_m)), L.symbol,
-      'load from the point below the hook', verdict('peak_excursion_m', 'length')));
+      'load off plumb, sideways', verdict('peak_excursion_m', 'length')));
     h.push(tile('r-residual', 'Residual swing', fmtRes(r.residual_swing_deg), 'deg',
       'after the last move; excursion ' + esc(fmtRes(toShown('length', r.residual_excursion_m)) + ' ' + L.symbol), verdict('residual_swing_deg', null, 'deg')));
     h.push(tile('r-factor', 'Tension factor', fmtRes(r.tension_factor), '\u00D7',
@@ -534,13 +558,13 @@
     $('plot-angle').innerHTML = P.chart({ id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
       series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
       '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
-    $('plot-path').innerHTML = P.chart({ id: 'path', title: 'Seen from above: load and hook paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
-      series: [{ x: scale('length', hs.hook_x_m), y: scale('length', hs.hook_y_m), label: 'hook', cls: 's2' },
+    $('plot-path').innerHTML = P.chart({ id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+      series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
         { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
       '<figcaption>The load (solid) and the suspension point (dashed) on the ground plan.</figcaption>';
     var circles = [];
     if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-    $('plot-rel').innerHTML = P.chart({ id: 'rel', title: 'Seen from above: load around the point below the hook', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+    $('plot-rel').innerHTML = P.chart({ id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
       series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), label: 'load', cls: 's1' }], circles: circles }) +
       '<figcaption>' + (circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.') + '</figcaption>';
     var st = toShown('force', r.static_tension_n);
@@ -782,6 +806,8 @@
   // openLink loads the scenario of the URL fragment, first keeping the
   // inputs it replaces among the saved scenarios.
   function openLink() {
+    // #z= links: the check sheet's QR code (the scenario's canonical JSON,
+    // compressed; read by the core's "unshare" call).
     if (/^#z=[A-Za-z0-9_-]+$/.test(location.hash)) {
       var frag = location.hash;
       history.replaceState(null, '', location.href.split('#')[0]);
@@ -910,6 +936,12 @@
       document.body.dataset.state = 'ready';
     });
   }
+
+  // Print: the check sheet from the core (sheet.js), made fresh first.
+  $('do-print').onclick = function () {
+    if (window.swaysheetSheet) window.swaysheetSheet.print();
+    else window.print();
+  };
 
   $('example-own').onclick = function () {
     delete S.scenario.example;

@@ -3,6 +3,7 @@
 // measurements of every part of `make bench` into one table.
 //
 //	swaybench -json [-repeat N] DIR          time every scenario in DIR, print JSON rows
+//	swaybench -scipy REF.json FILE.json ...  time SciPy at the core's accuracy
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -43,22 +44,19 @@ func main() {
 	table := flag.Bool("table", false, "print the table of the rows in the given files")
 	repeat := flag.Int("repeat", 51, "evaluations per scenario; the median is reported")
 	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
+	scipy := flag.String("scipy", "", "with the reference results JSON: time SciPy beside the core for the given scenario files")
+	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
+	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	flag.Parse()
 	switch {
+	case *scipy != "":
+		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))
 	case *asJSON && flag.NArg() == 1:
 		g := *group
 		if g == "" {
 			g = "core " + runtime.GOOS + "/" + runtime.GOARCH
 		}
-		rows, err := timeScenarios(flag.Arg(0), *repeat, g)
-		if err != nil {
-			fmt.Fprintln(os.Stderr, "swaybench:", err)
-			os.Exit(1)
-		}
-		enc := json.NewEncoder(os.Stdout)
-		for _, r := range rows {
-			enc.Encode(r)
-		}
+		emit(timeScenarios(flag.Arg(0), *repeat, g))
 	case *table:
 		if err := printTable(os.Stdout, flag.Args()); err != nil {
 			fmt.Fprintln(os.Stderr, "swaybench:", err)
@@ -67,6 +65,18 @@ func main() {
 	default:
 		fmt.Fprintln(os.Stderr, "usage: swaybench -json [-repeat N] DIR | swaybench -table FILE.json ...")
 		os.Exit(2)
+	}
+}
+
+// emit prints the rows as JSON lines, or the error and exits.
+func emit(rows []Row, err error) {
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "swaybench:", err)
+		os.Exit(1)
+	}
+	enc := json.NewEncoder(os.Stdout)
+	for _, r := range rows {
+		enc.Encode(r)
 	}
 }
 
@@ -183,6 +193,7 @@ func printTable(w io.Writer, files []string) error {
 		}
 		f.Close()
 	}
+	rows = append(rows, ratios(rows)...)
 	fmt.Fprintf(w, "swaysheet benchmarks, %s\n", time.Now().UTC().Format("2006-01-02 15:04 MST"))
 	fmt.Fprintf(w, "processor: %s (%d cores); %s\n\n", cpuName(), runtime.NumCPU(), runtime.Version())
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -201,6 +212,25 @@ func printTable(w io.Writer, files []string) error {
 		}
 	}
 	return tw.Flush()
+}
+
+// ratios adds, for every scenario timed both natively and as wasm, the
+// ratio of the two.
+func ratios(rows []Row) []Row {
+	native := map[string]float64{}
+	for _, r := range rows {
+		if strings.HasPrefix(r.Group, "core ") && !strings.Contains(r.Group, "wasm") {
+			native[r.Name] = r.Value
+		}
+	}
+	var out []Row
+	for _, r := range rows {
+		if r.Group == "core js/wasm" && native[r.Name] > 0 {
+			out = append(out, Row{Group: "wasm / native", Name: r.Name, Value: r.Value / native[r.Name], Unit: "x",
+				Note: "full evaluation, wasm under node over native, same machine"})
+		}
+	}
+	return out
 }
 
 func format(v float64) string {

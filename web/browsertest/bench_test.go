@@ -1,0 +1,99 @@
+package browsertest
+
+import (
+	"encoding/json"
+	"fmt"
+	"os"
+	"slices"
+	"testing"
+	"time"
+
+	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/page"
+	"github.com/chromedp/chromedp"
+)
+
+// probe records, in the page, when the first result is shown and how long
+// each input change takes to reach the rope-angle plot: from the last
+// input event to the plot's redraw.
+const probe = `(function () {
+  window.__bench = { first: null, lat: [], t0: null, d: null };
+  document.addEventListener('input', function () { window.__bench.t0 = performance.now(); }, true);
+  new MutationObserver(function () {
+    var b = window.__bench, now = performance.now();
+    var num = document.querySelector('#r-period .num');
+    if (b.first === null && num && num.textContent.trim() !== '') b.first = now;
+    var line = document.querySelector('#plot-angle path.line');
+    var d = line ? line.getAttribute('d') : null;
+    if (d !== b.d) {
+      if (b.t0 !== null && b.d !== null) { b.lat.push(now - b.t0); b.t0 = null; }
+      b.d = d;
+    }
+  }).observe(document, { subtree: true, childList: true, characterData: true, attributes: true });
+})();`
+
+// TestBenchPage measures, for make bench, the page's cold start to the
+// first result shown and the time from an input change to the updated
+// plot (median and 95th percentile over 40 changes). It runs only when
+// SWAYSHEET_BENCH_OUT names the file for its rows.
+func TestBenchPage(t *testing.T) {
+	out := os.Getenv("SWAYSHEET_BENCH_OUT")
+	if out == "" {
+		t.Skip("page benchmark runs with SWAYSHEET_BENCH_OUT=FILE (make bench)")
+	}
+	h := setup(t)
+	var colds []float64
+	for range 5 {
+		if _, err := chromedp.Call(h.ctx, page.AddScriptToEvaluateOnNewDocument,
+			page.AddScriptToEvaluateOnNewDocumentParams{Source: probe}); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := chromedp.Call(h.ctx, network.ClearBrowserCache, cdp.Empty{}); err != nil {
+			t.Fatal(err)
+		}
+		h.do(chromedp.Reload())
+		h.settle()
+		colds = append(colds, eval[float64](h, `window.__bench.first`))
+	}
+	// Input changes: type a new rope length, wait until the core has
+	// answered, read the latency the probe saw.
+	var lat []float64
+	for i := range 40 {
+		eval[bool](h, `(window.__bench.lat = [], true)`)
+		h.typeInto("#f-load-rope_length_m", fmt.Sprintf("%.1f", 8+0.1*float64(i%20)))
+		h.settle()
+		var got []float64
+		deadline := time.Now().Add(5 * time.Second)
+		for len(got) == 0 && time.Now().Before(deadline) {
+			got = eval[[]float64](h, `window.__bench.lat`)
+			time.Sleep(10 * time.Millisecond)
+		}
+		if len(got) == 0 {
+			t.Fatalf("change %d: the plot did not redraw", i)
+		}
+		lat = append(lat, got[len(got)-1])
+	}
+	slices.Sort(colds)
+	slices.Sort(lat)
+	p95 := lat[(len(lat)*95+99)/100-1]
+	rows := []map[string]any{
+		{"group": "page (headless Chromium)", "name": "cold start to first result", "value": colds[len(colds)/2], "unit": "ms",
+			"note": fmt.Sprintf("median of %d loads with the browser cache cleared; fastest %.0f ms", len(colds), colds[0])},
+		{"group": "page (headless Chromium)", "name": "input change to updated plot, median", "value": lat[len(lat)/2], "unit": "ms",
+			"note": fmt.Sprintf("%d changes of the rope length, typed; from the last keystroke, debounce included", len(lat))},
+		{"group": "page (headless Chromium)", "name": "input change to updated plot, 95th percentile", "value": p95, "unit": "ms",
+			"note": fmt.Sprintf("slowest %.0f ms", lat[len(lat)-1])},
+	}
+	f, err := os.Create(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	enc := json.NewEncoder(f)
+	for _, r := range rows {
+		if err := enc.Encode(r); err != nil {
+			t.Fatal(err)
+		}
+	}
+}

@@ -1,0 +1,64 @@
+package site
+
+import (
+	"encoding/json"
+	"net/http"
+	"net/http/httptest"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+func handler(t *testing.T) http.Handler {
+	build := t.TempDir()
+	if err := os.WriteFile(filepath.Join(build, "swaysheet.wasm"), []byte("\x00asm"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return Handler(Dirs{Static: "../static", Build: build, Examples: "../../testdata/scenarios"})
+}
+
+func get(h http.Handler, method, path string) *httptest.ResponseRecorder {
+	rec := httptest.NewRecorder()
+	h.ServeHTTP(rec, httptest.NewRequest(method, path, nil))
+	return rec
+}
+
+func TestServesOwnFilesOnly(t *testing.T) {
+	h := handler(t)
+	for _, c := range []struct {
+		path string
+		code int
+	}{
+		{"/", 200}, {"/app.js", 200}, {"/worker.js", 200}, {"/swaysheet.wasm", 200},
+		{"/examples/bay-travel.json", 200}, {"/examples/index.json", 200},
+		{"/../go.mod", 404}, {"/examples/../../go.mod", 404}, {"/site/site.go", 404},
+		{"/examples/", 404}, {"/wasm_exec.js", 404}, {"/nothing.html", 404},
+	} {
+		rec := get(h, "GET", c.path)
+		if rec.Code != c.code {
+			t.Errorf("GET %s: %d, want %d", c.path, rec.Code, c.code)
+		}
+		if !strings.Contains(rec.Header().Get("Content-Security-Policy"), "default-src 'self'") {
+			t.Errorf("GET %s: no CSP", c.path)
+		}
+	}
+	if rec := get(h, "POST", "/"); rec.Code != http.StatusMethodNotAllowed {
+		t.Errorf("POST: %d", rec.Code)
+	}
+	if ct := get(h, "GET", "/swaysheet.wasm").Header().Get("Content-Type"); ct != "application/wasm" {
+		t.Errorf("wasm content type %q", ct)
+	}
+}
+
+func TestExampleIndex(t *testing.T) {
+	rec := get(handler(t), "GET", "/examples/index.json")
+	var names []string
+	if err := json.Unmarshal(rec.Body.Bytes(), &names); err != nil {
+		t.Fatal(err)
+	}
+	files, _ := filepath.Glob("../../testdata/scenarios/*.json")
+	if len(names) == 0 || len(names) != len(files) {
+		t.Errorf("index %v, files %v", names, files)
+	}
+}
