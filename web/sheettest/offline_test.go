@@ -44,7 +44,7 @@ func (b *browser) offline(off bool) {
 	// The same for the service worker's own requests (its update check).
 	if _, err := chromedp.Call(b.ctx, network.EmulateNetworkConditionsByRule, network.EmulateNetworkConditionsByRuleParams{
 		EmulateOfflineServiceWorker: &off,
-		MatchedNetworkConditions: []*network.Conditions{{Offline: off, DownloadThroughput: -1, UploadThroughput: -1}}}); err != nil {
+		MatchedNetworkConditions:    []*network.Conditions{{Offline: off, DownloadThroughput: -1, UploadThroughput: -1}}}); err != nil {
 		b.t.Fatal(err)
 	}
 }
