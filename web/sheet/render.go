@@ -70,6 +70,9 @@ func (h *htmlWriter) body(v *view) {
 	if v.Dense {
 		cls += " sw-dense"
 	}
+	if v.Denser {
+		cls += " sw-denser"
+	}
 	h.raw(`<article class="` + cls + `" data-fingerprint="`)
 	h.t(v.Fingerprint)
 	h.raw("\">\n<header class=\"sw-top\">\n<div class=\"sw-topl\">\n<div class=\"sw-head\"><div>")

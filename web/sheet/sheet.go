@@ -149,8 +149,8 @@ type view struct {
 	QRNote      string
 	EvalErr     string
 	ResultsFor  string
-	// Dense sets smaller type for a sheet with much to say.
-	Dense bool
+	// Dense and Denser set smaller type for a sheet with much to say.
+	Dense, Denser bool
 }
 
 // Build computes what the sheet needs and returns it ready to write.
@@ -214,7 +214,12 @@ func Build(in Input) (*Sheet, error) {
 	if res != nil {
 		fillResults(v, res, u)
 	}
-	v.Dense = density(v) > 62
+	switch d := density(v); {
+	case d > 78:
+		v.Dense, v.Denser = true, true
+	case d > 62:
+		v.Dense = true
+	}
 	qrText := in.LinkBase + "#" + ShareFragment(canon)
 	qr, err := qrcode.New(qrText, qrcode.Medium)
 	if err != nil {
@@ -389,7 +394,8 @@ func mergeCautions(own, more []string) []string {
 }
 
 // density is a rough count of the sheet's lines of text beyond the fixed
-// parts; above 62 the sheet is set in smaller type to stay on one page.
+// parts; above 62 the sheet is set in smaller type, above 78 smaller
+// still, to stay on one page.
 func density(v *view) int {
 	n := len(v.Results) + len(v.Checks) + len(v.Assumptions)*2 + len(v.Cautions)*2
 	in := 0

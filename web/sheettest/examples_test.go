@@ -1,0 +1,59 @@
+package sheettest
+
+import (
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"testing"
+
+	"github.com/chromedp/chromedp"
+
+	"swaysheet/core/scenario"
+	"swaysheet/web/sheet"
+)
+
+// Every example's stand-alone sheet (as swaysheet -sheet writes it) prints
+// on exactly one page at A4 and at Letter, in SI and in US units.
+func TestEveryExampleOnePage(t *testing.T) {
+	need(t)
+	files, _ := filepath.Glob(filepath.Join(root, "testdata", "scenarios", "*.json"))
+	dir := t.TempDir()
+	b := open(t)
+	one := regexp.MustCompile(`(?m)^Pages:\s+1$`)
+	for _, f := range files {
+		data, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s, err := scenario.Parse(data)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, sys := range []string{"si", "us"} {
+			sh, err := sheet.Build(sheet.Input{Scenario: s, System: sys, Version: "test", LinkBase: "https://example.org/swaysheet/",
+				PrintedAt: "2026-12-02 07:30"})
+			if err != nil {
+				t.Fatal(err)
+			}
+			html := filepath.Join(dir, sys+"-"+filepath.Base(f)+".html")
+			w, _ := os.Create(html)
+			if err := sh.WriteDocument(w); err != nil {
+				t.Fatal(err)
+			}
+			w.Close()
+			b.do(chromedp.Navigate("file://" + html))
+			for _, p := range papers {
+				pdf := filepath.Join(dir, "p.pdf")
+				os.WriteFile(pdf, b.pdf(p.w, p.h), 0o644)
+				info, err := exec.Command("pdfinfo", pdf).Output()
+				if err != nil {
+					t.Fatal(err)
+				}
+				if !one.Match(info) {
+					t.Errorf("%s (%s) at %s: not one page", filepath.Base(f), sys, p.name)
+				}
+			}
+		}
+	}
+}
