@@ -17,13 +17,14 @@
     var sw = window.swaysheet;
     if (!sw || !sw.call) return Promise.resolve(false);
     var my = ++seq, forResult = results, sc;
-    try { sc = JSON.parse(sw.scenarioJSON()); } catch (e) { return Promise.resolve(false); }
-    if (!sc) return Promise.resolve(false);
+    try { sc = JSON.parse(sw.scenarioJSON()); } catch (e) { sc = null; }
+    if (!sc) { madeFor = forResult; return Promise.resolve(false); }
     var input = JSON.stringify({ scenario: sc, units: sw.units(), system: sw.system(),
       link_base: location.protocol === 'file:' ? '' : location.href.split('#')[0], printed_at: now() });
     return sw.call('sheet', input).then(function (r) {
       if (my !== seq) return false;
       if (r.error) {
+        madeFor = forResult;
         host.textContent = 'The check sheet could not be made: ' + r.error.message;
         delete host.dataset.fingerprint;
         host.dataset.ready = 'error';
@@ -53,7 +54,7 @@
   document.addEventListener('swaysheet:result', function () {
     results++;
     clearTimeout(timer);
-    timer = setTimeout(build, 60);
+    timer = setTimeout(build, 500);
   });
 
   // The page is settled when the sheet, too, is that of the last result.
