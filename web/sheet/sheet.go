@@ -213,6 +213,13 @@ func Build(in Input) (*Sheet, error) {
 	}
 	if res != nil {
 		fillResults(v, res, u)
+		if len(res.Assumptions) > 0 {
+			// The evaluation's own list (it may say more for a hook block).
+			v.Assumptions = append([]string{}, res.Assumptions...)
+			if v.Plan != nil && v.Plan.Err == "" {
+				v.Assumptions = append(v.Assumptions, plan.Assumptions...)
+			}
+		}
 	}
 	switch d := density(v); {
 	case d > 78:
