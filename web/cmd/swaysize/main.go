@@ -66,7 +66,7 @@ func main() {
 	add("single-file wasm (nofetch, -s -w), raw", len(s), verdict(len(s), 3))
 	add("single-file wasm, gzipped", gz(s), verdict(gz(s), 1))
 	p := read(*page)
-	add("single-file page (wasm gzipped, base64)", len(p), verdict(len(p), 2))
+	add("single-file page (wasm zopfli-gzipped, base85)", len(p), verdict(len(p), 2))
 	total, files := 0, 0
 	filepath.WalkDir(*static, func(path string, d fs.DirEntry, err error) error {
 		if err == nil && !d.IsDir() {
