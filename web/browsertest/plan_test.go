@@ -50,6 +50,16 @@ func (h *harness) corePlan() *plan.Result {
 	return r
 }
 
+// click brings an element to the middle of the screen, clear of the
+// fixed action bar and the notice, and clicks it as a person does.
+func (h *harness) click(sel string) {
+	h.t.Helper()
+	if !eval[bool](h, `(function(){var e=document.querySelector(`+strconv.Quote(sel)+`);if(!e)return false;e.scrollIntoView({block:'center'});return true;})()`) {
+		h.t.Fatalf("%s: no such element", sel)
+	}
+	h.do(chromedp.Click(chromedp.CSS(sel)))
+}
+
 func (h *harness) texts(sel string) []string {
 	h.t.Helper()
 	return eval[[]string](h, `Array.from(document.querySelectorAll(`+strconv.Quote(sel)+`)).map(function(e){return e.textContent.trim();})`)
@@ -95,17 +105,16 @@ func TestPlanner(t *testing.T) {
 			t.Fatalf("%d rows, the core has %d options", len(rows), len(want.Options))
 		}
 		for i, o := range want.Options {
-			cells := eval[[]string](h, `Array.from(document.querySelectorAll('#plan-table tbody tr')[`+strconv.Itoa(i)+`].children).map(function(c){return c.textContent.trim();})`)
-			wantCells := []string{o.Label, fmtRes(o.MoveTimeS), fmtRes(o.PenaltyS), fmtRes(o.WorstPeakSwingDeg), fmtRes(o.WorstPeakExcursionM), fmtRes(o.WorstResidualSwingDeg)}
-			if !strings.HasPrefix(cells[1], wantCells[0]) {
-				t.Errorf("row %d: option %q, want %q", i, cells[1], wantCells[0])
-			}
-			for j, w := range wantCells[1:] {
-				if cells[j+2] != w {
-					t.Errorf("row %d (%s) column %d: %q, the core gives %q", i, o.Key, j+2, cells[j+2], w)
+			row := "#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + ") "
+			for col, w := range map[string]string{"rank": strconv.Itoa(o.Rank) + ".", "label": o.Label, "move": fmtRes(o.MoveTimeS),
+				"extra": fmtRes(o.PenaltyS), "peak": fmtRes(o.WorstPeakSwingDeg), "excursion": fmtRes(o.WorstPeakExcursionM),
+				"residual": fmtRes(o.WorstResidualSwingDeg)} {
+				got := strings.TrimPrefix(h.text(row+`[data-col="`+col+`"]`), "\u2605 ")
+				if got != w {
+					t.Errorf("row %d (%s) %s: %q, the core gives %q", i, o.Key, col, got, w)
 				}
 			}
-			if mark := cells[7]; o.Within != strings.Contains(mark, "within") || o.Within == strings.Contains(mark, "OUTSIDE") {
+			if mark := h.text(row + `[data-col="limits"]`); o.Within != strings.Contains(mark, "within") || o.Within == strings.Contains(mark, "OUTSIDE") {
 				t.Errorf("row %d: limits %q, within %v", i, mark, o.Within)
 			}
 		}
@@ -152,6 +161,17 @@ func TestPlanner(t *testing.T) {
 		}
 	})
 
+	t.Run("the plan's touch targets are at least 44 px", func(t *testing.T) {
+		h.t = t
+		small := eval[string](h, `Array.from(document.querySelectorAll('#planner button, #planner input, #planner select, #planner summary, #planner a'))
+			.filter(function (e) { var r = e.getBoundingClientRect(); return r.width > 0 && (r.height < 44 || r.width < 44); })
+			.map(function (e) { var r = e.getBoundingClientRect(); return (e.id || e.className || e.tagName) + ' ' + Math.round(r.width) + 'x' + Math.round(r.height); })
+			.join(', ')`)
+		if small != "" {
+			t.Errorf("targets smaller than 44 px: %s", small)
+		}
+	})
+
 	t.Run("the unit switch converts the plan's figures", func(t *testing.T) {
 		h.t = t
 		if want == nil {
@@ -161,7 +181,7 @@ func TestPlanner(t *testing.T) {
 		h.settle()
 		// ft = 0.3048 m exactly (NIST SP 811, appendix B), from core/units.
 		for i, o := range want.Options {
-			got := eval[string](h, `document.querySelectorAll('#plan-table tbody tr')[`+strconv.Itoa(i)+`].children[5].textContent`)
+			got := h.text("#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + `) [data-col="excursion"]`)
 			if w := fmtRes(o.WorstPeakExcursionM / units.Foot); got != w {
 				t.Errorf("%s: excursion %q ft, want %q", o.Key, got, w)
 			}
@@ -196,7 +216,7 @@ func TestPlanner(t *testing.T) {
 		if msg := h.text("#f-plan-distance_m-msg"); !strings.Contains(msg, "Enter a number") {
 			t.Errorf("message for text: %q", msg)
 		}
-		h.do(chromedp.Click(chromedp.ID("plan-run")))
+		h.click("#plan-run")
 		if got := h.text("#plan-error"); !strings.Contains(got, "marked fields") {
 			t.Errorf("planning with a bad field: %q", got)
 		}
@@ -248,14 +268,24 @@ func TestPlanner(t *testing.T) {
 				t.Fatal(err)
 			}
 		}
+		h.do(chromedp.EmulateViewport(1180, 820))
+		eval[bool](h, `document.getElementById('plan-rec').scrollIntoView({block: 'start'}); true`)
+		time.Sleep(300 * time.Millisecond)
+		land, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot())
+		h.do(chromedp.EmulateViewport(820, 1180))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(dir, "plan-landscape.png"), land, 0o644); err != nil {
+			t.Fatal(err)
+		}
 	})
 
 	t.Run("applying the recommended option shows the core's figures for its move", func(t *testing.T) {
 		h.t = t
 		i := want.Recommended
 		o := want.Options[i]
-		h.do(chromedp.ScrollIntoView(chromedp.CSS(`#plan-opt-`+strconv.Itoa(i)+` button.apply`)),
-			chromedp.Click(chromedp.CSS(`#plan-opt-`+strconv.Itoa(i)+` button.apply`)))
+		h.click(`#plan-opt-` + strconv.Itoa(i) + ` button.apply`)
 		h.settle()
 		s := h.scenario()
 		mo, _ := s["motions"].([]any)
@@ -294,9 +324,8 @@ func TestPlanner(t *testing.T) {
 			if o.Shaper == "" || o.Drive != scenario.DriveVariableSpeed || j == i {
 				continue
 			}
-			h.do(chromedp.Click(chromedp.CSS(`#plan-opt-` + strconv.Itoa(j) + ` > summary`)))
-			h.do(chromedp.ScrollIntoView(chromedp.CSS(`#plan-opt-`+strconv.Itoa(j)+` button.apply`)),
-				chromedp.Click(chromedp.CSS(`#plan-opt-`+strconv.Itoa(j)+` button.apply`)))
+			h.click(`#plan-opt-` + strconv.Itoa(j) + ` > summary`)
+			h.click(`#plan-opt-` + strconv.Itoa(j) + ` button.apply`)
 			h.settle()
 			h.checkShown(h.core())
 			if got := h.text(`[data-move="0"]`); !strings.Contains(got, "shaper") {
@@ -336,7 +365,7 @@ func TestHookBlockPage(t *testing.T) {
 		if !eval[bool](h, `document.getElementById('r-modes') === null`) {
 			t.Error("mode periods shown without a hook block")
 		}
-		h.do(chromedp.Click(chromedp.ID("hook-on")))
+		h.click("#hook-on")
 		h.settle()
 		h.typeInto("#f-load-hook-mass_kg", "1400")
 		h.typeInto("#f-load-hook-rigging_length_m", "6")
@@ -368,15 +397,26 @@ func TestHookBlockPage(t *testing.T) {
 			}
 		}
 		// Off and on again: the hook block comes back as typed.
-		h.do(chromedp.Click(chromedp.ID("hook-on")))
+		h.click("#hook-on")
 		h.settle()
 		if _, ok := h.scenario()["load"].(map[string]any)["hook"]; ok || !eval[bool](h, `document.getElementById('r-modes') === null`) {
 			t.Error("hook block still modelled after unticking")
 		}
-		h.do(chromedp.Click(chromedp.ID("hook-on")))
+		h.click("#hook-on")
 		h.settle()
 		if got := h.value("#f-load-hook-mass_kg"); got != "1400" {
 			t.Errorf("hook mass after ticking again: %q", got)
+		}
+		dir := filepath.Join(root, "out", "browser")
+		if err := os.MkdirAll(dir, 0o755); err != nil {
+			t.Fatal(err)
+		}
+		eval[bool](h, `document.getElementById('notice').hidden = true; document.getElementById('results').scrollIntoView({block: 'start'}); true`)
+		time.Sleep(150 * time.Millisecond)
+		if shot, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot()); err != nil {
+			t.Fatal(err)
+		} else if err := os.WriteFile(filepath.Join(dir, "hook-block-results-portrait.png"), shot, 0o644); err != nil {
+			t.Fatal(err)
 		}
 		h.typeInto("#f-load-hook-rigging_length_m", "0")
 		h.settle()

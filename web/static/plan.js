@@ -52,6 +52,13 @@
   function withU(dq, v) { return num(dq, v) + '\u00A0' + sym(dq); }
   function secs(v) { return A().fmtRes(v) + '\u00A0s'; }
   function deg(v) { return A().fmtRes(v) + '\u00A0deg'; }
+  // siNote marks the planner's own sentences, which give figures in SI
+  // units, when other units are shown.
+  function siNote() {
+    var a = A();
+    if (a.unitOf('length').symbol === 'm' && a.unitOf('speed').symbol.indexOf('ft') < 0) return '';
+    return ' <span class="small si-note">(the planner\u2019s sentences give figures in SI units)</span>';
+  }
   function isSlew(r) { return r.axis === 'slew'; }
   function speedDQ(r) { return isSlew(r) ? 'angular_speed' : 'speed'; }
   function accelDQ(r) { return isSlew(r) ? 'angular_acceleration' : 'acceleration'; }
@@ -292,9 +299,9 @@
     out.push(summary(r));
     out.push(recommended(r));
     if (r.infeasible && r.infeasible.length) {
-      out.push('<div class="plan-infeasible" id="plan-infeasible"><h3>What to change</h3>' + list(r.infeasible, 'warn-list', '\u2716') + '</div>');
+      out.push('<div class="plan-infeasible" id="plan-infeasible"><h3>What to change</h3>' + list(r.infeasible, 'warn-list', '\u2716') + siNote() + '</div>');
     }
-    if (r.notes && r.notes.length) out.push('<div class="plan-notes"><h3>Notes</h3>' + list(r.notes, 'note-list', '\u2139') + '</div>');
+    if (r.notes && r.notes.length) out.push('<div class="plan-notes"><h3>Notes</h3>' + list(r.notes, 'note-list', '\u2139') + siNote() + '</div>');
     if (r.options.length) {
       out.push(table(r));
       out.push('<h3 class="plan-h">Each option: crew settings and checked figures</h3>');
@@ -321,36 +328,40 @@
 
   function recommended(r) {
     if (r.recommended < 0) {
-      return '<div class="plan-rec none" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2716</span> No option is recommended</p><p>' + esc(r.reason) + '</p></div>';
+      return '<div class="plan-rec none" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2716</span> No option is recommended</p><p>' + esc(r.reason) + siNote() + '</p></div>';
     }
     var o = r.options[r.recommended];
     // The core's reason starts by naming the option, as the heading does.
     var why = r.reason, lead = 'Recommended: ' + o.label + ' \u2014 ';
     if (why.indexOf(lead) === 0) why = why.slice(lead.length);
     return '<div class="plan-rec" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2605</span> Recommended: <span id="plan-rec-label">' + esc(o.label) + '</span></p>' +
-      '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span></p>' +
+      '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span>' + siNote() + '</p>' +
       '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a></p></div>';
   }
 
-  function verdict(o) {
+  // verdict says whether an option keeps inside every limit, and which it
+  // breaks (the figures are in the table beside it).
+  function verdict(o, short) {
     if (o.within) return '<span class="verdict ok"><span aria-hidden="true">\u2714</span> within</span>';
     var which = (o.outside || []).map(function (t) { return t.split(' ').slice(0, 2).join(' '); });
-    return '<span class="verdict out"><span aria-hidden="true">\u2716</span> OUTSIDE' + (which.length ? ': ' + esc(which.join(', ')) : '') + '</span>';
+    return '<span class="verdict out"><span aria-hidden="true">\u2716</span> OUTSIDE</span>' +
+      (which.length ? (short ? '<br>' : ': ') + '<span class="which">' + esc(which.join(', ')) + '</span>' : '');
   }
 
   function table(r) {
     var L = sym('length');
-    var h = '<div class="table-wrap"><table class="plan-table" id="plan-table"><caption>Options, best first (peak and residual: the worst over the rope lengths simulated)</caption><thead><tr>' +
-      '<th scope="col">Rank</th><th scope="col">Option</th><th scope="col">Move time (s)</th><th scope="col">Longer than fastest (s)</th>' +
-      '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Limits</th></tr></thead><tbody>';
+    var h = '<div class="table-wrap"><table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
+      '<th scope="col">Option</th><th scope="col">Move (s)</th><th scope="col">Extra (s)</th>' +
+      '<th scope="col">Peak (deg)</th><th scope="col">Excursion (' + esc(L) + ')</th><th scope="col">Residual (deg)</th></tr></thead><tbody>';
     r.options.forEach(function (o, i) {
       var rec = i === r.recommended;
       h += '<tr class="' + (rec ? 'rec' : '') + (o.within ? '' : ' out') + '" data-key="' + esc(o.key) + '">' +
-        '<td>' + (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '</td>' +
-        '<th scope="row"><a href="#plan-opt-' + i + '">' + esc(o.label) + '</a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') + '</th>' +
-        '<td class="n">' + A().fmtRes(o.move_time_s) + '</td><td class="n">' + A().fmtRes(o.penalty_s) + '</td>' +
-        '<td class="n">' + A().fmtRes(o.worst_peak_swing_deg) + '</td><td class="n">' + num('length', o.worst_peak_excursion_m) + '</td>' +
-        '<td class="n">' + A().fmtRes(o.worst_residual_swing_deg) + '</td><td>' + verdict(o) + '</td></tr>';
+        '<th scope="row"><a href="#plan-opt-' + i + '"><span data-col="rank">' + (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '.</span> ' +
+        '<span data-col="label">' + esc(o.label) + '</span></a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') +
+        '<span class="lim" data-col="limits">' + verdict(o, false) + '</span></th>' +
+        '<td class="n" data-col="move">' + A().fmtRes(o.move_time_s) + '</td><td class="n" data-col="extra">' + A().fmtRes(o.penalty_s) + '</td>' +
+        '<td class="n" data-col="peak">' + A().fmtRes(o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion">' + num('length', o.worst_peak_excursion_m) + '</td>' +
+        '<td class="n" data-col="residual">' + A().fmtRes(o.worst_residual_swing_deg) + '</td></tr>';
     });
     return h + '</tbody></table></div>';
   }
