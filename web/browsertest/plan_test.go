@@ -335,6 +335,33 @@ func TestPlanner(t *testing.T) {
 		}
 	})
 
+	t.Run("ticking Plan a move starts from the first move; the plan button plans", func(t *testing.T) {
+		h.t = t
+		h.openExample("Fabrication bay: girder on the overhead crane")
+		if eval[bool](h, `document.getElementById('plan-on').checked`) {
+			t.Fatal("the demo has no plan block")
+		}
+		h.click("#plan-on")
+		h.settle()
+		p := h.scenario()["plan"].(map[string]any)
+		mo := h.scenario()["motions"].([]any)[0].(map[string]any)
+		if p["distance_m"] != mo["distance_m"] || p["top_speed_m_per_s"] != mo["speed_m_per_s"] || p["max_accel_m_per_s2"] != mo["accel_m_per_s2"] {
+			t.Errorf("plan %v from move %v", p, mo)
+		}
+		before := eval[int](h, `window.swaysheetPlan.count()`)
+		h.click("#plan-run")
+		h.planSettled(before)
+		w := h.corePlan()
+		if w.Recommended >= 0 && h.text("#plan-rec-label") != w.Options[w.Recommended].Label {
+			t.Errorf("recommended %q, the core %q", h.text("#plan-rec-label"), w.Options[w.Recommended].Label)
+		}
+		h.click("#plan-on")
+		h.settle()
+		if _, ok := h.scenario()["plan"]; ok {
+			t.Error("plan block kept after unticking")
+		}
+	})
+
 	t.Run("a slew plan opens with its plan", func(t *testing.T) {
 		h.t = t
 		before := eval[int](h, `window.swaysheetPlan.count()`)

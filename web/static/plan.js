@@ -75,7 +75,19 @@
 
   // ---------------------------------------------------------------- inputs
 
-  function defaultPlan() {
+  // defaultPlan starts from the scenario's first plain move when there is
+  // one, else from a short travel.
+  function defaultPlan(s) {
+    var m = (s.motions || [])[0];
+    var ok = function (v) { return typeof v === 'number' && v !== 0; };
+    if (m && (m.profile || 'trapezoid') === 'trapezoid' && !m.shaper) {
+      if ((m.axis === 'travel_x' || m.axis === 'travel_y') && ok(m.distance_m) && ok(m.speed_m_per_s) && ok(m.accel_m_per_s2)) {
+        return { axis: m.axis, distance_m: m.distance_m, top_speed_m_per_s: m.speed_m_per_s, max_accel_m_per_s2: m.accel_m_per_s2 };
+      }
+      if (m.axis === 'slew' && ok(m.angle_deg) && ok(m.rate_deg_per_s) && ok(m.accel_deg_per_s2)) {
+        return { axis: 'slew', angle_deg: m.angle_deg, top_rate_deg_per_s: m.rate_deg_per_s, max_accel_deg_per_s2: m.accel_deg_per_s2 };
+      }
+    }
     return { axis: 'travel_x', distance_m: 10, top_speed_m_per_s: 0.5, max_accel_m_per_s2: 0.3 };
   }
 
@@ -170,7 +182,7 @@
     var a = A(), s = a.S.scenario;
     if (el.id !== 'plan-on') return false;
     if (el.checked) {
-      s.plan = P.stash || defaultPlan();
+      s.plan = P.stash || defaultPlan(s);
     } else {
       P.stash = s.plan;
       delete s.plan;
