@@ -381,6 +381,29 @@ func TestPlanner(t *testing.T) {
 		if s := h.text("#plan-summary"); !strings.Contains(s, "Slew") || !strings.Contains(s, "deg/s") {
 			t.Errorf("slew summary: %q", s)
 		}
+		// Too fast a slew for the limit: the lean alone breaks it, and the
+		// core says what to change.
+		h.typeInto("#f-plan-top_rate_deg_per_s", "30")
+		h.settle()
+		before = eval[int](h, `window.swaysheetPlan.count()`)
+		h.click("#plan-run")
+		h.planSettled(before)
+		w = h.corePlan()
+		if len(w.Infeasible) == 0 {
+			t.Fatal("the core finds the fast slew feasible")
+		}
+		got := h.texts("#plan-infeasible li")
+		if len(got) != len(w.Infeasible) {
+			t.Fatalf("infeasible messages %q, the core %q", got, w.Infeasible)
+		}
+		for i, m := range w.Infeasible {
+			if !strings.Contains(got[i], m) {
+				t.Errorf("message %d: %q, the core %q", i, got[i], m)
+			}
+		}
+		if !strings.Contains(h.text("#plan-rec"), "No option") {
+			t.Errorf("no recommendation not said: %q", h.text("#plan-rec"))
+		}
 	})
 }
 
@@ -464,6 +487,14 @@ func TestHookBlockPage(t *testing.T) {
 		}
 		if got := h.value("#f-load-hook-rigging_length_m"); got != "6" {
 			t.Errorf("rigging length field %q", got)
+		}
+		if len(r.Warnings) == 0 {
+			t.Error("the core gives no warning for the heavy hook block")
+		}
+		for _, w := range r.Warnings {
+			if !strings.Contains(h.text("#warnings"), w) {
+				t.Errorf("warning not shown: %q", w)
+			}
 		}
 	})
 }
