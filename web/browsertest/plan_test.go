@@ -11,6 +11,7 @@ import (
 	"time"
 
 	"github.com/chromedp/chromedp"
+	"github.com/chromedp/chromedp/kb"
 
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
@@ -233,6 +234,24 @@ func TestPlanner(t *testing.T) {
 		if msg := h.text("#f-plan-pendant_steps_pct-msg"); !strings.Contains(msg, "100") {
 			t.Errorf("message at the pendant steps: %q", msg)
 		}
+		// A variable-speed drive has no pendant steps: the field goes, and
+		// the steps come back with the pendant.
+		h.do(chromedp.Focus(chromedp.ID("f-plan-drive")), chromedp.KeyEvent(kb.ArrowDown))
+		h.settle()
+		if _, ok := h.scenario()["plan"].(map[string]any)["pendant_steps_pct"]; ok || eval[bool](h, `!!document.getElementById('f-plan-pendant_steps_pct')`) {
+			t.Error("pendant steps kept with a variable-speed drive")
+		}
+		if msg := h.text("#general-error"); msg != "" && !eval[bool](h, `document.getElementById('general-error').hidden`) {
+			t.Errorf("general error: %q", msg)
+		}
+		if got := h.value("#f-plan-drive"); got != "variable_speed" {
+			t.Errorf("drive after the arrow key: %q", got)
+		}
+		h.do(chromedp.Focus(chromedp.ID("f-plan-drive")), chromedp.KeyEvent(kb.ArrowUp))
+		h.settle()
+		if got := h.value("#f-plan-pendant_steps_pct"); got != "50, 40" {
+			t.Errorf("pendant steps after choosing either drive again: %q", got)
+		}
 		h.typeInto("#f-plan-pendant_steps_pct", "")
 		h.settle()
 		if !eval[bool](h, `document.getElementById('plan-stale').hidden`) {
@@ -285,6 +304,9 @@ func TestPlanner(t *testing.T) {
 		h.t = t
 		i := want.Recommended
 		o := want.Options[i]
+		if !strings.Contains(h.text("#plan-nomove"), "motions are empty") {
+			t.Error("no note that the example has no motions yet")
+		}
 		h.click(`#plan-opt-` + strconv.Itoa(i) + ` button.apply`)
 		h.settle()
 		s := h.scenario()

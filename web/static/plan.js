@@ -160,6 +160,21 @@
 
   function onSelect(el) {
     var a = A(), s = a.S.scenario;
+    if (el.dataset.select === 'plan.drive') {
+      // The crew's own pendant steps apply to a pendant only: kept aside
+      // while a variable-speed drive is chosen.
+      if (el.value === 'variable_speed') {
+        if (s.plan.pendant_steps_pct) P.steps = s.plan.pendant_steps_pct;
+        delete s.plan.pendant_steps_pct;
+        a.clearBad('plan.pendant_steps_pct');
+      } else if (P.steps && !s.plan.pendant_steps_pct) {
+        s.plan.pendant_steps_pct = P.steps;
+      }
+      a.setPath(s, 'plan.drive', el.value === '' ? undefined : el.value);
+      a.renderForm();
+      a.changed();
+      return true;
+    }
     if (el.dataset.select !== 'plan.axis') return false;
     var p = s.plan, wasSlew = p.axis === 'slew', nowSlew = el.value === 'slew';
     p.axis = el.value;
@@ -310,6 +325,10 @@
       '>\u26A0 The inputs changed since this plan was made: press \u201CPlan the move\u201D again. The plan below is for the earlier inputs.</p>');
     out.push(summary(r));
     out.push(recommended(r));
+    if (!(s.motions || []).length && r.options.length) {
+      out.push('<p class="note-list plan-nomove" id="plan-nomove"><span aria-hidden="true">\u2139</span> The crane motions are empty, so the results above show the load at rest. ' +
+        'Use one of these moves in the crane motions to see its swing there.</p>');
+    }
     if (r.infeasible && r.infeasible.length) {
       out.push('<div class="plan-infeasible" id="plan-infeasible"><h3>What to change</h3>' + list(r.infeasible, 'warn-list', '\u2716') + siNote() + '</div>');
     }
