@@ -135,8 +135,8 @@
     return '<div class="field" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) +
       ' <span class="opt">(optional)</span></label><div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-list="' +
       esc(path) + '" value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg"><span class="pv" aria-hidden="true"></span>' +
-      '<span class="unit" aria-label="unit">% of top</span></div>' +
-      '<p class="hint" id="' + id + '-hint">slowest first, the last 100, for example 33, 67, 100; blank: the planner picks the steps</p>' +
+      '<span class="unit" aria-label="unit">%</span></div>' +
+      '<p class="hint" id="' + id + '-hint">% of the top speed, slowest first, the last 100, for example 33, 67, 100; blank: the planner picks the steps</p>' +
       '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
   }
 
@@ -326,7 +326,7 @@
     out.push(summary(r));
     out.push(recommended(r));
     if (!(s.motions || []).length && r.options.length) {
-      out.push('<p class="note-list plan-nomove" id="plan-nomove"><span aria-hidden="true">\u2139</span> The crane motions are empty, so the results above show the load at rest. ' +
+      out.push('<p class="plan-nomove" id="plan-nomove"><span aria-hidden="true">\u2139</span> The crane motions are empty, so the results above show the load at rest. ' +
         'Use one of these moves in the crane motions to see its swing there.</p>');
     }
     if (r.infeasible && r.infeasible.length) {
