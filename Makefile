@@ -68,7 +68,8 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
 
-# Regenerate testdata/reference/results.json with SciPy (Debian's
+# Regenerate testdata/reference/results.json and results_double.json (hook
+# block and rigging) with SciPy (Debian's
 # python3-scipy, installed when missing). The tests read the committed file
 # and need no Python.
 PYTHON_REF ?= /usr/bin/python3
@@ -79,6 +80,7 @@ scipy-deps:
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq python3-scipy; fi; }
 
 reference: scipy-deps
+	$(PYTHON_REF) testdata/reference/double.py generate
 	$(PYTHON_REF) testdata/reference/reference.py generate
 
 # Speed and size, side by side, in one table (see README "Benchmarks").

@@ -48,6 +48,7 @@ func (rq *request) linearRatio(a float64) float64 {
 	}
 	worst := 0.0
 	for _, l := range rq.ropes {
+		l += rq.rig // a hook block's rigging: one pendulum to the load, a first guess
 		th := linearPeak(p, rq.k, l) + lean
 		if rq.lim.PeakSwingDeg > 0 {
 			worst = math.Max(worst, th/(rq.lim.PeakSwingDeg*units.Degree))

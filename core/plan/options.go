@@ -104,11 +104,23 @@ func (rq *request) shapedDrive(kind string) (*Option, error) {
 	if err != nil {
 		return nil, err
 	}
+	return rq.shapedDriveWith(sh, kind, kind+"_"+scenario.DriveVariableSpeed, shaperLabel(kind)+"-shaped speed profile (variable-speed drive)"), nil
+}
+
+// shapedDriveWith is the drive-limits move through the shaper sh (of the
+// given kind, single- or two-mode).
+func (rq *request) shapedDriveWith(sh *shaper.Shaper, kind, key, label string) *Option {
 	base := motion.NewTrapezoid(0, rq.dist, rq.vmax, rq.amax, rq.amax)
 	p := sh.Apply(base)
-	o := &Option{Key: kind + "_" + scenario.DriveVariableSpeed, Label: shaperLabel(kind) + "-shaped speed profile (variable-speed drive)",
+	o := &Option{Key: key, Label: label,
 		Drive: scenario.DriveVariableSpeed, Shaper: kind, profile: p, Motion: rq.motionFor(rq.amax, rq.vmax)}
 	o.Motion.Shaper = &scenario.ShaperSpec{Kind: kind, PeriodS: &rq.designT, DampingRatio: sh.Damping, TolerancePct: sh.Tolerance * 100}
+	tuned := fmt.Sprintf("%.3g s", rq.designT)
+	if sh.SecondPeriodS > 0 {
+		t2 := sh.SecondPeriodS
+		o.Motion.Shaper.SecondPeriodS = &t2
+		tuned = fmt.Sprintf("%.3g s and %.3g s", rq.designT, t2)
+	}
 	rq.setAccel(o, rq.amax, rq.vmax)
 	o.RampS = base.PeakSpeed()/rq.amax + sh.Duration()
 	o.MoveTimeS = p.End()
@@ -116,11 +128,15 @@ func (rq *request) shapedDrive(kind string) (*Option, error) {
 	for _, t := range p.Breakpoints() {
 		o.SpeedProfile = append(o.SpeedProfile, Knot{TS: t, Speed: p.At(t).Vel * rq.axisUnit()})
 	}
-	o.Settings = []string{fmt.Sprintf("Program the drive's speed profile (multi-segment ramps or the drive's own sway-control function), tuned to a sway period of %.3g s:", rq.designT)}
+	o.Settings = []string{fmt.Sprintf("Program the drive's speed profile (multi-segment ramps or the drive's own sway-control function), tuned to sway periods of %s:", tuned)}
+	if sh.SecondPeriodS == 0 {
+		o.Settings[0] = fmt.Sprintf("Program the drive's speed profile (multi-segment ramps or the drive's own sway-control function), tuned to a sway period of %s:", tuned)
+	}
 	o.Settings = append(o.Settings, rq.segments(o.SpeedProfile)...)
 	o.Settings = append(o.Settings, fmt.Sprintf("Each start and each stop takes %.3g s in all (the drive's ramp of %.3g s spread over %.3g s more).",
 		o.RampS, base.PeakSpeed()/rq.amax, sh.Duration()))
-	return o, nil
+	rq.markModes(o, sh)
+	return o
 }
 
 // segments describes a piecewise linear speed profile in words.
@@ -154,7 +170,12 @@ func (rq *request) shapedPendant(kind string) (*Option, error) {
 	if err != nil {
 		return nil, err
 	}
-	return rq.pendant(kind+"_"+scenario.DrivePendant, shaperLabel(kind)+" pendant steps (step-speed drive)", kind, sh.Impulses)
+	o, err := rq.pendant(kind+"_"+scenario.DrivePendant, shaperLabel(kind)+" pendant steps (step-speed drive)", kind, sh.Impulses)
+	if err != nil {
+		return nil, err
+	}
+	rq.markModes(o, sh)
+	return o, nil
 }
 
 // pendant lays out pendant presses for an impulse sequence (see
@@ -300,13 +321,21 @@ func curves(rq *request) Curves {
 		at.RampS = append(at.RampS, q*rq.designT)
 		at.Periods = append(at.Periods, q)
 	}
+	if rq.s.Load.Hook != nil {
+		at.Basis += "; with a hook block, the sum over both modes of each mode's share of the load's swing times that, T the mode's period (in phase: an upper bound)"
+	}
 	for _, l := range rq.ropes {
-		tl := period(l)
+		ms := rq.modesAt(l)
 		s := RampSeries{RopeLengthM: l}
 		for _, t := range at.RampS {
-			r := vHook * 2 * math.Pi / tl / g // limit t -> 0: V*w/g
-			if t > 0 {
-				r = 2 * vHook / (g * t) * math.Abs(math.Sin(math.Pi*t/tl))
+			r := 0.0
+			for i, w := range ms.omega {
+				tl := 2 * math.Pi / w
+				ri := vHook * w / g // limit t -> 0: V*w/g
+				if t > 0 {
+					ri = 2 * vHook / (g * t) * math.Abs(math.Sin(math.Pi*t/tl))
+				}
+				r += ms.share[i] * ri
 			}
 			s.ResidualDeg = append(s.ResidualDeg, r/units.Degree)
 		}
@@ -314,7 +343,10 @@ func curves(rq *request) Curves {
 	}
 	re := &c.RopeError
 	re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990), w = sqrt(g/L)"
-	ld := g * rq.designT * rq.designT / (4 * math.Pi * math.Pi)
+	if rq.s.Load.Hook != nil {
+		re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990) in each mode of hook block and rigging, weighted by the mode's share of the load's swing and added (an upper bound); L is the rope to the hook"
+	}
+	ld := rq.designRope()
 	lo, hi := rq.ropes[0], rq.ropes[0]
 	for _, l := range rq.ropes {
 		lo, hi = math.Min(lo, l), math.Max(hi, l)
@@ -323,15 +355,24 @@ func curves(rq *request) Curves {
 	for i := -50; i <= 50; i++ {
 		re.ErrorPct = append(re.ErrorPct, float64(i))
 	}
+	var shapers []*shaper.Shaper
 	for _, kind := range shaper.Kinds {
-		sh, err := rq.design(kind)
-		if err != nil {
-			continue
+		if sh, err := rq.design(kind); err == nil {
+			shapers = append(shapers, sh)
 		}
-		s := ShaperSeries{Shaper: kind}
+	}
+	if rq.s.Load.Hook != nil {
+		for _, kind := range shaper.Kinds {
+			if sh, err := rq.designTwoMode(kind); err == nil {
+				shapers = append(shapers, sh)
+			}
+		}
+	}
+	for _, sh := range shapers {
+		s := ShaperSeries{Shaper: sh.Kind}
 		for _, e := range re.ErrorPct {
-			w := math.Sqrt(g / (ld * (1 + e/100)))
-			s.ResidualPct = append(s.ResidualPct, 100*sh.Residual(w, sh.Damping))
+			ms := rq.modesAt(ld * (1 + e/100))
+			s.ResidualPct = append(s.ResidualPct, 100*ms.loadResidual(sh.Impulses, sh.Damping))
 		}
 		re.Series = append(re.Series, s)
 	}
@@ -355,20 +396,21 @@ func (rq *request) ownPendant(pcts []float64) (*Option, float64, error) {
 		imps[i] = motion.Impulse{A: p/100 - prev, T: float64(i) * rq.designT / 2}
 		prev = p / 100
 	}
-	g := units.StandardGravity
 	lo, hi := rq.ropes[0], rq.ropes[0]
 	for _, l := range rq.ropes {
 		lo, hi = math.Min(lo, l), math.Max(hi, l)
 	}
-	var ws []float64
+	// With a hook block both modes count, each by its share of the load's
+	// swing (modeSet.loadResidual).
+	var ws []modeSet
 	for j := range 5 {
 		l := lo + (hi-lo)*float64(j)/4
-		ws = append(ws, math.Sqrt(g/l))
+		ws = append(ws, rq.modesAt(l))
 	}
 	cost := func() float64 {
 		worst := 0.0
 		for _, w := range ws {
-			worst = math.Max(worst, shaper.Residual(imps, w, 0))
+			worst = math.Max(worst, w.loadResidual(imps, 0))
 		}
 		return worst + 0.002*imps[n-1].T/rq.designT
 	}
@@ -433,7 +475,7 @@ func (rq *request) ownPendant(pcts []float64) (*Option, float64, error) {
 	}
 	worst := 0.0
 	for _, w := range ws {
-		worst = math.Max(worst, shaper.Residual(imps, w, 0))
+		worst = math.Max(worst, w.loadResidual(imps, 0))
 	}
 	words := make([]string, n)
 	for i, p := range pcts {
@@ -444,5 +486,13 @@ func (rq *request) ownPendant(pcts []float64) (*Option, float64, error) {
 		return nil, 0, err
 	}
 	o.Settings = append(o.Settings, fmt.Sprintf("Linear theory: these press times leave at most %.2g %% of the swing an instant press to full speed would leave, over the rope-length range.", 100*worst))
+	if rq.s.Load.Hook != nil {
+		o.ModeResidualPct = rq.modeResidual(imps, 0)
+		if rq.share2 >= MinSecondShare {
+			o.TwoMode = true
+			o.Settings = append(o.Settings, fmt.Sprintf("The times are chosen for both sway modes of hook block and rigging (%.3g s and %.3g s), each weighted by its share of the load's swing: they leave at most %.2g %% and %.2g %% in each mode.",
+				rq.designT, rq.designT2, o.ModeResidualPct[0], o.ModeResidualPct[1]))
+		}
+	}
 	return o, worst, nil
 }

@@ -30,6 +30,10 @@
 // With a range of rope lengths the shapers and whole-period ramps are tuned
 // to the middle of the range of sway frequencies, w_mid = (w(Lmin) +
 // w(Lmax))/2, which keeps the worst residual at the two ends equal.
+//
+// With a hook block and rigging (load.hook) the load swings in two modes;
+// the single-mode options are tuned to the slower one and two-mode shapers
+// (two shapers convolved) are offered beside them: see twomode.go.
 package plan
 
 import (
@@ -65,19 +69,25 @@ type Result struct {
 
 	RopeLengthM   float64   `json:"rope_length_m"`
 	RopeLengthsM  []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
-	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length
+	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length (the slower mode with a hook block)
 	DesignPeriodS float64   `json:"design_period_s"`
-	DesignRopeM   float64   `json:"design_rope_length_m"`
-	Limits        Limits    `json:"limits"`
-	Options       []Option  `json:"options"`
-	Recommended   int       `json:"recommended"` // index in Options, -1 if none
-	Reason        string    `json:"reason"`
-	Infeasible    []string  `json:"infeasible"` // what to change, when nothing fits
-	Notes         []string  `json:"notes"`
-	Curves        Curves    `json:"curves"`
-	Assumptions   []string  `json:"assumptions"`
-	Cautions      []string  `json:"cautions"`
-	Simulations   int       `json:"simulations"`
+	// With a hook block: both mode periods at the nominal rope length,
+	// the second mode's design period and its largest share of the load's
+	// swing over the rope lengths (see twomode.go).
+	ModePeriodsS        []float64 `json:"mode_periods_s,omitempty"`
+	SecondDesignPeriodS float64   `json:"second_design_period_s,omitempty"`
+	SecondModeShare     float64   `json:"second_mode_share,omitempty"`
+	DesignRopeM         float64   `json:"design_rope_length_m"`
+	Limits              Limits    `json:"limits"`
+	Options             []Option  `json:"options"`
+	Recommended         int       `json:"recommended"` // index in Options, -1 if none
+	Reason              string    `json:"reason"`
+	Infeasible          []string  `json:"infeasible"` // what to change, when nothing fits
+	Notes               []string  `json:"notes"`
+	Curves              Curves    `json:"curves"`
+	Assumptions         []string  `json:"assumptions"`
+	Cautions            []string  `json:"cautions"`
+	Simulations         int       `json:"simulations"`
 }
 
 // Limits are the plan's limits; a zero means not given.
@@ -94,6 +104,12 @@ type Option struct {
 	Label  string `json:"label"`
 	Drive  string `json:"drive"` // variable_speed or pendant
 	Shaper string `json:"shaper,omitempty"`
+	// TwoMode marks a shaper designed for both modes of hook block and
+	// rigging; ModeResidualPct is a shaped option's linear-theory residual
+	// vibration in each mode (% of the drive-limits move's), the worst
+	// over the rope lengths, when there is a hook block.
+	TwoMode         bool      `json:"two_mode,omitempty"`
+	ModeResidualPct []float64 `json:"mode_residual_pct,omitempty"`
 
 	// Settings in the axis' unit (one pair is set).
 	AccelMPerS2    float64 `json:"accel_m_per_s2,omitempty"`
@@ -130,7 +146,10 @@ type Verified struct {
 	PeakExcursionM   float64 `json:"peak_excursion_m"`
 	ResidualSwingDeg float64 `json:"residual_swing_deg"`
 	TensionFactor    float64 `json:"tension_factor"`
-	Warnings         int     `json:"warnings"`
+	// PeakRiggingAngleDeg is the largest angle between rope and rigging,
+	// with a hook block.
+	PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg,omitempty"`
+	Warnings            int     `json:"warnings"`
 }
 
 // Knot is one corner of a piecewise linear speed profile (speed in the
@@ -216,6 +235,9 @@ type request struct {
 	zeta, tol  float64
 	drive      string
 	designT    float64
+	// With a hook block: the second mode's design period, its largest
+	// share of the load's swing, the rigging length (m).
+	designT2, share2, rig float64
 }
 
 // Make plans the move of s.Plan. s must carry a plan block; it is
@@ -232,9 +254,17 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	res := &Result{
 		Name: s.Name, Axis: s.Plan.Axis, RopeLengthM: *s.Load.RopeLengthM, RopeLengthsM: rq.ropes,
 		PeriodS: period(*s.Load.RopeLengthM), DesignPeriodS: rq.designT,
-		DesignRopeM: g * rq.designT * rq.designT / (4 * math.Pi * math.Pi),
+		DesignRopeM: rq.designRope(),
 		Limits:      rq.lim, Recommended: -1, Assumptions: Assumptions, Cautions: Cautions,
 		Infeasible: []string{}, Notes: []string{}, Options: []Option{},
+	}
+	if s.Load.Hook != nil {
+		ms := rq.modesAt(*s.Load.RopeLengthM)
+		res.ModePeriodsS = []float64{2 * math.Pi / ms.omega[0], 2 * math.Pi / ms.omega[1]}
+		res.PeriodS = res.ModePeriodsS[0]
+		res.SecondDesignPeriodS, res.SecondModeShare = rq.designT2, rq.share2
+		res.Assumptions = append(append([]string{}, Assumptions...), twoModeAssumption)
+		res.Notes = append(res.Notes, rq.modeNotes()...)
 	}
 	if rq.slew {
 		res.AngleDeg = rq.dist / units.Degree
@@ -276,6 +306,13 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			}
 			add(o)
 		}
+	}
+	if s.Load.Hook != nil {
+		two, err := rq.twoModeOptions()
+		if err != nil {
+			return nil, err
+		}
+		opts = append(opts, two...)
 	}
 	if own := s.Plan.PendantStepsPct; len(own) > 0 && rq.drive != scenario.DriveVariableSpeed {
 		o, _, err := rq.ownPendant(own)
@@ -349,6 +386,9 @@ func newRequest(s *scenario.Scenario) *request {
 	}
 	w := (math.Sqrt(units.StandardGravity/lo) + math.Sqrt(units.StandardGravity/hi)) / 2
 	rq.designT = 2 * math.Pi / w
+	if s.Load.Hook != nil {
+		rq.setModes(lo, hi)
+	}
 	if lm := s.Limits; lm != nil {
 		if lm.PeakSwingDeg != nil {
 			rq.lim.PeakSwingDeg = *lm.PeakSwingDeg
@@ -361,13 +401,13 @@ func newRequest(s *scenario.Scenario) *request {
 	return rq
 }
 
-// maxRope is the longest rope simulated.
+// maxRope is the longest rope simulated, to the load (rigging included).
 func (rq *request) maxRope() float64 {
 	m := 0.0
 	for _, l := range rq.ropes {
 		m = math.Max(m, l)
 	}
-	return m
+	return m + rq.rig
 }
 
 // angleLimit is the swing angle allowed by the limits at the longest rope,
@@ -389,18 +429,7 @@ func (rq *request) precheck(res *Result) []string {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if w := rq.s.Wind; w != nil {
-		// The steady lean under the scenario's wind (force from speed as in sway).
-		f := 0.0
-		if w.ForceN != nil {
-			f = *w.ForceN
-		} else {
-			rho := w.AirDensityKgPerM3
-			if rho == 0 {
-				rho = units.AirDensity
-			}
-			f = 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * rq.s.Load.AreaM2 * w.ShapeFactor
-		}
-		lean := math.Atan2(f, *rq.s.Load.MassKg*g)
+		lean := rq.steadyLean(sway.WindForceN(rq.s))
 		if lean >= th {
 			msgs = append(msgs, fmt.Sprintf("The wind alone leans the rope %.3g deg, at or above the swing allowed by the limits (%.3g deg): no drive setting can keep the load inside them. Wait for less wind, or change the limits.",
 				lean/units.Degree, th/units.Degree))
@@ -498,12 +527,16 @@ func (rq *request) simulate(m *scenario.Motion, rope float64) (Verified, error) 
 	sc.Motions = []scenario.Motion{*m}
 	sc.Load.RopeLengthM = &rope
 	sc.Settings = &scenario.Settings{RelTol: RelTol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true})
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
 	if err != nil {
 		return Verified{}, err
 	}
-	return Verified{RopeLengthM: rope, PeakSwingDeg: r.PeakSwingDeg, PeakExcursionM: r.PeakExcursionM,
-		ResidualSwingDeg: r.ResidualSwingDeg, TensionFactor: r.TensionFactor, Warnings: len(r.Warnings)}, nil
+	v := Verified{RopeLengthM: rope, PeakSwingDeg: r.PeakSwingDeg, PeakExcursionM: r.PeakExcursionM,
+		ResidualSwingDeg: r.ResidualSwingDeg, TensionFactor: r.TensionFactor, Warnings: len(r.Warnings)}
+	if r.Rigging != nil {
+		v.PeakRiggingAngleDeg = r.Rigging.PeakRiggingAngleDeg
+	}
+	return v, nil
 }
 
 func (o *Option) setVerified(vs []Verified, lim Limits) {
@@ -635,12 +668,22 @@ func (rq *request) recommend(res *Result) {
 	}
 	best := 0
 	// An option almost as fast (within 5 %) that is less sensitive wins.
+	// When the second mode of hook block and rigging matters, one designed
+	// for both modes wins over one tuned to the first only: what the
+	// latter leaves in the second mode depends on how the two periods fall
+	// and changes with the rope length and the rigging.
+	both := rq.twoMode()
 	for i := 1; i < len(res.Options); i++ {
 		o := res.Options[i]
 		if !o.Within || o.MoveTimeS > res.Options[0].MoveTimeS*1.05 {
 			break
 		}
-		if o.WorstResidualSwingDeg < 0.5*res.Options[best].WorstResidualSwingDeg {
+		b := res.Options[best]
+		switch {
+		case both && o.TwoMode && !b.TwoMode:
+			best = i
+		case both && !o.TwoMode && b.TwoMode:
+		case o.WorstResidualSwingDeg < 0.5*b.WorstResidualSwingDeg:
 			best = i
 		}
 	}
@@ -649,9 +692,15 @@ func (rq *request) recommend(res *Result) {
 	why := fmt.Sprintf("fastest option that keeps peak and residual swing inside the limits at every rope length simulated (%s m)", lengths)
 	if best != 0 {
 		why = fmt.Sprintf("within 5 %% of the fastest option's move time and less sensitive to the rope length; it keeps inside the limits at every rope length simulated (%s m)", lengths)
+		if both && o.TwoMode && !res.Options[0].TwoMode {
+			why = fmt.Sprintf("within 5 %% of the fastest option's move time and designed for both sway modes, where the faster one is tuned to the first only; it keeps inside the limits at every rope length simulated (%s m)", lengths)
+		}
 	}
 	res.Reason = fmt.Sprintf("Recommended: %s — %s. Move time %.3g s, %.3g s longer than at the drive limits; worst residual swing %.2g deg (limit %.3g deg).",
 		o.Label, why, o.MoveTimeS, o.PenaltyS, o.WorstResidualSwingDeg, rq.lim.ResidualSwingDeg)
+	if rq.s.Load.Hook != nil {
+		res.Reason += " " + rq.modeReason(&o)
+	}
 }
 
 // whatToChange explains, from the options' failures, what would make the

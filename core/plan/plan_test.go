@@ -33,7 +33,7 @@ func load(t testing.TB, name string) *scenario.Scenario {
 // ends of the range. The limits are the invented examples' own (demo
 // data); the check is of the planner against the simulation.
 func TestRecommendedWithinLimits(t *testing.T) {
-	for _, name := range []string{"plan-bay-travel.json", "plan-tower-slew.json", "plan-gantry-pendant.json"} {
+	for _, name := range []string{"plan-bay-travel.json", "plan-tower-slew.json", "plan-gantry-pendant.json", "plan-precast-hook.json"} {
 		s := load(t, name)
 		r, err := Make(s)
 		if err != nil {

@@ -20,6 +20,10 @@ func WriteTable(w io.Writer, r *Result) error {
 	}
 	fmt.Fprintf(&b, "Rope %.4g m (period %.3g s); simulated at %s m; shapers tuned to %.3g s (rope %.4g m)\n",
 		r.RopeLengthM, r.PeriodS, floats(r.RopeLengthsM), r.DesignPeriodS, r.DesignRopeM)
+	if len(r.ModePeriodsS) == 2 {
+		fmt.Fprintf(&b, "Hook block and rigging: two sway modes, %.3g s and %.3g s at the nominal rope; the second carries up to %.0f %% of the load's swing; two-mode shapers tuned to %.3g s and %.3g s\n",
+			r.ModePeriodsS[0], r.ModePeriodsS[1], 100*r.SecondModeShare, r.DesignPeriodS, r.SecondDesignPeriodS)
+	}
 	fmt.Fprintf(&b, "Limits: %s\n\n", limitsText(r.Limits))
 	for _, m := range r.Infeasible {
 		fmt.Fprintf(&b, "NOT FEASIBLE: %s\n", m)
@@ -57,7 +61,11 @@ func WriteTable(w io.Writer, r *Result) error {
 			fmt.Fprintf(&b, "   %s\n", s)
 		}
 		for _, v := range o.Verified {
-			fmt.Fprintf(&b, "   rope %.4g m: peak %.3g deg, %.3g m; residual %.2g deg\n", v.RopeLengthM, v.PeakSwingDeg, v.PeakExcursionM, v.ResidualSwingDeg)
+			rig := ""
+			if len(r.ModePeriodsS) == 2 {
+				rig = fmt.Sprintf("; rigging to rope up to %.3g deg", v.PeakRiggingAngleDeg)
+			}
+			fmt.Fprintf(&b, "   rope %.4g m: peak %.3g deg, %.3g m; residual %.2g deg%s\n", v.RopeLengthM, v.PeakSwingDeg, v.PeakExcursionM, v.ResidualSwingDeg, rig)
 		}
 	}
 	fmt.Fprintln(&b)

@@ -49,7 +49,8 @@ type SpeedStep struct {
 
 // ShaperSpec is an input shaper on a motion: kind zv, zvd or ei, designed
 // for a sway period given directly or through a rope length (default: the
-// load's rope length).
+// load's rope length; with a hook block, the slower mode's period at that
+// rope length to the hook), optionally with a second mode's period.
 type ShaperSpec struct {
 	Kind         string   `json:"kind"`
 	PeriodS      *float64 `json:"period_s,omitempty"`
@@ -57,6 +58,10 @@ type ShaperSpec struct {
 	DampingRatio float64  `json:"damping_ratio,omitempty"`
 	// TolerancePct is the EI shaper's residual at its design period, %.
 	TolerancePct float64 `json:"tolerance_pct,omitempty"`
+	// SecondPeriodS, given, makes the shaper two-mode: the convolution of
+	// one of its kind for the first period with one for this second period
+	// (hook block and rigging: the second mode's period).
+	SecondPeriodS *float64 `json:"second_period_s,omitempty"`
 }
 
 // ShaperKinds are the accepted shaper kinds.
@@ -115,6 +120,7 @@ func init() {
 		"motions[].shaper.rope_length_m":       {Min: MinRopeM, Max: 500, Unit: "m"},
 		"motions[].shaper.damping_ratio":       {Min: 0, Max: 0.3, Unit: ""},
 		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%"},
+		"motions[].shaper.second_period_s":     {Min: 0.1, Max: 120, Unit: "s"},
 		"plan.distance_m":                      {Min: -2000, Max: 2000, Unit: "m"},
 		"plan.top_speed_m_per_s":               {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
 		"plan.max_accel_m_per_s2":              {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
@@ -362,6 +368,7 @@ func (m *Motion) validateShaper(c *checker, at string) {
 	c.optional(f("rope_length_m"), key("rope_length_m"), sh.RopeLengthM)
 	c.value(f("damping_ratio"), key("damping_ratio"), sh.DampingRatio)
 	c.value(f("tolerance_pct"), key("tolerance_pct"), sh.TolerancePct)
+	c.optional(f("second_period_s"), key("second_period_s"), sh.SecondPeriodS)
 	if sh.Kind == "ei" && sh.DampingRatio != 0 {
 		c.add(f("damping_ratio"), "is %s: the EI shaper here is the undamped one; use 0, or shaper zv or zvd", num(sh.DampingRatio))
 	}

@@ -117,15 +117,7 @@ func build(s *scenario.Scenario) (*setup, error) {
 	var windDir r3.Vec
 	windOn, windOff := math.Inf(1), math.Inf(1)
 	if w := s.Wind; w != nil {
-		if w.ForceN != nil {
-			su.windForce = *w.ForceN
-		} else {
-			rho := w.AirDensityKgPerM3
-			if rho == 0 {
-				rho = units.AirDensity
-			}
-			su.windForce = 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * s.Load.AreaM2 * w.ShapeFactor
-		}
+		su.windForce = WindForceN(s)
 		th := w.TowardDeg * units.Degree
 		windDir = r3.Vec{X: math.Cos(th), Y: math.Sin(th)}
 		windOn = w.StartS
@@ -185,6 +177,23 @@ func build(s *scenario.Scenario) (*setup, error) {
 	}
 	su.breaks = breaks
 	return su, nil
+}
+
+// WindForceN is the steady wind force on the load of a validated scenario,
+// given directly or as q*A*c with q = 0.5*rho*v^2; zero without wind.
+func WindForceN(s *scenario.Scenario) float64 {
+	w := s.Wind
+	if w == nil {
+		return 0
+	}
+	if w.ForceN != nil {
+		return *w.ForceN
+	}
+	rho := w.AirDensityKgPerM3
+	if rho == 0 {
+		rho = units.AirDensity
+	}
+	return 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * s.Load.AreaM2 * w.ShapeFactor
 }
 
 // suspension returns the suspension point's motion: travel on x and y plus

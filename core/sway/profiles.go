@@ -86,8 +86,17 @@ func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, err
 				l = *sh.RopeLengthM
 			}
 			period = 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
+			if h := s.Load.Hook; h != nil {
+				period = 2 * math.Pi / modes(h, *s.Load.MassKg, l).Omega[0]
+			}
 		}
-		d, err := shaper.New(sh.Kind, period, sh.DampingRatio, sh.TolerancePct/100)
+		var d *shaper.Shaper
+		var err error
+		if sh.SecondPeriodS != nil {
+			d, err = shaper.NewTwoMode(sh.Kind, period, *sh.SecondPeriodS, sh.DampingRatio, sh.TolerancePct/100)
+		} else {
+			d, err = shaper.New(sh.Kind, period, sh.DampingRatio, sh.TolerancePct/100)
+		}
 		if err != nil {
 			return nil, scenario.Errors{{Field: "shaper", Message: err.Error()}}
 		}

@@ -97,7 +97,7 @@ func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float6
 }
 
 // rigging fills the hook-and-rigging figures and their warning.
-func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result) error {
+func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result, measure bool) error {
 	h := s.Load.Hook
 	md := modes(h, *s.Load.MassKg, ropeEnd)
 	rg := &Rigging{
@@ -108,6 +108,9 @@ func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result) er
 	}
 	for i := range 2 {
 		rg.ModePeriodsS[i] = 2 * math.Pi / md.Omega[i]
+		if !measure {
+			continue
+		}
 		p, err := modePeriod(*h.MassKg, *s.Load.MassKg, ropeEnd, *h.RiggingLengthM, md.Shape[i], md.Omega[i])
 		if err != nil {
 			return err

@@ -87,3 +87,31 @@ func TestHeavyHookWarnsOfSecondMode(t *testing.T) {
 		t.Errorf("share %v, warnings %q", r.Rigging.SecondModeShare, r.Warnings)
 	}
 }
+
+// Source: static equilibrium of the two-mass pendulum under a steady
+// horizontal force F on the load: the rigging leans atan(F/(m2 g)), the
+// rope atan(F/((m1+m2) g)). After a gust from calm the load swings about
+// that equilibrium; over many periods the mean lean of the line from the
+// suspension point to the load is wind_lean_deg (to first order in the
+// swing, which is symmetric about the equilibrium in linear theory).
+func TestRiggingWindLean(t *testing.T) {
+	s := withHook(still(3000, 10), 1000, 4)
+	s.Wind = &scenario.Wind{ForceN: f(2000)}
+	s.Settings = &scenario.Settings{DurationS: 900, Samples: 4501}
+	r := mustEval(t, s)
+	h := r.History
+	var sum float64
+	var n int
+	for i := range h.TimeS {
+		if h.TimeS[i] >= 300 {
+			sum += math.Atan2(math.Hypot(h.RelXM[i], h.RelYM[i]), -h.RelZM[i]) * 180 / math.Pi
+			n++
+		}
+	}
+	if got := sum / float64(n); math.Abs(got-r.WindLeanDeg) > 0.02 {
+		t.Errorf("mean lean %.5f deg, wind_lean_deg %.5f deg", got, r.WindLeanDeg)
+	}
+	if single := math.Atan(2000/(3000*g)) * 180 / math.Pi; r.WindLeanDeg >= single {
+		t.Errorf("lean %.4f deg should be below the load-only lean %.4f deg", r.WindLeanDeg, single)
+	}
+}

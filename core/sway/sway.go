@@ -118,6 +118,10 @@ type Options struct {
 	// MaxSteps bounds the integration steps, accepted and rejected; zero
 	// means 500,000. The evaluation ends with ErrStepLimit when hit.
 	MaxSteps int
+	// NoModePeriods skips measuring the two mode periods on the nonlinear
+	// model with a hook block (rigging.simulated_periods_s stays zero;
+	// for the planner's many runs).
+	NoModePeriods bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -199,7 +203,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		PeriodS:          period,
 		StaticTensionN:   staticN,
 		WindForceN:       su.windForce,
-		WindLeanDeg:      math.Atan2(su.windForce, mass*g) / units.Degree,
+		WindLeanDeg:      WindLeanRad(s, su.windForce, su.ropeEnd) / units.Degree,
 		RopeLengthStartM: su.ropeStart,
 		RopeLengthEndM:   su.ropeEnd,
 		MotionEndS:       su.motionEnd,
@@ -243,7 +247,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res); err != nil {
+		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
@@ -252,6 +256,26 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 
 	res.Checks, res.Warnings = checks(s, res, res.Warnings)
 	return res, nil
+}
+
+// WindLeanRad is the steady lean of the line from the suspension point to
+// the load under a steady horizontal force F on the load (static
+// equilibrium): atan(F/(m*g)) for one rope; with a hook block, the rope
+// leans atan(F/((m1+m2)*g)) and the rigging atan(F/(m2*g)), and the line to
+// the load lies between (rope: the rope length to the hook block).
+func WindLeanRad(s *scenario.Scenario, force, rope float64) float64 {
+	g := units.StandardGravity
+	m2 := *s.Load.MassKg
+	h := s.Load.Hook
+	if h == nil {
+		return math.Atan2(force, m2*g)
+	}
+	l2 := *h.RiggingLengthM
+	t1 := math.Atan2(force, (m2+*h.MassKg)*g)
+	t2 := math.Atan2(force, m2*g)
+	x := rope*math.Sin(t1) + l2*math.Sin(t2)
+	z := rope*math.Cos(t1) + l2*math.Cos(t2)
+	return math.Atan2(x, z)
 }
 
 func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) {

@@ -50,29 +50,13 @@ func main() {
 	flag.Parse()
 	switch {
 	case *scipy != "":
-		rows, err := scipyRows(*scipy, *python, *script, flag.Args(), *repeat)
-		if err != nil {
-			fmt.Fprintln(os.Stderr, "swaybench:", err)
-			os.Exit(1)
-		}
-		enc := json.NewEncoder(os.Stdout)
-		for _, r := range rows {
-			enc.Encode(r)
-		}
+		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))
 	case *asJSON && flag.NArg() == 1:
 		g := *group
 		if g == "" {
 			g = "core " + runtime.GOOS + "/" + runtime.GOARCH
 		}
-		rows, err := timeScenarios(flag.Arg(0), *repeat, g)
-		if err != nil {
-			fmt.Fprintln(os.Stderr, "swaybench:", err)
-			os.Exit(1)
-		}
-		enc := json.NewEncoder(os.Stdout)
-		for _, r := range rows {
-			enc.Encode(r)
-		}
+		emit(timeScenarios(flag.Arg(0), *repeat, g))
 	case *table:
 		if err := printTable(os.Stdout, flag.Args()); err != nil {
 			fmt.Fprintln(os.Stderr, "swaybench:", err)
@@ -81,6 +65,18 @@ func main() {
 	default:
 		fmt.Fprintln(os.Stderr, "usage: swaybench -json [-repeat N] DIR | swaybench -table FILE.json ...")
 		os.Exit(2)
+	}
+}
+
+// emit prints the rows as JSON lines, or the error and exits.
+func emit(rows []Row, err error) {
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "swaybench:", err)
+		os.Exit(1)
+	}
+	enc := json.NewEncoder(os.Stdout)
+	for _, r := range rows {
+		enc.Encode(r)
 	}
 }
 
