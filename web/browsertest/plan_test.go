@@ -429,6 +429,54 @@ func TestPlanner(t *testing.T) {
 	})
 }
 
+func TestHookPlan(t *testing.T) {
+	h := setup(t)
+	before := eval[int](h, `window.swaysheetPlan.count()`)
+	h.openExample("light panel's travel under the big gantry")
+	h.planSettled(before)
+	w := h.corePlan()
+	if len(w.ModePeriodsS) != 2 {
+		t.Fatalf("the core gives no mode periods for the hook example: %v", w.ModePeriodsS)
+	}
+	if w.Recommended < 0 || h.text("#plan-rec-label") != w.Options[w.Recommended].Label {
+		t.Errorf("recommended %q, the core %d", h.text("#plan-rec-label"), w.Recommended)
+	}
+	for sel, v := range map[string]string{"#plan-mode1": fmtRes(w.ModePeriodsS[0]) + "\u00a0s", "#plan-mode2": fmtRes(w.ModePeriodsS[1]) + "\u00a0s",
+		"#plan-share": fmtRes(100*w.SecondModeShare) + "\u00a0%"} {
+		if got := h.text(sel); got != v {
+			t.Errorf("%s: %q, the core %q", sel, got, v)
+		}
+	}
+	for i, o := range w.Options {
+		row := h.text("#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + ")")
+		if o.TwoMode != strings.Contains(row, "both modes") {
+			t.Errorf("%s: two-mode %v, row %q", o.Key, o.TwoMode, row)
+		}
+		if v := o.Verified[0]; v.PeakRiggingAngleDeg > 0 {
+			got := h.text("#plan-opt-" + strconv.Itoa(i) + " table.verified tbody tr:first-child td:last-child")
+			if got != fmtRes(v.PeakRiggingAngleDeg) {
+				t.Errorf("%s: rope to rigging %q, the core %v", o.Key, got, v.PeakRiggingAngleDeg)
+			}
+		}
+	}
+	if n := eval[int](h, `document.querySelectorAll('#plot-plan-rope path.line').length`); n != len(w.Curves.RopeError.Series) {
+		t.Errorf("rope-error plot: %d lines, the core %d", n, len(w.Curves.RopeError.Series))
+	}
+	h.click("#plan-opt-" + strconv.Itoa(w.Recommended) + " button.apply")
+	h.settle()
+	r := h.core()
+	h.checkShown(r)
+	if r.Rigging == nil || h.text("#r-mode2-lin") != fmtRes(r.Rigging.ModePeriodsS[1]) {
+		t.Errorf("results after applying: second mode %q", h.text("#r-mode2-lin"))
+	}
+	dir := filepath.Join(root, "out", "browser")
+	eval[bool](h, `document.getElementById('notice').hidden = true; document.getElementById('plan-summary').scrollIntoView({block: 'start'}); true`)
+	time.Sleep(150 * time.Millisecond)
+	if shot, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot()); err == nil {
+		_ = os.WriteFile(filepath.Join(dir, "plan-hook-portrait.png"), shot, 0o644)
+	}
+}
+
 func TestHookBlockPage(t *testing.T) {
 	h := setup(t)
 

@@ -354,7 +354,17 @@
     return '<p class="plan-summary" id="plan-summary">' + esc(move) + '. Rope ' + esc(withU('length', r.rope_length_m)) +
       ' (sway period ' + esc(secs(r.period_s)) + '); each option simulated at ' + esc(ropes) +
       '; shapers and whole-period ramps tuned to ' + esc(secs(r.design_period_s)) + ' (rope ' + esc(withU('length', r.design_rope_length_m)) + '). ' +
-      esc(String(r.simulations)) + ' simulations.</p>';
+      esc(String(r.simulations)) + ' simulations.</p>' + modes(r);
+  }
+
+  // modes shows the hook block's two sway modes, when the plan has them.
+  function modes(r) {
+    var m = r.mode_periods_s;
+    if (!m || m.length < 2) return '';
+    return '<p class="plan-modes" id="plan-modes"><b>Hook block and rigging: two sway modes</b>, <span id="plan-mode1">' + esc(secs(m[0])) +
+      '</span> and <span id="plan-mode2">' + esc(secs(m[1])) + '</span> at the nominal rope; the second carries up to <span id="plan-share">' +
+      esc(A().fmtRes(100 * r.second_mode_share)) + '\u00A0%</span> of the load\u2019s swing. Two-mode shapers are tuned to ' +
+      esc(secs(r.design_period_s)) + ' and ' + esc(secs(r.second_design_period_s)) + '.</p>';
   }
 
   function recommended(r) {
@@ -389,6 +399,7 @@
       h += '<tr class="' + (rec ? 'rec' : '') + (o.within ? '' : ' out') + '" data-key="' + esc(o.key) + '">' +
         '<th scope="row"><a href="#plan-opt-' + i + '"><span data-col="rank">' + (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '.</span> ' +
         '<span data-col="label">' + esc(o.label) + '</span></a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') +
+        (o.two_mode ? ' <span class="mode-word">both modes</span>' : '') +
         '<span class="lim" data-col="limits">' + verdict(o, false) + '</span></th>' +
         '<td class="n" data-col="move">' + A().fmtRes(o.move_time_s) + '</td><td class="n" data-col="extra">' + A().fmtRes(o.penalty_s) + '</td>' +
         '<td class="n" data-col="peak">' + A().fmtRes(o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion">' + num('length', o.worst_peak_excursion_m) + '</td>' +
@@ -441,12 +452,19 @@
       (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '. ' + esc(o.label) + (rec ? ' \u2014 <strong>Recommended</strong>' : '') +
       ' \u00B7 ' + esc(secs(o.move_time_s)) + ' \u00B7 ' + verdict(o) + '</summary><div class="opt-body">';
     h += '<h4>Settings for the crew</h4>' + crew(r, o);
+    var mr = o.mode_residual_pct;
+    if (mr && mr.length >= 2) {
+      h += '<p class="mode-left">Left in each sway mode (linear theory, the worst over the rope lengths): first mode ' + esc(A().fmtRes(mr[0])) +
+        '\u00A0%, second mode ' + esc(A().fmtRes(mr[1])) + '\u00A0% of what the drive-limits move leaves' + (o.two_mode ? ' (a shaper for both modes).' : '.') + '</p>';
+    }
+    var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
     h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
-      '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th></tr></thead><tbody>' +
+      '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
+      (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
       o.verified.map(function (v, j) {
         return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + A().fmtRes(v.peak_swing_deg) +
           '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + A().fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
-          A().fmtRes(v.tension_factor) + '</td></tr>';
+          A().fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? A().fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
       }).join('') + '</tbody></table></div>';
     if (!o.within) h += list(o.outside, 'warn-list', '\u2716');
     h += '<p class="row"><button type="button" class="apply" data-apply="' + i + '">' +
@@ -457,6 +475,12 @@
   function sentence(t) {
     t = String(t || '');
     return t.charAt(0).toUpperCase() + t.slice(1) + (/[.]$/.test(t) ? '' : '.');
+  }
+
+  // shaperName: zv, zvd, ei; the planner's two-mode shapers end in 2.
+  function shaperName(k) {
+    k = String(k);
+    return /2$/.test(k) ? k.slice(0, -1).toUpperCase() + ' both modes' : k.toUpperCase();
   }
 
   var CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
@@ -476,7 +500,7 @@
       yLabel: 'residual (% of unshaped)', yFromZero: true, legendTop: true,
       bands: [{ x0: re.range_pct[0], x1: re.range_pct[1], text: 'your range' }],
       series: re.series.map(function (sr, i) {
-        return { x: re.error_pct, y: sr.residual_pct, label: String(sr.shaper).toUpperCase(), cls: CLS[i % CLS.length] };
+        return { x: re.error_pct, y: sr.residual_pct, label: shaperName(sr.shaper), cls: CLS[i % CLS.length] };
       })
     }) + '<figcaption>Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)) + '</figcaption>';
   }
