@@ -349,6 +349,9 @@ func TestPlanner(t *testing.T) {
 			h.click(`#plan-opt-` + strconv.Itoa(j) + ` > summary`)
 			h.click(`#plan-opt-` + strconv.Itoa(j) + ` button.apply`)
 			h.settle()
+			if !eval[bool](h, `document.getElementById('plan-opt-`+strconv.Itoa(j)+`').open`) {
+				t.Error("the opened option closed on applying it")
+			}
 			h.checkShown(h.core())
 			if got := h.text(`[data-move="0"]`); !strings.Contains(got, "shaper") {
 				t.Errorf("the shaped move in the motions: %q", got)

@@ -341,7 +341,16 @@
     out.push('<div class="plots plan-plots"><figure id="plot-plan-ramp" class="plot"></figure><figure id="plot-plan-rope" class="plot"></figure></div>');
     out.push('<details class="assumptions"><summary>What the planner assumes</summary>' + list(r.assumptions, '', '') + '</details>');
     out.push('<div class="plan-cautions"><h3>Before using a plan</h3>' + list(r.cautions, 'warn-list', '\u26A0') + '</div>');
+    // Cards a person opened or closed stay so through a unit switch or an
+    // applied option (same plan).
+    var open = null;
+    if (P.shownCount === P.count) {
+      open = {};
+      document.querySelectorAll('#plan-out .opt-card').forEach(function (d) { open[d.id] = d.open; });
+    }
     $('plan-out').innerHTML = out.join('');
+    if (open) document.querySelectorAll('#plan-out .opt-card').forEach(function (d) { if (d.id in open) d.open = open[d.id]; });
+    P.shownCount = P.count;
     curves(r);
   }
 
