@@ -197,6 +197,15 @@ func TestPlanner(t *testing.T) {
 				t.Errorf("press speed in US units %q, want %q", sp, w)
 			}
 		}
+		if !strings.Contains(h.text("#plan-rec"), "SI units") {
+			t.Error("the planner's own sentence is not marked as SI in US units")
+		}
+		eval[bool](h, `document.getElementById('notice').hidden = true; document.getElementById('plan-rec').scrollIntoView({block: 'start'}); true`)
+		time.Sleep(150 * time.Millisecond)
+		if shot, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot()); err == nil {
+			_ = os.MkdirAll(filepath.Join(root, "out", "browser"), 0o755)
+			_ = os.WriteFile(filepath.Join(root, "out", "browser", "plan-us-portrait.png"), shot, 0o644)
+		}
 		h.do(chromedp.Click(chromedp.ID("sys-si")))
 		h.settle()
 	})
