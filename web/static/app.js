@@ -9,18 +9,43 @@
 
   // ---------------------------------------------------------------- worker
 
-  var worker = null, nextId = 1, waiting = {};
+  var worker = null, nextId = 1, waiting = {}, restarts = [];
 
   function startWorker() {
     worker = new Worker('worker.js');
     worker.onmessage = function (e) {
       var m = e.data;
-      if (m.id === 0) { engineError(JSON.parse(m.out).error.message); return; }
+      if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message); return; }
       var w = waiting[m.id];
       delete waiting[m.id];
       if (w) w(JSON.parse(m.out));
     };
-    worker.onerror = function (e) { engineError('The calculation engine failed: ' + (e.message || 'unknown error') + '. Reload the page.'); };
+    worker.onerror = function (e) {
+      if (e.preventDefault) e.preventDefault();
+      engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.');
+    };
+  }
+
+  // engineStopped answers every call still waiting with an error, and
+  // starts a fresh engine (at most three times a minute; after that the
+  // page asks for a reload). The inputs, results and saved scenarios stay.
+  function engineStopped(msg) {
+    var pending = waiting;
+    waiting = {};
+    Object.keys(pending).forEach(function (id) {
+      pending[id]({ error: { message: msg + ' The calculation was not finished.', fields: [] } });
+    });
+    try { worker.terminate(); } catch (e) { /* already gone */ }
+    var now = Date.now();
+    restarts = restarts.filter(function (t) { return now - t < 60000; });
+    if (restarts.length >= 3) {
+      engineError(msg + ' It stopped again; reload the page (your inputs and saved scenarios are kept).');
+      return;
+    }
+    restarts.push(now);
+    startWorker();
+    notice('\u26A0 ' + msg + ' It has been restarted; the results are computed again.');
+    setTimeout(function () { if (typeof evaluate === 'function') evaluate(); }, 0);
   }
 
   // call runs a core call; it resolves to {result} or {error}.
