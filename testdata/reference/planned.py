@@ -9,7 +9,7 @@ recommended option and one other shaped option (the best ranked shaped
 option of another drive kind, else of the same kind), the option's move
 (its `motion`, as the planner hands it out) as an ordinary scenario at each
 rope length the planner verified it at: the nominal one and both ends of
-the range. The files are testdata/reference/scenarios/planned-<plan>-<option>-<L>m.json;
+the range, with the planner's two periods of settling. The files are testdata/reference/scenarios/planned-<plan>-<option>-<L>m.json;
 `make reference` then solves them (reference.py, or double.py for those
 with a hook block). Re-run after a planner change, then `make reference`.
 Only the Python standard library is used.
@@ -73,8 +73,10 @@ def main():
                         out[k] = sc[k]
                 out["motions"] = [o["motion"]]
                 out["limits"] = sc["limits"]
-                if "settings" in sc:
-                    out["settings"] = sc["settings"]
+                # The planner verifies each option over two periods of settling
+                # (core/plan); the same here, so that its figures can be checked
+                # against the reference (TestPlannerAgainstReference).
+                out["settings"] = {"settle_periods": 2}
                 name = "planned-%s-%s-%s.json" % (stem, o["key"].replace("_", "-"), length_name(l))
                 with open(os.path.join(OUT, name), "w") as f:
                     json.dump(out, f, indent=2)
