@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference fuzz dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz dist single-wasm sheetcss clean
 
 all: test
 
@@ -107,6 +107,12 @@ scipy-deps:
 reference: scipy-deps
 	$(PYTHON_REF) testdata/reference/double.py generate
 	$(PYTHON_REF) testdata/reference/reference.py generate
+
+# The planner's moves as reference scenarios (testdata/reference/scenarios/
+# planned-*.json, from `swaysheet -plan -json` of each plan-*.json example);
+# run `make reference` after it.
+planned:
+	$(PYTHON_REF) testdata/reference/planned.py
 
 # Speed and size, side by side, in one table (see README "Benchmarks").
 BENCH := $(OUT)/bench

@@ -70,3 +70,30 @@ func TestJSCalls(t *testing.T) {
 		t.Fatalf("examples: %v %+v", err, ex.Result.Source)
 	}
 }
+
+func TestJSPlan(t *testing.T) {
+	register()
+	data, err := os.ReadFile("../testdata/scenarios/plan-tower-slew.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var r struct {
+		Result *struct {
+			Axis        string `json:"axis"`
+			Options     []any  `json:"options"`
+			Recommended int    `json:"recommended"`
+		} `json:"result"`
+		Error *struct {
+			Message string `json:"message"`
+		} `json:"error"`
+	}
+	start := time.Now()
+	if err := json.Unmarshal([]byte(call(t, "plan", string(data))), &r); err != nil || r.Result == nil || r.Result.Axis != "slew" || len(r.Result.Options) == 0 {
+		t.Fatalf("plan: %v %+v", err, r.Error)
+	}
+	t.Logf("slew plan under node: %d options, recommended %d, %v", len(r.Result.Options), r.Result.Recommended, time.Since(start))
+	r.Result = nil
+	if err := json.Unmarshal([]byte(call(t, "plan", `{"format":"swaysheet-scenario","version":1}`)), &r); err != nil || r.Error == nil {
+		t.Fatalf("bad input: %v %+v", err, r)
+	}
+}

@@ -32,7 +32,7 @@ type ProfileFields struct {
 	BrakeAtS *float64 `json:"brake_at_s,omitempty"`
 	// series: the CSV text of the record (see motion.ParseCSV) and the
 	// column for this axis (default <axis>_m_per_s or <axis>_m, slew_deg_per_s
-	// or slew_deg).
+	// or slew_deg). The record's times are shifted by the motion's start_s.
 	CSV    string `json:"csv,omitempty"`
 	Column string `json:"column,omitempty"`
 	// Shaper passes the move through an input shaper (any profile).
@@ -56,11 +56,13 @@ type ShaperSpec struct {
 	PeriodS      *float64 `json:"period_s,omitempty"`
 	RopeLengthM  *float64 `json:"rope_length_m,omitempty"`
 	DampingRatio float64  `json:"damping_ratio,omitempty"`
-	// TolerancePct is the EI shaper's residual at its design period, %.
+	// TolerancePct is the EI shaper's residual at its design period, %
+	// (0: 5 %).
 	TolerancePct float64 `json:"tolerance_pct,omitempty"`
 	// SecondPeriodS, given, makes the shaper two-mode: the convolution of
 	// one of its kind for the first period with one for this second period
-	// (hook block and rigging: the second mode's period).
+	// (hook block and rigging: the second mode's period), both with the
+	// same damping ratio and EI tolerance.
 	SecondPeriodS *float64 `json:"second_period_s,omitempty"`
 }
 

@@ -39,13 +39,21 @@ Appl. Mech. Eng. 1, 1972) gives
 with w = sqrt(g_n / L(t)). On the exact solution c = c' = 0 and the
 stabilising terms vanish; they only stop the drift of the rope length.
 
-Motions are rebuilt from the scenario format's documentation
-(core/scenario/scenario.go): trapezoidal speed profiles per axis, summed
-when several moves share an axis; travel on x and y; slew about the
-vertical axis through the origin at radius r (which a "radius" move
-changes); hoist positive up (rope shortens). The suspension point is the
-complex number  z = x + i y + r e^{i phi}, whose derivatives follow from
-differentiating that product.
+Motions are rebuilt from the documentation of the scenario format and the
+profiles (core/scenario, DEVELOPERS.md "Motion profiles", the doc comments
+of core/motion and core/shaper), not from the core's code: every profile
+(trapezoid, s_curve, steps, hard_stop, series from CSV with speed or
+position columns) and any of them through a ZV, ZVD or EI shaper, one- or
+two-mode (PROFILES and build_move below); moves on one axis are summed.
+Travel on x and y; slew about the vertical axis through the origin at
+radius r (which a "radius" move changes); hoist positive up (rope
+shortens). The suspension point is the complex number
+z = x + i y + r e^{i phi}, whose derivatives follow from differentiating
+that product. Where the core builds every profile from spans of constant
+jerk, the S-curve here is the moving average of the trapezoid through the
+exact antiderivative of its position, the position spline is SciPy's
+CubicSpline(bc_type="clamped"), and a shaped move sums the shifted base
+move at each call.
 
 Figures reported, each as the result JSON of the core names it:
 period_s (2 pi sqrt(L_end/g)), peak_swing_deg and its time, peak_excursion_m
@@ -55,17 +63,26 @@ has ended, to the end of the run), tension_max_n, tension_min_n,
 tension_factor = tension_max_n / (m g), run_s, motion_end_s, and sampled
 states at a few of the history sample times.
 
-Adding the planner's recommended moves
---------------------------------------
-Put each planned move as an ordinary scenario file in
-testdata/reference/scenarios/ (name it planned-*.json) and run
-`make reference`. If the planner writes a motion profile other than
-"trapezoid", add it to PROFILES below (a function returning an object with
-at(t) -> (pos, vel, acc) and breakpoints()), derived from that profile's
-documentation; the script stops with a clear message on an unknown profile.
+Scenarios solved: every file in testdata/scenarios and
+testdata/reference/scenarios without a hook block (double.py takes those)
+that has something moving the load (a motion, wind or an initial swing;
+the planning examples hold no motions and are skipped).
+
+The planner's moves
+-------------------
+testdata/reference/planned.py (`make planned`) writes the recommended
+option's move and one other shaped option's of each planning example
+(testdata/scenarios/plan-*.json) as testdata/reference/scenarios/planned-*.json,
+at the nominal rope length and both ends of the range; then run
+`make reference`. A new motion profile goes into PROFILES below (a function
+of the motion returning an object with at(t) -> (pos, vel, acc),
+breakpoints() and end()), derived from that profile's documentation; the
+script stops with a clear message on an unknown profile.
 """
 
 import argparse
+import bisect
+import csv
 import glob
 import json
 import math
@@ -78,6 +95,7 @@ import time
 import numpy as np
 import scipy
 from scipy.integrate import solve_ivp
+from scipy.interpolate import CubicSpline
 
 G_N = 9.80665          # standard gravity, m/s^2 (3rd CGPM 1901; ISO 80000-3)
 RHO_AIR = 1.25         # default air density, kg/m^3, as core/scenario documents
@@ -153,8 +171,347 @@ def trapezoid(m):
                          m.get("decel_m_per_s2", acc))
 
 
+def _acc_dec(m):
+    """accel and decel of a move in SI (rad for slew); decel defaults to accel."""
+    if m["axis"] == "slew":
+        a = m["accel_deg_per_s2"]
+        return a * DEG, m.get("decel_deg_per_s2", a) * DEG
+    a = m["accel_m_per_s2"]
+    return a, m.get("decel_m_per_s2", a)
+
+
+def _scale(m):
+    """Axis unit to SI: degrees to radians on the slew axis, else 1."""
+    return DEG if m["axis"] == "slew" else 1.0
+
+
+class SCurveMove:
+    """Jerk-limited move, as DEVELOPERS.md and motion.SCurve document it: the
+    trapezoid of the same distance, speed, acceleration and deceleration
+    averaged over a sliding window of the rounding time w,
+
+        x_s(t) = (1/w) * integral from t-w to t of x_trap(s) ds,
+
+    so v_s(t) = (x(t) - x(t-w))/w and a_s(t) = (v(t) - v(t-w))/w. Here the
+    position comes from the exact antiderivative X of the trapezoid's
+    position (piecewise cubic), x_s = (X(t) - X(t-w))/w, rather than from
+    spans of constant jerk as in the core."""
+
+    def __init__(self, base, w):
+        self.base, self.w = base, w
+
+    def _X(self, t):
+        """Integral of the trapezoid's unsigned position from its start to t."""
+        b = self.base
+        s = t - b.t0
+        if s <= 0:
+            return 0.0
+        ta, tc, td = b.ta, b.tc, b.td
+        u = min(s, ta)
+        x = b.acc * u ** 3 / 6
+        if s > ta:
+            u = min(s, ta + tc) - ta
+            x += 0.5 * b.v * ta * u + 0.5 * b.v * u * u
+        if s > ta + tc:
+            tt = ta + tc + td
+            s2 = ta + tc
+            u = min(s, tt)
+            x += b.d * (u - s2) - 0.5 * b.dec * ((tt - s2) ** 3 - (tt - u) ** 3) / 3
+        if s > ta + tc + td:
+            x += b.d * (s - (ta + tc + td))
+        return x
+
+    def end(self):
+        return self.base.end() + self.w
+
+    def breakpoints(self):
+        bp = self.base.breakpoints()
+        return sorted(set(bp + [t + self.w for t in bp]))
+
+    def at(self, t):
+        if self.w <= 0:
+            return self.base.at(t)
+        w, b = self.w, self.base
+        p = b.sign * (self._X(t) - self._X(t - w)) / w
+        now, then = b.at(t), b.at(t - w)
+        # speed: (x(t) - x(t-w))/w; acceleration: (v(t) - v(t-w))/w
+        return p, (now[0] - then[0]) / w, (now[1] - then[1]) / w
+
+
+def s_curve(m):
+    base = trapezoid(m)
+    if "rounding_s" in m:
+        w = m["rounding_s"]
+    elif "jerk_m_per_s3" in m:
+        w = m["accel_m_per_s2"] / m["jerk_m_per_s3"]
+    else:
+        w = m["accel_deg_per_s2"] / m["jerk_deg_per_s3"]
+    return SCurveMove(base, w)
+
+
+class ConstAccel:
+    """A motion made of intervals of constant acceleration, given by the
+    start time, position and speed of each; before the first the axis moves
+    steadily at the first speed, after the last it keeps the last interval's
+    acceleration (zero for one that ends at rest)."""
+
+    def __init__(self, knots, end):
+        self.knots = knots  # [(t, p, v, a)]
+        self.times = [k[0] for k in knots]
+        self._end = end
+
+    @staticmethod
+    def build(t0, p0, v0, pieces):
+        """pieces: [(duration, acc)]; returns knots and the end time."""
+        knots, t, p, v = [], t0, p0, v0
+        for d, a in pieces:
+            if d <= 0:
+                continue
+            knots.append((t, p, v, a))
+            p += v * d + 0.5 * a * d * d
+            v += a * d
+            t += d
+        return knots, t, p, v
+
+    def end(self):
+        return self._end
+
+    def breakpoints(self):
+        return list(self.times)
+
+    def at(self, t):
+        i = bisect.bisect_right(self.times, t) - 1
+        if i < 0:
+            t0, p0, v0, _ = self.knots[0]
+            return p0 + v0 * (t - t0), v0, 0.0
+        t0, p0, v0, a = self.knots[i]
+        u = t - t0
+        return p0 + v0 * u + 0.5 * a * u * u, v0 + a * u, a
+
+
+def steps(m):
+    """Step-speed move (DEVELOPERS.md, motion.Steps): at start_s + at_s of each
+    step the drive heads for the step's speed, accelerating at accel while
+    the speed grows in size, decelerating at decel while it shrinks (so a
+    reversal first brakes to zero at decel, then accelerates at accel), and
+    holds the speed once reached; a step that comes early starts from the
+    speed reached so far. The last step is to 0. At rest before the first."""
+    acc, dec = _acc_dec(m)
+    sc = _scale(m)
+    key = "rate_deg_per_s" if m["axis"] == "slew" else "speed_m_per_s"
+    t0 = m.get("start_s", 0.0)
+    sts = [(t0 + s["at_s"], s[key] * sc) for s in m["steps"]]
+    pieces = []
+    v, t = 0.0, sts[0][0]
+    for k, (tk, target) in enumerate(sts):
+        t_next = sts[k + 1][0] if k + 1 < len(sts) else math.inf
+        while t < t_next and v != target:
+            if v * target < 0:          # reversing: brake to zero first
+                stop, a = 0.0, -math.copysign(dec, v)
+            elif abs(target) > abs(v):  # speed grows in size
+                stop, a = target, math.copysign(acc, target - v)
+            else:                       # speed shrinks in size
+                stop, a = target, math.copysign(dec, target - v)
+            full = (stop - v) / a
+            d = min(full, t_next - t)
+            pieces.append((d, a))
+            t += d
+            v = stop if d == full else v + a * d
+        if t < t_next and t_next < math.inf:
+            pieces.append((t_next - t, 0.0))
+            t = t_next
+    knots, t_end, p, _ = ConstAccel.build(sts[0][0], 0.0, 0.0, pieces)
+    knots.append((t_end, p, 0.0, 0.0))
+    return ConstAccel(knots, t_end)
+
+
+def hard_stop(m):
+    """Hard stop (DEVELOPERS.md, motion.HardStop): moving at the given speed
+    from t = 0 (and before: the load hangs still relative to the crane at
+    t = 0), braking at decel from brake_at_s to rest. Position 0 at t = 0."""
+    sc = _scale(m)
+    if m["axis"] == "slew":
+        v, dec = m["rate_deg_per_s"] * sc, m["decel_deg_per_s2"] * sc
+    else:
+        v, dec = m["speed_m_per_s"], m["decel_m_per_s2"]
+    tb = m["brake_at_s"]
+    knots, t_end, p, _ = ConstAccel.build(0.0, 0.0, v, [(tb, 0.0), (v / dec, -dec)])
+    knots.append((t_end, p, 0.0, 0.0))
+    return ConstAccel(knots, t_end)
+
+
+def parse_csv(text):
+    """A CSV record as DEVELOPERS.md documents it: header time_s,<col>,...;
+    lines starting with # are comments, blank lines skipped, cells trimmed.
+    Returns times and {column: values}. Errors are the core's business (the
+    reference only reads scenarios the core accepts)."""
+    rows = []
+    for line in text.splitlines():
+        s = line.strip()
+        if not s or s.startswith("#"):
+            continue
+        rows.append([c.strip() for c in next(csv.reader([s]))])
+    head = rows[0]
+    if head[0] != "time_s":
+        sys.exit("reference.py: a CSV record must start with time_s, not %r" % head[0])
+    data = np.array([[float(c) for c in r] for r in rows[1:]])
+    return data[:, 0], {n: data[:, j + 1] for j, n in enumerate(head[1:])}
+
+
+class SpeedRecord:
+    """Speeds linear in time between samples (constant acceleration on each
+    interval), position their exact integral, zero at the first sample;
+    steady at the first speed before it; the last speed is 0."""
+
+    def __init__(self, t, v):
+        pieces = [(t[i + 1] - t[i], (v[i + 1] - v[i]) / (t[i + 1] - t[i])) for i in range(len(t) - 1)]
+        knots, t_end, p, _ = ConstAccel.build(t[0], 0.0, v[0], pieces)
+        knots.append((t_end, p, 0.0, 0.0))
+        self.ca = ConstAccel(knots, t_end)
+
+    def at(self, t):
+        return self.ca.at(t)
+
+    def breakpoints(self):
+        return self.ca.breakpoints()
+
+    def end(self):
+        return self.ca.end()
+
+
+class PositionRecord:
+    """Positions through a clamped cubic spline with zero speed at the first
+    and last sample (scipy.interpolate.CubicSpline, bc_type "clamped"),
+    relative to the first sample; at rest before and after the record."""
+
+    def __init__(self, t, x):
+        self.t0, self.t1 = t[0], t[-1]
+        self.x_end = x[-1] - x[0]
+        self.cs = CubicSpline(t, x - x[0], bc_type="clamped")
+        self.times = list(t)
+
+    def at(self, t):
+        if t <= self.t0:
+            return 0.0, 0.0, 0.0
+        if t >= self.t1:
+            return self.x_end, 0.0, 0.0
+        return float(self.cs(t)), float(self.cs(t, 1)), float(self.cs(t, 2))
+
+    def breakpoints(self):
+        return list(self.times)
+
+    def end(self):
+        return self.t1
+
+
+def series(m):
+    """Recorded or planned time series from the motion's csv: the column
+    named in `column`, else <axis>_m_per_s if the record has it, else
+    <axis>_m (slew_deg_per_s / slew_deg on the slew axis, in degrees). A
+    column ending in _per_s holds speeds, any other positions. Shifted by
+    start_s."""
+    t, cols = parse_csv(m["csv"])
+    unit = "_deg" if m["axis"] == "slew" else "_m"
+    col = m.get("column") or (m["axis"] + unit + "_per_s" if m["axis"] + unit + "_per_s" in cols
+                              else m["axis"] + unit)
+    vals = cols[col] * _scale(m)
+    t = t + m.get("start_s", 0.0)
+    return SpeedRecord(t, vals) if col.endswith("_per_s") else PositionRecord(t, vals)
+
+
+# ------------------------------------------------------------ input shapers
+
+def linear_periods(m1, m2, l1, l2):
+    """Small-swing periods of the two modes of hook block (m1 on rope l1) and
+    load (m2 on rigging l2), slower first, from the eigenvalues of M^-1 K of
+    the linearised two-mass pendulum (angles of rope and rigging):
+    M = [[(m1+m2) l1^2, m2 l1 l2], [m2 l1 l2, m2 l2^2]], K = diag((m1+m2) g l1, m2 g l2)."""
+    m = m1 + m2
+    mm = np.array([[m * l1 * l1, m2 * l1 * l2], [m2 * l1 * l2, m2 * l2 * l2]])
+    kk = np.diag([m * G_N * l1, m2 * G_N * l2])
+    w2 = np.sort(np.real(np.linalg.eigvals(np.linalg.solve(mm, kk))))
+    return [2 * math.pi / math.sqrt(w2[0]), 2 * math.pi / math.sqrt(w2[1])]
+
+
+def shaper_impulses(kind, period, zeta, v):
+    """Impulses [(A, t)] of one shaper, from the published formulas (Singer &
+    Seering 1990: ZV, ZVD; Singhose, Seering & Singer 1994: EI), as the
+    core/shaper package comment and the field notes state them:
+    K = exp(-zeta pi / sqrt(1 - zeta^2)), Td = T / sqrt(1 - zeta^2)."""
+    k = math.exp(-zeta * math.pi / math.sqrt(1 - zeta * zeta))
+    td = period / math.sqrt(1 - zeta * zeta)
+    if kind == "zv":
+        return [(1 / (1 + k), 0.0), (k / (1 + k), td / 2)]
+    if kind == "zvd":
+        n = (1 + k) ** 2
+        return [(1 / n, 0.0), (2 * k / n, td / 2), (k * k / n, td)]
+    if kind == "ei":
+        return [((1 + v) / 4, 0.0), ((1 - v) / 2, period / 2), ((1 + v) / 4, period)]
+    sys.exit("reference.py: shaper kind %r is not implemented here" % kind)
+
+
+def shaper_of(spec, sc):
+    """The impulses of a motion's shaper: designed for period_s, or for the
+    small-swing period at rope_length_m (default the load's rope length):
+    2 pi sqrt(L/g), or with a hook block the slower mode's period at that
+    rope length to the hook. With second_period_s, the convolution with a
+    shaper of the same kind for that period (impulse A_i B_j at t_i + s_j)."""
+    load = sc["load"]
+    if "period_s" in spec:
+        period = spec["period_s"]
+    else:
+        l = spec.get("rope_length_m", load["rope_length_m"])
+        if "hook" in load:
+            period = linear_periods(load["hook"]["mass_kg"], load["mass_kg"], l,
+                                    load["hook"]["rigging_length_m"])[0]
+        else:
+            period = 2 * math.pi * math.sqrt(l / G_N)
+    zeta = spec.get("damping_ratio", 0.0)
+    v = spec.get("tolerance_pct", 0.0) / 100 or 0.05  # EI: 5 % when not given
+    imps = shaper_impulses(spec["kind"], period, zeta, v)
+    if "second_period_s" in spec:
+        second = shaper_impulses(spec["kind"], spec["second_period_s"], zeta, v)
+        imps = [(a * b, s + u) for a, s in imps for b, u in second]
+    return imps
+
+
+class ShapedMove:
+    """A move convolved with a shaper's impulses: x(t) = sum_i A_i x_base(t - t_i),
+    and the same sum for speed and acceleration."""
+
+    def __init__(self, base, impulses):
+        self.base, self.imps = base, impulses
+
+    def at(self, t):
+        p = v = a = 0.0
+        for amp, ti in self.imps:
+            q = self.base.at(t - ti)
+            p += amp * q[0]
+            v += amp * q[1]
+            a += amp * q[2]
+        return p, v, a
+
+    def breakpoints(self):
+        return sorted(set(b + ti for _, ti in self.imps for b in self.base.breakpoints()))
+
+    def end(self):
+        return self.base.end() + max(ti for _, ti in self.imps)
+
+
 # Motion profiles by the scenario's "profile" name.
-PROFILES = {"trapezoid": trapezoid}
+PROFILES = {"trapezoid": trapezoid, "s_curve": s_curve, "steps": steps, "hard_stop": hard_stop,
+            "series": series}
+
+
+def build_move(m, sc):
+    """The move of one scenario motion, with its shaper if it has one."""
+    prof = m.get("profile", "trapezoid") or "trapezoid"
+    if prof not in PROFILES:
+        sys.exit("reference.py: motion profile %r is not implemented here; add it to PROFILES" % prof)
+    mv = PROFILES[prof](m)
+    if m.get("shaper"):
+        mv = ShapedMove(mv, shaper_of(m["shaper"], sc))
+    return mv
 
 
 class Axis:
@@ -190,10 +547,7 @@ class Model:
         breaks = []
         self.motion_end = 0.0
         for m in sc.get("motions", []):
-            prof = m.get("profile", "trapezoid") or "trapezoid"
-            if prof not in PROFILES:
-                sys.exit("reference.py: motion profile %r is not implemented here; add it to PROFILES" % prof)
-            mv = PROFILES[prof](m)
+            mv = build_move(m, sc)
             self.axes[m["axis"]].moves.append(mv)
             breaks += mv.breakpoints()
             self.motion_end = max(self.motion_end, mv.end())
@@ -428,6 +782,11 @@ def load(path):
         return json.load(f)
 
 
+def moves(sc):
+    """Whether anything moves the load: a motion, wind or an initial swing."""
+    return bool(sc.get("motions") or sc.get("wind") or sc.get("initial"))
+
+
 def scenario_paths():
     out = []
     for g in SCENARIO_GLOBS:
@@ -441,6 +800,8 @@ def cmd_generate(args):
         sc = load(os.path.join(ROOT, rel))
         if "hook" in sc.get("load", {}):
             continue  # hook block and rigging: double.py, results_double.json
+        if not moves(sc):
+            continue  # a planning request without motions: nothing to solve
         t0 = time.perf_counter()
         res = solve(Model(sc))
         print("%-52s peak %8.5f deg  residual %8.5f deg  %6.2f s" % (

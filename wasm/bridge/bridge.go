@@ -14,6 +14,7 @@ import (
 	"errors"
 	"fmt"
 
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -29,8 +30,7 @@ type Env struct {
 	Fetch func(url string) ([]byte, error)
 }
 
-// Calls is the table of calls by name. A new core feature (the planner)
-// is one more entry here.
+// Calls is the table of calls by name.
 var Calls = map[string]Func{
 	"evaluate": evaluate,
 	"validate": validate,
@@ -38,6 +38,7 @@ var Calls = map[string]Func{
 	"ranges":   ranges,
 	"examples": examples,
 	"version":  version,
+	"plan":     makePlan,
 }
 
 // Error is the reply's error object.
@@ -116,4 +117,15 @@ func validate(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	return map[string]bool{"valid": true}, nil
+}
+
+// makePlan plans the move of a scenario's plan block: input is the
+// scenario JSON, the result is the plan.Result JSON (ranked options, each
+// verified by simulation, the recommended one, the curves).
+func makePlan(_ *Env, input []byte) (any, error) {
+	s, err := scenario.Parse(input)
+	if err != nil {
+		return nil, err
+	}
+	return plan.Make(s)
 }

@@ -191,3 +191,47 @@ func TestExamplesFetchAndFallback(t *testing.T) {
 		t.Fatalf("fallback: %+v", r.Result.Source)
 	}
 }
+
+func TestPlanCall(t *testing.T) {
+	in := readExample(t, "plan-bay-travel.json")
+	var r struct {
+		Result *struct {
+			Options []struct {
+				Key      string `json:"key"`
+				Within   bool   `json:"within"`
+				Verified []struct {
+					RopeLengthM float64 `json:"rope_length_m"`
+				} `json:"verified"`
+				Motion map[string]any `json:"motion"`
+			} `json:"options"`
+			Recommended int    `json:"recommended"`
+			Reason      string `json:"reason"`
+			Curves      struct {
+				AccelTime struct {
+					RampS []float64 `json:"ramp_s"`
+				} `json:"accel_time"`
+			} `json:"curves"`
+		} `json:"result"`
+	}
+	if err := json.Unmarshal(Call(nil, "plan", in), &r); err != nil || r.Result == nil {
+		t.Fatalf("plan: %v", err)
+	}
+	p := r.Result
+	if p.Recommended < 0 || p.Recommended >= len(p.Options) || !p.Options[p.Recommended].Within || p.Reason == "" {
+		t.Fatalf("recommended %d of %d options, reason %q", p.Recommended, len(p.Options), p.Reason)
+	}
+	// The plan simulates the nominal rope and both ends of the range (8.5, 8, 9 m in the file).
+	if n := len(p.Options[0].Verified); n != 3 || p.Options[0].Motion["axis"] != "travel_x" || len(p.Curves.AccelTime.RampS) == 0 {
+		t.Errorf("first option: %d verified lengths, motion %v", n, p.Options[0].Motion)
+	}
+	// A bad plan field is named.
+	bad := bytes.Replace(in, []byte(`"distance_m": 18`), []byte(`"distance_m": 5000`), 1)
+	var e errReply
+	if err := json.Unmarshal(Call(nil, "plan", bad), &e); err != nil || e.Error == nil || len(e.Error.Fields) == 0 || e.Error.Fields[0].Field != "plan.distance_m" {
+		t.Fatalf("bad distance: %+v", e.Error)
+	}
+	// A scenario without a plan block gets a message, not a panic.
+	if err := json.Unmarshal(Call(nil, "plan", readExample(t, DemoFile)), &e); err != nil || e.Error == nil || e.Error.Fields[0].Field != "plan" {
+		t.Fatalf("no plan block: %+v", e.Error)
+	}
+}

@@ -4,7 +4,9 @@ import (
 	"reflect"
 	"strings"
 	"testing"
+	"time"
 
+	"github.com/chromedp/cdproto/target"
 	"github.com/chromedp/chromedp"
 )
 
@@ -57,4 +59,38 @@ func TestBadInputInThePage(t *testing.T) {
 		h.settle()
 		h.checkShown(h.core())
 	})
+}
+
+// A failure inside the engine never leaves the page dead: the worker is
+// made to throw, the page restarts it, and the next change computes.
+func TestEngineFailureRecovers(t *testing.T) {
+	h := setup(t)
+	infos, err := chromedp.Call(h.ctx, target.GetTargets, target.GetTargetsParams{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var worker target.ID
+	for _, ti := range infos.TargetInfos {
+		if ti.Type == "worker" {
+			worker = ti.TargetID
+		}
+	}
+	if worker == "" {
+		t.Fatal("no worker target")
+	}
+	wctx, cancel := chromedp.NewContext(h.ctx, chromedp.WithTargetID(worker))
+	defer cancel()
+	if _, err := chromedp.Run(wctx, chromedp.Evaluate[bool](`setTimeout(function () { throw new Error('made to fail by the test'); }, 0), true`)); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := chromedp.Run(h.ctx, chromedp.Poll[bool](`document.getElementById('notice').textContent.includes('restarted')`,
+		chromedp.WithPollingTimeout(20*time.Second))); err != nil {
+		t.Fatalf("no restart notice: %v (engine banner %q)", err, h.text("#engine-error"))
+	}
+	h.typeInto("#f-load-rope_length_m", "11")
+	h.settle()
+	h.checkShown(h.core())
+	if !eval[bool](h, `document.getElementById('engine-error').hidden`) {
+		t.Errorf("engine error banner shown: %q", h.text("#engine-error"))
+	}
 }

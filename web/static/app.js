@@ -9,18 +9,43 @@
 
   // ---------------------------------------------------------------- worker
 
-  var worker = null, nextId = 1, waiting = {};
+  var worker = null, nextId = 1, waiting = {}, restarts = [];
 
   function startWorker() {
     worker = new Worker(window.swaysheetWorkerURL || 'worker.js');
     worker.onmessage = function (e) {
       var m = e.data;
-      if (m.id === 0) { engineError(JSON.parse(m.out).error.message); return; }
+      if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message); return; }
       var w = waiting[m.id];
       delete waiting[m.id];
       if (w) w(JSON.parse(m.out));
     };
-    worker.onerror = function (e) { engineError('The calculation engine failed: ' + (e.message || 'unknown error') + '. Reload the page.'); };
+    worker.onerror = function (e) {
+      if (e.preventDefault) e.preventDefault();
+      engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.');
+    };
+  }
+
+  // engineStopped answers every call still waiting with an error, and
+  // starts a fresh engine (at most three times a minute; after that the
+  // page asks for a reload). The inputs, results and saved scenarios stay.
+  function engineStopped(msg) {
+    var pending = waiting;
+    waiting = {};
+    Object.keys(pending).forEach(function (id) {
+      pending[id]({ error: { message: msg + ' The calculation was not finished.', fields: [] } });
+    });
+    try { worker.terminate(); } catch (e) { /* already gone */ }
+    var now = Date.now();
+    restarts = restarts.filter(function (t) { return now - t < 60000; });
+    if (restarts.length >= 3) {
+      engineError(msg + ' It stopped again; reload the page (your inputs and saved scenarios are kept).');
+      return;
+    }
+    restarts.push(now);
+    startWorker();
+    notice('\u26A0 ' + msg + ' It has been restarted; the results are computed again.');
+    setTimeout(function () { if (typeof evaluate === 'function') evaluate(); }, 0);
   }
 
   // call runs a core call; it resolves to {result} or {error}.
@@ -168,7 +193,7 @@
       hint = (r.open_min ? 'above ' : '') + fmtRange(lo) + ' to ' + fmtRange(hi) + (u.symbol ? ' ' + u.symbol : '');
     }
     if (opts.hint) hint = opts.hint + (hint ? '; ' + hint : '');
-    var id = fieldId(path);
+    var id = opts.id || fieldId(path);
     return '<div class="field" data-field="' + esc(path) + '">' +
       '<label for="' + id + '">' + esc(label) + (opts.optional ? ' <span class="opt">(optional)</span>' : '') + '</label>' +
       '<div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-path="' + esc(path) + '" data-dq="' + esc(dq) + '"' +
@@ -203,11 +228,16 @@
   function renderForm() {
     var s = S.scenario, h = [];
     h.push(section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card'));
+    var hook = s.load && s.load.hook;
     h.push(section('Load and rope',
-      numField('load.mass_kg', 'Load mass', { hint: 'hook block and rigging included' }) +
-      numField('load.rope_length_m', 'Rope length', { hint: 'sheave to the load\u2019s centre of mass' }) +
+      numField('load.mass_kg', 'Load mass', { hint: hook ? 'the rigged load, without the hook block' : 'hook block and rigging included' }) +
+      numField('load.rope_length_m', 'Rope length', { hint: hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
       numField('load.area_m2', 'Area facing the wind', { optional: true }) +
-      numField('load.drag_coefficient', 'Air drag coefficient', { optional: true })));
+      numField('load.drag_coefficient', 'Air drag coefficient', { optional: true }) +
+      '<div class="field wide"><label class="check"><input type="checkbox" id="hook-on"' + (hook ? ' checked' : '') + '> Hook block and rigging as a second mass ' +
+      '<span class="opt">(heavy hook block, or long slings: two sway modes)</span></label></div>' +
+      (hook ? numField('load.hook.mass_kg', 'Hook block mass') +
+        numField('load.hook.rigging_length_m', 'Rigging length', { hint: 'hook block to the load\u2019s centre of mass' }) : ''), 'load-card'));
     h.push(section('Crane',
       selectField('crane.kind', 'Crane', KINDS, (s.crane && s.crane.kind) || '') +
       numField('crane.radius_m', 'Hook radius from the slew axis', { optional: true }) +
@@ -216,6 +246,10 @@
     (s.motions || []).forEach(function (m, i) {
       var at = 'motions[' + i + ']', F = m.axis === 'slew' ? ANGULAR : LINEAR;
       var slew = m.axis === 'slew';
+      if (window.SwayPlan && window.SwayPlan.motionHTML && (m.profile && m.profile !== 'trapezoid' || m.shaper)) {
+        mv.push(window.SwayPlan.motionHTML(m, i));
+        return;
+      }
       mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + '</h4>' +
         '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">' +
         selectField(at + '.axis', 'Axis', AXES, m.axis) +
@@ -261,7 +295,10 @@
     h.push(section('Computation', selectField('settings.accuracy', 'Accuracy',
       [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
     $('form').innerHTML = h.join('');
-    $('form').querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
+    if (window.SwayPlan) $('plan-form').innerHTML = window.SwayPlan.inputsHTML();
+    document.querySelectorAll('#form, #plan-form').forEach(function (f) {
+      f.querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
+    });
     showErrors();
   }
 
@@ -300,11 +337,15 @@
         setPath(S.scenario, path, dq ? toSI(dq, v) : v);
       }
     }
+    document.querySelectorAll('[data-path="' + cssEsc(path) + '"]').forEach(function (o) {
+      if (o !== el) { o.value = t; syncPrint(o); }
+    });
     changed();
   }
 
   function onSelect(el) {
     var path = el.dataset.select, v = el.value, s = S.scenario;
+    if (window.SwayPlan && window.SwayPlan.onSelect(el)) return;
     if (el.dataset.windmode) {
       var w = s.wind;
       if (v === 'speed') { delete w.force_n; w.speed_m_per_s = 10; if (!w.shape_factor) w.shape_factor = 1.4; }
@@ -338,11 +379,15 @@
   }
 
   function bindForm() {
-    var f = $('form');
+    [$('form'), $('plan-form')].forEach(bindOne);
+  }
+
+  function bindOne(f) {
     f.addEventListener('input', function (e) {
       var el = e.target;
       syncPrint(el);
       if (el.dataset.path) onNumberInput(el);
+      else if (el.dataset.list && window.SwayPlan) window.SwayPlan.onList(el);
       else if (el.dataset.text) { setPath(S.scenario, el.dataset.text, el.value === '' ? undefined : el.value); changed(); }
     });
     f.addEventListener('change', function (e) {
@@ -350,7 +395,14 @@
       syncPrint(el);
       if (el.dataset.select) onSelect(el);
       else if (el.dataset.unit) { S.chosen[el.dataset.unit] = el.value; saveUnits(); renderAll(); }
-      else if (el.id === 'wind-on') {
+      else if (el.id === 'hook-on') {
+        if (el.checked) S.scenario.load.hook = S.hookStash || { mass_kg: 500, rigging_length_m: 3 };
+        else { S.hookStash = S.scenario.load.hook; delete S.scenario.load.hook; clearBad('load.hook.'); }
+        renderForm();
+        changed();
+      } else if (window.SwayPlan && window.SwayPlan.onChange(el)) {
+        return;
+      } else if (el.id === 'wind-on') {
         if (el.checked) S.scenario.wind = S.windStash || { force_n: 1000 };
         else { S.windStash = S.scenario.wind; delete S.scenario.wind; clearBad('wind.'); }
         renderForm();
@@ -359,6 +411,7 @@
     });
     f.addEventListener('click', function (e) {
       var el = e.target;
+      if (el.closest && el.closest('#plan-form')) return;
       if (el.id === 'add-move') {
         var ms = S.scenario.motions || (S.scenario.motions = []);
         var last = ms[ms.length - 1];
@@ -389,12 +442,16 @@
     document.querySelectorAll('[aria-invalid]').forEach(function (el) { el.removeAttribute('aria-invalid'); });
     var general = [];
     function put(path, msg) {
-      var box = document.querySelector('[data-field="' + cssEsc(path) + '"]');
-      if (!box) { general.push(path + ': ' + msg); return; }
-      var p = box.querySelector('.msg');
-      p.textContent = (p.textContent ? p.textContent + ' ' : '') + '\u2716 ' + msg;
-      var inp = box.querySelector('input,select,textarea');
-      if (inp) inp.setAttribute('aria-invalid', 'true');
+      var boxes = document.querySelectorAll('[data-field="' + cssEsc(path) + '"]');
+      // A list's item (plan.pendant_steps_pct[2]) is shown at the list.
+      if (!boxes.length) boxes = document.querySelectorAll('[data-field="' + cssEsc(path.replace(/\[\d+\]$/, '')) + '"]');
+      if (!boxes.length) { general.push(path + ': ' + msg); return; }
+      boxes.forEach(function (box) {
+        var p = box.querySelector('.msg');
+        p.textContent = (p.textContent ? p.textContent + ' ' : '') + '\u2716 ' + msg;
+        var inp = box.querySelector('input,select,textarea');
+        if (inp) inp.setAttribute('aria-invalid', 'true');
+      });
     }
     Object.keys(S.bad).forEach(function (p) { put(p, S.bad[p].message); });
     S.coreErrors.forEach(function (fe) {
@@ -433,6 +490,7 @@
   function changed() {
     saveCurrent();
     updateBanner();
+    if (window.SwayPlan) window.SwayPlan.changed();
     clearTimeout(timer);
     S.waiting = true;
     timer = setTimeout(function () { S.waiting = false; evaluate(); }, 30);
@@ -524,6 +582,18 @@
       h.push(tile('r-wind', 'Wind lean', fmtRes(r.wind_lean_deg), 'deg',
         'steady lean under ' + esc(fmtRes(toShown('force', r.wind_force_n)) + ' ' + F.symbol)));
     }
+    if (r.rigging) {
+      var g = r.rigging;
+      h.push(tile('r-modes', 'Two sway modes', fmtRes(g.mode_periods_s[0]), 's',
+        'slow mode: <span id="r-mode1-lin">' + esc(fmtRes(g.mode_periods_s[0])) + '</span> s linear, <span id="r-mode1-sim">' + esc(fmtRes(g.simulated_periods_s[0])) + '</span> s simulated<br>' +
+        'fast mode: <span id="r-mode2-lin">' + esc(fmtRes(g.mode_periods_s[1])) + '</span> s linear, <span id="r-mode2-sim">' + esc(fmtRes(g.simulated_periods_s[1])) + '</span> s simulated'));
+      h.push(tile('r-second', 'Second mode\u2019s share', fmtRes(100 * g.second_mode_share), '%',
+        'of the load\u2019s swing after a sudden start (linear theory)'));
+      h.push(tile('r-rigging-angle', 'Rope to rigging', fmtRes(g.peak_rigging_angle_deg), 'deg',
+        'peak angle between rope and rigging: the load swinging under the hook; the rope itself swings up to ' + esc(fmtRes(g.peak_rope_swing_deg)) + ' deg'));
+      h.push(tile('r-rigging-tension', 'Peak rigging tension', fmtRes(toShown('force', g.rigging_tension_max_n)), F.symbol,
+        'lowest ' + esc(fmtRes(toShown('force', g.rigging_tension_min_n)) + ' ' + F.symbol)));
+    }
     var hd = $('headline');
     hd.innerHTML = h.join('');
     hd.dataset.count = String(S.count);
@@ -583,6 +653,7 @@
     updateBanner();
     renderSys();
     if (S.result) renderResults();
+    if (window.SwayPlan) window.SwayPlan.render();
   }
 
   function renderSys() {
@@ -724,11 +795,13 @@
     S.bad = {};
     S.coreErrors = [];
     S.windStash = null;
+    S.hookStash = null;
     if (!Array.isArray(S.scenario.motions)) S.scenario.motions = [];
     renderForm();
     updateBanner();
     if (msg) notice(msg);
     changed();
+    if (window.SwayPlan) window.SwayPlan.loaded();
   }
 
   function notice(msg) {
@@ -932,6 +1005,7 @@
         renderForm();
         updateBanner();
         changed();
+        if (window.SwayPlan) window.SwayPlan.loaded();
       }
       document.body.dataset.state = 'ready';
     });
@@ -947,6 +1021,22 @@
     delete S.scenario.example;
     renderForm();
     changed();
+  };
+
+  // What web/static/plan.js uses of the page: the state, the core's calls
+  // and units, the form's field builders.
+  window.SwayApp = {
+    S: S, call: call, unitOf: unitOf, toShown: toShown, toSI: toSI, fmtRes: fmtRes, fmtField: fmtField,
+    numField: numField, selectField: selectField, parseNumber: parseNumber, setPath: setPath, getPath: getPath,
+    renderForm: renderForm, changed: changed, notice: notice, clearBad: clearBad, showErrors: showErrors,
+    keepInSaved: function (why) {
+      var st = store();
+      if (!st) return false;
+      try {
+        st.setItem(SAVED + why + ' ' + new Date().toISOString().slice(0, 19).replace('T', ' '), JSON.stringify({ saved_at: new Date().toISOString(), scenario: S.scenario }));
+        return true;
+      } catch (e) { return false; }
+    }
   };
 
   // For the browser tests and for people checking a figure: the current

@@ -55,10 +55,24 @@
   // chart draws an SVG line chart.
   // opt: {title, xLabel, yLabel, series: [{x: [], y: [], label, cls}],
   //       bands: [{x0, x1, text}], hlines: [{y, label}], equal: bool,
-  //       circles: [{r, label}], yFromZero: bool, width, height}
+  //       circles: [{r, label}], yFromZero: bool, width, height,
+  //       legendTop: bool (legend in rows under the title, off the lines)}
   function chart(opt) {
     var W = opt.width || 640, H = opt.height || 300;
     var m = { l: 72, r: 16, t: 34, b: 56 };
+    var rows = [];
+    if (opt.legendTop && opt.series.length > 1) {
+      var x0 = m.l, row = [];
+      opt.series.forEach(function (s) {
+        var w = 44 + 8.5 * String(s.label).length;
+        if (row.length && x0 + w > W - m.r) { rows.push(row); row = []; x0 = m.l; }
+        row.push({ s: s, x: x0 });
+        x0 += w;
+      });
+      rows.push(row);
+      m.t += 22 * rows.length;
+      H += 22 * rows.length;
+    }
     var pw = W - m.l - m.r, ph = H - m.t - m.b;
     var extraY = (opt.hlines || []).map(function (h) { return h.y; });
     var xr = extent(opt.series, 'x', []);
@@ -127,8 +141,15 @@
     o.push('<text x="' + (m.l + pw / 2) + '" y="' + (H - 10) + '" text-anchor="middle" class="axis-label">' + esc(opt.xLabel) + '</text>');
     o.push('<text transform="translate(18 ' + (m.t + ph / 2) + ') rotate(-90)" text-anchor="middle" class="axis-label">' + esc(opt.yLabel) + '</text>');
     // legend
+    rows.forEach(function (row, i) {
+      var y = 40 + 22 * i;
+      row.forEach(function (it) {
+        o.push('<line x1="' + it.x + '" y1="' + y + '" x2="' + (it.x + 26) + '" y2="' + y + '" class="line ' + (it.s.cls || '') + '"/>');
+        o.push('<text x="' + (it.x + 32) + '" y="' + y + '" dy="0.35em" class="legend">' + esc(it.s.label) + '</text>');
+      });
+    });
     var lx = m.l + 8;
-    if (opt.series.length > 1) {
+    if (opt.series.length > 1 && !rows.length) {
       opt.series.forEach(function (s) {
         o.push('<line x1="' + lx + '" y1="' + (m.t + ph - 12) + '" x2="' + (lx + 26) + '" y2="' + (m.t + ph - 12) + '" class="line ' + (s.cls || '') + '"/>');
         o.push('<text x="' + (lx + 32) + '" y="' + (m.t + ph - 12) + '" dy="0.35em" class="legend">' + esc(s.label) + '</text>');
