@@ -153,7 +153,17 @@ func (v *Solver) eval(t float64, y, dy []float64) {
 func (v *Solver) errNorm(y0, y1, e []float64) float64 {
 	var sum float64
 	for i := range v.n {
-		sk := v.set.AbsTol + v.set.RelTol*math.Max(math.Abs(y0[i]), math.Abs(y1[i]))
+		a, b := y0[i], y1[i]
+		if a < 0 {
+			a = -a
+		}
+		if b < 0 {
+			b = -b
+		}
+		if b > a {
+			a = b
+		}
+		sk := v.set.AbsTol + v.set.RelTol*a
 		r := e[i] / sk
 		sum += r * r
 	}

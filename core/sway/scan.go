@@ -106,7 +106,7 @@ func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 // |d x e|^2 / (|d| (|d| + d.e)) where d.e > 0, which keeps its precision
 // for small angles.
 func oneMinusCos(d, e r3.Vec) float64 {
-	l := r3.Norm(d)
+	l := math.Sqrt(r3.Dot(d, d))
 	c := r3.Dot(d, e)
 	if c > 0 {
 		x := r3.Cross(d, e)
@@ -150,8 +150,19 @@ func (s *scanner) at(t float64) *pendulum.Point {
 // one's. The shift, 1e-12 of the time, moves positions by far less than
 // the integration error.
 func (s *scanner) inSegment(t float64) float64 {
-	d := 1e-12 * math.Max(1, math.Abs(t))
-	return math.Max(s.segStart+d, math.Min(s.segEnd-d, t))
+	// Plain comparisons: t is never NaN here, and math.Max and math.Min,
+	// which handle NaN and signed zeros, are calls of their own in wasm.
+	d := 1e-12 * t
+	if d < 1e-12 {
+		d = 1e-12
+	}
+	if lo := s.segStart + d; t < lo {
+		return lo
+	}
+	if hi := s.segEnd - d; t > hi {
+		return hi
+	}
+	return t
 }
 
 // fn is the right-hand side the solver integrates: the model's, inside the
