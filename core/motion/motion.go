@@ -42,7 +42,7 @@ type Trapezoid struct {
 	Decel    float64 // > 0
 
 	// Derived by NewTrapezoid.
-	peak, tAcc, tCruise, tDec float64
+	dist, sign, peak, tAcc, tCruise, tDec float64
 }
 
 // NewTrapezoid builds a trapezoidal move. Speed, accel and decel must be
@@ -53,6 +53,10 @@ func NewTrapezoid(start, distance, speed, accel, decel float64) *Trapezoid {
 	}
 	p := &Trapezoid{Start: start, Distance: distance, Speed: speed, Accel: accel, Decel: decel}
 	d := math.Abs(distance)
+	p.dist, p.sign = d, 1
+	if distance < 0 {
+		p.sign = -1
+	}
 	v := speed
 	// Distance covered by the two ramps at full speed.
 	if ramps := v*v/(2*accel) + v*v/(2*decel); ramps > d {
@@ -88,10 +92,7 @@ func (p *Trapezoid) Breakpoints() []float64 {
 
 // At implements Profile.
 func (p *Trapezoid) At(t float64) State {
-	sign := 1.0
-	if p.Distance < 0 {
-		sign = -1
-	}
+	sign := p.sign
 	tau := t - p.Start
 	var s State
 	switch {
@@ -104,9 +105,9 @@ func (p *Trapezoid) At(t float64) State {
 		s = State{Pos: 0.5*p.peak*p.tAcc + p.peak*u, Vel: p.peak}
 	case tau < p.Duration():
 		u := p.Duration() - tau // time left
-		s = State{Pos: math.Abs(p.Distance) - 0.5*p.Decel*u*u, Vel: p.Decel * u, Acc: -p.Decel}
+		s = State{Pos: p.dist - 0.5*p.Decel*u*u, Vel: p.Decel * u, Acc: -p.Decel}
 	default:
-		s = State{Pos: math.Abs(p.Distance)}
+		s = State{Pos: p.dist}
 	}
 	return State{Pos: sign * s.Pos, Vel: sign * s.Vel, Acc: sign * s.Acc}
 }
