@@ -7,7 +7,10 @@
 // (2008), appendix B, and the SI Brochure (9th ed., 2019).
 package units
 
-import "math"
+import (
+	"math"
+	"sort"
+)
 
 // StandardGravity is g_n in m/s^2 (3rd CGPM 1901; ISO 80000-3).
 const StandardGravity = 9.80665
@@ -104,4 +107,22 @@ func find(q, symbol string) (Unit, bool) {
 		}
 	}
 	return Unit{}, false
+}
+
+// QuantityOf names the quantity of Table whose SI unit has the given
+// symbol, or "" when there is none. Scenarios carry angles in degrees, so
+// "deg" is the angle quantity. Names are tried in sorted order, so the
+// answer does not depend on map order.
+func QuantityOf(siSymbol string) string {
+	names := make([]string, 0, len(Table))
+	for k := range Table {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	for _, k := range names {
+		if q := Table[k]; len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
+			return k
+		}
+	}
+	return ""
 }

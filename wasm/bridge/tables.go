@@ -6,7 +6,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"path"
-	"sort"
 	"strings"
 
 	"swaysheet/core/scenario"
@@ -49,28 +48,11 @@ func ranges(*Env, []byte) (any, error) {
 	out := make(map[string]FieldRange, len(scenario.Ranges))
 	for k, r := range scenario.Ranges {
 		out[k] = FieldRange{Min: r.Min, Max: r.Max, Unit: r.Unit, OpenMin: r.OpenMin,
-			Text: r.Text(), Quantity: QuantityOf(r.Unit)}
+			Text: r.Text(), Quantity: units.QuantityOf(r.Unit)}
 	}
 	return out, nil
 }
 
-// QuantityOf names the quantity of units.Table whose SI unit has the given
-// symbol, or "" when there is none. Angles are in degrees in scenarios, so
-// "deg" is the angle quantity.
-func QuantityOf(siSymbol string) string {
-	names := make([]string, 0, len(units.Table))
-	for k := range units.Table {
-		names = append(names, k)
-	}
-	sort.Strings(names)
-	for _, k := range names {
-		q := units.Table[k]
-		if len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
-			return k
-		}
-	}
-	return ""
-}
 
 //go:embed examples/*.json
 var embedded embed.FS

@@ -72,22 +72,6 @@ func (u unitChooser) show(q string, si float64) (float64, string) {
 	return si / un.ToSI, un.Symbol
 }
 
-// quantityOf names the core/units quantity whose SI unit is siSymbol.
-func quantityOf(siSymbol string) string {
-	names := make([]string, 0, len(units.Table))
-	for k := range units.Table {
-		names = append(names, k)
-	}
-	sort.Strings(names)
-	for _, k := range names {
-		q := units.Table[k]
-		if len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
-			return k
-		}
-	}
-	return ""
-}
-
 // suffixUnit is the SI unit a field name ends in, for fields the Ranges
 // table does not list.
 var suffixUnit = []struct{ suffix, unit string }{
@@ -132,7 +116,7 @@ func fieldUnit(path string) (si, q string) {
 			}
 		}
 	}
-	q = quantityOf(si)
+	q = units.QuantityOf(si)
 	if path == "wind.speed_m_per_s" {
 		q = "wind_speed"
 	}
