@@ -324,7 +324,7 @@ func fillResults(v *view, r *sway.Result, u unitChooser) {
 		return out
 	}
 	v.PathPlot = markup(chart("Load path seen from above", "x, "+ls, "y, "+ls, []series{
-		{X: conv(h.SuspensionXM), Y: conv(h.SuspensionYM), Dash: "4 2.5", Width: 1, Name: "hook point"},
+		{X: conv(h.SuspensionXM), Y: conv(h.SuspensionYM), Dash: "4 2.5", Width: 1, Name: "suspension point"},
 		{X: conv(h.LoadXM), Y: conv(h.LoadYM), Width: 1.4, Name: "load"},
 	}, nil))
 }
