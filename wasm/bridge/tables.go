@@ -53,7 +53,6 @@ func ranges(*Env, []byte) (any, error) {
 	return out, nil
 }
 
-
 //go:embed examples/*.json
 var embedded embed.FS
 
