@@ -3,14 +3,10 @@ package sway_test
 import (
 	"encoding/json"
 	"fmt"
-	"math"
 	"os"
 	"path/filepath"
-	"strings"
 	"testing"
 
-	"swaysheet/core/scenario"
-	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
 
@@ -34,25 +30,15 @@ type refDoubleSample struct {
 }
 
 type refDoubleResult struct {
-	PeriodS            float64    `json:"period_s"`
-	ModePeriodsS       [2]float64 `json:"mode_periods_s"`
-	RunS               float64    `json:"run_s"`
-	MotionEndS         float64    `json:"motion_end_s"`
-	RopeLengthEndM     float64    `json:"rope_length_end_m"`
-	WindForceN         float64    `json:"wind_force_n"`
-	PeakSwingDeg       float64    `json:"peak_swing_deg"`
-	PeakExcursionM     float64    `json:"peak_excursion_m"`
-	ResidualSwingDeg   float64    `json:"residual_swing_deg"`
-	ResidualExcursionM float64    `json:"residual_excursion_m"`
-	TensionMaxN        float64    `json:"tension_max_n"`
-	TensionMinN        float64    `json:"tension_min_n"`
-	TensionFactor      float64    `json:"tension_factor"`
-	Rigging            struct {
+	refResult
+	ModePeriodsS [2]float64 `json:"mode_periods_s"`
+	Rigging      struct {
 		PeakRopeSwingDeg    float64 `json:"peak_rope_swing_deg"`
 		PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg"`
 		RiggingTensionMaxN  float64 `json:"rigging_tension_max_n"`
 		RiggingTensionMinN  float64 `json:"rigging_tension_min_n"`
 	} `json:"rigging"`
+	// Samples shadows the single rope's: each sample adds the rigging tension.
 	Samples []refDoubleSample `json:"samples"`
 }
 
@@ -107,16 +93,7 @@ func TestReferenceDouble(t *testing.T) {
 				if s.Load.Hook == nil {
 					t.Fatalf("%s has no hook block", e.Scenario)
 				}
-				var st scenario.Settings
-				if s.Settings != nil {
-					st = *s.Settings
-				}
-				st.Accuracy, st.RelTol = tol.accuracy, 0
-				s.Settings = &st
-				res, err := sway.Evaluate(s)
-				if err != nil {
-					t.Fatal(err)
-				}
+				res := evaluateAt(t, s, tol.accuracy)
 				rg := res.Rigging
 				if rg == nil {
 					t.Fatal("no rigging block in the result")
@@ -124,21 +101,7 @@ func TestReferenceDouble(t *testing.T) {
 				ref := e.Result
 				mg := res.StaticTensionN
 				m2g := *s.Load.MassKg * units.StandardGravity
-				check := func(what string, got, want, tolerance float64) {
-					t.Helper()
-					d := math.Abs(got - want)
-					key := what
-					if k, _, ok := strings.Cut(what, " at t"); ok {
-						key = k
-					}
-					if d > worst[key] {
-						worst[key] = d
-					}
-					if !(d <= tolerance) {
-						t.Errorf("%s: core %.12g, SciPy DOP853 reference %.12g: differ by %.3g, tolerance %.3g",
-							what, got, want, d, tolerance)
-					}
-				}
+				check := checker(t, worst)
 				// Mode periods: the core's closed form against numpy's eigenvalues.
 				check("period_s", res.PeriodS, ref.PeriodS, 1e-10*ref.PeriodS)
 				for i := range 2 {
@@ -159,22 +122,12 @@ func TestReferenceDouble(t *testing.T) {
 				check("peak_rigging_angle_deg", rg.PeakRiggingAngleDeg, ref.Rigging.PeakRiggingAngleDeg, tol.rigDeg)
 				check("rigging_tension_max/(m2*g)", rg.RiggingTensionMaxN/m2g, ref.Rigging.RiggingTensionMaxN/m2g, tol.rigTension)
 				check("rigging_tension_min/(m2*g)", rg.RiggingTensionMinN/m2g, ref.Rigging.RiggingTensionMinN/m2g, tol.rigTension)
-				h := res.History
-				for _, rs := range ref.Samples {
-					i := sampleIndex(h.TimeS, rs.TimeS)
-					if i < 0 {
-						t.Errorf("no history sample at t = %.12g s", rs.TimeS)
-						continue
-					}
-					at := fmt.Sprintf(" at t = %.4g s", rs.TimeS)
-					pos := math.Sqrt(sq(h.RelXM[i]-rs.RelXM) + sq(h.RelYM[i]-rs.RelYM) + sq(h.RelZM[i]-rs.RelZM))
-					check("sample load from suspension (m)"+at, pos, 0, tol.samplePosM)
-					check("sample swing_deg"+at, h.SwingDeg[i], rs.SwingDeg, tol.sampleDeg)
-					check("sample tension/((m1+m2)*g)"+at, h.TensionN[i]/mg, rs.TensionN/mg, tol.sample)
-					check("sample suspension x"+at, h.SuspensionXM[i], rs.SuspensionXM, 1e-9)
-					check("sample suspension y"+at, h.SuspensionYM[i], rs.SuspensionYM, 1e-9)
-					check("sample rope_m"+at, h.RopeM[i], rs.RopeM, 1e-9)
+				samples := make([]refSample, len(ref.Samples))
+				for i, rs := range ref.Samples {
+					samples[i] = rs.refSample
 				}
+				checkSamples(check, res.History, samples, "sample load from suspension (m)", "sample tension/((m1+m2)*g)", mg,
+					tol.samplePosM, tol.sampleDeg, tol.sample)
 			})
 		}
 		if testing.Verbose() {
