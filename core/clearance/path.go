@@ -26,7 +26,10 @@ type Closest struct {
 	// the obstacle's outline below its top, the load's radius aside (exact
 	// for the piece, so a thin wall between two samples is not missed).
 	Strikes bool
-	// FirstStrikeS is the time at the start of the first piece that strikes.
+	// FirstStrikeS is the moment of the first strike: the first point
+	// checked where the load overlaps the obstacle, or, when only a
+	// straight piece's centre line passes through it between points
+	// checked, the start of that piece.
 	FirstStrikeS float64
 }
 
@@ -42,9 +45,14 @@ func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 	if len(path) == 0 {
 		return c
 	}
+	firstOverlap := math.NaN()
 	offer := func(t float64, q Point3) {
-		if v := o.Clearance(q, radiusM); v < c.ClearanceM {
+		v := o.Clearance(q, radiusM)
+		if v < c.ClearanceM {
 			c.ClearanceM, c.TimeS, c.At = v, t, q
+		}
+		if v < 0 && math.IsNaN(firstOverlap) {
+			firstOverlap = t
 		}
 	}
 	offer(path[0].TimeS, path[0].At)
@@ -67,26 +75,13 @@ func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 			c.Strikes, c.FirstStrikeS = true, a.TimeS
 		}
 	}
-	if c.ClearanceM < 0 && !c.Strikes {
-		// The load's radius reaches the obstacle though its centre line
-		// stays outside: that is a strike too.
-		c.Strikes, c.FirstStrikeS = true, firstBelow(o, path, radiusM)
+	if !math.IsNaN(firstOverlap) {
+		// An overlap at a point checked is a strike (the load's radius
+		// reaches the obstacle even where its centre line does not).
+		if !c.Strikes || firstOverlap < c.FirstStrikeS {
+			c.FirstStrikeS = firstOverlap
+		}
+		c.Strikes = true
 	}
 	return c
-}
-
-// firstBelow is the time of the first sample whose clearance is negative,
-// or of the closest one when only points between samples are.
-func firstBelow(o *Obstacle, path []Sample, radiusM float64) float64 {
-	best, bestT := math.Inf(1), path[0].TimeS
-	for _, s := range path {
-		v := o.Clearance(s.At, radiusM)
-		if v < 0 {
-			return s.TimeS
-		}
-		if v < best {
-			best, bestT = v, s.TimeS
-		}
-	}
-	return bestT
 }
