@@ -34,7 +34,7 @@ type Row struct {
 type Check struct {
 	LimitSI   float64 `json:"limit_si"`
 	LimitText string  `json:"limit_text"` // in the row's Unit, rounded
-	Within    bool    `json:"within"`    // ValueSI <= LimitSI, unrounded
+	Within    bool    `json:"within"`     // ValueSI <= LimitSI, unrounded
 	// Margin is how far the figure is inside the limit (within) or
 	// beyond it (OUTSIDE), in the row's Unit, rounded; "less than 0.1"
 	// when rounding would say 0.
