@@ -35,7 +35,7 @@ var Calls = map[string]Func{
 	"units":    unitTable,
 	"ranges":   ranges,
 	"examples": examples,
-	"version":  version,
+	"version":  versionCall,
 	"plan":     makePlan,
 }
 

@@ -8,17 +8,17 @@ import (
 	"swaysheet/core/sway"
 )
 
-// memo keeps the last evaluation and the last plan, each with the
+// memo keeps the last two evaluations and the last plan, each with the
 // fingerprint of the scenario it is of (scenario.Fingerprint: any changed
 // input changes it). The page evaluates, then asks for the figures and the
 // sheet of the same inputs: those calls find the result here and never
-// compute it again. One of each is kept: the page has one scenario.
+// compute it again. Two results: a planning request without moves of its
+// own has its own result and the sheet's, of the recommended move.
 type memo struct {
-	mu       sync.Mutex
-	resultFP string
-	result   *sway.Result
-	planFP   string
-	plan     *plan.Result
+	mu      sync.Mutex
+	results [2]keptResult // most recent first
+	planFP  string
+	plan    *plan.Result
 	// computed counts evaluations and plans run (for tests).
 	computed int
 }
@@ -33,10 +33,12 @@ func evaluated(s *scenario.Scenario) (*sway.Result, error) {
 		return nil, err
 	}
 	last.mu.Lock()
-	if last.resultFP == fp {
-		r := last.result
-		last.mu.Unlock()
-		return r, nil
+	for i, k := range last.results {
+		if k.fp == fp {
+			last.results[0], last.results[i] = k, last.results[0]
+			last.mu.Unlock()
+			return k.result, nil
+		}
 	}
 	last.mu.Unlock()
 	r, err := sway.Evaluate(s)
@@ -44,10 +46,15 @@ func evaluated(s *scenario.Scenario) (*sway.Result, error) {
 		return nil, err
 	}
 	last.mu.Lock()
-	last.resultFP, last.result = fp, r
+	last.results[1], last.results[0] = last.results[0], keptResult{fp: fp, result: r}
 	last.computed++
 	last.mu.Unlock()
 	return r, nil
+}
+
+type keptResult struct {
+	fp     string
+	result *sway.Result
 }
 
 // planned is the plan of s, from the memo when it holds s's.

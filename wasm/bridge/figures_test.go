@@ -48,3 +48,32 @@ func TestFiguresCallUsesTheLastResult(t *testing.T) {
 		}
 	}
 }
+
+// After the page's plan call, the sheet of the same scenario plans
+// nothing again, and a second sheet computes nothing at all.
+func TestSheetUsesTheLastPlan(t *testing.T) {
+	data, err := os.ReadFile("examples/plan-tower-slew.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "plan", data), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	in, _ := json.Marshal(map[string]any{"scenario": json.RawMessage(data)})
+	before := last.computed
+	json.Unmarshal(Call(nil, "sheet", in), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	// The recommended move's evaluation, nothing else.
+	if n := last.computed - before; n != 1 {
+		t.Errorf("the sheet computed %d times after the plan call, want 1 (the recommended move)", n)
+	}
+	before = last.computed
+	Call(nil, "sheet", in)
+	if last.computed != before {
+		t.Error("a second sheet of the same inputs computed again")
+	}
+}

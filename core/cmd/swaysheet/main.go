@@ -8,7 +8,7 @@
 //	go run ./core/cmd/swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...
 //
 // With -sheet it writes the printable check sheet of each file as
-// OUTDIR/NAME.html (web/sheet, the same renderer the page prints with) and
+// OUTDIR/NAME.html (core/sheet, the same renderer the page prints with) and
 // prints each file written with the scenario's fingerprint.
 package main
 

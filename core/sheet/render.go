@@ -43,6 +43,11 @@ func (h *htmlWriter) rows(rows []Row) {
 	for _, r := range rows {
 		h.raw("<tr><th>")
 		h.t(r.Label)
+		if r.Tech != "" {
+			h.raw(` <span class="sw-tech">`)
+			h.t(r.Tech)
+			h.raw("</span>")
+		}
 		h.raw(`</th><td class="sw-n">`)
 		h.t(r.Value)
 		h.raw(`</td><td class="sw-u">`)
@@ -114,6 +119,11 @@ func (h *htmlWriter) body(v *view) {
 	if v.AnyOutside {
 		h.raw(`<p class="sw-banner"><b>&#x2716; OUTSIDE THE PLAN'S LIMITS:</b> at least one result below is outside its limit. Do not lift as planned.</p>` + "\n")
 	}
+	if !v.Simulated {
+		h.raw(`<p class="sw-banner"><b>NOTHING SIMULATED:</b> `)
+		h.t(v.Verdict)
+		h.raw("</p>\n")
+	}
 	if v.EvalErr != "" {
 		h.raw(`<p class="sw-banner"><b>NOT COMPUTED:</b> `)
 		h.t(v.EvalErr)
@@ -145,23 +155,31 @@ func (h *htmlWriter) body(v *view) {
 				h.raw("<tr><th>")
 			}
 			h.t(c.Label)
-			h.raw("</th>")
+			h.raw(` <span class="sw-tech">`)
+			h.t(c.Tech)
+			h.raw("</span></th>")
+			h.raw(`<td class="sw-n">`)
+			h.t(c.Value + " " + c.Unit)
 			if c.HasLimit {
-				h.raw(`<td class="sw-n">`)
-				h.t(c.Value + " " + c.Unit)
 				h.raw(`</td><td class="sw-n">`)
 				h.t(c.Limit + " " + c.Unit)
 				if c.Within {
-					h.raw("</td><td>&#x2714; within</td>")
+					h.raw("</td><td>&#x2714; within, ")
+					h.t(c.Margin + " " + c.Unit + " to spare")
 				} else {
-					h.raw("</td><td><b>&#x2716; OUTSIDE</b></td>")
+					h.raw("</td><td><b>&#x2716; OUTSIDE</b> by ")
+					h.t(c.Margin + " " + c.Unit)
 				}
+				h.raw("</td>")
 			} else {
-				h.raw(`<td class="sw-n">&ndash;</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
+				h.raw(`</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
 			}
 			h.raw("</tr>\n")
 		}
 		h.raw("</table>\n")
+		if v.Simulated && v.Verdict != "" {
+			h.el("p", "sw-verdict", v.Verdict)
+		}
 	} else {
 		h.raw("<p>No results: the scenario could not be computed.</p>\n")
 	}
