@@ -15,8 +15,6 @@ import (
 // Row is one labelled figure of the sheet.
 type Row struct {
 	Label string
-	// Tech is the technical name beside a result's plain words.
-	Tech  string
 	Value string
 	Unit  string
 }

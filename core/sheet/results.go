@@ -13,7 +13,9 @@ import (
 // fillResults puts the result's figures on the sheet as the figures table
 // presents them (ev is the scenario r is of): figures without a limit in
 // the results table, figures the plan can limit in the checks table,
-// then the verdict, the warnings and the plots.
+// then the verdict, the warnings and the plots. On paper the crew's words
+// alone keep each figure on one line; the technical names are in the
+// command line's summary and the page's figures.
 func fillResults(v *view, ev *scenario.Scenario, r *sway.Result, u units.Choice) {
 	rep := figures.Present(ev, r, u)
 	v.Verdict = rep.Verdict.Text
@@ -22,10 +24,10 @@ func fillResults(v *view, ev *scenario.Scenario, r *sway.Result, u units.Choice)
 	lim := []hline{}
 	for _, row := range rep.Rows {
 		if row.LimitKey == "" {
-			v.Results = append(v.Results, Row{Label: capital(row.Crew), Tech: row.Technical, Value: row.Text, Unit: row.Unit})
+			v.Results = append(v.Results, Row{Label: capital(row.Crew), Value: row.Text, Unit: row.Unit})
 			continue
 		}
-		c := check{Label: capital(row.Crew), Tech: row.Technical, Value: row.Text, Unit: row.Unit}
+		c := check{Label: capital(row.Crew), Value: row.Text, Unit: row.Unit}
 		if k := row.Check; k != nil {
 			c.HasLimit, c.Limit, c.Within, c.Margin = true, k.LimitText, k.Within, k.Margin
 			if row.Key == "peak_swing_deg" {

@@ -120,9 +120,9 @@ func ReadShareFragment(frag string) ([]byte, error) {
 }
 
 type check struct {
-	Label, Tech, Value, Limit, Unit, Margin string
-	Within                                  bool
-	HasLimit                                bool
+	Label, Value, Limit, Unit, Margin string
+	Within                            bool
+	HasLimit                          bool
 }
 
 type planView struct {
