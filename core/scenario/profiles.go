@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
-	"swaysheet/core/units"
 )
 
 // Motion profile names.
@@ -144,15 +144,15 @@ func init() {
 }
 
 // metric reports whether the axis moves in metres (else degrees).
-func metric(axis string) bool { return axis != Slew }
+func metric(axis string) bool {
+	a, ok := crane.Of(axis)
+	return !ok || a.Kind == crane.Linear
+}
 
 // DefaultColumn is the CSV column a series motion of the axis reads when
 // none is named: the speed column if the record has it, else the position.
 func DefaultColumn(axis string, s *motion.Series) string {
-	unit := "_m"
-	if !metric(axis) {
-		unit = "_deg"
-	}
+	unit := kindOf(axis).CSVSuffix
 	if _, ok := s.Column(axis + unit + "_per_s"); ok {
 		return axis + unit + "_per_s"
 	}
@@ -160,11 +160,15 @@ func DefaultColumn(axis string, s *motion.Series) string {
 }
 
 // ColumnScale is the factor from a CSV column's unit to the axis' SI unit.
-func ColumnScale(axis string) float64 {
-	if metric(axis) {
-		return 1
+func ColumnScale(axis string) float64 { return kindOf(axis).ToSI }
+
+// kindOf is the axis' kind; linear for an unknown axis (Validate rejects
+// those).
+func kindOf(axis string) *crane.Kind {
+	if a, ok := crane.Of(axis); ok {
+		return a.Kind
 	}
-	return units.Degree
+	return crane.Linear
 }
 
 // validateProfile checks the fields of the non-trapezoid profiles, and
@@ -331,10 +335,7 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 	if col == "" {
 		col = DefaultColumn(m.Axis, s)
 		if _, ok := s.Column(col); !ok {
-			unit := "_m"
-			if !metric(m.Axis) {
-				unit = "_deg"
-			}
+			unit := kindOf(m.Axis).CSVSuffix
 			return nil, fmt.Errorf("the record has no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column",
 				m.Axis, m.Axis, unit, m.Axis, unit)
 		}

@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 )
@@ -220,8 +221,8 @@ func flatten(g *Group, path, label string, v any, u units.Choice) {
 			g.Rows = append(g.Rows, Row{Label: label, Value: fmt.Sprintf("%d lines (in the scenario file and the QR code)", n)})
 			return
 		}
-		if w, ok := axisWords[x]; ok && strings.HasSuffix(path, ".axis") {
-			x = w
+		if a, ok := crane.Of(x); ok && strings.HasSuffix(path, ".axis") {
+			x = a.Words
 		}
 		if r := []rune(x); len(r) > 80 {
 			x = string(r[:79]) + "…"
@@ -283,10 +284,4 @@ func capitalise(g *Group) {
 			g.Rows[i].Label = strings.ToUpper(string(rs[0])) + string(rs[1:])
 		}
 	}
-}
-
-// axisWords are the axes as the page names them.
-var axisWords = map[string]string{
-	scenario.TravelX: "travel x", scenario.TravelY: "travel y", scenario.Slew: "slew",
-	scenario.Radius: "trolley on the jib (radius)", scenario.Hoist: "hoist (up +)",
 }

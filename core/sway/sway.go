@@ -122,6 +122,10 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// Validated says the caller has validated the scenario and not
+	// changed it since (scenario.Parse and Decode validate): it is not
+	// validated again.
+	Validated bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -159,7 +163,7 @@ func Evaluate(s *scenario.Scenario) (*Result, error) {
 
 // EvaluateWith runs one scenario.
 func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
-	su, err := build(s)
+	su, err := build(s, !opt.Validated)
 	if err != nil {
 		return nil, err
 	}

@@ -105,7 +105,7 @@ func evaluate(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	return evaluated(s)
+	return evaluated(s, true)
 }
 
 // validate checks a scenario without running it; the result is

@@ -25,9 +25,10 @@ type memo struct {
 
 var last memo
 
-// evaluated is the evaluation of s, from the memo when it holds s's.
-// The result is shared: callers read it and never change it.
-func evaluated(s *scenario.Scenario) (*sway.Result, error) {
+// evaluated is the evaluation of s, from the memo when it holds s's;
+// validated says s came from scenario.Parse unchanged (not validated
+// again). The result is shared: callers read it and never change it.
+func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
 	fp, err := scenario.Fingerprint(s)
 	if err != nil {
 		return nil, err
@@ -41,7 +42,7 @@ func evaluated(s *scenario.Scenario) (*sway.Result, error) {
 		}
 	}
 	last.mu.Unlock()
-	r, err := sway.Evaluate(s)
+	r, err := sway.EvaluateWith(s, sway.Options{Validated: validated})
 	if err != nil {
 		return nil, err
 	}

@@ -40,7 +40,7 @@ func figuresCall(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	r, err := evaluated(s)
+	r, err := evaluated(s, true)
 	if err != nil {
 		return nil, err
 	}

@@ -5,6 +5,7 @@ import (
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
 	"swaysheet/core/version"
 )
 
@@ -32,11 +33,6 @@ type SheetReply struct {
 	QRText      string `json:"qr_text"`
 }
 
-// memoised evaluates and plans through the memo of the last result and
-// plan: after the page's evaluate and plan calls of the same scenario the
-// sheet computes nothing.
-var memoised = sheet.Computer{Evaluate: evaluated, Plan: planned}
-
 // sheetCall renders the check sheet with core/sheet, the renderer the
 // command line uses, so the page's print and swaysheet -sheet agree.
 func sheetCall(_ *Env, input []byte) (any, error) {
@@ -45,7 +41,13 @@ func sheetCall(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	si := memoised.Compute(s)
+	// Through the memo of the last results and plan: after the page's
+	// evaluate and plan calls of the same scenario the sheet computes
+	// nothing. Only the parsed scenario is known to be valid.
+	memo := sheet.Computer{Plan: planned, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
+		return evaluated(x, x == s)
+	}}
+	si := memo.Compute(s)
 	si.Units, si.Version, si.LinkBase, si.PrintedAt = in.choice(), version.Version, in.LinkBase, in.PrintedAt
 	sh, err := sheet.Build(si)
 	if err != nil {

@@ -96,6 +96,7 @@ func evaluate(name string, opt sway.Options) (*scenario.Scenario, *sway.Result, 
 	if err != nil {
 		return nil, nil, err
 	}
+	opt.Validated = true // Decode validates
 	r, err := sway.EvaluateWith(s, opt)
 	return s, r, err
 }
