@@ -21,7 +21,7 @@ func (d *Drives) Of(a Axis) *motion.Sum { return &d[a.Role] }
 // vertical axis through the origin, r = r0 + reach, phi = phi0 + turn.
 // Radial and tangential unit vectors er = (cos phi, sin phi),
 // et = (-sin phi, cos phi): position r*er; velocity r'*er + r*phi'*et;
-// acceleration (r” - r*phi'^2)*er + (r*phi” + 2*r'*phi')*et (plane
+// acceleration (r¨ - r*phi'^2)*er + (r*phi¨ + 2*r'*phi')*et (plane
 // polar coordinates; any dynamics text, e.g. Meriam & Kraige,
 // Engineering Mechanics: Dynamics, ch. 2).
 func (d *Drives) Suspension(r0, phi0 float64) func(float64) pendulum.Kinematics {
