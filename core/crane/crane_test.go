@@ -17,7 +17,7 @@ func TestSteadySlewIsCircularMotion(t *testing.T) {
 	slew, _ := Of("slew")
 	// A long trapezoid: at t = 50 s it cruises at w.
 	*d.Of(slew) = motion.Sum{motion.NewTrapezoid(0, 100, w, 0.05, 0.05)}
-	k := d.Suspension(r, 0)(50)
+	k := d.Suspension(Start{RadiusM: r})(50)
 	if v := math.Hypot(k.Vel.X, k.Vel.Y); math.Abs(v-r*w) > 1e-12 {
 		t.Errorf("speed %v, want r*w = %v", v, r*w)
 	}
@@ -36,7 +36,7 @@ func TestTravelOnly(t *testing.T) {
 	var d Drives
 	x, _ := Of("travel_x")
 	*d.Of(x) = motion.Sum{motion.NewTrapezoid(0, 10, 1, 0.5, 0.5)}
-	k := d.Suspension(0, 0)(1)
+	k := d.Suspension(Start{})(1)
 	if k.Pos.X != 0.25 || k.Vel.X != 0.5 || k.Acc.X != 0.5 || k.Pos.Y != 0 {
 		t.Errorf("travel: %+v", k)
 	}

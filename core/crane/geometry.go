@@ -9,6 +9,14 @@ import (
 	"swaysheet/core/pendulum"
 )
 
+// Start is where the crane's axes stand at time zero, in the model's SI
+// units (the scenario's crane block gives it: scenario.Crane.Start).
+type Start struct {
+	// RadiusM is the hook radius from the slew axis; SlewRad the jib's
+	// direction, from +x toward +y.
+	RadiusM, SlewRad float64
+}
+
 // Drives holds the summed motion profile of each role, in the model's SI
 // units (m, rad), relative to where the axis starts.
 type Drives [roles]motion.Sum
@@ -18,13 +26,15 @@ func (d *Drives) Of(a Axis) *motion.Sum { return &d[a.Role] }
 
 // Suspension returns the motion of the point the rope hangs from: travel
 // on x and y plus a point at radius r on a jib turned by phi about the
-// vertical axis through the origin, r = r0 + reach, phi = phi0 + turn.
+// vertical axis through the origin, r = r0 + reach, phi = phi0 + turn
+// (r0 and phi0 from at).
 // Radial and tangential unit vectors er = (cos phi, sin phi),
 // et = (-sin phi, cos phi): position r*er; velocity r'*er + r*phi'*et;
 // acceleration (r¨ - r*phi'^2)*er + (r*phi¨ + 2*r'*phi')*et (plane
 // polar coordinates; any dynamics text, e.g. Meriam & Kraige,
 // Engineering Mechanics: Dynamics, ch. 2).
-func (d *Drives) Suspension(r0, phi0 float64) func(float64) pendulum.Kinematics {
+func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
+	r0, phi0 := at.RadiusM, at.SlewRad
 	x, y, turn, reach := d[AlongX], d[AlongY], d[Turn], d[Reach]
 	if len(turn) == 0 && len(reach) == 0 && r0 == 0 {
 		return func(t float64) pendulum.Kinematics {

@@ -1,6 +1,15 @@
 package scenario
 
-import "swaysheet/core/crane"
+import (
+	"swaysheet/core/crane"
+	"swaysheet/core/units"
+)
+
+// Start is where the crane block puts the axes at time zero, in the
+// model's units.
+func (c Crane) Start() crane.Start {
+	return crane.Start{RadiusM: c.RadiusM, SlewRad: c.SlewDeg * units.Degree}
+}
 
 // Drive is a move's kinematic fields, whichever kind its axis is: the
 // metre fields of a linear axis, the degree fields of an angular one

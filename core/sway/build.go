@@ -79,7 +79,6 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	l0 := *s.Load.RopeLengthM
 	mass := *s.Load.MassKg
 	r0 := s.Crane.RadiusM
-	slew0 := s.Crane.SlewDeg * units.Degree
 
 	// The rope and the radius must stay in range over the whole run. Both
 	// are piecewise quadratic in time, so looking at every breakpoint and
@@ -120,7 +119,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	}
 	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
 
-	susp := ax.Suspension(r0, slew0)
+	susp := ax.Suspension(s.Crane.Start())
 	rope := ax.RopeLength(l0)
 	var force func(t float64, pos, vel r3.Vec) r3.Vec
 	if su.windForce > 0 || dragK > 0 {
