@@ -256,7 +256,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.forbidden(f("jerk_deg_per_s3"), m.JerkDegPerS3, "the "+m.Axis+" axis moves in metres; use jerk_m_per_s3")
 		} else {
 			c.optional(f("jerk_deg_per_s3"), key("jerk_deg_per_s3"), m.JerkDegPerS3)
-			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the slew axis moves in degrees; use jerk_deg_per_s3")
+			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the "+m.Axis+" axis moves in degrees; use jerk_deg_per_s3")
 		}
 	case ProfileSteps:
 		c.value(f("start_s"), key("start_s"), m.StartS)
@@ -287,7 +287,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			} else {
 				v = st.RateDegPerS
 				c.required(g("rate_deg_per_s"), key("steps[].rate_deg_per_s"), st.RateDegPerS)
-				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the slew axis moves in degrees; use rate_deg_per_s")
+				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the "+m.Axis+" axis moves in degrees; use rate_deg_per_s")
 			}
 			if i == len(m.Steps)-1 && v != nil && *v != 0 {
 				name := "speed_m_per_s"
@@ -408,10 +408,10 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
 		}
 	case "":
-		c.add("plan.axis", "is required: accepted %q", []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is required: accepted %q", crane.Names(true))
 		return
 	default:
-		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
 		return
 	}
 	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {
