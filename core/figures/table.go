@@ -61,6 +61,8 @@ var Table = []Figure{
 		Unit: "N", Value: positive(func(r *sway.Result) float64 { return r.WindForceN })},
 	{Key: "wind_lean_deg", Crew: "rope lean in the wind", Technical: "steady wind lean",
 		Unit: "deg", Value: windy(func(r *sway.Result) float64 { return r.WindLeanDeg })},
+	{Key: "wind_offset_m", Crew: "load hangs off plumb in the wind by", Technical: "steady wind offset (static, horizontal)",
+		Unit: "m", Value: windy(func(r *sway.Result) float64 { return r.WindOffsetM })},
 	{Key: "rigging.mode_periods_s[0]", Crew: "full swing time, slow swing", Technical: "first mode period (linear)",
 		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[0] })},
 	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",
