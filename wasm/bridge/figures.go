@@ -5,11 +5,13 @@ import (
 
 	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
+	"swaysheet/core/sheet"
 	"swaysheet/core/units"
 )
 
 func init() {
 	Calls["figures"] = figuresCall
+	Calls["plot"] = plotCall
 }
 
 // ShownInput is a scenario and the units it is shown in: the input of the
@@ -45,4 +47,14 @@ func figuresCall(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	return figures.Present(s, r, in.choice()), nil
+}
+
+// plotCall draws a line chart with the check sheet's plotter (core/sheet
+// Plot): input the Plot JSON, result {"svg": "<svg ...>"}.
+func plotCall(_ *Env, input []byte) (any, error) {
+	var p sheet.Plot
+	if err := json.Unmarshal(input, &p); err != nil {
+		return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"title\", \"x_label\", \"y_label\", \"series\": [{\"x\": [...], \"y\": [...]}], \"lines\": [...]}: " + err.Error()}}
+	}
+	return map[string]string{"svg": p.SVG()}, nil
 }

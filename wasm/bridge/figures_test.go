@@ -3,6 +3,7 @@ package bridge
 import (
 	"encoding/json"
 	"os"
+	"strings"
 	"testing"
 
 	"swaysheet/core/figures"
@@ -75,5 +76,28 @@ func TestSheetUsesTheLastPlan(t *testing.T) {
 	Call(nil, "sheet", in)
 	if last.computed != before {
 		t.Error("a second sheet of the same inputs computed again")
+	}
+}
+
+// The plot call draws with the sheet's plotter; text and dash patterns
+// from the page never become markup.
+func TestPlotCall(t *testing.T) {
+	in := `{"title": "<b>rope</b>", "x_label": "time, s", "y_label": "deg",
+		"series": [{"x": [0, 1, 2], "y": [0, 1, 0], "name": "angle", "dash": "4\" onload=\"x"}],
+		"lines": [{"y": 0.5, "text": "limit"}]}`
+	var r struct {
+		Result struct{ SVG string } `json:"result"`
+		Error  *Error               `json:"error"`
+	}
+	if err := json.Unmarshal(Call(nil, "plot", []byte(in)), &r); err != nil || r.Error != nil {
+		t.Fatalf("plot: %v %+v", err, r.Error)
+	}
+	if !strings.HasPrefix(r.Result.SVG, "<svg") || strings.Contains(r.Result.SVG, "<b>") || strings.Contains(r.Result.SVG, "onload") {
+		t.Errorf("svg %q", r.Result.SVG)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "plot", []byte(`{"series": 3}`)), &e)
+	if e.Error == nil {
+		t.Error("bad plot input: no error")
 	}
 }
