@@ -9,8 +9,8 @@ import (
 )
 
 // memo keeps the last two evaluations and the last plan, each with the
-// fingerprint of the scenario it is of (scenario.Fingerprint: any changed
-// input changes it). The page evaluates, then asks for the figures and the
+// fingerprint of the scenario it is of (key: any changed input but the
+// check sheet's reference fields changes it). The page evaluates, then asks for the figures and the
 // sheet of the same inputs: those calls find the result here and never
 // compute it again. Two results: a planning request without moves of its
 // own has its own result and the sheet's, of the recommended move.
@@ -29,7 +29,7 @@ var last memo
 // validated says s came from scenario.Parse unchanged (not validated
 // again). The result is shared: callers read it and never change it.
 func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
-	fp, err := scenario.Fingerprint(s)
+	fp, err := key(s)
 	if err != nil {
 		return nil, err
 	}
@@ -60,7 +60,7 @@ type keptResult struct {
 
 // planned is the plan of s, from the memo when it holds s's.
 func planned(s *scenario.Scenario) (*plan.Result, error) {
-	fp, err := scenario.Fingerprint(s)
+	fp, err := key(s)
 	if err != nil {
 		return nil, err
 	}
@@ -80,4 +80,12 @@ func planned(s *scenario.Scenario) (*plan.Result, error) {
 	last.computed++
 	last.mu.Unlock()
 	return r, nil
+}
+
+// key is the fingerprint of what a result depends on: the scenario without
+// its check sheet references (typing "checked by" computes nothing again).
+func key(s *scenario.Scenario) (string, error) {
+	c := *s
+	c.Sheet = nil
+	return scenario.Fingerprint(&c)
 }

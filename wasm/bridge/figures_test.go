@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"swaysheet/core/figures"
+	"swaysheet/core/scenario"
 )
 
 // The figures call presents from the table, in the units asked for, and
@@ -99,5 +100,30 @@ func TestPlotCall(t *testing.T) {
 	json.Unmarshal(Call(nil, "plot", []byte(`{"series": 3}`)), &e)
 	if e.Error == nil {
 		t.Error("bad plot input: no error")
+	}
+}
+
+// A changed reference field of the sheet computes nothing again; a
+// changed input does.
+func TestMemoKey(t *testing.T) {
+	data, _ := os.ReadFile("examples/hard-stop.json")
+	s, err := scenario.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := evaluated(s, true); err != nil {
+		t.Fatal(err)
+	}
+	before := last.computed
+	s.Sheet = &scenario.Sheet{CheckedBy: "A. Checker"}
+	evaluated(s, true)
+	if last.computed != before {
+		t.Error("a reference field computed the result again")
+	}
+	m := *s.Load.MassKg * 2
+	s.Load.MassKg = &m
+	evaluated(s, true)
+	if last.computed != before+1 {
+		t.Error("a changed mass did not compute again")
 	}
 }
