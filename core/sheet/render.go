@@ -242,6 +242,8 @@ func (h *htmlWriter) checks(v *view) {
 		h.raw(`</th><td class="sw-n">`)
 		h.t(c.Value + " " + c.Unit)
 		switch {
+		case !c.HasLimit && !v.Simulated:
+			h.raw(`</td><td class="sw-n">&ndash;</td><td>nothing simulated</td>`)
 		case !c.HasLimit:
 			h.raw(`</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
 		case c.Within:

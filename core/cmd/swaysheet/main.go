@@ -115,6 +115,9 @@ func printSummary(w io.Writer, file string, s *scenario.Scenario, r *sway.Result
 			verdict = c.Words
 		} else if row.LimitKey != "" {
 			verdict = "no limit set"
+			if rep.Verdict.State == figures.NotSimulated {
+				verdict = "nothing simulated"
+			}
 		}
 		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t(%s)\n", row.Crew, row.Text, row.Unit, verdict, row.Technical)
 	}
