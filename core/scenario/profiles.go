@@ -265,7 +265,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
 			c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a step-speed slew takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
+			only("a step-speed "+m.Axis+" move takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
 			c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
 			c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
 		}
@@ -307,7 +307,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("speed_m_per_s"), key("hard_stop.speed_m_per_s"), m.SpeedMPerS)
 			c.required(f("decel_m_per_s2"), key("hard_stop.decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a hard stop takes rate_deg_per_s (slewing in the + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
+			only("a hard stop takes rate_deg_per_s (moving in the axis' + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
 			c.required(f("rate_deg_per_s"), key("hard_stop.rate_deg_per_s"), m.RateDegPerS)
 			c.required(f("decel_deg_per_s2"), key("hard_stop.decel_deg_per_s2"), m.DecelDegPerS2)
 		}
