@@ -160,7 +160,7 @@ var Assumptions = []string{
 	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
 	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
 	"The load does not spin. Swing of the load relative to the hook is modelled only when hook block and rigging are entered (two point masses); otherwise hook and load swing as one.",
-	"Wind is a horizontal force on the load, steady once it has risen (a gust is a step or a linear rise over wind.ramp_s); a wind speed is the 3-s gust at the load's height. Air drag, if set, is quadratic in the load's speed relative to the air, so with wind it also damps the swing; without a drag coefficient the swing is not damped, which overstates the residual swing.",
+	"Wind is a steady horizontal force once risen (a gust is a step or a ramp); air drag, if set, acts on the speed relative to the air.",
 	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
 }
 
