@@ -39,9 +39,6 @@ package plan
 import (
 	"fmt"
 	"math"
-	"runtime"
-	"sort"
-	"sync"
 
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
@@ -79,22 +76,38 @@ type Result struct {
 	SecondModeShare     float64   `json:"second_mode_share,omitempty"`
 	DesignRopeM         float64   `json:"design_rope_length_m"`
 	Limits              Limits    `json:"limits"`
-	Options             []Option  `json:"options"`
-	Recommended         int       `json:"recommended"` // index in Options, -1 if none
-	Reason              string    `json:"reason"`
-	Infeasible          []string  `json:"infeasible"` // what to change, when nothing fits
-	Notes               []string  `json:"notes"`
-	Curves              Curves    `json:"curves"`
-	Assumptions         []string  `json:"assumptions"`
-	Cautions            []string  `json:"cautions"`
-	Simulations         int       `json:"simulations"`
+	// CheckedRopeLengthsM are all the rope lengths each option is
+	// simulated at: those of RopeLengthsM, then two between the ends.
+	CheckedRopeLengthsM []float64 `json:"checked_rope_lengths_m"`
+	// Drive is the crane's drive planned for (plan.drive, or what an empty
+	// plan.drive was read as: DriveAssumed is then set).
+	Drive        string   `json:"drive"`
+	DriveAssumed bool     `json:"drive_assumed,omitempty"`
+	Options      []Option `json:"options"`
+	Recommended  int      `json:"recommended"` // index in Options (0 when one is recommended), -1 if none
+	Reason       string   `json:"reason"`
+	Infeasible   []string `json:"infeasible"` // what to change, when nothing fits
+	Notes        []string `json:"notes"`
+	// The same sentences with their quantities marked (see Sentence):
+	// Reason, Infeasible and Notes are their plain SI text.
+	ReasonSentence      Sentence   `json:"reason_sentence"`
+	InfeasibleSentences []Sentence `json:"infeasible_sentences"`
+	NoteSentences       []Sentence `json:"note_sentences"`
+	// Dropped lists the options left out because they could not be
+	// verified (the simulation's work or step limit), with why.
+	Dropped     []string `json:"dropped"`
+	Curves      Curves   `json:"curves"`
+	Assumptions []string `json:"assumptions"`
+	Cautions    []string `json:"cautions"`
+	Simulations int      `json:"simulations"`
 }
 
 // Limits are the plan's limits; a zero means not given.
 type Limits struct {
-	PeakSwingDeg     float64 `json:"peak_swing_deg,omitempty"`
-	PeakExcursionM   float64 `json:"peak_excursion_m,omitempty"`
-	ResidualSwingDeg float64 `json:"residual_swing_deg"`
+	PeakSwingDeg       float64 `json:"peak_swing_deg,omitempty"`
+	PeakExcursionM     float64 `json:"peak_excursion_m,omitempty"`
+	ResidualSwingDeg   float64 `json:"residual_swing_deg,omitempty"`
+	ResidualExcursionM float64 `json:"residual_excursion_m,omitempty"`
 }
 
 // Option is one way to drive the move, with its verified figures.
@@ -121,23 +134,48 @@ type Option struct {
 	MoveTimeS float64 `json:"move_time_s"`
 	PenaltyS  float64 `json:"penalty_s"` // against the drive-limits move
 
+	// Verified holds the figures at each checked rope length. For a
+	// pendant option they are the 90th percentiles over the drawn press
+	// times (Timing), each with its exact-timing figures in Exact.
 	Verified              []Verified `json:"verified"`
 	WorstPeakSwingDeg     float64    `json:"worst_peak_swing_deg"`
 	WorstPeakExcursionM   float64    `json:"worst_peak_excursion_m"`
 	WorstResidualSwingDeg float64    `json:"worst_residual_swing_deg"`
-	Within                bool       `json:"within"`
-	Outside               []string   `json:"outside"` // which limits it breaks
+	WorstResidualExcM     float64    `json:"worst_residual_excursion_m"`
+	// The rope lengths at which the worst peak swing and the worst
+	// residual swing occur.
+	WorstPeakRopeM     float64  `json:"worst_peak_rope_length_m"`
+	WorstResidualRopeM float64  `json:"worst_residual_rope_length_m"`
+	Within             bool     `json:"within"`
+	Outside            []string `json:"outside"` // which limits it breaks
+	// Basis says what the figures are: "exact timing" (the drive times
+	// the move) or "90th percentile of a person's timing".
+	Basis string `json:"basis"`
+	// Timing is the model of a person's timing a pendant option was
+	// checked with.
+	Timing *Timing `json:"timing,omitempty"`
+	// RampTimeS and SCurveRoundingS are a variable-speed drive's single
+	// settings (time from 0 to full speed; S-curve rounding) for the
+	// options that are one setting of the drive.
+	RampTimeS       float64 `json:"ramp_time_s,omitempty"`
+	SCurveRoundingS float64 `json:"s_curve_rounding_s,omitempty"`
 
-	// Crew settings.
-	Settings     []string `json:"settings"`
-	SpeedProfile []Knot   `json:"speed_profile,omitempty"` // variable-speed drive
-	Presses      []Press  `json:"presses,omitempty"`       // step-speed pendant
+	// Crew settings: Settings is the plain SI text of Sentences.
+	Settings     []string   `json:"settings"`
+	Sentences    []Sentence `json:"sentences"`
+	SpeedProfile []Knot     `json:"speed_profile,omitempty"` // variable-speed drive
+	Presses      []Press    `json:"presses,omitempty"`       // step-speed pendant
 	// Motion is the option as a scenario move, to save or evaluate.
 	Motion scenario.Motion `json:"motion"`
 
 	profile motion.Profile
 	accelSI float64
+	draws   []scenario.Motion // the move as pressed, one per drawn timing
+	checked func(*Option)     // adds sentences once the figures are known
 }
+
+// add appends a sentence to the option's settings.
+func (o *Option) add(s Sentence) { o.Sentences = append(o.Sentences, s) }
 
 // Verified is one simulation of an option.
 type Verified struct {
@@ -149,7 +187,11 @@ type Verified struct {
 	// PeakRiggingAngleDeg is the largest angle between rope and rigging,
 	// with a hook block.
 	PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg,omitempty"`
+	ResidualExcursionM  float64 `json:"residual_excursion_m"`
 	Warnings            int     `json:"warnings"`
+	// Exact holds a pendant option's figures with the presses exactly at
+	// their cues (the Verified figures are then 90th percentiles).
+	Exact *Verified `json:"exact,omitempty"`
 }
 
 // Knot is one corner of a piecewise linear speed profile (speed in the
@@ -161,9 +203,20 @@ type Knot struct {
 
 // Press is one moment to press or release a pendant step.
 type Press struct {
-	AtS   float64 `json:"at_s"`
+	AtS   float64 `json:"at_s"`     // planned moment, s from the first press
 	Pct   float64 `json:"step_pct"` // speed after the press, % of top speed
 	Speed float64 `json:"speed"`    // axis unit per second
+	// CountS is the cue: seconds to count from the previous press (a
+	// multiple of CueStepS; 0 for the first press and the release at the
+	// mark).
+	CountS  float64 `json:"count_s"`
+	Release bool    `json:"release,omitempty"`
+	// ByMark marks the release made at a mark rather than on a count; every
+	// release carries its mark, the distance (travel) or slew angle
+	// (slew) before the stop point.
+	ByMark        bool    `json:"by_mark,omitempty"`
+	BeforeStopM   float64 `json:"before_stop_m,omitempty"`
+	BeforeStopDeg float64 `json:"before_stop_deg,omitempty"`
 }
 
 // Curves are ready to plot.
@@ -230,11 +283,14 @@ type request struct {
 	vmax, amax float64 // m/s or rad/s, m/s^2 or rad/s^2
 	radius     float64 // m (slew)
 	k          float64 // hook metres per axis unit: 1 or R
-	ropes      []float64
+	ropes      []float64 // nominal, then the range ends
+	checked    []float64 // ropes, then two between the ends
 	lim        Limits
 	zeta, tol  float64
 	drive      string
-	designT    float64
+	// driveAssumed: plan.drive was empty and drive is what it was read as.
+	driveAssumed bool
+	designT      float64
 	// With a hook block: the second mode's design period, its largest
 	// share of the load's swing, the rigging length (m).
 	designT2, share2, rig float64
@@ -253,10 +309,17 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	g := units.StandardGravity
 	res := &Result{
 		Name: s.Name, Axis: s.Plan.Axis, RopeLengthM: *s.Load.RopeLengthM, RopeLengthsM: rq.ropes,
+		CheckedRopeLengthsM: rq.checked, Drive: rq.drive, DriveAssumed: rq.driveAssumed,
 		PeriodS: period(*s.Load.RopeLengthM), DesignPeriodS: rq.designT,
 		DesignRopeM: rq.designRope(),
 		Limits:      rq.lim, Recommended: -1, Assumptions: Assumptions, Cautions: Cautions,
-		Infeasible: []string{}, Notes: []string{}, Options: []Option{},
+		Options: []Option{}, Dropped: []string{},
+		InfeasibleSentences: []Sentence{}, NoteSentences: []Sentence{},
+	}
+	defer res.fillText()
+	note := func(x Sentence) { res.NoteSentences = append(res.NoteSentences, x) }
+	if rq.driveAssumed {
+		note(plain("plan.drive is not given: planned for a variable-speed drive (the drive sets the ramps). For a step-speed pendant set plan.drive to \"pendant\" and give the pendant's steps in plan.pendant_steps_pct."))
 	}
 	if s.Load.Hook != nil {
 		ms := rq.modesAt(*s.Load.RopeLengthM)
@@ -264,7 +327,12 @@ func Make(s *scenario.Scenario) (*Result, error) {
 		res.PeriodS = res.ModePeriodsS[0]
 		res.SecondDesignPeriodS, res.SecondModeShare = rq.designT2, rq.share2
 		res.Assumptions = append(append([]string{}, Assumptions...), twoModeAssumption)
-		res.Notes = append(res.Notes, rq.modeNotes()...)
+		for _, n := range rq.modeNotes() {
+			note(plain(n))
+		}
+	}
+	if rq.drive == scenario.DrivePendant {
+		res.Assumptions = append(append([]string{}, res.Assumptions...), timingAssumption(rq.timing()))
 	}
 	if rq.slew {
 		res.AngleDeg = rq.dist / units.Degree
@@ -276,26 +344,26 @@ func Make(s *scenario.Scenario) (*Result, error) {
 		res.TopSpeedMPerS = rq.vmax
 	}
 	res.Curves = curves(rq)
-	if msgs := rq.precheck(res); len(msgs) > 0 {
-		res.Infeasible = msgs
-		res.Reason = "No option is offered: " + msgs[0]
+	if msgs := rq.precheck(); len(msgs) > 0 {
+		res.InfeasibleSentences = msgs
+		res.ReasonSentence = msgs[0]
+		res.ReasonSentence.Text = "No option is offered: " + msgs[0].Text
 		return res, nil
 	}
 	base := motion.NewTrapezoid(0, rq.dist, rq.vmax, rq.amax, rq.amax)
 	if base.Triangular() {
-		res.Notes = append(res.Notes, fmt.Sprintf("The move is too short to reach the top speed of %s at the largest acceleration: the fastest move peaks at %s.",
-			rq.speedText(rq.vmax), rq.speedText(base.PeakSpeed())))
+		note(say("The move is too short to reach the top speed of {0} at the largest acceleration: the fastest move peaks at {1}.",
+			rq.speedQ(rq.vmax), rq.speedQ(base.PeakSpeed())))
 	}
-
 	if rq.zeta > 0 {
-		res.Notes = append(res.Notes, fmt.Sprintf("ZV and ZVD are designed for the damping ratio %.3g; EI uses its undamped form.", rq.zeta))
+		note(plain(fmt.Sprintf("ZV and ZVD are designed for the damping ratio %.3g; EI uses its undamped form.", rq.zeta)))
 	}
 	var opts []*Option
 	add := func(o *Option) { opts = append(opts, o) }
 	fastest := rq.trapezoidOption("drive_limits", "Drive limits, no sway control", rq.amax, rq.vmax)
+	fastest.Drive = rq.drive
 	add(fastest)
-	var peak *Option
-	if rq.drive != scenario.DrivePendant {
+	if rq.drive == scenario.DriveVariableSpeed {
 		for _, n := range rq.wholePeriods() {
 			add(rq.wholePeriodOption(n))
 		}
@@ -306,56 +374,70 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			}
 			add(o)
 		}
-	}
-	if s.Load.Hook != nil {
-		two, err := rq.twoModeOptions()
-		if err != nil {
-			return nil, err
+		if s.Load.Hook != nil {
+			two, err := rq.twoModeOptions()
+			if err != nil {
+				return nil, err
+			}
+			opts = append(opts, two...)
 		}
-		opts = append(opts, two...)
-	}
-	if own := s.Plan.PendantStepsPct; len(own) > 0 && rq.drive != scenario.DriveVariableSpeed {
-		o, _, err := rq.ownPendant(own)
+	} else {
+		o, err := rq.ownPendant(s.Plan.PendantStepsPct)
 		if err != nil {
 			return nil, err
 		}
 		add(o)
-	} else if rq.drive != scenario.DriveVariableSpeed {
-		for _, kind := range shaper.Kinds {
-			o, err := rq.shapedPendant(kind)
-			if err != nil {
-				return nil, err
-			}
-			if o != nil {
-				add(o)
-			}
-		}
 	}
-	// The peak search runs beside the verification of the other options.
-	var peakSims int
-	var peakErr error
+	// The searches for the drive's single settings run beside the
+	// verification of the other options.
+	var searched []*Option
+	var searchNotes []Sentence
+	var searchSims int
 	done := make(chan struct{})
 	go func() {
 		defer close(done)
-		if rq.drive != scenario.DrivePendant {
-			peak, peakSims, peakErr = rq.peakLimited()
+		if rq.drive != scenario.DriveVariableSpeed {
+			return
+		}
+		searched, searchNotes, searchSims = rq.rampSearch()
+		if peak, sims := rq.peakLimited(); peak != nil {
+			searched = append(searched, peak)
+			searchSims += sims
+		} else {
+			searchSims += sims
 		}
 	}()
-	err := rq.verifyAll(opts)
+	kept, dropped := rq.verifyAll(opts)
 	<-done
-	if err != nil {
-		return nil, err
+	res.Dropped = append(res.Dropped, dropped...)
+	for _, d := range dropped {
+		note(plain(d))
 	}
-	if peakErr != nil {
-		return nil, peakErr
+	for _, n := range searchNotes {
+		note(n)
 	}
-	res.Simulations = len(opts)*len(rq.ropes) + peakSims
-	if peak != nil {
-		opts = append(opts, peak)
+	res.Simulations = searchSims
+	for _, o := range kept {
+		res.Simulations += len(rq.checked) * (1 + len(o.draws))
 	}
-	res.Options = rank(opts, fastest.MoveTimeS)
-	rq.recommend(res)
+	kept = append(kept, searched...)
+	for _, o := range kept {
+		rq.checkedSentences(o)
+	}
+	rank(kept, fastest.MoveTimeS)
+	rq.recommend(res, kept)
 	return res, nil
+}
+
+// fillText writes the plain SI text of every sentence into the plan's
+// string fields.
+func (res *Result) fillText() {
+	res.Reason = res.ReasonSentence.String()
+	res.Infeasible = texts(res.InfeasibleSentences)
+	res.Notes = texts(res.NoteSentences)
+	for i := range res.Options {
+		res.Options[i].Settings = texts(res.Options[i].Sentences)
+	}
 }
 
 func period(l float64) float64 { return 2 * math.Pi * math.Sqrt(l/units.StandardGravity) }
@@ -363,6 +445,14 @@ func period(l float64) float64 { return 2 * math.Pi * math.Sqrt(l/units.Standard
 func newRequest(s *scenario.Scenario) *request {
 	p := s.Plan
 	rq := &request{s: s, zeta: p.DampingRatio, tol: p.EITolerancePct / 100, drive: p.Drive, k: 1}
+	if rq.drive == "" {
+		// Files written before the drive was required: a pendant when its
+		// steps are given, else a variable-speed drive (never invented steps).
+		rq.drive, rq.driveAssumed = scenario.DriveVariableSpeed, true
+		if len(p.PendantStepsPct) > 0 {
+			rq.drive = scenario.DrivePendant
+		}
+	}
 	if p.Axis == scenario.Slew {
 		rq.slew = true
 		rq.dist = *p.AngleDeg * units.Degree
@@ -384,6 +474,11 @@ func newRequest(s *scenario.Scenario) *request {
 			}
 		}
 	}
+	rq.checked = append([]float64{}, rq.ropes...)
+	if hi > lo {
+		// Two more between the ends, a quarter of the range from each.
+		rq.checked = append(rq.checked, lo+(hi-lo)/4, hi-(hi-lo)/4)
+	}
 	w := (math.Sqrt(units.StandardGravity/lo) + math.Sqrt(units.StandardGravity/hi)) / 2
 	rq.designT = 2 * math.Pi / w
 	if s.Load.Hook != nil {
@@ -396,7 +491,12 @@ func newRequest(s *scenario.Scenario) *request {
 		if lm.PeakExcursionM != nil {
 			rq.lim.PeakExcursionM = *lm.PeakExcursionM
 		}
-		rq.lim.ResidualSwingDeg = *lm.ResidualSwingDeg
+		if lm.ResidualSwingDeg != nil {
+			rq.lim.ResidualSwingDeg = *lm.ResidualSwingDeg
+		}
+		if lm.ResidualExcursionM != nil {
+			rq.lim.ResidualExcursionM = *lm.ResidualExcursionM
+		}
 	}
 	return rq
 }
@@ -424,27 +524,28 @@ func (rq *request) angleLimit() float64 {
 }
 
 // precheck finds requests no drive setting can meet.
-func (rq *request) precheck(res *Result) []string {
-	var msgs []string
+func (rq *request) precheck() []Sentence {
+	var msgs []Sentence
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if w := rq.s.Wind; w != nil {
 		lean := rq.steadyLean(sway.WindForceN(rq.s))
 		if lean >= th {
-			msgs = append(msgs, fmt.Sprintf("The wind alone leans the rope %.3g deg, at or above the swing allowed by the limits (%.3g deg): no drive setting can keep the load inside them. Wait for less wind, or change the limits.",
-				lean/units.Degree, th/units.Degree))
+			msgs = append(msgs, say("The wind alone leans the rope {0}, at or above the swing allowed by the limits ({1}): no drive setting can keep the load inside them. Wait for less wind, or change the limits.",
+				qAngle(lean/units.Degree).digits(3), qAngle(th/units.Degree).digits(3)))
 		}
-		if w.DurationS == 0 && lean/units.Degree >= rq.lim.ResidualSwingDeg {
-			msgs = append(msgs, fmt.Sprintf("The wind alone leans the rope %.3g deg, at or above the residual swing limit of %.3g deg: the load cannot come to rest inside it. Wait for less wind, or raise limits.residual_swing_deg.",
-				lean/units.Degree, rq.lim.ResidualSwingDeg))
+		lo, _ := rq.ropeRange()
+		if res := rq.resLimitRad(lo); w.DurationS == 0 && lean >= res {
+			msgs = append(msgs, say("The wind alone leans the rope {0}, at or above the residual swing allowed ({1}): the load cannot come to rest inside it. Wait for less wind, or raise limits.residual_swing_deg / limits.residual_excursion_m.",
+				qAngle(lean/units.Degree).digits(3), qAngle(res/units.Degree).digits(3)))
 		}
 	}
 	if rq.slew {
 		lean := math.Atan(rq.radius * rq.vmax * rq.vmax / g)
 		if lean >= th {
 			wmax := math.Sqrt(g * math.Tan(th) / rq.radius)
-			msgs = append(msgs, fmt.Sprintf("At the top slew rate of %s the load leans out %.3g deg at %.4g m radius, at or above the swing allowed (%.3g deg). Lower plan.top_rate_deg_per_s below %s (better: to about %s), or slew at a smaller radius.",
-				rq.speedText(rq.vmax), lean/units.Degree, rq.radius, th/units.Degree, rq.speedText(wmax), rq.speedText(wmax*0.7)))
+			msgs = append(msgs, say("At the top slew rate of {0} the load leans out {1} at {2} radius, at or above the swing allowed ({3}). Lower plan.top_rate_deg_per_s below {4} (better: to about {5}), or slew at a smaller radius.",
+				rq.speedQ(rq.vmax), qAngle(lean/units.Degree).digits(3), qLen(rq.radius).digits(4), qAngle(th/units.Degree).digits(3), rq.speedQ(wmax), rq.speedQ(wmax*0.7)))
 		}
 	}
 	return msgs
@@ -474,92 +575,6 @@ func (rq *request) wholePeriodAccel(n int) (a, v float64) {
 	return d / (ta * ta), d / ta
 }
 
-// verifyAll simulates every option at every rope length, in parallel.
-func (rq *request) verifyAll(opts []*Option) error {
-	type job struct{ o, l int }
-	jobs := make(chan job)
-	results := make([][]Verified, len(opts))
-	for i := range results {
-		results[i] = make([]Verified, len(rq.ropes))
-	}
-	var wg sync.WaitGroup
-	var mu sync.Mutex
-	var firstErr error
-	workers := runtime.GOMAXPROCS(0)
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for j := range jobs {
-				v, err := rq.simulate(&opts[j.o].Motion, rq.ropes[j.l])
-				if err != nil {
-					mu.Lock()
-					if firstErr == nil {
-						firstErr = fmt.Errorf("%s at rope length %g m: %w", opts[j.o].Label, rq.ropes[j.l], err)
-					}
-					mu.Unlock()
-					continue
-				}
-				results[j.o][j.l] = v
-			}
-		}()
-	}
-	for o := range opts {
-		for l := range rq.ropes {
-			jobs <- job{o, l}
-		}
-	}
-	close(jobs)
-	wg.Wait()
-	if firstErr != nil {
-		return firstErr
-	}
-	for i, o := range opts {
-		o.setVerified(results[i], rq.lim)
-	}
-	return nil
-}
-
-// simulate runs one move at one rope length.
-func (rq *request) simulate(m *scenario.Motion, rope float64) (Verified, error) {
-	sc := *rq.s
-	sc.Plan = nil
-	sc.Motions = []scenario.Motion{*m}
-	sc.Load.RopeLengthM = &rope
-	sc.Settings = &scenario.Settings{RelTol: RelTol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
-	if err != nil {
-		return Verified{}, err
-	}
-	v := Verified{RopeLengthM: rope, PeakSwingDeg: r.PeakSwingDeg, PeakExcursionM: r.PeakExcursionM,
-		ResidualSwingDeg: r.ResidualSwingDeg, TensionFactor: r.TensionFactor, Warnings: len(r.Warnings)}
-	if r.Rigging != nil {
-		v.PeakRiggingAngleDeg = r.Rigging.PeakRiggingAngleDeg
-	}
-	return v, nil
-}
-
-func (o *Option) setVerified(vs []Verified, lim Limits) {
-	o.Verified = vs
-	o.WorstPeakSwingDeg, o.WorstPeakExcursionM, o.WorstResidualSwingDeg = 0, 0, 0
-	for _, v := range vs {
-		o.WorstPeakSwingDeg = math.Max(o.WorstPeakSwingDeg, v.PeakSwingDeg)
-		o.WorstPeakExcursionM = math.Max(o.WorstPeakExcursionM, v.PeakExcursionM)
-		o.WorstResidualSwingDeg = math.Max(o.WorstResidualSwingDeg, v.ResidualSwingDeg)
-	}
-	o.Outside = []string{}
-	if lim.PeakSwingDeg > 0 && o.WorstPeakSwingDeg > lim.PeakSwingDeg {
-		o.Outside = append(o.Outside, fmt.Sprintf("peak swing %.3g deg > %.3g deg", o.WorstPeakSwingDeg, lim.PeakSwingDeg))
-	}
-	if lim.PeakExcursionM > 0 && o.WorstPeakExcursionM > lim.PeakExcursionM {
-		o.Outside = append(o.Outside, fmt.Sprintf("peak excursion %.3g m > %.3g m", o.WorstPeakExcursionM, lim.PeakExcursionM))
-	}
-	if o.WorstResidualSwingDeg > lim.ResidualSwingDeg {
-		o.Outside = append(o.Outside, fmt.Sprintf("residual swing %.3g deg > %.3g deg", o.WorstResidualSwingDeg, lim.ResidualSwingDeg))
-	}
-	o.Within = len(o.Outside) == 0
-}
-
 // peakRatio is how far the option's worst peak is from the peak limits
 // (1 = on the limit).
 func (o *Option) peakRatio(lim Limits) float64 {
@@ -580,7 +595,7 @@ func (o *Option) peakRatio(lim Limits) float64 {
 // simulation then corrects it (scaling by limit/peak). It returns nil when
 // the answer is the drive's largest acceleration, which the drive-limits
 // option already is.
-func (rq *request) peakLimited() (*Option, int, error) {
+func (rq *request) peakLimited() (*Option, int) {
 	g := units.StandardGravity
 	th := rq.angleLimit()
 	if rq.slew {
@@ -598,10 +613,11 @@ func (rq *request) peakLimited() (*Option, int, error) {
 	sims := 0
 	for range 6 {
 		o := rq.trapezoidOption("peak_limited", "Acceleration for the peak limit", a, rq.vmax)
-		if err := rq.verifyAll([]*Option{o}); err != nil {
-			return nil, sims, err
+		kept, _ := rq.verifyAll([]*Option{o})
+		sims += len(rq.checked)
+		if len(kept) == 0 {
+			break // not verifiable: left out
 		}
-		sims += len(rq.ropes)
 		r := o.peakRatio(rq.lim)
 		if r <= 1 {
 			if best == nil || o.accel() > best.accel() {
@@ -619,116 +635,13 @@ func (rq *request) peakLimited() (*Option, int, error) {
 		a = next
 	}
 	if best == nil || best.accel() >= rq.amax*(1-1e-9) {
-		return nil, sims, nil
+		return nil, sims
 	}
-	best.Settings = append(best.Settings, fmt.Sprintf("Found from g*tan(theta_lim/2) = %s (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits, then corrected by simulation at every rope length.",
-		rq.accelText(a0)))
-	return best, sims, nil
+	best.add(say("Found from g*tan(theta_lim/2) = {0} (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits, then corrected by simulation at every rope length.",
+		rq.accelQ(a0)))
+	return best, sims
 }
 
 // accel is the option's acceleration setting in SI (m/s² or rad/s²).
 func (o *Option) accel() float64 { return o.accelSI }
 
-// rank sorts options: those within every limit first, fastest first;
-// then the others, fastest first.
-func rank(opts []*Option, fastest float64) []Option {
-	sort.SliceStable(opts, func(i, j int) bool {
-		a, b := opts[i], opts[j]
-		if a.Within != b.Within {
-			return a.Within
-		}
-		if math.Abs(a.MoveTimeS-b.MoveTimeS) > 1e-6 {
-			return a.MoveTimeS < b.MoveTimeS
-		}
-		return a.WorstResidualSwingDeg < b.WorstResidualSwingDeg
-	})
-	out := make([]Option, len(opts))
-	for i, o := range opts {
-		o.Rank = i + 1
-		o.PenaltyS = o.MoveTimeS - fastest
-		out[i] = *o
-	}
-	return out
-}
-
-// recommend marks the recommended option and states why, or says what to
-// change when no option keeps inside the limits.
-func (rq *request) recommend(res *Result) {
-	lengths := ""
-	for i, l := range rq.ropes {
-		if i > 0 {
-			lengths += ", "
-		}
-		lengths += fmt.Sprintf("%.4g", l)
-	}
-	if len(res.Options) == 0 || !res.Options[0].Within {
-		res.Infeasible = rq.whatToChange(res.Options)
-		res.Reason = "No option keeps the load inside every limit at rope lengths " + lengths + " m."
-		return
-	}
-	best := 0
-	// An option almost as fast (within 5 %) that is less sensitive wins.
-	// When the second mode of hook block and rigging matters, one designed
-	// for both modes wins over one tuned to the first only: what the
-	// latter leaves in the second mode depends on how the two periods fall
-	// and changes with the rope length and the rigging.
-	both := rq.twoMode()
-	for i := 1; i < len(res.Options); i++ {
-		o := res.Options[i]
-		if !o.Within || o.MoveTimeS > res.Options[0].MoveTimeS*1.05 {
-			break
-		}
-		b := res.Options[best]
-		switch {
-		case both && o.TwoMode && !b.TwoMode:
-			best = i
-		case both && !o.TwoMode && b.TwoMode:
-		case o.WorstResidualSwingDeg < 0.5*b.WorstResidualSwingDeg:
-			best = i
-		}
-	}
-	res.Recommended = best
-	o := res.Options[best]
-	why := fmt.Sprintf("fastest option that keeps peak and residual swing inside the limits at every rope length simulated (%s m)", lengths)
-	if best != 0 {
-		why = fmt.Sprintf("within 5 %% of the fastest option's move time and less sensitive to the rope length; it keeps inside the limits at every rope length simulated (%s m)", lengths)
-		if both && o.TwoMode && !res.Options[0].TwoMode {
-			why = fmt.Sprintf("within 5 %% of the fastest option's move time and designed for both sway modes, where the faster one is tuned to the first only; it keeps inside the limits at every rope length simulated (%s m)", lengths)
-		}
-	}
-	res.Reason = fmt.Sprintf("Recommended: %s — %s. Move time %.3g s, %.3g s longer than at the drive limits; worst residual swing %.2g deg (limit %.3g deg).",
-		o.Label, why, o.MoveTimeS, o.PenaltyS, o.WorstResidualSwingDeg, rq.lim.ResidualSwingDeg)
-	if rq.s.Load.Hook != nil {
-		res.Reason += " " + rq.modeReason(&o)
-	}
-}
-
-// whatToChange explains, from the options' failures, what would make the
-// request feasible.
-func (rq *request) whatToChange(opts []Option) []string {
-	var msgs []string
-	peakOK, resOK, resNominal := false, false, false
-	for _, o := range opts {
-		if o.peakRatio(rq.lim) <= 1 {
-			peakOK = true
-			if o.WorstResidualSwingDeg <= rq.lim.ResidualSwingDeg {
-				resOK = true
-			}
-			if o.Verified[0].ResidualSwingDeg <= rq.lim.ResidualSwingDeg {
-				resNominal = true
-			}
-		}
-	}
-	switch {
-	case !peakOK:
-		msgs = append(msgs, "No option keeps the peak swing inside the limit. Lower the top speed (a shaped move's peak grows with the speed), give more acceleration room, or raise limits.peak_swing_deg / limits.peak_excursion_m if the clearance allows.")
-	case !resOK && resNominal && len(rq.ropes) > 1:
-		msgs = append(msgs, "Options meet the residual limit at the nominal rope length but not at the ends of the range. Narrow the rope-length range (measure the rope to the load's centre of mass, or plan hoisting before or after the move), or raise limits.residual_swing_deg.")
-	case !resOK:
-		msgs = append(msgs, "No option that keeps the peak inside the limit also leaves the residual swing inside its limit. Lower the top speed, narrow the rope-length range, or raise limits.residual_swing_deg.")
-	}
-	if len(msgs) == 0 {
-		msgs = append(msgs, "No single option meets every limit together; change the limits or the move.")
-	}
-	return msgs
-}

@@ -1,0 +1,91 @@
+package plan
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"swaysheet/core/units"
+)
+
+// Sentence is one sentence the planner writes, with its quantities marked
+// so that a page or sheet can show them in the units it shows. Text holds
+// the placeholders {0}, {1}, ... where Quantities[0], [1], ... go; String
+// fills them in SI (with m/min beside m/s and rpm beside deg/s), which is
+// the plain text the plan's string fields (settings, reason, notes,
+// infeasible) carry.
+type Sentence struct {
+	Text       string     `json:"text"`
+	Quantities []Quantity `json:"quantities"`
+}
+
+// Quantity is one marked number: Value in the SI unit of its Quantity (the
+// first unit of core/units.Table[Quantity]: m, s, m/s, m/s², and deg,
+// deg/s, deg/s² for angles, as scenarios carry them), shown with Digits
+// significant digits.
+type Quantity struct {
+	Value    float64 `json:"value"`
+	Quantity string  `json:"quantity"`
+	Digits   int     `json:"digits"`
+}
+
+// say builds a sentence; each %q-free verb-less placeholder {i} is filled
+// from qs.
+func say(text string, qs ...Quantity) Sentence {
+	if qs == nil {
+		qs = []Quantity{}
+	}
+	return Sentence{Text: text, Quantities: qs}
+}
+
+// Quantity constructors, SI in (angles in degrees).
+func qLen(v float64) Quantity   { return Quantity{v, "length", 3} }
+func qTime(v float64) Quantity  { return Quantity{v, "time", 3} }
+func qAngle(v float64) Quantity { return Quantity{v, "angle", 2} }
+func qSpeed(v float64) Quantity { return Quantity{v, "speed", 3} }
+func qAcc(v float64) Quantity   { return Quantity{v, "acceleration", 3} }
+func qRate(v float64) Quantity  { return Quantity{v, "angular_speed", 3} }
+func qAlpha(v float64) Quantity { return Quantity{v, "angular_acceleration", 3} }
+
+// digits returns q with d significant digits.
+func (q Quantity) digits(d int) Quantity { q.Digits = d; return q }
+
+// String is the quantity in SI with its unit symbol.
+func (q Quantity) String() string {
+	num := func(v float64) string { return strconv.FormatFloat(v, 'g', q.Digits, 64) }
+	si := units.Table[q.Quantity].Units[0].Symbol
+	s := num(q.Value) + " " + si
+	switch q.Quantity {
+	case "speed":
+		mpm, _ := units.FromSI("speed", "m/min", q.Value)
+		s += " (" + num(mpm) + " m/min)"
+	case "angular_speed":
+		rpm, _ := units.FromSI("angular_speed", "rpm", q.Value)
+		s += " (" + num(rpm) + " rpm)"
+	case "ratio":
+		s = num(q.Value)
+	}
+	return s
+}
+
+// String fills the placeholders in SI.
+func (s Sentence) String() string {
+	out := s.Text
+	for i, q := range s.Quantities {
+		out = strings.ReplaceAll(out, fmt.Sprintf("{%d}", i), q.String())
+	}
+	return out
+}
+
+// texts is the plain text of sentences.
+func texts(ss []Sentence) []string {
+	out := make([]string, len(ss))
+	for i, s := range ss {
+		out[i] = s.String()
+	}
+	return out
+}
+
+// plain wraps text without quantities (sentences carrying no numbers, or
+// numbers that are not measures: percentages, counts).
+func plain(text string) Sentence { return say(strings.ReplaceAll(text, "{", "(")) }
