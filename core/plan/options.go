@@ -244,4 +244,3 @@ func curves(rq *request) Curves {
 	}
 	return c
 }
-

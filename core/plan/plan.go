@@ -279,10 +279,10 @@ var Cautions = []string{
 type request struct {
 	s          *scenario.Scenario
 	slew       bool
-	dist       float64 // m or rad (signed)
-	vmax, amax float64 // m/s or rad/s, m/s^2 or rad/s^2
-	radius     float64 // m (slew)
-	k          float64 // hook metres per axis unit: 1 or R
+	dist       float64   // m or rad (signed)
+	vmax, amax float64   // m/s or rad/s, m/s^2 or rad/s^2
+	radius     float64   // m (slew)
+	k          float64   // hook metres per axis unit: 1 or R
 	ropes      []float64 // nominal, then the range ends
 	checked    []float64 // ropes, then two between the ends
 	lim        Limits
@@ -644,4 +644,3 @@ func (rq *request) peakLimited() (*Option, int) {
 
 // accel is the option's acceleration setting in SI (m/s² or rad/s²).
 func (o *Option) accel() float64 { return o.accelSI }
-

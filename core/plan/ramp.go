@@ -1,7 +1,7 @@
 package plan
 
 import (
-		"math"
+	"math"
 	"math/cmplx"
 
 	"swaysheet/core/motion"
@@ -73,7 +73,7 @@ func (rq *request) rampResidual(tr, r float64, ms modeSet) float64 {
 // slewResidual is the linear-theory swing (rad) left after the slew p at
 // radius R, for a pendulum of circular frequency w: in a fixed frame the
 // hook moves on the circle R*(cos phi, sin phi) with acceleration
-// R*(phi''*e_t - phi'^2*e_r), and each horizontal axis is a small-angle
+// R*(phi”*e_t - phi'^2*e_r), and each horizontal axis is a small-angle
 // pendulum driven by it, whose free swing after the forcing has the
 // complex amplitude (w/g)*integral of a(t)*exp(-i*w*t) dt (any text on
 // the forced undamped oscillator). The two axes swing at right angles at
@@ -313,7 +313,6 @@ func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
 	}
 	return out, notes, sims
 }
-
 
 // steadyTurn is the integral over [t0, t1] of the hook's acceleration
 // -R*W^2*(cos phi, sin phi), phi = phi0 + W*(t - t0), times exp(-i*w*t),
