@@ -19,23 +19,6 @@ func (rq *request) axisUnit() float64 {
 	return 1
 }
 
-func (rq *request) speedText(v float64) string {
-	if rq.slew {
-		d := v / units.Degree
-		rpm, _ := units.FromSI("angular_speed", "rpm", d)
-		return fmt.Sprintf("%.3g deg/s (%.3g rpm)", d, rpm)
-	}
-	mpm, _ := units.FromSI("speed", "m/min", v)
-	return fmt.Sprintf("%.3g m/s (%.3g m/min)", v, mpm)
-}
-
-func (rq *request) accelText(a float64) string {
-	if rq.slew {
-		return fmt.Sprintf("%.3g deg/s²", a/units.Degree)
-	}
-	return fmt.Sprintf("%.3g m/s²", a)
-}
-
 // motionFor is a trapezoidal scenario move of the planned axis, SI inputs.
 func (rq *request) motionFor(a, v float64) scenario.Motion {
 	f := func(x float64) *float64 { return &x }

@@ -14,7 +14,7 @@ import (
 // the acceleration is V/t_r; some drives add an S-curve rounding r (the
 // s_curve profile: the trapezoid averaged over a window of r seconds).
 // The planner looks for the shortest such setting, on a grid of 0.1 s for
-// the ramp and 0.5 s for the rounding, that keeps each ramp alone within
+// the ramp and 0.5 s for the rounding (coarser for very long ramps), that keeps each ramp alone within
 // half the residual limit at every one of rampGrid rope lengths over the
 // range, in linear theory: then the start's and the stop's residuals
 // cannot add past the limit whenever the stop is called, and the setting
@@ -163,9 +163,14 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 	tmax := math.Min(120, 4*rq.periodAt(hi))
 	var best rampSetting
 	bestCover := -1.0
-	for r := 0.0; r <= maxR+1e-9; r += 0.5 {
+	// The grids: 0.1 s and 0.5 s, coarser (in whole tenths) when the range
+	// would take more than about 400 ramp times or 12 roundings, which
+	// bounds the work for any input.
+	dt := math.Max(0.1, math.Ceil((tmax-tmin)/400*10)/10)
+	dr := math.Max(0.5, math.Ceil(maxR/12*2)/2)
+	for r := 0.0; r <= maxR+1e-9; r += dr {
 		found := 0
-		for tr := tmin; tr <= tmax+1e-9 && found < 4; tr += 0.1 {
+		for tr := tmin; tr <= tmax+1e-9 && found < 4; tr += dt {
 			tr = math.Round(tr*10) / 10
 			ok := rq.rampOK(tr, r, grid, ls)
 			all := true
@@ -279,6 +284,11 @@ func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
 			// lengths decides whether it is within the limits, and the
 			// note says what linear theory found between them.
 			lo, hi := rq.ropeRange()
+			if rs.tr == 0 {
+				notes = append(notes, say("No single ramp time up to four sway periods keeps the swing within the limits at any rope length from {0} to {1} in linear theory.",
+					qLen(lo).digits(4), qLen(hi).digits(4)))
+				continue
+			}
 			notes = append(notes, say("Linear theory finds no single ramp time that keeps the residual swing within its screening bound from {0} to {1}; the best, {2}, covers {3} to {4}. Its option is simulated at the checked rope lengths; between them, or to be sure, narrow the rope-length range or use a shaped speed profile.",
 				qLen(lo).digits(4), qLen(hi).digits(4), qTime(rs.tr).digits(3), qLen(rs.coverLo).digits(4), qLen(rs.coverHi).digits(4)))
 			o := rq.rampOption(rs.tr, rs.r)

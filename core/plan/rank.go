@@ -106,7 +106,7 @@ func (rq *request) recommend(res *Result, opts []*Option) {
 		o.Label, why, how, len(rq.checked), lim)
 	res.ReasonSentence = say(text, qs...)
 	if rq.s.Load.Hook != nil {
-		res.ReasonSentence.Text += " " + rq.modeReason(o)
+		res.ReasonSentence = res.ReasonSentence.join(rq.modeReason(o))
 	}
 }
 
@@ -135,7 +135,7 @@ func (rq *request) whatToChange(opts []*Option) []Sentence {
 		for _, v := range pendant.Verified {
 			ex = math.Max(ex, v.Exact.ResidualSwingDeg)
 		}
-		msgs = append(msgs, say("The crane's pendant steps, pressed by a person (scatter {0}), leave up to {1} of residual swing 9 in 10 times ({2} if pressed exactly on the cues): "+strings.Join(pendant.Outside, "; ")+". With these steps the limits cannot be relied on. Use a variable-speed drive's ramp (the drive does the timing), travel at a lower step, or change the limits if the lift allows.",
+		msgs = append(msgs, say("The crane's pendant steps, pressed by a person (scatter {0}), leave up to {1} of residual swing 9 in 10 times ({2} if pressed exactly on the cues): "+strings.Join(pendant.Outside, "; ")+". With these steps the limits cannot be relied on. Use a variable-speed drive's ramp (the drive does the timing), a lower top step, or other limits if the lift allows.",
 			qTime(pendant.Timing.SigmaS), qAngle(pendant.WorstResidualSwingDeg), qAngle(ex)))
 		return msgs
 	}

@@ -29,8 +29,7 @@ type Quantity struct {
 	Digits   int     `json:"digits"`
 }
 
-// say builds a sentence; each %q-free verb-less placeholder {i} is filled
-// from qs.
+// say builds a sentence whose placeholders {i} stand for qs[i].
 func say(text string, qs ...Quantity) Sentence {
 	if qs == nil {
 		qs = []Quantity{}
@@ -77,6 +76,15 @@ func (s Sentence) String() string {
 	return out
 }
 
+// join appends t to s, a space between, renumbering t's placeholders.
+func (s Sentence) join(t Sentence) Sentence {
+	text := t.Text
+	for i := len(t.Quantities) - 1; i >= 0; i-- {
+		text = strings.ReplaceAll(text, fmt.Sprintf("{%d}", i), fmt.Sprintf("{%d}", i+len(s.Quantities)))
+	}
+	return Sentence{Text: s.Text + " " + text, Quantities: append(append([]Quantity{}, s.Quantities...), t.Quantities...)}
+}
+
 // texts is the plain text of sentences.
 func texts(ss []Sentence) []string {
 	out := make([]string, len(ss))
@@ -88,4 +96,7 @@ func texts(ss []Sentence) []string {
 
 // plain wraps text without quantities (sentences carrying no numbers, or
 // numbers that are not measures: percentages, counts).
-func plain(text string) Sentence { return say(strings.ReplaceAll(text, "{", "(")) }
+// Braces become parentheses, so that nothing reads as a placeholder.
+func plain(text string) Sentence {
+	return say(strings.NewReplacer("{", "(", "}", ")").Replace(text))
+}

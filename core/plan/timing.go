@@ -154,8 +154,8 @@ func robustCost(g group, gaps []float64, ws []modeSet, tm Timing, errs [][]float
 
 // robustGaps picks the counts of a group on the CueStepS grid (0 up to
 // maxS each) that make its p90 residual smallest, starting from the exact
-// times start (rounded): every pair of counts for three steps or fewer, a
-// coordinate search otherwise. It returns the counts (the gaps less the
+// times start (rounded): every pair of counts for three steps or fewer
+// (up to 40 counts each), a coordinate search otherwise. It returns the counts (the gaps less the
 // reaction delay) and the cost.
 func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing, errs [][]float64) ([]float64, float64) {
 	n := len(g.share)
@@ -175,7 +175,7 @@ func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing,
 		}
 	}
 	c := append([]float64(nil), counts...)
-	if n <= 3 {
+	if n <= 3 && steps <= 40 { // every pair; a coordinate search beyond
 		var rec func(k int)
 		rec = func(k int) {
 			if k == n {

@@ -194,17 +194,17 @@ func (rq *request) modeNotes() []string {
 const twoModeAssumption = "Hook block and rigging are two point masses (rope to the hook, rigging from the hook to the load's centre of mass); the mode periods are those of the linearised two-mass pendulum, and the swing figures are of the line from the suspension point to the load."
 
 // modeReason says how the recommended option treats the two modes.
-func (rq *request) modeReason(o *Option) string {
-	modes := fmt.Sprintf("the two sway modes of hook block and rigging (%.3g s and %.3g s; the second carries up to %.0f %% of the load's swing)",
-		rq.designT, rq.designT2, 100*rq.share2)
+func (rq *request) modeReason(o *Option) Sentence {
+	modes := fmt.Sprintf("the two sway modes of hook block and rigging ({0} and {1}; the second carries up to %.0f %% of the load's swing)", 100*rq.share2)
+	ts := []Quantity{qTime(rq.designT), qTime(rq.designT2)}
 	if o.TwoMode {
-		return "It is designed for " + modes + ", and the simulation of both masses confirms it."
+		return say("It is designed for "+modes+", and the simulation of both masses confirms it.", ts...)
 	}
 	left := ""
 	if len(o.ModeResidualPct) == 2 {
 		left = fmt.Sprintf(" (in linear theory it leaves %.2g %% of the drive-limits move's swing in the second)", o.ModeResidualPct[1])
 	}
-	return fmt.Sprintf("Of %s it is tuned to the first only%s; the simulation of both masses keeps the residual swing inside the limit.", modes, left)
+	return say("Of "+modes+" it is tuned to the first only"+left+"; the simulation of both masses keeps the residual swing inside the limit.", ts...)
 }
 
 // steadyLean is the steady angle from the vertical of the line from the

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"runtime"
+	"strings"
 	"sync"
 
 	"swaysheet/core/scenario"
@@ -83,7 +84,7 @@ func (rq *request) verifyAll(opts []*Option) (kept []*Option, dropped []string) 
 			for l := range vs {
 				vs[l] = p90(drawn[i][l], exact[i][l])
 			}
-			o.Basis = fmt.Sprintf("%g th percentile of a person's timing", rq.timing().Percentile)
+			o.Basis = fmt.Sprintf("%gth percentile of a person's timing", rq.timing().Percentile)
 		} else {
 			o.Basis = "exact timing"
 		}
@@ -168,12 +169,18 @@ func (o *Option) setVerified(vs []Verified, lim Limits) {
 // residualRatio is how far the option's worst residual is from the
 // residual limits (1 = on the limit).
 func (o *Option) residualRatio(lim Limits) float64 {
+	return ratio(o.WorstResidualSwingDeg, lim.ResidualSwingDeg, o.WorstResidualExcM, lim.ResidualExcursionM)
+}
+
+// ratio is the larger of angle/angle limit and excursion/excursion limit,
+// each counted when its limit is given.
+func ratio(deg, limDeg, m, limM float64) float64 {
 	r := 0.0
-	if lim.ResidualSwingDeg > 0 {
-		r = math.Max(r, o.WorstResidualSwingDeg/lim.ResidualSwingDeg)
+	if limDeg > 0 {
+		r = math.Max(r, deg/limDeg)
 	}
-	if lim.ResidualExcursionM > 0 {
-		r = math.Max(r, o.WorstResidualExcM/lim.ResidualExcursionM)
+	if limM > 0 {
+		r = math.Max(r, m/limM)
 	}
 	return r
 }
@@ -198,7 +205,7 @@ func (rq *request) checkedSentences(o *Option) {
 	tm := o.Timing
 	verdict := "within the limits"
 	if !o.Within {
-		verdict = "NOT within the limits: " + joinOutside(o.Outside) + ". The crane's steps, pressed by a person, cannot be relied on to meet them"
+		verdict = "NOT within the limits: " + strings.Join(o.Outside, "; ") + ". The crane's steps, pressed by a person, cannot be relied on to meet them"
 	}
 	qs = append(qs, qTime(tm.SigmaS), qTime(tm.ReactionDelayS))
 	k := len(qs)
@@ -211,17 +218,6 @@ func (rq *request) checkedSentences(o *Option) {
 		}
 	}
 	o.add(say("Pressed exactly on the cues, the residual swing would be at most {0}.", qAngle(ex)))
-}
-
-func joinOutside(xs []string) string {
-	s := ""
-	for i, x := range xs {
-		if i > 0 {
-			s += "; "
-		}
-		s += x
-	}
-	return s
 }
 
 // resLimitRad is the residual swing allowed at rope length l (to the
