@@ -246,12 +246,14 @@ func TestSlewStatementsMatchSimulation(t *testing.T) {
 	}
 	for _, o := range r.Options {
 		var st *Sentence
-		for i := range o.Sentences {
-			if strings.HasPrefix(o.Sentences[i].Text, "Simulated at") {
-				st = &o.Sentences[i]
+		for i := range o.FindingSentences {
+			if strings.HasPrefix(o.FindingSentences[i].Text, "Simulated at") {
+				st = &o.FindingSentences[i]
 			}
-			if strings.Contains(o.Sentences[i].Text, "leaves no residual swing") {
-				t.Errorf("%s claims no residual swing: %q", o.Key, o.Sentences[i].String())
+		}
+		for _, x := range append(o.Settings, o.Findings...) {
+			if strings.Contains(x, "leaves no residual swing") {
+				t.Errorf("%s claims no residual swing: %q", o.Key, x)
 			}
 		}
 		if st == nil {

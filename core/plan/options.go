@@ -130,10 +130,12 @@ func (rq *request) shapedDriveWith(sh *shaper.Shaper, kind, key, label string) *
 func (rq *request) segments(ks []Knot) []Sentence {
 	// Knot speeds are in the axis' unit: m/s, or deg/s for a slew.
 	sp := func(x float64) Quantity {
+		q := qSpeed(x)
 		if rq.slew {
-			return qRate(x)
+			q = qRate(x)
 		}
-		return qSpeed(x)
+		q.short = true // one unit in the plain text of a table-like line
+		return q
 	}
 	acc := func(x float64) Quantity {
 		if rq.slew {
@@ -147,11 +149,11 @@ func (rq *request) segments(ks []Knot) []Sentence {
 		a, b := ks[i], ks[i+1]
 		if math.Abs(b.Speed-a.Speed) < 1e-9 {
 			if i+2 < len(ks) && math.Abs(a.Speed) > 1e-9 {
-				out = append(out, say("  {0} to {1}: hold {2}", tq(a.TS), tq(b.TS), sp(a.Speed)))
+				out = append(out, say("  {0}–{1}: hold {2}", tq(a.TS), tq(b.TS), sp(a.Speed)))
 			}
 			continue
 		}
-		out = append(out, say("  {0} to {1}: ramp {2} → {3} ({4})", tq(a.TS), tq(b.TS), sp(a.Speed), sp(b.Speed),
+		out = append(out, say("  {0}–{1}: ramp {2} → {3} ({4})", tq(a.TS), tq(b.TS), sp(a.Speed), sp(b.Speed),
 			acc((b.Speed-a.Speed)/(b.TS-a.TS))))
 	}
 	return out

@@ -116,7 +116,7 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	defer res.fillText()
 	note := func(x Sentence) { res.NoteSentences = append(res.NoteSentences, x) }
 	if rq.driveAssumed {
-		note(plain("plan.drive is not given: planned for a variable-speed drive (the drive sets the ramps). For a step-speed pendant set plan.drive to \"pendant\" and give the pendant's steps in plan.pendant_steps_pct."))
+		note(plain("plan.drive is not given: planned for a variable-speed drive (for a pendant, set \"pendant\" and its steps)."))
 	}
 	if s.Load.Hook != nil {
 		ms := rq.modesAt(*s.Load.RopeLengthM)
@@ -233,7 +233,8 @@ func (res *Result) fillText() {
 	res.Infeasible = texts(res.InfeasibleSentences)
 	res.Notes = texts(res.NoteSentences)
 	for i := range res.Options {
-		res.Options[i].Settings = texts(res.Options[i].Sentences)
+		o := &res.Options[i]
+		o.Settings, o.Findings = texts(o.Sentences), texts(o.FindingSentences)
 	}
 }
 

@@ -51,6 +51,9 @@ func TestRecommendedWithinLimits(t *testing.T) {
 					t.Errorf("%s %s: settings line %q", name, o.Label, st)
 				}
 			}
+			if len(o.Findings) == 0 || len(o.Findings) != len(o.FindingSentences) || strings.ContainsAny(strings.Join(o.Findings, ""), "{}") {
+				t.Errorf("%s %s: findings %q", name, o.Label, o.Findings)
+			}
 			if o.Within != (len(o.Outside) == 0) {
 				t.Errorf("%s %s: within %v but outside %v", name, o.Label, o.Within, o.Outside)
 			}

@@ -115,10 +115,16 @@ type Option struct {
 	SCurveRoundingS float64 `json:"s_curve_rounding_s,omitempty"`
 
 	// Crew settings: Settings is the plain SI text of Sentences.
-	Settings     []string   `json:"settings"`
-	Sentences    []Sentence `json:"sentences"`
-	SpeedProfile []Knot     `json:"speed_profile,omitempty"` // variable-speed drive
-	Presses      []Press    `json:"presses,omitempty"`       // step-speed pendant
+	Settings  []string   `json:"settings"`
+	Sentences []Sentence `json:"sentences"`
+	// What the simulation found, in words that match the figures (the
+	// worst over the checked rope lengths and where; for a pendant, the
+	// percentile of a person's timing and the exact-timing figure):
+	// Findings is the plain SI text of FindingSentences.
+	Findings         []string   `json:"findings"`
+	FindingSentences []Sentence `json:"finding_sentences"`
+	SpeedProfile     []Knot     `json:"speed_profile,omitempty"` // variable-speed drive
+	Presses          []Press    `json:"presses,omitempty"`       // step-speed pendant
 	// Motion is the option as a scenario move, to save or evaluate.
 	Motion scenario.Motion `json:"motion"`
 
@@ -130,6 +136,9 @@ type Option struct {
 
 // add appends a sentence to the option's settings.
 func (o *Option) add(s Sentence) { o.Sentences = append(o.Sentences, s) }
+
+// found appends a sentence to the option's findings.
+func (o *Option) found(s Sentence) { o.FindingSentences = append(o.FindingSentences, s) }
 
 // Verified is one simulation of an option.
 type Verified struct {

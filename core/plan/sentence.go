@@ -27,6 +27,7 @@ type Quantity struct {
 	Value    float64 `json:"value"`
 	Quantity string  `json:"quantity"`
 	Digits   int     `json:"digits"`
+	short    bool    // plain text without the second unit in brackets
 }
 
 // say builds a sentence whose placeholders {i} stand for qs[i].
@@ -38,13 +39,15 @@ func say(text string, qs ...Quantity) Sentence {
 }
 
 // Quantity constructors, SI in (angles in degrees).
-func qLen(v float64) Quantity   { return Quantity{v, "length", 3} }
-func qTime(v float64) Quantity  { return Quantity{v, "time", 3} }
-func qAngle(v float64) Quantity { return Quantity{v, "angle", 2} }
-func qSpeed(v float64) Quantity { return Quantity{v, "speed", 3} }
-func qAcc(v float64) Quantity   { return Quantity{v, "acceleration", 3} }
-func qRate(v float64) Quantity  { return Quantity{v, "angular_speed", 3} }
-func qAlpha(v float64) Quantity { return Quantity{v, "angular_acceleration", 3} }
+func qLen(v float64) Quantity   { return Quantity{Value: v, Quantity: "length", Digits: 3} }
+func qTime(v float64) Quantity  { return Quantity{Value: v, Quantity: "time", Digits: 3} }
+func qAngle(v float64) Quantity { return Quantity{Value: v, Quantity: "angle", Digits: 2} }
+func qSpeed(v float64) Quantity { return Quantity{Value: v, Quantity: "speed", Digits: 3} }
+func qAcc(v float64) Quantity   { return Quantity{Value: v, Quantity: "acceleration", Digits: 3} }
+func qRate(v float64) Quantity  { return Quantity{Value: v, Quantity: "angular_speed", Digits: 3} }
+func qAlpha(v float64) Quantity {
+	return Quantity{Value: v, Quantity: "angular_acceleration", Digits: 3}
+}
 
 // digits returns q with d significant digits.
 func (q Quantity) digits(d int) Quantity { q.Digits = d; return q }
@@ -54,6 +57,9 @@ func (q Quantity) String() string {
 	num := func(v float64) string { return strconv.FormatFloat(v, 'g', q.Digits, 64) }
 	si := units.Table[q.Quantity].Units[0].Symbol
 	s := num(q.Value) + " " + si
+	if q.short {
+		return s
+	}
 	switch q.Quantity {
 	case "speed":
 		mpm, _ := units.FromSI("speed", "m/min", q.Value)

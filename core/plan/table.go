@@ -63,7 +63,7 @@ func WriteTable(w io.Writer, r *Result) error {
 			mark = " (recommended)"
 		}
 		fmt.Fprintf(&b, "\n%d. %s%s\n", o.Rank, o.Label, mark)
-		for _, s := range o.Settings {
+		for _, s := range append(append([]string{}, o.Settings...), o.Findings...) {
 			fmt.Fprintf(&b, "   %s\n", s)
 		}
 		for _, v := range o.Verified {

@@ -197,7 +197,10 @@ const twoModeAssumption = "Hook block and rigging are two point masses (rope to 
 func (rq *request) modeReason(o *Option) Sentence {
 	modes := fmt.Sprintf("the two sway modes of hook block and rigging ({0} and {1}; the second carries up to %.0f %% of the load's swing)", 100*rq.share2)
 	ts := []Quantity{qTime(rq.designT), qTime(rq.designT2)}
-	if o.TwoMode {
+	switch {
+	case o.TwoMode && o.RampTimeS > 0:
+		return say("Its ramp time is chosen with "+modes+" in view, and the simulation of both masses confirms it.", ts...)
+	case o.TwoMode:
 		return say("It is designed for "+modes+", and the simulation of both masses confirms it.", ts...)
 	}
 	left := ""

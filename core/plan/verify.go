@@ -185,8 +185,8 @@ func ratio(deg, limDeg, m, limM float64) float64 {
 	return r
 }
 
-// checkedSentences state what the simulation found, so that an option's
-// words match its figures: the worst over the checked rope lengths and
+// checkedSentences state what the simulation found (the option's
+// findings), so that its words match its figures: the worst over the checked rope lengths and
 // where, and for a pendant option the percentile of a person's timing.
 func (rq *request) checkedSentences(o *Option) {
 	lo, hi := rq.ropeRange()
@@ -195,11 +195,11 @@ func (rq *request) checkedSentences(o *Option) {
 	qs := []Quantity{qLen(lo).digits(4), qLen(hi).digits(4), qAngle(o.WorstPeakSwingDeg), qLen(o.WorstPeakRopeM).digits(4),
 		qAngle(o.WorstResidualSwingDeg), qLen(o.WorstResidualRopeM).digits(4)}
 	if rq.lim.ResidualExcursionM > 0 || rq.lim.PeakExcursionM > 0 {
-		exc = " (peak excursion {6}, residual excursion {7})"
+		exc = " (excursions {6}, {7})"
 		qs = append(qs, qLen(o.WorstPeakExcursionM), qLen(o.WorstResidualExcM))
 	}
 	if o.Timing == nil {
-		o.add(say(fmt.Sprintf("Simulated at %d rope lengths from {0} to {1}: worst peak swing {2} (at {3}), worst residual swing {4} (at {5})%s.", n, exc), qs...))
+		o.found(say(fmt.Sprintf("Simulated at %d rope lengths, {0} to {1}: worst peak {2} at {3}, residual {4} at {5}%s.", n, exc), qs...))
 		return
 	}
 	tm := o.Timing
@@ -209,7 +209,7 @@ func (rq *request) checkedSentences(o *Option) {
 	}
 	qs = append(qs, qTime(tm.SigmaS), qTime(tm.ReactionDelayS))
 	k := len(qs)
-	o.add(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %d draws at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
+	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %d draws at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
 		k-2, k-1, tm.Draws, n, exc, verdict), qs...))
 	ex := 0.0
 	for _, v := range o.Verified {
@@ -217,7 +217,7 @@ func (rq *request) checkedSentences(o *Option) {
 			ex = math.Max(ex, v.Exact.ResidualSwingDeg)
 		}
 	}
-	o.add(say("Pressed exactly on the cues, the residual swing would be at most {0}.", qAngle(ex)))
+	o.found(say("Pressed exactly on the cues, the residual swing would be at most {0}.", qAngle(ex)))
 }
 
 // resLimitRad is the residual swing allowed at rope length l (to the
