@@ -402,3 +402,18 @@ func TestReactionDelayPlannedFor(t *testing.T) {
 		t.Errorf("second press at %g s, count %g s; within %v %v", p.AtS, p.CountS, o.Within, o.Outside)
 	}
 }
+
+// A move too short to lay the crane's pendant steps out leaves that
+// option out, named, and the plan still comes back.
+func TestPendantTooShortDropped(t *testing.T) {
+	s := load(t, "plan-gantry-pendant.json")
+	d := 0.3
+	s.Plan.DistanceM = &d
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(r.Dropped) != 1 || !strings.Contains(r.Dropped[0], "too short for these steps") || len(r.Options) != 1 {
+		t.Errorf("dropped %q, %d options", r.Dropped, len(r.Options))
+	}
+}

@@ -179,11 +179,15 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			opts = append(opts, two...)
 		}
 	} else {
-		o, err := rq.ownPendant(s.Plan.PendantStepsPct)
-		if err != nil {
-			return nil, err
+		// Steps that cannot be laid out for this move (far too short for
+		// them) leave the option out, named, rather than the whole plan.
+		if o, err := rq.ownPendant(s.Plan.PendantStepsPct); err != nil {
+			d := "Your pendant steps: left out, the move is too short for these steps and counts (" + err.Error() + ")."
+			res.Dropped = append(res.Dropped, d)
+			note(plain(d))
+		} else {
+			add(o)
 		}
-		add(o)
 	}
 	// The searches for the drive's single settings run beside the
 	// verification of the other options.
