@@ -137,6 +137,14 @@ func (rq *request) whatToChange(opts []*Option) []Sentence {
 		}
 		msgs = append(msgs, say("The crane's pendant steps, pressed by a person (scatter {0}), leave up to {1} of residual swing 9 in 10 times ({2} if pressed exactly on the cues): "+strings.Join(pendant.Outside, "; ")+". With these steps the limits cannot be relied on. Use a variable-speed drive's ramp (the drive does the timing), a lower top step, or other limits if the lift allows.",
 			qTime(pendant.Timing.SigmaS), qAngle(pendant.WorstResidualSwingDeg), qAngle(ex)))
+		// What timing would do: a straight line between the exact and the
+		// drawn figure (an estimate; the residual does not grow exactly in
+		// proportion to the scatter).
+		lim, sig := rq.lim.ResidualSwingDeg, pendant.Timing.SigmaS
+		if p := pendant.WorstResidualSwingDeg; lim > 0 && ex < lim && p > lim && sig > 0 {
+			msgs = append(msgs, say("A straight line between the exact and the drawn figures puts the scatter that would meet the residual limit at about {0} (an estimate: plan again with plan.timing_sigma_s to check).",
+				qTime(sig*(lim-ex)/(p-ex)).digits(2)))
+		}
 		return msgs
 	}
 	switch {
