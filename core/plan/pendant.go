@@ -158,12 +158,12 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 		return out
 	}
 	maxS := 1.5 * rq.designT
-	upC, _ := robustGaps(group{share, taus(share)}, layout(share, tUp), maxS, ws, tm, errs)
+	upC := robustGaps(group{share, taus(share)}, layout(share, tUp), maxS, ws, tm, errs)
 	downErrs := make([][]float64, len(errs))
 	for d := range errs {
 		downErrs[d] = errs[d][n:]
 	}
-	downC, _ := robustGaps(group{rev, taus(rev)}, layout(rev, tDown), maxS, ws, tm, downErrs)
+	downC := robustGaps(group{rev, taus(rev)}, layout(rev, tDown), maxS, ws, tm, downErrs)
 
 	d := math.Abs(rq.dist)
 	sign := math.Copysign(1, rq.dist)

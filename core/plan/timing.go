@@ -155,9 +155,9 @@ func robustCost(g group, gaps []float64, ws []modeSet, tm Timing, errs [][]float
 // robustGaps picks the counts of a group on the CueStepS grid (0 up to
 // maxS each) that make its p90 residual smallest, starting from the exact
 // times start (rounded): every pair of counts for three steps or fewer
-// (up to 40 counts each), a coordinate search otherwise. It returns the counts (the gaps less the
-// reaction delay) and the cost.
-func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing, errs [][]float64) ([]float64, float64) {
+// (up to 40 counts each), a coordinate search otherwise. It returns the
+// counts (the gaps less the reaction delay).
+func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing, errs [][]float64) []float64 {
 	n := len(g.share)
 	counts := make([]float64, n)
 	for k := 1; k < n; k++ {
@@ -165,7 +165,7 @@ func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing,
 	}
 	best := robustCost(g, counts, ws, tm, errs) // counted adds the delay
 	if n == 1 {
-		return counts, best
+		return counts
 	}
 	steps := int(maxS / CueStepS)
 	try := func(c []float64) {
@@ -188,7 +188,7 @@ func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing,
 			}
 		}
 		rec(1)
-		return counts, best
+		return counts
 	}
 	for range 10 {
 		before := best
@@ -203,7 +203,7 @@ func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing,
 			break
 		}
 	}
-	return counts, best
+	return counts
 }
 
 // timingAssumption states the model for a pendant plan's assumptions.
