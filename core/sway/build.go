@@ -24,6 +24,7 @@ type setup struct {
 	windForce   float64 // N, while the wind blows
 	phases      []Phase
 	warnings    []string
+	fast        *fastModel // the specialised path's model, nil when it does not fit
 }
 
 // axes holds the summed profile of each axis.
@@ -158,6 +159,7 @@ func build(s *scenario.Scenario) (*setup, error) {
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
+		su.fast = newFastModel(&ax, l0, r0, slew0, mass, windOn, windOff, r3.Scale(su.windForce, windDir), dragK, force != nil)
 	} else {
 		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
 			Suspension: susp, Rope: rope, Force: force}

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -30,23 +29,16 @@ func (e *extremum) offer(v, t float64) bool {
 // scanner integrates the model and watches every step for extremes,
 // locating each to the accuracy of the dense output.
 type scanner struct {
-	model     pendulum.System
-	solver    *ode.Solver
-	motionEnd float64
-	nq        quantity // quantities watched: all of them with rigging
-	maxSteps  int
+	peaks
+	model    pendulum.System
+	solver   *ode.Solver
+	maxSteps int
 
-	ext           [nQuantities]extremum
-	resSwing      extremum // swing after the last motion
-	resExcursion  extremum
 	constraintErr float64
 
 	segStart, segEnd float64 // the segment between restarts being integrated
 
-	hist     *History
-	sampleDt float64
-	samples  int
-	next     int // index of the next history sample
+	recorder
 
 	y  []float64 // scratch state
 	pt pendulum.Point
@@ -57,7 +49,7 @@ func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	if _, ok := m.(*pendulum.Double); ok {
 		nq = nQuantities
 	}
-	return &scanner{model: m, motionEnd: motionEnd, nq: nq, maxSteps: maxSteps, y: make([]float64, m.Len())}
+	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, maxSteps: maxSteps, y: make([]float64, m.Len())}
 }
 
 // quantity is one scalar watched along the run.
@@ -123,7 +115,7 @@ func swingRad(v float64) float64 { return 2 * math.Asin(math.Sqrt(math.Max(0, ma
 func excursionM(v float64) float64 { return math.Sqrt(math.Max(0, v)) }
 
 // residualOf is the residual tracker of q, or nil.
-func (s *scanner) residualOf(q quantity) *extremum {
+func (s *peaks) residualOf(q quantity) *extremum {
 	switch q {
 	case qSwing:
 		return &s.resSwing
@@ -178,16 +170,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	})
 	y := append([]float64(nil), y0...)
 	// Segments between restarts. The breakpoints come move by move and
-	// from the wind, so they are sorted here: an unsorted list would skip
+	// from the wind, so restartCuts sorts them: an unsorted list would skip
 	// every restart that comes after a later one.
-	var cuts []float64
-	for _, b := range breaks {
-		if b > 1e-12 && b < tEnd-1e-12 {
-			cuts = append(cuts, b)
-		}
-	}
-	sort.Float64s(cuts)
-	cuts = append(cuts, tEnd)
+	cuts := restartCuts(breaks, tEnd)
 
 	t := 0.0
 	s.solver.Reset(0, y)
@@ -213,7 +198,6 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				return err
 			}
 			t0, t1 := s.solver.LastStep()
-			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any
 			// interior maximum that beats the best so far.
 			if carry {
@@ -233,54 +217,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 					vs[q][j] = s.value(q, p)
 				}
 			}
-			for q := range s.nq {
-				e := &s.ext[q]
-				var r *extremum
-				if residual {
-					r = s.residualOf(q)
-				}
-				for j := 0; j < interior+2; j++ {
-					v := vs[q][j]
-					// Refine a sample that may be the top of a peak and may
-					// beat the best so far once refined (the top lies above
-					// the samples by at most an eighth of their second
-					// difference; a full one is allowed). Inside the step
-					// that is a sample at least as large as both its
-					// neighbours. At the first or last sample the peak may
-					// lie just inside the step or just outside it: look
-					// which way the quantity moves at the step's end.
-					lo, hi := max(j-1, 0), min(j+1, interior+1)
-					localMax := v >= vs[q][lo] && v >= vs[q][hi]
-					if localMax {
-						k := min(max(j, 1), interior)
-						slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
-						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
-					}
-					if localMax && (j == 0 || j == interior+1) {
-						eps := 1e-6 * (t1 - t0)
-						if j == 0 {
-							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
-						} else {
-							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
-						}
-					}
-					if localMax {
-						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
-						if vm > v {
-							v, tt := vm, tm
-							e.offer(v, tt)
-							if r != nil {
-								r.offer(v, tt)
-							}
-							continue
-						}
-					}
-					e.offer(v, ts[j])
-					if r != nil {
-						r.offer(v, ts[j])
-					}
-				}
-			}
+			s.observeStep(s, t0, t1, &ts, &vs)
 			s.emitSamples(t0, t1)
 			carry = true
 			// Back onto the constraint for the next step. The slope at the
@@ -315,9 +252,14 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 // bracket is a small part of a step, where the quantity is smooth). When m
 // is at an end of the bracket, its midpoint is looked at first.
 func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
+	return parabolicMax(s, q, a, fa, m, fm, b, fb)
+}
+
+// parabolicMax is scanner.refine on the values pr.probe gives.
+func parabolicMax(pr stepProbe, q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
 	if m <= a || m >= b {
 		m = 0.5 * (a + b)
-		fm = s.value(q, s.at(m))
+		fm = pr.probe(q, m)
 	}
 	for range 30 {
 		if fm < fa || fm < fb {
@@ -332,7 +274,7 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 				break
 			}
 			m = 0.5 * (a + b)
-			fm = s.value(q, s.at(m))
+			fm = pr.probe(q, m)
 			continue
 		}
 		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
@@ -344,7 +286,7 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 		if !(x > a && x < b) {
 			break
 		}
-		fx := s.value(q, s.at(x))
+		fx := pr.probe(q, x)
 		if math.Abs(x-m) <= 1e-7*(b-a) {
 			if fx > fm {
 				m, fm = x, fx
@@ -370,6 +312,116 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 	}
 	return m, fm
 }
+
+// peaks tracks the largest value of every watched quantity over a run,
+// and after the last motion that of the swing and the excursion.
+type peaks struct {
+	motionEnd    float64
+	nq           quantity // quantities watched: all of them with rigging
+	ext          [nQuantities]extremum
+	resSwing     extremum // swing after the last motion
+	resExcursion extremum
+}
+
+// stepProbe evaluates the watched quantities inside the last step, for
+// peaks.observeStep: probe is quantity q at time t, refine locates the
+// top of a peak of q bracketed by a <= m <= b (values fa, fm, fb).
+type stepProbe interface {
+	probe(q quantity, t float64) float64
+	refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64)
+}
+
+// observeStep offers the values vs of each quantity at the times ts of
+// the step [t0, t1] (evenly spaced, both ends included), refining any
+// that may be the top of a peak beating the best so far.
+func (s *peaks) observeStep(pr stepProbe, t0, t1 float64, ts *[interior + 2]float64, vs *[nQuantities][interior + 2]float64) {
+	residual := t0 >= s.motionEnd-1e-12
+	for q := range s.nq {
+		e := &s.ext[q]
+		var r *extremum
+		if residual {
+			r = s.residualOf(q)
+		}
+		if below(&vs[q], e) && (r == nil || below(&vs[q], r)) {
+			continue // no sample nor peak in this step can beat the best so far
+		}
+		for j := 0; j < interior+2; j++ {
+			v := vs[q][j]
+			// Refine a sample that may be the top of a peak and may
+			// beat the best so far once refined (the top lies above
+			// the samples by at most an eighth of their second
+			// difference; a full one is allowed). Inside the step
+			// that is a sample at least as large as both its
+			// neighbours. At the first or last sample the peak may
+			// lie just inside the step or just outside it: look
+			// which way the quantity moves at the step's end.
+			lo, hi := max(j-1, 0), min(j+1, interior+1)
+			localMax := v >= vs[q][lo] && v >= vs[q][hi]
+			if localMax {
+				k := min(max(j, 1), interior)
+				slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
+				localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
+			}
+			if localMax && (j == 0 || j == interior+1) {
+				eps := 1e-6 * (t1 - t0)
+				if j == 0 {
+					localMax = pr.probe(q, t0+eps) > v // rising out of the start
+				} else {
+					localMax = pr.probe(q, t1-eps) > v // falling into the end
+				}
+			}
+			if localMax {
+				tm, vm := pr.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
+				if vm > v {
+					v, tt := vm, tm
+					e.offer(v, tt)
+					if r != nil {
+						r.offer(v, tt)
+					}
+					continue
+				}
+			}
+			e.offer(v, ts[j])
+			if r != nil {
+				r.offer(v, ts[j])
+			}
+		}
+	}
+}
+
+// below reports whether no sample of a step, with the slack that
+// observeStep allows a peak between samples, can reach e's best so far:
+// then the step changes nothing for that quantity.
+func below(v *[interior + 2]float64, e *extremum) bool {
+	if !e.set {
+		return false
+	}
+	top, size, slack := v[0], 0.0, 0.0
+	for j, x := range v {
+		if x > top {
+			top = x
+		}
+		if x < 0 {
+			x = -x
+		}
+		if x > size {
+			size = x
+		}
+		if j > 0 && j <= interior {
+			d := v[j-1] - 2*v[j] + v[j+1]
+			if d < 0 {
+				d = -d
+			}
+			if d > slack {
+				slack = d
+			}
+		}
+	}
+	return top+slack+1e-12*size < e.max
+}
+
+// probe implements stepProbe.
+func (s *scanner) probe(q quantity, t float64) float64 { return s.value(q, s.at(t)) }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
 	for q := range s.nq {
@@ -399,7 +451,15 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 	}
 }
 
-func (s *scanner) record(p *pendulum.Point) {
+// recorder writes the evenly spaced history samples of a run.
+type recorder struct {
+	hist     *History // nil: no history
+	sampleDt float64
+	samples  int
+	next     int // index of the next history sample
+}
+
+func (s *recorder) record(p *pendulum.Point) {
 	h := s.hist
 	rel := p.Rel()
 	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)

@@ -4,6 +4,7 @@
 //
 //	swaybench -json [-repeat N] DIR          time every scenario in DIR, print JSON rows
 //	swaybench -scipy REF.json FILE.json ...  time SciPy at the core's accuracy
+//	swaybench -floor FILE.json [-repeat N]   time the floor kernel beside the core
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -45,12 +46,15 @@ func main() {
 	repeat := flag.Int("repeat", 51, "evaluations per scenario; the median is reported")
 	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
 	scipy := flag.String("scipy", "", "with the reference results JSON: time SciPy beside the core for the given scenario files")
+	floor := flag.String("floor", "", "time the floor kernel beside the core on this travel scenario")
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	flag.Parse()
 	switch {
 	case *scipy != "":
 		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))
+	case *floor != "":
+		emit(floorRows(*floor, *repeat, "kernel "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *asJSON && flag.NArg() == 1:
 		g := *group
 		if g == "" {

@@ -1,0 +1,152 @@
+package sway
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/units"
+)
+
+// fastModel is the single-rope hook load of pendulum.Model written out as
+// concrete code for the specialised path (fast.go): the same equation of
+// motion, with the suspension point's motion, the rope length, the wind
+// and the drag evaluated from flattened span tables (fastaxis.go) and
+// plain fields, without closures or interfaces per evaluation.
+type fastModel struct {
+	x, y, slew, radius, hoist axisTable
+	slewing                   bool    // the suspension point is on a slewing arm
+	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
+	mass, g                   float64
+	force                     bool    // wind or drag act on the load
+	windOn, windOff           float64 // the wind blows for windOn <= t < windOff
+	windX, windY              float64 // its force, N
+	dragK                     float64 // N per (m/s)^2
+
+	// The spans of the segment between restarts being integrated (set by
+	// segment); the wind force in it.
+	sx, sy, ss, sr, sh span
+	fx, fy             float64
+}
+
+// newFastModel builds the specialised model from the summed profiles of
+// each axis, or returns nil when a profile is of a kind it does not know.
+// The arguments are build's: rope length l0, radius r0 and slew angle phi0
+// at the start, the wind's time span and force, the drag factor, and
+// whether wind or drag act at all.
+func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
+	m := &fastModel{r0: r0, phi0: phi0, l0: l0, mass: mass, g: units.StandardGravity, force: force,
+		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
+		slewing: len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0}
+	for _, a := range []struct {
+		sum motion.Sum
+		tab *axisTable
+	}{{ax.x, &m.x}, {ax.y, &m.y}, {ax.slew, &m.slew}, {ax.radius, &m.radius}, {ax.hoist, &m.hoist}} {
+		comps, ok := flatPieces(a.sum, 0, 1, nil)
+		if !ok {
+			return nil
+		}
+		*a.tab = flatten(comps)
+	}
+	return m
+}
+
+// kin is the suspension point's and the rope's motion at one instant.
+type kin struct {
+	px, py, vx, vy, ax, ay float64 // suspension point (it moves horizontally)
+	l, dl, ddl             float64 // rope length and its derivatives
+}
+
+// segment selects the spans of the segment [a, b] between restarts: every
+// breakpoint of every profile is a restart, so one span per axis holds
+// for the whole segment.
+func (m *fastModel) segment(a, b float64) {
+	mid := 0.5 * (a + b)
+	m.sx, m.sy = m.x.spanAt(mid), m.y.spanAt(mid)
+	m.ss, m.sr, m.sh = m.slew.spanAt(mid), m.radius.spanAt(mid), m.hoist.spanAt(mid)
+	m.fx, m.fy = 0, 0
+	if mid >= m.windOn && mid < m.windOff {
+		m.fx, m.fy = m.windX, m.windY
+	}
+}
+
+// kinAt evaluates the suspension point and the rope at t inside the
+// current segment (the slewing arm as in suspension, build.go).
+func (m *fastModel) kinAt(t float64) (k kin) {
+	k.px, k.vx, k.ax = m.sx.at(t)
+	k.py, k.vy, k.ay = m.sy.at(t)
+	h, dh, ddh := m.sh.at(t)
+	k.l, k.dl, k.ddl = m.l0-h, -dh, -ddh
+	if m.slewing {
+		p, w, al := m.ss.at(t)
+		q, rd, rdd := m.sr.at(t)
+		phi, r := m.phi0+p, m.r0+q
+		c, s := math.Cos(phi), math.Sin(phi)
+		vr, vt := rd, r*w
+		ar, at := rdd-r*w*w, r*al+2*rd*w
+		k.px += r * c
+		k.py += r * s
+		k.vx += vr*c - vt*s
+		k.vy += vr*s + vt*c
+		k.ax += ar*c - at*s
+		k.ay += ar*s + at*c
+	}
+	return k
+}
+
+// rel is the applied acceleration seen from the suspension point, a - S”,
+// with wind and drag (as pendulum.Model.eval forms it).
+func (m *fastModel) rel(k *kin, y *[6]float64) (rx, ry, rz float64) {
+	rx, ry, rz = -k.ax, -k.ay, -m.g
+	if !m.force {
+		return rx, ry, rz
+	}
+	fx, fy, fz := m.fx, m.fy, 0.0
+	if m.dragK > 0 {
+		// The load's velocity S' + L' n + L u.
+		vx := k.vx + (k.dl*y[0] + k.l*y[3])
+		vy := k.vy + (k.dl*y[1] + k.l*y[4])
+		vz := k.dl*y[2] + k.l*y[5]
+		c := m.dragK * math.Sqrt(vx*vx+vy*vy+vz*vz)
+		fx -= c * vx
+		fy -= c * vy
+		fz -= c * vz
+	}
+	im := 1 / m.mass
+	return rx + im*fx, ry + im*fy, rz + im*fz
+}
+
+// rhs is the right-hand side y' = f(t, y): n' = u and
+// n” = [(I - n nᵀ)(a - S”) - 2 L' u]/L - |u|² n.
+func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
+	k := m.kinAt(t)
+	rx, ry, rz := m.rel(&k, y)
+	radial := rx*y[0] + ry*y[1] + rz*y[2]
+	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
+	il := 1 / k.l
+	cn := -radial*il - uu
+	cu := -2 * k.dl * il
+	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
+	dy[3] = rx*il + cn*y[0] + cu*y[3]
+	dy[4] = ry*il + cn*y[1] + cu*y[4]
+	dy[5] = rz*il + cn*y[2] + cu*y[5]
+}
+
+// tension is the rope tension T = m [(a - S”)·n - L” + L |u|²].
+func (m *fastModel) tension(k *kin, y *[6]float64) float64 {
+	rx, ry, rz := m.rel(k, y)
+	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
+	return m.mass * (rx*y[0] + ry*y[1] + rz*y[2] - k.ddl + k.l*uu)
+}
+
+// project puts y back onto |n| = 1, n·u = 0 (pendulum.Project).
+func project(y *[6]float64) float64 {
+	norm := math.Sqrt(y[0]*y[0] + y[1]*y[1] + y[2]*y[2])
+	y[0], y[1], y[2] = y[0]/norm, y[1]/norm, y[2]/norm
+	d := y[0]*y[3] + y[1]*y[4] + y[2]*y[5]
+	y[3] -= d * y[0]
+	y[4] -= d * y[1]
+	y[5] -= d * y[2]
+	return math.Abs(norm - 1)
+}

@@ -1,0 +1,213 @@
+package sway
+
+import (
+	"fmt"
+	"math"
+
+	"swaysheet/core/ode"
+)
+
+// fastSolver is ode.Solver's Dormand-Prince 5(4) pair written for the
+// six-element state of fastModel: the same tableau, error norm, step-size
+// control (with Lund stabilisation), starting step, restarts and dense
+// output, in the same order of operations (core/ode/dopri.go cites the
+// sources), on fixed-size arrays so that the loops need no bounds checks,
+// with the right-hand side called directly.
+type fastSolver struct {
+	m              *fastModel
+	relTol, absTol float64
+	maxSteps       int
+
+	t, h, told float64
+	y, ynew    [6]float64
+	k          [7][6]float64
+	tmp        [6]float64
+	cont       [5][6]float64
+	facOld     float64
+	started    bool
+	fresh      bool
+
+	accepted, rejected, evals int
+}
+
+func (v *fastSolver) eval(t float64, y, dy *[6]float64) {
+	v.m.rhs(t, y, dy)
+	v.evals++
+}
+
+// reset places the solver at (t, y); the next step starts afresh.
+func (v *fastSolver) reset(t float64, y *[6]float64) {
+	v.t, v.told = t, t
+	v.y = *y
+	v.fresh = false
+	v.facOld = 1e-4
+}
+
+func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
+	var sum float64
+	for i := range 6 {
+		a, b := y0[i], y1[i]
+		if a < 0 {
+			a = -a
+		}
+		if b < 0 {
+			b = -b
+		}
+		if b > a {
+			a = b
+		}
+		sk := v.absTol + v.relTol*a
+		r := e[i] / sk
+		sum += r * r
+	}
+	return math.Sqrt(sum / 6)
+}
+
+// initialStep is ode's starting step heuristic.
+func (v *fastSolver) initialStep(tEnd float64) float64 {
+	f0 := &v.k[0]
+	d0 := v.errNorm(&v.y, &v.y, &v.y)
+	d1 := v.errNorm(&v.y, &v.y, f0)
+	var h0 float64
+	if d0 < 1e-5 || d1 < 1e-5 {
+		h0 = 1e-6
+	} else {
+		h0 = 0.01 * d0 / d1
+	}
+	h0 = math.Min(h0, tEnd-v.t)
+	for i := range 6 {
+		v.tmp[i] = v.y[i] + h0*f0[i]
+	}
+	v.eval(v.t+h0, &v.tmp, &v.k[1])
+	for i := range 6 {
+		v.ynew[i] = v.k[1][i] - f0[i]
+	}
+	d2 := v.errNorm(&v.y, &v.y, &v.ynew) / h0
+	var h1 float64
+	if m := math.Max(d1, d2); m <= 1e-15 {
+		h1 = math.Max(1e-6, h0*1e-3)
+	} else {
+		h1 = math.Pow(0.01/m, 0.2)
+	}
+	return math.Min(100*h0, h1)
+}
+
+// Dormand-Prince coefficients, as in core/ode.
+const (
+	fc2, fc3, fc4, fc5 = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
+
+	fa21                         = 1.0 / 5
+	fa31, fa32                   = 3.0 / 40, 9.0 / 40
+	fa41, fa42, fa43             = 44.0 / 45, -56.0 / 15, 32.0 / 9
+	fa51, fa52, fa53, fa54       = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
+	fa61, fa62, fa63, fa64, fa65 = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
+	fa71, fa73, fa74, fa75, fa76 = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
+	fe1, fe3, fe4, fe5, fe6, fe7 = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
+	fd1, fd3, fd4, fd5, fd6, fd7 = -12715105075.0 / 11282082432, 87487479700.0 / 32700410799, -10690763975.0 / 1880347072, 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
+)
+
+// step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
+func (v *fastSolver) step(tEnd float64) (done bool, err error) {
+	if tEnd <= v.t {
+		return true, nil
+	}
+	y, ynew, tmp := &v.y, &v.ynew, &v.tmp
+	k1, k2, k3, k4, k5, k6, k7 := &v.k[0], &v.k[1], &v.k[2], &v.k[3], &v.k[4], &v.k[5], &v.k[6]
+	if !v.fresh {
+		v.eval(v.t, y, k1)
+		v.fresh = true
+	}
+	if !v.started || v.h <= 0 {
+		v.h = v.initialStep(tEnd)
+		v.started = true
+	}
+	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, 0.04
+	const expo1 = 0.2 - beta*0.75
+	span := tEnd - v.t
+	for {
+		if v.accepted+v.rejected >= v.maxSteps {
+			return false, fmt.Errorf("%w (%d steps at t = %.6g)", ode.ErrTooManySteps, v.maxSteps, v.t)
+		}
+		h := v.h
+		last := false
+		if h >= span*(1-1e-12) {
+			h, last = span, true
+		}
+		t := v.t
+		for i := range 6 {
+			tmp[i] = y[i] + h*fa21*k1[i]
+		}
+		v.eval(t+fc2*h, tmp, k2)
+		for i := range 6 {
+			tmp[i] = y[i] + h*(fa31*k1[i]+fa32*k2[i])
+		}
+		v.eval(t+fc3*h, tmp, k3)
+		for i := range 6 {
+			tmp[i] = y[i] + h*(fa41*k1[i]+fa42*k2[i]+fa43*k3[i])
+		}
+		v.eval(t+fc4*h, tmp, k4)
+		for i := range 6 {
+			tmp[i] = y[i] + h*(fa51*k1[i]+fa52*k2[i]+fa53*k3[i]+fa54*k4[i])
+		}
+		v.eval(t+fc5*h, tmp, k5)
+		for i := range 6 {
+			tmp[i] = y[i] + h*(fa61*k1[i]+fa62*k2[i]+fa63*k3[i]+fa64*k4[i]+fa65*k5[i])
+		}
+		tn := t + h
+		if last {
+			tn = tEnd
+		}
+		v.eval(tn, tmp, k6)
+		for i := range 6 {
+			ynew[i] = y[i] + h*(fa71*k1[i]+fa73*k3[i]+fa74*k4[i]+fa75*k5[i]+fa76*k6[i])
+		}
+		v.eval(tn, ynew, k7)
+		for i := range 6 {
+			tmp[i] = h * (fe1*k1[i] + fe3*k3[i] + fe4*k4[i] + fe5*k5[i] + fe6*k6[i] + fe7*k7[i])
+		}
+		errv := v.errNorm(y, ynew, tmp)
+		if math.IsNaN(errv) || math.IsInf(errv, 0) {
+			errv = 1e10
+		}
+		fac11 := math.Pow(errv, expo1)
+		fac := fac11 / math.Pow(v.facOld, beta)
+		fac = math.Max(1/facMax, math.Min(1/facMin, fac/safe))
+		if errv <= 1 {
+			v.facOld = math.Max(errv, 1e-4)
+			v.accepted++
+			for i := range 6 {
+				ydiff := ynew[i] - y[i]
+				bspl := h*k1[i] - ydiff
+				v.cont[0][i] = y[i]
+				v.cont[1][i] = ydiff
+				v.cont[2][i] = bspl
+				v.cont[3][i] = ydiff - h*k7[i] - bspl
+				v.cont[4][i] = h * (fd1*k1[i] + fd3*k3[i] + fd4*k4[i] + fd5*k5[i] + fd6*k6[i] + fd7*k7[i])
+			}
+			*k1 = *k7 // first same as last
+			*y = *ynew
+			v.told, v.t = t, tn
+			v.h = h / fac
+			return last, nil
+		}
+		v.rejected++
+		v.h = h / math.Min(1/facMin, fac11/safe)
+		if v.h < 1e-14*math.Max(1, math.Abs(t)) {
+			return false, fmt.Errorf("ode: step size underflow at t = %.6g", t)
+		}
+	}
+}
+
+// dense writes the continuous extension of the last step at t into out.
+func (v *fastSolver) dense(t float64, out *[6]float64) {
+	h := v.t - v.told
+	var s float64
+	if h > 0 {
+		s = (t - v.told) / h
+	}
+	s1 := 1 - s
+	c := &v.cont
+	for i := range 6 {
+		out[i] = c[0][i] + s*(c[1][i]+s1*(c[2][i]+s*(c[3][i]+s1*c[4][i])))
+	}
+}
