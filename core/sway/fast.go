@@ -83,47 +83,54 @@ type fastScan struct {
 	constraintErr float64
 }
 
-// state is the dense output at t inside the last step, projected, with
-// the suspension point and the rope there.
-func (s *fastScan) state(t float64) (y [6]float64, k kin) {
+// state is the dense output at t inside the last step, projected.
+func (s *fastScan) state(t float64) (y [6]float64) {
 	s.v.dense(t, &y)
 	project(&y)
-	return y, s.m.kinAt(t)
+	return y
 }
 
-// values fills the watched quantities at one state: the swing as
+// values fills the watched quantities at time t and state y: the swing as
 // 1 - cos(theta) of the rope direction, the excursion squared, the
 // tension and its negative (scanner.value for one rope).
-func (s *fastScan) values(y *[6]float64, k *kin, out *[nQuantities]float64) {
+func (s *fastScan) values(t float64, y *[6]float64, out *[nQuantities][interior + 2]float64, j int) {
+	var rx, ry, rz, l, ddl float64
+	if s.m.simple() {
+		rx, ry = s.m.travelRel(t)
+		rz, l = -s.m.g, s.m.l0
+	} else {
+		rx, ry, rz, l, _, ddl = s.m.relAt(t, y)
+	}
 	h2 := y[0]*y[0] + y[1]*y[1]
 	nl := math.Sqrt(h2 + y[2]*y[2])
 	if y[2] < 0 {
-		out[qSwing] = h2 / (nl * (nl - y[2]))
+		out[qSwing][j] = h2 / (nl * (nl - y[2]))
 	} else {
-		out[qSwing] = 1 + y[2]/nl
+		out[qSwing][j] = 1 + y[2]/nl
 	}
-	out[qExcursion] = k.l * k.l * h2
-	tn := s.m.tension(k, y)
-	out[qTension], out[qTensionLow] = tn, -tn
+	out[qExcursion][j] = l * l * h2
+	tn := s.m.tension(rx, ry, rz, l, ddl, y)
+	out[qTension][j], out[qTensionLow][j] = tn, -tn
 }
 
 // probe implements stepProbe.
 func (s *fastScan) probe(q quantity, t float64) float64 {
-	y, k := s.state(t)
-	var v [nQuantities]float64
-	s.values(&y, &k, &v)
-	return v[q]
+	y := s.state(t)
+	var v [nQuantities][interior + 2]float64
+	s.values(t, &y, &v, 0)
+	return v[q][0]
 }
 
 // slope is the time derivative of the swing or excursion value at t on
 // the dense output: for a unit n with n·u = 0, d(1 - cos theta)/dt = u_z
 // and d(L²(n_x² + n_y²))/dt = 2 L L' (n_x² + n_y²) + 2 L² (n_x u_x + n_y u_y).
 func (s *fastScan) slope(q quantity, t float64) float64 {
-	y, k := s.state(t)
+	y := s.state(t)
 	if q == qSwing {
 		return y[5]
 	}
-	return 2*k.l*k.dl*(y[0]*y[0]+y[1]*y[1]) + 2*k.l*k.l*(y[0]*y[3]+y[1]*y[4])
+	_, _, _, l, dl, _ := s.m.relAt(t, &y)
+	return 2*l*dl*(y[0]*y[0]+y[1]*y[1]) + 2*l*l*(y[0]*y[3]+y[1]*y[4])
 }
 
 // refine implements stepProbe. A swing or excursion peak is the root of
@@ -191,17 +198,15 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	t := 0.0
 	s.m.segment(0, cuts[0])
 	s.v.reset(0, &y)
-	var v0 [nQuantities]float64
-	k0 := s.m.kinAt(0)
-	s.values(&y, &k0, &v0)
-	for q := range s.nq {
-		s.ext[q].offer(v0[q], 0)
-		if r := s.residualOf(q); r != nil && 0 >= s.motionEnd-1e-12 {
-			r.offer(v0[q], 0)
-		}
-	}
 	var ts [interior + 2]float64
 	var vs [nQuantities][interior + 2]float64
+	s.values(0, &y, &vs, 0)
+	for q := range s.nq {
+		s.ext[q].offer(vs[q][0], 0)
+		if r := s.residualOf(q); r != nil && 0 >= s.motionEnd-1e-12 {
+			r.offer(vs[q][0], 0)
+		}
+	}
 	for _, cut := range cuts {
 		if cut <= t {
 			continue
@@ -224,25 +229,27 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 					vs[q][0] = vs[q][interior+1]
 				}
 			}
-			for j := 0; j < interior+2; j++ {
+			// Back onto the constraint for the next step, keeping the slope
+			// at the step's end (as scanner.run does). The projected end
+			// state is the last sample: the dense output there is the end
+			// state to rounding.
+			if d := project(&s.v.y); d > s.constraintErr {
+				s.constraintErr = d
+			}
+			for j := 0; j < interior+1; j++ {
 				if j == 0 && carry {
 					continue
 				}
 				tt := t0 + (t1-t0)*float64(j)/(interior+1)
-				yy, k := s.state(tt)
-				var v [nQuantities]float64
-				s.values(&yy, &k, &v)
+				yy := s.state(tt)
+				s.values(tt, &yy, &vs, j)
 				ts[j] = tt
-				for q := range s.nq {
-					vs[q][j] = v[q]
-				}
 			}
+			ts[interior+1] = t1
+			s.values(t1, &s.v.y, &vs, interior+1)
 			s.observeStep(s, t0, t1, &ts, &vs)
 			s.emit(t0, t1)
 			carry = true
-			if d := project(&s.v.y); d > s.constraintErr {
-				s.constraintErr = d
-			}
 			if done {
 				break
 			}
@@ -251,8 +258,7 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	}
 	for s.hist != nil && s.next < s.samples {
 		// The last sample falls on tEnd exactly.
-		k := s.m.kinAt(tEnd)
-		s.record(s.point(tEnd, &s.v.y, &k))
+		s.record(s.point(tEnd, &s.v.y))
 	}
 	return nil
 }
@@ -264,16 +270,18 @@ func (s *fastScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		y, k := s.state(max(tt, t0))
-		s.record(s.point(tt, &y, &k))
+		y := s.state(max(tt, t0))
+		s.record(s.point(tt, &y))
 	}
 }
 
 // point is the pendulum.Point of a state, for the history.
-func (s *fastScan) point(t float64, y *[6]float64, k *kin) *pendulum.Point {
+func (s *fastScan) point(t float64, y *[6]float64) *pendulum.Point {
+	k := s.m.kinAt(t)
+	rx, ry, rz := s.m.rel(&k, y)
 	n := r3.Vec{X: y[0], Y: y[1], Z: y[2]}
 	p := &pendulum.Point{T: t, Dir: n, Rate: r3.Vec{X: y[3], Y: y[4], Z: y[5]}, Rope: k.l,
-		Tension: s.m.tension(k, y)}
+		Tension: s.m.tension(rx, ry, rz, k.l, k.ddl, y)}
 	p.Suspension.Pos = r3.Vec{X: k.px, Y: k.py, Z: 0}
 	p.Suspension.Vel = r3.Vec{X: k.vx, Y: k.vy, Z: 0}
 	p.Suspension.Acc = r3.Vec{X: k.ax, Y: k.ay, Z: 0}

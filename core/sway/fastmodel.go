@@ -17,6 +17,7 @@ import (
 type fastModel struct {
 	x, y, slew, radius, hoist axisTable
 	slewing                   bool    // the suspension point is on a slewing arm
+	hoisting                  bool    // the rope length changes
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
 	mass, g                   float64
 	force                     bool    // wind or drag act on the load
@@ -38,7 +39,7 @@ type fastModel struct {
 func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
 	m := &fastModel{r0: r0, phi0: phi0, l0: l0, mass: mass, g: units.StandardGravity, force: force,
 		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
-		slewing: len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0}
+		slewing: len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0, hoisting: len(ax.hoist) > 0}
 	for _, a := range []struct {
 		sum motion.Sum
 		tab *axisTable
@@ -117,27 +118,60 @@ func (m *fastModel) rel(k *kin, y *[6]float64) (rx, ry, rz float64) {
 	return rx + im*fx, ry + im*fy, rz + im*fz
 }
 
+// relAt is the applied acceleration seen from the suspension point,
+// a - S”, and the rope length with its first two rates, at t and y. On
+// travel and hoist moves without wind or drag it reads the suspension
+// point's acceleration alone.
+func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl float64) {
+	if m.slewing || m.force {
+		k := m.kinAt(t)
+		rx, ry, rz = m.rel(&k, y)
+		return rx, ry, rz, k.l, k.dl, k.ddl
+	}
+	l = m.l0
+	if m.hoisting {
+		h, dh, ddh := m.sh.at(t)
+		l, dl, ddl = m.l0-h, -dh, -ddh
+	}
+	rx, ry = m.travelRel(t)
+	return rx, ry, -m.g, l, dl, ddl
+}
+
+// simple reports whether the model has travel moves only: no slewing, no
+// hoisting, no wind or drag (relAt's shortest case).
+func (m *fastModel) simple() bool { return !(m.slewing || m.force || m.hoisting) }
+
+// travelRel is -S” of a suspension point on travel moves alone.
+func (m *fastModel) travelRel(t float64) (rx, ry float64) {
+	return -(m.sx.a + (t-m.sx.origin)*m.sx.j), -(m.sy.a + (t-m.sy.origin)*m.sy.j)
+}
+
 // rhs is the right-hand side y' = f(t, y): n' = u and
 // n” = [(I - n nᵀ)(a - S”) - 2 L' u]/L - |u|² n.
 func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
-	k := m.kinAt(t)
-	rx, ry, rz := m.rel(&k, y)
+	var rx, ry, rz, l, dl float64
+	if m.simple() { // relAt's shortest case, inlined
+		rx, ry = m.travelRel(t)
+		rz, l = -m.g, m.l0
+	} else {
+		rx, ry, rz, l, dl, _ = m.relAt(t, y)
+	}
 	radial := rx*y[0] + ry*y[1] + rz*y[2]
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
-	il := 1 / k.l
+	il := 1 / l
 	cn := -radial*il - uu
-	cu := -2 * k.dl * il
+	cu := -2 * dl * il
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
 	dy[3] = rx*il + cn*y[0] + cu*y[3]
 	dy[4] = ry*il + cn*y[1] + cu*y[4]
 	dy[5] = rz*il + cn*y[2] + cu*y[5]
 }
 
-// tension is the rope tension T = m [(a - S”)·n - L” + L |u|²].
-func (m *fastModel) tension(k *kin, y *[6]float64) float64 {
-	rx, ry, rz := m.rel(k, y)
+// tension is the rope tension T = m [(a - S”)·n - L” + L |u|²] from the
+// values relAt gives.
+func (m *fastModel) tension(rx, ry, rz, l, ddl float64, y *[6]float64) float64 {
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
-	return m.mass * (rx*y[0] + ry*y[1] + rz*y[2] - k.ddl + k.l*uu)
+	return m.mass * (rx*y[0] + ry*y[1] + rz*y[2] - ddl + l*uu)
 }
 
 // project puts y back onto |n| = 1, n·u = 0 (pendulum.Project).

@@ -342,8 +342,10 @@ func (s *peaks) observeStep(pr stepProbe, t0, t1 float64, ts *[interior + 2]floa
 		if residual {
 			r = s.residualOf(q)
 		}
-		if below(&vs[q], e) && (r == nil || below(&vs[q], r)) {
-			continue // no sample nor peak in this step can beat the best so far
+		if e.set && (r == nil || r.set) {
+			if b := reach(&vs[q]); b < e.max && (r == nil || b < r.max) {
+				continue // no sample nor peak in this step can beat the best so far
+			}
 		}
 		for j := 0; j < interior+2; j++ {
 			v := vs[q][j]
@@ -389,35 +391,34 @@ func (s *peaks) observeStep(pr stepProbe, t0, t1 float64, ts *[interior + 2]floa
 	}
 }
 
-// below reports whether no sample of a step, with the slack that
-// observeStep allows a peak between samples, can reach e's best so far:
-// then the step changes nothing for that quantity.
-func below(v *[interior + 2]float64, e *extremum) bool {
-	if !e.set {
-		return false
-	}
-	top, size, slack := v[0], 0.0, 0.0
-	for j, x := range v {
+// reach bounds from above every sample of a step plus the slack that
+// observeStep allows a peak between samples (a second difference and
+// 1e-12 of the value): when it stays below the best so far, the step
+// changes nothing for that quantity. Written out for interior = 2.
+func reach(v *[interior + 2]float64) float64 {
+	// Plain comparisons: math.Max, math.Min and the built-in max handle NaN
+	// and signed zeros at a cost; a NaN sample is never a new best anyway.
+	top, size := v[0], abs(v[0])
+	for _, x := range v[1:] {
 		if x > top {
 			top = x
 		}
-		if x < 0 {
-			x = -x
-		}
-		if x > size {
-			size = x
-		}
-		if j > 0 && j <= interior {
-			d := v[j-1] - 2*v[j] + v[j+1]
-			if d < 0 {
-				d = -d
-			}
-			if d > slack {
-				slack = d
-			}
+		if a := abs(x); a > size {
+			size = a
 		}
 	}
-	return top+slack+1e-12*size < e.max
+	slack := abs(v[0] - 2*v[1] + v[2])
+	if d := abs(v[1] - 2*v[2] + v[3]); d > slack {
+		slack = d
+	}
+	return top + slack + 1e-12*size
+}
+
+func abs(x float64) float64 {
+	if x < 0 {
+		return -x
+	}
+	return x
 }
 
 // probe implements stepProbe.

@@ -121,6 +121,7 @@ func (f *floorRun) run() [6]float64 {
 		}
 		return math.Sqrt(sum / 6)
 	}
+	logFloor := math.Log(1e-4)
 	var k [7][6]float64
 	var tmp, yn [6]float64
 	t, h := 0.0, 0.0
@@ -128,7 +129,7 @@ func (f *floorRun) run() [6]float64 {
 	for s, cut := range f.cuts {
 		ax, ay = f.acc[s][0], f.acc[s][1]
 		rhs(&y, &k[0])
-		facOld := 1e-4
+		facOldPow := math.Exp(0.04 * logFloor)
 		if h == 0 {
 			h = 1e-3 // the core's starting heuristic is not the point here
 		}
@@ -166,13 +167,15 @@ func (f *floorRun) run() [6]float64 {
 				tmp[i] = hh * (71.0/57600*k[0][i] - 71.0/16695*k[2][i] + 71.0/1920*k[3][i] - 17253.0/339200*k[4][i] + 22.0/525*k[5][i] - 1.0/40*k[6][i])
 			}
 			e := norm(&y, &yn, &tmp)
-			fac11 := math.Pow(e, 0.17)
-			fac := math.Max(0.1, math.Min(5, fac11/math.Pow(facOld, 0.04)/0.9))
+			// Powers as exponentials of a logarithm, as the core does.
+			le := math.Log(e)
+			fac11 := math.Exp(0.17 * le)
+			fac := math.Max(0.1, math.Min(5, fac11/facOldPow/0.9))
 			if e > 1 {
 				h = hh / math.Min(5, fac11/0.9)
 				continue
 			}
-			facOld = math.Max(e, 1e-4)
+			facOldPow = math.Exp(0.04 * math.Max(le, logFloor))
 			f.steps++
 			y = yn
 			k[0] = k[6]
