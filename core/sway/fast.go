@@ -247,7 +247,9 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			}
 			ts[interior+1] = t1
 			s.values(t1, &s.v.y, &vs, interior+1)
-			s.observeStep(s, t0, t1, &ts, &vs)
+			if !s.settled(t0, &vs) {
+				s.observeStep(s, t0, t1, &ts, &vs)
+			}
 			s.emit(t0, t1)
 			carry = true
 			if done {
@@ -261,6 +263,25 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		s.record(s.point(tEnd, &s.v.y))
 	}
 	return nil
+}
+
+// settled reports whether no quantity can beat its best so far in the
+// step starting at t0 (observeStep's early rejection for all of them at
+// once: observeStep would change nothing).
+func (s *fastScan) settled(t0 float64, vs *[nQuantities][interior + 2]float64) bool {
+	residual := t0 >= s.motionEnd-1e-12
+	for q := range qRigAngle {
+		b := reach(&vs[q])
+		if !(s.ext[q].set && b < s.ext[q].max) {
+			return false
+		}
+		if residual {
+			if r := s.residualOf(q); r != nil && !(r.set && b < r.max) {
+				return false
+			}
+		}
+	}
+	return true
 }
 
 // emit records the history samples that fall in (t0, t1].

@@ -182,10 +182,21 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		logErr := math.Log(errv)
 		fac11 := math.Exp(expo1 * logErr)
 		fac := fac11 / v.facOldPow
-		fac = math.Max(1/facMax, math.Min(1/facMin, fac/safe))
+		// Plain comparisons in place of math.Max and math.Min (calls of
+		// their own, for NaN and signed zeros that cannot occur here).
+		fac /= safe
+		if fac > 1/facMin {
+			fac = 1 / facMin
+		}
+		if fac < 1/facMax {
+			fac = 1 / facMax
+		}
 		if errv <= 1 {
-			v.facOld = math.Max(errv, 1e-4)
-			v.facOldPow = math.Exp(beta * math.Max(logErr, logFacFloor))
+			v.facOld = errv
+			if logErr < logFacFloor {
+				v.facOld, logErr = 1e-4, logFacFloor
+			}
+			v.facOldPow = math.Exp(beta * logErr)
 			v.accepted++
 			for i := range 6 {
 				ydiff := ynew[i] - y[i]

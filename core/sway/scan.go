@@ -398,18 +398,29 @@ func (s *peaks) observeStep(pr stepProbe, t0, t1 float64, ts *[interior + 2]floa
 func reach(v *[interior + 2]float64) float64 {
 	// Plain comparisons: math.Max, math.Min and the built-in max handle NaN
 	// and signed zeros at a cost; a NaN sample is never a new best anyway.
-	top, size := v[0], abs(v[0])
-	for _, x := range v[1:] {
-		if x > top {
-			top = x
-		}
-		if a := abs(x); a > size {
-			size = a
-		}
+	a, b, c, d := v[0], v[1], v[2], v[3]
+	top, size := a, abs(a)
+	if b > top {
+		top = b
 	}
-	slack := abs(v[0] - 2*v[1] + v[2])
-	if d := abs(v[1] - 2*v[2] + v[3]); d > slack {
-		slack = d
+	if c > top {
+		top = c
+	}
+	if d > top {
+		top = d
+	}
+	if x := abs(b); x > size {
+		size = x
+	}
+	if x := abs(c); x > size {
+		size = x
+	}
+	if x := abs(d); x > size {
+		size = x
+	}
+	slack, x := abs(a-2*b+c), abs(b-2*c+d)
+	if x > slack {
+		slack = x
 	}
 	return top + slack + 1e-12*size
 }

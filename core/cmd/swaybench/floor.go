@@ -115,8 +115,17 @@ func (f *floorRun) run() [6]float64 {
 	norm := func(y0, y1, e *[6]float64) float64 {
 		var sum float64
 		for i := range 6 {
-			sk := atol + rtol*math.Max(math.Abs(y0[i]), math.Abs(y1[i]))
-			r := e[i] / sk
+			a, b := y0[i], y1[i]
+			if a < 0 {
+				a = -a
+			}
+			if b < 0 {
+				b = -b
+			}
+			if b > a {
+				a = b
+			}
+			r := e[i] / (atol + rtol*a)
 			sum += r * r
 		}
 		return math.Sqrt(sum / 6)
@@ -170,12 +179,21 @@ func (f *floorRun) run() [6]float64 {
 			// Powers as exponentials of a logarithm, as the core does.
 			le := math.Log(e)
 			fac11 := math.Exp(0.17 * le)
-			fac := math.Max(0.1, math.Min(5, fac11/facOldPow/0.9))
+			fac := fac11 / facOldPow / 0.9
+			if fac > 5 {
+				fac = 5
+			}
+			if fac < 0.1 {
+				fac = 0.1
+			}
 			if e > 1 {
-				h = hh / math.Min(5, fac11/0.9)
+				h = hh / min(5, fac11/0.9)
 				continue
 			}
-			facOldPow = math.Exp(0.04 * math.Max(le, logFloor))
+			if le < logFloor {
+				le = logFloor
+			}
+			facOldPow = math.Exp(0.04 * le)
 			f.steps++
 			y = yn
 			k[0] = k[6]
