@@ -39,6 +39,7 @@ var Calls = map[string]Func{
 	"examples": examples,
 	"version":  version,
 	"plan":     makePlan,
+	"draws":    runDraws,
 }
 
 // Error is the reply's error object.
