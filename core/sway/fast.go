@@ -37,6 +37,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	rec := recorder{}
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
+		rec.reserve()
 	}
 	maxN := maxSteps
 	if opt.MaxSteps > 0 {

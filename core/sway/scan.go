@@ -471,6 +471,19 @@ type recorder struct {
 	next     int // index of the next history sample
 }
 
+// reserve makes room for every sample at once: growing eleven slices
+// sample by sample costs more than the samples (in wasm most of all).
+func (s *recorder) reserve() {
+	h := s.hist
+	cs := []*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
+		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
+	n := s.samples
+	buf := make([]float64, len(cs)*n) // one allocation, each series its own part
+	for k, c := range cs {
+		*c = buf[k*n : k*n : (k+1)*n]
+	}
+}
+
 func (s *recorder) record(p *pendulum.Point) {
 	h := s.hist
 	rel := p.Rel()

@@ -5,6 +5,7 @@
 //	swaybench -json [-repeat N] DIR          time every scenario in DIR, print JSON rows
 //	swaybench -scipy REF.json FILE.json ...  time SciPy at the core's accuracy
 //	swaybench -floor FILE.json [-repeat N]   time the floor kernel beside the core
+//	swaybench -draws FILE.json               time 1,000 draws of the scenario (core/draws)
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -47,12 +48,15 @@ func main() {
 	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
 	scipy := flag.String("scipy", "", "with the reference results JSON: time SciPy beside the core for the given scenario files")
 	floor := flag.String("floor", "", "time the floor kernel beside the core on this travel scenario")
+	drawsFile := flag.String("draws", "", "time 1,000 draws of this scenario on one goroutine and on all processors")
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	flag.Parse()
 	switch {
 	case *scipy != "":
 		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))
+	case *drawsFile != "":
+		emit(drawsRows(*drawsFile, "draws "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *floor != "":
 		emit(floorRows(*floor, *repeat, "kernel "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *asJSON && flag.NArg() == 1:
@@ -231,10 +235,17 @@ func ratios(rows []Row) []Row {
 	for _, r := range rows {
 		if r.Group == "core js/wasm" && native[r.Name] > 0 {
 			out = append(out, Row{Group: "wasm / native", Name: r.Name, Value: r.Value / native[r.Name], Unit: "x",
-				Note: "full evaluation, wasm under node over native, same machine"})
+				Note: "full evaluation, wasm under node over native, same machine; target at most 2.0x: " + verdict(r.Value/native[r.Name] <= 2)})
 		}
 	}
 	return out
+}
+
+func verdict(met bool) string {
+	if met {
+		return "met"
+	}
+	return "MISSED"
 }
 
 func format(v float64) string {
