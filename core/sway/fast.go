@@ -82,6 +82,7 @@ type fastScan struct {
 	m             *fastModel
 	v             fastSolver
 	constraintErr float64
+	pt            pendulum.Point // scratch for the history
 }
 
 // state is the dense output at t inside the last step, projected.
@@ -297,16 +298,18 @@ func (s *fastScan) emit(t0, t1 float64) {
 	}
 }
 
-// point is the pendulum.Point of a state, for the history.
+// point is the pendulum.Point of a state, for the history (in the scratch
+// point: a returned new one would be an allocation per sample).
 func (s *fastScan) point(t float64, y *[6]float64) *pendulum.Point {
 	k := s.m.kinAt(t)
 	rx, ry, rz := s.m.rel(&k, y)
-	n := r3.Vec{X: y[0], Y: y[1], Z: y[2]}
-	p := &pendulum.Point{T: t, Dir: n, Rate: r3.Vec{X: y[3], Y: y[4], Z: y[5]}, Rope: k.l,
-		Tension: s.m.tension(rx, ry, rz, k.l, k.ddl, y)}
-	p.Suspension.Pos = r3.Vec{X: k.px, Y: k.py, Z: 0}
-	p.Suspension.Vel = r3.Vec{X: k.vx, Y: k.vy, Z: 0}
-	p.Suspension.Acc = r3.Vec{X: k.ax, Y: k.ay, Z: 0}
+	p := &s.pt
+	p.T, p.Rope, p.Tension = t, k.l, s.m.tension(rx, ry, rz, k.l, k.ddl, y)
+	p.Dir = r3.Vec{X: y[0], Y: y[1], Z: y[2]}
+	p.Rate = r3.Vec{X: y[3], Y: y[4], Z: y[5]}
+	p.Suspension.Pos = r3.Vec{X: k.px, Y: k.py}
+	p.Suspension.Vel = r3.Vec{X: k.vx, Y: k.vy}
+	p.Suspension.Acc = r3.Vec{X: k.ax, Y: k.ay}
 	p.LoadPos = r3.Vec{X: k.px + k.l*y[0], Y: k.py + k.l*y[1], Z: k.l * y[2]}
 	p.LoadVel = r3.Vec{X: k.vx + (k.dl*y[0] + k.l*y[3]), Y: k.vy + (k.dl*y[1] + k.l*y[4]), Z: k.dl*y[2] + k.l*y[5]}
 	return p
