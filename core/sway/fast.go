@@ -3,7 +3,6 @@ package sway
 import (
 	"errors"
 	"fmt"
-	"math"
 	"slices"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -16,19 +15,19 @@ import (
 // moves are all trapezoids, S-curves, speed steps, hard stops or series
 // records, shaped or not, is integrated by fastModel and fastSolver: the
 // same equation of motion, tableau, error control, restarts at every
-// breakpoint, projection after every step and peak search (peaks.
-// observeStep) as the general path (scanner with pendulum.Model and
-// ode.Solver), written for a state of six numbers with the suspension
-// point's motion as flattened span tables. The two agree to rounding
-// (fast_test.go states how closely); Options.General selects the general
-// path.
+// breakpoint and projection after every step as the general path (scanner
+// with pendulum.Model and ode.Solver), written for a state of six numbers
+// with the suspension point's motion as flattened span tables
+// (fastaxis.go). The two agree to rounding (fast_test.go states how
+// closely); Options.General selects the general path.
 //
-// Two things differ by design. The model is evaluated at the time itself
-// with the segment's own spans, where the general path moves the time a
-// hair (1e-12 of it) inside the segment; and the top of a swing or
-// excursion peak is found as the root of the quantity's time derivative
-// on the dense output (fastScan.refine) rather than by parabolic
-// interpolation of its values.
+// What differs by design: the model is evaluated at the time itself with
+// the segment's own spans, where the general path moves the time a hair
+// (1e-12 of it) inside the segment; the step control's powers are taken
+// as exponentials of a logarithm; and peaks are found from the rate of
+// each quantity at the ends of every step, the top located as the root of
+// that rate on the dense output (fastpeaks.go), where the general path
+// samples every step at four points and interpolates parabolas.
 
 // integrate runs the evaluation on the specialised path when the scenario
 // fits it and opt allows, and on the general path otherwise. The scanner
@@ -92,107 +91,6 @@ func (s *fastScan) state(t float64) (y [6]float64) {
 	return y
 }
 
-// values fills the watched quantities at time t and state y: the swing as
-// 1 - cos(theta) of the rope direction, the excursion squared, the
-// tension and its negative (scanner.value for one rope).
-func (s *fastScan) values(t float64, y *[6]float64, out *[nQuantities][interior + 2]float64, j int) {
-	var rx, ry, rz, l, ddl float64
-	if s.m.simple() {
-		rx, ry = s.m.travelRel(t)
-		rz, l = -s.m.g, s.m.l0
-	} else {
-		rx, ry, rz, l, _, ddl = s.m.relAt(t, y)
-	}
-	h2 := y[0]*y[0] + y[1]*y[1]
-	nl := math.Sqrt(h2 + y[2]*y[2])
-	if y[2] < 0 {
-		out[qSwing][j] = h2 / (nl * (nl - y[2]))
-	} else {
-		out[qSwing][j] = 1 + y[2]/nl
-	}
-	out[qExcursion][j] = l * l * h2
-	tn := s.m.tension(rx, ry, rz, l, ddl, y)
-	out[qTension][j], out[qTensionLow][j] = tn, -tn
-}
-
-// probe implements stepProbe.
-func (s *fastScan) probe(q quantity, t float64) float64 {
-	y := s.state(t)
-	var v [nQuantities][interior + 2]float64
-	s.values(t, &y, &v, 0)
-	return v[q][0]
-}
-
-// slope is the time derivative of the swing or excursion value at t on
-// the dense output: for a unit n with n·u = 0, d(1 - cos theta)/dt = u_z
-// and d(L²(n_x² + n_y²))/dt = 2 L L' (n_x² + n_y²) + 2 L² (n_x u_x + n_y u_y).
-func (s *fastScan) slope(q quantity, t float64) float64 {
-	y := s.state(t)
-	if q == qSwing {
-		return y[5]
-	}
-	_, _, _, l, dl, _ := s.m.relAt(t, &y)
-	return 2*l*dl*(y[0]*y[0]+y[1]*y[1]) + 2*l*l*(y[0]*y[3]+y[1]*y[4])
-}
-
-// refine implements stepProbe. A swing or excursion peak is the root of
-// the quantity's slope inside the bracket, found by regula falsi with the
-// Illinois modification (M. Dowell and P. Jarratt, BIT 11 (1971) 168-174)
-// until the bracket or the step in t is below 1e-9 of the bracket's
-// width; the tension, whose slope would need the drive's jerk and the
-// drag's derivative, by parabolic interpolation (parabolicMax).
-func (s *fastScan) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
-	if q != qSwing && q != qExcursion {
-		return parabolicMax(s, q, a, fa, m, fm, b, fb)
-	}
-	ga, gb := s.slope(q, a), s.slope(q, b)
-	if m > a && m < b {
-		// The bracket with the top inside: the slope goes from rising to
-		// falling.
-		if gm := s.slope(q, m); ga > 0 && gm <= 0 {
-			b, gb = m, gm
-		} else {
-			a, ga = m, gm
-		}
-	}
-	if !(ga > 0 && gb <= 0) {
-		return parabolicMax(s, q, a, fa, m, fm, b, fb)
-	}
-	tol := 1e-9 * (b - a)
-	x := a
-	side := 0
-	for range 60 {
-		xn := (a*gb - b*ga) / (gb - ga)
-		if !(xn > a && xn < b) {
-			xn = 0.5 * (a + b)
-		}
-		gx := s.slope(q, xn)
-		done := math.Abs(xn-x) <= tol || b-a <= tol || gx == 0
-		x = xn
-		if done {
-			break
-		}
-		if gx > 0 {
-			a, ga = x, gx
-			if side == -1 {
-				gb *= 0.5
-			}
-			side = -1
-		} else {
-			b, gb = x, gx
-			if side == 1 {
-				ga *= 0.5
-			}
-			side = 1
-		}
-	}
-	fx := s.probe(q, x)
-	if fm > fx {
-		return m, fm
-	}
-	return x, fx
-}
-
 func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	cuts := restartCuts(breaks, tEnd)
 	var y [6]float64
@@ -200,14 +98,12 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	t := 0.0
 	s.m.segment(0, cuts[0])
 	s.v.reset(0, &y)
-	var ts [interior + 2]float64
-	var vs [nQuantities][interior + 2]float64
-	s.values(0, &y, &vs, 0)
-	for q := range s.nq {
-		s.ext[q].offer(vs[q][0], 0)
-		if r := s.residualOf(q); r != nil && 0 >= s.motionEnd-1e-12 {
-			r.offer(vs[q][0], 0)
-		}
+	var a, b measure
+	var rate [6]float64
+	s.m.rhs(0, &y, &rate)
+	s.measureAt(0, &y, &rate, &a)
+	for q := range qRigAngle {
+		s.offer(q, a.v[q], 0, 0 >= s.motionEnd-1e-12)
 	}
 	for _, cut := range cuts {
 		if cut <= t {
@@ -215,7 +111,7 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		}
 		s.m.segment(t, cut)
 		s.v.reset(t, &s.v.y)
-		carry := false
+		carry := false // the start of the step is the end of the one before
 		for {
 			done, err := s.v.step(cut)
 			if err != nil {
@@ -225,34 +121,32 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 				return err
 			}
 			t0, t1 := s.v.told, s.v.t
-			if carry {
-				ts[0] = t0
-				for q := range s.nq {
-					vs[q][0] = vs[q][interior+1]
+			residual := t0 >= s.motionEnd-1e-12
+			if !carry {
+				// A new segment: the suspension point's acceleration may
+				// have jumped, so the start is measured afresh.
+				y0 := s.v.cont[0]
+				s.v.denseRate(t0, &rate)
+				s.measureAt(t0, &y0, &rate, &a)
+				for q := range qRigAngle {
+					s.offer(q, a.v[q], t0, residual)
 				}
 			}
 			// Back onto the constraint for the next step, keeping the slope
-			// at the step's end (as scanner.run does). The projected end
-			// state is the last sample: the dense output there is the end
-			// state to rounding.
+			// at the step's end (as scanner.run does); the projected end
+			// state is where the step's end is measured.
 			if d := project(&s.v.y); d > s.constraintErr {
 				s.constraintErr = d
 			}
-			for j := 0; j < interior+1; j++ {
-				if j == 0 && carry {
-					continue
-				}
-				tt := t0 + (t1-t0)*float64(j)/(interior+1)
-				yy := s.state(tt)
-				s.values(tt, &yy, &vs, j)
-				ts[j] = tt
+			// The dense output's rate at the step's end is the last stage,
+			// f(t1, y1), which the solver keeps as the next step's first.
+			s.measureAt(t1, &s.v.y, &s.v.k[0], &b)
+			for q := range qRigAngle {
+				s.offer(q, b.v[q], t1, residual)
 			}
-			ts[interior+1] = t1
-			s.values(t1, &s.v.y, &vs, interior+1)
-			if !s.settled(t0, &vs) {
-				s.observeStep(s, t0, t1, &ts, &vs)
-			}
+			s.stepPeaks(t0, t1, &a, &b, residual)
 			s.emit(t0, t1)
+			a = b
 			carry = true
 			if done {
 				break

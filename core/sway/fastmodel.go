@@ -56,7 +56,8 @@ func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3
 // kin is the suspension point's and the rope's motion at one instant.
 type kin struct {
 	px, py, vx, vy, ax, ay float64 // suspension point (it moves horizontally)
-	l, dl, ddl             float64 // rope length and its derivatives
+	jx, jy                 float64 // its jerk
+	l, dl, ddl, dddl       float64 // rope length and its derivatives
 }
 
 // segment selects the spans of the segment [a, b] between restarts: every
@@ -77,8 +78,9 @@ func (m *fastModel) segment(a, b float64) {
 func (m *fastModel) kinAt(t float64) (k kin) {
 	k.px, k.vx, k.ax = m.sx.at(t)
 	k.py, k.vy, k.ay = m.sy.at(t)
+	k.jx, k.jy = m.sx.j, m.sy.j
 	h, dh, ddh := m.sh.at(t)
-	k.l, k.dl, k.ddl = m.l0-h, -dh, -ddh
+	k.l, k.dl, k.ddl, k.dddl = m.l0-h, -dh, -ddh, -m.sh.j
 	if m.slewing {
 		p, w, al := m.ss.at(t)
 		q, rd, rdd := m.sr.at(t)
@@ -92,8 +94,38 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 		k.vy += vr*s + vt*c
 		k.ax += ar*c - at*s
 		k.ay += ar*s + at*c
+		// The jerk: the rates of ar and at, and the turning of the arm.
+		dar := m.sr.j - rd*w*w - 2*r*w*al
+		dat := r*m.ss.j + 3*rd*al + 2*rdd*w
+		jr, jt := dar-at*w, dat+ar*w
+		k.jx += jr*c - jt*s
+		k.jy += jr*s + jt*c
 	}
 	return k
+}
+
+// relDot is the time derivative of rel at state y with rate yd = dy/dt:
+// the suspension point's jerk with its sign changed, and the rate of the
+// drag (wind is steady inside a segment): d(-c|v|v)/dt = -c (|v| a +
+// (v·a/|v|) v), a the load's acceleration S” + L” n + 2 L' u + L u'.
+func (m *fastModel) relDot(k *kin, y, yd *[6]float64) (dx, dy, dz float64) {
+	dx, dy = -k.jx, -k.jy
+	if m.dragK > 0 {
+		vx := k.vx + (k.dl*y[0] + k.l*y[3])
+		vy := k.vy + (k.dl*y[1] + k.l*y[4])
+		vz := k.dl*y[2] + k.l*y[5]
+		ax := k.ax + k.ddl*y[0] + 2*k.dl*y[3] + k.l*yd[3]
+		ay := k.ay + k.ddl*y[1] + 2*k.dl*y[4] + k.l*yd[4]
+		az := k.ddl*y[2] + 2*k.dl*y[5] + k.l*yd[5]
+		v := math.Sqrt(vx*vx + vy*vy + vz*vz)
+		if v > 0 {
+			c, va := m.dragK/m.mass, (vx*ax+vy*ay+vz*az)/v
+			dx -= c * (v*ax + va*vx)
+			dy -= c * (v*ay + va*vy)
+			dz -= c * (v*az + va*vz)
+		}
+	}
+	return dx, dy, dz
 }
 
 // rel is the applied acceleration seen from the suspension point, a - S”,
