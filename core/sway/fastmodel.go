@@ -18,7 +18,9 @@ type fastModel struct {
 	x, y, slew, radius, hoist axisTable
 	slewing                   bool    // the suspension point is on a slewing arm
 	hoisting                  bool    // the rope length changes
+	travel                    bool    // travel moves only: none of the three above nor force
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
+	il                        float64 // 1/l0
 	mass, g                   float64
 	force                     bool    // wind or drag act on the load
 	windOn, windOff           float64 // the wind blows for windOn <= t < windOff
@@ -37,7 +39,7 @@ type fastModel struct {
 // at the start, the wind's time span and force, the drag factor, and
 // whether wind or drag act at all.
 func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
-	m := &fastModel{r0: r0, phi0: phi0, l0: l0, mass: mass, g: units.StandardGravity, force: force,
+	m := &fastModel{r0: r0, phi0: phi0, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, force: force,
 		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
 		slewing: len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0, hoisting: len(ax.hoist) > 0}
 	for _, a := range []struct {
@@ -50,6 +52,7 @@ func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3
 		}
 		*a.tab = flatten(comps)
 	}
+	m.travel = !(m.slewing || m.force || m.hoisting)
 	return m
 }
 
@@ -171,7 +174,7 @@ func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl floa
 
 // simple reports whether the model has travel moves only: no slewing, no
 // hoisting, no wind or drag (relAt's shortest case).
-func (m *fastModel) simple() bool { return !(m.slewing || m.force || m.hoisting) }
+func (m *fastModel) simple() bool { return m.travel }
 
 // travelRel is -S” of a suspension point on travel moves alone.
 func (m *fastModel) travelRel(t float64) (rx, ry float64) {
@@ -181,13 +184,19 @@ func (m *fastModel) travelRel(t float64) (rx, ry float64) {
 // rhs is the right-hand side y' = f(t, y): n' = u and
 // n” = [(I - n nᵀ)(a - S”) - 2 L' u]/L - |u|² n.
 func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
-	var rx, ry, rz, l, dl float64
-	if m.simple() { // relAt's shortest case, inlined
-		rx, ry = m.travelRel(t)
-		rz, l = -m.g, m.l0
-	} else {
-		rx, ry, rz, l, dl, _ = m.relAt(t, y)
+	if m.travel {
+		// relAt's shortest case written out: L' = 0 drops the terms in
+		// u (adding -0 changes no value) and 1/L is computed once.
+		rx, ry := m.travelRel(t)
+		rz, il := -m.g, m.il
+		cn := -(rx*y[0]+ry*y[1]+rz*y[2])*il - (y[3]*y[3] + y[4]*y[4] + y[5]*y[5])
+		dy[0], dy[1], dy[2] = y[3], y[4], y[5]
+		dy[3] = rx*il + cn*y[0]
+		dy[4] = ry*il + cn*y[1]
+		dy[5] = rz*il + cn*y[2]
+		return
 	}
+	rx, ry, rz, l, dl, _ := m.relAt(t, y)
 	radial := rx*y[0] + ry*y[1] + rz*y[2]
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
 	il := 1 / l

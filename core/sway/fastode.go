@@ -23,6 +23,9 @@ type fastSolver struct {
 	k          [7][6]float64
 	tmp        [6]float64
 	cont       [5][6]float64
+	d1k1       [6]float64 // fd1*k1 of the last step
+	hLast      float64    // its step size
+	contDone   bool       // cont[4] is computed
 	facOld     float64
 	facOldPow  float64 // facOld^beta
 	started    bool
@@ -205,8 +208,9 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 				v.cont[1][i] = ydiff
 				v.cont[2][i] = bspl
 				v.cont[3][i] = ydiff - h*k7[i] - bspl
-				v.cont[4][i] = h * (fd1*k1[i] + fd3*k3[i] + fd4*k4[i] + fd5*k5[i] + fd6*k6[i] + fd7*k7[i])
+				v.d1k1[i] = fd1 * k1[i] // the rest of cont[4] when it is needed
 			}
+			v.contDone, v.hLast = false, h
 			*k1 = *k7 // first same as last
 			*y = *ynew
 			v.told, v.t = t, tn
@@ -221,6 +225,19 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 	}
 }
 
+// contTail computes the last dense output coefficients of the step
+// (cont[4], in the order of ode.Solver's), only when the dense output is
+// used: most steps of a run without histories never are. k3 to k7 hold
+// the last step's stages until the next step.
+func (v *fastSolver) contTail() {
+	h := v.hLast
+	k := &v.k
+	for i := range 6 {
+		v.cont[4][i] = h * (v.d1k1[i] + fd3*k[2][i] + fd4*k[3][i] + fd5*k[4][i] + fd6*k[5][i] + fd7*k[6][i])
+	}
+	v.contDone = true
+}
+
 // dense writes the continuous extension of the last step at t into out.
 func (v *fastSolver) dense(t float64, out *[6]float64) {
 	h := v.t - v.told
@@ -229,6 +246,9 @@ func (v *fastSolver) dense(t float64, out *[6]float64) {
 		s = (t - v.told) / h
 	}
 	s1 := 1 - s
+	if !v.contDone {
+		v.contTail()
+	}
 	c := &v.cont
 	for i := range 6 {
 		out[i] = c[0][i] + s*(c[1][i]+s1*(c[2][i]+s*(c[3][i]+s1*c[4][i])))
@@ -247,6 +267,9 @@ func (v *fastSolver) denseRate(t float64, out *[6]float64) {
 	}
 	s := (t - v.told) / h
 	s1 := 1 - s
+	if !v.contDone {
+		v.contTail()
+	}
 	c := &v.cont
 	ih := 1 / h
 	for i := range 6 {

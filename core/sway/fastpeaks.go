@@ -76,11 +76,15 @@ func (s *fastScan) measureDense(t float64, out *measure) {
 
 // offer gives a value of q at t to its trackers.
 func (s *fastScan) offer(q quantity, v, t float64, residual bool) {
-	s.ext[q].offer(v, t)
-	if residual {
-		if r := s.residualOf(q); r != nil {
-			r.offer(v, t)
+	if e := &s.ext[q]; v > e.max || !e.set {
+		e.max, e.at, e.set = v, t, true
+	}
+	if residual && q <= qExcursion {
+		r := &s.resSwing
+		if q == qExcursion {
+			r = &s.resExcursion
 		}
+		r.offer(v, t)
 	}
 }
 
