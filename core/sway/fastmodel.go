@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/motion"
+	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
 )
 
@@ -216,12 +217,4 @@ func (m *fastModel) tension(rx, ry, rz, l, ddl float64, y *[6]float64) float64 {
 }
 
 // project puts y back onto |n| = 1, n·u = 0 (pendulum.Project).
-func project(y *[6]float64) float64 {
-	norm := math.Sqrt(y[0]*y[0] + y[1]*y[1] + y[2]*y[2])
-	y[0], y[1], y[2] = y[0]/norm, y[1]/norm, y[2]/norm
-	d := y[0]*y[3] + y[1]*y[4] + y[2]*y[5]
-	y[3] -= d * y[0]
-	y[4] -= d * y[1]
-	y[5] -= d * y[2]
-	return math.Abs(norm - 1)
-}
+func project(y *[6]float64) float64 { return pendulum.Project(y[:]) }

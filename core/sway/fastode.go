@@ -23,7 +23,7 @@ type fastSolver struct {
 	k          [7][6]float64
 	tmp        [6]float64
 	cont       [5][6]float64
-	d1k1       [6]float64 // fd1*k1 of the last step
+	d1k1       [6]float64 // ode.D1*k1 of the last step
 	hLast      float64    // its step size
 	contDone   bool       // cont[4] is computed
 	facOld     float64
@@ -97,20 +97,6 @@ func (v *fastSolver) initialStep(tEnd float64) float64 {
 	return math.Min(100*h0, h1)
 }
 
-// Dormand-Prince coefficients, as in core/ode.
-const (
-	fc2, fc3, fc4, fc5 = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
-
-	fa21                         = 1.0 / 5
-	fa31, fa32                   = 3.0 / 40, 9.0 / 40
-	fa41, fa42, fa43             = 44.0 / 45, -56.0 / 15, 32.0 / 9
-	fa51, fa52, fa53, fa54       = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
-	fa61, fa62, fa63, fa64, fa65 = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
-	fa71, fa73, fa74, fa75, fa76 = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
-	fe1, fe3, fe4, fe5, fe6, fe7 = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
-	fd1, fd3, fd4, fd5, fd6, fd7 = -12715105075.0 / 11282082432, 87487479700.0 / 32700410799, -10690763975.0 / 1880347072, 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
-)
-
 // stepBeta is the Lund stabilisation exponent of ode.Solver.Step.
 const stepBeta = 0.04
 
@@ -146,23 +132,23 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		}
 		t := v.t
 		for i := range 6 {
-			tmp[i] = y[i] + h*fa21*k1[i]
+			tmp[i] = y[i] + h*ode.A21*k1[i]
 		}
-		v.eval(t+fc2*h, tmp, k2)
+		v.eval(t+ode.C2*h, tmp, k2)
 		for i := range 6 {
-			tmp[i] = y[i] + h*(fa31*k1[i]+fa32*k2[i])
+			tmp[i] = y[i] + h*(ode.A31*k1[i]+ode.A32*k2[i])
 		}
-		v.eval(t+fc3*h, tmp, k3)
+		v.eval(t+ode.C3*h, tmp, k3)
 		for i := range 6 {
-			tmp[i] = y[i] + h*(fa41*k1[i]+fa42*k2[i]+fa43*k3[i])
+			tmp[i] = y[i] + h*(ode.A41*k1[i]+ode.A42*k2[i]+ode.A43*k3[i])
 		}
-		v.eval(t+fc4*h, tmp, k4)
+		v.eval(t+ode.C4*h, tmp, k4)
 		for i := range 6 {
-			tmp[i] = y[i] + h*(fa51*k1[i]+fa52*k2[i]+fa53*k3[i]+fa54*k4[i])
+			tmp[i] = y[i] + h*(ode.A51*k1[i]+ode.A52*k2[i]+ode.A53*k3[i]+ode.A54*k4[i])
 		}
-		v.eval(t+fc5*h, tmp, k5)
+		v.eval(t+ode.C5*h, tmp, k5)
 		for i := range 6 {
-			tmp[i] = y[i] + h*(fa61*k1[i]+fa62*k2[i]+fa63*k3[i]+fa64*k4[i]+fa65*k5[i])
+			tmp[i] = y[i] + h*(ode.A61*k1[i]+ode.A62*k2[i]+ode.A63*k3[i]+ode.A64*k4[i]+ode.A65*k5[i])
 		}
 		tn := t + h
 		if last {
@@ -170,11 +156,11 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		}
 		v.eval(tn, tmp, k6)
 		for i := range 6 {
-			ynew[i] = y[i] + h*(fa71*k1[i]+fa73*k3[i]+fa74*k4[i]+fa75*k5[i]+fa76*k6[i])
+			ynew[i] = y[i] + h*(ode.A71*k1[i]+ode.A73*k3[i]+ode.A74*k4[i]+ode.A75*k5[i]+ode.A76*k6[i])
 		}
 		v.eval(tn, ynew, k7)
 		for i := range 6 {
-			tmp[i] = h * (fe1*k1[i] + fe3*k3[i] + fe4*k4[i] + fe5*k5[i] + fe6*k6[i] + fe7*k7[i])
+			tmp[i] = h * (ode.E1*k1[i] + ode.E3*k3[i] + ode.E4*k4[i] + ode.E5*k5[i] + ode.E6*k6[i] + ode.E7*k7[i])
 		}
 		errv := v.errNorm(y, ynew, tmp)
 		if math.IsNaN(errv) || math.IsInf(errv, 0) {
@@ -208,7 +194,7 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 				v.cont[1][i] = ydiff
 				v.cont[2][i] = bspl
 				v.cont[3][i] = ydiff - h*k7[i] - bspl
-				v.d1k1[i] = fd1 * k1[i] // the rest of cont[4] when it is needed
+				v.d1k1[i] = ode.D1 * k1[i] // the rest of cont[4] when it is needed
 			}
 			v.contDone, v.hLast = false, h
 			*k1 = *k7 // first same as last
@@ -233,7 +219,7 @@ func (v *fastSolver) contTail() {
 	h := v.hLast
 	k := &v.k
 	for i := range 6 {
-		v.cont[4][i] = h * (v.d1k1[i] + fd3*k[2][i] + fd4*k[3][i] + fd5*k[4][i] + fd6*k[5][i] + fd7*k[6][i])
+		v.cont[4][i] = h * (v.d1k1[i] + ode.D3*k[2][i] + ode.D4*k[3][i] + ode.D5*k[4][i] + ode.D6*k[5][i] + ode.D7*k[6][i])
 	}
 	v.contDone = true
 }

@@ -9,7 +9,6 @@ import (
 	"time"
 
 	"swaysheet/core/draws"
-	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
 
@@ -18,13 +17,9 @@ import (
 // the load of a shared machine falls on both alike, and reports their
 // ratio against the target of at most 2x.
 func floorRows(file string, repeat int, group string) ([]Row, error) {
-	data, err := os.ReadFile(file)
+	s, err := readScenario(file)
 	if err != nil {
 		return nil, err
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		return nil, fmt.Errorf("%s: %w", file, err)
 	}
 	f, ok := newFloorRun(s)
 	if !ok {
@@ -71,13 +66,9 @@ func floorRows(file string, repeat int, group string) ([]Row, error) {
 // second natively. The load of a shared machine shows in the processor
 // time next to the wall time.
 func drawsRows(file string, group string) ([]Row, error) {
-	data, err := os.ReadFile(file)
+	s, err := readScenario(file)
 	if err != nil {
 		return nil, err
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		return nil, fmt.Errorf("%s: %w", file, err)
 	}
 	req := draws.Request{Runs: 1000, Seed: 1, Spread: draws.Spread{RopeLengthM: 0.3, CentreDepthM: 0.1, PressS: 0.2, GustPct: 20, GustS: 1}}
 	base := strings.TrimSuffix(filepath.Base(file), ".json")

@@ -96,13 +96,9 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 	sort.Strings(files)
 	var scs []*scenario.Scenario
 	for _, name := range files {
-		data, err := os.ReadFile(name)
+		s, err := readScenario(name)
 		if err != nil {
 			return nil, err
-		}
-		s, err := scenario.Parse(data)
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
 		}
 		scs = append(scs, s)
 	}
@@ -151,6 +147,19 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 			Note: fmt.Sprintf("%d options verified at %d rope lengths; median of %d", len(pr.Options), len(pr.RopeLengthsM), n)})
 	}
 	return rows, nil
+}
+
+// readScenario reads and parses a scenario file.
+func readScenario(name string) (*scenario.Scenario, error) {
+	data, err := os.ReadFile(name)
+	if err != nil {
+		return nil, err
+	}
+	s, err := scenario.Parse(data)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", name, err)
+	}
+	return s, nil
 }
 
 // timeIt returns the median wall time of repeat evaluations, microseconds.
