@@ -5,7 +5,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"swaysheet/core/motion"
+	"swaysheet/core/crane"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
 )
@@ -35,23 +35,32 @@ type fastModel struct {
 }
 
 // newFastModel builds the specialised model from the summed profiles of
-// each axis, or returns nil when a profile is of a kind it does not know.
-// The arguments are build's: rope length l0, radius r0 and slew angle phi0
-// at the start, the wind's time span and force, the drag factor, and
-// whether wind or drag act at all.
-func newFastModel(ax *axes, l0, r0, phi0, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
-	m := &fastModel{r0: r0, phi0: phi0, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, force: force,
+// each role, or returns nil when a profile is of a kind it does not know
+// or a role moves whose geometry it does not have (a crane type added to
+// core/crane after this was written takes the general path). The
+// arguments are build's: rope length l0, the crane's start, the wind's
+// time span and force, the drag factor, and whether wind or drag act at
+// all. The slewing arm's geometry is crane.Drives.Suspension's.
+func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
+	r0 := at.RadiusM
+	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, force: force,
 		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
-		slewing: len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0, hoisting: len(ax.hoist) > 0}
-	for _, a := range []struct {
-		sum motion.Sum
-		tab *axisTable
-	}{{ax.x, &m.x}, {ax.y, &m.y}, {ax.slew, &m.slew}, {ax.radius, &m.radius}, {ax.hoist, &m.hoist}} {
-		comps, ok := flatPieces(a.sum, 0, 1, nil)
+		slewing: len(ax[crane.Turn]) > 0 || len(ax[crane.Reach]) > 0 || r0 != 0, hoisting: len(ax[crane.Rope]) > 0}
+	tabs := map[crane.Role]*axisTable{crane.AlongX: &m.x, crane.AlongY: &m.y, crane.Turn: &m.slew,
+		crane.Reach: &m.radius, crane.Rope: &m.hoist}
+	for role, sum := range ax {
+		tab, known := tabs[crane.Role(role)]
+		if !known {
+			if len(sum) > 0 {
+				return nil
+			}
+			continue
+		}
+		comps, ok := flatPieces(sum, 0, 1, nil)
 		if !ok {
 			return nil
 		}
-		*a.tab = flatten(comps)
+		*tab = flatten(comps)
 	}
 	m.travel = !(m.slewing || m.force || m.hoisting)
 	return m
@@ -111,7 +120,7 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 // relDot is the time derivative of rel at state y with rate yd = dy/dt:
 // the suspension point's jerk with its sign changed, and the rate of the
 // drag (wind is steady inside a segment): d(-c|v|v)/dt = -c (|v| a +
-// (v·a/|v|) v), a the load's acceleration S” + L” n + 2 L' u + L u'.
+// (v·a/|v|) v), a the load's acceleration S¨ + L¨ n + 2 L' u + L u'.
 func (m *fastModel) relDot(k *kin, y, yd *[6]float64) (dx, dy, dz float64) {
 	dx, dy = -k.jx, -k.jy
 	if m.dragK > 0 {
@@ -132,7 +141,7 @@ func (m *fastModel) relDot(k *kin, y, yd *[6]float64) (dx, dy, dz float64) {
 	return dx, dy, dz
 }
 
-// rel is the applied acceleration seen from the suspension point, a - S”,
+// rel is the applied acceleration seen from the suspension point, a - S¨,
 // with wind and drag (as pendulum.Model.eval forms it).
 func (m *fastModel) rel(k *kin, y *[6]float64) (rx, ry, rz float64) {
 	rx, ry, rz = -k.ax, -k.ay, -m.g
@@ -155,7 +164,7 @@ func (m *fastModel) rel(k *kin, y *[6]float64) (rx, ry, rz float64) {
 }
 
 // relAt is the applied acceleration seen from the suspension point,
-// a - S”, and the rope length with its first two rates, at t and y. On
+// a - S¨, and the rope length with its first two rates, at t and y. On
 // travel and hoist moves without wind or drag it reads the suspension
 // point's acceleration alone.
 func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl float64) {
@@ -177,13 +186,13 @@ func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl floa
 // hoisting, no wind or drag (relAt's shortest case).
 func (m *fastModel) simple() bool { return m.travel }
 
-// travelRel is -S” of a suspension point on travel moves alone.
+// travelRel is -S¨ of a suspension point on travel moves alone.
 func (m *fastModel) travelRel(t float64) (rx, ry float64) {
 	return -(m.sx.a + (t-m.sx.origin)*m.sx.j), -(m.sy.a + (t-m.sy.origin)*m.sy.j)
 }
 
 // rhs is the right-hand side y' = f(t, y): n' = u and
-// n” = [(I - n nᵀ)(a - S”) - 2 L' u]/L - |u|² n.
+// n¨ = [(I - n nᵀ)(a - S¨) - 2 L' u]/L - |u|² n.
 func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 	if m.travel {
 		// relAt's shortest case written out: L' = 0 drops the terms in
@@ -209,7 +218,7 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 	dy[5] = rz*il + cn*y[2] + cu*y[5]
 }
 
-// tension is the rope tension T = m [(a - S”)·n - L” + L |u|²] from the
+// tension is the rope tension T = m [(a - S¨)·n - L¨ + L |u|²] from the
 // values relAt gives.
 func (m *fastModel) tension(rx, ry, rz, l, ddl float64, y *[6]float64) float64 {
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]

@@ -27,13 +27,13 @@ type measure struct {
 }
 
 // measureAt fills m from time t, the projected state y and its rate yd
-// (yd[3:6] is u' = n”). For a unit n with n·u = 0:
+// (yd[3:6] is u' = n¨). For a unit n with n·u = 0:
 //
 //	d(1 - cos theta)/dt = u_z
 //	d(L² (n_x² + n_y²))/dt = 2 L L' (n_x² + n_y²) + 2 L² (n_x u_x + n_y u_y)
-//	dT/dt = m [rel'·n + rel·u - L''' + L' |u|² + 2 L u·u']
+//	dT/dt = m [rel'·n + rel·u - L⃛ + L' |u|² + 2 L u·u']
 //
-// with rel = a - S” and T = m [rel·n - L” + L |u|²].
+// with rel = a - S¨ and T = m [rel·n - L¨ + L |u|²].
 func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 	md := s.m
 	var rx, ry, rz, l, dl, ddl, dddl, jx, jy, jz float64
