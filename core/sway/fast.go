@@ -161,25 +161,6 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	return nil
 }
 
-// settled reports whether no quantity can beat its best so far in the
-// step starting at t0 (observeStep's early rejection for all of them at
-// once: observeStep would change nothing).
-func (s *fastScan) settled(t0 float64, vs *[nQuantities][interior + 2]float64) bool {
-	residual := t0 >= s.motionEnd-1e-12
-	for q := range qRigAngle {
-		b := reach(&vs[q])
-		if !(s.ext[q].set && b < s.ext[q].max) {
-			return false
-		}
-		if residual {
-			if r := s.residualOf(q); r != nil && !(r.set && b < r.max) {
-				return false
-			}
-		}
-	}
-	return true
-}
-
 // emit records the history samples that fall in (t0, t1].
 func (s *fastScan) emit(t0, t1 float64) {
 	for s.hist != nil && s.next < s.samples {

@@ -49,20 +49,15 @@ func (v *fastSolver) reset(t float64, y *[6]float64) {
 }
 
 func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
+	// math.Abs is an instruction (also in wasm); written so, the function
+	// is small enough for the compiler to write it into the stepper.
 	var sum float64
 	for i := range 6 {
-		a, b := y0[i], y1[i]
-		if a < 0 {
-			a = -a
-		}
-		if b < 0 {
-			b = -b
-		}
+		a, b := math.Abs(y0[i]), math.Abs(y1[i])
 		if b > a {
 			a = b
 		}
-		sk := v.absTol + v.relTol*a
-		r := e[i] / sk
+		r := e[i] / (v.absTol + v.relTol*a)
 		sum += r * r
 	}
 	return math.Sqrt(sum / 6)

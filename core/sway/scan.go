@@ -52,6 +52,17 @@ func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, maxSteps: maxSteps, y: make([]float64, m.Len())}
 }
 
+// peaks tracks the largest value of every watched quantity over a run,
+// and after the last motion that of the swing and the excursion (the
+// general and the specialised path's scans share it).
+type peaks struct {
+	motionEnd    float64
+	nq           quantity // quantities watched: all of them with rigging
+	ext          [nQuantities]extremum
+	resSwing     extremum // swing after the last motion
+	resExcursion extremum
+}
+
 // quantity is one scalar watched along the run.
 type quantity int
 
@@ -198,6 +209,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				return err
 			}
 			t0, t1 := s.solver.LastStep()
+			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any
 			// interior maximum that beats the best so far.
 			if carry {
@@ -217,7 +229,59 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 					vs[q][j] = s.value(q, p)
 				}
 			}
-			s.observeStep(s, t0, t1, &ts, &vs)
+			for q := range s.nq {
+				e := &s.ext[q]
+				var r *extremum
+				if residual {
+					r = s.residualOf(q)
+				}
+				if e.set && (r == nil || r.set) {
+					if b := reach(&vs[q]); b < e.max && (r == nil || b < r.max) {
+						continue // no sample nor peak in this step can beat the best so far
+					}
+				}
+				for j := 0; j < interior+2; j++ {
+					v := vs[q][j]
+					// Refine a sample that may be the top of a peak and may
+					// beat the best so far once refined (the top lies above
+					// the samples by at most an eighth of their second
+					// difference; a full one is allowed). Inside the step
+					// that is a sample at least as large as both its
+					// neighbours. At the first or last sample the peak may
+					// lie just inside the step or just outside it: look
+					// which way the quantity moves at the step's end.
+					lo, hi := max(j-1, 0), min(j+1, interior+1)
+					localMax := v >= vs[q][lo] && v >= vs[q][hi]
+					if localMax {
+						k := min(max(j, 1), interior)
+						slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
+						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
+					}
+					if localMax && (j == 0 || j == interior+1) {
+						eps := 1e-6 * (t1 - t0)
+						if j == 0 {
+							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
+						} else {
+							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
+						}
+					}
+					if localMax {
+						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
+						if vm > v {
+							v, tt := vm, tm
+							e.offer(v, tt)
+							if r != nil {
+								r.offer(v, tt)
+							}
+							continue
+						}
+					}
+					e.offer(v, ts[j])
+					if r != nil {
+						r.offer(v, ts[j])
+					}
+				}
+			}
 			s.emitSamples(t0, t1)
 			carry = true
 			// Back onto the constraint for the next step. The slope at the
@@ -252,14 +316,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 // bracket is a small part of a step, where the quantity is smooth). When m
 // is at an end of the bracket, its midpoint is looked at first.
 func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
-	return parabolicMax(s, q, a, fa, m, fm, b, fb)
-}
-
-// parabolicMax is scanner.refine on the values pr.probe gives.
-func parabolicMax(pr stepProbe, q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
 	if m <= a || m >= b {
 		m = 0.5 * (a + b)
-		fm = pr.probe(q, m)
+		fm = s.value(q, s.at(m))
 	}
 	for range 30 {
 		if fm < fa || fm < fb {
@@ -274,7 +333,7 @@ func parabolicMax(pr stepProbe, q quantity, a, fa, m, fm, b, fb float64) (float6
 				break
 			}
 			m = 0.5 * (a + b)
-			fm = pr.probe(q, m)
+			fm = s.value(q, s.at(m))
 			continue
 		}
 		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
@@ -286,7 +345,7 @@ func parabolicMax(pr stepProbe, q quantity, a, fa, m, fm, b, fb float64) (float6
 		if !(x > a && x < b) {
 			break
 		}
-		fx := pr.probe(q, x)
+		fx := s.value(q, s.at(x))
 		if math.Abs(x-m) <= 1e-7*(b-a) {
 			if fx > fm {
 				m, fm = x, fx
@@ -312,128 +371,6 @@ func parabolicMax(pr stepProbe, q quantity, a, fa, m, fm, b, fb float64) (float6
 	}
 	return m, fm
 }
-
-// peaks tracks the largest value of every watched quantity over a run,
-// and after the last motion that of the swing and the excursion.
-type peaks struct {
-	motionEnd    float64
-	nq           quantity // quantities watched: all of them with rigging
-	ext          [nQuantities]extremum
-	resSwing     extremum // swing after the last motion
-	resExcursion extremum
-}
-
-// stepProbe evaluates the watched quantities inside the last step, for
-// peaks.observeStep: probe is quantity q at time t, refine locates the
-// top of a peak of q bracketed by a <= m <= b (values fa, fm, fb).
-type stepProbe interface {
-	probe(q quantity, t float64) float64
-	refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64)
-}
-
-// observeStep offers the values vs of each quantity at the times ts of
-// the step [t0, t1] (evenly spaced, both ends included), refining any
-// that may be the top of a peak beating the best so far.
-func (s *peaks) observeStep(pr stepProbe, t0, t1 float64, ts *[interior + 2]float64, vs *[nQuantities][interior + 2]float64) {
-	residual := t0 >= s.motionEnd-1e-12
-	for q := range s.nq {
-		e := &s.ext[q]
-		var r *extremum
-		if residual {
-			r = s.residualOf(q)
-		}
-		if e.set && (r == nil || r.set) {
-			if b := reach(&vs[q]); b < e.max && (r == nil || b < r.max) {
-				continue // no sample nor peak in this step can beat the best so far
-			}
-		}
-		for j := 0; j < interior+2; j++ {
-			v := vs[q][j]
-			// Refine a sample that may be the top of a peak and may
-			// beat the best so far once refined (the top lies above
-			// the samples by at most an eighth of their second
-			// difference; a full one is allowed). Inside the step
-			// that is a sample at least as large as both its
-			// neighbours. At the first or last sample the peak may
-			// lie just inside the step or just outside it: look
-			// which way the quantity moves at the step's end.
-			lo, hi := max(j-1, 0), min(j+1, interior+1)
-			localMax := v >= vs[q][lo] && v >= vs[q][hi]
-			if localMax {
-				k := min(max(j, 1), interior)
-				slack := math.Abs(vs[q][k-1]-2*vs[q][k]+vs[q][k+1]) + 1e-12*math.Abs(v)
-				localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
-			}
-			if localMax && (j == 0 || j == interior+1) {
-				eps := 1e-6 * (t1 - t0)
-				if j == 0 {
-					localMax = pr.probe(q, t0+eps) > v // rising out of the start
-				} else {
-					localMax = pr.probe(q, t1-eps) > v // falling into the end
-				}
-			}
-			if localMax {
-				tm, vm := pr.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
-				if vm > v {
-					v, tt := vm, tm
-					e.offer(v, tt)
-					if r != nil {
-						r.offer(v, tt)
-					}
-					continue
-				}
-			}
-			e.offer(v, ts[j])
-			if r != nil {
-				r.offer(v, ts[j])
-			}
-		}
-	}
-}
-
-// reach bounds from above every sample of a step plus the slack that
-// observeStep allows a peak between samples (a second difference and
-// 1e-12 of the value): when it stays below the best so far, the step
-// changes nothing for that quantity. Written out for interior = 2.
-func reach(v *[interior + 2]float64) float64 {
-	// Plain comparisons: math.Max, math.Min and the built-in max handle NaN
-	// and signed zeros at a cost; a NaN sample is never a new best anyway.
-	a, b, c, d := v[0], v[1], v[2], v[3]
-	top, size := a, abs(a)
-	if b > top {
-		top = b
-	}
-	if c > top {
-		top = c
-	}
-	if d > top {
-		top = d
-	}
-	if x := abs(b); x > size {
-		size = x
-	}
-	if x := abs(c); x > size {
-		size = x
-	}
-	if x := abs(d); x > size {
-		size = x
-	}
-	slack, x := abs(a-2*b+c), abs(b-2*c+d)
-	if x > slack {
-		slack = x
-	}
-	return top + slack + 1e-12*size
-}
-
-func abs(x float64) float64 {
-	if x < 0 {
-		return -x
-	}
-	return x
-}
-
-// probe implements stepProbe.
-func (s *scanner) probe(q quantity, t float64) float64 { return s.value(q, s.at(t)) }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
 	for q := range s.nq {
@@ -499,4 +436,38 @@ func (s *recorder) record(p *pendulum.Point) {
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
 	s.next++
+}
+
+// reach bounds from above every sample of a step plus the slack that run
+// allows a peak between samples (a second difference and 1e-12 of the
+// value): when it stays below the best so far, the step changes nothing
+// for that quantity. Written out for interior = 2.
+func reach(v *[interior + 2]float64) float64 {
+	// Plain comparisons: math.Max, math.Min and the built-in max handle NaN
+	// and signed zeros at a cost; a NaN sample is never a new best anyway.
+	a, b, c, d := v[0], v[1], v[2], v[3]
+	top, size := a, math.Abs(a)
+	if b > top {
+		top = b
+	}
+	if c > top {
+		top = c
+	}
+	if d > top {
+		top = d
+	}
+	if x := math.Abs(b); x > size {
+		size = x
+	}
+	if x := math.Abs(c); x > size {
+		size = x
+	}
+	if x := math.Abs(d); x > size {
+		size = x
+	}
+	slack, x := math.Abs(a-2*b+c), math.Abs(b-2*c+d)
+	if x > slack {
+		slack = x
+	}
+	return top + slack + 1e-12*size
 }
