@@ -145,7 +145,9 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 				s.offer(q, b.v[q], t1, residual)
 			}
 			s.stepPeaks(t0, t1, &a, &b, residual)
-			s.emit(t0, t1)
+			if s.hist != nil {
+				s.emit(t0, t1)
+			}
 			a = b
 			carry = true
 			if done {

@@ -46,11 +46,20 @@ func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass, windOn, wi
 	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, force: force,
 		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
 		slewing: len(ax[crane.Turn]) > 0 || len(ax[crane.Reach]) > 0 || r0 != 0, hoisting: len(ax[crane.Rope]) > 0}
-	tabs := map[crane.Role]*axisTable{crane.AlongX: &m.x, crane.AlongY: &m.y, crane.Turn: &m.slew,
-		crane.Reach: &m.radius, crane.Rope: &m.hoist}
 	for role, sum := range ax {
-		tab, known := tabs[crane.Role(role)]
-		if !known {
+		var tab *axisTable
+		switch crane.Role(role) {
+		case crane.AlongX:
+			tab = &m.x
+		case crane.AlongY:
+			tab = &m.y
+		case crane.Turn:
+			tab = &m.slew
+		case crane.Reach:
+			tab = &m.radius
+		case crane.Rope:
+			tab = &m.hoist
+		default:
 			if len(sum) > 0 {
 				return nil
 			}

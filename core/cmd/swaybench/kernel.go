@@ -26,7 +26,9 @@ func floorRows(file string, repeat int, group string) ([]Row, error) {
 		return nil, fmt.Errorf("%s: the floor kernel takes travel moves with trapezoids only", file)
 	}
 	var steps int
-	opts := []sway.Options{{NoHistory: true}, {NoHistory: true, General: true}}
+	// As the page's bridge evaluates a scenario it has parsed (and so
+	// validated): figures only, not validated again.
+	opts := []sway.Options{{NoHistory: true, Validated: true}, {NoHistory: true, Validated: true, General: true}}
 	var tf []float64
 	tc := make([][]float64, len(opts))
 	for i := range repeat + 10 {
