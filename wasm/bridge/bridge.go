@@ -37,7 +37,6 @@ var Calls = map[string]Func{
 	"examples": examples,
 	"version":  versionCall,
 	"plan":     makePlan,
-	"draws":    runDraws,
 }
 
 // Error is the reply's error object.

@@ -1,3 +1,5 @@
+//go:build !nofetch
+
 package bridge
 
 import (
@@ -7,6 +9,11 @@ import (
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 )
+
+// The draws call is in the page's build only: no page uses it yet, and the
+// single file (-tags nofetch) is at its size budget (about 11 KB gzipped
+// for this call and math/rand/v2).
+func init() { Calls["draws"] = runDraws }
 
 // drawsInput is the input of the draws call: a scenario and the draws to
 // run on it. First and Count in the request select a share of the runs,
