@@ -3,8 +3,6 @@ package sway
 import (
 	"math"
 
-	"gonum.org/v1/gonum/spatial/r3"
-
 	"swaysheet/core/crane"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
@@ -12,39 +10,34 @@ import (
 
 // fastModel is the single-rope hook load of pendulum.Model written out as
 // concrete code for the specialised path (fast.go): the same equation of
-// motion, with the suspension point's motion, the rope length, the wind
-// and the drag evaluated from flattened span tables (fastaxis.go) and
+// motion, with the suspension point's motion and the rope length
+// evaluated from flattened span tables (fastaxis.go) and
 // plain fields, without closures or interfaces per evaluation.
 type fastModel struct {
 	x, y, slew, radius, hoist axisTable
 	slewing                   bool    // the suspension point is on a slewing arm
 	hoisting                  bool    // the rope length changes
-	travel                    bool    // travel moves only: none of the three above nor force
+	travel                    bool    // travel moves only: neither of the two above
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
 	il                        float64 // 1/l0
 	mass, g                   float64
-	force                     bool    // wind or drag act on the load
-	windOn, windOff           float64 // the wind blows for windOn <= t < windOff
-	windX, windY              float64 // its force, N
-	dragK                     float64 // N per (m/s)^2
 
 	// The spans of the segment between restarts being integrated (set by
-	// segment); the wind force in it.
+	// segment).
 	sx, sy, ss, sr, sh span
-	fx, fy             float64
 }
 
 // newFastModel builds the specialised model from the summed profiles of
 // each role, or returns nil when a profile is of a kind it does not know
 // or a role moves whose geometry it does not have (a crane type added to
 // core/crane after this was written takes the general path). The
-// arguments are build's: rope length l0, the crane's start, the wind's
-// time span and force, the drag factor, and whether wind or drag act at
-// all. The slewing arm's geometry is crane.Drives.Suspension's.
-func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass, windOn, windOff float64, wind r3.Vec, dragK float64, force bool) *fastModel {
+// arguments are build's: the rope length l0 and the crane's start. The
+// slewing arm's geometry is crane.Drives.Suspension's. Wind and drag
+// (Air) are not modelled here: build gives such scenarios to the general
+// path.
+func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64) *fastModel {
 	r0 := at.RadiusM
-	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, force: force,
-		windOn: windOn, windOff: windOff, windX: wind.X, windY: wind.Y, dragK: dragK,
+	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity,
 		slewing: len(ax[crane.Turn]) > 0 || len(ax[crane.Reach]) > 0 || r0 != 0, hoisting: len(ax[crane.Rope]) > 0}
 	for role, sum := range ax {
 		var tab *axisTable
@@ -71,7 +64,7 @@ func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass, windOn, wi
 		}
 		*tab = flatten(comps)
 	}
-	m.travel = !(m.slewing || m.force || m.hoisting)
+	m.travel = !(m.slewing || m.hoisting)
 	return m
 }
 
@@ -89,10 +82,6 @@ func (m *fastModel) segment(a, b float64) {
 	mid := 0.5 * (a + b)
 	m.sx, m.sy = m.x.spanAt(mid), m.y.spanAt(mid)
 	m.ss, m.sr, m.sh = m.slew.spanAt(mid), m.radius.spanAt(mid), m.hoist.spanAt(mid)
-	m.fx, m.fy = 0, 0
-	if mid >= m.windOn && mid < m.windOff {
-		m.fx, m.fy = m.windX, m.windY
-	}
 }
 
 // kinAt evaluates the suspension point and the rope at t inside the
@@ -126,60 +115,22 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 	return k
 }
 
-// relDot is the time derivative of rel at state y with rate yd = dy/dt:
-// the suspension point's jerk with its sign changed, and the rate of the
-// drag (wind is steady inside a segment): d(-c|v|v)/dt = -c (|v| a +
-// (v·a/|v|) v), a the load's acceleration S¨ + L¨ n + 2 L' u + L u'.
-func (m *fastModel) relDot(k *kin, y, yd *[6]float64) (dx, dy, dz float64) {
-	dx, dy = -k.jx, -k.jy
-	if m.dragK > 0 {
-		vx := k.vx + (k.dl*y[0] + k.l*y[3])
-		vy := k.vy + (k.dl*y[1] + k.l*y[4])
-		vz := k.dl*y[2] + k.l*y[5]
-		ax := k.ax + k.ddl*y[0] + 2*k.dl*y[3] + k.l*yd[3]
-		ay := k.ay + k.ddl*y[1] + 2*k.dl*y[4] + k.l*yd[4]
-		az := k.ddl*y[2] + 2*k.dl*y[5] + k.l*yd[5]
-		v := math.Sqrt(vx*vx + vy*vy + vz*vz)
-		if v > 0 {
-			c, va := m.dragK/m.mass, (vx*ax+vy*ay+vz*az)/v
-			dx -= c * (v*ax + va*vx)
-			dy -= c * (v*ay + va*vy)
-			dz -= c * (v*az + va*vz)
-		}
-	}
-	return dx, dy, dz
-}
+// relDot is the time derivative of rel: the suspension point's jerk with
+// its sign changed (gravity is steady).
+func (m *fastModel) relDot(k *kin) (dx, dy, dz float64) { return -k.jx, -k.jy, 0 }
 
-// rel is the applied acceleration seen from the suspension point, a - S¨,
-// with wind and drag (as pendulum.Model.eval forms it).
-func (m *fastModel) rel(k *kin, y *[6]float64) (rx, ry, rz float64) {
-	rx, ry, rz = -k.ax, -k.ay, -m.g
-	if !m.force {
-		return rx, ry, rz
-	}
-	fx, fy, fz := m.fx, m.fy, 0.0
-	if m.dragK > 0 {
-		// The load's velocity S' + L' n + L u.
-		vx := k.vx + (k.dl*y[0] + k.l*y[3])
-		vy := k.vy + (k.dl*y[1] + k.l*y[4])
-		vz := k.dl*y[2] + k.l*y[5]
-		c := m.dragK * math.Sqrt(vx*vx+vy*vy+vz*vz)
-		fx -= c * vx
-		fy -= c * vy
-		fz -= c * vz
-	}
-	im := 1 / m.mass
-	return rx + im*fx, ry + im*fy, rz + im*fz
-}
+// rel is the applied acceleration seen from the suspension point, a - S¨
+// (as pendulum.Model.eval forms it without a force).
+func (m *fastModel) rel(k *kin) (rx, ry, rz float64) { return -k.ax, -k.ay, -m.g }
 
 // relAt is the applied acceleration seen from the suspension point,
 // a - S¨, and the rope length with its first two rates, at t and y. On
-// travel and hoist moves without wind or drag it reads the suspension
-// point's acceleration alone.
+// travel and hoist moves it reads the suspension point's acceleration
+// alone.
 func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl float64) {
-	if m.slewing || m.force {
+	if m.slewing {
 		k := m.kinAt(t)
-		rx, ry, rz = m.rel(&k, y)
+		rx, ry, rz = m.rel(&k)
 		return rx, ry, rz, k.l, k.dl, k.ddl
 	}
 	l = m.l0
@@ -192,7 +143,7 @@ func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl floa
 }
 
 // simple reports whether the model has travel moves only: no slewing, no
-// hoisting, no wind or drag (relAt's shortest case).
+// hoisting (relAt's shortest case).
 func (m *fastModel) simple() bool { return m.travel }
 
 // travelRel is -S¨ of a suspension point on travel moves alone.
