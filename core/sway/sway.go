@@ -308,6 +308,7 @@ func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) 
 		add("peak_swing_deg", "Peak swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
 		add("peak_excursion_m", "Peak excursion", r.PeakExcursionM, l.PeakExcursionM, "m")
 		add("residual_swing_deg", "Residual swing", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("residual_excursion_m", "Residual excursion", r.ResidualExcursionM, l.ResidualExcursionM, "m")
 		add("tension_factor", "Tension factor", r.TensionFactor, l.TensionFactor, "")
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
 			warn = append(warn, fmt.Sprintf("The wind alone leans the rope %.3g deg, more than the plan's swing limit of %.3g deg: no drive setting can keep the load inside it. Wait for less wind or change the limit.", r.WindLeanDeg, *l.PeakSwingDeg))
