@@ -33,9 +33,11 @@ func fastScenarios(t *testing.T) []string {
 // segment; the step control's powers) and in how a peak is found (from
 // the rate at the ends of each step and the root of the rate, rather than
 // four samples per step and parabolic interpolation, both on the same
-// dense output). The bounds are relative to the figure and four orders of
-// magnitude below the reference tolerances of reference_test.go; the
-// largest differences seen are near 1e-11 (go test -v prints them).
+// dense output). The bounds are relative, 1e-9 of each figure and 1e-8 of
+// the sampled histories, thousands of times below the reference
+// tolerances of reference_test.go; the largest differences seen are
+// 7.5e-11 on the figures and 3.4e-10 on a sampled swing angle (go test -v
+// prints them).
 func TestFastPathAgrees(t *testing.T) {
 	worst := map[string]float64{}
 	for _, acc := range []string{"default", "tight"} {
@@ -88,13 +90,13 @@ func TestFastPathAgrees(t *testing.T) {
 			}
 			for i := range h.TimeS {
 				l := gen.RopeLengthStartM
-				rel("history rel_x_m", h.RelXM[i], g.RelXM[i], l, 1e-9)
-				rel("history rel_y_m", h.RelYM[i], g.RelYM[i], l, 1e-9)
-				rel("history rel_z_m", h.RelZM[i], g.RelZM[i], l, 1e-9)
-				rel("history swing_deg", h.SwingDeg[i], g.SwingDeg[i], swing, 1e-9)
-				rel("history tension_n", h.TensionN[i], g.TensionN[i], gen.StaticTensionN, 1e-9)
-				rel("history suspension_x_m", h.SuspensionXM[i], g.SuspensionXM[i], 1, 1e-9)
-				rel("history suspension_y_m", h.SuspensionYM[i], g.SuspensionYM[i], 1, 1e-9)
+				rel("history rel_x_m", h.RelXM[i], g.RelXM[i], l, 1e-8)
+				rel("history rel_y_m", h.RelYM[i], g.RelYM[i], l, 1e-8)
+				rel("history rel_z_m", h.RelZM[i], g.RelZM[i], l, 1e-8)
+				rel("history swing_deg", h.SwingDeg[i], g.SwingDeg[i], swing, 1e-8)
+				rel("history tension_n", h.TensionN[i], g.TensionN[i], gen.StaticTensionN, 1e-8)
+				rel("history suspension_x_m", h.SuspensionXM[i], g.SuspensionXM[i], 1, 1e-8)
+				rel("history suspension_y_m", h.SuspensionYM[i], g.SuspensionYM[i], 1, 1e-8)
 			}
 		}
 	}
