@@ -120,9 +120,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
-		if air == nil { // wind and drag take the general path
-			su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass)
-		}
+		su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass, air)
 	} else {
 		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
 			Suspension: susp, Rope: rope, Force: force}

@@ -11,9 +11,9 @@ import (
 	"swaysheet/core/pendulum"
 )
 
-// The specialised path. A scenario with one rope (no hook block), no wind
-// and no air drag, whose moves are all trapezoids, S-curves, speed steps,
-// hard stops or series records, shaped or not, is integrated by fastModel and fastSolver: the
+// The specialised path. A scenario with one rope (no hook block) whose
+// moves are all trapezoids, S-curves, speed steps, hard stops or series
+// records, shaped or not, is integrated by fastModel and fastSolver: the
 // same equation of motion, tableau, error control, restarts at every
 // breakpoint and projection after every step as the general path (scanner
 // with pendulum.Model and ode.Solver), written for a state of six numbers
@@ -179,7 +179,7 @@ func (s *fastScan) emit(t0, t1 float64) {
 // point: a returned new one would be an allocation per sample).
 func (s *fastScan) point(t float64, y *[6]float64) *pendulum.Point {
 	k := s.m.kinAt(t)
-	rx, ry, rz := s.m.rel(&k)
+	rx, ry, rz := s.m.rel(t, &k, y)
 	p := &s.pt
 	p.T, p.Rope, p.Tension = t, k.l, s.m.tension(rx, ry, rz, k.l, k.ddl, y)
 	p.Dir = r3.Vec{X: y[0], Y: y[1], Z: y[2]}

@@ -3,6 +3,8 @@ package sway
 import (
 	"math"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"swaysheet/core/crane"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
@@ -17,14 +19,16 @@ type fastModel struct {
 	x, y, slew, radius, hoist axisTable
 	slewing                   bool    // the suspension point is on a slewing arm
 	hoisting                  bool    // the rope length changes
-	travel                    bool    // travel moves only: neither of the two above
+	travel                    bool    // travel moves only: neither of the two above, no air
+	air                       *Air    // wind and drag; nil: none
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
 	il                        float64 // 1/l0
 	mass, g                   float64
 
 	// The spans of the segment between restarts being integrated (set by
-	// segment).
+	// segment), and its ends.
 	sx, sy, ss, sr, sh span
+	segA, segB         float64
 }
 
 // newFastModel builds the specialised model from the summed profiles of
@@ -32,12 +36,11 @@ type fastModel struct {
 // or a role moves whose geometry it does not have (a crane type added to
 // core/crane after this was written takes the general path). The
 // arguments are build's: the rope length l0 and the crane's start. The
-// slewing arm's geometry is crane.Drives.Suspension's. Wind and drag
-// (Air) are not modelled here: build gives such scenarios to the general
-// path.
-func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64) *fastModel {
+// slewing arm's geometry is crane.Drives.Suspension's; wind and drag are
+// air's (nil: none).
+func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64, air *Air) *fastModel {
 	r0 := at.RadiusM
-	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity,
+	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, air: air,
 		slewing: len(ax[crane.Turn]) > 0 || len(ax[crane.Reach]) > 0 || r0 != 0, hoisting: len(ax[crane.Rope]) > 0}
 	for role, sum := range ax {
 		var tab *axisTable
@@ -64,7 +67,7 @@ func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64) *f
 		}
 		*tab = flatten(comps)
 	}
-	m.travel = !(m.slewing || m.hoisting)
+	m.travel = !(m.slewing || m.hoisting || air != nil)
 	return m
 }
 
@@ -82,6 +85,29 @@ func (m *fastModel) segment(a, b float64) {
 	mid := 0.5 * (a + b)
 	m.sx, m.sy = m.x.spanAt(mid), m.y.spanAt(mid)
 	m.ss, m.sr, m.sh = m.slew.spanAt(mid), m.radius.spanAt(mid), m.hoist.spanAt(mid)
+	m.segA, m.segB = a, b
+}
+
+// airTime is t moved a hair inside the segment, as scanner.inSegment does
+// for every evaluation of the general path: the wind may step at the
+// segment's ends, and each segment sees its own wind.
+func (m *fastModel) airTime(t float64) float64 {
+	d := 1e-12 * t
+	if d < 1e-12 {
+		d = 1e-12
+	}
+	if lo := m.segA + d; t < lo {
+		return lo
+	}
+	if hi := m.segB - d; t > hi {
+		return hi
+	}
+	return t
+}
+
+// loadVel is the load's velocity S' + L' n + L u.
+func loadVel(k *kin, y *[6]float64) r3.Vec {
+	return r3.Vec{X: k.vx + (k.dl*y[0] + k.l*y[3]), Y: k.vy + (k.dl*y[1] + k.l*y[4]), Z: k.dl*y[2] + k.l*y[5]}
 }
 
 // kinAt evaluates the suspension point and the rope at t inside the
@@ -115,22 +141,61 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 	return k
 }
 
-// relDot is the time derivative of rel: the suspension point's jerk with
-// its sign changed (gravity is steady).
-func (m *fastModel) relDot(k *kin) (dx, dy, dz float64) { return -k.jx, -k.jy, 0 }
+// relDot is the time derivative of rel at state y with rate yd: the
+// suspension point's jerk with its sign changed, and the rate of the air's
+// force over the mass. With s the wind's strength, s' its rate (constant
+// inside a segment), r = v - s V e the load's velocity relative to the
+// air and a the load's acceleration S¨ + L¨ n + 2 L' u + L u' (Air's
+// formula differentiated):
+//
+//	dF/dt = 2 s s' F_w e - k (|r| r' + (r·r'/|r|) r + 2 s s' V² e),  r' = a - s' V e.
+func (m *fastModel) relDot(t float64, k *kin, y, yd *[6]float64) (dx, dy, dz float64) {
+	dx, dy = -k.jx, -k.jy
+	a := m.air
+	if a == nil {
+		return dx, dy, 0
+	}
+	tc := m.airTime(t)
+	sv, sd := a.Strength(tc), a.strengthRate(tc)
+	f := r3.Scale(2*sv*sd*a.ForceN, a.Dir)
+	if a.DragK > 0 {
+		v := loadVel(k, y)
+		acc := r3.Vec{X: k.ax + k.ddl*y[0] + 2*k.dl*y[3] + k.l*yd[3], Y: k.ay + k.ddl*y[1] + 2*k.dl*y[4] + k.l*yd[4],
+			Z: k.ddl*y[2] + 2*k.dl*y[5] + k.l*yd[5]}
+		r := r3.Sub(v, r3.Scale(sv*a.AirSpeed, a.Dir))
+		rd := r3.Sub(acc, r3.Scale(sd*a.AirSpeed, a.Dir))
+		var d r3.Vec
+		if n := r3.Norm(r); n > 0 {
+			d = r3.Add(r3.Scale(n, rd), r3.Scale(r3.Dot(r, rd)/n, r))
+		}
+		d = r3.Add(d, r3.Scale(2*sv*sd*a.AirSpeed*a.AirSpeed, a.Dir))
+		f = r3.Sub(f, r3.Scale(a.DragK, d))
+	}
+	im := 1 / m.mass
+	return dx + im*f.X, dy + im*f.Y, im * f.Z
+}
 
-// rel is the applied acceleration seen from the suspension point, a - S¨
-// (as pendulum.Model.eval forms it without a force).
-func (m *fastModel) rel(k *kin) (rx, ry, rz float64) { return -k.ax, -k.ay, -m.g }
+// rel is the applied acceleration seen from the suspension point, a - S¨,
+// at time t and state y (as pendulum.Model.eval forms it, the air's force
+// from Air.Force).
+func (m *fastModel) rel(t float64, k *kin, y *[6]float64) (rx, ry, rz float64) {
+	rx, ry, rz = -k.ax, -k.ay, -m.g
+	if m.air == nil {
+		return rx, ry, rz
+	}
+	f := m.air.Force(m.airTime(t), loadVel(k, y))
+	im := 1 / m.mass
+	return rx + im*f.X, ry + im*f.Y, rz + im*f.Z
+}
 
 // relAt is the applied acceleration seen from the suspension point,
 // a - S¨, and the rope length with its first two rates, at t and y. On
-// travel and hoist moves it reads the suspension point's acceleration
-// alone.
+// travel and hoist moves without air it reads the suspension point's
+// acceleration alone.
 func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl float64) {
-	if m.slewing {
+	if m.slewing || m.air != nil {
 		k := m.kinAt(t)
-		rx, ry, rz = m.rel(&k)
+		rx, ry, rz = m.rel(t, &k, y)
 		return rx, ry, rz, k.l, k.dl, k.ddl
 	}
 	l = m.l0
@@ -143,7 +208,7 @@ func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl floa
 }
 
 // simple reports whether the model has travel moves only: no slewing, no
-// hoisting (relAt's shortest case).
+// hoisting, no air (relAt's shortest case).
 func (m *fastModel) simple() bool { return m.travel }
 
 // travelRel is -S¨ of a suspension point on travel moves alone.
@@ -187,3 +252,22 @@ func (m *fastModel) tension(rx, ry, rz, l, ddl float64, y *[6]float64) float64 {
 
 // project puts y back onto |n| = 1, n·u = 0 (pendulum.Project).
 func project(y *[6]float64) float64 { return pendulum.Project(y[:]) }
+
+// strengthRate is the rate of Air.Strength at t: 1/ramp while the wind
+// rises, -1/ramp while it falls, zero otherwise (and for steps).
+func (a *Air) strengthRate(t float64) float64 {
+	if a.RampS <= 0 {
+		return 0
+	}
+	rate := func(x float64) float64 {
+		if x >= 0 && x < a.RampS {
+			return 1 / a.RampS
+		}
+		return 0
+	}
+	r := rate(t - a.StartS)
+	if a.DurationS > 0 {
+		r -= rate(t - a.StartS - a.DurationS)
+	}
+	return r
+}

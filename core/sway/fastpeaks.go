@@ -43,9 +43,9 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 		jx, jy = -md.sx.j, -md.sy.j
 	} else {
 		k := md.kinAt(t)
-		rx, ry, rz = md.rel(&k)
+		rx, ry, rz = md.rel(t, &k, y)
 		l, dl, ddl, dddl = k.l, k.dl, k.ddl, k.dddl
-		jx, jy, jz = md.relDot(&k)
+		jx, jy, jz = md.relDot(t, &k, y, yd)
 	}
 	h2 := y[0]*y[0] + y[1]*y[1]
 	nl := math.Sqrt(h2 + y[2]*y[2])
