@@ -50,19 +50,104 @@ type PlanPath struct {
 
 // Stray is the largest distance of the path's points from the nominal
 // path, taken as straight between its points.
-func Stray(run, nominal []Point2) float64 {
+func Stray(run, nominal []Point2) float64 { return newNearest(nominal).stray(run) }
+
+// nearest finds the distance from a point to a polyline with a uniform
+// grid of buckets: each segment is listed in the buckets its bounding box
+// meets, and the search widens ring by ring until no unsearched bucket
+// can hold a nearer segment, so the answer is exact.
+type nearest struct {
+	pts       []Point2
+	x0, y0, g float64
+	nx, ny    int
+	bucket    [][]int32
+	single    bool
+}
+
+func newNearest(poly []Point2) *nearest {
+	n := &nearest{pts: poly, single: len(poly) == 1}
+	if n.single {
+		return n
+	}
+	lo, hi := poly[0], poly[0]
+	length := 0.0
+	for i, p := range poly {
+		lo.X, lo.Y, hi.X, hi.Y = min(lo.X, p.X), min(lo.Y, p.Y), max(hi.X, p.X), max(hi.Y, p.Y)
+		if i > 0 {
+			length += math.Hypot(p.X-poly[i-1].X, p.Y-poly[i-1].Y)
+		}
+	}
+	// About four segments' length per bucket, and at most 256 a side.
+	n.g = max(4*length/float64(len(poly)), (hi.X-lo.X)/256, (hi.Y-lo.Y)/256, 1e-3)
+	n.x0, n.y0 = lo.X, lo.Y
+	n.nx = int((hi.X-lo.X)/n.g) + 1
+	n.ny = int((hi.Y-lo.Y)/n.g) + 1
+	n.bucket = make([][]int32, n.nx*n.ny)
+	for i := 0; i+1 < len(poly); i++ {
+		a, b := poly[i], poly[i+1]
+		i0, j0 := n.cell(min(a.X, b.X), min(a.Y, b.Y))
+		i1, j1 := n.cell(max(a.X, b.X), max(a.Y, b.Y))
+		for j := j0; j <= j1; j++ {
+			for k := i0; k <= i1; k++ {
+				n.bucket[j*n.nx+k] = append(n.bucket[j*n.nx+k], int32(i))
+			}
+		}
+	}
+	return n
+}
+
+func (n *nearest) cell(x, y float64) (int, int) {
+	i := min(max(int((x-n.x0)/n.g), 0), n.nx-1)
+	j := min(max(int((y-n.y0)/n.g), 0), n.ny-1)
+	return i, j
+}
+
+// dist2 is the squared distance from p to the polyline.
+func (n *nearest) dist2(p Point2) float64 {
+	if n.single {
+		dx, dy := p.X-n.pts[0].X, p.Y-n.pts[0].Y
+		return dx*dx + dy*dy
+	}
+	ci, cj := n.cell(p.X, p.Y)
+	// Distance from p to the grid's box, for points outside it.
+	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
+	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
+	outside := math.Hypot(ox, oy)
+	best := math.Inf(1)
+	for ring := 0; ; ring++ {
+		// Every bucket not yet searched is at least ring-1 buckets from
+		// p's own along some axis, and no nearer than the grid's box.
+		reach := max(outside, float64(ring-1)*n.g)
+		if ring > 0 && reach > 0 && reach*reach >= best {
+			return best
+		}
+		if ring > n.nx && ring > n.ny {
+			return best
+		}
+		for j := cj - ring; j <= cj+ring; j++ {
+			if j < 0 || j >= n.ny {
+				continue
+			}
+			for i := ci - ring; i <= ci+ring; i++ {
+				if i < 0 || i >= n.nx || (j != cj-ring && j != cj+ring && i != ci-ring && i != ci+ring) {
+					continue
+				}
+				for _, s := range n.bucket[j*n.nx+i] {
+					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best {
+						best = d
+					}
+				}
+			}
+		}
+	}
+}
+
+func (n *nearest) stray(run []Point2) float64 {
 	worst := 0.0
 	for _, p := range run {
-		d := math.Inf(1)
-		if len(nominal) == 1 {
-			d = math.Hypot(p.X-nominal[0].X, p.Y-nominal[0].Y)
-		}
-		for i := 0; i+1 < len(nominal); i++ {
-			d = math.Min(d, pointSegmentDistance(p, nominal[i], nominal[i+1]))
-		}
-		worst = math.Max(worst, d)
+		worst = max(worst, n.dist2(p))
 	}
-	return worst
+	return math.Sqrt(worst)
 }
 
 // NewEnvelope builds the envelope at level (0 < level <= 1) of the runs
@@ -75,16 +160,38 @@ func NewEnvelope(runs []PlanPath, nominal []Point2, level, cellM float64) (*Enve
 	if !(level > 0 && level <= 1) || !(cellM > 0) || !finite(cellM) {
 		return nil, errors.New("clearance: the level must be above 0 and at most 1, the cell size positive")
 	}
+	strays, err := Strays(runs, nominal)
+	if err != nil {
+		return nil, err
+	}
+	return newEnvelope(runs, strays, level, cellM)
+}
+
+// Strays is each run's Stray from the nominal path.
+func Strays(runs []PlanPath, nominal []Point2) ([]float64, error) {
+	if len(nominal) == 0 {
+		return nil, errors.New("clearance: an envelope needs the nominal path")
+	}
+	near := newNearest(nominal)
+	out := make([]float64, len(runs))
+	for i, r := range runs {
+		if len(r.Points) == 0 {
+			return nil, errors.New("clearance: a run has no points")
+		}
+		out[i] = near.stray(r.Points)
+	}
+	return out, nil
+}
+
+// newEnvelope is NewEnvelope with each run's stray given.
+func newEnvelope(runs []PlanPath, strays []float64, level, cellM float64) (*Envelope, error) {
 	type scored struct {
 		i     int
 		stray float64
 	}
 	rank := make([]scored, len(runs))
-	for i, r := range runs {
-		if len(r.Points) == 0 {
-			return nil, errors.New("clearance: a run has no points")
-		}
-		rank[i] = scored{i, Stray(r.Points, nominal)}
+	for i := range runs {
+		rank[i] = scored{i, strays[i]}
 	}
 	sort.SliceStable(rank, func(a, b int) bool { return rank[a].stray < rank[b].stray })
 	n := len(runs)
@@ -122,6 +229,7 @@ const maxCells = 4 << 20
 // cell's centre within radius plus half the cell's diagonal.
 func (e *Envelope) sweep(r PlanPath) {
 	reach := r.RadiusM + e.CellM*math.Sqrt2/2
+	reach2 := reach * reach
 	mark := func(a, b Point2) {
 		i0 := int(math.Floor((math.Min(a.X, b.X) - reach - e.X0M) / e.CellM))
 		i1 := int(math.Floor((math.Max(a.X, b.X) + reach - e.X0M) / e.CellM))
@@ -129,9 +237,13 @@ func (e *Envelope) sweep(r PlanPath) {
 		j1 := int(math.Floor((math.Max(a.Y, b.Y) + reach - e.Y0M) / e.CellM))
 		for j := max(j0, 0); j <= min(j1, e.NY-1); j++ {
 			for i := max(i0, 0); i <= min(i1, e.NX-1); i++ {
+				k := j*e.NX + i
+				if e.Covered[k] {
+					continue
+				}
 				c := Point2{e.X0M + (float64(i)+0.5)*e.CellM, e.Y0M + (float64(j)+0.5)*e.CellM}
-				if pointSegmentDistance(c, a, b) <= reach {
-					e.Covered[j*e.NX+i] = true
+				if pointSegmentDist2(c, a, b) <= reach2 {
+					e.Covered[k] = true
 				}
 			}
 		}

@@ -2,6 +2,7 @@ package clearance
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 )
 
@@ -131,5 +132,31 @@ func TestShareLowerBoundClosedForms(t *testing.T) {
 	}
 	if ShareLowerBound(0, 20, 0.95) != 0 {
 		t.Error("no success: the bound is 0")
+	}
+}
+
+func TestStrayGridAgreesWithBruteForce(t *testing.T) {
+	// The bucketed search is exact: the same distances as trying every
+	// segment, on wandering paths (a slewing arc with a wobble, and a
+	// zig-zag), for points near and far.
+	rng := rand.New(rand.NewPCG(1, 2))
+	var arc, zig []Point2
+	for i := 0; i <= 600; i++ {
+		a := float64(i) / 600 * math.Pi / 2
+		r := 35 + 0.3*math.Sin(7*a)
+		arc = append(arc, Point2{r * math.Cos(a), r * math.Sin(a)})
+		zig = append(zig, Point2{float64(i) * 0.05, float64(i%40) * 0.1})
+	}
+	for _, nominal := range [][]Point2{arc, zig} {
+		for k := 0; k < 2000; k++ {
+			p := Point2{rng.Float64()*80 - 20, rng.Float64()*80 - 20}
+			brute := math.Inf(1)
+			for i := 0; i+1 < len(nominal); i++ {
+				brute = math.Min(brute, pointSegmentDistance(p, nominal[i], nominal[i+1]))
+			}
+			if got := Stray([]Point2{p}, nominal); got != brute {
+				t.Fatalf("point %v: %g, brute force %g", p, got, brute)
+			}
+		}
 	}
 }

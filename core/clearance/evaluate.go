@@ -6,6 +6,7 @@ import (
 	"runtime"
 	"sync"
 
+	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -103,11 +104,15 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 		}
 		plans[i] = PlanPath{Points: pts, RadiusM: site.LoadRadiusM}
 	}
+	strays, err := Strays(plans, rep.Nominal)
+	if err != nil {
+		return nil, err
+	}
 	for _, e := range []struct {
 		level float64
 		out   *EnvelopeOut
 	}{{0.5, &rep.Envelope50}, {Required, &rep.Envelope95}} {
-		env, err := NewEnvelope(plans, rep.Nominal, e.level, opt.CellM)
+		env, err := newEnvelope(plans, strays, e.level, opt.CellM)
 		if err != nil {
 			return nil, err
 		}
@@ -121,6 +126,29 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 		"The 95 % envelope holds the paths of the 95 % of runs that stray least from the path with no spread; its share of all possible runs is itself uncertain, stated as the confidence that it is at least 95 %.",
 	}
 	return rep, nil
+}
+
+// Check runs the clearance check the scenario's site block asks for: its
+// spread's runs (scenario.DefaultSiteRuns when it gives none) drawn by
+// package draws with its seed; with no spread, one run.
+func Check(s *scenario.Scenario, opt Options) (*Report, error) {
+	if s.Site == nil {
+		return nil, ErrNoSite
+	}
+	sp := s.Site.Spread
+	if sp == nil {
+		return Evaluate(s, 1, 0, nil, opt)
+	}
+	runs := sp.Runs
+	if runs == 0 {
+		runs = scenario.DefaultSiteRuns
+	}
+	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
+	seed := uint64(sp.Seed)
+	return Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
+		return draws.Draw(s, spread, seed, i)
+	}, opt)
 }
 
 // SiteOf turns the scenario's site block into obstacles.

@@ -120,7 +120,10 @@ func Inside(p Point2, poly []Point2) bool {
 }
 
 // pointSegmentDistance is the distance from p to the segment ab.
-func pointSegmentDistance(p, a, b Point2) float64 {
+func pointSegmentDistance(p, a, b Point2) float64 { return math.Sqrt(pointSegmentDist2(p, a, b)) }
+
+// pointSegmentDist2 is the squared distance from p to the segment ab.
+func pointSegmentDist2(p, a, b Point2) float64 {
 	dx, dy := b.X-a.X, b.Y-a.Y
 	t := 0.0
 	if l2 := dx*dx + dy*dy; l2 > 0 {
@@ -131,7 +134,8 @@ func pointSegmentDistance(p, a, b Point2) float64 {
 			t = 1
 		}
 	}
-	return math.Hypot(p.X-a.X-t*dx, p.Y-a.Y-t*dy)
+	ex, ey := p.X-a.X-t*dx, p.Y-a.Y-t*dy
+	return ex*ex + ey*ey
 }
 
 // EdgeDistance is the distance from p to the polygon's boundary.
