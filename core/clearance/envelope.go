@@ -164,7 +164,7 @@ func NewEnvelope(runs []PlanPath, nominal []Point2, level, cellM float64) (*Enve
 	if err != nil {
 		return nil, err
 	}
-	return newEnvelope(runs, strays, level, cellM)
+	return newEnvelope(runs, strays, level, 0, cellM)
 }
 
 // Strays is each run's Stray from the nominal path.
@@ -184,7 +184,10 @@ func Strays(runs []PlanPath, nominal []Point2) ([]float64, error) {
 }
 
 // newEnvelope is NewEnvelope with each run's stray given.
-func newEnvelope(runs []PlanPath, strays []float64, level, cellM float64) (*Envelope, error) {
+// With conf above zero it holds more runs where needed, the fewest k for
+// which the confidence that its coverage is at least level reaches conf
+// (all N when none does).
+func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) (*Envelope, error) {
 	type scored struct {
 		i     int
 		stray float64
@@ -198,6 +201,9 @@ func newEnvelope(runs []PlanPath, strays []float64, level, cellM float64) (*Enve
 	k := int(math.Ceil(level*float64(n) - 1e-9))
 	if k < 1 {
 		k = 1
+	}
+	for conf > 0 && k < n && CoverageConfidence(k, n, level) < conf {
+		k++
 	}
 	e := &Envelope{Level: level, Runs: n, Inside: k, StrayM: rank[k-1].stray, CellM: cellM}
 	e.Confidence = CoverageConfidence(k, n, level)

@@ -160,3 +160,34 @@ func TestStrayGridAgreesWithBruteForce(t *testing.T) {
 		}
 	}
 }
+
+func TestExclusionZoneIsA95By95Region(t *testing.T) {
+	// With 59 runs the smallest region that is 95 % sure to hold 95 % of
+	// all runs holds all 59: 1 - 0.95^59 = 0.9515 (Wilks 1941); with 58
+	// it could not be (0.9490), so it holds all and says so.
+	mk := func(n int) ([]PlanPath, []float64) {
+		var runs []PlanPath
+		var strays []float64
+		for i := 0; i < n; i++ {
+			runs = append(runs, line(float64(i)*0.01, 0.25))
+			strays = append(strays, float64(i)*0.01)
+		}
+		return runs, strays
+	}
+	runs, strays := mk(59)
+	e, _ := newEnvelope(runs, strays, 0.95, 0.95, 0.5)
+	if e.Inside != 59 || e.Confidence < 0.95 {
+		t.Errorf("59 runs: %d inside, confidence %g", e.Inside, e.Confidence)
+	}
+	runs, strays = mk(58)
+	e, _ = newEnvelope(runs, strays, 0.95, 0.95, 0.5)
+	if e.Inside != 58 || math.Abs(e.Confidence-(1-math.Pow(0.95, 58))) > 1e-12 {
+		t.Errorf("58 runs: %d inside, confidence %g", e.Inside, e.Confidence)
+	}
+	// With 200 runs it takes the fewest k whose confidence reaches 95 %.
+	runs, strays = mk(200)
+	e, _ = newEnvelope(runs, strays, 0.95, 0.95, 0.5)
+	if CoverageConfidence(e.Inside, 200, 0.95) < 0.95 || CoverageConfidence(e.Inside-1, 200, 0.95) >= 0.95 {
+		t.Errorf("200 runs: %d inside", e.Inside)
+	}
+}
