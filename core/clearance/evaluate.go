@@ -3,8 +3,6 @@ package clearance
 import (
 	"errors"
 	"fmt"
-	"runtime"
-	"sync"
 
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
@@ -183,42 +181,20 @@ func RunOf(h *sway.History) Run {
 // evaluateRuns evaluates every run, in parallel; a run the core rejects
 // ends the check with that run's error, naming it.
 func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int) ([]Run, error) {
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
 	out := make([]Run, n)
-	errs := make([]error, n)
-	next := make(chan int)
-	var wg sync.WaitGroup
-	for range min(workers, n) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range next {
-				v := s
-				if variant != nil {
-					if d := variant(i); d != nil {
-						v = d
-					}
-				}
-				r, err := sway.EvaluateWith(v, sway.Options{})
-				if err != nil {
-					errs[i] = err
-					continue
-				}
-				out[i] = RunOf(&r.History)
+	err := draws.Each(n, workers, func(i int) error {
+		v := s
+		if variant != nil {
+			if d := variant(i); d != nil {
+				v = d
 			}
-		}()
-	}
-	for i := range n {
-		next <- i
-	}
-	close(next)
-	wg.Wait()
-	for i, err := range errs {
-		if err != nil {
-			return nil, fmt.Errorf("run %d: %w", i, err)
 		}
-	}
-	return out, nil
+		r, err := sway.EvaluateWith(v, sway.Options{})
+		if err != nil {
+			return fmt.Errorf("run %d: %w", i, err)
+		}
+		out[i] = RunOf(&r.History)
+		return nil
+	})
+	return out, err
 }

@@ -1,7 +1,7 @@
 package main
 
 import (
-	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"text/tabwriter"
@@ -13,37 +13,24 @@ import (
 // prints the verdict, each obstacle's figures and the envelopes, or the
 // report as JSON.
 func runClearance(files []string, asJSON bool, stdout, stderr io.Writer) int {
-	status := 0
-	for _, name := range files {
+	return eachFile(files, stderr, func(_ int, name string) error {
 		s, err := readScenario(name)
 		if err != nil {
-			fmt.Fprintf(stderr, "%s: %v\n", name, err)
-			status = 1
-			continue
+			return err
 		}
 		if s.Site == nil {
-			fmt.Fprintf(stderr, "%s: site: the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances\n", name)
-			status = 1
-			continue
+			return errors.New("site: the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances")
 		}
 		rep, err := clearance.Check(s, clearance.Options{})
 		if err != nil {
-			fmt.Fprintf(stderr, "%s: %v\n", name, err)
-			status = 1
-			continue
+			return err
 		}
 		if asJSON {
-			enc := json.NewEncoder(stdout)
-			enc.SetIndent("", "  ")
-			if err := enc.Encode(rep); err != nil {
-				fmt.Fprintf(stderr, "%s: %v\n", name, err)
-				status = 1
-			}
-			continue
+			return writeJSON(stdout, rep)
 		}
 		printClearance(stdout, name, s.Name, rep)
-	}
-	return status
+		return nil
+	})
 }
 
 func printClearance(w io.Writer, file, title string, r *clearance.Report) {
