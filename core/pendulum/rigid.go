@@ -123,6 +123,10 @@ type BodyPoint struct {
 	// TwistRad its turn about the vertical from its heading at rest,
 	// turned with the slew.
 	TiltRad, TwistRad float64
+	// CornerSwing2 is the square of the largest horizontal distance of a
+	// corner from where it hangs still under the suspension point (with a
+	// spreader, turned with the slew), m^2.
+	CornerSwing2 float64
 }
 
 func (r *Rigid) g() float64 {
@@ -181,8 +185,8 @@ type frame struct {
 	hookPresent bool
 }
 
-func (r *Rigid) frameOf(t float64, y []float64) *frame {
-	f := &frame{t: t}
+func (r *Rigid) frameOf(t float64, y []float64) frame {
+	f := frame{t: t}
 	f.x = vec(y[1:])
 	f.v = vec(y[4:])
 	f.R = rotOf(y[7:11])
@@ -304,10 +308,10 @@ func unit(i int) r3.Vec {
 }
 
 // accel solves for z = (x”, alpha, P”) and the multipliers at f.
-func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64, rws []row) {
+func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 	geo := r.geo
 	var buf [3]row
-	rws = r.rows(f, buf[:0])
+	rws := r.rows(f, buf[:0])
 	g := r3.Vec{Z: -r.g()}
 	iw := f.R.mul3(geo.ib).mul3(f.R.transpose())
 	iwInv := f.R.mul3(geo.ibInv).mul3(f.R.transpose())
@@ -355,7 +359,7 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64, rws []row) {
 			z[k] += lam[i] * mj[i][k]
 		}
 	}
-	return z, lam, rws
+	return z, lam
 }
 
 func dot9(a, b [9]float64) float64 {
@@ -399,7 +403,7 @@ func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
 // Func implements System.
 func (r *Rigid) Func(t float64, y, dy []float64) {
 	f := r.frameOf(t, y)
-	z, _, _ := r.accel(f)
+	z, _ := r.accel(&f)
 	dy[0] = 1
 	copy(dy[1:4], y[4:7])
 	dy[4], dy[5], dy[6] = z[0], z[1], z[2]

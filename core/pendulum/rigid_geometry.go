@@ -117,6 +117,12 @@ type rigidGeometry struct {
 	rest      quat // orientation hanging still
 	// Four legs: the stiffness sharing, T_i = share_i . Fs.
 	share [4]r3.Vec
+	// restCorner are the corners' horizontal offsets from the suspension
+	// point hanging still (with a spreader, before any slew).
+	restCorner [8]r3.Vec
+	// restHeading is the direction of the load's length axis hanging
+	// still, rad from +x toward +y.
+	restHeading float64
 }
 
 // GeometryError is a hanging arrangement the model cannot take; Leg is
@@ -197,7 +203,32 @@ func (r *Rigid) Prepare() error {
 	}
 	geo.ibInv = inv
 	r.geo = geo
+	R := rotOf(geo.rest[:])
+	geo.restHeading = math.Atan2(R[1][0], R[0][0])
+	for i := range 8 {
+		c := r3.Sub(r3.Add(geo.loadC, r.corner(i)), geo.hook)
+		if r.Spreader > 0 {
+			c = r.corner(i)
+		}
+		geo.restCorner[i] = R.mul(c)
+		geo.restCorner[i].Z = 0
+	}
 	return nil
+}
+
+// corner i of the box from the load's centre of mass, load axes.
+func (r *Rigid) corner(i int) r3.Vec {
+	c := r3.Scale(0.5, r.Size)
+	if i&1 != 0 {
+		c.X = -c.X
+	}
+	if i&2 != 0 {
+		c.Y = -c.Y
+	}
+	if i&4 != 0 {
+		c.Z = -c.Z
+	}
+	return c
 }
 
 // quatRot rotates v by the unit quaternion q.

@@ -20,7 +20,7 @@ type RigidMode struct {
 	// or "swing across" (the load's centre of mass moving along or across
 	// its length), "pitch" (turning about its width axis), "roll" (about
 	// its length axis), "twist" (about the vertical), "hook" (the hook
-	// block between two legs).
+	// block between two legs, moving most by its own kinetic energy).
 	Kind string
 	// Shape is the mode in the tangent space of the constraints: the
 	// body's displacement, its small rotation (ground frame) and, with two
@@ -37,21 +37,19 @@ const freeOmega2 = 1e-7
 // numerically: N is an orthonormal basis of the null space of the
 // constraint gradient G (the displacements the rope and legs allow, from
 // gonum's SVD); the accelerations z(eta) for a displacement N eta from
-// rest, by central differences (step 1e-5; the constraint violation, of
-// second order, cancels), lie in the same space to first order, so
+// rest, by fourth-order central differences (step 1e-3; the constraint
+// violation, even in eta, cancels), lie in the same space to first order, so
 // eta” = N^T dz/deta eta = -K eta and omega^2 are the eigenvalues of K
 // (gonum's Eigen). Velocity terms are of second order at rest.
 func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
-	c := *r
-	c.Suspension = func(float64) Kinematics { return Kinematics{} }
-	c.Rope = func(float64) (float64, float64, float64) { return l, 0, 0 }
-	c.Force, c.Yaw = nil, nil
+	c := r.Fixed(l)
 	y0 := c.Rest(0)
 	nd := 6
 	if c.geo.hookPoint {
 		nd = 9
 	}
-	rws := c.rows(c.frameOf(0, y0), nil)
+	f0 := c.frameOf(0, y0)
+	rws := c.rows(&f0, nil)
 	g := mat.NewDense(max(len(rws), 1), nd, nil)
 	for i, rw := range rws {
 		for k := range nd {
@@ -76,24 +74,24 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 	svd.VTo(&v)
 	k := nd - rank
 	nb := mat.DenseCopyOf(v.Slice(0, nd, rank, nd))
-	const eps = 1e-5
+	// Fourth-order central differences, f'(0) = (f(-2h) - 8 f(-h) + 8 f(h)
+	// - f(2h)) / (12 h): truncation about h^4, rounding about 1e-16/h.
+	const h = 1e-3
 	dz := mat.NewDense(nd, k, nil)
 	for j := range k {
-		var d [9]float64
-		for i := range nd {
-			d[i] = eps * nb.At(i, j)
+		var zs [4][9]float64
+		for n, step := range [4]float64{-2 * h, -h, h, 2 * h} {
+			var d [9]float64
+			for i := range nd {
+				d[i] = step * nb.At(i, j)
+			}
+			y := append([]float64(nil), y0...)
+			c.displace(y, d)
+			f := c.frameOf(0, y)
+			zs[n], _ = c.accel(&f)
 		}
-		yp := append([]float64(nil), y0...)
-		c.displace(yp, d)
-		for i := range d {
-			d[i] = -d[i]
-		}
-		ym := append([]float64(nil), y0...)
-		c.displace(ym, d)
-		zp, _, _ := c.accel(c.frameOf(0, yp))
-		zm, _, _ := c.accel(c.frameOf(0, ym))
 		for i := range nd {
-			dz.Set(i, j, (zp[i]-zm[i])/(2*eps))
+			dz.Set(i, j, (zs[0][i]-8*zs[1][i]+8*zs[2][i]-zs[3][i])/(12*h))
 		}
 	}
 	var kr mat.Dense
@@ -146,10 +144,7 @@ func (r *Rigid) kindOf(s [9]float64) string {
 	e := []float64{geo.m * along * along, geo.m * across * across,
 		geo.ib[0][0] * th.X * th.X, geo.ib[1][1] * th.Y * th.Y, geo.ib[2][2] * th.Z * th.Z, 0}
 	if geo.hookPoint {
-		// The hook's motion relative to the point of the load it sits at.
-		hk := r3.Add(dx, r3.Cross(r3.Vec{X: s[3], Y: s[4], Z: s[5]}, R.mul(geo.hook)))
-		rel := r3.Sub(r3.Vec{X: s[6], Y: s[7], Z: s[8]}, hk)
-		e[5] = geo.mh * r3.Dot(rel, rel)
+		e[5] = geo.mh * (s[6]*s[6] + s[7]*s[7] + s[8]*s[8])
 	}
 	best := 0
 	for i := range e {
@@ -158,4 +153,29 @@ func (r *Rigid) kindOf(s [9]float64) string {
 		}
 	}
 	return names[best]
+}
+
+// Fixed is a copy of r under a still suspension point at the origin on a
+// rope (or parallel legs) of constant length l, without applied force.
+func (r *Rigid) Fixed(l float64) *Rigid {
+	c := *r
+	c.Suspension = func(float64) Kinematics { return Kinematics{} }
+	c.Rope = func(float64) (float64, float64, float64) { return l, 0, 0 }
+	c.Force, c.Yaw = nil, nil
+	return &c
+}
+
+// Displace moves state y along a mode shape, scaled so that its largest
+// component is amp (m or rad), and puts it back on the constraints.
+func (r *Rigid) Displace(y []float64, shape [9]float64, amp float64) {
+	big := 0.0
+	for _, v := range shape {
+		big = math.Max(big, math.Abs(v))
+	}
+	var d [9]float64
+	for i, v := range shape {
+		d[i] = amp * v / big
+	}
+	r.displace(y, d)
+	r.Project(y)
 }

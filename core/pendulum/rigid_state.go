@@ -19,7 +19,7 @@ func (r *Rigid) Project(y []float64) float64 {
 	var buf [3]row
 	for it := range 3 {
 		f := r.frameOf(y[0], y)
-		rws := r.rows(f, buf[:0])
+		rws := r.rows(&f, buf[:0])
 		big := 0.0
 		for _, rw := range rws {
 			big = math.Max(big, math.Abs(rw.phi)/rw.scale)
@@ -34,7 +34,7 @@ func (r *Rigid) Project(y []float64) float64 {
 		r.displace(y, d)
 	}
 	f := r.frameOf(y[0], y)
-	rws := r.rows(f, buf[:0])
+	rws := r.rows(&f, buf[:0])
 	d := r.correction(rws, func(rw row) float64 { return rw.dphi })
 	for i := range 3 {
 		y[4+i] += d[i]
@@ -89,8 +89,9 @@ func (r *Rigid) displace(y []float64, d [9]float64) {
 // Body the rest.
 func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	geo := r.geo
-	f := r.frameOf(t, y)
-	z, lam, _ := r.accel(f)
+	fr := r.frameOf(t, y)
+	f := &fr
+	z, lam := r.accel(f)
 	bp := &r.bp
 	*bp = BodyPoint{R: f.R, Omega: f.w}
 	armL := f.R.mul(geo.loadC)
@@ -156,25 +157,18 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	}
 	p.HookPos = hook
 	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
-	half := r3.Scale(0.5, r.Size)
+	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
 	for i := range 8 {
-		c := r3.Vec{X: half.X, Y: half.Y, Z: half.Z}
-		if i&1 != 0 {
-			c.X = -c.X
-		}
-		if i&2 != 0 {
-			c.Y = -c.Y
-		}
-		if i&4 != 0 {
-			c.Z = -c.Z
-		}
-		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, c)))
+		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))
+		rc := geo.restCorner[i]
+		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
+		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
+		bp.CornerSwing2 = math.Max(bp.CornerSwing2, dx*dx+dy*dy)
 	}
 	ez := f.R.Col(2)
 	bp.TiltRad = math.Atan2(math.Hypot(ez.X, ez.Y), ez.Z)
 	ex := f.R.Col(0)
-	rx := quatRot(geo.rest, r3.Vec{X: 1})
-	tw := math.Atan2(ex.Y, ex.X) - math.Atan2(rx.Y, rx.X) - f.psi
+	tw := math.Atan2(ex.Y, ex.X) - geo.restHeading - f.psi
 	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
 }
 
