@@ -37,7 +37,7 @@ const freeOmega2 = 1e-7
 // numerically: N is an orthonormal basis of the null space of the
 // constraint gradient G (the displacements the rope and legs allow, from
 // gonum's SVD); the accelerations z(eta) for a displacement N eta from
-// rest, by fourth-order central differences (step 1e-3; the constraint
+// rest, by fourth-order central differences (step about 1e-3; the constraint
 // violation, even in eta, cancels), lie in the same space to first order, so
 // eta” = N^T dz/deta eta = -K eta and omega^2 are the eigenvalues of K
 // (gonum's Eigen). Velocity terms are of second order at rest.
@@ -75,8 +75,11 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 	k := nd - rank
 	nb := mat.DenseCopyOf(v.Slice(0, nd, rank, nd))
 	// Fourth-order central differences, f'(0) = (f(-2h) - 8 f(-h) + 8 f(h)
-	// - f(2h)) / (12 h): truncation about h^4, rounding about 1e-16/h.
-	const h = 1e-3
+	// - f(2h)) / (12 h): truncation about h^4, rounding about 1e-16/h. The
+	// step is 1e-3 (m and rad) times the smallest radius of gyration in m
+	// when that is below 1 m: a small load's fast turning modes vary on
+	// that scale.
+	h := 1e-3 * math.Min(1, math.Min(c.Gyration.X, math.Min(c.Gyration.Y, c.Gyration.Z)))
 	dz := mat.NewDense(nd, k, nil)
 	for j := range k {
 		var zs [4][9]float64

@@ -155,6 +155,14 @@ func build(s *scenario.Scenario) (*setup, error) {
 			return f
 		}
 	}
+	if s.Load.Body != nil {
+		r, y0, err := rigidModel(s, susp, rope, force, ax.slew)
+		if err != nil {
+			return nil, err
+		}
+		su.model, su.y0, su.breaks = r, y0, breaks
+		return su, nil
+	}
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}

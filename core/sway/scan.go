@@ -44,6 +44,7 @@ type scanner struct {
 	segStart, segEnd float64 // the segment between restarts being integrated
 
 	hist     *History
+	bodyHist *BodyHistory // with a rigid load
 	sampleDt float64
 	samples  int
 	next     int // index of the next history sample
@@ -54,7 +55,10 @@ type scanner struct {
 
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	nq := qRigAngle
-	if _, ok := m.(*pendulum.Double); ok {
+	switch m.(type) {
+	case *pendulum.Double:
+		nq = qTilt
+	case *pendulum.Rigid:
 		nq = nQuantities
 	}
 	return &scanner{model: m, motionEnd: motionEnd, nq: nq, maxSteps: maxSteps, y: make([]float64, m.Len())}
@@ -73,7 +77,13 @@ const (
 	qRopeSwing // the rope's own angle from the vertical
 	qRigTension
 	qRigTensionLow
-	nQuantities
+	// With a rigid load (values from Point.Body):
+	qTilt                  // the load's tilt, rad
+	qTwist                 // |twist|, rad
+	qCorner                // square of the largest corner swing
+	qLeg                   // tension of legs 0 to 3
+	qLegLow     = qLeg + 4 // minus the tension of legs 0 to 3
+	nQuantities = qLegLow + 4
 )
 
 // value is the quantity q at p, or a cheaper quantity that rises and falls
@@ -97,9 +107,10 @@ func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 		return oneMinusCos(p.Dir, r3.Vec{Z: -1})
 	case qRigTension:
 		return p.RiggingTension
-	default:
+	case qRigTensionLow:
 		return -p.RiggingTension
 	}
+	return bodyValue(q, p.Body)
 }
 
 // oneMinusCos is 1 - cos of the angle between d and the unit vector e:
@@ -413,5 +424,8 @@ func (s *scanner) record(p *pendulum.Point) {
 	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
+	if s.bodyHist != nil {
+		s.bodyHist.add(p)
+	}
 	s.next++
 }

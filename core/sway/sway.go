@@ -13,6 +13,7 @@ import (
 
 	"gonum.org/v1/gonum/mathext"
 
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 )
@@ -56,6 +57,8 @@ type Result struct {
 
 	// Rigging is present when the scenario models hook block and rigging.
 	Rigging *Rigging `json:"rigging,omitempty"`
+	// Body is present when the scenario models the load as a rigid body.
+	Body *Body `json:"body,omitempty"`
 
 	Checks      []Check  `json:"checks"`
 	Warnings    []string `json:"warnings"`
@@ -191,6 +194,14 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		period = 2 * math.Pi / modes(h, mass, su.ropeEnd).Omega[0]
 		staticN = (mass + *h.MassKg) * g
 	}
+	rigid, _ := su.model.(*pendulum.Rigid)
+	var bodyMd []pendulum.RigidMode
+	if rigid != nil {
+		if bodyMd, period, err = bodyModes(rigid, su.ropeEnd); err != nil {
+			return nil, err
+		}
+		staticN = (mass + s.Load.Body.HookMassKg) * g
+	}
 	tEnd := math.Max(su.activityEnd+settle*period, st.DurationS)
 	if tEnd > scenario.MaxRunS {
 		return nil, scenario.Errors{{Field: "settings.duration_s", Message: fmt.Sprintf(
@@ -219,7 +230,13 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if opt.MaxSteps > 0 {
 		sc.maxSteps = opt.MaxSteps
 	}
+	if rigid != nil {
+		res.Assumptions = bodyAssumptions()
+	}
 	if !opt.NoHistory {
+		if rigid != nil {
+			sc.bodyHist = &BodyHistory{}
+		}
 		sc.hist = &res.History
 		sc.sampleDt = tEnd / float64(samples-1)
 		sc.samples = samples
@@ -250,6 +267,12 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
+	}
+	if rigid != nil {
+		if err := body(s, rigid, bodyMd, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+			return nil, err
+		}
+		res.Body.History = sc.bodyHist
 	}
 	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
 		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
