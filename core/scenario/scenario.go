@@ -16,6 +16,8 @@ import (
 	"fmt"
 	"io"
 	"strings"
+
+	"swaysheet/core/crane"
 )
 
 // FormatName and Version identify the file format.
@@ -33,8 +35,8 @@ const (
 	Hoist   = "hoist"    // hoisting: positive up (rope shortens), m
 )
 
-// Axes lists the axis names in display order.
-var Axes = []string{TravelX, TravelY, Slew, Radius, Hoist}
+// Axes lists the axis names in display order (core/crane's table).
+var Axes = crane.Names(false)
 
 // Scenario is one lift to check.
 type Scenario struct {

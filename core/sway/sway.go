@@ -49,6 +49,9 @@ type Result struct {
 	// steady lean under it, atan(F/(m*g)).
 	WindForceN  float64 `json:"wind_force_n"`
 	WindLeanDeg float64 `json:"wind_lean_deg"`
+	// WindOffsetM is how far the load hangs off plumb in the steady wind
+	// (WindOffsetM, at the rope length at the end of the run).
+	WindOffsetM float64 `json:"wind_offset_m"`
 
 	RopeLengthStartM float64 `json:"rope_length_start_m"`
 	RopeLengthEndM   float64 `json:"rope_length_end_m"`
@@ -125,6 +128,10 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// Validated says the caller has validated the scenario and not
+	// changed it since (scenario.Parse and Decode validate): it is not
+	// validated again.
+	Validated bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -162,7 +169,7 @@ func Evaluate(s *scenario.Scenario) (*Result, error) {
 
 // EvaluateWith runs one scenario.
 func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
-	su, err := build(s)
+	su, err := build(s, !opt.Validated)
 	if err != nil {
 		return nil, err
 	}
@@ -215,6 +222,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		StaticTensionN:   staticN,
 		WindForceN:       su.windForce,
 		WindLeanDeg:      WindLeanRad(s, su.windForce, su.ropeEnd) / units.Degree,
+		WindOffsetM:      WindOffsetM(s, su.windForce, su.ropeEnd),
 		RopeLengthStartM: su.ropeStart,
 		RopeLengthEndM:   su.ropeEnd,
 		MotionEndS:       su.motionEnd,
