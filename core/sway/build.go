@@ -136,7 +136,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		}
 	}
 	if s.Load.Body != nil {
-		r, y0, err := rigidModel(s, susp, rope, force, ax.slew)
+		r, y0, err := rigidModel(s, susp, rope, force, ax[crane.Turn])
 		if err != nil {
 			return nil, err
 		}
