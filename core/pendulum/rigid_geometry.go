@@ -358,3 +358,12 @@ func (geo *rigidGeometry) sharing(legs []Leg) error {
 	}
 	return nil
 }
+
+// HookDepthM is the distance from the hook (where the legs meet) to the
+// load's centre of mass hanging still; zero with a spreader.
+func (r *Rigid) HookDepthM() float64 {
+	if r.Spreader > 0 {
+		return 0
+	}
+	return r3.Norm(r3.Sub(r.geo.hook, r.geo.loadC))
+}

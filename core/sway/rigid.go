@@ -158,6 +158,29 @@ func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
 	return r, y0, nil
 }
 
+// bodyWind is the steady lean of the line from the suspension point to
+// the load's centre of mass and the load's offset from plumb under a
+// steady horizontal force F at the load's centre of mass (static
+// equilibrium, as WindLeanRad and WindOffsetM for a hook block): the rope
+// to the hook carries load and hook block and leans atan(F/((m+m_h) g));
+// the load with its legs is held at the hook alone, so the line from the
+// hook to its centre of mass lies along the resultant of F and its weight,
+// atan(F/(m g)). With a spreader the parallel legs lean atan(F/(m g)) and
+// the load moves without turning (its roll under a force across it, which
+// the attach points' height brings, is left out of this figure).
+func bodyWind(r *pendulum.Rigid, force, rope float64) (leanRad, offsetM float64) {
+	g := units.StandardGravity
+	t2 := math.Atan2(force, r.Mass*g)
+	if r.Spreader > 0 {
+		x := rope * math.Sin(t2)
+		return math.Atan2(x, rope*math.Cos(t2)+r.SpreaderZ), x
+	}
+	t1 := math.Atan2(force, (r.Mass+r.HookMass)*g)
+	d := r.HookDepthM()
+	x := rope*math.Sin(t1) + d*math.Sin(t2)
+	return math.Atan2(x, rope*math.Cos(t1)+d*math.Cos(t2)), x
+}
+
 // bodyModes returns the modes of a rigid load at rope length l and the
 // period of the slowest one that swings back.
 func bodyModes(r *pendulum.Rigid, l float64) ([]pendulum.RigidMode, float64, error) {

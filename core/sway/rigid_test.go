@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"swaysheet/core/scenario"
+	"swaysheet/core/units"
 )
 
 // withBody gives s a box load of the given size on four legs of length
@@ -202,5 +203,39 @@ func TestRigidFirstMode(t *testing.T) {
 	}
 	if _, _, _, err := RigidFirstMode(still(1000, 5), 5); err == nil {
 		t.Error("a point load has no rigid first mode: want an error")
+	}
+}
+
+// Steady wind on a rigid load on one hook: the load settles where the
+// static equilibrium puts it (rope along the resultant of the wind and the
+// whole weight, the hook-to-load line along the wind and the load's own
+// weight; Meriam & Kraige, Engineering Mechanics: Statics). Heavy drag
+// damps the swing; the mean over the last 200 s of the run is compared.
+func TestRigidSteadyWind(t *testing.T) {
+	for _, legs := range []int{2, 4} {
+		s := withBody(still(2000, 4), 3, 1, 0.8, 2.5)
+		if legs == 2 {
+			s.Load.Body.Legs = []scenario.BodyLeg{{LengthM: f(2.5), AttachXM: 1, AttachZM: f(0.4)}, {LengthM: f(2.5), AttachXM: -1, AttachZM: f(0.4)}}
+		}
+		s.Load.Body.HookMassKg = 200
+		s.Load.AreaM2, s.Load.DragCoefficient = 2000, 3
+		s.Wind = &scenario.Wind{ForceN: f(3000), TowardDeg: 30}
+		s.Settings = &scenario.Settings{DurationS: 600, Samples: 5000}
+		r := mustEval(t, s)
+		h := r.History
+		var x, y, z float64
+		n := 0
+		for i, tt := range h.TimeS {
+			if tt >= 400 {
+				x, y, z, n = x+h.RelXM[i], y+h.RelYM[i], z+h.RelZM[i], n+1
+			}
+		}
+		x, y, z = x/float64(n), y/float64(n), z/float64(n)
+		off := math.Hypot(x, y)
+		lean := math.Atan2(off, -z) / units.Degree
+		t.Logf("%d legs: offset %.6g m (static %.6g m), lean %.6g deg (static %.6g deg)", legs, off, r.WindOffsetM, lean, r.WindLeanDeg)
+		if math.Abs(off-r.WindOffsetM) > 5e-5 || math.Abs(lean-r.WindLeanDeg) > 5e-4 {
+			t.Errorf("%d legs: the load settles at %.6g m, %.6g deg; static %.6g m, %.6g deg", legs, off, lean, r.WindOffsetM, r.WindLeanDeg)
+		}
 	}
 }

@@ -240,6 +240,8 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	}
 	if rigid != nil {
 		res.Assumptions = bodyAssumptions()
+		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
+		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
 	}
 	if !opt.NoHistory {
 		if rigid != nil {
