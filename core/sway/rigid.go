@@ -40,8 +40,17 @@ type Body struct {
 	PeakTwistDeg float64 `json:"peak_twist_deg"`
 	// PeakCornerSwingM is the largest horizontal distance of a corner of
 	// the load from where it hangs still under the suspension point.
-	PeakCornerSwingM float64   `json:"peak_corner_swing_m"`
-	Legs             []LegLoad `json:"legs"`
+	PeakCornerSwingM float64 `json:"peak_corner_swing_m"`
+	// PitchPeriodS is the period of the first mode in which the load
+	// pitches most; TwistPeriodS of the one in which it twists (zero when
+	// its twist is not restrained).
+	PitchPeriodS float64 `json:"pitch_period_s"`
+	TwistPeriodS float64 `json:"twist_period_s"`
+	// LegTensionMaxN and LegTensionMinN are the largest and smallest
+	// tension of any leg.
+	LegTensionMaxN float64   `json:"leg_tension_max_n"`
+	LegTensionMinN float64   `json:"leg_tension_min_n"`
+	Legs           []LegLoad `json:"legs"`
 	// History holds the load's tilt, twist, leg tensions and corner
 	// paths at the result's history times.
 	History *BodyHistory `json:"history,omitempty"`
@@ -216,6 +225,10 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 		out.Modes = append(out.Modes, BodyMode{PeriodS: m.PeriodS, Kind: m.Kind})
 		if m.Kind == "twist" && twist == nil {
 			twist = m
+			out.TwistPeriodS = m.PeriodS
+		}
+		if m.Kind == "pitch" && out.PitchPeriodS == 0 {
+			out.PitchPeriodS = m.PeriodS
 		}
 	}
 	fixed := r.Fixed(ropeEnd)
@@ -223,8 +236,15 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	fixed.Eval(0, fixed.Rest(0), &rest)
 	out.RestTiltDeg = rest.Body.TiltRad / units.Degree
 	for i := range rest.Body.NLegs {
-		out.Legs = append(out.Legs, LegLoad{StaticN: rest.Body.Legs[i],
-			TensionMaxN: sc.ext[qLeg+quantity(i)].max, TensionMinN: -sc.ext[qLegLow+quantity(i)].max})
+		l := LegLoad{StaticN: rest.Body.Legs[i],
+			TensionMaxN: sc.ext[qLeg+quantity(i)].max, TensionMinN: -sc.ext[qLegLow+quantity(i)].max}
+		out.Legs = append(out.Legs, l)
+		if i == 0 || l.TensionMaxN > out.LegTensionMaxN {
+			out.LegTensionMaxN = l.TensionMaxN
+		}
+		if i == 0 || l.TensionMinN < out.LegTensionMinN {
+			out.LegTensionMinN = l.TensionMinN
+		}
 	}
 	out.PeakTiltDeg = sc.ext[qTilt].max / units.Degree
 	out.PeakTwistDeg = sc.ext[qTwist].max / units.Degree
@@ -277,8 +297,8 @@ func twistPeriod(r *pendulum.Rigid, m *pendulum.RigidMode) (float64, error) {
 // load's own.
 func bodyAssumptions() []string {
 	out := []string{
-		"The load is a rigid box (its mass, size and radii of gyration) on slings that do not stretch: four legs from one hook are a rigid frame fixed in the load, and share its weight as springs of equal section (stiffness inversely proportional to length); two legs let the load roll about the line between their attach points and the hook block move between them; a spreader's two parallel legs hang from points that move and turn with the crane.",
-		"The rope length runs from the rope's upper point of rotation to the hook where the legs meet (with a spreader: to the load's attach points).",
+		"The load is a rigid box on slings that do not stretch: four legs are a rigid frame sharing the load by their stiffness; two legs let it roll about their attach line; a spreader's parallel legs hang from points fixed to the crane.",
+		"The rope length runs from the rope's upper point of rotation to the hook (with a spreader: to the load).",
 	}
 	for _, a := range Assumptions {
 		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {
