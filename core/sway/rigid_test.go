@@ -119,6 +119,14 @@ func TestRigidBayGirder(t *testing.T) {
 	if h := b.History; h == nil || len(h.TiltDeg) != len(r.History.TimeS) || len(h.CornerXM) != 8 || len(h.CornerXM[7]) != len(r.History.TimeS) {
 		t.Errorf("body history missing or short")
 	}
+	for _, a := range r.Assumptions {
+		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The load does not spin") {
+			t.Errorf("a rigid load's assumptions keep the point model's %q", a)
+		}
+	}
+	if !strings.HasPrefix(r.Assumptions[0], "The load is a rigid box") {
+		t.Errorf("assumptions %q", r.Assumptions)
+	}
 	if b.PeakTiltDeg <= 0 || b.PeakCornerSwingM <= r.PeakExcursionM*0.5 {
 		t.Errorf("tilt %v deg, corner swing %v m", b.PeakTiltDeg, b.PeakCornerSwingM)
 	}
