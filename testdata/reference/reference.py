@@ -833,6 +833,24 @@ def write_results(path, what, formulation, peak_search, entries):
     print("wrote %s (%d scenarios)" % (os.path.relpath(path, ROOT), len(entries)), file=sys.stderr)
 
 
+def generate_show_cli(doc, results_name, cmd_generate, model_class, solve_fn):
+    """The command line of a reference script for one kind of scenario:
+    `generate` (writes results_name) and `show FILE... [--rtol R]`."""
+    ap = argparse.ArgumentParser(description=doc.split("\n")[0])
+    sub = ap.add_subparsers(dest="cmd", required=True)
+    sub.add_parser("generate", help="solve every scenario it covers and write " + results_name)
+    s = sub.add_parser("show", help="print the reference result of scenario files")
+    s.add_argument("files", nargs="+")
+    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
+    args = ap.parse_args()
+    if args.cmd == "generate":
+        cmd_generate(args)
+        return
+    for p in args.files:
+        json.dump(solve_fn(model_class(load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
+        print()
+
+
 def cmd_show(args):
     for p in args.files:
         res = solve(Model(load(p)))

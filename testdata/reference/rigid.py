@@ -59,7 +59,6 @@ every motion breakpoint; maxima located on the dense output by
 Brent's bounded method (scipy.optimize.minimize_scalar).
 """
 
-import argparse
 import json
 import math
 import os
@@ -558,21 +557,8 @@ def cmd_generate(args):
                       "Brent's bounded method", entries)
 
 
-def cmd_show(args):
-    for p in args.files:
-        json.dump(solve(RigidModel(ref.load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
-        print()
-
-
 def main():
-    ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
-    sub = ap.add_subparsers(dest="cmd", required=True)
-    sub.add_parser("generate", help="solve every rigid-load scenario and write results_rigid.json")
-    s = sub.add_parser("show", help="print the reference result of scenario files")
-    s.add_argument("files", nargs="+")
-    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
-    args = ap.parse_args()
-    {"generate": cmd_generate, "show": cmd_show}[args.cmd](args)
+    ref.generate_show_cli(__doc__, "results_rigid.json", cmd_generate, RigidModel, solve)
 
 
 if __name__ == "__main__":
