@@ -22,7 +22,8 @@ import (
 type Result struct {
 	Name string `json:"name"`
 	// PeriodS is the small-amplitude period 2*pi*sqrt(L/g) at the rope
-	// length at the end of the run.
+	// length at the end of the run; with a hook block the slower mode's,
+	// with a rigid load (load.body) the slowest mode's (Body.Modes).
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
 	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
