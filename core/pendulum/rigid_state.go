@@ -32,6 +32,9 @@ func (r *Rigid) Project(y []float64) float64 {
 		}
 		d := r.correction(rws, func(rw row) float64 { return rw.phi })
 		r.displace(y, d)
+		if big < 1e-8 {
+			break // one Newton step from there leaves rounding
+		}
 	}
 	f := r.frameOf(y[0], y)
 	rws := r.rows(&f, buf[:0])
