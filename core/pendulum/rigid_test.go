@@ -243,3 +243,38 @@ func (r *Rigid) energy(y []float64) float64 {
 	}
 	return e
 }
+
+// Four legs meeting off centre (the load hangs tilted): whatever the
+// stiffness sharing gives each leg, the legs together hold the load up,
+// sum of T_i e_i = m g upward (static equilibrium of the load), and each
+// stays taut here.
+func TestRigidFourLegSharingOffCentre(t *testing.T) {
+	hook := r3.Vec{X: 0.6, Y: 0.2, Z: 2.8}
+	var legs []Leg
+	for _, l := range fourLegs(8, 1, 0.6, 0) {
+		l.Length = r3.Norm(r3.Sub(hook, l.Attach))
+		legs = append(legs, l)
+	}
+	r := &Rigid{Mass: 3000, Size: r3.Vec{X: 8, Y: 1, Z: 0.6}, Gyration: box(8, 1, 0.6), HookMass: 150, Legs: legs}
+	mustPrepare(t, fixedRigid(r, 5))
+	var p Point
+	y := r.Rest(0)
+	r.Eval(0, y, &p)
+	var sum r3.Vec
+	for i := range 4 {
+		a := r.kinOf(&frame{x: vec(y[1:]), R: rotOf(y[7:11])}, end{kind: onBody, b: r.geo.attach[i]}, i)
+		e := r3.Unit(r3.Sub(a.p, p.HookPos))
+		sum = r3.Add(sum, r3.Scale(p.Body.Legs[i], e))
+		if p.Body.Legs[i] <= 0 {
+			t.Errorf("leg %d: %g N", i, p.Body.Legs[i])
+		}
+	}
+	// The legs pull the hook down by the load's weight.
+	want := r3.Vec{Z: -3000 * g}
+	if d := r3.Norm(r3.Sub(sum, want)); d > 1e-9*3000*g {
+		t.Errorf("legs' pull on the hook %v N, want %v N", sum, want)
+	}
+	if p.Body.TiltRad < 0.01 {
+		t.Errorf("tilt at rest %v rad: the hook off centre should tilt the load", p.Body.TiltRad)
+	}
+}
