@@ -92,6 +92,7 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
+	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/ropelength
 
 # Regenerate testdata/reference/results.json, results_double.json (hook
 # block and rigging) and results_rigid.json (rigid loads) with SciPy (Debian's

@@ -63,6 +63,8 @@ var Table = []Figure{
 		Unit: "deg", Value: windy(func(r *sway.Result) float64 { return r.WindLeanDeg })},
 	{Key: "wind_offset_m", Crew: "load hangs off plumb in the wind by", Technical: "steady wind offset (static, horizontal)",
 		Unit: "m", Value: windy(func(r *sway.Result) float64 { return r.WindOffsetM })},
+	{Key: "wind_damping_ratio", Crew: "the air slows the swing by (of critical)", Technical: "damping ratio from air drag, along the wind (linearised)",
+		Unit: "", Quantity: "share", Value: positive(func(r *sway.Result) float64 { return r.WindDampingRatio })},
 	{Key: "rigging.mode_periods_s[0]", Crew: "full swing time, slow swing", Technical: "first mode period (linear)",
 		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[0] })},
 	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",

@@ -47,6 +47,7 @@ var Ranges = map[string]Range{
 	"wind.toward_deg":            {Min: -360, Max: 360, Unit: "deg"},
 	"wind.start_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
 	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s"},
+	"wind.ramp_s":                {Min: 0, Max: 600, Unit: "s"},
 
 	"initial.swing_deg":          {Min: 0, Max: 89, Unit: "deg"},
 	"initial.toward_deg":         {Min: -360, Max: 360, Unit: "deg"},
@@ -279,4 +280,5 @@ func (w *Wind) validate(c *checker, area float64) {
 	c.value("wind.toward_deg", "wind.toward_deg", w.TowardDeg)
 	c.value("wind.start_s", "wind.start_s", w.StartS)
 	c.value("wind.duration_s", "wind.duration_s", w.DurationS)
+	c.value("wind.ramp_s", "wind.ramp_s", w.RampS)
 }

@@ -50,6 +50,11 @@ type Result struct {
 	// steady lean under it, atan(F/(m*g)).
 	WindForceN  float64 `json:"wind_force_n"`
 	WindLeanDeg float64 `json:"wind_lean_deg"`
+	// WindDampingRatio is the damping ratio the air drag gives a small
+	// swing along the wind about the steady lean (linearised drag on the
+	// speed relative to the air; Air.DampingRatio); across the wind it is
+	// about half. Zero without wind and drag, and with a hook block.
+	WindDampingRatio float64 `json:"wind_damping_ratio,omitempty"`
 	// WindOffsetM is how far the load hangs off plumb in the steady wind
 	// (WindOffsetM, at the rope length at the end of the run).
 	WindOffsetM float64 `json:"wind_offset_m"`
@@ -159,7 +164,7 @@ var Assumptions = []string{
 	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
 	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
 	"The load does not spin. Swing of the load relative to the hook is modelled only when hook block and rigging are entered (two point masses); otherwise hook and load swing as one.",
-	"Wind is a steady horizontal force on the load; gusts are sudden steps; air drag, if set, is quadratic in the load's speed.",
+	"Wind is a steady horizontal force once risen (a gust is a step or a ramp); air drag, if set, acts on the speed relative to the air.",
 	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
 }
 
@@ -234,6 +239,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	}
 	if res.Phases == nil {
 		res.Phases = []Phase{}
+	}
+	if s.Load.Hook == nil {
+		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
 	sc := newScanner(su.model, su.motionEnd)
 	if opt.MaxSteps > 0 {

@@ -40,10 +40,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
 	sheetUnits := fs.String("units", "si", "with -sheet: the unit system of the sheet, si or us")
 	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
+	ropeLength := fs.Bool("ropelength", false, "find the rope length from heights or a timed swing: each argument is a question as JSON text or a .json file")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
+		fmt.Fprintln(stderr, `       swaysheet -ropelength '{"timed": {"swings": 10, "time_s": 86}}' ...`)
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -58,6 +60,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	if *planning {
 		return runPlans(fs.Args(), *planJSON, stdout, stderr)
+	}
+	if *ropeLength {
+		return runRopeLength(fs.Args(), stdout, stderr)
 	}
 	status := 0
 	for _, name := range fs.Args() {
