@@ -180,7 +180,11 @@ type Limits struct {
 	PeakSwingDeg     *float64 `json:"peak_swing_deg,omitempty"`
 	PeakExcursionM   *float64 `json:"peak_excursion_m,omitempty"`
 	ResidualSwingDeg *float64 `json:"residual_swing_deg,omitempty"`
-	TensionFactor    *float64 `json:"tension_factor,omitempty"`
+	// ResidualExcursionM is the residual swing allowed as a distance of
+	// the load from straight below the suspension point (a landing
+	// tolerance).
+	ResidualExcursionM *float64 `json:"residual_excursion_m,omitempty"`
+	TensionFactor      *float64 `json:"tension_factor,omitempty"`
 }
 
 // Settings tune the computation; the zero value is the default.

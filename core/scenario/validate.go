@@ -54,10 +54,11 @@ var Ranges = map[string]Range{
 	"initial.velocity_x_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 	"initial.velocity_y_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 
-	"limits.peak_swing_deg":     {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.peak_excursion_m":   {Min: 0, Max: 100, Unit: "m", OpenMin: true},
-	"limits.residual_swing_deg": {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.tension_factor":     {Min: 1, Max: 10, Unit: ""},
+	"limits.peak_swing_deg":       {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.peak_excursion_m":     {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.residual_swing_deg":   {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.residual_excursion_m": {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.tension_factor":       {Min: 1, Max: 10, Unit: ""},
 
 	"settings.rel_tol":        {Min: 1e-13, Max: 1e-3, Unit: ""},
 	"settings.settle_periods": {Min: 2, Max: 50, Unit: "periods"},
@@ -190,6 +191,7 @@ func (s *Scenario) Validate() error {
 		c.optional("limits.peak_swing_deg", "limits.peak_swing_deg", l.PeakSwingDeg)
 		c.optional("limits.peak_excursion_m", "limits.peak_excursion_m", l.PeakExcursionM)
 		c.optional("limits.residual_swing_deg", "limits.residual_swing_deg", l.ResidualSwingDeg)
+		c.optional("limits.residual_excursion_m", "limits.residual_excursion_m", l.ResidualExcursionM)
 		c.optional("limits.tension_factor", "limits.tension_factor", l.TensionFactor)
 	}
 	if st := s.Settings; st != nil {

@@ -134,6 +134,9 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// General integrates on the general path even when the specialised
+	// single-rope path fits the scenario (fast.go; for tests and the bench).
+	General bool
 	// Validated says the caller has validated the scenario and not
 	// changed it since (scenario.Parse and Decode validate): it is not
 	// validated again.
@@ -240,27 +243,20 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if res.Phases == nil {
 		res.Phases = []Phase{}
 	}
-	if s.Load.Hook == nil {
+	if s.Load.Hook == nil && s.Load.Body == nil { // one rope and a point load only
 		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
-	}
-	sc := newScanner(su.model, su.motionEnd)
-	if opt.MaxSteps > 0 {
-		sc.maxSteps = opt.MaxSteps
 	}
 	if rigid != nil {
 		res.Assumptions = bodyAssumptions()
 		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
 		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
 	}
+	var hist *History
 	if !opt.NoHistory {
-		if rigid != nil {
-			sc.bodyHist = &BodyHistory{}
-		}
-		sc.hist = &res.History
-		sc.sampleDt = tEnd / float64(samples-1)
-		sc.samples = samples
+		hist = &res.History
 	}
-	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
+	sc, general, stats, err := integrate(su, opt, hist, tEnd, relTol, samples)
+	if err != nil {
 		return nil, err
 	}
 	res.PeakSwingDeg = swingRad(sc.ext[qSwing].max) / units.Degree
@@ -283,18 +279,17 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
 	if rigid != nil {
-		if err := body(s, rigid, bodyMd, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := body(s, rigid, bodyMd, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
-		res.Body.History = sc.bodyHist
+		res.Body.History = general.bodyHist
 	}
-	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
-		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
+	res.Solver = stats
 
 	res.Checks, res.Warnings = checks(s, res, res.Warnings)
 	return res, nil
@@ -336,6 +331,7 @@ func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) 
 		add("peak_swing_deg", "Peak swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
 		add("peak_excursion_m", "Peak excursion", r.PeakExcursionM, l.PeakExcursionM, "m")
 		add("residual_swing_deg", "Residual swing", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("residual_excursion_m", "Residual excursion", r.ResidualExcursionM, l.ResidualExcursionM, "m")
 		add("tension_factor", "Tension factor", r.TensionFactor, l.TensionFactor, "")
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
 			warn = append(warn, fmt.Sprintf("The wind alone leans the rope %.3g deg, more than the plan's swing limit of %.3g deg: no drive setting can keep the load inside it. Wait for less wind or change the limit.", r.WindLeanDeg, *l.PeakSwingDeg))
