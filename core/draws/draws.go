@@ -110,47 +110,60 @@ func Run(s *scenario.Scenario, req Request, workers int) (*Result, error) {
 	if count == 0 {
 		count = req.Runs - req.First
 	}
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
 	res := &Result{First: req.First, Runs: count}
 	f := &res.Figures
 	f.PeakSwingDeg = make([]float64, count)
 	f.PeakExcursionM = make([]float64, count)
 	f.ResidualSwingDeg = make([]float64, count)
 	f.TensionFactor = make([]float64, count)
-	errs := make([]error, count)
+	err := Each(count, workers, func(i int) error {
+		r, err := sway.EvaluateWith(Draw(s, req.Spread, req.Seed, req.First+i), sway.Options{NoHistory: true})
+		if err != nil {
+			return fmt.Errorf("draw %d of seed %d: %w", req.First+i, req.Seed, err)
+		}
+		f.PeakSwingDeg[i] = r.PeakSwingDeg
+		f.PeakExcursionM[i] = r.PeakExcursionM
+		f.ResidualSwingDeg[i] = r.ResidualSwingDeg
+		f.TensionFactor[i] = r.TensionFactor
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	res.Summary = Summarise(f)
+	return res, nil
+}
+
+// Each calls f(i) for i in [0, n) on workers goroutines (zero: one per
+// processor). When calls fail it returns the error of the lowest i, so
+// the answer does not depend on the order the goroutines run in.
+func Each(n, workers int, f func(i int) error) error {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	errs := make([]error, n)
 	var wg sync.WaitGroup
 	next := make(chan int, workers)
-	for range min(workers, count) {
+	for range min(workers, n) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				r, err := sway.EvaluateWith(Draw(s, req.Spread, req.Seed, req.First+i), sway.Options{NoHistory: true})
-				if err != nil {
-					errs[i] = err
-					continue
-				}
-				f.PeakSwingDeg[i] = r.PeakSwingDeg
-				f.PeakExcursionM[i] = r.PeakExcursionM
-				f.ResidualSwingDeg[i] = r.ResidualSwingDeg
-				f.TensionFactor[i] = r.TensionFactor
+				errs[i] = f(i)
 			}
 		}()
 	}
-	for i := range count {
+	for i := range n {
 		next <- i
 	}
 	close(next)
 	wg.Wait()
-	for i, err := range errs {
+	for _, err := range errs {
 		if err != nil {
-			return nil, fmt.Errorf("draw %d of seed %d: %w", req.First+i, req.Seed, err)
+			return err
 		}
 	}
-	res.Summary = Summarise(f)
-	return res, nil
+	return nil
 }
 
 func check(s *scenario.Scenario, req Request) error {
