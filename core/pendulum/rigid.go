@@ -362,44 +362,6 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 	return z, lam
 }
 
-func dot9(a, b [9]float64) float64 {
-	s := 0.0
-	for i := range 9 {
-		s += a[i] * b[i]
-	}
-	return s
-}
-
-// solve3 solves the leading n by n block of a x = b by Gaussian
-// elimination with partial pivoting (n <= 3).
-func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
-	for c := range n {
-		p := c
-		for i := c + 1; i < n; i++ {
-			if math.Abs(a[i][c]) > math.Abs(a[p][c]) {
-				p = i
-			}
-		}
-		a[c], a[p] = a[p], a[c]
-		b[c], b[p] = b[p], b[c]
-		for i := c + 1; i < n; i++ {
-			m := a[i][c] / a[c][c]
-			for k := c; k < n; k++ {
-				a[i][k] -= m * a[c][k]
-			}
-			b[i] -= m * b[c]
-		}
-	}
-	for i := n - 1; i >= 0; i-- {
-		s := b[i]
-		for k := i + 1; k < n; k++ {
-			s -= a[i][k] * x[k]
-		}
-		x[i] = s / a[i][i]
-	}
-	return x
-}
-
 // Func implements System.
 func (r *Rigid) Func(t float64, y, dy []float64) {
 	f := r.frameOf(t, y)
