@@ -94,8 +94,8 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
 	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/ropelength
 
-# Regenerate testdata/reference/results.json and results_double.json (hook
-# block and rigging) with SciPy (Debian's
+# Regenerate testdata/reference/results.json, results_double.json (hook
+# block and rigging) and results_rigid.json (rigid loads) with SciPy (Debian's
 # python3-scipy, installed when missing). The tests read the committed file
 # and need no Python.
 PYTHON_REF ?= /usr/bin/python3
@@ -107,6 +107,7 @@ scipy-deps:
 
 reference: scipy-deps
 	$(PYTHON_REF) testdata/reference/double.py generate
+	$(PYTHON_REF) testdata/reference/rigid.py generate
 	$(PYTHON_REF) testdata/reference/reference.py generate
 
 # The planner's moves as reference scenarios (testdata/reference/scenarios/

@@ -78,6 +78,9 @@ type Load struct {
 	// masses (a double pendulum). Then RopeLengthM runs to the hook block's
 	// centre of mass and MassKg is the rigged load without the hook block.
 	Hook *Hook `json:"hook,omitempty"`
+	// Body, when present, models the load as a rigid box on a sling set
+	// (see body.go); RopeLengthM then runs to the hook.
+	Body *Body `json:"body,omitempty"`
 }
 
 // Hook is the hook block and the rigging below it.

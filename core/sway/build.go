@@ -117,6 +117,14 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	if air != nil {
 		force = func(t float64, _, vel r3.Vec) r3.Vec { return air.Force(t, vel) }
 	}
+	if s.Load.Body != nil {
+		r, y0, err := rigidModel(s, susp, rope, force, ax[crane.Turn])
+		if err != nil {
+			return nil, err
+		}
+		su.model, su.y0, su.breaks = r, y0, breaks
+		return su, nil
+	}
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}

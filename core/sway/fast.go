@@ -37,6 +37,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
 		rec.reserve()
+		if _, ok := su.model.(*pendulum.Rigid); ok {
+			rec.bodyHist = &BodyHistory{}
+		}
 	}
 	maxN := maxSteps
 	if opt.MaxSteps > 0 {

@@ -46,7 +46,10 @@ type scanner struct {
 
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	nq := qRigAngle
-	if _, ok := m.(*pendulum.Double); ok {
+	switch m.(type) {
+	case *pendulum.Double:
+		nq = qTilt
+	case *pendulum.Rigid:
 		nq = nQuantities
 	}
 	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, maxSteps: maxSteps, y: make([]float64, m.Len())}
@@ -76,7 +79,13 @@ const (
 	qRopeSwing // the rope's own angle from the vertical
 	qRigTension
 	qRigTensionLow
-	nQuantities
+	// With a rigid load (values from Point.Body):
+	qTilt                  // the load's tilt, rad
+	qTwist                 // |twist|, rad
+	qCorner                // square of the largest corner swing
+	qLeg                   // tension of legs 0 to 3
+	qLegLow     = qLeg + 4 // minus the tension of legs 0 to 3
+	nQuantities = qLegLow + 4
 )
 
 // value is the quantity q at p, or a cheaper quantity that rises and falls
@@ -100,9 +109,10 @@ func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 		return oneMinusCos(p.Dir, r3.Vec{Z: -1})
 	case qRigTension:
 		return p.RiggingTension
-	default:
+	case qRigTensionLow:
 		return -p.RiggingTension
 	}
+	return bodyValue(q, p.Body)
 }
 
 // oneMinusCos is 1 - cos of the angle between d and the unit vector e:
@@ -402,7 +412,8 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 
 // recorder writes the evenly spaced history samples of a run.
 type recorder struct {
-	hist     *History // nil: no history
+	hist     *History     // nil: no history
+	bodyHist *BodyHistory // with a rigid load's history
 	sampleDt float64
 	samples  int
 	next     int // index of the next history sample
@@ -435,6 +446,9 @@ func (s *recorder) record(p *pendulum.Point) {
 	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
+	if s.bodyHist != nil {
+		s.bodyHist.add(p)
+	}
 	s.next++
 }
 
