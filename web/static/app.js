@@ -11,50 +11,79 @@
 
   var worker = null, nextId = 1, waiting = {}, restarts = [];
 
+  // DEADLINES: how long (ms) a call may go unanswered before the engine is
+  // taken as stuck or gone (a worker can end without an error event). The
+  // first calls wait for the engine to start; a plan simulates many moves.
+  var DEADLINES = { plan: 180000, evaluate: 90000, sheet: 90000, other: 60000 };
+
   function startWorker() {
     worker = new Worker(window.swaysheetWorkerURL || 'worker.js');
     worker.onmessage = function (e) {
       var m = e.data;
-      if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message); return; }
+      if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message, 'failed'); return; }
       var w = waiting[m.id];
       delete waiting[m.id];
-      if (w) w(JSON.parse(m.out));
+      if (w) { clearTimeout(w.timer); w.resolve(JSON.parse(m.out)); }
     };
     worker.onerror = function (e) {
       if (e.preventDefault) e.preventDefault();
-      engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.');
+      engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.', 'failed');
     };
   }
 
-  // engineStopped answers every call still waiting with an error, and
-  // starts a fresh engine (at most three times a minute; after that the
-  // page asks for a reload). The inputs, results and saved scenarios stay.
-  function engineStopped(msg) {
+  // engineStopped answers every call still waiting with an error, ends the
+  // worker and starts a fresh one. how is 'failed' (the engine broke: the
+  // results are computed again, at most three times a minute; after that
+  // the page asks for a reload), 'timeout' (a call was not answered in
+  // time) or 'cancelled' (the person pressed Cancel): the inputs, the last
+  // valid results and the saved scenarios stay.
+  function engineStopped(msg, how) {
     var pending = waiting;
     waiting = {};
+    var tail = how === 'cancelled' ? '' : ' The calculation was not finished.';
     Object.keys(pending).forEach(function (id) {
-      pending[id]({ error: { message: msg + ' The calculation was not finished.', fields: [] } });
+      clearTimeout(pending[id].timer);
+      pending[id].resolve({ error: { message: msg + tail, fields: [], stopped: how } });
     });
     try { worker.terminate(); } catch (e) { /* already gone */ }
-    var now = Date.now();
-    restarts = restarts.filter(function (t) { return now - t < 60000; });
-    if (restarts.length >= 3) {
-      engineError(msg + ' It stopped again; reload the page (your inputs and saved scenarios are kept).');
-      return;
+    if (how === 'failed') {
+      var now = Date.now();
+      restarts = restarts.filter(function (t) { return now - t < 60000; });
+      if (restarts.length >= 3) {
+        engineError(msg + ' It stopped again; reload the page (your inputs and saved scenarios are kept).');
+        return;
+      }
+      restarts.push(now);
     }
-    restarts.push(now);
     startWorker();
-    notice('\u26A0 ' + msg + ' It has been restarted; the results are computed again.');
-    setTimeout(function () { if (typeof evaluate === 'function') evaluate(); }, 0);
+    if (how === 'failed') {
+      notice('\u26A0 ' + msg + ' It has been restarted; the results are computed again.');
+      setTimeout(function () { if (typeof evaluate === 'function') evaluate(); }, 0);
+    } else if (how === 'timeout') {
+      notice('\u26A0 ' + msg + ' It has been stopped and restarted; your inputs are kept. Change an input to compute again.');
+    } else {
+      notice('\u2716 ' + msg);
+    }
   }
 
-  // call runs a core call; it resolves to {result} or {error}.
+  // call runs a core call; it resolves to {result} or {error}. A call not
+  // answered within its deadline ends the worker (see engineStopped).
   function call(name, input) {
     return new Promise(function (resolve) {
-      var id = nextId++;
-      waiting[id] = resolve;
+      var id = nextId++, ms = DEADLINES[name] || DEADLINES.other;
+      waiting[id] = {
+        resolve: resolve,
+        timer: setTimeout(function () {
+          if (waiting[id]) engineStopped('The calculation engine did not answer within ' + Math.round(ms / 1000) + ' s (' + name + ').', 'timeout');
+        }, ms)
+      };
       worker.postMessage({ id: id, name: name, input: input === undefined ? '' : input });
     });
+  }
+
+  // cancel stops whatever the engine is doing (a fresh one is started).
+  function cancel() {
+    engineStopped('The calculation was cancelled; your inputs are kept and the results shown are for earlier inputs.', 'cancelled');
   }
 
   function engineError(msg) {
@@ -445,7 +474,7 @@
       var boxes = document.querySelectorAll('[data-field="' + cssEsc(path) + '"]');
       // A list's item (plan.pendant_steps_pct[2]) is shown at the list.
       if (!boxes.length) boxes = document.querySelectorAll('[data-field="' + cssEsc(path.replace(/\[\d+\]$/, '')) + '"]');
-      if (!boxes.length) { general.push(path + ': ' + msg); return; }
+      if (!boxes.length) { general.push(path === '(inputs)' ? msg : path + ': ' + msg); return; }
       boxes.forEach(function (box) {
         var p = box.querySelector('.msg');
         p.textContent = (p.textContent ? p.textContent + ' ' : '') + '\u2716 ' + msg;
@@ -485,19 +514,32 @@
 
   // ------------------------------------------------------------ evaluate
 
-  var timer = null, busy = false, again = false, progressTimer = null;
+  var timer = null, busy = false, again = false, progressTimer = null, cancelTimer = null;
 
   function changed() {
-    saveCurrent();
     updateBanner();
     if (window.SwayPlan) window.SwayPlan.changed();
     clearTimeout(timer);
     S.waiting = true;
-    timer = setTimeout(function () { S.waiting = false; evaluate(); }, 30);
+    timer = setTimeout(function () { S.waiting = false; keepCurrent(); evaluate(); }, 30);
   }
 
   function noResults() {
     if (!S.result) $('headline').innerHTML = '<p class="waiting">\u2716 No results yet: correct the marked fields.</p>';
+  }
+
+  // showProgress shows "Computing" after a moment and its Cancel button
+  // when the work runs over a second.
+  function showProgress(on) {
+    clearTimeout(progressTimer);
+    clearTimeout(cancelTimer);
+    if (!on) {
+      $('progress').hidden = true;
+      $('cancel-calc').hidden = true;
+      return;
+    }
+    progressTimer = setTimeout(function () { $('progress').hidden = false; document.body.dataset.state = 'computing'; }, 120);
+    cancelTimer = setTimeout(function () { $('cancel-calc').hidden = false; }, 1000);
   }
 
   function evaluate() {
@@ -512,14 +554,15 @@
     busy = true;
     var sent = JSON.stringify(S.scenario);
     S.lastSent = sent;
-    clearTimeout(progressTimer);
-    progressTimer = setTimeout(function () { $('progress').hidden = false; document.body.dataset.state = 'computing'; }, 120);
+    showProgress(true);
     call('evaluate', sent).then(function (r) {
       busy = false;
       S.lastDone = sent;
-      clearTimeout(progressTimer);
-      $('progress').hidden = true;
+      showProgress(false);
       document.body.dataset.state = 'ready';
+      // Stopped or cancelled: the inputs changed meanwhile are not computed
+      // until the next change.
+      if (r.error && r.error.stopped && r.error.stopped !== 'failed') again = false;
       if (again) { again = false; evaluate(); return; }
       if (r.error) {
         S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
@@ -670,10 +713,21 @@
   function store() {
     try { return window.localStorage; } catch (e) { return null; }
   }
-  function saveCurrent() {
+  // keepCurrent keeps the inputs in this browser once the core has read
+  // them: the kept inputs are always a scenario the page can show again
+  // (a value the core rejects is not kept; the one before it is).
+  var keepSeq = 0, keptSeq = 0;
+  function keepCurrent() {
     var st = store();
     if (!st) return;
-    try { st.setItem(CURRENT, JSON.stringify(S.scenario)); } catch (e) { notice('The inputs could not be kept in this browser: ' + e.message); }
+    var text = JSON.stringify(S.scenario), my = ++keepSeq;
+    S.keeping = (S.keeping || 0) + 1;
+    call('validate', text).then(function (r) {
+      S.keeping--;
+      if (r.error || my < keptSeq) return;
+      keptSeq = my;
+      try { st.setItem(CURRENT, text); } catch (e) { notice('The inputs could not be kept in this browser: ' + e.message); }
+    });
   }
   function saveUnits() {
     var st = store();
@@ -684,22 +738,29 @@
     return o && typeof o === 'object' && !Array.isArray(o) && o.format === 'swaysheet-scenario';
   }
 
-  // savedEntries lists the saved scenarios; damaged ones are listed as
-  // such and left alone.
+  // savedEntries lists the saved scenarios. An entry that cannot be read
+  // (or was kept as damaged, see keepDamaged) is listed as damaged with its
+  // raw text; the others are not affected.
   function savedEntries() {
     var st = store(), out = [];
     if (!st) return out;
     for (var i = 0; i < st.length; i++) {
       var k = st.key(i);
       if (!k || k.indexOf(SAVED) !== 0) continue;
-      var name = k.slice(SAVED.length), e = { name: name, key: k };
+      var name = k.slice(SAVED.length), raw = st.getItem(k), e = { name: name, key: k, raw: raw };
       try {
-        var o = JSON.parse(st.getItem(k));
-        if (!o || !looksLikeScenario(o.scenario)) throw new Error('not a scenario');
-        e.scenario = o.scenario;
-        e.saved_at = o.saved_at;
+        var o = JSON.parse(raw);
+        if (o && typeof o.damaged === 'string') {
+          e.damaged = o.damaged;
+          e.raw = typeof o.raw === 'string' ? o.raw : raw;
+        } else {
+          if (!o || !looksLikeScenario(o.scenario)) throw new Error('not a scenario');
+          if (o.saved_at !== undefined && typeof o.saved_at !== 'string') throw new Error('its date is not a date');
+          e.scenario = o.scenario;
+          e.saved_at = o.saved_at;
+        }
       } catch (err) {
-        e.damaged = err.message;
+        e.damaged = 'the stored entry cannot be read: ' + err.message;
       }
       out.push(e);
     }
@@ -707,17 +768,39 @@
     return out;
   }
 
+  // keepDamaged keeps text the page could not use among the saved
+  // scenarios, listed as damaged, so that it can be exported and mended.
+  function keepDamaged(what, text, why) {
+    var st = store();
+    if (!st) return '';
+    var name = what + ' ' + new Date().toISOString().slice(0, 19).replace('T', ' ') + ' (damaged)';
+    try {
+      st.setItem(SAVED + name, JSON.stringify({ saved_at: new Date().toISOString(), damaged: why, raw: text }));
+      return name;
+    } catch (e) { return ''; }
+  }
+
+  function savedRow(e, i) {
+    if (e.damaged) {
+      return '<li class="damaged"><span>\u26A0 \u201C' + esc(e.name) + '\u201D is damaged (' + esc(e.damaged) + ') and cannot be opened.</span>' +
+        '<span class="btns"><button type="button" data-sraw="' + i + '">Export its text</button><button type="button" data-sdel="' + i + '">Delete</button></span></li>';
+    }
+    return '<li><span><b>' + esc(e.name) + '</b><br><small>' + esc(String(e.scenario.name || '')) + (e.saved_at ? ' \u00B7 saved ' + esc(e.saved_at.replace('T', ' ').slice(0, 16)) : '') + '</small></span>' +
+      '<span class="btns"><button type="button" data-sopen="' + i + '">Open</button>' +
+      '<button type="button" data-sren="' + i + '">Rename</button>' +
+      '<button type="button" data-sdel="' + i + '">Delete</button></span></li>';
+  }
+
   function renderSaved() {
     var list = savedEntries();
     $('saved-list').innerHTML = list.length ? list.map(function (e, i) {
-      if (e.damaged) {
-        return '<li class="damaged"><span>\u26A0 \u201C' + esc(e.name) + '\u201D cannot be read (the stored entry is damaged) and was skipped.</span>' +
-          '<span class="btns"><button type="button" data-sdel="' + i + '">Delete</button></span></li>';
+      try {
+        return savedRow(e, i);
+      } catch (err) {
+        e.damaged = 'it cannot be shown: ' + err.message;
+        e.scenario = null;
+        return savedRow(e, i);
       }
-      return '<li><span><b>' + esc(e.name) + '</b><br><small>' + esc(e.scenario.name || '') + (e.saved_at ? ' \u00B7 saved ' + esc(e.saved_at.replace('T', ' ').slice(0, 16)) : '') + '</small></span>' +
-        '<span class="btns"><button type="button" data-sopen="' + i + '">Open</button>' +
-        '<button type="button" data-sren="' + i + '">Rename</button>' +
-        '<button type="button" data-sdel="' + i + '">Delete</button></span></li>';
     }).join('') : '<li class="empty">Nothing saved yet.</li>';
     $('saved-list').entries = list;
   }
@@ -749,8 +832,13 @@
       var el = e.target, list = $('saved-list').entries || [], st = store();
       if (el.dataset.sopen !== undefined) {
         var en = list[Number(el.dataset.sopen)];
-        load(JSON.parse(JSON.stringify(en.scenario)), 'Opened \u201C' + en.name + '\u201D.');
-        $('dlg-saved').close();
+        adopt(JSON.stringify(en.scenario), '\u201C' + en.name + '\u201D', 'Opened \u201C' + en.name + '\u201D.').then(function (ok) {
+          if (ok) $('dlg-saved').close();
+          else $('save-msg').textContent = $('notice').textContent;
+        });
+      } else if (el.dataset.sraw !== undefined) {
+        var ed = list[Number(el.dataset.sraw)];
+        download(ed.raw, ed.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) + '.txt', 'text/plain');
       } else if (el.dataset.sren !== undefined) {
         var e1 = list[Number(el.dataset.sren)];
         var li = el.closest('li');
@@ -790,18 +878,50 @@
 
   // ------------------------------------------------ load, export, import
 
+  // load shows a scenario the core has read (see adopt). Should the form
+  // still fail to show it, the inputs before it are put back.
   function load(sc, msg) {
+    var prev = { scenario: S.scenario, bad: S.bad, coreErrors: S.coreErrors, windStash: S.windStash, hookStash: S.hookStash };
     S.scenario = sc;
     S.bad = {};
     S.coreErrors = [];
     S.windStash = null;
     S.hookStash = null;
     if (!Array.isArray(S.scenario.motions)) S.scenario.motions = [];
-    renderForm();
+    S.loads = (S.loads || 0) + 1;
+    try {
+      renderForm();
+    } catch (e) {
+      Object.keys(prev).forEach(function (k) { S[k] = prev[k]; });
+      renderForm();
+      notice('\u2716 The scenario could not be shown (' + e.message + '); the previous inputs are kept.');
+      return false;
+    }
     updateBanner();
     if (msg) notice(msg);
     changed();
     if (window.SwayPlan) window.SwayPlan.loaded();
+    return true;
+  }
+
+  // adopt loads scenario text from outside the form (a link, a file, a
+  // saved entry) only when the core reads it: what the core rejects leaves
+  // the inputs as they were, with the core's message. before runs just
+  // before the inputs are replaced.
+  function adopt(text, source, okMsg, before) {
+    var o, fail = function (why) {
+      notice('\u2716 ' + source + ' does not hold a readable scenario (' + why + '); the previous inputs are kept.');
+      return false;
+    };
+    try { o = JSON.parse(text); } catch (e) { return Promise.resolve(fail(e.message)); }
+    if (!looksLikeScenario(o)) return Promise.resolve(fail('its "format" is not "swaysheet-scenario"'));
+    S.adopting = (S.adopting || 0) + 1;
+    return call('validate', text).then(function (r) {
+      S.adopting--;
+      if (r.error) return fail(r.error.message);
+      if (before) before(o);
+      return load(o, okMsg);
+    });
   }
 
   function notice(msg) {
@@ -817,30 +937,29 @@
     return (n || 'scenario').slice(0, 60) + '.json';
   }
 
+  function download(text, name, type) {
+    var blob = new Blob([text], { type: type });
+    var a = document.createElement('a');
+    a.href = URL.createObjectURL(blob);
+    a.download = name;
+    document.body.appendChild(a);
+    a.click();
+    setTimeout(function () { URL.revokeObjectURL(a.href); a.remove(); }, 1000);
+  }
+
   function bindFiles() {
     $('do-export').onclick = function () {
-      var blob = new Blob([JSON.stringify(S.scenario, null, 2) + '\n'], { type: 'application/json' });
-      var a = document.createElement('a');
-      a.href = URL.createObjectURL(blob);
-      a.download = fileName();
-      document.body.appendChild(a);
-      a.click();
-      setTimeout(function () { URL.revokeObjectURL(a.href); a.remove(); }, 1000);
-      notice('Exported ' + a.download + '.');
+      var name = fileName();
+      download(JSON.stringify(S.scenario, null, 2) + '\n', name, 'application/json');
+      notice('Exported ' + name + '.');
     };
     $('import-file').onchange = function (e) {
       var f = e.target.files && e.target.files[0];
       if (!f) return;
       var rd = new FileReader();
       rd.onload = function () {
-        var text = String(rd.result);
         e.target.value = '';
-        var o;
-        try { o = JSON.parse(text); } catch (err) { notice('\u2716 ' + f.name + ' is not a scenario file: ' + err.message); return; }
-        if (!looksLikeScenario(o)) { notice('\u2716 ' + f.name + ' is not a swaysheet scenario (its "format" is not "swaysheet-scenario").'); return; }
-        call('validate', text).then(function (r) {
-          load(o, 'Imported ' + f.name + '.' + (r.error ? ' It has problems; see the marked fields.' : ''));
-        });
+        adopt(String(rd.result), f.name, 'Imported ' + f.name + '.');
       };
       rd.onerror = function () { notice('\u2716 ' + f.name + ' could not be read.'); };
       rd.readAsText(f);
@@ -857,51 +976,41 @@
     var b = atob(s.replace(/-/g, '+').replace(/_/g, '/'));
     var bytes = new Uint8Array(b.length);
     for (var i = 0; i < b.length; i++) bytes[i] = b.charCodeAt(i);
-    return JSON.parse(new TextDecoder().decode(bytes));
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   }
   function shareURL() {
     return location.href.split('#')[0] + '#s=' + encodeShare(S.scenario);
   }
 
-  function fromHash() {
-    var m = /^#s=([A-Za-z0-9_-]+)$/.exec(location.hash);
-    if (!m) return null;
-    try {
-      var o = decodeShare(m[1]);
-      if (!looksLikeScenario(o)) throw new Error('no scenario in it');
-      return o;
-    } catch (e) {
-      notice('\u2716 The link does not hold a readable scenario (' + e.message + '); the previous inputs are kept.');
-      return null;
-    }
-  }
-
   // openLink loads the scenario of the URL fragment, first keeping the
-  // inputs it replaces among the saved scenarios.
+  // inputs it replaces among the saved scenarios. It returns whether the
+  // fragment was a link of the page's.
   function openLink() {
-    // #z= links: the check sheet's QR code (the scenario's canonical JSON,
-    // compressed; read by the core's "unshare" call).
-    if (/^#z=[A-Za-z0-9_-]+$/.test(location.hash)) {
-      var frag = location.hash;
-      history.replaceState(null, '', location.href.split('#')[0]);
+    var frag = location.hash, z = /^#z=[A-Za-z0-9_-]+$/.test(frag), m = /^#s=([A-Za-z0-9_-]+)$/.exec(frag);
+    if (!z && !m) return false;
+    history.replaceState(null, '', location.href.split('#')[0]);
+    var okMsg = 'Opened the scenario from the link.';
+    if (z) {
+      // #z= links: the check sheet's QR code (the scenario's canonical JSON,
+      // compressed; read by the core's "unshare" call).
+      S.adopting = (S.adopting || 0) + 1;
       call('unshare', frag).then(function (r) {
+        S.adopting--;
         if (r.error) {
           notice('\u2716 The link does not hold a readable scenario (' + r.error.message + '); the previous inputs are kept.');
-          renderForm();
-          updateBanner();
-          changed();
           return;
         }
-        keepBeforeLink(r.result);
-        load(r.result, 'Opened the scenario from the link.');
+        adopt(JSON.stringify(r.result), 'The link', okMsg, keepBeforeLink);
       });
       return true;
     }
-    var o = fromHash();
-    if (!o) return false;
-    history.replaceState(null, '', location.href.split('#')[0]);
-    keepBeforeLink(o);
-    load(o, 'Opened the scenario from the link.');
+    var text;
+    try { text = decodeShare(m[1]); } catch (e) { text = null; }
+    if (text === null) {
+      notice('\u2716 The link does not hold a readable scenario (it is not base64url-encoded UTF-8 text); the previous inputs are kept.');
+      return true;
+    }
+    adopt(text, 'The link', okMsg, keepBeforeLink);
     return true;
   }
 
@@ -989,33 +1098,65 @@
       var st = store();
       try {
         var u = st && JSON.parse(st.getItem(UNITS) || 'null');
-        if (u && u.chosen) { S.sys = u.sys; Object.keys(u.chosen).forEach(function (k) { S.chosen[k] = u.chosen[k]; }); }
+        if (u && u.chosen && typeof u.chosen === 'object') { S.sys = u.sys; Object.keys(u.chosen).forEach(function (k) { S.chosen[k] = u.chosen[k]; }); }
       } catch (e) { /* default units */ }
-      var cur = null;
-      try { cur = st && JSON.parse(st.getItem(CURRENT) || 'null'); } catch (e) { cur = null; }
-      if (!looksLikeScenario(cur)) {
-        if (cur !== null) notice('The inputs kept from last time could not be read; the example is shown instead.');
-        cur = null;
-      }
-      S.scenario = cur || demo();
-      if (!S.scenario) { engineError('No scenario to show: the example library could not be read.'); return; }
-      if (!Array.isArray(S.scenario.motions)) S.scenario.motions = [];
-      renderSys();
-      if (!openLink()) {
-        renderForm();
-        updateBanner();
-        changed();
-        if (window.SwayPlan) window.SwayPlan.loaded();
-      }
-      document.body.dataset.state = 'ready';
+      readCurrent(st).then(function (cur) {
+        if (!cur || !show(cur)) {
+          if (cur) damagedCurrent(JSON.stringify(cur), 'the page could not show them');
+          if (!show(demo())) { engineError('No scenario to show: the example library could not be read.'); return; }
+        }
+        renderSys();
+        openLink();
+        document.body.dataset.state = 'ready';
+      });
     });
   }
+
+  // show puts a scenario into the empty page at the start; false when the
+  // form cannot show it.
+  function show(sc) {
+    if (!sc) return false;
+    S.scenario = sc;
+    if (!Array.isArray(S.scenario.motions)) S.scenario.motions = [];
+    try {
+      renderForm();
+    } catch (e) {
+      return false;
+    }
+    updateBanner();
+    changed();
+    if (window.SwayPlan) window.SwayPlan.loaded();
+    return true;
+  }
+
+  // readCurrent reads the inputs kept from last time, when the core reads
+  // them; damaged ones are kept among the saved scenarios (null).
+  function readCurrent(st) {
+    var text = null, o;
+    try { text = st ? st.getItem(CURRENT) : null; } catch (e) { text = null; }
+    if (text === null) return Promise.resolve(null);
+    try { o = JSON.parse(text); } catch (e) { return Promise.resolve(damagedCurrent(text, 'not readable: ' + e.message)); }
+    if (!looksLikeScenario(o)) return Promise.resolve(damagedCurrent(text, 'not a swaysheet scenario'));
+    return call('validate', text).then(function (r) {
+      return r.error ? damagedCurrent(text, r.error.message) : o;
+    });
+  }
+
+  function damagedCurrent(text, why) {
+    var kept = keepDamaged('Inputs kept from last time', text, why);
+    notice('\u26A0 The inputs kept from last time could not be used (' + why + '); the example is shown instead.' +
+      (kept ? ' Their text is kept among the saved scenarios as \u201C' + kept + '\u201D.' : ''));
+    return null;
+  }
+
 
   // Print: the check sheet from the core (sheet.js), made fresh first.
   $('do-print').onclick = function () {
     if (window.swaysheetSheet) window.swaysheetSheet.print();
     else window.print();
   };
+
+  $('cancel-calc').onclick = cancel;
 
   $('example-own').onclick = function () {
     delete S.scenario.example;
@@ -1026,7 +1167,7 @@
   // What web/static/plan.js uses of the page: the state, the core's calls
   // and units, the form's field builders.
   window.SwayApp = {
-    S: S, call: call, unitOf: unitOf, toShown: toShown, toSI: toSI, fmtRes: fmtRes, fmtField: fmtField,
+    S: S, call: call, cancel: cancel, unitOf: unitOf, toShown: toShown, toSI: toSI, fmtRes: fmtRes, fmtField: fmtField,
     numField: numField, selectField: selectField, parseNumber: parseNumber, setPath: setPath, getPath: getPath,
     renderForm: renderForm, changed: changed, notice: notice, clearBad: clearBad, showErrors: showErrors,
     keepInSaved: function (why) {
@@ -1045,14 +1186,23 @@
     scenarioJSON: function () { return JSON.stringify(S.scenario); },
     // For the check sheet (sheet.js): a core call, and the units shown.
     call: call,
+    // For the browser tests: the calls' deadlines in ms (they may shorten
+    // them) and Cancel.
+    deadlines: DEADLINES,
+    cancel: cancel,
     units: function () { return S.chosen; },
     system: function () { return S.sys; },
     resultCount: function () { return S.count; },
-    // settled is true when the core has answered for the inputs as they are.
-    settled: function () {
-      return !S.waiting && !busy && !again && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
+    // loads counts the scenarios loaded from outside the form (links,
+    // files, saved entries, examples).
+    loads: function () { return S.loads || 0; },
+    // answered is true when the core has answered for the inputs as they
+    // are; settled (below, completed by sheet.js) also waits for the sheet.
+    answered: function () {
+      return !S.waiting && !busy && !again && !S.adopting && !S.keeping && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
     }
   };
+  window.swaysheet.settled = window.swaysheet.answered;
 
   start();
 })();

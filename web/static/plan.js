@@ -277,6 +277,7 @@
     var box = $('plan-progress');
     box.hidden = !P.running;
     $('plan-run').disabled = P.running;
+    $('plan-cancel').hidden = !(P.running && Date.now() - P.started >= 1000);
     if (P.running) $('plan-progress-text').textContent = 'Planning and checking each option\u2026 ' + Math.floor((Date.now() - P.started) / 1000) + ' s';
   }
 
@@ -542,6 +543,7 @@
 
   function bind() {
     $('plan-run').onclick = run;
+    $('plan-cancel').onclick = function () { A().cancel(); };
     $('plan-out').addEventListener('click', function (e) {
       var b = e.target.closest && e.target.closest('[data-apply]');
       if (b && P.result) apply(Number(b.dataset.apply));
