@@ -5,7 +5,7 @@ import { $ } from './dom.js';
 import { call } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { renderResults, updateBanner } from './results.js';
+import { markStale, renderResults, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
@@ -44,7 +44,7 @@ export function evaluate() {
   if (Object.keys(S.bad).length) {
     S.coreErrors = [];
     showErrors();
-    $('stale').hidden = !S.result;
+    markStale(!!S.result);
     noResults();
     return;
   }
@@ -65,7 +65,7 @@ export function evaluate() {
     if (r.error) {
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
       showErrors();
-      $('stale').hidden = !S.result;
+      markStale(!!S.result);
       noResults();
       return;
     }
@@ -73,7 +73,7 @@ export function evaluate() {
     showErrors();
     S.result = r.result;
     S.count++;
-    $('stale').hidden = true;
+    markStale(false);
     renderResults();
   });
 }

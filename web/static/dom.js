@@ -17,7 +17,8 @@ export function notice(msg) {
   n.textContent = msg;
   n.hidden = false;
   clearTimeout(notice.t);
-  notice.t = setTimeout(function () { n.hidden = true; }, 6000);
+  // A message about something that went wrong stays longer.
+  notice.t = setTimeout(function () { n.hidden = true; }, /^[\u2716\u26A0]/.test(msg) ? 20000 : 6000);
 }
 
 export function download(text, name, type) {

@@ -9,10 +9,11 @@ import { changed, computing } from './compute.js';
 import { $, notice } from './dom.js';
 import { DEADLINES, call, cancel, engineError, startWorker } from './engine.js';
 import { bindForm, renderForm } from './form.js';
-import { bindPlan, planLoaded } from './plan-view.js';
+import { bindPlan, planLoaded, renderPlan } from './plan-view.js';
 import { sheetCurrent } from './sheet.js';
 import './offline.js';
-import { renderAll, renderSys, updateBanner } from './results.js';
+import { P } from './plan-form.js';
+import { renderAll, renderPlots, renderSys, updateBanner } from './results.js';
 import { bindExamples, bindFiles, bindShare, openLink } from './scenarios.js';
 import { S } from './state.js';
 import { CURRENT, UNITS, bindSaved, keepDamaged, looksLikeScenario, saveUnits, store } from './storage.js';
@@ -140,6 +141,17 @@ window.swaysheet = {
 };
 // settled: answered, and the check sheet is that of the last result.
 window.swaysheet.settled = function () { return window.swaysheet.answered() && sheetCurrent(); };
+
+// The charts are drawn at the width they are shown at: again when it
+// changes (a phone turned, a window resized).
+let resizeTimer = null;
+window.addEventListener('resize', function () {
+  clearTimeout(resizeTimer);
+  resizeTimer = setTimeout(function () {
+    if (S.result) renderPlots();
+    if (P.result) renderPlan();
+  }, 150);
+});
 
 bindPlan();
 start();

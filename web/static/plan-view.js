@@ -9,7 +9,7 @@ import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
 import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
 import { S } from './state.js';
-import { chart } from './plot.js';
+import { chart, fitWidth } from './plot.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, toShown } from './units.js';
 
@@ -268,14 +268,14 @@ const CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
 function curves(r) {
   var at = r.curves.accel_time, re = r.curves.rope_error, lim = r.limits || {};
   var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + fmtRes(lim.residual_swing_deg) + ' deg' }] : [];
-  $('plot-plan-ramp').innerHTML = chart({
+  $('plot-plan-ramp').innerHTML = chart({ width: fitWidth($('plot-plan-ramp')),
     id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', xLabel: 'ramp time to top speed (s)', yLabel: 'residual swing (deg)',
     yFromZero: true, hlines: hl, legendTop: true,
     series: at.series.map(function (sr, i) {
       return { x: at.ramp_s, y: sr.residual_deg, label: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), cls: CLS[i % CLS.length] };
     })
   }) + '<figcaption>Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)) + '</figcaption>';
-  $('plot-plan-rope').innerHTML = chart({
+  $('plot-plan-rope').innerHTML = chart({ width: fitWidth($('plot-plan-rope')),
     id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', xLabel: 'rope length error from the tuned length (%)',
     yLabel: 'residual (% of unshaped)', yFromZero: true, legendTop: true,
     bands: [{ x0: re.range_pct[0], x1: re.range_pct[1], text: 'your range' }],

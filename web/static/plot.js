@@ -52,12 +52,15 @@ function extent(series, key, extra) {
 // opt: {title, xLabel, yLabel, series: [{x: [], y: [], label, cls}],
 //       bands: [{x0, x1, text}], hlines: [{y, label}], equal: bool,
 //       circles: [{r, label}], yFromZero: bool, width, height,
-//       legendTop: bool (legend in rows under the title, off the lines)}
+//       legendTop: bool (legend in rows above the plot, off the lines)}
+// The title is HTML above the SVG (it wraps on a narrow screen). Drawn at
+// the width it is shown (see fitWidth), the SVG's text keeps its CSS size.
 export function chart(opt) {
   var W = opt.width || 640, H = opt.height || 300;
-  var m = { l: 72, r: 16, t: 34, b: 56 };
+  var m = { l: 72, r: 16, t: 12, b: 56 };
   var rows = [];
-  if (opt.legendTop && opt.series.length > 1) {
+  var legendWidth = opt.series.reduce(function (a, s) { return a + 44 + 8.5 * String(s.label).length; }, 8);
+  if ((opt.legendTop || legendWidth > W - m.l - m.r) && opt.series.length > 1) {
     var x0 = m.l, row = [];
     opt.series.forEach(function (s) {
       var w = 44 + 8.5 * String(s.label).length;
@@ -91,11 +94,11 @@ export function chart(opt) {
   function X(v) { return m.l + (v - xr[0]) / (xr[1] - xr[0]) * pw; }
   function Y(v) { return m.t + ph - (v - yr[0]) / (yr[1] - yr[0]) * ph; }
   var o = [];
+  o.push('<p class="chart-title">' + esc(opt.title) + '</p>');
   o.push('<svg xmlns="' + NS + '" viewBox="0 0 ' + W + ' ' + H + '" role="img" aria-label="' + esc(opt.title) + '" class="chart">');
   o.push('<defs><pattern id="hatch-' + opt.id + '" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">' +
     '<rect width="8" height="8" class="band-bg"/><line x1="0" y1="0" x2="0" y2="8" class="band-line"/></pattern>' +
     '<clipPath id="clip-' + opt.id + '"><rect x="' + m.l + '" y="' + m.t + '" width="' + pw + '" height="' + ph + '"/></clipPath></defs>');
-  o.push('<text x="' + m.l + '" y="20" class="chart-title">' + esc(opt.title) + '</text>');
   (opt.bands || []).forEach(function (b) {
     var x0 = Math.max(X(b.x0), m.l), x1 = Math.min(X(b.x1), m.l + pw);
     if (x1 - x0 < 0.5) return;
@@ -103,7 +106,7 @@ export function chart(opt) {
     if (b.text) o.push('<text x="' + ((x0 + x1) / 2).toFixed(1) + '" y="' + (m.t + 14) + '" class="band-text" text-anchor="middle">' + esc(b.text) + '</text>');
   });
   // grid and ticks
-  ticks(xr[0], xr[1], opt.equal ? 6 : 8).forEach(function (v) {
+  ticks(xr[0], xr[1], Math.max(3, Math.round(pw / (opt.equal ? 80 : 64)))).forEach(function (v) {
     var x = X(v).toFixed(1);
     o.push('<line x1="' + x + '" y1="' + m.t + '" x2="' + x + '" y2="' + (m.t + ph) + '" class="grid"/>');
     o.push('<text x="' + x + '" y="' + (m.t + ph + 20) + '" text-anchor="middle" class="tick">' + tickText(v) + '</text>');
@@ -138,7 +141,7 @@ export function chart(opt) {
   o.push('<text transform="translate(18 ' + (m.t + ph / 2) + ') rotate(-90)" text-anchor="middle" class="axis-label">' + esc(opt.yLabel) + '</text>');
   // legend
   rows.forEach(function (row, i) {
-    var y = 40 + 22 * i;
+    var y = 18 + 22 * i;
     row.forEach(function (it) {
       o.push('<line x1="' + it.x + '" y1="' + y + '" x2="' + (it.x + 26) + '" y2="' + y + '" class="line ' + (it.s.cls || '') + '"/>');
       o.push('<text x="' + (it.x + 32) + '" y="' + y + '" dy="0.35em" class="legend">' + esc(it.s.label) + '</text>');
@@ -154,4 +157,11 @@ export function chart(opt) {
   }
   o.push('</svg>');
   return o.join('');
+}
+
+// fitWidth is the width to draw a chart in el at: the width it is shown
+// at, from 300 (a phone) to 640 px (wider, the SVG is scaled up).
+export function fitWidth(el) {
+  var w = el ? el.clientWidth - 12 : 640;
+  return Math.max(300, Math.min(640, Math.round(w || 640)));
 }

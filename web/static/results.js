@@ -4,7 +4,7 @@
 import { $, esc } from './dom.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
-import { chart } from './plot.js';
+import { chart, fitWidth } from './plot.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
 
@@ -81,7 +81,16 @@ function scale(dq, arr) {
   return arr.map(function (v) { return v / f; });
 }
 
-function renderPlots() {
+// markStale says the results and plots shown are for earlier inputs (the
+// inputs now have a problem, or their computation was stopped): greyed,
+// each tile marked.
+export function markStale(on) {
+  $('stale').hidden = !on;
+  $('results').classList.toggle('is-stale', on);
+  $('charts').classList.toggle('is-stale', on);
+}
+
+export function renderPlots() {
   var r = S.result, hs = r.history;
   if (!hs || !hs.time_s || !hs.time_s.length) return;
   var L = unitOf('length').symbol, F = unitOf('force').symbol;
@@ -94,20 +103,20 @@ function renderPlots() {
   var lim = S.scenario.limits || {};
   var hl = [];
   if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtRes(lim.peak_swing_deg) + ' deg' });
-  $('plot-angle').innerHTML = chart({ id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
+  $('plot-angle').innerHTML = chart({ width: fitWidth($('plot-angle')), id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
     '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
-  $('plot-path').innerHTML = chart({ id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+  $('plot-path').innerHTML = chart({ width: fitWidth($('plot-path')), id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
     '<figcaption>The load (solid) and the suspension point (dashed) on the ground plan.</figcaption>';
   var circles = [];
   if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-  $('plot-rel').innerHTML = chart({ id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
+  $('plot-rel').innerHTML = chart({ width: fitWidth($('plot-rel')), id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), label: 'load', cls: 's1' }], circles: circles }) +
     '<figcaption>' + (circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.') + '</figcaption>';
   var st = toShown('force', r.static_tension_n);
-  $('plot-tension').innerHTML = chart({ id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
+  $('plot-tension').innerHTML = chart({ width: fitWidth($('plot-tension')), id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
     series: [{ x: hs.time_s, y: scale('force', hs.tension_n), label: 'tension', cls: 's1' }], bands: bands,
     hlines: [{ y: st, label: 'static ' + fmtRes(st) + ' ' + F }] }) +
     '<figcaption>Dashed line: the load\u2019s weight (static pull).</figcaption>';
