@@ -78,7 +78,7 @@ dist: wasm single-wasm
 
 # web/static/sheet.css is the page's copy of the check sheet's style sheet.
 sheetcss:
-	cp web/sheet/sheet.css web/static/sheet.css
+	cp core/sheet/sheet.css web/static/sheet.css
 
 # Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
 serve: wasm
@@ -92,6 +92,7 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
+	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/ropelength
 
 # Regenerate testdata/reference/results.json and results_double.json (hook
 # block and rigging) with SciPy (Debian's
@@ -121,7 +122,7 @@ BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.j
 	slew-with-trolley.json hoist-during-travel.json hard-stop.json wind-gust.json)
 bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
-	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./web/sheet/ | tee $(BENCH)/go-bench.txt
+	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench

@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
-	"swaysheet/core/units"
 )
 
 // Motion profile names.
@@ -92,13 +92,31 @@ type Plan struct {
 
 	DampingRatio   float64 `json:"damping_ratio,omitempty"`
 	EITolerancePct float64 `json:"ei_tolerance_pct,omitempty"`
-	// Drive is "variable_speed", "pendant" or empty for both.
+	// Drive is the crane's drive: "variable_speed" or "pendant". Empty
+	// (files written before the drive was required) reads as "pendant"
+	// when pendant_steps_pct are given and "variable_speed" otherwise; the
+	// plan says which it assumed.
 	Drive string `json:"drive,omitempty"`
-	// PendantStepsPct are the speeds of the crew's own pendant steps, % of
-	// the top speed, ascending, the last 100. Given, the planner times the
-	// presses of these steps instead of asking for a shaper's steps.
+	// PendantStepsPct are the speeds of the crane's pendant steps, % of
+	// the top speed, ascending, the last 100; required for a pendant. The
+	// planner times the presses of these steps and never invents others.
 	PendantStepsPct []float64 `json:"pendant_steps_pct,omitempty"`
+	// SCurveMaxRoundingS is the largest S-curve rounding (jerk limiting,
+	// as in the s_curve profile's rounding_s) the variable-speed drive
+	// offers; 0 or absent: the drive has none.
+	SCurveMaxRoundingS float64 `json:"s_curve_max_rounding_s,omitempty"`
+	// TimingSigmaS is the standard deviation of a person's press and
+	// release times on a pendant (default DefaultTimingSigmaS; 0 is exact
+	// timing); ReactionDelayS is added to every press timed by a count or
+	// a mark (default 0).
+	TimingSigmaS   *float64 `json:"timing_sigma_s,omitempty"`
+	ReactionDelayS float64  `json:"reaction_delay_s,omitempty"`
 }
+
+// DefaultTimingSigmaS is the default scatter of a person's press times:
+// a person pressing on a count is off by roughly 0.2 to 0.3 s (standard
+// deviation; from memory).
+const DefaultTimingSigmaS = 0.25
 
 // Drive kinds for a plan.
 const (
@@ -134,6 +152,9 @@ func init() {
 		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
 		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%"},
 		"plan.pendant_steps_pct[]":             {Min: 0, Max: 100, Unit: "%", OpenMin: true},
+		"plan.s_curve_max_rounding_s":          {Min: 0, Max: 30, Unit: "s"},
+		"plan.timing_sigma_s":                  {Min: 0, Max: 2, Unit: "s"},
+		"plan.reaction_delay_s":                {Min: 0, Max: 3, Unit: "s"},
 		"motions[].hard_stop.speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
 		"motions[].hard_stop.rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
 		"motions[].hard_stop.decel_m_per_s2":   {Min: 0, Max: 10, Unit: "m/s²", OpenMin: true},
@@ -144,15 +165,15 @@ func init() {
 }
 
 // metric reports whether the axis moves in metres (else degrees).
-func metric(axis string) bool { return axis != Slew }
+func metric(axis string) bool {
+	a, ok := crane.Of(axis)
+	return !ok || a.Kind == crane.Linear
+}
 
 // DefaultColumn is the CSV column a series motion of the axis reads when
 // none is named: the speed column if the record has it, else the position.
 func DefaultColumn(axis string, s *motion.Series) string {
-	unit := "_m"
-	if !metric(axis) {
-		unit = "_deg"
-	}
+	unit := kindOf(axis).CSVSuffix
 	if _, ok := s.Column(axis + unit + "_per_s"); ok {
 		return axis + unit + "_per_s"
 	}
@@ -160,11 +181,15 @@ func DefaultColumn(axis string, s *motion.Series) string {
 }
 
 // ColumnScale is the factor from a CSV column's unit to the axis' SI unit.
-func ColumnScale(axis string) float64 {
-	if metric(axis) {
-		return 1
+func ColumnScale(axis string) float64 { return kindOf(axis).ToSI }
+
+// kindOf is the axis' kind; linear for an unknown axis (Validate rejects
+// those).
+func kindOf(axis string) *crane.Kind {
+	if a, ok := crane.Of(axis); ok {
+		return a.Kind
 	}
-	return units.Degree
+	return crane.Linear
 }
 
 // validateProfile checks the fields of the non-trapezoid profiles, and
@@ -252,7 +277,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.forbidden(f("jerk_deg_per_s3"), m.JerkDegPerS3, "the "+m.Axis+" axis moves in metres; use jerk_m_per_s3")
 		} else {
 			c.optional(f("jerk_deg_per_s3"), key("jerk_deg_per_s3"), m.JerkDegPerS3)
-			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the slew axis moves in degrees; use jerk_deg_per_s3")
+			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the "+m.Axis+" axis moves in degrees; use jerk_deg_per_s3")
 		}
 	case ProfileSteps:
 		c.value(f("start_s"), key("start_s"), m.StartS)
@@ -261,7 +286,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
 			c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a step-speed slew takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
+			only("a step-speed "+m.Axis+" move takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
 			c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
 			c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
 		}
@@ -283,7 +308,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			} else {
 				v = st.RateDegPerS
 				c.required(g("rate_deg_per_s"), key("steps[].rate_deg_per_s"), st.RateDegPerS)
-				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the slew axis moves in degrees; use rate_deg_per_s")
+				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the "+m.Axis+" axis moves in degrees; use rate_deg_per_s")
 			}
 			if i == len(m.Steps)-1 && v != nil && *v != 0 {
 				name := "speed_m_per_s"
@@ -303,7 +328,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("speed_m_per_s"), key("hard_stop.speed_m_per_s"), m.SpeedMPerS)
 			c.required(f("decel_m_per_s2"), key("hard_stop.decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a hard stop takes rate_deg_per_s (slewing in the + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
+			only("a hard stop takes rate_deg_per_s (moving in the axis' + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
 			c.required(f("rate_deg_per_s"), key("hard_stop.rate_deg_per_s"), m.RateDegPerS)
 			c.required(f("decel_deg_per_s2"), key("hard_stop.decel_deg_per_s2"), m.DecelDegPerS2)
 		}
@@ -331,10 +356,7 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 	if col == "" {
 		col = DefaultColumn(m.Axis, s)
 		if _, ok := s.Column(col); !ok {
-			unit := "_m"
-			if !metric(m.Axis) {
-				unit = "_deg"
-			}
+			unit := kindOf(m.Axis).CSVSuffix
 			return nil, fmt.Errorf("the record has no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column",
 				m.Axis, m.Axis, unit, m.Axis, unit)
 		}
@@ -407,10 +429,10 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
 		}
 	case "":
-		c.add("plan.axis", "is required: accepted %q", []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is required: accepted %q", crane.Names(true))
 		return
 	default:
-		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
 		return
 	}
 	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {
@@ -429,8 +451,14 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 	switch p.Drive {
 	case "", DriveVariableSpeed, DrivePendant:
 	default:
-		c.add("plan.drive", "is %q: accepted %q, %q or empty for both", p.Drive, DriveVariableSpeed, DrivePendant)
+		c.add("plan.drive", "is %q: accepted %q or %q, the drive the crane has", p.Drive, DriveVariableSpeed, DrivePendant)
 	}
+	if p.Drive == DrivePendant && len(p.PendantStepsPct) == 0 {
+		c.add("plan.pendant_steps_pct", "is required for a pendant: list the pendant's speed steps, %% of the top speed, slowest first, the last 100 (e.g. [50, 100])")
+	}
+	c.value("plan.s_curve_max_rounding_s", "plan.s_curve_max_rounding_s", p.SCurveMaxRoundingS)
+	c.optional("plan.timing_sigma_s", "plan.timing_sigma_s", p.TimingSigmaS)
+	c.value("plan.reaction_delay_s", "plan.reaction_delay_s", p.ReactionDelayS)
 	if n := len(p.PendantStepsPct); n > 0 {
 		if n > 5 {
 			c.add("plan.pendant_steps_pct", "has %d steps: accepted 1 to 5", n)
@@ -451,7 +479,9 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 	}
 	l := s.Limits
 	if l == nil || l.ResidualSwingDeg == nil {
-		c.add("limits.residual_swing_deg", "is required for a plan: the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
+		if l == nil || l.ResidualExcursionM == nil {
+			c.add("limits.residual_swing_deg", "is required for a plan (or limits.residual_excursion_m): the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
+		}
 	}
 	if l == nil || (l.PeakSwingDeg == nil && l.PeakExcursionM == nil) {
 		c.add("limits.peak_swing_deg", "a plan needs limits.peak_swing_deg (%s) or limits.peak_excursion_m (%s)",

@@ -140,7 +140,7 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 		}
 		base := strings.TrimSuffix(filepath.Base(files[i]), ".json")
 		rows = append(rows, Row{Group: strings.Replace(group, "core", "planner", 1), Name: base, Value: Median(ts), Unit: "ms",
-			Note: fmt.Sprintf("%d options verified at %d rope lengths; median of %d", len(pr.Options), len(pr.RopeLengthsM), n)})
+			Note: fmt.Sprintf("%d options verified at %d rope lengths, %d simulations; median of %d", len(pr.Options), len(pr.CheckedRopeLengthsM), pr.Simulations, n)})
 	}
 	return rows, nil
 }
