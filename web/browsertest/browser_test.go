@@ -196,6 +196,13 @@ func (h *harness) typeInto(sel, text string) {
 		chromedp.SendKeys(chromedp.CSS(sel), text))
 }
 
+// pasteInto replaces a field's text at once, as pasting does.
+func (h *harness) pasteInto(sel, text string) {
+	h.t.Helper()
+	eval[bool](h, `(function () { var e = document.querySelector(`+strconv.Quote(sel)+`); e.focus(); e.value = `+strconv.Quote(text)+`;
+		e.dispatchEvent(new Event('input', { bubbles: true })); return true; })()`)
+}
+
 func (h *harness) scenario() map[string]any {
 	h.t.Helper()
 	var m map[string]any
