@@ -3,6 +3,7 @@
 
 import { changed } from './compute.js';
 import { $, esc } from './dom.js';
+import { call } from './engine.js';
 import { numField, selectField } from './fields.js';
 import { clearBad, renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
@@ -12,6 +13,8 @@ import { fmtField, fmtRes, parseNumber, toShown, unitOf } from './units.js';
 export const P = {
   result: null,   // last plan.Result
   key: null,      // planKey of the inputs it was made for
+  nowKey: null,   // planKey of the inputs as they are
+  keySeq: 0,
   running: false,
   error: null,    // {message, fields}
   started: 0,
@@ -24,20 +27,20 @@ export const P = {
 const DRIVES = [['', 'either: show both'], ['variable_speed', 'variable-speed drive (ramps on the inverter)'],
   ['pendant', 'step-speed pendant (press and release)']];
 
-// planKey is what a plan depends on: everything but the motions (which
-// applying an option replaces) and the describing text.
-// Keys are sorted: a field typed over keeps its value but not its place.
+// planKey asks the core for the key of what a plan depends on: the
+// fingerprint (the core's canonical form) of everything but the motions
+// (which applying an option replaces) and the describing text, so key
+// order, or an optional field at zero against one left out, makes no
+// difference. Inputs the core does not read are keyed by their text.
 export function planKey(sc) {
   var c = JSON.parse(JSON.stringify(sc));
   ['motions', 'name', 'description', 'sheet', 'example'].forEach(function (k) { delete c[k]; });
-  return canon(c);
-}
-function canon(v) {
-  if (Array.isArray(v)) return '[' + v.map(canon).join(',') + ']';
-  if (v && typeof v === 'object') {
-    return '{' + Object.keys(v).sort().map(function (k) { return JSON.stringify(k) + ':' + canon(v[k]); }).join(',') + '}';
-  }
-  return JSON.stringify(v);
+  var text = JSON.stringify(c);
+  S.keeping = (S.keeping || 0) + 1;
+  return call('validate', text).then(function (r) {
+    S.keeping--;
+    return r.error ? 'not read: ' + text : r.result.fingerprint;
+  });
 }
 
 // ------------------------------------------------------------ formatting

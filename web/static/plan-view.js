@@ -20,7 +20,7 @@ function runPlan() {
     renderPlan();
     return;
   }
-  var sent = JSON.stringify(S.scenario), key = planKey(S.scenario);
+  var sent = JSON.stringify(S.scenario), keyed = planKey(S.scenario), seq = P.keySeq;
   P.running = true;
   P.error = null;
   P.started = Date.now();
@@ -28,7 +28,8 @@ function runPlan() {
   P.ticker = setInterval(planProgress, 250);
   planProgress();
   renderPlan();
-  call('plan', sent).then(function (r) {
+  Promise.all([call('plan', sent), keyed]).then(function (rs) {
+    var r = rs[0], key = rs[1];
     P.running = false;
     clearInterval(P.ticker);
     planProgress();
@@ -37,6 +38,7 @@ function runPlan() {
     } else {
       P.result = r.result;
       P.key = key;
+      if (P.keySeq === seq) P.nowKey = key;
       P.applied = null;
       P.count++;
     }
@@ -92,7 +94,7 @@ export function renderPlan() {
     $('plan-out').innerHTML = out.join('');
     return;
   }
-  out.push('<p class="stale" id="plan-stale" role="status"' + (P.key === planKey(s) ? ' hidden' : '') +
+  out.push('<p class="stale" id="plan-stale" role="status"' + (P.key === P.nowKey ? ' hidden' : '') +
     '>\u26A0 The inputs changed since this plan was made: press \u201CPlan the move\u201D again. The plan below is for the earlier inputs.</p>');
   out.push(summary(r));
   out.push(recommended(r));
@@ -286,14 +288,21 @@ function curves(r) {
 }
 
 export function planChanged() {
-  var st = $('plan-stale');
   // A failed attempt's message is about the inputs as they were.
   if (P.error && !P.running) {
     P.error = null;
     var pe = $('plan-error');
     if (pe) pe.remove();
   }
-  if (st && P.result && S.scenario) st.hidden = P.key === planKey(S.scenario);
+  if (S.scenario && S.scenario.plan) {
+    var my = ++P.keySeq;
+    planKey(S.scenario).then(function (k) {
+      if (my !== P.keySeq) return;
+      P.nowKey = k;
+      var st = $('plan-stale');
+      if (st) st.hidden = P.key === k;
+    });
+  }
   var lim = $('plan-limits');
   if (lim && S.scenario.plan) lim.outerHTML = limitsLine(S.scenario);
 }
@@ -303,6 +312,8 @@ export function planChanged() {
 export function planLoaded() {
   P.result = null;
   P.key = null;
+  P.nowKey = null;
+  P.keySeq++;
   P.error = null;
   P.stash = null;
   P.applied = null;
