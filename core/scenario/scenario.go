@@ -58,6 +58,8 @@ type Scenario struct {
 	Sheet *Sheet `json:"sheet,omitempty"`
 	// Plan asks the planner for drive settings (see profiles.go).
 	Plan *Plan `json:"plan,omitempty"`
+	// Site holds the obstacles for the clearance check (see site.go).
+	Site *Site `json:"site,omitempty"`
 }
 
 // Load is the hook load and its rope.

@@ -211,6 +211,7 @@ func (s *Scenario) Validate() error {
 	if p := s.Plan; p != nil {
 		p.validate(&c, s)
 	}
+	s.validateSite(&c)
 	if len(c.errs) > 0 {
 		return c.errs
 	}

@@ -130,6 +130,9 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// General integrates on the general path even when the specialised
+	// single-rope path fits the scenario (fast.go; for tests and the bench).
+	General bool
 	// Validated says the caller has validated the scenario and not
 	// changed it since (scenario.Parse and Decode validate): it is not
 	// validated again.
@@ -231,16 +234,12 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if s.Load.Hook == nil {
 		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
-	sc := newScanner(su.model, su.motionEnd)
-	if opt.MaxSteps > 0 {
-		sc.maxSteps = opt.MaxSteps
-	}
+	var hist *History
 	if !opt.NoHistory {
-		sc.hist = &res.History
-		sc.sampleDt = tEnd / float64(samples-1)
-		sc.samples = samples
+		hist = &res.History
 	}
-	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
+	sc, general, stats, err := integrate(su, opt, hist, tEnd, relTol, samples)
+	if err != nil {
 		return nil, err
 	}
 	res.PeakSwingDeg = swingRad(sc.ext[qSwing].max) / units.Degree
@@ -263,12 +262,11 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
-	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
-		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
+	res.Solver = stats
 
 	res.Checks, res.Warnings = checks(s, res, res.Warnings)
 	return res, nil
