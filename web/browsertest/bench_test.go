@@ -22,7 +22,7 @@ const probe = `(function () {
   document.addEventListener('input', function () { window.__bench.t0 = performance.now(); }, true);
   new MutationObserver(function () {
     var b = window.__bench, now = performance.now();
-    var num = document.querySelector('#r-period .num');
+    var num = document.querySelector('#figures [data-key="period_s"] .num');
     if (b.first === null && num && num.textContent.trim() !== '') b.first = now;
     var line = document.querySelector('#plot-angle path.line');
     var d = line ? line.getAttribute('d') : null;

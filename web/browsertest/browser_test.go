@@ -226,21 +226,6 @@ func (h *harness) core() *sway.Result {
 	return r
 }
 
-// checkShown compares the headline figures with the core's result.
-func (h *harness) checkShown(r *sway.Result) {
-	h.t.Helper()
-	want := map[string]string{
-		"#r-period .num": fmtRes(r.PeriodS), "#r-peak .num": fmtRes(r.PeakSwingDeg),
-		"#r-excursion .num": fmtRes(r.PeakExcursionM), "#r-residual .num": fmtRes(r.ResidualSwingDeg),
-		"#r-factor .num": fmtRes(r.TensionFactor), "#r-tension .num": fmtRes(r.TensionMaxN / 1000),
-	}
-	for sel, w := range want {
-		if got := h.text(sel); got != w {
-			h.t.Errorf("%s shows %q, the core gives %q", sel, got, w)
-		}
-	}
-}
-
 func (h *harness) plotPath(id string) string {
 	return eval[string](h, `document.querySelector('#`+id+` path.line').getAttribute('d')`)
 }
@@ -259,8 +244,8 @@ func TestPage(t *testing.T) {
 		if want := 2 * math.Pi * math.Sqrt(8.5/units.StandardGravity); math.Abs(r.PeriodS-want) > 1e-12 {
 			t.Errorf("core period %v, want %v", r.PeriodS, want)
 		}
-		if got := h.text("#r-period .num"); got != fmtRes(r.PeriodS) {
-			t.Errorf("period shown %q, want %q", got, fmtRes(r.PeriodS))
+		if got, w := h.text(fig("period_s")+" .num"), rowText(h.presented(r), "period_s"); got != w {
+			t.Errorf("period shown %q, the core gives %q", got, w)
 		}
 		h.checkShown(r)
 		if n := len(h.text("#assumptions")); n < 100 {
@@ -302,7 +287,8 @@ func TestPage(t *testing.T) {
 		h.t = t
 		fields := []string{"#f-load-mass_kg", "#f-load-rope_length_m", "#f-motions-0-distance_m", "#f-motions-0-speed_m_per_s",
 			"#f-motions-0-accel_m_per_s2", "#f-limits-peak_excursion_m"}
-		results := []string{"#r-period", "#r-peak", "#r-excursion", "#r-residual", "#r-factor", "#r-tension"}
+		results := []string{"#verdict", fig("period_s"), fig("peak_swing_deg"), fig("peak_excursion_m"), fig("residual_swing_deg"),
+			fig("tension_factor"), fig("tension_max_n")}
 		snap := func() []string {
 			var out []string
 			for _, f := range fields {
@@ -335,11 +321,18 @@ func TestPage(t *testing.T) {
 		if u := h.text("[data-field] #f-load-rope_length_m ~ .unit"); u != "ft" {
 			t.Errorf("rope length unit %q, want ft", u)
 		}
-		if got, w := h.text("#r-excursion .num"), fmtRes(r.PeakExcursionM/units.Foot); got != w {
-			t.Errorf("US excursion %q, want %q", got, w)
-		}
-		if got, w := h.text("#r-tension .num"), fmtRes(r.TensionMaxN/units.PoundForce); got != w {
-			t.Errorf("US tension %q, want %q", got, w)
+		h.checkShown(r)
+		// The core converts and rounds (ft and lbf, NIST SP 811): the page
+		// shows the result's SI value over the factor, to the unit's step.
+		us := units.Choice{System: "us"}
+		for _, c := range []struct {
+			key, q, unit string
+			si, factor   float64
+		}{{"peak_excursion_m", "length", "ft", r.PeakExcursionM, units.Foot}, {"tension_max_n", "force", "lbf", r.TensionMaxN, units.PoundForce}} {
+			_, w := units.Round(c.si/c.factor, us.Unit(c.q))
+			if got := h.text(fig(c.key) + " .num"); got != w || h.text(fig(c.key)+" .u") != c.unit {
+				t.Errorf("US %s: %q %q, want %q %s", c.key, got, h.text(fig(c.key)+" .u"), w, c.unit)
+			}
 		}
 		if !reflect.DeepEqual(h.scenario(), s) {
 			t.Error("switching units changed the scenario")

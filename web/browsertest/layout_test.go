@@ -19,7 +19,7 @@ const layoutProblems = `(function () {
   var seen = function (e) { var r = e.getBoundingClientRect(); return r.width > 0 && r.height > 0 && getComputedStyle(e).visibility !== 'hidden'; };
   var name = function (e) { return e.id || (e.textContent || '').trim().slice(0, 20) || e.tagName; };
   if (document.documentElement.scrollWidth > W + 1) out.push('the page is ' + document.documentElement.scrollWidth + ' px wide');
-  document.querySelectorAll('header.top *, nav.actions *, #results .tile, .plot').forEach(function (e) {
+  document.querySelectorAll('header.top *, nav.actions *, #results .fig, #verdict, .plot').forEach(function (e) {
     if (!seen(e)) return;
     var r = e.getBoundingClientRect();
     if (r.right > W + 0.5 || r.left < -0.5) out.push(name(e) + ' is past the screen edge (' + Math.round(r.left) + ' to ' + Math.round(r.right) + ')');
@@ -117,9 +117,10 @@ func TestLayouts(t *testing.T) {
 	if !eval[bool](h, `document.getElementById('results').classList.contains('is-stale')`) {
 		t.Error("the results are not marked as for earlier inputs")
 	}
-	tile := eval[string](h, `getComputedStyle(document.querySelector('#r-period')).backgroundColor + ' ' + getComputedStyle(document.querySelector('#r-period h3'), '::after').content`)
-	if !strings.Contains(tile, "rgb(230, 230, 230)") || !strings.Contains(tile, "for earlier inputs") {
-		t.Errorf("stale tile: %s", tile)
+	band := eval[string](h, `getComputedStyle(document.querySelector('#verdict')).backgroundColor + ' ' + getComputedStyle(document.querySelector('#figures .fig')).backgroundColor + ' ' +
+		getComputedStyle(document.querySelector('#verdict .verdict-head'), '::after').content`)
+	if strings.Count(band, "rgb(230, 230, 230)") != 2 || !strings.Contains(band, "for earlier inputs") {
+		t.Errorf("stale verdict band and figures: %s", band)
 	}
 	h.do(chromedp.ScrollIntoView(chromedp.CSS("#results")))
 	shot("stale-results-phone.png", false)

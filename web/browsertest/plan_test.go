@@ -340,7 +340,7 @@ func TestPlanner(t *testing.T) {
 		if d := math.Abs(r.ResidualSwingDeg - v.ResidualSwingDeg); d > 0.01*v.ResidualSwingDeg+1e-3 {
 			t.Errorf("residual %v deg on the page, the plan verified %v", r.ResidualSwingDeg, v.ResidualSwingDeg)
 		}
-		if got := shownNumber(t, h.text("#r-residual .num")); math.Abs(got-v.ResidualSwingDeg) > 0.01*v.ResidualSwingDeg+1e-3 {
+		if got := shownNumber(t, h.text(fig("residual_swing_deg")+" .num")); math.Abs(got-v.ResidualSwingDeg) > 0.01*v.ResidualSwingDeg+1e-3 {
 			t.Errorf("residual shown %v, the plan verified %v", got, v.ResidualSwingDeg)
 		}
 		// Still the plan of these inputs: applying changes only the motions.
@@ -478,8 +478,8 @@ func TestHookPlan(t *testing.T) {
 	h.settle()
 	r := h.core()
 	h.checkShown(r)
-	if r.Rigging == nil || h.text("#r-mode2-lin") != fmtRes(r.Rigging.ModePeriodsS[1]) {
-		t.Errorf("results after applying: second mode %q", h.text("#r-mode2-lin"))
+	if r.Rigging == nil || h.text(fig("rigging.mode_periods_s[1]")+" .num") != rowText(h.presented(r), "rigging.mode_periods_s[1]") {
+		t.Errorf("results after applying: second mode %q", h.text(fig("rigging.mode_periods_s[1]")))
 	}
 	dir := filepath.Join(root, "out", "browser")
 	eval[bool](h, `document.getElementById('notice').hidden = true; document.getElementById('plan-summary').scrollIntoView({block: 'start'}); true`)
@@ -494,7 +494,7 @@ func TestHookBlockPage(t *testing.T) {
 
 	t.Run("hook block inputs show the core's mode periods", func(t *testing.T) {
 		h.t = t
-		if !eval[bool](h, `document.getElementById('r-modes') === null`) {
+		if !eval[bool](h, `document.querySelector('#figures [data-key^="rigging."]') === null`) {
 			t.Error("mode periods shown without a hook block")
 		}
 		h.click("#hook-on")
@@ -512,14 +512,13 @@ func TestHookBlockPage(t *testing.T) {
 		if g == nil {
 			t.Fatal("the core gives no rigging block")
 		}
-		for sel, v := range map[string]float64{
-			"#r-mode1-lin": g.ModePeriodsS[0], "#r-mode2-lin": g.ModePeriodsS[1],
-			"#r-mode1-sim": g.SimulatedPeriodsS[0], "#r-mode2-sim": g.SimulatedPeriodsS[1],
-			"#r-second .num": 100 * g.SecondModeShare, "#r-rigging-angle .num": g.PeakRiggingAngleDeg,
-			"#r-rigging-tension .num": g.RiggingTensionMaxN / 1000,
-		} {
-			if got := h.text(sel); got != fmtRes(v) {
-				t.Errorf("%s shows %q, the core gives %q", sel, got, fmtRes(v))
+		// Every rigging figure of the core's table is shown (checkShown
+		// compares each row with figures.Present).
+		rep := h.presented(r)
+		for _, key := range []string{"rigging.mode_periods_s[0]", "rigging.mode_periods_s[1]", "rigging.simulated_periods_s[0]",
+			"rigging.simulated_periods_s[1]", "rigging.second_mode_share", "rigging.peak_rigging_angle_deg", "rigging.rigging_tension_max_n"} {
+			if w := rowText(rep, key); w == "" || h.text(fig(key)+" .num") != w {
+				t.Errorf("%s shows %q, the core gives %q", key, h.text(fig(key)+" .num"), w)
 			}
 		}
 		h.checkShown(r)
@@ -531,7 +530,7 @@ func TestHookBlockPage(t *testing.T) {
 		// Off and on again: the hook block comes back as typed.
 		h.click("#hook-on")
 		h.settle()
-		if _, ok := h.scenario()["load"].(map[string]any)["hook"]; ok || !eval[bool](h, `document.getElementById('r-modes') === null`) {
+		if _, ok := h.scenario()["load"].(map[string]any)["hook"]; ok || !eval[bool](h, `document.querySelector('#figures [data-key^="rigging."]') === null`) {
 			t.Error("hook block still modelled after unticking")
 		}
 		h.click("#hook-on")
@@ -564,8 +563,8 @@ func TestHookBlockPage(t *testing.T) {
 		if r.Rigging == nil {
 			t.Fatal("no rigging block")
 		}
-		if got := h.text("#r-mode2-lin"); got != fmtRes(r.Rigging.ModePeriodsS[1]) {
-			t.Errorf("second mode %q, the core %q", got, fmtRes(r.Rigging.ModePeriodsS[1]))
+		if got, w := h.text(fig("rigging.mode_periods_s[1]")+" .num"), rowText(h.presented(r), "rigging.mode_periods_s[1]"); got != w {
+			t.Errorf("second mode %q, the core %q", got, w)
 		}
 		if got := h.value("#f-load-hook-rigging_length_m"); got != "6" {
 			t.Errorf("rigging length field %q", got)

@@ -22,6 +22,8 @@ import (
 	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/runtime"
 	"github.com/chromedp/chromedp"
+
+	"swaysheet/core/figures"
 )
 
 const root = "../.."
@@ -190,7 +192,7 @@ func (b *browser) poll(expr string, what string) {
 // settle waits until the core has answered for the inputs as they are.
 func (b *browser) settle() {
 	b.t.Helper()
-	b.poll(`!!(window.swaysheet && document.body.dataset.state === 'ready' && window.swaysheet.settled() && document.querySelector('#headline .tile'))`, "the page did not settle")
+	b.poll(`!!(window.swaysheet && document.body.dataset.state === 'ready' && window.swaysheet.settled() && document.querySelector('#headline .fig'))`, "the page did not settle")
 }
 
 func (b *browser) text(sel string) string {
@@ -207,9 +209,18 @@ func (b *browser) typeInto(sel, text string) {
 		chromedp.SendKeys(chromedp.CSS(sel), text))
 }
 
-func fmtRes(v float64) string {
-	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 4, 64), 64)
-	return strconv.FormatFloat(x, 'f', -1, 64)
+// figSel is the selector of the number of the page's figure row key (its
+// JSON path in the result).
+func figSel(key string) string { return `#figures [data-key=` + strconv.Quote(key) + `] .num` }
+
+// shownText is the core's rounded text of the figure key in rep.
+func shownText(rep figures.Report, key string) string {
+	for _, row := range rep.Rows {
+		if row.Key == key {
+			return row.Text
+		}
+	}
+	return ""
 }
 
 var _ = runtime.Enable // the console events need nothing enabled beyond chromedp's defaults

@@ -10,8 +10,10 @@ import (
 	"github.com/chromedp/cdproto/network"
 	"github.com/chromedp/chromedp"
 
+	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
 
 func copyDir(t *testing.T, from, to string) {
@@ -113,7 +115,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	before := served.count()
 	b.do(chromedp.Reload())
 	b.settle()
-	period0 := b.text("#r-period .num")
+	period0 := b.text(figSel("period_s"))
 	n := eval[int](b, `window.swaysheet.resultCount()`)
 	b.typeInto("#f-load-rope_length_m", "14")
 	b.poll(`window.swaysheet.resultCount() > `+strconv.Itoa(n)+` && window.swaysheet.settled()`, "no new result offline")
@@ -125,8 +127,8 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := b.text("#r-period .num"); got != fmtRes(r.PeriodS) || got == period0 {
-		t.Errorf("offline: period %q after the change (before %q), the core gives %q", got, period0, fmtRes(r.PeriodS))
+	if got, w := b.text(figSel("period_s")), shownText(figures.Present(s, r, units.Choice{System: "si"}), "period_s"); got != w || got == period0 {
+		t.Errorf("offline: period %q after the change (before %q), the core gives %q", got, period0, w)
 	}
 	b.waitSheet()
 	// The browser's own update check of the service worker script may get

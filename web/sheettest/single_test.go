@@ -8,8 +8,10 @@ import (
 
 	"github.com/chromedp/chromedp"
 
+	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
 	"swaysheet/web/dist"
 )
 
@@ -52,11 +54,11 @@ func TestSingleFileFromDisk(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := b.text("#r-period .num"); got != fmtRes(r.PeriodS) {
-		t.Errorf("period shown %q, the core gives %q", got, fmtRes(r.PeriodS))
-	}
-	if got := b.text("#r-peak .num"); got != fmtRes(r.PeakSwingDeg) {
-		t.Errorf("peak swing shown %q, the core gives %q", got, fmtRes(r.PeakSwingDeg))
+	rep := figures.Present(s, r, units.Choice{System: "si"})
+	for _, key := range []string{"period_s", "peak_swing_deg"} {
+		if got, w := b.text(figSel(key)), shownText(rep, key); got != w {
+			t.Errorf("%s shown %q, the core gives %q", key, got, w)
+		}
 	}
 	if name := eval[string](b, `JSON.parse(window.swaysheet.scenarioJSON()).name`); name != s.Name {
 		t.Errorf("the demo is %q, want %q", name, s.Name)
@@ -65,7 +67,7 @@ func TestSingleFileFromDisk(t *testing.T) {
 	n := eval[int](b, `window.swaysheet.resultCount()`)
 	b.typeInto("#f-load-rope_length_m", "12")
 	b.poll(`window.swaysheet.resultCount() > `+itoa(n)+` && window.swaysheet.settled()`, "no new result")
-	if got := b.text("#r-period .num"); got == fmtRes(r.PeriodS) {
+	if got := b.text(figSel("period_s")); got == shownText(rep, "period_s") {
 		t.Error("a longer rope kept the period")
 	}
 	if eval[string](b, `document.getElementById('engine-error').hidden ? '' : document.getElementById('engine-error').textContent`) != "" {

@@ -1,18 +1,20 @@
 // compute.js: evaluates the inputs in the core after each change, shows
-// progress and its Cancel, keeps the last valid result.
+// progress and its Cancel, keeps the last valid result, then has
+// results.js present it.
 
 import { $ } from './dom.js';
 import { call } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { markStale, renderResults, updateBanner } from './results.js';
+import { markStale, presentFigures, presenting, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
 let timer = null, busy = false, again = false, progressTimer = null, cancelTimer = null;
 
-// computing is true while the core works on the inputs or more are due.
-export function computing() { return busy || again; }
+// computing is true while the core works on the inputs or more are due,
+// or while the figures of the last result are asked for.
+export function computing() { return busy || again || presenting(); }
 
 export function changed() {
   updateBanner();
@@ -72,8 +74,11 @@ export function evaluate() {
     S.coreErrors = [];
     showErrors();
     S.result = r.result;
+    S.resultSent = sent;
     S.count++;
     markStale(false);
-    renderResults();
+    // The verdict and figures come from the core's table (one more call,
+    // answered from the bridge's memo of this result).
+    presentFigures();
   });
 }

@@ -1,70 +1,102 @@
-// results.js: the result tiles, warnings, assumptions and plots, all
-// from the core's result converted for display.
+// results.js: the verdict and figures (the core's "figures" call: every
+// row of core/figures, its words, rounded text and unit as the core gives
+// them), warnings, assumptions and plots.
 
 import { $, esc } from './dom.js';
+import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { chart, fitWidth } from './plot.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
 
-function checkFor(name) {
-  var cs = (S.result && S.result.checks) || [];
-  for (var i = 0; i < cs.length; i++) if (cs[i].name === name) return cs[i];
-  return null;
+let figuresAsked = 0, figuresWaiting = false;
+
+// figuresInput is the "figures" call's input: the scenario of the result
+// shown (its JSON as sent to the core) and the units shown.
+function figuresInput(sent) {
+  return '{"scenario":' + sent + ',"units":' + JSON.stringify(S.chosen) + ',"system":' + JSON.stringify(S.sys === 'us' ? 'us' : 'si') + '}';
 }
 
-function verdict(name, dq, unitSym) {
-  var c = checkFor(name);
-  if (!c) return '<p class="verdict none"><span aria-hidden="true">\u2013</span> no limit set</p>';
-  var lim = dq ? fmtRes(toShown(dq, c.limit)) + ' ' + unitOf(dq).symbol : fmtRes(c.limit) + (unitSym ? ' ' + unitSym : '');
-  return c.within ?
-    '<p class="verdict ok"><span aria-hidden="true">\u2714</span> within the limit of ' + esc(lim) + '</p>' :
-    '<p class="verdict out"><span aria-hidden="true">\u2716</span> OUTSIDE the limit of ' + esc(lim) + '</p>';
+// presentFigures asks the core for the figures of the last result
+// (S.resultSent) in the units shown, then shows them with the warnings
+// and plots. The bridge keeps the last results by scenario fingerprint,
+// so this computes nothing again. An answer overtaken by a later request
+// (the units changed meanwhile) is dropped.
+export function presentFigures() {
+  if (!S.result || !S.resultSent) return Promise.resolve();
+  var n = ++figuresAsked;
+  figuresWaiting = true;
+  return call('figures', figuresInput(S.resultSent)).then(function (f) {
+    if (n !== figuresAsked) return;
+    figuresWaiting = false;
+    S.figures = f.error ? { error: f.error.message } : f.result;
+    renderResults();
+  });
 }
 
-function tile(id, label, value, unit, sub, verdictHtml, cls) {
-  var c = verdictHtml && verdictHtml.indexOf('verdict out') >= 0 ? ' is-out' : '';
-  return '<div class="tile ' + (cls || '') + c + '" id="' + id + '"><h3>' + esc(label) + '</h3>' +
-    '<p class="big"><span class="num">' + esc(value) + '</span> <span class="u">' + esc(unit) + '</span></p>' +
-    (sub ? '<p class="sub">' + sub + '</p>' : '') + (verdictHtml || '') + '</div>';
+// presenting is true while the figures of the last result are asked for.
+export function presenting() { return figuresWaiting; }
+
+// The verdict band's words and symbol by the core's verdict state; the
+// sentence after them is the core's own.
+const VERDICT_WORDS = {
+  within: ['ok', '\u2714', 'Within the limits'],
+  outside: ['out', '\u2716', 'OUTSIDE the limits'],
+  no_limits: ['none', '\u2013', 'No limits set'],
+  not_simulated: ['none', '\u2013', 'Nothing simulated'],
+  not_computed: ['none', '\u2013', 'Not computed']
+};
+
+function verdictBand(v) {
+  var w = VERDICT_WORDS[v.state] || ['none', '\u2013', v.state];
+  return '<div id="verdict" class="verdict-band ' + w[0] + '" data-state="' + esc(v.state) + '">' +
+    '<p class="verdict-head"><span class="sym" aria-hidden="true">' + w[1] + '</span> ' + esc(w[2]) + '</p>' +
+    '<p class="verdict-text">' + esc(v.text) + '</p></div>';
+}
+
+// figureCheck is a row's line about its limit: the core's words, or why
+// there are none.
+function figureCheck(row, state) {
+  if (row.check) {
+    return row.check.within ?
+      '<p class="check ok"><span aria-hidden="true">\u2714</span> ' + esc(row.check.words) + '</p>' :
+      '<p class="check out"><span aria-hidden="true">\u2716</span> ' + esc(row.check.words) + '</p>';
+  }
+  if (!row.limit_key) return '';
+  return '<p class="check none"><span aria-hidden="true">\u2013</span> ' + (state === 'not_simulated' ? 'nothing simulated' : 'no limit set') + '</p>';
+}
+
+function figureRow(row, state) {
+  var cls = 'fig' + (row.limit_key ? ' limited' : '') + (row.check && !row.check.within ? ' is-out' : '');
+  return '<li class="' + cls + '" data-key="' + esc(row.key) + '"><span class="crew">' + esc(row.crew) + '</span>' +
+    '<span class="val"><span class="num">' + esc(row.text) + '</span>' + (row.unit ? ' <span class="u">' + esc(row.unit) + '</span>' : '') + '</span>' +
+    figureCheck(row, state) + '</li>';
+}
+
+// engineeringDetail: each figure's technical name and its path in the
+// evaluate call's result, folded away.
+function engineeringDetail(rows, open) {
+  return '<details class="engineering" id="engineering"' + (open ? ' open' : '') + '><summary>Engineering detail</summary>' +
+    '<div class="table-wrap"><table class="plain"><thead><tr><th scope="col">technical name</th><th scope="col">value</th><th scope="col">in the result</th></tr></thead><tbody>' +
+    rows.map(function (row) {
+      return '<tr data-key="' + esc(row.key) + '"><th scope="row">' + esc(row.technical) + '</th><td class="n">' + esc(row.text) + (row.unit ? ' ' + esc(row.unit) : '') +
+        '</td><td><code>' + esc(row.key) + '</code></td></tr>';
+    }).join('') + '</tbody></table></div></details>';
 }
 
 export function renderResults() {
-  var r = S.result;
-  if (!r) return;
-  var L = unitOf('length'), F = unitOf('force');
-  var h = [];
-  h.push(tile('r-period', 'Sway period', fmtRes(r.period_s), 's',
-    'one full swing; ' + esc(fmtRes(r.period_amplitude_s)) + ' s at the residual swing'));
-  h.push(tile('r-peak', 'Peak swing', fmtRes(r.peak_swing_deg), 'deg',
-    'at ' + esc(fmtRes(r.peak_swing_time_s)) + ' s', verdict('peak_swing_deg', null, 'deg')));
-  h.push(tile('r-excursion', 'Peak excursion', fmtRes(toShown('length', r.peak_excursion_m)), L.symbol,
-    'load off plumb, sideways', verdict('peak_excursion_m', 'length')));
-  h.push(tile('r-residual', 'Residual swing', fmtRes(r.residual_swing_deg), 'deg',
-    'after the last move; excursion ' + esc(fmtRes(toShown('length', r.residual_excursion_m)) + ' ' + L.symbol), verdict('residual_swing_deg', null, 'deg')));
-  h.push(tile('r-factor', 'Tension factor', fmtRes(r.tension_factor), '\u00D7',
-    'peak rope pull / load weight', verdict('tension_factor', null, '')));
-  h.push(tile('r-tension', 'Peak rope tension', fmtRes(toShown('force', r.tension_max_n)), F.symbol,
-    'lowest ' + esc(fmtRes(toShown('force', r.tension_min_n)) + ' ' + F.symbol) + '; static ' + esc(fmtRes(toShown('force', r.static_tension_n)) + ' ' + F.symbol)));
-  if (r.wind_force_n > 0) {
-    h.push(tile('r-wind', 'Wind lean', fmtRes(r.wind_lean_deg), 'deg',
-      'steady lean under ' + esc(fmtRes(toShown('force', r.wind_force_n)) + ' ' + F.symbol)));
-  }
-  if (r.rigging) {
-    var g = r.rigging;
-    h.push(tile('r-modes', 'Two sway modes', fmtRes(g.mode_periods_s[0]), 's',
-      'slow mode: <span id="r-mode1-lin">' + esc(fmtRes(g.mode_periods_s[0])) + '</span> s linear, <span id="r-mode1-sim">' + esc(fmtRes(g.simulated_periods_s[0])) + '</span> s simulated<br>' +
-      'fast mode: <span id="r-mode2-lin">' + esc(fmtRes(g.mode_periods_s[1])) + '</span> s linear, <span id="r-mode2-sim">' + esc(fmtRes(g.simulated_periods_s[1])) + '</span> s simulated'));
-    h.push(tile('r-second', 'Second mode\u2019s share', fmtRes(100 * g.second_mode_share), '%',
-      'of the load\u2019s swing after a sudden start (linear theory)'));
-    h.push(tile('r-rigging-angle', 'Rope to rigging', fmtRes(g.peak_rigging_angle_deg), 'deg',
-      'peak angle between rope and rigging: the load swinging under the hook; the rope itself swings up to ' + esc(fmtRes(g.peak_rope_swing_deg)) + ' deg'));
-    h.push(tile('r-rigging-tension', 'Peak rigging tension', fmtRes(toShown('force', g.rigging_tension_max_n)), F.symbol,
-      'lowest ' + esc(fmtRes(toShown('force', g.rigging_tension_min_n)) + ' ' + F.symbol)));
-  }
+  var r = S.result, f = S.figures;
+  if (!r || !f) return;
   var hd = $('headline');
-  hd.innerHTML = h.join('');
+  if (f.error) {
+    hd.innerHTML = '<p class="waiting">\u2716 The figures could not be shown: ' + esc(f.error) + '</p>';
+  } else {
+    var det = $('engineering');
+    hd.innerHTML = verdictBand(f.verdict) +
+      '<ul class="figs" id="figures">' + f.rows.map(function (row) { return figureRow(row, f.verdict.state); }).join('') + '</ul>' +
+      engineeringDetail(f.rows, det && det.open);
+  }
   hd.dataset.count = String(S.count);
   var w = r.warnings || [];
   $('warnings').innerHTML = w.length ?
@@ -83,7 +115,7 @@ function scale(dq, arr) {
 
 // markStale says the results and plots shown are for earlier inputs (the
 // inputs now have a problem, or their computation was stopped): greyed,
-// each tile marked.
+// the verdict band marked.
 export function markStale(on) {
   $('stale').hidden = !on;
   $('results').classList.toggle('is-stale', on);
@@ -130,7 +162,7 @@ export function renderAll() {
   renderForm();
   updateBanner();
   renderSys();
-  if (S.result) renderResults();
+  if (S.result) presentFigures();
   renderPlan();
 }
 

@@ -12,6 +12,8 @@ export const S = {
   bad: {},            // field path -> page-side message (text that is not a number)
   coreErrors: [],     // field errors from the core for the current inputs
   result: null,       // last valid result
+  resultSent: null,   // the scenario JSON it is the result of
+  figures: null,      // its figures from the core's "figures" call (or {error})
   count: 0,
   windStash: null
 };
