@@ -3,6 +3,7 @@
 // figure comes from the core; nothing is computed here beyond differences
 // of times the planner gives (a ramp's duration).
 
+import { openCoach } from './coach.js';
 import { changed } from './compute.js';
 import { $, esc, notice } from './dom.js';
 import { call, cancel } from './engine.js';
@@ -234,6 +235,9 @@ function optionCard(r, o, i) {
     (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '. ' + esc(o.label) + (rec ? ' \u2014 <strong>Recommended</strong>' : '') +
     ' \u00B7 ' + esc(secs(o.move_time_s)) + ' \u00B7 ' + optionVerdict(o) + '</summary><div class="opt-body">';
   h += '<h4>Settings for the crew</h4>' + crew(r, o);
+  if (o.presses && o.presses.length) {
+    h += '<p class="row"><button type="button" class="coach-open" data-coach="' + i + '">Press coach: count the presses on screen</button></p>';
+  }
   var mr = o.mode_residual_pct;
   if (mr && mr.length >= 2) {
     h += '<p class="mode-left">Left in each sway mode (linear theory, the worst over the rope lengths): first mode ' + esc(fmtRes(mr[0])) +
@@ -328,6 +332,8 @@ export function bindPlan() {
   $('plan-out').addEventListener('click', function (e) {
     var b = e.target.closest && e.target.closest('[data-apply]');
     if (b && P.result) applyOption(Number(b.dataset.apply));
+    var c = e.target.closest && e.target.closest('[data-coach]');
+    if (c && P.result) openCoach(P.result, P.result.options[Number(c.dataset.coach)], c);
   });
 }
 
