@@ -18,7 +18,7 @@ import (
 // fakeClock is the coach's time source in the test: now() and a
 // scheduler that advance(ms) drives, firing what falls due in order.
 const fakeClock = `(function(){
-  var c = {t: 1000, q: [], seq: 0};
+  var c = {t: 1000, q: [], seq: 0, lag: 0};
   c.now = function(){ return c.t; };
   c.after = function(ms, fn){ var id = ++c.seq; c.q.push({at: c.t + Math.max(0, ms), fn: fn, id: id}); return id; };
   c.cancel = function(id){ c.q = c.q.filter(function(e){ return e.id !== id; }); };
@@ -28,7 +28,7 @@ const fakeClock = `(function(){
       c.q.sort(function(a, b){ return a.at - b.at || a.id - b.id; });
       var e = c.q[0];
       if (!e || e.at > end) break;
-      c.q.shift(); c.t = e.at; e.fn();
+      c.q.shift(); c.t = e.at + c.lag; e.fn();
     }
     c.t = end;
   };
@@ -171,6 +171,9 @@ func TestPressCoach(t *testing.T) {
 			t.Errorf("cue %d %q, the plan: step %v %%, release %v", i, c.Text, o.Presses[i].Pct, rel)
 		}
 	}
+	if !eval[bool](h, `document.getElementById('coach-late').hidden`) {
+		t.Errorf("cues on time marked late: %q", h.text("#coach-late"))
+	}
 	if len(counts) < 3 {
 		t.Errorf("%d count-in calls", len(counts))
 	}
@@ -195,7 +198,11 @@ func TestPressCoach(t *testing.T) {
 		t.Errorf("the marks are not in feet: %q", h.text("#coach-list"))
 	}
 	h.click("#coach-start")
-	eval[bool](h, `window.testClock.advance(3500), true`) // the first cue, then part of the count to the second
+	// A device that holds timers back 400 ms: the cue is marked late.
+	eval[bool](h, `window.testClock.lag = 400, window.testClock.advance(3500), true`) // the first cue, then part of the count to the second
+	if late := h.text("#coach-late"); !strings.Contains(late, "late") || eval[bool](h, `document.getElementById('coach-late').hidden`) {
+		t.Errorf("a cue 0.4 s late is not marked: %q", late)
+	}
 	h.click("#coach-stop")
 	eval[bool](h, `window.testClock.advance(60000), true`)
 	if err := json.Unmarshal([]byte(eval[string](h, `window.swaysheetCoach.logJSON()`)), &log); err != nil {

@@ -23,7 +23,9 @@ let coachClock = REAL_CLOCK;
 let coachRun = null;   // the coach on screen
 let coachLog = [];     // what it did: {kind, text, at_ms, planned_ms}
 
-const COUNT_IN_MS = 1000, TICK_MS = 200;
+// LATE_MS: a cue given this much after its planned moment (a busy or
+// sleeping device holds timers back) is marked late on the screen.
+const COUNT_IN_MS = 1000, TICK_MS = 200, LATE_MS = 250;
 
 // cueSteps turns the option's presses into cues in words, in the units shown.
 function cueSteps(r, o) {
@@ -63,8 +65,8 @@ function timingNote(o) {
 // swinging load.
 function markPasser(r) { return isSlew(r) ? 'jib passes the mark' : 'crane passes the mark'; }
 
-function coachHTML(r, o, st) {
-  var lim = o.within ? '' : '<p class="coach-out" role="alert"><span aria-hidden="true">\u2716</span> This option is OUTSIDE the plan\u2019s limits: ' +
+function coachHTML(r, o, st, stale) {
+  var lim = (stale ? '<p class="coach-out" role="alert"><span aria-hidden="true">\u26A0</span> The inputs changed since this plan was made: plan the move again before using these counts.</p>' : '') + o.within ? '' : '<p class="coach-out" role="alert"><span aria-hidden="true">\u2716</span> This option is OUTSIDE the plan\u2019s limits: ' +
     esc((o.outside || []).join('; ')) + '. Do not use it for the lift without the person in charge agreeing.</p>';
   var list = st.map(function (s) {
     return '<li data-step="' + s.i + '">' + esc(s.word) + ' (' + esc(s.speed) + ')' +
@@ -74,6 +76,7 @@ function coachHTML(r, o, st) {
   return '<div class="coach-bar"><h2 id="coach-h">Press coach: ' + esc(o.label) + '</h2>' +
     '<button type="button" id="coach-stop" class="coach-stop">Stop</button></div>' + lim +
     '<div class="coach-main" aria-live="assertive">' +
+    '<p class="coach-late" id="coach-late" role="alert" hidden></p>' +
     '<p class="coach-count" id="coach-count"></p>' +
     '<p class="coach-cue" id="coach-cue">Ready</p>' +
     '<p class="coach-sub" id="coach-sub">Tap Start: a count of 3, 2, 1, then ' + esc(st[0].word) + '.</p>' +
@@ -140,6 +143,11 @@ function fireCue(me, s, planned) {
   coachBeep(me, 990, 180);
   coachBuzz(200);
   logCue('cue', s.word, coachClock.now(), planned);
+  var late = coachClock.now() - planned;
+  if (late > LATE_MS) {
+    cel('coach-late').hidden = false;
+    cel('coach-late').textContent = '\u26A0 The device gave this cue ' + fmtRes(late / 1000) + '\u00A0s late: do not rely on the counts; stop the move if unsure.';
+  }
   document.querySelectorAll('#coach-list li').forEach(function (li) { li.classList.toggle('now', Number(li.dataset.step) === s.i); });
 }
 
@@ -190,6 +198,14 @@ function startCoach(me) {
   cel('coach-start').hidden = true;
   var AC = window.AudioContext || window.webkitAudioContext;
   try { me.audio = AC ? new AC() : null; } catch (e) { me.audio = null; }
+  // Phones start sound only from a tap, sometimes suspended.
+  try { if (me.audio && me.audio.resume) me.audio.resume(); } catch (e) { /* no sound */ }
+  // Keep the screen on while counting, where the browser allows it.
+  try {
+    if (navigator.wakeLock && navigator.wakeLock.request) {
+      navigator.wakeLock.request('screen').then(function (l) { if (coachRun === me) me.lock = l; else l.release(); }, function () {});
+    }
+  } catch (e) { /* the screen may dim */ }
   coachBuzz(1);
   logCue('start', '', coachClock.now(), coachClock.now());
   nextCue(me, 0, coachClock.now());
@@ -215,6 +231,7 @@ export function stopCoach() {
   me.oscs.forEach(function (o) { try { o.stop(); } catch (e) { /* already stopped */ } });
   if (me.audio && me.audio.close) { try { me.audio.close(); } catch (e) { /* closed */ } }
   coachBuzz(0);
+  if (me.lock) { try { me.lock.release(); } catch (e) { /* released */ } }
   logCue('stop', '', coachClock.now(), coachClock.now());
   me.box.remove();
   document.removeEventListener('keydown', me.key);
@@ -222,8 +239,10 @@ export function stopCoach() {
   if (me.back && me.back.focus) me.back.focus();
 }
 
-// openCoach shows the coach for option o of plan r (an option with presses).
-export function openCoach(r, o, back) {
+// openCoach shows the coach for option o of plan r (an option with
+// presses); back gets the focus again after Stop; stale marks a plan made
+// for earlier inputs.
+export function openCoach(r, o, back, stale) {
   stopCoach();
   var box = document.createElement('div');
   box.id = 'coach';
@@ -232,7 +251,7 @@ export function openCoach(r, o, back) {
   box.setAttribute('aria-modal', 'true');
   box.setAttribute('aria-labelledby', 'coach-h');
   var st = cueSteps(r, o);
-  box.innerHTML = coachHTML(r, o, st);
+  box.innerHTML = coachHTML(r, o, st, stale);
   document.body.appendChild(box);
   document.body.classList.add('coaching');
   var me = { box: box, steps: st, timers: new Set(), oscs: [], audio: null, due: null, waiting: null, k: 0, back: back, passes: markPasser(r) };

@@ -160,7 +160,8 @@ function recommended(r) {
   if (why.indexOf(lead) === 0) why = why.slice(lead.length);
   return '<div class="plan-rec" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2605</span> Recommended: <span id="plan-rec-label">' + esc(o.label) + '</span></p>' +
     '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span>' + siNote() + '</p>' +
-    '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a></p></div>';
+    '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a>' +
+    (o.presses && o.presses.length ? ' <button type="button" class="coach-open" data-coach="' + r.recommended + '">Press coach</button>' : '') + '</p></div>';
 }
 
 // verdict says whether an option keeps inside every limit, and which it
@@ -333,7 +334,7 @@ export function bindPlan() {
     var b = e.target.closest && e.target.closest('[data-apply]');
     if (b && P.result) applyOption(Number(b.dataset.apply));
     var c = e.target.closest && e.target.closest('[data-coach]');
-    if (c && P.result) openCoach(P.result, P.result.options[Number(c.dataset.coach)], c);
+    if (c && P.result) openCoach(P.result, P.result.options[Number(c.dataset.coach)], c, P.key !== P.nowKey);
   });
 }
 
