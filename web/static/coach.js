@@ -81,7 +81,7 @@ function coachHTML(r, o, st, stale) {
     '<p class="coach-cue" id="coach-cue">Ready</p>' +
     '<p class="coach-sub" id="coach-sub">Tap Start: a count of 3, 2, 1, then ' + esc(st[0].word) + '.</p>' +
     '<p class="coach-mark" id="coach-mark"></p>' +
-    '<p class="coach-next"><span id="coach-next"></span> <b id="coach-left"></b></p>' +
+    '<p class="coach-next"><span id="coach-next"></span> <b id="coach-left" aria-hidden="true"></b></p>' +
     '<button type="button" id="coach-start" class="coach-go">Start</button>' +
     '<button type="button" id="coach-marked" class="coach-go" hidden>Released at the mark</button></div>' +
     '<details class="coach-steps"><summary>All cues</summary><ol id="coach-list">' + list + '</ol></details>' +
