@@ -260,12 +260,13 @@ func (rq *request) speedQ(v float64) Quantity {
 	return qSpeed(v)
 }
 
-// rampSearch offers the drive's single ramp setting (and one with S-curve
-// rounding when the drive has it): the shortest passing the screening
-// whose simulation keeps inside the limits, trying up to four candidates
-// each. When no setting passes it says which rope lengths the best one
-// covers, and offers it for what it is.
-func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
+// rampCandidates offer the drive's single ramp setting (and one with
+// S-curve rounding when the drive has it): the shortest passing the
+// screening, and when it can decide the recommendation (screen.go), the
+// shortest whose simulation keeps inside the limits, trying up to four
+// candidates each. When no setting passes it says which rope lengths the
+// best one covers, and offers it for what it is.
+func (rq *request) rampCandidates() (out []candidate, notes []Sentence) {
 	maxR := rq.s.Plan.SCurveMaxRoundingS
 	for _, withR := range []bool{false, true} {
 		if withR && maxR <= 0 {
@@ -298,36 +299,38 @@ func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
 			notes = append(notes, say("Linear theory finds no single ramp time that keeps the residual swing within its screening bound from {0} to {1}; the best, {2}, covers {3} to {4}. Its option is simulated at the checked rope lengths; between them, or to be sure, narrow the rope-length range or use a shaped speed profile.",
 				qLen(lo).digits(4), qLen(hi).digits(4), qTime(rs.tr).digits(3), qLen(rs.coverLo).digits(4), qLen(rs.coverHi).digits(4)))
 			o := rq.rampOption(rs.tr, rs.r)
-			if kept, _ := rq.verifyAll([]*Option{o}); len(kept) > 0 {
+			out = append(out, candidate{o: o, verify: func() (*Option, []string) {
+				kept, _ := rq.verifyAll([]*Option{o}, RelTol)
+				if len(kept) == 0 {
+					return nil, nil
+				}
 				if !o.Within {
 					o.Label += " (does not cover the whole range)"
 				}
-				out = append(out, o)
-			}
-			sims += len(rq.checked)
+				return o, nil
+			}})
 			continue
 		}
-		var last *Option
-		for i, c := range rs.candidates {
-			if i >= 4 {
-				break
+		cs := rs.candidates
+		out = append(out, candidate{o: rq.rampOption(cs[0][0], cs[0][1]), verify: func() (*Option, []string) {
+			var last *Option
+			for i, c := range cs {
+				if i >= 4 {
+					break
+				}
+				o := rq.rampOption(c[0], c[1])
+				if kept, _ := rq.verifyAll([]*Option{o}, RelTol); len(kept) == 0 {
+					continue
+				}
+				last = o
+				if o.Within {
+					break
+				}
 			}
-			o := rq.rampOption(c[0], c[1])
-			kept, _ := rq.verifyAll([]*Option{o})
-			sims += len(rq.checked)
-			if len(kept) == 0 {
-				continue
-			}
-			last = o
-			if o.Within {
-				break
-			}
-		}
-		if last != nil {
-			out = append(out, last) // verified
-		}
+			return last, nil
+		}})
 	}
-	return out, notes, sims
+	return out, notes
 }
 
 // steadyTurn is the integral over [t0, t1] of the hook's acceleration
