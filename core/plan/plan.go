@@ -221,15 +221,13 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	// every checked rope length; should that put it outside, the next is.
 	for {
 		rank(kept, fastest.MoveTimeS)
-		var more bool
-		if kept, more = rq.unscreen(kept); more {
-			continue
-		}
 		best := rq.choose(kept)
 		if best < 0 || kept[best].rechecked {
 			break
 		}
-		rq.recheck(kept[best])
+		if rq.recheck(kept[best]); !kept[best].Within {
+			kept = rq.unscreen(kept)
+		}
 	}
 	for _, o := range kept {
 		if o.NotSimulated != "" {

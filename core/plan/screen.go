@@ -11,10 +11,14 @@ import (
 
 // Screening. Options are ranked "within every limit first, then fastest",
 // and the recommendation is the fastest option within the limits or one
-// within 5 % of its move time (recommend). Each option's move time is known
-// before it is simulated, so with T the move time of the fastest option
-// the simulation finds within the limits, no option slower than 1.05*T can
-// change the recommendation: those are not simulated. Nor are faster ones
+// within 5 % of its move time (recommend, choose). Each option's move time
+// is known before it is simulated, so with T the move time of the fastest
+// option the simulation finds within the limits, no option slower than
+// 1.05*T can change the recommendation: those are not simulated. Nor is
+// one that choose's rules put behind the option it prefers among the
+// faster ones whatever its figures (a single-mode design behind a two-mode
+// one when the second mode matters, a programmed profile behind one
+// setting of the drive: canDisplace). Nor are faster ones
 // that the linear theory of the pendulum puts clearly outside a limit
 // (estimate above screenFactor times the limit plus screenAbsDeg): the
 // per-piece solution of the small-angle pendulum (linearSwing) for travel,
@@ -64,6 +68,8 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 			c.o.NotSimulated = fmt.Sprintf("its move time is more than %g times that of the fastest option within the limits, so it cannot change the recommendation", windowFactor)
 		case screening && linearOK && c.o.Timing == nil && rq.clearlyOutside(low):
 			c.o.NotSimulated = outsideWhy
+		case screening && !rq.canDisplace(c.o, kept):
+			c.o.NotSimulated = "a faster option within the limits is preferred to it whatever its figures (" + rq.preferWhy(c.o, kept) + "), so it cannot change the recommendation"
 		default:
 			o, d := c.verify()
 			dropped = append(dropped, d...)
@@ -98,31 +104,67 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 	return kept, dropped
 }
 
-// unscreen simulates a screened option that has come to matter (the one
-// before it was found outside at the check tolerance) in place in opts.
-// It reports false when there was none.
-func (rq *request) unscreen(opts []*Option) ([]*Option, bool) {
-	if len(opts) == 0 {
-		return opts, false
-	}
-	t0 := math.Inf(1)
+// unscreen simulates every screened option but those clearly outside, for
+// when the option to recommend was found outside at the check tolerance
+// and the reasons they were screened for no longer hold.
+func (rq *request) unscreen(opts []*Option) []*Option {
+	var out []*Option
 	for _, o := range opts {
-		if o.Within && o.NotSimulated == "" {
-			t0 = math.Min(t0, o.MoveTimeS)
-		}
-	}
-	for i, o := range opts {
-		if o.NotSimulated == "" || o.verify == nil || o.MoveTimeS > windowFactor*t0+1e-9 || (!o.Within && o.NotSimulated == outsideWhy) {
+		if o.NotSimulated == "" || o.verify == nil || o.NotSimulated == outsideWhy {
+			out = append(out, o)
 			continue
 		}
-		nv, _ := o.verify()
-		if nv == nil {
-			return append(opts[:i:i], opts[i+1:]...), true
+		o.NotSimulated = ""
+		if nv, _ := o.verify(); nv != nil {
+			out = append(out, nv)
 		}
-		opts[i] = nv
-		return opts, true
 	}
-	return opts, false
+	return out
+}
+
+// current is the option choose would prefer among the simulated options
+// within the limits no slower than t, nil if none.
+func (rq *request) current(kept []*Option, t float64) *Option {
+	var in []*Option
+	for _, o := range kept {
+		if o.Within && o.MoveTimeS <= t+1e-9 {
+			in = append(in, o)
+		}
+	}
+	if len(in) == 0 {
+		return nil
+	}
+	sort.SliceStable(in, func(i, j int) bool { return in[i].MoveTimeS < in[j].MoveTimeS })
+	return in[rq.choose(in)]
+}
+
+// canDisplace reports whether o, whatever its simulated figures, could
+// take the recommendation from the option preferred among the faster ones
+// (choose's rules: a two-mode design over a single-mode one when the
+// second mode matters, then one setting of the drive over a programmed
+// profile, then half the residual swing).
+func (rq *request) canDisplace(o *Option, kept []*Option) bool {
+	b := rq.current(kept, o.MoveTimeS)
+	if b == nil {
+		return true
+	}
+	single := func(x *Option) bool { return x.RampTimeS > 0 }
+	switch {
+	case rq.twoMode() && o.TwoMode != b.TwoMode:
+		return o.TwoMode
+	case single(o) != single(b):
+		return single(o)
+	}
+	return true
+}
+
+// preferWhy names the rule by which the faster option is preferred to o.
+func (rq *request) preferWhy(o *Option, kept []*Option) string {
+	b := rq.current(kept, o.MoveTimeS)
+	if rq.twoMode() && b.TwoMode && !o.TwoMode {
+		return b.Label + ", designed for both sway modes"
+	}
+	return b.Label + ", one setting of the drive"
 }
 
 // finishScreened moves a screened option's linear-theory figures to
