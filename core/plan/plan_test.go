@@ -256,27 +256,6 @@ func TestPlanValidation(t *testing.T) {
 	}
 }
 
-// BenchmarkPlanTravel is one full plan of the bay-travel example: ten
-// options, each simulated at three rope lengths, plus the peak search.
-// Target: well under 50 ms per plan on the native build.
-func BenchmarkPlanTravel(b *testing.B) {
-	s := load(b, "plan-bay-travel.json")
-	for b.Loop() {
-		if _, err := Make(s); err != nil {
-			b.Fatal(err)
-		}
-	}
-}
-
-func BenchmarkPlanSlew(b *testing.B) {
-	s := load(b, "plan-tower-slew.json")
-	for b.Loop() {
-		if _, err := Make(s); err != nil {
-			b.Fatal(err)
-		}
-	}
-}
-
 // Each option's move, saved as a scenario motion, reads back through the
 // scenario format and evaluates.
 func TestOptionMotionsRoundTrip(t *testing.T) {
