@@ -158,6 +158,9 @@ func (s *Scenario) Validate() error {
 		c.required("load.hook.mass_kg", "load.hook.mass_kg", h.MassKg)
 		c.required("load.hook.rigging_length_m", "load.hook.rigging_length_m", h.RiggingLengthM)
 	}
+	if b := s.Load.Body; b != nil {
+		b.validate(&c, s)
+	}
 	c.value("crane.radius_m", "crane.radius_m", s.Crane.RadiusM)
 	c.value("crane.slew_deg", "crane.slew_deg", s.Crane.SlewDeg)
 	if len(s.Motions) > 100 {
@@ -211,6 +214,7 @@ func (s *Scenario) Validate() error {
 	if p := s.Plan; p != nil {
 		p.validate(&c, s)
 	}
+	s.validateSite(&c)
 	if len(c.errs) > 0 {
 		return c.errs
 	}
