@@ -101,6 +101,8 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 		}
 		n := 2 * int(math.Ceil((t1-t0)*w/(2*math.Pi)*8/2+1))
 		h := (t1 - t0) / float64(n)
+		// exp(-i*w*t) at t = t0 + k*h, by turning a step at a time.
+		e, turn := cmplx.Exp(complex(0, -w*t0)), cmplx.Exp(complex(0, -w*h))
 		for k := 0; k <= n; k++ {
 			t := t0 + float64(k)*h
 			st := p.At(t)
@@ -113,9 +115,10 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 			} else if k%2 == 1 {
 				wt = 4
 			}
-			e := cmplx.Exp(complex(0, -w*t)) * complex(wt*h/3, 0)
-			x += complex(ax, 0) * e
-			y += complex(ay, 0) * e
+			f := e * complex(wt*h/3, 0)
+			x += complex(ax, 0) * f
+			y += complex(ay, 0) * f
+			e *= turn
 		}
 	}
 	// x(t) = Re(X e^(iwt)), y(t) = Re(Y e^(iwt)): the largest radius of
