@@ -128,8 +128,9 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 }
 
 // rampOK reports whether one ramp setting passes the linear screening at
-// each of the grid's rope lengths.
-func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64) []bool {
+// each of the grid's rope lengths; unless full, it stops at the first
+// that fails (the rest then read false).
+func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool) []bool {
 	a := rq.vmax / tr
 	peakOK := rq.linearRatio(a) <= 1
 	out := make([]bool, len(grid))
@@ -139,6 +140,9 @@ func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64) []bool {
 	}
 	for i, ms := range grid {
 		out[i] = peakOK && rq.rampResidual(tr, r, ms) <= share*rq.resLimitRad(ls[i])
+		if !out[i] && !full {
+			break
+		}
 	}
 	return out
 }
@@ -164,6 +168,30 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 	}
 	tmin := math.Ceil(rq.vmax/rq.amax*10-1e-9) / 10
 	tmax := math.Min(120, 4*rq.periodAt(hi))
+	best := rq.scanRamps(tmin, tmax, maxR, grid, ls, false)
+	if len(best.candidates) == 0 {
+		// None passes: again, every rope length of every setting, for the
+		// widest run of lengths one setting covers.
+		best = rq.scanRamps(tmin, tmax, maxR, grid, ls, true)
+	}
+	if len(best.candidates) > 0 {
+		// Shortest total time (ramp plus rounding) first.
+		c := best.candidates
+		for i := range c {
+			for j := i + 1; j < len(c); j++ {
+				if c[j][0]+c[j][1] < c[i][0]+c[i][1] {
+					c[i], c[j] = c[j], c[i]
+				}
+			}
+		}
+		best.ok, best.tr, best.r = true, c[0][0], c[0][1]
+	}
+	return best
+}
+
+// scanRamps tries the settings in order, up to four passing ones for each
+// rounding; with full it also tracks the widest run of passing lengths.
+func (rq *request) scanRamps(tmin, tmax, maxR float64, grid []modeSet, ls []float64, full bool) rampSetting {
 	var best rampSetting
 	bestCover := -1.0
 	// The grids: 0.1 s and 0.5 s, coarser (in whole tenths) when the range
@@ -175,7 +203,7 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 		found := 0
 		for tr := tmin; tr <= tmax+1e-9 && found < 4; tr += dt {
 			tr = math.Round(tr*10) / 10
-			ok := rq.rampOK(tr, r, grid, ls)
+			ok := rq.rampOK(tr, r, grid, ls, full)
 			all := true
 			// The widest run of passing lengths.
 			run, start := 0, 0
@@ -198,18 +226,6 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 				found++ // a few longer ones, should the simulation disagree
 			}
 		}
-	}
-	if len(best.candidates) > 0 {
-		// Shortest total time (ramp plus rounding) first.
-		c := best.candidates
-		for i := range c {
-			for j := i + 1; j < len(c); j++ {
-				if c[j][0]+c[j][1] < c[i][0]+c[i][1] {
-					c[i], c[j] = c[j], c[i]
-				}
-			}
-		}
-		best.ok, best.tr, best.r = true, c[0][0], c[0][1]
 	}
 	return best
 }
