@@ -39,8 +39,13 @@ const (
 	windowFactor = 1.05 // recommend's window over the fastest option within the limits
 )
 
-// outsideWhy is NotSimulated for an option screened by linear theory.
-const outsideWhy = "linear theory puts it clearly outside the limits"
+// outsideWhy is NotSimulated for an option screened by linear theory;
+// preferredWhy begins it for one the recommendation's rules put behind a
+// faster option.
+const (
+	outsideWhy   = "linear theory puts it clearly outside the limits"
+	preferredWhy = "the recommendation prefers a faster option within the limits, "
+)
 
 // screening can be turned off by tests, to compare with every option
 // simulated and every drawn timing of a pendant option (verify.go decided).
@@ -69,7 +74,7 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 		case screening && linearOK && c.o.Timing == nil && rq.clearlyOutside(low):
 			c.o.NotSimulated = outsideWhy
 		case screening && !rq.canDisplace(c.o, kept):
-			c.o.NotSimulated = "a faster option within the limits is preferred to it whatever its figures (" + rq.preferWhy(c.o, kept) + "), so it cannot change the recommendation"
+			c.o.NotSimulated = preferredWhy + rq.preferWhy(c.o, kept) + ", whatever this one's figures, so it cannot change the recommendation"
 		default:
 			o, d := c.verify()
 			dropped = append(dropped, d...)
@@ -162,9 +167,9 @@ func (rq *request) canDisplace(o *Option, kept []*Option) bool {
 func (rq *request) preferWhy(o *Option, kept []*Option) string {
 	b := rq.current(kept, o.MoveTimeS)
 	if rq.twoMode() && b.TwoMode && !o.TwoMode {
-		return b.Label + ", designed for both sway modes"
+		return b.Label + " (designed for both sway modes)"
 	}
-	return b.Label + ", one setting of the drive"
+	return b.Label + " (one setting of the drive)"
 }
 
 // finishScreened moves a screened option's linear-theory figures to
@@ -295,6 +300,6 @@ func (rq *request) estimatedSentences(o *Option) {
 	lo, hi := rq.ropeRange()
 	qs := []Quantity{qLen(lo).digits(4), qLen(hi).digits(4), qAngle(o.WorstPeakSwingDeg), qLen(o.WorstPeakRopeM).digits(4),
 		qAngle(o.WorstResidualSwingDeg), qLen(o.WorstResidualRopeM).digits(4)}
-	o.found(say(fmt.Sprintf("Not simulated (%s). Linear-theory estimate at %d rope lengths, {0} to {1}: worst peak about {2} at {3}, residual about {4} at {5}. Evaluate its move to check it.",
+	o.found(say(fmt.Sprintf("Not simulated: %s. Linear-theory estimate at %d rope lengths, {0} to {1}: worst peak about {2} at {3}, residual about {4} at {5}. Evaluate its move to check it.",
 		o.NotSimulated, len(rq.checked)), qs...))
 }

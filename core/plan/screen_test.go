@@ -98,7 +98,7 @@ func TestScreeningKeepsRecommendation(t *testing.T) {
 				if f.Within {
 					t.Errorf("%s %s: screened as clearly outside, but within when simulated", name, o.Key)
 				}
-			case strings.HasPrefix(o.NotSimulated, "a faster option within the limits is preferred"):
+			case strings.HasPrefix(o.NotSimulated, preferredWhy):
 				screened++ // choose's class rules: checked by the same recommendation above
 			case o.NotSimulated != "":
 				screened++
