@@ -27,7 +27,8 @@ import (
 // share of the load's swing. Wind and an initial swing are not in that
 // theory: with either, only the move-time screen is used. When no option
 // is found within the limits every option is simulated, so the advice on
-// what to change reads the simulated figures as before.
+// what to change reads the simulated figures as before (unless a pendant
+// option is outside: that advice is about it alone).
 //
 // A screened option keeps its linear-theory figures, in Estimated (not
 // Verified, which holds simulated figures only), its label says "not
@@ -89,8 +90,13 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 		c.o.estimated = est
 		screened = append(screened, c)
 	}
-	if math.IsInf(fastestWithin, 1) {
-		// Nothing within: simulate the rest too, for the advice on what to change.
+	pendantOut := false
+	for _, o := range kept {
+		pendantOut = pendantOut || (o.Timing != nil && !o.Within)
+	}
+	if math.IsInf(fastestWithin, 1) && !pendantOut {
+		// Nothing within: simulate the rest too, for the advice on what to
+		// change (which, for a pendant option outside, reads that alone).
 		for _, c := range screened {
 			c.o.NotSimulated = ""
 			o, d := c.verify()
