@@ -23,8 +23,8 @@ func withoutScreening(t *testing.T, s *scenario.Scenario) *Result {
 }
 
 // screeningCases are the planning examples (invented demo data) and
-// variants of them: a pendant, a wider rope range, an S-curve drive, a
-// light hook block.
+// variants of them: a pendant, an S-curve drive, a narrower rope range, a
+// looser residual limit, a steady wind.
 func screeningCases(t *testing.T) map[string]*scenario.Scenario {
 	cases := map[string]*scenario.Scenario{}
 	for _, n := range []string{"plan-bay-travel.json", "plan-tower-slew.json", "plan-precast-hook.json", "plan-gantry-pendant.json"} {
@@ -43,6 +43,9 @@ func screeningCases(t *testing.T) map[string]*scenario.Scenario {
 	s = load(t, "plan-precast-hook.json")
 	s.Limits.ResidualSwingDeg = ptr(1)
 	cases["precast hook, 1 deg residual"] = s
+	s = load(t, "plan-bay-travel.json")
+	s.Wind = &scenario.Wind{ForceN: ptr(150)} // no linear screen: move time and the rules only
+	cases["bay travel, steady wind"] = s
 	return cases
 }
 
