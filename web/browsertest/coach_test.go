@@ -229,3 +229,52 @@ func TestPressCoach(t *testing.T) {
 		t.Errorf("the last vibration call %v, want 0 (cancel)", last)
 	}
 }
+
+// TestPressCoachSlew: for a slew the marks are angles before the stop
+// angle, as the plan gives them (tower-crane example with a two-step
+// pendant, opened by a share link).
+func TestPressCoachSlew(t *testing.T) {
+	h := setup(t)
+	data, err := os.ReadFile(filepath.Join(root, "testdata", "scenarios", "plan-tower-slew.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var sc map[string]any
+	if err := json.Unmarshal(data, &sc); err != nil {
+		t.Fatal(err)
+	}
+	pl := sc["plan"].(map[string]any)
+	pl["drive"] = "pendant"
+	pl["pendant_steps_pct"] = []float64{50, 100}
+	text, _ := json.Marshal(sc)
+	h.do(chromedp.Navigate("about:blank"), chromedp.Navigate(shareLink(h.url, string(text))), chromedp.WaitReady(chromedp.CSS("#headline")))
+	h.settle()
+	h.planSettled(0)
+	var r plan.Result
+	if err := json.Unmarshal([]byte(eval[string](h, `window.swaysheetPlan.resultJSON()`)), &r); err != nil {
+		t.Fatal(err)
+	}
+	for i, o := range r.Options {
+		if len(o.Presses) == 0 {
+			continue
+		}
+		eval[bool](h, `document.getElementById('plan-opt-`+strconv.Itoa(i)+`').open = true`)
+		h.click(`[data-coach="` + strconv.Itoa(i) + `"]`)
+		list := h.text("#coach-list")
+		n := 0
+		for _, p := range o.Presses {
+			if p.BeforeStopDeg > 0 {
+				n++
+				if !strings.Contains(list, fmtRes(p.BeforeStopDeg)+"\u00a0deg before the stop angle") {
+					t.Errorf("%s: no mark %v deg in %q", o.Key, p.BeforeStopDeg, list)
+				}
+			}
+		}
+		if n == 0 || strings.Contains(list, "stop point") {
+			t.Errorf("%s: slew marks %d, list %q", o.Key, n, list)
+		}
+		h.click("#coach-stop")
+		return
+	}
+	t.Fatal("the slew plan has no option with presses")
+}
