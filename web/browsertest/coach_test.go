@@ -92,6 +92,10 @@ func TestPressCoach(t *testing.T) {
 			t.Errorf("coach screen lacks %q", w)
 		}
 	}
+	// An option outside the limits says so, with what it breaks.
+	if out := h.text("#coach-outside"); o.Within != strings.HasPrefix(out, "(missing") || !o.Within && !strings.Contains(out, "OUTSIDE") {
+		t.Errorf("option within %v, the coach says %q", o.Within, out)
+	}
 	for _, p := range o.Presses {
 		if p.BeforeStopM > 0 && !strings.Contains(note, fmtRes(p.BeforeStopM)+"\u00a0m before the stop point") {
 			t.Errorf("no mark %v m on the coach", p.BeforeStopM)
@@ -114,6 +118,8 @@ func TestPressCoach(t *testing.T) {
 		}
 	}
 
+	shot("coach-ready-390x844.png", 390, 844)
+	h.do(chromedp.EmulateViewport(820, 1180))
 	h.click("#coach-start")
 	t0 := eval[float64](h, `window.testClock.now()`)
 	// The planned moments: the count-in of 3 s, then each count from the

@@ -57,8 +57,8 @@ function timingNote(o) {
   if (!o.timing) {
     return 'These counts were checked with the presses exactly on the cues only: a person\u2019s timing scatter was NOT accounted for.';
   }
-  return 'The counts allow for a person\u2019s timing scatter (' + fmtRes(o.timing.sigma_s) + '\u00A0s standard deviation, ' +
-    o.timing.draws + ' drawn timings at each rope length checked). ' + (f ? fillSentence(f) : '');
+  return 'The counts allow for a person\u2019s timing scatter (' + fmtRes(o.timing.sigma_s) + '\u00A0s standard deviation), as the planner checked them. ' +
+    (f ? fillSentence(f) : '');
 }
 
 // markPasser names what reaches the mark: the crane's position, not the
@@ -66,8 +66,9 @@ function timingNote(o) {
 function markPasser(r) { return isSlew(r) ? 'jib passes the mark' : 'crane passes the mark'; }
 
 function coachHTML(r, o, st, stale) {
-  var lim = (stale ? '<p class="coach-out" role="alert"><span aria-hidden="true">\u26A0</span> The inputs changed since this plan was made: plan the move again before using these counts.</p>' : '') + o.within ? '' : '<p class="coach-out" role="alert"><span aria-hidden="true">\u2716</span> This option is OUTSIDE the plan\u2019s limits: ' +
-    esc((o.outside || []).join('; ')) + '. Do not use it for the lift without the person in charge agreeing.</p>';
+  var lim = (stale ? '<p class="coach-out" id="coach-stale" role="alert"><span aria-hidden="true">\u26A0</span> The inputs changed since this plan was made: plan the move again before using these counts.</p>' : '') +
+    (o.within ? '' : '<p class="coach-out" id="coach-outside" role="alert"><span aria-hidden="true">\u2716</span> This option is OUTSIDE the plan\u2019s limits: ' +
+    esc((o.outside || []).join('; ')) + '. Do not use it for the lift without the person in charge agreeing.</p>');
   var list = st.map(function (s) {
     return '<li data-step="' + s.i + '">' + esc(s.word) + ' (' + esc(s.speed) + ')' +
       (s.byMark ? ' <b>at the mark</b>' : s.i === 0 ? ' after the count-in' : ', count ' + esc(fmtRes(s.count_ms / 1000)) + '\u00A0s') +
