@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/chromedp/chromedp"
 
@@ -278,6 +279,20 @@ func TestPressCoachSlew(t *testing.T) {
 		}
 		if n == 0 || strings.Contains(list, "stop point") {
 			t.Errorf("%s: slew marks %d, list %q", o.Key, n, list)
+		}
+		if !strings.HasPrefix(h.text("#coach-stale"), "(missing") {
+			t.Errorf("a current plan's coach says it is stale")
+		}
+		h.click("#coach-stop")
+		// Inputs changed since the plan: the coach says so.
+		h.typeInto("#f-load-mass_kg", "2345")
+		h.settle()
+		if err := h.poll(`!document.getElementById('plan-stale').hidden`, 10*time.Second); err != nil {
+			t.Fatalf("the plan is not marked stale: %v", err)
+		}
+		h.click(`[data-coach="` + strconv.Itoa(i) + `"]`)
+		if s := h.text("#coach-stale"); !strings.Contains(s, "inputs changed") {
+			t.Errorf("stale plan, the coach says %q", s)
 		}
 		h.click("#coach-stop")
 		return
