@@ -80,6 +80,9 @@ func build(s *scenario.Scenario) (*setup, error) {
 		if err != nil {
 			return nil, err
 		}
+		if err := moveTooLong(i, m, p); err != nil {
+			return nil, err
+		}
 		sum := ax.of(m.Axis)
 		*sum = append(*sum, p)
 		breaks = append(breaks, p.Breakpoints()...)
