@@ -339,9 +339,28 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 				m.Axis, m.Axis, unit, m.Axis, unit)
 		}
 	}
-	p, err := s.Profile(col, ColumnScale(m.Axis))
+	scale := ColumnScale(m.Axis)
+	p, err := s.Profile(col, scale)
 	if err != nil {
 		return nil, err
+	}
+	if t0 := s.TimeS[0] + m.StartS; t0 < 0 {
+		return nil, fmt.Errorf("the record starts at t = %g s, before the run starts at t = 0: give times from 0, or set start_s to at least %g",
+			t0, -s.TimeS[0])
+	}
+	// A record is held to the axis' limits like any other move.
+	speed, accel := "speed_m_per_s", "decel_m_per_s2"
+	if !metric(m.Axis) {
+		speed, accel = "rate_deg_per_s", "decel_deg_per_s2"
+	}
+	vr, ar := Ranges["motions[]."+speed], Ranges["motions[].hard_stop."+accel]
+	if v, at := p.PeakSpeedAt(); v/scale > vr.Max*(1+1e-9) {
+		return nil, &motion.CSVError{Line: s.LineAt(at), Column: col, Message: fmt.Sprintf(
+			"the speed reaches %.4g %s at t = %.4g s: accepted up to %g %s, as for %s", v/scale, vr.Unit, at, vr.Max, vr.Unit, speed)}
+	}
+	if a, at := p.PeakAccelAt(); a/scale > ar.Max*(1+1e-9) {
+		return nil, &motion.CSVError{Line: s.LineAt(at), Column: col, Message: fmt.Sprintf(
+			"the acceleration reaches %.4g %s at t = %.4g s: accepted up to %g %s, as for a hard stop's %s", a/scale, ar.Unit, at, ar.Max, ar.Unit, accel)}
 	}
 	if e := p.End(); e+m.StartS > MaxRunS {
 		return nil, fmt.Errorf("the record ends at %g s: at most %g s is simulated", e, MaxRunS)
