@@ -233,16 +233,29 @@ func suspension(x, y, slew, radius motion.Sum, r0, phi0 float64, slewing bool) f
 
 // checkSpan reports an error if value(position of the summed profile)
 // leaves [lo, hi] at any time up to end.
-func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field, what, unit string) error {
-	if len(p) == 0 {
+//
+// Between two breakpoints every profile is a polynomial of degree three
+// at most (constant jerk), so the position is a cubic there and its speed
+// v(u) = v0 + a0 u + j u²/2 a quadratic, with j from the accelerations at
+// the two ends. The position's extremes inside the span are at the roots
+// of that quadratic, found exactly; with the span ends they are every
+// candidate.
+func checkSpan(p motion.Profile, value func(float64) float64, lo, hi float64, field, what, unit string) error {
+	bp := p.Breakpoints()
+	if len(bp) == 0 {
 		return nil
 	}
-	ts := p.Breakpoints()
-	// Turning points inside each piece, where the speed passes zero.
-	for i := 0; i+1 < len(ts); i++ {
-		a, b := p.At(ts[i]+1e-12), p.At(ts[i+1]-1e-12)
-		if a.Vel*b.Vel < 0 && b.Vel != a.Vel {
-			ts = append(ts, ts[i]+(ts[i+1]-ts[i])*a.Vel/(a.Vel-b.Vel))
+	ts := append([]float64(nil), bp...)
+	for i := 0; i+1 < len(bp); i++ {
+		a, b := bp[i], bp[i+1]
+		h := b - a
+		e := 1e-9 * h
+		sa, sb := p.At(a+e), p.At(b-e)
+		j := (sb.Acc - sa.Acc) / (h - 2*e)
+		for _, u := range quadRoots(j/2, sa.Acc, sa.Vel) {
+			if u > 0 && u < h-2*e {
+				ts = append(ts, a+e+u)
+			}
 		}
 	}
 	worst, at, bad := 0.0, 0.0, false
@@ -258,4 +271,24 @@ func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field,
 			"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, worst, unit, at, lo, hi, unit)}}
 	}
 	return nil
+}
+
+// quadRoots returns the real roots of a x² + b x + c (of b x + c when a is
+// 0, or nothing when both are), computed without cancellation.
+func quadRoots(a, b, c float64) []float64 {
+	if a == 0 {
+		if b == 0 {
+			return nil
+		}
+		return []float64{-c / b}
+	}
+	d := b*b - 4*a*c
+	if d < 0 {
+		return nil
+	}
+	q := -0.5 * (b + math.Copysign(math.Sqrt(d), b))
+	if q == 0 {
+		return []float64{0}
+	}
+	return []float64{q / a, c / q}
 }
