@@ -24,6 +24,7 @@ type setup struct {
 	windForce   float64 // N, while the wind blows
 	phases      []Phase
 	warnings    []string
+	axes        []motion.Profile // each axis' moves combined, for the work budget
 }
 
 // axes holds the summed profile of each axis.
@@ -99,19 +100,23 @@ func build(s *scenario.Scenario) (*setup, error) {
 	r0 := s.Crane.RadiusM
 	slew0 := s.Crane.SlewDeg * units.Degree
 
-	// The rope and the radius must stay in range over the whole run. Both
-	// are piecewise quadratic in time, so looking at every breakpoint and
-	// every turning point is exact; a fine grid covers overlapping moves.
-	if err := checkSpan(ax.hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
+	// Each axis' moves added together, evaluated at a cost that does not
+	// grow with the number of moves and shaper impulses.
+	x, y, slew, radius, hoist := motion.Combine(ax.x...), motion.Combine(ax.y...),
+		motion.Combine(ax.slew...), motion.Combine(ax.radius...), motion.Combine(ax.hoist...)
+	su.axes = []motion.Profile{x, y, slew, radius, hoist}
+
+	// The rope and the radius must stay in range over the whole run.
+	if err := checkSpan(hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
 		"load.rope_length_m", "the rope length", "m"); err != nil {
 		return nil, err
 	}
-	if err := checkSpan(ax.radius, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
+	if err := checkSpan(radius, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
 		"crane.radius_m", "the slew radius", "m"); err != nil {
 		return nil, err
 	}
 	su.ropeStart = l0
-	su.ropeEnd = l0 - ax.hoist.At(su.motionEnd+1).Pos
+	su.ropeEnd = l0 - hoist.At(su.motionEnd+1).Pos
 	if len(ax.slew) > 0 && r0 == 0 && len(ax.radius) == 0 {
 		su.warnings = append(su.warnings, "The crane slews with the load at radius 0 m: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.")
 	}
@@ -138,10 +143,10 @@ func build(s *scenario.Scenario) (*setup, error) {
 	}
 	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
 
-	susp := suspension(ax.x, ax.y, ax.slew, ax.radius, r0, slew0,
+	susp := suspension(x, y, slew, radius, r0, slew0,
 		len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0)
 	rope := func(t float64) (float64, float64, float64) {
-		h := ax.hoist.At(t)
+		h := hoist.At(t)
 		return l0 - h.Pos, -h.Vel, -h.Acc
 	}
 	var force func(t float64, pos, vel r3.Vec) r3.Vec
@@ -201,7 +206,7 @@ func WindForceN(s *scenario.Scenario) float64 {
 
 // suspension returns the suspension point's motion: travel on x and y plus
 // a point at radius r on an arm slewed by angle phi about the origin.
-func suspension(x, y, slew, radius motion.Sum, r0, phi0 float64, slewing bool) func(float64) pendulum.Kinematics {
+func suspension(x, y, slew, radius motion.Profile, r0, phi0 float64, slewing bool) func(float64) pendulum.Kinematics {
 	if !slewing {
 		return func(t float64) pendulum.Kinematics {
 			a, b := x.At(t), y.At(t)
