@@ -37,6 +37,7 @@
 package plan
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"runtime"
@@ -238,11 +239,25 @@ type request struct {
 	// With a hook block: the second mode's design period, its largest
 	// share of the load's swing, the rigging length (m).
 	designT2, share2, rig float64
+	// budget is the work all the plan's runs draw on together.
+	budget *sway.Budget
 }
 
 // Make plans the move of s.Plan. s must carry a plan block; it is
 // validated first.
 func Make(s *scenario.Scenario) (*Result, error) {
+	return makeWith(s, sway.NewBudget(Work, budgetMessage))
+}
+
+// Work is the work budget of one plan, shared by all its runs (see
+// sway.Budget): about 5 s of one core, 2.6 s on two. A 1500 m travel with
+// a hook block over rope lengths 5 to 40 m needs about half of it; the
+// example plans need 1 % or less.
+const Work = 400_000_000
+
+const budgetMessage = "This plan needs more computing than allowed: narrow the rope-length range (plan.rope_length_min_m to plan.rope_length_max_m) or shorten the move (plan.distance_m or plan.angle_deg)."
+
+func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if s.Plan == nil {
 		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
 	}
@@ -250,6 +265,7 @@ func Make(s *scenario.Scenario) (*Result, error) {
 		return nil, err
 	}
 	rq := newRequest(s)
+	rq.budget = budget
 	g := units.StandardGravity
 	res := &Result{
 		Name: s.Name, Axis: s.Plan.Axis, RopeLengthM: *s.Load.RopeLengthM, RopeLengthsM: rq.ropes,
@@ -527,7 +543,10 @@ func (rq *request) simulate(m *scenario.Motion, rope float64) (Verified, error) 
 	sc.Motions = []scenario.Motion{*m}
 	sc.Load.RopeLengthM = &rope
 	sc.Settings = &scenario.Settings{RelTol: RelTol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true, Budget: rq.budget})
+	if errors.Is(err, sway.ErrStepLimit) {
+		err = &sway.WorkError{Message: budgetMessage}
+	}
 	if err != nil {
 		return Verified{}, err
 	}

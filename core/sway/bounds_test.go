@@ -99,3 +99,50 @@ func TestSplineExtremes(t *testing.T) {
 		}
 	}
 }
+
+// TestWorkBudget checks that a run whose every step looks at many moving
+// pieces (here 100 shaped moves at once) ends when its work budget is
+// spent, with a message in plain words, and that a shared budget stops
+// every evaluation drawing on it.
+func TestWorkBudget(t *testing.T) {
+	var b strings.Builder
+	b.WriteString(`{"format": "swaysheet-scenario", "version": 1, "name": "many moves", "load": {"mass_kg": 1000, "rope_length_m": 5}, "motions": [`)
+	for i := range 100 {
+		if i > 0 {
+			b.WriteString(",")
+		}
+		fmt.Fprintf(&b, `{"axis": "travel_x", "start_s": %g, "distance_m": 10, "speed_m_per_s": 0.5, "accel_m_per_s2": 0.3, "shaper": {"kind": "ei", "period_s": 4.5, "second_period_s": 1.3}}`, float64(i)*0.01)
+	}
+	b.WriteString(`]}`)
+	s, err := scenario.Parse([]byte(b.String()))
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = sway.EvaluateWith(s, sway.Options{NoHistory: true, Budget: sway.NewBudget(1e6, "")})
+	if !errors.Is(err, sway.ErrWorkLimit) {
+		t.Fatalf("want the work limit, got %v", err)
+	}
+	for _, want := range []string{"This run needs more computing than allowed", "shorten the moves or the run time", "fewer moves"} {
+		if !strings.Contains(err.Error(), want) {
+			t.Errorf("message %q lacks %q", err, want)
+		}
+	}
+	shared := sway.NewBudget(1e8, "This plan needs more computing than allowed: narrow the rope-length range.")
+	var errs int
+	for range 1000 {
+		if _, err := sway.EvaluateWith(s, sway.Options{NoHistory: true, Budget: shared}); err != nil {
+			if !strings.Contains(err.Error(), "This plan needs more computing") {
+				t.Fatalf("shared budget: %v", err)
+			}
+			errs++
+			break
+		}
+	}
+	if errs == 0 {
+		t.Fatal("a shared budget never ran out")
+	}
+	// The default budget lets the run finish.
+	if _, err := sway.EvaluateWith(s, sway.Options{NoHistory: true}); err != nil {
+		t.Fatal(err)
+	}
+}

@@ -118,6 +118,9 @@ type Options struct {
 	// MaxSteps bounds the integration steps, accepted and rejected; zero
 	// means 500,000. The evaluation ends with ErrStepLimit when hit.
 	MaxSteps int
+	// Budget is the work allowance the evaluation draws on (see
+	// budget.go); nil gives it its own of DefaultWork.
+	Budget *Budget
 	// NoModePeriods skips measuring the two mode periods on the nonlinear
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
@@ -219,6 +222,10 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if opt.MaxSteps > 0 {
 		sc.maxSteps = opt.MaxSteps
 	}
+	sc.axes, sc.budget = su.axes, opt.Budget
+	if sc.budget == nil {
+		sc.budget = NewBudget(DefaultWork, "")
+	}
 	if !opt.NoHistory {
 		sc.hist = &res.History
 		sc.sampleDt = tEnd / float64(samples-1)
@@ -313,4 +320,4 @@ func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) 
 
 // ErrStepLimit is returned when an evaluation needs more integration steps
 // than it is allowed.
-var ErrStepLimit = errors.New("sway: the computation needed too many steps; shorten the run or loosen settings.rel_tol")
+var ErrStepLimit = errors.New("This run needs more computing than allowed: shorten the moves or the run time, or set a looser accuracy (settings.rel_tol)")
