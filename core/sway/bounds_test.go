@@ -127,22 +127,20 @@ func TestWorkBudget(t *testing.T) {
 			t.Errorf("message %q lacks %q", err, want)
 		}
 	}
-	shared := sway.NewBudget(1e8, "This plan needs more computing than allowed: narrow the rope-length range.")
-	var errs int
-	for range 1000 {
-		if _, err := sway.EvaluateWith(s, sway.Options{NoHistory: true, Budget: shared}); err != nil {
-			if !strings.Contains(err.Error(), "This plan needs more computing") {
+	// A shared budget stops the runs drawing on it once spent: bay-travel
+	// needs about 2e5 units.
+	shared := sway.NewBudget(1e6, "This plan needs more computing than allowed: narrow the rope-length range.")
+	bay := readScenario(t, "testdata/scenarios/bay-travel.json")
+	runs := 0
+	for ; runs < 100; runs++ {
+		if _, err := sway.EvaluateWith(bay, sway.Options{NoHistory: true, Budget: shared}); err != nil {
+			if !errors.Is(err, sway.ErrWorkLimit) || !strings.Contains(err.Error(), "This plan needs more computing") {
 				t.Fatalf("shared budget: %v", err)
 			}
-			errs++
 			break
 		}
 	}
-	if errs == 0 {
-		t.Fatal("a shared budget never ran out")
-	}
-	// The default budget lets the run finish.
-	if _, err := sway.EvaluateWith(s, sway.Options{NoHistory: true}); err != nil {
-		t.Fatal(err)
+	if runs < 2 || runs > 10 {
+		t.Fatalf("a shared budget of 1e6 ran out after %d runs of bay-travel", runs)
 	}
 }
