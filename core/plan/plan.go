@@ -138,6 +138,9 @@ type Option struct {
 
 	profile motion.Profile
 	accelSI float64
+	// rejected says why the option is not offered (its move is not one the
+	// tool accepts); empty when it is.
+	rejected string
 }
 
 // Verified is one simulation of an option.
@@ -369,6 +372,15 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if peak != nil {
 		opts = append(opts, peak)
 	}
+	offered := opts[:0]
+	for _, o := range opts {
+		if o.rejected != "" {
+			res.Notes = append(res.Notes, o.rejected)
+			continue
+		}
+		offered = append(offered, o)
+	}
+	opts = offered
 	res.Options = rank(opts, fastest.MoveTimeS)
 	rq.recommend(res)
 	return res, nil
@@ -508,9 +520,24 @@ func (rq *request) verifyAll(opts []*Option) error {
 			defer wg.Done()
 			for j := range jobs {
 				v, err := rq.simulate(&opts[j.o].Motion, rq.ropes[j.l])
+				var es scenario.Errors
+				if errors.As(err, &es) {
+					// The option's own move is not one the tool accepts
+					// (below what a drive does, or too long): not offered.
+					mu.Lock()
+					if opts[j.o].rejected == "" {
+						opts[j.o].rejected = fmt.Sprintf("%s is not offered: its move is outside what the tool accepts (%v).", opts[j.o].Label, es[0])
+					}
+					mu.Unlock()
+					continue
+				}
 				if err != nil {
 					mu.Lock()
-					if firstErr == nil {
+					switch {
+					case firstErr != nil:
+					case errors.Is(err, sway.ErrWorkLimit):
+						firstErr = err // the plan's own message
+					default:
 						firstErr = fmt.Errorf("%s at rope length %g m: %w", opts[j.o].Label, rq.ropes[j.l], err)
 					}
 					mu.Unlock()
@@ -621,6 +648,12 @@ func (rq *request) peakLimited() (*Option, int, error) {
 			return nil, sims, err
 		}
 		sims += len(rq.ropes)
+		if o.rejected != "" {
+			if best == nil {
+				best = o // offered as not offered, with its reason
+			}
+			break
+		}
 		r := o.peakRatio(rq.lim)
 		if r <= 1 {
 			if best == nil || o.accel() > best.accel() {
