@@ -266,7 +266,14 @@ func (rq *request) pendant(key, label, kind string, imps []motion.Impulse) (*Opt
 	}
 	p, err := motion.NewSteps(ms, rq.amax, rq.amax)
 	if err != nil {
-		return nil, fmt.Errorf("plan: pendant steps for %s: %w", kind, err)
+		// The layout found no top speed at which the releases come after
+		// the presses: the move is too short for these steps.
+		f := "plan.distance_m and plan.max_accel_m_per_s2"
+		if rq.slew {
+			f = "plan.angle_deg and plan.max_accel_deg_per_s2"
+		}
+		return &Option{Key: key, Label: label, Drive: scenario.DrivePendant, Shaper: kind, Settings: []string{""},
+			rejected: fmt.Sprintf("%s is not offered: the move is too short for these steps at this acceleration (%s): a release would come before the last press.", label, f)}, nil
 	}
 	o.profile = p
 	a := rq.amax

@@ -548,6 +548,9 @@ func (rq *request) verifyAll(opts []*Option) error {
 		}()
 	}
 	for o := range opts {
+		if opts[o].rejected != "" {
+			continue
+		}
 		for l := range rq.ropes {
 			jobs <- job{o, l}
 		}
