@@ -48,6 +48,8 @@ func TestBadInput(t *testing.T) {
 		{"truncated file", file(good, "")[:80], "(file)", "ends in the middle"},
 		{"trailing data", file(good, "") + "{}", "(file)", "more after the scenario's closing brace"},
 		{"not an object", "[]", "(file)", "found a JSON array"},
+		{"deeply nested", strings.Repeat("[", 1_000_000), "(file)", "nested 65 levels deep: a scenario has at most 64 levels"},
+		{"deeply nested objects", strings.Repeat(`{"a":`, 200_000), "(file)", "a scenario has at most 64 levels"},
 		{"too large", `{"name": "` + strings.Repeat("x", scenario.MaxFileBytes) + `"}`, "(file)", "larger than"},
 	} {
 		_, err := scenario.Parse([]byte(c.data))

@@ -120,3 +120,38 @@ func jsonFields(t reflect.Type) map[string]reflect.Type {
 	}
 	return out
 }
+
+// MaxDepth bounds how deeply a scenario file's objects and lists nest (a
+// scenario needs 4 levels). Deeper files are rejected before decoding:
+// the decoders' work and memory grow with the depth.
+const MaxDepth = 64
+
+// checkDepth reports a file nested more than MaxDepth levels deep, in one
+// pass over its bytes (brackets inside strings do not count).
+func checkDepth(data []byte) *FieldError {
+	depth, inString, escaped := 0, false, false
+	for _, c := range data {
+		switch {
+		case inString:
+			switch {
+			case escaped:
+				escaped = false
+			case c == '\\':
+				escaped = true
+			case c == '"':
+				inString = false
+			}
+		case c == '"':
+			inString = true
+		case c == '{' || c == '[':
+			depth++
+			if depth > MaxDepth {
+				return &FieldError{Field: "(file)", Message: fmt.Sprintf(
+					"the file is nested %d levels deep: a scenario has at most %d levels", depth, MaxDepth)}
+			}
+		case c == '}' || c == ']':
+			depth--
+		}
+	}
+	return nil
+}
