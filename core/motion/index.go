@@ -141,6 +141,8 @@ func Work(p Profile, t float64) int {
 		return q.idx.work(t)
 	case *Shaped:
 		return q.index().work(t)
+	case interface{ Pieces() []Piece }:
+		return 2 // a binary search among the spans
 	}
 	return 1
 }

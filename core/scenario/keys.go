@@ -63,8 +63,11 @@ func walkValue(dec *json.Decoder, t reflect.Type, at string, fe **FieldError) bo
 			}
 			key, _ := tok.(string)
 			path := key
+			if key == "" {
+				path = `""` // a key that is the empty string
+			}
 			if at != "" {
-				path = at + "." + key
+				path = at + "." + path
 			}
 			if seen[key] {
 				*fe = &FieldError{Field: path, Message: "appears twice; give each field once"}
