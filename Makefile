@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm sheetcss clean
 
 all: test
 
@@ -105,6 +105,14 @@ fuzz-long:
 	  echo "fuzz $${t#*:} ($(FUZZLONG))"; \
 	  nice -n 19 $(GO) test -run '^$$' -fuzz "^$${t#*:}\$$" -fuzztime $(FUZZLONG) -timeout 0 ./$${t%%:*}; \
 	done
+
+# Hostile inputs (testdata/hostile/hostile.py): files built to make the
+# core work as long as it can; times the command line on each, fails when
+# one takes more than 10 s. Not part of `make test` (timing is for bench).
+hostile:
+	@mkdir -p $(OUT)/hostile
+	$(GO) build -o $(OUT)/hostile/swaysheet ./core/cmd/swaysheet
+	$(PYTHON_REF) testdata/hostile/hostile.py $(OUT)/hostile $(OUT)/hostile/swaysheet
 
 # Regenerate testdata/reference/results.json and results_double.json (hook
 # block and rigging) with SciPy (Debian's
