@@ -78,7 +78,7 @@ dist: wasm single-wasm
 
 # web/static/sheet.css is the page's copy of the check sheet's style sheet.
 sheetcss:
-	cp web/sheet/sheet.css web/static/sheet.css
+	cp core/sheet/sheet.css web/static/sheet.css
 
 # Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
 serve: wasm
@@ -89,7 +89,7 @@ serve: wasm
 # written to the package's testdata/fuzz/FuzzX/ and fails the run.
 FUZZTIME ?= 10s
 FUZZ_TARGETS := core/scenario:FuzzParse core/sway:FuzzEvaluate core/motion:FuzzParseCSV \
-	core/plan:FuzzPlan core/plan:FuzzPlanValues
+	core/plan:FuzzPlan core/plan:FuzzPlanValues core/ropelength:FuzzParse
 fuzz:
 	@set -e; for t in $(FUZZ_TARGETS); do \
 	  echo "fuzz $${t#*:} ($(FUZZTIME))"; \
@@ -142,7 +142,7 @@ BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.j
 	slew-with-trolley.json hoist-during-travel.json hard-stop.json wind-gust.json)
 bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
-	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./web/sheet/ | tee $(BENCH)/go-bench.txt
+	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench

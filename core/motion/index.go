@@ -141,7 +141,7 @@ func Work(p Profile, t float64) int {
 		return q.idx.work(t)
 	case *Shaped:
 		return q.index().work(t)
-	case interface{ Pieces() []Piece }:
+	case interface{ spans() int }:
 		return 2 // a binary search among the spans
 	}
 	return 1
@@ -206,6 +206,8 @@ func sumWindow(ps []Profile) (float64, bool) {
 }
 
 func (p *Trapezoid) window() (float64, bool) { return p.Start, true }
+
+func (p *Piecewise) spans() int { return len(p.pieces) }
 
 func (p *Piecewise) window() (float64, bool) {
 	return p.pieces[0].T, p.pieces[0].V == 0

@@ -146,11 +146,6 @@ func (m Sum) End() float64 {
 	return e
 }
 
-// Breakpoints merges the breakpoints of several profiles.
-func Breakpoints(ps ...Profile) []float64 {
-	return Sum(ps).Breakpoints()
-}
-
 // dedupe sorts ts and drops times closer than 1e-9 s to the one before.
 func dedupe(ts []float64) []float64 {
 	sort.Float64s(ts)

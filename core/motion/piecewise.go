@@ -55,9 +55,6 @@ func (p *Piecewise) Breakpoints() []float64 {
 // End implements Profile.
 func (p *Piecewise) End() float64 { return p.end }
 
-// Pieces returns a copy of the spans.
-func (p *Piecewise) Pieces() []Piece { return append([]Piece(nil), p.pieces...) }
-
 // builder appends spans one after the other, carrying position and speed
 // across each boundary.
 type builder struct {

@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// harmonic is y” = -y written as a first-order system; its exact solution
+// harmonic is y¨ = -y written as a first-order system; its exact solution
 // from (1, 0) is (cos t, -sin t).
 func harmonic(t float64, y, dy []float64) {
 	dy[0] = y[1]

@@ -18,19 +18,19 @@ import (
 // P1 = S + L1*n1, P2 = P1 + L2*n2, applied accelerations A1 = g + F1/M1 and
 // A2 = g + F2/M2, Newton's law for both masses
 //
-//	M1*P1” = -T1*n1 + T2*n2 + M1*A1
-//	M2*P2” = -T2*n2 + M2*A2
+//	M1*P1¨ = -T1*n1 + T2*n2 + M1*A1
+//	M2*P2¨ = -T2*n2 + M2*A2
 //
-// and the constraints n_i.n_i” = -|u_i|^2 give two linear equations in the
+// and the constraints n_i.n_i¨ = -|u_i|^2 give two linear equations in the
 // rope tension T1 and the rigging tension T2 (c = n1.n2):
 //
-//	T1/M1 - c*T2/M1           = (A1 - S”).n1 - L1” + L1*|u1|^2
+//	T1/M1 - c*T2/M1           = (A1 - S¨).n1 - L1¨ + L1*|u1|^2
 //	-c*T1/M1 + (1/M1+1/M2)*T2 = (A2 - A1).n2 + L2*|u2|^2
 //
 // whose determinant ((1-c^2)/M1 + 1/M2)/M1 is positive. Then
 //
-//	L1*n1” = A1 - S” + (T2*n2 - T1*n1)/M1 - L1”*n1 - 2*L1'*u1
-//	L2*n2” = A2 - A1 - T2*n2/M2 - (T2*n2 - T1*n1)/M1
+//	L1*n1¨ = A1 - S¨ + (T2*n2 - T1*n1)/M1 - L1¨*n1 - 2*L1'*u1
+//	L2*n2¨ = A2 - A1 - T2*n2/M2 - (T2*n2 - T1*n1)/M1
 type Double struct {
 	M1, M2  float64 // hook block and load masses, kg
 	L2      float64 // rigging length, hook to the load's centre of mass, m
@@ -57,7 +57,7 @@ func (d *Double) g() float64 {
 
 func vec(y []float64) r3.Vec { return r3.Vec{X: y[0], Y: y[1], Z: y[2]} }
 
-// eval returns n1” and n2”, and fills p if it is not nil.
+// eval returns n1¨ and n2¨, and fills p if it is not nil.
 func (d *Double) eval(t float64, y []float64, p *Point) (acc1, acc2 r3.Vec) {
 	n1, u1, n2, u2 := vec(y[0:]), vec(y[3:]), vec(y[6:]), vec(y[9:])
 	s := d.Suspension(t)

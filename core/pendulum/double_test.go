@@ -13,7 +13,7 @@ import (
 )
 
 // Source: the linearised two-mass pendulum. Its Lagrange equations in the
-// absolute angles (theta1, theta2) are M theta” + K theta = 0 with
+// absolute angles (theta1, theta2) are M theta¨ + K theta = 0 with
 // M = [[(m1+m2) L1^2, m2 L1 L2], [m2 L1 L2, m2 L2^2]] and
 // K = diag((m1+m2) g L1, m2 g L2); the squared frequencies are the
 // eigenvalues of M^-1 K, computed here with gonum's mat.Eigen as the

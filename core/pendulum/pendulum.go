@@ -6,19 +6,21 @@
 // to the load) and its rate u = dn/dt, so the load sits at P = S + L*n. The
 // axes are x and y horizontal, z up; gravity is -g*z.
 //
-// Newton's law for the load, m*P” = -T*n + m*g_vec + F, with
-// P” = S” + L”*n + 2*L'*u + L*n”, and the constraint n.n = 1 (so n.u = 0
-// and n.n” = -|u|^2) give
+// With x' = dx/dt and x¨ = d²x/dt² (written so, not with two primes,
+// which go doc would print as a closing quote), Newton's law for the load,
+// m*P¨ = -T*n + m*g_vec + F, with
+// P¨ = S¨ + L¨*n + 2*L'*u + L*n¨, and the constraint n.n = 1 (so n.u = 0
+// and n.n¨ = -|u|^2) give
 //
-//	n” = [ (I - n n^T)(a - S”) - 2 L' u ] / L - |u|^2 n
-//	T  = m * [ (a - S”).n - L” + L |u|^2 ]
+//	n¨ = [ (I - n n^T)(a - S¨) - 2 L' u ] / L - |u|^2 n
+//	T  = m * [ (a - S¨).n - L¨ + L |u|^2 ]
 //
 // where a = g_vec + F/m is the applied acceleration (gravity, wind, drag).
 // The rope tension T is thus an algebraic function of the state at each
 // instant. The rope is assumed taut: where T would be negative the model no
 // longer holds (the load would be in free flight and snatch the rope).
 //
-// Integrating n” directly lets |n| drift from 1 by the integrator's local
+// Integrating n¨ directly lets |n| drift from 1 by the integrator's local
 // error; Project puts the state back onto the constraint after each step, so
 // the rope length error stays at rounding level over any run.
 package pendulum
@@ -95,13 +97,6 @@ func (p *Point) SwingRad() float64 {
 	return math.Atan2(math.Hypot(d.X, d.Y), -d.Z)
 }
 
-// Excursion is the horizontal distance of the load from the point under
-// the suspension point, m.
-func (p *Point) Excursion() float64 {
-	d := p.Rel()
-	return math.Hypot(d.X, d.Y)
-}
-
 func (m *Model) g() float64 {
 	if m.Gravity == 0 {
 		return units.StandardGravity
@@ -118,7 +113,7 @@ func (m *Model) Eval(t float64, y []float64, p *Point) { m.eval(t, y, p) }
 // Project implements System.
 func (m *Model) Project(y []float64) float64 { return Project(y) }
 
-// eval fills p (if not nil) from time t and state y, and returns n”.
+// eval fills p (if not nil) from time t and state y, and returns n¨.
 func (m *Model) eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 	n := r3.Vec{X: y[0], Y: y[1], Z: y[2]}
 	u := r3.Vec{X: y[3], Y: y[4], Z: y[5]}
@@ -131,7 +126,7 @@ func (m *Model) eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 		pos = r3.Add(s.Pos, r3.Scale(l, n))
 		vel = r3.Add(s.Vel, r3.Add(r3.Scale(dl, n), r3.Scale(l, u)))
 	}
-	// Applied acceleration seen from the suspension point, a - S”.
+	// Applied acceleration seen from the suspension point, a - S¨.
 	rel := r3.Vec{X: -s.Acc.X, Y: -s.Acc.Y, Z: -m.g() - s.Acc.Z}
 	if m.Force != nil {
 		rel = r3.Add(rel, r3.Scale(1/m.Mass, m.Force(t, pos, vel)))
@@ -139,7 +134,7 @@ func (m *Model) eval(t float64, y []float64, p *Point) (acc r3.Vec) {
 	radial := r3.Dot(rel, n)
 	uu := r3.Dot(u, u)
 	il := 1 / l
-	// n” = [rel - radial*n - 2 L' u]/L - |u|^2 n
+	// n¨ = [rel - radial*n - 2 L' u]/L - |u|^2 n
 	cn := -radial*il - uu
 	cu := -2 * dl * il
 	acc = r3.Vec{

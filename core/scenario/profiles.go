@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
-	"swaysheet/core/units"
 )
 
 // Motion profile names.
@@ -144,15 +144,15 @@ func init() {
 }
 
 // metric reports whether the axis moves in metres (else degrees).
-func metric(axis string) bool { return axis != Slew }
+func metric(axis string) bool {
+	a, ok := crane.Of(axis)
+	return !ok || a.Kind == crane.Linear
+}
 
 // DefaultColumn is the CSV column a series motion of the axis reads when
 // none is named: the speed column if the record has it, else the position.
 func DefaultColumn(axis string, s *motion.Series) string {
-	unit := "_m"
-	if !metric(axis) {
-		unit = "_deg"
-	}
+	unit := kindOf(axis).CSVSuffix
 	if _, ok := s.Column(axis + unit + "_per_s"); ok {
 		return axis + unit + "_per_s"
 	}
@@ -160,11 +160,15 @@ func DefaultColumn(axis string, s *motion.Series) string {
 }
 
 // ColumnScale is the factor from a CSV column's unit to the axis' SI unit.
-func ColumnScale(axis string) float64 {
-	if metric(axis) {
-		return 1
+func ColumnScale(axis string) float64 { return kindOf(axis).ToSI }
+
+// kindOf is the axis' kind; linear for an unknown axis (Validate rejects
+// those).
+func kindOf(axis string) *crane.Kind {
+	if a, ok := crane.Of(axis); ok {
+		return a.Kind
 	}
-	return units.Degree
+	return crane.Linear
 }
 
 // validateProfile checks the fields of the non-trapezoid profiles, and
@@ -252,7 +256,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.forbidden(f("jerk_deg_per_s3"), m.JerkDegPerS3, "the "+m.Axis+" axis moves in metres; use jerk_m_per_s3")
 		} else {
 			c.optional(f("jerk_deg_per_s3"), key("jerk_deg_per_s3"), m.JerkDegPerS3)
-			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the slew axis moves in degrees; use jerk_deg_per_s3")
+			c.forbidden(f("jerk_m_per_s3"), m.JerkMPerS3, "the "+m.Axis+" axis moves in degrees; use jerk_deg_per_s3")
 		}
 	case ProfileSteps:
 		c.value(f("start_s"), key("start_s"), m.StartS)
@@ -261,7 +265,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
 			c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a step-speed slew takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
+			only("a step-speed "+m.Axis+" move takes steps[] and the ramps accel_deg_per_s2 and decel_deg_per_s2", "accel_deg_per_s2", "decel_deg_per_s2")
 			c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
 			c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
 		}
@@ -283,7 +287,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			} else {
 				v = st.RateDegPerS
 				c.required(g("rate_deg_per_s"), key("steps[].rate_deg_per_s"), st.RateDegPerS)
-				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the slew axis moves in degrees; use rate_deg_per_s")
+				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the "+m.Axis+" axis moves in degrees; use rate_deg_per_s")
 			}
 			if i == len(m.Steps)-1 && v != nil && *v != 0 {
 				name := "speed_m_per_s"
@@ -303,7 +307,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.required(f("speed_m_per_s"), key("hard_stop.speed_m_per_s"), m.SpeedMPerS)
 			c.required(f("decel_m_per_s2"), key("hard_stop.decel_m_per_s2"), m.DecelMPerS2)
 		} else {
-			only("a hard stop takes rate_deg_per_s (slewing in the + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
+			only("a hard stop takes rate_deg_per_s (moving in the axis' + direction from t = 0), brake_at_s and decel_deg_per_s2", "rate_deg_per_s", "decel_deg_per_s2")
 			c.required(f("rate_deg_per_s"), key("hard_stop.rate_deg_per_s"), m.RateDegPerS)
 			c.required(f("decel_deg_per_s2"), key("hard_stop.decel_deg_per_s2"), m.DecelDegPerS2)
 		}
@@ -331,10 +335,7 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 	if col == "" {
 		col = DefaultColumn(m.Axis, s)
 		if _, ok := s.Column(col); !ok {
-			unit := "_m"
-			if !metric(m.Axis) {
-				unit = "_deg"
-			}
+			unit := kindOf(m.Axis).CSVSuffix
 			return nil, fmt.Errorf("the record has no column for the %s axis: name it %s%s (positions) or %s%s_per_s (speeds), or set column",
 				m.Axis, m.Axis, unit, m.Axis, unit)
 		}
@@ -426,10 +427,10 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
 		}
 	case "":
-		c.add("plan.axis", "is required: accepted %q", []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is required: accepted %q", crane.Names(true))
 		return
 	default:
-		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, []string{TravelX, TravelY, Slew})
+		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
 		return
 	}
 	p.checkDuration(c)

@@ -16,6 +16,8 @@ import (
 	"fmt"
 	"io"
 	"strings"
+
+	"swaysheet/core/crane"
 )
 
 // FormatName and Version identify the file format.
@@ -33,8 +35,8 @@ const (
 	Hoist   = "hoist"    // hoisting: positive up (rope shortens), m
 )
 
-// Axes lists the axis names in display order.
-var Axes = []string{TravelX, TravelY, Slew, Radius, Hoist}
+// Axes lists the axis names in display order (core/crane's table).
+var Axes = crane.Names(false)
 
 // Scenario is one lift to check.
 type Scenario struct {
@@ -117,8 +119,30 @@ type Motion struct {
 	ProfileFields
 }
 
-// Wind is a steady horizontal force on the load, given directly or from a
-// wind speed as F = q*A*c with q = 0.5*rho*v^2.
+// Wind is a horizontal wind on the load, given as the force it makes on
+// the load hanging still (ForceN) or as a wind speed (SpeedMPerS), from
+// which that force is F = q*A*c with q = 0.5*rho*v^2, A the load's
+// load.area_m2 and c the ShapeFactor. The speed is the 3-s gust speed at
+// the load's height (from the site's anemometer or the forecast, taken up
+// to that height), the speed crane wind limits are usually given in.
+//
+// With load.drag_coefficient set the air also acts on the load's motion:
+// the drag is on the load's speed relative to the air, and the wind force
+// above stays the force on the load at rest, so nothing is counted twice.
+// The rule, with s(t) the wind speed's fraction of full (0 to 1, see
+// RampS), e the unit vector toward TowardDeg and
+// k = 0.5*rho*load.drag_coefficient*load.area_m2:
+//
+//	air velocity     w(t) = s(t) * V * e
+//	force on load    F(t, v) = s^2*F_w*e - k*( |v - w|(v - w) + s^2*V^2*e )
+//
+// where v is the load's ground velocity, F_w the force at rest at full
+// wind (ForceN or q*A*c) and V the full air speed: SpeedMPerS, or for a
+// typed force the speed that makes that force through the drag,
+// V = sqrt(F_w/k). At v = 0 the bracket vanishes and F = s^2*F_w*e; with a
+// typed force, or a speed whose shape factor equals the drag coefficient,
+// F is exactly -k*|v - w|(v - w). Without drag F = s^2*F_w*e, without wind
+// F = -k*|v|*v.
 type Wind struct {
 	ForceN            *float64 `json:"force_n,omitempty"`
 	SpeedMPerS        *float64 `json:"speed_m_per_s,omitempty"`
@@ -130,6 +154,13 @@ type Wind struct {
 	StartS    float64 `json:"start_s,omitempty"`
 	// DurationS is how long the wind blows; zero means to the end of the run.
 	DurationS float64 `json:"duration_s,omitempty"`
+	// RampS is the gust's rise time: the wind speed rises linearly from 0
+	// at StartS to full at StartS + RampS and, with DurationS, falls
+	// linearly over RampS from StartS + DurationS, so its fraction of full
+	// is s(t) = clamp((t - StartS)/RampS) - clamp((t - StartS - DurationS)/RampS)
+	// with clamp to [0, 1]; the force goes as s^2 (a typed force too).
+	// Zero (the default) is a sudden step on and off.
+	RampS float64 `json:"ramp_s,omitempty"`
 }
 
 // Initial is the swing at time zero; the zero value hangs still.

@@ -8,6 +8,8 @@ import (
 	"reflect"
 	"strings"
 	"testing"
+
+	"swaysheet/core/crane"
 )
 
 var update = flag.Bool("update", false, "rewrite schema.json from the Go types and the Ranges table")
@@ -17,7 +19,7 @@ var enums = map[string][]string{
 	"motions[].axis":        Axes,
 	"motions[].profile":     Profiles,
 	"motions[].shaper.kind": ShaperKinds,
-	"plan.axis":             {TravelX, TravelY, Slew},
+	"plan.axis":             crane.Names(true),
 	"plan.drive":            {DriveVariableSpeed, DrivePendant},
 	"settings.accuracy":     {"default", "tight"},
 }

@@ -4,6 +4,9 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
+
+	"swaysheet/core/crane"
 )
 
 // Range is the accepted interval of one field, with its unit for messages.
@@ -47,6 +50,7 @@ var Ranges = map[string]Range{
 	"wind.toward_deg":            {Min: -360, Max: 360, Unit: "deg"},
 	"wind.start_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
 	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s", MinAbs: MinDurationS},
+	"wind.ramp_s":                {Min: 0, Max: 600, Unit: "s", MinAbs: MinDurationS},
 
 	"initial.swing_deg":          {Min: 0, Max: 89, Unit: "deg"},
 	"initial.toward_deg":         {Min: -360, Max: 360, Unit: "deg"},
@@ -253,28 +257,24 @@ func (m *Motion) validate(c *checker, at string) {
 	}
 	m.validateShaper(c, at)
 	c.value(f("start_s"), key("start_s"), m.StartS)
-	switch m.Axis {
-	case TravelX, TravelY, Radius, Hoist:
-		c.required(f("distance_m"), key("distance_m"), m.DistanceM)
-		c.required(f("speed_m_per_s"), key("speed_m_per_s"), m.SpeedMPerS)
-		c.required(f("accel_m_per_s2"), key("accel_m_per_s2"), m.AccelMPerS2)
-		c.optional(f("decel_m_per_s2"), key("decel_m_per_s2"), m.DecelMPerS2)
-		why := "the " + m.Axis + " axis moves in metres; use distance_m, speed_m_per_s, accel_m_per_s2, decel_m_per_s2"
-		c.forbidden(f("angle_deg"), m.AngleDeg, why)
-		c.forbidden(f("rate_deg_per_s"), m.RateDegPerS, why)
-		c.forbidden(f("accel_deg_per_s2"), m.AccelDegPerS2, why)
-		c.forbidden(f("decel_deg_per_s2"), m.DecelDegPerS2, why)
-	case Slew:
-		c.required(f("angle_deg"), key("angle_deg"), m.AngleDeg)
-		c.required(f("rate_deg_per_s"), key("rate_deg_per_s"), m.RateDegPerS)
-		c.required(f("accel_deg_per_s2"), key("accel_deg_per_s2"), m.AccelDegPerS2)
-		c.optional(f("decel_deg_per_s2"), key("decel_deg_per_s2"), m.DecelDegPerS2)
-		why := "the slew axis moves in degrees; use angle_deg, rate_deg_per_s, accel_deg_per_s2, decel_deg_per_s2"
-		c.forbidden(f("distance_m"), m.DistanceM, why)
-		c.forbidden(f("speed_m_per_s"), m.SpeedMPerS, why)
-		c.forbidden(f("accel_m_per_s2"), m.AccelMPerS2, why)
-		c.forbidden(f("decel_m_per_s2"), m.DecelMPerS2, why)
-	case "":
+	// The axis' kind (crane.Kind) names the fields its moves take.
+	d, known := m.Drive()
+	switch {
+	case known:
+		k := d.Axis.Kind
+		c.required(f(k.Distance), key(k.Distance), d.Distance)
+		c.required(f(k.Speed), key(k.Speed), d.Speed)
+		c.required(f(k.Accel), key(k.Accel), d.Accel)
+		c.optional(f(k.Decel), key(k.Decel), d.Decel)
+		why := "the " + m.Axis + " axis moves in " + k.Words + "; use " + strings.Join([]string{k.Distance, k.Speed, k.Accel, k.Decel}, ", ")
+		for _, o := range crane.Kinds {
+			if o != k {
+				for _, name := range []string{o.Distance, o.Speed, o.Accel, o.Decel} {
+					c.forbidden(f(name), d.Other[name], why)
+				}
+			}
+		}
+	case m.Axis == "":
 		c.add(f("axis"), "is required: accepted %q", Axes)
 	default:
 		c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
@@ -303,4 +303,5 @@ func (w *Wind) validate(c *checker, area float64) {
 	c.value("wind.toward_deg", "wind.toward_deg", w.TowardDeg)
 	c.value("wind.start_s", "wind.start_s", w.StartS)
 	c.value("wind.duration_s", "wind.duration_s", w.DurationS)
+	c.value("wind.ramp_s", "wind.ramp_s", w.RampS)
 }

@@ -105,7 +105,7 @@ func TestResidualClosedForm(t *testing.T) {
 	}
 }
 
-// In the linear model x” + 2 zeta w x' + w^2 x = w^2 u(t), a shaped unit
+// In the linear model x¨ + 2 zeta w x' + w^2 x = w^2 u(t), a shaped unit
 // step u = sum A_i H(t - t_i) leaves no vibration after the last impulse at
 // the design frequency, and V(w, zeta) of the unshaped step's vibration
 // elsewhere (the definition of V in Singer & Seering 1990). The model is

@@ -77,7 +77,7 @@ func TestTwoModeResidualFunction(t *testing.T) {
 // to the first mode leaves the second ringing. The linear equations are
 // integrated numerically here, independently of the formula for V:
 //
-//	M q” + K q = -b a(t),  M = [[m L1^2, m2 L1 L2], [m2 L1 L2, m2 L2^2]],
+//	M q¨ + K q = -b a(t),  M = [[m L1^2, m2 L1 L2], [m2 L1 L2, m2 L2^2]],
 //	K = diag(m g L1, m2 g L2),  b = (m L1, m2 L2),  m = m1 + m2,
 //
 // in the absolute angles q of rope and rigging (Lagrange's equations of the

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
@@ -22,30 +23,10 @@ type setup struct {
 	ropeEnd     float64   // rope length when all motion has ended, m
 	ropeStart   float64
 	windForce   float64 // N, while the wind blows
+	air         *Air    // wind and drag; nil when neither
 	phases      []Phase
 	warnings    []string
 	axes        []motion.Profile // each axis' moves combined, for the work budget
-}
-
-// axes holds the summed profile of each axis.
-type axes struct {
-	x, y, slew, radius, hoist motion.Sum
-}
-
-func (a *axes) of(name string) *motion.Sum {
-	switch name {
-	case scenario.TravelX:
-		return &a.x
-	case scenario.TravelY:
-		return &a.y
-	case scenario.Slew:
-		return &a.slew
-	case scenario.Radius:
-		return &a.radius
-	case scenario.Hoist:
-		return &a.hoist
-	}
-	panic("sway: unknown axis " + name) // Validate rejects these first
 }
 
 func deref(p *float64, def float64) float64 {
@@ -59,21 +40,25 @@ func deref(p *float64, def float64) float64 {
 // axis' SI unit (m or rad), from its distance, speed and ramps (start_s
 // included, shaper not). BuildProfile builds every profile kind.
 func Profile(m *scenario.Motion) *motion.Trapezoid {
-	if m.Axis == scenario.Slew {
-		acc := *m.AccelDegPerS2 * units.Degree
-		return motion.NewTrapezoid(m.StartS, *m.AngleDeg*units.Degree, *m.RateDegPerS*units.Degree,
-			acc, deref(m.DecelDegPerS2, *m.AccelDegPerS2)*units.Degree)
-	}
-	return motion.NewTrapezoid(m.StartS, *m.DistanceM, *m.SpeedMPerS, *m.AccelMPerS2,
-		deref(m.DecelMPerS2, *m.AccelMPerS2))
+	d, _ := m.Drive()     // Validate rejects unknown axes first
+	f := d.Axis.Kind.ToSI // 1 for metres: x*1 is x exactly
+	return motion.NewTrapezoid(m.StartS, *d.Distance*f, *d.Speed*f, *d.Accel*f, deref(d.Decel, *d.Accel)*f)
 }
 
-func build(s *scenario.Scenario) (*setup, error) {
-	if err := s.Validate(); err != nil {
-		return nil, err
+// kindOf is the kind of a validated move's axis.
+func kindOf(m *scenario.Motion) *crane.Kind {
+	a, _ := crane.Of(m.Axis)
+	return a.Kind
+}
+
+func build(s *scenario.Scenario, validate bool) (*setup, error) {
+	if validate {
+		if err := s.Validate(); err != nil {
+			return nil, err
+		}
 	}
 	su := &setup{}
-	var ax axes
+	var ax crane.Drives
 	var breaks []float64
 	for i := range s.Motions {
 		m := &s.Motions[i]
@@ -84,7 +69,8 @@ func build(s *scenario.Scenario) (*setup, error) {
 		if err := moveTooLong(i, m, p); err != nil {
 			return nil, err
 		}
-		sum := ax.of(m.Axis)
+		axis, _ := crane.Of(m.Axis) // Validate rejects unknown axes first
+		sum := ax.Of(axis)
 		*sum = append(*sum, p)
 		breaks = append(breaks, p.Breakpoints()...)
 		su.motionEnd = math.Max(su.motionEnd, p.End())
@@ -98,70 +84,47 @@ func build(s *scenario.Scenario) (*setup, error) {
 	l0 := *s.Load.RopeLengthM
 	mass := *s.Load.MassKg
 	r0 := s.Crane.RadiusM
-	slew0 := s.Crane.SlewDeg * units.Degree
 
 	// Each axis' moves added together, evaluated at a cost that does not
-	// grow with the number of moves and shaper impulses.
-	x, y, slew, radius, hoist := motion.Combine(ax.x...), motion.Combine(ax.y...),
-		motion.Combine(ax.slew...), motion.Combine(ax.radius...), motion.Combine(ax.hoist...)
-	su.axes = []motion.Profile{x, y, slew, radius, hoist}
+	// grow with the number of moves and shaper impulses (the work budget
+	// counts their moving pieces).
+	for r := range ax {
+		su.axes = append(su.axes, motion.Combine(ax[r]...))
+	}
+	hoist, reach := su.axes[crane.Rope], su.axes[crane.Reach]
 
 	// The rope and the radius must stay in range over the whole run.
 	if err := checkSpan(hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
 		"load.rope_length_m", "the rope length", "m"); err != nil {
 		return nil, err
 	}
-	if err := checkSpan(radius, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
+	if err := checkSpan(reach, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
 		"crane.radius_m", "the slew radius", "m"); err != nil {
 		return nil, err
 	}
 	su.ropeStart = l0
 	su.ropeEnd = l0 - hoist.At(su.motionEnd+1).Pos
-	if len(ax.slew) > 0 && r0 == 0 && len(ax.radius) == 0 {
+	if len(ax[crane.Turn]) > 0 && r0 == 0 && len(ax[crane.Reach]) == 0 {
 		su.warnings = append(su.warnings, "The crane slews with the load at radius 0 m: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.")
 	}
 
-	// Wind.
-	var windDir r3.Vec
-	windOn, windOff := math.Inf(1), math.Inf(1)
-	if w := s.Wind; w != nil {
-		su.windForce = WindForceN(s)
-		th := w.TowardDeg * units.Degree
-		windDir = r3.Vec{X: math.Cos(th), Y: math.Sin(th)}
-		windOn = w.StartS
-		breaks = append(breaks, w.StartS)
-		su.activityEnd = math.Max(su.activityEnd, w.StartS)
-		if w.DurationS > 0 {
-			windOff = w.StartS + w.DurationS
-			breaks = append(breaks, windOff)
-			su.activityEnd = math.Max(su.activityEnd, windOff)
-		}
+	// Wind and drag (air.go).
+	air, err := NewAir(s)
+	if err != nil {
+		return nil, err
 	}
-	rho := units.AirDensity
-	if s.Wind != nil && s.Wind.AirDensityKgPerM3 > 0 {
-		rho = s.Wind.AirDensityKgPerM3
+	if air != nil {
+		su.windForce = air.ForceN
+		su.air = air
+		breaks = append(breaks, air.Breaks()...)
+		su.activityEnd = math.Max(su.activityEnd, air.LastChange())
 	}
-	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
 
-	susp := suspension(x, y, slew, radius, r0, slew0,
-		len(ax.slew) > 0 || len(ax.radius) > 0 || r0 != 0)
-	rope := func(t float64) (float64, float64, float64) {
-		h := hoist.At(t)
-		return l0 - h.Pos, -h.Vel, -h.Acc
-	}
+	susp := ax.Suspension(s.Crane.Start())
+	rope := ax.RopeLength(l0)
 	var force func(t float64, pos, vel r3.Vec) r3.Vec
-	if su.windForce > 0 || dragK > 0 {
-		wf := r3.Scale(su.windForce, windDir)
-		force = func(t float64, _, vel r3.Vec) r3.Vec {
-			var f r3.Vec
-			if t >= windOn && t < windOff {
-				f = wf
-			}
-			if dragK > 0 {
-				f = r3.Sub(f, r3.Scale(dragK*r3.Norm(vel), vel))
-			}
-			return f
-		}
+	if air != nil {
+		force = func(t float64, _, vel r3.Vec) r3.Vec { return air.Force(t, vel) }
 	}
 	hook := s.Load.Hook
 	if hook == nil {
@@ -202,38 +165,6 @@ func WindForceN(s *scenario.Scenario) float64 {
 		rho = units.AirDensity
 	}
 	return 0.5 * rho * *w.SpeedMPerS * *w.SpeedMPerS * s.Load.AreaM2 * w.ShapeFactor
-}
-
-// suspension returns the suspension point's motion: travel on x and y plus
-// a point at radius r on an arm slewed by angle phi about the origin.
-func suspension(x, y, slew, radius motion.Profile, r0, phi0 float64, slewing bool) func(float64) pendulum.Kinematics {
-	if !slewing {
-		return func(t float64) pendulum.Kinematics {
-			a, b := x.At(t), y.At(t)
-			return pendulum.Kinematics{
-				Pos: r3.Vec{X: a.Pos, Y: b.Pos},
-				Vel: r3.Vec{X: a.Vel, Y: b.Vel},
-				Acc: r3.Vec{X: a.Acc, Y: b.Acc},
-			}
-		}
-	}
-	return func(t float64) pendulum.Kinematics {
-		a, b := x.At(t), y.At(t)
-		p, q := slew.At(t), radius.At(t)
-		phi, w, al := phi0+p.Pos, p.Vel, p.Acc
-		r, rd, rdd := r0+q.Pos, q.Vel, q.Acc
-		c, s := math.Cos(phi), math.Sin(phi)
-		// Radial and tangential unit vectors er = (c, s), et = (-s, c):
-		// position r*er; velocity rd*er + r*w*et;
-		// acceleration (rdd - r*w^2)*er + (r*al + 2*rd*w)*et.
-		vr, vt := rd, r*w
-		ar, at := rdd-r*w*w, r*al+2*rd*w
-		return pendulum.Kinematics{
-			Pos: r3.Vec{X: a.Pos + r*c, Y: b.Pos + r*s},
-			Vel: r3.Vec{X: a.Vel + vr*c - vt*s, Y: b.Vel + vr*s + vt*c},
-			Acc: r3.Vec{X: a.Acc + ar*c - at*s, Y: b.Acc + ar*s + at*c},
-		}
-	}
 }
 
 // checkSpan reports an error if value(position of the summed profile)

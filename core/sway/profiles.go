@@ -15,16 +15,11 @@ import (
 // its input shaper. A shaper designed through a rope length (its own or
 // the load's) gets the small-swing period 2*pi*sqrt(L/g).
 func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, error) {
-	scale := 1.0
-	if m.Axis == scenario.Slew {
-		scale = units.Degree
-	}
+	dr, _ := m.Drive() // Validate rejects unknown axes first
+	k := dr.Axis.Kind
+	scale := k.ToSI
 	acc := func() (float64, float64) {
-		a, d := m.AccelMPerS2, m.DecelMPerS2
-		if m.Axis == scenario.Slew {
-			a, d = m.AccelDegPerS2, m.DecelDegPerS2
-		}
-		return *a * scale, deref(d, *a) * scale
+		return *dr.Accel * scale, deref(dr.Decel, *dr.Accel) * scale
 	}
 	var p motion.Profile
 	switch m.Profile {
@@ -36,21 +31,15 @@ func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, err
 		switch {
 		case m.RoundingS != nil:
 			r = *m.RoundingS
-		case m.JerkMPerS3 != nil:
-			r = t.Accel / *m.JerkMPerS3
-		case m.JerkDegPerS3 != nil:
-			r = t.Accel / (*m.JerkDegPerS3 * units.Degree)
+		case dr.Jerk != nil:
+			r = t.Accel / (*dr.Jerk * scale)
 		}
 		p = motion.NewSCurve(t.Start, t.Distance, t.Speed, t.Accel, t.Decel, r)
 	case scenario.ProfileSteps:
 		a, d := acc()
 		steps := make([]motion.Step, len(m.Steps))
 		for i, st := range m.Steps {
-			v := st.SpeedMPerS
-			if m.Axis == scenario.Slew {
-				v = st.RateDegPerS
-			}
-			steps[i] = motion.Step{AtS: m.StartS + st.AtS, Speed: *v * scale}
+			steps[i] = motion.Step{AtS: m.StartS + st.AtS, Speed: *st.Speed(k) * scale}
 		}
 		sp, err := motion.NewSteps(steps, a, d)
 		if err != nil {
@@ -58,11 +47,7 @@ func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, err
 		}
 		p = sp
 	case scenario.ProfileHardStop:
-		v, d := m.SpeedMPerS, m.DecelMPerS2
-		if m.Axis == scenario.Slew {
-			v, d = m.RateDegPerS, m.DecelDegPerS2
-		}
-		p = motion.NewHardStop(*v*scale, *m.BrakeAtS, *d*scale)
+		p = motion.NewHardStop(*dr.Speed*scale, *m.BrakeAtS, *dr.Decel*scale)
 	case scenario.ProfileSeries:
 		pw, err := m.SeriesProfile()
 		if err != nil {
@@ -148,10 +133,8 @@ func profileWarning(i int, m *scenario.Motion, p motion.Profile) string {
 	if t == nil || !t.Triangular() {
 		return ""
 	}
-	unit, speedUnit, scale := "m", "m/s", 1.0
-	if m.Axis == scenario.Slew {
-		unit, speedUnit, scale = "deg", "deg/s", 1/units.Degree
-	}
+	k := kindOf(m)
+	unit, speedUnit, scale := k.Unit, k.SpeedUnit, 1/k.ToSI
 	return fmt.Sprintf(
 		"Move %d (%s, %.4g %s) is too short to reach its top speed of %.4g %s: it peaks at %.4g %s (triangular speed profile).",
 		i+1, m.Axis, math.Abs(t.Distance)*scale, unit, t.Speed*scale, speedUnit, t.PeakSpeed()*scale, speedUnit)

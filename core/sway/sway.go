@@ -48,6 +48,14 @@ type Result struct {
 	// steady lean under it, atan(F/(m*g)).
 	WindForceN  float64 `json:"wind_force_n"`
 	WindLeanDeg float64 `json:"wind_lean_deg"`
+	// WindDampingRatio is the damping ratio the air drag gives a small
+	// swing along the wind about the steady lean (linearised drag on the
+	// speed relative to the air; Air.DampingRatio); across the wind it is
+	// about half. Zero without wind and drag, and with a hook block.
+	WindDampingRatio float64 `json:"wind_damping_ratio,omitempty"`
+	// WindOffsetM is how far the load hangs off plumb in the steady wind
+	// (WindOffsetM, at the rope length at the end of the run).
+	WindOffsetM float64 `json:"wind_offset_m"`
 
 	RopeLengthStartM float64 `json:"rope_length_start_m"`
 	RopeLengthEndM   float64 `json:"rope_length_end_m"`
@@ -125,6 +133,10 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// Validated says the caller has validated the scenario and not
+	// changed it since (scenario.Parse and Decode validate): it is not
+	// validated again.
+	Validated bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -151,7 +163,7 @@ var Assumptions = []string{
 	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
 	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
 	"The load does not spin. Swing of the load relative to the hook is modelled only when hook block and rigging are entered (two point masses); otherwise hook and load swing as one.",
-	"Wind is a steady horizontal force on the load; gusts are sudden steps; air drag, if set, is quadratic in the load's speed.",
+	"Wind is a steady horizontal force once risen (a gust is a step or a ramp); air drag, if set, acts on the speed relative to the air.",
 	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
 }
 
@@ -162,7 +174,7 @@ func Evaluate(s *scenario.Scenario) (*Result, error) {
 
 // EvaluateWith runs one scenario.
 func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
-	su, err := build(s)
+	su, err := build(s, !opt.Validated)
 	if err != nil {
 		return nil, err
 	}
@@ -207,6 +219,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		StaticTensionN:   staticN,
 		WindForceN:       su.windForce,
 		WindLeanDeg:      WindLeanRad(s, su.windForce, su.ropeEnd) / units.Degree,
+		WindOffsetM:      WindOffsetM(s, su.windForce, su.ropeEnd),
 		RopeLengthStartM: su.ropeStart,
 		RopeLengthEndM:   su.ropeEnd,
 		MotionEndS:       su.motionEnd,
@@ -217,6 +230,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	}
 	if res.Phases == nil {
 		res.Phases = []Phase{}
+	}
+	if s.Load.Hook == nil {
+		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
 	sc := newScanner(su.model, su.motionEnd)
 	if opt.MaxSteps > 0 {

@@ -67,3 +67,38 @@ func TestRoundTripAndTable(t *testing.T) {
 		t.Error("unknown unit accepted")
 	}
 }
+
+func TestRoundAndChoice(t *testing.T) {
+	deg := Table["angle"].Units[0]
+	for _, c := range []struct {
+		v    float64
+		u    Unit
+		want string
+	}{
+		{2.04, deg, "2.0"}, {-0.01, deg, "0.0"}, {1234567.8, deg, "1234567.8"},
+		{0.4712, Unit{Symbol: "m", ToSI: 1, Step: 0.01}, "0.47"},
+		{1.5459, Unit{Symbol: "ft", ToSI: Foot, Step: 0.05}, "1.55"},
+		{16263.7, Unit{Symbol: "lbf", ToSI: PoundForce, Step: 10}, "16260"},
+		{0.000123456, Unit{}, "0.0001235"}, {1.5e9, Unit{}, "1500000000"},
+	} {
+		if _, got := Round(c.v, c.u); got != c.want {
+			t.Errorf("Round(%v, %s) = %q, want %q", c.v, c.u.Symbol, got, c.want)
+		}
+	}
+	if QuantityOf("") != "ratio" {
+		t.Errorf(`QuantityOf("") = %q`, QuantityOf(""))
+	}
+	if u := (Choice{System: "us"}).Unit(WindSpeed); u.Symbol != "ft/s" {
+		t.Errorf("US wind speed in %s", u.Symbol)
+	}
+	if v, s := (Choice{Chosen: map[string]string{"length": "in"}}).Show("length", 0.0254); v != 1 || s != "in" {
+		t.Errorf("chosen inch: %v %s", v, s)
+	}
+	for name, q := range Table {
+		for _, u := range q.Units {
+			if u.Step <= 0 {
+				t.Errorf("%s %s: no rounding step", name, u.Symbol)
+			}
+		}
+	}
+}

@@ -1,5 +1,5 @@
-// Package version holds the tool's version, printed on every check sheet.
-// wasm/bridge.Version must be the same (a test there checks it).
+// Package version holds the tool's version, printed on every check sheet
+// and given to the page by the bridge's "version" call: its one place.
 package version
 
 // Version is the tool's version.

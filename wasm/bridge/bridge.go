@@ -14,9 +14,7 @@ import (
 	"errors"
 	"fmt"
 
-	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
-	"swaysheet/core/sway"
 )
 
 // Func is one call: it reads its JSON input and returns a value to encode
@@ -37,7 +35,7 @@ var Calls = map[string]Func{
 	"units":    unitTable,
 	"ranges":   ranges,
 	"examples": examples,
-	"version":  version,
+	"version":  versionCall,
 	"plan":     makePlan,
 }
 
@@ -107,7 +105,7 @@ func evaluate(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	return sway.Evaluate(s)
+	return evaluated(s, true)
 }
 
 // validate checks a scenario without running it; the result is
@@ -127,5 +125,5 @@ func makePlan(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	return plan.Make(s)
+	return planned(s)
 }

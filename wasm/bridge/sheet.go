@@ -4,7 +4,9 @@ import (
 	"encoding/json"
 
 	"swaysheet/core/scenario"
-	"swaysheet/web/sheet"
+	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
+	"swaysheet/core/version"
 )
 
 func init() {
@@ -12,13 +14,10 @@ func init() {
 	Calls["unshare"] = unshare
 }
 
-// SheetInput is the input of the "sheet" call.
+// SheetInput is the input of the "sheet" call: the scenario and its
+// display units (as for "figures"), the page's address and the time.
 type SheetInput struct {
-	Scenario json.RawMessage `json:"scenario"`
-	// Units are the page's display units by quantity; System the unit
-	// system for quantities not listed ("si" or "us").
-	Units  map[string]string `json:"units"`
-	System string            `json:"system"`
+	ShownInput
 	// LinkBase is the page's address without its fragment; the QR code
 	// links to it with the scenario in the fragment.
 	LinkBase  string `json:"link_base"`
@@ -26,27 +25,31 @@ type SheetInput struct {
 }
 
 // SheetReply is the result of the "sheet" call: the sheet as one
-// <article> element (html/template output: the user's text in it is
-// escaped), the scenario's fingerprint and the text of the QR code.
+// <article> element (the user's text in it escaped), the scenario's
+// fingerprint and the text of the QR code.
 type SheetReply struct {
 	HTML        string `json:"html"`
 	Fingerprint string `json:"fingerprint"`
 	QRText      string `json:"qr_text"`
 }
 
-// sheetCall builds the check sheet with web/sheet, the renderer the
+// sheetCall renders the check sheet with core/sheet, the renderer the
 // command line uses, so the page's print and swaysheet -sheet agree.
 func sheetCall(_ *Env, input []byte) (any, error) {
 	var in SheetInput
-	if err := json.Unmarshal(input, &in); err != nil {
-		return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"scenario\": {...}, \"units\": {...}}: " + err.Error()}}
-	}
-	s, err := scenario.Parse(in.Scenario)
+	s, err := in.read(input, &in)
 	if err != nil {
 		return nil, err
 	}
-	sh, err := sheet.Build(sheet.Input{Scenario: s, Units: in.Units, System: in.System,
-		Version: Version, LinkBase: in.LinkBase, PrintedAt: in.PrintedAt})
+	// Through the memo of the last results and plan: after the page's
+	// evaluate and plan calls of the same scenario the sheet computes
+	// nothing. Only the parsed scenario is known to be valid.
+	memo := sheet.Computer{Plan: planned, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
+		return evaluated(x, x == s)
+	}}
+	si := memo.Compute(s)
+	si.Units, si.Version, si.LinkBase, si.PrintedAt = in.choice(), version.Version, in.LinkBase, in.PrintedAt
+	sh, err := sheet.Build(si)
 	if err != nil {
 		return nil, err
 	}

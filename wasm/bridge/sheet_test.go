@@ -7,14 +7,7 @@ import (
 	"testing"
 
 	"swaysheet/core/scenario"
-	coreversion "swaysheet/core/version"
 )
-
-func TestVersionsAgree(t *testing.T) {
-	if Version != coreversion.Version {
-		t.Fatalf("bridge.Version %q and core/version %q differ", Version, coreversion.Version)
-	}
-}
 
 func TestSheetCallAndUnshare(t *testing.T) {
 	data, err := os.ReadFile("examples/bay-travel.json")

@@ -10,13 +10,12 @@ import (
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/version"
 )
 
-// Version is the tool's version, shown on the page.
-const Version = "0.1.0-dev"
-
-func version(*Env, []byte) (any, error) {
-	return map[string]string{"version": Version, "format": scenario.FormatName,
+// versionCall gives the tool's version (core/version), shown on the page.
+func versionCall(*Env, []byte) (any, error) {
+	return map[string]string{"version": version.Version, "format": scenario.FormatName,
 		"format_version": fmt.Sprint(scenario.Version)}, nil
 }
 

@@ -584,7 +584,7 @@ func TestPage(t *testing.T) {
 			// wraps in its box on paper.
 			raw, _ := exec.Command(pdftotext, "-raw", f, "-").Output()
 			text := strings.Join(strings.Fields(string(raw)), "")
-			for _, want := range []string{"CAUTIONS", "Nobody under a suspended load", "Sway period", "Rope length", markup, "WHAT THE MODEL ASSUMES"} {
+			for _, want := range []string{"CAUTIONS", "Nobody under a suspended load", "Time for one full swing", "Rope length", markup, "WHAT THE MODEL ASSUMES"} {
 				if !strings.Contains(text, strings.Join(strings.Fields(want), "")) {
 					t.Errorf("%s: the printed text lacks %q", paper.name, want)
 				}

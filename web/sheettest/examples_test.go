@@ -9,8 +9,11 @@ import (
 
 	"github.com/chromedp/chromedp"
 
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
-	"swaysheet/web/sheet"
+	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
 
 // Every example's stand-alone sheet (as swaysheet -sheet writes it) prints
@@ -31,8 +34,9 @@ func TestEveryExampleOnePage(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, sys := range []string{"si", "us"} {
-			sh, err := sheet.Build(sheet.Input{Scenario: s, System: sys, Version: "test", LinkBase: "https://example.org/swaysheet/",
-				PrintedAt: "2026-12-02 07:30"})
+			in := sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make}.Compute(s)
+			in.Units, in.Version, in.LinkBase, in.PrintedAt = units.Choice{System: sys}, "test", "https://example.org/swaysheet/", "2026-12-02 07:30"
+			sh, err := sheet.Build(in)
 			if err != nil {
 				t.Fatal(err)
 			}

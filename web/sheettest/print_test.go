@@ -122,7 +122,7 @@ func TestPrintCheckSheet(t *testing.T) {
 			"Hook-load sway check sheet", s.Name[:30],
 			hostile, `"><script>alert(2)</script>`, "L-07 girder G2", "2026-12-02 07:30",
 			"INPUTS", "Mass 7200 kg", "Rope length 8.5 m", "Speed 30 m/min",
-			"RESULTS", "Sway period (small swing)", "Peak swing", "Tension factor", "within", "OUTSIDE",
+			"RESULTS", "Time for one full swing", "Largest swing", "Rope pull increase", "within", "OUTSIDE",
 			"SAFETY CAUTIONS", "Nobody under a suspended load", "take precedence",
 			"WHAT THE MODEL ASSUMES", "Prepared by", "Checked by", "swaysheet 0.1.0-dev",
 			fp,

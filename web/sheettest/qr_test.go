@@ -14,7 +14,7 @@ import (
 	gzqr "github.com/makiuchi-d/gozxing/qrcode"
 
 	"swaysheet/core/scenario"
-	"swaysheet/web/sheet"
+	"swaysheet/core/sheet"
 )
 
 // The QR code on the printed page, read from the PDF's pixels with the

@@ -1,5 +1,5 @@
 // sheet.js: the printed check sheet. The core writes it (the "sheet" call,
-// web/sheet in Go: the same renderer as swaysheet -sheet); this file only
+// core/sheet in Go: the same renderer as swaysheet -sheet); this file only
 // puts it into the page's print area after each result, and prints it.
 (function () {
   'use strict';

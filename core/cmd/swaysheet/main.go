@@ -8,7 +8,7 @@
 //	go run ./core/cmd/swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...
 //
 // With -sheet it writes the printable check sheet of each file as
-// OUTDIR/NAME.html (web/sheet, the same renderer the page prints with) and
+// OUTDIR/NAME.html (core/sheet, the same renderer the page prints with) and
 // prints each file written with the scenario's fingerprint.
 package main
 
@@ -20,8 +20,10 @@ import (
 	"os"
 	"text/tabwriter"
 
+	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
 
 func main() {
@@ -38,10 +40,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
 	sheetUnits := fs.String("units", "si", "with -sheet: the unit system of the sheet, si or us")
 	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
+	ropeLength := fs.Bool("ropelength", false, "find the rope length from heights or a timed swing: each argument is a question as JSON text or a .json file")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
+		fmt.Fprintln(stderr, `       swaysheet -ropelength '{"timed": {"swings": 10, "time_s": 86}}' ...`)
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -57,16 +61,19 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if *planning {
 		return runPlans(fs.Args(), *planJSON, stdout, stderr)
 	}
+	if *ropeLength {
+		return runRopeLength(fs.Args(), stdout, stderr)
+	}
 	status := 0
 	for _, name := range fs.Args() {
-		res, err := evaluate(name, sway.Options{NoHistory: *noHistory || *summary})
+		s, res, err := evaluate(name, sway.Options{NoHistory: *noHistory || *summary})
 		if err != nil {
 			fmt.Fprintf(stderr, "%s: %v\n", name, err)
 			status = 1
 			continue
 		}
 		if *summary {
-			printSummary(stdout, name, res)
+			printSummary(stdout, name, s, res)
 			continue
 		}
 		enc := json.NewEncoder(stdout)
@@ -89,47 +96,38 @@ func readScenario(name string) (*scenario.Scenario, error) {
 	return scenario.Decode(f)
 }
 
-func evaluate(name string, opt sway.Options) (*sway.Result, error) {
+func evaluate(name string, opt sway.Options) (*scenario.Scenario, *sway.Result, error) {
 	s, err := readScenario(name)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
-	return sway.EvaluateWith(s, opt)
+	opt.Validated = true // Decode validates
+	r, err := sway.EvaluateWith(s, opt)
+	return s, r, err
 }
 
-func printSummary(w io.Writer, file string, r *sway.Result) {
+// printSummary prints the figures of the result as the figures table
+// presents them (core/figures): the crew's words, the value rounded in SI
+// units, the verdict against the plan's limit, the technical name; then
+// the verdict of the whole and the warnings.
+func printSummary(w io.Writer, file string, s *scenario.Scenario, r *sway.Result) {
 	fmt.Fprintf(w, "%s\n%s\n", r.Name, file)
+	rep := figures.Present(s, r, units.Choice{System: "si"})
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	row := func(label string, v float64, unit string) { fmt.Fprintf(tw, "  %s\t%.4g\t%s\n", label, v, unit) }
-	row("period (small swing)", r.PeriodS, "s")
-	row("period at residual swing", r.PeriodAmplitudeS, "s")
-	row("peak swing", r.PeakSwingDeg, "deg")
-	row("peak excursion", r.PeakExcursionM, "m")
-	row("residual swing", r.ResidualSwingDeg, "deg")
-	row("residual excursion", r.ResidualExcursionM, "m")
-	row("tension max", r.TensionMaxN/1000, "kN")
-	row("tension min", r.TensionMinN/1000, "kN")
-	row("tension factor", r.TensionFactor, "")
-	if r.WindForceN > 0 {
-		row("wind lean", r.WindLeanDeg, "deg")
-	}
-	if rg := r.Rigging; rg != nil {
-		row("mode periods (linear)", rg.ModePeriodsS[0], fmt.Sprintf("s and %.4g s", rg.ModePeriodsS[1]))
-		row("mode periods (simulated)", rg.SimulatedPeriodsS[0], fmt.Sprintf("s and %.4g s", rg.SimulatedPeriodsS[1]))
-		row("second mode share", 100*rg.SecondModeShare, "%")
-		row("peak rope swing", rg.PeakRopeSwingDeg, "deg")
-		row("peak rigging angle to rope", rg.PeakRiggingAngleDeg, "deg")
-		row("rigging tension max", rg.RiggingTensionMaxN/1000, "kN")
-	}
-	row("run", r.RunS, "s")
-	tw.Flush()
-	for _, c := range r.Checks {
-		mark := "within"
-		if !c.Within {
-			mark = "OUTSIDE"
+	for _, row := range rep.Rows {
+		verdict := ""
+		if c := row.Check; c != nil {
+			verdict = c.Words
+		} else if row.LimitKey != "" {
+			verdict = "no limit set"
+			if rep.Verdict.State == figures.NotSimulated {
+				verdict = "nothing simulated"
+			}
 		}
-		fmt.Fprintf(w, "  check %s: %.4g (limit %.4g %s) %s\n", c.Label, c.Value, c.Limit, c.Unit, mark)
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t(%s)\n", row.Crew, row.Text, row.Unit, verdict, row.Technical)
 	}
+	tw.Flush()
+	fmt.Fprintf(w, "  verdict: %s\n", rep.Verdict.Text)
 	for _, s := range r.Warnings {
 		fmt.Fprintf(w, "  warning: %s\n", s)
 	}

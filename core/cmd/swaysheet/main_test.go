@@ -43,8 +43,10 @@ func TestSummaryAndBadInput(t *testing.T) {
 	if code := run([]string{"-summary", "../../../testdata/scenarios/bay-travel.json"}, &out, &errOut); code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut.String())
 	}
-	if !strings.Contains(out.String(), "peak swing") {
-		t.Errorf("summary: %s", out.String())
+	for _, want := range []string{"largest swing", "peak swing", "swing left after stopping", "verdict: OUTSIDE the lift plan's limits"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("summary lacks %q: %s", want, out.String())
+		}
 	}
 	bad := filepath.Join(t.TempDir(), "bad.json")
 	os.WriteFile(bad, []byte(`{"format":"swaysheet-scenario","version":1,"name":"x","load":{"mass_kg":-1,"rope_length_m":5},"motions":[]}`), 0o644)

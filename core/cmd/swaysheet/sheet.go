@@ -8,14 +8,19 @@ import (
 	"strings"
 	"time"
 
+	"swaysheet/core/plan"
+	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
+	"swaysheet/core/units"
 	"swaysheet/core/version"
-	"swaysheet/web/sheet"
 )
 
+// direct evaluates and plans for the sheet, with no memo.
+var direct = sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make}
+
 // runSheets writes one check sheet per scenario file into dir, named after
-// the file (bay-travel.json -> bay-travel.html). The command is where the
-// core meets the sheet renderer of web/sheet; the core packages know
-// nothing of HTML.
+// the file (bay-travel.json -> bay-travel.html), with the renderer of
+// core/sheet, which the page prints with too.
 func runSheets(dir string, names []string, system, link string, stdout, stderr io.Writer) int {
 	if system != "si" && system != "us" {
 		fmt.Fprintf(stderr, "-units must be si or us, not %q\n", system)
@@ -34,8 +39,10 @@ func runSheets(dir string, names []string, system, link string, stdout, stderr i
 			status = 1
 			continue
 		}
-		sh, err := sheet.Build(sheet.Input{Scenario: s, System: system, Version: version.Version,
-			LinkBase: link, PrintedAt: time.Now().UTC().Format("2006-01-02 15:04 UTC")})
+		in := direct.Compute(s)
+		in.Units, in.Version, in.LinkBase = units.Choice{System: system}, version.Version, link
+		in.PrintedAt = time.Now().UTC().Format("2006-01-02 15:04 UTC")
+		sh, err := sheet.Build(in)
 		if err != nil {
 			fmt.Fprintf(stderr, "%s: %v\n", name, err)
 			status = 1

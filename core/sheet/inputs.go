@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 )
@@ -23,53 +24,6 @@ type Row struct {
 type Group struct {
 	Title string
 	Rows  []Row
-}
-
-// unitChooser picks the display unit of each quantity.
-type unitChooser struct {
-	chosen map[string]string
-	system string
-}
-
-// unit returns the display unit of quantity q (a core/units name, or
-// "wind_speed", which the page shows apart from other speeds).
-func (u unitChooser) unit(q string) units.Unit {
-	base := q
-	if q == "wind_speed" {
-		base = "speed"
-	}
-	tq, ok := units.Table[base]
-	if !ok || len(tq.Units) == 0 {
-		return units.Unit{}
-	}
-	sym, ok := u.chosen[q]
-	if !ok {
-		switch {
-		case q == "wind_speed" && u.system == "us":
-			sym = "ft/s"
-		case q == "wind_speed":
-			sym = "m/s"
-		case u.system == "us":
-			sym = tq.USDefault
-		default:
-			sym = tq.SIDefault
-		}
-	}
-	for _, x := range tq.Units {
-		if x.Symbol == sym {
-			return x
-		}
-	}
-	return tq.Units[0]
-}
-
-// show converts an SI value of quantity q to its display unit.
-func (u unitChooser) show(q string, si float64) (float64, string) {
-	un := u.unit(q)
-	if un.ToSI == 0 {
-		return si, ""
-	}
-	return si / un.ToSI, un.Symbol
 }
 
 // suffixUnit is the SI unit a field name ends in, for fields the Ranges
@@ -118,7 +72,7 @@ func fieldUnit(path string) (si, q string) {
 	}
 	q = units.QuantityOf(si)
 	if path == "wind.speed_m_per_s" {
-		q = "wind_speed"
+		q = units.WindSpeed
 	}
 	return si, q
 }
@@ -133,7 +87,7 @@ var words = map[string]string{
 	"decel_m_per_s2": "braking", "angle_deg": "slew angle", "rate_deg_per_s": "slew rate",
 	"accel_deg_per_s2": "acceleration", "decel_deg_per_s2": "braking",
 	"force_n": "force", "shape_factor": "shape factor", "air_density_kg_per_m3": "air density",
-	"toward_deg": "toward (from +x to +y)", "duration_s": "lasts",
+	"toward_deg": "toward (from +x to +y)", "duration_s": "lasts", "ramp_s": "rises over",
 	"swing_deg": "swing", "velocity_x_m_per_s": "velocity x", "velocity_y_m_per_s": "velocity y",
 	"peak_swing_deg": "peak swing allowed", "peak_excursion_m": "peak excursion allowed",
 	"residual_swing_deg": "residual swing allowed", "tension_factor": "tension factor allowed",
@@ -159,7 +113,7 @@ var skipped = map[string]bool{"format": true, "version": true, "name": true, "de
 // inputGroups lists every input of the scenario with its unit, in the
 // display units, grouped as on the page. It walks the scenario's JSON, so
 // a field added to the format is listed without a change here.
-func inputGroups(s *scenario.Scenario, u unitChooser) []Group {
+func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 	raw, err := json.Marshal(s)
 	if err != nil {
 		return nil
@@ -214,7 +168,7 @@ func inputGroups(s *scenario.Scenario, u unitChooser) []Group {
 	return out
 }
 
-func flatten(g *Group, path, label string, v any, u unitChooser) {
+func flatten(g *Group, path, label string, v any, u units.Choice) {
 	switch x := v.(type) {
 	case map[string]any:
 		keys := make([]string, 0, len(x))
@@ -244,7 +198,7 @@ func flatten(g *Group, path, label string, v any, u unitChooser) {
 			for i, e := range x {
 				val := e.(float64)
 				if q != "" {
-					val, sym = u.show(q, val)
+					val, sym = u.Show(q, val)
 				}
 				parts[i] = Num(val, 6)
 			}
@@ -258,7 +212,7 @@ func flatten(g *Group, path, label string, v any, u unitChooser) {
 		si, q := fieldUnit(path)
 		val, sym := x, si
 		if q != "" {
-			val, sym = u.show(q, x)
+			val, sym = u.Show(q, x)
 		}
 		g.Rows = append(g.Rows, Row{Label: label, Value: Num(val, 6), Unit: sym})
 	case string:
@@ -267,8 +221,8 @@ func flatten(g *Group, path, label string, v any, u unitChooser) {
 			g.Rows = append(g.Rows, Row{Label: label, Value: fmt.Sprintf("%d lines (in the scenario file and the QR code)", n)})
 			return
 		}
-		if w, ok := axisWords[x]; ok && strings.HasSuffix(path, ".axis") {
-			x = w
+		if a, ok := crane.Of(x); ok && strings.HasSuffix(path, ".axis") {
+			x = a.Words
 		}
 		if r := []rune(x); len(r) > 80 {
 			x = string(r[:79]) + "…"
@@ -330,10 +284,4 @@ func capitalise(g *Group) {
 			g.Rows[i].Label = strings.ToUpper(string(rs[0])) + string(rs[1:])
 		}
 	}
-}
-
-// axisWords are the axes as the page names them.
-var axisWords = map[string]string{
-	scenario.TravelX: "travel x", scenario.TravelY: "travel y", scenario.Slew: "slew",
-	scenario.Radius: "trolley on the jib (radius)", scenario.Hoist: "hoist (up +)",
 }

@@ -7,9 +7,13 @@
 //
 // The command line (swaysheet -sheet) and the page (through the wasm
 // bridge) both call Build, so a sheet printed from the page and one
-// written by the command line agree. The HTML comes from html/template:
-// text the user typed is always text, never markup. Nothing on the sheet
-// is told by colour alone; it prints in black and white.
+// written by the command line agree. Build only renders: it is given the
+// result and the plan (Compute gathers them with the caller's own
+// evaluation and planner) and never computes physics. The results are
+// presented from the figures table (core/figures). The HTML is written by
+// hand (render.go), every text through html.EscapeString: text the user
+// typed is always text, never markup. Nothing on the sheet is told by
+// colour alone; it prints in black and white.
 package sheet
 
 import (
@@ -26,6 +30,7 @@ import (
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
 
 // CSS is the sheet's style sheet: written into a stand-alone sheet, and
@@ -43,20 +48,26 @@ var Cautions = []string{
 	"Stop the lift when sway or wind exceeds the plan's limits. A qualified person approves the lift.",
 }
 
-// Input is what a sheet is made of. Scenario is required; the rest is
-// computed or defaulted when absent.
+// Input is what a sheet is made of: the scenario and what was computed
+// of it. Build renders it and computes nothing; Compute fills it.
 type Input struct {
 	Scenario *scenario.Scenario
-	// Result is the evaluation of Scenario; nil: evaluated by Build.
+	// Result is the evaluation the sheet shows: of Scenario, or, for a
+	// planning request without moves of its own, of Evaluated (the
+	// scenario with the recommended move). Nil: ResultErr says why.
 	Result *sway.Result
-	// Plan is the planner's result; nil: planned by Build when the
-	// scenario has a plan block.
-	Plan *plan.Result
-	// Units are the display units by quantity (core/units names, plus
-	// "wind_speed"), as the page's unit choosers hold them; a quantity
-	// left out takes the default of System ("si" or "us").
-	Units  map[string]string
-	System string
+	// Evaluated is the scenario Result is of; nil: Scenario.
+	Evaluated *scenario.Scenario
+	// ResultFor says what the results are of when that is not the
+	// scenario's own moves ("the recommended move (...)").
+	ResultFor string
+	ResultErr string
+	// Plan is the planner's result for a scenario with a plan block;
+	// nil: PlanErr says why.
+	Plan    *plan.Result
+	PlanErr string
+	// Units are the display units (the page's unit choice, or a system).
+	Units units.Choice
 	// Version is the tool's version printed on the sheet.
 	Version string
 	// LinkBase is the page's address; the QR code holds LinkBase +
@@ -109,9 +120,9 @@ func ReadShareFragment(frag string) ([]byte, error) {
 }
 
 type check struct {
-	Label, Value, Limit, Unit string
-	Within                    bool
-	HasLimit                  bool
+	Label, Value, Limit, Unit, Margin string
+	Within                            bool
+	HasLimit                          bool
 }
 
 type planView struct {
@@ -136,6 +147,10 @@ type view struct {
 	Results     []Row
 	Checks      []check
 	AnyOutside  bool
+	// Verdict is the figures table's verdict of the whole; Simulated is
+	// false when the scenario moves nothing.
+	Verdict     string
+	Simulated   bool
 	Plan        *planView
 	AnglePlot   markup
 	PathPlot    markup
@@ -153,7 +168,7 @@ type view struct {
 	Dense, Denser bool
 }
 
-// Build computes what the sheet needs and returns it ready to write.
+// Build renders the sheet of what it is given; it computes nothing.
 func Build(in Input) (*Sheet, error) {
 	s := in.Scenario
 	if s == nil {
@@ -167,11 +182,12 @@ func Build(in Input) (*Sheet, error) {
 	if err != nil {
 		return nil, err
 	}
-	u := unitChooser{chosen: in.Units, system: in.System}
+	u := in.Units
 	v := &view{
 		Title: "Hook-load sway check sheet", Name: s.Name, Description: s.Description, Example: s.Example,
 		Inputs: inputGroups(s, u), Version: in.Version, PrintedAt: in.PrintedAt, Fingerprint: fp,
-		Cautions: Cautions, Assumptions: sway.Assumptions,
+		Cautions: Cautions, Assumptions: sway.Assumptions, ResultsFor: in.ResultFor, EvalErr: in.ResultErr,
+		Simulated: true,
 	}
 	if v.Version == "" {
 		v.Version = "unknown"
@@ -187,32 +203,18 @@ func Build(in Input) (*Sheet, error) {
 		{Label: "Date and time of the lift", Value: sh.Date},
 	}
 	if s.Plan != nil {
-		v.Plan = planSection(s, in.Plan, u)
+		v.Plan = planSection(in.Plan, in.PlanErr, u)
 		if v.Plan.Err == "" {
 			v.Assumptions = append(append([]string{}, v.Assumptions...), plan.Assumptions...)
 			v.Cautions = mergeCautions(v.Cautions, plan.Cautions)
 		}
 	}
-	res := in.Result
-	evalScenario := s
-	if p := v.Plan; p != nil && p.Recommended != nil && len(s.Motions) == 0 {
-		// A planning request without moves of its own: the results and
-		// plots are those of the recommended move.
-		c := *s
-		c.Motions = []scenario.Motion{p.Recommended.Motion}
-		evalScenario = &c
-		res = nil
-		v.ResultsFor = "the recommended move (" + p.Recommended.Label + "), at the nominal rope length"
-	}
-	if res == nil {
-		res, err = sway.Evaluate(evalScenario)
-		if err != nil {
-			v.EvalErr = err.Error()
-			res = nil
+	if res := in.Result; res != nil {
+		ev := in.Evaluated
+		if ev == nil {
+			ev = s
 		}
-	}
-	if res != nil {
-		fillResults(v, res, u)
+		fillResults(v, ev, res, u)
 		if len(res.Assumptions) > 0 {
 			// The evaluation's own list (it may say more for a hook block).
 			v.Assumptions = append([]string{}, res.Assumptions...)
@@ -220,6 +222,8 @@ func Build(in Input) (*Sheet, error) {
 				v.Assumptions = append(v.Assumptions, plan.Assumptions...)
 			}
 		}
+	} else if v.EvalErr == "" {
+		v.EvalErr = "no result was given to the sheet"
 	}
 	switch d := density(v); {
 	case d > 78:
@@ -240,126 +244,6 @@ func Build(in Input) (*Sheet, error) {
 		v.QRNote = "Scan to reopen this exact scenario."
 	}
 	return &Sheet{Fingerprint: fp, QRText: qrText, data: v}, nil
-}
-
-func fillResults(v *view, r *sway.Result, u unitChooser) {
-	num := func(x float64) string { return Num(x, 4) }
-	length := func(x float64) (string, string) { a, s := u.show("length", x); return num(a), s }
-	force := func(x float64) (string, string) { a, s := u.show("force", x); return num(a), s }
-	add := func(label, val, unit string) {
-		v.Results = append(v.Results, Row{Label: label, Value: val, Unit: unit})
-	}
-	add("Sway period (small swing)", num(r.PeriodS), "s")
-	if r.PeriodAmplitudeS > 0 {
-		add("Sway period at the residual swing", num(r.PeriodAmplitudeS), "s")
-	}
-	add(fmt.Sprintf("Peak swing (at %s s)", num(r.PeakSwingTimeS)), num(r.PeakSwingDeg), "deg")
-	x, s := length(r.PeakExcursionM)
-	add("Peak excursion", x, s)
-	add("Residual swing after the last move", num(r.ResidualSwingDeg), "deg")
-	x, s = length(r.ResidualExcursionM)
-	add("Residual excursion", x, s)
-	x, s = force(r.TensionMaxN)
-	add("Peak rope tension", x, s)
-	x, s = force(r.TensionMinN)
-	add("Lowest rope tension", x, s)
-	x, s = force(r.StaticTensionN)
-	add("Static rope tension (weight)", x, s)
-	add("Tension factor (peak / static)", num(r.TensionFactor), "×")
-	if r.WindForceN > 0 {
-		x, s = force(r.WindForceN)
-		add("Wind force", x, s)
-		add("Steady wind lean", num(r.WindLeanDeg), "deg")
-	}
-	if rg := r.Rigging; rg != nil {
-		add("Mode periods (hook and load)", num(rg.ModePeriodsS[0])+" and "+num(rg.ModePeriodsS[1]), "s")
-		add("Peak rope swing (hook block)", num(rg.PeakRopeSwingDeg), "deg")
-		add("Peak rigging angle to the rope", num(rg.PeakRiggingAngleDeg), "deg")
-		x, s = force(rg.RiggingTensionMaxN)
-		add("Peak rigging tension", x, s)
-	}
-	add("Moves end at", num(r.MotionEndS), "s")
-	add("Time simulated", num(r.RunS), "s")
-	byName := map[string]sway.Check{}
-	for _, c := range r.Checks {
-		byName[c.Name] = c
-	}
-	for _, k := range []struct{ name, label, q, unit string }{
-		{"peak_swing_deg", "Peak swing", "", "deg"},
-		{"peak_excursion_m", "Peak excursion", "length", ""},
-		{"residual_swing_deg", "Residual swing", "", "deg"},
-		{"tension_factor", "Tension factor", "", "×"},
-	} {
-		c, ok := byName[k.name]
-		if !ok {
-			v.Checks = append(v.Checks, check{Label: k.label})
-			continue
-		}
-		val, lim, unit := c.Value, c.Limit, k.unit
-		if k.q != "" {
-			val, unit = u.show(k.q, c.Value)
-			lim, _ = u.show(k.q, c.Limit)
-		}
-		v.Checks = append(v.Checks, check{Label: k.label, Value: num(val), Limit: num(lim), Unit: unit, Within: c.Within, HasLimit: true})
-		if !c.Within {
-			v.AnyOutside = true
-		}
-	}
-	v.Warnings = r.Warnings
-	h := r.History
-	lim := []hline{}
-	for _, c := range r.Checks {
-		if c.Name == "peak_swing_deg" {
-			lim = append(lim, hline{Y: c.Limit, Text: "limit " + num(c.Limit) + " deg"})
-		}
-	}
-	v.AnglePlot = markup(chart("Rope angle from the vertical", "time, s", "rope angle, deg",
-		[]series{{X: h.TimeS, Y: h.SwingDeg, Width: 1.3, Name: "rope angle"}}, lim))
-	_, ls := u.show("length", 1)
-	conv := func(xs []float64) []float64 {
-		out := make([]float64, len(xs))
-		for i, x := range xs {
-			out[i], _ = u.show("length", x)
-		}
-		return out
-	}
-	v.PathPlot = markup(chart("Load path seen from above", "x, "+ls, "y, "+ls, []series{
-		{X: conv(h.SuspensionXM), Y: conv(h.SuspensionYM), Dash: "4 2.5", Width: 1, Name: "suspension point"},
-		{X: conv(h.LoadXM), Y: conv(h.LoadYM), Width: 1.4, Name: "load"},
-	}, nil))
-}
-
-func planSection(s *scenario.Scenario, r *plan.Result, u unitChooser) *planView {
-	pv := &planView{}
-	if r == nil {
-		var err error
-		r, err = plan.Make(s)
-		if err != nil {
-			pv.Err = err.Error()
-			return pv
-		}
-	}
-	pv.Axis = r.Axis
-	pv.Reason = r.Reason
-	ls := make([]string, len(r.RopeLengthsM))
-	for i, l := range r.RopeLengthsM {
-		x, _ := u.show("length", l)
-		ls[i] = Num(x, 4)
-	}
-	_, sym := u.show("length", 1)
-	pv.Ropes = strings.Join(ls, ", ") + " " + sym
-	pv.Infeasible = r.Infeasible
-	pv.Notes = r.Notes
-	if r.Recommended >= 0 && r.Recommended < len(r.Options) {
-		o := r.Options[r.Recommended]
-		pv.Recommended = &o
-	}
-	for i, o := range r.Options {
-		if i != r.Recommended && len(pv.Others) < 3 {
-			pv.Others = append(pv.Others, o)
-		}
-	}
-	return pv
 }
 
 // WriteFragment writes the sheet as one <article> element, for a page

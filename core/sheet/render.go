@@ -114,6 +114,11 @@ func (h *htmlWriter) body(v *view) {
 	if v.AnyOutside {
 		h.raw(`<p class="sw-banner"><b>&#x2716; OUTSIDE THE PLAN'S LIMITS:</b> at least one result below is outside its limit. Do not lift as planned.</p>` + "\n")
 	}
+	if !v.Simulated {
+		h.raw(`<p class="sw-banner"><b>NOTHING SIMULATED:</b> `)
+		h.t(v.Verdict)
+		h.raw("</p>\n")
+	}
 	if v.EvalErr != "" {
 		h.raw(`<p class="sw-banner"><b>NOT COMPUTED:</b> `)
 		h.t(v.EvalErr)
@@ -128,39 +133,16 @@ func (h *htmlWriter) body(v *view) {
 		h.rows(g.Rows)
 		h.raw("</table>\n")
 	}
+	// The checks and the verdict first; the other figures follow and may
+	// run on into the next column (sw-split).
 	h.raw("</div>\n</section>\n<section class=\"sw-results\">\n<h2>Results</h2>\n")
 	if v.ResultsFor != "" {
 		h.el("p", "sw-small", "For "+v.ResultsFor+".")
 	}
 	if len(v.Results) > 0 {
-		h.raw(`<table class="sw-t">` + "\n")
+		h.checks(v)
+		h.raw(`<table class="sw-t sw-split"><caption>Other figures</caption>` + "\n")
 		h.rows(v.Results)
-		h.raw("</table>\n")
-		h.raw(`<table class="sw-t sw-checks"><caption>Against the plan's limits</caption>` + "\n")
-		h.raw(`<tr><th scope="col">Figure</th><th scope="col" class="sw-n">Result</th><th scope="col" class="sw-n">Limit</th><th scope="col">Verdict</th></tr>` + "\n")
-		for _, c := range v.Checks {
-			if c.HasLimit && !c.Within {
-				h.raw(`<tr class="sw-out"><th>`)
-			} else {
-				h.raw("<tr><th>")
-			}
-			h.t(c.Label)
-			h.raw("</th>")
-			if c.HasLimit {
-				h.raw(`<td class="sw-n">`)
-				h.t(c.Value + " " + c.Unit)
-				h.raw(`</td><td class="sw-n">`)
-				h.t(c.Limit + " " + c.Unit)
-				if c.Within {
-					h.raw("</td><td>&#x2714; within</td>")
-				} else {
-					h.raw("</td><td><b>&#x2716; OUTSIDE</b></td>")
-				}
-			} else {
-				h.raw(`<td class="sw-n">&ndash;</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
-			}
-			h.raw("</tr>\n")
-		}
 		h.raw("</table>\n")
 	} else {
 		h.raw("<p>No results: the scenario could not be computed.</p>\n")
@@ -243,4 +225,44 @@ func (h *htmlWriter) body(v *view) {
 		h.raw("</p>\n")
 	}
 	h.raw("</footer>\n</article>")
+}
+
+// checks writes the figures the plan can limit, each with its verdict,
+// and the verdict of the whole.
+func (h *htmlWriter) checks(v *view) {
+	h.raw(`<table class="sw-t sw-checks"><caption>Against the plan's limits</caption>` + "\n")
+	h.raw(`<tr><th scope="col">Figure</th><th scope="col" class="sw-n">Result</th><th scope="col" class="sw-n">Limit</th><th scope="col">Verdict</th></tr>` + "\n")
+	for _, c := range v.Checks {
+		if c.HasLimit && !c.Within {
+			h.raw(`<tr class="sw-out"><th>`)
+		} else {
+			h.raw("<tr><th>")
+		}
+		h.t(c.Label)
+		h.raw(`</th><td class="sw-n">`)
+		h.t(c.Value + " " + c.Unit)
+		switch {
+		case !c.HasLimit && !v.Simulated:
+			h.raw(`</td><td class="sw-n">&ndash;</td><td>nothing simulated</td>`)
+		case !c.HasLimit:
+			h.raw(`</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
+		case c.Within:
+			h.raw(`</td><td class="sw-n">`)
+			h.t(c.Limit + " " + c.Unit)
+			h.raw("</td><td>&#x2714; within, ")
+			h.t(c.Margin + " " + c.Unit + " to spare")
+			h.raw("</td>")
+		default:
+			h.raw(`</td><td class="sw-n">`)
+			h.t(c.Limit + " " + c.Unit)
+			h.raw("</td><td><b>&#x2716; OUTSIDE</b> by ")
+			h.t(c.Margin + " " + c.Unit)
+			h.raw("</td>")
+		}
+		h.raw("</tr>\n")
+	}
+	h.raw("</table>\n")
+	if v.Simulated && v.Verdict != "" {
+		h.el("p", "sw-verdict", v.Verdict)
+	}
 }

@@ -14,8 +14,14 @@ import (
 	gzqr "github.com/makiuchi-d/gozxing/qrcode"
 	qrcode "github.com/skip2/go-qrcode"
 
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
+
+// direct computes as the command line does, with no memo.
+var direct = Computer{Evaluate: sway.Evaluate, Plan: plan.Make}
 
 const hostile = `<img src=x onerror=alert(1)>`
 
@@ -36,8 +42,9 @@ func demoB(t testing.TB, name string) *scenario.Scenario {
 
 func build(t *testing.T, s *scenario.Scenario, in Input) (*Sheet, string) {
 	t.Helper()
-	in.Scenario = s
-	sh, err := Build(in)
+	c := direct.Compute(s)
+	c.Units, c.Version, c.LinkBase, c.PrintedAt = in.Units, in.Version, in.LinkBase, in.PrintedAt
+	sh, err := Build(c)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -89,20 +96,20 @@ func TestFingerprintPrinted(t *testing.T) {
 // The sheet holds every input, with its unit, in the chosen unit system.
 func TestInputsAndUnits(t *testing.T) {
 	s := demo(t, "bay-travel.json")
-	_, si := build(t, s, Input{System: "si"})
+	_, si := build(t, s, Input{Units: units.Choice{System: "si"}})
 	for _, want := range []string{">7200<", ">8.5<", "m/min", "m/s²", "Peak swing", "within", "OUTSIDE", "Safety cautions", "What the model assumes"} {
 		if !strings.Contains(si, want) {
 			t.Errorf("SI sheet lacks %q", want)
 		}
 	}
-	_, us := build(t, s, Input{System: "us"})
+	_, us := build(t, s, Input{Units: units.Choice{System: "us"}})
 	// 8.5 m = 27.887 ft; 7200 kg = 15873.3 lb (NIST SP 811 factors).
 	for _, want := range []string{">27.8871<", ">15873.3<", "ft/min", ">lb<"} {
 		if !strings.Contains(us, want) {
 			t.Errorf("US sheet lacks %q", want)
 		}
 	}
-	_, own := build(t, s, Input{Units: map[string]string{"length": "in", "mass": "t"}})
+	_, own := build(t, s, Input{Units: units.Choice{Chosen: map[string]string{"length": "in", "mass": "t"}}})
 	if !strings.Contains(own, ">7.2<") || !strings.Contains(own, ">334.646<") {
 		t.Error("the page's own unit choice is not used")
 	}
@@ -218,12 +225,12 @@ func TestShareFragmentBadInput(t *testing.T) {
 
 // web/static/sheet.css is the page's copy of sheet.css.
 func TestPageCopyOfCSS(t *testing.T) {
-	page, err := os.ReadFile("../static/sheet.css")
+	page, err := os.ReadFile("../../web/static/sheet.css")
 	if err != nil {
 		t.Fatal(err)
 	}
 	if string(page) != CSS {
-		t.Fatal("web/static/sheet.css differs from web/sheet/sheet.css: run make sheetcss")
+		t.Fatal("web/static/sheet.css differs from core/sheet/sheet.css: run make sheetcss")
 	}
 }
 
@@ -232,5 +239,51 @@ func TestNum(t *testing.T) {
 		if got := Num(v, 4); got != want {
 			t.Errorf("Num(%g) = %q, want %q", v, got, want)
 		}
+	}
+}
+
+// Build renders what it is given and computes nothing: without a result
+// the sheet says so; Compute asks its functions once each.
+func TestBuildOnlyRenders(t *testing.T) {
+	s := demo(t, "plan-tower-slew.json")
+	sh, err := Build(Input{Scenario: s})
+	if err != nil {
+		t.Fatal(err)
+	}
+	doc, _ := sh.Fragment()
+	for _, want := range []string{"NOT COMPUTED", "no result was given", "no plan was given"} {
+		if !strings.Contains(doc, want) {
+			t.Errorf("a sheet without result lacks %q", want)
+		}
+	}
+	evals, plans := 0, 0
+	c := Computer{
+		Evaluate: func(x *scenario.Scenario) (*sway.Result, error) { evals++; return sway.Evaluate(x) },
+		Plan:     func(x *scenario.Scenario) (*plan.Result, error) { plans++; return plan.Make(x) },
+	}
+	in := c.Compute(s)
+	if evals != 1 || plans != 1 || in.Result == nil || in.Plan == nil {
+		t.Fatalf("%d evaluations, %d plans", evals, plans)
+	}
+	if len(in.Evaluated.Motions) != 1 || !strings.Contains(in.ResultFor, "recommended move") {
+		t.Errorf("a plan without moves shows %q", in.ResultFor)
+	}
+	sh, _ = Build(in)
+	doc, _ = sh.Fragment()
+	for _, want := range []string{"Largest swing", "peak swing", "Swing left after stopping", "to spare", "Time for one full swing"} {
+		if !strings.Contains(doc, want) {
+			t.Errorf("sheet lacks %q", want)
+		}
+	}
+}
+
+// A scenario with no move, no wind and no swing at the start says nothing
+// was simulated, and marks nothing within.
+func TestNothingSimulatedOnTheSheet(t *testing.T) {
+	s := demo(t, "bay-travel.json")
+	s.Motions = nil
+	_, doc := build(t, s, Input{})
+	if !strings.Contains(doc, "NOTHING SIMULATED") || strings.Contains(doc, "within") {
+		t.Error("a sheet of no move does not say nothing was simulated")
 	}
 }

@@ -17,7 +17,7 @@ func BenchmarkBuild(b *testing.B) {
 	}
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		sh, err := Build(Input{Scenario: s, Result: r})
+		sh, err := Build(Input{Scenario: s, Result: r, Evaluated: s})
 		if err != nil {
 			b.Fatal(err)
 		}

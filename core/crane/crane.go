@@ -1,0 +1,95 @@
+// Package crane is the one place that knows a crane's axes and geometry:
+// which axes there are, whether each moves in metres or degrees (its
+// scenario fields, units and conversion to the model's SI units), whether
+// the planner plans it, and how the axes together move the point the rope
+// hangs from (Drives.Suspension). The scenario's validation, the
+// scenario-to-model translation in core/sway and the sheet's words read it
+// from here; a new crane type (a luffing jib, a boom) is a new Role and
+// its geometry here, its fields in the scenario format, and the page's
+// form.
+package crane
+
+import "swaysheet/core/units"
+
+// Kind is how an axis moves: in metres or in degrees. It names the
+// scenario fields of a move of the axis, each with its unit in the name.
+type Kind struct {
+	Name  string // "linear" or "angular"
+	Words string // "metres", "degrees": "the slew axis moves in degrees"
+	// Unit, SpeedUnit and AccelUnit are the units of the scenario's
+	// fields; ToSI turns them into the model's (m or rad).
+	Unit, SpeedUnit, AccelUnit string
+	ToSI                       float64
+	// The scenario fields of a move: distance, top speed, acceleration,
+	// braking, jerk.
+	Distance, Speed, Accel, Decel, Jerk string
+	// CSVSuffix is the unit part of a record's column ("_m", "_deg").
+	CSVSuffix string
+}
+
+// Linear and Angular are the two kinds of axis; Kinds lists them.
+var (
+	Linear = &Kind{Name: "linear", Words: "metres", Unit: "m", SpeedUnit: "m/s", AccelUnit: "m/s²", ToSI: 1,
+		Distance: "distance_m", Speed: "speed_m_per_s", Accel: "accel_m_per_s2", Decel: "decel_m_per_s2",
+		Jerk: "jerk_m_per_s3", CSVSuffix: "_m"}
+	Angular = &Kind{Name: "angular", Words: "degrees", Unit: "deg", SpeedUnit: "deg/s", AccelUnit: "deg/s²",
+		ToSI: units.Degree, Distance: "angle_deg", Speed: "rate_deg_per_s", Accel: "accel_deg_per_s2",
+		Decel: "decel_deg_per_s2", Jerk: "jerk_deg_per_s3", CSVSuffix: "_deg"}
+	Kinds = []*Kind{Linear, Angular}
+)
+
+// Role is what an axis does to the suspension point or the rope.
+type Role int
+
+// The roles of the axes of the cranes modelled: overhead and gantry
+// cranes (travel on x and y) and tower cranes (slew, trolley on the jib),
+// each with a hoist.
+const (
+	AlongX Role = iota // moves the suspension point along x
+	AlongY             // along y
+	Turn               // turns the jib about the vertical axis through the origin
+	Reach              // moves the suspension point out along the jib (the hook radius)
+	Rope               // hoists: the rope shortens as the axis moves up (positive)
+	roles
+)
+
+// Axis is one crane axis as the scenario names it.
+type Axis struct {
+	Name  string // the scenario's "axis" value
+	Words string // as the page and the sheet name it
+	Kind  *Kind
+	Role  Role
+	// Plannable: the planner plans a move of this axis (plan.axis).
+	Plannable bool
+}
+
+// Axes lists every axis, in display order.
+var Axes = []Axis{
+	{Name: "travel_x", Words: "travel x", Kind: Linear, Role: AlongX, Plannable: true},
+	{Name: "travel_y", Words: "travel y", Kind: Linear, Role: AlongY, Plannable: true},
+	{Name: "slew", Words: "slew", Kind: Angular, Role: Turn, Plannable: true},
+	{Name: "radius", Words: "trolley on the jib (radius)", Kind: Linear, Role: Reach},
+	{Name: "hoist", Words: "hoist (up +)", Kind: Linear, Role: Rope},
+}
+
+// Of returns the axis of the given name.
+func Of(name string) (Axis, bool) {
+	for _, a := range Axes {
+		if a.Name == name {
+			return a, true
+		}
+	}
+	return Axis{}, false
+}
+
+// Names lists the axis names, in display order; with plannable, only
+// those the planner plans.
+func Names(plannable bool) []string {
+	var out []string
+	for _, a := range Axes {
+		if a.Plannable || !plannable {
+			out = append(out, a.Name)
+		}
+	}
+	return out
+}

@@ -1,0 +1,63 @@
+package crane
+
+import (
+	"math"
+	"testing"
+
+	"swaysheet/core/motion"
+)
+
+// A jib slewing at a steady rate w carries the suspension point round a
+// circle of radius r: speed r*w along the tangent, acceleration r*w^2
+// toward the axis (uniform circular motion; any mechanics text, e.g.
+// Meriam & Kraige, Engineering Mechanics: Dynamics, section 2/5).
+func TestSteadySlewIsCircularMotion(t *testing.T) {
+	const r, w = 20.0, 0.1 // m, rad/s
+	var d Drives
+	slew, _ := Of("slew")
+	// A long trapezoid: at t = 50 s it cruises at w.
+	*d.Of(slew) = motion.Sum{motion.NewTrapezoid(0, 100, w, 0.05, 0.05)}
+	k := d.Suspension(Start{RadiusM: r})(50)
+	if v := math.Hypot(k.Vel.X, k.Vel.Y); math.Abs(v-r*w) > 1e-12 {
+		t.Errorf("speed %v, want r*w = %v", v, r*w)
+	}
+	a := math.Hypot(k.Acc.X, k.Acc.Y)
+	if math.Abs(a-r*w*w) > 1e-12 {
+		t.Errorf("acceleration %v, want r*w^2 = %v", a, r*w*w)
+	}
+	// Toward the axis: opposite to the position.
+	if dot := k.Acc.X*k.Pos.X + k.Acc.Y*k.Pos.Y; dot >= 0 {
+		t.Errorf("acceleration not toward the slew axis")
+	}
+}
+
+// Without slewing or radius the point moves with the travel axes alone.
+func TestTravelOnly(t *testing.T) {
+	var d Drives
+	x, _ := Of("travel_x")
+	*d.Of(x) = motion.Sum{motion.NewTrapezoid(0, 10, 1, 0.5, 0.5)}
+	k := d.Suspension(Start{})(1)
+	if k.Pos.X != 0.25 || k.Vel.X != 0.5 || k.Acc.X != 0.5 || k.Pos.Y != 0 {
+		t.Errorf("travel: %+v", k)
+	}
+	l, rate, _ := d.RopeLength(8)(1)
+	if l != 8 || rate != 0 {
+		t.Errorf("rope %v %v without hoisting", l, rate)
+	}
+}
+
+func TestTable(t *testing.T) {
+	seen := map[Role]bool{}
+	for _, a := range Axes {
+		if a.Kind == nil || a.Words == "" || seen[a.Role] {
+			t.Errorf("axis %+v", a)
+		}
+		seen[a.Role] = true
+	}
+	if got := Names(true); len(got) != 3 || got[2] != "slew" {
+		t.Errorf("plannable axes %v", got)
+	}
+	if _, ok := Of("luff"); ok {
+		t.Error("unknown axis found")
+	}
+}

@@ -1,0 +1,75 @@
+package crane
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/pendulum"
+)
+
+// Start is where the crane's axes stand at time zero, in the model's SI
+// units (the scenario's crane block gives it: scenario.Crane.Start).
+type Start struct {
+	// RadiusM is the hook radius from the slew axis; SlewRad the jib's
+	// direction, from +x toward +y.
+	RadiusM, SlewRad float64
+}
+
+// Drives holds the summed motion profile of each role, in the model's SI
+// units (m, rad), relative to where the axis starts.
+type Drives [roles]motion.Sum
+
+// Of is the summed profile of the axis' role.
+func (d *Drives) Of(a Axis) *motion.Sum { return &d[a.Role] }
+
+// Suspension returns the motion of the point the rope hangs from: travel
+// on x and y plus a point at radius r on a jib turned by phi about the
+// vertical axis through the origin, r = r0 + reach, phi = phi0 + turn
+// (r0 and phi0 from at).
+// Radial and tangential unit vectors er = (cos phi, sin phi),
+// et = (-sin phi, cos phi): position r*er; velocity r'*er + r*phi'*et;
+// acceleration (r¨ - r*phi'^2)*er + (r*phi¨ + 2*r'*phi')*et (plane
+// polar coordinates; any dynamics text, e.g. Meriam & Kraige,
+// Engineering Mechanics: Dynamics, ch. 2).
+func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
+	r0, phi0 := at.RadiusM, at.SlewRad
+	// Combined: evaluated at a cost that does not grow with the moves.
+	x, y, turn, reach := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...),
+		motion.Combine(d[Turn]...), motion.Combine(d[Reach]...)
+	if len(d[Turn]) == 0 && len(d[Reach]) == 0 && r0 == 0 {
+		return func(t float64) pendulum.Kinematics {
+			a, b := x.At(t), y.At(t)
+			return pendulum.Kinematics{
+				Pos: r3.Vec{X: a.Pos, Y: b.Pos},
+				Vel: r3.Vec{X: a.Vel, Y: b.Vel},
+				Acc: r3.Vec{X: a.Acc, Y: b.Acc},
+			}
+		}
+	}
+	return func(t float64) pendulum.Kinematics {
+		a, b := x.At(t), y.At(t)
+		p, q := turn.At(t), reach.At(t)
+		phi, w, al := phi0+p.Pos, p.Vel, p.Acc
+		r, rd, rdd := r0+q.Pos, q.Vel, q.Acc
+		c, s := math.Cos(phi), math.Sin(phi)
+		vr, vt := rd, r*w
+		ar, at := rdd-r*w*w, r*al+2*rd*w
+		return pendulum.Kinematics{
+			Pos: r3.Vec{X: a.Pos + r*c, Y: b.Pos + r*s},
+			Vel: r3.Vec{X: a.Vel + vr*c - vt*s, Y: b.Vel + vr*s + vt*c},
+			Acc: r3.Vec{X: a.Acc + ar*c - at*s, Y: b.Acc + ar*s + at*c},
+		}
+	}
+}
+
+// RopeLength returns the rope length in time from its length l0 at the
+// start: the hoist shortens it (rope length, its rate, its acceleration).
+func (d *Drives) RopeLength(l0 float64) func(float64) (float64, float64, float64) {
+	hoist := motion.Combine(d[Rope]...)
+	return func(t float64) (float64, float64, float64) {
+		h := hoist.At(t)
+		return l0 - h.Pos, -h.Vel, -h.Acc
+	}
+}

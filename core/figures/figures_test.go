@@ -1,0 +1,199 @@
+package figures
+
+import (
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+	"swaysheet/core/units"
+)
+
+func load(t *testing.T, path string) *scenario.Scenario {
+	t.Helper()
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := scenario.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+// at reads a JSON path such as "rigging.mode_periods_s[1]" from v.
+func at(v any, path string) (any, bool) {
+	for _, part := range strings.Split(path, ".") {
+		name, idx, indexed := strings.Cut(part, "[")
+		m, ok := v.(map[string]any)
+		if !ok {
+			return nil, false
+		}
+		if v, ok = m[name]; !ok {
+			return nil, false
+		}
+		if indexed {
+			i, _ := strconv.Atoi(strings.TrimSuffix(idx, "]"))
+			a, ok := v.([]any)
+			if !ok || i >= len(a) {
+				return nil, false
+			}
+			v = a[i]
+		}
+	}
+	return v, true
+}
+
+// Every figure of the table is the result's own field (its key is the
+// JSON path), every limit a scenario.Limits field, and the verdict of
+// each limit agrees with sway's own checks.
+func TestTableMatchesResultsAndChecks(t *testing.T) {
+	files, _ := filepath.Glob("../../testdata/scenarios/*.json")
+	limits := map[string]bool{}
+	for _, f := range Table {
+		if f.Limit != "" {
+			limits[f.Limit] = true
+			if limitOf(&scenario.Limits{}, f.Limit) != nil {
+				t.Fatalf("%s: an unset limit reads as set", f.Key)
+			}
+		}
+		if q := f.Quantity; q != "" {
+			if _, ok := units.Table[q]; !ok {
+				t.Errorf("%s: quantity %q not in units.Table", f.Key, q)
+			}
+		} else if units.QuantityOf(f.Unit) == "" {
+			t.Errorf("%s: unit %q has no quantity", f.Key, f.Unit)
+		}
+	}
+	seen := map[string]bool{}
+	for _, file := range files {
+		s := load(t, file)
+		r, err := sway.EvaluateWith(s, sway.Options{NoHistory: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		raw, _ := json.Marshal(r)
+		var m map[string]any
+		json.Unmarshal(raw, &m)
+		rep := Present(s, r, units.Choice{})
+		rows := map[string]Row{}
+		for _, row := range rep.Rows {
+			rows[row.Key] = row
+			seen[row.Key] = true
+			got, ok := at(m, row.Key)
+			if !ok || got.(float64) != row.ValueSI {
+				t.Errorf("%s: %s is %v in the result JSON, %v in the row", file, row.Key, got, row.ValueSI)
+			}
+			if strings.ContainsAny(row.Text, "e+") {
+				t.Errorf("%s: %s shown as %q", file, row.Key, row.Text)
+			}
+		}
+		for _, c := range r.Checks {
+			if !limits[c.Name] {
+				t.Errorf("sway checks %s, the table has no limit for it", c.Name)
+				continue
+			}
+			row := rows[c.Name]
+			if rep.Verdict.State == NotSimulated {
+				// sway says "within" of a scenario with no move; the
+				// table says nothing was simulated.
+				if row.Check != nil {
+					t.Errorf("%s: %s checked with nothing simulated", file, c.Name)
+				}
+				continue
+			}
+			if row.Check == nil || row.Check.Within != c.Within || row.Check.LimitSI != c.Limit {
+				t.Errorf("%s: %s: row %+v, sway's check %+v", file, c.Name, row.Check, c)
+			}
+			if !c.Within && rep.Verdict.State != Outside {
+				t.Errorf("%s: %s outside, verdict %q", file, c.Name, rep.Verdict.State)
+			}
+		}
+		if len(r.Checks) > 0 && rep.Verdict.State == NoLimits {
+			t.Errorf("%s: limits set, verdict says none", file)
+		}
+	}
+	for _, f := range Table {
+		if !seen[f.Key] && f.Key != "period_amplitude_s" {
+			t.Errorf("no example shows %s", f.Key)
+		}
+	}
+}
+
+// Rounding as people read it: swing to 0.1 deg, lengths to 1 cm or
+// 0.05 ft, times to 0.1 s, tensions to 0.1 kN; never an exponent.
+func TestRowsRoundForPeople(t *testing.T) {
+	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	r := &sway.Result{PeakSwingDeg: 2.04, PeakExcursionM: 0.4712, ResidualSwingDeg: 1.26, PeriodS: 5.8512,
+		TensionMaxN: 72345, TensionMinN: 1e-7, StaticTensionN: 70607.88, TensionFactor: 1.0246, RunS: 31.27}
+	want := map[string]string{"peak_swing_deg": "2.0 deg", "peak_excursion_m": "0.47 m", "period_s": "5.9 s",
+		"tension_max_n": "72.3 kN", "tension_min_n": "0.0 kN", "tension_factor": "1.02 ×", "run_s": "31.3 s"}
+	us := map[string]string{"peak_excursion_m": "1.55 ft", "tension_max_n": "16260 lbf"}
+	for sys, w := range map[string]map[string]string{"si": want, "us": us} {
+		rep := Present(s, r, units.Choice{System: sys})
+		for _, row := range rep.Rows {
+			if x, ok := w[row.Key]; ok && row.Text+" "+row.Unit != x {
+				t.Errorf("%s %s: %q %q, want %q", sys, row.Key, row.Text, row.Unit, x)
+			}
+		}
+	}
+	// bay-travel: peak swing 3, excursion 0.5, residual 1.
+	rep := Present(s, r, units.Choice{})
+	if rep.Verdict.State != Outside || len(rep.Verdict.Outside) != 1 || rep.Verdict.Outside[0] != "residual_swing_deg" {
+		t.Fatalf("verdict %+v", rep.Verdict)
+	}
+	for _, w := range []string{"swing left after stopping 1.3 deg is OUTSIDE the limit of 1.0 deg by 0.3 deg", "Do not lift as planned"} {
+		if !strings.Contains(rep.Verdict.Text, w) {
+			t.Errorf("verdict %q lacks %q", rep.Verdict.Text, w)
+		}
+	}
+	for _, row := range rep.Rows {
+		if row.Key == "peak_swing_deg" && row.Check.Words != "within the limit of 3.0 deg, 1.0 deg to spare" {
+			t.Errorf("peak swing: %q", row.Check.Words)
+		}
+	}
+	// Over by less than the rounding: said so, never "by 0.0".
+	r.ResidualSwingDeg = 1.0001
+	rep = Present(s, r, units.Choice{})
+	if !strings.Contains(rep.Verdict.Text, "by less than 0.1 deg") {
+		t.Errorf("verdict %q", rep.Verdict.Text)
+	}
+	if regexp.MustCompile(`\de[+-]\d`).MatchString(rep.Verdict.Text) {
+		t.Errorf("exponent in %q", rep.Verdict.Text)
+	}
+}
+
+// A scenario with no move, no wind and no swing at the start says
+// nothing was simulated, never "within"; without a result, not computed.
+func TestNothingSimulated(t *testing.T) {
+	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	s.Motions = nil
+	r, err := sway.Evaluate(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rep := Present(s, r, units.Choice{})
+	if rep.Verdict.State != NotSimulated || strings.Contains(rep.Verdict.Text, "within") {
+		t.Fatalf("verdict %+v", rep.Verdict)
+	}
+	for _, row := range rep.Rows {
+		if row.Check != nil {
+			t.Errorf("%s checked with nothing simulated", row.Key)
+		}
+	}
+	if rep := Present(s, nil, units.Choice{}); rep.Verdict.State != NotComputed {
+		t.Fatalf("no result: %+v", rep.Verdict)
+	}
+	s.Limits = nil
+	s.Initial = &scenario.Initial{SwingDeg: 2}
+	r, _ = sway.Evaluate(s)
+	if rep := Present(s, r, units.Choice{}); rep.Verdict.State != NoLimits || !strings.Contains(rep.Verdict.Text, "No crane move") {
+		t.Fatalf("free swing without limits: %+v", rep.Verdict)
+	}
+}

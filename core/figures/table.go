@@ -1,0 +1,124 @@
+// Package figures is the one table of the figures an evaluation has: for
+// each, the words a crew reads, its technical name, its unit and quantity
+// (so it is shown in the units people chose and rounded as they read it)
+// and the lift plan's limit it is held against, if any. The command
+// line's summary, the check sheet and the page (bridge call "figures")
+// all present a result from here, so a figure is added in one place:
+// one entry of Table and the computation of its value.
+package figures
+
+import (
+	"swaysheet/core/sway"
+)
+
+// Figure is one figure a result may have.
+type Figure struct {
+	// Key names the figure: its JSON path in sway.Result
+	// ("peak_swing_deg", "rigging.mode_periods_s[0]").
+	Key string
+	// Crew is what a crew reads: plain words, no jargon.
+	Crew string
+	// Technical is the name an engineer looks for.
+	Technical string
+	// Unit is the SI unit symbol of the value ("deg", "m", "s", "N", "").
+	Unit string
+	// Quantity is the core/units.Table quantity it is shown as; empty:
+	// units.QuantityOf(Unit).
+	Quantity string
+	// Limit is the scenario.Limits field (its JSON name) the figure is
+	// held against: within when value <= limit. Empty: no limit.
+	Limit string
+	// Value reads the figure from a result; false when the result does
+	// not have it (no wind, no hook block).
+	Value func(r *sway.Result) (float64, bool)
+}
+
+// Table is every figure, in the order people read them.
+var Table = []Figure{
+	{Key: "peak_swing_deg", Crew: "largest swing", Technical: "peak swing (rope angle from the vertical)",
+		Unit: "deg", Limit: "peak_swing_deg", Value: always(func(r *sway.Result) float64 { return r.PeakSwingDeg })},
+	{Key: "peak_swing_time_s", Crew: "largest swing comes at", Technical: "time of the peak swing",
+		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeakSwingTimeS })},
+	{Key: "peak_excursion_m", Crew: "load swings out by", Technical: "peak excursion (horizontal, load from under the suspension point)",
+		Unit: "m", Limit: "peak_excursion_m", Value: always(func(r *sway.Result) float64 { return r.PeakExcursionM })},
+	{Key: "residual_swing_deg", Crew: "swing left after stopping", Technical: "residual swing after the last move",
+		Unit: "deg", Limit: "residual_swing_deg", Value: always(func(r *sway.Result) float64 { return r.ResidualSwingDeg })},
+	{Key: "residual_excursion_m", Crew: "swing-out left after stopping", Technical: "residual excursion",
+		Unit: "m", Value: always(func(r *sway.Result) float64 { return r.ResidualExcursionM })},
+	{Key: "period_s", Crew: "time for one full swing", Technical: "sway period (small swing, 2π√(L/g))",
+		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
+	{Key: "period_amplitude_s", Crew: "full swing time at the swing left", Technical: "sway period at the residual swing's amplitude",
+		Unit: "s", Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
+	{Key: "tension_factor", Crew: "rope pull increase", Technical: "tension factor (peak rope tension / static)",
+		Unit: "", Limit: "tension_factor", Value: always(func(r *sway.Result) float64 { return r.TensionFactor })},
+	{Key: "tension_max_n", Crew: "largest rope pull", Technical: "peak rope tension",
+		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.TensionMaxN })},
+	{Key: "tension_min_n", Crew: "smallest rope pull", Technical: "lowest rope tension",
+		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.TensionMinN })},
+	{Key: "static_tension_n", Crew: "rope pull hanging still", Technical: "static rope tension (weight)",
+		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.StaticTensionN })},
+	{Key: "wind_force_n", Crew: "wind push on the load", Technical: "steady wind force",
+		Unit: "N", Value: positive(func(r *sway.Result) float64 { return r.WindForceN })},
+	{Key: "wind_lean_deg", Crew: "rope lean in the wind", Technical: "steady wind lean",
+		Unit: "deg", Value: windy(func(r *sway.Result) float64 { return r.WindLeanDeg })},
+	{Key: "wind_offset_m", Crew: "load hangs off plumb in the wind by", Technical: "steady wind offset (static, horizontal)",
+		Unit: "m", Value: windy(func(r *sway.Result) float64 { return r.WindOffsetM })},
+	{Key: "wind_damping_ratio", Crew: "the air slows the swing by (of critical)", Technical: "damping ratio from air drag, along the wind (linearised)",
+		Unit: "", Quantity: "share", Value: positive(func(r *sway.Result) float64 { return r.WindDampingRatio })},
+	{Key: "rigging.mode_periods_s[0]", Crew: "full swing time, slow swing", Technical: "first mode period (linear)",
+		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[0] })},
+	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",
+		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[1] })},
+	{Key: "rigging.simulated_periods_s[0]", Crew: "slow swing, as simulated", Technical: "first mode period (simulated)",
+		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[0] })},
+	{Key: "rigging.simulated_periods_s[1]", Crew: "quick swing, as simulated", Technical: "second mode period (simulated)",
+		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[1] })},
+	{Key: "rigging.second_mode_share", Crew: "quick swing's share", Technical: "second mode's share of the load's swing (linear theory)",
+		Unit: "", Quantity: "share", Value: rigged(func(g *sway.Rigging) float64 { return g.SecondModeShare })},
+	{Key: "rigging.peak_rope_swing_deg", Crew: "largest swing of the hook's rope", Technical: "peak rope swing (hook block)",
+		Unit: "deg", Value: rigged(func(g *sway.Rigging) float64 { return g.PeakRopeSwingDeg })},
+	{Key: "rigging.peak_rigging_angle_deg", Crew: "load swings under the hook by", Technical: "peak rigging angle to the rope",
+		Unit: "deg", Value: rigged(func(g *sway.Rigging) float64 { return g.PeakRiggingAngleDeg })},
+	{Key: "rigging.rigging_tension_max_n", Crew: "largest pull in the rigging", Technical: "peak rigging tension",
+		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMaxN })},
+	{Key: "rigging.rigging_tension_min_n", Crew: "smallest pull in the rigging", Technical: "lowest rigging tension",
+		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMinN })},
+	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
+		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
+	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
+		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.RunS })},
+}
+
+func always(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) { return f(r), true }
+}
+
+// positive: a figure that is there when it is above zero.
+func positive(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) { v := f(r); return v, v > 0 }
+}
+
+// windy: a figure that is there when the wind blows.
+func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) { return f(r), r.WindForceN > 0 }
+}
+
+// rigged: a figure of the hook block and rigging, there when modelled.
+func rigged(f func(*sway.Rigging) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) {
+		if r.Rigging == nil {
+			return 0, false
+		}
+		return f(r.Rigging), true
+	}
+}
+
+// ByKey returns the figure with the given key.
+func ByKey(key string) (Figure, bool) {
+	for _, f := range Table {
+		if f.Key == key {
+			return f, true
+		}
+	}
+	return Figure{}, false
+}

@@ -1,0 +1,44 @@
+package sheet
+
+import (
+	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// Computer is how a caller evaluates and plans: the command line passes
+// sway.Evaluate and plan.Make, the bridge its memo of the last result and
+// plan. The sheet never computes itself.
+type Computer struct {
+	Evaluate func(*scenario.Scenario) (*sway.Result, error)
+	Plan     func(*scenario.Scenario) (*plan.Result, error)
+}
+
+// Compute gathers what the sheet of s shows with c's functions: the plan
+// (for a plan block), and the evaluation of s, or, for a planning request
+// without moves of its own, of the recommended move. Errors go into the
+// Input, to be printed on the sheet. The caller fills in the units,
+// version, link and time.
+func (c Computer) Compute(s *scenario.Scenario) Input {
+	in := Input{Scenario: s, Evaluated: s}
+	if s.Plan != nil {
+		p, err := c.Plan(s)
+		if err != nil {
+			in.PlanErr = err.Error()
+		}
+		in.Plan = p
+		if p != nil && len(s.Motions) == 0 && p.Recommended >= 0 && p.Recommended < len(p.Options) {
+			o := p.Options[p.Recommended]
+			ev := *s
+			ev.Motions = []scenario.Motion{o.Motion}
+			in.Evaluated = &ev
+			in.ResultFor = "the recommended move (" + o.Label + "), at the nominal rope length"
+		}
+	}
+	r, err := c.Evaluate(in.Evaluated)
+	if err != nil {
+		in.ResultErr = err.Error()
+	}
+	in.Result = r
+	return in
+}

@@ -1,0 +1,91 @@
+package bridge
+
+import (
+	"sync"
+
+	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// memo keeps the last two evaluations and the last plan, each with the
+// fingerprint of the scenario it is of (key: any changed input but the
+// check sheet's reference fields changes it). The page evaluates, then asks for the figures and the
+// sheet of the same inputs: those calls find the result here and never
+// compute it again. Two results: a planning request without moves of its
+// own has its own result and the sheet's, of the recommended move.
+type memo struct {
+	mu      sync.Mutex
+	results [2]keptResult // most recent first
+	planFP  string
+	plan    *plan.Result
+	// computed counts evaluations and plans run (for tests).
+	computed int
+}
+
+var last memo
+
+// evaluated is the evaluation of s, from the memo when it holds s's;
+// validated says s came from scenario.Parse unchanged (not validated
+// again). The result is shared: callers read it and never change it.
+func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	for i, k := range last.results {
+		if k.fp == fp {
+			last.results[0], last.results[i] = k, last.results[0]
+			last.mu.Unlock()
+			return k.result, nil
+		}
+	}
+	last.mu.Unlock()
+	r, err := sway.EvaluateWith(s, sway.Options{Validated: validated})
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	last.results[1], last.results[0] = last.results[0], keptResult{fp: fp, result: r}
+	last.computed++
+	last.mu.Unlock()
+	return r, nil
+}
+
+type keptResult struct {
+	fp     string
+	result *sway.Result
+}
+
+// planned is the plan of s, from the memo when it holds s's.
+func planned(s *scenario.Scenario) (*plan.Result, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	if last.planFP == fp {
+		r := last.plan
+		last.mu.Unlock()
+		return r, nil
+	}
+	last.mu.Unlock()
+	r, err := plan.Make(s)
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	last.planFP, last.plan = fp, r
+	last.computed++
+	last.mu.Unlock()
+	return r, nil
+}
+
+// key is the fingerprint of what a result depends on: the scenario without
+// its check sheet references (typing "checked by" computes nothing again).
+func key(s *scenario.Scenario) (string, error) {
+	c := *s
+	c.Sheet = nil
+	return scenario.Fingerprint(&c)
+}

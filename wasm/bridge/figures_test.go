@@ -1,0 +1,129 @@
+package bridge
+
+import (
+	"encoding/json"
+	"os"
+	"strings"
+	"testing"
+
+	"swaysheet/core/figures"
+	"swaysheet/core/scenario"
+)
+
+// The figures call presents from the table, in the units asked for, and
+// uses the evaluation the evaluate call made of the same scenario.
+func TestFiguresCallUsesTheLastResult(t *testing.T) {
+	data, err := os.ReadFile("examples/bay-travel.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "evaluate", data), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	before := last.computed
+	in, _ := json.Marshal(map[string]any{"scenario": json.RawMessage(data), "system": "us"})
+	var r struct {
+		Result figures.Report `json:"result"`
+		Error  *Error         `json:"error"`
+	}
+	if err := json.Unmarshal(Call(nil, "figures", in), &r); err != nil || r.Error != nil {
+		t.Fatalf("figures: %v %+v", err, r.Error)
+	}
+	if last.computed != before {
+		t.Error("the figures call evaluated again")
+	}
+	if r.Result.Verdict.State != figures.Outside || len(r.Result.Rows) == 0 {
+		t.Fatalf("report %+v", r.Result.Verdict)
+	}
+	for _, row := range r.Result.Rows {
+		if row.Key == "peak_excursion_m" && (row.Unit != "ft" || row.Check == nil || row.LimitKey != "limits.peak_excursion_m") {
+			t.Errorf("excursion row %+v", row)
+		}
+	}
+	for _, bad := range []string{"", "{", `{"scenario": 3}`, `{"scenario": {"format": "x"}}`} {
+		var e struct{ Error *Error }
+		json.Unmarshal(Call(nil, "figures", []byte(bad)), &e)
+		if e.Error == nil {
+			t.Errorf("figures(%q): no error", bad)
+		}
+	}
+}
+
+// After the page's plan call, the sheet of the same scenario plans
+// nothing again, and a second sheet computes nothing at all.
+func TestSheetUsesTheLastPlan(t *testing.T) {
+	data, err := os.ReadFile("examples/plan-tower-slew.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "plan", data), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	in, _ := json.Marshal(map[string]any{"scenario": json.RawMessage(data)})
+	before := last.computed
+	json.Unmarshal(Call(nil, "sheet", in), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	// The recommended move's evaluation, nothing else.
+	if n := last.computed - before; n != 1 {
+		t.Errorf("the sheet computed %d times after the plan call, want 1 (the recommended move)", n)
+	}
+	before = last.computed
+	Call(nil, "sheet", in)
+	if last.computed != before {
+		t.Error("a second sheet of the same inputs computed again")
+	}
+}
+
+// The plot call draws with the sheet's plotter; text and dash patterns
+// from the page never become markup.
+func TestPlotCall(t *testing.T) {
+	in := `{"title": "<b>rope</b>", "x_label": "time, s", "y_label": "deg",
+		"series": [{"x": [0, 1, 2], "y": [0, 1, 0], "name": "angle", "dash": "4\" onload=\"x"}],
+		"lines": [{"y": 0.5, "text": "limit"}]}`
+	var r struct {
+		Result struct{ SVG string } `json:"result"`
+		Error  *Error               `json:"error"`
+	}
+	if err := json.Unmarshal(Call(nil, "plot", []byte(in)), &r); err != nil || r.Error != nil {
+		t.Fatalf("plot: %v %+v", err, r.Error)
+	}
+	if !strings.HasPrefix(r.Result.SVG, "<svg") || strings.Contains(r.Result.SVG, "<b>") || strings.Contains(r.Result.SVG, "onload") {
+		t.Errorf("svg %q", r.Result.SVG)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "plot", []byte(`{"series": 3}`)), &e)
+	if e.Error == nil {
+		t.Error("bad plot input: no error")
+	}
+}
+
+// A changed reference field of the sheet computes nothing again; a
+// changed input does.
+func TestMemoKey(t *testing.T) {
+	data, _ := os.ReadFile("examples/hard-stop.json")
+	s, err := scenario.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := evaluated(s, true); err != nil {
+		t.Fatal(err)
+	}
+	before := last.computed
+	s.Sheet = &scenario.Sheet{CheckedBy: "A. Checker"}
+	evaluated(s, true)
+	if last.computed != before {
+		t.Error("a reference field computed the result again")
+	}
+	m := *s.Load.MassKg * 2
+	s.Load.MassKg = &m
+	evaluated(s, true)
+	if last.computed != before+1 {
+		t.Error("a changed mass did not compute again")
+	}
+}
