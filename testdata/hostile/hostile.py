@@ -70,7 +70,7 @@ def files():
         yield "plan-hook-range-%d" % (k + 1), s, ["-plan"]
 
     yield "deep-lists", "[" * 1_000_000, []
-    yield "many-keys", "{" + ",".join('"k%d":%d' % (i, i) for i in range(90000)) + "}", []
+    yield "many-keys", "{" + ",".join('"k%d":%d' % (i, i) for i in range(60000)) + "}", []
 
 
 def main():
