@@ -58,6 +58,8 @@ type Scenario struct {
 	Sheet *Sheet `json:"sheet,omitempty"`
 	// Plan asks the planner for drive settings (see profiles.go).
 	Plan *Plan `json:"plan,omitempty"`
+	// Site holds the obstacles for the clearance check (see site.go).
+	Site *Site `json:"site,omitempty"`
 }
 
 // Load is the hook load and its rope.
@@ -76,6 +78,9 @@ type Load struct {
 	// masses (a double pendulum). Then RopeLengthM runs to the hook block's
 	// centre of mass and MassKg is the rigged load without the hook block.
 	Hook *Hook `json:"hook,omitempty"`
+	// Body, when present, models the load as a rigid box on a sling set
+	// (see body.go); RopeLengthM then runs to the hook.
+	Body *Body `json:"body,omitempty"`
 }
 
 // Hook is the hook block and the rigging below it.
@@ -177,7 +182,11 @@ type Limits struct {
 	PeakSwingDeg     *float64 `json:"peak_swing_deg,omitempty"`
 	PeakExcursionM   *float64 `json:"peak_excursion_m,omitempty"`
 	ResidualSwingDeg *float64 `json:"residual_swing_deg,omitempty"`
-	TensionFactor    *float64 `json:"tension_factor,omitempty"`
+	// ResidualExcursionM is the residual swing allowed as a distance of
+	// the load from straight below the suspension point (a landing
+	// tolerance).
+	ResidualExcursionM *float64 `json:"residual_excursion_m,omitempty"`
+	TensionFactor      *float64 `json:"tension_factor,omitempty"`
 }
 
 // Settings tune the computation; the zero value is the default.

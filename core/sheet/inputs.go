@@ -131,6 +131,10 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 		if !ok || skipped[k] {
 			return
 		}
+		if k == "site" && s.Site != nil {
+			out = append(out, siteGroup(s.Site, u))
+			return
+		}
 		if k == "motions" {
 			ms, _ := v.([]any)
 			for i, m := range ms {

@@ -118,7 +118,7 @@ func TestWorkBudget(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, err = sway.EvaluateWith(s, sway.Options{NoHistory: true, Budget: sway.NewBudget(1e6, "")})
+	_, err = sway.EvaluateWith(s, sway.Options{NoHistory: true, General: true, Budget: sway.NewBudget(1e6, "")})
 	if !errors.Is(err, sway.ErrWorkLimit) {
 		t.Fatalf("want the work limit, got %v", err)
 	}
@@ -133,7 +133,7 @@ func TestWorkBudget(t *testing.T) {
 	bay := readScenario(t, "testdata/scenarios/bay-travel.json")
 	runs := 0
 	for ; runs < 100; runs++ {
-		if _, err := sway.EvaluateWith(bay, sway.Options{NoHistory: true, Budget: shared}); err != nil {
+		if _, err := sway.EvaluateWith(bay, sway.Options{NoHistory: true, General: true, Budget: shared}); err != nil {
 			if !errors.Is(err, sway.ErrWorkLimit) || !strings.Contains(err.Error(), "This plan needs more computing") {
 				t.Fatalf("shared budget: %v", err)
 			}

@@ -27,6 +27,7 @@ type setup struct {
 	phases      []Phase
 	warnings    []string
 	axes        []motion.Profile // each axis' moves combined, for the work budget
+	fast        *fastModel       // the specialised path's model, nil when it does not fit
 }
 
 func deref(p *float64, def float64) float64 {
@@ -126,9 +127,18 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	if air != nil {
 		force = func(t float64, _, vel r3.Vec) r3.Vec { return air.Force(t, vel) }
 	}
+	if s.Load.Body != nil {
+		r, y0, err := rigidModel(s, susp, rope, force, ax[crane.Turn])
+		if err != nil {
+			return nil, err
+		}
+		su.model, su.y0, su.breaks = r, y0, breaks
+		return su, nil
+	}
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
+		su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass, air)
 	} else {
 		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
 			Suspension: susp, Rope: rope, Force: force}

@@ -13,6 +13,7 @@ import (
 
 	"gonum.org/v1/gonum/mathext"
 
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 )
@@ -21,7 +22,8 @@ import (
 type Result struct {
 	Name string `json:"name"`
 	// PeriodS is the small-amplitude period 2*pi*sqrt(L/g) at the rope
-	// length at the end of the run.
+	// length at the end of the run; with a hook block the slower mode's,
+	// with a rigid load (load.body) the slowest mode's (Body.Modes).
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
 	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
@@ -64,6 +66,8 @@ type Result struct {
 
 	// Rigging is present when the scenario models hook block and rigging.
 	Rigging *Rigging `json:"rigging,omitempty"`
+	// Body is present when the scenario models the load as a rigid body.
+	Body *Body `json:"body,omitempty"`
 
 	Checks      []Check  `json:"checks"`
 	Warnings    []string `json:"warnings"`
@@ -133,6 +137,9 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// General integrates on the general path even when the specialised
+	// single-rope path fits the scenario (fast.go; for tests and the bench).
+	General bool
 	// Validated says the caller has validated the scenario and not
 	// changed it since (scenario.Parse and Decode validate): it is not
 	// validated again.
@@ -206,6 +213,14 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		period = 2 * math.Pi / modes(h, mass, su.ropeEnd).Omega[0]
 		staticN = (mass + *h.MassKg) * g
 	}
+	rigid, _ := su.model.(*pendulum.Rigid)
+	var bodyMd []pendulum.RigidMode
+	if rigid != nil {
+		if bodyMd, period, err = bodyModes(rigid, su.ropeEnd); err != nil {
+			return nil, err
+		}
+		staticN = (mass + s.Load.Body.HookMassKg) * g
+	}
 	tEnd := math.Max(su.activityEnd+settle*period, st.DurationS)
 	if tEnd > scenario.MaxRunS {
 		return nil, scenario.Errors{{Field: "settings.duration_s", Message: fmt.Sprintf(
@@ -231,23 +246,23 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if res.Phases == nil {
 		res.Phases = []Phase{}
 	}
-	if s.Load.Hook == nil {
+	if s.Load.Hook == nil && s.Load.Body == nil { // one rope and a point load only
 		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
-	sc := newScanner(su.model, su.motionEnd)
-	if opt.MaxSteps > 0 {
-		sc.maxSteps = opt.MaxSteps
+	if rigid != nil {
+		res.Assumptions = bodyAssumptions()
+		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
+		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
 	}
-	sc.axes, sc.budget = su.axes, opt.Budget
-	if sc.budget == nil {
-		sc.budget = NewBudget(DefaultWork, "")
+	if opt.Budget == nil {
+		opt.Budget = NewBudget(DefaultWork, "")
 	}
+	var hist *History
 	if !opt.NoHistory {
-		sc.hist = &res.History
-		sc.sampleDt = tEnd / float64(samples-1)
-		sc.samples = samples
+		hist = &res.History
 	}
-	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
+	sc, general, stats, err := integrate(su, opt, hist, tEnd, relTol, samples)
+	if err != nil {
 		return nil, err
 	}
 	res.PeakSwingDeg = swingRad(sc.ext[qSwing].max) / units.Degree
@@ -270,12 +285,17 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
-	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
-		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
+	if rigid != nil {
+		if err := body(s, rigid, bodyMd, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+			return nil, err
+		}
+		res.Body.History = general.bodyHist
+	}
+	res.Solver = stats
 
 	res.Checks, res.Warnings = checks(s, res, res.Warnings)
 	return res, nil
@@ -317,6 +337,7 @@ func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) 
 		add("peak_swing_deg", "Peak swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
 		add("peak_excursion_m", "Peak excursion", r.PeakExcursionM, l.PeakExcursionM, "m")
 		add("residual_swing_deg", "Residual swing", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("residual_excursion_m", "Residual excursion", r.ResidualExcursionM, l.ResidualExcursionM, "m")
 		add("tension_factor", "Tension factor", r.TensionFactor, l.TensionFactor, "")
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
 			warn = append(warn, fmt.Sprintf("The wind alone leans the rope %.3g deg, more than the plan's swing limit of %.3g deg: no drive setting can keep the load inside it. Wait for less wind or change the limit.", r.WindLeanDeg, *l.PeakSwingDeg))

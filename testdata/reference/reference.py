@@ -816,9 +816,9 @@ def moves(sc):
     return bool(sc.get("motions") or sc.get("wind") or sc.get("initial"))
 
 
-def scenario_paths():
+def scenario_paths(globs=SCENARIO_GLOBS):
     out = []
-    for g in SCENARIO_GLOBS:
+    for g in globs:
         out += sorted(glob.glob(os.path.join(ROOT, g)))
     return [os.path.relpath(p, ROOT) for p in out]
 
@@ -829,6 +829,8 @@ def cmd_generate(args):
         sc = load(os.path.join(ROOT, rel))
         if "hook" in sc.get("load", {}):
             continue  # hook block and rigging: double.py, results_double.json
+        if "body" in sc.get("load", {}):
+            continue  # a rigid load: rigid.py, results_rigid.json
         if not moves(sc):
             continue  # a planning request without motions: nothing to solve
         t0 = time.perf_counter()
@@ -836,21 +838,46 @@ def cmd_generate(args):
         print("%-52s peak %8.5f deg  residual %8.5f deg  %6.2f s" % (
             rel, res["peak_swing_deg"], res["residual_swing_deg"], time.perf_counter() - t0), file=sys.stderr)
         entries.append({"scenario": rel, "result": res})
+    write_results(RESULTS, "Reference results for swaysheet scenarios, from testdata/reference/reference.py",
+                  "Cartesian load position and velocity; rope tension as a Lagrange multiplier; "
+                  "Baumgarte stabilisation with w = sqrt(g/L)", "golden-section search", entries)
+
+
+def write_results(path, what, formulation, peak_search, entries):
+    """Write a results file: the entries with the formulation, the solver
+    and the library versions that produced them."""
     doc = {
-        "what": "Reference results for swaysheet scenarios, from testdata/reference/reference.py",
-        "formulation": "Cartesian load position and velocity; rope tension as a Lagrange multiplier; "
-                       "Baumgarte stabilisation with w = sqrt(g/L)",
+        "what": what,
+        "formulation": formulation,
         "solver": "scipy.integrate.solve_ivp, method DOP853, rtol %g, atol %g, restarted at every motion "
-                  "breakpoint; peaks located on the dense output by golden-section search" % (RTOL, ATOL),
+                  "breakpoint; peaks located on the dense output by %s" % (RTOL, ATOL, peak_search),
         "scipy": scipy.__version__,
         "numpy": np.__version__,
         "python": platform.python_version(),
         "scenarios": entries,
     }
-    with open(RESULTS, "w") as f:
+    with open(path, "w") as f:
         json.dump(doc, f, indent=1)
         f.write("\n")
-    print("wrote %s (%d scenarios)" % (os.path.relpath(RESULTS, ROOT), len(entries)), file=sys.stderr)
+    print("wrote %s (%d scenarios)" % (os.path.relpath(path, ROOT), len(entries)), file=sys.stderr)
+
+
+def generate_show_cli(doc, results_name, cmd_generate, model_class, solve_fn):
+    """The command line of a reference script for one kind of scenario:
+    `generate` (writes results_name) and `show FILE... [--rtol R]`."""
+    ap = argparse.ArgumentParser(description=doc.split("\n")[0])
+    sub = ap.add_subparsers(dest="cmd", required=True)
+    sub.add_parser("generate", help="solve every scenario it covers and write " + results_name)
+    s = sub.add_parser("show", help="print the reference result of scenario files")
+    s.add_argument("files", nargs="+")
+    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
+    args = ap.parse_args()
+    if args.cmd == "generate":
+        cmd_generate(args)
+        return
+    for p in args.files:
+        json.dump(solve_fn(model_class(load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
+        print()
 
 
 def cmd_show(args):
