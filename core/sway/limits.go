@@ -72,7 +72,7 @@ func moveTooLong(i int, m *scenario.Motion, p motion.Profile) error {
 		advice += " (" + field + " " + r.Text() + ")"
 	}
 	return scenario.Errors{{Field: fmt.Sprintf("motions[%d].%s", i, field), Message: fmt.Sprintf(
-		"the move ends at t = %.4g s: every move must end by t = %g s; %s", end, scenario.MaxRunS, advice)}}
+		"the move ends at t = %.4g s: at most %g s is simulated, so every move must end by then; %s", end, scenario.MaxRunS, advice)}}
 }
 
 func prefixed(p, s string) string {
