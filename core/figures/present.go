@@ -42,6 +42,13 @@ type Check struct {
 	// Words say it all: "within the limit of 2.0 deg, 0.6 deg to spare",
 	// "OUTSIDE the limit of 2.0 deg by 0.4 deg".
 	Words string `json:"words"`
+	// Over several rope lengths (PresentRopes): the worst value, held
+	// against the limit, in SI and as text in the row's Unit, and the
+	// rope length it is at (as text with its unit).
+	WorstSI          float64 `json:"worst_si,omitempty"`
+	WorstText        string  `json:"worst_text,omitempty"`
+	WorstRopeLengthM float64 `json:"worst_rope_length_m,omitempty"`
+	WorstRope        string  `json:"worst_rope,omitempty"`
 }
 
 // Verdict states.
@@ -59,6 +66,9 @@ type Verdict struct {
 	// Outside are the keys of the figures beyond their limits.
 	Outside []string `json:"outside"`
 	Text    string   `json:"text"`
+	// RopeLengthsM are the rope lengths the verdict is over, shortest
+	// first, when more than one (PresentRopes).
+	RopeLengthsM []float64 `json:"rope_lengths_m,omitempty"`
 }
 
 // Report is what the "figures" bridge call returns.
