@@ -25,6 +25,8 @@ type Row struct {
 	// LimitKey is the limit the figure can be held against
 	// ("limits.peak_swing_deg"); empty when it has none.
 	LimitKey string `json:"limit_key,omitempty"`
+	// Detail: a figure for engineers, shown apart from the crew's lines.
+	Detail bool `json:"detail,omitempty"`
 	// Check is the verdict against the plan's limit; nil when the figure
 	// has no limit, the scenario sets none, or nothing was simulated.
 	Check *Check `json:"check,omitempty"`
@@ -143,7 +145,7 @@ func (f Figure) row(v float64, u units.Choice) Row {
 	}
 	_, text := units.Round(shown, un)
 	row := Row{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Quantity: q, ValueSI: v, UnitSI: f.Unit,
-		Text: text, Unit: sym}
+		Text: text, Unit: sym, Detail: f.Detail}
 	if f.Limit != "" {
 		row.LimitKey = "limits." + f.Limit
 	}

@@ -6,6 +6,7 @@ import (
 	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
 
@@ -42,11 +43,14 @@ func figuresCall(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	r, err := evaluated(s, true)
+	// The verdict is over every rope length the scenario names.
+	evals, err := figures.EvaluateRopes(s, func(x *scenario.Scenario) (*sway.Result, error) {
+		return evaluated(x, x == s)
+	})
 	if err != nil {
 		return nil, err
 	}
-	return figures.Present(s, r, in.choice()), nil
+	return figures.PresentRopes(s, evals, in.choice()), nil
 }
 
 // plotCall draws a line chart with the check sheet's plotter (core/sheet
