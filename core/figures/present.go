@@ -77,6 +77,9 @@ type Verdict struct {
 type Report struct {
 	Rows    []Row   `json:"rows"`
 	Verdict Verdict `json:"verdict"`
+	// ResultFor says what the figures are of when that is not the
+	// scenario's own moves ("the recommended drive setting (below)").
+	ResultFor string `json:"result_for,omitempty"`
 }
 
 // Present gives the rows of every figure r has, in the units of u, and

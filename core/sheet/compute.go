@@ -33,7 +33,7 @@ func (c Computer) Compute(s *scenario.Scenario) Input {
 			ev := *s
 			ev.Motions = []scenario.Motion{o.Motion}
 			in.Evaluated = &ev
-			in.ResultFor = "the recommended drive setting (below)"
+			in.ResultFor = "the planner's recommended drive setting"
 		}
 	}
 	// The nominal rope length first, then the plan's range ends: the

@@ -99,3 +99,18 @@ func key(s *scenario.Scenario) (string, error) {
 	c.Sheet = nil
 	return scenario.Fingerprint(&c)
 }
+
+// keptPlan is the plan of s when the memo holds it, else nil: for calls
+// that use a plan already made and never start one.
+func keptPlan(s *scenario.Scenario) (*plan.Result, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	defer last.mu.Unlock()
+	if last.planFP == fp {
+		return last.plan, nil
+	}
+	return nil, nil
+}

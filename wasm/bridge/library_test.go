@@ -116,3 +116,34 @@ func TestSay(t *testing.T) {
 		t.Error("bad input accepted")
 	}
 }
+
+// After the plan call, the figures of a planning request without moves
+// are those of the recommended drive setting, over the plan's rope
+// lengths; before it, nothing was simulated.
+func TestFiguresOfThePlannedMove(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/plan-gantry-pendant.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, _ := json.Marshal(map[string]any{"scenario": json.RawMessage(data), "system": "us"})
+	var r struct {
+		Result struct {
+			Verdict struct {
+				State        string    `json:"state"`
+				RopeLengthsM []float64 `json:"rope_lengths_m"`
+			} `json:"verdict"`
+			ResultFor string `json:"result_for"`
+		}
+		Error *Error
+	}
+	last = memo{}
+	json.Unmarshal(Call(nil, "figures", in), &r)
+	if r.Error != nil || r.Result.Verdict.State != "not_simulated" {
+		t.Fatalf("before the plan: %+v %+v", r.Error, r.Result)
+	}
+	Call(nil, "plan", data)
+	json.Unmarshal(Call(nil, "figures", in), &r)
+	if r.Error != nil || r.Result.Verdict.State == "not_simulated" || r.Result.ResultFor == "" || len(r.Result.Verdict.RopeLengthsM) != 3 {
+		t.Errorf("after the plan: %+v %+v", r.Error, r.Result)
+	}
+}
