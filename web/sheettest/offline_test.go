@@ -1,6 +1,8 @@
 package sheettest
 
 import (
+	"swaysheet/core/version"
+
 	"os"
 	"path/filepath"
 	"strconv"
@@ -87,7 +89,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	b.settle()
 	b.poll(`!!navigator.serviceWorker.controller`, "the service worker does not control the page")
 	names, paths := b.caches()
-	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-0.1.0-dev-") {
+	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-"+version.Version+"-") {
 		t.Fatalf("caches %q, want one swaysheet release", names)
 	}
 	have := map[string]bool{}
