@@ -92,9 +92,10 @@ fuzz:
 	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
 	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
 	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
+	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/ropelength
 
-# Regenerate testdata/reference/results.json and results_double.json (hook
-# block and rigging) with SciPy (Debian's
+# Regenerate testdata/reference/results.json, results_double.json (hook
+# block and rigging) and results_rigid.json (rigid loads) with SciPy (Debian's
 # python3-scipy, installed when missing). The tests read the committed file
 # and need no Python.
 PYTHON_REF ?= /usr/bin/python3
@@ -106,6 +107,7 @@ scipy-deps:
 
 reference: scipy-deps
 	$(PYTHON_REF) testdata/reference/double.py generate
+	$(PYTHON_REF) testdata/reference/rigid.py generate
 	$(PYTHON_REF) testdata/reference/reference.py generate
 
 # The planner's moves as reference scenarios (testdata/reference/scenarios/
@@ -124,8 +126,11 @@ bench: deps scipy-deps dist
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
+	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
+	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -floor testdata/scenarios/diagonal-travel.json -repeat 101 > $(BENCH)/kernel-wasm.json
 	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) $(BENCH_SCIPY) > $(BENCH)/scipy.json
 	SWAYSHEET_BROWSER=1 SWAYSHEET_BENCH_OUT=$(CURDIR)/$(BENCH)/browser.json $(GO) test -count=1 -run '^TestBenchPage$$' ./web/browsertest
 	@echo

@@ -67,6 +67,8 @@ var Table = []Figure{
 		Unit: "deg", Value: windy(func(r *sway.Result) float64 { return r.WindLeanDeg })},
 	{Key: "wind_offset_m", Crew: "load hangs off plumb in the wind by", Technical: "steady wind offset (static, horizontal)",
 		Unit: "m", Value: windy(func(r *sway.Result) float64 { return r.WindOffsetM })},
+	{Key: "wind_damping_ratio", Crew: "the air slows the swing by (of critical)", Technical: "damping ratio from air drag, along the wind (linearised)",
+		Unit: "", Quantity: "share", Value: positive(func(r *sway.Result) float64 { return r.WindDampingRatio })},
 	{Key: "rigging.mode_periods_s[0]", Crew: "full swing time, slow swing", Technical: "first mode period (linear)",
 		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[0] })},
 	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",
@@ -85,6 +87,22 @@ var Table = []Figure{
 		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMaxN })},
 	{Key: "rigging.rigging_tension_min_n", Crew: "smallest pull in the rigging", Technical: "lowest rigging tension",
 		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMinN })},
+	{Key: "body.pitch_period_s", Crew: "time for one full pitch of the load", Technical: "pitch mode period (rigid load)",
+		Unit: "s", Value: bodied(func(b *sway.Body) float64 { return b.PitchPeriodS }, true)},
+	{Key: "body.twist_period_s", Crew: "time for one full twist of the load", Technical: "twist mode period (rigid load; bifilar with a spreader)",
+		Unit: "s", Value: bodied(func(b *sway.Body) float64 { return b.TwistPeriodS }, true)},
+	{Key: "body.rest_tilt_deg", Crew: "load hangs tilted by", Technical: "tilt of the load hanging still",
+		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.RestTiltDeg }, false)},
+	{Key: "body.peak_tilt_deg", Crew: "largest tilt of the load", Technical: "peak tilt of the load's height axis from the vertical",
+		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTiltDeg }, false)},
+	{Key: "body.peak_twist_deg", Crew: "largest twist of the load", Technical: "peak twist about the vertical",
+		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTwistDeg }, false)},
+	{Key: "body.peak_corner_swing_m", Crew: "a corner swings out by", Technical: "peak corner swing (horizontal, from where it hangs still)",
+		Unit: "m", Value: bodied(func(b *sway.Body) float64 { return b.PeakCornerSwingM }, false)},
+	{Key: "body.leg_tension_max_n", Crew: "largest pull in a sling leg", Technical: "peak leg tension",
+		Unit: "N", Value: bodied(func(b *sway.Body) float64 { return b.LegTensionMaxN }, false)},
+	{Key: "body.leg_tension_min_n", Crew: "smallest pull in a sling leg", Technical: "lowest leg tension",
+		Unit: "N", Value: bodied(func(b *sway.Body) float64 { return b.LegTensionMinN }, false)},
 	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
@@ -112,6 +130,18 @@ func rigged(f func(*sway.Rigging) float64) func(*sway.Result) (float64, bool) {
 			return 0, false
 		}
 		return f(r.Rigging), true
+	}
+}
+
+// bodied: a figure of a rigid load, there when modelled (and, with
+// positive, when above zero).
+func bodied(f func(*sway.Body) float64, positive bool) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) {
+		if r.Body == nil {
+			return 0, false
+		}
+		v := f(r.Body)
+		return v, !positive || v > 0
 	}
 }
 

@@ -44,23 +44,24 @@ type Settings struct {
 // ErrTooManySteps is returned by Step when Settings.MaxSteps is reached.
 var ErrTooManySteps = errors.New("ode: step limit reached")
 
-// Dormand-Prince 5(4) coefficients.
+// Dormand-Prince 5(4) coefficients, exported for specialised steppers
+// elsewhere in the module (core/sway/fastode.go).
 const (
-	c2, c3, c4, c5 = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
+	C2, C3, C4, C5 = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
 
-	a21                     = 1.0 / 5
-	a31, a32                = 3.0 / 40, 9.0 / 40
-	a41, a42, a43           = 44.0 / 45, -56.0 / 15, 32.0 / 9
-	a51, a52, a53, a54      = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
-	a61, a62, a63, a64, a65 = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
-	a71, a73, a74, a75, a76 = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
+	A21                     = 1.0 / 5
+	A31, A32                = 3.0 / 40, 9.0 / 40
+	A41, A42, A43           = 44.0 / 45, -56.0 / 15, 32.0 / 9
+	A51, A52, A53, A54      = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
+	A61, A62, A63, A64, A65 = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
+	A71, A73, A74, A75, A76 = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
 
 	// Error coefficients: 5th-order weights minus 4th-order weights.
-	e1, e3, e4, e5, e6, e7 = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
+	E1, E3, E4, E5, E6, E7 = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
 
 	// Dense output coefficients (Hairer, Norsett & Wanner, DOPRI5 CONTD5).
-	d1, d3, d4 = -12715105075.0 / 11282082432, 87487479700.0 / 32700410799, -10690763975.0 / 1880347072
-	d5, d6, d7 = 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
+	D1, D3, D4 = -12715105075.0 / 11282082432, 87487479700.0 / 32700410799, -10690763975.0 / 1880347072
+	D5, D6, D7 = 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
 )
 
 // Solver holds the state and workspace of one integration. Create it with
@@ -234,23 +235,23 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		}
 		t := v.t
 		for i := range n {
-			tmp[i] = y[i] + h*a21*k1[i]
+			tmp[i] = y[i] + h*A21*k1[i]
 		}
-		v.eval(t+c2*h, tmp, k2)
+		v.eval(t+C2*h, tmp, k2)
 		for i := range n {
-			tmp[i] = y[i] + h*(a31*k1[i]+a32*k2[i])
+			tmp[i] = y[i] + h*(A31*k1[i]+A32*k2[i])
 		}
-		v.eval(t+c3*h, tmp, k3)
+		v.eval(t+C3*h, tmp, k3)
 		for i := range n {
-			tmp[i] = y[i] + h*(a41*k1[i]+a42*k2[i]+a43*k3[i])
+			tmp[i] = y[i] + h*(A41*k1[i]+A42*k2[i]+A43*k3[i])
 		}
-		v.eval(t+c4*h, tmp, k4)
+		v.eval(t+C4*h, tmp, k4)
 		for i := range n {
-			tmp[i] = y[i] + h*(a51*k1[i]+a52*k2[i]+a53*k3[i]+a54*k4[i])
+			tmp[i] = y[i] + h*(A51*k1[i]+A52*k2[i]+A53*k3[i]+A54*k4[i])
 		}
-		v.eval(t+c5*h, tmp, k5)
+		v.eval(t+C5*h, tmp, k5)
 		for i := range n {
-			tmp[i] = y[i] + h*(a61*k1[i]+a62*k2[i]+a63*k3[i]+a64*k4[i]+a65*k5[i])
+			tmp[i] = y[i] + h*(A61*k1[i]+A62*k2[i]+A63*k3[i]+A64*k4[i]+A65*k5[i])
 		}
 		tn := t + h
 		if last {
@@ -258,11 +259,11 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		}
 		v.eval(tn, tmp, k6)
 		for i := range n {
-			ynew[i] = y[i] + h*(a71*k1[i]+a73*k3[i]+a74*k4[i]+a75*k5[i]+a76*k6[i])
+			ynew[i] = y[i] + h*(A71*k1[i]+A73*k3[i]+A74*k4[i]+A75*k5[i]+A76*k6[i])
 		}
 		v.eval(tn, ynew, k7)
 		for i := range n {
-			tmp[i] = h * (e1*k1[i] + e3*k3[i] + e4*k4[i] + e5*k5[i] + e6*k6[i] + e7*k7[i])
+			tmp[i] = h * (E1*k1[i] + E3*k3[i] + E4*k4[i] + E5*k5[i] + E6*k6[i] + E7*k7[i])
 		}
 		errv := v.errNorm(y, ynew, tmp)
 		if math.IsNaN(errv) || math.IsInf(errv, 0) {
@@ -281,7 +282,7 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 				v.cont[1][i] = ydiff
 				v.cont[2][i] = bspl
 				v.cont[3][i] = ydiff - h*k7[i] - bspl
-				v.cont[4][i] = h * (d1*k1[i] + d3*k3[i] + d4*k4[i] + d5*k5[i] + d6*k6[i] + d7*k7[i])
+				v.cont[4][i] = h * (D1*k1[i] + D3*k3[i] + D4*k4[i] + D5*k5[i] + D6*k6[i] + D7*k7[i])
 			}
 			copy(k1, k7) // first same as last
 			copy(y, ynew)

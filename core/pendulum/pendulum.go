@@ -84,6 +84,9 @@ type Point struct {
 	HookPos        r3.Vec  // hook block, m
 	RiggingDir     r3.Vec  // unit vector hook to load
 	RiggingTension float64 // N
+
+	// With a rigid-body load (Rigid) only.
+	Body *BodyPoint
 }
 
 // Rel is the load's position relative to the suspension point.

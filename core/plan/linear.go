@@ -25,9 +25,15 @@ func linearPeak(p *motion.Trapezoid, k, l float64) float64 {
 		r, phi := math.Hypot(e0, v0), math.Atan2(v0, e0)
 		at := func(tau float64) float64 { return eq + r*math.Cos(w*tau-phi) }
 		peak = math.Max(peak, math.Max(math.Abs(at(0)), math.Abs(at(d))))
-		// Turning points w*tau - phi = m*pi inside the piece.
-		if w*d-phi >= math.Ceil(phi/math.Pi)*math.Pi-phi || w*d >= 2*math.Pi {
-			peak = math.Max(peak, math.Abs(eq)+r)
+		// Turning points: w*tau - phi = m*pi for a whole m, so tau =
+		// (m*pi + phi)/w; the first after tau = 0 has m = floor(-phi/pi)+1.
+		// The swing reaches |eq| + r there only if it falls inside the piece.
+		if m := math.Floor(-phi/math.Pi) + 1; (m*math.Pi+phi)/w < d {
+			th := eq + r*math.Cos(m*math.Pi)
+			peak = math.Max(peak, math.Abs(th))
+			if (m*math.Pi+math.Pi+phi)/w < d {
+				peak = math.Max(peak, math.Abs(eq)+r)
+			}
 		}
 		th = at(d)
 		dth = -r * w * math.Sin(w*d-phi)

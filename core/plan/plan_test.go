@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/gonum/mathext"
 
+	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -39,17 +40,44 @@ func TestRecommendedWithinLimits(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if r.Recommended < 0 {
-			t.Fatalf("%s: nothing recommended: %v", name, r.Infeasible)
+		// Every option carries its verified figures and crew settings,
+		// the plain text being the sentences filled in.
+		for _, o := range r.Options {
+			if len(o.Settings) == 0 || o.MoveTimeS <= 0 || len(o.Settings) != len(o.Sentences) {
+				t.Errorf("%s %s: settings %v move time %g", name, o.Label, o.Settings, o.MoveTimeS)
+			}
+			for i, st := range o.Settings {
+				if strings.ContainsAny(st, "{}") || st != o.Sentences[i].String() {
+					t.Errorf("%s %s: settings line %q", name, o.Label, st)
+				}
+			}
+			if len(o.Findings) == 0 || len(o.Findings) != len(o.FindingSentences) || strings.ContainsAny(strings.Join(o.Findings, ""), "{}") {
+				t.Errorf("%s %s: findings %q", name, o.Label, o.Findings)
+			}
+			if o.Within != (len(o.Outside) == 0) {
+				t.Errorf("%s %s: within %v but outside %v", name, o.Label, o.Within, o.Outside)
+			}
+			if len(o.Verified) != len(r.CheckedRopeLengthsM) || len(r.CheckedRopeLengthsM) != 5 {
+				t.Errorf("%s %s: verified at %d rope lengths, want 5", name, o.Label, len(o.Verified))
+			}
 		}
-		if !strings.Contains(r.Reason, "Recommended") {
+		if name == "plan-gantry-pendant.json" {
+			// The crane's own steps, pressed by a person with the default
+			// scatter, cannot meet the example's residual limit 9 in 10
+			// times: the plan says so (TestPendantP90 reports the figures).
+			if r.Recommended != -1 || len(r.Infeasible) == 0 || !strings.Contains(r.Infeasible[0], "pressed by a person") {
+				t.Errorf("%s: recommended %d, infeasible %q", name, r.Recommended, r.Infeasible)
+			}
+			continue
+		}
+		if r.Recommended != 0 || r.Options[0].Rank != 1 {
+			t.Fatalf("%s: recommended %d (want the first, rank 1): %v", name, r.Recommended, r.Infeasible)
+		}
+		if !strings.Contains(r.Reason, "Recommended") || r.Reason != r.ReasonSentence.String() {
 			t.Errorf("%s: reason %q", name, r.Reason)
 		}
 		o := r.Options[r.Recommended]
-		if len(o.Verified) != 3 {
-			t.Errorf("%s: verified at %d rope lengths, want 3", name, len(o.Verified))
-		}
-		for _, l := range r.RopeLengthsM {
+		for _, l := range r.CheckedRopeLengthsM {
 			sc := *s
 			sc.Plan = nil
 			sc.Motions = []scenario.Motion{o.Motion}
@@ -73,15 +101,6 @@ func TestRecommendedWithinLimits(t *testing.T) {
 				if v.RopeLengthM == l && math.Abs(v.ResidualSwingDeg-res.ResidualSwingDeg) > 2e-3 {
 					t.Errorf("%s at %g m: planner residual %g, default accuracy %g", name, l, v.ResidualSwingDeg, res.ResidualSwingDeg)
 				}
-			}
-		}
-		// Every option carries its verified figures and crew settings.
-		for _, o := range r.Options {
-			if len(o.Settings) == 0 || o.MoveTimeS <= 0 {
-				t.Errorf("%s %s: settings %v move time %g", name, o.Label, o.Settings, o.MoveTimeS)
-			}
-			if o.Within != (len(o.Outside) == 0) {
-				t.Errorf("%s %s: within %v but outside %v", name, o.Label, o.Within, o.Outside)
 			}
 		}
 	}
@@ -315,48 +334,97 @@ func TestSuddenAccelerationPeak(t *testing.T) {
 	}
 }
 
-// The crew's own pendant steps: with a half-speed first step the planner
-// presses full speed half a period later (the operators' rule, common
-// practice; it is the undamped ZV shaper, Singer & Seering 1990), and
-// releases the same way; five equal steps come out with a linear-theory
-// residual of a few per cent, and the simulation confirms each option.
+// The crew's own pendant steps: with a half-speed first step and exact
+// timing (scatter 0) the planner counts about half a period to the second
+// press (the operators' rule, common practice; it is the undamped ZV
+// shaper, Singer & Seering 1990), rounded to the half second people
+// count, and releases the same way; five equal steps come out inside the
+// limits too, and the simulation confirms each option. With a person's
+// scatter the same steps leave more (checked by the 90th percentile).
 func TestOwnPendantSteps(t *testing.T) {
 	s := load(t, "plan-bay-travel.json")
 	s.Plan.PendantStepsPct = []float64{50, 100}
 	s.Plan.Drive = scenario.DrivePendant
+	s.Plan.TimingSigmaS = ptr(0)
+	own := func(r *Result) *Option {
+		for i := range r.Options {
+			if r.Options[i].Key == "own_pendant" {
+				return &r.Options[i]
+			}
+		}
+		t.Fatalf("no own_pendant option")
+		return nil
+	}
 	r, err := Make(s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	var own *Option
-	for i := range r.Options {
-		if r.Options[i].Key == "own_pendant" {
-			own = &r.Options[i]
+	o := own(r)
+	if len(o.Presses) != 4 {
+		t.Fatalf("own pendant option: %+v", o.Presses)
+	}
+	for _, p := range o.Presses {
+		if c := p.CountS / CueStepS; math.Abs(c-math.Round(c)) > 1e-9 {
+			t.Errorf("count %g s is not whole half seconds", p.CountS)
 		}
 	}
-	if own == nil || len(own.Presses) != 4 {
-		t.Fatalf("own pendant option: %+v", own)
+	if got := o.Presses[1].CountS; math.Abs(got-r.DesignPeriodS/2) > CueStepS/2+1e-9 {
+		t.Errorf("second press counted %g s, want half the period %g s rounded to %g s", got, r.DesignPeriodS/2, CueStepS)
 	}
-	if got := own.Presses[1].AtS; math.Abs(got-r.DesignPeriodS/2) > r.DesignPeriodS/60 {
-		t.Errorf("second press at %g s, want half the period, %g s", got, r.DesignPeriodS/2)
+	if !o.Presses[2].ByMark || o.Presses[2].BeforeStopM <= 0 || !o.Presses[3].Release || o.Presses[3].BeforeStopM >= o.Presses[2].BeforeStopM {
+		t.Errorf("releases: %+v", o.Presses[2:])
 	}
-	if !own.Within {
-		t.Errorf("half-speed steps half a period apart: %v", own.Outside)
+	if !o.Within {
+		t.Errorf("half-speed steps half a period apart, exact timing: %v", o.Outside)
 	}
+	s.Plan.TimingSigmaS = nil
+	r, err = Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p := own(r); p.WorstResidualSwingDeg <= o.WorstResidualSwingDeg || p.Timing == nil || p.Timing.SigmaS != scenario.DefaultTimingSigmaS {
+		t.Errorf("with a person's scatter: p90 %g deg, exact %g deg, timing %+v", p.WorstResidualSwingDeg, o.WorstResidualSwingDeg, p.Timing)
+	}
+	s.Plan.TimingSigmaS = ptr(0)
 	s.Plan.PendantStepsPct = []float64{20, 40, 60, 80, 100}
 	r, err = Make(s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, o := range r.Options {
-		if o.Key == "own_pendant" && (!o.Within || len(o.Presses) < 6) {
-			t.Errorf("five steps: %v, %d presses", o.Outside, len(o.Presses))
-		}
+	if o := own(r); !o.Within || len(o.Presses) < 6 {
+		t.Errorf("five steps: %v, %d presses", o.Outside, len(o.Presses))
 	}
 	s.Plan.PendantStepsPct = []float64{60, 30, 90}
 	_, err = Make(s)
 	if err == nil || !strings.Contains(err.Error(), "plan.pendant_steps_pct[1]: 30 % is not above the step before (60 %)") ||
 		!strings.Contains(err.Error(), "plan.pendant_steps_pct[2]: is 90: the last step is the top speed, 100 %") {
 		t.Errorf("bad steps: %v", err)
+	}
+}
+
+// linearPeak is the small-angle pendulum's largest swing under the
+// trapezoid's piecewise constant acceleration (the exact solution of the
+// linear equation on each piece; any text on the pendulum with a moving
+// support). Against the full nonlinear simulation of the same moves at
+// these small angles (up to about 5 deg) it agrees within 2 % (measured:
+// within 0.3 %): it used to count a turning point that fell outside its
+// piece, which overestimated the drive-limits move of the bay-travel
+// example at 8 m as 6.24 deg against 4.93 deg simulated.
+func TestLinearPeak(t *testing.T) {
+	s := load(t, "plan-bay-travel.json")
+	rq := newRequest(s)
+	for _, a := range []float64{0.3, 0.15, 0.0856} {
+		o := rq.trapezoidOption("x", "x", a, rq.vmax)
+		for _, l := range []float64{8, 8.5, 9} {
+			v, err := rq.simulate(&o.Motion, l)
+			if err != nil {
+				t.Fatal(err)
+			}
+			lin := linearPeak(o.profile.(*motion.Trapezoid), 1, l) / units.Degree
+			t.Logf("a %g, rope %g m: linear %.4f deg, simulated %.4f deg", a, l, lin, v.PeakSwingDeg)
+			if math.Abs(lin-v.PeakSwingDeg) > 0.02*v.PeakSwingDeg {
+				t.Errorf("a %g m/s², rope %g m: linear peak %.4f deg, simulated %.4f deg", a, l, lin, v.PeakSwingDeg)
+			}
+		}
 	}
 }

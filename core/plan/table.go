@@ -24,7 +24,8 @@ func WriteTable(w io.Writer, r *Result) error {
 		fmt.Fprintf(&b, "Hook block and rigging: two sway modes, %.3g s and %.3g s at the nominal rope; the second carries up to %.0f %% of the load's swing; two-mode shapers tuned to %.3g s and %.3g s\n",
 			r.ModePeriodsS[0], r.ModePeriodsS[1], 100*r.SecondModeShare, r.DesignPeriodS, r.SecondDesignPeriodS)
 	}
-	fmt.Fprintf(&b, "Limits: %s\n\n", limitsText(r.Limits))
+	fmt.Fprintf(&b, "Limits: %s\n", limitsText(r.Limits))
+	fmt.Fprintf(&b, "Drive: %s; options checked at %s m\n\n", r.Drive, floats(r.CheckedRopeLengthsM))
 	for _, m := range r.Infeasible {
 		fmt.Fprintf(&b, "NOT FEASIBLE: %s\n", m)
 	}
@@ -45,6 +46,11 @@ func WriteTable(w io.Writer, r *Result) error {
 		}
 		tw.Flush()
 		fmt.Fprintln(&b, "(peak and residual: the worst over the rope lengths simulated; +s: longer than at the drive limits)")
+		for _, o := range r.Options {
+			if o.Timing != nil {
+				fmt.Fprintf(&b, "(%s: the %gth percentile over %d draws of a person's timing, scatter %.3g s)\n", o.Label, o.Timing.Percentile, o.Timing.Draws, o.Timing.SigmaS)
+			}
+		}
 		fmt.Fprintln(&b)
 	}
 	fmt.Fprintf(&b, "%s\n", r.Reason)
@@ -57,7 +63,7 @@ func WriteTable(w io.Writer, r *Result) error {
 			mark = " (recommended)"
 		}
 		fmt.Fprintf(&b, "\n%d. %s%s\n", o.Rank, o.Label, mark)
-		for _, s := range o.Settings {
+		for _, s := range append(append([]string{}, o.Settings...), o.Findings...) {
 			fmt.Fprintf(&b, "   %s\n", s)
 		}
 		for _, v := range o.Verified {
@@ -65,7 +71,11 @@ func WriteTable(w io.Writer, r *Result) error {
 			if len(r.ModePeriodsS) == 2 {
 				rig = fmt.Sprintf("; rigging to rope up to %.3g deg", v.PeakRiggingAngleDeg)
 			}
-			fmt.Fprintf(&b, "   rope %.4g m: peak %.3g deg, %.3g m; residual %.2g deg%s\n", v.RopeLengthM, v.PeakSwingDeg, v.PeakExcursionM, v.ResidualSwingDeg, rig)
+			exact := ""
+			if v.Exact != nil {
+				exact = fmt.Sprintf(" (90th percentile; exact timing: peak %.3g deg, residual %.2g deg)", v.Exact.PeakSwingDeg, v.Exact.ResidualSwingDeg)
+			}
+			fmt.Fprintf(&b, "   rope %.4g m: peak %.3g deg, %.3g m; residual %.2g deg, %.3g m%s%s\n", v.RopeLengthM, v.PeakSwingDeg, v.PeakExcursionM, v.ResidualSwingDeg, v.ResidualExcursionM, rig, exact)
 		}
 	}
 	fmt.Fprintln(&b)
@@ -92,6 +102,11 @@ func limitsText(l Limits) string {
 	if l.PeakExcursionM > 0 {
 		parts = append(parts, fmt.Sprintf("peak excursion %.3g m", l.PeakExcursionM))
 	}
-	parts = append(parts, fmt.Sprintf("residual swing %.3g deg", l.ResidualSwingDeg))
+	if l.ResidualSwingDeg > 0 {
+		parts = append(parts, fmt.Sprintf("residual swing %.3g deg", l.ResidualSwingDeg))
+	}
+	if l.ResidualExcursionM > 0 {
+		parts = append(parts, fmt.Sprintf("residual excursion %.3g m", l.ResidualExcursionM))
+	}
 	return strings.Join(parts, ", ")
 }

@@ -134,12 +134,12 @@ func (rq *request) markModes(o *Option, sh *shaper.Shaper) {
 	o.ModeResidualPct = rq.modeResidual(sh.Impulses, sh.Damping)
 	if sh.SecondPeriodS > 0 {
 		o.TwoMode = true
-		o.Settings = append(o.Settings, fmt.Sprintf("Designed for both sway modes, %.3g s and %.3g s: in linear theory it leaves at most %.2g %% and %.2g %% of the drive-limits move's swing in them over the rope-length range.",
-			rq.designT, rq.designT2, o.ModeResidualPct[0], o.ModeResidualPct[1]))
+		o.add(say(fmt.Sprintf("Designed for both sway modes, {0} and {1}: in linear theory it leaves at most %.2g %% and %.2g %% of the drive-limits move's swing in them over the rope-length range.",
+			o.ModeResidualPct[0], o.ModeResidualPct[1]), qTime(rq.designT), qTime(rq.designT2)))
 		return
 	}
-	o.Settings = append(o.Settings, fmt.Sprintf("Tuned to the first sway mode (%.3g s) only: in linear theory it leaves up to %.2g %% of the drive-limits move's swing in the second mode (%.3g s), which carries about %.0f %% of the load's swing.",
-		rq.designT, o.ModeResidualPct[1], rq.designT2, 100*rq.share2))
+	o.add(say(fmt.Sprintf("Tuned to the first sway mode ({0}) only: in linear theory it leaves up to %.2g %% of the drive-limits move's swing in the second mode ({1}), which carries about %.0f %% of the load's swing.",
+		o.ModeResidualPct[1], 100*rq.share2), qTime(rq.designT), qTime(rq.designT2)))
 }
 
 // MinSecondShare is the second mode's share of the load's swing below
@@ -161,7 +161,7 @@ func (rq *request) twoModeOptions() ([]*Option, error) {
 	if rq.share2 < MinSecondShare || rq.designT2 < minSecondPeriodS {
 		return nil, nil
 	}
-	if rq.drive != scenario.DrivePendant {
+	{
 		for _, kind := range shaper.Kinds {
 			sh, err := rq.designTwoMode(kind)
 			if err != nil {
@@ -170,19 +170,6 @@ func (rq *request) twoModeOptions() ([]*Option, error) {
 			out = append(out, rq.shapedDriveWith(sh, kind, kind+"2_"+scenario.DriveVariableSpeed,
 				"Two-mode "+shaperLabel(kind)+"-shaped speed profile (variable-speed drive)"))
 		}
-	}
-	if rq.drive != scenario.DriveVariableSpeed && len(rq.s.Plan.PendantStepsPct) == 0 {
-		sh, err := rq.designTwoMode(shaper.ZV)
-		if err != nil {
-			return nil, err
-		}
-		o, err := rq.pendant(shaper.ZV+"2_"+scenario.DrivePendant, "Two-mode ZV pendant steps (step-speed drive)", shaper.ZV, sh.Impulses)
-		if err != nil {
-			return nil, err
-		}
-		o.Settings[0] += fmt.Sprintf(" The steps also cancel the second sway mode, %.3g s.", rq.designT2)
-		rq.markModes(o, sh)
-		out = append(out, o)
 	}
 	return out, nil
 }
@@ -207,17 +194,20 @@ func (rq *request) modeNotes() []string {
 const twoModeAssumption = "Hook block and rigging are two point masses (rope to the hook, rigging from the hook to the load's centre of mass); the mode periods are those of the linearised two-mass pendulum, and the swing figures are of the line from the suspension point to the load."
 
 // modeReason says how the recommended option treats the two modes.
-func (rq *request) modeReason(o *Option) string {
-	modes := fmt.Sprintf("the two sway modes of hook block and rigging (%.3g s and %.3g s; the second carries up to %.0f %% of the load's swing)",
-		rq.designT, rq.designT2, 100*rq.share2)
-	if o.TwoMode {
-		return "It is designed for " + modes + ", and the simulation of both masses confirms it."
+func (rq *request) modeReason(o *Option) Sentence {
+	modes := fmt.Sprintf("the two sway modes of hook block and rigging ({0} and {1}; the second carries up to %.0f %% of the load's swing)", 100*rq.share2)
+	ts := []Quantity{qTime(rq.designT), qTime(rq.designT2)}
+	switch {
+	case o.TwoMode && o.RampTimeS > 0:
+		return say("Its ramp time is chosen with "+modes+" in view, and the simulation of both masses confirms it.", ts...)
+	case o.TwoMode:
+		return say("It is designed for "+modes+", and the simulation of both masses confirms it.", ts...)
 	}
 	left := ""
 	if len(o.ModeResidualPct) == 2 {
 		left = fmt.Sprintf(" (in linear theory it leaves %.2g %% of the drive-limits move's swing in the second)", o.ModeResidualPct[1])
 	}
-	return fmt.Sprintf("Of %s it is tuned to the first only%s; the simulation of both masses keeps the residual swing inside the limit.", modes, left)
+	return say("Of "+modes+" it is tuned to the first only"+left+"; the simulation of both masses keeps the residual swing inside the limit.", ts...)
 }
 
 // steadyLean is the steady angle from the vertical of the line from the

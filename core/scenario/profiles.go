@@ -92,13 +92,31 @@ type Plan struct {
 
 	DampingRatio   float64 `json:"damping_ratio,omitempty"`
 	EITolerancePct float64 `json:"ei_tolerance_pct,omitempty"`
-	// Drive is "variable_speed", "pendant" or empty for both.
+	// Drive is the crane's drive: "variable_speed" or "pendant". Empty
+	// (files written before the drive was required) reads as "pendant"
+	// when pendant_steps_pct are given and "variable_speed" otherwise; the
+	// plan says which it assumed.
 	Drive string `json:"drive,omitempty"`
-	// PendantStepsPct are the speeds of the crew's own pendant steps, % of
-	// the top speed, ascending, the last 100. Given, the planner times the
-	// presses of these steps instead of asking for a shaper's steps.
+	// PendantStepsPct are the speeds of the crane's pendant steps, % of
+	// the top speed, ascending, the last 100; required for a pendant. The
+	// planner times the presses of these steps and never invents others.
 	PendantStepsPct []float64 `json:"pendant_steps_pct,omitempty"`
+	// SCurveMaxRoundingS is the largest S-curve rounding (jerk limiting,
+	// as in the s_curve profile's rounding_s) the variable-speed drive
+	// offers; 0 or absent: the drive has none.
+	SCurveMaxRoundingS float64 `json:"s_curve_max_rounding_s,omitempty"`
+	// TimingSigmaS is the standard deviation of a person's press and
+	// release times on a pendant (default DefaultTimingSigmaS; 0 is exact
+	// timing); ReactionDelayS is added to every press timed by a count or
+	// a mark (default 0).
+	TimingSigmaS   *float64 `json:"timing_sigma_s,omitempty"`
+	ReactionDelayS float64  `json:"reaction_delay_s,omitempty"`
 }
+
+// DefaultTimingSigmaS is the default scatter of a person's press times:
+// a person pressing on a count is off by roughly 0.2 to 0.3 s (standard
+// deviation; from memory).
+const DefaultTimingSigmaS = 0.25
 
 // Drive kinds for a plan.
 const (
@@ -134,6 +152,9 @@ func init() {
 		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
 		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%"},
 		"plan.pendant_steps_pct[]":             {Min: 0, Max: 100, Unit: "%", OpenMin: true},
+		"plan.s_curve_max_rounding_s":          {Min: 0, Max: 30, Unit: "s"},
+		"plan.timing_sigma_s":                  {Min: 0, Max: 2, Unit: "s"},
+		"plan.reaction_delay_s":                {Min: 0, Max: 3, Unit: "s"},
 		"motions[].hard_stop.speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
 		"motions[].hard_stop.rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
 		"motions[].hard_stop.decel_m_per_s2":   {Min: 0, Max: 10, Unit: "m/s²", OpenMin: true},
@@ -430,8 +451,14 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 	switch p.Drive {
 	case "", DriveVariableSpeed, DrivePendant:
 	default:
-		c.add("plan.drive", "is %q: accepted %q, %q or empty for both", p.Drive, DriveVariableSpeed, DrivePendant)
+		c.add("plan.drive", "is %q: accepted %q or %q, the drive the crane has", p.Drive, DriveVariableSpeed, DrivePendant)
 	}
+	if p.Drive == DrivePendant && len(p.PendantStepsPct) == 0 {
+		c.add("plan.pendant_steps_pct", "is required for a pendant: list the pendant's speed steps, %% of the top speed, slowest first, the last 100 (e.g. [50, 100])")
+	}
+	c.value("plan.s_curve_max_rounding_s", "plan.s_curve_max_rounding_s", p.SCurveMaxRoundingS)
+	c.optional("plan.timing_sigma_s", "plan.timing_sigma_s", p.TimingSigmaS)
+	c.value("plan.reaction_delay_s", "plan.reaction_delay_s", p.ReactionDelayS)
 	if n := len(p.PendantStepsPct); n > 0 {
 		if n > 5 {
 			c.add("plan.pendant_steps_pct", "has %d steps: accepted 1 to 5", n)
@@ -452,7 +479,9 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 	}
 	l := s.Limits
 	if l == nil || l.ResidualSwingDeg == nil {
-		c.add("limits.residual_swing_deg", "is required for a plan: the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
+		if l == nil || l.ResidualExcursionM == nil {
+			c.add("limits.residual_swing_deg", "is required for a plan (or limits.residual_excursion_m): the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
+		}
 	}
 	if l == nil || (l.PeakSwingDeg == nil && l.PeakExcursionM == nil) {
 		c.add("limits.peak_swing_deg", "a plan needs limits.peak_swing_deg (%s) or limits.peak_excursion_m (%s)",

@@ -58,6 +58,8 @@ type Scenario struct {
 	Sheet *Sheet `json:"sheet,omitempty"`
 	// Plan asks the planner for drive settings (see profiles.go).
 	Plan *Plan `json:"plan,omitempty"`
+	// Site holds the obstacles for the clearance check (see site.go).
+	Site *Site `json:"site,omitempty"`
 }
 
 // Load is the hook load and its rope.
@@ -76,6 +78,9 @@ type Load struct {
 	// masses (a double pendulum). Then RopeLengthM runs to the hook block's
 	// centre of mass and MassKg is the rigged load without the hook block.
 	Hook *Hook `json:"hook,omitempty"`
+	// Body, when present, models the load as a rigid box on a sling set
+	// (see body.go); RopeLengthM then runs to the hook.
+	Body *Body `json:"body,omitempty"`
 }
 
 // Hook is the hook block and the rigging below it.
@@ -119,8 +124,30 @@ type Motion struct {
 	ProfileFields
 }
 
-// Wind is a steady horizontal force on the load, given directly or from a
-// wind speed as F = q*A*c with q = 0.5*rho*v^2.
+// Wind is a horizontal wind on the load, given as the force it makes on
+// the load hanging still (ForceN) or as a wind speed (SpeedMPerS), from
+// which that force is F = q*A*c with q = 0.5*rho*v^2, A the load's
+// load.area_m2 and c the ShapeFactor. The speed is the 3-s gust speed at
+// the load's height (from the site's anemometer or the forecast, taken up
+// to that height), the speed crane wind limits are usually given in.
+//
+// With load.drag_coefficient set the air also acts on the load's motion:
+// the drag is on the load's speed relative to the air, and the wind force
+// above stays the force on the load at rest, so nothing is counted twice.
+// The rule, with s(t) the wind speed's fraction of full (0 to 1, see
+// RampS), e the unit vector toward TowardDeg and
+// k = 0.5*rho*load.drag_coefficient*load.area_m2:
+//
+//	air velocity     w(t) = s(t) * V * e
+//	force on load    F(t, v) = s^2*F_w*e - k*( |v - w|(v - w) + s^2*V^2*e )
+//
+// where v is the load's ground velocity, F_w the force at rest at full
+// wind (ForceN or q*A*c) and V the full air speed: SpeedMPerS, or for a
+// typed force the speed that makes that force through the drag,
+// V = sqrt(F_w/k). At v = 0 the bracket vanishes and F = s^2*F_w*e; with a
+// typed force, or a speed whose shape factor equals the drag coefficient,
+// F is exactly -k*|v - w|(v - w). Without drag F = s^2*F_w*e, without wind
+// F = -k*|v|*v.
 type Wind struct {
 	ForceN            *float64 `json:"force_n,omitempty"`
 	SpeedMPerS        *float64 `json:"speed_m_per_s,omitempty"`
@@ -132,6 +159,13 @@ type Wind struct {
 	StartS    float64 `json:"start_s,omitempty"`
 	// DurationS is how long the wind blows; zero means to the end of the run.
 	DurationS float64 `json:"duration_s,omitempty"`
+	// RampS is the gust's rise time: the wind speed rises linearly from 0
+	// at StartS to full at StartS + RampS and, with DurationS, falls
+	// linearly over RampS from StartS + DurationS, so its fraction of full
+	// is s(t) = clamp((t - StartS)/RampS) - clamp((t - StartS - DurationS)/RampS)
+	// with clamp to [0, 1]; the force goes as s^2 (a typed force too).
+	// Zero (the default) is a sudden step on and off.
+	RampS float64 `json:"ramp_s,omitempty"`
 }
 
 // Initial is the swing at time zero; the zero value hangs still.
@@ -148,7 +182,11 @@ type Limits struct {
 	PeakSwingDeg     *float64 `json:"peak_swing_deg,omitempty"`
 	PeakExcursionM   *float64 `json:"peak_excursion_m,omitempty"`
 	ResidualSwingDeg *float64 `json:"residual_swing_deg,omitempty"`
-	TensionFactor    *float64 `json:"tension_factor,omitempty"`
+	// ResidualExcursionM is the residual swing allowed as a distance of
+	// the load from straight below the suspension point (a landing
+	// tolerance).
+	ResidualExcursionM *float64 `json:"residual_excursion_m,omitempty"`
+	TensionFactor      *float64 `json:"tension_factor,omitempty"`
 }
 
 // Settings tune the computation; the zero value is the default.

@@ -47,16 +47,18 @@ var Ranges = map[string]Range{
 	"wind.toward_deg":            {Min: -360, Max: 360, Unit: "deg"},
 	"wind.start_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
 	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s"},
+	"wind.ramp_s":                {Min: 0, Max: 600, Unit: "s"},
 
 	"initial.swing_deg":          {Min: 0, Max: 89, Unit: "deg"},
 	"initial.toward_deg":         {Min: -360, Max: 360, Unit: "deg"},
 	"initial.velocity_x_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 	"initial.velocity_y_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 
-	"limits.peak_swing_deg":     {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.peak_excursion_m":   {Min: 0, Max: 100, Unit: "m", OpenMin: true},
-	"limits.residual_swing_deg": {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.tension_factor":     {Min: 1, Max: 10, Unit: ""},
+	"limits.peak_swing_deg":       {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.peak_excursion_m":     {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.residual_swing_deg":   {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
+	"limits.residual_excursion_m": {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.tension_factor":       {Min: 1, Max: 10, Unit: ""},
 
 	"settings.rel_tol":        {Min: 1e-13, Max: 1e-3, Unit: ""},
 	"settings.settle_periods": {Min: 2, Max: 50, Unit: "periods"},
@@ -156,6 +158,9 @@ func (s *Scenario) Validate() error {
 		c.required("load.hook.mass_kg", "load.hook.mass_kg", h.MassKg)
 		c.required("load.hook.rigging_length_m", "load.hook.rigging_length_m", h.RiggingLengthM)
 	}
+	if b := s.Load.Body; b != nil {
+		b.validate(&c, s)
+	}
 	c.value("crane.radius_m", "crane.radius_m", s.Crane.RadiusM)
 	c.value("crane.slew_deg", "crane.slew_deg", s.Crane.SlewDeg)
 	if len(s.Motions) > 100 {
@@ -186,6 +191,7 @@ func (s *Scenario) Validate() error {
 		c.optional("limits.peak_swing_deg", "limits.peak_swing_deg", l.PeakSwingDeg)
 		c.optional("limits.peak_excursion_m", "limits.peak_excursion_m", l.PeakExcursionM)
 		c.optional("limits.residual_swing_deg", "limits.residual_swing_deg", l.ResidualSwingDeg)
+		c.optional("limits.residual_excursion_m", "limits.residual_excursion_m", l.ResidualExcursionM)
 		c.optional("limits.tension_factor", "limits.tension_factor", l.TensionFactor)
 	}
 	if st := s.Settings; st != nil {
@@ -208,6 +214,7 @@ func (s *Scenario) Validate() error {
 	if p := s.Plan; p != nil {
 		p.validate(&c, s)
 	}
+	s.validateSite(&c)
 	if len(c.errs) > 0 {
 		return c.errs
 	}
@@ -276,4 +283,5 @@ func (w *Wind) validate(c *checker, area float64) {
 	c.value("wind.toward_deg", "wind.toward_deg", w.TowardDeg)
 	c.value("wind.start_s", "wind.start_s", w.StartS)
 	c.value("wind.duration_s", "wind.duration_s", w.DurationS)
+	c.value("wind.ramp_s", "wind.ramp_s", w.RampS)
 }

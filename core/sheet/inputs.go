@@ -87,7 +87,7 @@ var fieldWords = map[string]string{
 	"decel_m_per_s2": "braking", "angle_deg": "slew angle", "rate_deg_per_s": "slew rate",
 	"accel_deg_per_s2": "acceleration", "decel_deg_per_s2": "braking",
 	"force_n": "force", "shape_factor": "shape factor", "air_density_kg_per_m3": "air density",
-	"toward_deg": "toward (from +x to +y)", "duration_s": "lasts",
+	"toward_deg": "toward (from +x to +y)", "duration_s": "lasts", "ramp_s": "rises over",
 	"swing_deg": "swing", "velocity_x_m_per_s": "velocity x", "velocity_y_m_per_s": "velocity y",
 	"peak_swing_deg": "peak swing allowed", "peak_excursion_m": "peak excursion allowed",
 	"residual_swing_deg": "residual swing allowed", "tension_factor": "tension factor allowed",
@@ -129,6 +129,10 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 		seen[k] = true
 		v, ok := top[k]
 		if !ok || skipped[k] {
+			return
+		}
+		if k == "site" && s.Site != nil {
+			out = append(out, siteGroup(s.Site, u))
 			return
 		}
 		if k == "motions" {

@@ -24,8 +24,10 @@ type setup struct {
 	ropeEnd     float64   // rope length when all motion has ended, m
 	ropeStart   float64
 	windForce   float64 // N, while the wind blows
+	air         *Air    // wind and drag; nil when neither
 	phases      []Phase
 	warnings    []words.Sentence
+	fast        *fastModel // the specialised path's model, nil when it does not fit
 }
 
 func deref(p *float64, def float64) float64 {
@@ -98,47 +100,36 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		su.warnings = append(su.warnings, words.Say("The crane slews with the load at radius {0}: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.", words.Length(0)))
 	}
 
-	// Wind.
-	var windDir r3.Vec
-	windOn, windOff := math.Inf(1), math.Inf(1)
-	if w := s.Wind; w != nil {
-		su.windForce = WindForceN(s)
-		th := w.TowardDeg * units.Degree
-		windDir = r3.Vec{X: math.Cos(th), Y: math.Sin(th)}
-		windOn = w.StartS
-		breaks = append(breaks, w.StartS)
-		su.activityEnd = math.Max(su.activityEnd, w.StartS)
-		if w.DurationS > 0 {
-			windOff = w.StartS + w.DurationS
-			breaks = append(breaks, windOff)
-			su.activityEnd = math.Max(su.activityEnd, windOff)
-		}
+	// Wind and drag (air.go).
+	air, err := NewAir(s)
+	if err != nil {
+		return nil, err
 	}
-	rho := units.AirDensity
-	if s.Wind != nil && s.Wind.AirDensityKgPerM3 > 0 {
-		rho = s.Wind.AirDensityKgPerM3
+	if air != nil {
+		su.windForce = air.ForceN
+		su.air = air
+		breaks = append(breaks, air.Breaks()...)
+		su.activityEnd = math.Max(su.activityEnd, air.LastChange())
 	}
-	dragK := 0.5 * rho * s.Load.DragCoefficient * s.Load.AreaM2 // N per (m/s)^2
 
 	susp := ax.Suspension(s.Crane.Start())
 	rope := ax.RopeLength(l0)
 	var force func(t float64, pos, vel r3.Vec) r3.Vec
-	if su.windForce > 0 || dragK > 0 {
-		wf := r3.Scale(su.windForce, windDir)
-		force = func(t float64, _, vel r3.Vec) r3.Vec {
-			var f r3.Vec
-			if t >= windOn && t < windOff {
-				f = wf
-			}
-			if dragK > 0 {
-				f = r3.Sub(f, r3.Scale(dragK*r3.Norm(vel), vel))
-			}
-			return f
+	if air != nil {
+		force = func(t float64, _, vel r3.Vec) r3.Vec { return air.Force(t, vel) }
+	}
+	if s.Load.Body != nil {
+		r, y0, err := rigidModel(s, susp, rope, force, ax[crane.Turn])
+		if err != nil {
+			return nil, err
 		}
+		su.model, su.y0, su.breaks = r, y0, breaks
+		return su, nil
 	}
 	hook := s.Load.Hook
 	if hook == nil {
 		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
+		su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass, air)
 	} else {
 		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
 			Suspension: susp, Rope: rope, Force: force}

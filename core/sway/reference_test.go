@@ -235,10 +235,11 @@ func sampleIndex(ts []float64, t float64) int {
 // swing): the examples in testdata/scenarios, the reference cases and the
 // planner's moves (testdata/reference/scenarios/planned-*.json, written by
 // testdata/reference/planned.py), those with a hook block in
-// results_double.json. A scenario added without `make reference` fails here.
+// results_double.json, those with a rigid load in results_rigid.json. A
+// scenario added without `make reference` fails here.
 func TestReferenceCoversScenarios(t *testing.T) {
 	have := map[string]bool{}
-	for _, file := range []string{referenceFile, referenceDoubleFile} {
+	for _, file := range []string{referenceFile, referenceDoubleFile, referenceRigidFile} {
 		data, err := os.ReadFile(file)
 		if err != nil {
 			t.Fatal(err)
@@ -256,7 +257,7 @@ func TestReferenceCoversScenarios(t *testing.T) {
 		}
 	}
 	planned := 0
-	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios", "testdata/reference/double"} {
+	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios", "testdata/reference/double", "testdata/reference/rigid"} {
 		files, err := filepath.Glob(filepath.Join("..", "..", dir, "*.json"))
 		if err != nil {
 			t.Fatal(err)

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 
-	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
@@ -56,45 +55,13 @@ func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float6
 	a := 0.05 * units.Degree / math.Max(math.Abs(shape[0]), math.Abs(shape[1]))
 	th1, th2 := a*shape[0], a*shape[1]
 	y := []float64{math.Sin(th1), 0, -math.Cos(th1), 0, 0, 0, math.Sin(th2), 0, -math.Cos(th2), 0, 0, 0}
-	v := ode.New(d.Func, pendulum.DoubleStateLen, ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000})
-	v.Reset(0, y)
-	period := 2 * math.Pi / omega
-	var ups []float64
-	buf := make([]float64, pendulum.DoubleStateLen)
 	// The rope's rate u1x crosses zero from below at the far turning point
 	// of each cycle.
-	for len(ups) < 3 {
-		done, err := v.Step(20 * period)
-		if err != nil {
-			return 0, err
-		}
-		t0, t1 := v.LastStep()
-		v.Dense(t0, buf)
-		f0 := buf[3]
-		if f1 := v.State()[3]; f0 < 0 && f1 >= 0 {
-			a, b := t0, t1
-			for range 50 {
-				c := 0.5 * (a + b)
-				v.Dense(c, buf)
-				if buf[3] < 0 {
-					a = c
-				} else {
-					b = c
-				}
-			}
-			ups = append(ups, 0.5*(a+b))
-		}
-		yy := v.State()
-		d.Project(yy)
-		v.SetState(yy)
-		if done {
-			break
-		}
+	p, err := pendulum.CrossingPeriod(d, y, 3, 3, 20*2*math.Pi/omega)
+	if err != nil {
+		return 0, fmt.Errorf("sway: the mode's period: %w", err)
 	}
-	if len(ups) < 2 {
-		return 0, fmt.Errorf("sway: no full cycle of the mode found")
-	}
-	return (ups[len(ups)-1] - ups[0]) / float64(len(ups)-1), nil
+	return p, nil
 }
 
 // rigging fills the hook-and-rigging figures and their warning.

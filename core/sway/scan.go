@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -30,23 +29,16 @@ func (e *extremum) offer(v, t float64) bool {
 // scanner integrates the model and watches every step for extremes,
 // locating each to the accuracy of the dense output.
 type scanner struct {
-	model     pendulum.System
-	solver    *ode.Solver
-	motionEnd float64
-	nq        quantity // quantities watched: all of them with rigging
-	maxSteps  int
+	peaks
+	model    pendulum.System
+	solver   *ode.Solver
+	maxSteps int
 
-	ext           [nQuantities]extremum
-	resSwing      extremum // swing after the last motion
-	resExcursion  extremum
 	constraintErr float64
 
 	segStart, segEnd float64 // the segment between restarts being integrated
 
-	hist     *History
-	sampleDt float64
-	samples  int
-	next     int // index of the next history sample
+	recorder
 
 	y  []float64 // scratch state
 	pt pendulum.Point
@@ -54,10 +46,24 @@ type scanner struct {
 
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	nq := qRigAngle
-	if _, ok := m.(*pendulum.Double); ok {
+	switch m.(type) {
+	case *pendulum.Double:
+		nq = qTilt
+	case *pendulum.Rigid:
 		nq = nQuantities
 	}
-	return &scanner{model: m, motionEnd: motionEnd, nq: nq, maxSteps: maxSteps, y: make([]float64, m.Len())}
+	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, maxSteps: maxSteps, y: make([]float64, m.Len())}
+}
+
+// peaks tracks the largest value of every watched quantity over a run,
+// and after the last motion that of the swing and the excursion (the
+// general and the specialised path's scans share it).
+type peaks struct {
+	motionEnd    float64
+	nq           quantity // quantities watched: all of them with rigging
+	ext          [nQuantities]extremum
+	resSwing     extremum // swing after the last motion
+	resExcursion extremum
 }
 
 // quantity is one scalar watched along the run.
@@ -73,7 +79,13 @@ const (
 	qRopeSwing // the rope's own angle from the vertical
 	qRigTension
 	qRigTensionLow
-	nQuantities
+	// With a rigid load (values from Point.Body):
+	qTilt                  // the load's tilt, rad
+	qTwist                 // |twist|, rad
+	qCorner                // square of the largest corner swing
+	qLeg                   // tension of legs 0 to 3
+	qLegLow     = qLeg + 4 // minus the tension of legs 0 to 3
+	nQuantities = qLegLow + 4
 )
 
 // value is the quantity q at p, or a cheaper quantity that rises and falls
@@ -97,9 +109,10 @@ func (s *scanner) value(q quantity, p *pendulum.Point) float64 {
 		return oneMinusCos(p.Dir, r3.Vec{Z: -1})
 	case qRigTension:
 		return p.RiggingTension
-	default:
+	case qRigTensionLow:
 		return -p.RiggingTension
 	}
+	return bodyValue(q, p.Body)
 }
 
 // oneMinusCos is 1 - cos of the angle between d and the unit vector e:
@@ -123,7 +136,7 @@ func swingRad(v float64) float64 { return 2 * math.Asin(math.Sqrt(math.Max(0, ma
 func excursionM(v float64) float64 { return math.Sqrt(math.Max(0, v)) }
 
 // residualOf is the residual tracker of q, or nil.
-func (s *scanner) residualOf(q quantity) *extremum {
+func (s *peaks) residualOf(q quantity) *extremum {
 	switch q {
 	case qSwing:
 		return &s.resSwing
@@ -178,16 +191,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	})
 	y := append([]float64(nil), y0...)
 	// Segments between restarts. The breakpoints come move by move and
-	// from the wind, so they are sorted here: an unsorted list would skip
+	// from the wind, so restartCuts sorts them: an unsorted list would skip
 	// every restart that comes after a later one.
-	var cuts []float64
-	for _, b := range breaks {
-		if b > 1e-12 && b < tEnd-1e-12 {
-			cuts = append(cuts, b)
-		}
-	}
-	sort.Float64s(cuts)
-	cuts = append(cuts, tEnd)
+	cuts := restartCuts(breaks, tEnd)
 
 	t := 0.0
 	s.solver.Reset(0, y)
@@ -238,6 +244,11 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				var r *extremum
 				if residual {
 					r = s.residualOf(q)
+				}
+				if e.set && (r == nil || r.set) {
+					if b := reach(&vs[q]); b < e.max && (r == nil || b < r.max) {
+						continue // no sample nor peak in this step can beat the best so far
+					}
 				}
 				for j := 0; j < interior+2; j++ {
 					v := vs[q][j]
@@ -399,7 +410,29 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 	}
 }
 
-func (s *scanner) record(p *pendulum.Point) {
+// recorder writes the evenly spaced history samples of a run.
+type recorder struct {
+	hist     *History     // nil: no history
+	bodyHist *BodyHistory // with a rigid load's history
+	sampleDt float64
+	samples  int
+	next     int // index of the next history sample
+}
+
+// reserve makes room for every sample at once: growing eleven slices
+// sample by sample costs more than the samples (in wasm most of all).
+func (s *recorder) reserve() {
+	h := s.hist
+	cs := []*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
+		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
+	n := s.samples
+	buf := make([]float64, len(cs)*n) // one allocation, each series its own part
+	for k, c := range cs {
+		*c = buf[k*n : k*n : (k+1)*n]
+	}
+}
+
+func (s *recorder) record(p *pendulum.Point) {
 	h := s.hist
 	rel := p.Rel()
 	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
@@ -413,5 +446,42 @@ func (s *scanner) record(p *pendulum.Point) {
 	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
+	if s.bodyHist != nil {
+		s.bodyHist.add(p)
+	}
 	s.next++
+}
+
+// reach bounds from above every sample of a step plus the slack that run
+// allows a peak between samples (a second difference and 1e-12 of the
+// value): when it stays below the best so far, the step changes nothing
+// for that quantity. Written out for interior = 2.
+func reach(v *[interior + 2]float64) float64 {
+	// Plain comparisons: math.Max, math.Min and the built-in max handle NaN
+	// and signed zeros at a cost; a NaN sample is never a new best anyway.
+	a, b, c, d := v[0], v[1], v[2], v[3]
+	top, size := a, math.Abs(a)
+	if b > top {
+		top = b
+	}
+	if c > top {
+		top = c
+	}
+	if d > top {
+		top = d
+	}
+	if x := math.Abs(b); x > size {
+		size = x
+	}
+	if x := math.Abs(c); x > size {
+		size = x
+	}
+	if x := math.Abs(d); x > size {
+		size = x
+	}
+	slack, x := math.Abs(a-2*b+c), math.Abs(b-2*c+d)
+	if x > slack {
+		slack = x
+	}
+	return top + slack + 1e-12*size
 }

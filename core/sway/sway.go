@@ -13,6 +13,7 @@ import (
 
 	"gonum.org/v1/gonum/mathext"
 
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 	"swaysheet/core/words"
@@ -22,7 +23,8 @@ import (
 type Result struct {
 	Name string `json:"name"`
 	// PeriodS is the small-amplitude period 2*pi*sqrt(L/g) at the rope
-	// length at the end of the run.
+	// length at the end of the run; with a hook block the slower mode's,
+	// with a rigid load (load.body) the slowest mode's (Body.Modes).
 	PeriodS float64 `json:"period_s"`
 	// PeriodAmplitudeS is the period of a free swing of the residual
 	// amplitude, 4*sqrt(L/g)*K(sin^2(theta/2)); zero when the swing goes
@@ -49,6 +51,11 @@ type Result struct {
 	// steady lean under it, atan(F/(m*g)).
 	WindForceN  float64 `json:"wind_force_n"`
 	WindLeanDeg float64 `json:"wind_lean_deg"`
+	// WindDampingRatio is the damping ratio the air drag gives a small
+	// swing along the wind about the steady lean (linearised drag on the
+	// speed relative to the air; Air.DampingRatio); across the wind it is
+	// about half. Zero without wind and drag, and with a hook block.
+	WindDampingRatio float64 `json:"wind_damping_ratio,omitempty"`
 	// WindOffsetM is how far the load hangs off plumb in the steady wind
 	// (WindOffsetM, at the rope length at the end of the run).
 	WindOffsetM float64 `json:"wind_offset_m"`
@@ -60,6 +67,8 @@ type Result struct {
 
 	// Rigging is present when the scenario models hook block and rigging.
 	Rigging *Rigging `json:"rigging,omitempty"`
+	// Body is present when the scenario models the load as a rigid body.
+	Body *Body `json:"body,omitempty"`
 
 	Checks   []Check  `json:"checks"`
 	Warnings []string `json:"warnings"`
@@ -130,6 +139,9 @@ type Options struct {
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
 	NoModePeriods bool
+	// General integrates on the general path even when the specialised
+	// single-rope path fits the scenario (fast.go; for tests and the bench).
+	General bool
 	// Validated says the caller has validated the scenario and not
 	// changed it since (scenario.Parse and Decode validate): it is not
 	// validated again.
@@ -160,7 +172,7 @@ var Assumptions = []string{
 	"The crane structure is rigid: boom, jib and bridge do not deflect or bounce.",
 	"The drive follows the commanded motion exactly; real drives lag and overshoot.",
 	"The load does not spin. Swing of the load relative to the hook is modelled only when hook block and rigging are entered (two point masses); otherwise hook and load swing as one.",
-	"Wind is a steady horizontal force on the load; gusts are sudden steps; air drag, if set, is quadratic in the load's speed.",
+	"Wind is a steady horizontal force once risen (a gust is a step or a ramp); air drag, if set, acts on the speed relative to the air.",
 	"Swing is computed in full 3D without small-angle approximation; results above 30 deg are outside the range this tool is meant for.",
 }
 
@@ -203,6 +215,14 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		period = 2 * math.Pi / modes(h, mass, su.ropeEnd).Omega[0]
 		staticN = (mass + *h.MassKg) * g
 	}
+	rigid, _ := su.model.(*pendulum.Rigid)
+	var bodyMd []pendulum.RigidMode
+	if rigid != nil {
+		if bodyMd, period, err = bodyModes(rigid, su.ropeEnd); err != nil {
+			return nil, err
+		}
+		staticN = (mass + s.Load.Body.HookMassKg) * g
+	}
 	tEnd := math.Max(su.activityEnd+settle*period, st.DurationS)
 	if tEnd > scenario.MaxRunS {
 		return nil, scenario.Errors{{Field: "settings.duration_s", Message: fmt.Sprintf(
@@ -230,16 +250,20 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	if res.Phases == nil {
 		res.Phases = []Phase{}
 	}
-	sc := newScanner(su.model, su.motionEnd)
-	if opt.MaxSteps > 0 {
-		sc.maxSteps = opt.MaxSteps
+	if s.Load.Hook == nil && s.Load.Body == nil { // one rope and a point load only
+		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
+	if rigid != nil {
+		res.Assumptions = bodyAssumptions()
+		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
+		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
+	}
+	var hist *History
 	if !opt.NoHistory {
-		sc.hist = &res.History
-		sc.sampleDt = tEnd / float64(samples-1)
-		sc.samples = samples
+		hist = &res.History
 	}
-	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
+	sc, general, stats, err := integrate(su, opt, hist, tEnd, relTol, samples)
+	if err != nil {
 		return nil, err
 	}
 	res.PeakSwingDeg = swingRad(sc.ext[qSwing].max) / units.Degree
@@ -262,12 +286,17 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.warn(words.Plain("The load swings over the top of its circle: it whirls round the suspension point and has no swing period."))
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
-	res.Solver = Stats{RelTol: relTol, Steps: sc.solver.Accepted, Rejected: sc.solver.Rejected,
-		Evals: sc.solver.Evals, ConstraintError: sc.constraintErr}
+	if rigid != nil {
+		if err := body(s, rigid, bodyMd, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+			return nil, err
+		}
+		res.Body.History = general.bodyHist
+	}
+	res.Solver = stats
 
 	res.Checks = checks(s, res)
 	res.markWarnings()
@@ -310,6 +339,7 @@ func checks(s *scenario.Scenario, r *Result) []Check {
 		add("peak_swing_deg", "Peak swing", "The largest swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
 		add("peak_excursion_m", "Peak excursion", "The load's largest swing-out", r.PeakExcursionM, l.PeakExcursionM, "m")
 		add("residual_swing_deg", "Residual swing", "The swing left after stopping", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("residual_excursion_m", "Residual excursion", "The swing-out left after stopping", r.ResidualExcursionM, l.ResidualExcursionM, "m")
 		add("tension_factor", "Tension factor", "The rope pull increase (times the load's weight)", r.TensionFactor, l.TensionFactor, "")
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
 			r.warn(words.Say("The wind alone leans the rope {0}, more than the plan's swing limit of {1}: no drive setting can keep the load inside it. Wait for less wind or change the limit.",

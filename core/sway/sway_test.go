@@ -372,17 +372,22 @@ func BenchmarkExamples(b *testing.B) {
 		if !ok {
 			continue
 		}
-		b.Run(name, func(b *testing.B) {
-			var steps int
-			for b.Loop() {
-				r, err := EvaluateWith(s, Options{NoHistory: true})
-				if err != nil {
-					b.Fatal(err)
+		for _, path := range []struct {
+			name    string
+			general bool
+		}{{"", false}, {"/general", true}} {
+			b.Run(name+path.name, func(b *testing.B) {
+				var steps int
+				for b.Loop() {
+					r, err := EvaluateWith(s, Options{NoHistory: true, General: path.general})
+					if err != nil {
+						b.Fatal(err)
+					}
+					steps = r.Solver.Steps
 				}
-				steps = r.Solver.Steps
-			}
-			b.ReportMetric(float64(steps), "steps")
-		})
+				b.ReportMetric(float64(steps), "steps")
+			})
+		}
 	}
 }
 

@@ -61,7 +61,6 @@ rigging_tension_max_n, rigging_tension_min_n; sampled states at a few
 history sample times.
 """
 
-import argparse
 import glob
 import json
 import math
@@ -308,21 +307,8 @@ def cmd_generate(args):
     print("wrote %s (%d scenarios)" % (os.path.relpath(RESULTS, ROOT), len(entries)), file=sys.stderr)
 
 
-def cmd_show(args):
-    for p in args.files:
-        json.dump(solve(DoubleModel(ref.load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
-        print()
-
-
 def main():
-    ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
-    sub = ap.add_subparsers(dest="cmd", required=True)
-    sub.add_parser("generate", help="solve every hook-block scenario and write results_double.json")
-    s = sub.add_parser("show", help="print the reference result of scenario files")
-    s.add_argument("files", nargs="+")
-    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
-    args = ap.parse_args()
-    {"generate": cmd_generate, "show": cmd_show}[args.cmd](args)
+    ref.generate_show_cli(__doc__, "results_double.json", cmd_generate, DoubleModel, solve)
 
 
 if __name__ == "__main__":

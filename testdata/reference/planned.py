@@ -36,7 +36,12 @@ def chosen(p):
     """The recommended option and one other shaped option, or only the first
     when the plan offers no other shaped one."""
     opts = p["options"]
-    rec = opts[p["recommended"]]
+    if p["recommended"] >= 0:
+        rec = opts[p["recommended"]]
+    else:
+        # Nothing recommended (a pendant the crew cannot time well enough):
+        # the crew's own option, else the first.
+        rec = next((o for o in opts if o.get("presses")), opts[0])
     shaped = [o for o in opts if o is not rec and o.get("shaper") and o.get("motion")]
     other = [o for o in shaped if o["drive"] != rec["drive"]] or shaped
     return [("recommended", rec)] + ([("shaped", other[0])] if other else [])

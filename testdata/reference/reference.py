@@ -23,7 +23,9 @@ rtol = atol = 1e-12.
 
 Equations. Let S(t) be the suspension point, L(t) the rope length,
 r = P - S the rope vector, a(t, P, V) = g_vec + F/m the applied
-acceleration (gravity -g_n*z, wind, quadratic drag). The constraint is
+acceleration (gravity -g_n*z, wind rising as a step or a ramp, quadratic
+drag on the load's velocity relative to the air, as core/scenario's Wind
+documents it; see Model.__init__ and Model.applied). The constraint is
 
     c(r, t) = (r.r - L^2) / 2 = 0,
     c'  = r.r' - L L',
@@ -553,33 +555,45 @@ class Model:
             self.motion_end = max(self.motion_end, mv.end())
         self.activity_end = self.motion_end
 
-        # Wind: a horizontal force F toward `toward_deg`, on from start_s,
-        # off after duration_s (0: to the end of the run).
+        # Wind and drag as core/scenario's Wind documents them. The wind
+        # speed's fraction of full s(t) (0 to 1) rises linearly over ramp_s
+        # from start_s and, with duration_s, falls linearly over ramp_s from
+        # start_s + duration_s (steps when ramp_s is 0). The force on the
+        # load at rest is s^2 F_w toward `toward_deg` (F_w = force_n, or
+        # 0.5 rho v^2 A c from speed_m_per_s and shape_factor). With drag
+        # (k = 0.5 rho c_d A) the air moves at w = s V e, V the typed speed
+        # or, for a typed force, sqrt(F_w / k); the drag acts on the load's
+        # velocity relative to the air, less the drag on the load at rest:
+        #     F = s^2 F_w e - k (|v - w| (v - w) + s^2 V^2 e).
         w = sc.get("wind")
-        self.wind = np.zeros(3)
-        self.wind_on, self.wind_off = math.inf, math.inf
         rho = RHO_AIR
+        if w is not None and w.get("air_density_kg_per_m3", 0) > 0:
+            rho = w["air_density_kg_per_m3"]
+        # Quadratic drag factor k (0 without drag).
+        self.drag = 0.5 * rho * load.get("drag_coefficient", 0.0) * load.get("area_m2", 0.0)
+        self.wind_force = 0.0
+        self.e = np.zeros(3)
+        self.air_speed = 0.0
+        self.wind_start = math.inf
+        self.wind_dur = self.wind_ramp = 0.0
         if w is not None:
-            if w.get("air_density_kg_per_m3", 0) > 0:
-                rho = w["air_density_kg_per_m3"]
             if "force_n" in w:
                 f = w["force_n"]
+                self.air_speed = math.sqrt(f / self.drag) if self.drag > 0 else 0.0
             else:
                 f = 0.5 * rho * w["speed_m_per_s"] ** 2 * load.get("area_m2", 0.0) * w["shape_factor"]
+                self.air_speed = w["speed_m_per_s"]
             self.wind_force = f
             th = w.get("toward_deg", 0.0) * DEG
-            self.wind = f * np.array([math.cos(th), math.sin(th), 0.0])
-            self.wind_on = w.get("start_s", 0.0)
-            breaks.append(self.wind_on)
-            self.activity_end = max(self.activity_end, self.wind_on)
-            if w.get("duration_s", 0) > 0:
-                self.wind_off = self.wind_on + w["duration_s"]
-                breaks.append(self.wind_off)
-                self.activity_end = max(self.activity_end, self.wind_off)
-        else:
-            self.wind_force = 0.0
-        # Quadratic drag F = -0.5 rho c A |V| V on the load's ground velocity V.
-        self.drag = 0.5 * rho * load.get("drag_coefficient", 0.0) * load.get("area_m2", 0.0)
+            self.e = np.array([math.cos(th), math.sin(th), 0.0])
+            self.wind_start = w.get("start_s", 0.0)
+            self.wind_dur = w.get("duration_s", 0.0)
+            self.wind_ramp = w.get("ramp_s", 0.0)
+            corners = [self.wind_start, self.wind_start + self.wind_ramp]
+            if self.wind_dur > 0:
+                corners += [self.wind_start + self.wind_dur, self.wind_start + self.wind_dur + self.wind_ramp]
+            breaks += corners
+            self.activity_end = max([self.activity_end] + corners)
 
         self.l_end = self.rope(self.motion_end + 1.0)[0]
         st = sc.get("settings") or {}
@@ -606,13 +620,28 @@ class Model:
         return (np.array([z.real, z.imag, 0.0]), np.array([dz.real, dz.imag, 0.0]),
                 np.array([ddz.real, ddz.imag, 0.0]))
 
+    def strength(self, t):
+        """The wind speed's fraction of full s(t), 0 to 1: a ramp up from
+        start_s and, with duration_s, a ramp down from start_s + duration_s."""
+        def ramp(s):
+            if s < 0:
+                return 0.0
+            if s >= self.wind_ramp:
+                return 1.0
+            return s / self.wind_ramp
+        r = ramp(t - self.wind_start)
+        if self.wind_dur > 0:
+            r -= ramp(t - self.wind_start - self.wind_dur)
+        return r
+
     def applied(self, t, vel):
-        a = np.array([0.0, 0.0, -G_N])
-        if self.wind_on <= t < self.wind_off:
-            a = a + self.wind / self.m
+        """Gravity plus the air's force per kg of load (see __init__)."""
+        s = self.strength(t)
+        f = s * s * self.wind_force * self.e
         if self.drag > 0:
-            a = a - (self.drag / self.m) * np.linalg.norm(vel) * vel
-        return a
+            rel = vel - s * self.air_speed * self.e
+            f = f - self.drag * (np.linalg.norm(rel) * rel + s * s * self.air_speed ** 2 * self.e)
+        return np.array([0.0, 0.0, -G_N]) + f / self.m
 
     def multiplier(self, t, y):
         """mu = T/(m|r|) and the pieces used by rhs and by the outputs."""
@@ -787,9 +816,9 @@ def moves(sc):
     return bool(sc.get("motions") or sc.get("wind") or sc.get("initial"))
 
 
-def scenario_paths():
+def scenario_paths(globs=SCENARIO_GLOBS):
     out = []
-    for g in SCENARIO_GLOBS:
+    for g in globs:
         out += sorted(glob.glob(os.path.join(ROOT, g)))
     return [os.path.relpath(p, ROOT) for p in out]
 
@@ -800,6 +829,8 @@ def cmd_generate(args):
         sc = load(os.path.join(ROOT, rel))
         if "hook" in sc.get("load", {}):
             continue  # hook block and rigging: double.py, results_double.json
+        if "body" in sc.get("load", {}):
+            continue  # a rigid load: rigid.py, results_rigid.json
         if not moves(sc):
             continue  # a planning request without motions: nothing to solve
         t0 = time.perf_counter()
@@ -807,21 +838,46 @@ def cmd_generate(args):
         print("%-52s peak %8.5f deg  residual %8.5f deg  %6.2f s" % (
             rel, res["peak_swing_deg"], res["residual_swing_deg"], time.perf_counter() - t0), file=sys.stderr)
         entries.append({"scenario": rel, "result": res})
+    write_results(RESULTS, "Reference results for swaysheet scenarios, from testdata/reference/reference.py",
+                  "Cartesian load position and velocity; rope tension as a Lagrange multiplier; "
+                  "Baumgarte stabilisation with w = sqrt(g/L)", "golden-section search", entries)
+
+
+def write_results(path, what, formulation, peak_search, entries):
+    """Write a results file: the entries with the formulation, the solver
+    and the library versions that produced them."""
     doc = {
-        "what": "Reference results for swaysheet scenarios, from testdata/reference/reference.py",
-        "formulation": "Cartesian load position and velocity; rope tension as a Lagrange multiplier; "
-                       "Baumgarte stabilisation with w = sqrt(g/L)",
+        "what": what,
+        "formulation": formulation,
         "solver": "scipy.integrate.solve_ivp, method DOP853, rtol %g, atol %g, restarted at every motion "
-                  "breakpoint; peaks located on the dense output by golden-section search" % (RTOL, ATOL),
+                  "breakpoint; peaks located on the dense output by %s" % (RTOL, ATOL, peak_search),
         "scipy": scipy.__version__,
         "numpy": np.__version__,
         "python": platform.python_version(),
         "scenarios": entries,
     }
-    with open(RESULTS, "w") as f:
+    with open(path, "w") as f:
         json.dump(doc, f, indent=1)
         f.write("\n")
-    print("wrote %s (%d scenarios)" % (os.path.relpath(RESULTS, ROOT), len(entries)), file=sys.stderr)
+    print("wrote %s (%d scenarios)" % (os.path.relpath(path, ROOT), len(entries)), file=sys.stderr)
+
+
+def generate_show_cli(doc, results_name, cmd_generate, model_class, solve_fn):
+    """The command line of a reference script for one kind of scenario:
+    `generate` (writes results_name) and `show FILE... [--rtol R]`."""
+    ap = argparse.ArgumentParser(description=doc.split("\n")[0])
+    sub = ap.add_subparsers(dest="cmd", required=True)
+    sub.add_parser("generate", help="solve every scenario it covers and write " + results_name)
+    s = sub.add_parser("show", help="print the reference result of scenario files")
+    s.add_argument("files", nargs="+")
+    s.add_argument("--rtol", type=float, default=RTOL, help="rtol = atol of the solution (default 1e-12)")
+    args = ap.parse_args()
+    if args.cmd == "generate":
+        cmd_generate(args)
+        return
+    for p in args.files:
+        json.dump(solve_fn(model_class(load(p)), rtol=args.rtol, atol=args.rtol), sys.stdout, indent=1)
+        print()
 
 
 def cmd_show(args):

@@ -220,8 +220,9 @@ func TestPlanCall(t *testing.T) {
 	if p.Recommended < 0 || p.Recommended >= len(p.Options) || !p.Options[p.Recommended].Within || p.Reason == "" {
 		t.Fatalf("recommended %d of %d options, reason %q", p.Recommended, len(p.Options), p.Reason)
 	}
-	// The plan simulates the nominal rope and both ends of the range (8.5, 8, 9 m in the file).
-	if n := len(p.Options[0].Verified); n != 3 || p.Options[0].Motion["axis"] != "travel_x" || len(p.Curves.AccelTime.RampS) == 0 {
+	// The plan simulates the nominal rope, both ends of the range (8.5, 8, 9 m in the file)
+	// and two lengths between them.
+	if n := len(p.Options[0].Verified); n != 5 || p.Options[0].Motion["axis"] != "travel_x" || len(p.Curves.AccelTime.RampS) == 0 {
 		t.Errorf("first option: %d verified lengths, motion %v", n, p.Options[0].Motion)
 	}
 	// A bad plan field is named.

@@ -121,7 +121,7 @@ func TestSay(t *testing.T) {
 // are those of the recommended drive setting, over the plan's rope
 // lengths; before it, nothing was simulated.
 func TestFiguresOfThePlannedMove(t *testing.T) {
-	data, err := os.ReadFile("../../testdata/scenarios/plan-gantry-pendant.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}

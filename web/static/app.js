@@ -233,7 +233,7 @@
       numField('load.mass_kg', 'Load mass', { hint: hook ? 'the rigged load, without the hook block' : 'hook block and rigging included' }) +
       numField('load.rope_length_m', 'Rope length', { hint: hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
       numField('load.area_m2', 'Area facing the wind', { optional: true }) +
-      numField('load.drag_coefficient', 'Air drag coefficient', { optional: true }) +
+      numField('load.drag_coefficient', 'Air drag coefficient', { optional: true, hint: 'on the speed relative to the air; usually the shape factor; blank: no damping by the air' }) +
       '<div class="field wide"><label class="check"><input type="checkbox" id="hook-on"' + (hook ? ' checked' : '') + '> Hook block and rigging as a second mass ' +
       '<span class="opt">(heavy hook block, or long slings: two sway modes)</span></label></div>' +
       (hook ? numField('load.hook.mass_kg', 'Hook block mass') +
@@ -269,7 +269,7 @@
       var bySpeed = w.speed_m_per_s !== undefined;
       wb += selectField('wind.mode', 'Wind given as', [['force', 'force on the load'], ['speed', 'wind speed']], bySpeed ? 'speed' : 'force', ' data-windmode="1"');
       if (bySpeed) {
-        wb += numField('wind.speed_m_per_s', 'Wind speed', { dq: 'wind_speed' }) +
+        wb += numField('wind.speed_m_per_s', 'Wind speed', { dq: 'wind_speed', hint: '3-s gust at the load\u2019s height' }) +
           numField('wind.shape_factor', 'Shape factor', { hint: 'about 1.2 to 2 for boxes and plates' }) +
           numField('wind.air_density_kg_per_m3', 'Air density', { optional: true, hint: 'blank: 1.25 kg/m\u00B3' });
       } else {
@@ -277,7 +277,8 @@
       }
       wb += numField('wind.toward_deg', 'Pushes toward', { optional: true, hint: 'degrees from +x toward +y' }) +
         numField('wind.start_s', 'Starts at', { optional: true }) +
-        numField('wind.duration_s', 'Lasts', { optional: true, hint: 'blank: to the end' });
+        numField('wind.duration_s', 'Lasts', { optional: true, hint: 'blank: to the end' }) +
+        numField('wind.ramp_s', 'Rises over', { optional: true, hint: 'blank: a sudden gust' });
     }
     h.push(section('Wind', wb));
     h.push(section('Swing at the start',

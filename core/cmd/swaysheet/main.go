@@ -5,6 +5,7 @@
 //
 //	go run ./core/cmd/swaysheet [-summary] [-no-history] FILE.json ...
 //	go run ./core/cmd/swaysheet -plan [-json] FILE.json ...
+//	go run ./core/cmd/swaysheet -clearance [-json] FILE.json ...
 //	go run ./core/cmd/swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...
 //
 // With -sheet it writes the printable check sheet of each file as
@@ -39,14 +40,18 @@ func run(args []string, stdout, stderr io.Writer) int {
 	summary := fs.Bool("summary", false, "print a short table instead of the result JSON")
 	noHistory := fs.Bool("no-history", false, "leave the time histories out of the result JSON")
 	planning := fs.Bool("plan", false, "plan the scenario's move: print the ranked table of drive settings")
-	planJSON := fs.Bool("json", false, "with -plan: print the plan as JSON instead of the table")
+	planJSON := fs.Bool("json", false, "with -plan or -clearance: print JSON instead of the table")
 	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
 	sheetUnits := fs.String("units", "si", "with -sheet and -summary: the unit system shown, si or us")
 	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
+	clear := fs.Bool("clearance", false, "check the load's likely swept envelope against the obstacles of each file's site block (with -json: the report as JSON)")
+	ropeLength := fs.Bool("ropelength", false, "find the rope length from heights or a timed swing: each argument is a question as JSON text or a .json file")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary [-units si|us]] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
+		fmt.Fprintln(stderr, "       swaysheet -clearance [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
+		fmt.Fprintln(stderr, `       swaysheet -ropelength '{"timed": {"swings": 10, "time_s": 86}}' ...`)
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -65,6 +70,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	if *planning {
 		return runPlans(fs.Args(), *planJSON, stdout, stderr)
+	}
+	if *ropeLength {
+		return runRopeLength(fs.Args(), stdout, stderr)
+	}
+	if *clear {
+		return runClearance(fs.Args(), *planJSON, stdout, stderr)
 	}
 	status := 0
 	for _, name := range fs.Args() {

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 
@@ -10,33 +9,20 @@ import (
 
 // runPlans plans each file and prints the table (or JSON).
 func runPlans(names []string, asJSON bool, stdout, stderr io.Writer) int {
-	status := 0
-	for i, name := range names {
+	return eachFile(names, stderr, func(i int, name string) error {
 		r, err := planFile(name)
 		if err != nil {
-			fmt.Fprintf(stderr, "%s: %v\n", name, err)
-			status = 1
-			continue
+			return err
 		}
 		if asJSON {
-			enc := json.NewEncoder(stdout)
-			enc.SetIndent("", "  ")
-			if err := enc.Encode(r); err != nil {
-				fmt.Fprintf(stderr, "%s: %v\n", name, err)
-				status = 1
-			}
-			continue
+			return writeJSON(stdout, r)
 		}
 		if i > 0 {
 			fmt.Fprintln(stdout)
 		}
 		fmt.Fprintln(stdout, name)
-		if err := plan.WriteTable(stdout, r); err != nil {
-			fmt.Fprintf(stderr, "%s: %v\n", name, err)
-			status = 1
-		}
-	}
-	return status
+		return plan.WriteTable(stdout, r)
+	})
 }
 
 func planFile(name string) (*plan.Result, error) {

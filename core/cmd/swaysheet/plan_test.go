@@ -9,12 +9,13 @@ import (
 
 func TestPlanCommand(t *testing.T) {
 	var out, errb bytes.Buffer
-	code := run([]string{"-plan", "../../../testdata/scenarios/plan-bay-travel.json", "../../../testdata/scenarios/plan-tower-slew.json"}, &out, &errb)
+	code := run([]string{"-plan", "../../../testdata/scenarios/plan-bay-travel.json", "../../../testdata/scenarios/plan-tower-slew.json",
+		"../../../testdata/scenarios/plan-gantry-pendant.json"}, &out, &errb)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
 	}
 	text := out.String()
-	for _, want := range []string{"rank  option", "=>1", "Recommended:", "Caution:", "press to 50 %", "within"} {
+	for _, want := range []string{"rank  option", "=>1", "Recommended:", "Caution:", "Set the drive's ramp time", "press to 67 %", "release to 67 %", "before the stop point", "within"} {
 		if !strings.Contains(text, want) {
 			t.Errorf("table lacks %q", want)
 		}

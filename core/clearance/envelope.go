@@ -1,0 +1,331 @@
+package clearance
+
+import (
+	"errors"
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/mathext"
+)
+
+// Envelope is the area seen from above that the load sweeps in a chosen
+// share of a set of runs, on a grid of square cells.
+//
+// The runs are ranked by how far they stray from the nominal path (the
+// largest distance of any of their points from it); the envelope at level
+// p is the union of the areas swept by the k = ceil(p*N) runs that stray
+// least. In k of the N runs the load stays inside it, by construction.
+// The share of all possible runs that stay inside (its coverage) is itself
+// uncertain with N runs: with the runs drawn independently, the coverage
+// of the k-th smallest of N scores follows a Beta(k, N+1-k) distribution
+// whatever the scores' own distribution (distribution-free tolerance
+// limits; Wilks, "Determination of sample sizes for setting tolerance
+// limits", Ann. Math. Statist. 12, 1941; from memory), which gives
+// Confidence.
+//
+// A cell is marked when any part of it is within the load's radius of a
+// run's path, so the cells drawn cover the swept area (they overstate it
+// by at most one cell's diagonal).
+type Envelope struct {
+	Level   float64 // p
+	Runs    int     // N
+	Inside  int     // k
+	StrayM  float64 // the k-th smallest stray: the envelope's own
+	X0M     float64 // the grid's lower left corner
+	Y0M     float64
+	CellM   float64
+	NX, NY  int
+	Covered []bool // NX*NY cells, row by row from Y0M
+	// Confidence is the probability that the envelope's coverage of all
+	// possible runs is at least Level: 1 - I_p(k, N+1-k).
+	Confidence float64
+}
+
+// PlanPath is one run's path of the load seen from above, with the radius
+// of the load around it.
+type PlanPath struct {
+	Points  []Point2
+	RadiusM float64
+}
+
+// Stray is the largest distance of the path's points from the nominal
+// path, taken as straight between its points.
+func Stray(run, nominal []Point2) float64 { return newNearest(nominal).stray(run) }
+
+// nearest finds the distance from a point to a polyline with a uniform
+// grid of buckets: each segment is listed in the buckets its bounding box
+// meets, and the search widens ring by ring until no unsearched bucket
+// can hold a nearer segment, so the answer is exact.
+type nearest struct {
+	pts       []Point2
+	x0, y0, g float64
+	nx, ny    int
+	bucket    [][]int32
+	single    bool
+}
+
+func newNearest(poly []Point2) *nearest {
+	n := &nearest{pts: poly, single: len(poly) == 1}
+	if n.single {
+		return n
+	}
+	lo, hi := poly[0], poly[0]
+	length := 0.0
+	for i, p := range poly {
+		lo.X, lo.Y, hi.X, hi.Y = min(lo.X, p.X), min(lo.Y, p.Y), max(hi.X, p.X), max(hi.Y, p.Y)
+		if i > 0 {
+			length += math.Hypot(p.X-poly[i-1].X, p.Y-poly[i-1].Y)
+		}
+	}
+	// About four segments' length per bucket, and at most 256 a side.
+	n.g = max(4*length/float64(len(poly)), (hi.X-lo.X)/256, (hi.Y-lo.Y)/256, 1e-3)
+	n.x0, n.y0 = lo.X, lo.Y
+	n.nx = int((hi.X-lo.X)/n.g) + 1
+	n.ny = int((hi.Y-lo.Y)/n.g) + 1
+	n.bucket = make([][]int32, n.nx*n.ny)
+	for i := 0; i+1 < len(poly); i++ {
+		a, b := poly[i], poly[i+1]
+		i0, j0 := n.cell(min(a.X, b.X), min(a.Y, b.Y))
+		i1, j1 := n.cell(max(a.X, b.X), max(a.Y, b.Y))
+		for j := j0; j <= j1; j++ {
+			for k := i0; k <= i1; k++ {
+				n.bucket[j*n.nx+k] = append(n.bucket[j*n.nx+k], int32(i))
+			}
+		}
+	}
+	return n
+}
+
+func (n *nearest) cell(x, y float64) (int, int) {
+	i := min(max(int((x-n.x0)/n.g), 0), n.nx-1)
+	j := min(max(int((y-n.y0)/n.g), 0), n.ny-1)
+	return i, j
+}
+
+// dist2 is the squared distance from p to the polyline.
+func (n *nearest) dist2(p Point2) float64 {
+	if n.single {
+		dx, dy := p.X-n.pts[0].X, p.Y-n.pts[0].Y
+		return dx*dx + dy*dy
+	}
+	ci, cj := n.cell(p.X, p.Y)
+	// Distance from p to the grid's box, for points outside it.
+	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
+	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
+	outside := math.Hypot(ox, oy)
+	best := math.Inf(1)
+	for ring := 0; ; ring++ {
+		// Every bucket not yet searched is at least ring-1 buckets from
+		// p's own along some axis, and no nearer than the grid's box.
+		reach := max(outside, float64(ring-1)*n.g)
+		if ring > 0 && reach > 0 && reach*reach >= best {
+			return best
+		}
+		if ring > n.nx && ring > n.ny {
+			return best
+		}
+		for j := cj - ring; j <= cj+ring; j++ {
+			if j < 0 || j >= n.ny {
+				continue
+			}
+			for i := ci - ring; i <= ci+ring; i++ {
+				if i < 0 || i >= n.nx || (j != cj-ring && j != cj+ring && i != ci-ring && i != ci+ring) {
+					continue
+				}
+				for _, s := range n.bucket[j*n.nx+i] {
+					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best {
+						best = d
+					}
+				}
+			}
+		}
+	}
+}
+
+func (n *nearest) stray(run []Point2) float64 {
+	worst := 0.0
+	for _, p := range run {
+		worst = max(worst, n.dist2(p))
+	}
+	return math.Sqrt(worst)
+}
+
+// NewEnvelope builds the envelope at level (0 < level <= 1) of the runs
+// on cells of cellM (positive). It is an error to give no runs, a run
+// with no points, or a level or cell size out of range.
+func NewEnvelope(runs []PlanPath, nominal []Point2, level, cellM float64) (*Envelope, error) {
+	if len(runs) == 0 || len(nominal) == 0 {
+		return nil, errors.New("clearance: an envelope needs at least one run and the nominal path")
+	}
+	if !(level > 0 && level <= 1) || !(cellM > 0) || !finite(cellM) {
+		return nil, errors.New("clearance: the level must be above 0 and at most 1, the cell size positive")
+	}
+	strays, err := Strays(runs, nominal)
+	if err != nil {
+		return nil, err
+	}
+	return newEnvelope(runs, strays, level, 0, cellM)
+}
+
+// Strays is each run's Stray from the nominal path.
+func Strays(runs []PlanPath, nominal []Point2) ([]float64, error) {
+	if len(nominal) == 0 {
+		return nil, errors.New("clearance: an envelope needs the nominal path")
+	}
+	near := newNearest(nominal)
+	out := make([]float64, len(runs))
+	for i, r := range runs {
+		if len(r.Points) == 0 {
+			return nil, errors.New("clearance: a run has no points")
+		}
+		out[i] = near.stray(r.Points)
+	}
+	return out, nil
+}
+
+// newEnvelope is NewEnvelope with each run's stray given.
+// With conf above zero it holds more runs where needed, the fewest k for
+// which the confidence that its coverage is at least level reaches conf
+// (all N when none does).
+func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) (*Envelope, error) {
+	type scored struct {
+		i     int
+		stray float64
+	}
+	rank := make([]scored, len(runs))
+	for i := range runs {
+		rank[i] = scored{i, strays[i]}
+	}
+	sort.SliceStable(rank, func(a, b int) bool { return rank[a].stray < rank[b].stray })
+	n := len(runs)
+	k := int(math.Ceil(level*float64(n) - 1e-9))
+	if k < 1 {
+		k = 1
+	}
+	for conf > 0 && k < n && CoverageConfidence(k, n, level) < conf {
+		k++
+	}
+	e := &Envelope{Level: level, Runs: n, Inside: k, StrayM: rank[k-1].stray, CellM: cellM}
+	e.Confidence = CoverageConfidence(k, n, level)
+
+	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
+	for _, s := range rank[:k] {
+		r := runs[s.i]
+		for _, p := range r.Points {
+			lo.X, lo.Y = math.Min(lo.X, p.X-r.RadiusM), math.Min(lo.Y, p.Y-r.RadiusM)
+			hi.X, hi.Y = math.Max(hi.X, p.X+r.RadiusM), math.Max(hi.Y, p.Y+r.RadiusM)
+		}
+	}
+	e.X0M, e.Y0M = lo.X-cellM, lo.Y-cellM
+	e.NX = int(math.Ceil((hi.X-lo.X)/cellM)) + 2
+	e.NY = int(math.Ceil((hi.Y-lo.Y)/cellM)) + 2
+	if e.NX*e.NY > maxCells {
+		return nil, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
+	}
+	e.Covered = make([]bool, e.NX*e.NY)
+	for _, s := range rank[:k] {
+		e.sweep(runs[s.i])
+	}
+	return e, nil
+}
+
+const maxCells = 4 << 20
+
+// sweep marks every cell that comes within the radius of the path: the
+// cell's centre within radius plus half the cell's diagonal.
+func (e *Envelope) sweep(r PlanPath) {
+	reach := r.RadiusM + e.CellM*math.Sqrt2/2
+	reach2 := reach * reach
+	mark := func(a, b Point2) {
+		i0 := int(math.Floor((math.Min(a.X, b.X) - reach - e.X0M) / e.CellM))
+		i1 := int(math.Floor((math.Max(a.X, b.X) + reach - e.X0M) / e.CellM))
+		j0 := int(math.Floor((math.Min(a.Y, b.Y) - reach - e.Y0M) / e.CellM))
+		j1 := int(math.Floor((math.Max(a.Y, b.Y) + reach - e.Y0M) / e.CellM))
+		for j := max(j0, 0); j <= min(j1, e.NY-1); j++ {
+			for i := max(i0, 0); i <= min(i1, e.NX-1); i++ {
+				k := j*e.NX + i
+				if e.Covered[k] {
+					continue
+				}
+				c := Point2{e.X0M + (float64(i)+0.5)*e.CellM, e.Y0M + (float64(j)+0.5)*e.CellM}
+				if pointSegmentDist2(c, a, b) <= reach2 {
+					e.Covered[k] = true
+				}
+			}
+		}
+	}
+	if len(r.Points) == 1 {
+		mark(r.Points[0], r.Points[0])
+	}
+	for i := 0; i+1 < len(r.Points); i++ {
+		mark(r.Points[i], r.Points[i+1])
+	}
+}
+
+// AreaM2 is the area of the cells covered.
+func (e *Envelope) AreaM2() float64 {
+	n := 0
+	for _, c := range e.Covered {
+		if c {
+			n++
+		}
+	}
+	return float64(n) * e.CellM * e.CellM
+}
+
+// Contains reports whether the cell holding p is covered.
+func (e *Envelope) Contains(p Point2) bool {
+	i := int(math.Floor((p.X - e.X0M) / e.CellM))
+	j := int(math.Floor((p.Y - e.Y0M) / e.CellM))
+	return i >= 0 && j >= 0 && i < e.NX && j < e.NY && e.Covered[j*e.NX+i]
+}
+
+// Span is a run of covered cells along one row, for drawing: the
+// rectangle from (X0M, Y0M) to (X1M, Y1M).
+type Span struct{ X0M, Y0M, X1M, Y1M float64 }
+
+// Spans lists the covered cells as row runs.
+func (e *Envelope) Spans() []Span {
+	var out []Span
+	for j := 0; j < e.NY; j++ {
+		for i := 0; i < e.NX; {
+			if !e.Covered[j*e.NX+i] {
+				i++
+				continue
+			}
+			start := i
+			for i < e.NX && e.Covered[j*e.NX+i] {
+				i++
+			}
+			y := e.Y0M + float64(j)*e.CellM
+			out = append(out, Span{e.X0M + float64(start)*e.CellM, y, e.X0M + float64(i)*e.CellM, y + e.CellM})
+		}
+	}
+	return out
+}
+
+// CoverageConfidence is the probability that the k-th smallest of n
+// independent scores has a coverage (the probability that one more run
+// scores no more) of at least p: 1 - I_p(k, n+1-k) (see Envelope).
+func CoverageConfidence(k, n int, p float64) float64 {
+	if k < 1 || k > n {
+		return 0
+	}
+	return 1 - mathext.RegIncBeta(float64(k), float64(n+1-k), p)
+}
+
+// ShareLowerBound is the one-sided lower confidence bound, at confidence
+// conf (for example 0.95), on the probability of an outcome seen in m of
+// n independent runs: the Clopper-Pearson bound B^-1(1 - conf; m, n-m+1)
+// (Clopper & Pearson, "The use of confidence or fiducial limits
+// illustrated in the case of the binomial", Biometrika 26, 1934; from
+// memory). Zero when m is zero.
+func ShareLowerBound(m, n int, conf float64) float64 {
+	if m <= 0 || n <= 0 {
+		return 0
+	}
+	if m > n {
+		m = n
+	}
+	return mathext.InvRegIncBeta(float64(m), float64(n-m+1), 1-conf)
+}

@@ -1,0 +1,87 @@
+package clearance
+
+import "math"
+
+// Sample is one moment of a load's path.
+type Sample struct {
+	TimeS float64
+	At    Point3
+}
+
+// Closest is where a path comes closest to an obstacle.
+type Closest struct {
+	// ClearanceM is the smallest signed clearance over the points checked
+	// (negative: the load overlaps the obstacle there).
+	ClearanceM float64
+	TimeS      float64
+	At         Point3
+	// ErrorBoundM bounds what the points checked can miss: along the
+	// straight pieces between the path's samples the smallest clearance
+	// lies between ClearanceM - ErrorBoundM and ClearanceM. The clearance
+	// is a distance less a constant, so it changes by at most the distance
+	// moved: a point of a piece is within half a sub-piece of a point
+	// checked.
+	ErrorBoundM float64
+	// Strikes is true when a straight piece between samples passes through
+	// the obstacle's outline below its top, the load's radius aside (exact
+	// for the piece, so a thin wall between two samples is not missed).
+	Strikes bool
+	// FirstStrikeS is the moment of the first strike: the first point
+	// checked where the load overlaps the obstacle, or, when only a
+	// straight piece's centre line passes through it between points
+	// checked, the start of that piece.
+	FirstStrikeS float64
+}
+
+// AlongPath checks a path, taken as straight between its samples, against
+// the obstacle: the points checked are the samples and points between
+// them at most stepM apart. stepM must be positive (a programmer's error
+// otherwise: it panics).
+func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
+	if !(stepM > 0) {
+		panic("clearance: AlongPath needs a positive step")
+	}
+	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN()}
+	if len(path) == 0 {
+		return c
+	}
+	firstOverlap := math.NaN()
+	offer := func(t float64, q Point3) {
+		v := o.Clearance(q, radiusM)
+		if v < c.ClearanceM {
+			c.ClearanceM, c.TimeS, c.At = v, t, q
+		}
+		if v < 0 && math.IsNaN(firstOverlap) {
+			firstOverlap = t
+		}
+	}
+	offer(path[0].TimeS, path[0].At)
+	for i := 0; i+1 < len(path); i++ {
+		a, b := path[i], path[i+1]
+		dx, dy, dz := b.At.X-a.At.X, b.At.Y-a.At.Y, b.At.Z-a.At.Z
+		length := math.Sqrt(dx*dx + dy*dy + dz*dz)
+		n := int(math.Ceil(length / stepM))
+		if n < 1 {
+			n = 1
+		}
+		for k := 1; k <= n; k++ {
+			f := float64(k) / float64(n)
+			offer(a.TimeS+f*(b.TimeS-a.TimeS), Point3{a.At.X + f*dx, a.At.Y + f*dy, a.At.Z + f*dz})
+		}
+		if half := length / float64(n) / 2; half > c.ErrorBoundM {
+			c.ErrorBoundM = half
+		}
+		if !c.Strikes && o.SegmentStrikes(a.At, b.At) {
+			c.Strikes, c.FirstStrikeS = true, a.TimeS
+		}
+	}
+	if !math.IsNaN(firstOverlap) {
+		// An overlap at a point checked is a strike (the load's radius
+		// reaches the obstacle even where its centre line does not).
+		if !c.Strikes || firstOverlap < c.FirstStrikeS {
+			c.FirstStrikeS = firstOverlap
+		}
+		c.Strikes = true
+	}
+	return c
+}

@@ -1,0 +1,151 @@
+package clearance
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+)
+
+// Site is what stands along the load's path.
+type Site struct {
+	// SuspensionHeightM is the height of the rope's upper point of rotation
+	// (trolley sheave, jib or boom tip) above the floor. It does not
+	// change in a run: hoisting changes the rope, not the crane.
+	SuspensionHeightM float64
+	Obstacles         []Obstacle
+	// MarginM is the clearance the lift plan asks to keep from every
+	// obstacle.
+	MarginM float64
+	// LoadRadiusM is the size of a load given as a point: the load is a
+	// ball of this radius about its centre of mass.
+	LoadRadiusM float64
+}
+
+// Run is one simulated run: the load's centre relative to the suspension
+// point and the suspension point on the ground frame, sampled in time
+// (sway.History's fields).
+type Run struct {
+	TimeS                      []float64
+	RelXM, RelYM, RelZM        []float64
+	SuspensionXM, SuspensionYM []float64
+}
+
+// Path is the load's centre on the ground frame, z up from the floor.
+func (r *Run) Path(suspensionHeightM float64) []Sample {
+	out := make([]Sample, len(r.TimeS))
+	for i, t := range r.TimeS {
+		out[i] = Sample{TimeS: t, At: Point3{
+			r.SuspensionXM[i] + r.RelXM[i],
+			r.SuspensionYM[i] + r.RelYM[i],
+			suspensionHeightM + r.RelZM[i],
+		}}
+	}
+	return out
+}
+
+// ObstacleReport is how a set of runs passes one obstacle.
+type ObstacleReport struct {
+	Name string `json:"name"`
+	Runs int    `json:"runs"`
+	// KeepMargin is how many runs keep at least the margin from it.
+	KeepMargin int `json:"keep_margin"`
+	// ShareKeepMargin is KeepMargin/Runs and ShareKeepMarginLow its
+	// one-sided 95 % lower confidence bound (Clopper-Pearson).
+	ShareKeepMargin    float64 `json:"share_keep_margin"`
+	ShareKeepMarginLow float64 `json:"share_keep_margin_low"`
+	// Strikes is how many runs strike it; FirstStrikeS the earliest moment
+	// of a strike over all runs (zero when none strikes).
+	Strikes      int     `json:"strikes"`
+	FirstStrikeS float64 `json:"first_strike_s"`
+	// ClearanceP5M is the clearance that 95 % of the runs keep (the 5th
+	// percentile of each run's smallest clearance, nearest rank);
+	// SmallestM the smallest over every run, at SmallestAtS and SmallestAt.
+	ClearanceP5M float64 `json:"clearance_p5_m"`
+	SmallestM    float64 `json:"smallest_m"`
+	SmallestAtS  float64 `json:"smallest_at_s"`
+	SmallestAt   Point3  `json:"smallest_at"`
+	// ErrorBoundM bounds what the points checked can miss between samples.
+	ErrorBoundM float64 `json:"error_bound_m"`
+}
+
+// Required is the share of runs that must keep the margin from every
+// obstacle for the lift to clear.
+const Required = 0.95
+
+// Check passes every run by every obstacle. The points checked along each
+// path are at most stepM apart. It is an error to give no runs or a
+// site whose obstacles are not valid (each error names the obstacle).
+func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
+	if len(runs) == 0 {
+		return nil, errors.New("clearance: no runs to check")
+	}
+	for i := range s.Obstacles {
+		if err := s.Obstacles[i].Validate(); err != nil {
+			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
+		}
+	}
+	paths := make([][]Sample, len(runs))
+	for i := range runs {
+		paths[i] = runs[i].Path(s.SuspensionHeightM)
+	}
+	out := make([]ObstacleReport, len(s.Obstacles))
+	for k := range s.Obstacles {
+		o := &s.Obstacles[k]
+		rep := ObstacleReport{Name: o.Name, Runs: len(runs), SmallestM: math.Inf(1)}
+		smallest := make([]float64, len(runs))
+		for i, p := range paths {
+			c := o.AlongPath(p, s.LoadRadiusM, stepM)
+			smallest[i] = c.ClearanceM
+			if c.ClearanceM >= s.MarginM && !c.Strikes {
+				rep.KeepMargin++
+			}
+			if c.Strikes {
+				if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
+					rep.FirstStrikeS = c.FirstStrikeS
+				}
+				rep.Strikes++
+			}
+			if c.ClearanceM < rep.SmallestM {
+				rep.SmallestM, rep.SmallestAtS, rep.SmallestAt = c.ClearanceM, c.TimeS, c.At
+			}
+			rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
+		}
+		sort.Float64s(smallest)
+		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
+		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(runs))
+		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(runs), 0.95)
+		out[k] = rep
+	}
+	return out, nil
+}
+
+// nearestRank is the index of the p-th quantile of n sorted values by the
+// nearest-rank method: ceil(p*n), counted from 1.
+func nearestRank(p float64, n int) int {
+	i := int(math.Ceil(p*float64(n)-1e-9)) - 1
+	return min(max(i, 0), n-1)
+}
+
+// Verdict says in words whether the runs clear every obstacle with the
+// margin in at least Required of the runs, or which do not, how often and
+// from what moment. ok is true when all clear.
+func Verdict(reports []ObstacleReport, marginM float64) (ok bool, words []string) {
+	ok = true
+	for _, r := range reports {
+		if r.ShareKeepMargin >= Required {
+			continue
+		}
+		ok = false
+		w := fmt.Sprintf("%s: the load keeps %.2f m from it in %d of %d runs (%.0f %%; %.0f %% needed)",
+			r.Name, marginM, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
+		if r.Strikes > 0 {
+			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move", r.Strikes, r.FirstStrikeS)
+		}
+		words = append(words, w+".")
+	}
+	if ok {
+		words = append(words, fmt.Sprintf("The load keeps %.2f m from every obstacle in at least %.0f %% of the runs.", marginM, 100*Required))
+	}
+	return ok, words
+}

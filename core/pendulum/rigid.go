@@ -1,0 +1,384 @@
+package pendulum
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/units"
+)
+
+// Rigid is a load that is a rigid body, not a point: a box of given mass
+// and radii of gyration hung in one of three ways.
+//
+//   - Four legs from one hook (Legs has four entries): the legs and the hook
+//     are taken as a rigid frame fixed in the load (four inextensible legs
+//     to one point are statically indeterminate and, all taut, do not move
+//     relative to the load). The hook block, if any, is a point mass at the
+//     hook, part of the same rigid body. The rope of length L(t) runs from
+//     the suspension point S(t) to the hook.
+//   - Two legs from one hook (two entries): the hook block is a point of
+//     its own (mass HookMass > 0) joined to the two attach points by two
+//     distance constraints, so the load can roll about the line through
+//     the attach points; the rope runs from S(t) to the hook.
+//   - Two parallel legs from two top points (Spreader > 0): the top points
+//     are S(t) +/- a*e(t), e the load's heading turned with the crane's
+//     slew (Yaw); each leg (hook rope, or leg from a spreader beam held by
+//     the crane) has length L(t) and holds the load at body points
+//     (+/-a, 0, SpreaderZ). This is the bifilar suspension.
+//
+// Pivot (tests) holds the hook point fixed at S(t) instead of on a rope:
+// a compound pendulum.
+//
+// Formulation (Newton-Euler with constraint multipliers). The rigid body
+// has mass m (with four legs: load plus hook block), centre of mass x,
+// orientation the unit quaternion q (body to ground, body axes: x along
+// the load's length, y its width, z up) and angular velocity w in the
+// ground frame; the body inertia I_b about the centre of mass is a full
+// symmetric matrix (the hook block's share makes it so), in the ground
+// frame I_w = R I_b R^T. With two legs the hook is a point P of mass m_h.
+// The unknown accelerations z = (x”, alpha = w', P”) obey
+//
+//	M z = f + J^T lambda,   J z + kappa = 0
+//
+// with M = diag(m 1, I_w, m_h 1), f = (m g + F, r_F x F - w x I_w w,
+// m_h g) (F the applied force on the load at its centre of mass, r_F its
+// arm from the body's centre of mass), and one row of J per constraint.
+// Every constraint is a distance c = (d.d - l^2)/2 = 0 between two points
+// (d = p_A - p_B), or, for Pivot, the three coordinates of hook point
+// minus S. A body point p = x + r, r = R b, has p” = x” - r x alpha +
+// w x (w x r); so a distance row is d^T(A_A - A_B) in z with the body
+// block (d, r x d), and kappa = d.(a0_A - a0_B) + |d'|^2 - l'^2 - l l”,
+// a0 the acceleration part independent of z. The multipliers solve the
+// Schur system (J M^-1 J^T) lambda = -kappa - J M^-1 f (at most 3 by 3),
+// then z = M^-1 (f + J^T lambda). A distance constraint's tension is
+// T = -lambda*l (positive when the leg or rope pulls).
+//
+// State layout (length RigidLen or RigidHookLen): y[0] = t (carried so
+// that Project knows where the suspension point is), y[1:4] = x,
+// y[4:7] = x', y[7:11] = q (w, x, y, z), y[11:14] = w; with two legs
+// y[14:17] = P, y[17:20] = P'. q' = (0, w) * q / 2.
+//
+// Project puts the state back on the constraints after each step
+// (|q| = 1, then Gauss-Newton on positions and one linear step on
+// velocities, both along the constraint gradients), as the point model
+// does for |n| = 1.
+//
+// Leg tensions: with two legs and with parallel legs they are the
+// multipliers. With four legs the force the legs carry, Fs (hook block's
+// Newton law: Fs = m_h (a_H - g) - rope pull on the hook), is shared by a
+// stiffness model: each leg a linear spring of stiffness proportional to
+// 1/length (same rope or chain, same EA), the hook displaced by delta
+// relative to the load: K = sum k_i e_i e_i^T, T_i = k_i e_i.(K^-1 Fs),
+// e_i the unit vector hook to attach point. Hanging still and symmetric,
+// each of four legs at angle beta from the vertical carries
+// m g / (4 cos beta).
+type Rigid struct {
+	Mass     float64 // load, kg
+	Gyration r3.Vec  // radii of gyration of the load about its length, width and height axes through its centre of mass, m
+	HookMass float64 // hook block at the hook, kg
+	Legs     []Leg   // two or four legs meeting at the hook
+	// Spreader is half the spacing a of two parallel legs, m; > 0 selects
+	// that suspension. SpreaderZ is the height of their attach points
+	// above the load's centre of mass.
+	Spreader, SpreaderZ float64
+	Pivot               bool    // the hook held at the suspension point (tests)
+	Size                r3.Vec  // the box's length, width and height, m (its corners)
+	Heading             float64 // the load's length axis at rest, rad from +x toward +y
+	Gravity             float64 // m/s^2; zero means standard gravity
+
+	Suspension func(t float64) Kinematics
+	Rope       func(t float64) (l, dl, ddl float64)
+	// Force on the load at its centre of mass (wind, drag), N; nil is none.
+	Force func(t float64, pos, vel r3.Vec) r3.Vec
+	// Yaw is the crane's slew since the start (turns the spreader's top
+	// points); nil is none.
+	Yaw func(t float64) (psi, dpsi, ddpsi float64)
+
+	geo *rigidGeometry // set by Prepare
+	bp  BodyPoint      // scratch for Eval
+}
+
+// Leg is one sling leg: where it attaches on the load (from the load's
+// centre of mass, in the load's axes), and its length to the hook.
+type Leg struct {
+	Attach r3.Vec
+	Length float64
+}
+
+// State lengths of Rigid: without and with the hook as a point of its own.
+const (
+	RigidLen     = 14
+	RigidHookLen = 20
+)
+
+// BodyPoint is what a Rigid adds to a Point.
+type BodyPoint struct {
+	R       m3         // body to ground rotation
+	Omega   r3.Vec     // angular velocity, ground frame, rad/s
+	Legs    [4]float64 // leg tensions (parallel legs: each leg), N
+	NLegs   int
+	Corners [8]r3.Vec // the box's corners, ground frame, m
+	// TiltRad is the angle of the load's height axis from the vertical;
+	// TwistRad its turn about the vertical from its heading at rest,
+	// turned with the slew.
+	TiltRad, TwistRad float64
+	// CornerSwing2 is the square of the largest horizontal distance of a
+	// corner from where it hangs still under the suspension point (with a
+	// spreader, turned with the slew), m^2.
+	CornerSwing2 float64
+}
+
+func (r *Rigid) g() float64 {
+	if r.Gravity == 0 {
+		return units.StandardGravity
+	}
+	return r.Gravity
+}
+
+// Len implements System.
+func (r *Rigid) Len() int {
+	if r.geo.hookPoint {
+		return RigidHookLen
+	}
+	return RigidLen
+}
+
+// point kinds of a constraint end.
+const (
+	onBody = iota // body point b (body frame, from the body's centre of mass)
+	onHook        // the hook block as a point of its own
+	onTop         // suspension point plus the top offset of parallel leg `leg`
+)
+
+type end struct {
+	kind int
+	b    r3.Vec // onBody: body frame; onTop: sign of the offset in X
+}
+
+// constraint is one distance (or, pivot, one coordinate) constraint.
+type constraint struct {
+	a, b  end
+	rope  bool    // length L(t); else fixed length
+	l     float64 // fixed length
+	coord int     // pivot: -1 for distance, else the coordinate 0..2
+}
+
+// kin is the state of a point: position, velocity, the acceleration part
+// that does not depend on z, and its body arm (zero for other kinds).
+type kin struct {
+	p, v, a0, arm r3.Vec
+	kind          int
+}
+
+// frame is one evaluation's shared quantities.
+type frame struct {
+	t           float64
+	x, v, w     r3.Vec
+	R           m3
+	P, Pv       r3.Vec
+	s           Kinematics
+	l, dl, ddl  float64
+	top         [2]r3.Vec // offsets of the parallel legs' top points: position, velocity, acceleration
+	topV, topA  [2]r3.Vec
+	psi         float64
+	hookPresent bool
+}
+
+func (r *Rigid) frameOf(t float64, y []float64) frame {
+	f := frame{t: t}
+	f.x = vec(y[1:])
+	f.v = vec(y[4:])
+	f.R = rotOf(y[7:11])
+	f.w = vec(y[11:])
+	if r.geo.hookPoint {
+		f.P, f.Pv, f.hookPresent = vec(y[14:]), vec(y[17:]), true
+	}
+	f.s = r.Suspension(t)
+	if r.Rope != nil {
+		f.l, f.dl, f.ddl = r.Rope(t)
+	}
+	if r.Spreader > 0 {
+		var dpsi, ddpsi float64
+		if r.Yaw != nil {
+			f.psi, dpsi, ddpsi = r.Yaw(t)
+		}
+		h := r.Heading + f.psi
+		c, s := math.Cos(h), math.Sin(h)
+		a := r.Spreader
+		e := r3.Vec{X: c, Y: s}
+		et := r3.Vec{X: -s, Y: c}
+		for i, sg := range [2]float64{1, -1} {
+			f.top[i] = r3.Scale(sg*a, e)
+			f.topV[i] = r3.Scale(sg*a*dpsi, et)
+			f.topA[i] = r3.Add(r3.Scale(sg*a*ddpsi, et), r3.Scale(-sg*a*dpsi*dpsi, e))
+		}
+	}
+	return f
+}
+
+// kinOf is the state of a constraint end.
+func (r *Rigid) kinOf(f *frame, e end, leg int) kin {
+	switch e.kind {
+	case onBody:
+		arm := f.R.mul(e.b)
+		wr := r3.Cross(f.w, arm)
+		return kin{p: r3.Add(f.x, arm), v: r3.Add(f.v, wr), a0: r3.Cross(f.w, wr), arm: arm, kind: onBody}
+	case onHook:
+		return kin{p: f.P, v: f.Pv, kind: onHook}
+	}
+	k := kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
+	if r.Spreader > 0 {
+		k.p = r3.Add(k.p, f.top[leg])
+		k.v = r3.Add(k.v, f.topV[leg])
+		k.a0 = r3.Add(k.a0, f.topA[leg])
+	}
+	return k
+}
+
+// row is one constraint's gradient in (x, rotation, P) and, for the
+// acceleration equation, its bias kappa; phi and dphi are its value and
+// rate.
+type row struct {
+	j                [9]float64
+	kappa, phi, dphi float64
+	scale            float64 // length for relative errors
+}
+
+// addPart adds s*dir^T A(k) to the row, A the map from z to k's
+// acceleration.
+func addPart(j *[9]float64, k kin, dir r3.Vec, s float64) {
+	switch k.kind {
+	case onBody:
+		c := r3.Cross(k.arm, dir)
+		j[0] += s * dir.X
+		j[1] += s * dir.Y
+		j[2] += s * dir.Z
+		j[3] += s * c.X
+		j[4] += s * c.Y
+		j[5] += s * c.Z
+	case onHook:
+		j[6] += s * dir.X
+		j[7] += s * dir.Y
+		j[8] += s * dir.Z
+	}
+}
+
+// rows evaluates every constraint at f.
+func (r *Rigid) rows(f *frame, out []row) []row {
+	out = out[:0]
+	for i, c := range r.geo.cons {
+		ka, kb := r.kinOf(f, c.a, i), r.kinOf(f, c.b, i)
+		var rw row
+		d := r3.Sub(ka.p, kb.p)
+		dd := r3.Sub(ka.v, kb.v)
+		da := r3.Sub(ka.a0, kb.a0)
+		if c.coord >= 0 {
+			e := unit(c.coord)
+			addPart(&rw.j, ka, e, 1)
+			addPart(&rw.j, kb, e, -1)
+			rw.kappa = r3.Dot(e, da)
+			rw.phi, rw.dphi, rw.scale = r3.Dot(e, d), r3.Dot(e, dd), 1
+			out = append(out, rw)
+			continue
+		}
+		l, dl, ddl := c.l, 0.0, 0.0
+		if c.rope {
+			l, dl, ddl = f.l, f.dl, f.ddl
+		}
+		addPart(&rw.j, ka, d, 1)
+		addPart(&rw.j, kb, d, -1)
+		rw.kappa = r3.Dot(d, da) + r3.Dot(dd, dd) - dl*dl - l*ddl
+		rw.phi = 0.5 * (r3.Dot(d, d) - l*l)
+		rw.dphi = r3.Dot(d, dd) - l*dl
+		rw.scale = l * l
+		out = append(out, rw)
+	}
+	return out
+}
+
+func unit(i int) r3.Vec {
+	switch i {
+	case 0:
+		return r3.Vec{X: 1}
+	case 1:
+		return r3.Vec{Y: 1}
+	}
+	return r3.Vec{Z: 1}
+}
+
+// accel solves for z = (x”, alpha, P”) and the multipliers at f.
+func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
+	geo := r.geo
+	var buf [3]row
+	rws := r.rows(f, buf[:0])
+	g := r3.Vec{Z: -r.g()}
+	iw := f.R.mul3(geo.ib).mul3(f.R.transpose())
+	iwInv := f.R.mul3(geo.ibInv).mul3(f.R.transpose())
+	// Applied generalized force.
+	fx := r3.Scale(geo.m, g)
+	tq := r3.Scale(-1, r3.Cross(f.w, iw.mul(f.w)))
+	if r.Force != nil {
+		armL := f.R.mul(geo.loadC)
+		pos := r3.Add(f.x, armL)
+		vel := r3.Add(f.v, r3.Cross(f.w, armL))
+		fl := r.Force(f.t, pos, vel)
+		fx = r3.Add(fx, fl)
+		tq = r3.Add(tq, r3.Cross(armL, fl))
+	}
+	fp := r3.Scale(geo.mh, g)
+	// M^-1 applied to a generalized vector.
+	minv := func(v [9]float64) (o [9]float64) {
+		a := r3.Scale(1/geo.m, r3.Vec{X: v[0], Y: v[1], Z: v[2]})
+		b := iwInv.mul(r3.Vec{X: v[3], Y: v[4], Z: v[5]})
+		o[0], o[1], o[2], o[3], o[4], o[5] = a.X, a.Y, a.Z, b.X, b.Y, b.Z
+		if geo.mh > 0 {
+			o[6], o[7], o[8] = v[6]/geo.mh, v[7]/geo.mh, v[8]/geo.mh
+		}
+		return o
+	}
+	fg := [9]float64{fx.X, fx.Y, fx.Z, tq.X, tq.Y, tq.Z, fp.X, fp.Y, fp.Z}
+	mf := minv(fg)
+	n := len(rws)
+	var a [3][3]float64
+	var b [3]float64
+	var mj [3][9]float64
+	for i := range n {
+		mj[i] = minv(rws[i].j)
+	}
+	for i := range n {
+		for k := range n {
+			a[i][k] = dot9(rws[i].j, mj[k])
+		}
+		b[i] = -rws[i].kappa - dot9(rws[i].j, mf)
+	}
+	lam = solve3(a, b, n)
+	z = mf
+	for i := range n {
+		for k := range 9 {
+			z[k] += lam[i] * mj[i][k]
+		}
+	}
+	return z, lam
+}
+
+// Func implements System.
+func (r *Rigid) Func(t float64, y, dy []float64) {
+	f := r.frameOf(t, y)
+	z, _ := r.accel(&f)
+	dy[0] = 1
+	copy(dy[1:4], y[4:7])
+	dy[4], dy[5], dy[6] = z[0], z[1], z[2]
+	// q' = (0, w) * q / 2
+	qw, qx, qy, qz := y[7], y[8], y[9], y[10]
+	w := f.w
+	dy[7] = 0.5 * (-w.X*qx - w.Y*qy - w.Z*qz)
+	dy[8] = 0.5 * (w.X*qw + w.Y*qz - w.Z*qy)
+	dy[9] = 0.5 * (w.Y*qw + w.Z*qx - w.X*qz)
+	dy[10] = 0.5 * (w.Z*qw + w.X*qy - w.Y*qx)
+	dy[11], dy[12], dy[13] = z[3], z[4], z[5]
+	if r.geo.hookPoint {
+		copy(dy[14:17], y[17:20])
+		dy[17], dy[18], dy[19] = z[6], z[7], z[8]
+	}
+}

@@ -1,0 +1,146 @@
+package pendulum
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// Small dense algebra for the rigid load: 3 by 3 matrices, unit
+// quaternions, and the at most 3 by 3 linear systems of its multipliers.
+
+// m3 is a 3 by 3 matrix, rows first.
+type m3 [3][3]float64
+
+func (a m3) mul(v r3.Vec) r3.Vec {
+	return r3.Vec{
+		X: a[0][0]*v.X + a[0][1]*v.Y + a[0][2]*v.Z,
+		Y: a[1][0]*v.X + a[1][1]*v.Y + a[1][2]*v.Z,
+		Z: a[2][0]*v.X + a[2][1]*v.Y + a[2][2]*v.Z,
+	}
+}
+
+func (a m3) mul3(b m3) (c m3) {
+	for i := range 3 {
+		for j := range 3 {
+			c[i][j] = a[i][0]*b[0][j] + a[i][1]*b[1][j] + a[i][2]*b[2][j]
+		}
+	}
+	return c
+}
+
+func (a m3) transpose() (t m3) {
+	for i := range 3 {
+		for j := range 3 {
+			t[i][j] = a[j][i]
+		}
+	}
+	return t
+}
+
+func (a m3) inverse() (m3, bool) {
+	c0 := r3.Cross(r3.Vec{X: a[0][1], Y: a[1][1], Z: a[2][1]}, r3.Vec{X: a[0][2], Y: a[1][2], Z: a[2][2]})
+	c1 := r3.Cross(r3.Vec{X: a[0][2], Y: a[1][2], Z: a[2][2]}, r3.Vec{X: a[0][0], Y: a[1][0], Z: a[2][0]})
+	c2 := r3.Cross(r3.Vec{X: a[0][0], Y: a[1][0], Z: a[2][0]}, r3.Vec{X: a[0][1], Y: a[1][1], Z: a[2][1]})
+	det := a[0][0]*c0.X + a[1][0]*c0.Y + a[2][0]*c0.Z
+	if det == 0 || math.IsNaN(det) {
+		return m3{}, false
+	}
+	return m3{
+		{c0.X / det, c0.Y / det, c0.Z / det},
+		{c1.X / det, c1.Y / det, c1.Z / det},
+		{c2.X / det, c2.Y / det, c2.Z / det},
+	}, true
+}
+
+// Col is column j of the rotation: the ground-frame direction of body axis j.
+func (a m3) Col(j int) r3.Vec { return r3.Vec{X: a[0][j], Y: a[1][j], Z: a[2][j]} }
+
+// rotOf is the rotation matrix of the quaternion q = (w, x, y, z),
+// normalised first.
+func rotOf(q []float64) m3 {
+	w, x, y, z := q[0], q[1], q[2], q[3]
+	n := 1 / math.Sqrt(w*w+x*x+y*y+z*z)
+	w, x, y, z = w*n, x*n, y*n, z*n
+	return m3{
+		{1 - 2*(y*y+z*z), 2 * (x*y - w*z), 2 * (x*z + w*y)},
+		{2 * (x*y + w*z), 1 - 2*(x*x+z*z), 2 * (y*z - w*x)},
+		{2 * (x*z - w*y), 2 * (y*z + w*x), 1 - 2*(x*x+y*y)},
+	}
+}
+
+// quat is a unit quaternion (w, x, y, z).
+type quat [4]float64
+
+// quatAxis is the rotation by angle about the unit vector axis.
+func quatAxis(axis r3.Vec, angle float64) quat {
+	s := math.Sin(angle / 2)
+	return quat{math.Cos(angle / 2), s * axis.X, s * axis.Y, s * axis.Z}
+}
+
+// mulq is the product a*b (b first, then a).
+func mulq(a, b quat) quat {
+	return quat{
+		a[0]*b[0] - a[1]*b[1] - a[2]*b[2] - a[3]*b[3],
+		a[0]*b[1] + a[1]*b[0] + a[2]*b[3] - a[3]*b[2],
+		a[0]*b[2] - a[1]*b[3] + a[2]*b[0] + a[3]*b[1],
+		a[0]*b[3] + a[1]*b[2] - a[2]*b[1] + a[3]*b[0],
+	}
+}
+
+// rotateTo is the smallest rotation taking unit vector a to unit vector b.
+func rotateTo(a, b r3.Vec) quat {
+	ax := r3.Cross(a, b)
+	s := r3.Norm(ax)
+	c := r3.Dot(a, b)
+	if s < 1e-15 {
+		if c > 0 {
+			return quat{1, 0, 0, 0}
+		}
+		// Opposite: half a turn about any axis normal to a.
+		n := r3.Cross(a, r3.Vec{X: 1})
+		if r3.Norm(n) < 1e-6 {
+			n = r3.Cross(a, r3.Vec{Y: 1})
+		}
+		return quatAxis(r3.Unit(n), math.Pi)
+	}
+	return quatAxis(r3.Scale(1/s, ax), math.Atan2(s, c))
+}
+
+func dot9(a, b [9]float64) float64 {
+	s := 0.0
+	for i := range 9 {
+		s += a[i] * b[i]
+	}
+	return s
+}
+
+// solve3 solves the leading n by n block of a x = b by Gaussian
+// elimination with partial pivoting (n <= 3).
+func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
+	for c := range n {
+		p := c
+		for i := c + 1; i < n; i++ {
+			if math.Abs(a[i][c]) > math.Abs(a[p][c]) {
+				p = i
+			}
+		}
+		a[c], a[p] = a[p], a[c]
+		b[c], b[p] = b[p], b[c]
+		for i := c + 1; i < n; i++ {
+			m := a[i][c] / a[c][c]
+			for k := c; k < n; k++ {
+				a[i][k] -= m * a[c][k]
+			}
+			b[i] -= m * b[c]
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		s := b[i]
+		for k := i + 1; k < n; k++ {
+			s -= a[i][k] * x[k]
+		}
+		x[i] = s / a[i][i]
+	}
+	return x
+}

@@ -1,0 +1,184 @@
+package pendulum
+
+import (
+	"errors"
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// RigidMode is one small-oscillation mode of a Rigid hanging from a fixed
+// suspension point.
+type RigidMode struct {
+	// PeriodS is the period, s; zero for a mode without restoring force
+	// (Free: the twist of a load on one hook).
+	PeriodS float64
+	Free    bool
+	// Kind names what moves most, by kinetic energy share: "swing along"
+	// or "swing across" (the load's centre of mass moving along or across
+	// its length), "pitch" (turning about its width axis), "roll" (about
+	// its length axis), "twist" (about the vertical), "hook" (the hook
+	// block between two legs, moving most by its own kinetic energy).
+	Kind string
+	// Shape is the mode in the tangent space of the constraints: the
+	// body's displacement, its small rotation (ground frame) and, with two
+	// legs, the hook's displacement (9 numbers).
+	Shape [9]float64
+}
+
+// freeOmega2 is the largest omega^2, 1/s^2, taken as no restoring force
+// (a period above about 20000 s).
+const freeOmega2 = 1e-7
+
+// Modes returns the small-oscillation modes about hanging still at rope
+// length l, slowest first, free modes last. It linearises the equations
+// numerically: N is an orthonormal basis of the null space of the
+// constraint gradient G (the displacements the rope and legs allow, from
+// gonum's SVD); the accelerations z(eta) for a displacement N eta from
+// rest, by fourth-order central differences (step about 1e-3; the constraint
+// violation, even in eta, cancels), lie in the same space to first order, so
+// eta” = N^T dz/deta eta = -K eta and omega^2 are the eigenvalues of K
+// (gonum's Eigen). Velocity terms are of second order at rest.
+func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
+	c := r.Fixed(l)
+	y0 := c.Rest(0)
+	nd := 6
+	if c.geo.hookPoint {
+		nd = 9
+	}
+	f0 := c.frameOf(0, y0)
+	rws := c.rows(&f0, nil)
+	g := mat.NewDense(max(len(rws), 1), nd, nil)
+	for i, rw := range rws {
+		for k := range nd {
+			g.Set(i, k, rw.j[k])
+		}
+	}
+	var svd mat.SVD
+	if !svd.Factorize(g, mat.SVDFull) {
+		return nil, errors.New("pendulum: SVD of the constraint gradient failed")
+	}
+	sv := svd.Values(nil)
+	rank := 0
+	for _, s := range sv {
+		if s > 1e-10*sv[0] {
+			rank++
+		}
+	}
+	if len(rws) == 0 {
+		rank = 0
+	}
+	var v mat.Dense
+	svd.VTo(&v)
+	k := nd - rank
+	nb := mat.DenseCopyOf(v.Slice(0, nd, rank, nd))
+	// Fourth-order central differences, f'(0) = (f(-2h) - 8 f(-h) + 8 f(h)
+	// - f(2h)) / (12 h): truncation about h^4, rounding about 1e-16/h. The
+	// step is 1e-3 (m and rad) times the smallest radius of gyration in m
+	// when that is below 1 m: a small load's fast turning modes vary on
+	// that scale.
+	h := 1e-3 * math.Min(1, math.Min(c.Gyration.X, math.Min(c.Gyration.Y, c.Gyration.Z)))
+	dz := mat.NewDense(nd, k, nil)
+	for j := range k {
+		var zs [4][9]float64
+		for n, step := range [4]float64{-2 * h, -h, h, 2 * h} {
+			var d [9]float64
+			for i := range nd {
+				d[i] = step * nb.At(i, j)
+			}
+			y := append([]float64(nil), y0...)
+			c.displace(y, d)
+			f := c.frameOf(0, y)
+			zs[n], _ = c.accel(&f)
+		}
+		for i := range nd {
+			dz.Set(i, j, (zs[0][i]-8*zs[1][i]+8*zs[2][i]-zs[3][i])/(12*h))
+		}
+	}
+	var kr mat.Dense
+	kr.Mul(nb.T(), dz)
+	kr.Scale(-1, &kr)
+	var eig mat.Eigen
+	if !eig.Factorize(&kr, mat.EigenRight) {
+		return nil, errors.New("pendulum: eigenvalues of the linearised model failed")
+	}
+	vals := eig.Values(nil)
+	var vecs mat.CDense
+	eig.VectorsTo(&vecs)
+	out := make([]RigidMode, k)
+	for j := range k {
+		w2 := real(vals[j])
+		md := &out[j]
+		if w2 < freeOmega2 {
+			md.Free = true
+		} else {
+			md.PeriodS = 2 * math.Pi / math.Sqrt(w2)
+		}
+		for i := range nd {
+			s := 0.0
+			for q := range k {
+				s += nb.At(i, q) * real(vecs.At(q, j))
+			}
+			md.Shape[i] = s
+		}
+		md.Kind = c.kindOf(md.Shape)
+	}
+	sort.SliceStable(out, func(a, b int) bool {
+		if out[a].Free != out[b].Free {
+			return !out[a].Free
+		}
+		return out[a].PeriodS > out[b].PeriodS
+	})
+	return out, nil
+}
+
+// kindOf names a mode shape by its largest kinetic energy share.
+func (r *Rigid) kindOf(s [9]float64) string {
+	geo := r.geo
+	R := rotOf(geo.rest[:])
+	dx := r3.Vec{X: s[0], Y: s[1], Z: s[2]}
+	th := R.transpose().mul(r3.Vec{X: s[3], Y: s[4], Z: s[5]})
+	ex := R.Col(0)
+	along := r3.Dot(dx, r3.Unit(r3.Vec{X: ex.X, Y: ex.Y}))
+	across := math.Sqrt(math.Max(0, dx.X*dx.X+dx.Y*dx.Y-along*along))
+	names := []string{"swing along", "swing across", "roll", "pitch", "twist", "hook"}
+	e := []float64{geo.m * along * along, geo.m * across * across,
+		geo.ib[0][0] * th.X * th.X, geo.ib[1][1] * th.Y * th.Y, geo.ib[2][2] * th.Z * th.Z, 0}
+	if geo.hookPoint {
+		e[5] = geo.mh * (s[6]*s[6] + s[7]*s[7] + s[8]*s[8])
+	}
+	best := 0
+	for i := range e {
+		if e[i] > e[best] {
+			best = i
+		}
+	}
+	return names[best]
+}
+
+// Fixed is a copy of r under a still suspension point at the origin on a
+// rope (or parallel legs) of constant length l, without applied force.
+func (r *Rigid) Fixed(l float64) *Rigid {
+	c := *r
+	c.Suspension = func(float64) Kinematics { return Kinematics{} }
+	c.Rope = func(float64) (float64, float64, float64) { return l, 0, 0 }
+	c.Force, c.Yaw = nil, nil
+	return &c
+}
+
+// Displace moves state y along a mode shape, scaled so that its largest
+// component is amp (m or rad), and puts it back on the constraints.
+func (r *Rigid) Displace(y []float64, shape [9]float64, amp float64) {
+	big := 0.0
+	for _, v := range shape {
+		big = math.Max(big, math.Abs(v))
+	}
+	var d [9]float64
+	for i, v := range shape {
+		d[i] = amp * v / big
+	}
+	r.displace(y, d)
+	r.Project(y)
+}

@@ -1,0 +1,255 @@
+package pendulum
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// Project implements System: |q| = 1, then positions and velocities back
+// onto the constraints along their gradients (Gauss-Newton, unweighted:
+// it removes drift at the integrator's error level). It returns the
+// largest relative length error it removed.
+func (r *Rigid) Project(y []float64) float64 {
+	n := math.Sqrt(y[7]*y[7] + y[8]*y[8] + y[9]*y[9] + y[10]*y[10])
+	for i := 7; i < 11; i++ {
+		y[i] /= n
+	}
+	worst := 0.0
+	var buf [3]row
+	for it := range 3 {
+		f := r.frameOf(y[0], y)
+		rws := r.rows(&f, buf[:0])
+		big := 0.0
+		for _, rw := range rws {
+			big = math.Max(big, math.Abs(rw.phi)/rw.scale)
+		}
+		if it == 0 {
+			worst = big
+		}
+		if big < 1e-15 {
+			break
+		}
+		d := r.correction(rws, func(rw row) float64 { return rw.phi })
+		r.displace(y, d)
+		if big < 1e-8 {
+			break // one Newton step from there leaves rounding
+		}
+	}
+	f := r.frameOf(y[0], y)
+	rws := r.rows(&f, buf[:0])
+	d := r.correction(rws, func(rw row) float64 { return rw.dphi })
+	for i := range 3 {
+		y[4+i] += d[i]
+		y[11+i] += d[3+i]
+		if r.geo.hookPoint {
+			y[17+i] += d[6+i]
+		}
+	}
+	return worst
+}
+
+// correction is -G^T (G G^T)^-1 v, v the value of each row.
+func (r *Rigid) correction(rws []row, v func(row) float64) (d [9]float64) {
+	n := len(rws)
+	var a [3][3]float64
+	var b [3]float64
+	for i := range n {
+		for k := range n {
+			a[i][k] = dot9(rws[i].j, rws[k].j)
+		}
+		b[i] = -v(rws[i])
+	}
+	lam := solve3(a, b, n)
+	for i := range n {
+		for k := range 9 {
+			d[k] += lam[i] * rws[i].j[k]
+		}
+	}
+	return d
+}
+
+// displace moves the body by d = (dx, dtheta, dP): x += dx, q turned by
+// the small rotation dtheta (ground frame), P += dP.
+func (r *Rigid) displace(y []float64, d [9]float64) {
+	for i := range 3 {
+		y[1+i] += d[i]
+		if r.geo.hookPoint {
+			y[14+i] += d[6+i]
+		}
+	}
+	th := r3.Vec{X: d[3], Y: d[4], Z: d[5]}
+	if a := r3.Norm(th); a > 0 {
+		q := mulq(quatAxis(r3.Scale(1/a, th), a), quat{y[7], y[8], y[9], y[10]})
+		copy(y[7:11], q[:])
+	}
+}
+
+// Eval implements System. Dir is the rope's direction (with parallel legs,
+// the mean of the two), LoadPos the load's centre of mass, Tension the
+// rope's (parallel legs: both legs together), HookPos the hook,
+// RiggingDir hook to load, RiggingTension the pull of the sling set;
+// Body the rest.
+func (r *Rigid) Eval(t float64, y []float64, p *Point) {
+	geo := r.geo
+	fr := r.frameOf(t, y)
+	f := &fr
+	z, lam := r.accel(f)
+	bp := &r.bp
+	*bp = BodyPoint{R: f.R, Omega: f.w}
+	armL := f.R.mul(geo.loadC)
+	load := r3.Add(f.x, armL)
+	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
+	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
+	var hook, hookV, pull r3.Vec
+	switch {
+	case r.Spreader > 0:
+		bp.NLegs = 2
+		var dir, rate r3.Vec
+		for i := range 2 {
+			bp.Legs[i] = -lam[i] * f.l
+			p.Tension += bp.Legs[i]
+			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
+			top := r.kinOf(f, end{kind: onTop}, i)
+			dir = r3.Add(dir, r3.Sub(a.p, top.p))
+			rate = r3.Add(rate, r3.Sub(a.v, top.v))
+		}
+		n := r3.Norm(dir)
+		p.Dir = r3.Scale(1/n, dir)
+		p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
+		hook, hookV = f.s.Pos, f.s.Vel
+	case geo.hookPoint:
+		hook, hookV = f.P, f.Pv
+		p.Tension = -lam[0] * f.l
+		bp.NLegs = 2
+		for i := range 2 {
+			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
+			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
+			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
+		}
+	default:
+		k := r.kinOf(f, end{kind: onBody, b: geo.hook}, 0)
+		hook, hookV = k.p, k.v
+		var rope r3.Vec // the rope's (or pivot's) pull on the hook
+		if r.Pivot {
+			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
+			p.Tension = r3.Norm(rope)
+		} else {
+			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
+			p.Tension = -lam[0] * f.l
+		}
+		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
+		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
+		pb := f.R.transpose().mul(pull)
+		bp.NLegs = 4
+		for i := range 4 {
+			bp.Legs[i] = r3.Dot(geo.share[i], pb)
+		}
+		pull = r3.Scale(-1, pull)
+	}
+	if r.Spreader == 0 {
+		d := r3.Sub(hook, f.s.Pos)
+		if r.Pivot {
+			d = r3.Sub(load, f.s.Pos)
+		}
+		n := r3.Norm(d)
+		p.Dir = r3.Scale(1/n, d)
+		rel := r3.Sub(hookV, f.s.Vel)
+		p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
+		p.RiggingTension = r3.Norm(pull)
+	}
+	p.HookPos = hook
+	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
+	for i := range 8 {
+		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))
+		rc := geo.restCorner[i]
+		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
+		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
+		bp.CornerSwing2 = math.Max(bp.CornerSwing2, dx*dx+dy*dy)
+	}
+	ez := f.R.Col(2)
+	bp.TiltRad = math.Atan2(math.Hypot(ez.X, ez.Y), ez.Z)
+	ex := f.R.Col(0)
+	tw := math.Atan2(ex.Y, ex.X) - geo.restHeading - f.psi
+	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
+}
+
+// Rest is the state hanging still at time t with the suspension point at
+// rest, rope length L(t).
+func (r *Rigid) Rest(t float64) []float64 {
+	geo := r.geo
+	y := make([]float64, r.Len())
+	y[0] = t
+	copy(y[7:11], geo.rest[:])
+	R := rotOf(geo.rest[:])
+	s := r.Suspension(t)
+	var l float64
+	if r.Rope != nil {
+		l, _, _ = r.Rope(t)
+	}
+	var x r3.Vec
+	switch {
+	case r.Spreader > 0:
+		x = r3.Sub(s.Pos, r3.Vec{Z: l + r.SpreaderZ})
+	case r.Pivot:
+		x = r3.Sub(s.Pos, R.mul(geo.hook))
+	default:
+		h := r3.Sub(s.Pos, r3.Vec{Z: l})
+		x = r3.Sub(h, R.mul(geo.hook))
+		if geo.hookPoint {
+			copy(y[14:17], []float64{h.X, h.Y, h.Z})
+		}
+	}
+	copy(y[1:4], []float64{x.X, x.Y, x.Z})
+	return y
+}
+
+// Initial is the state at t = 0: hanging still, then the rope (or the
+// parallel legs) turned by theta from the vertical toward azimuth phi —
+// with one hook the whole assembly turned rigidly about the suspension
+// point, with parallel legs the load moved without turning — and the load
+// moving horizontally at (vx, vy) relative to the suspension point (the
+// vertical part from the constraints), plus the suspension point's own
+// velocity.
+func (r *Rigid) Initial(theta, phi, vx, vy float64) []float64 {
+	y := r.Rest(0)
+	s := r.Suspension(0)
+	k := r3.Vec{X: math.Sin(phi), Y: -math.Cos(phi)}
+	turn := quatAxis(k, theta)
+	Q := rotOf(turn[:])
+	x := vec(y[1:])
+	if r.Spreader > 0 {
+		l, _, _ := r.Rope(0)
+		dn := r3.Sub(Q.mul(r3.Vec{Z: -l}), r3.Vec{Z: -l})
+		x = r3.Add(x, dn)
+		n := r3.Unit(Q.mul(r3.Vec{Z: -1}))
+		w := r3.Vec{X: vx, Y: vy, Z: -(n.X*vx + n.Y*vy) / n.Z}
+		v := r3.Add(s.Vel, w)
+		copy(y[1:7], []float64{x.X, x.Y, x.Z, v.X, v.Y, v.Z})
+		r.Project(y)
+		return y
+	}
+	// One hook: turn everything about S.
+	move := func(p r3.Vec) r3.Vec { return r3.Add(s.Pos, Q.mul(r3.Sub(p, s.Pos))) }
+	x = move(x)
+	q := mulq(turn, quat{y[7], y[8], y[9], y[10]})
+	copy(y[7:11], q[:])
+	R := rotOf(q[:])
+	load := r3.Add(x, R.mul(r.geo.loadC))
+	rl := r3.Sub(load, s.Pos)
+	// Angular velocity about S giving the load the horizontal velocity
+	// (vx, vy): w tangent to the sphere about S, omega = rl x w / |rl|^2.
+	w := r3.Vec{X: vx, Y: vy, Z: -(rl.X*vx + rl.Y*vy) / rl.Z}
+	om := r3.Scale(1/r3.Dot(rl, rl), r3.Cross(rl, w))
+	v := r3.Add(s.Vel, r3.Cross(om, r3.Sub(x, s.Pos)))
+	copy(y[1:7], []float64{x.X, x.Y, x.Z, v.X, v.Y, v.Z})
+	copy(y[11:14], []float64{om.X, om.Y, om.Z})
+	if r.geo.hookPoint {
+		h := move(vec(y[14:]))
+		hv := r3.Add(s.Vel, r3.Cross(om, r3.Sub(h, s.Pos)))
+		copy(y[14:20], []float64{h.X, h.Y, h.Z, hv.X, hv.Y, hv.Z})
+	}
+	r.Project(y)
+	return y
+}

@@ -1,0 +1,350 @@
+package plan
+
+import (
+	"math"
+	"math/cmplx"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+)
+
+// A variable-speed drive's ramp is one setting for every lift: the time
+// from 0 to full speed (common practice), here the plan's top speed V, so
+// the acceleration is V/t_r; some drives add an S-curve rounding r (the
+// s_curve profile: the trapezoid averaged over a window of r seconds).
+// The planner looks for the shortest such setting, on a grid of 0.1 s for
+// the ramp and 0.5 s for the rounding (coarser for very long ramps), that keeps each ramp alone within
+// half the residual limit at every one of rampGrid rope lengths over the
+// range, in linear theory: then the start's and the stop's residuals
+// cannot add past the limit whenever the stop is called, and the setting
+// does not depend on the move's length. Per ramp from 0 to v_p lasting
+// t_a = v_p/a (linear theory of the pendulum with a moving support):
+//
+//   - travel (and a slew's tangential swing, hook acceleration R*alpha):
+//     2*(a_hook/g)*|sin(w*t_a/2)| rad, times |sinc(w*r/2)| for the
+//     rounding (the window average multiplies every frequency by it);
+//   - a slew's outward lean R*w(t)^2/g is an equilibrium that moves as
+//     the rate changes; with rate alpha*t the swing it leaves is
+//     |integral of 2*R*alpha^2*t/g * exp(-i*w*t) dt over the ramp| =
+//     (2*R*alpha^2/g)*|exp(-i*w*t_a)*(1 + i*w*t_a) - 1|/w^2 (the
+//     response of an undamped oscillator to a moving equilibrium), the
+//     same factor for the rounding as an estimate;
+//   - the two are at right angles, and the larger swing of the two
+//     together is at most the root of the sum of their squares.
+//
+// With a hook block each mode counts by its share of the load's swing.
+// The linear peak (linearPeak, plus the lean at the top rate) must be
+// inside the peak limits. The setting found is then simulated at every
+// checked rope length, and the next longer one tried when the simulation
+// disagrees.
+
+// rampGrid is the number of rope lengths of the linear screening.
+const rampGrid = 9
+
+// rampResidual is the linear-theory residual of one ramp with ramp time
+// tr (0 to full speed) and rounding r at rope length l, rad; for a slew,
+// of the whole slew (slewResidual).
+func (rq *request) rampResidual(tr, r float64, ms modeSet) float64 {
+	g := units.StandardGravity
+	a := rq.vmax / tr
+	var p motion.Profile = motion.NewTrapezoid(0, rq.dist, rq.vmax, a, a)
+	if r > 0 {
+		p = motion.NewSCurve(0, rq.dist, rq.vmax, a, a, r)
+	}
+	vp := motion.NewTrapezoid(0, rq.dist, rq.vmax, a, a).PeakSpeed()
+	ta := vp / a
+	var tot float64
+	for i, w := range ms.omega {
+		var res float64
+		if rq.slew {
+			res = slewResidual(p, rq.radius, w)
+		} else {
+			res = 2 * (a / g) * math.Abs(math.Sin(w*ta/2))
+			if x := w * r / 2; x > 1e-9 {
+				res *= math.Abs(math.Sin(x) / x)
+			}
+		}
+		tot += ms.share[i] * res
+	}
+	return tot
+}
+
+// slewResidual is the linear-theory swing (rad) left after the slew p at
+// radius R, for a pendulum of circular frequency w: in a fixed frame the
+// hook moves on the circle R*(cos phi, sin phi) with acceleration
+// R*(phi”*e_t - phi'^2*e_r), and each horizontal axis is a small-angle
+// pendulum driven by it, whose free swing after the forcing has the
+// complex amplitude (w/g)*integral of a(t)*exp(-i*w*t) dt (any text on
+// the forced undamped oscillator). The two axes swing at right angles at
+// one frequency: the load runs on an ellipse whose largest radius is
+// returned. In
+// this frame the turning of the jib during a ramp (the direction of the
+// slew's acceleration turns with it) and the outward lean's release are
+// both counted. Simpson's rule on each span of the profile (4 points a
+// period at least).
+func slewResidual(p motion.Profile, R, w float64) float64 {
+	bps := append(p.Breakpoints(), p.End())
+	var x, y complex128
+	for i := 0; i+1 < len(bps); i++ {
+		t0, t1 := bps[i], bps[i+1]
+		if t1 <= t0 {
+			continue
+		}
+		if st := p.At(0.5 * (t0 + t1)); st.Acc == 0 && p.At(t0).Vel == p.At(t1).Vel {
+			// Steady rate W: the hook's acceleration R*W^2 turns with the
+			// jib, phi = phi0 + W*(t - t0), and its integral is closed.
+			cx, cy := steadyTurn(p.At(t0).Pos, st.Vel, R, w, t0, t1)
+			x += cx
+			y += cy
+			continue
+		}
+		n := 2 * int(math.Ceil((t1-t0)*w/(2*math.Pi)*8/2+1))
+		h := (t1 - t0) / float64(n)
+		for k := 0; k <= n; k++ {
+			t := t0 + float64(k)*h
+			st := p.At(t)
+			sin, cos := math.Sincos(st.Pos)
+			ax := R * (-st.Acc*sin - st.Vel*st.Vel*cos)
+			ay := R * (st.Acc*cos - st.Vel*st.Vel*sin)
+			wt := 2.0
+			if k == 0 || k == n {
+				wt = 1
+			} else if k%2 == 1 {
+				wt = 4
+			}
+			e := cmplx.Exp(complex(0, -w*t)) * complex(wt*h/3, 0)
+			x += complex(ax, 0) * e
+			y += complex(ay, 0) * e
+		}
+	}
+	// x(t) = Re(X e^(iwt)), y(t) = Re(Y e^(iwt)): the largest radius of
+	// that ellipse squared is (|X|^2 + |Y|^2 + |X^2 + Y^2|)/2.
+	ax, ay := cmplx.Abs(x), cmplx.Abs(y)
+	return w / units.StandardGravity * math.Sqrt((ax*ax+ay*ay+cmplx.Abs(x*x+y*y))/2)
+}
+
+// rampOK reports whether one ramp setting passes the linear screening at
+// each of the grid's rope lengths.
+func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64) []bool {
+	a := rq.vmax / tr
+	peakOK := rq.linearRatio(a) <= 1
+	out := make([]bool, len(grid))
+	share := 0.5 // each ramp alone within half the limit
+	if rq.slew {
+		share = 0.8 // the whole slew, with room for what linear theory leaves out
+	}
+	for i, ms := range grid {
+		out[i] = peakOK && rq.rampResidual(tr, r, ms) <= share*rq.resLimitRad(ls[i])
+	}
+	return out
+}
+
+// rampSetting finds the shortest ramp (and rounding, up to maxR) passing
+// the screening at every grid rope length; ok is false when none does,
+// and then cover is the widest run of rope lengths one setting covers.
+type rampSetting struct {
+	tr, r      float64
+	ok         bool
+	coverLo    float64
+	coverHi    float64
+	candidates [][2]float64 // passing settings, shortest first
+}
+
+func (rq *request) findRamp(maxR float64) rampSetting {
+	lo, hi := rq.ropeRange()
+	grid := make([]modeSet, rampGrid)
+	ls := make([]float64, rampGrid)
+	for i := range grid {
+		ls[i] = lo + (hi-lo)*float64(i)/(rampGrid-1)
+		grid[i] = rq.modesAt(ls[i])
+	}
+	tmin := math.Ceil(rq.vmax/rq.amax*10-1e-9) / 10
+	tmax := math.Min(120, 4*rq.periodAt(hi))
+	var best rampSetting
+	bestCover := -1.0
+	// The grids: 0.1 s and 0.5 s, coarser (in whole tenths) when the range
+	// would take more than about 400 ramp times or 12 roundings, which
+	// bounds the work for any input.
+	dt := math.Max(0.1, math.Ceil((tmax-tmin)/400*10)/10)
+	dr := math.Max(0.5, math.Ceil(maxR/12*2)/2)
+	for r := 0.0; r <= maxR+1e-9; r += dr {
+		found := 0
+		for tr := tmin; tr <= tmax+1e-9 && found < 4; tr += dt {
+			tr = math.Round(tr*10) / 10
+			ok := rq.rampOK(tr, r, grid, ls)
+			all := true
+			// The widest run of passing lengths.
+			run, start := 0, 0
+			for i, x := range ok {
+				if !x {
+					all = false
+					start = i + 1
+					continue
+				}
+				if i-start+1 > run {
+					run = i - start + 1
+					if c := ls[i] - ls[start]; c > bestCover && !best.ok {
+						bestCover = c
+						best.tr, best.r, best.coverLo, best.coverHi = tr, r, ls[start], ls[i]
+					}
+				}
+			}
+			if all {
+				best.candidates = append(best.candidates, [2]float64{tr, r})
+				found++ // a few longer ones, should the simulation disagree
+			}
+		}
+	}
+	if len(best.candidates) > 0 {
+		// Shortest total time (ramp plus rounding) first.
+		c := best.candidates
+		for i := range c {
+			for j := i + 1; j < len(c); j++ {
+				if c[j][0]+c[j][1] < c[i][0]+c[i][1] {
+					c[i], c[j] = c[j], c[i]
+				}
+			}
+		}
+		best.ok, best.tr, best.r = true, c[0][0], c[0][1]
+	}
+	return best
+}
+
+// periodAt is the slower mode's period at rope length l.
+func (rq *request) periodAt(l float64) float64 { return 2 * math.Pi / rq.modesAt(l).omega[0] }
+
+// rampOption is the option of one ramp time tr (and S-curve rounding r).
+func (rq *request) rampOption(tr, r float64) *Option {
+	a := rq.vmax / tr
+	var o *Option
+	if r == 0 {
+		o = rq.trapezoidOption("ramp_time", "One ramp time for every rope length", a, rq.vmax)
+	} else {
+		o = rq.trapezoidOption("ramp_time_s_curve", "One ramp time with S-curve rounding for every rope length", a, rq.vmax)
+		p := motion.NewSCurve(0, rq.dist, rq.vmax, a, a, r)
+		o.profile = p
+		o.Motion.Profile = scenario.ProfileSCurve
+		o.Motion.RoundingS = &r
+		o.MoveTimeS = p.End()
+		o.RampS += r
+		o.SCurveRoundingS = r
+	}
+	o.RampTimeS = tr
+	lo, hi := rq.ropeRange()
+	s := say("Set the drive's ramp time (0 to full speed {0}) to {1} for starting and for stopping, one setting for every rope length from {2} to {3}.",
+		rq.speedQ(rq.vmax), qTime(tr).digits(3), qLen(lo).digits(4), qLen(hi).digits(4))
+	if r > 0 {
+		s = say("Set the drive's ramp time (0 to full speed {0}) to {1} and its S-curve rounding to {2}, for starting and for stopping, one setting for every rope length from {3} to {4}.",
+			rq.speedQ(rq.vmax), qTime(tr).digits(3), qTime(r).digits(3), qLen(lo).digits(4), qLen(hi).digits(4))
+	}
+	why := plain("In linear theory each ramp alone leaves at most half the residual limit at every rope length in the range, so the start and the stop cannot add past it wherever the stop is called.")
+	if rq.slew {
+		why = plain("In linear theory (the hook's path in a fixed frame: the jib turning during each ramp and the outward lean's release counted) this slew leaves at most 0.8 of the residual limit at every rope length in the range; for another slew angle check again.")
+	}
+	o.Sentences = append([]Sentence{s, why}, o.Sentences...)
+	if rq.s.Load.Hook != nil && rq.share2 >= MinSecondShare {
+		// The screening weighs both modes of hook block and rigging by
+		// their shares of the load's swing (rampResidual).
+		o.TwoMode = true
+		o.add(plain("The screening counts both sway modes of hook block and rigging, each by its share of the load's swing; the simulation of both masses checks it."))
+	}
+	return o
+}
+
+// speedQ is a speed of the axis (SI in) as a quantity.
+func (rq *request) speedQ(v float64) Quantity {
+	if rq.slew {
+		return qRate(v / units.Degree)
+	}
+	return qSpeed(v)
+}
+
+// rampSearch offers the drive's single ramp setting (and one with S-curve
+// rounding when the drive has it): the shortest passing the screening
+// whose simulation keeps inside the limits, trying up to four candidates
+// each. When no setting passes it says which rope lengths the best one
+// covers, and offers it for what it is.
+func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
+	maxR := rq.s.Plan.SCurveMaxRoundingS
+	for _, withR := range []bool{false, true} {
+		if withR && maxR <= 0 {
+			continue
+		}
+		rs := rq.findRamp(0)
+		if withR {
+			rs = rq.findRamp(maxR)
+			var cs [][2]float64
+			for _, c := range rs.candidates {
+				if c[1] > 0 {
+					cs = append(cs, c)
+				}
+			}
+			if len(cs) == 0 {
+				continue // rounding does not shorten the move: the plain ramp is the answer
+			}
+			rs.candidates = cs
+		}
+		if !rs.ok {
+			// Offered for what it is: the simulation at the checked
+			// lengths decides whether it is within the limits, and the
+			// note says what linear theory found between them.
+			lo, hi := rq.ropeRange()
+			if rs.tr == 0 {
+				notes = append(notes, say("No single ramp time up to four sway periods keeps the swing within the limits at any rope length from {0} to {1} in linear theory.",
+					qLen(lo).digits(4), qLen(hi).digits(4)))
+				continue
+			}
+			notes = append(notes, say("Linear theory finds no single ramp time that keeps the residual swing within its screening bound from {0} to {1}; the best, {2}, covers {3} to {4}. Its option is simulated at the checked rope lengths; between them, or to be sure, narrow the rope-length range or use a shaped speed profile.",
+				qLen(lo).digits(4), qLen(hi).digits(4), qTime(rs.tr).digits(3), qLen(rs.coverLo).digits(4), qLen(rs.coverHi).digits(4)))
+			o := rq.rampOption(rs.tr, rs.r)
+			if kept, _ := rq.verifyAll([]*Option{o}); len(kept) > 0 {
+				if !o.Within {
+					o.Label += " (does not cover the whole range)"
+				}
+				out = append(out, o)
+			}
+			sims += len(rq.checked)
+			continue
+		}
+		var last *Option
+		for i, c := range rs.candidates {
+			if i >= 4 {
+				break
+			}
+			o := rq.rampOption(c[0], c[1])
+			kept, _ := rq.verifyAll([]*Option{o})
+			sims += len(rq.checked)
+			if len(kept) == 0 {
+				continue
+			}
+			last = o
+			if o.Within {
+				break
+			}
+		}
+		if last != nil {
+			out = append(out, last) // verified
+		}
+	}
+	return out, notes, sims
+}
+
+// steadyTurn is the integral over [t0, t1] of the hook's acceleration
+// -R*W^2*(cos phi, sin phi), phi = phi0 + W*(t - t0), times exp(-i*w*t),
+// per axis: with cos = (e^(i phi) + e^(-i phi))/2 and sin = (e^(i phi) -
+// e^(-i phi))/(2i), each term integrates to e^(i c)*(e^(i k t1) -
+// e^(i k t0))/(i k).
+func steadyTurn(phi0, W, R, w, t0, t1 float64) (x, y complex128) {
+	term := func(sign float64) complex128 {
+		c := sign * (phi0 - W*t0)
+		k := sign*W - w
+		if math.Abs(k) < 1e-12 {
+			return cmplx.Exp(complex(0, c)) * complex(t1-t0, 0)
+		}
+		return cmplx.Exp(complex(0, c)) * (cmplx.Exp(complex(0, k*t1)) - cmplx.Exp(complex(0, k*t0))) / complex(0, k)
+	}
+	p, m := term(1), term(-1)
+	f := complex(-R*W*W, 0)
+	return f * (p + m) / 2, f * (p - m) / complex(0, 2)
+}

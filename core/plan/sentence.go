@@ -1,0 +1,108 @@
+package plan
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"swaysheet/core/units"
+)
+
+// Sentence is one sentence the planner writes, with its quantities marked
+// so that a page or sheet can show them in the units it shows. Text holds
+// the placeholders {0}, {1}, ... where Quantities[0], [1], ... go; String
+// fills them in SI (with m/min beside m/s and rpm beside deg/s), which is
+// the plain text the plan's string fields (settings, reason, notes,
+// infeasible) carry.
+type Sentence struct {
+	Text       string     `json:"text"`
+	Quantities []Quantity `json:"quantities"`
+}
+
+// Quantity is one marked number: Value in the SI unit of its Quantity (the
+// first unit of core/units.Table[Quantity]: m, s, m/s, m/s², and deg,
+// deg/s, deg/s² for angles, as scenarios carry them), shown with Digits
+// significant digits.
+type Quantity struct {
+	Value    float64 `json:"value"`
+	Quantity string  `json:"quantity"`
+	Digits   int     `json:"digits"`
+	short    bool    // plain text without the second unit in brackets
+}
+
+// say builds a sentence whose placeholders {i} stand for qs[i].
+func say(text string, qs ...Quantity) Sentence {
+	if qs == nil {
+		qs = []Quantity{}
+	}
+	return Sentence{Text: text, Quantities: qs}
+}
+
+// Quantity constructors, SI in (angles in degrees).
+func qLen(v float64) Quantity   { return Quantity{Value: v, Quantity: "length", Digits: 3} }
+func qTime(v float64) Quantity  { return Quantity{Value: v, Quantity: "time", Digits: 3} }
+func qAngle(v float64) Quantity { return Quantity{Value: v, Quantity: "angle", Digits: 2} }
+func qSpeed(v float64) Quantity { return Quantity{Value: v, Quantity: "speed", Digits: 3} }
+func qAcc(v float64) Quantity   { return Quantity{Value: v, Quantity: "acceleration", Digits: 3} }
+func qRate(v float64) Quantity  { return Quantity{Value: v, Quantity: "angular_speed", Digits: 3} }
+func qAlpha(v float64) Quantity {
+	return Quantity{Value: v, Quantity: "angular_acceleration", Digits: 3}
+}
+
+// digits returns q with d significant digits.
+func (q Quantity) digits(d int) Quantity { q.Digits = d; return q }
+
+// String is the quantity in SI with its unit symbol.
+func (q Quantity) String() string {
+	num := func(v float64) string { return strconv.FormatFloat(v, 'g', q.Digits, 64) }
+	si := units.Table[q.Quantity].Units[0].Symbol
+	s := num(q.Value) + " " + si
+	if q.short {
+		return s
+	}
+	switch q.Quantity {
+	case "speed":
+		mpm, _ := units.FromSI("speed", "m/min", q.Value)
+		s += " (" + num(mpm) + " m/min)"
+	case "angular_speed":
+		rpm, _ := units.FromSI("angular_speed", "rpm", q.Value)
+		s += " (" + num(rpm) + " rpm)"
+	case "ratio":
+		s = num(q.Value)
+	}
+	return s
+}
+
+// String fills the placeholders in SI.
+func (s Sentence) String() string {
+	out := s.Text
+	for i, q := range s.Quantities {
+		out = strings.ReplaceAll(out, fmt.Sprintf("{%d}", i), q.String())
+	}
+	return out
+}
+
+// join appends t to s, a space between, renumbering t's placeholders.
+func (s Sentence) join(t Sentence) Sentence {
+	text := t.Text
+	for i := len(t.Quantities) - 1; i >= 0; i-- {
+		text = strings.ReplaceAll(text, fmt.Sprintf("{%d}", i), fmt.Sprintf("{%d}", i+len(s.Quantities)))
+	}
+	return Sentence{Text: s.Text + " " + text, Quantities: append(append([]Quantity{}, s.Quantities...), t.Quantities...)}
+}
+
+// texts is the plain text of sentences.
+func texts(ss []Sentence) []string {
+	out := make([]string, len(ss))
+	for i, s := range ss {
+		out[i] = s.String()
+	}
+	return out
+}
+
+// plain wraps text without quantities (sentences carrying no numbers, or
+// numbers that are not measures: percentages, counts).
+// Braces become parentheses, so that nothing reads as a placeholder.
+func plain(text string) Sentence {
+	return say(strings.NewReplacer("{", "(", "}", ")").Replace(text))
+}

@@ -1,0 +1,234 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"runtime"
+	"strings"
+	"sync"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+	"swaysheet/core/units"
+)
+
+// verifyAll simulates every option at every checked rope length, in
+// parallel: a drive-timed option once, a pendant option once as planned
+// and once for each drawn timing. An option whose simulation fails (the
+// run's step limit, a rope that goes slack in a way the model refuses) is
+// left out and named in the returned list with why; the others are kept.
+func (rq *request) verifyAll(opts []*Option) (kept []*Option, dropped []string) {
+	type job struct{ o, l, d int } // d = -1: the planned move
+	jobs := make(chan job)
+	exact := make([][]Verified, len(opts))
+	drawn := make([][][]Verified, len(opts))
+	failed := make([]error, len(opts))
+	for i, o := range opts {
+		exact[i] = make([]Verified, len(rq.checked))
+		drawn[i] = make([][]Verified, len(rq.checked))
+		for l := range drawn[i] {
+			drawn[i][l] = make([]Verified, len(o.draws))
+		}
+	}
+	var wg sync.WaitGroup
+	var mu sync.Mutex
+	for range runtime.GOMAXPROCS(0) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for j := range jobs {
+				mu.Lock()
+				skip := failed[j.o] != nil
+				mu.Unlock()
+				if skip {
+					continue
+				}
+				m := &opts[j.o].Motion
+				if j.d >= 0 {
+					m = &opts[j.o].draws[j.d]
+				}
+				v, err := rq.simulate(m, rq.checked[j.l])
+				if err != nil {
+					mu.Lock()
+					if failed[j.o] == nil {
+						failed[j.o] = fmt.Errorf("at rope length %.4g m: %w", rq.checked[j.l], err)
+					}
+					mu.Unlock()
+					continue
+				}
+				if j.d < 0 {
+					exact[j.o][j.l] = v
+				} else {
+					drawn[j.o][j.l][j.d] = v
+				}
+			}
+		}()
+	}
+	for o := range opts {
+		for l := range rq.checked {
+			for d := -1; d < len(opts[o].draws); d++ {
+				jobs <- job{o, l, d}
+			}
+		}
+	}
+	close(jobs)
+	wg.Wait()
+	for i, o := range opts {
+		if failed[i] != nil {
+			dropped = append(dropped, fmt.Sprintf("%s: left out, it could not be verified (%v).", o.Label, failed[i]))
+			continue
+		}
+		vs := exact[i]
+		if len(o.draws) > 0 {
+			vs = make([]Verified, len(rq.checked))
+			for l := range vs {
+				vs[l] = p90(drawn[i][l], exact[i][l])
+			}
+			o.Basis = fmt.Sprintf("%gth percentile of a person's timing", rq.timing().Percentile)
+		} else {
+			o.Basis = "exact timing"
+		}
+		o.setVerified(vs, rq.lim)
+		kept = append(kept, o)
+	}
+	return kept, dropped
+}
+
+// p90 is the percentile of each figure over the drawn runs, with the
+// planned run's figures as Exact.
+func p90(vs []Verified, exact Verified) Verified {
+	pick := func(f func(Verified) float64) float64 {
+		xs := make([]float64, len(vs))
+		for i, v := range vs {
+			xs[i] = f(v)
+		}
+		return percentile(xs, TimingPercentile)
+	}
+	out := Verified{RopeLengthM: exact.RopeLengthM,
+		PeakSwingDeg:        pick(func(v Verified) float64 { return v.PeakSwingDeg }),
+		PeakExcursionM:      pick(func(v Verified) float64 { return v.PeakExcursionM }),
+		ResidualSwingDeg:    pick(func(v Verified) float64 { return v.ResidualSwingDeg }),
+		ResidualExcursionM:  pick(func(v Verified) float64 { return v.ResidualExcursionM }),
+		TensionFactor:       pick(func(v Verified) float64 { return v.TensionFactor }),
+		PeakRiggingAngleDeg: pick(func(v Verified) float64 { return v.PeakRiggingAngleDeg }),
+	}
+	for _, v := range vs {
+		out.Warnings = max(out.Warnings, v.Warnings)
+	}
+	e := exact
+	out.Exact = &e
+	return out
+}
+
+// simulate runs one move at one rope length.
+func (rq *request) simulate(m *scenario.Motion, rope float64) (Verified, error) {
+	sc := *rq.s
+	sc.Plan = nil
+	sc.Motions = []scenario.Motion{*m}
+	sc.Load.RopeLengthM = &rope
+	sc.Settings = &scenario.Settings{RelTol: RelTol, SettlePeriods: 2}
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
+	if err != nil {
+		return Verified{}, err
+	}
+	v := Verified{RopeLengthM: rope, PeakSwingDeg: r.PeakSwingDeg, PeakExcursionM: r.PeakExcursionM,
+		ResidualSwingDeg: r.ResidualSwingDeg, ResidualExcursionM: r.ResidualExcursionM,
+		TensionFactor: r.TensionFactor, Warnings: len(r.Warnings)}
+	if r.Rigging != nil {
+		v.PeakRiggingAngleDeg = r.Rigging.PeakRiggingAngleDeg
+	}
+	return v, nil
+}
+
+func (o *Option) setVerified(vs []Verified, lim Limits) {
+	o.Verified = vs
+	o.WorstPeakSwingDeg, o.WorstPeakExcursionM, o.WorstResidualSwingDeg, o.WorstResidualExcM = 0, 0, 0, 0
+	for _, v := range vs {
+		if v.PeakSwingDeg >= o.WorstPeakSwingDeg {
+			o.WorstPeakSwingDeg, o.WorstPeakRopeM = v.PeakSwingDeg, v.RopeLengthM
+		}
+		if v.ResidualSwingDeg >= o.WorstResidualSwingDeg {
+			o.WorstResidualSwingDeg, o.WorstResidualRopeM = v.ResidualSwingDeg, v.RopeLengthM
+		}
+		o.WorstPeakExcursionM = math.Max(o.WorstPeakExcursionM, v.PeakExcursionM)
+		o.WorstResidualExcM = math.Max(o.WorstResidualExcM, v.ResidualExcursionM)
+	}
+	o.Outside = []string{}
+	out := func(what string, v, l float64, unit string) {
+		if l > 0 && v > l {
+			o.Outside = append(o.Outside, fmt.Sprintf("%s %.3g %s > %.3g %s", what, v, unit, l, unit))
+		}
+	}
+	out("peak swing", o.WorstPeakSwingDeg, lim.PeakSwingDeg, "deg")
+	out("peak excursion", o.WorstPeakExcursionM, lim.PeakExcursionM, "m")
+	out("residual swing", o.WorstResidualSwingDeg, lim.ResidualSwingDeg, "deg")
+	out("residual excursion", o.WorstResidualExcM, lim.ResidualExcursionM, "m")
+	o.Within = len(o.Outside) == 0
+}
+
+// residualRatio is how far the option's worst residual is from the
+// residual limits (1 = on the limit).
+func (o *Option) residualRatio(lim Limits) float64 {
+	return ratio(o.WorstResidualSwingDeg, lim.ResidualSwingDeg, o.WorstResidualExcM, lim.ResidualExcursionM)
+}
+
+// ratio is the larger of angle/angle limit and excursion/excursion limit,
+// each counted when its limit is given.
+func ratio(deg, limDeg, m, limM float64) float64 {
+	r := 0.0
+	if limDeg > 0 {
+		r = math.Max(r, deg/limDeg)
+	}
+	if limM > 0 {
+		r = math.Max(r, m/limM)
+	}
+	return r
+}
+
+// checkedSentences state what the simulation found (the option's
+// findings), so that its words match its figures: the worst over the checked rope lengths and
+// where, and for a pendant option the percentile of a person's timing.
+func (rq *request) checkedSentences(o *Option) {
+	lo, hi := rq.ropeRange()
+	n := len(rq.checked)
+	exc := ""
+	qs := []Quantity{qLen(lo).digits(4), qLen(hi).digits(4), qAngle(o.WorstPeakSwingDeg), qLen(o.WorstPeakRopeM).digits(4),
+		qAngle(o.WorstResidualSwingDeg), qLen(o.WorstResidualRopeM).digits(4)}
+	if rq.lim.ResidualExcursionM > 0 || rq.lim.PeakExcursionM > 0 {
+		exc = " (excursions {6}, {7})"
+		qs = append(qs, qLen(o.WorstPeakExcursionM), qLen(o.WorstResidualExcM))
+	}
+	if o.Timing == nil {
+		o.found(say(fmt.Sprintf("Simulated at %d rope lengths, {0} to {1}: worst peak {2} at {3}, residual {4} at {5}%s.", n, exc), qs...))
+		return
+	}
+	tm := o.Timing
+	verdict := "within the limits"
+	if !o.Within {
+		verdict = "NOT within the limits: " + strings.Join(o.Outside, "; ") + ". The crane's steps, pressed by a person, cannot be relied on to meet them"
+	}
+	qs = append(qs, qTime(tm.SigmaS), qTime(tm.ReactionDelayS))
+	k := len(qs)
+	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %d draws at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
+		k-2, k-1, tm.Draws, n, exc, verdict), qs...))
+	ex := 0.0
+	for _, v := range o.Verified {
+		if v.Exact != nil {
+			ex = math.Max(ex, v.Exact.ResidualSwingDeg)
+		}
+	}
+	o.found(say("Pressed exactly on the cues, the residual swing would be at most {0}.", qAngle(ex)))
+}
+
+// resLimitRad is the residual swing allowed at rope length l (to the
+// hook), radians: the angle limit and the excursion limit as asin(e/L).
+func (rq *request) resLimitRad(l float64) float64 {
+	th := math.Inf(1)
+	if rq.lim.ResidualSwingDeg > 0 {
+		th = rq.lim.ResidualSwingDeg * units.Degree
+	}
+	if e := rq.lim.ResidualExcursionM; e > 0 {
+		th = math.Min(th, math.Asin(math.Min(1, e/(l+rq.rig))))
+	}
+	return th
+}

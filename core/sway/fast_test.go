@@ -1,0 +1,106 @@
+package sway_test
+
+import (
+	"math"
+	"path/filepath"
+	"testing"
+
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// fastScenarios are every example and every reference scenario.
+func fastScenarios(t *testing.T) []string {
+	var files []string
+	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios"} {
+		fs, err := filepath.Glob(filepath.Join("..", "..", dir, "*.json"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, f := range fs {
+			files = append(files, filepath.Join(dir, filepath.Base(f)))
+		}
+	}
+	return files
+}
+
+// TestFastPathAgrees holds the specialised single-rope path (fast.go)
+// against the general path on every example and reference scenario, at
+// the default and the tight accuracy. The two take the same steps on the
+// same equations; they differ in rounding (the suspension point's motion
+// summed as one polynomial per span rather than profile by profile; the
+// model evaluated at the time itself rather than 1e-12 of it inside the
+// segment; the step control's powers) and in how a peak is found (from
+// the rate at the ends of each step and the root of the rate, rather than
+// four samples per step and parabolic interpolation, both on the same
+// dense output). The bounds are relative, 1e-9 of each figure and 1e-8 of
+// the sampled histories, thousands of times below the reference
+// tolerances of reference_test.go; the largest differences seen are
+// 7.5e-11 on the figures and 3.4e-10 on a sampled swing angle (go test -v
+// prints them).
+func TestFastPathAgrees(t *testing.T) {
+	worst := map[string]float64{}
+	for _, acc := range []string{"default", "tight"} {
+		for _, file := range fastScenarios(t) {
+			s := readScenario(t, file)
+			if s.Plan != nil {
+				s.Plan = nil
+			}
+			if s.Load.Hook != nil {
+				continue // the general path only
+			}
+			if s.Settings == nil {
+				s.Settings = &scenario.Settings{}
+			}
+			s.Settings.Accuracy = acc
+			fast, err := sway.EvaluateWith(s, sway.Options{})
+			if err != nil {
+				t.Fatalf("%s: %v", file, err)
+			}
+			gen, err := sway.EvaluateWith(s, sway.Options{General: true})
+			if err != nil {
+				t.Fatalf("%s: %v", file, err)
+			}
+			rel := func(name string, a, b, scale, bound float64) {
+				d := math.Abs(a-b) / scale
+				if d > worst[acc+" "+name] {
+					worst[acc+" "+name] = d
+				}
+				if !(d <= bound) {
+					t.Errorf("%s (%s): %s fast %.17g, general %.17g: differ by %.3g of %.3g, above %.3g", file, acc, name, a, b, d, scale, bound)
+				}
+			}
+			// Step sizes follow the error estimate continuously, so rounding
+			// moves a segment's last steps now and then (at the tight
+			// accuracy, a few steps in a thousand).
+			if d := fast.Solver.Steps - gen.Solver.Steps; d*d > (3+gen.Solver.Steps/200)*(3+gen.Solver.Steps/200) {
+				t.Errorf("%s (%s): fast path took %d+%d steps, general %d+%d", file, acc, fast.Solver.Steps, fast.Solver.Rejected, gen.Solver.Steps, gen.Solver.Rejected)
+			}
+			swing := math.Max(gen.PeakSwingDeg, 1e-3)
+			rel("peak_swing_deg", fast.PeakSwingDeg, gen.PeakSwingDeg, swing, 1e-9)
+			rel("residual_swing_deg", fast.ResidualSwingDeg, gen.ResidualSwingDeg, swing, 1e-9)
+			exc := math.Max(gen.PeakExcursionM, 1e-3)
+			rel("peak_excursion_m", fast.PeakExcursionM, gen.PeakExcursionM, exc, 1e-9)
+			rel("residual_excursion_m", fast.ResidualExcursionM, gen.ResidualExcursionM, exc, 1e-9)
+			rel("tension_max_n", fast.TensionMaxN, gen.TensionMaxN, gen.StaticTensionN, 1e-9)
+			rel("tension_min_n", fast.TensionMinN, gen.TensionMinN, gen.StaticTensionN, 1e-9)
+			h, g := fast.History, gen.History
+			if len(h.TimeS) != len(g.TimeS) {
+				t.Fatalf("%s: %d history samples, general %d", file, len(h.TimeS), len(g.TimeS))
+			}
+			for i := range h.TimeS {
+				l := gen.RopeLengthStartM
+				rel("history rel_x_m", h.RelXM[i], g.RelXM[i], l, 1e-8)
+				rel("history rel_y_m", h.RelYM[i], g.RelYM[i], l, 1e-8)
+				rel("history rel_z_m", h.RelZM[i], g.RelZM[i], l, 1e-8)
+				rel("history swing_deg", h.SwingDeg[i], g.SwingDeg[i], swing, 1e-8)
+				rel("history tension_n", h.TensionN[i], g.TensionN[i], gen.StaticTensionN, 1e-8)
+				rel("history suspension_x_m", h.SuspensionXM[i], g.SuspensionXM[i], 1, 1e-8)
+				rel("history suspension_y_m", h.SuspensionYM[i], g.SuspensionYM[i], 1, 1e-8)
+			}
+		}
+	}
+	for k, v := range worst {
+		t.Logf("largest difference, %s: %.3g", k, v)
+	}
+}

@@ -1,0 +1,156 @@
+package sway
+
+import (
+	"math"
+	"slices"
+	"sort"
+
+	"swaysheet/core/motion"
+)
+
+// span is one piece of an axis' flattened motion: from start on (up to the
+// next span's start) the axis is at
+//
+//	pos = p + v*u + a*u²/2 + j*u³/6,  vel = v + a*u + j*u²/2,
+//	acc = a + j*u,  jerk = j,  with u = t - origin.
+//
+// The first span of a table starts at -Inf and has its origin at the
+// first breakpoint (a profile before its first span moves steadily).
+type span struct {
+	start, origin float64
+	p, v, a, j    float64
+}
+
+// at evaluates the span at t (Horner form).
+func (s *span) at(t float64) (pos, vel, acc float64) {
+	u := t - s.origin
+	return s.p + u*(s.v+u*(0.5*s.a+u*s.j*(1.0/6))), s.v + u*(s.a+u*0.5*s.j), s.a + u*s.j
+}
+
+// axisTable is the sum of every profile on one axis, flattened into a
+// single table of constant-jerk spans (one polynomial per interval between
+// the breakpoints of all the axis' profiles and their shaper copies). The
+// cost of evaluating it does not grow with the number of moves, impulses
+// or record samples: the evaluation keeps the span of the current segment
+// between restarts (spanAt), and every breakpoint is a restart.
+type axisTable []span
+
+// spanAt is the span that holds the open interval around t: the last one
+// starting at or before t.
+func (a axisTable) spanAt(t float64) span {
+	if len(a) == 0 {
+		return span{}
+	}
+	i := sort.Search(len(a), func(i int) bool { return a[i].start > t }) - 1
+	return a[max(i, 0)]
+}
+
+// flatPieces lists the constant-jerk pieces of p as independent
+// components (one per summed profile and shaper impulse), shifted in time
+// by shift and scaled by scale. It reports false for a profile it does not
+// know, whose motion the specialised path cannot reproduce.
+func flatPieces(p motion.Profile, shift, scale float64, out [][]motion.Piece) ([][]motion.Piece, bool) {
+	var ps []motion.Piece
+	switch q := p.(type) {
+	case motion.Sum:
+		for _, c := range q {
+			var ok bool
+			if out, ok = flatPieces(c, shift, scale, out); !ok {
+				return nil, false
+			}
+		}
+		return out, true
+	case *motion.Shaped:
+		for _, im := range q.Impulses {
+			var ok bool
+			if out, ok = flatPieces(q.Base, shift+im.T, scale*im.A, out); !ok {
+				return nil, false
+			}
+		}
+		return out, true
+	case *motion.Trapezoid:
+		ps = trapezoidPieces(q)
+	case *motion.Piecewise:
+		ps = q.Pieces()
+	case *motion.SCurve:
+		ps = q.Pieces()
+	case *motion.Steps:
+		ps = q.Pieces()
+	case *motion.HardStop:
+		ps = q.Pieces()
+	default:
+		return nil, false
+	}
+	for i := range ps {
+		c := &ps[i]
+		c.T += shift
+		c.P, c.V, c.A, c.J = c.P*scale, c.V*scale, c.A*scale, c.J*scale
+	}
+	return append(out, ps), true
+}
+
+// trapezoidPieces are the spans of a trapezoidal move (motion.Trapezoid's
+// phases: ramp up at accel, cruise at the peak speed, ramp down at decel,
+// rest).
+func trapezoidPieces(q *motion.Trapezoid) []motion.Piece {
+	v := q.PeakSpeed()
+	sign := math.Copysign(1, q.Distance)
+	if v == 0 {
+		return []motion.Piece{{T: q.Start}}
+	}
+	d := math.Abs(q.Distance)
+	tAcc, tDec := v/q.Accel, v/q.Decel
+	t1 := q.Start + tAcc
+	t2 := q.End() - tDec
+	return []motion.Piece{
+		{T: q.Start, A: sign * q.Accel},
+		{T: t1, P: sign * 0.5 * q.Accel * tAcc * tAcc, V: sign * v},
+		{T: t2, P: sign * (d - 0.5*q.Decel*tDec*tDec), V: sign * v, A: -sign * q.Decel},
+		{T: q.End(), P: sign * d},
+	}
+}
+
+// flatten sums the components into one table of spans.
+func flatten(comps [][]motion.Piece) axisTable {
+	if len(comps) == 0 {
+		return nil
+	}
+	var ts []float64
+	for _, c := range comps {
+		for _, p := range c {
+			ts = append(ts, p.T)
+		}
+	}
+	slices.Sort(ts)
+	ts = slices.Compact(ts)
+	tab := make(axisTable, 0, len(ts)+1)
+	// Before the first breakpoint every component moves steadily.
+	first := span{start: math.Inf(-1), origin: ts[0]}
+	for _, c := range comps {
+		p0 := c[0]
+		first.p += p0.P + p0.V*(ts[0]-p0.T)
+		first.v += p0.V
+	}
+	tab = append(tab, first)
+	for _, t := range ts {
+		s := span{start: t, origin: t}
+		for _, c := range comps {
+			i := sort.Search(len(c), func(i int) bool { return c[i].T > t }) - 1
+			if i < 0 {
+				p0 := c[0]
+				s.p += p0.P + p0.V*(t-p0.T)
+				s.v += p0.V
+				continue
+			}
+			q := c[i]
+			// The piece's polynomial re-expanded about t.
+			u := t - q.T
+			s.p += q.P + u*(q.V+u*(0.5*q.A+u*q.J*(1.0/6)))
+			s.v += q.V + u*(q.A+u*0.5*q.J)
+			s.a += q.A + u*q.J
+			s.j += q.J
+		}
+		tab = append(tab, s)
+	}
+	return tab
+}

@@ -1,0 +1,341 @@
+package sway
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/pendulum"
+	"swaysheet/core/scenario"
+	"swaysheet/core/units"
+	"swaysheet/core/words"
+)
+
+// Body reports a load modelled as a rigid body (load.body).
+type Body struct {
+	// Suspension is "four legs", "two legs" or "spreader".
+	Suspension string `json:"suspension"`
+	// Modes are the small-swing modes at the rope length at the end of
+	// the run, slowest first (modal analysis of the linearised model);
+	// period_s of the result is the first.
+	Modes []BodyMode `json:"modes"`
+	// TwistRestrained is false on one hook: nothing turns the load back
+	// when it twists.
+	TwistRestrained bool `json:"twist_restrained"`
+	// With a spreader: the twist period of the bifilar formula
+	// 2*pi*(k/a)*sqrt(h/g) and as simulated (free twist of 0.05 deg).
+	BifilarTwistPeriodS   float64 `json:"bifilar_twist_period_s,omitempty"`
+	SimulatedTwistPeriodS float64 `json:"simulated_twist_period_s,omitempty"`
+	// RestTiltDeg is the load's tilt hanging still (unequal legs or attach
+	// points not centred over the centre of mass).
+	RestTiltDeg float64 `json:"rest_tilt_deg"`
+	// PeakTiltDeg is the largest angle of the load's height axis from the
+	// vertical; PeakTwistDeg its largest turn about the vertical from its
+	// heading at the start (with a spreader: relative to the crane, which
+	// turns the spreader when it slews).
+	PeakTiltDeg  float64 `json:"peak_tilt_deg"`
+	PeakTwistDeg float64 `json:"peak_twist_deg"`
+	// PeakCornerSwingM is the largest horizontal distance of a corner of
+	// the load from where it hangs still under the suspension point.
+	PeakCornerSwingM float64 `json:"peak_corner_swing_m"`
+	// PitchPeriodS is the period of the first mode in which the load
+	// pitches most; TwistPeriodS of the one in which it twists (zero when
+	// its twist is not restrained).
+	PitchPeriodS float64 `json:"pitch_period_s"`
+	TwistPeriodS float64 `json:"twist_period_s"`
+	// LegTensionMaxN and LegTensionMinN are the largest and smallest
+	// tension of any leg.
+	LegTensionMaxN float64   `json:"leg_tension_max_n"`
+	LegTensionMinN float64   `json:"leg_tension_min_n"`
+	Legs           []LegLoad `json:"legs"`
+	// History holds the load's tilt, twist, leg tensions and corner
+	// paths at the result's history times.
+	History *BodyHistory `json:"history,omitempty"`
+}
+
+// BodyMode is one small-swing mode of a rigid load.
+type BodyMode struct {
+	PeriodS float64 `json:"period_s"`
+	// Kind is what moves most: "swing along", "swing across", "pitch",
+	// "roll", "twist", "hook" (see pendulum.RigidMode).
+	Kind string `json:"kind"`
+}
+
+// LegLoad is one sling leg's (or spreader leg's) tension.
+type LegLoad struct {
+	StaticN     float64 `json:"static_n"`
+	TensionMaxN float64 `json:"tension_max_n"`
+	TensionMinN float64 `json:"tension_min_n"`
+}
+
+// BodyHistory are time series beside History.
+type BodyHistory struct {
+	TiltDeg     []float64   `json:"tilt_deg"`
+	TwistDeg    []float64   `json:"twist_deg"`
+	LegTensionN [][]float64 `json:"leg_tension_n"` // [leg][sample]
+	// Corners of the box on the ground frame, [corner][sample]; corner i
+	// is at (+/-length/2, +/-width/2, +/-height/2) with the minus signs
+	// where bits 0, 1, 2 of i are set.
+	CornerXM [][]float64 `json:"corner_x_m"`
+	CornerYM [][]float64 `json:"corner_y_m"`
+	CornerZM [][]float64 `json:"corner_z_m"`
+}
+
+func (h *BodyHistory) add(p *pendulum.Point) {
+	b := p.Body
+	if h.LegTensionN == nil {
+		h.LegTensionN = make([][]float64, b.NLegs)
+		h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
+	}
+	h.TiltDeg = append(h.TiltDeg, b.TiltRad/units.Degree)
+	h.TwistDeg = append(h.TwistDeg, b.TwistRad/units.Degree)
+	for i := range b.NLegs {
+		h.LegTensionN[i] = append(h.LegTensionN[i], b.Legs[i])
+	}
+	for i, c := range b.Corners {
+		h.CornerXM[i] = append(h.CornerXM[i], c.X)
+		h.CornerYM[i] = append(h.CornerYM[i], c.Y)
+		h.CornerZM[i] = append(h.CornerZM[i], c.Z)
+	}
+}
+
+// bodyValue is quantity q of a rigid load (see scanner.value).
+func bodyValue(q quantity, b *pendulum.BodyPoint) float64 {
+	switch {
+	case q == qTilt:
+		return b.TiltRad
+	case q == qTwist:
+		return math.Abs(b.TwistRad)
+	case q == qCorner:
+		return b.CornerSwing2
+	case q >= qLegLow:
+		return -b.Legs[q-qLegLow]
+	}
+	return b.Legs[q-qLeg]
+}
+
+// LongLoadM is the longest horizontal side from which a load on one hook
+// gets the warning that its twist is not restrained (tag lines for long
+// loads: common practice).
+const LongLoadM = 3.0
+
+// rigidModel is the rigid-load model of a validated scenario with
+// load.body, and its initial state.
+func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
+	rope func(float64) (float64, float64, float64), force func(float64, r3.Vec, r3.Vec) r3.Vec,
+	slew motion.Sum) (*pendulum.Rigid, []float64, error) {
+	b := s.Load.Body
+	a, w, h := *b.LengthM, *b.WidthM, *b.HeightM
+	k := r3.Vec{
+		X: deref(b.GyrationLengthM, math.Sqrt((w*w+h*h)/12)),
+		Y: deref(b.GyrationWidthM, math.Sqrt((a*a+h*h)/12)),
+		Z: deref(b.GyrationHeightM, math.Sqrt((a*a+w*w)/12)),
+	}
+	r := &pendulum.Rigid{Mass: *s.Load.MassKg, Gyration: k, HookMass: b.HookMassKg,
+		Size: r3.Vec{X: a, Y: w, Z: h}, Heading: b.HeadingDeg * units.Degree,
+		Suspension: susp, Rope: rope, Force: force}
+	if len(slew) > 0 {
+		r.Yaw = func(t float64) (float64, float64, float64) {
+			p := slew.At(t)
+			return p.Pos, p.Vel, p.Acc
+		}
+	}
+	if sp := b.Spreader; sp != nil {
+		r.Spreader = *sp.SpacingM / 2
+		r.SpreaderZ = deref(sp.AttachZM, h/2)
+	}
+	for _, l := range b.Legs {
+		r.Legs = append(r.Legs, pendulum.Leg{Length: *l.LengthM,
+			Attach: r3.Vec{X: l.AttachXM, Y: l.AttachYM, Z: *l.AttachZM}})
+	}
+	if err := r.Prepare(); err != nil {
+		var ge *pendulum.GeometryError
+		field := "load.body.legs"
+		if errors.As(err, &ge) && ge.Leg >= 0 && ge.Leg < len(b.Legs) {
+			field = fmt.Sprintf("load.body.legs[%d].length_m", ge.Leg)
+		}
+		return nil, nil, scenario.Errors{{Field: field, Message: err.Error()}}
+	}
+	var in scenario.Initial
+	if s.Initial != nil {
+		in = *s.Initial
+	}
+	y0 := r.Initial(in.SwingDeg*units.Degree, in.TowardDeg*units.Degree, in.VelocityXMPerS, in.VelocityYMPerS)
+	return r, y0, nil
+}
+
+// bodyWind is the steady lean of the line from the suspension point to
+// the load's centre of mass and the load's offset from plumb under a
+// steady horizontal force F at the load's centre of mass (static
+// equilibrium, as WindLeanRad and WindOffsetM for a hook block): the rope
+// to the hook carries load and hook block and leans atan(F/((m+m_h) g));
+// the load with its legs is held at the hook alone, so the line from the
+// hook to its centre of mass lies along the resultant of F and its weight,
+// atan(F/(m g)). With a spreader the parallel legs lean atan(F/(m g)) and
+// the load moves without turning (its roll under a force across it, which
+// the attach points' height brings, is left out of this figure).
+func bodyWind(r *pendulum.Rigid, force, rope float64) (leanRad, offsetM float64) {
+	g := units.StandardGravity
+	t2 := math.Atan2(force, r.Mass*g)
+	if r.Spreader > 0 {
+		x := rope * math.Sin(t2)
+		return math.Atan2(x, rope*math.Cos(t2)+r.SpreaderZ), x
+	}
+	t1 := math.Atan2(force, (r.Mass+r.HookMass)*g)
+	d := r.HookDepthM()
+	x := rope*math.Sin(t1) + d*math.Sin(t2)
+	return math.Atan2(x, rope*math.Cos(t1)+d*math.Cos(t2)), x
+}
+
+// bodyModes returns the modes of a rigid load at rope length l and the
+// period of the slowest one that swings back.
+func bodyModes(r *pendulum.Rigid, l float64) ([]pendulum.RigidMode, float64, error) {
+	modes, err := r.Modes(l)
+	if err != nil {
+		return nil, 0, err
+	}
+	if len(modes) == 0 || modes[0].Free {
+		return nil, 0, errors.New("sway: the rigid load has no swinging mode")
+	}
+	return modes, modes[0].PeriodS, nil
+}
+
+// body fills the rigid-load figures and their warnings.
+func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, sc *scanner, ropeEnd float64, res *Result, measure bool) error {
+	b := s.Load.Body
+	out := &Body{TwistRestrained: true, Legs: []LegLoad{}}
+	switch {
+	case b.Spreader != nil:
+		out.Suspension = "spreader"
+	case len(b.Legs) == 2:
+		out.Suspension = "two legs"
+	default:
+		out.Suspension = "four legs"
+	}
+	var twist *pendulum.RigidMode
+	for i := range modes {
+		m := &modes[i]
+		if m.Free {
+			out.TwistRestrained = false
+			continue
+		}
+		out.Modes = append(out.Modes, BodyMode{PeriodS: m.PeriodS, Kind: m.Kind})
+		if m.Kind == "twist" && twist == nil {
+			twist = m
+			out.TwistPeriodS = m.PeriodS
+		}
+		if m.Kind == "pitch" && out.PitchPeriodS == 0 {
+			out.PitchPeriodS = m.PeriodS
+		}
+	}
+	fixed := r.Fixed(ropeEnd)
+	var rest pendulum.Point
+	fixed.Eval(0, fixed.Rest(0), &rest)
+	out.RestTiltDeg = rest.Body.TiltRad / units.Degree
+	for i := range rest.Body.NLegs {
+		l := LegLoad{StaticN: rest.Body.Legs[i],
+			TensionMaxN: sc.ext[qLeg+quantity(i)].max, TensionMinN: -sc.ext[qLegLow+quantity(i)].max}
+		out.Legs = append(out.Legs, l)
+		if i == 0 || l.TensionMaxN > out.LegTensionMaxN {
+			out.LegTensionMaxN = l.TensionMaxN
+		}
+		if i == 0 || l.TensionMinN < out.LegTensionMinN {
+			out.LegTensionMinN = l.TensionMinN
+		}
+	}
+	out.PeakTiltDeg = sc.ext[qTilt].max / units.Degree
+	out.PeakTwistDeg = sc.ext[qTwist].max / units.Degree
+	out.PeakCornerSwingM = excursionM(sc.ext[qCorner].max)
+	if b.Spreader != nil {
+		// Source: bifilar suspension (any mechanics text), checked in
+		// core/pendulum against the modal analysis and a free twist.
+		k := deref(b.GyrationHeightM, math.Sqrt((*b.LengthM**b.LengthM+*b.WidthM**b.WidthM)/12))
+		out.BifilarTwistPeriodS = 2 * math.Pi * (k / r.Spreader) * math.Sqrt(ropeEnd/units.StandardGravity)
+		if measure && twist != nil {
+			p, err := twistPeriod(fixed, twist)
+			if err != nil {
+				return err
+			}
+			out.SimulatedTwistPeriodS = p
+		}
+	}
+	res.Body = out
+	long := math.Max(*b.LengthM, *b.WidthM)
+	if !out.TwistRestrained && long >= LongLoadM {
+		res.warn(words.Say(
+			"The load ({0} long) hangs from one hook, which does not restrain its twist: once it turns, nothing turns it back. Control it with tag lines, or carry it on a spreader with two legs held by the crane.", words.Length(long)))
+	}
+	for i, l := range out.Legs {
+		if l.TensionMinN <= 0 {
+			res.warn(words.Plain(fmt.Sprintf(
+				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
+		}
+	}
+	if out.RestTiltDeg > 2 {
+		res.warn(words.Say(
+			"The load hangs tilted {0} at rest: the legs' lengths and attach points do not centre the hook over its centre of mass.", words.Angle(out.RestTiltDeg)))
+	}
+	return nil
+}
+
+// twistPeriod measures the twist mode's period on the nonlinear model
+// under a still suspension point: released from rest in the mode shape at
+// 0.05 deg, the time between up-crossings of the vertical angular
+// velocity.
+func twistPeriod(r *pendulum.Rigid, m *pendulum.RigidMode) (float64, error) {
+	y := r.Rest(0)
+	r.Displace(y, m.Shape, 0.05*units.Degree)
+	const wz = 13 // the angular velocity's vertical part in the state
+	return pendulum.CrossingPeriod(r, y, wz, 4, 20*m.PeriodS)
+}
+
+// bodyAssumptions are the assumptions of an evaluation with load.body:
+// those of the point model, less the two it replaces, after the rigid
+// load's own.
+func bodyAssumptions() []string {
+	out := []string{
+		"The load is a rigid box on slings that do not stretch: four legs are a rigid frame sharing the load by their stiffness; two legs let it roll about their attach line; a spreader's parallel legs hang from points fixed to the crane.",
+		"The rope length runs from the rope's upper point of rotation to the hook (with a spreader: to the load).",
+	}
+	for _, a := range Assumptions {
+		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {
+			continue
+		}
+		out = append(out, a)
+	}
+	return out
+}
+
+// RigidFirstMode is the slowest small-swing mode of a scenario's rigid
+// load (load.body) hanging from a still suspension point at rope length
+// ropeM (to the hook; with a spreader, the parallel legs' length): its
+// period, what moves most in it, and the effective length of the single
+// rope with the same period, L = g (T / (2 pi))^2, for a planner to tune a
+// drive setting or a shaper to. The other modes are in Result.Body.Modes.
+func RigidFirstMode(s *scenario.Scenario, ropeM float64) (periodS, effectiveLengthM float64, kind string, err error) {
+	if err := s.Validate(); err != nil {
+		return 0, 0, "", err
+	}
+	if s.Load.Body == nil {
+		return 0, 0, "", scenario.Errors{{Field: "load.body", Message: "is required: the first mode of a rigid load"}}
+	}
+	if r := scenario.Ranges["load.rope_length_m"]; !(ropeM >= r.Min && ropeM <= r.Max) {
+		return 0, 0, "", scenario.Errors{{Field: "load.rope_length_m", Message: fmt.Sprintf("%g is out of range: %s", ropeM, r.Text())}}
+	}
+	still := func(float64) pendulum.Kinematics { return pendulum.Kinematics{} }
+	rope := func(float64) (float64, float64, float64) { return ropeM, 0, 0 }
+	r, _, err := rigidModel(s, still, rope, nil, nil)
+	if err != nil {
+		return 0, 0, "", err
+	}
+	modes, period, err := bodyModes(r, ropeM)
+	if err != nil {
+		return 0, 0, "", err
+	}
+	w := 2 * math.Pi / period
+	return period, units.StandardGravity / (w * w), modes[0].Kind, nil
+}

@@ -1,0 +1,32 @@
+package bridge
+
+import (
+	"encoding/json"
+	"os"
+	"strings"
+	"testing"
+
+	"swaysheet/core/clearance"
+)
+
+func TestClearanceCall(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/site-tower-hoarding.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := Calls["clearance"](nil, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rep := out.(*clearance.Report)
+	if !rep.Clears || rep.Runs != 200 || len(rep.Envelope95.Spans) == 0 {
+		t.Errorf("report: clears %v, runs %d, %d spans", rep.Clears, rep.Runs, len(rep.Envelope95.Spans))
+	}
+	if _, err := json.Marshal(rep); err != nil {
+		t.Fatal(err)
+	}
+	bay, _ := os.ReadFile("../../testdata/scenarios/bay-travel.json")
+	if _, err := Calls["clearance"](nil, bay); err == nil || !strings.Contains(err.Error(), "site:") {
+		t.Errorf("no site block: %v", err)
+	}
+}

@@ -1,0 +1,14 @@
+package bridge
+
+import "swaysheet/core/ropelength"
+
+// The rope-length helper is registered here, beside its code, so that the
+// table in bridge.go stays as it is.
+func init() { Calls["ropelength"] = ropeLength }
+
+// ropeLength finds the rope length from what a crew can see or time:
+// input is the ropelength.Input JSON (heights, a timed swing, or both; an
+// optional hook block), the result the ropelength.Result JSON.
+func ropeLength(_ *Env, input []byte) (any, error) {
+	return ropelength.Parse(input)
+}
