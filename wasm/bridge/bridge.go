@@ -108,13 +108,27 @@ func evaluate(_ *Env, input []byte) (any, error) {
 	return evaluated(s, true)
 }
 
-// validate checks a scenario without running it; the result is
-// {"valid": true}.
+// Validation is the result of the "validate" call.
+type Validation struct {
+	Valid bool `json:"valid"`
+	// Fingerprint is scenario.Fingerprint of the scenario as the core read
+	// it: the page compares it with its own copy's to show that both read
+	// a file alike.
+	Fingerprint string `json:"fingerprint"`
+}
+
+// validate checks a scenario without running it; the result is a
+// Validation.
 func validate(_ *Env, input []byte) (any, error) {
-	if _, err := scenario.Parse(input); err != nil {
+	s, err := scenario.Parse(input)
+	if err != nil {
 		return nil, err
 	}
-	return map[string]bool{"valid": true}, nil
+	fp, err := scenario.Fingerprint(s)
+	if err != nil {
+		return nil, err
+	}
+	return Validation{Valid: true, Fingerprint: fp}, nil
 }
 
 // makePlan plans the move of a scenario's plan block: input is the

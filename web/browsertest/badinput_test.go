@@ -47,7 +47,9 @@ func TestBadInputInThePage(t *testing.T) {
 		before := h.text("#headline")
 		// A move starting near the end of the longest run: the core says the
 		// run would be too long.
-		h.typeInto("#f-motions-0-start_s", "3590")
+		// Pasted, not typed: typed key by key, a busy machine computes the
+		// valid values on the way ("3", "35", "359") and shows their results.
+		h.pasteInto("#f-motions-0-start_s", "3590")
 		h.settle()
 		if !strings.Contains(h.text("main"), "at most 3600 s is simulated") {
 			t.Errorf("no message for the run length; page says %q", h.text("#stale"))

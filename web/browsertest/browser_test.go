@@ -57,7 +57,10 @@ type harness struct {
 	served   []string // paths the test server answered
 }
 
-func setup(t *testing.T) *harness {
+func setup(t *testing.T) *harness { return setupFor(t, 4*time.Minute) }
+
+// setupFor is setup with a time limit for the whole test.
+func setupFor(t *testing.T, limit time.Duration) *harness {
 	if os.Getenv("SWAYSHEET_BROWSER") != "1" {
 		t.Skip("browser tests run with SWAYSHEET_BROWSER=1 (make test-browser)")
 	}
@@ -96,7 +99,7 @@ func setup(t *testing.T) *harness {
 		chromedp.Flag("disable-sync", true), chromedp.Flag("disable-quic", true))
 	actx, cancelA := chromedp.NewExecAllocator(context.Background(), opts...)
 	ctx, cancelC := chromedp.NewContext(actx)
-	ctx, cancelT := context.WithTimeout(ctx, 4*time.Minute)
+	ctx, cancelT := context.WithTimeout(ctx, limit)
 	t.Cleanup(func() { cancelT(); cancelC(); cancelA() })
 
 	h.ctx, h.url = ctx, srv.URL+"/"
@@ -191,6 +194,13 @@ func (h *harness) typeInto(sel, text string) {
 		chromedp.KeyEvent("a", chromedp.KeyModifiers(chromedp.ModifierCtrl)),
 		chromedp.KeyEvent("\b"),
 		chromedp.SendKeys(chromedp.CSS(sel), text))
+}
+
+// pasteInto replaces a field's text at once, as pasting does.
+func (h *harness) pasteInto(sel, text string) {
+	h.t.Helper()
+	eval[bool](h, `(function () { var e = document.querySelector(`+strconv.Quote(sel)+`); e.focus(); e.value = `+strconv.Quote(text)+`;
+		e.dispatchEvent(new Event('input', { bubbles: true })); return true; })()`)
 }
 
 func (h *harness) scenario() map[string]any {

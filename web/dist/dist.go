@@ -51,6 +51,7 @@ func Static(d offline.Dirs, toolVersion, out string) ([]offline.File, error) {
 var (
 	styleLink = regexp.MustCompile(`<link rel="stylesheet" href="([a-z0-9._-]+)">`)
 	scriptTag = regexp.MustCompile(`<script src="([a-z0-9._-]+)"></script>`)
+	moduleTag = regexp.MustCompile(`<script type="module" src="([a-z0-9._-]+)"></script>`)
 	otherLink = regexp.MustCompile(`<link rel="(manifest|icon)"[^>]*>\n?`)
 	cspMeta   = regexp.MustCompile(`<meta http-equiv="Content-Security-Policy" content="[^"]*">`)
 )
@@ -100,8 +101,15 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 		return "<style>" + css + "</style>"
 	})
 	first := true
-	page = scriptTag.ReplaceAllStringFunc(page, func(m string) string {
-		js, err := read(scriptTag.FindStringSubmatch(m)[1])
+	inline := func(m string) string {
+		var js string
+		var err error
+		if sm := moduleTag.FindStringSubmatch(m); sm != nil {
+			// The page's modules, joined into one (see Bundle).
+			js, err = Bundle(static, sm[1])
+		} else {
+			js, err = read(scriptTag.FindStringSubmatch(m)[1])
+		}
 		if err != nil {
 			ferr = err
 		}
@@ -118,8 +126,13 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 		}
 		js = strings.ReplaceAll(js, "</script", `<\/script`)
 		scriptHashes = append(scriptHashes, hash(js))
+		if moduleTag.MatchString(m) {
+			return out + `<script type="module">` + js + "</script>"
+		}
 		return out + "<script>" + js + "</script>"
-	})
+	}
+	page = scriptTag.ReplaceAllStringFunc(page, inline)
+	page = moduleTag.ReplaceAllStringFunc(page, inline)
 	if ferr != nil {
 		return nil, ferr
 	}

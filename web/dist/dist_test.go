@@ -38,7 +38,7 @@ func TestSingle(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := string(page)
-	for _, no := range []string{`<script src=`, `<link rel="stylesheet"`, `rel="manifest"`} {
+	for _, no := range []string{`<script src=`, `<script type="module" src=`, `<link rel="stylesheet"`, `rel="manifest"`} {
 		if strings.Contains(s, no) {
 			t.Errorf("the single file still has %q", no)
 		}

@@ -96,7 +96,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	for _, p := range paths {
 		have[p] = true
 	}
-	for _, f := range []string{"/", "/index.html", "/app.js", "/worker.js", "/swaysheet.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
+	for _, f := range []string{"/", "/index.html", "/main.js", "/engine.js", "/plan-view.js", "/worker.js", "/swaysheet.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
 		"/print.css", "/sheet.js", "/offline.js", "/manifest.webmanifest", "/icon-192.png", "/examples/index.json", "/examples/bay-travel.json"} {
 		if !have[f] {
 			t.Errorf("the cache lacks %s", f)
@@ -146,8 +146,8 @@ func TestOfflineAndNewVersion(t *testing.T) {
 
 	// A new release.
 	b.offline(false)
-	app, _ := os.ReadFile(filepath.Join(static, "app.js"))
-	os.WriteFile(filepath.Join(static, "app.js"), append(app, []byte("\n// release 2\n")...), 0o644)
+	app, _ := os.ReadFile(filepath.Join(static, "main.js"))
+	os.WriteFile(filepath.Join(static, "main.js"), append(app, []byte("\n// release 2\n")...), 0o644)
 	b.do(chromedp.Evaluate[chromedp.Void](`navigator.serviceWorker.getRegistration().then(function (r) { return r.update(); })`, chromedp.EvalAwaitPromise))
 	b.poll(`!document.getElementById('update-notice').hidden`, "the page does not say a new version is ready")
 	// Until the user reloads, the open page keeps its release.
@@ -172,7 +172,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	if len(names) != 1 || !old[names[0]] {
 		t.Fatalf("caches after the update: %q (before: %v)", names, old)
 	}
-	src, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`fetch('app.js').then(function (r) { return r.text(); })`, chromedp.EvalAwaitPromise))
+	src, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`fetch('main.js').then(function (r) { return r.text(); })`, chromedp.EvalAwaitPromise))
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -30,7 +30,7 @@ func TestServesOwnFilesOnly(t *testing.T) {
 		path string
 		code int
 	}{
-		{"/", 200}, {"/app.js", 200}, {"/worker.js", 200}, {"/swaysheet.wasm", 200},
+		{"/", 200}, {"/main.js", 200}, {"/worker.js", 200}, {"/swaysheet.wasm", 200},
 		{"/examples/bay-travel.json", 200}, {"/examples/index.json", 200},
 		{"/../go.mod", 404}, {"/examples/../../go.mod", 404}, {"/site/site.go", 404},
 		{"/examples/", 404}, {"/wasm_exec.js", 404}, {"/nothing.html", 404},

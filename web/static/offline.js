@@ -4,23 +4,23 @@
 // an open page never runs a mix of two releases. Service workers need
 // http(s) or localhost; opened as a file the page (or the single-file
 // build) runs without one.
-(function () {
-  'use strict';
-  if (!('serviceWorker' in navigator) || location.protocol === 'file:') return;
+
+let updateWanted = false;
+
+function registerOffline() {
   var box = document.getElementById('update-notice');
-  var wanted = false;
 
   function offer(w) {
     if (!box) return;
     box.hidden = false;
     document.getElementById('update-reload').onclick = function () {
-      wanted = true;
+      updateWanted = true;
       w.postMessage('activate');
     };
   }
 
   navigator.serviceWorker.addEventListener('controllerchange', function () {
-    if (wanted) location.reload();
+    if (updateWanted) location.reload();
   });
 
   window.addEventListener('load', function () {
@@ -41,4 +41,6 @@
       });
     }).catch(function () { /* no offline use; the page works online */ });
   });
-})();
+}
+
+if ('serviceWorker' in navigator && location.protocol !== 'file:') registerOffline();

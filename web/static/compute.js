@@ -1,0 +1,79 @@
+// compute.js: evaluates the inputs in the core after each change, shows
+// progress and its Cancel, keeps the last valid result.
+
+import { $ } from './dom.js';
+import { call } from './engine.js';
+import { showErrors } from './form.js';
+import { planChanged } from './plan-view.js';
+import { markStale, renderResults, updateBanner } from './results.js';
+import { S } from './state.js';
+import { keepCurrent } from './storage.js';
+
+let timer = null, busy = false, again = false, progressTimer = null, cancelTimer = null;
+
+// computing is true while the core works on the inputs or more are due.
+export function computing() { return busy || again; }
+
+export function changed() {
+  updateBanner();
+  planChanged();
+  clearTimeout(timer);
+  S.waiting = true;
+  timer = setTimeout(function () { S.waiting = false; keepCurrent(); evaluate(); }, 30);
+}
+
+function noResults() {
+  if (!S.result) $('headline').innerHTML = '<p class="waiting">\u2716 No results yet: correct the marked fields.</p>';
+}
+
+// showProgress shows "Computing" after a moment and its Cancel button
+// when the work runs over a second.
+function showProgress(on) {
+  clearTimeout(progressTimer);
+  clearTimeout(cancelTimer);
+  if (!on) {
+    $('progress').hidden = true;
+    $('cancel-calc').hidden = true;
+    return;
+  }
+  progressTimer = setTimeout(function () { $('progress').hidden = false; document.body.dataset.state = 'computing'; }, 120);
+  cancelTimer = setTimeout(function () { $('cancel-calc').hidden = false; }, 1000);
+}
+
+export function evaluate() {
+  if (Object.keys(S.bad).length) {
+    S.coreErrors = [];
+    showErrors();
+    markStale(!!S.result);
+    noResults();
+    return;
+  }
+  if (busy) { again = true; return; }
+  busy = true;
+  var sent = JSON.stringify(S.scenario);
+  S.lastSent = sent;
+  showProgress(true);
+  call('evaluate', sent).then(function (r) {
+    busy = false;
+    S.lastDone = sent;
+    showProgress(false);
+    document.body.dataset.state = 'ready';
+    // Stopped or cancelled: the inputs changed meanwhile are not computed
+    // until the next change.
+    if (r.error && r.error.stopped && r.error.stopped !== 'failed') again = false;
+    if (again) { again = false; evaluate(); return; }
+    if (r.error) {
+      S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
+      showErrors();
+      markStale(!!S.result);
+      noResults();
+      return;
+    }
+    S.coreErrors = [];
+    showErrors();
+    S.result = r.result;
+    S.count++;
+    markStale(false);
+    renderResults();
+  });
+}

@@ -1,0 +1,88 @@
+// engine.js: the client of the calculation engine (worker.js runs the Go
+// core compiled to wasm): calls with deadlines, restart, cancel.
+
+import { evaluate } from './compute.js';
+import { $, notice } from './dom.js';
+
+let worker = null, nextId = 1, waiting = {}, restarts = [];
+
+// DEADLINES: how long (ms) a call may go unanswered before the engine is
+// taken as stuck or gone (a worker can end without an error event). The
+// first calls wait for the engine to start; a plan simulates many moves.
+export const DEADLINES = { plan: 180000, evaluate: 90000, sheet: 90000, other: 60000 };
+
+export function startWorker() {
+  worker = new Worker(window.swaysheetWorkerURL || 'worker.js');
+  worker.onmessage = function (e) {
+    var m = e.data;
+    if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message, 'failed'); return; }
+    var w = waiting[m.id];
+    delete waiting[m.id];
+    if (w) { clearTimeout(w.timer); w.resolve(JSON.parse(m.out)); }
+  };
+  worker.onerror = function (e) {
+    if (e.preventDefault) e.preventDefault();
+    engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.', 'failed');
+  };
+}
+
+// engineStopped answers every call still waiting with an error, ends the
+// worker and starts a fresh one. how is 'failed' (the engine broke: the
+// results are computed again, at most three times a minute; after that
+// the page asks for a reload), 'timeout' (a call was not answered in
+// time) or 'cancelled' (the person pressed Cancel): the inputs, the last
+// valid results and the saved scenarios stay.
+function engineStopped(msg, how) {
+  var pending = waiting;
+  waiting = {};
+  var tail = how === 'cancelled' ? '' : ' The calculation was not finished.';
+  Object.keys(pending).forEach(function (id) {
+    clearTimeout(pending[id].timer);
+    pending[id].resolve({ error: { message: msg + tail, fields: [], stopped: how } });
+  });
+  try { worker.terminate(); } catch (e) { /* already gone */ }
+  if (how === 'failed') {
+    var now = Date.now();
+    restarts = restarts.filter(function (t) { return now - t < 60000; });
+    if (restarts.length >= 3) {
+      engineError(msg + ' It stopped again; reload the page (your inputs and saved scenarios are kept).');
+      return;
+    }
+    restarts.push(now);
+  }
+  startWorker();
+  if (how === 'failed') {
+    notice('\u26A0 ' + msg + ' It has been restarted; the results are computed again.');
+    setTimeout(function () { if (typeof evaluate === 'function') evaluate(); }, 0);
+  } else if (how === 'timeout') {
+    notice('\u26A0 ' + msg + ' It has been stopped and restarted; your inputs are kept. Change an input to compute again.');
+  } else {
+    notice('\u2716 ' + msg);
+  }
+}
+
+// call runs a core call; it resolves to {result} or {error}. A call not
+// answered within its deadline ends the worker (see engineStopped).
+export function call(name, input) {
+  return new Promise(function (resolve) {
+    var id = nextId++, ms = DEADLINES[name] || DEADLINES.other;
+    waiting[id] = {
+      resolve: resolve,
+      timer: setTimeout(function () {
+        if (waiting[id]) engineStopped('The calculation engine did not answer within ' + Math.round(ms / 1000) + ' s (' + name + ').', 'timeout');
+      }, ms)
+    };
+    worker.postMessage({ id: id, name: name, input: input === undefined ? '' : input });
+  });
+}
+
+// cancel stops whatever the engine is doing (a fresh one is started).
+export function cancel() {
+  engineStopped('The calculation was cancelled; your inputs are kept and the results shown are for earlier inputs.', 'cancelled');
+}
+
+export function engineError(msg) {
+  var b = $('engine-error');
+  b.textContent = msg;
+  b.hidden = false;
+}
