@@ -249,7 +249,7 @@ func Build(in Input) (*Sheet, error) {
 	switch d := density(v); {
 	case d > 72:
 		v.Dense, v.Denser, v.Densest = true, true, true
-	case d > 66:
+	case d > 62:
 		v.Dense, v.Denser = true, true
 	case d > 52:
 		v.Dense = true
@@ -308,7 +308,7 @@ func mergeCautions(own, more []string) []string {
 }
 
 // density is a rough count of the sheet's lines of text beyond the fixed
-// parts; above 52 the sheet is set in smaller type, above 66 and 72
+// parts; above 52 the sheet is set in smaller type, above 62 and 72
 // smaller still, to stay on one page.
 func density(v *view) int {
 	// 4: the verdict band; then the engineering detail.

@@ -1,8 +1,6 @@
 package sheettest
 
 import (
-	"swaysheet/core/version"
-
 	"os"
 	"path/filepath"
 	"strconv"
@@ -14,6 +12,7 @@ import (
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/version"
 )
 
 func copyDir(t *testing.T, from, to string) {

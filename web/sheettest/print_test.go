@@ -1,8 +1,6 @@
 package sheettest
 
 import (
-	"swaysheet/core/version"
-
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -15,6 +13,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"swaysheet/core/scenario"
+	"swaysheet/core/version"
 	"swaysheet/web/site"
 )
 
