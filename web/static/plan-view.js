@@ -239,15 +239,26 @@ function optionCard(r, o, i) {
     h += '<p class="mode-left">Left in each sway mode (linear theory, the worst over the rope lengths): first mode ' + esc(fmtRes(mr[0])) +
       '\u00A0%, second mode ' + esc(fmtRes(mr[1])) + '\u00A0% of what the drive-limits move leaves' + (o.two_mode ? ' (a shaper for both modes).' : '.') + '</p>';
   }
-  var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
-  h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
-    '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
-    (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
-    o.verified.map(function (v, j) {
-      return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
-        '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
-        fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
-    }).join('') + '</tbody></table></div>';
+  if (o.not_simulated) {
+    // Screened by the planner: linear-theory estimates, never shown as checked.
+    h += '<h4>Not simulated: linear-theory estimate</h4><p class="note">' + esc(o.not_simulated) + '. Use this move in the crane motions to simulate it.</p>' +
+      '<div class="table-wrap"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<th scope="col">Peak swing, estimate (deg)</th><th scope="col">Peak excursion, estimate (' + esc(L) + ')</th><th scope="col">Residual swing, estimate (deg)</th></tr></thead><tbody>' +
+      (o.estimated || []).map(function (v, j) {
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td></tr>';
+      }).join('') + '</tbody></table></div>';
+  } else {
+    var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
+    h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
+      (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
+      o.verified.map(function (v, j) {
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
+          fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
+      }).join('') + '</tbody></table></div>';
+  }
   if (!o.within) h += listHTML(o.outside, 'warn-list', '\u2716');
   h += '<p class="row"><button type="button" class="apply" data-apply="' + i + '">' +
     (P.applied === o.key ? '\u2714 In the crane motions' : 'Use this move in the crane motions') + '</button></p>';
