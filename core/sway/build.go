@@ -11,6 +11,7 @@ import (
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // setup is a scenario turned into a model ready to integrate.
@@ -25,7 +26,7 @@ type setup struct {
 	windForce   float64 // N, while the wind blows
 	air         *Air    // wind and drag; nil when neither
 	phases      []Phase
-	warnings    []string
+	warnings    []words.Sentence
 	axes        []motion.Profile // each axis' moves combined, for the work budget
 	fast        *fastModel       // the specialised path's model, nil when it does not fit
 }
@@ -75,7 +76,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		*sum = append(*sum, p)
 		breaks = append(breaks, p.Breakpoints()...)
 		su.motionEnd = math.Max(su.motionEnd, p.End())
-		if w := profileWarning(i, m, p); w != "" {
+		if w, ok := profileWarning(i, m, p, s.Crane.Kind); ok {
 			su.warnings = append(su.warnings, w)
 		}
 		su.phases = append(su.phases, phaseOf(i, m.Axis, p))
@@ -106,7 +107,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	su.ropeStart = l0
 	su.ropeEnd = l0 - hoist.At(su.motionEnd+1).Pos
 	if len(ax[crane.Turn]) > 0 && r0 == 0 && len(ax[crane.Reach]) == 0 {
-		su.warnings = append(su.warnings, "The crane slews with the load at radius 0 m: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.")
+		su.warnings = append(su.warnings, words.Say("The crane slews with the load at radius {0}: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.", words.Length(0)))
 	}
 
 	// Wind and drag (air.go).
