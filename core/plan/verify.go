@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"runtime"
@@ -190,7 +191,10 @@ func (rq *request) simulate(m *scenario.Motion, rope, tol float64) (Verified, er
 	sc.Motions = []scenario.Motion{*m}
 	sc.Load.RopeLengthM = &rope
 	sc.Settings = &scenario.Settings{RelTol: tol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true, Budget: rq.budget})
+	if errors.Is(err, sway.ErrStepLimit) {
+		err = &sway.WorkError{Message: budgetMessage}
+	}
 	if err != nil {
 		return Verified{}, err
 	}

@@ -12,6 +12,7 @@ import (
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/version"
 )
 
 func copyDir(t *testing.T, from, to string) {
@@ -87,7 +88,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	b.settle()
 	b.poll(`!!navigator.serviceWorker.controller`, "the service worker does not control the page")
 	names, paths := b.caches()
-	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-0.1.0-dev-") {
+	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-"+version.Version+"-") {
 		t.Fatalf("caches %q, want one swaysheet release", names)
 	}
 	have := map[string]bool{}
