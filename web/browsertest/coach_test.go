@@ -85,6 +85,9 @@ func TestPressCoach(t *testing.T) {
 		t.Fatal("the coach did not open")
 	}
 	eval[bool](h, fakeClock)
+	if !eval[bool](h, `document.querySelector('main').inert`) {
+		t.Error("the page behind the coach can be reached")
+	}
 
 	// The screen states the timing scatter and the cautions.
 	note := h.text("#coach")
@@ -228,6 +231,9 @@ func TestPressCoach(t *testing.T) {
 	}
 	if eval[bool](h, `window.swaysheetCoach.running() || !!document.getElementById('coach')`) {
 		t.Error("the coach is still on screen after Stop")
+	}
+	if eval[bool](h, `document.querySelector('main').inert`) {
+		t.Error("the page stays unreachable after Stop")
 	}
 	if c := eval[map[string]any](h, `window.coachCalls`); c["closed"].(float64) != 1 {
 		t.Errorf("the sound was closed %v times at Stop", c["closed"])

@@ -235,6 +235,7 @@ export function stopCoach() {
   if (me.lock) { try { me.lock.release(); } catch (e) { /* released */ } }
   logCue('stop', '', coachClock.now(), coachClock.now());
   me.box.remove();
+  me.behind.forEach(function (e) { e.inert = false; });
   document.removeEventListener('keydown', me.key);
   document.body.classList.remove('coaching');
   if (me.back && me.back.focus) me.back.focus();
@@ -253,9 +254,13 @@ export function openCoach(r, o, back, stale) {
   box.setAttribute('aria-labelledby', 'coach-h');
   var st = cueSteps(r, o);
   box.innerHTML = coachHTML(r, o, st, stale);
+  // The page behind cannot be reached (Tab, a screen reader) while the
+  // coach is open.
+  var behind = Array.prototype.filter.call(document.body.children, function (e) { return !e.inert; });
+  behind.forEach(function (e) { e.inert = true; });
   document.body.appendChild(box);
   document.body.classList.add('coaching');
-  var me = { box: box, steps: st, timers: new Set(), oscs: [], audio: null, due: null, waiting: null, k: 0, back: back, passes: markPasser(r) };
+  var me = { box: box, steps: st, timers: new Set(), oscs: [], audio: null, due: null, waiting: null, k: 0, back: back, passes: markPasser(r), behind: behind };
   me.key = function (e) { if (e.key === 'Escape') stopCoach(); };
   document.addEventListener('keydown', me.key);
   coachRun = me;
