@@ -281,7 +281,9 @@ func (rq *request) checkedSentences(o *Option) {
 		dlo, dhi = min(dlo, v.Draws), max(dhi, v.Draws)
 	}
 	draws := fmt.Sprintf("%d draws", tm.Draws)
-	if dlo < tm.Draws {
+	if dlo < tm.Draws && dlo == dhi {
+		draws = fmt.Sprintf("%d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, tm.Draws, MinTimingDraws)
+	} else if dlo < tm.Draws {
 		draws = fmt.Sprintf("%d to %d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, dhi, tm.Draws, MinTimingDraws)
 	}
 	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %s at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
