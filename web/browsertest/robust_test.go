@@ -196,9 +196,10 @@ func TestWorkerEndsSilently(t *testing.T) {
 	h.checkShown(h.core())
 }
 
-// slowScenario takes the engine several seconds: the shortest rope, the
-// longest run, the tightest tolerance.
-const slowScenario = `{"format":"swaysheet-scenario","version":1,"name":"slow","load":{"mass_kg":1000,"rope_length_m":0.3},
+// slowScenario takes the engine a few seconds: the shortest rope, the
+// longest run, the tightest tolerance, and a hook block (two masses take
+// the general path, several times slower than the single rope's).
+const slowScenario = `{"format":"swaysheet-scenario","version":1,"name":"slow","load":{"mass_kg":1000,"rope_length_m":0.3,"hook":{"mass_kg":300,"rigging_length_m":0.3}},
 "motions":[{"axis":"travel_x","distance_m":10,"speed_m_per_s":0.5,"accel_m_per_s2":0.3}],"settings":{"duration_s":3600,"rel_tol":1e-13}}`
 
 // TestCancelLongComputation: a computation over a second gets a Cancel;
