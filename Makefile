@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm sheetcss clean
 
 all: test
 
@@ -88,11 +88,31 @@ serve: wasm
 # Seeds: every scenario file plus core/*/testdata/fuzz/. A failing input is
 # written to the package's testdata/fuzz/FuzzX/ and fails the run.
 FUZZTIME ?= 10s
+FUZZ_TARGETS := core/scenario:FuzzParse core/sway:FuzzEvaluate core/motion:FuzzParseCSV \
+	core/plan:FuzzPlan core/plan:FuzzPlanValues core/ropelength:FuzzParse
 fuzz:
-	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/scenario
-	$(GO) test -run '^$$' -fuzz '^FuzzEvaluate$$' -fuzztime $(FUZZTIME) ./core/sway
-	$(GO) test -run '^$$' -fuzz '^FuzzParseCSV$$' -fuzztime $(FUZZTIME) ./core/motion
-	$(GO) test -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) ./core/ropelength
+	@set -e; for t in $(FUZZ_TARGETS); do \
+	  echo "fuzz $${t#*:} ($(FUZZTIME))"; \
+	  $(GO) test -run '^$$' -fuzz "^$${t#*:}\$$" -fuzztime $(FUZZTIME) ./$${t%%:*}; \
+	done
+
+# Each target for at least FUZZLONG executions, one at a time and niced (CPU
+# heavy: hours on two cores; not part of `make test`). The README's "Bad
+# input" section records the last run.
+FUZZLONG ?= 1000000x
+fuzz-long:
+	@set -e; for t in $(FUZZ_TARGETS); do \
+	  echo "fuzz $${t#*:} ($(FUZZLONG))"; \
+	  nice -n 19 $(GO) test -run '^$$' -fuzz "^$${t#*:}\$$" -fuzztime $(FUZZLONG) -timeout 0 ./$${t%%:*}; \
+	done
+
+# Hostile inputs (testdata/hostile/hostile.py): files built to make the
+# core work as long as it can; times the command line on each, fails when
+# one takes more than 10 s. Not part of `make test` (timing is for bench).
+hostile:
+	@mkdir -p $(OUT)/hostile
+	$(GO) build -o $(OUT)/hostile/swaysheet ./core/cmd/swaysheet
+	$(PYTHON_REF) testdata/hostile/hostile.py $(OUT)/hostile $(OUT)/hostile/swaysheet
 
 # Regenerate testdata/reference/results.json, results_double.json (hook
 # block and rigging) and results_rigid.json (rigid loads) with SciPy (Debian's

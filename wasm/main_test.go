@@ -96,4 +96,14 @@ func TestJSPlan(t *testing.T) {
 	if err := json.Unmarshal([]byte(call(t, "plan", `{"format":"swaysheet-scenario","version":1}`)), &r); err != nil || r.Error == nil {
 		t.Fatalf("bad input: %v %+v", err, r)
 	}
+	// The site library under node: no page origin to read it from, so
+	// an error reply that says so, never a crash.
+	var lib struct {
+		Error *struct {
+			Message string `json:"message"`
+		} `json:"error"`
+	}
+	if err := json.Unmarshal([]byte(call(t, "library", "")), &lib); err != nil || lib.Error == nil || lib.Error.Message == "" {
+		t.Fatalf("library: %v %+v", err, lib.Error)
+	}
 }

@@ -93,3 +93,33 @@ func Names(plannable bool) []string {
 	}
 	return out
 }
+
+// KindWords are the crew's words for the crane kinds of the scenario's
+// crane.kind, as the sheet prints them.
+var KindWords = map[string]string{
+	"overhead": "overhead (bridge and trolley)",
+	"gantry":   "gantry (gantry travel and trolley)",
+	"tower":    "tower (slewing jib with trolley)",
+	"slewing":  "slewing",
+	"monorail": "monorail (trolley on a beam)",
+}
+
+// WordsFor names an axis as the crew of a crane of the given kind says it
+// (crane.kind): on an overhead crane travel x is the bridge's travel and
+// travel y the trolley's; an unknown kind keeps the axis' own words.
+func WordsFor(kind, axis string) string {
+	a, ok := Of(axis)
+	if !ok {
+		return axis
+	}
+	bridge := map[string]string{"overhead": "bridge travel", "gantry": "gantry travel"}[kind]
+	switch {
+	case bridge != "" && a.Role == AlongX:
+		return bridge + " (x)"
+	case bridge != "" && a.Role == AlongY:
+		return "trolley travel (y)"
+	case kind == "monorail" && a.Role == AlongX:
+		return "trolley travel (x)"
+	}
+	return a.Words
+}

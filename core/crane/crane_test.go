@@ -61,3 +61,15 @@ func TestTable(t *testing.T) {
 		t.Error("unknown axis found")
 	}
 }
+
+func TestWordsFor(t *testing.T) {
+	for _, c := range []struct{ kind, axis, want string }{
+		{"overhead", "travel_x", "bridge travel (x)"}, {"overhead", "travel_y", "trolley travel (y)"},
+		{"gantry", "travel_x", "gantry travel (x)"}, {"tower", "slew", "slew"}, {"", "travel_x", "travel x"},
+		{"overhead", "nope", "nope"},
+	} {
+		if got := WordsFor(c.kind, c.axis); got != c.want {
+			t.Errorf("%s %s: %q, want %q", c.kind, c.axis, got, c.want)
+		}
+	}
+}

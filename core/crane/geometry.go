@@ -35,8 +35,10 @@ func (d *Drives) Of(a Axis) *motion.Sum { return &d[a.Role] }
 // Engineering Mechanics: Dynamics, ch. 2).
 func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
 	r0, phi0 := at.RadiusM, at.SlewRad
-	x, y, turn, reach := d[AlongX], d[AlongY], d[Turn], d[Reach]
-	if len(turn) == 0 && len(reach) == 0 && r0 == 0 {
+	// Combined: evaluated at a cost that does not grow with the moves.
+	x, y, turn, reach := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...),
+		motion.Combine(d[Turn]...), motion.Combine(d[Reach]...)
+	if len(d[Turn]) == 0 && len(d[Reach]) == 0 && r0 == 0 {
 		return func(t float64) pendulum.Kinematics {
 			a, b := x.At(t), y.At(t)
 			return pendulum.Kinematics{
@@ -65,7 +67,7 @@ func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
 // RopeLength returns the rope length in time from its length l0 at the
 // start: the hoist shortens it (rope length, its rate, its acceleration).
 func (d *Drives) RopeLength(l0 float64) func(float64) (float64, float64, float64) {
-	hoist := d[Rope]
+	hoist := motion.Combine(d[Rope]...)
 	return func(t float64) (float64, float64, float64) {
 		h := hoist.At(t)
 		return l0 - h.Pos, -h.Vel, -h.Acc

@@ -197,3 +197,66 @@ func TestNothingSimulated(t *testing.T) {
 		t.Fatalf("free swing without limits: %+v", rep.Verdict)
 	}
 }
+
+// The verdict over several rope lengths is the worst of each figure, and
+// says where it is: the same as holding each evaluation alone against the
+// limits.
+func TestPresentRopes(t *testing.T) {
+	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	lo, hi := 6.0, 12.0
+	s.Plan = &scenario.Plan{RopeLengthMinM: &lo, RopeLengthMaxM: &hi}
+	if got := RopeLengths(s); len(got) != 3 || got[0] != 8.5 || got[1] != 6 || got[2] != 12 {
+		t.Fatalf("rope lengths %v", got)
+	}
+	// The made-up plan block is not a whole one: evaluated unvalidated.
+	evals, err := EvaluateRopes(s, func(x *scenario.Scenario) (*sway.Result, error) {
+		return sway.EvaluateWith(x, sway.Options{Validated: true, NoHistory: true})
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	u := units.Choice{System: "us"}
+	rep := PresentRopes(s, evals, u)
+	if len(rep.Verdict.RopeLengthsM) != 3 || !strings.Contains(rep.Verdict.Text, " at rope ") {
+		t.Errorf("verdict %+v", rep.Verdict)
+	}
+	outside := map[string]bool{}
+	for _, e := range evals {
+		for _, k := range Present(AtRope(s, e.RopeLengthM), e.Result, u).Verdict.Outside {
+			outside[k] = true
+		}
+	}
+	if len(outside) != len(rep.Verdict.Outside) {
+		t.Errorf("outside %v, any alone %v", rep.Verdict.Outside, outside)
+	}
+	for _, row := range rep.Rows {
+		if row.Check == nil {
+			continue
+		}
+		worst := 0.0
+		for _, e := range evals {
+			v, _ := mustFigure(t, row.Key).Value(e.Result)
+			worst = max(worst, v)
+		}
+		if row.Check.WorstSI != worst || row.Check.Within != (worst <= row.Check.LimitSI) || row.Check.WorstRope == "" {
+			t.Errorf("%s: %+v, worst %v", row.Key, row.Check, worst)
+		}
+		if strings.Contains(row.Check.Words+row.Check.WorstRope, " m") {
+			t.Errorf("US words in metres: %q", row.Check.Words)
+		}
+	}
+	// A rope length that cannot be evaluated is said, not hidden.
+	bad := append([]Evaluation{}, evals...)
+	bad[2] = Evaluation{RopeLengthM: 12, Err: "too long"}
+	if r := PresentRopes(s, bad, u); !strings.Contains(r.Verdict.Text, "Not checked at rope 39.35 ft: too long") {
+		t.Errorf("failed rope: %s", r.Verdict.Text)
+	}
+}
+
+func mustFigure(t *testing.T, key string) Figure {
+	f, ok := ByKey(key)
+	if !ok {
+		t.Fatalf("no figure %s", key)
+	}
+	return f
+}

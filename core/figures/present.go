@@ -25,6 +25,8 @@ type Row struct {
 	// LimitKey is the limit the figure can be held against
 	// ("limits.peak_swing_deg"); empty when it has none.
 	LimitKey string `json:"limit_key,omitempty"`
+	// Detail: a figure for engineers, shown apart from the crew's lines.
+	Detail bool `json:"detail,omitempty"`
 	// Check is the verdict against the plan's limit; nil when the figure
 	// has no limit, the scenario sets none, or nothing was simulated.
 	Check *Check `json:"check,omitempty"`
@@ -42,6 +44,13 @@ type Check struct {
 	// Words say it all: "within the limit of 2.0 deg, 0.6 deg to spare",
 	// "OUTSIDE the limit of 2.0 deg by 0.4 deg".
 	Words string `json:"words"`
+	// Over several rope lengths (PresentRopes): the worst value, held
+	// against the limit, in SI and as text in the row's Unit, and the
+	// rope length it is at (as text with its unit).
+	WorstSI          float64 `json:"worst_si,omitempty"`
+	WorstText        string  `json:"worst_text,omitempty"`
+	WorstRopeLengthM float64 `json:"worst_rope_length_m,omitempty"`
+	WorstRope        string  `json:"worst_rope,omitempty"`
 }
 
 // Verdict states.
@@ -59,12 +68,18 @@ type Verdict struct {
 	// Outside are the keys of the figures beyond their limits.
 	Outside []string `json:"outside"`
 	Text    string   `json:"text"`
+	// RopeLengthsM are the rope lengths the verdict is over, shortest
+	// first, when more than one (PresentRopes).
+	RopeLengthsM []float64 `json:"rope_lengths_m,omitempty"`
 }
 
 // Report is what the "figures" bridge call returns.
 type Report struct {
 	Rows    []Row   `json:"rows"`
 	Verdict Verdict `json:"verdict"`
+	// ResultFor says what the figures are of when that is not the
+	// scenario's own moves ("the recommended drive setting (below)").
+	ResultFor string `json:"result_for,omitempty"`
 }
 
 // Present gives the rows of every figure r has, in the units of u, and
@@ -133,7 +148,7 @@ func (f Figure) row(v float64, u units.Choice) Row {
 	}
 	_, text := units.Round(shown, un)
 	row := Row{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Quantity: q, ValueSI: v, UnitSI: f.Unit,
-		Text: text, Unit: sym}
+		Text: text, Unit: sym, Detail: f.Detail}
 	if f.Limit != "" {
 		row.LimitKey = "limits." + f.Limit
 	}

@@ -28,6 +28,10 @@ type Figure struct {
 	// Limit is the scenario.Limits field (its JSON name) the figure is
 	// held against: within when value <= limit. Empty: no limit.
 	Limit string
+	// Detail marks a figure for engineers rather than the crew: the
+	// check sheet gives it in its engineering detail, not among the
+	// crew's lines.
+	Detail bool
 	// Value reads the figure from a result; false when the result does
 	// not have it (no wind, no hook block).
 	Value func(r *sway.Result) (float64, bool)
@@ -48,7 +52,7 @@ var Table = []Figure{
 	{Key: "period_s", Crew: "time for one full swing", Technical: "sway period (small swing, 2π√(L/g))",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
 	{Key: "period_amplitude_s", Crew: "full swing time at the swing left", Technical: "sway period at the residual swing's amplitude",
-		Unit: "s", Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
+		Unit: "s", Detail: true, Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
 	{Key: "tension_factor", Crew: "rope pull increase", Technical: "tension factor (peak rope tension / static)",
 		Unit: "", Limit: "tension_factor", Value: always(func(r *sway.Result) float64 { return r.TensionFactor })},
 	{Key: "tension_max_n", Crew: "largest rope pull", Technical: "peak rope tension",
@@ -70,9 +74,9 @@ var Table = []Figure{
 	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",
 		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[1] })},
 	{Key: "rigging.simulated_periods_s[0]", Crew: "slow swing, as simulated", Technical: "first mode period (simulated)",
-		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[0] })},
+		Unit: "s", Detail: true, Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[0] })},
 	{Key: "rigging.simulated_periods_s[1]", Crew: "quick swing, as simulated", Technical: "second mode period (simulated)",
-		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[1] })},
+		Unit: "s", Detail: true, Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[1] })},
 	{Key: "rigging.second_mode_share", Crew: "quick swing's share", Technical: "second mode's share of the load's swing (linear theory)",
 		Unit: "", Quantity: "share", Value: rigged(func(g *sway.Rigging) float64 { return g.SecondModeShare })},
 	{Key: "rigging.peak_rope_swing_deg", Crew: "largest swing of the hook's rope", Technical: "peak rope swing (hook block)",
@@ -102,7 +106,7 @@ var Table = []Figure{
 	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
-		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.RunS })},
+		Unit: "s", Detail: true, Value: always(func(r *sway.Result) float64 { return r.RunS })},
 }
 
 func always(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {

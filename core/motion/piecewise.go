@@ -85,27 +85,47 @@ func (b *builder) rest() *Piecewise {
 // PeakSpeed is the largest |speed| of a piecewise profile, found at span
 // ends and at the turning points of the speed inside spans.
 func (p *Piecewise) PeakSpeed() float64 {
-	m := 0.0
+	v, _ := p.PeakSpeedAt()
+	return v
+}
+
+// PeakSpeedAt is PeakSpeed and the first time it is reached.
+func (p *Piecewise) PeakSpeedAt() (float64, float64) {
+	m, at := 0.0, 0.0
+	offer := func(v, t float64) {
+		if v > m {
+			m, at = v, t
+		}
+	}
 	for i, q := range p.pieces {
-		m = math.Max(m, math.Abs(q.V))
+		offer(math.Abs(q.V), q.T)
 		if q.J != 0 {
 			u := -q.A / q.J
 			if u > 0 && (i+1 >= len(p.pieces) || q.T+u < p.pieces[i+1].T) {
-				m = math.Max(m, math.Abs(p.At(q.T+u).Vel))
+				offer(math.Abs(p.At(q.T+u).Vel), q.T+u)
 			}
 		}
 	}
-	return m
+	return m, at
 }
 
 // PeakAccel is the largest |acceleration| of a piecewise profile.
 func (p *Piecewise) PeakAccel() float64 {
-	m := 0.0
+	a, _ := p.PeakAccelAt()
+	return a
+}
+
+// PeakAccelAt is PeakAccel and the start of the first span reaching it.
+func (p *Piecewise) PeakAccelAt() (float64, float64) {
+	m, at := 0.0, 0.0
 	for i, q := range p.pieces {
-		m = math.Max(m, math.Abs(q.A))
+		a := math.Abs(q.A)
 		if i+1 < len(p.pieces) {
-			m = math.Max(m, math.Abs(q.A+q.J*(p.pieces[i+1].T-q.T)))
+			a = math.Max(a, math.Abs(q.A+q.J*(p.pieces[i+1].T-q.T)))
+		}
+		if a > m {
+			m, at = a, q.T
 		}
 	}
-	return m
+	return m, at
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sync"
 )
 
 // SCurve is a jerk-limited point-to-point move: the trapezoidal move of the
@@ -184,22 +185,30 @@ type Impulse struct {
 // and the same sum for speed and acceleration. With amplitudes that add to
 // one the shaped move covers the same distance, and lasts the last impulse
 // time longer (Singer & Seering, ASME J. Dyn. Sys. Meas. Control 112, 1990).
+// An evaluation looks only at the impulses whose copy of the base is
+// moving at t (see index); Base and Impulses must not change after the
+// first call of At.
 type Shaped struct {
 	Base     Profile
 	Impulses []Impulse
+
+	once sync.Once
+	idx  *index
+}
+
+func (s *Shaped) index() *index {
+	s.once.Do(func() {
+		terms := make([]term, len(s.Impulses))
+		for i, im := range s.Impulses {
+			terms[i] = term{p: s.Base, a: im.A, shift: im.T}
+		}
+		s.idx = newIndex(terms)
+	})
+	return s.idx
 }
 
 // At implements Profile.
-func (s *Shaped) At(t float64) State {
-	var out State
-	for _, im := range s.Impulses {
-		q := s.Base.At(t - im.T)
-		out.Pos += im.A * q.Pos
-		out.Vel += im.A * q.Vel
-		out.Acc += im.A * q.Acc
-	}
-	return out
-}
+func (s *Shaped) At(t float64) State { return s.index().at(t) }
 
 // Breakpoints implements Profile.
 func (s *Shaped) Breakpoints() []float64 {

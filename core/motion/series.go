@@ -123,8 +123,9 @@ func ParseCSV(r io.Reader) (*Series, error) {
 				return nil, &CSVError{Line: line, Column: name, Message: "the value is missing: every sample needs every column"}
 			}
 			v, err := strconv.ParseFloat(cell, 64)
-			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf("%q is not a number", cell)}
+			if !decimal(cell) || err != nil && !errors.Is(err, strconv.ErrRange) || math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf(
+					"%q is not a number: write it in decimal, like 0.25 or 2.5e-1", cell)}
 			}
 			if math.Abs(v) > MaxSeriesValue {
 				return nil, &CSVError{Line: line, Column: name, Message: fmt.Sprintf("%s is too large: accepted from %g to %g", cell, -MaxSeriesValue, MaxSeriesValue)}
@@ -155,6 +156,55 @@ func ParseCSV(r io.Reader) (*Series, error) {
 		return nil, err
 	}
 	return s, nil
+}
+
+// decimal reports whether text is a plain decimal number: an optional
+// sign, digits with an optional decimal point (at least one digit), and an
+// optional exponent e or E with an optional sign and digits. Go's
+// strconv.ParseFloat also reads hexadecimal (0x1p-2), underscores between
+// digits (1_0) and inf or nan, which no spreadsheet or drive log writes;
+// they are errors here.
+func decimal(text string) bool {
+	i, n := 0, len(text)
+	if i < n && (text[i] == '+' || text[i] == '-') {
+		i++
+	}
+	digits := 0
+	for ; i < n && text[i] >= '0' && text[i] <= '9'; i++ {
+		digits++
+	}
+	if i < n && text[i] == '.' {
+		for i++; i < n && text[i] >= '0' && text[i] <= '9'; i++ {
+			digits++
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < n && (text[i] == 'e' || text[i] == 'E') {
+		i++
+		if i < n && (text[i] == '+' || text[i] == '-') {
+			i++
+		}
+		exp := 0
+		for ; i < n && text[i] >= '0' && text[i] <= '9'; i++ {
+			exp++
+		}
+		if exp == 0 {
+			return false
+		}
+	}
+	return i == n
+}
+
+// LineAt is the file line of the last sample at or before time t (the
+// first sample's line for earlier times).
+func (s *Series) LineAt(t float64) int {
+	i := sort.SearchFloat64s(s.TimeS, t)
+	if i < len(s.TimeS) && s.TimeS[i] == t {
+		return s.lines[i]
+	}
+	return s.lines[max(i-1, 0)]
 }
 
 func (s *Series) readHeader(rec []string, line int) error {

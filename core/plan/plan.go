@@ -43,6 +43,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"sync/atomic"
 
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
@@ -51,9 +52,15 @@ import (
 	"swaysheet/core/units"
 )
 
-// RelTol is the integrator tolerance of the planner's simulations; the
-// figures it verifies agree with the default accuracy to about 1e-4 deg.
-const RelTol = 1e-6
+// RelTol is the integrator tolerance of the planner's simulations of the
+// options that can decide the recommendation; their figures agree with the
+// SciPy reference to about 1e-4 deg (TestPlannerAgainstReference). The
+// option recommended is simulated again at CheckRelTol, the default
+// accuracy of package sway, at every checked rope length.
+const (
+	RelTol      = 1e-5
+	CheckRelTol = sway.DefaultRelTol
+)
 
 // Assumptions of the planner, beyond those of the simulation.
 var Assumptions = []string{
@@ -91,11 +98,27 @@ type request struct {
 	// With a hook block: the second mode's design period, its largest
 	// share of the load's swing, the rigging length (m).
 	designT2, share2, rig float64
+	// budget is the work all the plan's runs draw on together.
+	budget *sway.Budget
+	// sims counts the simulations run.
+	sims atomic.Int64
 }
 
 // Make plans the move of s.Plan. s must carry a plan block; it is
 // validated first.
 func Make(s *scenario.Scenario) (*Result, error) {
+	return makeWith(s, sway.NewBudget(Work, budgetMessage))
+}
+
+// Work is the work budget of one plan, shared by all its runs (see
+// sway.Budget): about 5 s of one core, 2.6 s on two. A 1500 m travel with
+// a hook block over rope lengths 5 to 40 m needs about half of it; the
+// example plans need 1 % or less.
+const Work = 400_000_000
+
+const budgetMessage = "This plan needs more computing than allowed: narrow the rope-length range (plan.rope_length_min_m to plan.rope_length_max_m) or shorten the move (plan.distance_m or plan.angle_deg)."
+
+func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if s.Plan == nil {
 		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
 	}
@@ -103,6 +126,7 @@ func Make(s *scenario.Scenario) (*Result, error) {
 		return nil, err
 	}
 	rq := newRequest(s)
+	rq.budget = budget
 	g := units.StandardGravity
 	res := &Result{
 		Name: s.Name, Axis: s.Plan.Axis, RopeLengthM: *s.Load.RopeLengthM, RopeLengthsM: rq.ropes,
@@ -155,11 +179,12 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	if rq.zeta > 0 {
 		note(plain(fmt.Sprintf("ZV and ZVD are designed for the damping ratio %.3g; EI uses its undamped form.", rq.zeta)))
 	}
-	var opts []*Option
-	add := func(o *Option) { opts = append(opts, o) }
+	var cands []candidate
+	add := func(o *Option) { cands = append(cands, rq.fixed(o)) }
 	fastest := rq.trapezoidOption("drive_limits", "Drive limits, no sway control", rq.amax, rq.vmax)
 	fastest.Drive = rq.drive
 	add(fastest)
+	var searchNotes []Sentence
 	if rq.drive == scenario.DriveVariableSpeed {
 		for _, n := range rq.wholePeriods() {
 			add(rq.wholePeriodOption(n))
@@ -176,7 +201,17 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			if err != nil {
 				return nil, err
 			}
-			opts = append(opts, two...)
+			for _, o := range two {
+				add(o)
+			}
+		}
+		// The drive's single settings: found by linear theory, then
+		// simulated (and the next setting tried) if they can decide.
+		var rc []candidate
+		rc, searchNotes = rq.rampCandidates()
+		cands = append(cands, rc...)
+		if c := rq.peakCandidate(); c != nil {
+			cands = append(cands, *c)
 		}
 	} else {
 		// Steps that cannot be laid out for this move (far too short for
@@ -189,27 +224,10 @@ func Make(s *scenario.Scenario) (*Result, error) {
 			add(o)
 		}
 	}
-	// The searches for the drive's single settings run beside the
-	// verification of the other options.
-	var searched []*Option
-	var searchNotes []Sentence
-	var searchSims int
-	done := make(chan struct{})
-	go func() {
-		defer close(done)
-		if rq.drive != scenario.DriveVariableSpeed {
-			return
-		}
-		searched, searchNotes, searchSims = rq.rampSearch()
-		if peak, sims := rq.peakLimited(); peak != nil {
-			searched = append(searched, peak)
-			searchSims += sims
-		} else {
-			searchSims += sims
-		}
-	}()
-	kept, dropped := rq.verifyAll(opts)
-	<-done
+	kept, dropped := rq.screen(cands)
+	if rq.budget.Left() < 0 {
+		return nil, &sway.WorkError{Message: budgetMessage}
+	}
 	res.Dropped = append(res.Dropped, dropped...)
 	for _, d := range dropped {
 		note(plain(d))
@@ -217,15 +235,27 @@ func Make(s *scenario.Scenario) (*Result, error) {
 	for _, n := range searchNotes {
 		note(n)
 	}
-	res.Simulations = searchSims
-	for _, o := range kept {
-		res.Simulations += len(rq.checked) * (1 + len(o.draws))
+	// The option to recommend is simulated again at the check tolerance at
+	// every checked rope length; should that put it outside, the next is.
+	for {
+		rank(kept, fastest.MoveTimeS)
+		best := rq.choose(kept)
+		if best < 0 || kept[best].rechecked {
+			break
+		}
+		if rq.recheck(kept[best]); !kept[best].Within {
+			kept = rq.unscreen(kept)
+		}
 	}
-	kept = append(kept, searched...)
 	for _, o := range kept {
-		rq.checkedSentences(o)
+		if o.NotSimulated != "" {
+			finishScreened(o)
+			rq.estimatedSentences(o)
+		} else {
+			rq.checkedSentences(o)
+		}
 	}
-	rank(kept, fastest.MoveTimeS)
+	res.Simulations = int(rq.sims.Load())
 	rq.recommend(res, kept)
 	return res, nil
 }
@@ -381,60 +411,6 @@ func (rq *request) wholePeriodAccel(n int) (a, v float64) {
 // (1 = on the limit).
 func (o *Option) peakRatio(lim Limits) float64 {
 	return ratio(o.WorstPeakSwingDeg, lim.PeakSwingDeg, o.WorstPeakExcursionM, lim.PeakExcursionM)
-}
-
-// peakLimited finds the largest acceleration whose simulated peak is inside
-// the peak limits at every rope length. The first guess is the largest
-// acceleration, from g*tan(theta/2) (less the slew lean) down in steps of
-// 2 %, whose linear-theory peak (linearPeak) is inside the limits; the
-// simulation then corrects it (scaling by limit/peak). It returns nil when
-// the answer is the drive's largest acceleration, which the drive-limits
-// option already is.
-func (rq *request) peakLimited() (*Option, int) {
-	g := units.StandardGravity
-	th := rq.angleLimit()
-	if rq.slew {
-		th -= math.Atan(rq.radius * rq.vmax * rq.vmax / g)
-	}
-	a0 := math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
-	a := a0
-	for range 200 {
-		if rq.linearRatio(a) <= 0.99 {
-			break
-		}
-		a *= 0.98
-	}
-	var best *Option
-	sims := 0
-	for range 6 {
-		o := rq.trapezoidOption("peak_limited", "Acceleration for the peak limit", a, rq.vmax)
-		kept, _ := rq.verifyAll([]*Option{o})
-		sims += len(rq.checked)
-		if len(kept) == 0 {
-			break // not verifiable: left out
-		}
-		r := o.peakRatio(rq.lim)
-		if r <= 1 {
-			if best == nil || o.accel() > best.accel() {
-				best = o
-			}
-			if r > 0.95 || a >= rq.amax {
-				break
-			}
-		}
-		// The peak grows about in proportion to the acceleration.
-		next := math.Min(rq.amax, a*0.985/r)
-		if best != nil && next <= best.accel()*1.01 {
-			break
-		}
-		a = next
-	}
-	if best == nil || best.accel() >= rq.amax*(1-1e-9) {
-		return nil, sims
-	}
-	best.add(say("Found from g*tan(theta_lim/2) = {0} (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits, then corrected by simulation at every rope length.",
-		rq.accelQ(a0)))
-	return best, sims
 }
 
 // accel is the option's acceleration setting in SI (m/s² or rad/s²).

@@ -101,6 +101,8 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 		}
 		n := 2 * int(math.Ceil((t1-t0)*w/(2*math.Pi)*8/2+1))
 		h := (t1 - t0) / float64(n)
+		// exp(-i*w*t) at t = t0 + k*h, by turning a step at a time.
+		e, turn := cmplx.Exp(complex(0, -w*t0)), cmplx.Exp(complex(0, -w*h))
 		for k := 0; k <= n; k++ {
 			t := t0 + float64(k)*h
 			st := p.At(t)
@@ -113,9 +115,10 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 			} else if k%2 == 1 {
 				wt = 4
 			}
-			e := cmplx.Exp(complex(0, -w*t)) * complex(wt*h/3, 0)
-			x += complex(ax, 0) * e
-			y += complex(ay, 0) * e
+			f := e * complex(wt*h/3, 0)
+			x += complex(ax, 0) * f
+			y += complex(ay, 0) * f
+			e *= turn
 		}
 	}
 	// x(t) = Re(X e^(iwt)), y(t) = Re(Y e^(iwt)): the largest radius of
@@ -125,8 +128,9 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 }
 
 // rampOK reports whether one ramp setting passes the linear screening at
-// each of the grid's rope lengths.
-func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64) []bool {
+// each of the grid's rope lengths; unless full, it stops at the first
+// that fails (the rest then read false).
+func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool) []bool {
 	a := rq.vmax / tr
 	peakOK := rq.linearRatio(a) <= 1
 	out := make([]bool, len(grid))
@@ -136,6 +140,9 @@ func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64) []bool {
 	}
 	for i, ms := range grid {
 		out[i] = peakOK && rq.rampResidual(tr, r, ms) <= share*rq.resLimitRad(ls[i])
+		if !out[i] && !full {
+			break
+		}
 	}
 	return out
 }
@@ -161,6 +168,30 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 	}
 	tmin := math.Ceil(rq.vmax/rq.amax*10-1e-9) / 10
 	tmax := math.Min(120, 4*rq.periodAt(hi))
+	best := rq.scanRamps(tmin, tmax, maxR, grid, ls, false)
+	if len(best.candidates) == 0 {
+		// None passes: again, every rope length of every setting, for the
+		// widest run of lengths one setting covers.
+		best = rq.scanRamps(tmin, tmax, maxR, grid, ls, true)
+	}
+	if len(best.candidates) > 0 {
+		// Shortest total time (ramp plus rounding) first.
+		c := best.candidates
+		for i := range c {
+			for j := i + 1; j < len(c); j++ {
+				if c[j][0]+c[j][1] < c[i][0]+c[i][1] {
+					c[i], c[j] = c[j], c[i]
+				}
+			}
+		}
+		best.ok, best.tr, best.r = true, c[0][0], c[0][1]
+	}
+	return best
+}
+
+// scanRamps tries the settings in order, up to four passing ones for each
+// rounding; with full it also tracks the widest run of passing lengths.
+func (rq *request) scanRamps(tmin, tmax, maxR float64, grid []modeSet, ls []float64, full bool) rampSetting {
 	var best rampSetting
 	bestCover := -1.0
 	// The grids: 0.1 s and 0.5 s, coarser (in whole tenths) when the range
@@ -172,7 +203,7 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 		found := 0
 		for tr := tmin; tr <= tmax+1e-9 && found < 4; tr += dt {
 			tr = math.Round(tr*10) / 10
-			ok := rq.rampOK(tr, r, grid, ls)
+			ok := rq.rampOK(tr, r, grid, ls, full)
 			all := true
 			// The widest run of passing lengths.
 			run, start := 0, 0
@@ -195,18 +226,6 @@ func (rq *request) findRamp(maxR float64) rampSetting {
 				found++ // a few longer ones, should the simulation disagree
 			}
 		}
-	}
-	if len(best.candidates) > 0 {
-		// Shortest total time (ramp plus rounding) first.
-		c := best.candidates
-		for i := range c {
-			for j := i + 1; j < len(c); j++ {
-				if c[j][0]+c[j][1] < c[i][0]+c[i][1] {
-					c[i], c[j] = c[j], c[i]
-				}
-			}
-		}
-		best.ok, best.tr, best.r = true, c[0][0], c[0][1]
 	}
 	return best
 }
@@ -260,12 +279,13 @@ func (rq *request) speedQ(v float64) Quantity {
 	return qSpeed(v)
 }
 
-// rampSearch offers the drive's single ramp setting (and one with S-curve
-// rounding when the drive has it): the shortest passing the screening
-// whose simulation keeps inside the limits, trying up to four candidates
-// each. When no setting passes it says which rope lengths the best one
-// covers, and offers it for what it is.
-func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
+// rampCandidates offer the drive's single ramp setting (and one with
+// S-curve rounding when the drive has it): the shortest passing the
+// screening, and when it can decide the recommendation (screen.go), the
+// shortest whose simulation keeps inside the limits, trying up to four
+// candidates each. When no setting passes it says which rope lengths the
+// best one covers, and offers it for what it is.
+func (rq *request) rampCandidates() (out []candidate, notes []Sentence) {
 	maxR := rq.s.Plan.SCurveMaxRoundingS
 	for _, withR := range []bool{false, true} {
 		if withR && maxR <= 0 {
@@ -298,36 +318,38 @@ func (rq *request) rampSearch() (out []*Option, notes []Sentence, sims int) {
 			notes = append(notes, say("Linear theory finds no single ramp time that keeps the residual swing within its screening bound from {0} to {1}; the best, {2}, covers {3} to {4}. Its option is simulated at the checked rope lengths; between them, or to be sure, narrow the rope-length range or use a shaped speed profile.",
 				qLen(lo).digits(4), qLen(hi).digits(4), qTime(rs.tr).digits(3), qLen(rs.coverLo).digits(4), qLen(rs.coverHi).digits(4)))
 			o := rq.rampOption(rs.tr, rs.r)
-			if kept, _ := rq.verifyAll([]*Option{o}); len(kept) > 0 {
+			out = append(out, candidate{o: o, verify: func() (*Option, []string) {
+				kept, _ := rq.verifyAll([]*Option{o}, RelTol)
+				if len(kept) == 0 {
+					return nil, nil
+				}
 				if !o.Within {
 					o.Label += " (does not cover the whole range)"
 				}
-				out = append(out, o)
-			}
-			sims += len(rq.checked)
+				return o, nil
+			}})
 			continue
 		}
-		var last *Option
-		for i, c := range rs.candidates {
-			if i >= 4 {
-				break
+		cs := rs.candidates
+		out = append(out, candidate{o: rq.rampOption(cs[0][0], cs[0][1]), verify: func() (*Option, []string) {
+			var last *Option
+			for i, c := range cs {
+				if i >= 4 {
+					break
+				}
+				o := rq.rampOption(c[0], c[1])
+				if kept, _ := rq.verifyAll([]*Option{o}, RelTol); len(kept) == 0 {
+					continue
+				}
+				last = o
+				if o.Within {
+					break
+				}
 			}
-			o := rq.rampOption(c[0], c[1])
-			kept, _ := rq.verifyAll([]*Option{o})
-			sims += len(rq.checked)
-			if len(kept) == 0 {
-				continue
-			}
-			last = o
-			if o.Within {
-				break
-			}
-		}
-		if last != nil {
-			out = append(out, last) // verified
-		}
+			return last, nil
+		}})
 	}
-	return out, notes, sims
+	return out, notes
 }
 
 // steadyTurn is the integral over [t0, t1] of the hook's acceleration

@@ -51,28 +51,8 @@ func (rq *request) recommend(res *Result, opts []*Option) {
 		res.ReasonSentence = say(fmt.Sprintf("No option keeps the load inside every limit at the %d rope lengths checked from {0} to {1}.", len(rq.checked)), ropes...)
 		return
 	}
-	best := 0
+	best := rq.choose(opts)
 	both := rq.twoMode()
-	for i := 1; i < len(opts); i++ {
-		o := opts[i]
-		if !o.Within || o.MoveTimeS > opts[0].MoveTimeS*1.05 {
-			break
-		}
-		b := opts[best]
-		single := func(x *Option) bool { return x.RampTimeS > 0 }
-		switch {
-		case both && o.TwoMode != b.TwoMode:
-			if o.TwoMode {
-				best = i
-			}
-		case single(o) != single(b):
-			if single(o) {
-				best = i
-			}
-		case o.WorstResidualSwingDeg < 0.5*b.WorstResidualSwingDeg:
-			best = i
-		}
-	}
 	o := opts[best]
 	why := "fastest option that keeps peak and residual swing inside the limits at every rope length checked"
 	if best != 0 {
@@ -108,6 +88,41 @@ func (rq *request) recommend(res *Result, opts []*Option) {
 	if rq.s.Load.Hook != nil {
 		res.ReasonSentence = res.ReasonSentence.join(rq.modeReason(o))
 	}
+}
+
+// choose is the index of the option to recommend among the ranked
+// options, or -1 when none is within the limits: the fastest within them
+// unless one within 5 % of its move time is less than half as sensitive to
+// the rope length, one setting of the drive where the fastest is a
+// programmed profile, or (hook block) designed for both modes where it is
+// not.
+func (rq *request) choose(opts []*Option) int {
+	if len(opts) == 0 || !opts[0].Within {
+		return -1
+	}
+	best := 0
+	both := rq.twoMode()
+	for i := 1; i < len(opts); i++ {
+		o := opts[i]
+		if !o.Within || o.MoveTimeS > opts[0].MoveTimeS*windowFactor {
+			break
+		}
+		b := opts[best]
+		single := func(x *Option) bool { return x.RampTimeS > 0 }
+		switch {
+		case both && o.TwoMode != b.TwoMode:
+			if o.TwoMode {
+				best = i
+			}
+		case single(o) != single(b):
+			if single(o) {
+				best = i
+			}
+		case o.WorstResidualSwingDeg < 0.5*b.WorstResidualSwingDeg:
+			best = i
+		}
+	}
+	return best
 }
 
 // whatToChange explains, from the options' failures, what would make the

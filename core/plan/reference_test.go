@@ -48,11 +48,14 @@ func TestPlannerAgainstReference(t *testing.T) {
 			ref[filepath.Base(e.Scenario)] = m
 		}
 	}
-	// Bounds for the planner's RelTol = 1e-6 runs, about 10 times the
-	// largest differences seen over the 21 runs (printed with -v, recorded
-	// in the README: 1.1e-5 deg, 1.7e-6 m, 1.3e-8), far below the plan
-	// limits they decide (0.5 deg and more).
-	const swingDeg, excursionM, tensionFactor = 1e-4, 1e-5, 1e-7
+	// Bounds for the recommended option's runs at CheckRelTol (the default
+	// accuracy), about 10 times the largest differences seen at the
+	// planner's former 1e-6 (1.1e-5 deg, 1.7e-6 m, 1.3e-8), and for the
+	// other options' runs at RelTol = 1e-5, about 10 times the largest seen
+	// there (1.2e-4 deg, 1.9e-5 m, 1.2e-7; printed with -v, recorded in the
+	// README); all far below the plan limits they decide (0.5 deg and more).
+	type bounds struct{ swingDeg, excursionM, tensionFactor float64 }
+	checkTol, looseTol := bounds{1e-4, 1e-5, 1e-7}, bounds{1.5e-3, 2e-4, 2e-6}
 	worst := map[string]float64{}
 	compared := 0
 	examples, err := filepath.Glob("../../testdata/scenarios/plan-*.json")
@@ -62,12 +65,30 @@ func TestPlannerAgainstReference(t *testing.T) {
 	for _, ex := range examples {
 		base := filepath.Base(ex)
 		stem := strings.TrimSuffix(strings.TrimPrefix(base, "plan-"), ".json")
-		res, err := Make(load(t, base))
+		s := load(t, base)
+		res, err := Make(s)
 		if err != nil {
 			t.Fatalf("%s: %v", base, err)
 		}
-		for _, o := range res.Options {
-			for _, v := range o.Verified {
+		for i, o := range res.Options {
+			b := looseTol
+			if i == res.Recommended {
+				b = checkTol
+			}
+			vs := o.Verified
+			if o.NotSimulated != "" {
+				// Screened (screen.go): its move run here as the planner
+				// would have run it, at RelTol.
+				rq := newRequest(s)
+				for _, e := range o.Estimated {
+					v, err := rq.simulate(&o.Motion, e.RopeLengthM, RelTol)
+					if err != nil {
+						t.Fatalf("%s %s: %v", base, o.Key, err)
+					}
+					vs = append(vs, v)
+				}
+			}
+			for _, v := range vs {
 				if v.Exact != nil {
 					v = *v.Exact // a pendant option's move as planned (its Verified are percentiles)
 				}
@@ -108,16 +129,22 @@ func TestPlannerAgainstReference(t *testing.T) {
 					}
 				}
 				// Source: SciPy solve_ivp DOP853 (SciPy 1.10.1), rtol = atol = 1e-12.
-				check("peak_swing_deg", v.PeakSwingDeg, r["peak_swing_deg"], swingDeg)
-				check("residual_swing_deg", v.ResidualSwingDeg, r["residual_swing_deg"], swingDeg)
-				check("peak_excursion_m", v.PeakExcursionM, r["peak_excursion_m"], excursionM)
-				check("tension_factor", v.TensionFactor, r["tension_factor"], tensionFactor)
+				pre := "loose "
+				if b == checkTol {
+					pre = "check "
+				}
+				check(pre+"peak_swing_deg", v.PeakSwingDeg, r["peak_swing_deg"], b.swingDeg)
+				check(pre+"residual_swing_deg", v.ResidualSwingDeg, r["residual_swing_deg"], b.swingDeg)
+				check(pre+"peak_excursion_m", v.PeakExcursionM, r["peak_excursion_m"], b.excursionM)
+				check(pre+"tension_factor", v.TensionFactor, r["tension_factor"], b.tensionFactor)
 			}
 		}
 	}
 	if compared < 12 {
 		t.Errorf("compared %d planner runs with the reference, want at least 12", compared)
 	}
-	t.Logf("%d planner verification runs compared; largest differences: peak swing %.3g deg, residual swing %.3g deg, peak excursion %.3g m, tension factor %.3g",
-		compared, worst["peak_swing_deg"], worst["residual_swing_deg"], worst["peak_excursion_m"], worst["tension_factor"])
+	for _, pre := range []string{"check ", "loose "} {
+		t.Logf("%d planner verification runs compared; largest differences (%sruns): peak swing %.3g deg, residual swing %.3g deg, peak excursion %.3g m, tension factor %.3g",
+			compared, pre, worst[pre+"peak_swing_deg"], worst[pre+"residual_swing_deg"], worst[pre+"peak_excursion_m"], worst[pre+"tension_factor"])
+	}
 }

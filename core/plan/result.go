@@ -125,6 +125,11 @@ type Option struct {
 	FindingSentences []Sentence `json:"finding_sentences"`
 	SpeedProfile     []Knot     `json:"speed_profile,omitempty"` // variable-speed drive
 	Presses          []Press    `json:"presses,omitempty"`       // step-speed pendant
+	// NotSimulated says why a screened option was not simulated (screen.go);
+	// its figures are then linear-theory estimates, in Estimated, and
+	// Verified is empty. Empty for a simulated option.
+	NotSimulated string     `json:"not_simulated,omitempty"`
+	Estimated    []Estimate `json:"estimated,omitempty"`
 	// Motion is the option as a scenario move, to save or evaluate.
 	Motion scenario.Motion `json:"motion"`
 
@@ -132,6 +137,21 @@ type Option struct {
 	accelSI float64
 	draws   []scenario.Motion // the move as pressed, one per drawn timing
 	checked func(*Option)     // adds sentences once the figures are known
+	// estimated: the linear-theory figures; rechecked: simulated at the
+	// check tolerance (CheckRelTol).
+	estimated []Verified
+	rechecked bool
+	verify    func() (*Option, []string) // a screened option's simulation
+}
+
+// Estimate is an option's linear-theory figures at one rope length, for an
+// option that was not simulated (screen.go).
+type Estimate struct {
+	RopeLengthM        float64 `json:"rope_length_m"`
+	PeakSwingDeg       float64 `json:"peak_swing_deg"`
+	PeakExcursionM     float64 `json:"peak_excursion_m"`
+	ResidualSwingDeg   float64 `json:"residual_swing_deg"`
+	ResidualExcursionM float64 `json:"residual_excursion_m"`
 }
 
 // add appends a sentence to the option's settings.
@@ -152,6 +172,10 @@ type Verified struct {
 	PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg,omitempty"`
 	ResidualExcursionM  float64 `json:"residual_excursion_m"`
 	Warnings            int     `json:"warnings"`
+	// Draws is the number of drawn timings a pendant option's percentiles
+	// are over at this rope length (fewer than Timing.Draws when the
+	// answer was decided early: see verify.go).
+	Draws int `json:"draws,omitempty"`
 	// Exact holds a pendant option's figures with the presses exactly at
 	// their cues (the Verified figures are then 90th percentiles).
 	Exact *Verified `json:"exact,omitempty"`

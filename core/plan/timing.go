@@ -5,7 +5,7 @@ import (
 	"math"
 	"math/cmplx"
 	"math/rand/v2"
-	"sort"
+	"slices"
 
 	"swaysheet/core/scenario"
 )
@@ -92,7 +92,7 @@ func percentile(xs []float64, p float64) float64 {
 	if len(xs) == 0 {
 		return 0
 	}
-	sort.Float64s(xs)
+	slices.Sort(xs)
 	k := int(math.Ceil(p/100*float64(len(xs)))) - 1
 	return xs[max(0, min(k, len(xs)-1))]
 }
@@ -152,6 +152,112 @@ func robustCost(g group, gaps []float64, ws []modeSet, tm Timing, errs [][]float
 	return percentile(vals, tm.Percentile)
 }
 
+// costTable is robustCost for counts on the grid 0, CueStepS, ...,
+// steps*CueStepS, with the rotating vectors tabled: a press made a gap
+// x = max(0, count + delay + sigma*e) after the one before turns every later
+// step's vector by exp(i*w*x), so the group's vector is the sum over steps
+// k of C_k*prod_(j<=k) P_j with C_k = A_k*sinc(w*tau_k/2)*exp(i*w*tau_k/2)
+// and P_j the turn of press j's gap (the same sum as group.vector, as
+// products instead of one exponential each).
+type costTable struct {
+	g     group
+	ws    []modeSet
+	tm    Timing
+	steps int
+	// turn[d][k][c][m] is press k's turn in draw d with count c, for the
+	// m-th frequency (rope lengths, then modes, flattened); coef[k][m] is C_k.
+	turn  [][][][]complex128
+	coef  [][]complex128
+	share []float64
+	vals  []float64
+}
+
+func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64) *costTable {
+	ct := &costTable{g: g, ws: ws, tm: tm, steps: steps}
+	var om []float64
+	for _, ms := range ws {
+		om = append(om, ms.omega...)
+		ct.share = append(ct.share, ms.share...)
+	}
+	n := len(g.share)
+	ct.coef = make([][]complex128, n)
+	for k, a := range g.share {
+		ct.coef[k] = make([]complex128, len(om))
+		for m, w := range om {
+			x := w * g.tau[k] / 2
+			sinc := 1.0
+			if x > 1e-9 {
+				sinc = math.Sin(x) / x
+			}
+			ct.coef[k][m] = complex(a*sinc, 0) * cmplx.Exp(complex(0, w*g.tau[k]/2))
+		}
+	}
+	ct.turn = make([][][][]complex128, len(errs))
+	for d, e := range errs {
+		ct.turn[d] = make([][][]complex128, n)
+		for k := 1; k < n; k++ {
+			ct.turn[d][k] = make([][]complex128, steps+1)
+			for c := range ct.turn[d][k] {
+				x := math.Max(0, float64(c)*CueStepS+tm.ReactionDelayS+tm.SigmaS*e[k])
+				row := make([]complex128, len(om))
+				for m, w := range om {
+					row[m] = cmplx.Exp(complex(0, w*x))
+				}
+				ct.turn[d][k][c] = row
+			}
+		}
+	}
+	ct.vals = make([]float64, 0, len(errs)*len(ws))
+	return ct
+}
+
+// cost is the p90 of the counts c (c[0] unused), which must be on the
+// table's grid; or +Inf as soon as it is known to be at least bound (the
+// nearest-rank percentile of N values is the k-th smallest, so it is at
+// least bound once N - k + 1 values are), which leaves the search's
+// choice as it was and skips most of the work for poor counts.
+func (ct *costTable) cost(counts []float64, bound float64) float64 {
+	n := len(ct.g.share)
+	idx := make([]int, n)
+	for k := 1; k < n; k++ {
+		idx[k] = int(math.Round(counts[k] / CueStepS))
+	}
+	ct.vals = ct.vals[:0]
+	total := len(ct.turn) * len(ct.ws)
+	stop := total - int(math.Ceil(ct.tm.Percentile/100*float64(total))) + 1
+	over := 0
+	nm := len(ct.share)
+	rot := make([]complex128, nm)
+	sum := make([]complex128, nm)
+	for d := range ct.turn {
+		for m := range rot {
+			rot[m], sum[m] = 1, ct.coef[0][m]
+		}
+		for k := 1; k < n; k++ {
+			tr := ct.turn[d][k][idx[k]]
+			for m := range rot {
+				rot[m] *= tr[m]
+				sum[m] += ct.coef[k][m] * rot[m]
+			}
+		}
+		m := 0
+		for _, ms := range ct.ws {
+			v := 0.0
+			for i := range ms.omega {
+				v += ms.share[i] * cmplx.Abs(sum[m+i])
+			}
+			m += len(ms.omega)
+			ct.vals = append(ct.vals, v)
+			if v >= bound {
+				if over++; over >= stop {
+					return math.Inf(1)
+				}
+			}
+		}
+	}
+	return percentile(ct.vals, ct.tm.Percentile)
+}
+
 // robustGaps picks the counts of a group on the CueStepS grid (0 up to
 // maxS each) that make its p90 residual smallest, starting from the exact
 // times start (rounded): every pair of counts for three steps or fewer
@@ -163,13 +269,21 @@ func robustGaps(g group, start []float64, maxS float64, ws []modeSet, tm Timing,
 	for k := 1; k < n; k++ {
 		counts[k] = math.Max(0, math.Round((start[k]-start[k-1]-tm.ReactionDelayS)/CueStepS)*CueStepS)
 	}
-	best := robustCost(g, counts, ws, tm, errs) // counted adds the delay
+	steps := int(maxS / CueStepS)
+	cost := func(c []float64, _ float64) float64 { return robustCost(g, c, ws, tm, errs) } // counted adds the delay
+	onGrid := true
+	for _, c := range counts {
+		onGrid = onGrid && c <= float64(steps)*CueStepS
+	}
+	if n > 1 && onGrid {
+		cost = newCostTable(g, steps, ws, tm, errs).cost
+	}
+	best := cost(counts, math.Inf(1))
 	if n == 1 {
 		return counts
 	}
-	steps := int(maxS / CueStepS)
 	try := func(c []float64) {
-		if v := robustCost(g, c, ws, tm, errs); v < best-1e-12 {
+		if v := cost(c, best-1e-12); v < best-1e-12 {
 			best = v
 			copy(counts, c)
 		}

@@ -146,19 +146,6 @@ func TestLightHookPlan(t *testing.T) {
 
 func ptr(x float64) *float64 { return &x }
 
-// BenchmarkPlanHeavyHook is one full plan of the heavy-hook example:
-// single- and two-mode options, each simulated with both masses at three
-// rope lengths, plus the peak search. Target: under 100 ms per plan on the
-// native build.
-func BenchmarkPlanHeavyHook(b *testing.B) {
-	s := load(b, "plan-precast-hook.json")
-	for b.Loop() {
-		if _, err := Make(s); err != nil {
-			b.Fatal(err)
-		}
-	}
-}
-
 // The crew's own pendant steps under the heavy hook block are timed with
 // both modes in view (each mode's residual vibration V, Singer & Seering
 // 1990, weighted by its share of the load's swing), and four equal steps

@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"runtime"
@@ -12,26 +13,32 @@ import (
 	"swaysheet/core/units"
 )
 
-// verifyAll simulates every option at every checked rope length, in
-// parallel: a drive-timed option once, a pendant option once as planned
-// and once for each drawn timing. An option whose simulation fails (the
-// run's step limit, a rope that goes slack in a way the model refuses) is
-// left out and named in the returned list with why; the others are kept.
-func (rq *request) verifyAll(opts []*Option) (kept []*Option, dropped []string) {
-	type job struct{ o, l, d int } // d = -1: the planned move
+// verifyAll simulates every option at every checked rope length at the
+// integrator tolerance tol, in parallel over options and rope lengths: a
+// drive-timed option once, a pendant option once as planned and then for
+// its drawn timings in order, until the answer at that rope length is
+// decided (decided). An option whose simulation fails (the run's step
+// limit, a rope that goes slack in a way the model refuses) is left out
+// and named in the returned list with why; the others are kept.
+func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropped []string) {
+	type job struct{ o, l int }
 	jobs := make(chan job)
 	exact := make([][]Verified, len(opts))
 	drawn := make([][][]Verified, len(opts))
 	failed := make([]error, len(opts))
-	for i, o := range opts {
+	for i := range opts {
 		exact[i] = make([]Verified, len(rq.checked))
 		drawn[i] = make([][]Verified, len(rq.checked))
-		for l := range drawn[i] {
-			drawn[i][l] = make([]Verified, len(o.draws))
-		}
 	}
 	var wg sync.WaitGroup
 	var mu sync.Mutex
+	fail := func(j job, err error) {
+		mu.Lock()
+		if failed[j.o] == nil {
+			failed[j.o] = fmt.Errorf("at rope length %.4g m: %w", rq.checked[j.l], err)
+		}
+		mu.Unlock()
+	}
 	for range runtime.GOMAXPROCS(0) {
 		wg.Add(1)
 		go func() {
@@ -43,32 +50,32 @@ func (rq *request) verifyAll(opts []*Option) (kept []*Option, dropped []string) 
 				if skip {
 					continue
 				}
-				m := &opts[j.o].Motion
-				if j.d >= 0 {
-					m = &opts[j.o].draws[j.d]
-				}
-				v, err := rq.simulate(m, rq.checked[j.l])
+				o, rope := opts[j.o], rq.checked[j.l]
+				v, err := rq.simulate(&o.Motion, rope, tol)
 				if err != nil {
-					mu.Lock()
-					if failed[j.o] == nil {
-						failed[j.o] = fmt.Errorf("at rope length %.4g m: %w", rq.checked[j.l], err)
-					}
-					mu.Unlock()
+					fail(j, err)
 					continue
 				}
-				if j.d < 0 {
-					exact[j.o][j.l] = v
-				} else {
-					drawn[j.o][j.l][j.d] = v
+				exact[j.o][j.l] = v
+				var ds []Verified
+				for d := range o.draws {
+					v, err := rq.simulate(&o.draws[d], rope, tol)
+					if err != nil {
+						fail(j, err)
+						break
+					}
+					ds = append(ds, v)
+					if rq.decided(ds, len(o.draws)) {
+						break
+					}
 				}
+				drawn[j.o][j.l] = ds
 			}
 		}()
 	}
 	for o := range opts {
 		for l := range rq.checked {
-			for d := -1; d < len(opts[o].draws); d++ {
-				jobs <- job{o, l, d}
-			}
+			jobs <- job{o, l}
 		}
 	}
 	close(jobs)
@@ -94,6 +101,61 @@ func (rq *request) verifyAll(opts []*Option) (kept []*Option, dropped []string) 
 	return kept, dropped
 }
 
+// MinTimingDraws is the fewest drawn timings simulated at a rope length.
+const MinTimingDraws = 20
+
+// decided reports whether the draws so far (ds, of n) already decide the
+// verdict of the percentile over all n at this rope length, and at least
+// MinTimingDraws are done. The nearest-rank percentile of n is the k-th
+// smallest, k = ceil(p*n) (36 of 40 for the 90th): it is beyond a limit
+// exactly when n - k + 1 draws (5 of 40) are, so that many beyond any one
+// limit decide "outside" whatever the others give, and k draws inside
+// every limit decide "within". The figures stated are then the percentile
+// over the draws made (Verified.Draws says how many): the verdict is the
+// one all n draws would give, the figures an estimate from fewer draws.
+func (rq *request) decided(ds []Verified, n int) bool {
+	if len(ds) >= n {
+		return true
+	}
+	if len(ds) < MinTimingDraws || !screening {
+		return false
+	}
+	k := int(math.Ceil(TimingPercentile / 100 * float64(n)))
+	lim := rq.lim
+	beyond := [4]int{}
+	inside := 0
+	for _, v := range ds {
+		figs := [4][2]float64{{v.PeakSwingDeg, lim.PeakSwingDeg}, {v.PeakExcursionM, lim.PeakExcursionM},
+			{v.ResidualSwingDeg, lim.ResidualSwingDeg}, {v.ResidualExcursionM, lim.ResidualExcursionM}}
+		all := true
+		for f, x := range figs {
+			if x[1] > 0 && x[0] > x[1] {
+				beyond[f]++
+				all = false
+			}
+		}
+		if all {
+			inside++
+		}
+	}
+	for _, b := range beyond {
+		if b >= n-k+1 {
+			return true
+		}
+	}
+	return inside >= k
+}
+
+// recheck simulates the option again at CheckRelTol at every checked rope
+// length and takes those figures (a pendant option with its draws).
+func (rq *request) recheck(o *Option) {
+	o.rechecked = true
+	if kept, _ := rq.verifyAll([]*Option{o}, CheckRelTol); len(kept) == 0 {
+		o.Within = false
+		o.Outside = append(o.Outside, "could not be simulated again at the default accuracy")
+	}
+}
+
 // p90 is the percentile of each figure over the drawn runs, with the
 // planned run's figures as Exact.
 func p90(vs []Verified, exact Verified) Verified {
@@ -115,19 +177,24 @@ func p90(vs []Verified, exact Verified) Verified {
 	for _, v := range vs {
 		out.Warnings = max(out.Warnings, v.Warnings)
 	}
+	out.Draws = len(vs)
 	e := exact
 	out.Exact = &e
 	return out
 }
 
 // simulate runs one move at one rope length.
-func (rq *request) simulate(m *scenario.Motion, rope float64) (Verified, error) {
+func (rq *request) simulate(m *scenario.Motion, rope, tol float64) (Verified, error) {
+	rq.sims.Add(1)
 	sc := *rq.s
 	sc.Plan = nil
 	sc.Motions = []scenario.Motion{*m}
 	sc.Load.RopeLengthM = &rope
-	sc.Settings = &scenario.Settings{RelTol: RelTol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true})
+	sc.Settings = &scenario.Settings{RelTol: tol, SettlePeriods: 2}
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true, Budget: rq.budget})
+	if errors.Is(err, sway.ErrStepLimit) {
+		err = &sway.WorkError{Message: budgetMessage}
+	}
 	if err != nil {
 		return Verified{}, err
 	}
@@ -209,8 +276,18 @@ func (rq *request) checkedSentences(o *Option) {
 	}
 	qs = append(qs, qTime(tm.SigmaS), qTime(tm.ReactionDelayS))
 	k := len(qs)
-	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %d draws at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
-		k-2, k-1, tm.Draws, n, exc, verdict), qs...))
+	dlo, dhi := tm.Draws, 0
+	for _, v := range o.Verified {
+		dlo, dhi = min(dlo, v.Draws), max(dhi, v.Draws)
+	}
+	draws := fmt.Sprintf("%d draws", tm.Draws)
+	if dlo < tm.Draws && dlo == dhi {
+		draws = fmt.Sprintf("%d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, tm.Draws, MinTimingDraws)
+	} else if dlo < tm.Draws {
+		draws = fmt.Sprintf("%d to %d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, dhi, tm.Draws, MinTimingDraws)
+	}
+	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %s at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
+		k-2, k-1, draws, n, exc, verdict), qs...))
 	ex := 0.0
 	for _, v := range o.Verified {
 		if v.Exact != nil {

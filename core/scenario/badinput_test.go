@@ -32,7 +32,7 @@ func TestBadInput(t *testing.T) {
 		{"negative rope", file(`{"mass_kg": 1000, "rope_length_m": -2}`, ""), "load.rope_length_m", "-2 is out of range"},
 		{"zero mass", file(`{"mass_kg": 0, "rope_length_m": 5}`, ""), "load.mass_kg", "0 is out of range: accepted from 0.1 up to 2e+06 kg"},
 		{"absurd acceleration", "{" + head + `, "load": ` + good + `, "motions": [{"axis": "travel_x", "distance_m": 4, "speed_m_per_s": 0.5, "accel_m_per_s2": 50}]}`,
-			"motions[0].accel_m_per_s2", "50 is out of range: accepted above 0 up to 5 m/s²"},
+			"motions[0].accel_m_per_s2", "50 is out of range: accepted from 0.001 up to 5 m/s²"},
 		{"text for a number", file(`{"mass_kg": "1 t", "rope_length_m": 5}`, ""), "load.mass_kg", "expected a number, found a JSON string"},
 		{"text for a number in a move", "{" + head + `, "load": ` + good + `, "motions": [` + move + `, {"axis": "hoist", "distance_m": "2"}]}`,
 			"motions[1].distance_m", "expected a number, found a JSON string"},
@@ -48,6 +48,8 @@ func TestBadInput(t *testing.T) {
 		{"truncated file", file(good, "")[:80], "(file)", "ends in the middle"},
 		{"trailing data", file(good, "") + "{}", "(file)", "more after the scenario's closing brace"},
 		{"not an object", "[]", "(file)", "found a JSON array"},
+		{"deeply nested", strings.Repeat("[", 1_000_000), "(file)", "nested 65 levels deep: a scenario has at most 64 levels"},
+		{"deeply nested objects", strings.Repeat(`{"a":`, 200_000), "(file)", "a scenario has at most 64 levels"},
 		{"too large", `{"name": "` + strings.Repeat("x", scenario.MaxFileBytes) + `"}`, "(file)", "larger than"},
 	} {
 		_, err := scenario.Parse([]byte(c.data))

@@ -98,3 +98,59 @@ func TestFingerprintSensitivity(t *testing.T) {
 		t.Fatal("a changed rope length kept the fingerprint")
 	}
 }
+
+// Files that mean the same lift have the same fingerprint: the canonical
+// form leaves out explicit defaults, empty blocks and the sign of zero.
+func TestFingerprintNormalised(t *testing.T) {
+	const load = `"load":{"mass_kg":100,"rope_length_m":5}`
+	base := `{"format":"swaysheet-scenario","version":1,"name":"a",` + load + `,"motions":[{"axis":"travel_x","distance_m":4,"speed_m_per_s":0.5,"accel_m_per_s2":0.3}]}`
+	with := func(old, new string) string { return strings.Replace(base, old, new, 1) }
+	fp := func(x string) string {
+		s, err := Parse([]byte(x))
+		if err != nil {
+			t.Fatalf("%s: %v", x, err)
+		}
+		f, err := Fingerprint(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return f
+	}
+	want := fp(base)
+	for _, c := range []struct{ name, data string }{
+		{"explicit trapezoid", with(`"axis":"travel_x"`, `"axis":"travel_x","profile":"trapezoid"`)},
+		{"braking equal to acceleration", with(`"accel_m_per_s2":0.3`, `"accel_m_per_s2":0.3,"decel_m_per_s2":0.3`)},
+		{"empty sheet", with(`"motions"`, `"sheet":{},"motions"`)},
+		{"empty sheet fields", with(`"motions"`, `"sheet":{"project":"","date":""},"motions"`)},
+		{"empty settings", with(`"motions"`, `"settings":{"accuracy":"default","settle_periods":3,"samples":601},"motions"`)},
+		{"empty limits and initial", with(`"motions"`, `"limits":{},"initial":{"swing_deg":0},"motions"`)},
+		{"negative zero", with(`"axis":"travel_x"`, `"axis":"travel_x","start_s":-0`)},
+		{"negative zero radius", with(`"motions"`, `"crane":{"radius_m":-0.0},"motions"`)},
+		{"shaper defaults", base},
+	} {
+		if got := fp(c.data); got != want {
+			c1, _ := Parse([]byte(c.data))
+			b, _ := Canonical(c1)
+			t.Errorf("%s: fingerprint differs; canonical %s", c.name, b)
+		}
+	}
+	// A shaper at its defaults: EI tolerance 5 %, the load's rope length.
+	sh := with(`"accel_m_per_s2":0.3`, `"accel_m_per_s2":0.3,"shaper":{"kind":"ei"}`)
+	shExplicit := with(`"accel_m_per_s2":0.3`, `"accel_m_per_s2":0.3,"shaper":{"kind":"ei","tolerance_pct":5,"rope_length_m":5,"damping_ratio":-0}`)
+	if fp(sh) != fp(shExplicit) {
+		t.Error("a shaper's explicit defaults change the fingerprint")
+	}
+	if fp(with(`"distance_m":4`, `"distance_m":0`)) != fp(with(`"distance_m":4`, `"distance_m":-0.0`)) {
+		t.Error("-0 and 0 give different fingerprints")
+	}
+	// Differences that matter still change it.
+	for _, c := range []string{
+		with(`"accel_m_per_s2":0.3`, `"accel_m_per_s2":0.3,"decel_m_per_s2":0.2`),
+		with(`"axis":"travel_x"`, `"axis":"travel_x","profile":"s_curve","rounding_s":0`),
+		with(`"motions"`, `"sheet":{"project":"x"},"motions"`),
+	} {
+		if fp(c) == want {
+			t.Errorf("a different lift kept the fingerprint: %s", c)
+		}
+	}
+}

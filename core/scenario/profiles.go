@@ -129,36 +129,36 @@ const MaxSteps = 50
 
 func init() {
 	for k, r := range map[string]Range{
-		"motions[].jerk_m_per_s3":              {Min: 0, Max: 50, Unit: "m/s³", OpenMin: true},
-		"motions[].jerk_deg_per_s3":            {Min: 0, Max: 300, Unit: "deg/s³", OpenMin: true},
-		"motions[].rounding_s":                 {Min: 0, Max: 60, Unit: "s"},
+		"motions[].jerk_m_per_s3":              {Min: MinAccelMPerS2, Max: 50, Unit: "m/s³"},
+		"motions[].jerk_deg_per_s3":            {Min: MinAccelDegPerS2, Max: 300, Unit: "deg/s³"},
+		"motions[].rounding_s":                 {Min: 0, Max: 60, Unit: "s", MinAbs: MinDurationS},
 		"motions[].brake_at_s":                 {Min: 0, Max: MaxRunS, Unit: "s"},
 		"motions[].steps[].at_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
-		"motions[].steps[].speed_m_per_s":      {Min: -10, Max: 10, Unit: "m/s"},
-		"motions[].steps[].rate_deg_per_s":     {Min: -36, Max: 36, Unit: "deg/s"},
+		"motions[].steps[].speed_m_per_s":      {Min: -10, Max: 10, Unit: "m/s", MinAbs: MinSpeedMPerS},
+		"motions[].steps[].rate_deg_per_s":     {Min: -36, Max: 36, Unit: "deg/s", MinAbs: MinRateDegPerS},
 		"motions[].shaper.period_s":            {Min: 0.5, Max: 120, Unit: "s"},
 		"motions[].shaper.rope_length_m":       {Min: MinRopeM, Max: 500, Unit: "m"},
 		"motions[].shaper.damping_ratio":       {Min: 0, Max: 0.3, Unit: ""},
-		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%"},
+		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
 		"motions[].shaper.second_period_s":     {Min: 0.1, Max: 120, Unit: "s"},
-		"plan.distance_m":                      {Min: -2000, Max: 2000, Unit: "m"},
-		"plan.top_speed_m_per_s":               {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
-		"plan.max_accel_m_per_s2":              {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
-		"plan.angle_deg":                       {Min: -3600, Max: 3600, Unit: "deg"},
-		"plan.top_rate_deg_per_s":              {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
-		"plan.max_accel_deg_per_s2":            {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
+		"plan.distance_m":                      {Min: -2000, Max: 2000, Unit: "m", MinAbs: 0.01},
+		"plan.top_speed_m_per_s":               {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
+		"plan.max_accel_m_per_s2":              {Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"},
+		"plan.angle_deg":                       {Min: -3600, Max: 3600, Unit: "deg", MinAbs: MinAngleDeg},
+		"plan.top_rate_deg_per_s":              {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
+		"plan.max_accel_deg_per_s2":            {Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"},
 		"plan.rope_length_min_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
 		"plan.rope_length_max_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
 		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
-		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%"},
-		"plan.pendant_steps_pct[]":             {Min: 0, Max: 100, Unit: "%", OpenMin: true},
-		"plan.s_curve_max_rounding_s":          {Min: 0, Max: 30, Unit: "s"},
+		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
+		"plan.pendant_steps_pct[]":             {Min: 1, Max: 100, Unit: "%"},
+		"plan.s_curve_max_rounding_s":          {Min: 0, Max: 30, Unit: "s", MinAbs: MinDurationS},
 		"plan.timing_sigma_s":                  {Min: 0, Max: 2, Unit: "s"},
 		"plan.reaction_delay_s":                {Min: 0, Max: 3, Unit: "s"},
-		"motions[].hard_stop.speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
-		"motions[].hard_stop.rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
-		"motions[].hard_stop.decel_m_per_s2":   {Min: 0, Max: 10, Unit: "m/s²", OpenMin: true},
-		"motions[].hard_stop.decel_deg_per_s2": {Min: 0, Max: 60, Unit: "deg/s²", OpenMin: true},
+		"motions[].hard_stop.speed_m_per_s":    {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
+		"motions[].hard_stop.rate_deg_per_s":   {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
+		"motions[].hard_stop.decel_m_per_s2":   {Min: MinAccelMPerS2, Max: 10, Unit: "m/s²"},
+		"motions[].hard_stop.decel_deg_per_s2": {Min: MinAccelDegPerS2, Max: 60, Unit: "deg/s²"},
 	} {
 		Ranges[k] = r
 	}
@@ -361,9 +361,28 @@ func (m *Motion) SeriesProfile() (*motion.Piecewise, error) {
 				m.Axis, m.Axis, unit, m.Axis, unit)
 		}
 	}
-	p, err := s.Profile(col, ColumnScale(m.Axis))
+	scale := ColumnScale(m.Axis)
+	p, err := s.Profile(col, scale)
 	if err != nil {
 		return nil, err
+	}
+	if t0 := s.TimeS[0] + m.StartS; t0 < 0 {
+		return nil, fmt.Errorf("the record starts at t = %g s, before the run starts at t = 0: give times from 0, or set start_s to at least %g",
+			t0, -s.TimeS[0])
+	}
+	// A record is held to the axis' limits like any other move.
+	speed, accel := "speed_m_per_s", "decel_m_per_s2"
+	if !metric(m.Axis) {
+		speed, accel = "rate_deg_per_s", "decel_deg_per_s2"
+	}
+	vr, ar := Ranges["motions[]."+speed], Ranges["motions[].hard_stop."+accel]
+	if v, at := p.PeakSpeedAt(); v/scale > vr.Max*(1+1e-9) {
+		return nil, &motion.CSVError{Line: s.LineAt(at), Column: col, Message: fmt.Sprintf(
+			"the speed reaches %.4g %s at t = %.4g s: accepted up to %g %s, as for %s", v/scale, vr.Unit, at, vr.Max, vr.Unit, speed)}
+	}
+	if a, at := p.PeakAccelAt(); a/scale > ar.Max*(1+1e-9) {
+		return nil, &motion.CSVError{Line: s.LineAt(at), Column: col, Message: fmt.Sprintf(
+			"the acceleration reaches %.4g %s at t = %.4g s: accepted up to %g %s, as for a hard stop's %s", a/scale, ar.Unit, at, ar.Max, ar.Unit, accel)}
 	}
 	if e := p.End(); e+m.StartS > MaxRunS {
 		return nil, fmt.Errorf("the record ends at %g s: at most %g s is simulated", e, MaxRunS)
@@ -435,6 +454,7 @@ func (p *Plan) validate(c *checker, s *Scenario) {
 		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
 		return
 	}
+	p.checkDuration(c)
 	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {
 		c.add("plan.rope_length_min_m", "give both plan.rope_length_min_m and plan.rope_length_max_m, or neither")
 	}

@@ -252,6 +252,12 @@ func Parse(data []byte) (*Scenario, error) {
 	if len(data) > MaxFileBytes {
 		return nil, Errors{{Field: "(file)", Message: fmt.Sprintf("the file is larger than %d bytes", MaxFileBytes)}}
 	}
+	if fe := checkDepth(data); fe != nil {
+		return nil, Errors{*fe}
+	}
+	if fe := checkKeys(data); fe != nil {
+		return nil, Errors{*fe}
+	}
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.DisallowUnknownFields()
 	var s Scenario

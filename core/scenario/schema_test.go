@@ -80,6 +80,10 @@ func schemaOf(t reflect.Type, path string) map[string]any {
 				out["minimum"] = r.Min
 			}
 			out["maximum"] = r.Max
+			if r.MinAbs > 0 { // 0, or at least MinAbs in size
+				out["not"] = map[string]any{"exclusiveMinimum": -r.MinAbs, "exclusiveMaximum": r.MinAbs,
+					"not": map[string]any{"const": 0}}
+			}
 			if r.Unit != "" {
 				out["description"] = "unit: " + r.Unit
 			}

@@ -15,6 +15,9 @@ type Range struct {
 	Unit     string
 	// OpenMin excludes Min itself (the value must be above it).
 	OpenMin bool
+	// MinAbs, when set, is the smallest size of a value other than 0: a
+	// quantity where 0 means "none" but a crane cannot do less than MinAbs.
+	MinAbs float64
 }
 
 // Ranges lists the accepted range of every numeric field by its path; []
@@ -31,14 +34,14 @@ var Ranges = map[string]Range{
 	"crane.slew_deg":             {Min: -360, Max: 360, Unit: "deg"},
 
 	"motions[].start_s":          {Min: 0, Max: MaxRunS, Unit: "s"},
-	"motions[].distance_m":       {Min: -2000, Max: 2000, Unit: "m"},
-	"motions[].speed_m_per_s":    {Min: 0, Max: 10, Unit: "m/s", OpenMin: true},
-	"motions[].accel_m_per_s2":   {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
-	"motions[].decel_m_per_s2":   {Min: 0, Max: 5, Unit: "m/s²", OpenMin: true},
-	"motions[].angle_deg":        {Min: -3600, Max: 3600, Unit: "deg"},
-	"motions[].rate_deg_per_s":   {Min: 0, Max: 36, Unit: "deg/s", OpenMin: true},
-	"motions[].accel_deg_per_s2": {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
-	"motions[].decel_deg_per_s2": {Min: 0, Max: 30, Unit: "deg/s²", OpenMin: true},
+	"motions[].distance_m":       {Min: -2000, Max: 2000, Unit: "m", MinAbs: MinDistanceM},
+	"motions[].speed_m_per_s":    {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
+	"motions[].accel_m_per_s2":   {Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"},
+	"motions[].decel_m_per_s2":   {Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"},
+	"motions[].angle_deg":        {Min: -3600, Max: 3600, Unit: "deg", MinAbs: MinAngleDeg},
+	"motions[].rate_deg_per_s":   {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
+	"motions[].accel_deg_per_s2": {Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"},
+	"motions[].decel_deg_per_s2": {Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"},
 
 	"wind.force_n":               {Min: 0, Max: 1e7, Unit: "N"},
 	"wind.speed_m_per_s":         {Min: 0, Max: 60, Unit: "m/s"},
@@ -46,18 +49,18 @@ var Ranges = map[string]Range{
 	"wind.air_density_kg_per_m3": {Min: 0, Max: 1.5, Unit: "kg/m³"},
 	"wind.toward_deg":            {Min: -360, Max: 360, Unit: "deg"},
 	"wind.start_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
-	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s"},
-	"wind.ramp_s":                {Min: 0, Max: 600, Unit: "s"},
+	"wind.duration_s":            {Min: 0, Max: MaxRunS, Unit: "s", MinAbs: MinDurationS},
+	"wind.ramp_s":                {Min: 0, Max: 600, Unit: "s", MinAbs: MinDurationS},
 
 	"initial.swing_deg":          {Min: 0, Max: 89, Unit: "deg"},
 	"initial.toward_deg":         {Min: -360, Max: 360, Unit: "deg"},
 	"initial.velocity_x_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 	"initial.velocity_y_m_per_s": {Min: -20, Max: 20, Unit: "m/s"},
 
-	"limits.peak_swing_deg":       {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.peak_excursion_m":     {Min: 0, Max: 100, Unit: "m", OpenMin: true},
-	"limits.residual_swing_deg":   {Min: 0, Max: 90, Unit: "deg", OpenMin: true},
-	"limits.residual_excursion_m": {Min: 0, Max: 100, Unit: "m", OpenMin: true},
+	"limits.peak_swing_deg":       {Min: MinAngleDeg, Max: 90, Unit: "deg"},
+	"limits.peak_excursion_m":     {Min: MinDistanceM, Max: 100, Unit: "m"},
+	"limits.residual_swing_deg":   {Min: MinAngleDeg, Max: 90, Unit: "deg"},
+	"limits.residual_excursion_m": {Min: MinDistanceM, Max: 100, Unit: "m"},
 	"limits.tension_factor":       {Min: 1, Max: 10, Unit: ""},
 
 	"settings.rel_tol":        {Min: 1e-13, Max: 1e-3, Unit: ""},
@@ -68,6 +71,24 @@ var Ranges = map[string]Range{
 
 // Bounds that other packages check against.
 const (
+	// The smallest values a crane drive has, well below any real creep
+	// speed or ramp (common practice: creep speeds of a few cm/s, slew
+	// rates of tenths of a degree per second), and far above the sizes
+	// where products and quotients of them underflow or overflow:
+	// speeds, accelerations and jerks at least 0.001 in metres or 0.01 in
+	// degrees; distances and angles 0 or at least that in size; durations
+	// 0 or at least 0.01 s.
+	MinSpeedMPerS    = 0.001
+	MinAccelMPerS2   = 0.001
+	MinRateDegPerS   = 0.01
+	MinAccelDegPerS2 = 0.01
+	MinDistanceM     = 0.001
+	MinAngleDeg      = 0.01
+	MinDurationS     = 0.01
+	// MinPercent is the smallest percentage other than 0 (tolerances,
+	// pendant steps).
+	MinPercent = 0.1
+
 	// MinRopeM is the shortest rope the model accepts at any time, m.
 	MinRopeM = 0.3
 	// MaxRunS is the longest run the model simulates, s.
@@ -98,7 +119,11 @@ func (r Range) Text() string {
 	if r.Unit != "" {
 		u = " " + r.Unit
 	}
-	return fmt.Sprintf("accepted %s up to %s%s", lo, num(r.Max), u)
+	t := fmt.Sprintf("accepted %s up to %s%s", lo, num(r.Max), u)
+	if r.MinAbs > 0 {
+		t += fmt.Sprintf(": 0, or at least %s%s in size", num(r.MinAbs), u)
+	}
+	return t
 }
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
@@ -109,7 +134,8 @@ func (c *checker) value(field, key string, v float64) {
 	if !ok {
 		panic("scenario: no range for " + key)
 	}
-	if math.IsNaN(v) || math.IsInf(v, 0) || v > r.Max || v < r.Min || (r.OpenMin && v == r.Min) {
+	if math.IsNaN(v) || math.IsInf(v, 0) || v > r.Max || v < r.Min || (r.OpenMin && v == r.Min) ||
+		(v != 0 && math.Abs(v) < r.MinAbs) {
 		c.add(field, "%s is out of range: %s", num(v), r.Text())
 	}
 }

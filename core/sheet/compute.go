@@ -1,6 +1,7 @@
 package sheet
 
 import (
+	"swaysheet/core/figures"
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
@@ -32,13 +33,16 @@ func (c Computer) Compute(s *scenario.Scenario) Input {
 			ev := *s
 			ev.Motions = []scenario.Motion{o.Motion}
 			in.Evaluated = &ev
-			in.ResultFor = "the recommended move (" + o.Label + "), at the nominal rope length"
+			in.ResultFor = "the planner's recommended drive setting"
 		}
 	}
-	r, err := c.Evaluate(in.Evaluated)
+	// The nominal rope length first, then the plan's range ends: the
+	// verdict is the worst over them.
+	evals, err := figures.EvaluateRopes(in.Evaluated, c.Evaluate)
 	if err != nil {
 		in.ResultErr = err.Error()
+		return in
 	}
-	in.Result = r
+	in.Result, in.Ropes = evals[0].Result, evals
 	return in
 }

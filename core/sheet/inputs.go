@@ -77,11 +77,11 @@ func fieldUnit(path string) (si, q string) {
 	return si, q
 }
 
-// words are the plain names of field names, where the name alone reads badly.
-var words = map[string]string{
+// fieldWords are the plain names of field names, where the name alone reads badly.
+var fieldWords = map[string]string{
 	"mass_kg": "mass", "rope_length_m": "rope length", "area_m2": "area facing the wind",
 	"drag_coefficient": "air drag coefficient", "rigging_length_m": "rigging length",
-	"kind": "kind", "radius_m": "radius from the slew axis", "slew_deg": "slew angle at the start",
+	"kind": "crane", "radius_m": "radius from the slew axis", "slew_deg": "slew angle at the start", "steps": "step", "hook": "hook block", "shaper": "sway control",
 	"axis": "axis", "profile": "speed profile", "start_s": "starts at",
 	"distance_m": "distance", "speed_m_per_s": "speed", "accel_m_per_s2": "acceleration",
 	"decel_m_per_s2": "braking", "angle_deg": "slew angle", "rate_deg_per_s": "slew rate",
@@ -139,7 +139,7 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 			ms, _ := v.([]any)
 			for i, m := range ms {
 				g := Group{Title: fmt.Sprintf("Move %d", i+1)}
-				flatten(&g, fmt.Sprintf("motions[%d]", i), "", m, u)
+				flatten(&g, fmt.Sprintf("motions[%d]", i), "", m, u, s.Crane.Kind)
 				capitalise(&g)
 				out = append(out, g)
 			}
@@ -150,7 +150,7 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 			t = strings.ReplaceAll(k, "_", " ")
 		}
 		g := Group{Title: t}
-		flatten(&g, k, "", v, u)
+		flatten(&g, k, "", v, u, s.Crane.Kind)
 		capitalise(&g)
 		if len(g.Rows) > 0 {
 			out = append(out, g)
@@ -172,7 +172,7 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 	return out
 }
 
-func flatten(g *Group, path, label string, v any, u units.Choice) {
+func flatten(g *Group, path, label string, v any, u units.Choice, kind string) {
 	switch x := v.(type) {
 	case map[string]any:
 		keys := make([]string, 0, len(x))
@@ -183,7 +183,7 @@ func flatten(g *Group, path, label string, v any, u units.Choice) {
 		// Axis and profile first, then the rest by name.
 		sort.SliceStable(keys, func(i, j int) bool { return rank(keys[i]) < rank(keys[j]) })
 		for _, k := range keys {
-			flatten(g, path+"."+k, join(label, word(k)), x[k], u)
+			flatten(g, path+"."+k, join(label, word(k)), x[k], u, kind)
 		}
 	case []any:
 		if len(x) == 0 {
@@ -201,32 +201,30 @@ func flatten(g *Group, path, label string, v any, u units.Choice) {
 			sym := si
 			for i, e := range x {
 				val := e.(float64)
-				if q != "" {
-					val, sym = u.Show(q, val)
-				}
-				parts[i] = Num(val, 6)
+				parts[i], sym = shown(q, si, val, u)
 			}
 			g.Rows = append(g.Rows, Row{Label: label, Value: strings.Join(parts, ", "), Unit: sym})
 			return
 		}
 		for i, e := range x {
-			flatten(g, fmt.Sprintf("%s[%d]", path, i), join(label, strconv.Itoa(i+1)), e, u)
+			// "step 2:", not "steps 2"
+			flatten(g, fmt.Sprintf("%s[%d]", path, i), join(label, strconv.Itoa(i+1)+":"), e, u, kind)
 		}
 	case float64:
 		si, q := fieldUnit(path)
-		val, sym := x, si
-		if q != "" {
-			val, sym = u.Show(q, x)
-		}
-		g.Rows = append(g.Rows, Row{Label: label, Value: Num(val, 6), Unit: sym})
+		text, sym := shown(q, si, x, u)
+		g.Rows = append(g.Rows, Row{Label: label, Value: text, Unit: sym})
 	case string:
 		if strings.HasSuffix(path, ".csv") {
 			n := strings.Count(strings.TrimSpace(x), "\n") + 1
 			g.Rows = append(g.Rows, Row{Label: label, Value: fmt.Sprintf("%d lines (in the scenario file and the QR code)", n)})
 			return
 		}
-		if a, ok := crane.Of(x); ok && strings.HasSuffix(path, ".axis") {
-			x = a.Words
+		if _, ok := crane.Of(x); ok && strings.HasSuffix(path, ".axis") {
+			x = crane.WordsFor(kind, x)
+		}
+		if w, ok := crane.KindWords[x]; ok && path == "crane.kind" {
+			x = w
 		}
 		if r := []rune(x); len(r) > 80 {
 			x = string(r[:79]) + "…"
@@ -250,7 +248,7 @@ func rank(k string) int {
 }
 
 func word(k string) string {
-	if w, ok := words[k]; ok {
+	if w, ok := fieldWords[k]; ok {
 		return w
 	}
 	return strings.ReplaceAll(k, "_", " ")
@@ -263,6 +261,27 @@ func join(a, b string) string {
 	return a + " " + b
 }
 
+// shown is an input value v (SI unit si, display quantity q) in the
+// display units of u, rounded as the figures are (units.Round: the
+// unit's step), and its unit symbol; a value of no quantity with four
+// significant digits. Never in scientific notation.
+func shown(q, si string, v float64, u units.Choice) (string, string) {
+	if q == "" {
+		return Num(v, 4), si
+	}
+	x, sym := u.Show(q, v)
+	un := u.Unit(q)
+	if q == "share" && sym == "" {
+		sym = "%"
+	}
+	_, t := units.Round(x, un)
+	if t == "0" || strings.Trim(t, "0.-") == "" && x != 0 {
+		// a value finer than the unit's step: four significant digits
+		t = Num(x, 4)
+	}
+	return t, sym
+}
+
 // Num formats v with at most sig significant digits, without an exponent
 // for everyday sizes and without trailing zeros.
 func Num(v float64, sig int) string {
@@ -273,11 +292,7 @@ func Num(v float64, sig int) string {
 		return "0"
 	}
 	r, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', sig, 64), 64)
-	a := math.Abs(r)
-	if a >= 1e-4 && a < 1e12 {
-		return strconv.FormatFloat(r, 'f', -1, 64)
-	}
-	return strconv.FormatFloat(r, 'g', -1, 64)
+	return strconv.FormatFloat(r, 'f', -1, 64)
 }
 
 // capitalise starts each row's label with a capital letter.

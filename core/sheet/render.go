@@ -3,6 +3,9 @@ package sheet
 import (
 	"html"
 	"strings"
+
+	"swaysheet/core/figures"
+	"swaysheet/core/plan"
 )
 
 // markup is HTML the sheet made itself (the SVGs); everything else is
@@ -73,6 +76,9 @@ func (h *htmlWriter) body(v *view) {
 	if v.Denser {
 		cls += " sw-denser"
 	}
+	if v.Densest {
+		cls += " sw-densest"
+	}
 	h.raw(`<article class="` + cls + `" data-fingerprint="`)
 	h.t(v.Fingerprint)
 	h.raw("\">\n<header class=\"sw-top\">\n<div class=\"sw-topl\">\n<div class=\"sw-head\"><div>")
@@ -85,7 +91,7 @@ func (h *htmlWriter) body(v *view) {
 		h.raw("</span>")
 	}
 	h.raw("</p></div></div>\n")
-	h.raw(`<div class="sw-fpl"><p><span class="sw-k">Fingerprint (SHA-256 of the canonical JSON)</span> `)
+	h.raw(`<div class="sw-fpl"><p><span class="sw-k">Scenario fingerprint (checks that nothing was changed)</span> `)
 	h.el("span", "sw-fp", v.Fingerprint)
 	h.raw(`</p><p class="sw-meta">`)
 	h.t("swaysheet " + v.Version)
@@ -108,24 +114,24 @@ func (h *htmlWriter) body(v *view) {
 	h.m(v.QR)
 	h.el("p", "sw-small", v.QRNote)
 	h.raw("</div>\n</header>\n")
+	h.verdict(v)
 	if v.Example {
 		h.raw(`<p class="sw-banner"><b>EXAMPLE:</b> invented data to show how the tool works, not a real lift.</p>` + "\n")
 	}
-	if v.AnyOutside {
-		h.raw(`<p class="sw-banner"><b>&#x2716; OUTSIDE THE PLAN'S LIMITS:</b> at least one result below is outside its limit. Do not lift as planned.</p>` + "\n")
-	}
-	if !v.Simulated {
-		h.raw(`<p class="sw-banner"><b>NOTHING SIMULATED:</b> `)
-		h.t(v.Verdict)
-		h.raw("</p>\n")
-	}
-	if v.EvalErr != "" {
-		h.raw(`<p class="sw-banner"><b>NOT COMPUTED:</b> `)
-		h.t(v.EvalErr)
-		h.raw("</p>\n")
-	}
 
-	h.raw("<div class=\"sw-main\">\n<section class=\"sw-inputs\">\n<h2>Inputs</h2>\n<div class=\"sw-groups\">\n")
+	h.raw("<div class=\"sw-main\">\n<section class=\"sw-results\">\n<h2>Results</h2>\n")
+	if v.ResultsFor != "" {
+		h.el("p", "sw-small", "For "+v.ResultsFor+".")
+	}
+	if v.WorstNote != "" {
+		h.el("p", "sw-small", v.WorstNote)
+	}
+	if len(v.Figures) > 0 {
+		h.figures(v)
+	} else {
+		h.raw("<p>No results: the scenario could not be computed.</p>\n")
+	}
+	h.raw("</section>\n<section class=\"sw-inputs\">\n<h2>Inputs</h2>\n<div class=\"sw-groups\">\n")
 	for _, g := range v.Inputs {
 		h.raw(`<table class="sw-t sw-group"><caption>`)
 		h.t(g.Title)
@@ -133,78 +139,18 @@ func (h *htmlWriter) body(v *view) {
 		h.rows(g.Rows)
 		h.raw("</table>\n")
 	}
-	// The checks and the verdict first; the other figures follow and may
-	// run on into the next column (sw-split).
-	h.raw("</div>\n</section>\n<section class=\"sw-results\">\n<h2>Results</h2>\n")
-	if v.ResultsFor != "" {
-		h.el("p", "sw-small", "For "+v.ResultsFor+".")
-	}
-	if len(v.Results) > 0 {
-		h.checks(v)
-		h.raw(`<table class="sw-t sw-split"><caption>Other figures</caption>` + "\n")
-		h.rows(v.Results)
-		h.raw("</table>\n")
-	} else {
-		h.raw("<p>No results: the scenario could not be computed.</p>\n")
-	}
-	h.raw("</section>\n</div>\n")
+	h.raw("</div>\n</section>\n</div>\n")
 
 	if p := v.Plan; p != nil {
-		h.raw("<section class=\"sw-plan\">\n<h2>Recommended drive settings (planner)</h2>\n")
-		switch {
-		case p.Err != "":
-			h.raw("<p><b>The planner could not run:</b> ")
-			h.t(p.Err)
-			h.raw("</p>\n")
-		case p.Recommended != nil:
-			o := p.Recommended
-			h.raw("<p><b>")
-			h.t(o.Label)
-			h.raw("</b> (")
-			h.t(o.Drive)
-			h.raw(")")
-			if o.Within {
-				h.raw(" &#x2714; within every limit at every rope length simulated (")
-				h.t(p.Ropes)
-				h.raw(")")
-			} else {
-				h.raw(" <b>&#x2716; OUTSIDE: ")
-				h.t(strings.Join(o.Outside, ", "))
-				h.raw("</b>")
-			}
-			h.t(". Move time " + Num(o.MoveTimeS, 4) + " s (" + Num(o.PenaltyS, 4) + " s more than at the drive limits); worst peak swing " +
-				Num(o.WorstPeakSwingDeg, 4) + " deg, worst residual swing " + Num(o.WorstResidualSwingDeg, 4) + " deg.")
-			h.raw("</p>\n")
-			h.list("sw-set", o.Settings, "")
-		default:
-			h.raw("<p><b>&#x2716; No drive setting keeps the load inside the limits.</b></p>\n")
-			h.list("", p.Infeasible, "")
-			if p.Reason != "" {
-				h.el("p", "sw-small", p.Reason)
-			}
-		}
-		if len(p.Others) > 0 {
-			parts := make([]string, len(p.Others))
-			for i, o := range p.Others {
-				if o.Within {
-					parts[i] = o.Label + " (✔ within, " + Num(o.MoveTimeS, 4) + " s)"
-				} else {
-					parts[i] = o.Label + " (✖ outside)"
-				}
-			}
-			h.el("p", "sw-small", "Other options: "+strings.Join(parts, "; ")+".")
-		}
-		for _, n := range p.Notes {
-			h.el("p", "sw-small", n)
-		}
-		h.raw("</section>\n")
+		h.plan(p)
 	}
 
 	h.raw("<section class=\"sw-plots\" aria-label=\"Plots\">\n<figure>")
 	h.m(v.AnglePlot)
 	h.raw("</figure>\n<figure>")
 	h.m(v.PathPlot)
-	h.raw("<figcaption>Solid: the load. Dashed: the point the rope hangs from. Axes need not share a scale.</figcaption></figure>\n</section>\n")
+	h.el("figcaption", "", v.PathCaption)
+	h.raw("</figure>\n</section>\n")
 
 	h.raw("<section class=\"sw-warn\">\n<h2>Warnings</h2>\n")
 	if len(v.Warnings) > 0 {
@@ -217,6 +163,7 @@ func (h *htmlWriter) body(v *view) {
 	h.raw("</section>\n<section>\n<h2>Safety cautions</h2>\n")
 	h.list("sw-small", v.Cautions, "")
 	h.raw("</section>\n</div>\n")
+	h.detail(v)
 	h.raw("<footer class=\"sw-foot\">\n")
 	for _, s := range []string{"Prepared by: name, signature, date", "Checked by: name, signature, date",
 		"Approved by the person in charge of the lift: name, signature, date"} {
@@ -227,42 +174,169 @@ func (h *htmlWriter) body(v *view) {
 	h.raw("</footer>\n</article>")
 }
 
-// checks writes the figures the plan can limit, each with its verdict,
-// and the verdict of the whole.
-func (h *htmlWriter) checks(v *view) {
-	h.raw(`<table class="sw-t sw-checks"><caption>Against the plan's limits</caption>` + "\n")
-	h.raw(`<tr><th scope="col">Figure</th><th scope="col" class="sw-n">Result</th><th scope="col" class="sw-n">Limit</th><th scope="col">Verdict</th></tr>` + "\n")
-	for _, c := range v.Checks {
-		if c.HasLimit && !c.Within {
+// verdict writes the band at the top: all within the lift plan's limits,
+// or which figure is outside and by how much, over every rope length.
+func (h *htmlWriter) verdict(v *view) {
+	if v.EvalErr != "" {
+		h.raw(`<p class="sw-verdict-band sw-bad"><b>NOT COMPUTED:</b> `)
+		h.t(v.EvalErr)
+		h.raw("</p>\n")
+		return
+	}
+	switch v.VerdictState {
+	case figures.AllWithin:
+		h.raw(`<p class="sw-verdict-band"><b>&#x2714; WITHIN THE LIFT PLAN'S LIMITS.</b> `)
+	case figures.Outside:
+		h.raw(`<p class="sw-verdict-band sw-bad"><b>&#x2716; OUTSIDE THE LIFT PLAN'S LIMITS:</b> `)
+		h.t(strings.TrimPrefix(v.Verdict, "OUTSIDE the lift plan's limits: "))
+		h.raw("</p>\n")
+		return
+	case figures.NotSimulated:
+		h.raw(`<p class="sw-verdict-band"><b>NOTHING SIMULATED.</b> `)
+	default:
+		h.raw(`<p class="sw-verdict-band"><b>NO LIMITS SET.</b> `)
+	}
+	h.t(v.Verdict)
+	h.raw("</p>\n")
+}
+
+// figures writes every figure in one table: the crew's words, the value
+// and its unit in columns of their own (the values line up), and for
+// the figures the plan can limit, the limit and the verdict.
+func (h *htmlWriter) figures(v *view) {
+	h.raw(`<table class="sw-t sw-figs">` + "\n")
+	h.raw(`<tr><th scope="col">Figure</th><th scope="col" class="sw-n">Value</th><th scope="col"></th><th scope="col" class="sw-n">Limit</th><th scope="col">Verdict</th></tr>` + "\n")
+	for i, f := range v.Figures {
+		switch {
+		case f.Outside:
 			h.raw(`<tr class="sw-out"><th>`)
-		} else {
+		case i > 0 && !f.Limited && v.Figures[i-1].Limited:
+			h.raw(`<tr class="sw-first"><th>`)
+		default:
 			h.raw("<tr><th>")
 		}
-		h.t(c.Label)
+		h.t(f.Label)
 		h.raw(`</th><td class="sw-n">`)
-		h.t(c.Value + " " + c.Unit)
-		switch {
-		case !c.HasLimit && !v.Simulated:
-			h.raw(`</td><td class="sw-n">&ndash;</td><td>nothing simulated</td>`)
-		case !c.HasLimit:
-			h.raw(`</td><td class="sw-n">&ndash;</td><td>no limit set</td>`)
-		case c.Within:
-			h.raw(`</td><td class="sw-n">`)
-			h.t(c.Limit + " " + c.Unit)
-			h.raw("</td><td>&#x2714; within, ")
-			h.t(c.Margin + " " + c.Unit + " to spare")
-			h.raw("</td>")
-		default:
-			h.raw(`</td><td class="sw-n">`)
-			h.t(c.Limit + " " + c.Unit)
-			h.raw("</td><td><b>&#x2716; OUTSIDE</b> by ")
-			h.t(c.Margin + " " + c.Unit)
-			h.raw("</td>")
+		h.t(f.Value)
+		h.raw(`</td><td class="sw-u">`)
+		h.t(f.Unit)
+		h.raw(`</td><td class="sw-n">`)
+		if f.Limit != "" {
+			h.t(f.Limit)
+		} else if f.Limited {
+			h.raw("&ndash;")
 		}
-		h.raw("</tr>\n")
+		h.raw(`</td><td class="sw-vd">`)
+		if f.Outside {
+			h.raw("<b>")
+			h.t(f.Verdict)
+			h.raw("</b>")
+		} else {
+			h.t(f.Verdict)
+		}
+		h.raw("</td></tr>\n")
 	}
 	h.raw("</table>\n")
-	if v.Simulated && v.Verdict != "" {
-		h.el("p", "sw-verdict", v.Verdict)
+}
+
+// plan writes the planner's recommended drive settings: the steps in
+// order, in one column.
+func (h *htmlWriter) plan(p *planView) {
+	h.raw("<section class=\"sw-plan\">\n<h2>Recommended drive settings</h2>\n")
+	switch {
+	case p.Err != "":
+		h.raw("<p><b>The planner could not run:</b> ")
+		h.t(p.Err)
+		h.raw("</p>\n")
+	case p.Recommended != nil:
+		o := p.Recommended
+		h.raw("<p><b>")
+		h.t(crewTitle(o))
+		h.raw("</b>")
+		if o.Within {
+			h.raw(" &#x2714; within every limit at every rope length checked (")
+			h.t(p.Ropes)
+			h.raw(")")
+		} else {
+			h.raw(" <b>&#x2716; OUTSIDE: ")
+			h.t(strings.Join(o.Outside, ", "))
+			h.raw("</b>")
+		}
+		h.t(". " + p.Summary)
+		h.raw("</p>\n<ol class=\"sw-set\">")
+		for _, s := range p.Settings {
+			h.raw("<li>")
+			h.t(strings.TrimSpace(s))
+			h.raw("</li>")
+		}
+		h.raw("</ol>\n")
+	default:
+		h.raw("<p><b>&#x2716; No drive setting keeps the load inside the limits.</b></p>\n")
+		h.list("", p.Infeasible, "")
+		if p.Reason != "" {
+			h.el("p", "sw-small", p.Reason)
+		}
 	}
+	if p.Unmarked {
+		h.el("p", "sw-small", "The planner's sentences are given in SI units.")
+	}
+	h.raw("</section>\n")
+}
+
+// crewTitle names a planner's option by what the crew does with it; the
+// method's name (ZV, ZVD, EI) is in the engineering detail.
+func crewTitle(o *plan.Option) string {
+	if o.Drive == "pendant" || len(o.Presses) > 0 {
+		return "Press and release times for the pendant"
+	}
+	return "Settings of the variable-speed drive"
+}
+
+// detail writes the engineering detail: technical names, methods and
+// their sources, the planner's notes, in small type at the end.
+func (h *htmlWriter) detail(v *view) {
+	h.raw("<section class=\"sw-detail sw-small\">\n<h2>Engineering detail</h2>\n<p>")
+	var names []string
+	for _, f := range v.Figures {
+		if f.Limited {
+			names = append(names, f.Label+": "+f.Technical)
+		}
+	}
+	h.t("Technical names: " + strings.Join(names, "; ") + ".")
+	h.raw("</p>\n")
+	if len(v.DetailFigures) > 0 {
+		h.el("p", "", "Also computed: "+strings.Join(v.DetailFigures, "; ")+".")
+	}
+	for _, d := range Methods {
+		h.el("p", "", d)
+	}
+	if p := v.Plan; p != nil {
+		if o := p.Recommended; o != nil {
+			why := " " + p.Reason
+			if v.Densest {
+				why = ""
+			}
+			h.el("p", "", "Recommended drive setting: "+o.Label+" ("+strings.ReplaceAll(o.Drive, "_", " ")+")."+why)
+		}
+		if v.Densest && (len(p.Others) > 0 || len(p.Notes) > 0) {
+			// No room on one page: the page and "swaysheet -plan" give them.
+			h.el("p", "", "The planner's other options and notes are on the page's plan section and in \"swaysheet -plan\".")
+		} else {
+			if len(p.Others) > 0 {
+				parts := make([]string, len(p.Others))
+				for i, o := range p.Others {
+					if o.Within {
+						parts[i] = o.Label + " (within)"
+					} else {
+						parts[i] = o.Label + " (outside)"
+					}
+				}
+				h.el("p", "", "Other options the planner checked: "+strings.Join(parts, "; ")+".")
+			}
+			for _, n := range p.Notes {
+				h.el("p", "", n)
+			}
+		}
+	}
+	h.raw("</section>\n")
 }

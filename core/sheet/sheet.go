@@ -27,6 +27,7 @@ import (
 
 	qrcode "github.com/skip2/go-qrcode"
 
+	"swaysheet/core/figures"
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
@@ -48,6 +49,14 @@ var Cautions = []string{
 	"Stop the lift when sway or wind exceeds the plan's limits. A qualified person approves the lift.",
 }
 
+// Methods name the methods behind the figures and their sources, for the
+// sheet's engineering detail (crew lines use plain words).
+var Methods = []string{
+	"Model: full nonlinear 3D pendulum (two masses with a hook block), Dormand-Prince 5(4) integration with error control (Dormand & Prince 1980).",
+	"Drive settings: ZV, ZVD and EI input shapers (Singer & Seering 1990; Singhose, Seering & Singer 1994), each checked by simulation at every rope length.",
+	"Fingerprint: SHA-256 (FIPS 180-4) of the scenario's canonical JSON; the QR code holds that JSON, DEFLATE-compressed (RFC 1951), base64url (RFC 4648).",
+}
+
 // Input is what a sheet is made of: the scenario and what was computed
 // of it. Build renders it and computes nothing; Compute fills it.
 type Input struct {
@@ -62,6 +71,10 @@ type Input struct {
 	// scenario's own moves ("the recommended move (...)").
 	ResultFor string
 	ResultErr string
+	// Ropes are the evaluations at every rope length the scenario names
+	// (figures.EvaluateRopes: Ropes[0] is Result, at the nominal); the
+	// verdict is the worst over them. Empty: Result alone.
+	Ropes []figures.Evaluation
 	// Plan is the planner's result for a scenario with a plan block;
 	// nil: PlanErr says why.
 	Plan    *plan.Result
@@ -73,7 +86,8 @@ type Input struct {
 	// LinkBase is the page's address; the QR code holds LinkBase +
 	// "#z=" + the scenario (see ShareFragment).
 	LinkBase string
-	// PrintedAt is the time the sheet is made, as text.
+	// PrintedAt is the time the sheet is made, as text; it also fills
+	// the date of the lift when the reference fields leave it empty.
 	PrintedAt string
 }
 
@@ -119,22 +133,21 @@ func ReadShareFragment(frag string) ([]byte, error) {
 	return out, nil
 }
 
-type check struct {
-	Label, Value, Limit, Unit, Margin string
-	Within                            bool
-	HasLimit                          bool
-}
-
 type planView struct {
 	Err         string
 	Axis        string
 	Recommended *plan.Option
-	Reason      string
-	Infeasible  []string
-	Notes       []string
-	Others      []plan.Option
-	Unit        string
-	Ropes       string
+	// Settings, Summary, Reason, Infeasible and Notes in the units shown.
+	Settings   []string
+	Summary    string
+	Reason     string
+	Infeasible []string
+	Notes      []string
+	// Unmarked: some of the planner's sentences came without their
+	// quantities marked and are printed in SI.
+	Unmarked bool
+	Others   []plan.Option
+	Ropes    string
 }
 
 type view struct {
@@ -144,28 +157,33 @@ type view struct {
 	Example     bool
 	Refs        []Row
 	Inputs      []Group
-	Results     []Row
-	Checks      []check
-	AnyOutside  bool
-	// Verdict is the figures table's verdict of the whole; Simulated is
-	// false when the scenario moves nothing.
-	Verdict     string
-	Simulated   bool
-	Plan        *planView
-	AnglePlot   markup
-	PathPlot    markup
-	Warnings    []string
-	Assumptions []string
-	Cautions    []string
-	Version     string
-	PrintedAt   string
-	Fingerprint string
-	QR          markup
-	QRNote      string
-	EvalErr     string
-	ResultsFor  string
+	Figures     []figureRow
+	// Verdict is the figures table's verdict of the whole, over every
+	// rope length; VerdictState its state (figures.AllWithin, ...);
+	// Simulated is false when the scenario moves nothing.
+	Verdict      string
+	VerdictState string
+	// WorstNote says which figures are the worst over the rope lengths.
+	WorstNote string
+	// DetailFigures are the figures for engineers, as text.
+	DetailFigures []string
+	Simulated     bool
+	Plan          *planView
+	AnglePlot     markup
+	PathPlot      markup
+	PathCaption   string
+	Warnings      []string
+	Assumptions   []string
+	Cautions      []string
+	Version       string
+	PrintedAt     string
+	Fingerprint   string
+	QR            markup
+	QRNote        string
+	EvalErr       string
+	ResultsFor    string
 	// Dense and Denser set smaller type for a sheet with much to say.
-	Dense, Denser bool
+	Dense, Denser, Densest bool
 }
 
 // Build renders the sheet of what it is given; it computes nothing.
@@ -202,6 +220,9 @@ func Build(in Input) (*Sheet, error) {
 		{Label: "Prepared by", Value: sh.PreparedBy}, {Label: "Checked by", Value: sh.CheckedBy},
 		{Label: "Date and time of the lift", Value: sh.Date},
 	}
+	if strings.TrimSpace(sh.Date) == "" && in.PrintedAt != "" {
+		v.Refs[len(v.Refs)-1].Value = in.PrintedAt + " (printed)"
+	}
 	if s.Plan != nil {
 		v.Plan = planSection(in.Plan, in.PlanErr, u)
 		if v.Plan.Err == "" {
@@ -214,7 +235,7 @@ func Build(in Input) (*Sheet, error) {
 		if ev == nil {
 			ev = s
 		}
-		fillResults(v, ev, res, u)
+		fillResults(v, ev, res, in.Ropes, u)
 		if len(res.Assumptions) > 0 {
 			// The evaluation's own list (it may say more for a hook block).
 			v.Assumptions = append([]string{}, res.Assumptions...)
@@ -226,9 +247,11 @@ func Build(in Input) (*Sheet, error) {
 		v.EvalErr = "no result was given to the sheet"
 	}
 	switch d := density(v); {
-	case d > 78:
-		v.Dense, v.Denser = true, true
+	case d > 72:
+		v.Dense, v.Denser, v.Densest = true, true, true
 	case d > 62:
+		v.Dense, v.Denser = true, true
+	case d > 52:
 		v.Dense = true
 	}
 	qrText := in.LinkBase + "#" + ShareFragment(canon)
@@ -285,10 +308,11 @@ func mergeCautions(own, more []string) []string {
 }
 
 // density is a rough count of the sheet's lines of text beyond the fixed
-// parts; above 62 the sheet is set in smaller type, above 78 smaller
-// still, to stay on one page.
+// parts; above 52 the sheet is set in smaller type, above 62 and 72
+// smaller still, to stay on one page.
 func density(v *view) int {
-	n := len(v.Results) + len(v.Checks) + len(v.Assumptions)*2 + len(v.Cautions)*2
+	// 4: the verdict band; then the engineering detail.
+	n := len(v.Figures) + len(v.Assumptions)*2 + len(v.Cautions)*2 + 4 + len(Methods) + 2
 	in := 0
 	for _, g := range v.Inputs {
 		in += len(g.Rows) + 1
@@ -299,10 +323,8 @@ func density(v *view) int {
 	}
 	n += len(v.Description) / 120
 	if p := v.Plan; p != nil {
-		n += 6 + len(p.Notes)*2
-		if p.Recommended != nil {
-			n += (len(p.Recommended.Settings) + 1) / 2 * 2
-		}
+		n += 9 + len(p.Notes)*2
+		n += len(p.Settings)
 	}
 	return n
 }

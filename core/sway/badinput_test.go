@@ -66,7 +66,7 @@ func TestStepLimit(t *testing.T) {
 	if !errors.Is(err, sway.ErrStepLimit) {
 		t.Fatalf("want the step limit error, got %v", err)
 	}
-	for _, want := range []string{"too many steps", "settings.rel_tol", "300 steps by t ="} {
+	for _, want := range []string{"This run needs more computing than allowed", "settings.rel_tol", "300 steps by t ="} {
 		if !strings.Contains(err.Error(), want) {
 			t.Errorf("message %q lacks %q", err, want)
 		}

@@ -11,6 +11,7 @@ import (
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // setup is a scenario turned into a model ready to integrate.
@@ -25,8 +26,9 @@ type setup struct {
 	windForce   float64 // N, while the wind blows
 	air         *Air    // wind and drag; nil when neither
 	phases      []Phase
-	warnings    []string
-	fast        *fastModel // the specialised path's model, nil when it does not fit
+	warnings    []words.Sentence
+	axes        []motion.Profile // each axis' moves combined, for the work budget
+	fast        *fastModel       // the specialised path's model, nil when it does not fit
 }
 
 func deref(p *float64, def float64) float64 {
@@ -66,12 +68,15 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		if err != nil {
 			return nil, err
 		}
+		if err := moveTooLong(i, m, p); err != nil {
+			return nil, err
+		}
 		axis, _ := crane.Of(m.Axis) // Validate rejects unknown axes first
 		sum := ax.Of(axis)
 		*sum = append(*sum, p)
 		breaks = append(breaks, p.Breakpoints()...)
 		su.motionEnd = math.Max(su.motionEnd, p.End())
-		if w := profileWarning(i, m, p); w != "" {
+		if w, ok := profileWarning(i, m, p, s.Crane.Kind); ok {
 			su.warnings = append(su.warnings, w)
 		}
 		su.phases = append(su.phases, phaseOf(i, m.Axis, p))
@@ -82,21 +87,27 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	mass := *s.Load.MassKg
 	r0 := s.Crane.RadiusM
 
-	// The rope and the radius must stay in range over the whole run. Both
-	// are piecewise quadratic in time, so looking at every breakpoint and
-	// every turning point is exact; a fine grid covers overlapping moves.
-	if err := checkSpan(ax[crane.Rope], func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
+	// Each axis' moves added together, evaluated at a cost that does not
+	// grow with the number of moves and shaper impulses (the work budget
+	// counts their moving pieces).
+	for r := range ax {
+		su.axes = append(su.axes, motion.Combine(ax[r]...))
+	}
+	hoist, reach := su.axes[crane.Rope], su.axes[crane.Reach]
+
+	// The rope and the radius must stay in range over the whole run.
+	if err := checkSpan(hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
 		"load.rope_length_m", "the rope length", "m"); err != nil {
 		return nil, err
 	}
-	if err := checkSpan(ax[crane.Reach], func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
+	if err := checkSpan(reach, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
 		"crane.radius_m", "the slew radius", "m"); err != nil {
 		return nil, err
 	}
 	su.ropeStart = l0
-	su.ropeEnd = l0 - ax[crane.Rope].At(su.motionEnd+1).Pos
+	su.ropeEnd = l0 - hoist.At(su.motionEnd+1).Pos
 	if len(ax[crane.Turn]) > 0 && r0 == 0 && len(ax[crane.Reach]) == 0 {
-		su.warnings = append(su.warnings, "The crane slews with the load at radius 0 m: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.")
+		su.warnings = append(su.warnings, words.Say("The crane slews with the load at radius {0}: slewing then does not move the suspension point. Set crane.radius_m to the hook radius.", words.Length(0)))
 	}
 
 	// Wind and drag (air.go).
@@ -169,16 +180,29 @@ func WindForceN(s *scenario.Scenario) float64 {
 
 // checkSpan reports an error if value(position of the summed profile)
 // leaves [lo, hi] at any time up to end.
-func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field, what, unit string) error {
-	if len(p) == 0 {
+//
+// Between two breakpoints every profile is a polynomial of degree three
+// at most (constant jerk), so the position is a cubic there and its speed
+// v(u) = v0 + a0 u + j u²/2 a quadratic, with j from the accelerations at
+// the two ends. The position's extremes inside the span are at the roots
+// of that quadratic, found exactly; with the span ends they are every
+// candidate.
+func checkSpan(p motion.Profile, value func(float64) float64, lo, hi float64, field, what, unit string) error {
+	bp := p.Breakpoints()
+	if len(bp) == 0 {
 		return nil
 	}
-	ts := p.Breakpoints()
-	// Turning points inside each piece, where the speed passes zero.
-	for i := 0; i+1 < len(ts); i++ {
-		a, b := p.At(ts[i]+1e-12), p.At(ts[i+1]-1e-12)
-		if a.Vel*b.Vel < 0 && b.Vel != a.Vel {
-			ts = append(ts, ts[i]+(ts[i+1]-ts[i])*a.Vel/(a.Vel-b.Vel))
+	ts := append([]float64(nil), bp...)
+	for i := 0; i+1 < len(bp); i++ {
+		a, b := bp[i], bp[i+1]
+		h := b - a
+		e := 1e-9 * h
+		sa, sb := p.At(a+e), p.At(b-e)
+		j := (sb.Acc - sa.Acc) / (h - 2*e)
+		for _, u := range quadRoots(j/2, sa.Acc, sa.Vel) {
+			if u > 0 && u < h-2*e {
+				ts = append(ts, a+e+u)
+			}
 		}
 	}
 	worst, at, bad := 0.0, 0.0, false
@@ -194,4 +218,24 @@ func checkSpan(p motion.Sum, value func(float64) float64, lo, hi float64, field,
 			"the motions take %s to %.4g %s at t = %.4g s: it must stay from %g to %g %s", what, worst, unit, at, lo, hi, unit)}}
 	}
 	return nil
+}
+
+// quadRoots returns the real roots of a x² + b x + c (of b x + c when a is
+// 0, or nothing when both are), computed without cancellation.
+func quadRoots(a, b, c float64) []float64 {
+	if a == 0 {
+		if b == 0 {
+			return nil
+		}
+		return []float64{-c / b}
+	}
+	d := b*b - 4*a*c
+	if d < 0 {
+		return nil
+	}
+	q := -0.5 * (b + math.Copysign(math.Sqrt(d), b))
+	if q == 0 {
+		return []float64{0}
+	}
+	return []float64{q / a, c / q}
 }

@@ -24,7 +24,7 @@ func TestResidualExcursionCheck(t *testing.T) {
 	if c == nil || c.Value != r.ResidualExcursionM || c.Limit != 0.01 || c.Unit != "m" || c.Within != (r.ResidualExcursionM <= 0.01) {
 		t.Fatalf("check %+v, residual excursion %g m", c, r.ResidualExcursionM)
 	}
-	if c.Within || !strings.Contains(strings.Join(r.Warnings, " "), "Residual excursion of") {
+	if c.Within || !strings.Contains(strings.Join(r.Warnings, " "), "swing-out left after stopping of") {
 		t.Errorf("warnings %q", r.Warnings)
 	}
 }

@@ -46,9 +46,18 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		maxN = opt.MaxSteps
 	}
 	if su.fast != nil && !opt.General {
+		// The specialised path's cost per step is fixed: the step limit
+		// bounds one run; a shared budget (a plan's) is charged after it.
+		if opt.Budget != nil && opt.Budget.Left() < 0 {
+			return nil, nil, Stats{}, &WorkError{Message: opt.Budget.message}
+		}
 		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec}
 		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
-		if err := fs.run(su.y0, su.breaks, tEnd); err != nil {
+		err := fs.run(su.y0, su.breaks, tEnd)
+		if opt.Budget != nil && !opt.Budget.take(int64(fs.v.evals)*WorkPerEval) && err == nil {
+			err = &WorkError{Message: opt.Budget.message}
+		}
+		if err != nil {
 			return nil, nil, Stats{}, err
 		}
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
@@ -57,6 +66,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	sc := newScanner(su.model, su.motionEnd)
 	sc.maxSteps = maxN
 	sc.recorder = rec
+	sc.axes, sc.budget = su.axes, opt.Budget // the general path's work budget (budget.go)
 	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
 		return nil, nil, Stats{}, err
 	}

@@ -21,7 +21,9 @@ import (
 //
 // The seed corpus is every scenario file of the repository plus the odd
 // cases in testdata/fuzz/FuzzEvaluate. Runs are bounded to 200,000 steps
-// (a tenth of the default) so that each input takes under a second.
+// and a tenth of the default work budget so that each input takes under a
+// second; both limits' paths are then exercised too. An accepted run keeps
+// the rope within its accepted range.
 func FuzzEvaluate(f *testing.F) {
 	for _, g := range []string{"../../testdata/scenarios/*.json", "../../testdata/reference/scenarios/*.json"} {
 		files, _ := filepath.Glob(g)
@@ -40,7 +42,7 @@ func FuzzEvaluate(f *testing.F) {
 		}
 		// A lower step bound than the default keeps each run short; the
 		// step limit path is then exercised too.
-		res, err := sway.EvaluateWith(s, sway.Options{MaxSteps: 200_000})
+		res, err := sway.EvaluateWith(s, sway.Options{MaxSteps: 200_000, Budget: sway.NewBudget(sway.DefaultWork/10, "")})
 		if err != nil {
 			if err.Error() == "" {
 				t.Fatalf("error without a message: %T", err)
@@ -64,6 +66,11 @@ func FuzzEvaluate(f *testing.F) {
 		if res.PeakSwingDeg < res.ResidualSwingDeg-1e-9 || res.PeakExcursionM < res.ResidualExcursionM-1e-9 {
 			t.Fatalf("residual above peak: swing %g > %g, excursion %g > %g",
 				res.ResidualSwingDeg, res.PeakSwingDeg, res.ResidualExcursionM, res.PeakExcursionM)
+		}
+		for _, l := range append([]float64{res.RopeLengthStartM, res.RopeLengthEndM}, res.History.RopeM...) {
+			if l < scenario.MinRopeM-1e-9 || l > 500+1e-9 {
+				t.Fatalf("rope length %g m outside its accepted range", l)
+			}
 		}
 		if res.TensionMaxN < res.TensionMinN {
 			t.Fatalf("tension max %g below min %g", res.TensionMaxN, res.TensionMinN)

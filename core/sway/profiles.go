@@ -4,10 +4,12 @@ import (
 	"fmt"
 	"math"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
 	"swaysheet/core/shaper"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // BuildProfile builds the motion profile of one validated move of s, of
@@ -119,8 +121,8 @@ func phaseOf(i int, axis string, p motion.Profile) Phase {
 }
 
 // profileWarning says when a point-to-point move is too short to reach
-// its top speed.
-func profileWarning(i int, m *scenario.Motion, p motion.Profile) string {
+// its top speed; ok is false when it is not.
+func profileWarning(i int, m *scenario.Motion, p motion.Profile, craneKind string) (words.Sentence, bool) {
 	var t *motion.Trapezoid
 	switch q := p.(type) {
 	case *motion.Trapezoid:
@@ -128,14 +130,15 @@ func profileWarning(i int, m *scenario.Motion, p motion.Profile) string {
 	case *motion.SCurve:
 		t = q.Base
 	case *motion.Shaped:
-		return profileWarning(i, m, q.Base)
+		return profileWarning(i, m, q.Base, craneKind)
 	}
 	if t == nil || !t.Triangular() {
-		return ""
+		return words.Sentence{}, false
 	}
 	k := kindOf(m)
-	unit, speedUnit, scale := k.Unit, k.SpeedUnit, 1/k.ToSI
-	return fmt.Sprintf(
-		"Move %d (%s, %.4g %s) is too short to reach its top speed of %.4g %s: it peaks at %.4g %s (triangular speed profile).",
-		i+1, m.Axis, math.Abs(t.Distance)*scale, unit, t.Speed*scale, speedUnit, t.PeakSpeed()*scale, speedUnit)
+	scale := 1 / k.ToSI
+	return words.Say(fmt.Sprintf("Move %d (%s, {0}) is too short to reach its top speed of {1}: it peaks at {2}.",
+		i+1, crane.WordsFor(craneKind, m.Axis)),
+		words.Of(math.Abs(t.Distance)*scale, k.Unit), words.Of(t.Speed*scale, k.SpeedUnit),
+		words.Of(t.PeakSpeed()*scale, k.SpeedUnit)), true
 }

@@ -7,6 +7,7 @@ import (
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // Rigging reports the hook block and rigging when a scenario models them
@@ -87,9 +88,8 @@ func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result, me
 	rg.PeakRopeSwingDeg = swingRad(sc.ext[qRopeSwing].max) / units.Degree
 	res.Rigging = rg
 	if rg.SecondModeShare >= SecondModeWarnShare {
-		res.Warnings = append(res.Warnings, fmt.Sprintf(
-			"The hook block and rigging swing in two modes: %.3g s and %.3g s. The second carries about %.0f%% of the load's swing, enough to matter: a drive setting tuned to one period leaves the other ringing.",
-			rg.ModePeriodsS[0], rg.ModePeriodsS[1], 100*rg.SecondModeShare))
+		res.warn(words.Say(fmt.Sprintf("The hook block and rigging swing in two ways at once: a slow swing of {0} and a quick one of {1}. The quick one carries about %.0f %% of the load's swing, enough to matter: a drive setting tuned to one swing time leaves the other going.",
+			100*rg.SecondModeShare), words.Time(rg.ModePeriodsS[0]), words.Time(rg.ModePeriodsS[1])))
 	}
 	return nil
 }

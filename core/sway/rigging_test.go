@@ -55,7 +55,7 @@ func TestLightHookTendsToSinglePendulum(t *testing.T) {
 		t.Errorf("second mode share %v", b.Rigging.SecondModeShare)
 	}
 	for _, w := range b.Warnings {
-		if strings.Contains(w, "two modes") {
+		if strings.Contains(w, "two ways at once") {
 			t.Errorf("unexpected warning %q", w)
 		}
 	}
@@ -69,7 +69,7 @@ func TestHeavyHookWarnsOfSecondMode(t *testing.T) {
 	r := mustEval(t, s)
 	found := false
 	for _, w := range r.Warnings {
-		found = found || strings.Contains(w, "two modes")
+		found = found || strings.Contains(w, "two ways at once")
 	}
 	if r.Rigging.SecondModeShare < SecondModeWarnShare || !found {
 		t.Errorf("share %v, warnings %q", r.Rigging.SecondModeShare, r.Warnings)

@@ -12,6 +12,7 @@ import (
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // Body reports a load modelled as a rigid body (load.body).
@@ -265,18 +266,18 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	res.Body = out
 	long := math.Max(*b.LengthM, *b.WidthM)
 	if !out.TwistRestrained && long >= LongLoadM {
-		res.Warnings = append(res.Warnings, fmt.Sprintf(
-			"The load (%.3g m long) hangs from one hook, which does not restrain its twist: once it turns, nothing turns it back. Control it with tag lines, or carry it on a spreader with two legs held by the crane.", long))
+		res.warn(words.Say(
+			"The load ({0} long) hangs from one hook, which does not restrain its twist: once it turns, nothing turns it back. Control it with tag lines, or carry it on a spreader with two legs held by the crane.", words.Length(long)))
 	}
 	for i, l := range out.Legs {
 		if l.TensionMinN <= 0 {
-			res.Warnings = append(res.Warnings, fmt.Sprintf(
-				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1))
+			res.warn(words.Plain(fmt.Sprintf(
+				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
 		}
 	}
 	if out.RestTiltDeg > 2 {
-		res.Warnings = append(res.Warnings, fmt.Sprintf(
-			"The load hangs tilted %.3g deg at rest: the legs' lengths and attach points do not centre the hook over its centre of mass.", out.RestTiltDeg))
+		res.warn(words.Say(
+			"The load hangs tilted {0} at rest: the legs' lengths and attach points do not centre the hook over its centre of mass.", words.Angle(out.RestTiltDeg)))
 	}
 	return nil
 }

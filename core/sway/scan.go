@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"swaysheet/core/motion"
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
@@ -42,6 +43,11 @@ type scanner struct {
 
 	y  []float64 // scratch state
 	pt pendulum.Point
+
+	axes    []motion.Profile // the combined axes, for the work of a segment
+	budget  *Budget
+	segWork int64 // work of one evaluation in the current segment
+	work    int64 // work not yet charged to the budget
 }
 
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
@@ -148,6 +154,7 @@ func (s *peaks) residualOf(q quantity) *extremum {
 
 // at evaluates the load at time t inside the last step.
 func (s *scanner) at(t float64) *pendulum.Point {
+	s.work += s.segWork
 	s.solver.Dense(t, s.y)
 	s.model.Project(s.y)
 	s.model.Eval(s.inSegment(t), s.y, &s.pt)
@@ -180,7 +187,10 @@ func (s *scanner) inSegment(t float64) float64 {
 
 // fn is the right-hand side the solver integrates: the model's, inside the
 // current segment.
-func (s *scanner) fn(t float64, y, dy []float64) { s.model.Func(s.inSegment(t), y, dy) }
+func (s *scanner) fn(t float64, y, dy []float64) {
+	s.work += s.segWork
+	s.model.Func(s.inSegment(t), y, dy)
+}
 
 // interior is the number of points looked at inside each step.
 const interior = 2
@@ -208,6 +218,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			continue
 		}
 		s.segStart, s.segEnd = t, cut
+		s.segWork = segmentWork(s.axes, 0.5*(t+cut))
 		s.solver.Reset(t, s.solver.State())
 		carry := false // the first sample of the step is the last of the one before
 		for {
@@ -218,6 +229,10 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				}
 				return err
 			}
+			if !s.budget.take(s.work) {
+				return &WorkError{Message: s.budget.message}
+			}
+			s.work = 0
 			t0, t1 := s.solver.LastStep()
 			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any

@@ -16,6 +16,7 @@ import (
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // Result is what an evaluation reports. SI units, angles in degrees.
@@ -69,12 +70,16 @@ type Result struct {
 	// Body is present when the scenario models the load as a rigid body.
 	Body *Body `json:"body,omitempty"`
 
-	Checks      []Check  `json:"checks"`
-	Warnings    []string `json:"warnings"`
-	Assumptions []string `json:"assumptions"`
-	Phases      []Phase  `json:"phases"`
-	History     History  `json:"history"`
-	Solver      Stats    `json:"solver"`
+	Checks   []Check  `json:"checks"`
+	Warnings []string `json:"warnings"`
+	// WarningSentences are the warnings with their quantities marked
+	// (core/words), to be shown in the units people chose; Warnings is
+	// their plain SI text, one for one.
+	WarningSentences []words.Sentence `json:"warning_sentences"`
+	Assumptions      []string         `json:"assumptions"`
+	Phases           []Phase          `json:"phases"`
+	History          History          `json:"history"`
+	Solver           Stats            `json:"solver"`
 }
 
 // Check is one result held against one of the plan's limits.
@@ -130,6 +135,9 @@ type Options struct {
 	// MaxSteps bounds the integration steps, accepted and rejected; zero
 	// means 500,000. The evaluation ends with ErrStepLimit when hit.
 	MaxSteps int
+	// Budget is the work allowance the evaluation draws on (see
+	// budget.go); nil gives it its own of DefaultWork.
+	Budget *Budget
 	// NoModePeriods skips measuring the two mode periods on the nonlinear
 	// model with a hook block (rigging.simulated_periods_s stays zero;
 	// for the planner's many runs).
@@ -238,7 +246,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		RunS:             tEnd,
 		Assumptions:      Assumptions,
 		Phases:           su.phases,
-		Warnings:         append([]string{}, su.warnings...),
+	}
+	for _, w := range su.warnings {
+		res.warn(w)
 	}
 	if res.Phases == nil {
 		res.Phases = []Phase{}
@@ -250,6 +260,9 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.Assumptions = bodyAssumptions()
 		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
 		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
+	}
+	if opt.Budget == nil {
+		opt.Budget = NewBudget(DefaultWork, "")
 	}
 	var hist *History
 	if !opt.NoHistory {
@@ -276,7 +289,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		// to the period (for a hook block and rigging, to the slower mode).
 		res.PeriodAmplitudeS = period * 2 * mathext.CompleteK(k*k) / math.Pi
 	} else {
-		res.Warnings = append(res.Warnings, "The load swings over the top of its circle: it whirls round the suspension point and has no swing period.")
+		res.warn(words.Plain("The load swings over the top of its circle: it whirls round the suspension point and has no swing period."))
 	}
 	if s.Load.Hook != nil {
 		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
@@ -291,7 +304,8 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	}
 	res.Solver = stats
 
-	res.Checks, res.Warnings = checks(s, res, res.Warnings)
+	res.Checks = checks(s, res)
+	res.markWarnings()
 	return res, nil
 }
 
@@ -315,40 +329,64 @@ func WindLeanRad(s *scenario.Scenario, force, rope float64) float64 {
 	return math.Atan2(x, z)
 }
 
-func checks(s *scenario.Scenario, r *Result, warn []string) ([]Check, []string) {
+func checks(s *scenario.Scenario, r *Result) []Check {
 	out := []Check{}
-	add := func(name, label string, v float64, lim *float64, unit string) {
+	add := func(name, label, crew string, v float64, lim *float64, unit string) {
 		if lim == nil {
 			return
 		}
 		c := Check{Name: name, Label: label, Value: v, Limit: *lim, Unit: unit, Within: v <= *lim}
 		out = append(out, c)
 		if !c.Within {
-			warn = append(warn, fmt.Sprintf("%s of %.4g %s is outside the plan's limit of %.4g %s.", label, v, unit, *lim, unit))
+			r.warn(words.Say(crew+" of {0} is outside the plan's limit of {1}.", words.Of(v, unit), words.Of(*lim, unit)))
 		}
 	}
 	if l := s.Limits; l != nil {
-		add("peak_swing_deg", "Peak swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
-		add("peak_excursion_m", "Peak excursion", r.PeakExcursionM, l.PeakExcursionM, "m")
-		add("residual_swing_deg", "Residual swing", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
-		add("residual_excursion_m", "Residual excursion", r.ResidualExcursionM, l.ResidualExcursionM, "m")
-		add("tension_factor", "Tension factor", r.TensionFactor, l.TensionFactor, "")
+		add("peak_swing_deg", "Peak swing", "The largest swing", r.PeakSwingDeg, l.PeakSwingDeg, "deg")
+		add("peak_excursion_m", "Peak excursion", "The load's largest swing-out", r.PeakExcursionM, l.PeakExcursionM, "m")
+		add("residual_swing_deg", "Residual swing", "The swing left after stopping", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
+		add("residual_excursion_m", "Residual excursion", "The swing-out left after stopping", r.ResidualExcursionM, l.ResidualExcursionM, "m")
+		add("tension_factor", "Tension factor", "The rope pull increase (times the load's weight)", r.TensionFactor, l.TensionFactor, "")
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
-			warn = append(warn, fmt.Sprintf("The wind alone leans the rope %.3g deg, more than the plan's swing limit of %.3g deg: no drive setting can keep the load inside it. Wait for less wind or change the limit.", r.WindLeanDeg, *l.PeakSwingDeg))
+			r.warn(words.Say("The wind alone leans the rope {0}, more than the plan's swing limit of {1}: no drive setting can keep the load inside it. Wait for less wind or change the limit.",
+				words.Angle(r.WindLeanDeg), words.Angle(*l.PeakSwingDeg)))
 		}
 	}
 	if r.TensionMinN <= 0 {
-		warn = append(warn, "The rope goes slack (tension reaches zero): the model no longer holds, and the load can snatch the rope when it tightens. Reduce the motion.")
+		r.warn(words.Plain("The rope goes slack (tension reaches zero): the model no longer holds, and the load can snatch the rope when it tightens. Reduce the motion."))
 	}
 	if r.PeakSwingDeg > SwingValidityDeg {
-		warn = append(warn, fmt.Sprintf("The rope swings %.3g deg from the vertical, above %g deg: this is outside the range the tool is meant for, and rigging, hook and crane behave in ways the model leaves out.", r.PeakSwingDeg, SwingValidityDeg))
+		r.warn(words.Say("The rope swings {0} from the vertical, above {1}: this is outside the range the tool is meant for, and rigging, hook and crane behave in ways the model leaves out.",
+			words.Angle(r.PeakSwingDeg), words.Angle(SwingValidityDeg)))
 	}
-	if warn == nil {
-		warn = []string{}
+	return out
+}
+
+// warn adds a warning: its sentence and its plain SI text.
+func (r *Result) warn(w words.Sentence) {
+	r.WarningSentences = append(r.WarningSentences, w)
+	r.Warnings = append(r.Warnings, w.String())
+}
+
+// markWarnings makes WarningSentences one for one with Warnings: a
+// warning added as plain text alone gets a sentence without quantities.
+func (r *Result) markWarnings() {
+	if r.Warnings == nil {
+		r.Warnings = []string{}
 	}
-	return out, warn
+	out := make([]words.Sentence, len(r.Warnings))
+	k := 0
+	for i, w := range r.Warnings {
+		if k < len(r.WarningSentences) && r.WarningSentences[k].String() == w {
+			out[i] = r.WarningSentences[k]
+			k++
+			continue
+		}
+		out[i] = words.Plain(w)
+	}
+	r.WarningSentences = out
 }
 
 // ErrStepLimit is returned when an evaluation needs more integration steps
 // than it is allowed.
-var ErrStepLimit = errors.New("sway: the computation needed too many steps; shorten the run or loosen settings.rel_tol")
+var ErrStepLimit = errors.New("This run needs more computing than allowed: shorten the moves or the run time, or set a looser accuracy (settings.rel_tol)")

@@ -292,7 +292,7 @@ func TestWarnings(t *testing.T) {
 		}
 		return false
 	}
-	if r.PeakSwingDeg <= SwingValidityDeg || !has("above 30 deg") {
+	if r.PeakSwingDeg <= SwingValidityDeg || !has("above 30.0 deg") {
 		t.Errorf("peak %v deg, warnings %q", r.PeakSwingDeg, r.Warnings)
 	}
 	// A short move that cannot reach its speed.
@@ -388,5 +388,27 @@ func BenchmarkExamples(b *testing.B) {
 				b.ReportMetric(float64(steps), "steps")
 			})
 		}
+	}
+}
+
+// TestWarningSentences: every warning has its sentence, one for one, and
+// the sentence in SI is the warning's text.
+func TestWarningSentences(t *testing.T) {
+	s := still(1000, 5)
+	s.Motions = []scenario.Motion{move(0, 0.5, 1, 0.2, 0.2)}
+	r := mustEval(t, s)
+	if len(r.Warnings) == 0 || len(r.WarningSentences) != len(r.Warnings) {
+		t.Fatalf("%d warnings, %d sentences", len(r.Warnings), len(r.WarningSentences))
+	}
+	for i, w := range r.WarningSentences {
+		if w.String() != r.Warnings[i] || len(w.Quantities) == 0 {
+			t.Errorf("%d: %q against %q", i, w.String(), r.Warnings[i])
+		}
+	}
+	// A warning added as plain text alone still gets its sentence.
+	r.Warnings = append(r.Warnings, "plain {text}")
+	r.markWarnings()
+	if n := len(r.WarningSentences); n != len(r.Warnings) || r.WarningSentences[n-1].Text != "plain (text)" {
+		t.Errorf("plain warning: %+v", r.WarningSentences)
 	}
 }

@@ -8,15 +8,17 @@ import (
 	"swaysheet/core/sway"
 )
 
-// memo keeps the last two evaluations and the last plan, each with the
+// memo keeps the last evaluations (keptResults of them) and the last plan, each with the
 // fingerprint of the scenario it is of (key: any changed input but the
 // check sheet's reference fields changes it). The page evaluates, then asks for the figures and the
 // sheet of the same inputs: those calls find the result here and never
-// compute it again. Two results: a planning request without moves of its
-// own has its own result and the sheet's, of the recommended move.
+// compute it again. Several results: a planning request without moves of
+// its own has its own result and the sheet's, of the recommended move,
+// and the verdict is over every rope length the scenario names (the
+// nominal and the plan's range ends: three evaluations of each).
 type memo struct {
 	mu      sync.Mutex
-	results [2]keptResult // most recent first
+	results []keptResult // most recent first, at most keptResults
 	planFP  string
 	plan    *plan.Result
 	// computed counts evaluations and plans run (for tests).
@@ -24,6 +26,10 @@ type memo struct {
 }
 
 var last memo
+
+// keptResults is how many evaluations the memo keeps: the scenario's own
+// and its recommended move's, each at three rope lengths, and two more.
+const keptResults = 8
 
 // evaluated is the evaluation of s, from the memo when it holds s's;
 // validated says s came from scenario.Parse unchanged (not validated
@@ -36,7 +42,8 @@ func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
 	last.mu.Lock()
 	for i, k := range last.results {
 		if k.fp == fp {
-			last.results[0], last.results[i] = k, last.results[0]
+			copy(last.results[1:i+1], last.results[:i])
+			last.results[0] = k
 			last.mu.Unlock()
 			return k.result, nil
 		}
@@ -47,7 +54,10 @@ func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
 		return nil, err
 	}
 	last.mu.Lock()
-	last.results[1], last.results[0] = last.results[0], keptResult{fp: fp, result: r}
+	last.results = append([]keptResult{{fp: fp, result: r}}, last.results...)
+	if len(last.results) > keptResults {
+		last.results = last.results[:keptResults]
+	}
 	last.computed++
 	last.mu.Unlock()
 	return r, nil
@@ -88,4 +98,19 @@ func key(s *scenario.Scenario) (string, error) {
 	c := *s
 	c.Sheet = nil
 	return scenario.Fingerprint(&c)
+}
+
+// keptPlan is the plan of s when the memo holds it, else nil: for calls
+// that use a plan already made and never start one.
+func keptPlan(s *scenario.Scenario) (*plan.Result, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	last.mu.Lock()
+	defer last.mu.Unlock()
+	if last.planFP == fp {
+		return last.plan, nil
+	}
+	return nil, nil
 }

@@ -6,6 +6,7 @@ import (
 	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
+	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
 
@@ -42,11 +43,23 @@ func figuresCall(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	r, err := evaluated(s, true)
-	if err != nil {
+	// As on the sheet: a planning request without moves of its own that
+	// the page has planned is presented for the recommended move, and the
+	// verdict is over every rope length the scenario names. The plan is
+	// only taken from the memo, never made here.
+	c := sheet.Computer{Plan: keptPlan, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
+		return evaluated(x, x == s)
+	}}.Compute(s)
+	if c.ResultErr != "" {
+		_, err := evaluated(c.Evaluated, c.Evaluated == s) // the error as it came, fields and all
+		if err == nil {
+			err = scenario.Errors{{Field: "(scenario)", Message: c.ResultErr}}
+		}
 		return nil, err
 	}
-	return figures.Present(s, r, in.choice()), nil
+	rep := figures.PresentRopes(c.Evaluated, c.Ropes, in.choice())
+	rep.ResultFor = c.ResultFor
+	return rep, nil
 }
 
 // plotCall draws a line chart with the check sheet's plotter (core/sheet

@@ -69,9 +69,10 @@ func TestSheetUsesTheLastPlan(t *testing.T) {
 	if e.Error != nil {
 		t.Fatal(e.Error.Message)
 	}
-	// The recommended move's evaluation, nothing else.
-	if n := last.computed - before; n != 1 {
-		t.Errorf("the sheet computed %d times after the plan call, want 1 (the recommended move)", n)
+	// The recommended move's evaluations at the nominal rope length and
+	// the plan's range ends, nothing else.
+	if n := last.computed - before; n != 3 {
+		t.Errorf("the sheet computed %d times after the plan call, want 3 (the recommended move at three rope lengths)", n)
 	}
 	before = last.computed
 	Call(nil, "sheet", in)

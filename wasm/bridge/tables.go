@@ -35,10 +35,12 @@ func unitTable(*Env, []byte) (any, error) {
 // FieldRange is one accepted range from scenario.Ranges, with the quantity
 // of core/units whose SI unit it is given in ("" when none).
 type FieldRange struct {
-	Min      float64 `json:"min"`
-	Max      float64 `json:"max"`
-	Unit     string  `json:"unit"`
-	OpenMin  bool    `json:"open_min"`
+	Min     float64 `json:"min"`
+	Max     float64 `json:"max"`
+	Unit    string  `json:"unit"`
+	OpenMin bool    `json:"open_min"`
+	// MinAbs, when above 0, is the smallest size of a value other than 0.
+	MinAbs   float64 `json:"min_abs,omitempty"`
 	Text     string  `json:"text"`
 	Quantity string  `json:"quantity"`
 }
@@ -46,7 +48,7 @@ type FieldRange struct {
 func ranges(*Env, []byte) (any, error) {
 	out := make(map[string]FieldRange, len(scenario.Ranges))
 	for k, r := range scenario.Ranges {
-		out[k] = FieldRange{Min: r.Min, Max: r.Max, Unit: r.Unit, OpenMin: r.OpenMin,
+		out[k] = FieldRange{Min: r.Min, Max: r.Max, Unit: r.Unit, OpenMin: r.OpenMin, MinAbs: r.MinAbs,
 			Text: r.Text(), Quantity: units.QuantityOf(r.Unit)}
 	}
 	return out, nil

@@ -147,6 +147,11 @@ func TestPlanner(t *testing.T) {
 			if n := len(h.texts(sel + ` table.verified tbody tr`)); n != len(o.Verified) {
 				t.Errorf("%s: %d verified rows, the core %d", o.Key, n, len(o.Verified))
 			}
+			// A screened option's figures are estimates, shown as such.
+			if n := len(h.texts(sel + ` table.estimated tbody tr`)); n != len(o.Estimated) ||
+				(o.NotSimulated != "") != strings.Contains(h.text(sel), "Not simulated: linear-theory estimate") {
+				t.Errorf("%s: %d estimate rows, the core %d (not simulated: %q)", o.Key, n, len(o.Estimated), o.NotSimulated)
+			}
 		}
 		// The two curves, one line per rope length and per shaper.
 		if n := eval[int](h, `document.querySelectorAll('#plot-plan-ramp path.line').length`); n != len(want.Curves.AccelTime.Series) {
@@ -465,6 +470,9 @@ func TestHookPlan(t *testing.T) {
 		row := h.text("#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + ")")
 		if o.TwoMode != strings.Contains(row, "both modes") {
 			t.Errorf("%s: two-mode %v, row %q", o.Key, o.TwoMode, row)
+		}
+		if len(o.Verified) == 0 {
+			continue // not simulated (screened): linear-theory estimates only
 		}
 		if v := o.Verified[0]; v.PeakRiggingAngleDeg > 0 {
 			got := h.text("#plan-opt-" + strconv.Itoa(i) + " table.verified tbody tr:first-child td:last-child")

@@ -61,7 +61,7 @@ func TestServiceWorkerFilesAndVersion(t *testing.T) {
 	for _, f := range files {
 		have[f.Name] = true
 	}
-	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js",
+	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "coach.js", "coach.css", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js",
 		"manifest.webmanifest", "icon-192.png", "swaysheet.wasm", "wasm_exec.js", "examples/index.json", "examples/bay-travel.json"} {
 		if !have[want] {
 			t.Errorf("the release lacks %s", want)

@@ -21,6 +21,7 @@ import (
 func main() {
 	addr := flag.String("addr", "127.0.0.1:8080", "address to listen on (keep it on the loopback)")
 	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm and wasm_exec.js")
+	library := flag.String("library", "", "a site library folder to serve under /library/ (library/index.json and the scenario files it lists)")
 	flag.Parse()
 	for _, f := range []string{"swaysheet.wasm", "wasm_exec.js"} {
 		if _, err := os.Stat(filepath.Join(*build, f)); err != nil {
@@ -34,7 +35,7 @@ func main() {
 	fmt.Printf("swaysheet: open http://%s/  (Ctrl-C stops the server)\n", ln.Addr())
 	srv := &http.Server{
 		Handler: site.Handler(site.Dirs{Static: filepath.Join("web", "static"), Build: *build,
-			Examples: filepath.Join("testdata", "scenarios")}),
+			Examples: filepath.Join("testdata", "scenarios"), Library: *library}),
 		ReadHeaderTimeout: 10 * time.Second,
 	}
 	log.Fatal(srv.Serve(ln))

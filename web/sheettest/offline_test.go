@@ -14,6 +14,7 @@ import (
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
+	"swaysheet/core/version"
 )
 
 func copyDir(t *testing.T, from, to string) {
@@ -89,14 +90,14 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	b.settle()
 	b.poll(`!!navigator.serviceWorker.controller`, "the service worker does not control the page")
 	names, paths := b.caches()
-	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-0.1.0-dev-") {
+	if len(names) != 1 || !strings.HasPrefix(names[0], "swaysheet-"+version.Version+"-") {
 		t.Fatalf("caches %q, want one swaysheet release", names)
 	}
 	have := map[string]bool{}
 	for _, p := range paths {
 		have[p] = true
 	}
-	for _, f := range []string{"/", "/index.html", "/main.js", "/engine.js", "/plan-view.js", "/worker.js", "/swaysheet.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
+	for _, f := range []string{"/", "/index.html", "/main.js", "/engine.js", "/plan-view.js", "/coach.js", "/coach.css", "/worker.js", "/swaysheet.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
 		"/print.css", "/sheet.js", "/offline.js", "/manifest.webmanifest", "/icon-192.png", "/examples/index.json", "/examples/bay-travel.json"} {
 		if !have[f] {
 			t.Errorf("the cache lacks %s", f)

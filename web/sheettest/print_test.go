@@ -13,6 +13,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"swaysheet/core/scenario"
+	"swaysheet/core/version"
 	"swaysheet/web/site"
 )
 
@@ -121,10 +122,10 @@ func TestPrintCheckSheet(t *testing.T) {
 		for _, want := range []string{
 			"Hook-load sway check sheet", s.Name[:30],
 			hostile, `"><script>alert(2)</script>`, "L-07 girder G2", "2026-12-02 07:30",
-			"INPUTS", "Mass 7200 kg", "Rope length 8.5 m", "Speed 30 m/min",
+			"INPUTS", "Mass 7200 kg", "Rope length 8.50 m", "Speed 30.0 m/min",
 			"RESULTS", "Time for one full swing", "Largest swing", "Rope pull increase", "within", "OUTSIDE",
 			"SAFETY CAUTIONS", "Nobody under a suspended load", "take precedence",
-			"WHAT THE MODEL ASSUMES", "Prepared by", "Checked by", "swaysheet 0.1.0-dev",
+			"WHAT THE MODEL ASSUMES", "Prepared by", "Checked by", "swaysheet " + version.Version,
 			fp,
 		} {
 			if w := squeeze(want); !strings.Contains(raw, w) && !strings.Contains(layout, w) {

@@ -73,6 +73,10 @@ func TestSingleFileFromDisk(t *testing.T) {
 	if eval[string](b, `document.getElementById('engine-error').hidden ? '' : document.getElementById('engine-error').textContent`) != "" {
 		t.Error("the engine reported an error")
 	}
+	// The press coach's module is in the file too.
+	if !eval[bool](b, `typeof window.swaysheetCoach === 'object' && window.swaysheetCoach.running() === false`) {
+		t.Error("the press coach is not in the single file")
+	}
 	// The print sheet is made there too.
 	b.waitSheet()
 }

@@ -22,6 +22,9 @@ type Dirs struct {
 	Static   string // web/static
 	Build    string // holds swaysheet.wasm and wasm_exec.js
 	Examples string // testdata/scenarios
+	// Library is a site library folder (library/index.json and the
+	// scenario files it names), served under /library/; empty: none.
+	Library string
 }
 
 // CSP allows the page to load only its own files; wasm needs
@@ -59,6 +62,13 @@ func Handler(d Dirs) http.Handler {
 				return
 			}
 			file(w, r, filepath.Join(d.Examples, name))
+		case strings.HasPrefix(p, "/library/") && d.Library != "":
+			name := strings.TrimPrefix(p, "/library/")
+			if strings.Contains(name, "/") || !strings.HasSuffix(name, ".json") {
+				http.NotFound(w, r)
+				return
+			}
+			file(w, r, filepath.Join(d.Library, name))
 		case built[strings.TrimPrefix(p, "/")]:
 			file(w, r, filepath.Join(d.Build, strings.TrimPrefix(p, "/")))
 		default:

@@ -62,3 +62,22 @@ func TestExampleIndex(t *testing.T) {
 		t.Errorf("index %v, files %v", names, files)
 	}
 }
+
+// A site library folder is served under /library/: its .json files, and
+// nothing else; without one, /library/ is not found.
+func TestSiteLibrary(t *testing.T) {
+	lib := t.TempDir()
+	os.WriteFile(filepath.Join(lib, "index.json"), []byte(`["bay-3.json"]`), 0o644)
+	os.WriteFile(filepath.Join(lib, "bay-3.json"), []byte(`{}`), 0o644)
+	os.WriteFile(filepath.Join(lib, "notes.txt"), []byte(`x`), 0o644)
+	h := Handler(Dirs{Static: "../static", Build: t.TempDir(), Examples: "../../testdata/scenarios", Library: lib})
+	for p, code := range map[string]int{"/library/index.json": 200, "/library/bay-3.json": 200,
+		"/library/notes.txt": 404, "/library/../go.mod": 404, "/library/": 404} {
+		if rec := get(h, "GET", p); rec.Code != code {
+			t.Errorf("GET %s: %d, want %d", p, rec.Code, code)
+		}
+	}
+	if rec := get(handler(t), "GET", "/library/index.json"); rec.Code != 404 {
+		t.Errorf("no library: %d", rec.Code)
+	}
+}

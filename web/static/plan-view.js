@@ -3,6 +3,7 @@
 // figure comes from the core; nothing is computed here beyond differences
 // of times the planner gives (a ramp's duration).
 
+import { openCoach } from './coach.js';
 import { changed } from './compute.js';
 import { $, esc, notice } from './dom.js';
 import { call, cancel } from './engine.js';
@@ -159,7 +160,8 @@ function recommended(r) {
   if (why.indexOf(lead) === 0) why = why.slice(lead.length);
   return '<div class="plan-rec" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2605</span> Recommended: <span id="plan-rec-label">' + esc(o.label) + '</span></p>' +
     '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span>' + siNote() + '</p>' +
-    '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a></p></div>';
+    '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a>' +
+    (o.presses && o.presses.length ? ' <button type="button" class="coach-open" data-coach="' + r.recommended + '">Press coach</button>' : '') + '</p></div>';
 }
 
 // verdict says whether an option keeps inside every limit, and which it
@@ -234,20 +236,34 @@ function optionCard(r, o, i) {
     (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '. ' + esc(o.label) + (rec ? ' \u2014 <strong>Recommended</strong>' : '') +
     ' \u00B7 ' + esc(secs(o.move_time_s)) + ' \u00B7 ' + optionVerdict(o) + '</summary><div class="opt-body">';
   h += '<h4>Settings for the crew</h4>' + crew(r, o);
+  if (o.presses && o.presses.length) {
+    h += '<p class="row"><button type="button" class="coach-open" data-coach="' + i + '">Press coach: count the presses on screen</button></p>';
+  }
   var mr = o.mode_residual_pct;
   if (mr && mr.length >= 2) {
     h += '<p class="mode-left">Left in each sway mode (linear theory, the worst over the rope lengths): first mode ' + esc(fmtRes(mr[0])) +
       '\u00A0%, second mode ' + esc(fmtRes(mr[1])) + '\u00A0% of what the drive-limits move leaves' + (o.two_mode ? ' (a shaper for both modes).' : '.') + '</p>';
   }
-  var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
-  h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
-    '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
-    (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
-    o.verified.map(function (v, j) {
-      return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
-        '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
-        fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
-    }).join('') + '</tbody></table></div>';
+  if (o.not_simulated) {
+    // Screened by the planner: linear-theory estimates, never shown as checked.
+    h += '<h4>Not simulated: linear-theory estimate</h4><p class="note">' + esc(o.not_simulated) + '. Use this move in the crane motions to simulate it.</p>' +
+      '<div class="table-wrap"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<th scope="col">Peak swing, estimate (deg)</th><th scope="col">Peak excursion, estimate (' + esc(L) + ')</th><th scope="col">Residual swing, estimate (deg)</th></tr></thead><tbody>' +
+      (o.estimated || []).map(function (v, j) {
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td></tr>';
+      }).join('') + '</tbody></table></div>';
+  } else {
+    var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
+    h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
+      (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
+      o.verified.map(function (v, j) {
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
+          fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
+      }).join('') + '</tbody></table></div>';
+  }
   if (!o.within) h += listHTML(o.outside, 'warn-list', '\u2716');
   h += '<p class="row"><button type="button" class="apply" data-apply="' + i + '">' +
     (P.applied === o.key ? '\u2714 In the crane motions' : 'Use this move in the crane motions') + '</button></p>';
@@ -328,6 +344,8 @@ export function bindPlan() {
   $('plan-out').addEventListener('click', function (e) {
     var b = e.target.closest && e.target.closest('[data-apply]');
     if (b && P.result) applyOption(Number(b.dataset.apply));
+    var c = e.target.closest && e.target.closest('[data-coach]');
+    if (c && P.result) openCoach(P.result, P.result.options[Number(c.dataset.coach)], c, P.key !== P.nowKey);
   });
 }
 

@@ -143,8 +143,14 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 			ts[k] = float64(time.Since(start).Nanoseconds()) / 1e6
 		}
 		base := strings.TrimSuffix(filepath.Base(files[i]), ".json")
+		screened := 0
+		for _, o := range pr.Options {
+			if o.NotSimulated != "" {
+				screened++
+			}
+		}
 		rows = append(rows, Row{Group: strings.Replace(group, "core", "planner", 1), Name: base, Value: Median(ts), Unit: "ms",
-			Note: fmt.Sprintf("%d options verified at %d rope lengths, %d simulations; median of %d", len(pr.Options), len(pr.CheckedRopeLengthsM), pr.Simulations, n)})
+			Note: fmt.Sprintf("%d options (%d screened, not simulated) at %d rope lengths, %d simulations; median of %d", len(pr.Options), screened, len(pr.CheckedRopeLengthsM), pr.Simulations, n)})
 	}
 	return rows, nil
 }

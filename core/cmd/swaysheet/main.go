@@ -19,12 +19,15 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"text/tabwriter"
+	"strings"
 
 	"swaysheet/core/figures"
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
+	"swaysheet/core/sheet"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 func main() {
@@ -39,12 +42,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	planning := fs.Bool("plan", false, "plan the scenario's move: print the ranked table of drive settings")
 	planJSON := fs.Bool("json", false, "with -plan or -clearance: print JSON instead of the table")
 	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
-	sheetUnits := fs.String("units", "si", "with -sheet: the unit system of the sheet, si or us")
+	sheetUnits := fs.String("units", "si", "with -sheet and -summary: the unit system shown, si or us")
 	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
 	clear := fs.Bool("clearance", false, "check the load's likely swept envelope against the obstacles of each file's site block (with -json: the report as JSON)")
 	ropeLength := fs.Bool("ropelength", false, "find the rope length from heights or a timed swing: each argument is a question as JSON text or a .json file")
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: swaysheet [-summary] [-no-history] FILE.json ...")
+		fmt.Fprintln(stderr, "usage: swaysheet [-summary [-units si|us]] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -clearance [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
@@ -61,6 +64,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if *sheetDir != "" {
 		return runSheets(*sheetDir, fs.Args(), *sheetUnits, *sheetLink, stdout, stderr)
 	}
+	if *sheetUnits != "si" && *sheetUnits != "us" {
+		fmt.Fprintf(stderr, "-units must be si or us, not %q\n", *sheetUnits)
+		return 2
+	}
 	if *planning {
 		return runPlans(fs.Args(), *planJSON, stdout, stderr)
 	}
@@ -72,14 +79,21 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	status := 0
 	for _, name := range fs.Args() {
-		s, res, err := evaluate(name, sway.Options{NoHistory: *noHistory || *summary})
+		if *summary {
+			s, err := readScenario(name)
+			if err == nil {
+				err = printSummary(stdout, name, s, units.Choice{System: *sheetUnits})
+			}
+			if err != nil {
+				fmt.Fprintf(stderr, "%s: %v\n", name, err)
+				status = 1
+			}
+			continue
+		}
+		_, res, err := evaluate(name, sway.Options{NoHistory: *noHistory})
 		if err != nil {
 			fmt.Fprintf(stderr, "%s: %v\n", name, err)
 			status = 1
-			continue
-		}
-		if *summary {
-			printSummary(stdout, name, s, res)
 			continue
 		}
 		enc := json.NewEncoder(stdout)
@@ -112,14 +126,30 @@ func evaluate(name string, opt sway.Options) (*scenario.Scenario, *sway.Result, 
 	return s, r, err
 }
 
-// printSummary prints the figures of the result as the figures table
-// presents them (core/figures): the crew's words, the value rounded in SI
-// units, the verdict against the plan's limit, the technical name; then
-// the verdict of the whole and the warnings.
-func printSummary(w io.Writer, file string, s *scenario.Scenario, r *sway.Result) {
-	fmt.Fprintf(w, "%s\n%s\n", r.Name, file)
-	rep := figures.Present(s, r, units.Choice{System: "si"})
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+// printSummary prints the figures of s as the figures table presents
+// them (core/figures), with the words and rounding of the check sheet and
+// gathered as the sheet gathers them (for a planning request without
+// moves, the recommended move): the verdict over every rope length the
+// scenario names first, then each figure in the crew's words with its
+// value, unit and verdict, the warnings in the units shown, and the
+// technical names last.
+func printSummary(w io.Writer, file string, s *scenario.Scenario, u units.Choice) error {
+	in := sheet.Computer{Plan: plan.Make, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
+		return sway.EvaluateWith(x, sway.Options{NoHistory: true})
+	}}.Compute(s)
+	if in.ResultErr != "" {
+		return fmt.Errorf("%s", in.ResultErr)
+	}
+	fmt.Fprintf(w, "%s\n%s\n", s.Name, file)
+	if in.ResultFor != "" {
+		fmt.Fprintf(w, "  for %s\n", in.ResultFor)
+	}
+	rep := figures.PresentRopes(in.Evaluated, in.Ropes, u)
+	fmt.Fprintf(w, "  verdict: %s\n", rep.Verdict.Text)
+	wl, wv := 0, 0
+	for _, row := range rep.Rows {
+		wl, wv = max(wl, len([]rune(row.Crew))), max(wv, len(row.Text))
+	}
 	for _, row := range rep.Rows {
 		verdict := ""
 		if c := row.Check; c != nil {
@@ -130,12 +160,16 @@ func printSummary(w io.Writer, file string, s *scenario.Scenario, r *sway.Result
 				verdict = "nothing simulated"
 			}
 		}
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t(%s)\n", row.Crew, row.Text, row.Unit, verdict, row.Technical)
+		line := fmt.Sprintf("  %-*s  %*s %-6s %s", wl, row.Crew, wv, row.Text, row.Unit, verdict)
+		fmt.Fprintln(w, strings.TrimRight(line, " "))
 	}
-	tw.Flush()
-	fmt.Fprintf(w, "  verdict: %s\n", rep.Verdict.Text)
-	for _, s := range r.Warnings {
+	for _, s := range words.FormatAll(in.Result.WarningSentences, u) {
 		fmt.Fprintf(w, "  warning: %s\n", s)
 	}
+	fmt.Fprintln(w, "  engineering detail (technical names):")
+	for _, row := range rep.Rows {
+		fmt.Fprintf(w, "    %s: %s\n", row.Crew, row.Technical)
+	}
 	fmt.Fprintln(w)
+	return nil
 }

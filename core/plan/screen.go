@@ -1,0 +1,311 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"swaysheet/core/motion"
+	"swaysheet/core/units"
+)
+
+// Screening. Options are ranked "within every limit first, then fastest",
+// and the recommendation is the fastest option within the limits or one
+// within 5 % of its move time (recommend, choose). Each option's move time
+// is known before it is simulated, so with T the move time of the fastest
+// option the simulation finds within the limits, no option slower than
+// 1.05*T can change the recommendation: those are not simulated. Nor is
+// one that choose's rules put behind the option it prefers among the
+// faster ones whatever its figures (a single-mode design behind a two-mode
+// one when the second mode matters, a programmed profile behind one
+// setting of the drive: canDisplace). Nor are faster ones
+// that the linear theory of the pendulum puts clearly outside a limit
+// (estimate above screenFactor times the limit plus screenAbsDeg): the
+// per-piece solution of the small-angle pendulum (linearSwing) for travel,
+// with the outward lean's release for a slew (slewResidual) and the lean
+// at the top rate added to the peak, each mode of a hook block by its
+// share of the load's swing. Wind and an initial swing are not in that
+// theory: with either, only the move-time screen is used. When no option
+// is found within the limits every option is simulated, so the advice on
+// what to change reads the simulated figures as before (unless a pendant
+// option is outside: that advice is about it alone).
+//
+// A screened option keeps its linear-theory figures, in Estimated (not
+// Verified, which holds simulated figures only), its label says "not
+// simulated", and NotSimulated says why.
+
+const (
+	screenFactor = 1.25 // estimate / limit beyond which an option is clearly outside
+	screenAbsDeg = 0.02 // deg, added to the angle limits (times the rope for excursions)
+	windowFactor = 1.05 // recommend's window over the fastest option within the limits
+)
+
+// outsideWhy is NotSimulated for an option screened by linear theory;
+// preferredWhy begins it for one the recommendation's rules put behind a
+// faster option.
+const (
+	outsideWhy   = "linear theory puts it clearly outside the limits"
+	preferredWhy = "the recommendation prefers a faster option within the limits, "
+)
+
+// screening can be turned off by tests, to compare with every option
+// simulated and every drawn timing of a pendant option (verify.go decided).
+var screening = true
+
+// candidate is an option before simulation: its first form (move time and
+// profile known) and how to verify it (which may return another form, as
+// the ramp search and the peak-limited refinement do; nil when dropped).
+type candidate struct {
+	o      *Option
+	verify func() (*Option, []string)
+}
+
+// screen simulates the candidates that can decide the recommendation, in
+// order of move time, and returns every option: verified or estimated.
+func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) {
+	sort.SliceStable(cands, func(i, j int) bool { return cands[i].o.MoveTimeS < cands[j].o.MoveTimeS })
+	fastestWithin := math.Inf(1)
+	linearOK := rq.s.Wind == nil && rq.s.Initial == nil
+	var screened []candidate
+	for _, c := range cands {
+		est, low := rq.estimate(c.o)
+		switch {
+		case screening && c.o.MoveTimeS > windowFactor*fastestWithin+1e-9:
+			c.o.NotSimulated = fmt.Sprintf("its move time is more than %g times that of the fastest option within the limits, so it cannot change the recommendation", windowFactor)
+		case screening && linearOK && c.o.Timing == nil && rq.clearlyOutside(low):
+			c.o.NotSimulated = outsideWhy
+		case screening && !rq.canDisplace(c.o, kept):
+			c.o.NotSimulated = preferredWhy + rq.preferWhy(c.o, kept) + ", whatever this one's figures, so it cannot change the recommendation"
+		default:
+			o, d := c.verify()
+			dropped = append(dropped, d...)
+			if o != nil {
+				kept = append(kept, o)
+				if o.Within {
+					fastestWithin = math.Min(fastestWithin, o.MoveTimeS)
+				}
+			}
+			continue
+		}
+		c.o.estimated = est
+		screened = append(screened, c)
+	}
+	pendantOut := false
+	for _, o := range kept {
+		pendantOut = pendantOut || (o.Timing != nil && !o.Within)
+	}
+	if math.IsInf(fastestWithin, 1) && !pendantOut {
+		// Nothing within: simulate the rest too, for the advice on what to
+		// change (which, for a pendant option outside, reads that alone).
+		for _, c := range screened {
+			c.o.NotSimulated = ""
+			o, d := c.verify()
+			dropped = append(dropped, d...)
+			if o != nil {
+				kept = append(kept, o)
+			}
+		}
+		return kept, dropped
+	}
+	for _, c := range screened {
+		c.o.setVerified(c.o.estimated, rq.lim)
+		c.o.verify = c.verify
+		kept = append(kept, c.o)
+	}
+	return kept, dropped
+}
+
+// unscreen simulates every screened option but those clearly outside, for
+// when the option to recommend was found outside at the check tolerance
+// and the reasons they were screened for no longer hold.
+func (rq *request) unscreen(opts []*Option) []*Option {
+	var out []*Option
+	for _, o := range opts {
+		if o.NotSimulated == "" || o.verify == nil || o.NotSimulated == outsideWhy {
+			out = append(out, o)
+			continue
+		}
+		o.NotSimulated = ""
+		if nv, _ := o.verify(); nv != nil {
+			out = append(out, nv)
+		}
+	}
+	return out
+}
+
+// current is the option choose would prefer among the simulated options
+// within the limits no slower than t, nil if none.
+func (rq *request) current(kept []*Option, t float64) *Option {
+	var in []*Option
+	for _, o := range kept {
+		if o.Within && o.MoveTimeS <= t+1e-9 {
+			in = append(in, o)
+		}
+	}
+	if len(in) == 0 {
+		return nil
+	}
+	sort.SliceStable(in, func(i, j int) bool { return in[i].MoveTimeS < in[j].MoveTimeS })
+	return in[rq.choose(in)]
+}
+
+// canDisplace reports whether o, whatever its simulated figures, could
+// take the recommendation from the option preferred among the faster ones
+// (choose's rules: a two-mode design over a single-mode one when the
+// second mode matters, then one setting of the drive over a programmed
+// profile, then half the residual swing).
+func (rq *request) canDisplace(o *Option, kept []*Option) bool {
+	b := rq.current(kept, o.MoveTimeS)
+	if b == nil {
+		return true
+	}
+	single := func(x *Option) bool { return x.RampTimeS > 0 }
+	switch {
+	case rq.twoMode() && o.TwoMode != b.TwoMode:
+		return o.TwoMode
+	case single(o) != single(b):
+		return single(o)
+	}
+	return true
+}
+
+// preferWhy names the rule by which the faster option is preferred to o.
+func (rq *request) preferWhy(o *Option, kept []*Option) string {
+	b := rq.current(kept, o.MoveTimeS)
+	if rq.twoMode() && b.TwoMode && !o.TwoMode {
+		return b.Label + " (designed for both sway modes)"
+	}
+	return b.Label + " (one setting of the drive)"
+}
+
+// finishScreened moves a screened option's linear-theory figures to
+// Estimated and labels it.
+func finishScreened(o *Option) {
+	o.Estimated = make([]Estimate, len(o.Verified))
+	for i, v := range o.Verified {
+		o.Estimated[i] = Estimate{RopeLengthM: v.RopeLengthM, PeakSwingDeg: v.PeakSwingDeg, PeakExcursionM: v.PeakExcursionM,
+			ResidualSwingDeg: v.ResidualSwingDeg, ResidualExcursionM: v.ResidualExcursionM}
+	}
+	o.Verified = []Verified{}
+	o.Basis = "linear theory estimate, not simulated"
+	o.Label += " (not simulated: linear-theory estimate)"
+}
+
+// clearlyOutside reports whether the linear estimate is beyond a limit by
+// the screening margin.
+func (rq *request) clearlyOutside(est []Verified) bool {
+	for _, v := range est {
+		l := v.RopeLengthM + rq.rig
+		ang := func(x, lim float64) bool { return lim > 0 && x > screenFactor*lim+screenAbsDeg }
+		exc := func(x, lim float64) bool {
+			return lim > 0 && x > screenFactor*lim+l*screenAbsDeg*units.Degree
+		}
+		if ang(v.PeakSwingDeg, rq.lim.PeakSwingDeg) || ang(v.ResidualSwingDeg, rq.lim.ResidualSwingDeg) ||
+			exc(v.PeakExcursionM, rq.lim.PeakExcursionM) || exc(v.ResidualExcursionM, rq.lim.ResidualExcursionM) {
+			return true
+		}
+	}
+	return false
+}
+
+// estimate is the option's linear-theory figures at each checked rope
+// length: each mode's peak and residual (linearSwing; slewResidual for a
+// slew's residual) weighted by its share of the load's swing and added;
+// for a slew the lean at the top rate is added to the peak (shown: the
+// swing from the slew's acceleration and the lean are at right angles and
+// need not peak together, so the sum is on the high side: in the tower-slew
+// example it overstates the simulated peak by up to 1 deg). low is the same
+// with the larger of the two for a slew's peak instead of their sum: the
+// screen for "clearly outside" reads low. With a hook block the sum over
+// the modes has been seen below the simulation (by a fifth in the
+// precast-hook example), on the safe side for that screen.
+func (rq *request) estimate(o *Option) (shown, low []Verified) {
+	g := units.StandardGravity
+	shown = make([]Verified, len(rq.checked))
+	low = make([]Verified, len(rq.checked))
+	lean := 0.0
+	if rq.slew {
+		v := 0.0
+		for _, t := range o.profile.Breakpoints() {
+			v = math.Max(v, math.Abs(o.profile.At(t).Vel))
+		}
+		lean = math.Atan(rq.radius * v * v / g)
+	}
+	for i, l := range rq.checked {
+		ms := rq.modesAt(l)
+		peak, res := 0.0, 0.0
+		for j, w := range ms.omega {
+			pk, rs := linearSwing(o.profile, rq.k, w)
+			if rq.slew {
+				rs = slewResidual(o.profile, rq.radius, w)
+			}
+			peak += ms.share[j] * pk
+			res += ms.share[j] * rs
+		}
+		line := l + rq.rig
+		fig := func(peak float64) Verified {
+			return Verified{RopeLengthM: l, PeakSwingDeg: peak / units.Degree, ResidualSwingDeg: res / units.Degree,
+				PeakExcursionM: line * math.Sin(math.Min(peak, math.Pi/2)), ResidualExcursionM: line * math.Sin(math.Min(res, math.Pi/2))}
+		}
+		shown[i], low[i] = fig(peak+lean), fig(math.Max(peak, lean))
+	}
+	return shown, low
+}
+
+// linearSwing is the largest swing angle (rad) and the residual amplitude
+// after the move of the small-angle pendulum theta” + w^2 theta =
+// -w^2*A(t)/g under the hook acceleration A = k*acc(t) of the profile p,
+// from rest: on each piece of constant acceleration the solution is exact,
+// theta = -A/g + R*cos(w*tau - phi) (linear theory of the pendulum with a
+// moving support); a piece whose acceleration changes (an S-curve's) is cut
+// into pieces of at most a sixteenth of a period at their middle
+// acceleration.
+func linearSwing(p motion.Profile, k, w float64) (peak, residual float64) {
+	g := units.StandardGravity
+	bp := append(p.Breakpoints(), p.End())
+	th, dth := 0.0, 0.0
+	piece := func(d, acc float64) {
+		eq := -k * acc / g
+		e0, v0 := th-eq, dth/w
+		r, phi := math.Hypot(e0, v0), math.Atan2(v0, e0)
+		at := func(tau float64) float64 { return eq + r*math.Cos(w*tau-phi) }
+		peak = math.Max(peak, math.Max(math.Abs(at(0)), math.Abs(at(d))))
+		// Turning points: w*tau - phi = m*pi for a whole m, so tau =
+		// (m*pi + phi)/w; the first after tau = 0 has m = floor(-phi/pi)+1.
+		if m := math.Floor(-phi/math.Pi) + 1; (m*math.Pi+phi)/w < d {
+			peak = math.Max(peak, math.Abs(eq+r*math.Cos(m*math.Pi)))
+			if (m*math.Pi+math.Pi+phi)/w < d {
+				peak = math.Max(peak, math.Abs(eq)+r)
+			}
+		}
+		th = at(d)
+		dth = -r * w * math.Sin(w*d-phi)
+	}
+	for i := 0; i+1 < len(bp); i++ {
+		t0, t1 := bp[i], bp[i+1]
+		if t1 <= t0 {
+			continue
+		}
+		n := 1
+		e := 1e-9 * (t1 - t0)
+		if a0, a1 := p.At(t0+e).Acc, p.At(t1-e).Acc; math.Abs(a1-a0) > 1e-12*(math.Abs(a0)+math.Abs(a1)) {
+			n = int(math.Ceil((t1 - t0) * w / (2 * math.Pi) * 16))
+		}
+		h := (t1 - t0) / float64(n)
+		for j := range n {
+			piece(h, p.At(t0+(float64(j)+0.5)*h).Acc)
+		}
+	}
+	res := math.Hypot(th, dth/w)
+	return math.Max(peak, res), res
+}
+
+// estimatedSentences state a screened option's linear-theory figures and
+// why it was not simulated.
+func (rq *request) estimatedSentences(o *Option) {
+	lo, hi := rq.ropeRange()
+	qs := []Quantity{qLen(lo).digits(4), qLen(hi).digits(4), qAngle(o.WorstPeakSwingDeg), qLen(o.WorstPeakRopeM).digits(4),
+		qAngle(o.WorstResidualSwingDeg), qLen(o.WorstResidualRopeM).digits(4)}
+	o.found(say(fmt.Sprintf("Not simulated: %s. Linear-theory estimate at %d rope lengths, {0} to {1}: worst peak about {2} at {3}, residual about {4} at {5}. Evaluate its move to check it.",
+		o.NotSimulated, len(rq.checked)), qs...))
+}

@@ -1,0 +1,114 @@
+package bridge
+
+import (
+	"encoding/json"
+	"fmt"
+	"path"
+	"strings"
+
+	"swaysheet/core/scenario"
+)
+
+func init() {
+	Calls["library"] = library
+	Calls["library_file"] = libraryFile
+}
+
+// LibraryBase is where a site office puts its scenario files, relative to
+// the page: library/index.json lists them (a JSON list of file names, each
+// a .json file in the same folder), as examples/index.json does.
+const LibraryBase = "library/"
+
+// Library is the reply of the "library" call: the scenarios the site
+// office published beside the page. A file that cannot be read or is not
+// a valid scenario is left out and said in Problems; the others are
+// listed.
+type Library struct {
+	Files    []Example `json:"files"`
+	Problems []string  `json:"problems"`
+}
+
+type libraryInput struct {
+	// Base overrides LibraryBase (a URL ending in "/").
+	Base string `json:"base"`
+	// File names one file of the library ("library_file").
+	File string `json:"file"`
+}
+
+func readLibraryInput(input []byte) (libraryInput, error) {
+	var in libraryInput
+	if len(input) > 0 {
+		if err := json.Unmarshal(input, &in); err != nil {
+			return in, scenario.Errors{{Field: "(input)", Message: "expected {\"base\": URL, \"file\": NAME}: " + err.Error()}}
+		}
+	}
+	if in.Base == "" {
+		in.Base = LibraryBase
+	}
+	return in, nil
+}
+
+// errNoServer: the page was opened from a file, with no server to read
+// the library from.
+var errNoServer = scenario.Errors{{Field: "(library)", Message: "the site library is read from the server the page came from; this page was opened from a file and has none"}}
+
+// library lists the site library: library/index.json and every scenario
+// it names, each with its name and description.
+func library(env *Env, input []byte) (any, error) {
+	in, err := readLibraryInput(input)
+	if err != nil {
+		return nil, err
+	}
+	if env.Fetch == nil {
+		return nil, errNoServer
+	}
+	idx, err := env.Fetch(in.Base + "index.json")
+	if err != nil {
+		return nil, scenario.Errors{{Field: "(library)", Message: "no site library here: " + in.Base + "index.json could not be read (" + err.Error() + ")"}}
+	}
+	var files []string
+	if err := json.Unmarshal(idx, &files); err != nil {
+		return nil, scenario.Errors{{Field: "(library)", Message: in.Base + "index.json is not a list of file names, such as [\"bay-3-girder.json\"]: " + err.Error()}}
+	}
+	out := &Library{Files: []Example{}, Problems: []string{}}
+	for _, f := range files {
+		ex, err := libraryRead(env, in.Base, f)
+		if err != nil {
+			out.Problems = append(out.Problems, err.Error())
+			continue
+		}
+		out.Files = append(out.Files, ex)
+	}
+	return out, nil
+}
+
+// libraryFile reads one scenario of the site library: input {"file":
+// NAME}, result as one entry of the list (file, name, description,
+// scenario).
+func libraryFile(env *Env, input []byte) (any, error) {
+	in, err := readLibraryInput(input)
+	if err != nil {
+		return nil, err
+	}
+	if env.Fetch == nil {
+		return nil, errNoServer
+	}
+	ex, err := libraryRead(env, in.Base, in.File)
+	if err != nil {
+		return nil, scenario.Errors{{Field: "(library)", Message: err.Error()}}
+	}
+	return ex, nil
+}
+
+// libraryRead fetches and checks one library file: a name of a .json file
+// in the library's own folder (no path), holding a valid scenario.
+func libraryRead(env *Env, base, f string) (Example, error) {
+	if f == "" || f != path.Base(f) || !strings.HasSuffix(f, ".json") || f == "index.json" || strings.ContainsAny(f, "?#%\\") {
+		return Example{}, fmt.Errorf("%q: not a .json file name in the library's folder", f)
+	}
+	data, err := env.Fetch(base + f)
+	if err != nil {
+		return Example{}, fmt.Errorf("%s: could not be read (%v)", f, err)
+	}
+	return example(f, data)
+}
