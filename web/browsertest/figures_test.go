@@ -54,8 +54,10 @@ func (h *harness) shownFigures() shownFigures {
 	return f
 }
 
-// presented is what figures.Present gives for r, the result of the
-// page's scenario, in the units the page shows.
+// presented is what the figures call gives for r, the result of the
+// page's scenario, in the units the page shows: figures.PresentRopes over
+// every rope length the scenario names (r at the nominal, sway.Evaluate at
+// the plan's range ends), as the bridge does.
 func (h *harness) presented(r *sway.Result) figures.Report {
 	h.t.Helper()
 	s, err := scenario.Parse([]byte(eval[string](h, `window.swaysheet.scenarioJSON()`)))
@@ -66,7 +68,16 @@ func (h *harness) presented(r *sway.Result) figures.Report {
 	if err := json.Unmarshal([]byte(eval[string](h, `JSON.stringify(window.swaysheet.units())`)), &chosen); err != nil {
 		h.t.Fatal(err)
 	}
-	return figures.Present(s, r, units.Choice{Chosen: chosen, System: eval[string](h, `window.swaysheet.system()`)})
+	evs, err := figures.EvaluateRopes(s, func(x *scenario.Scenario) (*sway.Result, error) {
+		if x == s {
+			return r, nil
+		}
+		return sway.Evaluate(x)
+	})
+	if err != nil {
+		h.t.Fatal(err)
+	}
+	return figures.PresentRopes(s, evs, units.Choice{Chosen: chosen, System: eval[string](h, `window.swaysheet.system()`)})
 }
 
 // rowText is the text the core gives for the figure key ("" when r has
@@ -81,7 +92,7 @@ func rowText(rep figures.Report, key string) string {
 }
 
 // checkShown compares the verdict band and every figure row the page
-// shows with figures.Present of r (the core's result of the page's
+// shows with the figures of r (presented) (the core's result of the page's
 // scenario) in the page's units: the same rows in the same order, the
 // crew words, the core's rounded text and unit, the limit's words and the
 // technical name under "Engineering detail".

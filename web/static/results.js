@@ -94,6 +94,7 @@ export function renderResults() {
   } else {
     var det = $('engineering');
     hd.innerHTML = verdictBand(f.verdict) +
+      (f.result_for ? '<p class="result-for" id="result-for">' + esc(f.result_for) + '</p>' : '') +
       '<ul class="figs" id="figures">' + f.rows.map(function (row) { return figureRow(row, f.verdict.state); }).join('') + '</ul>' +
       engineeringDetail(f.rows, det && det.open);
   }
