@@ -182,5 +182,11 @@ func TestFiguresRows(t *testing.T) {
 		if got := h.text("#verdict"); !strings.Contains(got, "Nothing was simulated") {
 			t.Errorf("verdict band without moves: %q", got)
 		}
+		// With the engineering detail open: each row's technical name.
+		eval[bool](h, `document.getElementById('engineering').open = true; document.getElementById('notice').hidden = true; document.getElementById('results').scrollIntoView({block: 'start'}); true`)
+		time.Sleep(150 * time.Millisecond)
+		if shot, err := chromedp.Run(h.ctx, chromedp.CaptureScreenshot()); err == nil {
+			_ = os.WriteFile(filepath.Join(dir, "figures-no-move-detail.png"), shot, 0o644)
+		}
 	})
 }
