@@ -125,6 +125,19 @@ func (rq *request) choose(opts []*Option) int {
 	return best
 }
 
+// nominalResidualDeg is the option's residual swing at the nominal rope
+// length (the first checked): simulated, or for a screened option its
+// linear-theory estimate; false when it has neither.
+func (o *Option) nominalResidualDeg() (float64, bool) {
+	switch {
+	case len(o.Verified) > 0:
+		return o.Verified[0].ResidualSwingDeg, true
+	case len(o.Estimated) > 0:
+		return o.Estimated[0].ResidualSwingDeg, true
+	}
+	return 0, false
+}
+
 // whatToChange explains, from the options' failures, what would make the
 // request feasible.
 func (rq *request) whatToChange(opts []*Option) []Sentence {
@@ -140,7 +153,7 @@ func (rq *request) whatToChange(opts []*Option) []Sentence {
 			if o.residualRatio(rq.lim) <= 1 {
 				resOK = true
 			}
-			if o.Verified[0].ResidualSwingDeg <= rq.lim.ResidualSwingDeg || rq.lim.ResidualSwingDeg == 0 {
+			if r, ok := o.nominalResidualDeg(); ok && (r <= rq.lim.ResidualSwingDeg || rq.lim.ResidualSwingDeg == 0) {
 				resNominal = true
 			}
 		}
