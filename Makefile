@@ -44,7 +44,7 @@ test-wasm:
 # file). The tests build the wasm themselves; screenshots and the printed
 # sheets (PDF, PNG) go to out/browser/.
 test-browser:
-	SWAYSHEET_BROWSER=1 $(GO) test -p 1 -count=1 -timeout 8m ./web/browsertest/ ./web/sheettest/
+	SWAYSHEET_BROWSER=1 $(GO) test -p 1 -count=1 -timeout 15m ./web/browsertest/ ./web/sheettest/
 
 # The wasm embeds copies of the example scenarios for pages opened from a
 # file; a test in wasm/bridge fails when they differ from testdata/scenarios.
