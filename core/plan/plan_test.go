@@ -289,7 +289,8 @@ func TestOptionMotionsRoundTrip(t *testing.T) {
 // From rest, a suspension point accelerating uniformly at a swings the rope
 // between 0 and 2*atan(a/g): the pendulum swings with amplitude atan(a/g)
 // about the apparent gravity g' = sqrt(g^2 + a^2) tilted by atan(a/g)
-// (exact, not a small-angle result; field notes). Its period there is
+// (exact, not a small-angle result: the pendulum under the tilted
+// apparent gravity, any mechanics text). Its period there is
 // 4*sqrt(L/g')*K(k), k = sin(atan(a/g)/2) (large-amplitude pendulum; K the
 // complete elliptic integral, Abramowitz & Stegun 17.3). So the planner's
 // starting value a = g*tan(theta/2) peaks at exactly theta for one sudden

@@ -132,8 +132,8 @@ func ellipK(m float64) float64 {
 }
 
 // Source: the linearised two-mass pendulum's first mode (core/pendulum
-// LinearModes; field notes' closed form checked against eigenvalues
-// there). The rope to the hook found from a small timed swing gives that
+// LinearModes; the standard closed form of the linearised two-mass
+// pendulum, checked against eigenvalues there). The rope to the hook found from a small timed swing gives that
 // period back; the simulated first mode at 5, 15 and 30 deg, with the one-
 // rope amplitude correction, comes back within the differences logged.
 func TestTimedSwingHookBlock(t *testing.T) {

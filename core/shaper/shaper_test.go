@@ -11,8 +11,8 @@ func near(a, b, tol float64) bool { return math.Abs(a-b) <= tol }
 
 // Impulse amplitudes and times against the published formulas:
 // ZV and ZVD from Singer & Seering, ASME J. Dyn. Sys. Meas. Control 112
-// (1990); EI from Singhose, Seering & Singer (1994), undamped form as
-// given in /work/shared/field-notes.md.
+// (1990); EI from Singhose, Seering & Singer (1994), undamped form
+// (amplitudes (1+V)/4, (1-V)/2, (1+V)/4 at 0, T/2, T; from memory).
 func TestImpulsesPublished(t *testing.T) {
 	const T = 6.0
 	for _, zeta := range []float64{0, 0.05, 0.2} {

@@ -114,7 +114,8 @@ func sortDedupe(ts *[]float64) {
 }
 
 // A hard stop at deceleration d over t_d = v/d leaves 2*(d/g)*|sin(pi*t_d/T)|
-// rad in linear theory (field notes): a near-instant stop leaves about
+// rad in linear theory (the residual of one constant-acceleration
+// phase of a linear oscillator, any vibrations text): a near-instant stop leaves about
 // v*w/g; at a few degrees the nonlinear model agrees within 1 %.
 func TestHardStop(t *testing.T) {
 	m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop,

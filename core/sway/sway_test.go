@@ -149,8 +149,8 @@ func TestSlowLoweringAmplitude(t *testing.T) {
 }
 
 // Source: steady wind lean atan(F/(m*g)); a sudden gust from calm swings
-// the load to twice the lean (step response of the pendulum; field notes
-// of the project, exact for the tilted-gravity problem). Wind force
+// the load to twice the lean (step response of the pendulum, any mechanics
+// text; exact for the tilted-gravity problem). Wind force
 // F = q*A*c with q = 0.5*rho*v^2 (form used in EN 13001-2; from memory).
 func TestGustFromCalm(t *testing.T) {
 	s := still(4000, 25)
@@ -173,8 +173,8 @@ func TestGustFromCalm(t *testing.T) {
 // Source: slewing at constant rate w with the hook at radius R leans the
 // load outward; in steady conical motion about the slew axis the lean
 // theta satisfies tan(theta) = (R + L*sin(theta))*w^2/g, about
-// atan(R*w^2/g) for a short rope (field notes: outward lean; conical
-// pendulum, any mechanics text). A slow ramp to the slew rate keeps the
+// atan(R*w^2/g) for a short rope (outward lean of a conical pendulum,
+// any mechanics text). A slow ramp to the slew rate keeps the
 // swing about the lean small; the mean over several periods is the lean.
 func TestSlewOutwardLean(t *testing.T) {
 	s := still(2000, 20)

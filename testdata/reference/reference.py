@@ -438,7 +438,7 @@ def linear_periods(m1, m2, l1, l2):
 def shaper_impulses(kind, period, zeta, v):
     """Impulses [(A, t)] of one shaper, from the published formulas (Singer &
     Seering 1990: ZV, ZVD; Singhose, Seering & Singer 1994: EI), as the
-    core/shaper package comment and the field notes state them:
+    core/shaper package comment states them:
     K = exp(-zeta pi / sqrt(1 - zeta^2)), Td = T / sqrt(1 - zeta^2)."""
     k = math.exp(-zeta * math.pi / math.sqrt(1 - zeta * zeta))
     td = period / math.sqrt(1 - zeta * zeta)

@@ -46,7 +46,7 @@ func TestEvaluateDemoPeriod(t *testing.T) {
 	if err := json.Unmarshal(out, &r); err != nil {
 		t.Fatal(err, string(out[:min(len(out), 300)]))
 	}
-	// Small-amplitude period T = 2*pi*sqrt(L/g) (any mechanics text; field notes),
+	// Small-amplitude period T = 2*pi*sqrt(L/g) (any mechanics text),
 	// for the demo's rope of 8.5 m.
 	want := 2 * math.Pi * math.Sqrt(8.5/units.StandardGravity)
 	if math.Abs(r.Result.PeriodS-want) > 1e-12 {

@@ -239,7 +239,7 @@ func TestPage(t *testing.T) {
 			t.Error("the demo is not labelled as an example")
 		}
 		r := h.core()
-		// Small-amplitude period T = 2*pi*sqrt(L/g) (any mechanics text; field notes)
+		// Small-amplitude period T = 2*pi*sqrt(L/g) (any mechanics text)
 		// for the demo's rope of 8.5 m.
 		if want := 2 * math.Pi * math.Sqrt(8.5/units.StandardGravity); math.Abs(r.PeriodS-want) > 1e-12 {
 			t.Errorf("core period %v, want %v", r.PeriodS, want)
