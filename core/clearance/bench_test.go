@@ -1,21 +1,12 @@
 package clearance
 
 import (
-	"os"
+	"swaysheet/core/internal/testscenario"
 	"testing"
-
-	"swaysheet/core/scenario"
 )
 
 func BenchmarkCheckBayColumns(b *testing.B) {
-	data, err := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
-	if err != nil {
-		b.Fatal(err)
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		b.Fatal(err)
-	}
+	s := testscenario.Example(b, "site-bay-columns")
 	for b.Loop() {
 		if _, err := Check(s, Options{}); err != nil {
 			b.Fatal(err)

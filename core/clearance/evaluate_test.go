@@ -2,23 +2,16 @@ package clearance
 
 import (
 	"math"
-	"os"
 	"testing"
 
+	"swaysheet/core/internal/testscenario"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
 
 func bay(t *testing.T) *scenario.Scenario {
 	t.Helper()
-	data, err := os.ReadFile("../../testdata/scenarios/bay-travel.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		t.Fatal(err)
-	}
+	s := testscenario.Example(t, "bay-travel")
 	h, r, top := 12.0, 0.5, 9.0
 	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
 		Obstacles: []scenario.SiteObstacle{{Name: "column", TopM: &top,

@@ -2,33 +2,20 @@ package draws
 
 import (
 	"errors"
-	"os"
 	"reflect"
+	"swaysheet/core/internal/testscenario"
 	"testing"
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
 
-func example(t testing.TB, name string) *scenario.Scenario {
-	t.Helper()
-	data, err := os.ReadFile("../../testdata/scenarios/" + name + ".json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return s
-}
-
 var spread = Spread{RopeLengthM: 0.3, CentreDepthM: 0.1, PressS: 0.2, GustPct: 20, GustS: 1}
 
 // The same seed gives the same draws however they are split, over one
 // goroutine or two, in one request or in two halves.
 func TestReproducible(t *testing.T) {
-	s := example(t, "wind-gust")
+	s := testscenario.Example(t, "wind-gust")
 	req := Request{Spread: spread, Runs: 40, Seed: 7}
 	one, err := Run(s, req, 1)
 	if err != nil {
@@ -72,7 +59,7 @@ func TestReproducible(t *testing.T) {
 
 // Without spread every draw is the scenario itself.
 func TestNoSpread(t *testing.T) {
-	s := example(t, "bay-travel")
+	s := testscenario.Example(t, "bay-travel")
 	r, err := Run(s, Request{Runs: 5, Seed: 1}, 2)
 	if err != nil {
 		t.Fatal(err)
@@ -102,7 +89,7 @@ func TestPercentiles(t *testing.T) {
 }
 
 func TestBadRequest(t *testing.T) {
-	s := example(t, "bay-travel")
+	s := testscenario.Example(t, "bay-travel")
 	for _, c := range []struct {
 		req   Request
 		field string
@@ -119,7 +106,7 @@ func TestBadRequest(t *testing.T) {
 		}
 	}
 	// A rope drawn shorter than the model accepts names the draw.
-	short := example(t, "bay-travel")
+	short := testscenario.Example(t, "bay-travel")
 	l := 0.35
 	short.Load.RopeLengthM = &l
 	if _, err := Run(short, Request{Runs: 50, Seed: 3, Spread: Spread{RopeLengthM: 0.1}}, 2); err == nil {
@@ -130,7 +117,7 @@ func TestBadRequest(t *testing.T) {
 // BenchmarkBayTravel1000 is 1,000 draws of bay-travel on one and on all
 // processors (make bench reports the same from swaybench).
 func BenchmarkBayTravel1000(b *testing.B) {
-	s := example(b, "bay-travel")
+	s := testscenario.Example(b, "bay-travel")
 	for _, w := range []int{1, 2} {
 		b.Run(map[int]string{1: "1core", 2: "2cores"}[w], func(b *testing.B) {
 			for b.Loop() {
@@ -150,7 +137,7 @@ func TestPathsAgreeOverDraws(t *testing.T) {
 	wide := Spread{RopeLengthM: 1, CentreDepthM: 0.3, PressS: 1, GustPct: 50, GustS: 3}
 	for _, name := range []string{"bay-travel", "diagonal-travel", "hard-stop", "hoist-during-travel",
 		"pendant-steps", "recorded-run", "slew-with-trolley", "tower-slew", "wind-gust"} {
-		s := example(t, name)
+		s := testscenario.Example(t, name)
 		for i := range 40 {
 			d := Draw(s, wide, 11, i)
 			fast, err := sway.EvaluateWith(d, sway.Options{NoHistory: true})

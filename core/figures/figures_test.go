@@ -2,30 +2,17 @@ package figures
 
 import (
 	"encoding/json"
-	"os"
 	"path/filepath"
 	"regexp"
 	"strconv"
 	"strings"
+	"swaysheet/core/internal/testscenario"
 	"testing"
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
-
-func load(t *testing.T, path string) *scenario.Scenario {
-	t.Helper()
-	data, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return s
-}
 
 // at reads a JSON path such as "rigging.mode_periods_s[1]" from v.
 func at(v any, path string) (any, bool) {
@@ -73,7 +60,7 @@ func TestTableMatchesResultsAndChecks(t *testing.T) {
 	}
 	seen := map[string]bool{}
 	for _, file := range files {
-		s := load(t, file)
+		s := testscenario.Example(t, filepath.Base(file))
 		r, err := sway.EvaluateWith(s, sway.Options{NoHistory: true})
 		if err != nil {
 			t.Fatal(err)
@@ -129,7 +116,7 @@ func TestTableMatchesResultsAndChecks(t *testing.T) {
 // Rounding as people read it: swing to 0.1 deg, lengths to 1 cm or
 // 0.05 ft, times to 0.1 s, tensions to 0.1 kN; never an exponent.
 func TestRowsRoundForPeople(t *testing.T) {
-	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	s := testscenario.Example(t, "bay-travel")
 	r := &sway.Result{PeakSwingDeg: 2.04, PeakExcursionM: 0.4712, ResidualSwingDeg: 1.26, PeriodS: 5.8512,
 		TensionMaxN: 72345, TensionMinN: 1e-7, StaticTensionN: 70607.88, TensionFactor: 1.0246, RunS: 31.27}
 	want := map[string]string{"peak_swing_deg": "2.0 deg", "peak_excursion_m": "0.47 m", "period_s": "5.9 s",
@@ -172,7 +159,7 @@ func TestRowsRoundForPeople(t *testing.T) {
 // A scenario with no move, no wind and no swing at the start says
 // nothing was simulated, never "within"; without a result, not computed.
 func TestNothingSimulated(t *testing.T) {
-	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	s := testscenario.Example(t, "bay-travel")
 	s.Motions = nil
 	r, err := sway.Evaluate(s)
 	if err != nil {
@@ -202,7 +189,7 @@ func TestNothingSimulated(t *testing.T) {
 // says where it is: the same as holding each evaluation alone against the
 // limits.
 func TestPresentRopes(t *testing.T) {
-	s := load(t, "../../testdata/scenarios/bay-travel.json")
+	s := testscenario.Example(t, "bay-travel")
 	lo, hi := 6.0, 12.0
 	s.Plan = &scenario.Plan{RopeLengthMinM: &lo, RopeLengthMaxM: &hi}
 	if got := RopeLengths(s); len(got) != 3 || got[0] != 8.5 || got[1] != 6 || got[2] != 12 {

@@ -3,9 +3,8 @@ package sway
 import (
 	"errors"
 	"math"
-	"os"
-	"path/filepath"
 	"strings"
+	"swaysheet/core/internal/testscenario"
 	"testing"
 
 	"swaysheet/core/scenario"
@@ -68,20 +67,6 @@ func compareFigures(t *testing.T, a, b *Result, n int, rel float64) {
 	}
 }
 
-// example reads an example scenario.
-func example(t *testing.T, name string) *scenario.Scenario {
-	t.Helper()
-	data, err := os.ReadFile(filepath.Join("..", "..", "testdata", "scenarios", name))
-	if err != nil {
-		t.Fatal(err)
-	}
-	s, err := scenario.Parse(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return s
-}
-
 func hasWarning(r *Result, part string) bool {
 	for _, w := range r.Warnings {
 		if strings.Contains(w, part) {
@@ -96,7 +81,7 @@ func hasWarning(r *Result, part string) bool {
 // 7.3 s against 5.85 s, pitch 2.4 to 4.3 s); its twist is not restrained
 // on one hook, which the warnings say.
 func TestRigidBayGirder(t *testing.T) {
-	r := mustEval(t, example(t, "bay-girder-rigid.json"))
+	r := mustEval(t, testscenario.Example(t, "bay-girder-rigid.json"))
 	b := r.Body
 	if b == nil || b.Suspension != "two legs" || len(b.Legs) != 2 {
 		t.Fatalf("body block %+v", b)
@@ -144,7 +129,7 @@ func TestRigidBayGirder(t *testing.T) {
 // bifilar formula (source: bifilar suspension, any mechanics text), and no
 // twist warning.
 func TestRigidSpreaderTwist(t *testing.T) {
-	r := mustEval(t, example(t, "precast-panel-spreader.json"))
+	r := mustEval(t, testscenario.Example(t, "precast-panel-spreader.json"))
 	b := r.Body
 	if b == nil || !b.TwistRestrained || hasWarning(r, "twist") {
 		t.Fatalf("body %+v, warnings %q", b, r.Warnings)
@@ -204,7 +189,7 @@ func TestRigidGeometryErrors(t *testing.T) {
 // RigidFirstMode gives the planner the slowest mode: the same period as
 // the evaluation, and the length of the single rope with that period.
 func TestRigidFirstMode(t *testing.T) {
-	s := example(t, "bay-girder-rigid.json")
+	s := testscenario.Example(t, "bay-girder-rigid.json")
 	r := mustEval(t, s)
 	p, l, kind, err := RigidFirstMode(s, *s.Load.RopeLengthM)
 	if err != nil {
