@@ -61,8 +61,12 @@ export function evaluate() {
     showProgress(false);
     document.body.dataset.state = 'ready';
     // Stopped or cancelled: the inputs changed meanwhile are not computed
-    // until the next change.
-    if (r.error && r.error.stopped && r.error.stopped !== 'failed') again = false;
+    // until the next change, so the page has answered for them (with the
+    // message; the results shown are marked as for earlier inputs).
+    if (r.error && r.error.stopped && r.error.stopped !== 'failed') {
+      again = false;
+      S.lastDone = JSON.stringify(S.scenario);
+    }
     if (again) { again = false; evaluate(); return; }
     if (r.error) {
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
