@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 
-	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -75,85 +74,37 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	if runs < 1 {
 		return nil, errors.New("clearance: at least one run")
 	}
-	if opt.StepM == 0 {
-		opt.StepM = 0.02
-	}
-	if opt.CellM == 0 {
-		opt.CellM = 0.1
-	}
-	site := SiteOf(s.Site)
-	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true})
+	opt = opt.defaults()
+	site, nominal, err := prepare(s)
 	if err != nil {
 		return nil, err
 	}
-	all, err := evaluateRuns(s, runs, variant, opt.Workers)
+	part, err := evaluatePart(s, site, nominal, 0, runs, variant, opt)
 	if err != nil {
 		return nil, err
 	}
-	reps, err := site.Check(all, opt.StepM)
-	if err != nil {
-		return nil, err
-	}
-	rep := &Report{Runs: runs, Seed: seed, MarginM: site.MarginM, Obstacles: reps}
-	rep.Clears, rep.Words = Verdict(reps, site.MarginM)
-	nomRun := RunOf(&nominal.History)
-	for _, p := range nomRun.Path(site.SuspensionHeightM) {
-		rep.Nominal = append(rep.Nominal, p.At.Plan())
-	}
-	plans := make([]PlanPath, len(all))
-	for i := range all {
-		path := all[i].Path(site.SuspensionHeightM)
-		pts := make([]Point2, len(path))
-		for k, p := range path {
-			pts[k] = p.At.Plan()
-		}
-		plans[i] = PlanPath{Points: pts, RadiusM: site.LoadRadiusM}
-	}
-	strays, err := Strays(plans, rep.Nominal)
-	if err != nil {
-		return nil, err
-	}
-	for _, e := range []struct {
-		level, conf float64
-		out         *EnvelopeOut
-	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
-		env, err := newEnvelope(plans, strays, e.level, e.conf, opt.CellM)
-		if err != nil {
-			return nil, err
-		}
-		*e.out = EnvelopeOut{Level: e.level, Inside: env.Inside, StrayM: env.StrayM, CellM: env.CellM,
-			AreaM2: env.AreaM2(), Confidence: env.Confidence, Spans: env.Spans()}
-	}
-	rep.Assumptions = []string{
+	return join(site, nominal, runs, seed, []Part{*part}, opt)
+}
+
+// assumptions state what the check takes for granted.
+func assumptions(opt Options) []string {
+	return []string{
 		"The load is a ball of the stated size about its centre of mass; obstacles are upright shapes standing from the floor up to their top height.",
 		fmt.Sprintf("Each run's path is taken as straight between the simulation's time samples and checked at points at most %.2f m apart; the clearance between them can be smaller by at most half that gap.", opt.StepM),
 		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations); they say how the path spreads when the inputs do, not how likely any input is.",
 		"The 95 % envelope holds the paths of the runs that stray least from the path with no spread, as many as it takes to be 95 % sure that it holds 95 % of all possible runs (a tolerance region; with few runs, all of them, and the confidence is stated).",
 	}
-	return rep, nil
 }
 
 // Check runs the clearance check the scenario's site block asks for: its
 // spread's runs (scenario.DefaultSiteRuns when it gives none) drawn by
 // package draws with its seed; with no spread, one run.
 func Check(s *scenario.Scenario, opt Options) (*Report, error) {
-	if s.Site == nil {
-		return nil, ErrNoSite
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
 	}
-	sp := s.Site.Spread
-	if sp == nil {
-		return Evaluate(s, 1, 0, nil, opt)
-	}
-	runs := sp.Runs
-	if runs == 0 {
-		runs = scenario.DefaultSiteRuns
-	}
-	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
-		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
-	seed := uint64(sp.Seed)
-	return Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
-		return draws.Draw(s, spread, seed, i)
-	}, opt)
+	return Evaluate(s, sp.Runs, sp.Seed, sp.Variant, opt)
 }
 
 // SiteOf turns the scenario's site block into obstacles.
@@ -176,25 +127,4 @@ func SiteOf(st *scenario.Site) *Site {
 func RunOf(h *sway.History) Run {
 	return Run{TimeS: h.TimeS, RelXM: h.RelXM, RelYM: h.RelYM, RelZM: h.RelZM,
 		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM}
-}
-
-// evaluateRuns evaluates every run, in parallel; a run the core rejects
-// ends the check with that run's error, naming it.
-func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int) ([]Run, error) {
-	out := make([]Run, n)
-	err := draws.Each(n, workers, func(i int) error {
-		v := s
-		if variant != nil {
-			if d := variant(i); d != nil {
-				v = d
-			}
-		}
-		r, err := sway.EvaluateWith(v, sway.Options{})
-		if err != nil {
-			return fmt.Errorf("run %d: %w", i, err)
-		}
-		out[i] = RunOf(&r.History)
-		return nil
-	})
-	return out, err
 }

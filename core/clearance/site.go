@@ -85,17 +85,31 @@ func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
 			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
 		}
 	}
-	paths := make([][]Sample, len(runs))
+	near := make([][]RunNear, len(runs))
 	for i := range runs {
-		paths[i] = runs[i].Path(s.SuspensionHeightM)
+		near[i] = s.checkRun(runs[i].Path(s.SuspensionHeightM), stepM)
 	}
+	return s.summarise(near), nil
+}
+
+// checkRun is one run's closest approach to each obstacle.
+func (s *Site) checkRun(path []Sample, stepM float64) []RunNear {
+	out := make([]RunNear, len(s.Obstacles))
+	for k := range s.Obstacles {
+		out[k] = nearOf(s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM))
+	}
+	return out
+}
+
+// summarise gives each obstacle's figures over the runs from each run's
+// closest approach (near[run][obstacle]), the runs taken in order.
+func (s *Site) summarise(near [][]RunNear) []ObstacleReport {
 	out := make([]ObstacleReport, len(s.Obstacles))
 	for k := range s.Obstacles {
-		o := &s.Obstacles[k]
-		rep := ObstacleReport{Name: o.Name, Runs: len(runs), SmallestM: math.Inf(1)}
-		smallest := make([]float64, len(runs))
-		for i, p := range paths {
-			c := o.AlongPath(p, s.LoadRadiusM, stepM)
+		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), SmallestM: math.Inf(1)}
+		smallest := make([]float64, len(near))
+		for i := range near {
+			c := near[i][k]
 			smallest[i] = c.ClearanceM
 			if c.ClearanceM >= s.MarginM && !c.Strikes {
 				rep.KeepMargin++
@@ -113,11 +127,11 @@ func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
 		}
 		sort.Float64s(smallest)
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
-		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(runs))
-		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(runs), 0.95)
+		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
+		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
 		out[k] = rep
 	}
-	return out, nil
+	return out
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the

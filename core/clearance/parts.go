@@ -1,0 +1,363 @@
+package clearance
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+
+	"swaysheet/core/draws"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// A clearance check in parts: the runs of a check can be split into ranges
+// [From, To) of the run index, each evaluated on its own (on its own
+// worker: EvaluatePart), and the parts joined (Join) into the report. The
+// report of the joined parts is the report of one call over the same runs,
+// exactly: each run is drawn from the seed and its own index alone
+// (package draws), what a run contributes (its stray from the path with no
+// spread, its closest approach to each obstacle, the lattice cells it
+// sweeps) does not depend on the other runs, and the join ranks and counts
+// the runs in index order as one call does (Evaluate is itself one part
+// joined). Joining the parts received so far gives the report of those
+// runs: an envelope refined as the parts arrive.
+
+// Part is what the runs From to To-1 of a check contribute.
+type Part struct {
+	From int       `json:"from"`
+	To   int       `json:"to"`
+	Runs []RunPart `json:"runs"`
+}
+
+// RunPart is what one run contributes: its stray from the nominal path,
+// its closest approach to each obstacle in the site's order, and the
+// lattice cells it sweeps (see sweepPath) as row spans, each three
+// numbers: the row less the previous span's row, the first cell less the
+// previous span's first cell, the number of cells (the first span's from
+// row 0, cell 0).
+type RunPart struct {
+	StrayM float64   `json:"stray_m"`
+	Near   []RunNear `json:"near"`
+	Cells  []int     `json:"cells"`
+}
+
+// RunNear is one run's Closest to one obstacle (FirstStrikeS is zero when
+// it does not strike).
+type RunNear struct {
+	ClearanceM   float64 `json:"c"`
+	TimeS        float64 `json:"t"`
+	At           Point3  `json:"at"`
+	ErrorBoundM  float64 `json:"e"`
+	Strikes      bool    `json:"s,omitempty"`
+	FirstStrikeS float64 `json:"f,omitempty"`
+}
+
+func nearOf(c Closest) RunNear {
+	n := RunNear{ClearanceM: c.ClearanceM, TimeS: c.TimeS, At: c.At, ErrorBoundM: c.ErrorBoundM, Strikes: c.Strikes}
+	if c.Strikes {
+		n.FirstStrikeS = c.FirstStrikeS
+	}
+	return n
+}
+
+// Spec is what a scenario's site block asks for: how many runs, the seed
+// and how run i is drawn (nil: every run is the scenario itself).
+type Spec struct {
+	Runs    int
+	Seed    int
+	Variant Variant
+}
+
+// SpecOf reads the spec of s's site block: its spread's runs
+// (scenario.DefaultSiteRuns when it gives none) drawn by package draws
+// with its seed; with no spread, one run.
+func SpecOf(s *scenario.Scenario) (Spec, error) {
+	if s.Site == nil {
+		return Spec{}, ErrNoSite
+	}
+	sp := s.Site.Spread
+	if sp == nil {
+		return Spec{Runs: 1}, nil
+	}
+	runs := sp.Runs
+	if runs == 0 {
+		runs = scenario.DefaultSiteRuns
+	}
+	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
+	seed := uint64(sp.Seed)
+	return Spec{Runs: runs, Seed: sp.Seed, Variant: func(i int) *scenario.Scenario {
+		return draws.Draw(s, spread, seed, i)
+	}}, nil
+}
+
+// CheckPart evaluates the runs from to to-1 of the check s's site block
+// asks for (0 <= from < to <= its runs).
+func CheckPart(s *scenario.Scenario, from, to int, opt Options) (*Part, error) {
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
+	}
+	if from < 0 || to <= from || to > sp.Runs {
+		return nil, fmt.Errorf("clearance: runs from %d to %d: the check has runs 0 to %d", from, to, sp.Runs)
+	}
+	opt = opt.defaults()
+	site, nominal, err := prepare(s)
+	if err != nil {
+		return nil, err
+	}
+	return evaluatePart(s, site, nominal, from, to, sp.Variant, opt)
+}
+
+// CheckJoin joins parts of the check s's site block asks for into its
+// report over the runs they hold (in any order, none twice).
+func CheckJoin(s *scenario.Scenario, parts []Part, opt Options) (*Report, error) {
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
+	}
+	site, nominal, err := prepare(s)
+	if err != nil {
+		return nil, err
+	}
+	return join(site, nominal, sp.Runs, sp.Seed, parts, opt.defaults())
+}
+
+func (o Options) defaults() Options {
+	if o.StepM == 0 {
+		o.StepM = 0.02
+	}
+	if o.CellM == 0 {
+		o.CellM = 0.1
+	}
+	return o
+}
+
+// prepare reads the site and evaluates the nominal run (every spread at
+// zero), whose path the runs' strays are measured from.
+func prepare(s *scenario.Scenario) (*Site, []Point2, error) {
+	if s.Site == nil {
+		return nil, nil, ErrNoSite
+	}
+	site := SiteOf(s.Site)
+	for i := range site.Obstacles {
+		if err := site.Obstacles[i].Validate(); err != nil {
+			return nil, nil, fmt.Errorf("obstacle %d (%s): %w", i+1, site.Obstacles[i].Name, err)
+		}
+	}
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true})
+	if err != nil {
+		return nil, nil, err
+	}
+	run := RunOf(&res.History)
+	var nominal []Point2
+	for _, p := range run.Path(site.SuspensionHeightM) {
+		nominal = append(nominal, p.At.Plan())
+	}
+	return site, nominal, nil
+}
+
+// evaluatePart evaluates runs from to to-1, in parallel, each checked
+// against every obstacle and swept onto the lattice.
+func evaluatePart(s *scenario.Scenario, site *Site, nominal []Point2, from, to int, variant Variant, opt Options) (*Part, error) {
+	near := newNearest(nominal)
+	p := &Part{From: from, To: to, Runs: make([]RunPart, to-from)}
+	err := draws.Each(to-from, opt.Workers, func(k int) error {
+		i := from + k
+		v := s
+		if variant != nil {
+			if d := variant(i); d != nil {
+				v = d
+			}
+		}
+		r, err := sway.EvaluateWith(v, sway.Options{})
+		if err != nil {
+			return fmt.Errorf("run %d: %w", i, err)
+		}
+		run := RunOf(&r.History)
+		path := run.Path(site.SuspensionHeightM)
+		pts := make([]Point2, len(path))
+		for n, q := range path {
+			pts[n] = q.At.Plan()
+		}
+		rp := RunPart{StrayM: near.stray(pts), Near: site.checkRun(path, opt.StepM)}
+		for _, n := range rp.Near {
+			if !finite(n.ClearanceM) {
+				return fmt.Errorf("run %d: the path has no points", i)
+			}
+		}
+		rp.Cells = runCells(PlanPath{Points: pts, RadiusM: site.LoadRadiusM}, opt.CellM)
+		p.Runs[k] = rp
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	return p, nil
+}
+
+// runCells sweeps one run onto a grid of its own and lists the cells.
+func runCells(r PlanPath, cellM float64) []int {
+	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
+	for _, p := range r.Points {
+		lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+	}
+	reach := r.RadiusM + cellM*math.Sqrt2/2
+	i0, i1 := latticeRange(lo.X, hi.X, reach, cellM)
+	j0, j1 := latticeRange(lo.Y, hi.Y, reach, cellM)
+	nx, ny := i1-i0+1, j1-j0+1
+	if nx*ny > maxCells {
+		return nil
+	}
+	covered := make([]bool, nx*ny)
+	sweepPath(r, cellM, i0, j0, nx, ny, covered)
+	var out []int
+	pj, pi := 0, 0
+	for j := 0; j < ny; j++ {
+		for i := 0; i < nx; {
+			if !covered[j*nx+i] {
+				i++
+				continue
+			}
+			start := i
+			for i < nx && covered[j*nx+i] {
+				i++
+			}
+			out = append(out, j0+j-pj, i0+start-pi, i-start)
+			pj, pi = j0+j, i0+start
+		}
+	}
+	return out
+}
+
+// cellSpan is one row span of lattice cells: row J, cells I0 to I1-1.
+type cellSpan struct{ J, I0, I1 int }
+
+func decodeCells(c []int) ([]cellSpan, error) {
+	if len(c)%3 != 0 {
+		return nil, errors.New("clearance: a run's cells are not whole spans")
+	}
+	out := make([]cellSpan, 0, len(c)/3)
+	j, i := 0, 0
+	for k := 0; k < len(c); k += 3 {
+		j, i = j+c[k], i+c[k+1]
+		if c[k+2] < 1 {
+			return nil, errors.New("clearance: a run's cells hold an empty span")
+		}
+		out = append(out, cellSpan{j, i, i + c[k+2]})
+	}
+	return out, nil
+}
+
+// join makes the report of the runs the parts hold: every obstacle's
+// figures over them, the verdict, and the envelopes.
+func join(site *Site, nominal []Point2, total, seed int, parts []Part, opt Options) (*Report, error) {
+	var runs []RunPart
+	parts = append([]Part(nil), parts...)
+	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
+	next := -1
+	for _, p := range parts {
+		if p.From < 0 || p.To > total || p.To-p.From != len(p.Runs) || p.From < next {
+			return nil, fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", p.From, p.To, total)
+		}
+		next = p.To
+		runs = append(runs, p.Runs...)
+	}
+	if len(runs) == 0 {
+		return nil, errors.New("clearance: no runs to join")
+	}
+	near := make([][]RunNear, len(runs))
+	strays := make([]float64, len(runs))
+	for i, r := range runs {
+		if len(r.Near) != len(site.Obstacles) {
+			return nil, errors.New("clearance: a run's obstacles are not the site's")
+		}
+		near[i], strays[i] = r.Near, r.StrayM
+	}
+	reps := site.summarise(near)
+	rep := &Report{Runs: len(runs), Seed: seed, MarginM: site.MarginM, Obstacles: reps, Nominal: nominal}
+	rep.Clears, rep.Words = Verdict(reps, site.MarginM)
+	for _, e := range []struct {
+		level, conf float64
+		out         *EnvelopeOut
+	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
+		order, k := keep(strays, e.level, e.conf)
+		var spans []cellSpan
+		for _, i := range order[:k] {
+			c, err := decodeCells(runs[i].Cells)
+			if err != nil {
+				return nil, err
+			}
+			spans = append(spans, c...)
+		}
+		out, err := unionSpans(spans, opt.CellM)
+		if err != nil {
+			return nil, err
+		}
+		out.Level, out.Inside, out.StrayM = e.level, k, strays[order[k-1]]
+		out.Confidence = CoverageConfidence(k, len(runs), e.level)
+		*e.out = out
+	}
+	rep.Assumptions = assumptions(opt)
+	return rep, nil
+}
+
+// keep ranks the runs by stray, least first (ties in run order), and says
+// how many the envelope at level holds: ceil(level*N), or with conf above
+// zero the fewest for which the confidence that its coverage is at least
+// level reaches conf (all N when none does).
+func keep(strays []float64, level, conf float64) ([]int, int) {
+	order := make([]int, len(strays))
+	for i := range order {
+		order[i] = i
+	}
+	sort.SliceStable(order, func(a, b int) bool { return strays[order[a]] < strays[order[b]] })
+	n := len(strays)
+	k := max(int(math.Ceil(level*float64(n)-1e-9)), 1)
+	for conf > 0 && k < n && CoverageConfidence(k, n, level) < conf {
+		k++
+	}
+	return order, k
+}
+
+// unionSpans is the envelope drawn from the union of the runs' cells: row
+// spans in rows from the lowest, each row from the left, and the area.
+func unionSpans(spans []cellSpan, cellM float64) (EnvelopeOut, error) {
+	out := EnvelopeOut{CellM: cellM}
+	if len(spans) == 0 {
+		return out, nil
+	}
+	i0, i1, j0, j1 := spans[0].I0, spans[0].I1, spans[0].J, spans[0].J
+	for _, s := range spans {
+		i0, i1, j0, j1 = min(i0, s.I0), max(i1, s.I1), min(j0, s.J), max(j1, s.J)
+	}
+	nx, ny := i1-i0, j1-j0+1
+	if nx*ny > maxCells {
+		return out, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
+	}
+	covered := make([]bool, nx*ny)
+	for _, s := range spans {
+		row := covered[(s.J-j0)*nx:]
+		for i := s.I0; i < s.I1; i++ {
+			row[i-i0] = true
+		}
+	}
+	n := 0
+	for j := 0; j < ny; j++ {
+		for i := 0; i < nx; {
+			if !covered[j*nx+i] {
+				i++
+				continue
+			}
+			start := i
+			for i < nx && covered[j*nx+i] {
+				i++
+			}
+			n += i - start
+			out.Spans = append(out.Spans, latticeSpan(j0+j, i0+start, i0+i, cellM))
+		}
+	}
+	out.AreaM2 = float64(n) * cellM * cellM
+	return out, nil
+}
