@@ -7,6 +7,7 @@ import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { chart, fitWidth } from './plot.js';
+import { clearanceVerdict } from './site-view.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
 
@@ -97,6 +98,7 @@ export function renderResults() {
       (f.result_for ? '<p class="result-for" id="result-for">' + esc(f.result_for) + '</p>' : '') +
       '<ul class="figs" id="figures">' + f.rows.map(function (row) { return figureRow(row, f.verdict.state); }).join('') + '</ul>' +
       engineeringDetail(f.rows, det && det.open);
+    clearanceVerdict();
   }
   hd.dataset.count = String(S.count);
   var w = r.warnings || [];
