@@ -29,6 +29,14 @@ type Report struct {
 	Envelope95 EnvelopeOut `json:"envelope_95"`
 	// Nominal is the load's path with every spread at zero.
 	Nominal []Point2 `json:"nominal"`
+	// Outline is how the load's extent is taken (OutlineBall or
+	// OutlineBox); LoadRadiusM the ball's radius (zero for a box).
+	Outline     string  `json:"outline"`
+	LoadRadiusM float64 `json:"load_radius_m"`
+	// Spread is the spreads the runs were drawn with (nil: one run, none).
+	Spread *draws.Spread `json:"spread,omitempty"`
+	// Section is the vertical section along the crane's path.
+	Section Section `json:"section"`
 	// Assumptions state what the check takes for granted.
 	Assumptions []string `json:"assumptions"`
 }
@@ -149,7 +157,7 @@ func Check(s *scenario.Scenario, opt Options) (*Report, error) {
 		runs = scenario.DefaultSiteRuns
 	}
 	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
-		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
 	seed := uint64(sp.Seed)
 	return Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
 		return draws.Draw(s, spread, seed, i)

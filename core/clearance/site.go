@@ -65,6 +65,13 @@ type ObstacleReport struct {
 	SmallestM    float64 `json:"smallest_m"`
 	SmallestAtS  float64 `json:"smallest_at_s"`
 	SmallestAt   Point3  `json:"smallest_at"`
+	// SmallestAtDistanceM is where that is along the crane's path, and
+	// FirstStrikeAtDistanceM where the earliest strike is (see Section).
+	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
+	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
+	// Vertical is the gap below the load while it passes over the
+	// obstacle; nil when no run passes over it.
+	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
 }

@@ -46,6 +46,9 @@ type Spread struct {
 	GustPct float64 `json:"gust_pct,omitempty"`
 	// GustS scatters when the wind sets in (wind.start_s), s.
 	GustS float64 `json:"gust_s,omitempty"`
+	// EmergencyStop, given, stops each draw at a moment drawn uniformly
+	// over the move (see scenario.EmergencyStop and stop.go).
+	EmergencyStop *scenario.EmergencyStop `json:"emergency_stop,omitempty"`
 }
 
 // Request is a set of draws of one scenario.
