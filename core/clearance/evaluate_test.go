@@ -30,7 +30,7 @@ func TestNoSpreadEnvelopeIsTheRun(t *testing.T) {
 		t.Fatal(err)
 	}
 	res, _ := sway.Evaluate(s)
-	run := RunOf(&res.History)
+	run := RunOf(res)
 	var pts []Point2
 	for _, p := range run.Path(12) {
 		pts = append(pts, p.At.Plan())
@@ -77,7 +77,7 @@ func TestRopeSpreadEnvelopeMatchesTheRangeEnds(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		run := RunOf(&res.History)
+		run := RunOf(res)
 		for _, p := range run.Path(12) {
 			farthest = math.Max(farthest, p.At.X+0.5)
 			nearest = math.Min(nearest, p.At.X-0.5)
