@@ -188,4 +188,3 @@ func SiteOf(st *scenario.Site) *Site {
 	}
 	return out
 }
-
