@@ -79,10 +79,11 @@ func (r *Run) LowM(i int, suspensionHeightM, radiusM float64) float64 {
 	return suspensionHeightM + low
 }
 
-// HookM is the height of the rope's lower end at sample i.
+// HookM is the height of the rope's lower end at sample i (the centre's
+// height when the run has no rope history).
 func (r *Run) HookM(i int, suspensionHeightM float64) float64 {
 	if len(r.RopeM) <= i || len(r.SwingDeg) <= i {
-		return math.NaN()
+		return suspensionHeightM + r.RelZM[i]
 	}
 	return suspensionHeightM - r.RopeM[i]*math.Cos(r.SwingDeg[i]*math.Pi/180)
 }

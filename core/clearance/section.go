@@ -103,10 +103,19 @@ func sectionOf(site *Site, nominal *Run, runs []Run, e50, e95 *Envelope, reps []
 	}
 	for k := range site.Obstacles {
 		o := &site.Obstacles[k]
+		// The nominal centre's track, taken straight between samples and
+		// looked at every quarter bin.
 		from, to := math.Inf(1), math.Inf(-1)
 		for i := range nominal.TimeS {
-			if PlanDistance(nominal.centre(i, h).Plan(), o.Outline) <= reach {
-				from, to = math.Min(from, nd[i]), math.Max(to, nd[i])
+			a, b := nominal.centre(max(i-1, 0), h).Plan(), nominal.centre(i, h).Plan()
+			n := max(int(math.Ceil(math.Abs(nd[i]-nd[max(i-1, 0)])/(bin/4))), 1)
+			for s := 1; s <= n; s++ {
+				f := float64(s) / float64(n)
+				p := Point2{a.X + f*(b.X-a.X), a.Y + f*(b.Y-a.Y)}
+				if PlanDistance(p, o.Outline) <= reach {
+					d := nd[max(i-1, 0)] + f*(nd[i]-nd[max(i-1, 0)])
+					from, to = math.Min(from, d), math.Max(to, d)
+				}
 			}
 		}
 		if from <= to {
