@@ -64,6 +64,9 @@ type Options struct {
 	// StepM is the largest gap between points checked along a path
 	// (zero: 0.02 m); CellM the envelope's cell (zero: 0.1 m).
 	StepM, CellM float64
+	// Budget, given, is the work allowance every run draws on (see
+	// sway.Budget); nil: each run has its own.
+	Budget *sway.Budget
 }
 
 // ExclusionConfidence is how sure the exclusion zone must be that it
@@ -90,11 +93,11 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 		opt.CellM = 0.1
 	}
 	site := SiteOf(s.Site)
-	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true})
+	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
 	if err != nil {
 		return nil, err
 	}
-	all, err := evaluateRuns(s, runs, variant, opt.Workers)
+	all, err := evaluateRuns(s, runs, variant, opt.Workers, opt.Budget)
 	if err != nil {
 		return nil, err
 	}

@@ -105,7 +105,9 @@ type SitePlan struct {
 	// spread runs, at most MaxPlanRuns); Seed their seed.
 	RunsPerCheck int `json:"runs_per_check"`
 	Seed         int `json:"seed"`
-	// Options are the plan's options checked, in the plan's order.
+	// Options are the plan's options, in the plan's order. They are
+	// checked fastest first until one clears, and the plan's recommended
+	// option besides.
 	Options []SiteOption `json:"options"`
 	// Fastest is the index in the plan's options of the fastest one that
 	// clears every obstacle with the margin in 95 % of runs, -1 if none
@@ -127,9 +129,11 @@ type SiteOption struct {
 	Key       string  `json:"key"`
 	Label     string  `json:"label"`
 	MoveTimeS float64 `json:"move_time_s"`
-	// Checked is false when the work budget ran out before this option.
-	Checked bool `json:"checked"`
-	Clears  bool `json:"clears"`
+	// Checked is false when the option was not checked: Skipped says
+	// why (a faster option already clears, or the work budget ran out).
+	Checked bool   `json:"checked"`
+	Skipped string `json:"skipped,omitempty"`
+	Clears  bool   `json:"clears"`
 	// Worst names the obstacle kept clear in the fewest runs, with that
 	// share and its smallest clearance.
 	Worst           string  `json:"worst,omitempty"`
@@ -137,9 +141,14 @@ type SiteOption struct {
 	SmallestM       float64 `json:"smallest_m"`
 }
 
-// TopSpeed is the bisection on the move's top speed: Unit is "m/s" for
-// travel and "deg/s" for a slew; Speed clears (the lower end of the last
-// bracket), Above does not (0 when the plan's own top speed clears).
+// TopSpeed is the bisection on the drive-limits move's top speed (its
+// acceleration kept), from the plan's top speed down to a tenth of it:
+// Unit is "m/s" for travel and "deg/s" for a slew; Speed clears (the
+// lower end of the last bracket, 0 when not even a tenth does), Above
+// does not (0 when the plan's own top speed clears). Checks counts the
+// checks made, each of RunsPerCheck runs with the same seed. The
+// bisection takes a slower top speed to swing no more; each speed it
+// reports was itself checked.
 type TopSpeed struct {
 	Unit   string  `json:"unit"`
 	Speed  float64 `json:"speed"`

@@ -112,7 +112,7 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 
 // evaluateRuns evaluates every run, in parallel; a run the core rejects
 // ends the check with that run's error, naming it.
-func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int) ([]Run, error) {
+func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int, budget *sway.Budget) ([]Run, error) {
 	out := make([]Run, n)
 	err := draws.Each(n, workers, func(i int) error {
 		v := s
@@ -121,7 +121,7 @@ func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int) ([]
 				v = d
 			}
 		}
-		r, err := sway.EvaluateWith(v, sway.Options{})
+		r, err := sway.EvaluateWith(v, sway.Options{Budget: budget})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
