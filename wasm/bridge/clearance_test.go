@@ -30,3 +30,25 @@ func TestClearanceCall(t *testing.T) {
 		t.Errorf("no site block: %v", err)
 	}
 }
+
+func TestSitePlanCall(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/plan-site-bay-columns.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := Calls["site_plan"](nil, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp := out.(*clearance.SitePlan)
+	if sp.Fastest < 0 || sp.RunsPerCheck != 60 || sp.TopSpeed == nil || !sp.TopSpeed.Clears {
+		t.Errorf("site plan: fastest %d, %d runs, top speed %+v", sp.Fastest, sp.RunsPerCheck, sp.TopSpeed)
+	}
+	if _, err := json.Marshal(sp); err != nil {
+		t.Fatal(err)
+	}
+	site, _ := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
+	if _, err := Calls["site_plan"](nil, site); err == nil || !strings.Contains(err.Error(), "plan") {
+		t.Errorf("no plan block: %v", err)
+	}
+}
