@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"swaysheet/core/clearance"
+	"swaysheet/core/figures"
 )
 
 func TestClearanceCall(t *testing.T) {
@@ -50,5 +51,27 @@ func TestSitePlanCall(t *testing.T) {
 	site, _ := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
 	if _, err := Calls["site_plan"](nil, site); err == nil || !strings.Contains(err.Error(), "plan") {
 		t.Errorf("no plan block: %v", err)
+	}
+}
+
+func TestClearanceFiguresCall(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Calls["clearance"](nil, data); err != nil {
+		t.Fatal(err)
+	}
+	in := []byte(`{"scenario": ` + string(data) + `, "units": {"length": "ft"}, "system": "si"}`)
+	out, err := Calls["clearance_figures"](nil, in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rep := out.(figures.ClearanceReport)
+	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].Rows[0].Unit != "ft" {
+		t.Errorf("report %+v", rep)
+	}
+	if _, err := json.Marshal(rep); err != nil {
+		t.Fatal(err)
 	}
 }
