@@ -107,7 +107,6 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	}
 	rep := &Report{Runs: runs, Seed: seed, MarginM: site.MarginM, Obstacles: reps,
 		Outline: OutlineBall, LoadRadiusM: site.LoadRadiusM}
-	rep.Clears, rep.Words = Verdict(reps, site.MarginM)
 	nomRun := RunOf(nominal)
 	if nomRun.Rigid() {
 		rep.Outline, rep.LoadRadiusM = OutlineBox, 0
@@ -136,6 +135,7 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 			AreaM2: env.AreaM2(), Confidence: env.Confidence, Spans: env.Spans()}
 	}
 	rep.Section = sectionOf(site, &nomRun, all, envs[0], envs[1], rep.Obstacles, where)
+	rep.Clears, rep.Words = Verdict(rep.Obstacles, site.MarginM)
 	load := "The load is a ball of the stated size about its centre of mass"
 	if rep.Outline == OutlineBox {
 		load = "The load is its box, corners as simulated, taken against each obstacle as the upright prism that holds it (exact for a level load, on the safe side for a tilted one)"

@@ -160,7 +160,7 @@ func Verdict(reports []ObstacleReport, marginM float64) (ok bool, words []string
 		w := fmt.Sprintf("%s: the load keeps %.2f m from it in %d of %d runs (%.0f %%; %.0f %% needed)",
 			r.Name, marginM, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
 		if r.Strikes > 0 {
-			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move", r.Strikes, r.FirstStrikeS)
+			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move, %.1f m along the path", r.Strikes, r.FirstStrikeS, r.FirstStrikeAtDistanceM)
 		}
 		words = append(words, w+".")
 	}
