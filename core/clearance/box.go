@@ -113,13 +113,20 @@ func footprint(c *[8]Point3) (hull []Point2, lowM float64) {
 // obstacle's outline seen from above, with the height of its lowest
 // corner above the top (gapM, negative below it).
 func (o *Obstacle) BoxClearance(c *[8]Point3) (clearM float64, over bool, gapM float64) {
+	clearM, gapM, dxy := o.boxClearance(c)
+	return clearM, dxy == 0, gapM
+}
+
+// boxClearance is BoxClearance with the plan distance dxy between the
+// outlines (zero: over or in it).
+func (o *Obstacle) boxClearance(c *[8]Point3) (clearM, gapM, dxy float64) {
 	q, low := footprint(c)
-	dxy := PolygonDistance(q, o.Outline)
+	dxy = PolygonDistance(q, o.Outline)
 	gapM = low - o.TopM
 	if dxy > 0 || gapM > 0 {
-		return math.Hypot(dxy, math.Max(0, gapM)), dxy == 0, gapM
+		return math.Hypot(dxy, math.Max(0, gapM)), gapM, dxy
 	}
-	return -math.Min(overlapDepth(q, o.Outline), -gapM), true, gapM
+	return -math.Min(overlapDepth(q, o.Outline), -gapM), gapM, dxy
 }
 
 // AlongBoxPath checks a rigid load's path against the obstacle: the
@@ -134,8 +141,11 @@ func (o *Obstacle) AlongBoxPath(path []BoxSample, stepM float64) Closest {
 		panic("clearance: AlongBoxPath needs a positive step")
 	}
 	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
-	offer := func(t float64, corners *[8]Point3, centre Point3) {
-		v, over, gap := o.BoxClearance(corners)
+	// offer checks one moment; it returns the clearance and the plan
+	// distance between the outlines there.
+	offer := func(t float64, corners *[8]Point3, centre Point3) (float64, float64) {
+		v, gap, dxy := o.boxClearance(corners)
+		over := dxy == 0
 		if v < c.ClearanceM {
 			c.ClearanceM, c.TimeS, c.At = v, t, centre
 		}
@@ -145,19 +155,28 @@ func (o *Obstacle) AlongBoxPath(path []BoxSample, stepM float64) Closest {
 		if v < 0 && !c.Strikes {
 			c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, t, centre
 		}
+		return v, dxy
 	}
 	if len(path) == 0 {
 		return c
 	}
-	offer(path[0].TimeS, &path[0].Corners, path[0].Centre)
 	for i := 0; i+1 < len(path); i++ {
 		a, b := &path[i], &path[i+1]
+		va, da := offer(a.TimeS, &a.Corners, a.Centre)
 		move := 0.0
 		for k := range a.Corners {
 			move = math.Max(move, dist3(a.Corners[k], b.Corners[k]))
 		}
 		n := max(int(math.Ceil(move/stepM)), 1)
-		for s := 1; s <= n; s++ {
+		c.ErrorBoundM = math.Max(c.ErrorBoundM, move/float64(n)/2)
+		// The clearance and the plan distance change by no more than the
+		// corners move: a piece that stays clear of this obstacle by more
+		// than the smallest clearance so far, strikes nothing and passes
+		// over nothing needs no points between its ends.
+		if low := va - move; low > 0 && low > c.ClearanceM && da-move > 0 {
+			continue
+		}
+		for s := 1; s < n; s++ {
 			f := float64(s) / float64(n)
 			var cs [8]Point3
 			for k := range cs {
@@ -165,8 +184,9 @@ func (o *Obstacle) AlongBoxPath(path []BoxSample, stepM float64) Closest {
 			}
 			offer(a.TimeS+f*(b.TimeS-a.TimeS), &cs, lerp3(a.Centre, b.Centre, f))
 		}
-		c.ErrorBoundM = math.Max(c.ErrorBoundM, move/float64(n)/2)
 	}
+	end := &path[len(path)-1]
+	offer(end.TimeS, &end.Corners, end.Centre)
 	return c
 }
 

@@ -44,7 +44,9 @@ type ObstacleReport struct {
 	SmallestAtS  float64 `json:"smallest_at_s"`
 	SmallestAt   Point3  `json:"smallest_at"`
 	// SmallestAtDistanceM is where that is along the crane's path, and
-	// FirstStrikeAtDistanceM where the earliest strike is (see Section).
+	// FirstStrikeAtDistanceM where the earliest strike is: the distance
+	// of the load's centre (see Section; a long load's end reaches an
+	// obstacle well before its centre does).
 	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
 	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
 	// Vertical is the gap below the load while it passes over the
