@@ -34,9 +34,13 @@ var ObstacleTable = []ClearanceFigure{
 	{"first_strike_at_distance_m", "first strike where, along the path", "distance along the crane's path of the earliest strike", "m", "",
 		func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeAtDistanceM, o.Strikes > 0 }},
 	{"vertical.smallest_m", "least room under the load over it", "smallest height of the load's lowest point above its top while over it", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return vertical(o, func(v *clearance.Vertical) float64 { return v.SmallestM }) }},
+		func(o *clearance.ObstacleReport) (float64, bool) {
+			return vertical(o, func(v *clearance.Vertical) float64 { return v.SmallestM })
+		}},
 	{"vertical.at_distance_m", "least room under the load where", "distance along the crane's path of that", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return vertical(o, func(v *clearance.Vertical) float64 { return v.AtDistanceM }) }},
+		func(o *clearance.ObstacleReport) (float64, bool) {
+			return vertical(o, func(v *clearance.Vertical) float64 { return v.AtDistanceM })
+		}},
 	{"error_bound_m", "checked to within", "what the points checked can miss between samples", "m", "",
 		func(o *clearance.ObstacleReport) (float64, bool) { return o.ErrorBoundM, true }},
 }
