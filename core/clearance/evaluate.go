@@ -149,12 +149,23 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	return rep, nil
 }
 
+// CheckWork is the work budget of one clearance check, shared by all its
+// runs (see sway.Budget): about 26 s of one core. The examples' 200 runs
+// need 1e7 (a point load); a rigid load's run needs a few million.
+const CheckWork = 2_000_000_000
+
+const checkBudgetMessage = "This clearance check needs more computing than allowed: use fewer runs (site.spread.runs), shorten the moves, or set a looser accuracy (settings.rel_tol)."
+
 // Check runs the clearance check the scenario's site block asks for: its
 // spread's runs (scenario.DefaultSiteRuns when it gives none) drawn by
-// package draws with its seed; with no spread, one run.
+// package draws with its seed; with no spread, one run. The runs share
+// opt.Budget, or one of CheckWork.
 func Check(s *scenario.Scenario, opt Options) (*Report, error) {
 	if s.Site == nil {
 		return nil, ErrNoSite
+	}
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
 	}
 	sp := s.Site.Spread
 	if sp == nil {

@@ -2,8 +2,10 @@ package clearance
 
 import (
 	"encoding/json"
+	"errors"
 	"math"
 	"reflect"
+	"strings"
 	"testing"
 
 	"swaysheet/core/draws"
@@ -194,5 +196,14 @@ func TestEmergencyStopSpreadInTheCheck(t *testing.T) {
 	}
 	if rep.Envelope95.StrayM == 0 {
 		t.Error("the stops do not spread the runs")
+	}
+}
+
+func TestCheckBudgetNamesWhatToShorten(t *testing.T) {
+	s := bay(t)
+	s.Site.Spread = &scenario.SiteSpread{Runs: 50, Seed: 1, RopeLengthM: 0.1}
+	_, err := Check(s, Options{Budget: sway.NewBudget(1000, checkBudgetMessage)})
+	if !errors.Is(err, sway.ErrWorkLimit) || !strings.Contains(err.Error(), "site.spread.runs") {
+		t.Errorf("error %v", err)
 	}
 }
