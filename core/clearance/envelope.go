@@ -36,6 +36,8 @@ type Envelope struct {
 	CellM   float64
 	NX, NY  int
 	Covered []bool // NX*NY cells, row by row from Y0M
+	// Members are the indices of the runs inside, least straying first.
+	Members []int
 	// Confidence is the probability that the envelope's coverage of all
 	// possible runs is at least Level: 1 - I_p(k, N+1-k).
 	Confidence float64
@@ -46,6 +48,10 @@ type Envelope struct {
 type PlanPath struct {
 	Points  []Point2
 	RadiusM float64
+	// Outlines, when set, are a rigid load's outline seen from above at
+	// each point (the convex hull of its box's corners): the envelope then
+	// sweeps these outlines rather than a ball.
+	Outlines [][]Point2
 }
 
 // Stray is the largest distance of the path's points from the nominal
@@ -104,25 +110,32 @@ func (n *nearest) cell(x, y float64) (int, int) {
 
 // dist2 is the squared distance from p to the polyline.
 func (n *nearest) dist2(p Point2) float64 {
+	d, _ := n.closest(p)
+	return d
+}
+
+// closest is the squared distance from p to the polyline and the first
+// segment at that distance (0 for a single point).
+func (n *nearest) closest(p Point2) (float64, int) {
 	if n.single {
 		dx, dy := p.X-n.pts[0].X, p.Y-n.pts[0].Y
-		return dx*dx + dy*dy
+		return dx*dx + dy*dy, 0
 	}
 	ci, cj := n.cell(p.X, p.Y)
 	// Distance from p to the grid's box, for points outside it.
 	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
 	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
 	outside := math.Hypot(ox, oy)
-	best := math.Inf(1)
+	best, seg := math.Inf(1), 0
 	for ring := 0; ; ring++ {
 		// Every bucket not yet searched is at least ring-1 buckets from
 		// p's own along some axis, and no nearer than the grid's box.
 		reach := max(outside, float64(ring-1)*n.g)
 		if ring > 0 && reach > 0 && reach*reach >= best {
-			return best
+			return best, seg
 		}
 		if ring > n.nx && ring > n.ny {
-			return best
+			return best, seg
 		}
 		for j := cj - ring; j <= cj+ring; j++ {
 			if j < 0 || j >= n.ny {
@@ -133,8 +146,8 @@ func (n *nearest) dist2(p Point2) float64 {
 					continue
 				}
 				for _, s := range n.bucket[j*n.nx+i] {
-					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best {
-						best = d
+					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
+						best, seg = d, int(s)
 					}
 				}
 			}
@@ -192,28 +205,21 @@ func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) 
 	n := len(runs)
 	e := &Envelope{Level: level, Runs: n, Inside: k, StrayM: strays[order[k-1]], CellM: cellM}
 	e.Confidence = CoverageConfidence(k, n, level)
+	e.Members = append([]int(nil), order[:k]...)
 
-	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
-	reach := 0.0
-	for _, i := range order[:k] {
-		r := runs[i]
-		reach = max(reach, r.RadiusM)
-		for _, p := range r.Points {
-			lo.X, lo.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y)
-			hi.X, hi.Y = math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
-		}
-	}
 	// The grid is a window on the lattice of cells [I*cellM, (I+1)*cellM)
 	// shared by every envelope of this cell size, wide enough that no
 	// cell a run marks falls outside it (see latticeRange); so the cells
 	// marked do not depend on which runs share the grid.
-	reach += cellM * math.Sqrt2 / 2
-	i0, i1 := latticeRange(lo.X, hi.X, reach, cellM)
-	j0, j1 := latticeRange(lo.Y, hi.Y, reach, cellM)
+	i0, i1, j0, j1 := math.MaxInt, math.MinInt, math.MaxInt, math.MinInt
+	for _, i := range order[:k] {
+		a0, a1, b0, b1 := runs[i].latticeBox(cellM)
+		i0, i1, j0, j1 = min(i0, a0), max(i1, a1), min(j0, b0), max(j1, b1)
+	}
 	e.I0, e.J0 = i0, j0
 	e.X0M, e.Y0M = float64(i0)*cellM, float64(j0)*cellM
 	e.NX, e.NY = i1-i0+1, j1-j0+1
-	if e.NX*e.NY > maxCells || e.NX <= 0 || e.NY <= 0 {
+	if e.NX <= 0 || e.NY <= 0 || e.NX*e.NY > maxCells {
 		return nil, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
 	}
 	e.Covered = make([]bool, e.NX*e.NY)
@@ -225,25 +231,51 @@ func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) 
 
 const maxCells = 4 << 20
 
-// sweep marks every cell that comes within the radius of the path.
-func (e *Envelope) sweep(r PlanPath) { sweepPath(r, e.CellM, e.I0, e.J0, e.NX, e.NY, e.Covered) }
+// sweep marks every cell the run's load comes over.
+func (e *Envelope) sweep(r PlanPath) { r.sweepLattice(e.CellM, e.I0, e.J0, e.NX, e.NY, e.Covered) }
+
+// latticeBox is the range of lattice indices (i0 to i1 across, j0 to j1
+// up) whose cells the run can mark.
+func (r *PlanPath) latticeBox(cellM float64) (i0, i1, j0, j1 int) {
+	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
+	reach := 0.0
+	if r.Outlines == nil {
+		reach = r.RadiusM + cellM*math.Sqrt2/2
+		for _, p := range r.Points {
+			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+		}
+	}
+	for _, o := range r.Outlines {
+		for _, p := range o {
+			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+		}
+	}
+	i0, i1 = latticeRange(lo.X, hi.X, reach, cellM)
+	j0, j1 = latticeRange(lo.Y, hi.Y, reach, cellM)
+	return i0, i1, j0, j1
+}
 
 // latticeRange is the range of lattice indices, from i0 to i1, whose
 // cells can come within reach of coordinates from lo to hi: a cell
-// [I*c, (I+1)*c) marked has its centre (I+1/2)*c within reach, so
-// lo-reach <= (I+1/2)*c <= hi+reach; one more cell each side keeps the
-// rounding of the division inside.
+// [I*c, (I+1)*c) marked has its centre (I+1/2)*c within reach, or meets
+// [lo, hi] itself; one more cell each side keeps the rounding of the
+// division inside.
 func latticeRange(lo, hi, reach, cellM float64) (int, int) {
 	return int(math.Floor((lo-reach)/cellM)) - 1, int(math.Floor((hi+reach)/cellM)) + 1
 }
 
-// sweepPath marks every lattice cell that comes within the radius of the
-// path, taken as straight between its points, on the grid of nx by ny
-// cells whose lower left cell has the lattice index (i0, j0) (covered, row
-// by row): a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
-// is within the radius plus half the cell's diagonal of a piece. Cells
-// already marked are not looked at again; cells off the grid are left out.
-func sweepPath(r PlanPath, cellM float64, i0, j0, nx, ny int, covered []bool) {
+// sweepLattice marks the cells of the lattice the run's load comes over
+// on the grid of nx by ny cells whose lower left cell has the lattice
+// index (i0, j0) (covered, row by row); cells off the grid are left out.
+// A ball of radius RadiusM about the points, taken as straight between
+// them: a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
+// is within the radius plus half the cell's diagonal of a piece (cells
+// already marked are not looked at again). Outlines: see sweepOutlines.
+func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
+	if r.Outlines != nil {
+		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
+		return
+	}
 	reach := r.RadiusM + cellM*math.Sqrt2/2
 	reach2 := reach * reach
 	piece := func(a, b Point2) {

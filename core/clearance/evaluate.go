@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 
+	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -28,6 +29,14 @@ type Report struct {
 	Envelope95 EnvelopeOut `json:"envelope_95"`
 	// Nominal is the load's path with every spread at zero.
 	Nominal []Point2 `json:"nominal"`
+	// Outline is how the load's extent is taken (OutlineBall or
+	// OutlineBox); LoadRadiusM the ball's radius (zero for a box).
+	Outline     string  `json:"outline"`
+	LoadRadiusM float64 `json:"load_radius_m"`
+	// Spread is the spreads the runs were drawn with (nil: one run, none).
+	Spread *draws.Spread `json:"spread,omitempty"`
+	// Section is the vertical section along the crane's path.
+	Section Section `json:"section"`
 	// Assumptions state what the check takes for granted.
 	Assumptions []string `json:"assumptions"`
 }
@@ -55,6 +64,9 @@ type Options struct {
 	// StepM is the largest gap between points checked along a path
 	// (zero: 0.02 m); CellM the envelope's cell (zero: 0.1 m).
 	StepM, CellM float64
+	// Budget, given, is the work allowance every run draws on (see
+	// sway.Budget); nil: each run has its own.
+	Budget *sway.Budget
 }
 
 // ExclusionConfidence is how sure the exclusion zone must be that it
@@ -74,37 +86,67 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	if runs < 1 {
 		return nil, errors.New("clearance: at least one run")
 	}
-	opt = opt.defaults()
-	site, nominal, err := prepare(s)
+	c, err := prepare(s, opt.defaults())
 	if err != nil {
 		return nil, err
 	}
-	part, err := evaluatePart(s, site, nominal, 0, runs, variant, opt)
+	part, err := c.part(s, 0, runs, variant)
 	if err != nil {
 		return nil, err
 	}
-	return join(site, nominal, runs, seed, []Part{*part}, opt)
+	return c.join(runs, seed, []Part{*part})
 }
 
 // assumptions state what the check takes for granted.
-func assumptions(opt Options) []string {
+func assumptions(outline string, opt Options) []string {
+	load := "The load is a ball of the stated size about its centre of mass"
+	if outline == OutlineBox {
+		load = "The load is its box, corners as simulated, taken against each obstacle as the upright prism that holds it (exact for a level load, on the safe side for a tilted one)"
+	}
 	return []string{
-		"The load is a ball of the stated size about its centre of mass; obstacles are upright shapes standing from the floor up to their top height.",
+		load + "; obstacles are upright shapes standing from the floor up to their top height.",
 		fmt.Sprintf("Each run's path is taken as straight between the simulation's time samples and checked at points at most %.2f m apart; the clearance between them can be smaller by at most half that gap.", opt.StepM),
-		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations); they say how the path spreads when the inputs do, not how likely any input is.",
+		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations; an emergency stop at a moment drawn evenly over the move); they say how the path spreads when the inputs do, not how likely any input is.",
 		"The 95 % envelope holds the paths of the runs that stray least from the path with no spread, as many as it takes to be 95 % sure that it holds 95 % of all possible runs (a tolerance region; with few runs, all of them, and the confidence is stated).",
 	}
 }
 
+// CheckWork is the work budget of one clearance check, shared by all its
+// runs (see sway.Budget): about 26 s of one core. The examples' 200 runs
+// need 1e7 (a point load); a rigid load's run needs a few million.
+const CheckWork = 2_000_000_000
+
+const checkBudgetMessage = "This clearance check needs more computing than allowed: use fewer runs (site.spread.runs), shorten the moves, or set a looser accuracy (settings.rel_tol)."
+
 // Check runs the clearance check the scenario's site block asks for: its
 // spread's runs (scenario.DefaultSiteRuns when it gives none) drawn by
-// package draws with its seed; with no spread, one run.
+// package draws with its seed; with no spread, one run. The runs share
+// opt.Budget, or one of CheckWork.
 func Check(s *scenario.Scenario, opt Options) (*Report, error) {
-	sp, err := SpecOf(s)
-	if err != nil {
-		return nil, err
+	if s.Site == nil {
+		return nil, ErrNoSite
 	}
-	return Evaluate(s, sp.Runs, sp.Seed, sp.Variant, opt)
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
+	}
+	sp := s.Site.Spread
+	if sp == nil {
+		return Evaluate(s, 1, 0, nil, opt)
+	}
+	runs := sp.Runs
+	if runs == 0 {
+		runs = scenario.DefaultSiteRuns
+	}
+	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
+	seed := uint64(sp.Seed)
+	rep, err := Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
+		return draws.Draw(s, spread, seed, i)
+	}, opt)
+	if rep != nil {
+		rep.Spread = &spread
+	}
+	return rep, err
 }
 
 // SiteOf turns the scenario's site block into obstacles.
@@ -121,10 +163,4 @@ func SiteOf(st *scenario.Site) *Site {
 		out.Obstacles = append(out.Obstacles, ob)
 	}
 	return out
-}
-
-// RunOf takes a run's path from an evaluation's time histories.
-func RunOf(h *sway.History) Run {
-	return Run{TimeS: h.TimeS, RelXM: h.RelXM, RelYM: h.RelYM, RelZM: h.RelZM,
-		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM}
 }

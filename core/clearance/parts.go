@@ -1,6 +1,7 @@
 package clearance
 
 import (
+	"encoding/binary"
 	"errors"
 	"fmt"
 	"math"
@@ -31,41 +32,66 @@ type Part struct {
 }
 
 // RunPart is what one run contributes: its stray from the nominal path,
-// its closest approach to each obstacle in the site's order, and the
-// lattice cells it sweeps (see sweepPath) as row spans, each three
-// numbers: the row less the previous span's row, the first cell less the
-// previous span's first cell, the number of cells (the first span's from
-// row 0, cell 0).
+// its closest approach to each obstacle in the site's order, the lattice
+// cells its load sweeps (see PlanPath.sweepLattice) as row spans, each
+// three numbers: the row less the previous span's row, the first cell less
+// the previous span's first cell, the number of cells (the first span's
+// from row 0, cell 0), and for the vertical section its distance along the
+// crane's path and its lowest point's height at each sample (float64,
+// little-endian: the distances, then the heights).
 type RunPart struct {
-	StrayM float64   `json:"stray_m"`
-	Near   []RunNear `json:"near"`
-	Cells  []int     `json:"cells"`
+	StrayM  float64   `json:"stray_m"`
+	Near    []RunNear `json:"near"`
+	Cells   []int     `json:"cells"`
+	Section []byte    `json:"section"`
 }
 
-// RunNear is one run's Closest to one obstacle (FirstStrikeS is zero when
-// it does not strike).
+// RunNear is one run's Closest to one obstacle in JSON: the first strike
+// when it strikes, the gap below the load when it passes over.
 type RunNear struct {
-	ClearanceM   float64 `json:"c"`
-	TimeS        float64 `json:"t"`
-	At           Point3  `json:"at"`
-	ErrorBoundM  float64 `json:"e"`
-	Strikes      bool    `json:"s,omitempty"`
-	FirstStrikeS float64 `json:"f,omitempty"`
+	ClearanceM    float64 `json:"c"`
+	TimeS         float64 `json:"t"`
+	At            Point3  `json:"at"`
+	ErrorBoundM   float64 `json:"e"`
+	Strikes       bool    `json:"s,omitempty"`
+	FirstStrikeS  float64 `json:"f,omitempty"`
+	FirstStrikeAt Point3  `json:"fa"`
+	Over          bool    `json:"o,omitempty"`
+	GapM          float64 `json:"g,omitempty"`
+	GapAtS        float64 `json:"gt,omitempty"`
+	GapAt         Point3  `json:"ga"`
 }
 
 func nearOf(c Closest) RunNear {
 	n := RunNear{ClearanceM: c.ClearanceM, TimeS: c.TimeS, At: c.At, ErrorBoundM: c.ErrorBoundM, Strikes: c.Strikes}
 	if c.Strikes {
-		n.FirstStrikeS = c.FirstStrikeS
+		n.FirstStrikeS, n.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
+	}
+	if !math.IsInf(c.GapM, 1) {
+		n.Over, n.GapM, n.GapAtS, n.GapAt = true, c.GapM, c.GapAtS, c.GapAt
 	}
 	return n
 }
 
-// Spec is what a scenario's site block asks for: how many runs, the seed
-// and how run i is drawn (nil: every run is the scenario itself).
+func (n RunNear) closest() Closest {
+	c := Closest{ClearanceM: n.ClearanceM, TimeS: n.TimeS, At: n.At, ErrorBoundM: n.ErrorBoundM, Strikes: n.Strikes,
+		FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
+	if n.Strikes {
+		c.FirstStrikeS, c.FirstStrikeAt = n.FirstStrikeS, n.FirstStrikeAt
+	}
+	if n.Over {
+		c.GapM, c.GapAtS, c.GapAt = n.GapM, n.GapAtS, n.GapAt
+	}
+	return c
+}
+
+// Spec is what a scenario's site block asks for: how many runs, the seed,
+// the spreads and how run i is drawn (nil: every run is the scenario
+// itself).
 type Spec struct {
 	Runs    int
 	Seed    int
+	Spread  *draws.Spread
 	Variant Variant
 }
 
@@ -85,15 +111,16 @@ func SpecOf(s *scenario.Scenario) (Spec, error) {
 		runs = scenario.DefaultSiteRuns
 	}
 	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
-		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
 	seed := uint64(sp.Seed)
-	return Spec{Runs: runs, Seed: sp.Seed, Variant: func(i int) *scenario.Scenario {
+	return Spec{Runs: runs, Seed: sp.Seed, Spread: &spread, Variant: func(i int) *scenario.Scenario {
 		return draws.Draw(s, spread, seed, i)
 	}}, nil
 }
 
 // CheckPart evaluates the runs from to to-1 of the check s's site block
-// asks for (0 <= from < to <= its runs).
+// asks for (0 <= from < to <= its runs); they share opt.Budget, or one of
+// CheckWork.
 func CheckPart(s *scenario.Scenario, from, to int, opt Options) (*Part, error) {
 	sp, err := SpecOf(s)
 	if err != nil {
@@ -102,12 +129,14 @@ func CheckPart(s *scenario.Scenario, from, to int, opt Options) (*Part, error) {
 	if from < 0 || to <= from || to > sp.Runs {
 		return nil, fmt.Errorf("clearance: runs from %d to %d: the check has runs 0 to %d", from, to, sp.Runs)
 	}
-	opt = opt.defaults()
-	site, nominal, err := prepare(s)
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
+	}
+	c, err := prepare(s, opt.defaults())
 	if err != nil {
 		return nil, err
 	}
-	return evaluatePart(s, site, nominal, from, to, sp.Variant, opt)
+	return c.part(s, from, to, sp.Variant)
 }
 
 // CheckJoin joins parts of the check s's site block asks for into its
@@ -117,11 +146,15 @@ func CheckJoin(s *scenario.Scenario, parts []Part, opt Options) (*Report, error)
 	if err != nil {
 		return nil, err
 	}
-	site, nominal, err := prepare(s)
+	c, err := prepare(s, opt.defaults())
 	if err != nil {
 		return nil, err
 	}
-	return join(site, nominal, sp.Runs, sp.Seed, parts, opt.defaults())
+	rep, err := c.join(sp.Runs, sp.Seed, parts)
+	if rep != nil {
+		rep.Spread = sp.Spread
+	}
+	return rep, err
 }
 
 func (o Options) defaults() Options {
@@ -134,36 +167,50 @@ func (o Options) defaults() Options {
 	return o
 }
 
-// prepare reads the site and evaluates the nominal run (every spread at
-// zero), whose path the runs' strays are measured from.
-func prepare(s *scenario.Scenario) (*Site, []Point2, error) {
-	if s.Site == nil {
-		return nil, nil, ErrNoSite
-	}
-	site := SiteOf(s.Site)
-	for i := range site.Obstacles {
-		if err := site.Obstacles[i].Validate(); err != nil {
-			return nil, nil, fmt.Errorf("obstacle %d (%s): %w", i+1, site.Obstacles[i].Name, err)
-		}
-	}
-	res, err := sway.EvaluateWith(s, sway.Options{Validated: true})
-	if err != nil {
-		return nil, nil, err
-	}
-	run := RunOf(&res.History)
-	var nominal []Point2
-	for _, p := range run.Path(site.SuspensionHeightM) {
-		nominal = append(nominal, p.At.Plan())
-	}
-	return site, nominal, nil
+// checker holds what every part and the join of one check share: the
+// site, the nominal run (every spread at zero) and its path, from which
+// the runs' strays and distances along the path are measured.
+type checker struct {
+	opt     Options
+	site    *Site
+	nominal Run
+	radiusM float64 // the load's ball; zero for a rigid load's box
+	plan    PlanPath
+	near    *nearest
+	track   *track
 }
 
-// evaluatePart evaluates runs from to to-1, in parallel, each checked
-// against every obstacle and swept onto the lattice.
-func evaluatePart(s *scenario.Scenario, site *Site, nominal []Point2, from, to int, variant Variant, opt Options) (*Part, error) {
-	near := newNearest(nominal)
+func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
+	if s.Site == nil {
+		return nil, ErrNoSite
+	}
+	c := &checker{opt: opt, site: SiteOf(s.Site)}
+	for i := range c.site.Obstacles {
+		if err := c.site.Obstacles[i].Validate(); err != nil {
+			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, c.site.Obstacles[i].Name, err)
+		}
+	}
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
+	if err != nil {
+		return nil, err
+	}
+	c.nominal = RunOf(res)
+	c.radiusM = c.site.LoadRadiusM
+	if c.nominal.Rigid() {
+		c.radiusM = 0
+	}
+	c.plan = c.nominal.planPath(c.site.SuspensionHeightM, c.radiusM)
+	c.near = newNearest(c.plan.Points)
+	c.track = newTrack(&c.nominal)
+	return c, nil
+}
+
+// part evaluates runs from to to-1, in parallel, each checked against
+// every obstacle, swept onto the lattice and placed along the path.
+func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Part, error) {
+	h := c.site.SuspensionHeightM
 	p := &Part{From: from, To: to, Runs: make([]RunPart, to-from)}
-	err := draws.Each(to-from, opt.Workers, func(k int) error {
+	err := draws.Each(to-from, c.opt.Workers, func(k int) error {
 		i := from + k
 		v := s
 		if variant != nil {
@@ -171,23 +218,24 @@ func evaluatePart(s *scenario.Scenario, site *Site, nominal []Point2, from, to i
 				v = d
 			}
 		}
-		r, err := sway.EvaluateWith(v, sway.Options{})
+		r, err := sway.EvaluateWith(v, sway.Options{Budget: c.opt.Budget})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
-		run := RunOf(&r.History)
-		path := run.Path(site.SuspensionHeightM)
-		pts := make([]Point2, len(path))
-		for n, q := range path {
-			pts[n] = q.At.Plan()
-		}
-		rp := RunPart{StrayM: near.stray(pts), Near: site.checkRun(path, opt.StepM)}
-		for _, n := range rp.Near {
-			if !finite(n.ClearanceM) {
+		run := RunOf(r)
+		near := c.site.checkRun(&run, c.opt.StepM)
+		rp := RunPart{Near: make([]RunNear, len(near))}
+		for n := range near {
+			if !finite(near[n].ClearanceM) {
 				return fmt.Errorf("run %d: the path has no points", i)
 			}
+			rp.Near[n] = nearOf(near[n])
 		}
-		rp.Cells = runCells(PlanPath{Points: pts, RadiusM: site.LoadRadiusM}, opt.CellM)
+		plan := run.planPath(h, c.radiusM)
+		rp.StrayM = c.near.stray(plan.Points)
+		rp.Cells = runCells(&plan, c.opt.CellM)
+		d, low := c.track.runSection(&run, h, c.site.LoadRadiusM)
+		rp.Section = packFloats(append(d, low...))
 		p.Runs[k] = rp
 		return nil
 	})
@@ -197,21 +245,31 @@ func evaluatePart(s *scenario.Scenario, site *Site, nominal []Point2, from, to i
 	return p, nil
 }
 
-// runCells sweeps one run onto a grid of its own and lists the cells.
-func runCells(r PlanPath, cellM float64) []int {
-	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
-	for _, p := range r.Points {
-		lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+func packFloats(v []float64) []byte {
+	out := make([]byte, 8*len(v))
+	for i, x := range v {
+		binary.LittleEndian.PutUint64(out[8*i:], math.Float64bits(x))
 	}
-	reach := r.RadiusM + cellM*math.Sqrt2/2
-	i0, i1 := latticeRange(lo.X, hi.X, reach, cellM)
-	j0, j1 := latticeRange(lo.Y, hi.Y, reach, cellM)
+	return out
+}
+
+func unpackFloats(b []byte) []float64 {
+	out := make([]float64, len(b)/8)
+	for i := range out {
+		out[i] = math.Float64frombits(binary.LittleEndian.Uint64(b[8*i:]))
+	}
+	return out
+}
+
+// runCells sweeps one run onto a grid of its own and lists the cells.
+func runCells(r *PlanPath, cellM float64) []int {
+	i0, i1, j0, j1 := r.latticeBox(cellM)
 	nx, ny := i1-i0+1, j1-j0+1
-	if nx*ny > maxCells {
+	if nx <= 0 || ny <= 0 || nx*ny > maxCells {
 		return nil
 	}
 	covered := make([]bool, nx*ny)
-	sweepPath(r, cellM, i0, j0, nx, ny, covered)
+	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
 	var out []int
 	pj, pi := 0, 0
 	for j := 0; j < ny; j++ {
@@ -251,8 +309,8 @@ func decodeCells(c []int) ([]cellSpan, error) {
 }
 
 // join makes the report of the runs the parts hold: every obstacle's
-// figures over them, the verdict, and the envelopes.
-func join(site *Site, nominal []Point2, total, seed int, parts []Part, opt Options) (*Report, error) {
+// figures over them, the verdict, the envelopes and the vertical section.
+func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 	var runs []RunPart
 	parts = append([]Part(nil), parts...)
 	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
@@ -267,39 +325,59 @@ func join(site *Site, nominal []Point2, total, seed int, parts []Part, opt Optio
 	if len(runs) == 0 {
 		return nil, errors.New("clearance: no runs to join")
 	}
-	near := make([][]RunNear, len(runs))
+	near := make([][]Closest, len(runs))
 	strays := make([]float64, len(runs))
 	for i, r := range runs {
-		if len(r.Near) != len(site.Obstacles) {
+		if len(r.Near) != len(c.site.Obstacles) {
 			return nil, errors.New("clearance: a run's obstacles are not the site's")
 		}
-		near[i], strays[i] = r.Near, r.StrayM
+		near[i] = make([]Closest, len(r.Near))
+		for k, n := range r.Near {
+			near[i][k] = n.closest()
+		}
+		strays[i] = r.StrayM
 	}
-	reps := site.summarise(near)
-	rep := &Report{Runs: len(runs), Seed: seed, MarginM: site.MarginM, Obstacles: reps, Nominal: nominal}
-	rep.Clears, rep.Words = Verdict(reps, site.MarginM)
-	for _, e := range []struct {
+	site := c.site
+	reps, where := site.summarise(near)
+	rep := &Report{Runs: len(runs), Seed: seed, MarginM: site.MarginM, Obstacles: reps,
+		Outline: OutlineBall, LoadRadiusM: c.radiusM, Nominal: c.plan.Points}
+	if c.nominal.Rigid() {
+		rep.Outline = OutlineBox
+	}
+	var envs [2]*Envelope
+	for k, e := range []struct {
 		level, conf float64
 		out         *EnvelopeOut
 	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
-		order, k := keep(strays, e.level, e.conf)
+		order, n := keep(strays, e.level, e.conf)
 		var spans []cellSpan
-		for _, i := range order[:k] {
-			c, err := decodeCells(runs[i].Cells)
+		for _, i := range order[:n] {
+			cs, err := decodeCells(runs[i].Cells)
 			if err != nil {
 				return nil, err
 			}
-			spans = append(spans, c...)
+			spans = append(spans, cs...)
 		}
-		out, err := unionSpans(spans, opt.CellM)
+		out, err := unionSpans(spans, c.opt.CellM)
 		if err != nil {
 			return nil, err
 		}
-		out.Level, out.Inside, out.StrayM = e.level, k, strays[order[k-1]]
-		out.Confidence = CoverageConfidence(k, len(runs), e.level)
+		out.Level, out.Inside, out.StrayM = e.level, n, strays[order[n-1]]
+		out.Confidence = CoverageConfidence(n, len(runs), e.level)
 		*e.out = out
+		envs[k] = &Envelope{Level: e.level, Runs: len(runs), Inside: n, StrayM: out.StrayM, Members: order[:n]}
 	}
-	rep.Assumptions = assumptions(opt)
+	ds, lows := map[int][]float64{}, map[int][]float64{}
+	for _, m := range envs[1].Members {
+		v := unpackFloats(runs[m].Section)
+		if len(v)%2 != 0 {
+			return nil, errors.New("clearance: a run's section is not whole")
+		}
+		ds[m], lows[m] = v[:len(v)/2], v[len(v)/2:]
+	}
+	rep.Section = sectionFrom(site, &c.nominal, c.track, ds, lows, envs[0], envs[1], rep.Obstacles, where)
+	rep.Clears, rep.Words = Verdict(rep.Obstacles, site.MarginM)
+	rep.Assumptions = assumptions(rep.Outline, c.opt)
 	return rep, nil
 }
 

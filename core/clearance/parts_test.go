@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"swaysheet/core/internal/testscenario"
+	"swaysheet/core/scenario"
 )
 
 func TestPartsJoinToTheSingleCall(t *testing.T) {
@@ -71,13 +72,46 @@ func TestEnvelopeCellsAreTheLattice(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	cells, _ := decodeCells(runCells(r, 0.1))
-	far, _ := decodeCells(runCells(lone, 0.1))
+	cells, _ := decodeCells(runCells(&r, 0.1))
+	far, _ := decodeCells(runCells(&lone, 0.1))
 	out, err := unionSpans(append(cells, far...), 0.1)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if !reflect.DeepEqual(out.Spans, e.Spans()) || out.AreaM2 != e.AreaM2() {
 		t.Errorf("own grid: %d spans, %g m²; shared: %d spans, %g m²", len(out.Spans), out.AreaM2, len(e.Spans()), e.AreaM2())
+	}
+}
+
+func TestPartsJoinRigidLoad(t *testing.T) {
+	// A rigid load's box: its outlines swept onto the lattice, its lowest
+	// corner in the section; parts joined as one call.
+	s := testscenario.Example(t, "bay-girder-rigid")
+	h, r := 12.0, 0.0
+	top := 3.0
+	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
+		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
+			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
+		Spread: &scenario.SiteSpread{Runs: 6, Seed: 3, RopeLengthM: 0.2}}
+	one, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var parts []Part
+	for _, rg := range [][2]int{{4, 6}, {0, 4}} {
+		p, err := CheckPart(s, rg[0], rg[1], Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		parts = append(parts, *p)
+	}
+	joined, err := CheckJoin(s, parts, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := json.Marshal(one)
+	b, _ := json.Marshal(joined)
+	if one.Outline != OutlineBox || string(a) != string(b) {
+		t.Errorf("rigid load: outline %q; joined parts equal the single call: %v", one.Outline, string(a) == string(b))
 	}
 }

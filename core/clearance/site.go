@@ -22,28 +22,6 @@ type Site struct {
 	LoadRadiusM float64
 }
 
-// Run is one simulated run: the load's centre relative to the suspension
-// point and the suspension point on the ground frame, sampled in time
-// (sway.History's fields).
-type Run struct {
-	TimeS                      []float64
-	RelXM, RelYM, RelZM        []float64
-	SuspensionXM, SuspensionYM []float64
-}
-
-// Path is the load's centre on the ground frame, z up from the floor.
-func (r *Run) Path(suspensionHeightM float64) []Sample {
-	out := make([]Sample, len(r.TimeS))
-	for i, t := range r.TimeS {
-		out[i] = Sample{TimeS: t, At: Point3{
-			r.SuspensionXM[i] + r.RelXM[i],
-			r.SuspensionYM[i] + r.RelYM[i],
-			suspensionHeightM + r.RelZM[i],
-		}}
-	}
-	return out
-}
-
 // ObstacleReport is how a set of runs passes one obstacle.
 type ObstacleReport struct {
 	Name string `json:"name"`
@@ -65,6 +43,15 @@ type ObstacleReport struct {
 	SmallestM    float64 `json:"smallest_m"`
 	SmallestAtS  float64 `json:"smallest_at_s"`
 	SmallestAt   Point3  `json:"smallest_at"`
+	// SmallestAtDistanceM is where that is along the crane's path, and
+	// FirstStrikeAtDistanceM where the earliest strike is: the distance
+	// of the load's centre (see Section; a long load's end reaches an
+	// obstacle well before its centre does).
+	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
+	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
+	// Vertical is the gap below the load while it passes over the
+	// obstacle; nil when no run passes over it.
+	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
 }
@@ -76,38 +63,65 @@ const Required = 0.95
 // Check passes every run by every obstacle. The points checked along each
 // path are at most stepM apart. It is an error to give no runs or a
 // site whose obstacles are not valid (each error names the obstacle).
+// Distances along the crane's path are left at zero (Evaluate fills them
+// in).
 func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
+	reps, _, err := s.check(runs, stepM)
+	return reps, err
+}
+
+// check is Check, with where each obstacle's report found its smallest
+// clearance, first strike and smallest gap (for their distances along
+// the path).
+func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, error) {
 	if len(runs) == 0 {
-		return nil, errors.New("clearance: no runs to check")
+		return nil, nil, errors.New("clearance: no runs to check")
 	}
 	for i := range s.Obstacles {
 		if err := s.Obstacles[i].Validate(); err != nil {
-			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
+			return nil, nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
 		}
 	}
-	near := make([][]RunNear, len(runs))
+	near := make([][]Closest, len(runs))
 	for i := range runs {
-		near[i] = s.checkRun(runs[i].Path(s.SuspensionHeightM), stepM)
+		near[i] = s.checkRun(&runs[i], stepM)
 	}
-	return s.summarise(near), nil
+	reps, where := s.summarise(near)
+	return reps, where, nil
 }
 
-// checkRun is one run's closest approach to each obstacle.
-func (s *Site) checkRun(path []Sample, stepM float64) []RunNear {
-	out := make([]RunNear, len(s.Obstacles))
+// checkRun is one run's Closest to each obstacle: a rigid load's box, or
+// the ball about the load's centre.
+func (s *Site) checkRun(r *Run, stepM float64) []Closest {
+	out := make([]Closest, len(s.Obstacles))
+	var path []Sample
+	var boxes []BoxSample
+	if r.Rigid() {
+		boxes = r.Boxes(s.SuspensionHeightM)
+	} else {
+		path = r.Path(s.SuspensionHeightM)
+	}
 	for k := range s.Obstacles {
-		out[k] = nearOf(s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM))
+		if boxes != nil {
+			out[k] = s.Obstacles[k].AlongBoxPath(boxes, stepM)
+		} else {
+			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
+		}
 	}
 	return out
 }
 
 // summarise gives each obstacle's figures over the runs from each run's
-// closest approach (near[run][obstacle]), the runs taken in order.
-func (s *Site) summarise(near [][]RunNear) []ObstacleReport {
+// Closest (near[run][obstacle]), the runs taken in order, with where each
+// obstacle's smallest clearance, first strike and smallest gap are.
+func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 	out := make([]ObstacleReport, len(s.Obstacles))
+	where := make([]Closest, len(s.Obstacles))
 	for k := range s.Obstacles {
 		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), SmallestM: math.Inf(1)}
+		w := Closest{GapM: math.Inf(1)}
 		smallest := make([]float64, len(near))
+		var gaps []float64
 		for i := range near {
 			c := near[i][k]
 			smallest[i] = c.ClearanceM
@@ -116,12 +130,18 @@ func (s *Site) summarise(near [][]RunNear) []ObstacleReport {
 			}
 			if c.Strikes {
 				if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
-					rep.FirstStrikeS = c.FirstStrikeS
+					rep.FirstStrikeS, w.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
 				}
 				rep.Strikes++
 			}
 			if c.ClearanceM < rep.SmallestM {
 				rep.SmallestM, rep.SmallestAtS, rep.SmallestAt = c.ClearanceM, c.TimeS, c.At
+			}
+			if !math.IsInf(c.GapM, 1) {
+				gaps = append(gaps, c.GapM)
+				if c.GapM < w.GapM {
+					w.GapM, w.GapAtS, w.GapAt = c.GapM, c.GapAtS, c.GapAt
+				}
 			}
 			rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
 		}
@@ -129,9 +149,15 @@ func (s *Site) summarise(near [][]RunNear) []ObstacleReport {
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
-		out[k] = rep
+		if len(gaps) > 0 {
+			sort.Float64s(gaps)
+			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
+				P5M: gaps[nearestRank(0.05, len(gaps))]}
+		}
+		w.At = rep.SmallestAt
+		out[k], where[k] = rep, w
 	}
-	return out
+	return out, where
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the
@@ -154,7 +180,7 @@ func Verdict(reports []ObstacleReport, marginM float64) (ok bool, words []string
 		w := fmt.Sprintf("%s: the load keeps %.2f m from it in %d of %d runs (%.0f %%; %.0f %% needed)",
 			r.Name, marginM, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
 		if r.Strikes > 0 {
-			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move", r.Strikes, r.FirstStrikeS)
+			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move, %.1f m along the path", r.Strikes, r.FirstStrikeS, r.FirstStrikeAtDistanceM)
 		}
 		words = append(words, w+".")
 	}

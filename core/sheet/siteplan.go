@@ -52,7 +52,7 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 			keeps += fmt.Sprintf("; strikes in %d, first %s s", o.Strikes, Num(o.FirstStrikeS, 3))
 		}
 		v.Rows = append(v.Rows, []string{o.Name, top, keeps, length(o.ClearanceP5M),
-			length(o.SmallestM) + " at " + Num(o.SmallestAtS, 3) + " s"})
+			length(o.SmallestM) + " at " + Num(o.SmallestAtS, 3) + " s, " + length(o.SmallestAtDistanceM) + " along"})
 	}
 	e := rep.Envelope95
 	v.Spread = fmt.Sprintf("%d runs, seed %d; margin %s. The exclusion zone holds %d of the runs: %.0f %% sure to hold 95 %% of all runs.",

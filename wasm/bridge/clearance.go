@@ -5,6 +5,7 @@ import (
 	"sync"
 
 	"swaysheet/core/clearance"
+	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 )
 
@@ -12,25 +13,104 @@ import (
 // table in bridge.go stays as it is.
 func init() {
 	Calls["clearance"] = checkClearance
+	Calls["site_plan"] = planSite
+	Calls["clearance_figures"] = clearanceFigures
 	Calls["clearance_part"] = clearancePart
 	Calls["clearance_join"] = clearanceJoin
 }
+
+// kept is the last clearance check with its scenario's fingerprint: the
+// page asks for the check, then for its figures in the units shown.
+var kept struct {
+	sync.Mutex
+	fp  string
+	rep *clearance.Report
+}
+
+// checked is the clearance check of s, from kept when it holds s's.
+func checked(s *scenario.Scenario) (*clearance.Report, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	kept.Lock()
+	if kept.fp == fp {
+		r := kept.rep
+		kept.Unlock()
+		return r, nil
+	}
+	kept.Unlock()
+	r, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		return nil, err
+	}
+	kept.Lock()
+	kept.fp, kept.rep = fp, r
+	kept.Unlock()
+	return r, nil
+}
+
+// clearanceFigures presents the scenario's clearance check (the last
+// one when it is of the same scenario; computed otherwise): input as the
+// figures call's ({"scenario", "units", "system"}), the result
+// figures.ClearanceReport JSON (the check's rows and each obstacle's,
+// converted and rounded as the figures call's rows).
+func clearanceFigures(_ *Env, input []byte) (any, error) {
+	var in ShownInput
+	s, err := in.read(input, &in)
+	if err != nil {
+		return nil, err
+	}
+	if s.Site == nil {
+		return nil, noSite
+	}
+	r, err := checked(s)
+	if err != nil {
+		return nil, err
+	}
+	return figures.PresentClearance(r, in.choice()), nil
+}
+
+var noSite = scenario.Errors{{Field: "site", Message: "the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances"}}
 
 // checkClearance runs the clearance check of the scenario's site block:
 // input is the scenario JSON, the result the clearance.Report JSON
 // (verdict, each obstacle, the 50 % and 95 % envelopes as cell spans).
 // A scenario without a site block gets a field error at "site".
 func checkClearance(_ *Env, input []byte) (any, error) {
-	s, err := siteScenario(input)
+	s, err := scenario.Parse(input)
 	if err != nil {
 		return nil, err
 	}
-	rep, err := clearance.Check(s, clearance.Options{})
+	if s.Site == nil {
+		return nil, noSite
+	}
+	return checked(s)
+}
+
+// planSite checks a plan's options against the scenario's site block:
+// input is the scenario JSON with both a plan and a site block, the result
+// the clearance.SitePlan JSON (the fastest option that keeps the margin in
+// 95 % of runs, by its index in the plan call's options, and the largest
+// top speed that does). The plan is the plan call's own (the bridge keeps
+// the last one by fingerprint, so asking after "plan" plans nothing
+// again). A missing block is a field error at "site" or "plan".
+func planSite(_ *Env, input []byte) (any, error) {
+	s, err := scenario.Parse(input)
 	if err != nil {
 		return nil, err
 	}
-	keepClearance(s, rep)
-	return rep, nil
+	if s.Site == nil {
+		return nil, noSite
+	}
+	if s.Plan == nil {
+		return nil, scenario.Errors{{Field: "plan", Message: "the scenario has no plan block: add the move to plan (see plan-site-bay-columns)"}}
+	}
+	res, err := planned(s)
+	if err != nil {
+		return nil, err
+	}
+	return clearance.PlanSite(s, res, clearance.Options{})
 }
 
 // PartInput is the input of "clearance_part": the scenario and the runs
@@ -64,7 +144,7 @@ type JoinInput struct {
 
 // clearanceJoin joins parts into the report over their runs: with every
 // run of the check, the report of the "clearance" call, exactly, and kept
-// for the check sheet.
+// (for the check sheet and clearance_figures).
 func clearanceJoin(_ *Env, input []byte) (any, error) {
 	var in JoinInput
 	if err := json.Unmarshal(input, &in); err != nil {
@@ -79,7 +159,11 @@ func clearanceJoin(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	if sp, _ := clearance.SpecOf(s); rep.Runs == sp.Runs {
-		keepClearance(s, rep)
+		if fp, err := key(s); err == nil {
+			kept.Lock()
+			kept.fp, kept.rep = fp, rep
+			kept.Unlock()
+		}
 	}
 	return rep, nil
 }
@@ -90,39 +174,22 @@ func siteScenario(input []byte) (*scenario.Scenario, error) {
 		return nil, err
 	}
 	if s.Site == nil {
-		return nil, scenario.Errors{{Field: "site", Message: "the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances"}}
+		return nil, noSite
 	}
 	return s, nil
 }
 
-// lastClearance is the last complete clearance report, by the scenario's
-// fingerprint (key): the check sheet prints it and never runs the check.
-var lastClearance struct {
-	mu  sync.Mutex
-	fp  string
-	rep *clearance.Report
-}
-
-func keepClearance(s *scenario.Scenario, rep *clearance.Report) {
-	fp, err := key(s)
-	if err != nil {
-		return
-	}
-	lastClearance.mu.Lock()
-	lastClearance.fp, lastClearance.rep = fp, rep
-	lastClearance.mu.Unlock()
-}
-
-// keptClearance is the clearance report of s when the bridge holds it.
+// keptClearance is the clearance check of s when the bridge keeps it
+// (nil otherwise): the check sheet prints it and never runs the check.
 func keptClearance(s *scenario.Scenario) *clearance.Report {
 	fp, err := key(s)
 	if err != nil {
 		return nil
 	}
-	lastClearance.mu.Lock()
-	defer lastClearance.mu.Unlock()
-	if lastClearance.fp == fp {
-		return lastClearance.rep
+	kept.Lock()
+	defer kept.Unlock()
+	if kept.fp == fp {
+		return kept.rep
 	}
 	return nil
 }

@@ -101,10 +101,11 @@ func TestSitePlan(t *testing.T) {
 		t.Errorf("%d obstacles drawn", n)
 	}
 	labels := strings.Join(h.texts("#site-svg text.ob-label"), "|")
-	for _, w := range []string{"column C2, top 8 m", "panel stack, top 2.2 m"} {
-		if !strings.Contains(labels, w) {
-			t.Errorf("labels %q lack %q", labels, w)
-		}
+	if strings.Count(labels, "top 8 m") != 3 || !strings.Contains(labels, "top 2.2 m") {
+		t.Errorf("labels %q lack the tops", labels)
+	}
+	if cards := strings.Join(h.texts("#site-form legend"), "|"); !strings.Contains(cards, "Obstacle 1: column C2") || !strings.Contains(cards, "Obstacle 4: panel stack") {
+		t.Errorf("obstacle cards: %q", cards)
 	}
 	for _, e := range []struct {
 		cls  string

@@ -41,7 +41,7 @@ export function makeView(site, rep, paths, width) {
   if (!isFinite(lo[0])) { lo = [-5, -5]; hi = [5, 5]; }
   var pad = Math.max(hi[0] - lo[0], hi[1] - lo[1]) * 0.06 + 0.5;
   lo = [lo[0] - pad, lo[1] - pad]; hi = [hi[0] + pad, hi[1] + pad];
-  var left = 44, bottom = 34, top = 8, right = 8;
+  var left = 50, bottom = 34, top = 8, right = 8;
   var pw = Math.max(width - left - right, 120), k = pw / (hi[0] - lo[0]);
   var ph = (hi[1] - lo[1]) * k, maxH = Math.max(260, Math.min(window.innerHeight * 0.7, 640));
   if (ph > maxH) { ph = maxH; k = ph / (hi[1] - lo[1]); }
@@ -97,6 +97,8 @@ export function planSVG(v, site, rep, paths, sel) {
       '<text x="' + (v.left - 4) + '" y="' + (Number(y) + 4) + '" text-anchor="end">' + esc(fmtRes(t)) + '</text>');
   });
   h.push('<text x="' + (v.left + v.pw / 2).toFixed(1) + '" y="' + (v.height - 4).toFixed(1) + '" text-anchor="middle">x (' + esc(L) + ')</text>');
+  var my = (v.top + v.ph / 2).toFixed(1);
+  h.push('<text x="12" y="' + my + '" text-anchor="middle" transform="rotate(-90 12 ' + my + ')">y (' + esc(L) + ')</text>');
   if (rep) {
     h.push('<path class="env95" d="' + spansPath(v, rep.envelope_95.spans) + '"/>');
     h.push('<path class="env50" d="' + spansPath(v, rep.envelope_50.spans) + '"/>');
@@ -106,14 +108,20 @@ export function planSVG(v, site, rep, paths, sel) {
   (site.obstacles || []).forEach(function (o, i) {
     var pts = outlineOf(o), d = pts.map(function (p, j) { return (j ? 'L' : 'M') + v.px(p[0]).toFixed(1) + ' ' + v.py(p[1]).toFixed(1); }).join('') + 'z';
     if (margin > 0) h.push('<path class="margin" d="' + d + '" stroke-width="' + (2 * margin * v.k).toFixed(1) + '"/>');
+    // The touch target: the outline and a band 24 px wide around it.
+    h.push('<path class="ob-hit" d="' + d + '" stroke-width="' + 2 * HIT + '" data-ob="' + i + '"/>');
     h.push('<path class="obstacle' + (i === sel ? ' selected' : '') + '" d="' + d + '" data-ob="' + i + '"><title>' + esc(o.name || 'obstacle ' + (i + 1)) + '</title></path>');
   });
+  // Names with the tops when there is room; else the tops alone (the
+  // names are on the obstacles' cards below and on the one selected).
+  var roomy = v.pw / Math.max(1, (site.obstacles || []).length) > 170;
   (site.obstacles || []).forEach(function (o, i) {
     var pts = outlineOf(o), cx = 0, ty = -Infinity;
     pts.forEach(function (p) { cx += p[0] / pts.length; ty = Math.max(ty, p[1]); });
     var top = typeof o.top_m === 'number' ? ', top ' + fmtRes(toShown('length', o.top_m)) + ' ' + L : '';
+    var name = roomy || i === sel ? (o.name || 'obstacle ' + (i + 1)) + top : top.replace(/^, /, '');
     h.push('<text class="ob-label" x="' + v.px(cx).toFixed(1) + '" y="' + Math.max(v.py(ty) - 6, 12).toFixed(1) + '" text-anchor="middle">' +
-      esc((o.name || 'obstacle ' + (i + 1)) + top) + '</text>');
+      esc(name) + '</text>');
   });
   if (sel >= 0 && site.obstacles && site.obstacles[sel]) {
     outlineOf(site.obstacles[sel]).forEach(function (p, j) {
