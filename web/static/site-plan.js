@@ -165,3 +165,52 @@ export function dragEdit(o, handle, a, b) {
 
 // r2 keeps a dragged position to the centimetre.
 function r2(v) { return Math.round(v * 100) / 100; }
+
+// sectionSVG draws the core's vertical section along the crane's path
+// (report.section): the bands the load's lowest point stays in (95 %
+// hatched, 50 % grey), its path with no spread (solid) and the hook's
+// (dashed), and the obstacles passed with their tops, distances along the
+// path across, heights up, in the length unit shown.
+export function sectionSVG(sec, width) {
+  if (!sec || !sec.nominal || !sec.nominal.length) return '';
+  var f = unitOf('length').to_si, L = unitOf('length').symbol;
+  var d0 = Infinity, d1 = -Infinity, z1 = sec.suspension_height_m || 0;
+  function grow(d) { if (isFinite(d)) { d0 = Math.min(d0, d); d1 = Math.max(d1, d); } }
+  sec.nominal.forEach(function (p) { grow(p.distance_m); });
+  [sec.envelope_95, sec.envelope_50].forEach(function (b) { b.distance_m.forEach(function (d) { grow(d); grow(d + b.bin_m); }); });
+  (sec.obstacles || []).forEach(function (o) { grow(o.from_m); grow(o.to_m); z1 = Math.max(z1, o.top_m); });
+  if (!(d1 > d0)) d1 = d0 + 1;
+  var left = 50, right = 8, top = 8, bottom = 34, pw = Math.max(width - left - right, 120), ph = 150;
+  var kx = pw / (d1 - d0), ky = ph / (z1 * 1.05);
+  function px(d) { return (left + (d - d0) * kx).toFixed(1); }
+  function py(z) { return (top + ph - z * ky).toFixed(1); }
+  var h = ['<svg id="site-section" class="site-svg" width="' + (left + pw + right).toFixed(0) + '" height="' + (top + ph + bottom) + '" viewBox="0 0 ' +
+    (left + pw + right).toFixed(1) + ' ' + (top + ph + bottom) + '" role="img" aria-label="Vertical section along the crane\u2019s path">'];
+  h.push('<rect x="' + left + '" y="' + top + '" width="' + pw.toFixed(1) + '" height="' + ph + '" class="frame"/>');
+  planTicks(d0 / f, d1 / f, Math.max(3, Math.floor(pw / 70))).forEach(function (t) {
+    h.push('<text x="' + px(t * f) + '" y="' + (top + ph + 14) + '" text-anchor="middle">' + esc(fmtRes(t)) + '</text>');
+  });
+  planTicks(0, z1 * 1.05 / f, 4).forEach(function (t) {
+    h.push('<line x1="' + left + '" x2="' + (left + pw).toFixed(1) + '" y1="' + py(t * f) + '" y2="' + py(t * f) + '" class="grid"/>' +
+      '<text x="' + (left - 4) + '" y="' + (Number(py(t * f)) + 4) + '" text-anchor="end">' + esc(fmtRes(t)) + '</text>');
+  });
+  h.push('<text x="' + (left + pw / 2).toFixed(1) + '" y="' + (top + ph + bottom - 4) + '" text-anchor="middle">along the path (' + esc(L) + ')</text>');
+  h.push('<text x="12" y="' + (top + ph / 2) + '" text-anchor="middle" transform="rotate(-90 12 ' + (top + ph / 2) + ')">height (' + esc(L) + ')</text>');
+  [[sec.envelope_95, 'env95'], [sec.envelope_50, 'env50']].forEach(function (e) {
+    var b = e[0], d = '';
+    for (var i = 0; i < b.distance_m.length; i++) {
+      d += 'M' + px(b.distance_m[i]) + ' ' + py(b.high_m[i]) + 'H' + px(b.distance_m[i] + b.bin_m) + 'V' + py(b.low_m[i]) + 'H' + px(b.distance_m[i]) + 'z';
+    }
+    h.push('<path class="' + e[1] + '" d="' + d + '"/>');
+  });
+  (sec.obstacles || []).forEach(function (o) {
+    h.push('<rect class="obstacle-side" x="' + px(o.from_m) + '" y="' + py(o.top_m) + '" width="' + Math.max((o.to_m - o.from_m) * kx, 2).toFixed(1) +
+      '" height="' + (o.top_m * ky).toFixed(1) + '"><title>' + esc(o.name) + '</title></rect>');
+  });
+  ['low_m', 'hook_m'].forEach(function (k) {
+    var d = sec.nominal.map(function (p, i) { return (i ? 'L' : 'M') + px(p.distance_m) + ' ' + py(p[k]); }).join('');
+    h.push('<path class="' + (k === 'low_m' ? 'load-path' : 'crane-path') + '" d="' + d + '"/>');
+  });
+  h.push('</svg>');
+  return h.join('');
+}

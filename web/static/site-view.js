@@ -11,7 +11,7 @@ import { call } from './engine.js';
 import { numField, section, textField } from './fields.js';
 import { bindOne, clearBad, showErrors } from './form.js';
 import { changed } from './compute.js';
-import { dragEdit, makeView, planSVG } from './site-plan.js';
+import { dragEdit, makeView, planSVG, sectionSVG } from './site-plan.js';
 import { cancelRuns, poolSize, runSplit, runsGoing } from './site-runs.js';
 import { S, setPath } from './state.js';
 
@@ -126,6 +126,15 @@ function drawPlan(keepView) {
     'Grey: where it stays in half the runs. Solid line: the load with no spread; dashed: the crane (suspension point). ' +
     'Black: obstacles with their top heights, ringed by the margin. Drag an obstacle to move it, its round handles to resize it.' +
     (rep && stale() ? ' The envelopes are for earlier inputs.' : '') + '</figcaption>';
+  var sec = $('site-section-fig');
+  if (sec) {
+    sec.hidden = !(rep && rep.section);
+    if (rep && rep.section && !C.drag) {
+      sec.innerHTML = sectionSVG(rep.section, Math.max(fig.clientWidth - 4, 280)) +
+        '<figcaption>Seen from the side along the crane\u2019s path: the band the load\u2019s lowest point stays in (hatched: 95 % of runs; grey: half), ' +
+        'the load\u2019s lowest point with no spread (solid) and the hook (dashed), and the obstacles it passes with their tops (black).</figcaption>';
+    }
+  }
 }
 
 function fieldsHTML(st) {
@@ -177,7 +186,8 @@ export function renderSite() {
     out.innerHTML = '<div class="site-tools"><button type="button" id="site-add-obstacle">Add an obstacle</button>' +
       '<button type="button" id="clearance-run" class="small-btn">Run the clearance check again</button></div>' +
       '<p id="clearance-msg" class="clearance-msg" role="status"></p>' +
-      '<figure id="site-plan" class="site-plan"></figure><form id="site-form" novalidate autocomplete="off"></form>';
+      '<figure id="site-plan" class="site-plan"></figure><figure id="site-section-fig" class="site-plan" hidden></figure>' +
+      '<form id="site-form" novalidate autocomplete="off"></form>';
     bindOne($('site-form'));
     bindSitePlan();
     C.fieldsKey = null;
