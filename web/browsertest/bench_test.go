@@ -43,7 +43,7 @@ func TestBenchPage(t *testing.T) {
 	if out == "" {
 		t.Skip("page benchmark runs with SWAYSHEET_BENCH_OUT=FILE (make bench)")
 	}
-	h := setup(t)
+	h := setupFor(t, 15*time.Minute)
 	var colds []float64
 	for range 5 {
 		if _, err := chromedp.Call(h.ctx, page.AddScriptToEvaluateOnNewDocument,
@@ -104,7 +104,7 @@ func TestBenchPage(t *testing.T) {
 // bay site example split over the page's workers: from the start of the
 // runs to the joined report of every run (median of 3).
 func benchClearance(t *testing.T, h *harness) map[string]any {
-	h.openExample("column line")
+	h.openExample("machine frame past the column line")
 	h.siteSettled()
 	sc := h.scenario()
 	sc["site"].(map[string]any)["spread"].(map[string]any)["runs"] = 1000

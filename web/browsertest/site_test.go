@@ -79,7 +79,7 @@ func (h *harness) touchDrag(sel string, dx, dy float64) {
 // runs cancelled midway; the section at a phone and a tablet either way up.
 func TestSitePlan(t *testing.T) {
 	h := setupFor(t, 10*time.Minute)
-	h.openExample("column line")
+	h.openExample("machine frame past the column line")
 	h.siteSettled()
 
 	rep := h.pageReport()
@@ -246,7 +246,7 @@ func TestSitePlan(t *testing.T) {
 // the envelope is refined as the parts arrive.
 func TestClearanceSplitEqualsSingle(t *testing.T) {
 	h := setup(t)
-	h.openExample("column line")
+	h.openExample("machine frame past the column line")
 	h.siteSettled()
 	sc := h.scenario()
 	sc["site"].(map[string]any)["spread"].(map[string]any)["runs"] = 60

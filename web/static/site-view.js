@@ -71,6 +71,10 @@ function startRuns(force) {
   });
 }
 
+// siteRunPending: the last result has a site block whose runs have not
+// started yet.
+function siteRunPending() { return !!S.resultSent && !!JSON.parse(S.resultSent).site && siteKey(S.resultSent) !== C.started; }
+
 function stale() { return !!C.report && C.reportFor !== (S.resultSent && siteKey(S.resultSent)); }
 
 function showRunsProgress() {
@@ -270,9 +274,13 @@ document.addEventListener('click', function (e) {
   }
 });
 
+// The runs start a moment after a result, so typing on does not start
+// (and end) them at every key.
+let siteRunTimer = null;
 document.addEventListener('swaysheet:result', function () {
   renderSite();
-  startRuns(false);
+  clearTimeout(siteRunTimer);
+  siteRunTimer = setTimeout(function () { startRuns(false); }, 300);
 });
 
 let siteResize = null;
@@ -286,7 +294,7 @@ window.addEventListener('resize', function () {
 window.swaysheetSite = {
   report: function () { return C.report; },
   state: function () { return { going: C.going || runsGoing(), done: C.done, total: C.total, error: C.error, stale: stale(), sel: C.sel }; },
-  settled: function () { return !C.going && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
+  settled: function () { return !C.going && !siteRunPending() && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
   single: function (sent) { return call('clearance', sent); },
   split: function (sent, n, workers, on) { return runSplit(sent, n, on || function () {}, workers); },
   poolSize: poolSize,
