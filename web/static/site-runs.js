@@ -86,11 +86,16 @@ export function runSplit(sent, n, on, workers) {
       failed = r;
       resolve(r);
     }
-    // join asks the engine's worker for the report of the parts so far;
-    // one join at a time, the last one over every part.
+    // join asks the engine's worker for the report of the parts so far:
+    // one join at a time, a refinement only when a quarter of the runs
+    // more are in (each join reads every part again), the last one over
+    // every part.
+    var joinedRuns = 0;
     function join() {
       if (joining || job !== jobSeq || failed) return;
       if (parts.length === joinedCount) return;
+      if (done < n && done - joinedRuns < n / 4) return;
+      joinedRuns = done;
       joining = true;
       var count = parts.length, all = done === n;
       call('clearance_join', '{"scenario":' + sent + ',"parts":[' + parts.join(',') + ']}').then(function (r) {
