@@ -317,22 +317,14 @@ func bodyAssumptions() []string {
 // rope with the same period, L = g (T / (2 pi))^2, for a planner to tune a
 // drive setting or a shaper to. The other modes are in Result.Body.Modes.
 func RigidFirstMode(s *scenario.Scenario, ropeM float64) (periodS, effectiveLengthM float64, kind string, err error) {
-	if err := s.Validate(); err != nil {
+	b, err := NewRigidLoad(s)
+	if err != nil {
 		return 0, 0, "", err
-	}
-	if s.Load.Body == nil {
-		return 0, 0, "", scenario.Errors{{Field: "load.body", Message: "is required: the first mode of a rigid load"}}
 	}
 	if r := scenario.Ranges["load.rope_length_m"]; !(ropeM >= r.Min && ropeM <= r.Max) {
 		return 0, 0, "", scenario.Errors{{Field: "load.rope_length_m", Message: fmt.Sprintf("%g is out of range: %s", ropeM, r.Text())}}
 	}
-	still := func(float64) pendulum.Kinematics { return pendulum.Kinematics{} }
-	rope := func(float64) (float64, float64, float64) { return ropeM, 0, 0 }
-	r, _, err := rigidModel(s, still, rope, nil, nil)
-	if err != nil {
-		return 0, 0, "", err
-	}
-	modes, period, err := bodyModes(r, ropeM)
+	modes, period, err := bodyModes(b.r, ropeM)
 	if err != nil {
 		return 0, 0, "", err
 	}
