@@ -57,10 +57,7 @@ func (b *RigidLoad) Swing(ropeM float64, dir r3.Vec) (RigidSwing, error) {
 	if err != nil {
 		return RigidSwing{}, err
 	}
-	out := RigidSwing{DepthM: b.r.HookDepthM()}
-	if b.r.Spreader > 0 {
-		out.DepthM = b.r.SpreaderZ
-	}
+	out := RigidSwing{DepthM: b.DepthM()}
 	for _, m := range modes {
 		if m.Free {
 			continue
@@ -85,4 +82,14 @@ func (b *RigidLoad) FirstMode(ropeM float64) (periodS, effectiveLengthM float64,
 	}
 	w := 2 * math.Pi / p
 	return p, units.StandardGravity / (w * w), nil
+}
+
+// DepthM is the depth of the load's centre of mass below the hook hanging
+// still (with a spreader, below the parallel legs' lower ends: their
+// attach height above it).
+func (b *RigidLoad) DepthM() float64 {
+	if b.r.Spreader > 0 {
+		return b.r.SpreaderZ
+	}
+	return b.r.HookDepthM()
 }
