@@ -123,9 +123,9 @@ const pointPeriod = "sway period (small swing, 2π√(L/g))"
 func periodName(r *sway.Result) string {
 	switch {
 	case r.Body != nil:
-		return "sway period: first mode of the rigid load (small swing, modal analysis of the linearised model)"
+		return "first mode of the rigid load (small swing, modal analysis)"
 	case r.Rigging != nil:
-		return "sway period: first mode of hook block and rigging (small swing, linearised two-mass pendulum)"
+		return "first mode of hook block and rigging (small swing, two-mass pendulum)"
 	}
 	return pointPeriod
 }
@@ -135,7 +135,7 @@ func periodName(r *sway.Result) string {
 // first mode, an approximation.
 func amplitudeName(r *sway.Result) string {
 	if r.Body != nil || r.Rigging != nil {
-		return "first mode period at the residual swing's amplitude (one rope's correction 2K(k)/π applied to it: approximate)"
+		return "first mode at the residual swing's amplitude (one rope's 2K(k)/π: approximate)"
 	}
 	return "sway period at the residual swing's amplitude"
 }
@@ -146,7 +146,7 @@ func amplitudeName(r *sway.Result) string {
 func swingName(what string) func(r *sway.Result) string {
 	return func(r *sway.Result) string {
 		if r.Body != nil || r.Rigging != nil {
-			return what + " (angle from the vertical of the line from the suspension point to the load's centre of mass)"
+			return what + " (line to the load's centre of mass, from the vertical)"
 		}
 		if what == "peak swing" {
 			return "peak swing (rope angle from the vertical)"

@@ -300,7 +300,7 @@ func bodyAssumptions() []string {
 	out := []string{
 		"The load is a rigid box on slings that do not stretch: four legs are a rigid frame sharing the load by their stiffness; two legs let it roll about their attach line; a spreader's parallel legs hang from points fixed to the crane.",
 		"The rope length runs from the rope's upper point of rotation to the hook (with a spreader: to the load).",
-		"Wind and air drag act at the centre of the load's area facing the wind, which for the box (uniform, its centre of mass at its centre) is its centre of mass whatever the wind's direction: they push the load and it hangs along the resultant of wind and weight, but they give it no moment about its centre of mass to tilt or turn it; drag on its turning is left out.",
+		"Wind and drag act at the centre of the load's area, for a uniform box its centre of mass: no moment tilts or turns it.",
 	}
 	for _, a := range Assumptions {
 		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {
