@@ -143,7 +143,7 @@ func (rq *request) rigidNotes() []string {
 }
 
 // rigidAssumption is added to the assumptions for a rigid load.
-const rigidAssumption = "The load is a rigid body on its sling set: its modes and each mode's share of the swing are those of the linearised rigid-load model at each rope length (to the hook), every option is simulated with the rigid-load model, and the swing figures are of the line from the suspension point to the load's centre of mass."
+const rigidAssumption = "The load is a rigid body: its modes and their shares of the swing come from the linearised rigid-load model at each rope length, and every option is simulated with that model."
 
 // assumptions are the planner's for a hook block or a rigid load: the
 // design period is that load's first mode, not 2*pi*sqrt(L/g).
@@ -151,7 +151,7 @@ func (rq *request) assumptions() []string {
 	out := append([]string{}, Assumptions...)
 	for i, a := range out {
 		if a == Assumptions[2] {
-			out[i] = "Shapers and whole-period ramps are tuned to the middle of the range of the first mode's frequencies (" + map[bool]string{true: "the rigid load's, from the modal analysis of its linearised model", false: "the slower mode of the linearised two-mass pendulum"}[rq.body != nil] + "), not 2*pi*sqrt(L/g)."
+			out[i] = "Shapers and whole-period ramps are tuned to the middle of the range of the first mode's frequencies (" + map[bool]string{true: "the rigid load's", false: "of the two-mass pendulum"}[rq.body != nil] + "), not 2*pi*sqrt(L/g)."
 		}
 	}
 	if rq.body != nil {
