@@ -111,10 +111,16 @@ $('do-print').onclick = function () {
 
 $('cancel-calc').onclick = cancel;
 
+// "Use as my own": nothing of the example stays to print under the
+// user's lift: its name, description and example mark go (the sheet's
+// reference fields, typed by the user, stay).
 $('example-own').onclick = function () {
   delete S.scenario.example;
+  delete S.scenario.name;
+  delete S.scenario.description;
   renderForm();
   changed();
+  notice('The example\u2019s name and description are cleared: name this lift before printing.');
 };
 
 // For the browser tests and for people checking a figure: the current
@@ -136,7 +142,7 @@ window.swaysheet = {
   // answered is true when the core has answered for the inputs as they
   // are; settled (below) also waits for the check sheet.
   answered: function () {
-    return !S.waiting && !computing() && !S.adopting && !S.keeping && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
+    return !S.waiting && !computing() && !S.adopting && !S.keeping && !S.saying && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
   }
 };
 // settled: answered, and the check sheet is that of the last result.

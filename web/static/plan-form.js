@@ -8,7 +8,7 @@ import { numField, selectField } from './fields.js';
 import { clearBad, renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { ANGULAR, LINEAR, PLAN_AXES, S, getPath, setPath } from './state.js';
-import { fmtField, fmtRes, parseNumber, toShown, unitOf } from './units.js';
+import { fmtField, fmtStep, parseNumber, toShown, unitOf } from './units.js';
 
 export const P = {
   result: null,   // last plan.Result
@@ -45,11 +45,11 @@ export function planKey(sc) {
 
 // ------------------------------------------------------------ formatting
 
-export function num(dq, v) { return fmtRes(toShown(dq, v)); }
+export function num(dq, v) { return fmtStep(dq, toShown(dq, v)); }
 export function sym(dq) { return unitOf(dq).symbol; }
 export function withU(dq, v) { return num(dq, v) + '\u00A0' + sym(dq); }
-export function secs(v) { return fmtRes(v) + '\u00A0s'; }
-export function deg(v) { return fmtRes(v) + '\u00A0deg'; }
+export function secs(v) { return fmtStep('time', v) + '\u00A0s'; }
+export function deg(v) { return fmtStep('angle', v) + '\u00A0deg'; }
 // siNote marks the planner's own sentences, which give figures in SI
 // units, when other units are shown.
 export function siNote() {
