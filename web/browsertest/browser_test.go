@@ -47,6 +47,19 @@ func fmtField(v float64) string {
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
+// fmtTyped is the page's format of an input converted into a unit the
+// SI view does not use: 4 significant digits, as a person types it.
+func fmtTyped(v float64) string { return fmtRes(v) }
+
+// shown is an SI value as the page and sheet show it in the unit of the
+// given symbol: converted and rounded to the unit's step, as the core
+// rounds figures for people (core/units.Round).
+func shown(q, symbol string, si float64) string {
+	u := units.Choice{Chosen: map[string]string{q: symbol}}.Unit(q)
+	_, t := units.Round(si/u.ToSI, u)
+	return t
+}
+
 type harness struct {
 	t        *testing.T
 	ctx      context.Context
@@ -308,10 +321,10 @@ func TestPage(t *testing.T) {
 		mo := s["motions"].([]any)[0].(map[string]any)
 		// Factors of NIST SP 811 appendix B, from core/units.
 		want := map[string]string{
-			"#f-load-mass_kg":             fmtField(load["mass_kg"].(float64) / units.Pound),
-			"#f-load-rope_length_m":       fmtField(load["rope_length_m"].(float64) / units.Foot),
-			"#f-motions-0-speed_m_per_s":  fmtField(mo["speed_m_per_s"].(float64) / (units.Foot / units.Minute)),
-			"#f-motions-0-accel_m_per_s2": fmtField(mo["accel_m_per_s2"].(float64) / units.Foot),
+			"#f-load-mass_kg":             fmtTyped(load["mass_kg"].(float64) / units.Pound),
+			"#f-load-rope_length_m":       fmtTyped(load["rope_length_m"].(float64) / units.Foot),
+			"#f-motions-0-speed_m_per_s":  fmtTyped(mo["speed_m_per_s"].(float64) / (units.Foot / units.Minute)),
+			"#f-motions-0-accel_m_per_s2": fmtTyped(mo["accel_m_per_s2"].(float64) / units.Foot),
 		}
 		for sel, w := range want {
 			if got := h.value(sel); got != w {

@@ -11,6 +11,7 @@ import { DEADLINES, call, cancel, engineError, startWorker } from './engine.js';
 import { bindForm, renderForm } from './form.js';
 import { bindPlan, planLoaded, renderPlan } from './plan-view.js';
 import { sheetCurrent } from './sheet.js';
+import { bindLibrary } from './library.js';
 import './offline.js';
 import { P } from './plan-form.js';
 import { renderAll, renderPlots, renderSys, updateBanner } from './results.js';
@@ -41,7 +42,7 @@ function demo() {
 
 function start() {
   startWorker();
-  bindForm(); bindSaved(); bindFiles(); bindShare(); bindExamples(); bindSys();
+  bindForm(); bindSaved(); bindFiles(); bindShare(); bindExamples(); bindLibrary(); bindSys();
   Promise.all([call('units'), call('ranges'), call('examples'), call('version')]).then(function (rs) {
     for (var i = 0; i < rs.length; i++) if (rs[i].error) { engineError(rs[i].error.message); return; }
     S.table = rs[0].result;

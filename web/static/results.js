@@ -8,7 +8,7 @@ import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { chart, fitWidth } from './plot.js';
 import { S } from './state.js';
-import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
+import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
 import { say } from './words.js';
 
 let figuresAsked = 0, figuresWaiting = false;
@@ -161,10 +161,13 @@ export function renderPlots() {
   });
   var lim = S.scenario.limits || {};
   var hl = [];
-  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtRes(lim.peak_swing_deg) + ' deg' });
+  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
+  // Plots of another move than the inputs' (the planner's recommended
+  // one) say so, as the figures above do.
+  var of = S.figures && S.figures.result_for ? 'Of ' + S.figures.result_for + '. ' : '';
   $('plot-angle').innerHTML = chart({ width: fitWidth($('plot-angle')), id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
-    '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
+    '<figcaption>' + esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
   $('plot-path').innerHTML = chart({ width: fitWidth($('plot-path')), id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
@@ -177,7 +180,7 @@ export function renderPlots() {
   var st = toShown('force', r.static_tension_n);
   $('plot-tension').innerHTML = chart({ width: fitWidth($('plot-tension')), id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
     series: [{ x: hs.time_s, y: scale('force', hs.tension_n), label: 'tension', cls: 's1' }], bands: bands,
-    hlines: [{ y: st, label: 'static ' + fmtRes(st) + ' ' + F }] }) +
+    hlines: [{ y: st, label: 'static ' + fmtStep('force', st) + ' ' + F }] }) +
     '<figcaption>Dashed line: the load\u2019s weight (static pull).</figcaption>';
 }
 
