@@ -13,7 +13,6 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"swaysheet/core/plan"
-	"swaysheet/core/units"
 )
 
 // fakeClock is the coach's time source in the test: now() and a
