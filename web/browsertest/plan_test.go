@@ -16,6 +16,7 @@ import (
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // openExample opens the example whose name contains part from the library.
@@ -24,6 +25,18 @@ func (h *harness) openExample(part string) {
 	h.do(chromedp.Click(chromedp.ID("open-examples")))
 	h.do(chromedp.Click(chromedp.Search(`//ul[@id='examples-list']//li[contains(., ` + strconv.Quote(part) + `)]//button`)))
 	h.settle()
+}
+
+// said is a planner's sentence as the core's "say" call puts it in the
+// page's units of the system (core/words).
+func said(t *testing.T, s plan.Sentence, system string) string {
+	t.Helper()
+	var w words.Sentence
+	b, _ := json.Marshal(s)
+	if err := json.Unmarshal(b, &w); err != nil {
+		t.Fatal(err)
+	}
+	return w.Format(units.Choice{System: system})
 }
 
 // planSettled waits until the page has a plan (count above before) and is
@@ -93,7 +106,7 @@ func TestPlanner(t *testing.T) {
 			t.Errorf("recommended %q, the core recommends %q", got, rec.Label)
 		}
 		// The reason in the core's words, without repeating the option's name.
-		if got, w := h.text("#plan-reason"), strings.TrimPrefix(want.Reason, "Recommended: "+rec.Label+" — "); got != w || !strings.HasPrefix(h.text("#plan-rec"), "★ Recommended: "+rec.Label) {
+		if got, w := h.text("#plan-reason"), strings.TrimPrefix(said(t, want.ReasonSentence, "si"), "Recommended: "+rec.Label+" — "); got != w || !strings.HasPrefix(h.text("#plan-rec"), "★ Recommended: "+rec.Label) {
 			t.Errorf("reason %q, the core's %q", got, want.Reason)
 		}
 		// Marked by word and by symbol, not by colour alone.
@@ -441,8 +454,8 @@ func TestPlanner(t *testing.T) {
 		if len(got) != len(w.Infeasible) {
 			t.Fatalf("infeasible messages %q, the core %q", got, w.Infeasible)
 		}
-		for i, m := range w.Infeasible {
-			if !strings.Contains(got[i], m) {
+		for i, m := range w.InfeasibleSentences {
+			if m := said(t, m, "si"); !strings.Contains(got[i], m) {
 				t.Errorf("message %d: %q, the core %q", i, got[i], m)
 			}
 		}

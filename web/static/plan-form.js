@@ -89,10 +89,13 @@ function defaultPlan(s) {
 }
 
 export function limitsLine(s) {
+  // The limits are inputs: shown as typed (fields' format), not rounded
+  // as results.
   var l = s.limits || {}, parts = [];
-  if (typeof l.peak_swing_deg === 'number') parts.push('peak swing ' + deg(l.peak_swing_deg));
-  if (typeof l.peak_excursion_m === 'number') parts.push('peak excursion ' + withU('length', l.peak_excursion_m));
-  if (typeof l.residual_swing_deg === 'number') parts.push('residual swing ' + deg(l.residual_swing_deg));
+  var typed = function (dq, v) { return fmtField(toShown(dq, v), dq) + '\u00A0' + sym(dq); };
+  if (typeof l.peak_swing_deg === 'number') parts.push('peak swing ' + fmtField(l.peak_swing_deg) + '\u00A0deg');
+  if (typeof l.peak_excursion_m === 'number') parts.push('peak excursion ' + typed('length', l.peak_excursion_m));
+  if (typeof l.residual_swing_deg === 'number') parts.push('residual swing ' + fmtField(l.residual_swing_deg) + '\u00A0deg');
   return '<p class="field wide plan-limits" id="plan-limits">Limits used: ' +
     (parts.length ? esc(parts.join(', ')) : 'none set yet') +
     ' \u2014 from <a href="#f-limits-peak_swing_deg">Limits from the lift plan</a>; a plan needs the residual swing and a peak swing or excursion.</p>';
