@@ -33,11 +33,7 @@ function runPlan() {
   renderPlan();
   // The plan, then its sentences in the units shown, before it is shown.
   Promise.all([call('plan', sent), keyed]).then(function (rs) {
-    var key = unitsKey();
-    return rs[0].error ? rs : planWords(rs[0].result).then(function (w) {
-      if (w) w.key = key;
-      return rs.concat([w]);
-    });
+    return rs[0].error ? rs : planWords(rs[0].result).then(function (w) { return rs.concat([w]); });
   }).then(function (rs) {
     var r = rs[0], key = rs[1];
     P.running = false;
@@ -144,7 +140,7 @@ export function renderPlan() {
   }
   if (w.notes && w.notes.length) out.push('<div class="plan-notes"><h3>Notes</h3>' + listHTML(w.notes, 'note-list', '\u2139') + note(w) + '</div>');
   if (r.options.length) {
-    out.push(planTable(r, w));
+    out.push(planTable(r));
     out.push('<h3 class="plan-h">Each option: crew settings and checked figures</h3>');
     r.options.forEach(function (o, i) { out.push(optionCard(r, o, i, w)); });
   }
@@ -210,7 +206,7 @@ function optionVerdict(o, short) {
     (which.length ? (short ? '<br>' : ': ') + '<span class="which">' + esc(which.join(', ')) + '</span>' : '');
 }
 
-function planTable(r, w) {
+function planTable(r) {
   var L = sym('length');
   var h = '<div class="table-wrap"><table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
     '<th scope="col">Option</th><th scope="col">Move (s)</th><th scope="col">Extra (s)</th>' +
