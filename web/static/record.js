@@ -11,9 +11,12 @@ import { adopt } from './scenarios.js';
 import { AXES, S } from './state.js';
 import { fmtStep } from './units.js';
 
-// isRecord: a file to read as a drive record rather than a scenario.
+// isRecord: a file to read as a drive record rather than a scenario: a
+// .csv file, or one of another name whose text starts with time_s.
 export function isRecord(name, text) {
-  return /\.csv$/i.test(name) || !/^\s*[{[]/.test(text);
+  if (/\.csv$/i.test(name)) return true;
+  if (/\.json$/i.test(name)) return false;
+  return /^\s*(#.*\n\s*)*"?time_s/.test(text);
 }
 
 // importRecord reads a drive record; axis '' lets the core take the one
