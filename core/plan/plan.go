@@ -163,7 +163,7 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 		res.ModesOf = rq.modesOf()
 		res.Assumptions = rq.assumptions()
 		for _, n := range rq.modeNotes() {
-			note(plain(n))
+			note(n)
 		}
 	}
 	if rq.drive == scenario.DrivePendant {

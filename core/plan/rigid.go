@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -117,27 +118,35 @@ func (rq *request) rigidModes(l float64) modeSet {
 	return ms
 }
 
-// rigidNotes describe the rigid load's modes for the plan's notes, with
-// the warning when the second carries enough of the swing.
-func (rq *request) rigidNotes() []string {
+// rigidNotes describe the rigid load's modes for the plan's notes, their
+// quantities marked, with the warning when the second carries enough of
+// the swing.
+func (rq *request) rigidNotes() []Sentence {
 	l := *rq.s.Load.RopeLengthM
 	ms := rq.modesAt(l)
 	point := 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
-	rope, ropes := "rope of %.4g m to the hook", "rope to the hook"
+	rope, ropes := "rope of {2} to the hook", "rope to the hook"
 	if rq.s.Load.Body.Spreader != nil {
-		rope, ropes = "parallel legs of %.4g m", "legs"
+		rope, ropes = "parallel legs of {2}", "legs"
 	}
-	out := []string{fmt.Sprintf("The load is a rigid body: the mode this move excites most (%s) has a period of %.3g s at the nominal "+rope+", where 2*pi*sqrt(L/g) of that length alone would give %.3g s. Shapers and whole-period ramps are tuned to %.3g s, the middle of that mode's frequencies over the rope lengths ("+ropes+" %s m).",
-		ms.kinds[0], 2*math.Pi/ms.omega[0], l, point, rq.designT, floats(rq.ropes))}
-	second := fmt.Sprintf("The next mode the move excites (%s, design period %.3g s) carries up to %.0f %% of the load's swing after a sudden start (linear modal analysis of the rigid load)",
-		ms.kinds[1], rq.designT2, 100*rq.share2)
+	qs := []Quantity{qTime(2 * math.Pi / ms.omega[0]), qTime(point), qLen(l).digits(4), qTime(rq.designT)}
+	list := make([]string, len(rq.ropes))
+	for i, r := range rq.ropes {
+		list[i] = fmt.Sprintf("{%d}", len(qs))
+		qs = append(qs, qLen(r).digits(4))
+	}
+	out := []Sentence{say(fmt.Sprintf("The load is a rigid body: the mode this move excites most (%s) has a period of {0} at the nominal "+rope+", where 2*pi*sqrt(L/g) of that length alone would give {1}. Shapers and whole-period ramps are tuned to {3}, the middle of that mode's frequencies over the rope lengths ("+ropes+" %s).",
+		ms.kinds[0], strings.Join(list, ", ")), qs...)}
+	second := fmt.Sprintf("The next mode the move excites (%s, design period {0}) carries up to %.0f %% of the load's swing after a sudden start (linear modal analysis of the rigid load)",
+		ms.kinds[1], 100*rq.share2)
+	t2 := qTime(rq.designT2)
 	switch {
 	case rq.twoMode():
-		out = append(out, fmt.Sprintf("Warning: %s, %.0f %% or more: options tuned to the first mode only leave it ringing. Two-mode shapers are offered and preferred; the simulation of the rigid load checks every option.", second, 100*sway.SecondModeWarnShare))
+		out = append(out, say(fmt.Sprintf("Warning: %s, %.0f %% or more: options tuned to the first mode only leave it ringing. Two-mode shapers are offered and preferred; the simulation of the rigid load checks every option.", second, 100*sway.SecondModeWarnShare), t2))
 	case rq.share2 >= MinSecondShare && rq.designT2 >= minSecondPeriodS:
-		out = append(out, second+": small; two-mode shapers are offered beside the others, and the simulation of the rigid load checks every option.")
+		out = append(out, say(second+": small; two-mode shapers are offered beside the others, and the simulation of the rigid load checks every option.", t2))
 	default:
-		out = append(out, second+": too little for two-mode shapers; the simulation of the rigid load checks every option.")
+		out = append(out, say(second+": too little for two-mode shapers; the simulation of the rigid load checks every option.", t2))
 	}
 	return out
 }
