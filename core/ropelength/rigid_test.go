@@ -6,7 +6,12 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/mathext"
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
+	"swaysheet/core/units"
 )
 
 // beam is a 12 m by 0.5 m by 1 m load of 5 t on four legs of legM from
@@ -111,6 +116,69 @@ func TestRigidBadInput(t *testing.T) {
 		var fe scenario.Errors
 		if !errors.As(err, &fe) || fe[0].Field != c.field {
 			t.Errorf("want an error at %s, got %v", c.field, err)
+		}
+	}
+}
+
+// The large-swing correction for a rigid load: one rope's 2K(k)/pi on the
+// first mode, against the nonlinear rigid-load model released from rest
+// in its first mode's shape with the line from the suspension point to
+// the load's centre of mass at 5, 15 and 30 deg (the 12 m beam on a 2 m
+// rope to the hook), the period measured over two cycles (up-crossings of the centre of mass's speed along the swing). Source of the
+// factor: the plane pendulum's period 4 sqrt(L/g) K(sin(theta0/2))
+// (Abramowitz & Stegun 17.3), exact for a body on a fixed pivot; on a rope
+// it is an approximation, whose size this measures.
+func TestRigidAmplitudeCorrection(t *testing.T) {
+	load, _, _ := beam(10)
+	r := &pendulum.Rigid{Mass: *load.MassKg, Size: r3.Vec{X: 12, Y: 0.5, Z: 1},
+		Gyration: r3.Vec{X: math.Sqrt((0.25 + 1) / 12), Y: math.Sqrt((144.0 + 1) / 12), Z: math.Sqrt((144 + 0.25) / 12)}}
+	for _, l := range load.Body.Legs {
+		r.Legs = append(r.Legs, pendulum.Leg{Length: *l.LengthM, Attach: r3.Vec{X: l.AttachXM, Y: l.AttachYM, Z: *l.AttachZM}})
+	}
+	const rope = 2.0
+	fixed := func(float64) pendulum.Kinematics { return pendulum.Kinematics{} }
+	r.Suspension, r.Rope = fixed, func(float64) (float64, float64, float64) { return rope, 0, 0 }
+	if err := r.Prepare(); err != nil {
+		t.Fatal(err)
+	}
+	modes, err := r.Modes(rope)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t0 := modes[0].PeriodS
+	var p pendulum.Point
+	line := func(y []float64) float64 {
+		r.Eval(0, y, &p)
+		return math.Atan2(math.Hypot(p.LoadPos.X, p.LoadPos.Y), -p.LoadPos.Z)
+	}
+	for _, deg := range []float64{1, 5, 15, 30} {
+		th := deg * units.Degree
+		var y []float64
+		lo, hi := 0.0, 50.0
+		for range 60 {
+			y = r.Rest(0)
+			amp := (lo + hi) / 2
+			r.Displace(y, modes[0].Shape, amp)
+			if line(y) < th {
+				lo = amp
+			} else {
+				hi = amp
+			}
+		}
+		sim, err := pendulum.CrossingPeriod(r, y, 4, 3, 20*t0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		k := math.Sin(th / 2)
+		est := t0 * 2 * mathext.CompleteK(k*k) / math.Pi
+		got, err := Find(&Input{Load: load, Timed: &Timed{Swings: f(10), TimeS: f(10 * sim), AmplitudeDeg: deg}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		t.Logf("%g deg: simulated %.6g s, first mode %.6g s times 2K/pi %.6g s (%+.3f %%); rope from the timed swing %.4g m (%+.2f %%)",
+			deg, sim, t0, est, 100*(est/sim-1), got.RopeLengthM, 100*(got.RopeLengthM/rope-1))
+		if math.Abs(est/sim-1) > 3e-3 {
+			t.Errorf("%g deg: the corrected first mode %.6g s against the simulated %.6g s", deg, est, sim)
 		}
 	}
 }
