@@ -101,3 +101,27 @@ func TestRigidSecondMode(t *testing.T) {
 		t.Errorf("panel: second share %.3g, notes %q", p.SecondModeShare, p.Notes)
 	}
 }
+
+// The wind's steady lean the planner holds against the limits is the
+// rigid load's own (static equilibrium with the hook block; the same as
+// the evaluation's wind_lean_deg at the shortest rope), not the point's.
+func TestRigidWindLean(t *testing.T) {
+	s := load(t, "bay-girder-rigid.json")
+	s.Wind = &scenario.Wind{ForceN: func(x float64) *float64 { return &x }(5000)}
+	rq, err := newRequest(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := rq.steadyLean(5000) / units.Degree
+	sc := *s
+	sc.Plan = nil
+	lo := *s.Plan.RopeLengthMinM
+	sc.Load.RopeLengthM = &lo
+	r, err := sway.Evaluate(&sc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(got-r.WindLeanDeg) > 1e-9 {
+		t.Errorf("planner's lean %.9g deg, the evaluation's %.9g deg", got, r.WindLeanDeg)
+	}
+}

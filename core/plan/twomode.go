@@ -238,5 +238,8 @@ func (rq *request) steadyLean(f float64) float64 {
 	for _, l := range rq.ropes {
 		l1 = math.Min(l1, l)
 	}
+	if rq.body != nil {
+		return rq.body.WindLeanRad(f, l1)
+	}
 	return sway.WindLeanRad(rq.s, f, l1)
 }

@@ -93,3 +93,12 @@ func (b *RigidLoad) DepthM() float64 {
 	}
 	return b.r.HookDepthM()
 }
+
+// WindLeanRad is the steady lean of the line from the suspension point to
+// the load's centre of mass under a steady horizontal force on the load at
+// rope length ropeM (static equilibrium, as the evaluation's
+// wind_lean_deg for a rigid load).
+func (b *RigidLoad) WindLeanRad(forceN, ropeM float64) float64 {
+	lean, _ := bodyWind(b.r, forceN, ropeM)
+	return lean
+}
