@@ -7,6 +7,7 @@ import (
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/words"
 )
 
 // Report is the clearance check of a scenario's site block.
@@ -19,6 +20,9 @@ type Report struct {
 	// Required of the runs; Words says so, or which do not.
 	Clears bool     `json:"clears"`
 	Words  []string `json:"words"`
+	// WordSentences are Words with their quantities marked (core/words),
+	// one for one, for the units shown.
+	WordSentences []words.Sentence `json:"word_sentences"`
 	// Envelope50 and Envelope95 are the areas, seen from above, that the
 	// load stays inside in half and in 95 % of the runs. Envelope95 is the
 	// exclusion zone, the area where nobody stands: it holds as many runs

@@ -10,6 +10,7 @@ import (
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/words"
 )
 
 // A clearance check in parts: the runs of a check can be split into ranges
@@ -376,7 +377,8 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 		ds[m], lows[m] = v[:len(v)/2], v[len(v)/2:]
 	}
 	rep.Section = sectionFrom(site, &c.nominal, c.track, ds, lows, envs[0], envs[1], rep.Obstacles, where)
-	rep.Clears, rep.Words = Verdict(rep.Obstacles, site.MarginM)
+	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)
+	rep.Words = words.Strings(rep.WordSentences)
 	rep.Assumptions = assumptions(rep.Outline, c.opt)
 	return rep, nil
 }
