@@ -14,10 +14,11 @@ import { changed } from './compute.js';
 import { dragEdit, makeView, planSVG, sectionSVG } from './site-plan.js';
 import { cancelRuns, poolSize, runSplit, runsGoing } from './site-runs.js';
 import { S, setPath } from './state.js';
+import { say, unitsKey } from './words.js';
 
 // C is the clearance check's state: the report shown and the inputs it is
 // of, the runs going.
-const C = { report: null, reportFor: null, started: null, going: false, done: 0, total: 0, error: null, sel: -1, fieldsKey: null, view: null, drag: null, partial: null };
+const C = { report: null, reportFor: null, started: null, going: false, done: 0, total: 0, error: null, sel: -1, fieldsKey: null, view: null, drag: null, partial: null, said: null, saying: null };
 
 // siteKey is what the clearance check depends on: the scenario JSON
 // without the check sheet's reference fields (as the bridge's memo).
@@ -102,13 +103,29 @@ export function clearanceVerdict() {
   if (C.going) { t = '\u2013 Clearances: runs done ' + C.done + ' of ' + C.total + '\u2026'; cls = 'none'; }
   else if (!r) { t = '\u2013 Clearances not checked' + (C.error ? ': ' + C.error : '.'); cls = 'none'; }
   else {
-    t = (r.clears ? '\u2714 Clears every obstacle: ' : '\u2716 DOES NOT CLEAR: ') + r.words.join(' ');
+    t = (r.clears ? '\u2714 Clears every obstacle: ' : '\u2716 DOES NOT CLEAR: ') + verdictWords(r).join(' ');
     cls = r.clears ? 'ok' : 'out';
   }
   if (r && stale() && !C.going) t += ' (for earlier inputs)';
   p.className = 'clearance-verdict ' + cls;
   p.dataset.state = C.going ? 'running' : !r ? 'none' : r.clears ? 'clears' : 'hit';
   p.textContent = t;
+}
+
+// verdictWords are the core's verdict sentences in the units shown (the
+// "say" call), or its SI words until they come.
+function verdictWords(r) {
+  var key = unitsKey();
+  if (C.said && C.said.report === r && C.said.key === key) return C.said.texts;
+  if (r.word_sentences && (!C.saying || C.saying.report !== r || C.saying.key !== key)) {
+    var asked = C.saying = { report: r, key: key };
+    say(r.word_sentences).then(function (texts) {
+      if (C.saying !== asked || !texts) return;
+      C.said = { report: r, key: key, texts: texts };
+      clearanceVerdict();
+    });
+  }
+  return r.words;
 }
 
 function pathsOf() {
