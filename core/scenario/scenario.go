@@ -56,7 +56,7 @@ type Scenario struct {
 	Settings *Settings `json:"settings,omitempty"`
 	// Sheet holds the user's reference fields for the printed check sheet.
 	Sheet *Sheet `json:"sheet,omitempty"`
-	// Plan asks the planner for drive settings (see profiles.go).
+	// Plan asks the planner for drive settings (see plan.go).
 	Plan *Plan `json:"plan,omitempty"`
 	// Site holds the obstacles for the clearance check (see site.go).
 	Site *Site `json:"site,omitempty"`
