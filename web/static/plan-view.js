@@ -10,7 +10,7 @@ import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
 import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
 import { S } from './state.js';
-import { chart, fitWidth } from './plot.js';
+import { drawChart } from './charts.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, toShown } from './units.js';
 
@@ -285,22 +285,22 @@ const CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
 
 function curves(r) {
   var at = r.curves.accel_time, re = r.curves.rope_error, lim = r.limits || {};
-  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + fmtRes(lim.residual_swing_deg) + ' deg' }] : [];
-  $('plot-plan-ramp').innerHTML = chart({ width: fitWidth($('plot-plan-ramp')),
-    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', xLabel: 'ramp time to top speed (s)', yLabel: 'residual swing (deg)',
-    yFromZero: true, hlines: hl, legendTop: true,
+  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, text: 'limit ' + fmtRes(lim.residual_swing_deg) + ' deg' }] : [];
+  drawChart($('plot-plan-ramp'), {
+    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', x_label: 'ramp time to top speed (s)', y_label: 'residual swing (deg)',
+    y_from_zero: true, lines: hl, legend_top: true,
     series: at.series.map(function (sr, i) {
-      return { x: at.ramp_s, y: sr.residual_deg, label: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), cls: CLS[i % CLS.length] };
+      return { x: at.ramp_s, y: sr.residual_deg, name: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)) + '</figcaption>';
-  $('plot-plan-rope').innerHTML = chart({ width: fitWidth($('plot-plan-rope')),
-    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', xLabel: 'rope length error from the tuned length (%)',
-    yLabel: 'residual (% of unshaped)', yFromZero: true, legendTop: true,
+  }, 'Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)));
+  drawChart($('plot-plan-rope'), {
+    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', x_label: 'rope length error from the tuned length (%)',
+    y_label: 'residual (% of unshaped)', y_from_zero: true, legend_top: true,
     bands: [{ x0: re.range_pct[0], x1: re.range_pct[1], text: 'your range' }],
     series: re.series.map(function (sr, i) {
-      return { x: re.error_pct, y: sr.residual_pct, label: shaperName(sr.shaper), cls: CLS[i % CLS.length] };
+      return { x: re.error_pct, y: sr.residual_pct, name: shaperName(sr.shaper), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)) + '</figcaption>';
+  }, 'Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)));
 }
 
 export function planChanged() {

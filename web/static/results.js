@@ -6,7 +6,7 @@ import { $, esc } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
-import { chart, fitWidth } from './plot.js';
+import { drawChart } from './charts.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
 
@@ -123,6 +123,8 @@ export function markStale(on) {
   $('charts').classList.toggle('is-stale', on);
 }
 
+// renderPlots draws the result's charts with the core's plotter
+// (charts.js), the values in the units shown.
 export function renderPlots() {
   var r = S.result, hs = r.history;
   if (!hs || !hs.time_s || !hs.time_s.length) return;
@@ -135,24 +137,24 @@ export function renderPlots() {
   });
   var lim = S.scenario.limits || {};
   var hl = [];
-  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtRes(lim.peak_swing_deg) + ' deg' });
-  $('plot-angle').innerHTML = chart({ width: fitWidth($('plot-angle')), id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
-    series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
-    '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
-  $('plot-path').innerHTML = chart({ width: fitWidth($('plot-path')), id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
-    series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
-      { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
-    '<figcaption>The load (solid) and the suspension point (dashed) on the ground plan.</figcaption>';
+  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtRes(lim.peak_swing_deg) + ' deg' });
+  drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
+    series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
+  'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
+  drawChart($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
+    series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), name: 'suspension point', class: 's2' },
+      { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), name: 'load', class: 's1' }] },
+  'The load (solid) and the suspension point (dashed) on the ground plan.');
   var circles = [];
   if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-  $('plot-rel').innerHTML = chart({ width: fitWidth($('plot-rel')), id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
-    series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), label: 'load', cls: 's1' }], circles: circles }) +
-    '<figcaption>' + (circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.') + '</figcaption>';
+  drawChart($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
+    series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), name: 'load', class: 's1' }], circles: circles },
+  circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.');
   var st = toShown('force', r.static_tension_n);
-  $('plot-tension').innerHTML = chart({ width: fitWidth($('plot-tension')), id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
-    series: [{ x: hs.time_s, y: scale('force', hs.tension_n), label: 'tension', cls: 's1' }], bands: bands,
-    hlines: [{ y: st, label: 'static ' + fmtRes(st) + ' ' + F }] }) +
-    '<figcaption>Dashed line: the load\u2019s weight (static pull).</figcaption>';
+  drawChart($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
+    series: [{ x: hs.time_s, y: scale('force', hs.tension_n), name: 'tension', class: 's1' }], bands: bands,
+    lines: [{ y: st, text: 'static ' + fmtRes(st) + ' ' + F }] },
+  'Dashed line: the load\u2019s weight (static pull).');
 }
 
 export function updateBanner() {
