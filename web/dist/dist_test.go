@@ -5,6 +5,8 @@ import (
 	"math/rand/v2"
 	"strings"
 	"testing"
+
+	"swaysheet/core/sheet"
 )
 
 func TestBase85RoundTrip(t *testing.T) {
@@ -43,7 +45,8 @@ func TestSingle(t *testing.T) {
 			t.Errorf("the single file still has %q", no)
 		}
 	}
-	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL"} {
+	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL",
+		strings.ReplaceAll(sheet.CSS, "</", `<\/`)} {
 		if !strings.Contains(s, want) {
 			t.Errorf("the single file lacks %q", want)
 		}
