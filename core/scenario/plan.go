@@ -82,39 +82,57 @@ func init() {
 	}
 }
 
+// planFields are the plan block's move fields by the kind of axis they
+// belong to, by JSON name (crane.Kind names them).
+func (p *Plan) planFields() map[*crane.Kind]map[string]*float64 {
+	return map[*crane.Kind]map[string]*float64{
+		crane.Linear:  {"distance_m": p.DistanceM, "top_speed_m_per_s": p.TopSpeedMPerS, "max_accel_m_per_s2": p.MaxAccelMPerS2},
+		crane.Angular: {"angle_deg": p.AngleDeg, "top_rate_deg_per_s": p.TopRateDegPerS, "max_accel_deg_per_s2": p.MaxAccelDegPerS2},
+	}
+}
+
+// Move is the planned move's axis and its distance, top speed and largest
+// acceleration in the units of the axis' kind (nil when not given); ok is
+// false for an axis the planner does not plan.
+func (p *Plan) Move() (ax crane.Axis, dist, speed, accel *float64, ok bool) {
+	ax, ok = crane.Of(p.Axis)
+	if !ok || !ax.Plannable {
+		return ax, nil, nil, nil, false
+	}
+	k := ax.Kind
+	f := p.planFields()[k]
+	return ax, f[k.Distance], f[k.TopSpeed], f[k.MaxAccel], true
+}
+
 func (p *Plan) validate(c *checker, s *Scenario) {
-	switch p.Axis {
-	case TravelX, TravelY:
-		c.required("plan.distance_m", "plan.distance_m", p.DistanceM)
-		c.required("plan.top_speed_m_per_s", "plan.top_speed_m_per_s", p.TopSpeedMPerS)
-		c.required("plan.max_accel_m_per_s2", "plan.max_accel_m_per_s2", p.MaxAccelMPerS2)
-		why := "a travel move is planned in metres; use distance_m, top_speed_m_per_s, max_accel_m_per_s2"
-		c.forbidden("plan.angle_deg", p.AngleDeg, why)
-		c.forbidden("plan.top_rate_deg_per_s", p.TopRateDegPerS, why)
-		c.forbidden("plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2, why)
-		if p.DistanceM != nil && *p.DistanceM == 0 {
-			c.add("plan.distance_m", "is 0: give the distance to travel, %s", Ranges["plan.distance_m"].Text())
-		}
-	case Slew:
-		c.required("plan.angle_deg", "plan.angle_deg", p.AngleDeg)
-		c.required("plan.top_rate_deg_per_s", "plan.top_rate_deg_per_s", p.TopRateDegPerS)
-		c.required("plan.max_accel_deg_per_s2", "plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2)
-		why := "a slew is planned in degrees; use angle_deg, top_rate_deg_per_s, max_accel_deg_per_s2"
-		c.forbidden("plan.distance_m", p.DistanceM, why)
-		c.forbidden("plan.top_speed_m_per_s", p.TopSpeedMPerS, why)
-		c.forbidden("plan.max_accel_m_per_s2", p.MaxAccelMPerS2, why)
-		if p.AngleDeg != nil && *p.AngleDeg == 0 {
-			c.add("plan.angle_deg", "is 0: give the slew angle, %s", Ranges["plan.angle_deg"].Text())
-		}
-		if s.Crane.RadiusM <= 0 {
-			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
-		}
-	case "":
+	ax, dist, _, _, ok := p.Move()
+	switch {
+	case p.Axis == "":
 		c.add("plan.axis", "is required: accepted %q", crane.Names(true))
 		return
-	default:
+	case !ok:
 		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
 		return
+	}
+	k, fields := ax.Kind, p.planFields()
+	for _, name := range []string{k.Distance, k.TopSpeed, k.MaxAccel} {
+		c.required("plan."+name, "plan."+name, fields[k][name])
+	}
+	why := fmt.Sprintf("a %s move is planned in %s; use %s, %s, %s", ax.Words, k.Words, k.Distance, k.TopSpeed, k.MaxAccel)
+	for _, other := range crane.Kinds {
+		if other == k {
+			continue
+		}
+		for _, name := range []string{other.Distance, other.TopSpeed, other.MaxAccel} {
+			c.forbidden("plan."+name, fields[other][name], why)
+		}
+	}
+	if dist != nil && *dist == 0 {
+		c.add("plan."+k.Distance, "is 0: give how far the %s moves, %s", ax.Words, Ranges["plan."+k.Distance].Text())
+	}
+	if ax.Needs != "" && !(s.Crane.Field(ax.Needs) > 0) {
+		r := Ranges[ax.Needs]
+		c.add(ax.Needs, "is required to plan a %s move: above 0 up to %g %s", ax.Words, r.Max, r.Unit)
 	}
 	p.checkDuration(c)
 	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {

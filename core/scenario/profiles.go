@@ -156,13 +156,12 @@ func (m *Motion) validateProfile(c *checker, at string) {
 		return
 	}
 	if p != ProfileSCurve { // the trapezoid's checks cover the S-curve's axis
-		switch m.Axis {
-		case TravelX, TravelY, Radius, Hoist, Slew:
-		case "":
-			c.add(f("axis"), "is required: accepted %q", Axes)
-			return
-		default:
-			c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+		if _, ok := crane.Of(m.Axis); !ok {
+			if m.Axis == "" {
+				c.add(f("axis"), "is required: accepted %q", Axes)
+			} else {
+				c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+			}
 			return
 		}
 	}

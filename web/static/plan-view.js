@@ -3,14 +3,14 @@
 // figure comes from the core; nothing is computed here beyond differences
 // of times the planner gives (a ramp's duration).
 
+import { drawChart } from './charts.js';
 import { openCoach } from './coach.js';
 import { changed } from './compute.js';
 import { $, esc, notice } from './dom.js';
 import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
-import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
-import { S } from './state.js';
-import { drawChart } from './charts.js';
+import { P, accelDQ, axisName, deg, kindOf, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
+import { S, axisOf, axisWord } from './state.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, toShown } from './units.js';
 
@@ -129,10 +129,11 @@ export function renderPlan() {
 }
 
 function summary(r) {
-  var move = isSlew(r) ?
-    'Slew ' + deg(r.angle_deg) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU('angular_speed', r.top_rate_deg_per_s) +
+  var K = kindOf(r);
+  var move = typeof r.radius_m === 'number' ?
+    axisOf(r.axis).label + ' ' + withU(K.quantity, r[K.distance]) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU(K.speedQ, r[K.top]) +
       (r.slew_lean_deg ? ' (outward lean ' + deg(r.slew_lean_deg) + ' at that rate)' : '') :
-    'Travel ' + withU('length', r.distance_m) + ' on ' + axisName(r.axis) + ', top speed ' + withU('speed', r.top_speed_m_per_s);
+    'Travel ' + withU(K.quantity, r[K.distance]) + ' on ' + axisName(r.axis) + ', top speed ' + withU(K.speedQ, r[K.top]);
   var ropes = r.rope_lengths_m.map(function (l) { return num('length', l); }).join(', ') + '\u00A0' + sym('length');
   return '<p class="plan-summary" id="plan-summary">' + esc(move) + '. Rope ' + esc(withU('length', r.rope_length_m)) +
     ' (sway period ' + esc(secs(r.period_s)) + '); each option simulated at ' + esc(ropes) +
@@ -195,8 +196,7 @@ function planTable(r) {
 // crew renders an option's settings from the planner's own numbers.
 function crew(r, o) {
   var sdq = speedDQ(r), adq = accelDQ(r), h = '';
-  var top = isSlew(r) ? o.top_rate_deg_per_s : o.top_speed_m_per_s;
-  var acc = isSlew(r) ? o.accel_deg_per_s2 : o.accel_m_per_s2;
+  var K = kindOf(r), top = o[K.top], acc = o[K.accel];
   if (o.speed_profile && o.speed_profile.length > 1) {
     h += '<p>Program the drive\u2019s speed profile (multi-segment ramps, or the drive\u2019s own sway-control function) for starting; stopping mirrors it.</p>';
     h += '<table class="plain crew" data-crew="ramps"><caption>Speed profile for a variable-speed drive</caption><thead><tr><th scope="col">From</th><th scope="col">To</th><th scope="col">The drive</th><th scope="col">Ramp time</th></tr></thead><tbody>';
@@ -221,7 +221,7 @@ function crew(r, o) {
   } else {
     h += '<ul class="crew-list" data-crew="ramp"><li>Acceleration and deceleration: <b>' + esc(withU(adq, acc)) + '</b></li>' +
       '<li>Ramp time to the top speed: <b>' + esc(secs(o.ramp_s)) + '</b></li>' +
-      '<li>Top ' + (isSlew(r) ? 'slew rate' : 'speed') + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
+      '<li>' + esc(axisWord(r.axis, 'top')) + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
   }
   if (o.settings && o.settings.length) {
     h += '<details class="words"><summary>The planner\u2019s own words (figures in SI units)</summary>' +

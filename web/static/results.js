@@ -2,11 +2,11 @@
 // row of core/figures, its words, rounded text and unit as the core gives
 // them), warnings, assumptions and plots.
 
+import { drawChart } from './charts.js';
 import { $, esc } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
-import { drawChart } from './charts.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
 
