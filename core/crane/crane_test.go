@@ -73,3 +73,23 @@ func TestWordsFor(t *testing.T) {
 		}
 	}
 }
+
+// The planner's linear theory of each axis: the hook moves r·dphi along
+// the arc of a slew at radius r and leans out by atan(r·w²/g) at rate w
+// (circular motion; any dynamics text); a travel moves it one for one and
+// does not lean it; the hoist does not move it sideways.
+func TestPlannerGeometry(t *testing.T) {
+	at := Start{RadiusM: 35}
+	for _, c := range []struct {
+		axis        string
+		hook, outer float64
+	}{{"travel_x", 1, 0}, {"travel_y", 1, 0}, {"radius", 1, 0}, {"hoist", 0, 0}, {"slew", 35, 35 * 0.07 * 0.07}} {
+		a, _ := Of(c.axis)
+		if got := a.HookPerUnit(at); got != c.hook {
+			t.Errorf("%s: hook per unit %g, want %g", c.axis, got, c.hook)
+		}
+		if got := a.OutwardAccel(at, 0.07); math.Abs(got-c.outer) > 1e-15 {
+			t.Errorf("%s: outward acceleration %g, want %g", c.axis, got, c.outer)
+		}
+	}
+}
