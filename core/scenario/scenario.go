@@ -26,15 +26,6 @@ const (
 	Version    = 1
 )
 
-// Axis names.
-const (
-	TravelX = "travel_x" // trolley or bridge travel along x, m
-	TravelY = "travel_y" // travel along y, m
-	Slew    = "slew"     // slewing about the vertical axis through the origin, deg
-	Radius  = "radius"   // trolley on a jib: change of slew radius, m
-	Hoist   = "hoist"    // hoisting: positive up (rope shortens), m
-)
-
 // Axes lists the axis names in display order (core/crane's table).
 var Axes = crane.Names(false)
 

@@ -149,7 +149,7 @@ func TestRigidSlackLegWarning(t *testing.T) {
 	leg := math.Sqrt(9 + 0.25)
 	s.Load.Body = &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(0.5), HookMassKg: 100,
 		Legs: []scenario.BodyLeg{{LengthM: f(leg), AttachXM: 0.5, AttachZM: f(0.25)}, {LengthM: f(leg), AttachXM: -0.5, AttachZM: f(0.25)}}}
-	s.Motions = []scenario.Motion{{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop,
+	s.Motions = []scenario.Motion{{Axis: "travel_x", Profile: scenario.ProfileHardStop,
 		SpeedMPerS: f(1.5), DecelMPerS2: f(5), ProfileFields: scenario.ProfileFields{BrakeAtS: f(1)}}}
 	r := mustEval(t, s)
 	if !hasWarning(r, "Leg 1 goes slack") || !hasWarning(r, "Leg 2 goes slack") {

@@ -12,7 +12,7 @@ let chartAsked = {}, chartsDrawing = 0;
 // fitWidth is the width to draw a chart in el at: the width it is shown
 // at, from 300 (a phone) to 640 px (wider, the SVG is scaled up). The
 // core sizes the chart's viewBox to it, so its text keeps its size.
-export function fitWidth(el) {
+function fitWidth(el) {
   var w = el ? el.clientWidth - 12 : 640;
   return Math.max(300, Math.min(640, Math.round(w || 640)));
 }
