@@ -47,7 +47,7 @@ func screenLayout(w float64) layout {
 
 // charWidth is an estimate of the width of one character of text of
 // size f (a proportional font's average).
-func charWidth(f float64) float64 { return 0.6 * f }
+func charWidth(f float64) float64 { return 0.62 * f }
 
 // legendItem is one entry of the legend and where it starts.
 type legendItem struct {
@@ -78,7 +78,7 @@ func (p *Plot) draw(l layout) string {
 	if len(p.Series) > 1 {
 		rowH, x, row := l.small*1.6, l.left+6, 0
 		for i := range p.Series {
-			w := 2*l.small + 10 + charWidth(l.small)*float64(len([]rune(p.Series[i].Name)))
+			w := 3*l.small + 4 + charWidth(l.small)*float64(len([]rune(p.Series[i].Name))) // line, gap, text, a space
 			if i > 0 && x+w > l.w-l.right {
 				x, row = l.left+6, row+1
 			}
