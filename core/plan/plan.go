@@ -150,7 +150,7 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 		res.SecondDesignPeriodS, res.SecondModeShare = rq.designT2, rq.share2
 		res.Assumptions = append(append([]string{}, Assumptions...), twoModeAssumption)
 		for _, n := range rq.modeNotes() {
-			note(plain(n))
+			note(n)
 		}
 	}
 	if rq.drive == scenario.DrivePendant {

@@ -57,6 +57,16 @@ func TestRecommendedWithinLimits(t *testing.T) {
 			if o.Within != (len(o.Outside) == 0) {
 				t.Errorf("%s %s: within %v but outside %v", name, o.Label, o.Within, o.Outside)
 			}
+			// The limits broken, marked one for one (the page and sheet
+			// show them in the units shown).
+			if len(o.OutsideSentences) != len(o.Outside) || strings.Join(texts(o.OutsideSentences), "; ") != strings.Join(o.Outside, "; ") {
+				t.Errorf("%s %s: outside %q, marked %v", name, o.Label, o.Outside, o.OutsideSentences)
+			}
+			for _, f := range o.FindingSentences {
+				if strings.Contains(f.String(), "{") || strings.Contains(f.String(), " m >") {
+					t.Errorf("%s %s: finding %q", name, o.Label, f.String())
+				}
+			}
 			n := len(o.Verified)
 			if o.NotSimulated != "" {
 				// Screened (screen.go): linear-theory figures, labelled.

@@ -102,6 +102,9 @@ type Option struct {
 	WorstResidualRopeM float64  `json:"worst_residual_rope_length_m"`
 	Within             bool     `json:"within"`
 	Outside            []string `json:"outside"` // which limits it breaks
+	// OutsideSentences are Outside with the quantities marked (one for
+	// one).
+	OutsideSentences []Sentence `json:"outside_sentences"`
 	// Basis says what the figures are: "exact timing" (the drive times
 	// the move) or "90th percentile of a person's timing".
 	Basis string `json:"basis"`

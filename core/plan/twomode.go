@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"swaysheet/core/motion"
 	"swaysheet/core/pendulum"
@@ -174,8 +175,9 @@ func (rq *request) twoModeOptions() ([]*Option, error) {
 	return out, nil
 }
 
-// modeNotes describe the two modes for the plan's notes.
-func (rq *request) modeNotes() []string {
+// modeNotes describe the two modes for the plan's notes, their
+// quantities marked.
+func (rq *request) modeNotes() []Sentence {
 	if rq.s.Load.Hook == nil {
 		return nil
 	}
@@ -186,8 +188,14 @@ func (rq *request) modeNotes() []string {
 	if rq.twoMode() {
 		word = "enough to matter: options tuned to the first mode only leave the second ringing, and the two-mode shapers cancel both"
 	}
-	return []string{fmt.Sprintf("Hook block and rigging swing in two modes, with design periods of %.3g s and %.3g s (rope to the hook %s m, rigging %.3g m). The second carries up to %.0f %% of the load's swing after a sudden start, %s. Single-mode shapers and whole-period ramps are tuned to the first.",
-		rq.designT, rq.designT2, floats(rq.ropes), rq.rig, 100*rq.share2, word)}
+	qs := []Quantity{qTime(rq.designT), qTime(rq.designT2), qLen(rq.rig)}
+	ropes := make([]string, len(rq.ropes))
+	for i, l := range rq.ropes {
+		ropes[i] = fmt.Sprintf("{%d}", len(qs))
+		qs = append(qs, qLen(l).digits(4))
+	}
+	return []Sentence{say(fmt.Sprintf("Hook block and rigging swing in two modes, with design periods of {0} and {1} (rope to the hook %s, rigging {2}). The second carries up to %.0f %% of the load's swing after a sudden start, %s. Single-mode shapers and whole-period ramps are tuned to the first.",
+		strings.Join(ropes, ", "), 100*rq.share2, word), qs...)}
 }
 
 // twoModeAssumption is added to the assumptions for a hook block.

@@ -137,8 +137,10 @@ type planView struct {
 	Err         string
 	Axis        string
 	Recommended *plan.Option
-	// Settings, Summary, Reason, Infeasible and Notes in the units shown.
+	// Settings, Summary, Reason, Infeasible, Notes and the recommended
+	// option's Outside in the units shown.
 	Settings   []string
+	Outside    []string
 	Summary    string
 	Reason     string
 	Infeasible []string

@@ -235,7 +235,7 @@ function shownMessage(fe) {
   var u = unitOf(el.dataset.dq);
   if (u.to_si === 1 && u.symbol === r.unit) return msg;
   var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
+  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo, 'min') + ' up to ' + fmtRange(hi, 'max') + ' ' + u.symbol;
   if (/ is out of range: /.test(fe.message)) {
     return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
   }
