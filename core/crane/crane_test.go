@@ -92,4 +92,14 @@ func TestPlannerGeometry(t *testing.T) {
 			t.Errorf("%s: outward acceleration %g, want %g", c.axis, got, c.outer)
 		}
 	}
+	// The hook's first direction: the jib at 30 deg turning forward moves
+	// it along the tangent (-sin 30°, cos 30°); the trolley along the jib.
+	at.SlewRad = math.Pi / 6
+	for axis, want := range map[string][2]float64{"travel_x": {1, 0}, "travel_y": {0, 1}, "slew": {-0.5, math.Sqrt(3) / 2},
+		"radius": {math.Sqrt(3) / 2, 0.5}, "hoist": {0, 0}} {
+		a, _ := Of(axis)
+		if d := a.HookDirection(at); math.Abs(d.X-want[0]) > 1e-15 || math.Abs(d.Y-want[1]) > 1e-15 || d.Z != 0 {
+			t.Errorf("%s: hook direction %v, want %v", axis, d, want)
+		}
+	}
 }

@@ -100,3 +100,21 @@ func (a Axis) OutwardAccel(at Start, v float64) float64 {
 	}
 	return 0
 }
+
+// HookDirection is the unit vector, in the ground plane, along which the
+// hook starts to move when the axis moves forward from at: +x or +y for
+// a travel, the jib's tangent (-sin phi0, cos phi0) for a slew, its
+// radial (cos phi0, sin phi0) for the trolley; zero for the hoist.
+func (a Axis) HookDirection(at Start) r3.Vec {
+	switch a.Role {
+	case AlongX:
+		return r3.Vec{X: 1}
+	case AlongY:
+		return r3.Vec{Y: 1}
+	case Turn:
+		return r3.Vec{X: -math.Sin(at.SlewRad), Y: math.Cos(at.SlewRad)}
+	case Reach:
+		return r3.Vec{X: math.Cos(at.SlewRad), Y: math.Sin(at.SlewRad)}
+	}
+	return r3.Vec{}
+}

@@ -410,7 +410,7 @@ func TestOwnPendantSteps(t *testing.T) {
 // example at 8 m as 6.24 deg against 4.93 deg simulated.
 func TestLinearPeak(t *testing.T) {
 	s := load(t, "plan-bay-travel.json")
-	rq := newRequest(s)
+	rq, _ := newRequest(s)
 	for _, a := range []float64{0.3, 0.15, 0.0856} {
 		o := rq.trapezoidOption("x", "x", a, rq.vmax)
 		for _, l := range []float64{8, 8.5, 9} {

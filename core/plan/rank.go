@@ -84,7 +84,7 @@ func (rq *request) recommend(res *Result, opts []*Option) {
 	text := fmt.Sprintf("Recommended: %s — %s%s (%d from {0} to {1}). Move time {2}, {3} longer than at the drive limits; worst residual swing {4} at {5}%s.",
 		o.Label, why, how, len(rq.checked), lim)
 	res.ReasonSentence = say(text, qs...)
-	if rq.s.Load.Hook != nil {
+	if rq.multi() {
 		res.ReasonSentence = res.ReasonSentence.join(rq.modeReason(o))
 	}
 }

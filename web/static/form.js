@@ -1,6 +1,7 @@
 // form.js: the inputs: the form, its events and the messages at fields.
 
 import { changed } from './compute.js';
+import { renderBodyForm } from './body-form.js';
 import { $, cssEsc } from './dom.js';
 import { numField, section, selectField, syncPrint, textField, unitChoosers } from './fields.js';
 import { inputsHTML, motionHTML, onList, planOnChange, planOnSelect } from './plan-form.js';
@@ -80,7 +81,8 @@ export function renderForm() {
     [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
   $('form').innerHTML = h.join('');
   $('plan-form').innerHTML = inputsHTML();
-  document.querySelectorAll('#form, #plan-form').forEach(function (f) {
+  renderBodyForm();
+  document.querySelectorAll('#form, #plan-form, #body-form').forEach(function (f) {
     f.querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
   });
   showErrors();
@@ -140,7 +142,7 @@ export function clearBad(prefix) {
 }
 
 export function bindForm() {
-  [$('form'), $('plan-form')].forEach(bindOne);
+  [$('form'), $('plan-form'), $('body-form')].forEach(bindOne);
 }
 
 function bindOne(f) {

@@ -173,11 +173,12 @@ function summary(r) {
     esc(String(r.simulations)) + ' simulations.</p>' + modes(r);
 }
 
-// modes shows the hook block's two sway modes, when the plan has them.
+// modes shows the two sway modes of a hook block or a rigid load, when
+// the plan has them (modes_of: whose they are, in the core's words).
 function modes(r) {
   var m = r.mode_periods_s;
   if (!m || m.length < 2) return '';
-  return '<p class="plan-modes" id="plan-modes"><b>Hook block and rigging: two sway modes</b>, <span id="plan-mode1">' + esc(secs(m[0])) +
+  return '<p class="plan-modes" id="plan-modes"><b>Two sway modes ' + esc(r.modes_of || 'of hook block and rigging') + '</b>, <span id="plan-mode1">' + esc(secs(m[0])) +
     '</span> and <span id="plan-mode2">' + esc(secs(m[1])) + '</span> at the nominal rope; the second carries up to <span id="plan-share">' +
     esc(fmtRes(100 * r.second_mode_share)) + '\u00A0%</span> of the load\u2019s swing. Two-mode shapers are tuned to ' +
     esc(secs(r.design_period_s)) + ' and ' + esc(secs(r.second_design_period_s)) + '.</p>';
