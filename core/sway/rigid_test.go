@@ -84,7 +84,7 @@ func TestRigidBayGirder(t *testing.T) {
 	s := testscenario.Example(t, "bay-girder-rigid.json")
 	// The example asks the planner for its move; here it makes the 18 m
 	// travel at 0.25 m/s² itself.
-	s.Motions = []scenario.Motion{{Axis: scenario.TravelX, Profile: scenario.ProfileTrapezoid, StartS: 1,
+	s.Motions = []scenario.Motion{{Axis: "travel_x", Profile: scenario.ProfileTrapezoid, StartS: 1,
 		DistanceM: f(18), SpeedMPerS: f(0.5), AccelMPerS2: f(0.25), DecelMPerS2: f(0.25)}}
 	r := mustEval(t, s)
 	b := r.Body
