@@ -47,7 +47,18 @@ func main() {
 	single := flag.String("single-wasm", "out/single/swaysheet.wasm", "the single file's wasm (-tags nofetch)")
 	page := flag.String("single", "dist/swaysheet.html", "the single-file page")
 	static := flag.String("static", "dist/web", "the static folder")
+	parts := flag.String("breakdown", "", "print this wasm's code by package (a build without -s) and exit")
 	flag.Parse()
+	if *parts != "" {
+		b, err := os.ReadFile(*parts)
+		if err != nil {
+			log.Fatal(err)
+		}
+		if err := printBreakdown(os.Stdout, b); err != nil {
+			log.Fatal(err)
+		}
+		return
+	}
 	var rows []row
 	add := func(name string, n int, note string) {
 		rows = append(rows, row{Group: "size", Name: name, Value: float64(n) / 1e6, Unit: "MB", Note: note})

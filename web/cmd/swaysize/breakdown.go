@@ -1,0 +1,231 @@
+package main
+
+// The per-package breakdown of a wasm file built without -s: the code
+// section's function bodies (WebAssembly core specification 1.0, section
+// 5.5.13) named by the "name" custom section (appendix 7.4.2), summed by
+// the Go package each function's name begins with. The data section
+// (Go's read-only data, type descriptors and the pcln table) cannot be
+// told apart by package and is reported as one row.
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"sort"
+	"strings"
+)
+
+// pkgSize is one package's share of a wasm file's code.
+type pkgSize struct {
+	Pkg   string
+	Funcs int
+	// Code is the bodies' bytes; Gzip their bytes gzipped together, an
+	// estimate of what the package adds to the gzipped file.
+	Code, Gzip int
+}
+
+// wasmReader reads the binary format's LEB128 integers and names.
+type wasmReader struct {
+	b   []byte
+	err error
+}
+
+func (r *wasmReader) uleb() int {
+	var v, shift uint64
+	for {
+		if len(r.b) == 0 {
+			r.err = errors.New("wasm: truncated")
+			return 0
+		}
+		c := r.b[0]
+		r.b = r.b[1:]
+		v |= uint64(c&0x7f) << shift
+		if c&0x80 == 0 || shift > 56 {
+			return int(v)
+		}
+		shift += 7
+	}
+}
+
+func (r *wasmReader) bytes(n int) []byte {
+	if n < 0 || n > len(r.b) {
+		r.err = errors.New("wasm: truncated")
+		r.b = nil
+		return nil
+	}
+	out := r.b[:n]
+	r.b = r.b[n:]
+	return out
+}
+
+// breakdown sums a wasm file's function bodies by package; data is the
+// data section's size, other the rest of the file.
+func breakdown(wasm []byte) (pkgs []pkgSize, data, other int, err error) {
+	if len(wasm) < 8 || !bytes.Equal(wasm[:4], []byte("\x00asm")) {
+		return nil, 0, 0, errors.New("not a wasm file")
+	}
+	r := &wasmReader{b: wasm[8:]}
+	imported := 0
+	var bodies [][]byte
+	names := map[int]string{}
+	for len(r.b) > 0 && r.err == nil {
+		id := r.bytes(1)
+		if r.err != nil {
+			break
+		}
+		sec := &wasmReader{b: r.bytes(r.uleb())}
+		switch id[0] {
+		case 2: // imports: imported functions come first in the index space
+			for n := sec.uleb(); n > 0 && sec.err == nil; n-- {
+				sec.bytes(sec.uleb()) // module
+				sec.bytes(sec.uleb()) // name
+				switch kind := sec.bytes(1); kind[0] {
+				case 0:
+					sec.uleb()
+					imported++
+				case 1: // table: reftype, limits
+					sec.bytes(1)
+					if f := sec.bytes(1); f[0]&1 == 1 {
+						sec.uleb()
+					}
+					sec.uleb()
+				case 2: // memory: limits
+					if f := sec.bytes(1); f[0]&1 == 1 {
+						sec.uleb()
+					}
+					sec.uleb()
+				case 3: // global: valtype, mutability
+					sec.bytes(2)
+				}
+			}
+		case 10:
+			for n := sec.uleb(); n > 0 && sec.err == nil; n-- {
+				bodies = append(bodies, sec.bytes(sec.uleb()))
+			}
+		case 11:
+			data += len(sec.b)
+		case 0:
+			if name := string(sec.bytes(sec.uleb())); name != "name" {
+				continue
+			}
+			for len(sec.b) > 0 && sec.err == nil {
+				sub := sec.bytes(1)
+				ss := &wasmReader{b: sec.bytes(sec.uleb())}
+				if sub == nil || sub[0] != 1 {
+					continue
+				}
+				for n := ss.uleb(); n > 0 && ss.err == nil; n-- {
+					idx := ss.uleb()
+					names[idx] = string(ss.bytes(ss.uleb()))
+				}
+			}
+		}
+		if sec.err != nil {
+			r.err = sec.err
+		}
+	}
+	if r.err != nil {
+		return nil, 0, 0, r.err
+	}
+	if len(names) == 0 {
+		return nil, 0, 0, errors.New("wasm has no name section (built with -s?)")
+	}
+	byPkg := map[string]*pkgSize{}
+	var code = map[string][]byte{}
+	total := 0
+	for i, body := range bodies {
+		p := pkgOf(names[imported+i])
+		s := byPkg[p]
+		if s == nil {
+			s = &pkgSize{Pkg: p}
+			byPkg[p] = s
+		}
+		s.Funcs++
+		s.Code += len(body)
+		code[p] = append(code[p], body...)
+		total += len(body)
+	}
+	for p, s := range byPkg {
+		s.Gzip = gz(code[p])
+		pkgs = append(pkgs, *s)
+	}
+	sort.Slice(pkgs, func(i, j int) bool { return pkgs[i].Code > pkgs[j].Code })
+	return pkgs, data, len(wasm) - total - data, nil
+}
+
+// pkgOf is the package path a function's name in the name section begins
+// with. Go's wasm linker writes "/" in names as "_" (and "*()" as "_"), so
+// "net_http.__Transport_.roundTrip" is in net/http and
+// "gonum.org_v1_gonum_mat.__Dense_.At" in gonum.org/v1/gonum/mat (a
+// package with "_" in its own name is shown with "/"); "type:" helpers and
+// unnamed functions are "(other)".
+func pkgOf(sym string) string {
+	if sym == "" || strings.HasPrefix(sym, "type_.") || strings.HasPrefix(sym, "go_") || strings.HasPrefix(sym, "go.") {
+		return "(other)"
+	}
+	start := 0
+	// A module path's first element is a domain: "gonum.org_",
+	// "vendor_golang.org_".
+	if d := strings.IndexByte(sym, '.'); d > 0 {
+		for _, tld := range []string{"org_", "com_", "net_", "io_", "in_", "dev_"} {
+			if strings.HasPrefix(sym[d+1:], tld) {
+				start = d + len(tld)
+				break
+			}
+		}
+	}
+	dot := strings.IndexByte(sym[start:], '.')
+	if dot < 0 {
+		return "(other)"
+	}
+	return strings.ReplaceAll(sym[:start+dot], "_", "/")
+}
+
+// group folds a package into the family the size budget is discussed in:
+// crypto/..., net/..., the core, the wasm bridge; others stay as they are.
+func group(pkg string) string {
+	for _, g := range []string{"crypto", "net", "vendor/golang.org/x/crypto", "vendor/golang.org/x/net", "swaysheet/core", "swaysheet/wasm", "gonum.org", "github.com/syumai", "image", "compress", "encoding", "internal", "runtime"} {
+		if pkg == g || strings.HasPrefix(pkg, g+"/") {
+			return g + "/..."
+		}
+	}
+	return pkg
+}
+
+// printBreakdown writes the breakdown as a table: the families, then every
+// package of at least 10 kB of code.
+func printBreakdown(w io.Writer, wasm []byte) error {
+	pkgs, data, other, err := breakdown(wasm)
+	if err != nil {
+		return err
+	}
+	fams := map[string]*pkgSize{}
+	var order []string
+	for _, p := range pkgs {
+		g := group(p.Pkg)
+		f := fams[g]
+		if f == nil {
+			f = &pkgSize{Pkg: g}
+			fams[g] = f
+			order = append(order, g)
+		}
+		f.Funcs += p.Funcs
+		f.Code += p.Code
+		f.Gzip += p.Gzip
+	}
+	sort.SliceStable(order, func(i, j int) bool { return fams[order[i]].Code > fams[order[j]].Code })
+	fmt.Fprintf(w, "file %d bytes, gzipped %d; data section %d, other sections %d\n", len(wasm), gz(wasm), data, other)
+	fmt.Fprintf(w, "%-48s %6s %10s %10s\n", "family", "funcs", "code", "code gz")
+	for _, g := range order {
+		f := fams[g]
+		fmt.Fprintf(w, "%-48s %6d %10d %10d\n", g, f.Funcs, f.Code, f.Gzip)
+	}
+	fmt.Fprintf(w, "\n%-48s %6s %10s %10s\n", "package (code >= 10 kB)", "funcs", "code", "code gz")
+	for _, p := range pkgs {
+		if p.Code >= 10000 {
+			fmt.Fprintf(w, "%-48s %6d %10d %10d\n", p.Pkg, p.Funcs, p.Code, p.Gzip)
+		}
+	}
+	return nil
+}
