@@ -46,11 +46,14 @@ test-wasm:
 test-browser:
 	SWAYSHEET_BROWSER=1 $(GO) test -p 1 -count=1 -timeout 15m ./web/browsertest/ ./web/sheettest/
 
-# The wasm embeds copies of the example scenarios for pages opened from a
-# file; a test in wasm/bridge fails when they differ from testdata/scenarios.
+# The wasm embeds the example scenarios for pages opened from a file, as
+# one file (wasm/bridge/examples.json: each file's name and its text as it
+# is); a test in wasm/bridge fails when it differs from testdata/scenarios.
 examples:
-	rm -f wasm/bridge/examples/*.json
-	cp testdata/scenarios/*.json wasm/bridge/examples/
+	@set -e; LC_ALL=C; sep=''; { printf '['; for f in testdata/scenarios/*.json; do \
+	  printf '%s\n{"file": "%s", "scenario": ' "$$sep" "$${f##*/}"; cat "$$f"; printf '}'; sep=','; \
+	done; printf '\n]\n'; } > wasm/bridge/examples.json
+	@echo "wrote wasm/bridge/examples.json"
 
 # The page's build output: the wasm and Go's matching wasm_exec.js.
 wasm:
