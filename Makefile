@@ -55,10 +55,13 @@ examples:
 	done; printf '\n]\n'; } > wasm/bridge/examples.json
 	@echo "wrote wasm/bridge/examples.json"
 
-# The page's build output: the wasm and Go's matching wasm_exec.js.
+# The page's build output: the wasm and Go's matching wasm_exec.js. -s -w
+# leave out the wasm's name section (function names for the browser's
+# debugger, about 40 KB gzipped); Go's own panics and stack traces still
+# name functions (they read Go's function table, not that section).
 wasm:
 	@mkdir -p $(OUT)/web
-	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(OUT)/web/swaysheet.wasm ./wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
 # The wasm of the single-file page: no net/http (a page opened from a file
@@ -147,7 +150,8 @@ BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.j
 bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
-	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(BENCH)/parts.wasm ./wasm
+	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json

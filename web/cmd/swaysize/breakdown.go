@@ -60,10 +60,10 @@ func (r *wasmReader) bytes(n int) []byte {
 }
 
 // breakdown sums a wasm file's function bodies by package; data is the
-// data section's size, other the rest of the file.
-func breakdown(wasm []byte) (pkgs []pkgSize, data, other int, err error) {
+// data section, other the size of the rest of the file.
+func breakdown(wasm []byte) (pkgs []pkgSize, data []byte, other int, err error) {
 	if len(wasm) < 8 || !bytes.Equal(wasm[:4], []byte("\x00asm")) {
-		return nil, 0, 0, errors.New("not a wasm file")
+		return nil, nil, 0, errors.New("not a wasm file")
 	}
 	r := &wasmReader{b: wasm[8:]}
 	imported := 0
@@ -104,7 +104,7 @@ func breakdown(wasm []byte) (pkgs []pkgSize, data, other int, err error) {
 				bodies = append(bodies, sec.bytes(sec.uleb()))
 			}
 		case 11:
-			data += len(sec.b)
+			data = sec.b
 		case 0:
 			if name := string(sec.bytes(sec.uleb())); name != "name" {
 				continue
@@ -126,10 +126,10 @@ func breakdown(wasm []byte) (pkgs []pkgSize, data, other int, err error) {
 		}
 	}
 	if r.err != nil {
-		return nil, 0, 0, r.err
+		return nil, nil, 0, r.err
 	}
 	if len(names) == 0 {
-		return nil, 0, 0, errors.New("wasm has no name section (built with -s?)")
+		return nil, nil, 0, errors.New("wasm has no name section (built with -s?)")
 	}
 	byPkg := map[string]*pkgSize{}
 	var code = map[string][]byte{}
@@ -151,7 +151,7 @@ func breakdown(wasm []byte) (pkgs []pkgSize, data, other int, err error) {
 		pkgs = append(pkgs, *s)
 	}
 	sort.Slice(pkgs, func(i, j int) bool { return pkgs[i].Code > pkgs[j].Code })
-	return pkgs, data, len(wasm) - total - data, nil
+	return pkgs, data, len(wasm) - total - len(data), nil
 }
 
 // pkgOf is the package path a function's name in the name section begins
@@ -215,7 +215,7 @@ func printBreakdown(w io.Writer, wasm []byte) error {
 		f.Gzip += p.Gzip
 	}
 	sort.SliceStable(order, func(i, j int) bool { return fams[order[i]].Code > fams[order[j]].Code })
-	fmt.Fprintf(w, "file %d bytes, gzipped %d; data section %d, other sections %d\n", len(wasm), gz(wasm), data, other)
+	fmt.Fprintf(w, "file %d bytes, gzipped %d; data section %d (gzipped %d), other sections %d\n", len(wasm), gz(wasm), len(data), gz(data), other)
 	fmt.Fprintf(w, "%-48s %6s %10s %10s\n", "family", "funcs", "code", "code gz")
 	for _, g := range order {
 		f := fams[g]
@@ -228,4 +228,36 @@ func printBreakdown(w io.Writer, wasm []byte) error {
 		}
 	}
 	return nil
+}
+
+// partRows are the largest package families of a wasm (code gzipped on
+// its own, so they add up to a little more than the whole file gzipped)
+// and its data section, as bench rows.
+func partRows(wasm []byte) ([]row, error) {
+	pkgs, data, _, err := breakdown(wasm)
+	if err != nil {
+		return nil, err
+	}
+	fams := map[string]int{}
+	code := map[string]int{}
+	for _, p := range pkgs {
+		fams[group(p.Pkg)] += p.Gzip
+		code[group(p.Pkg)] += p.Code
+	}
+	var names []string
+	for g := range fams {
+		names = append(names, g)
+	}
+	sort.Slice(names, func(i, j int) bool { return fams[names[i]] > fams[names[j]] })
+	var rows []row
+	rows = append(rows, row{Group: "size", Name: "page wasm part: data section", Value: float64(gz(data)) / 1e6, Unit: "MB",
+		Note: "gzipped alone: Go's read-only data, type descriptors, the function table"})
+	for i, g := range names {
+		if i == 10 {
+			break
+		}
+		rows = append(rows, row{Group: "size", Name: "page wasm part: " + g, Value: float64(fams[g]) / 1e6, Unit: "MB",
+			Note: fmt.Sprintf("code gzipped alone (%.3f MB raw)", float64(code[g])/1e6)})
+	}
+	return rows, nil
 }
