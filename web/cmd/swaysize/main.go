@@ -86,7 +86,7 @@ func main() {
 	add("page wasm, gzipped", gz(w), verdict(gz(w), pageGzipTarget))
 	add("page wasm, raw", len(w), "for information (no target)")
 	p := read(*page)
-	add("single-file page (wasm zopfli-gzipped, base85)", len(p), verdict(len(p), singlePageTarget))
+	add("single-file page (wasm zopfli-gzipped, 7-bit text)", len(p), verdict(len(p), singlePageTarget))
 	s := read(*single)
 	add("single-file wasm (nofetch), gzipped", gz(s), "for information: its share of the single file")
 	add("single-file wasm, raw", len(s), "for information")
