@@ -62,14 +62,17 @@ examples:
 wasm:
 	@mkdir -p $(OUT)/web
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
+	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
 # The wasm of the single-file page: no net/http (a page opened from a file
 # has no origin to fetch from; the examples are the copies inside it),
-# symbols stripped.
+# symbols stripped. Both wasm files get their data segments joined
+# (swaypack: the same memory at start, about 6 % less gzipped).
 single-wasm:
 	@mkdir -p $(OUT)/single
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
+	$(GO) run ./web/cmd/swaypack $(OUT)/single/swaysheet.wasm
 
 # dist/web: the page to host on any web server (with its service worker);
 # dist/swaysheet.html: one file, the wasm inside, that opens from a file.
