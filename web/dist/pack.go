@@ -25,13 +25,13 @@ func PackData(wasm []byte, gap int) ([]byte, error) {
 		return nil, errors.New("pack: not a wasm file")
 	}
 	out := append([]byte(nil), wasm[:8]...)
-	r := &wasmReader{b: wasm[8:]}
-	for len(r.b) > 0 {
-		id := r.bytes(1)
-		size := r.uleb()
-		body := r.bytes(size)
-		if r.err != nil {
-			return nil, r.err
+	r := &WasmReader{B: wasm[8:]}
+	for len(r.B) > 0 {
+		id := r.Bytes(1)
+		size := r.ULEB()
+		body := r.Bytes(size)
+		if r.Err != nil {
+			return nil, r.Err
 		}
 		if id[0] != 11 {
 			out = append(out, id[0])
@@ -79,37 +79,40 @@ type segment struct {
 }
 
 func readSegments(body []byte) ([]segment, error) {
-	r := &wasmReader{b: body}
-	n := r.uleb()
+	r := &WasmReader{B: body}
+	n := r.ULEB()
 	segs := make([]segment, 0, n)
-	for i := 0; i < n && r.err == nil; i++ {
-		head := r.bytes(2)
-		if r.err != nil || head[0] != 0 || head[1] != 0x41 {
+	for i := 0; i < n && r.Err == nil; i++ {
+		head := r.Bytes(2)
+		if r.Err != nil || head[0] != 0 || head[1] != 0x41 {
 			return nil, errors.New("pack: a data segment not in Go's form (active, memory 0, i32.const offset)")
 		}
-		off := r.sleb()
-		if end := r.bytes(1); r.err != nil || end[0] != 0x0b {
+		off := r.SLEB()
+		if end := r.Bytes(1); r.Err != nil || end[0] != 0x0b {
 			return nil, errors.New("pack: a data segment's offset is not a lone i32.const")
 		}
-		segs = append(segs, segment{off: off, data: r.bytes(r.uleb())})
+		segs = append(segs, segment{off: off, data: r.Bytes(r.ULEB())})
 	}
-	if r.err != nil {
-		return nil, r.err
+	if r.Err != nil {
+		return nil, r.Err
 	}
 	return segs, nil
 }
 
-// wasmReader reads the binary format's LEB128 integers and byte runs.
-type wasmReader struct {
-	b   []byte
-	err error
+// WasmReader reads the wasm binary format's LEB128 integers and byte runs
+// from B; the first failure is kept in Err (and later reads give zeros).
+// web/cmd/swaysize reads wasm files with it too.
+type WasmReader struct {
+	B   []byte
+	Err error
 }
 
-func (r *wasmReader) uleb() int {
+// ULEB reads an unsigned LEB128 integer.
+func (r *WasmReader) ULEB() int {
 	var v, shift uint64
 	for {
-		c := r.bytes(1)
-		if r.err != nil {
+		c := r.Bytes(1)
+		if r.Err != nil {
 			return 0
 		}
 		v |= uint64(c[0]&0x7f) << shift
@@ -120,12 +123,13 @@ func (r *wasmReader) uleb() int {
 	}
 }
 
-func (r *wasmReader) sleb() int64 {
+// SLEB reads a signed LEB128 integer.
+func (r *WasmReader) SLEB() int64 {
 	var v int64
 	var shift uint
 	for {
-		c := r.bytes(1)
-		if r.err != nil {
+		c := r.Bytes(1)
+		if r.Err != nil {
 			return 0
 		}
 		v |= int64(c[0]&0x7f) << shift
@@ -139,14 +143,15 @@ func (r *wasmReader) sleb() int64 {
 	}
 }
 
-func (r *wasmReader) bytes(n int) []byte {
-	if r.err != nil || n < 0 || n > len(r.b) {
-		r.err = errors.New("pack: wasm file cut short")
-		r.b = nil
+// Bytes reads n bytes.
+func (r *WasmReader) Bytes(n int) []byte {
+	if r.Err != nil || n < 0 || n > len(r.B) {
+		r.Err = errors.New("pack: wasm file cut short")
+		r.B = nil
 		return nil
 	}
-	out := r.b[:n]
-	r.b = r.b[n:]
+	out := r.B[:n]
+	r.B = r.B[n:]
 	return out
 }
 

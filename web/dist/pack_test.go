@@ -10,12 +10,12 @@ import (
 // to the end of the last segment.
 func memory(t *testing.T, wasm []byte) (mem []byte, segments int) {
 	t.Helper()
-	r := &wasmReader{b: wasm[8:]}
-	for len(r.b) > 0 {
-		id := r.bytes(1)
-		body := r.bytes(r.uleb())
-		if r.err != nil {
-			t.Fatal(r.err)
+	r := &WasmReader{B: wasm[8:]}
+	for len(r.B) > 0 {
+		id := r.Bytes(1)
+		body := r.Bytes(r.ULEB())
+		if r.Err != nil {
+			t.Fatal(r.Err)
 		}
 		if id[0] != 11 {
 			continue

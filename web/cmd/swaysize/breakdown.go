@@ -14,6 +14,8 @@ import (
 	"io"
 	"sort"
 	"strings"
+
+	"swaysheet/web/dist"
 )
 
 // pkgSize is one package's share of a wasm file's code.
@@ -25,108 +27,74 @@ type pkgSize struct {
 	Code, Gzip int
 }
 
-// wasmReader reads the binary format's LEB128 integers and names.
-type wasmReader struct {
-	b   []byte
-	err error
-}
-
-func (r *wasmReader) uleb() int {
-	var v, shift uint64
-	for {
-		if len(r.b) == 0 {
-			r.err = errors.New("wasm: truncated")
-			return 0
-		}
-		c := r.b[0]
-		r.b = r.b[1:]
-		v |= uint64(c&0x7f) << shift
-		if c&0x80 == 0 || shift > 56 {
-			return int(v)
-		}
-		shift += 7
-	}
-}
-
-func (r *wasmReader) bytes(n int) []byte {
-	if n < 0 || n > len(r.b) {
-		r.err = errors.New("wasm: truncated")
-		r.b = nil
-		return nil
-	}
-	out := r.b[:n]
-	r.b = r.b[n:]
-	return out
-}
-
 // breakdown sums a wasm file's function bodies by package; data is the
 // data section, other the size of the rest of the file.
 func breakdown(wasm []byte) (pkgs []pkgSize, data []byte, other int, err error) {
 	if len(wasm) < 8 || !bytes.Equal(wasm[:4], []byte("\x00asm")) {
 		return nil, nil, 0, errors.New("not a wasm file")
 	}
-	r := &wasmReader{b: wasm[8:]}
+	r := &dist.WasmReader{B: wasm[8:]}
 	imported := 0
 	var bodies [][]byte
 	names := map[int]string{}
-	for len(r.b) > 0 && r.err == nil {
-		id := r.bytes(1)
-		if r.err != nil {
+	for len(r.B) > 0 && r.Err == nil {
+		id := r.Bytes(1)
+		if r.Err != nil {
 			break
 		}
-		sec := &wasmReader{b: r.bytes(r.uleb())}
+		sec := &dist.WasmReader{B: r.Bytes(r.ULEB())}
 		switch id[0] {
 		case 2: // imports: imported functions come first in the index space
-			for n := sec.uleb(); n > 0 && sec.err == nil; n-- {
-				sec.bytes(sec.uleb()) // module
-				sec.bytes(sec.uleb()) // name
-				switch kind := sec.bytes(1); kind[0] {
+			for n := sec.ULEB(); n > 0 && sec.Err == nil; n-- {
+				sec.Bytes(sec.ULEB()) // module
+				sec.Bytes(sec.ULEB()) // name
+				switch kind := sec.Bytes(1); kind[0] {
 				case 0:
-					sec.uleb()
+					sec.ULEB()
 					imported++
 				case 1: // table: reftype, limits
-					sec.bytes(1)
-					if f := sec.bytes(1); f[0]&1 == 1 {
-						sec.uleb()
+					sec.Bytes(1)
+					if f := sec.Bytes(1); f[0]&1 == 1 {
+						sec.ULEB()
 					}
-					sec.uleb()
+					sec.ULEB()
 				case 2: // memory: limits
-					if f := sec.bytes(1); f[0]&1 == 1 {
-						sec.uleb()
+					if f := sec.Bytes(1); f[0]&1 == 1 {
+						sec.ULEB()
 					}
-					sec.uleb()
+					sec.ULEB()
 				case 3: // global: valtype, mutability
-					sec.bytes(2)
+					sec.Bytes(2)
 				}
 			}
 		case 10:
-			for n := sec.uleb(); n > 0 && sec.err == nil; n-- {
-				bodies = append(bodies, sec.bytes(sec.uleb()))
+			for n := sec.ULEB(); n > 0 && sec.Err == nil; n-- {
+				bodies = append(bodies, sec.Bytes(sec.ULEB()))
 			}
 		case 11:
-			data = sec.b
+			data = sec.B
 		case 0:
-			if name := string(sec.bytes(sec.uleb())); name != "name" {
+			if name := string(sec.Bytes(sec.ULEB())); name != "name" {
 				continue
 			}
-			for len(sec.b) > 0 && sec.err == nil {
-				sub := sec.bytes(1)
-				ss := &wasmReader{b: sec.bytes(sec.uleb())}
+			for len(sec.B) > 0 && sec.Err == nil {
+				sub := sec.Bytes(1)
+				ss := &dist.WasmReader{B: sec.Bytes(sec.ULEB())}
 				if sub == nil || sub[0] != 1 {
 					continue
 				}
-				for n := ss.uleb(); n > 0 && ss.err == nil; n-- {
-					idx := ss.uleb()
-					names[idx] = string(ss.bytes(ss.uleb()))
+				for n := ss.ULEB(); n > 0 && ss.Err == nil; n-- {
+					idx := ss.ULEB()
+					names[idx] = string(ss.Bytes(ss.ULEB()))
 				}
 			}
 		}
-		if sec.err != nil {
-			r.err = sec.err
+		if sec.Err != nil {
+			r.Err = sec.Err
 		}
 	}
-	if r.err != nil {
-		return nil, nil, 0, r.err
+	if r.Err != nil {
+		return nil, nil, 0, r.Err
 	}
 	if len(names) == 0 {
 		return nil, nil, 0, errors.New("wasm has no name section (built with -s?)")
