@@ -200,8 +200,12 @@ func printBreakdown(w io.Writer, wasm []byte) error {
 
 // partRows are the largest package families of a wasm (code gzipped on
 // its own, so they add up to a little more than the whole file gzipped)
-// and its data section, as bench rows.
+// and its data section (segments joined, as make wasm ships it), as bench
+// rows.
 func partRows(wasm []byte) ([]row, error) {
+	if packed, err := dist.PackData(wasm, dist.PackGap); err == nil {
+		wasm = packed
+	}
 	pkgs, data, _, err := breakdown(wasm)
 	if err != nil {
 		return nil, err
