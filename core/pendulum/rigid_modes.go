@@ -25,6 +25,10 @@ type RigidMode struct {
 	// body's displacement, its small rotation (ground frame) and, with two
 	// legs, the hook's displacement (9 numbers).
 	Shape [9]float64
+	// Share is the mode's share of the load's swing along a direction
+	// after a sudden start (ModesAlong; zero from Modes and for a free
+	// mode).
+	Share float64
 }
 
 // freeOmega2 is the largest omega^2, 1/s^2, taken as no restoring force
@@ -49,7 +53,9 @@ const freeOmega2 = 1e-7
 // as the symmetric part of M_N K (its antisymmetric part is the
 // differences' error). Each shape is scaled to unit length with its
 // largest component positive.
-func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
+func (r *Rigid) Modes(l float64) ([]RigidMode, error) { return r.modes(l, nil) }
+
+func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 	c := r.Fixed(l)
 	y0 := c.Rest(0)
 	nd := 6
@@ -139,6 +145,18 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 		lowerSolve(ll, sym[a], false)
 	}
 	vals, vecs := symEigen(sym)
+	// The eigenvectors in the coordinates eta, x = L^-T y (columns of xs):
+	// M_N-orthonormal, so xs^-1 = xs^T M_N.
+	xs := newDense(k, k)
+	for j := range k {
+		for a := range k {
+			col[a] = vecs[a][j]
+		}
+		lowerSolve(ll, col, true)
+		for a := range k {
+			xs[a][j] = col[a]
+		}
+	}
 	out := make([]RigidMode, k)
 	for j := range k {
 		w2 := vals[j]
@@ -148,17 +166,9 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 		} else {
 			md.PeriodS = 2 * math.Pi / math.Sqrt(w2)
 		}
-		for a := range k {
-			col[a] = vecs[a][j]
-		}
-		lowerSolve(ll, col, true) // x = L^-T y
+		md.Shape = shapeOf(nb, xs, j)
 		norm, big := 0.0, 0.0
-		for i := range nd {
-			s := 0.0
-			for q := range k {
-				s += nb[i][q] * col[q]
-			}
-			md.Shape[i] = s
+		for _, s := range md.Shape {
 			norm += s * s
 			if math.Abs(s) > math.Abs(big) {
 				big = s
@@ -166,11 +176,14 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 		}
 		if norm > 0 {
 			f := 1 / math.Copysign(math.Sqrt(norm), big)
-			for i := range nd {
+			for i := range md.Shape {
 				md.Shape[i] *= f
 			}
 		}
 		md.Kind = c.kindOf(md.Shape)
+	}
+	if dir != nil {
+		c.shares(out, y0, nb, xs, mk, vals, *dir)
 	}
 	sort.SliceStable(out, func(a, b int) bool {
 		if out[a].Free != out[b].Free {
@@ -179,6 +192,17 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 		return out[a].PeriodS > out[b].PeriodS
 	})
 	return out, nil
+}
+
+// shapeOf is N x_j, the j-th column of xs in the constraints' tangent
+// space.
+func shapeOf(nb, xs dense, j int) (s [9]float64) {
+	for i := range nb {
+		for q := range xs {
+			s[i] += nb[i][q] * xs[q][j]
+		}
+	}
+	return s
 }
 
 // kindOf names a mode shape by its largest kinetic energy share.
