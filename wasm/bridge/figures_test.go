@@ -134,7 +134,7 @@ func TestMemoKey(t *testing.T) {
 // scenario itself for the page's plots), the sheet prints the same one,
 // and evaluating that scenario computes nothing again.
 func TestFiguresSheetAndPlotsAgree(t *testing.T) {
-	data, err := os.ReadFile("examples/plan-bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -185,7 +185,7 @@ func TestFiguresSheetAndPlotsAgree(t *testing.T) {
 		}
 	}
 	// The scenario's own moves: presented as they are.
-	own, _ := os.ReadFile("examples/bay-travel.json")
+	own, _ := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	in, _ = json.Marshal(map[string]any{"scenario": json.RawMessage(own)})
 	f.Result = FiguresReply{}
 	json.Unmarshal(Call(nil, "figures", in), &f)
