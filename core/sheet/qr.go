@@ -1,14 +1,15 @@
 package sheet
 
 import (
-	"fmt"
 	"html"
+	"strconv"
 	"strings"
 )
 
-// qrSVG draws a QR code's modules as one path, black on white.
+// qrSVG draws a QR code's modules (with their quiet zone) as one path,
+// black on white: each row's runs of dark modules as rectangles.
 func qrSVG(bits [][]bool, label string) string {
-	n := len(bits)
+	n := strconv.Itoa(len(bits))
 	var d strings.Builder
 	for y, row := range bits {
 		for x := 0; x < len(row); {
@@ -20,10 +21,11 @@ func qrSVG(bits [][]bool, label string) string {
 			for x+run < len(row) && row[x+run] {
 				run++
 			}
-			fmt.Fprintf(&d, "M%d %dh%dv1h-%dz", x, y, run, run)
+			r := strconv.Itoa(run)
+			d.WriteString("M" + strconv.Itoa(x) + " " + strconv.Itoa(y) + "h" + r + "v1h-" + r + "z")
 			x += run
 		}
 	}
-	return fmt.Sprintf(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %d %d" shape-rendering="crispEdges" role="img" aria-label="%s"><rect width="%d" height="%d" fill="#fff"/><path d="%s" fill="#000"/></svg>`,
-		n, n, html.EscapeString(label), n, n, d.String())
+	return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ` + n + " " + n + `" shape-rendering="crispEdges" role="img" aria-label="` +
+		html.EscapeString(label) + `"><rect width="` + n + `" height="` + n + `" fill="#fff"/><path d="` + d.String() + `" fill="#000"/></svg>`
 }

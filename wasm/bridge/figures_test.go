@@ -13,7 +13,7 @@ import (
 // The figures call presents from the table, in the units asked for, and
 // uses the evaluation the evaluate call made of the same scenario.
 func TestFiguresCallUsesTheLastResult(t *testing.T) {
-	data, err := os.ReadFile("examples/bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -54,7 +54,7 @@ func TestFiguresCallUsesTheLastResult(t *testing.T) {
 // After the page's plan call, the sheet of the same scenario plans
 // nothing again, and a second sheet computes nothing at all.
 func TestSheetUsesTheLastPlan(t *testing.T) {
-	data, err := os.ReadFile("examples/plan-tower-slew.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-tower-slew.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -119,7 +119,7 @@ func TestPlotCall(t *testing.T) {
 // A changed reference field of the sheet computes nothing again; a
 // changed input does.
 func TestMemoKey(t *testing.T) {
-	data, _ := os.ReadFile("examples/hard-stop.json")
+	data, _ := os.ReadFile("../../testdata/scenarios/hard-stop.json")
 	s, err := scenario.Parse(data)
 	if err != nil {
 		t.Fatal(err)
@@ -146,7 +146,7 @@ func TestMemoKey(t *testing.T) {
 // scenario itself for the page's plots), the sheet prints the same one,
 // and evaluating that scenario computes nothing again.
 func TestFiguresSheetAndPlotsAgree(t *testing.T) {
-	data, err := os.ReadFile("examples/plan-bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -197,7 +197,7 @@ func TestFiguresSheetAndPlotsAgree(t *testing.T) {
 		}
 	}
 	// The scenario's own moves: presented as they are.
-	own, _ := os.ReadFile("examples/bay-travel.json")
+	own, _ := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	in, _ = json.Marshal(map[string]any{"scenario": json.RawMessage(own)})
 	f.Result = FiguresReply{}
 	json.Unmarshal(Call(nil, "figures", in), &f)
