@@ -34,8 +34,8 @@ import (
 )
 
 // CSS is the sheet's style sheet: written into a stand-alone sheet, and
-// served to the page as sheet.css (web/static/sheet.css is a copy; a test
-// keeps the two the same).
+// the page's sheet.css (web/offline FromCore serves and builds it from
+// here; there is no copy).
 //
 //go:embed sheet.css
 var CSS string
