@@ -25,19 +25,18 @@ import (
 	"io"
 	"strings"
 
-	qrcode "github.com/skip2/go-qrcode"
-
 	"swaysheet/core/clearance"
 	"swaysheet/core/figures"
 	"swaysheet/core/plan"
+	"swaysheet/core/qr"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
 
 // CSS is the sheet's style sheet: written into a stand-alone sheet, and
-// served to the page as sheet.css (web/static/sheet.css is a copy; a test
-// keeps the two the same).
+// the page's sheet.css (web/offline FromCore serves and builds it from
+// here; there is no copy).
 //
 //go:embed sheet.css
 var CSS string
@@ -264,15 +263,15 @@ func Build(in Input) (*Sheet, error) {
 		v.Dense = true
 	}
 	qrText := in.LinkBase + "#" + ShareFragment(canon)
-	qr, err := qrcode.New(qrText, qrcode.Medium)
+	code, err := qr.Encode(qrText, qr.M)
 	if err != nil {
-		qr, err = qrcode.New(qrText, qrcode.Low)
+		code, err = qr.Encode(qrText, qr.L)
 	}
 	if err != nil {
 		v.QRNote = "The scenario is too large for a QR code (" + err.Error() + "); reopen it from the scenario file with the fingerprint below."
 		qrText = ""
 	} else {
-		v.QR = markup(qrSVG(qr.Bitmap(), "QR code holding the scenario"))
+		v.QR = markup(qrSVG(code.Bitmap(4), "QR code holding the scenario"))
 		v.QRNote = "Scan to reopen this exact scenario."
 	}
 	return &Sheet{Fingerprint: fp, QRText: qrText, data: v}, nil

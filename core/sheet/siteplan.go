@@ -155,13 +155,13 @@ func sitePlanSVG(s *scenario.Scenario, rep *clearance.Report, u units.Choice) st
 			px(cx), math.Max(py(cy)-3, 8), html.EscapeString(o.Name+", top "+Num(top, 3)+" "+sym))
 	}
 	fmt.Fprintf(&b, `<rect x="%g" y="%g" width="%.2f" height="%.2f" fill="none" stroke="#000" stroke-width="0.6"/>`, left, top, pw, ph)
-	xt, xs := ticks(lo[0]*f, hi[0]*f, 6)
+	xt, xs := ticks(lo[0]*f, hi[0]*f, 6, true)
 	for _, t := range xt {
 		if x := px(t / f); x >= left-0.5 && x <= left+pw+0.5 {
 			fmt.Fprintf(&b, `<text x="%.2f" y="%.2f" font-size="8" text-anchor="middle">%s</text>`, x, top+ph+9, tickText(t, xs))
 		}
 	}
-	yt, ys := ticks(lo[1]*f, hi[1]*f, 4)
+	yt, ys := ticks(lo[1]*f, hi[1]*f, 4, true)
 	for _, t := range yt {
 		if y := py(t / f); y >= top-0.5 && y <= top+ph+0.5 {
 			fmt.Fprintf(&b, `<text x="%g" y="%.2f" font-size="8" text-anchor="end">%s</text>`, left-3, y+3, tickText(t, ys))

@@ -30,6 +30,7 @@ import (
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
+	"swaysheet/web/dist"
 	"swaysheet/web/site"
 )
 
@@ -82,11 +83,20 @@ func setupFor(t *testing.T, limit time.Duration) *harness {
 		t.Fatal("chromium is not installed (make deps installs it)")
 	}
 	build := t.TempDir()
-	cmd := exec.Command("go", "build", "-o", filepath.Join(build, "swaysheet.wasm"), "./wasm")
+	// Built as make wasm builds it: stripped, data segments joined.
+	wasmFile := filepath.Join(build, "swaysheet.wasm")
+	cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
 	cmd.Dir = root
 	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
 	if out, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("building the wasm: %v\n%s", err, out)
+	}
+	if w, err := os.ReadFile(wasmFile); err != nil {
+		t.Fatal(err)
+	} else if w, err = dist.PackData(w, dist.PackGap); err != nil {
+		t.Fatal(err)
+	} else if err := os.WriteFile(wasmFile, w, 0o644); err != nil {
+		t.Fatal(err)
 	}
 	wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
 	if err != nil {
