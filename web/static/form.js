@@ -145,7 +145,7 @@ export function bindForm() {
   [$('form'), $('plan-form'), $('body-form')].forEach(bindOne);
 }
 
-function bindOne(f) {
+export function bindOne(f) {
   f.addEventListener('input', function (e) {
     var el = e.target;
     syncPrint(el);

@@ -7,6 +7,7 @@ import { $, esc } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
+import { clearanceVerdict } from './site-view.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
 import { say } from './words.js';
@@ -117,6 +118,7 @@ export function renderResults() {
       (f.result_for ? '<p class="result-for" id="result-for">' + esc(f.result_for) + '</p>' : '') +
       '<ul class="figs" id="figures">' + f.rows.map(function (row) { return figureRow(row, f.verdict.state); }).join('') + '</ul>' +
       engineeringDetail(f.rows, det && det.open);
+    clearanceVerdict();
   }
   hd.dataset.count = String(S.count);
   // The core's warnings in the units shown (the "say" call); should that
