@@ -43,8 +43,18 @@ type Closest struct {
 // AlongPath checks a path, taken as straight between its samples, against
 // the obstacle: the points checked are the samples and points between
 // them at most stepM apart. stepM must be positive (a programmer's error
-// otherwise: it panics).
+// otherwise: it panics). It gives what alongPathEvery gives, looking only
+// at the points that can matter (see alongPathNear).
 func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
+	if !(stepM > 0) {
+		panic("clearance: AlongPath needs a positive step")
+	}
+	return o.alongPathNear(path, radiusM, stepM)
+}
+
+// alongPathEvery is AlongPath looking at every point checked: the plain
+// form, kept to check alongPathNear against.
+func (o *Obstacle) alongPathEvery(path []Sample, radiusM, stepM float64) Closest {
 	if !(stepM > 0) {
 		panic("clearance: AlongPath needs a positive step")
 	}
