@@ -22,10 +22,11 @@ import "math"
 // within a cell.
 
 // sweepCapsules is sweepBallCells marking each row's interval at once.
-// The interval found, cells l to r, holds the cells that pass the test
-// and is within a cell of them at each end (the two differ only by
-// rounding and the nanometre): the cells from l+1 to r-1 are marked, and
-// each of l-1, l, r and r+1 not yet marked is tested.
+// The interval found, cells l to r (those whose centres are in the
+// capsule a nanometre wider), holds the cells that pass the test and is
+// within a cell of them at each end (the two differ only by rounding and
+// the nanometre): the cells from l+1 to r-1 are marked, and each of l and
+// r not yet marked is tested.
 func sweepCapsules(points []Point2, reach, cellM float64, i0, j0, nx, ny int, covered []bool) {
 	reach2 := reach * reach
 	piece := func(a, b Point2) {
@@ -54,10 +55,8 @@ func sweepCapsules(points []Point2, reach, cellM float64, i0, j0, nx, ny int, co
 					row[i-i0] = true
 				}
 			}
-			test(l - 1)
 			test(l)
 			test(r)
-			test(r + 1)
 		}
 	}
 	if len(points) == 1 {
