@@ -30,9 +30,10 @@ import "math"
 // SegmentStrikes test is made only on the others. The answer is that of
 // alongPathEvery (TestAlongPathNearMatchesEvery).
 func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest {
-	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
+	w := newBallWatch(o, radiusM)
+	c := &w.c
 	if len(path) == 0 {
-		return c
+		return *c
 	}
 	const coarseM, tolM = 0.25, 1e-9
 	n := len(path)
@@ -55,20 +56,7 @@ func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest 
 	keepV, keepD := math.Max(least, 0)+tolM, radiusM+tolM
 	lo, hi := outlineBox(o.Outline)
 
-	firstOverlap := math.NaN()
-	var overlapAt Point3
-	offer := func(t float64, q Point3) {
-		v, over, gap := o.ballClearance(q, radiusM)
-		if v < c.ClearanceM {
-			c.ClearanceM, c.TimeS, c.At = v, t, q
-		}
-		if over && gap < c.GapM {
-			c.GapM, c.GapAtS, c.GapAt = gap, t, q
-		}
-		if v < 0 && math.IsNaN(firstOverlap) {
-			firstOverlap, overlapAt = t, q
-		}
-	}
+	offer := w.offer
 	offer(path[0].TimeS, path[0].At)
 	m := 0 // coarse[m] <= i < coarse[m+1]
 	for i := 0; i+1 < n; i++ {
@@ -100,13 +88,7 @@ func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest 
 			offer(a.TimeS+f*(b.TimeS-a.TimeS), Point3{a.At.X + f*dx, a.At.Y + f*dy, a.At.Z + f*dz})
 		}
 	}
-	if !math.IsNaN(firstOverlap) {
-		if !c.Strikes || firstOverlap < c.FirstStrikeS {
-			c.FirstStrikeS, c.FirstStrikeAt = firstOverlap, overlapAt
-		}
-		c.Strikes = true
-	}
-	return c
+	return w.result()
 }
 
 // outlineBox is the corners of the box that holds the outline.
