@@ -10,8 +10,9 @@ import (
 // (see Stray), finding few points' distances exactly. A point's squared
 // distance to the polyline is at most its squared distance to any one
 // segment: that of the segment reached by walking along the polyline
-// from the previous point's, while a neighbouring segment is nearer,
-// bounds it. The points are then taken by bound, largest first, each
+// from the previous point's, while a neighbouring segment is nearer (or
+// as near, going on: a load at rest gives segments of no length), bounds
+// it. The points are then taken by bound, largest first, each
 // one's distance found exactly (nearest.dist2), until the next bound is
 // no more than the largest found: no point left can lie farther. The
 // answer is strayEvery's (TestStrayMatchesEvery).
@@ -25,7 +26,7 @@ func (n *nearest) stray(run []Point2) float64 {
 	_, s := n.closest(run[0])
 	for i, p := range run {
 		b := d(p, s)
-		for s < last && d(p, s+1) < b {
+		for s < last && d(p, s+1) <= b {
 			s++
 			b = d(p, s)
 		}
