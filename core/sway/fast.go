@@ -63,6 +63,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
+	if su.model == nil {
+		su.model = su.general()
+	}
 	sc := newScanner(su.model, su.motionEnd)
 	sc.maxSteps = maxN
 	sc.recorder = rec
