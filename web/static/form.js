@@ -1,6 +1,7 @@
 // form.js: the inputs: the form, its events and the messages at fields.
 
 import { changed } from './compute.js';
+import { renderBodyForm } from './body-form.js';
 import { $, cssEsc } from './dom.js';
 import { numField, section, selectField, syncPrint, textField, unitChoosers } from './fields.js';
 import { inputsHTML, motionHTML, onList, planOnChange, planOnSelect } from './plan-form.js';
@@ -81,7 +82,8 @@ export function renderForm() {
     [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
   $('form').innerHTML = h.join('');
   $('plan-form').innerHTML = inputsHTML();
-  document.querySelectorAll('#form, #plan-form').forEach(function (f) {
+  renderBodyForm();
+  document.querySelectorAll('#form, #plan-form, #body-form').forEach(function (f) {
     f.querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
   });
   showErrors();
@@ -143,7 +145,7 @@ export function clearBad(prefix) {
 }
 
 export function bindForm() {
-  [$('form'), $('plan-form')].forEach(bindOne);
+  [$('form'), $('plan-form'), $('body-form')].forEach(bindOne);
 }
 
 function bindOne(f) {
@@ -238,7 +240,7 @@ function shownMessage(fe) {
   var u = unitOf(el.dataset.dq);
   if (u.to_si === 1 && u.symbol === r.unit) return msg;
   var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
+  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo, 'min') + ' up to ' + fmtRange(hi, 'max') + ' ' + u.symbol;
   if (/ is out of range: /.test(fe.message)) {
     return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
   }
