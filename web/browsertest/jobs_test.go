@@ -79,7 +79,7 @@ var viewports = []struct {
 // fieldsShown counts the inputs a person sees on the page (a closed fold
 // hides what is in it).
 const fieldsShown = `Array.from(document.querySelectorAll('main input:not([type=file]), main select, main textarea'))
-	.filter(function (e) { var r = e.getBoundingClientRect(); return r.width > 0 && r.height > 0; }).length`
+	.filter(function (e) { return e.checkVisibility(); }).length`
 
 // bringIntoView scrolls a target into view as a person would (only when it
 // is not in view already, clear of the bottom bar) and says how far it
@@ -198,6 +198,15 @@ func TestCrewJobs(t *testing.T) {
 			if err := os.WriteFile(filepath.Join(dir, "job-"+j.name+"-"+vp.name+".png"), b, 0o644); err != nil {
 				t.Fatal(err)
 			}
+			if j.name == "check-a-move" {
+				b, err := chromedp.Run(h.ctx, chromedp.FullScreenshot(100))
+				if err != nil {
+					t.Fatal(err)
+				}
+				if err := os.WriteFile(filepath.Join(dir, "job-page-"+vp.name+"-full.png"), b, 0o644); err != nil {
+					t.Fatal(err)
+				}
+			}
 			if bad := h.axe(); len(bad) > 0 {
 				t.Errorf("%s at %s: axe-core finds:\n%s", j.name, vp.name, strings.Join(bad, "\n"))
 			}
@@ -240,8 +249,7 @@ const tabOrder = `(function () {
   var oneColumn = innerWidth < 1100;
   for (var i = 1; i < els.length; i++) {
     var a = els[i - 1], b = els[i], ra = a.getBoundingClientRect(), rb = b.getBoundingClientRect();
-    var same = a.closest('main > *, .side > *') === b.closest('main > *, .side > *');
-    if ((same || oneColumn) && rb.top < ra.top - 30) out.push((b.id || b.textContent.trim().slice(0, 24)) + ' comes after ' + (a.id || a.textContent.trim().slice(0, 24)) + ' but sits ' + Math.round(ra.top - rb.top) + ' px above it');
+    if ((oneColumn || a.closest('.col') === b.closest('.col')) && rb.top < ra.top - 30) out.push((b.id || b.textContent.trim().slice(0, 24)) + ' comes after ' + (a.id || a.textContent.trim().slice(0, 24)) + ' but sits ' + Math.round(ra.top - rb.top) + ' px above it');
   }
   return out.slice(0, 8).join('; ');
 })()`
