@@ -36,6 +36,8 @@ type Envelope struct {
 	CellM   float64
 	NX, NY  int
 	Covered []bool // NX*NY cells, row by row from Y0M
+	// Members are the indices of the runs inside, least straying first.
+	Members []int
 	// Confidence is the probability that the envelope's coverage of all
 	// possible runs is at least Level: 1 - I_p(k, N+1-k).
 	Confidence float64
@@ -46,6 +48,10 @@ type Envelope struct {
 type PlanPath struct {
 	Points  []Point2
 	RadiusM float64
+	// Outlines, when set, are a rigid load's outline seen from above at
+	// each point (the convex hull of its box's corners): the envelope then
+	// sweeps these outlines rather than a ball.
+	Outlines [][]Point2
 }
 
 // Stray is the largest distance of the path's points from the nominal
@@ -104,25 +110,32 @@ func (n *nearest) cell(x, y float64) (int, int) {
 
 // dist2 is the squared distance from p to the polyline.
 func (n *nearest) dist2(p Point2) float64 {
+	d, _ := n.closest(p)
+	return d
+}
+
+// closest is the squared distance from p to the polyline and the first
+// segment at that distance (0 for a single point).
+func (n *nearest) closest(p Point2) (float64, int) {
 	if n.single {
 		dx, dy := p.X-n.pts[0].X, p.Y-n.pts[0].Y
-		return dx*dx + dy*dy
+		return dx*dx + dy*dy, 0
 	}
 	ci, cj := n.cell(p.X, p.Y)
 	// Distance from p to the grid's box, for points outside it.
 	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
 	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
 	outside := math.Hypot(ox, oy)
-	best := math.Inf(1)
+	best, seg := math.Inf(1), 0
 	for ring := 0; ; ring++ {
 		// Every bucket not yet searched is at least ring-1 buckets from
 		// p's own along some axis, and no nearer than the grid's box.
 		reach := max(outside, float64(ring-1)*n.g)
 		if ring > 0 && reach > 0 && reach*reach >= best {
-			return best
+			return best, seg
 		}
 		if ring > n.nx && ring > n.ny {
-			return best
+			return best, seg
 		}
 		for j := cj - ring; j <= cj+ring; j++ {
 			if j < 0 || j >= n.ny {
@@ -133,8 +146,8 @@ func (n *nearest) dist2(p Point2) float64 {
 					continue
 				}
 				for _, s := range n.bucket[j*n.nx+i] {
-					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best {
-						best = d
+					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
+						best, seg = d, int(s)
 					}
 				}
 			}
@@ -211,9 +224,16 @@ func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) 
 	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
 	for _, s := range rank[:k] {
 		r := runs[s.i]
+		e.Members = append(e.Members, s.i)
 		for _, p := range r.Points {
 			lo.X, lo.Y = math.Min(lo.X, p.X-r.RadiusM), math.Min(lo.Y, p.Y-r.RadiusM)
 			hi.X, hi.Y = math.Max(hi.X, p.X+r.RadiusM), math.Max(hi.Y, p.Y+r.RadiusM)
+		}
+		for _, o := range r.Outlines {
+			for _, p := range o {
+				lo.X, lo.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y)
+				hi.X, hi.Y = math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+			}
 		}
 	}
 	e.X0M, e.Y0M = lo.X-cellM, lo.Y-cellM
@@ -234,6 +254,10 @@ const maxCells = 4 << 20
 // sweep marks every cell that comes within the radius of the path: the
 // cell's centre within radius plus half the cell's diagonal.
 func (e *Envelope) sweep(r PlanPath) {
+	if r.Outlines != nil {
+		e.sweepOutlines(r.Outlines)
+		return
+	}
 	reach := r.RadiusM + e.CellM*math.Sqrt2/2
 	reach2 := reach * reach
 	mark := func(a, b Point2) {

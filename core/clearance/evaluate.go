@@ -29,6 +29,14 @@ type Report struct {
 	Envelope95 EnvelopeOut `json:"envelope_95"`
 	// Nominal is the load's path with every spread at zero.
 	Nominal []Point2 `json:"nominal"`
+	// Outline is how the load's extent is taken (OutlineBall or
+	// OutlineBox); LoadRadiusM the ball's radius (zero for a box).
+	Outline     string  `json:"outline"`
+	LoadRadiusM float64 `json:"load_radius_m"`
+	// Spread is the spreads the runs were drawn with (nil: one run, none).
+	Spread *draws.Spread `json:"spread,omitempty"`
+	// Section is the vertical section along the crane's path.
+	Section Section `json:"section"`
 	// Assumptions state what the check takes for granted.
 	Assumptions []string `json:"assumptions"`
 }
@@ -56,6 +64,9 @@ type Options struct {
 	// StepM is the largest gap between points checked along a path
 	// (zero: 0.02 m); CellM the envelope's cell (zero: 0.1 m).
 	StepM, CellM float64
+	// Budget, given, is the work allowance every run draws on (see
+	// sway.Budget); nil: each run has its own.
+	Budget *sway.Budget
 }
 
 // ExclusionConfidence is how sure the exclusion zone must be that it
@@ -82,38 +93,36 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 		opt.CellM = 0.1
 	}
 	site := SiteOf(s.Site)
-	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true})
+	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
 	if err != nil {
 		return nil, err
 	}
-	all, err := evaluateRuns(s, runs, variant, opt.Workers)
+	all, err := evaluateRuns(s, runs, variant, opt.Workers, opt.Budget)
 	if err != nil {
 		return nil, err
 	}
-	reps, err := site.Check(all, opt.StepM)
+	reps, where, err := site.check(all, opt.StepM)
 	if err != nil {
 		return nil, err
 	}
-	rep := &Report{Runs: runs, Seed: seed, MarginM: site.MarginM, Obstacles: reps}
-	rep.Clears, rep.Words = Verdict(reps, site.MarginM)
-	nomRun := RunOf(&nominal.History)
-	for _, p := range nomRun.Path(site.SuspensionHeightM) {
-		rep.Nominal = append(rep.Nominal, p.At.Plan())
+	rep := &Report{Runs: runs, Seed: seed, MarginM: site.MarginM, Obstacles: reps,
+		Outline: OutlineBall, LoadRadiusM: site.LoadRadiusM}
+	nomRun := RunOf(nominal)
+	if nomRun.Rigid() {
+		rep.Outline, rep.LoadRadiusM = OutlineBox, 0
 	}
+	nomPlan := nomRun.planPath(site.SuspensionHeightM, rep.LoadRadiusM)
+	rep.Nominal = nomPlan.Points
 	plans := make([]PlanPath, len(all))
 	for i := range all {
-		path := all[i].Path(site.SuspensionHeightM)
-		pts := make([]Point2, len(path))
-		for k, p := range path {
-			pts[k] = p.At.Plan()
-		}
-		plans[i] = PlanPath{Points: pts, RadiusM: site.LoadRadiusM}
+		plans[i] = all[i].planPath(site.SuspensionHeightM, rep.LoadRadiusM)
 	}
 	strays, err := Strays(plans, rep.Nominal)
 	if err != nil {
 		return nil, err
 	}
-	for _, e := range []struct {
+	var envs [2]*Envelope
+	for k, e := range []struct {
 		level, conf float64
 		out         *EnvelopeOut
 	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
@@ -121,24 +130,42 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 		if err != nil {
 			return nil, err
 		}
+		envs[k] = env
 		*e.out = EnvelopeOut{Level: e.level, Inside: env.Inside, StrayM: env.StrayM, CellM: env.CellM,
 			AreaM2: env.AreaM2(), Confidence: env.Confidence, Spans: env.Spans()}
 	}
+	rep.Section = sectionOf(site, &nomRun, all, envs[0], envs[1], rep.Obstacles, where)
+	rep.Clears, rep.Words = Verdict(rep.Obstacles, site.MarginM)
+	load := "The load is a ball of the stated size about its centre of mass"
+	if rep.Outline == OutlineBox {
+		load = "The load is its box, corners as simulated, taken against each obstacle as the upright prism that holds it (exact for a level load, on the safe side for a tilted one)"
+	}
 	rep.Assumptions = []string{
-		"The load is a ball of the stated size about its centre of mass; obstacles are upright shapes standing from the floor up to their top height.",
+		load + "; obstacles are upright shapes standing from the floor up to their top height.",
 		fmt.Sprintf("Each run's path is taken as straight between the simulation's time samples and checked at points at most %.2f m apart; the clearance between them can be smaller by at most half that gap.", opt.StepM),
-		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations); they say how the path spreads when the inputs do, not how likely any input is.",
+		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations; an emergency stop at a moment drawn evenly over the move); they say how the path spreads when the inputs do, not how likely any input is.",
 		"The 95 % envelope holds the paths of the runs that stray least from the path with no spread, as many as it takes to be 95 % sure that it holds 95 % of all possible runs (a tolerance region; with few runs, all of them, and the confidence is stated).",
 	}
 	return rep, nil
 }
 
+// CheckWork is the work budget of one clearance check, shared by all its
+// runs (see sway.Budget): about 26 s of one core. The examples' 200 runs
+// need 1e7 (a point load); a rigid load's run needs a few million.
+const CheckWork = 2_000_000_000
+
+const checkBudgetMessage = "This clearance check needs more computing than allowed: use fewer runs (site.spread.runs), shorten the moves, or set a looser accuracy (settings.rel_tol)."
+
 // Check runs the clearance check the scenario's site block asks for: its
 // spread's runs (scenario.DefaultSiteRuns when it gives none) drawn by
-// package draws with its seed; with no spread, one run.
+// package draws with its seed; with no spread, one run. The runs share
+// opt.Budget, or one of CheckWork.
 func Check(s *scenario.Scenario, opt Options) (*Report, error) {
 	if s.Site == nil {
 		return nil, ErrNoSite
+	}
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
 	}
 	sp := s.Site.Spread
 	if sp == nil {
@@ -149,11 +176,15 @@ func Check(s *scenario.Scenario, opt Options) (*Report, error) {
 		runs = scenario.DefaultSiteRuns
 	}
 	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
-		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS}
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
 	seed := uint64(sp.Seed)
-	return Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
+	rep, err := Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
 		return draws.Draw(s, spread, seed, i)
 	}, opt)
+	if rep != nil {
+		rep.Spread = &spread
+	}
+	return rep, err
 }
 
 // SiteOf turns the scenario's site block into obstacles.
@@ -170,31 +201,4 @@ func SiteOf(st *scenario.Site) *Site {
 		out.Obstacles = append(out.Obstacles, ob)
 	}
 	return out
-}
-
-// RunOf takes a run's path from an evaluation's time histories.
-func RunOf(h *sway.History) Run {
-	return Run{TimeS: h.TimeS, RelXM: h.RelXM, RelYM: h.RelYM, RelZM: h.RelZM,
-		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM}
-}
-
-// evaluateRuns evaluates every run, in parallel; a run the core rejects
-// ends the check with that run's error, naming it.
-func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int) ([]Run, error) {
-	out := make([]Run, n)
-	err := draws.Each(n, workers, func(i int) error {
-		v := s
-		if variant != nil {
-			if d := variant(i); d != nil {
-				v = d
-			}
-		}
-		r, err := sway.EvaluateWith(v, sway.Options{})
-		if err != nil {
-			return fmt.Errorf("run %d: %w", i, err)
-		}
-		out[i] = RunOf(&r.History)
-		return nil
-	})
-	return out, err
 }

@@ -1,9 +1,14 @@
 package clearance
 
 import (
+	"encoding/json"
+	"errors"
 	"math"
+	"reflect"
+	"strings"
 	"testing"
 
+	"swaysheet/core/draws"
 	"swaysheet/core/internal/testscenario"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
@@ -30,7 +35,7 @@ func TestNoSpreadEnvelopeIsTheRun(t *testing.T) {
 		t.Fatal(err)
 	}
 	res, _ := sway.Evaluate(s)
-	run := RunOf(&res.History)
+	run := RunOf(res)
 	var pts []Point2
 	for _, p := range run.Path(12) {
 		pts = append(pts, p.At.Plan())
@@ -77,7 +82,7 @@ func TestRopeSpreadEnvelopeMatchesTheRangeEnds(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		run := RunOf(&res.History)
+		run := RunOf(res)
 		for _, p := range run.Path(12) {
 			farthest = math.Max(farthest, p.At.X+0.5)
 			nearest = math.Min(nearest, p.At.X-0.5)
@@ -96,4 +101,109 @@ func extentX(spans []Span) (hi, lo float64) {
 		lo = math.Min(lo, s.X0M)
 	}
 	return hi, lo
+}
+
+func TestZeroSpreadThroughTheDraws(t *testing.T) {
+	// A spread block with every spread at zero draws runs that are all
+	// the scenario itself: both envelopes are the single run's swept area,
+	// cell for cell, and the section's bands are its own lowest point
+	// (nothing stochastic is left: the check is the deterministic one).
+	s := bay(t)
+	s.Site.Spread = &scenario.SiteSpread{Runs: 20, Seed: 4}
+	rep, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	one, err := Evaluate(s, 1, 0, nil, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, e := range []EnvelopeOut{rep.Envelope50, rep.Envelope95} {
+		own := []EnvelopeOut{one.Envelope50, one.Envelope95}[k]
+		if e.StrayM != 0 || !reflect.DeepEqual(e.Spans, own.Spans) {
+			t.Errorf("level %g: stray %g, %d spans; the single run's %d", e.Level, e.StrayM, len(e.Spans), len(own.Spans))
+		}
+	}
+	if !reflect.DeepEqual(rep.Section.Envelope95.LowM, one.Section.Envelope95.LowM) {
+		t.Error("the section's band is not the single run's")
+	}
+}
+
+func TestSeedReproducesAndConfidenceIsStated(t *testing.T) {
+	// The same seed gives the same report, whatever the number of
+	// goroutines; the exclusion zone's confidence is the binomial one for
+	// its runs inside of the runs drawn: P(Binomial(N, 0.95) <= k-1)
+	// (distribution-free tolerance region, Wilks 1941; see
+	// TestEnvelopeConfidence for the identity), and it reaches 95 %.
+	s := bay(t)
+	two := 0.2
+	s.Site.Spread = &scenario.SiteSpread{Runs: 80, Seed: 9, RopeLengthM: two, PressS: two}
+	a, err := Check(s, Options{Workers: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Check(s, Options{Workers: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ja, _ := json.Marshal(a)
+	jb, _ := json.Marshal(b)
+	if string(ja) != string(jb) {
+		t.Fatal("the same seed gave different reports")
+	}
+	e := a.Envelope95
+	if e.Confidence != CoverageConfidence(e.Inside, a.Runs, Required) || e.Confidence < ExclusionConfidence {
+		t.Errorf("95 %% envelope: %d of %d runs, confidence %g", e.Inside, a.Runs, e.Confidence)
+	}
+	s.Site.Spread.Seed = 10
+	c, _ := Check(s, Options{})
+	if jc, _ := json.Marshal(c); string(jc) == string(ja) {
+		t.Error("another seed gave the same runs")
+	}
+}
+
+func TestEmergencyStopSpreadInTheCheck(t *testing.T) {
+	// An emergency stop only (1 s reaction, the move's own 0.25 m/s²
+	// braking): each run's trolley ends v*t_r + v²/(2a) past where it was
+	// at its stop command, v its speed then (constant speed, then uniform
+	// deceleration: any mechanics text; 0.5 m + 0.5 m in the cruise at
+	// 0.5 m/s).
+	s := bay(t)
+	one := 1.0
+	s.Site.Spread = &scenario.SiteSpread{Runs: 30, Seed: 2, EmergencyStop: &scenario.EmergencyStop{ReactionS: &one}}
+	rep, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	base, _ := sway.BuildProfile(s, &s.Motions[0])
+	sp := draws.Spread{EmergencyStop: s.Site.Spread.EmergencyStop}
+	for i := 0; i < 30; i++ {
+		d := draws.Draw(s, sp, 2, i)
+		at := draws.StopAtS(d)
+		st := base.At(at)
+		want := st.Pos + st.Vel*1 + st.Vel*st.Vel/(2*0.25)
+		res, err := sway.Evaluate(d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		x := res.History.SuspensionXM
+		if got := x[len(x)-1]; math.Abs(got-want) > 1e-9 {
+			t.Errorf("run %d, stopped at %.2f s at %.3f m/s: ends at %.6f m, want %.6f", i, at, st.Vel, got, want)
+		}
+	}
+	if rep.Spread == nil || rep.Spread.EmergencyStop == nil || *rep.Spread.EmergencyStop.ReactionS != 1 {
+		t.Errorf("the report does not state the spread: %+v", rep.Spread)
+	}
+	if rep.Envelope95.StrayM == 0 {
+		t.Error("the stops do not spread the runs")
+	}
+}
+
+func TestCheckBudgetNamesWhatToShorten(t *testing.T) {
+	s := bay(t)
+	s.Site.Spread = &scenario.SiteSpread{Runs: 50, Seed: 1, RopeLengthM: 0.1}
+	_, err := Check(s, Options{Budget: sway.NewBudget(1000, checkBudgetMessage)})
+	if !errors.Is(err, sway.ErrWorkLimit) || !strings.Contains(err.Error(), "site.spread.runs") {
+		t.Errorf("error %v", err)
+	}
 }

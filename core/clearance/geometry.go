@@ -194,13 +194,26 @@ func SegmentPlanDistance(a, b Point2, poly []Point2) float64 {
 // at q from the obstacle (see the package comment): negative when they
 // overlap.
 func (o *Obstacle) Clearance(q Point3, radiusM float64) float64 {
+	v, _, _ := o.ballClearance(q, radiusM)
+	return v
+}
+
+// ballClearance is Clearance, and whether the ball is over (or in) the
+// outline seen from above (its centre within its radius of it), with the
+// height of its lowest point above the top (gapM, negative below it).
+func (o *Obstacle) ballClearance(q Point3, radiusM float64) (clearM float64, over bool, gapM float64) {
 	p := q.Plan()
-	if Inside(p, o.Outline) && q.Z <= o.TopM {
-		return -math.Min(EdgeDistance(p, o.Outline), o.TopM-q.Z) - radiusM
+	in := Inside(p, o.Outline)
+	gapM = q.Z - radiusM - o.TopM
+	if in && q.Z <= o.TopM {
+		return -math.Min(EdgeDistance(p, o.Outline), o.TopM-q.Z) - radiusM, true, gapM
 	}
-	dxy := PlanDistance(p, o.Outline)
+	dxy := 0.0
+	if !in {
+		dxy = EdgeDistance(p, o.Outline)
+	}
 	dz := math.Max(0, q.Z-o.TopM)
-	return math.Hypot(dxy, dz) - radiusM
+	return math.Hypot(dxy, dz) - radiusM, dxy <= radiusM, gapM
 }
 
 // SegmentStrikes reports whether the straight segment from a to b passes

@@ -30,7 +30,14 @@ type Closest struct {
 	// checked where the load overlaps the obstacle, or, when only a
 	// straight piece's centre line passes through it between points
 	// checked, the start of that piece.
-	FirstStrikeS float64
+	FirstStrikeS  float64
+	FirstStrikeAt Point3
+	// GapM is the smallest height of the load's lowest point above the
+	// obstacle's top at the points checked where the load is over its
+	// outline seen from above (+Inf when it never is), at GapAtS, GapAt.
+	GapM   float64
+	GapAtS float64
+	GapAt  Point3
 }
 
 // AlongPath checks a path, taken as straight between its samples, against
@@ -41,18 +48,22 @@ func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 	if !(stepM > 0) {
 		panic("clearance: AlongPath needs a positive step")
 	}
-	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN()}
+	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
 	if len(path) == 0 {
 		return c
 	}
 	firstOverlap := math.NaN()
+	var overlapAt Point3
 	offer := func(t float64, q Point3) {
-		v := o.Clearance(q, radiusM)
+		v, over, gap := o.ballClearance(q, radiusM)
 		if v < c.ClearanceM {
 			c.ClearanceM, c.TimeS, c.At = v, t, q
 		}
+		if over && gap < c.GapM {
+			c.GapM, c.GapAtS, c.GapAt = gap, t, q
+		}
 		if v < 0 && math.IsNaN(firstOverlap) {
-			firstOverlap = t
+			firstOverlap, overlapAt = t, q
 		}
 	}
 	offer(path[0].TimeS, path[0].At)
@@ -72,14 +83,14 @@ func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 			c.ErrorBoundM = half
 		}
 		if !c.Strikes && o.SegmentStrikes(a.At, b.At) {
-			c.Strikes, c.FirstStrikeS = true, a.TimeS
+			c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, a.TimeS, a.At
 		}
 	}
 	if !math.IsNaN(firstOverlap) {
 		// An overlap at a point checked is a strike (the load's radius
 		// reaches the obstacle even where its centre line does not).
 		if !c.Strikes || firstOverlap < c.FirstStrikeS {
-			c.FirstStrikeS = firstOverlap
+			c.FirstStrikeS, c.FirstStrikeAt = firstOverlap, overlapAt
 		}
 		c.Strikes = true
 	}

@@ -22,28 +22,6 @@ type Site struct {
 	LoadRadiusM float64
 }
 
-// Run is one simulated run: the load's centre relative to the suspension
-// point and the suspension point on the ground frame, sampled in time
-// (sway.History's fields).
-type Run struct {
-	TimeS                      []float64
-	RelXM, RelYM, RelZM        []float64
-	SuspensionXM, SuspensionYM []float64
-}
-
-// Path is the load's centre on the ground frame, z up from the floor.
-func (r *Run) Path(suspensionHeightM float64) []Sample {
-	out := make([]Sample, len(r.TimeS))
-	for i, t := range r.TimeS {
-		out[i] = Sample{TimeS: t, At: Point3{
-			r.SuspensionXM[i] + r.RelXM[i],
-			r.SuspensionYM[i] + r.RelYM[i],
-			suspensionHeightM + r.RelZM[i],
-		}}
-	}
-	return out
-}
-
 // ObstacleReport is how a set of runs passes one obstacle.
 type ObstacleReport struct {
 	Name string `json:"name"`
@@ -65,6 +43,15 @@ type ObstacleReport struct {
 	SmallestM    float64 `json:"smallest_m"`
 	SmallestAtS  float64 `json:"smallest_at_s"`
 	SmallestAt   Point3  `json:"smallest_at"`
+	// SmallestAtDistanceM is where that is along the crane's path, and
+	// FirstStrikeAtDistanceM where the earliest strike is: the distance
+	// of the load's centre (see Section; a long load's end reaches an
+	// obstacle well before its centre does).
+	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
+	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
+	// Vertical is the gap below the load while it passes over the
+	// obstacle; nil when no run passes over it.
+	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
 }
@@ -76,38 +63,67 @@ const Required = 0.95
 // Check passes every run by every obstacle. The points checked along each
 // path are at most stepM apart. It is an error to give no runs or a
 // site whose obstacles are not valid (each error names the obstacle).
+// Distances along the crane's path are left at zero (Evaluate fills them
+// in).
 func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
+	reps, _, err := s.check(runs, stepM)
+	return reps, err
+}
+
+// check is Check, with where each obstacle's report found its smallest
+// clearance, first strike and smallest gap (for their distances along
+// the path).
+func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, error) {
 	if len(runs) == 0 {
-		return nil, errors.New("clearance: no runs to check")
+		return nil, nil, errors.New("clearance: no runs to check")
 	}
 	for i := range s.Obstacles {
 		if err := s.Obstacles[i].Validate(); err != nil {
-			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
+			return nil, nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
 		}
 	}
 	paths := make([][]Sample, len(runs))
+	boxes := make([][]BoxSample, len(runs))
 	for i := range runs {
-		paths[i] = runs[i].Path(s.SuspensionHeightM)
+		if runs[i].Rigid() {
+			boxes[i] = runs[i].Boxes(s.SuspensionHeightM)
+		} else {
+			paths[i] = runs[i].Path(s.SuspensionHeightM)
+		}
 	}
 	out := make([]ObstacleReport, len(s.Obstacles))
+	where := make([]Closest, len(s.Obstacles))
 	for k := range s.Obstacles {
 		o := &s.Obstacles[k]
 		rep := ObstacleReport{Name: o.Name, Runs: len(runs), SmallestM: math.Inf(1)}
+		w := Closest{GapM: math.Inf(1)}
 		smallest := make([]float64, len(runs))
-		for i, p := range paths {
-			c := o.AlongPath(p, s.LoadRadiusM, stepM)
+		var gaps []float64
+		for i := range runs {
+			var c Closest
+			if boxes[i] != nil {
+				c = o.AlongBoxPath(boxes[i], stepM)
+			} else {
+				c = o.AlongPath(paths[i], s.LoadRadiusM, stepM)
+			}
 			smallest[i] = c.ClearanceM
 			if c.ClearanceM >= s.MarginM && !c.Strikes {
 				rep.KeepMargin++
 			}
 			if c.Strikes {
 				if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
-					rep.FirstStrikeS = c.FirstStrikeS
+					rep.FirstStrikeS, w.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
 				}
 				rep.Strikes++
 			}
 			if c.ClearanceM < rep.SmallestM {
 				rep.SmallestM, rep.SmallestAtS, rep.SmallestAt = c.ClearanceM, c.TimeS, c.At
+			}
+			if !math.IsInf(c.GapM, 1) {
+				gaps = append(gaps, c.GapM)
+				if c.GapM < w.GapM {
+					w.GapM, w.GapAtS, w.GapAt = c.GapM, c.GapAtS, c.GapAt
+				}
 			}
 			rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
 		}
@@ -115,9 +131,15 @@ func (s *Site) Check(runs []Run, stepM float64) ([]ObstacleReport, error) {
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(runs))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(runs), 0.95)
-		out[k] = rep
+		if len(gaps) > 0 {
+			sort.Float64s(gaps)
+			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
+				P5M: gaps[nearestRank(0.05, len(gaps))]}
+		}
+		w.At = rep.SmallestAt
+		out[k], where[k] = rep, w
 	}
-	return out, nil
+	return out, where, nil
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the
@@ -140,7 +162,7 @@ func Verdict(reports []ObstacleReport, marginM float64) (ok bool, words []string
 		w := fmt.Sprintf("%s: the load keeps %.2f m from it in %d of %d runs (%.0f %%; %.0f %% needed)",
 			r.Name, marginM, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
 		if r.Strikes > 0 {
-			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move", r.Strikes, r.FirstStrikeS)
+			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move, %.1f m along the path", r.Strikes, r.FirstStrikeS, r.FirstStrikeAtDistanceM)
 		}
 		words = append(words, w+".")
 	}

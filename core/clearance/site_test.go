@@ -18,6 +18,8 @@ func straightRun(y float64) Run {
 		r.RelXM = append(r.RelXM, 0)
 		r.RelYM = append(r.RelYM, y)
 		r.RelZM = append(r.RelZM, -6)
+		r.RopeM = append(r.RopeM, 6)
+		r.SwingDeg = append(r.SwingDeg, 0)
 	}
 	return r
 }

@@ -68,5 +68,10 @@ func Draw(s *scenario.Scenario, sp Spread, seed uint64, i int) *scenario.Scenari
 		}
 		d.Wind = &wind
 	}
+	// The stop's moment is drawn last and always, so that it leaves the
+	// other values as they were.
+	if u := rng.Float64(); sp.EmergencyStop != nil && sp.EmergencyStop.ReactionS != nil {
+		stopAll(&d, sp.EmergencyStop, u)
+	}
 	return &d
 }

@@ -46,6 +46,9 @@ type Spread struct {
 	GustPct float64 `json:"gust_pct,omitempty"`
 	// GustS scatters when the wind sets in (wind.start_s), s.
 	GustS float64 `json:"gust_s,omitempty"`
+	// EmergencyStop, given, stops each draw at a moment drawn uniformly
+	// over the move (see scenario.EmergencyStop and stop.go).
+	EmergencyStop *scenario.EmergencyStop `json:"emergency_stop,omitempty"`
 }
 
 // Request is a set of draws of one scenario.
@@ -191,6 +194,25 @@ func check(s *scenario.Scenario, req Request) error {
 	} {
 		if !(v.value >= 0 && v.value <= v.max) {
 			add(v.field, "is %g: accepted from 0 to %g", v.value, v.max)
+		}
+	}
+	if e := sp.EmergencyStop; e != nil {
+		for _, v := range []struct {
+			field    string
+			value    *float64
+			need     bool
+			min, max float64
+		}{
+			{"draws.spread.emergency_stop.reaction_s", e.ReactionS, true, 0, 10},
+			{"draws.spread.emergency_stop.decel_m_per_s2", e.DecelMPerS2, false, 0.01, 20},
+			{"draws.spread.emergency_stop.decel_deg_per_s2", e.DecelDegPerS2, false, 0.01, 100},
+		} {
+			switch {
+			case v.value == nil && v.need:
+				add(v.field, "is required: from %g to %g", v.min, v.max)
+			case v.value != nil && !(*v.value >= v.min && *v.value <= v.max):
+				add(v.field, "is %g: accepted from %g to %g", *v.value, v.min, v.max)
+			}
 		}
 	}
 	if len(errs) > 0 {

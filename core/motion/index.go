@@ -141,6 +141,11 @@ func Work(p Profile, t float64) int {
 		return q.idx.work(t)
 	case *Shaped:
 		return q.index().work(t)
+	case *Stopped:
+		if t < q.AtS {
+			return Work(q.Base, t)
+		}
+		return 2
 	case interface{ spans() int }:
 		return 2 // a binary search among the spans
 	}

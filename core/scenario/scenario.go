@@ -122,6 +122,19 @@ type Motion struct {
 
 	// Fields of the other profiles and the input shaper (see profiles.go).
 	ProfileFields
+
+	// Stop cuts the move by an emergency stop. It is not part of the
+	// file format: the clearance check's draws set it on their copies
+	// (site.spread.emergency_stop).
+	Stop *StopCut `json:"-"`
+}
+
+// StopCut is an emergency stop of one move (motion.Stopped): at AtS the
+// axis keeps its speed for ReactionS, then brakes at Decel (in the axis'
+// unit, m/s² or deg/s²; zero: the move's own decel_*, or accel_* when it
+// has none) to rest.
+type StopCut struct {
+	AtS, ReactionS, Decel float64
 }
 
 // Wind is a horizontal wind on the load, given as the force it makes on

@@ -1,6 +1,10 @@
 package scenario
 
-import "fmt"
+import (
+	"fmt"
+
+	"swaysheet/core/crane"
+)
 
 // Site is what stands along the load's path, for the clearance check: the
 // obstacles seen from above with their top heights, the margin the lift
@@ -57,6 +61,23 @@ type SiteSpread struct {
 	PressS       float64 `json:"press_s,omitempty"`
 	GustPct      float64 `json:"gust_pct,omitempty"`
 	GustS        float64 `json:"gust_s,omitempty"`
+	// EmergencyStop, given, stops every run at a random moment.
+	EmergencyStop *EmergencyStop `json:"emergency_stop,omitempty"`
+}
+
+// EmergencyStop is an emergency stop at a moment drawn uniformly over the
+// move (from the first motion's start to the last one's end), a fresh
+// moment in each run: every axis keeps its speed at that moment for
+// ReactionS (the operator's reaction and the control's delay), then
+// brakes at a constant rate to rest. The rate is each move's own
+// deceleration (decel_*, or accel_* when it has none), or the stated
+// emergency deceleration for travel and hoist axes (DecelMPerS2) and for
+// the slew (DecelDegPerS2). A recorded move (series) has no rate of its
+// own and needs the stated one.
+type EmergencyStop struct {
+	ReactionS     *float64 `json:"reaction_s"`
+	DecelMPerS2   *float64 `json:"decel_m_per_s2,omitempty"`
+	DecelDegPerS2 *float64 `json:"decel_deg_per_s2,omitempty"`
 }
 
 // DefaultSiteRuns is the number of runs when the spread gives none.
@@ -64,24 +85,27 @@ const DefaultSiteRuns = 200
 
 func init() {
 	for k, r := range map[string]Range{
-		"site.suspension_height_m":        {Min: 0.5, Max: 300, Unit: "m"},
-		"site.margin_m":                   {Min: 0, Max: 20, Unit: "m"},
-		"site.load_radius_m":              {Min: 0, Max: 50, Unit: "m"},
-		"site.obstacles[].top_m":          {Min: 0.01, Max: 300, Unit: "m"},
-		"site.obstacles[].corners[].x_m":  {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].corners[].y_m":  {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.centre_x_m": {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.centre_y_m": {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.length_m":   {Min: 0.01, Max: 1000, Unit: "m"},
-		"site.obstacles[].box.width_m":    {Min: 0.01, Max: 1000, Unit: "m"},
-		"site.obstacles[].box.angle_deg":  {Min: -360, Max: 360, Unit: "deg"},
-		"site.spread.runs":                {Min: 1, Max: MaxSiteRuns, Unit: "runs"},
-		"site.spread.seed":                {Min: 0, Max: 1<<32 - 1, Unit: ""},
-		"site.spread.rope_length_m":       {Min: 0, Max: 20, Unit: "m"},
-		"site.spread.centre_depth_m":      {Min: 0, Max: 10, Unit: "m"},
-		"site.spread.press_s":             {Min: 0, Max: 5, Unit: "s"},
-		"site.spread.gust_pct":            {Min: 0, Max: 100, Unit: "%"},
-		"site.spread.gust_s":              {Min: 0, Max: MaxRunS, Unit: "s"},
+		"site.suspension_height_m":                    {Min: 0.5, Max: 300, Unit: "m"},
+		"site.margin_m":                               {Min: 0, Max: 20, Unit: "m"},
+		"site.load_radius_m":                          {Min: 0, Max: 50, Unit: "m"},
+		"site.obstacles[].top_m":                      {Min: 0.01, Max: 300, Unit: "m"},
+		"site.obstacles[].corners[].x_m":              {Min: -5000, Max: 5000, Unit: "m"},
+		"site.obstacles[].corners[].y_m":              {Min: -5000, Max: 5000, Unit: "m"},
+		"site.obstacles[].box.centre_x_m":             {Min: -5000, Max: 5000, Unit: "m"},
+		"site.obstacles[].box.centre_y_m":             {Min: -5000, Max: 5000, Unit: "m"},
+		"site.obstacles[].box.length_m":               {Min: 0.01, Max: 1000, Unit: "m"},
+		"site.obstacles[].box.width_m":                {Min: 0.01, Max: 1000, Unit: "m"},
+		"site.obstacles[].box.angle_deg":              {Min: -360, Max: 360, Unit: "deg"},
+		"site.spread.runs":                            {Min: 1, Max: MaxSiteRuns, Unit: "runs"},
+		"site.spread.seed":                            {Min: 0, Max: 1<<32 - 1, Unit: ""},
+		"site.spread.rope_length_m":                   {Min: 0, Max: 20, Unit: "m"},
+		"site.spread.centre_depth_m":                  {Min: 0, Max: 10, Unit: "m"},
+		"site.spread.press_s":                         {Min: 0, Max: 5, Unit: "s"},
+		"site.spread.gust_pct":                        {Min: 0, Max: 100, Unit: "%"},
+		"site.spread.gust_s":                          {Min: 0, Max: MaxRunS, Unit: "s"},
+		"site.spread.emergency_stop.reaction_s":       {Min: 0, Max: 10, Unit: "s"},
+		"site.spread.emergency_stop.decel_m_per_s2":   {Min: 0.01, Max: 20, Unit: "m/s²"},
+		"site.spread.emergency_stop.decel_deg_per_s2": {Min: 0.01, Max: 100, Unit: "deg/s²"},
 	} {
 		Ranges[k] = r
 	}
@@ -142,5 +166,22 @@ func (s *Scenario) validateSite(c *checker) {
 		c.value("site.spread.press_s", "site.spread.press_s", sp.PressS)
 		c.value("site.spread.gust_pct", "site.spread.gust_pct", sp.GustPct)
 		c.value("site.spread.gust_s", "site.spread.gust_s", sp.GustS)
+		if e := sp.EmergencyStop; e != nil {
+			const p = "site.spread.emergency_stop"
+			c.required(p+".reaction_s", p+".reaction_s", e.ReactionS)
+			c.optional(p+".decel_m_per_s2", p+".decel_m_per_s2", e.DecelMPerS2)
+			c.optional(p+".decel_deg_per_s2", p+".decel_deg_per_s2", e.DecelDegPerS2)
+			for i, m := range s.Motions {
+				a, ok := crane.Of(m.Axis)
+				if !ok || m.Profile != ProfileSeries {
+					continue
+				}
+				if a.Kind == crane.Angular && e.DecelDegPerS2 == nil {
+					c.add(p+".decel_deg_per_s2", "is required: motion %d is a record, which has no braking rate of its own", i+1)
+				} else if a.Kind == crane.Linear && e.DecelMPerS2 == nil {
+					c.add(p+".decel_m_per_s2", "is required: motion %d is a record, which has no braking rate of its own", i+1)
+				}
+			}
+		}
 	}
 }

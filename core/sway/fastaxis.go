@@ -68,6 +68,8 @@ func flatPieces(p motion.Profile, shift, scale float64, out [][]motion.Piece) ([
 			}
 		}
 		return out, true
+	case *motion.Stopped:
+		return stoppedPieces(q, shift, scale, out)
 	case *motion.Trapezoid:
 		ps = trapezoidPieces(q)
 	case *motion.Piecewise:

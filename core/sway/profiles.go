@@ -89,6 +89,18 @@ func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, err
 		}
 		p = d.Apply(p)
 	}
+	if c := m.Stop; c != nil {
+		dec := c.Decel
+		if dec == 0 && dr.Decel != nil {
+			dec = *dr.Decel
+		} else if dec == 0 && dr.Accel != nil {
+			dec = *dr.Accel
+		}
+		if !(dec > 0) {
+			return nil, scenario.Errors{{Field: "site.spread.emergency_stop", Message: "the move has no braking rate of its own (a record): state the emergency deceleration"}}
+		}
+		p = motion.NewStopped(p, c.AtS, c.ReactionS, dec*scale)
+	}
 	return p, nil
 }
 

@@ -1,13 +1,74 @@
 package bridge
 
 import (
+	"sync"
+
 	"swaysheet/core/clearance"
+	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
 )
 
 // The clearance check is registered here, beside its code, so that the
 // table in bridge.go stays as it is.
-func init() { Calls["clearance"] = checkClearance }
+func init() {
+	Calls["clearance"] = checkClearance
+	Calls["site_plan"] = planSite
+	Calls["clearance_figures"] = clearanceFigures
+}
+
+// kept is the last clearance check with its scenario's fingerprint: the
+// page asks for the check, then for its figures in the units shown.
+var kept struct {
+	sync.Mutex
+	fp  string
+	rep *clearance.Report
+}
+
+// checked is the clearance check of s, from kept when it holds s's.
+func checked(s *scenario.Scenario) (*clearance.Report, error) {
+	fp, err := key(s)
+	if err != nil {
+		return nil, err
+	}
+	kept.Lock()
+	if kept.fp == fp {
+		r := kept.rep
+		kept.Unlock()
+		return r, nil
+	}
+	kept.Unlock()
+	r, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		return nil, err
+	}
+	kept.Lock()
+	kept.fp, kept.rep = fp, r
+	kept.Unlock()
+	return r, nil
+}
+
+// clearanceFigures presents the scenario's clearance check (the last
+// one when it is of the same scenario; computed otherwise): input as the
+// figures call's ({"scenario", "units", "system"}), the result
+// figures.ClearanceReport JSON (the check's rows and each obstacle's,
+// converted and rounded as the figures call's rows).
+func clearanceFigures(_ *Env, input []byte) (any, error) {
+	var in ShownInput
+	s, err := in.read(input, &in)
+	if err != nil {
+		return nil, err
+	}
+	if s.Site == nil {
+		return nil, noSite
+	}
+	r, err := checked(s)
+	if err != nil {
+		return nil, err
+	}
+	return figures.PresentClearance(r, in.choice()), nil
+}
+
+var noSite = scenario.Errors{{Field: "site", Message: "the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances"}}
 
 // checkClearance runs the clearance check of the scenario's site block:
 // input is the scenario JSON, the result the clearance.Report JSON
@@ -19,7 +80,32 @@ func checkClearance(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	if s.Site == nil {
-		return nil, scenario.Errors{{Field: "site", Message: "the scenario has no site block: add the obstacles, the suspension height and the load's size to check clearances"}}
+		return nil, noSite
 	}
-	return clearance.Check(s, clearance.Options{})
+	return checked(s)
+}
+
+// planSite checks a plan's options against the scenario's site block:
+// input is the scenario JSON with both a plan and a site block, the result
+// the clearance.SitePlan JSON (the fastest option that keeps the margin in
+// 95 % of runs, by its index in the plan call's options, and the largest
+// top speed that does). The plan is the plan call's own (the bridge keeps
+// the last one by fingerprint, so asking after "plan" plans nothing
+// again). A missing block is a field error at "site" or "plan".
+func planSite(_ *Env, input []byte) (any, error) {
+	s, err := scenario.Parse(input)
+	if err != nil {
+		return nil, err
+	}
+	if s.Site == nil {
+		return nil, noSite
+	}
+	if s.Plan == nil {
+		return nil, scenario.Errors{{Field: "plan", Message: "the scenario has no plan block: add the move to plan (see plan-site-bay-columns)"}}
+	}
+	res, err := planned(s)
+	if err != nil {
+		return nil, err
+	}
+	return clearance.PlanSite(s, res, clearance.Options{})
 }

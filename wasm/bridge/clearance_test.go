@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"swaysheet/core/clearance"
+	"swaysheet/core/figures"
 )
 
 func TestClearanceCall(t *testing.T) {
@@ -28,5 +29,49 @@ func TestClearanceCall(t *testing.T) {
 	bay, _ := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	if _, err := Calls["clearance"](nil, bay); err == nil || !strings.Contains(err.Error(), "site:") {
 		t.Errorf("no site block: %v", err)
+	}
+}
+
+func TestSitePlanCall(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/plan-site-bay-columns.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := Calls["site_plan"](nil, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp := out.(*clearance.SitePlan)
+	if sp.Fastest < 0 || sp.RunsPerCheck != 60 || sp.TopSpeed == nil || !sp.TopSpeed.Clears {
+		t.Errorf("site plan: fastest %d, %d runs, top speed %+v", sp.Fastest, sp.RunsPerCheck, sp.TopSpeed)
+	}
+	if _, err := json.Marshal(sp); err != nil {
+		t.Fatal(err)
+	}
+	site, _ := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
+	if _, err := Calls["site_plan"](nil, site); err == nil || !strings.Contains(err.Error(), "plan") {
+		t.Errorf("no plan block: %v", err)
+	}
+}
+
+func TestClearanceFiguresCall(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Calls["clearance"](nil, data); err != nil {
+		t.Fatal(err)
+	}
+	in := []byte(`{"scenario": ` + string(data) + `, "units": {"length": "ft"}, "system": "si"}`)
+	out, err := Calls["clearance_figures"](nil, in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rep := out.(figures.ClearanceReport)
+	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].Rows[0].Unit != "ft" {
+		t.Errorf("report %+v", rep)
+	}
+	if _, err := json.Marshal(rep); err != nil {
+		t.Fatal(err)
 	}
 }

@@ -23,3 +23,16 @@ func TestClearanceCommand(t *testing.T) {
 		t.Errorf("no site block: exit %d, %q", code, errw.String())
 	}
 }
+
+func TestSitePlanCommand(t *testing.T) {
+	var out, errw bytes.Buffer
+	code := run([]string{"-site-plan", "../../../testdata/scenarios/plan-site-bay-columns.json"}, &out, &errw)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errw.String())
+	}
+	for _, want := range []string{"Fastest option that keeps 0.30 m", "Largest top speed found", "60 runs each", "Drive limits"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q:\n%s", want, out.String())
+		}
+	}
+}

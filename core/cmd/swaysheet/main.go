@@ -6,6 +6,7 @@
 //	go run ./core/cmd/swaysheet [-summary] [-no-history] FILE.json ...
 //	go run ./core/cmd/swaysheet -plan [-json] FILE.json ...
 //	go run ./core/cmd/swaysheet -clearance [-json] FILE.json ...
+//	go run ./core/cmd/swaysheet -site-plan [-json] FILE.json ...
 //	go run ./core/cmd/swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...
 //
 // With -sheet it writes the printable check sheet of each file as
@@ -40,16 +41,18 @@ func run(args []string, stdout, stderr io.Writer) int {
 	summary := fs.Bool("summary", false, "print a short table instead of the result JSON")
 	noHistory := fs.Bool("no-history", false, "leave the time histories out of the result JSON")
 	planning := fs.Bool("plan", false, "plan the scenario's move: print the ranked table of drive settings")
-	planJSON := fs.Bool("json", false, "with -plan or -clearance: print JSON instead of the table")
+	planJSON := fs.Bool("json", false, "with -plan, -clearance or -site-plan: print JSON instead of the table")
 	sheetDir := fs.String("sheet", "", "write the check sheet of each file as HTML into this folder")
 	sheetUnits := fs.String("units", "si", "with -sheet and -summary: the unit system shown, si or us")
 	sheetLink := fs.String("link", "index.html", "with -sheet: the page's address for the QR code's link")
 	clear := fs.Bool("clearance", false, "check the load's likely swept envelope against the obstacles of each file's site block (with -json: the report as JSON)")
+	sitePlan := fs.Bool("site-plan", false, "plan the move of each file's plan block and check its options against its site block: the fastest that keeps the margin and the largest top speed that does (with -json: the check as JSON)")
 	ropeLength := fs.Bool("ropelength", false, "find the rope length from heights or a timed swing: each argument is a question as JSON text or a .json file")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: swaysheet [-summary [-units si|us]] [-no-history] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -plan [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -clearance [-json] FILE.json ...")
+		fmt.Fprintln(stderr, "       swaysheet -site-plan [-json] FILE.json ...")
 		fmt.Fprintln(stderr, "       swaysheet -sheet OUTDIR [-units si|us] [-link URL] FILE.json ...")
 		fmt.Fprintln(stderr, `       swaysheet -ropelength '{"timed": {"swings": 10, "time_s": 86}}' ...`)
 		fs.PrintDefaults()
@@ -76,6 +79,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	if *clear {
 		return runClearance(fs.Args(), *planJSON, stdout, stderr)
+	}
+	if *sitePlan {
+		return runSitePlan(fs.Args(), *planJSON, stdout, stderr)
 	}
 	status := 0
 	for _, name := range fs.Args() {

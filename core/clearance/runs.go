@@ -1,0 +1,132 @@
+package clearance
+
+import (
+	"fmt"
+	"math"
+
+	"swaysheet/core/draws"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// Run is one simulated run: the load's centre relative to the suspension
+// point and the suspension point on the ground frame, sampled in time
+// (sway.History's fields), with a rigid load's box corners.
+type Run struct {
+	TimeS                      []float64
+	RelXM, RelYM, RelZM        []float64
+	SuspensionXM, SuspensionYM []float64
+	// RopeM and SwingDeg are the rope's length and its angle from the
+	// vertical, for the height of its lower end (the hook).
+	RopeM, SwingDeg []float64
+	// CornerXM, CornerYM, CornerZM are a rigid load's box corners on the
+	// ground frame, z from the suspension point, [corner][sample]
+	// (sway.BodyHistory); nil for a point load.
+	CornerXM, CornerYM, CornerZM [][]float64
+}
+
+// RunOf takes a run from an evaluation's time histories.
+func RunOf(r *sway.Result) Run {
+	h := &r.History
+	run := Run{TimeS: h.TimeS, RelXM: h.RelXM, RelYM: h.RelYM, RelZM: h.RelZM,
+		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM, RopeM: h.RopeM, SwingDeg: h.SwingDeg}
+	if r.Body != nil && r.Body.History != nil && len(r.Body.History.CornerXM) == 8 {
+		b := r.Body.History
+		run.CornerXM, run.CornerYM, run.CornerZM = b.CornerXM, b.CornerYM, b.CornerZM
+	}
+	return run
+}
+
+// Rigid reports a run of a rigid load (with box corners).
+func (r *Run) Rigid() bool { return len(r.CornerXM) == 8 }
+
+// Path is the load's centre on the ground frame, z up from the floor.
+func (r *Run) Path(suspensionHeightM float64) []Sample {
+	out := make([]Sample, len(r.TimeS))
+	for i, t := range r.TimeS {
+		out[i] = Sample{TimeS: t, At: r.centre(i, suspensionHeightM)}
+	}
+	return out
+}
+
+func (r *Run) centre(i int, h float64) Point3 {
+	return Point3{r.SuspensionXM[i] + r.RelXM[i], r.SuspensionYM[i] + r.RelYM[i], h + r.RelZM[i]}
+}
+
+// Boxes is a rigid load's box at each sample, z up from the floor.
+func (r *Run) Boxes(suspensionHeightM float64) []BoxSample {
+	out := make([]BoxSample, len(r.TimeS))
+	for i, t := range r.TimeS {
+		b := BoxSample{TimeS: t, Centre: r.centre(i, suspensionHeightM)}
+		for k := range b.Corners {
+			b.Corners[k] = Point3{r.CornerXM[k][i], r.CornerYM[k][i], suspensionHeightM + r.CornerZM[k][i]}
+		}
+		out[i] = b
+	}
+	return out
+}
+
+// LowM is the height of the load's lowest point at sample i: the lowest
+// corner of a rigid load, the bottom of a point load's ball of radiusM.
+func (r *Run) LowM(i int, suspensionHeightM, radiusM float64) float64 {
+	if !r.Rigid() {
+		return suspensionHeightM + r.RelZM[i] - radiusM
+	}
+	low := math.Inf(1)
+	for k := range 8 {
+		low = math.Min(low, r.CornerZM[k][i])
+	}
+	return suspensionHeightM + low
+}
+
+// HookM is the height of the rope's lower end at sample i (the centre's
+// height when the run has no rope history).
+func (r *Run) HookM(i int, suspensionHeightM float64) float64 {
+	if len(r.RopeM) <= i || len(r.SwingDeg) <= i {
+		return suspensionHeightM + r.RelZM[i]
+	}
+	return suspensionHeightM - r.RopeM[i]*math.Cos(r.SwingDeg[i]*math.Pi/180)
+}
+
+// planPath is the run seen from above for the envelopes: the centre's
+// points and, for a rigid load, the box's outline at each sample.
+func (r *Run) planPath(h, radiusM float64) PlanPath {
+	pts := make([]Point2, len(r.TimeS))
+	for i := range r.TimeS {
+		pts[i] = r.centre(i, h).Plan()
+	}
+	p := PlanPath{Points: pts, RadiusM: radiusM}
+	if r.Rigid() {
+		p.RadiusM = 0
+		p.Outlines = make([][]Point2, len(r.TimeS))
+		for i := range r.TimeS {
+			var c [8]Point2
+			for k := range c {
+				c[k] = Point2{r.CornerXM[k][i], r.CornerYM[k][i]}
+			}
+			p.Outlines[i] = Hull(c[:])
+		}
+	}
+	return p
+}
+
+// evaluateRuns evaluates every run, in parallel; a run the core rejects
+// ends the check with that run's error, naming it.
+func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int, budget *sway.Budget) ([]Run, error) {
+	out := make([]Run, n)
+	err := draws.Each(n, workers, func(i int) error {
+		v := s
+		if variant != nil {
+			if d := variant(i); d != nil {
+				v = d
+			}
+		}
+		r, err := sway.EvaluateWith(v, sway.Options{Budget: budget})
+		if err != nil {
+			return fmt.Errorf("run %d: %w", i, err)
+		}
+		out[i] = RunOf(r)
+		return nil
+	})
+	return out, err
+}

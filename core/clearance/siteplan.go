@@ -1,0 +1,233 @@
+package clearance
+
+import (
+	"errors"
+	"fmt"
+	"sort"
+
+	"swaysheet/core/draws"
+	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+)
+
+// PlanWork is the work budget of the planner's site check, shared by all
+// its runs (see sway.Budget): about 5 s of one core, as a plan's own.
+const PlanWork = 400_000_000
+
+const planBudgetMessage = "Checking the plan's options against the site needs more computing than allowed: use fewer runs (site.spread.runs) or shorten the move (plan.distance_m or plan.angle_deg)."
+
+// bisections is how many times the top speed's bracket is halved.
+const bisections = 5
+
+// PlanSite checks a plan's options against the scenario's site (see
+// SitePlan): each option's move replaces the scenario's motions and is
+// run with the site's spreads, RunsPerCheck runs with the site's seed.
+// Every check draws on one work budget (opt.Budget, or PlanWork); when it
+// is spent the options left are marked so and Messages says what to
+// shorten.
+func PlanSite(s *scenario.Scenario, res *plan.Result, opt Options) (*SitePlan, error) {
+	if s.Site == nil {
+		return nil, ErrNoSite
+	}
+	if s.Plan == nil || res == nil {
+		return nil, scenario.Errors{{Field: "plan", Message: "is required: the site check of a plan needs a plan block"}}
+	}
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(PlanWork, planBudgetMessage)
+	}
+	n, seed, spread := planRuns(s.Site)
+	out := &SitePlan{RunsPerCheck: n, Seed: seed, Fastest: -1, Options: make([]SiteOption, len(res.Options)),
+		Words: []string{}, Messages: []string{}}
+	spent := false
+	check := func(m scenario.Motion) (*Report, error) {
+		d := *s
+		d.Motions = []scenario.Motion{m}
+		rep, err := Evaluate(&d, n, seed, drawn(&d, spread, seed), opt)
+		if errors.Is(err, sway.ErrWorkLimit) {
+			spent = true
+		}
+		return rep, err
+	}
+	order := make([]int, len(res.Options))
+	for i := range order {
+		order[i] = i
+		o := &res.Options[i]
+		out.Options[i] = SiteOption{Index: i, Key: o.Key, Label: o.Label, MoveTimeS: o.MoveTimeS}
+	}
+	sort.SliceStable(order, func(a, b int) bool { return res.Options[order[a]].MoveTimeS < res.Options[order[b]].MoveTimeS })
+	var limits *Report
+	for _, i := range order {
+		so := &out.Options[i]
+		switch {
+		case spent:
+			so.Skipped = "the work budget ran out"
+			continue
+		case out.Fastest >= 0 && i != res.Recommended:
+			so.Skipped = "a faster option clears"
+			continue
+		}
+		rep, err := check(res.Options[i].Motion)
+		if err != nil {
+			if spent {
+				so.Skipped = "the work budget ran out"
+				continue
+			}
+			so.Skipped = err.Error()
+			continue
+		}
+		so.Checked, so.Clears = true, rep.Clears
+		so.Worst, so.ShareKeepMargin, so.SmallestM = worst(rep)
+		if rep.Clears && out.Fastest < 0 {
+			out.Fastest = i
+		}
+		if res.Options[i].Key == "drive_limits" {
+			limits = rep
+		}
+	}
+	if !spent {
+		out.TopSpeed = topSpeed(res, limits, check)
+	}
+	out.Words = planWords(s.Site.MarginM, res, out)
+	if spent {
+		out.Messages = append(out.Messages, planBudgetMessage)
+	}
+	return out, nil
+}
+
+// planRuns is the runs of each check: the site's spread's (at most
+// MaxPlanRuns; DefaultSiteRuns when it gives none), or one run without a
+// spread.
+func planRuns(st *scenario.Site) (int, int, draws.Spread) {
+	sp := st.Spread
+	if sp == nil {
+		return 1, 0, draws.Spread{}
+	}
+	n := sp.Runs
+	if n == 0 {
+		n = scenario.DefaultSiteRuns
+	}
+	return min(n, MaxPlanRuns), sp.Seed, draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
+}
+
+// drawn gives run i of s under the spread (nil without one).
+func drawn(s *scenario.Scenario, sp draws.Spread, seed int) Variant {
+	if sp == (draws.Spread{}) {
+		return nil
+	}
+	return func(i int) *scenario.Scenario { return draws.Draw(s, sp, uint64(seed), i) }
+}
+
+// worst is the obstacle kept clear in the fewest runs.
+func worst(rep *Report) (string, float64, float64) {
+	name, share, smallest := "", 2.0, 0.0
+	for _, o := range rep.Obstacles {
+		if o.ShareKeepMargin < share || (o.ShareKeepMargin == share && o.SmallestM < smallest) {
+			name, share, smallest = o.Name, o.ShareKeepMargin, o.SmallestM
+		}
+	}
+	if name == "" {
+		return "", 1, 0
+	}
+	return name, share, smallest
+}
+
+// topSpeed bisects the drive-limits move's top speed (see TopSpeed).
+func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Report, error)) *TopSpeed {
+	var base *plan.Option
+	for i := range res.Options {
+		if res.Options[i].Key == "drive_limits" {
+			base = &res.Options[i]
+		}
+	}
+	if base == nil || (base.Motion.Profile != "" && base.Motion.Profile != scenario.ProfileTrapezoid) {
+		return nil
+	}
+	speed, unit := base.Motion.SpeedMPerS, "m/s"
+	if speed == nil {
+		speed, unit = base.Motion.RateDegPerS, "deg/s"
+	}
+	if speed == nil {
+		return nil
+	}
+	ts := &TopSpeed{Unit: unit}
+	clears := func(v float64) (bool, bool) {
+		m := base.Motion
+		if unit == "m/s" {
+			m.SpeedMPerS = &v
+		} else {
+			m.RateDegPerS = &v
+		}
+		ts.Checks++
+		rep, err := check(m)
+		return err == nil && rep.Clears, err == nil
+	}
+	hi := *speed
+	if limits == nil {
+		ok, done := clears(hi)
+		if !done {
+			return nil
+		}
+		limits = &Report{Clears: ok}
+	}
+	if limits.Clears {
+		ts.Speed, ts.Clears = hi, true
+		return ts
+	}
+	lo := hi / 10
+	ok, done := clears(lo)
+	if !done {
+		return nil
+	}
+	if !ok {
+		ts.Above = lo
+		return ts
+	}
+	for range bisections {
+		mid := (lo + hi) / 2
+		ok, done := clears(mid)
+		if !done {
+			break
+		}
+		if ok {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	ts.Speed, ts.Above, ts.Clears = lo, hi, true
+	return ts
+}
+
+// planWords says the outcome.
+func planWords(marginM float64, res *plan.Result, sp *SitePlan) []string {
+	var w []string
+	if sp.Fastest >= 0 {
+		o := &res.Options[sp.Fastest]
+		w = append(w, fmt.Sprintf("Fastest option that keeps %.2f m from every obstacle in %.0f %% of %d runs: %s (%.1f s).",
+			marginM, 100*Required, sp.RunsPerCheck, o.Label, o.MoveTimeS))
+	} else {
+		w = append(w, fmt.Sprintf("No option checked keeps %.2f m from every obstacle in %.0f %% of %d runs.", marginM, 100*Required, sp.RunsPerCheck))
+	}
+	if r := res.Recommended; r >= 0 && r < len(sp.Options) && sp.Options[r].Checked {
+		so := sp.Options[r]
+		if so.Clears {
+			w = append(w, fmt.Sprintf("The planner's recommended option (%s) keeps it.", so.Label))
+		} else {
+			w = append(w, fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs.", so.Label, so.Worst, 100*so.ShareKeepMargin))
+		}
+	}
+	if ts := sp.TopSpeed; ts != nil {
+		switch {
+		case ts.Clears && ts.Above == 0:
+			w = append(w, fmt.Sprintf("The plan's top speed of %.3g %s keeps the margin.", ts.Speed, ts.Unit))
+		case ts.Clears:
+			w = append(w, fmt.Sprintf("Largest top speed found that keeps the margin at the drive's acceleration: %.3g %s (%.3g %s does not; %d checks of %d runs each).",
+				ts.Speed, ts.Unit, ts.Above, ts.Unit, ts.Checks, sp.RunsPerCheck))
+		default:
+			w = append(w, fmt.Sprintf("Even a tenth of the top speed (%.3g %s) does not keep the margin at the drive's acceleration: the path, the obstacles or the load must change.", ts.Above, ts.Unit))
+		}
+	}
+	return w
+}
