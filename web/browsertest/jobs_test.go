@@ -230,7 +230,12 @@ func TestCrewJobs(t *testing.T) {
 	if err := h.poll(`window.swaysheet.settled() && document.getElementById('sheet-host').dataset.ready !== undefined`, 30*time.Second); err != nil {
 		t.Fatal(err)
 	}
-	sheet := eval[string](h, `document.getElementById('sheet-host').innerText`)
+	// innerText leaves out what is not visible: the sheet is shown for the read.
+	sheet := eval[string](h, `(function () { var e = document.getElementById('sheet-host'); e.style.visibility = 'visible';
+		var t = e.innerText; e.style.visibility = ''; return t; })()`)
+	if !strings.Contains(sheet, " ft") || len(sheet) < 2000 {
+		t.Fatalf("the US sheet was not read (%d characters)", len(sheet))
+	}
 	for _, line := range strings.Split(sheet, "\n") {
 		if m := siOnUSSheet.FindString(line); m != "" && !strings.Contains(line, "SHA-256") {
 			t.Errorf("the US sheet has SI units (%q): %s", m, line)

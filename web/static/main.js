@@ -111,8 +111,11 @@ $('do-print').onclick = function () {
 
 $('cancel-calc').onclick = cancel;
 
+// "Use as my own": the example's mark and its description (which speaks of
+// the invented lift's figures) go; the figures typed stay.
 $('example-own').onclick = function () {
   delete S.scenario.example;
+  delete S.scenario.description;
   renderForm();
   changed();
 };
