@@ -7,6 +7,7 @@ import (
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/words"
 )
 
 // Report is the clearance check of a scenario's site block.
@@ -19,6 +20,9 @@ type Report struct {
 	// Required of the runs; Words says so, or which do not.
 	Clears bool     `json:"clears"`
 	Words  []string `json:"words"`
+	// WordSentences are Words with their quantities marked (core/words),
+	// one for one, for the units shown.
+	WordSentences []words.Sentence `json:"word_sentences"`
 	// Envelope50 and Envelope95 are the areas, seen from above, that the
 	// load stays inside in half and in 95 % of the runs. Envelope95 is the
 	// exclusion zone, the area where nobody stands: it holds as many runs
@@ -135,7 +139,8 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 			AreaM2: env.AreaM2(), Confidence: env.Confidence, Spans: env.Spans()}
 	}
 	rep.Section = sectionOf(site, &nomRun, all, envs[0], envs[1], rep.Obstacles, where)
-	rep.Clears, rep.Words = Verdict(rep.Obstacles, site.MarginM)
+	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)
+	rep.Words = words.Strings(rep.WordSentences)
 	load := "The load is a ball of the stated size about its centre of mass"
 	if rep.Outline == OutlineBox {
 		load = "The load is its box, corners as simulated, taken against each obstacle as the upright prism that holds it (exact for a level load, on the safe side for a tilted one)"

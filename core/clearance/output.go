@@ -6,6 +6,8 @@ package clearance
 // in metres up from the floor (heights) or along the crane's path
 // (distances), every time in seconds from the scenario's t = 0.
 
+import "swaysheet/core/words"
+
 // Outline kinds: how the load's extent is taken.
 const (
 	// OutlineBall is a point load: a ball of site.load_radius_m about its
@@ -120,6 +122,9 @@ type SitePlan struct {
 	// shorten (the work budget).
 	Words    []string `json:"words"`
 	Messages []string `json:"messages"`
+	// WordSentences are Words with their quantities marked (core/words),
+	// one for one.
+	WordSentences []words.Sentence `json:"word_sentences"`
 }
 
 // SiteOption is one plan option's clearance check.

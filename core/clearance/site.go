@@ -5,6 +5,9 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
+
+	"swaysheet/core/words"
 )
 
 // Site is what stands along the load's path.
@@ -151,23 +154,37 @@ func nearestRank(p float64, n int) int {
 
 // Verdict says in words whether the runs clear every obstacle with the
 // margin in at least Required of the runs, or which do not, how often and
-// from what moment. ok is true when all clear.
-func Verdict(reports []ObstacleReport, marginM float64) (ok bool, words []string) {
+// from what moment. ok is true when all clear. The words are the plain SI
+// text of VerdictSentences.
+func Verdict(reports []ObstacleReport, marginM float64) (ok bool, texts []string) {
+	ok, ss := VerdictSentences(reports, marginM)
+	return ok, words.Strings(ss)
+}
+
+// VerdictSentences is Verdict with the quantities marked (core/words), for
+// the page and the sheet to give in the units shown.
+func VerdictSentences(reports []ObstacleReport, marginM float64) (ok bool, ss []words.Sentence) {
 	ok = true
 	for _, r := range reports {
 		if r.ShareKeepMargin >= Required {
 			continue
 		}
 		ok = false
-		w := fmt.Sprintf("%s: the load keeps %.2f m from it in %d of %d runs (%.0f %%; %.0f %% needed)",
-			r.Name, marginM, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
+		text := fmt.Sprintf("%s: the load keeps {0} from it in %d of %d runs (%.0f %%; %.0f %% needed)",
+			braces(r.Name), r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
+		qs := []words.Quantity{words.Length(marginM)}
 		if r.Strikes > 0 {
-			w += fmt.Sprintf("; it strikes it in %d runs, the earliest %.1f s into the move, %.1f m along the path", r.Strikes, r.FirstStrikeS, r.FirstStrikeAtDistanceM)
+			text += fmt.Sprintf("; it strikes it in %d runs, the earliest {1} into the move, {2} along the path", r.Strikes)
+			qs = append(qs, words.Time(r.FirstStrikeS), words.Length(r.FirstStrikeAtDistanceM))
 		}
-		words = append(words, w+".")
+		ss = append(ss, words.Say(text+".", qs...))
 	}
 	if ok {
-		words = append(words, fmt.Sprintf("The load keeps %.2f m from every obstacle in at least %.0f %% of the runs.", marginM, 100*Required))
+		ss = append(ss, words.Say(fmt.Sprintf("The load keeps {0} from every obstacle in at least %.0f %% of the runs.", 100*Required), words.Length(marginM)))
 	}
-	return ok, words
+	return ok, ss
 }
+
+// braces makes a name safe inside a sentence's text: its braces become
+// parentheses, so that none reads as a placeholder.
+func braces(name string) string { return strings.NewReplacer("{", "(", "}", ")").Replace(name) }

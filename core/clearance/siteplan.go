@@ -9,6 +9,7 @@ import (
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/words"
 )
 
 // PlanWork is the work budget of the planner's site check, shared by all
@@ -38,7 +39,7 @@ func PlanSite(s *scenario.Scenario, res *plan.Result, opt Options) (*SitePlan, e
 	}
 	n, seed, spread := planRuns(s.Site)
 	out := &SitePlan{RunsPerCheck: n, Seed: seed, Fastest: -1, Options: make([]SiteOption, len(res.Options)),
-		Words: []string{}, Messages: []string{}}
+		Words: []string{}, WordSentences: []words.Sentence{}, Messages: []string{}}
 	spent := false
 	check := func(m scenario.Motion) (*Report, error) {
 		d := *s
@@ -88,7 +89,8 @@ func PlanSite(s *scenario.Scenario, res *plan.Result, opt Options) (*SitePlan, e
 	if !spent {
 		out.TopSpeed = topSpeed(res, limits, check)
 	}
-	out.Words = planWords(s.Site.MarginM, res, out)
+	out.WordSentences = planWords(s.Site.MarginM, res, out)
+	out.Words = words.Strings(out.WordSentences)
 	if spent {
 		out.Messages = append(out.Messages, planBudgetMessage)
 	}
@@ -200,33 +202,35 @@ func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Re
 	return ts
 }
 
-// planWords says the outcome.
-func planWords(marginM float64, res *plan.Result, sp *SitePlan) []string {
-	var w []string
+// planWords says the outcome, the quantities marked (core/words).
+func planWords(marginM float64, res *plan.Result, sp *SitePlan) []words.Sentence {
+	var w []words.Sentence
+	margin := words.Length(marginM)
 	if sp.Fastest >= 0 {
 		o := &res.Options[sp.Fastest]
-		w = append(w, fmt.Sprintf("Fastest option that keeps %.2f m from every obstacle in %.0f %% of %d runs: %s (%.1f s).",
-			marginM, 100*Required, sp.RunsPerCheck, o.Label, o.MoveTimeS))
+		w = append(w, words.Say(fmt.Sprintf("Fastest option that keeps {0} from every obstacle in %.0f %% of %d runs: %s ({1}).",
+			100*Required, sp.RunsPerCheck, braces(o.Label)), margin, words.Time(o.MoveTimeS)))
 	} else {
-		w = append(w, fmt.Sprintf("No option checked keeps %.2f m from every obstacle in %.0f %% of %d runs.", marginM, 100*Required, sp.RunsPerCheck))
+		w = append(w, words.Say(fmt.Sprintf("No option checked keeps {0} from every obstacle in %.0f %% of %d runs.", 100*Required, sp.RunsPerCheck), margin))
 	}
 	if r := res.Recommended; r >= 0 && r < len(sp.Options) && sp.Options[r].Checked {
 		so := sp.Options[r]
 		if so.Clears {
-			w = append(w, fmt.Sprintf("The planner's recommended option (%s) keeps it.", so.Label))
+			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) keeps it.", so.Label)))
 		} else {
-			w = append(w, fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs.", so.Label, so.Worst, 100*so.ShareKeepMargin))
+			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs.", so.Label, so.Worst, 100*so.ShareKeepMargin)))
 		}
 	}
 	if ts := sp.TopSpeed; ts != nil {
+		speed, above := words.Of(ts.Speed, ts.Unit), words.Of(ts.Above, ts.Unit)
 		switch {
 		case ts.Clears && ts.Above == 0:
-			w = append(w, fmt.Sprintf("The plan's top speed of %.3g %s keeps the margin.", ts.Speed, ts.Unit))
+			w = append(w, words.Say("The plan's top speed of {0} keeps the margin.", speed))
 		case ts.Clears:
-			w = append(w, fmt.Sprintf("Largest top speed found that keeps the margin at the drive's acceleration: %.3g %s (%.3g %s does not; %d checks of %d runs each).",
-				ts.Speed, ts.Unit, ts.Above, ts.Unit, ts.Checks, sp.RunsPerCheck))
+			w = append(w, words.Say(fmt.Sprintf("Largest top speed found that keeps the margin at the drive's acceleration: {0} ({1} does not; %d checks of %d runs each).",
+				ts.Checks, sp.RunsPerCheck), speed, above))
 		default:
-			w = append(w, fmt.Sprintf("Even a tenth of the top speed (%.3g %s) does not keep the margin at the drive's acceleration: the path, the obstacles or the load must change.", ts.Above, ts.Unit))
+			w = append(w, words.Say("Even a tenth of the top speed ({0}) does not keep the margin at the drive's acceleration: the path, the obstacles or the load must change.", above))
 		}
 	}
 	return w

@@ -247,3 +247,35 @@ func mustFigure(t *testing.T, key string) Figure {
 	}
 	return f
 }
+
+// The period figure names the model that gives it: for a rigid load or a
+// hook block the first mode, never 2π√(L/g), which holds for a point on
+// one rope only; the swing angles are of the line to the load's centre of
+// mass.
+func TestPeriodNamesItsModel(t *testing.T) {
+	cases := map[string]string{
+		"bay-girder-rigid.json":       "first mode of the rigid load",
+		"precast-panel-spreader.json": "first mode of the rigid load",
+		"heavy-hook-long-slings.json": "first mode of hook block and rigging",
+		"bay-travel.json":             "2π√(L/g)",
+	}
+	for file, want := range cases {
+		s := testscenario.Example(t, file)
+		r, err := sway.Evaluate(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows := map[string]Row{}
+		for _, row := range Present(s, r, units.Choice{}).Rows {
+			rows[row.Key] = row
+		}
+		p := rows["period_s"].Technical
+		if !strings.Contains(p, want) || (want != "2π√(L/g)" && strings.Contains(p, "√(L/g)")) {
+			t.Errorf("%s: period_s named %q, want it to say %q", file, p, want)
+		}
+		sw := rows["peak_swing_deg"].Technical
+		if line := strings.Contains(sw, "centre of mass"); line != (r.Body != nil || r.Rigging != nil) {
+			t.Errorf("%s: peak_swing_deg named %q", file, sw)
+		}
+	}
+}

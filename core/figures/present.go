@@ -100,6 +100,9 @@ func Present(s *scenario.Scenario, r *sway.Result, u units.Choice) Report {
 			continue
 		}
 		row := f.row(v, u)
+		if f.Named != nil {
+			row.Technical = f.Named(r)
+		}
 		if f.Limit != "" && moved {
 			if lim := limitOf(s.Limits, f.Limit); lim != nil {
 				anyLimit = true

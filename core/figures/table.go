@@ -18,8 +18,11 @@ type Figure struct {
 	Key string
 	// Crew is what a crew reads: plain words, no jargon.
 	Crew string
-	// Technical is the name an engineer looks for.
+	// Technical is the name an engineer looks for; Named, when set,
+	// gives it for the result at hand (a figure whose method depends on
+	// the load's model: one rope, hook block, rigid load).
 	Technical string
+	Named     func(r *sway.Result) string
 	// Unit is the SI unit symbol of the value ("deg", "m", "s", "N", "").
 	Unit string
 	// Quantity is the core/units.Table quantity it is shown as; empty:
@@ -40,19 +43,19 @@ type Figure struct {
 // Table is every figure, in the order people read them.
 var Table = []Figure{
 	{Key: "peak_swing_deg", Crew: "largest swing", Technical: "peak swing (rope angle from the vertical)",
-		Unit: "deg", Limit: "peak_swing_deg", Value: always(func(r *sway.Result) float64 { return r.PeakSwingDeg })},
+		Named: swingName("peak swing"), Unit: "deg", Limit: "peak_swing_deg", Value: always(func(r *sway.Result) float64 { return r.PeakSwingDeg })},
 	{Key: "peak_swing_time_s", Crew: "largest swing comes at", Technical: "time of the peak swing",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeakSwingTimeS })},
 	{Key: "peak_excursion_m", Crew: "load swings out by", Technical: "peak excursion (horizontal, load from under the suspension point)",
 		Unit: "m", Limit: "peak_excursion_m", Value: always(func(r *sway.Result) float64 { return r.PeakExcursionM })},
 	{Key: "residual_swing_deg", Crew: "swing left after stopping", Technical: "residual swing after the last move",
-		Unit: "deg", Limit: "residual_swing_deg", Value: always(func(r *sway.Result) float64 { return r.ResidualSwingDeg })},
+		Named: swingName("residual swing after the last move"), Unit: "deg", Limit: "residual_swing_deg", Value: always(func(r *sway.Result) float64 { return r.ResidualSwingDeg })},
 	{Key: "residual_excursion_m", Crew: "swing-out left after stopping", Technical: "residual excursion",
 		Unit: "m", Value: always(func(r *sway.Result) float64 { return r.ResidualExcursionM })},
-	{Key: "period_s", Crew: "time for one full swing", Technical: "sway period (small swing, 2π√(L/g))",
-		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
+	{Key: "period_s", Crew: "time for one full swing", Technical: pointPeriod,
+		Named: periodName, Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
 	{Key: "period_amplitude_s", Crew: "full swing time at the swing left", Technical: "sway period at the residual swing's amplitude",
-		Unit: "s", Detail: true, Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
+		Named: amplitudeName, Unit: "s", Detail: true, Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
 	{Key: "tension_factor", Crew: "rope pull increase", Technical: "tension factor (peak rope tension / static)",
 		Unit: "", Limit: "tension_factor", Value: always(func(r *sway.Result) float64 { return r.TensionFactor })},
 	{Key: "tension_max_n", Crew: "largest rope pull", Technical: "peak rope tension",
@@ -107,6 +110,49 @@ var Table = []Figure{
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
 		Unit: "s", Detail: true, Value: always(func(r *sway.Result) float64 { return r.RunS })},
+}
+
+// pointPeriod is the period figure's technical name for a load given as
+// a point.
+const pointPeriod = "sway period (small swing, 2π√(L/g))"
+
+// periodName names period_s by the model that gives it: 2π√(L/g) for a
+// point on one rope; the slower mode of the linearised two-mass pendulum
+// with a hook block; the slowest mode of the modal analysis of a rigid
+// load (sway.Result.PeriodS).
+func periodName(r *sway.Result) string {
+	switch {
+	case r.Body != nil:
+		return "first mode of the rigid load (small swing, modal analysis)"
+	case r.Rigging != nil:
+		return "first mode of hook block and rigging (small swing, two-mass pendulum)"
+	}
+	return pointPeriod
+}
+
+// amplitudeName names period_amplitude_s: with a hook block or a rigid
+// load the one rope's amplitude correction 2K(k)/π is applied to the
+// first mode, an approximation.
+func amplitudeName(r *sway.Result) string {
+	if r.Body != nil || r.Rigging != nil {
+		return "first mode at the residual swing's amplitude (one rope's 2K(k)/π: approximate)"
+	}
+	return "sway period at the residual swing's amplitude"
+}
+
+// swingName names a swing angle: with a hook block or a rigid load it is
+// the line from the suspension point to the load's centre of mass, not
+// the rope.
+func swingName(what string) func(r *sway.Result) string {
+	return func(r *sway.Result) string {
+		if r.Body != nil || r.Rigging != nil {
+			return what + " (line to the load's centre of mass, from the vertical)"
+		}
+		if what == "peak swing" {
+			return "peak swing (rope angle from the vertical)"
+		}
+		return what
+	}
 }
 
 func always(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {

@@ -26,6 +26,10 @@ type RigidMode struct {
 	// body's displacement, its small rotation (ground frame) and, with two
 	// legs, the hook's displacement (9 numbers).
 	Shape [9]float64
+	// Share is the mode's share of the load's swing along a direction
+	// after a sudden start (ModesAlong; zero from Modes and for a free
+	// mode).
+	Share float64
 }
 
 // freeOmega2 is the largest omega^2, 1/s^2, taken as no restoring force
@@ -41,7 +45,9 @@ const freeOmega2 = 1e-7
 // violation, even in eta, cancels), lie in the same space to first order, so
 // eta” = N^T dz/deta eta = -K eta and omega^2 are the eigenvalues of K
 // (gonum's Eigen). Velocity terms are of second order at rest.
-func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
+func (r *Rigid) Modes(l float64) ([]RigidMode, error) { return r.modes(l, nil) }
+
+func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 	c := r.Fixed(l)
 	y0 := c.Rest(0)
 	nd := 6
@@ -124,6 +130,11 @@ func (r *Rigid) Modes(l float64) ([]RigidMode, error) {
 			md.Shape[i] = s
 		}
 		md.Kind = c.kindOf(md.Shape)
+	}
+	if dir != nil {
+		if err := c.shares(out, y0, nb, &vecs, vals, *dir); err != nil {
+			return nil, err
+		}
 	}
 	sort.SliceStable(out, func(a, b int) bool {
 		if out[a].Free != out[b].Free {

@@ -377,7 +377,7 @@ func TestResidualExcursionLimit(t *testing.T) {
 // is left out and named; the others are kept.
 func TestUnverifiableOptionDropped(t *testing.T) {
 	s := load(t, "plan-bay-travel.json")
-	rq := newRequest(s)
+	rq, _ := newRequest(s)
 	good := rq.trapezoidOption("good", "Good", 0.1, rq.vmax)
 	bad := rq.trapezoidOption("bad", "Too long", 0.1, rq.vmax)
 	far := 1999.0

@@ -172,7 +172,7 @@ func curves(rq *request) Curves {
 		at.RampS = append(at.RampS, q*rq.designT)
 		at.Periods = append(at.Periods, q)
 	}
-	if rq.s.Load.Hook != nil {
+	if rq.multi() {
 		at.Basis += "; with a hook block, the sum over both modes of each mode's share of the load's swing times that, T the mode's period (in phase: an upper bound)"
 	}
 	for _, l := range rq.ropes {
@@ -194,8 +194,8 @@ func curves(rq *request) Curves {
 	}
 	re := &c.RopeError
 	re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990), w = sqrt(g/L)"
-	if rq.s.Load.Hook != nil {
-		re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990) in each mode of hook block and rigging, weighted by the mode's share of the load's swing and added (an upper bound); L is the rope to the hook"
+	if rq.multi() {
+		re.Basis = "percentage residual vibration V(w, zeta) of the shaper (Singer & Seering 1990) in each mode " + rq.modesOf() + ", weighted by the mode's share of the load's swing and added (an upper bound); L is the rope to the hook"
 	}
 	ld := rq.designRope()
 	lo, hi := rq.ropes[0], rq.ropes[0]
@@ -212,7 +212,7 @@ func curves(rq *request) Curves {
 			shapers = append(shapers, sh)
 		}
 	}
-	if rq.s.Load.Hook != nil {
+	if rq.multi() {
 		for _, kind := range shaper.Kinds {
 			if sh, err := rq.designTwoMode(kind); err == nil {
 				shapers = append(shapers, sh)

@@ -86,7 +86,7 @@ func (rq *request) ownPendant(pcts []float64) (*Option, error) {
 	if err != nil {
 		return nil, err
 	}
-	if rq.s.Load.Hook != nil && rq.share2 >= MinSecondShare {
+	if rq.multi() && rq.share2 >= MinSecondShare {
 		o.TwoMode = true
 	}
 	return o, nil
@@ -251,7 +251,7 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 		return nil, fmt.Errorf("plan: pendant steps: %w", err)
 	}
 	o.Motion, o.profile = m, prof
-	if rq.s.Load.Hook != nil {
+	if rq.multi() {
 		// What the cues leave in each mode, the start's and the stop's
 		// worst, over the rope lengths (linear theory, % of an instant
 		// change to full speed).

@@ -43,7 +43,10 @@ package plan
 import (
 	"fmt"
 	"math"
+	"sync"
 	"sync/atomic"
+
+	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
@@ -98,6 +101,13 @@ type request struct {
 	// With a hook block: the second mode's design period, its largest
 	// share of the load's swing, the rigging length (m).
 	designT2, share2, rig float64
+	// With a rigid load (load.body): the load under a still suspension
+	// point, the move's direction and the modes found at each rope length
+	// (rigid.go).
+	body     *sway.RigidLoad
+	dir      r3.Vec
+	bodyMu   sync.Mutex
+	bodyMemo map[float64]modeSet
 	// budget is the work all the plan's runs draw on together.
 	budget *sway.Budget
 	// sims counts the simulations run.
@@ -125,7 +135,10 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if err := s.Validate(); err != nil {
 		return nil, err
 	}
-	rq := newRequest(s)
+	rq, err := newRequest(s)
+	if err != nil {
+		return nil, err
+	}
 	rq.budget = budget
 	g := units.StandardGravity
 	res := &Result{
@@ -142,14 +155,15 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if rq.driveAssumed {
 		note(plain("plan.drive is not given: planned for a variable-speed drive (for a pendant, set \"pendant\" and its steps)."))
 	}
-	if s.Load.Hook != nil {
+	if rq.multi() {
 		ms := rq.modesAt(*s.Load.RopeLengthM)
 		res.ModePeriodsS = []float64{2 * math.Pi / ms.omega[0], 2 * math.Pi / ms.omega[1]}
 		res.PeriodS = res.ModePeriodsS[0]
 		res.SecondDesignPeriodS, res.SecondModeShare = rq.designT2, rq.share2
-		res.Assumptions = append(append([]string{}, Assumptions...), twoModeAssumption)
+		res.ModesOf = rq.modesOf()
+		res.Assumptions = rq.assumptions()
 		for _, n := range rq.modeNotes() {
-			note(plain(n))
+			note(n)
 		}
 	}
 	if rq.drive == scenario.DrivePendant {
@@ -196,7 +210,7 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 			}
 			add(o)
 		}
-		if s.Load.Hook != nil {
+		if rq.multi() {
 			two, err := rq.twoModeOptions()
 			if err != nil {
 				return nil, err
@@ -274,7 +288,7 @@ func (res *Result) fillText() {
 
 func period(l float64) float64 { return 2 * math.Pi * math.Sqrt(l/units.StandardGravity) }
 
-func newRequest(s *scenario.Scenario) *request {
+func newRequest(s *scenario.Scenario) (*request, error) {
 	p := s.Plan
 	rq := &request{s: s, zeta: p.DampingRatio, tol: p.EITolerancePct / 100, drive: p.Drive, k: 1}
 	if rq.drive == "" {
@@ -313,7 +327,12 @@ func newRequest(s *scenario.Scenario) *request {
 	}
 	w := (math.Sqrt(units.StandardGravity/lo) + math.Sqrt(units.StandardGravity/hi)) / 2
 	rq.designT = 2 * math.Pi / w
-	if s.Load.Hook != nil {
+	if s.Load.Body != nil {
+		if err := rq.setBody(); err != nil {
+			return nil, err
+		}
+	}
+	if rq.multi() {
 		rq.setModes(lo, hi)
 	}
 	if lm := s.Limits; lm != nil {
@@ -330,7 +349,7 @@ func newRequest(s *scenario.Scenario) *request {
 			rq.lim.ResidualExcursionM = *lm.ResidualExcursionM
 		}
 	}
-	return rq
+	return rq, nil
 }
 
 // maxRope is the longest rope simulated, to the load (rigging included).

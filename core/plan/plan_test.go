@@ -57,6 +57,16 @@ func TestRecommendedWithinLimits(t *testing.T) {
 			if o.Within != (len(o.Outside) == 0) {
 				t.Errorf("%s %s: within %v but outside %v", name, o.Label, o.Within, o.Outside)
 			}
+			// The limits broken, marked one for one (the page and sheet
+			// show them in the units shown).
+			if len(o.OutsideSentences) != len(o.Outside) || strings.Join(texts(o.OutsideSentences), "; ") != strings.Join(o.Outside, "; ") {
+				t.Errorf("%s %s: outside %q, marked %v", name, o.Label, o.Outside, o.OutsideSentences)
+			}
+			for _, f := range o.FindingSentences {
+				if strings.Contains(f.String(), "{") || strings.Contains(f.String(), " m >") {
+					t.Errorf("%s %s: finding %q", name, o.Label, f.String())
+				}
+			}
 			n := len(o.Verified)
 			if o.NotSimulated != "" {
 				// Screened (screen.go): linear-theory figures, labelled.
@@ -400,7 +410,7 @@ func TestOwnPendantSteps(t *testing.T) {
 // example at 8 m as 6.24 deg against 4.93 deg simulated.
 func TestLinearPeak(t *testing.T) {
 	s := load(t, "plan-bay-travel.json")
-	rq := newRequest(s)
+	rq, _ := newRequest(s)
 	for _, a := range []float64{0.3, 0.15, 0.0856} {
 		o := rq.trapezoidOption("x", "x", a, rq.vmax)
 		for _, l := range []float64{8, 8.5, 9} {

@@ -262,11 +262,11 @@ func (rq *request) rampOption(tr, r float64) *Option {
 		why = plain("In linear theory (the hook's path in a fixed frame: the jib turning during each ramp and the outward lean's release counted) this slew leaves at most 0.8 of the residual limit at every rope length in the range; for another slew angle check again.")
 	}
 	o.Sentences = append([]Sentence{s, why}, o.Sentences...)
-	if rq.s.Load.Hook != nil && rq.share2 >= MinSecondShare {
+	if rq.multi() && rq.share2 >= MinSecondShare {
 		// The screening weighs both modes of hook block and rigging by
 		// their shares of the load's swing (rampResidual).
 		o.TwoMode = true
-		o.add(plain("The screening counts both sway modes of hook block and rigging, each by its share of the load's swing; the simulation of both masses checks it."))
+		o.add(plain("The screening counts the sway modes " + rq.modesOf() + ", each by its share of the load's swing; " + rq.simWords() + " checks it."))
 	}
 	return o
 }

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strings"
 )
 
 // rank sorts options: those within every limit first, fastest first;
@@ -85,7 +84,7 @@ func (rq *request) recommend(res *Result, opts []*Option) {
 	text := fmt.Sprintf("Recommended: %s — %s%s (%d from {0} to {1}). Move time {2}, {3} longer than at the drive limits; worst residual swing {4} at {5}%s.",
 		o.Label, why, how, len(rq.checked), lim)
 	res.ReasonSentence = say(text, qs...)
-	if rq.s.Load.Hook != nil {
+	if rq.multi() {
 		res.ReasonSentence = res.ReasonSentence.join(rq.modeReason(o))
 	}
 }
@@ -163,8 +162,8 @@ func (rq *request) whatToChange(opts []*Option) []Sentence {
 		for _, v := range pendant.Verified {
 			ex = math.Max(ex, v.Exact.ResidualSwingDeg)
 		}
-		msgs = append(msgs, say("The crane's pendant steps, pressed by a person (scatter {0}), leave up to {1} of residual swing 9 in 10 times ({2} if pressed exactly on the cues): "+strings.Join(pendant.Outside, "; ")+". With these steps the limits cannot be relied on. Use a variable-speed drive's ramp (the drive does the timing), a lower top step, or other limits if the lift allows.",
-			qTime(pendant.Timing.SigmaS), qAngle(pendant.WorstResidualSwingDeg), qAngle(ex)))
+		msgs = append(msgs, say("The crane's pendant steps, pressed by a person (scatter {0}), leave up to {1} of residual swing 9 in 10 times ({2} if pressed exactly on the cues): {outside}. With these steps the limits cannot be relied on. Use a variable-speed drive's ramp (the drive does the timing), a lower top step, or other limits if the lift allows.",
+			qTime(pendant.Timing.SigmaS), qAngle(pendant.WorstResidualSwingDeg), qAngle(ex)).with("{outside}", list(pendant.OutsideSentences, "; ")))
 		// What timing would do: a straight line between the exact and the
 		// drawn figure (an estimate; the residual does not grow exactly in
 		// proportion to the scatter).

@@ -79,7 +79,7 @@ func TestPlannerAgainstReference(t *testing.T) {
 			if o.NotSimulated != "" {
 				// Screened (screen.go): its move run here as the planner
 				// would have run it, at RelTol.
-				rq := newRequest(s)
+				rq, _ := newRequest(s)
 				for _, e := range o.Estimated {
 					v, err := rq.simulate(&o.Motion, e.RopeLengthM, RelTol)
 					if err != nil {

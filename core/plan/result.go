@@ -20,7 +20,7 @@ type Result struct {
 
 	RopeLengthM   float64   `json:"rope_length_m"`
 	RopeLengthsM  []float64 `json:"rope_lengths_m"` // simulated: nominal, then range ends
-	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length (the slower mode with a hook block)
+	PeriodS       float64   `json:"period_s"`       // 2*pi*sqrt(L/g) at the nominal length (the first mode with a hook block or a rigid load)
 	DesignPeriodS float64   `json:"design_period_s"`
 	// With a hook block: both mode periods at the nominal rope length,
 	// the second mode's design period and its largest share of the load's
@@ -28,8 +28,11 @@ type Result struct {
 	ModePeriodsS        []float64 `json:"mode_periods_s,omitempty"`
 	SecondDesignPeriodS float64   `json:"second_design_period_s,omitempty"`
 	SecondModeShare     float64   `json:"second_mode_share,omitempty"`
-	DesignRopeM         float64   `json:"design_rope_length_m"`
-	Limits              Limits    `json:"limits"`
+	// ModesOf says whose modes they are: "of hook block and rigging" or
+	// "of the rigid load".
+	ModesOf     string  `json:"modes_of,omitempty"`
+	DesignRopeM float64 `json:"design_rope_length_m"`
+	Limits      Limits  `json:"limits"`
 	// CheckedRopeLengthsM are all the rope lengths each option is
 	// simulated at: those of RopeLengthsM, then two between the ends.
 	CheckedRopeLengthsM []float64 `json:"checked_rope_lengths_m"`
@@ -102,6 +105,9 @@ type Option struct {
 	WorstResidualRopeM float64  `json:"worst_residual_rope_length_m"`
 	Within             bool     `json:"within"`
 	Outside            []string `json:"outside"` // which limits it breaks
+	// OutsideSentences are Outside with the quantities marked (one for
+	// one).
+	OutsideSentences []Sentence `json:"outside_sentences"`
 	// Basis says what the figures are: "exact timing" (the drive times
 	// the move) or "90th percentile of a person's timing".
 	Basis string `json:"basis"`

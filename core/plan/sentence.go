@@ -84,11 +84,29 @@ func (s Sentence) String() string {
 
 // join appends t to s, a space between, renumbering t's placeholders.
 func (s Sentence) join(t Sentence) Sentence {
+	return Sentence{Text: s.Text + " {join}", Quantities: s.Quantities}.with("{join}", t)
+}
+
+// with puts t in the place of mark in s, renumbering t's placeholders
+// after s's.
+func (s Sentence) with(mark string, t Sentence) Sentence {
 	text := t.Text
 	for i := len(t.Quantities) - 1; i >= 0; i-- {
 		text = strings.ReplaceAll(text, fmt.Sprintf("{%d}", i), fmt.Sprintf("{%d}", i+len(s.Quantities)))
 	}
-	return Sentence{Text: s.Text + " " + text, Quantities: append(append([]Quantity{}, s.Quantities...), t.Quantities...)}
+	return Sentence{Text: strings.Replace(s.Text, mark, text, 1), Quantities: append(append([]Quantity{}, s.Quantities...), t.Quantities...)}
+}
+
+// list is the sentences one after the other, sep between.
+func list(ss []Sentence, sep string) Sentence {
+	out := say("")
+	for i, t := range ss {
+		if i > 0 {
+			out.Text += sep
+		}
+		out = Sentence{Text: out.Text + "{next}", Quantities: out.Quantities}.with("{next}", t)
+	}
+	return out
 }
 
 // texts is the plain text of sentences.
@@ -105,4 +123,11 @@ func texts(ss []Sentence) []string {
 // Braces become parentheses, so that nothing reads as a placeholder.
 func plain(text string) Sentence {
 	return say(strings.NewReplacer("{", "(", "}", ")").Replace(text))
+}
+
+// outside says which limit o breaks: Outside's plain SI text and its
+// marked sentence.
+func (o *Option) outside(s Sentence) {
+	o.Outside = append(o.Outside, s.String())
+	o.OutsideSentences = append(o.OutsideSentences, s)
 }

@@ -21,8 +21,8 @@ func WriteTable(w io.Writer, r *Result) error {
 	fmt.Fprintf(&b, "Rope %.4g m (period %.3g s); simulated at %s m; shapers tuned to %.3g s (rope %.4g m)\n",
 		r.RopeLengthM, r.PeriodS, floats(r.RopeLengthsM), r.DesignPeriodS, r.DesignRopeM)
 	if len(r.ModePeriodsS) == 2 {
-		fmt.Fprintf(&b, "Hook block and rigging: two sway modes, %.3g s and %.3g s at the nominal rope; the second carries up to %.0f %% of the load's swing; two-mode shapers tuned to %.3g s and %.3g s\n",
-			r.ModePeriodsS[0], r.ModePeriodsS[1], 100*r.SecondModeShare, r.DesignPeriodS, r.SecondDesignPeriodS)
+		fmt.Fprintf(&b, "Two sway modes %s, %.3g s and %.3g s at the nominal rope; the second carries up to %.0f %% of the load's swing; two-mode shapers tuned to %.3g s and %.3g s\n",
+			r.ModesOf, r.ModePeriodsS[0], r.ModePeriodsS[1], 100*r.SecondModeShare, r.DesignPeriodS, r.SecondDesignPeriodS)
 	}
 	fmt.Fprintf(&b, "Limits: %s\n", limitsText(r.Limits))
 	fmt.Fprintf(&b, "Drive: %s; options checked at %s m\n\n", r.Drive, floats(r.CheckedRopeLengthsM))

@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"swaysheet/core/motion"
 	"swaysheet/core/pendulum"
@@ -36,12 +37,16 @@ import (
 // start (one mode with share 1 for the single pendulum).
 type modeSet struct {
 	omega, share []float64
+	kinds        []string // rigid load: what moves most in each mode
 }
 
 // modesAt returns the modes at rope length l (to the hook when there is
 // one).
 func (rq *request) modesAt(l float64) modeSet {
 	g := units.StandardGravity
+	if rq.body != nil {
+		return rq.rigidModes(l)
+	}
 	h := rq.s.Load.Hook
 	if h == nil {
 		return modeSet{omega: []float64{math.Sqrt(g / l)}, share: []float64{1}}
@@ -72,7 +77,9 @@ func (rq *request) setModes(lo, hi float64) {
 	a, b := rq.modesAt(lo), rq.modesAt(hi)
 	rq.designT = 4 * math.Pi / (a.omega[0] + b.omega[0])
 	rq.designT2 = 4 * math.Pi / (a.omega[1] + b.omega[1])
-	rq.rig = *rq.s.Load.Hook.RiggingLengthM
+	if h := rq.s.Load.Hook; h != nil {
+		rq.rig = *h.RiggingLengthM
+	}
 	for _, l := range rq.ropes {
 		rq.share2 = math.Max(rq.share2, rq.modesAt(l).share[1])
 	}
@@ -84,7 +91,7 @@ func (rq *request) setModes(lo, hi float64) {
 func (rq *request) designRope() float64 {
 	g := units.StandardGravity
 	single := g * rq.designT * rq.designT / (4 * math.Pi * math.Pi)
-	if rq.s.Load.Hook == nil {
+	if !rq.multi() {
 		return single
 	}
 	w := 2 * math.Pi / rq.designT
@@ -128,7 +135,7 @@ func (rq *request) designTwoMode(kind string) (*shaper.Shaper, error) {
 // markModes adds to a shaped option what it leaves in each mode, and for
 // one tuned to the first mode only, says so in its settings.
 func (rq *request) markModes(o *Option, sh *shaper.Shaper) {
-	if rq.s.Load.Hook == nil {
+	if !rq.multi() {
 		return
 	}
 	o.ModeResidualPct = rq.modeResidual(sh.Impulses, sh.Damping)
@@ -174,8 +181,12 @@ func (rq *request) twoModeOptions() ([]*Option, error) {
 	return out, nil
 }
 
-// modeNotes describe the two modes for the plan's notes.
-func (rq *request) modeNotes() []string {
+// modeNotes describe the two modes for the plan's notes, their
+// quantities marked.
+func (rq *request) modeNotes() []Sentence {
+	if rq.body != nil {
+		return rq.rigidNotes()
+	}
 	if rq.s.Load.Hook == nil {
 		return nil
 	}
@@ -186,8 +197,14 @@ func (rq *request) modeNotes() []string {
 	if rq.twoMode() {
 		word = "enough to matter: options tuned to the first mode only leave the second ringing, and the two-mode shapers cancel both"
 	}
-	return []string{fmt.Sprintf("Hook block and rigging swing in two modes, with design periods of %.3g s and %.3g s (rope to the hook %s m, rigging %.3g m). The second carries up to %.0f %% of the load's swing after a sudden start, %s. Single-mode shapers and whole-period ramps are tuned to the first.",
-		rq.designT, rq.designT2, floats(rq.ropes), rq.rig, 100*rq.share2, word)}
+	qs := []Quantity{qTime(rq.designT), qTime(rq.designT2), qLen(rq.rig)}
+	ropes := make([]string, len(rq.ropes))
+	for i, l := range rq.ropes {
+		ropes[i] = fmt.Sprintf("{%d}", len(qs))
+		qs = append(qs, qLen(l).digits(4))
+	}
+	return []Sentence{say(fmt.Sprintf("Hook block and rigging swing in two modes, with design periods of {0} and {1} (rope to the hook %s, rigging {2}). The second carries up to %.0f %% of the load's swing after a sudden start, %s. Single-mode shapers and whole-period ramps are tuned to the first.",
+		strings.Join(ropes, ", "), 100*rq.share2, word), qs...)}
 }
 
 // twoModeAssumption is added to the assumptions for a hook block.
@@ -195,19 +212,19 @@ const twoModeAssumption = "Hook block and rigging are two point masses (rope to 
 
 // modeReason says how the recommended option treats the two modes.
 func (rq *request) modeReason(o *Option) Sentence {
-	modes := fmt.Sprintf("the two sway modes of hook block and rigging ({0} and {1}; the second carries up to %.0f %% of the load's swing)", 100*rq.share2)
+	modes := fmt.Sprintf("the two sway modes %s ({0} and {1}; the second carries up to %.0f %% of the load's swing)", rq.modesOf(), 100*rq.share2)
 	ts := []Quantity{qTime(rq.designT), qTime(rq.designT2)}
 	switch {
 	case o.TwoMode && o.RampTimeS > 0:
-		return say("Its ramp time is chosen with "+modes+" in view, and the simulation of both masses confirms it.", ts...)
+		return say("Its ramp time is chosen with "+modes+" in view, and "+rq.simWords()+" confirms it.", ts...)
 	case o.TwoMode:
-		return say("It is designed for "+modes+", and the simulation of both masses confirms it.", ts...)
+		return say("It is designed for "+modes+", and "+rq.simWords()+" confirms it.", ts...)
 	}
 	left := ""
 	if len(o.ModeResidualPct) == 2 {
 		left = fmt.Sprintf(" (in linear theory it leaves %.2g %% of the drive-limits move's swing in the second)", o.ModeResidualPct[1])
 	}
-	return say("Of "+modes+" it is tuned to the first only"+left+"; the simulation of both masses keeps the residual swing inside the limit.", ts...)
+	return say("Of "+modes+" it is tuned to the first only"+left+"; "+rq.simWords()+" keeps the residual swing inside the limit.", ts...)
 }
 
 // steadyLean is the steady angle from the vertical of the line from the
@@ -220,6 +237,9 @@ func (rq *request) steadyLean(f float64) float64 {
 	l1 := rq.ropes[0]
 	for _, l := range rq.ropes {
 		l1 = math.Min(l1, l)
+	}
+	if rq.body != nil {
+		return rq.body.WindLeanRad(f, l1)
 	}
 	return sway.WindLeanRad(rq.s, f, l1)
 }

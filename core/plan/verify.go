@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"runtime"
-	"strings"
 	"sync"
 
 	"swaysheet/core/scenario"
@@ -152,7 +151,7 @@ func (rq *request) recheck(o *Option) {
 	o.rechecked = true
 	if kept, _ := rq.verifyAll([]*Option{o}, CheckRelTol); len(kept) == 0 {
 		o.Within = false
-		o.Outside = append(o.Outside, "could not be simulated again at the default accuracy")
+		o.outside(plain("could not be simulated again at the default accuracy"))
 	}
 }
 
@@ -220,16 +219,16 @@ func (o *Option) setVerified(vs []Verified, lim Limits) {
 		o.WorstPeakExcursionM = math.Max(o.WorstPeakExcursionM, v.PeakExcursionM)
 		o.WorstResidualExcM = math.Max(o.WorstResidualExcM, v.ResidualExcursionM)
 	}
-	o.Outside = []string{}
-	out := func(what string, v, l float64, unit string) {
+	o.Outside, o.OutsideSentences = []string{}, []Sentence{}
+	out := func(what string, v, l float64, q func(float64) Quantity) {
 		if l > 0 && v > l {
-			o.Outside = append(o.Outside, fmt.Sprintf("%s %.3g %s > %.3g %s", what, v, unit, l, unit))
+			o.outside(say(what+" {0} > {1}", q(v), q(l)))
 		}
 	}
-	out("peak swing", o.WorstPeakSwingDeg, lim.PeakSwingDeg, "deg")
-	out("peak excursion", o.WorstPeakExcursionM, lim.PeakExcursionM, "m")
-	out("residual swing", o.WorstResidualSwingDeg, lim.ResidualSwingDeg, "deg")
-	out("residual excursion", o.WorstResidualExcM, lim.ResidualExcursionM, "m")
+	out("peak swing", o.WorstPeakSwingDeg, lim.PeakSwingDeg, qAngle)
+	out("peak excursion", o.WorstPeakExcursionM, lim.PeakExcursionM, qLen)
+	out("residual swing", o.WorstResidualSwingDeg, lim.ResidualSwingDeg, qAngle)
+	out("residual excursion", o.WorstResidualExcM, lim.ResidualExcursionM, qLen)
 	o.Within = len(o.Outside) == 0
 }
 
@@ -272,7 +271,7 @@ func (rq *request) checkedSentences(o *Option) {
 	tm := o.Timing
 	verdict := "within the limits"
 	if !o.Within {
-		verdict = "NOT within the limits: " + strings.Join(o.Outside, "; ") + ". The crane's steps, pressed by a person, cannot be relied on to meet them"
+		verdict = "NOT within the limits: {outside}. The crane's steps, pressed by a person, cannot be relied on to meet them"
 	}
 	qs = append(qs, qTime(tm.SigmaS), qTime(tm.ReactionDelayS))
 	k := len(qs)
@@ -287,7 +286,7 @@ func (rq *request) checkedSentences(o *Option) {
 		draws = fmt.Sprintf("%d to %d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, dhi, tm.Draws, MinTimingDraws)
 	}
 	o.found(say(fmt.Sprintf("Checked with a person's timing: each press and release off by a normal scatter of {%d} (standard deviation) after a reaction delay of {%d}, %s at each of %d rope lengths from {0} to {1}. 9 in 10 times the peak swing stays within {2} (worst at {3}) and the residual swing within {4} (worst at {5})%s: %s.",
-		k-2, k-1, draws, n, exc, verdict), qs...))
+		k-2, k-1, draws, n, exc, verdict), qs...).with("{outside}", list(o.OutsideSentences, "; ")))
 	ex := 0.0
 	for _, v := range o.Verified {
 		if v.Exact != nil {

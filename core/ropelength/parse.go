@@ -32,7 +32,7 @@ func Parse(data []byte) (*Result, error) {
 		case errors.As(err, &te) && te.Field != "":
 			return nil, scenario.Errors{{Field: te.Field, Message: fmt.Sprintf("expected %s, found a JSON %s", kindWords(te.Type.String()), te.Value)}}
 		case strings.Contains(err.Error(), "unknown field"):
-			return nil, whole("%s; accepted: heights, timed, hook", strings.TrimPrefix(err.Error(), "json: "))
+			return nil, whole("%s; accepted: heights, timed, hook, load", strings.TrimPrefix(err.Error(), "json: "))
 		}
 		return nil, whole("not a readable question: %v", err)
 	}
@@ -47,7 +47,7 @@ func kindWords(t string) string {
 	switch strings.TrimPrefix(t, "*") {
 	case "float64":
 		return "a number"
-	case "ropelength.Heights", "ropelength.Timed", "ropelength.Hook", "ropelength.Input":
+	case "ropelength.Heights", "ropelength.Timed", "ropelength.Hook", "ropelength.Input", "ropelength.Load", "scenario.Body", "scenario.Spreader":
 		return "an object in { }"
 	}
 	return t

@@ -36,6 +36,10 @@
 // correction above is that of one rope, applied to the first mode: an
 // approximation for the two masses, whose size the package tests measure
 // by simulation.
+//
+// With a rigid load (Load: load.body) the swing timed is the rigid load's
+// first mode, and the rope to the hook is the one whose first mode has
+// the small-swing period: see rigid.go.
 package ropelength
 
 import (
@@ -55,6 +59,8 @@ type Input struct {
 	Heights *Heights `json:"heights,omitempty"`
 	Timed   *Timed   `json:"timed,omitempty"`
 	Hook    *Hook    `json:"hook,omitempty"`
+	// Load is a rigid load (load.body; rigid.go), in place of Hook.
+	Load *Load `json:"load,omitempty"`
 }
 
 // Heights are read off the crane (height indicator, tape, drawing), all
@@ -125,7 +131,8 @@ type Result struct {
 	// to the hook (the scenario's rope length then runs to the hook).
 	RopeLengthM float64 `json:"rope_length_m"`
 	// RiggingLengthM is the scenario's load.hook.rigging_length_m (hook
-	// block only).
+	// block); with a rigid load, the depth of its centre of mass below the
+	// hook hanging still (not a scenario field: the body gives it).
 	RiggingLengthM float64 `json:"rigging_length_m,omitempty"`
 
 	FromHeights *HeightsAnswer `json:"from_heights,omitempty"`
@@ -157,7 +164,8 @@ type TimedAnswer struct {
 	// EffectiveLengthM is g*(T0/(2*pi))^2: the one rope with this sway
 	// period (the rope length for a single-rope scenario and for shaping).
 	EffectiveLengthM float64 `json:"effective_length_m"`
-	// RopeToHookM is L1 with a hook block.
+	// RopeToHookM is L1 with a hook block; with a rigid load the rope to
+	// the hook whose first mode has the small-swing period (rigid.go).
 	RopeToHookM float64 `json:"rope_to_hook_m,omitempty"`
 	// RangeM is the rope length (effective, or to the hook) for the time
 	// less and more the timing error.
@@ -171,54 +179,36 @@ func Find(in *Input) (*Result, error) {
 	if err := in.Validate(); err != nil {
 		return nil, err
 	}
-	g := units.StandardGravity
 	res := &Result{Notes: []string{}}
 	var m1, m2, l2 float64
 	hook := in.Hook != nil
 	if hook {
 		m1, m2, l2 = *in.Hook.MassKg, *in.Hook.LoadMassKg, in.Hook.RiggingLengthM
 	}
-	if h := in.Heights; h != nil {
-		rope := *h.SheaveHeightM - *h.HookHeightM
-		below := h.SlingDepthM + h.CentreDepthM
-		a := &HeightsAnswer{RopeLengthM: rope + below}
-		a.SmallSwingPeriodS = 2 * math.Pi * math.Sqrt(a.RopeLengthM/g)
-		if hook {
-			if l2 == 0 {
-				l2 = below
-			}
-			a.RopeToHookM, a.RiggingLengthM = rope, l2
-			a.RopeLengthM = rope + l2
-			a.SmallSwingPeriodS = 2 * math.Pi / pendulum.LinearModes(m1, m2, rope, l2, g).Omega[0]
-		}
-		res.FromHeights = a
-	}
-	if tm := in.Timed; tm != nil {
-		a, err := timed(tm, hook, m1, m2, l2)
-		if err != nil {
+	if in.Load != nil {
+		if err := rigidAnswers(in, res); err != nil {
 			return nil, err
 		}
-		res.FromTimed = a
+	} else if err := pointAnswers(in, res, hook, m1, m2, l2); err != nil {
+		return nil, err
 	}
+	toHook := hook || in.Load != nil
 	ha, ta := res.FromHeights, res.FromTimed
 	switch {
 	case ha != nil:
 		res.RopeLengthM = ha.RopeLengthM
-		if hook {
+		if toHook {
 			res.RopeLengthM = ha.RopeToHookM
 		}
 	default:
 		res.RopeLengthM = ta.EffectiveLengthM
-		if hook {
+		if toHook {
 			res.RopeLengthM = ta.RopeToHookM
 		}
 	}
-	if hook {
-		res.RiggingLengthM = l2
-	}
 	if ha != nil && ta != nil {
 		hl, tl := ha.RopeLengthM, ta.EffectiveLengthM
-		if hook {
+		if toHook {
 			hl, tl = ha.RopeToHookM, ta.RopeToHookM
 		}
 		d := 100 * (tl - hl) / hl
@@ -238,8 +228,45 @@ func Find(in *Input) (*Result, error) {
 	return res, nil
 }
 
-// timed answers the timed swing.
-func timed(tm *Timed, hook bool, m1, m2, l2 float64) (*TimedAnswer, error) {
+// pointAnswers fills the heights' and the timed swing's answers for one
+// rope or a hook block.
+func pointAnswers(in *Input, res *Result, hook bool, m1, m2, l2 float64) error {
+	g := units.StandardGravity
+	if h := in.Heights; h != nil {
+		rope := *h.SheaveHeightM - *h.HookHeightM
+		below := h.SlingDepthM + h.CentreDepthM
+		a := &HeightsAnswer{RopeLengthM: rope + below}
+		a.SmallSwingPeriodS = 2 * math.Pi * math.Sqrt(a.RopeLengthM/g)
+		if hook {
+			if l2 == 0 {
+				l2 = below
+			}
+			a.RopeToHookM, a.RiggingLengthM = rope, l2
+			a.RopeLengthM = rope + l2
+			a.SmallSwingPeriodS = 2 * math.Pi / pendulum.LinearModes(m1, m2, rope, l2, g).Omega[0]
+		}
+		res.FromHeights = a
+	}
+	if tm := in.Timed; tm != nil {
+		var toHook func(float64) (float64, error)
+		if hook {
+			toHook = func(t0 float64) (float64, error) { return RopeToHook(m1, m2, l2, t0) }
+		}
+		a, err := timedAnswer(tm, toHook)
+		if err != nil {
+			return err
+		}
+		res.FromTimed = a
+	}
+	if hook {
+		res.RiggingLengthM = l2
+	}
+	return nil
+}
+
+// timedAnswer answers the timed swing: one rope when toHook is nil, else
+// the rope to the hook that toHook gives for the small-swing period.
+func timedAnswer(tm *Timed, toHook func(t0 float64) (float64, error)) (*TimedAnswer, error) {
 	g := units.StandardGravity
 	n, t := *tm.Swings, *tm.TimeS
 	errS := tm.TimingErrorS
@@ -250,10 +277,10 @@ func timed(tm *Timed, hook bool, m1, m2, l2 float64) (*TimedAnswer, error) {
 	factor := 2 * mathext.CompleteK(k*k) / math.Pi
 	length := func(t float64) (float64, error) {
 		t0 := t / n / factor
-		if !hook {
+		if toHook == nil {
 			return g * math.Pow(t0/(2*math.Pi), 2), nil
 		}
-		return RopeToHook(m1, m2, l2, t0)
+		return toHook(t0)
 	}
 	a := &TimedAnswer{PeriodS: t / n, AmplitudeFactor: factor, SmallSwingPeriodS: t / n / factor, TimingErrorS: errS}
 	a.EffectiveLengthM = g * math.Pow(a.SmallSwingPeriodS/(2*math.Pi), 2)
@@ -261,11 +288,14 @@ func timed(tm *Timed, hook bool, m1, m2, l2 float64) (*TimedAnswer, error) {
 	if err != nil {
 		return nil, err
 	}
-	if hook {
+	if toHook != nil {
 		a.RopeToHookM = l
 	}
 	lo, _ := length(math.Max(t-errS, 1e-9))
-	hi, _ := length(t + errS)
+	hi, err := length(t + errS)
+	if err != nil {
+		hi = scenario.Ranges["load.rope_length_m"].Max
+	}
 	a.RangeM = [2]float64{math.Max(lo, 0), hi}
 	if l < scenario.MinRopeM || l > scenario.Ranges["load.rope_length_m"].Max {
 		return nil, scenario.Errors{{Field: "timed.time_s", Message: fmt.Sprintf(

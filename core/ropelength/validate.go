@@ -70,6 +70,9 @@ func (in *Input) Validate() error {
 			c.add("hook.rigging_length_m", "is required (or heights.sling_depth_m and heights.centre_depth_m): %s", Ranges["hook.rigging_length_m"].Text())
 		}
 	}
+	if in.Load != nil && len(c.errs) == 0 {
+		in.validateLoad(&c)
+	}
 	if len(c.errs) > 0 {
 		return c.errs
 	}

@@ -259,7 +259,7 @@ func (h *htmlWriter) plan(p *planView) {
 			h.raw(")")
 		} else {
 			h.raw(" <b>&#x2716; OUTSIDE: ")
-			h.t(strings.Join(o.Outside, ", "))
+			h.t(strings.Join(p.Outside, ", "))
 			h.raw("</b>")
 		}
 		h.t(". " + p.Summary)

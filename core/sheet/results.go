@@ -157,6 +157,7 @@ func planSection(r *plan.Result, planErr string, u units.Choice) *planView {
 		o := r.Options[r.Recommended]
 		pv.Recommended = &o
 		pv.Settings = pv.marked(o, "sentences", o.Settings, u)
+		pv.Outside = pv.marked(o, "outside_sentences", o.Outside, u)
 		pv.Summary = words.Say("The move takes {0} ({1} more than at the drive's limits).",
 			words.Time(o.MoveTimeS), words.Time(o.PenaltyS)).Format(u)
 	}

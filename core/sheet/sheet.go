@@ -137,8 +137,10 @@ type planView struct {
 	Err         string
 	Axis        string
 	Recommended *plan.Option
-	// Settings, Summary, Reason, Infeasible and Notes in the units shown.
+	// Settings, Summary, Reason, Infeasible, Notes and the recommended
+	// option's Outside in the units shown.
 	Settings   []string
+	Outside    []string
 	Summary    string
 	Reason     string
 	Infeasible []string
@@ -226,7 +228,7 @@ func Build(in Input) (*Sheet, error) {
 	if s.Plan != nil {
 		v.Plan = planSection(in.Plan, in.PlanErr, u)
 		if v.Plan.Err == "" {
-			v.Assumptions = append(append([]string{}, v.Assumptions...), plan.Assumptions...)
+			v.Assumptions = append(append([]string{}, v.Assumptions...), planAssumptions(in.Plan)...)
 			v.Cautions = mergeCautions(v.Cautions, plan.Cautions)
 		}
 	}
@@ -240,7 +242,7 @@ func Build(in Input) (*Sheet, error) {
 			// The evaluation's own list (it may say more for a hook block).
 			v.Assumptions = append([]string{}, res.Assumptions...)
 			if v.Plan != nil && v.Plan.Err == "" {
-				v.Assumptions = append(v.Assumptions, plan.Assumptions...)
+				v.Assumptions = append(v.Assumptions, planAssumptions(in.Plan)...)
 			}
 		}
 	} else if v.EvalErr == "" {
@@ -327,4 +329,14 @@ func density(v *view) int {
 		n += len(p.Settings)
 	}
 	return n
+}
+
+// planAssumptions are the plan's own assumptions (with a hook block or a
+// rigid load they name the mode the planner tuned to), or the planner's
+// general ones when no plan was given.
+func planAssumptions(p *plan.Result) []string {
+	if p != nil && len(p.Assumptions) > 0 {
+		return p.Assumptions
+	}
+	return plan.Assumptions
 }

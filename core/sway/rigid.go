@@ -300,6 +300,7 @@ func bodyAssumptions() []string {
 	out := []string{
 		"The load is a rigid box on slings that do not stretch: four legs are a rigid frame sharing the load by their stiffness; two legs let it roll about their attach line; a spreader's parallel legs hang from points fixed to the crane.",
 		"The rope length runs from the rope's upper point of rotation to the hook (with a spreader: to the load).",
+		"Wind and drag act at the centre of the load's area, for a uniform box its centre of mass: no moment tilts or turns it.",
 	}
 	for _, a := range Assumptions {
 		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {
@@ -317,22 +318,14 @@ func bodyAssumptions() []string {
 // rope with the same period, L = g (T / (2 pi))^2, for a planner to tune a
 // drive setting or a shaper to. The other modes are in Result.Body.Modes.
 func RigidFirstMode(s *scenario.Scenario, ropeM float64) (periodS, effectiveLengthM float64, kind string, err error) {
-	if err := s.Validate(); err != nil {
+	b, err := NewRigidLoad(s)
+	if err != nil {
 		return 0, 0, "", err
-	}
-	if s.Load.Body == nil {
-		return 0, 0, "", scenario.Errors{{Field: "load.body", Message: "is required: the first mode of a rigid load"}}
 	}
 	if r := scenario.Ranges["load.rope_length_m"]; !(ropeM >= r.Min && ropeM <= r.Max) {
 		return 0, 0, "", scenario.Errors{{Field: "load.rope_length_m", Message: fmt.Sprintf("%g is out of range: %s", ropeM, r.Text())}}
 	}
-	still := func(float64) pendulum.Kinematics { return pendulum.Kinematics{} }
-	rope := func(float64) (float64, float64, float64) { return ropeM, 0, 0 }
-	r, _, err := rigidModel(s, still, rope, nil, nil)
-	if err != nil {
-		return 0, 0, "", err
-	}
-	modes, period, err := bodyModes(r, ropeM)
+	modes, period, err := bodyModes(b.r, ropeM)
 	if err != nil {
 		return 0, 0, "", err
 	}

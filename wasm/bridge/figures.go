@@ -59,7 +59,29 @@ func figuresCall(_ *Env, input []byte) (any, error) {
 	}
 	rep := figures.PresentRopes(c.Evaluated, c.Ropes, in.choice())
 	rep.ResultFor = c.ResultFor
-	return rep, nil
+	out := FiguresReply{Report: rep}
+	if out.ResultFingerprint, err = scenario.Fingerprint(c.Evaluated); err != nil {
+		return nil, err
+	}
+	if c.Evaluated != s {
+		if out.ResultScenario, err = scenario.Canonical(c.Evaluated); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}
+
+// FiguresReply is the "figures" call's result: the report, and which
+// scenario its figures are of (the scenario's fingerprint), so that the
+// page draws its plots and the sheet prints the same move. A planning
+// request without moves that has been planned is presented for the
+// recommended drive setting: ResultScenario is then that scenario (the
+// request with the recommended move), for the page to ask the evaluate
+// call for (from the memo) and plot.
+type FiguresReply struct {
+	figures.Report
+	ResultFingerprint string          `json:"result_fingerprint"`
+	ResultScenario    json.RawMessage `json:"result_scenario,omitempty"`
 }
 
 // plotCall draws a line chart with the check sheet's plotter (core/sheet

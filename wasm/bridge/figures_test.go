@@ -128,3 +128,76 @@ func TestMemoKey(t *testing.T) {
 		t.Error("a changed mass did not compute again")
 	}
 }
+
+// A planned request without moves is presented for the recommended move:
+// the figures call says which scenario (result_fingerprint, and the
+// scenario itself for the page's plots), the sheet prints the same one,
+// and evaluating that scenario computes nothing again.
+func TestFiguresSheetAndPlotsAgree(t *testing.T) {
+	data, err := os.ReadFile("examples/plan-bay-travel.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var e struct{ Error *Error }
+	json.Unmarshal(Call(nil, "evaluate", data), &e)
+	json.Unmarshal(Call(nil, "plan", data), &e)
+	if e.Error != nil {
+		t.Fatal(e.Error.Message)
+	}
+	in, _ := json.Marshal(map[string]any{"scenario": json.RawMessage(data), "system": "us"})
+	var f struct {
+		Result FiguresReply `json:"result"`
+		Error  *Error       `json:"error"`
+	}
+	if json.Unmarshal(Call(nil, "figures", in), &f); f.Error != nil || f.Result.ResultFor == "" || len(f.Result.ResultScenario) == 0 {
+		t.Fatalf("figures: %+v result_for %q", f.Error, f.Result.ResultFor)
+	}
+	var sh struct {
+		Result SheetReply `json:"result"`
+		Error  *Error     `json:"error"`
+	}
+	if json.Unmarshal(Call(nil, "sheet", in), &sh); sh.Error != nil {
+		t.Fatal(sh.Error.Message)
+	}
+	if sh.Result.ResultFingerprint != f.Result.ResultFingerprint || sh.Result.Fingerprint == f.Result.ResultFingerprint {
+		t.Errorf("sheet of %s (scenario %s), figures of %s", sh.Result.ResultFingerprint, sh.Result.Fingerprint, f.Result.ResultFingerprint)
+	}
+	s, err := scenario.Parse(f.Result.ResultScenario)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if fp, _ := scenario.Fingerprint(s); fp != f.Result.ResultFingerprint || len(s.Motions) != 1 {
+		t.Errorf("result_scenario: fingerprint %s, %d motions", fp, len(s.Motions))
+	}
+	before := last.computed
+	var ev struct {
+		Result struct {
+			PeakSwingDeg float64 `json:"peak_swing_deg"`
+		} `json:"result"`
+		Error *Error `json:"error"`
+	}
+	if json.Unmarshal(Call(nil, "evaluate", f.Result.ResultScenario), &ev); ev.Error != nil || last.computed != before {
+		t.Errorf("evaluating the presented scenario: %+v, %d computations", ev.Error, last.computed-before)
+	}
+	for _, row := range f.Result.Rows {
+		if row.Key == "peak_swing_deg" && row.ValueSI != ev.Result.PeakSwingDeg {
+			t.Errorf("figures give %g deg, the evaluation %g deg", row.ValueSI, ev.Result.PeakSwingDeg)
+		}
+	}
+	// The scenario's own moves: presented as they are.
+	own, _ := os.ReadFile("examples/bay-travel.json")
+	in, _ = json.Marshal(map[string]any{"scenario": json.RawMessage(own)})
+	f.Result = FiguresReply{}
+	json.Unmarshal(Call(nil, "figures", in), &f)
+	if fp, _ := scenario.Fingerprint(mustParse(t, own)); f.Result.ResultFingerprint != fp || f.Result.ResultScenario != nil {
+		t.Errorf("own moves: %s, want %s", f.Result.ResultFingerprint, fp)
+	}
+}
+
+func mustParse(t *testing.T, data []byte) *scenario.Scenario {
+	s, err := scenario.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}

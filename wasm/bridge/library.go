@@ -16,7 +16,8 @@ func init() {
 
 // LibraryBase is where a site office puts its scenario files, relative to
 // the page: library/index.json lists them (a JSON list of file names, each
-// a .json file in the same folder), as examples/index.json does.
+// a .json file in the same folder, as examples/index.json does; or of
+// objects {"file", "name", "description"} to list them by).
 const LibraryBase = "library/"
 
 // Library is the reply of the "library" call: the scenarios the site
@@ -66,18 +67,54 @@ func library(env *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, scenario.Errors{{Field: "(library)", Message: "no site library here: " + in.Base + "index.json could not be read (" + err.Error() + ")"}}
 	}
-	var files []string
-	if err := json.Unmarshal(idx, &files); err != nil {
-		return nil, scenario.Errors{{Field: "(library)", Message: in.Base + "index.json is not a list of file names, such as [\"bay-3-girder.json\"]: " + err.Error()}}
+	entries, err := readIndex(idx)
+	if err != nil {
+		return nil, scenario.Errors{{Field: "(library)", Message: in.Base + "index.json is not a list of files, such as [\"bay-3-girder.json\"] or [{\"file\": \"bay-3-girder.json\", \"name\": \"Bay 3 girder\", \"description\": \"...\"}]: " + err.Error()}}
 	}
 	out := &Library{Files: []Example{}, Problems: []string{}}
-	for _, f := range files {
-		ex, err := libraryRead(env, in.Base, f)
+	for _, e := range entries {
+		ex, err := libraryRead(env, in.Base, e.File)
 		if err != nil {
 			out.Problems = append(out.Problems, err.Error())
 			continue
 		}
+		if e.Name != "" {
+			ex.Name = e.Name
+		}
+		if e.Description != "" {
+			ex.Description = e.Description
+		}
 		out.Files = append(out.Files, ex)
+	}
+	return out, nil
+}
+
+// indexEntry is one file of library/index.json: a file name alone, or an
+// object with the file and the name and description to list it by (the
+// file's own when left out).
+type indexEntry struct {
+	File        string `json:"file"`
+	Name        string `json:"name"`
+	Description string `json:"description"`
+}
+
+// readIndex reads library/index.json: a JSON list whose entries are file
+// names or indexEntry objects.
+func readIndex(data []byte) ([]indexEntry, error) {
+	var raw []json.RawMessage
+	if err := json.Unmarshal(data, &raw); err != nil {
+		return nil, err
+	}
+	out := make([]indexEntry, len(raw))
+	for i, r := range raw {
+		if json.Unmarshal(r, &out[i].File) == nil {
+			continue
+		}
+		d := json.NewDecoder(strings.NewReader(string(r)))
+		d.DisallowUnknownFields()
+		if err := d.Decode(&out[i]); err != nil {
+			return nil, fmt.Errorf("entry %d: a file name or {\"file\", \"name\", \"description\"}: %v", i+1, err)
+		}
 	}
 	return out, nil
 }

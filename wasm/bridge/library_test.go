@@ -37,6 +37,10 @@ func TestSiteLibrary(t *testing.T) {
 		"/library/bay-3.json":     string(good),
 		"/library/broken.json":    `{"format": "swaysheet-scenario", "version": 1, "load": {}}`,
 		"/elsewhere/index.json":   `{"not": "a list"}`,
+		"/named/index.json":       `[{"file": "bay-3.json", "name": "Bay 3: girder to the welding line", "description": "Lift plan LP-12, typed by the site office."}, "other.json"]`,
+		"/named/bay-3.json":       string(good),
+		"/named/other.json":       string(good),
+		"/badentry/index.json":    `[{"file": "bay-3.json", "colour": "red"}]`,
 		"/library/../secret.json": `{}`,
 	}
 	srv := httptest.NewServer(http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
@@ -77,7 +81,8 @@ func TestSiteLibrary(t *testing.T) {
 		`{"file": "../secret.json"}`: "not a .json file name",
 		`{"file": "missing.json"}`:   "could not be read",
 		`{"file": "broken.json"}`:    "load.mass_kg",
-		`{"base": "elsewhere/"}`:     "not a list of file names",
+		`{"base": "elsewhere/"}`:     "not a list of files",
+		`{"base": "badentry/"}`:      "entry 1",
 		`{"base": "nowhere/"}`:       "no site library here",
 		`not json`:                   "expected",
 	} {
@@ -90,6 +95,15 @@ func TestSiteLibrary(t *testing.T) {
 		if e.Error == nil || !strings.Contains(e.Error.Message, want) {
 			t.Errorf("%s %s: %+v, want %q", name, in, e.Error, want)
 		}
+	}
+	// An index of objects names and describes the files it lists; a
+	// file name alone lists the file by its own name.
+	r.Result = nil
+	if json.Unmarshal(Call(env, "library", []byte(`{"base": "named/"}`)), &r); r.Error != nil || len(r.Result.Files) != 2 {
+		t.Fatalf("named index: %+v %+v", r.Error, r.Result)
+	}
+	if f := r.Result.Files; f[0].Name != "Bay 3: girder to the welding line" || f[0].Description != "Lift plan LP-12, typed by the site office." || f[1].Name == f[0].Name || f[1].Name == "" {
+		t.Errorf("named index: %+v", f)
 	}
 	// A page opened from a file has no server: said, not a crash.
 	var e struct{ Error *Error }

@@ -3,6 +3,7 @@ package bridge
 import (
 	"encoding/json"
 	"math"
+	"strings"
 	"testing"
 
 	"swaysheet/core/units"
@@ -34,5 +35,36 @@ func TestRopeLengthCall(t *testing.T) {
 			len(e.Error.Fields) == 0 || e.Error.Fields[0].Field != field {
 			t.Errorf("%s: want an error on %s, got %+v", in, field, e.Error)
 		}
+	}
+}
+
+// A rigid load's question (load with load.body) answers with the rope to
+// the hook whose first mode has the timed period (the bay girder of the
+// examples: 6.53 s at 5 m, sway.RigidFirstMode) and names a bad field of
+// the body by its path.
+func TestRopeLengthCallRigid(t *testing.T) {
+	body := `"body": {"length_m": 13, "width_m": 0.5, "height_m": 1, "hook_mass_kg": 250, "legs": [{"length_m": %s, "attach_x_m": 5, "attach_z_m": 0.5}, {"length_m": 5.831, "attach_x_m": -5, "attach_z_m": 0.5}]}`
+	q := func(leg string) []byte {
+		return []byte(`{"timed": {"swings": 5, "time_s": 32.65}, "load": {"mass_kg": 7200, ` + strings.Replace(body, "%s", leg, 1) + `}}`)
+	}
+	var r struct {
+		Result struct {
+			RopeLengthM float64 `json:"rope_length_m"`
+			FromTimed   struct {
+				RopeToHookM float64 `json:"rope_to_hook_m"`
+			} `json:"from_timed"`
+		} `json:"result"`
+	}
+	out := Call(nil, "ropelength", q("5.831"))
+	if err := json.Unmarshal(out, &r); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(r.Result.RopeLengthM-5) > 0.05 || r.Result.RopeLengthM != r.Result.FromTimed.RopeToHookM {
+		t.Errorf("rope to the hook %v m, want about 5 m: %s", r.Result.RopeLengthM, out)
+	}
+	var e errReply
+	if err := json.Unmarshal(Call(nil, "ropelength", q("500")), &e); err != nil || e.Error == nil ||
+		len(e.Error.Fields) == 0 || e.Error.Fields[0].Field != "load.body.legs[0].length_m" {
+		t.Errorf("a leg of 500 m: want an error at load.body.legs[0].length_m, got %+v", e.Error)
 	}
 }

@@ -31,6 +31,10 @@ type SheetReply struct {
 	HTML        string `json:"html"`
 	Fingerprint string `json:"fingerprint"`
 	QRText      string `json:"qr_text"`
+	// ResultFingerprint is the fingerprint of the scenario whose results
+	// the sheet prints (the figures call's result_fingerprint): the
+	// scenario's own, or its recommended move's.
+	ResultFingerprint string `json:"result_fingerprint"`
 }
 
 // sheetCall renders the check sheet with core/sheet, the renderer the
@@ -57,7 +61,11 @@ func sheetCall(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	return SheetReply{HTML: html, Fingerprint: sh.Fingerprint, QRText: sh.QRText}, nil
+	rfp, err := scenario.Fingerprint(si.Evaluated)
+	if err != nil {
+		return nil, err
+	}
+	return SheetReply{HTML: html, Fingerprint: sh.Fingerprint, QRText: sh.QRText, ResultFingerprint: rfp}, nil
 }
 
 // unshare reads the scenario of a link's "#z=" fragment (the QR code's

@@ -46,6 +46,19 @@ func fmtField(v float64) string {
 	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
+// fmtTyped is the page's format of an input converted into a unit the
+// SI view does not use: 4 significant digits, as a person types it.
+func fmtTyped(v float64) string { return fmtRes(v) }
+
+// shown is an SI value as the page and sheet show it in the unit of the
+// given symbol: converted and rounded to the unit's step, as the core
+// rounds figures for people (core/units.Round).
+func shown(q, symbol string, si float64) string {
+	u := units.Choice{Chosen: map[string]string{q: symbol}}.Unit(q)
+	_, t := units.Round(si/u.ToSI, u)
+	return t
+}
+
 type harness struct {
 	t        *testing.T
 	ctx      context.Context
@@ -294,10 +307,10 @@ func TestPage(t *testing.T) {
 		mo := s["motions"].([]any)[0].(map[string]any)
 		// Factors of NIST SP 811 appendix B, from core/units.
 		want := map[string]string{
-			"#f-load-mass_kg":             fmtField(load["mass_kg"].(float64) / units.Pound),
-			"#f-load-rope_length_m":       fmtField(load["rope_length_m"].(float64) / units.Foot),
-			"#f-motions-0-speed_m_per_s":  fmtField(mo["speed_m_per_s"].(float64) / (units.Foot / units.Minute)),
-			"#f-motions-0-accel_m_per_s2": fmtField(mo["accel_m_per_s2"].(float64) / units.Foot),
+			"#f-load-mass_kg":             fmtTyped(load["mass_kg"].(float64) / units.Pound),
+			"#f-load-rope_length_m":       fmtTyped(load["rope_length_m"].(float64) / units.Foot),
+			"#f-motions-0-speed_m_per_s":  fmtTyped(mo["speed_m_per_s"].(float64) / (units.Foot / units.Minute)),
+			"#f-motions-0-accel_m_per_s2": fmtTyped(mo["accel_m_per_s2"].(float64) / units.Foot),
 		}
 		for sel, w := range want {
 			if got := h.value(sel); got != w {
@@ -327,13 +340,19 @@ func TestPage(t *testing.T) {
 		keep := h.value("#f-motions-0-speed_m_per_s")
 		h.typeInto("#f-motions-0-speed_m_per_s", "5000")
 		h.settle()
-		// 10 m/s, the core's upper bound, is 1968.5 ft/min (ft = 0.3048 m, NIST SP 811).
-		if msg := h.text("#f-motions-0-speed_m_per_s-msg"); !strings.Contains(msg, "5000 ft/min is out of range") || !strings.Contains(msg, "1968.5 ft/min") {
+		// 10 m/s, the core's upper bound, is 1968.5 ft/min (ft = 0.3048 m,
+		// NIST SP 811): shown to four digits, rounded inward, so that the
+		// bound as shown is accepted.
+		if msg := h.text("#f-motions-0-speed_m_per_s-msg"); !strings.Contains(msg, "5000 ft/min is out of range") || !strings.Contains(msg, "up to 1968 ft/min") {
 			t.Errorf("US range message: %q", msg)
 		}
 		h.typeInto("#f-motions-0-speed_m_per_s", keep)
 		h.settle()
 		h.do(chromedp.Click(chromedp.ID("sys-si")))
+		h.settle()
+		// The speed shown in ft/min was rounded to four digits, so typed
+		// back it is not quite the SI speed: typed again in SI (m/min).
+		h.typeInto("#f-motions-0-speed_m_per_s", fmtField(mo["speed_m_per_s"].(float64)*60))
 		h.settle()
 		if back := snap(); !reflect.DeepEqual(back, si) {
 			t.Errorf("SI -> US -> SI does not give back the same figures:\n%q\n%q", si, back)

@@ -13,7 +13,6 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"swaysheet/core/plan"
-	"swaysheet/core/units"
 )
 
 // fakeClock is the coach's time source in the test: now() and a
@@ -101,7 +100,7 @@ func TestPressCoach(t *testing.T) {
 		t.Errorf("option within %v, the coach says %q", o.Within, out)
 	}
 	for _, p := range o.Presses {
-		if p.BeforeStopM > 0 && !strings.Contains(note, fmtRes(p.BeforeStopM)+"\u00a0m before the stop point") {
+		if p.BeforeStopM > 0 && !strings.Contains(note, shown("length", "m", p.BeforeStopM)+"\u00a0m before the stop point") {
 			t.Errorf("no mark %v m on the coach", p.BeforeStopM)
 		}
 	}
@@ -138,7 +137,7 @@ func TestPressCoach(t *testing.T) {
 			if eval[bool](h, `document.getElementById('coach-marked').hidden`) {
 				t.Fatalf("press %d: no tap for the mark", i)
 			}
-			if cue := h.text("#coach-cue"); !strings.HasPrefix(cue, "At the mark: RELEASE") || !strings.Contains(h.text("#coach-mark"), fmtRes(p.BeforeStopM)+"\u00a0m") {
+			if cue := h.text("#coach-cue"); !strings.HasPrefix(cue, "At the mark: RELEASE") || !strings.Contains(h.text("#coach-mark"), shown("length", "m", p.BeforeStopM)+"\u00a0m") {
 				t.Errorf("waiting for the mark: %q, %q", cue, h.text("#coach-mark"))
 			}
 			if i == 3 {
@@ -204,7 +203,7 @@ func TestPressCoach(t *testing.T) {
 	h.click(btn)
 	eval[bool](h, fakeClock)
 	// ft = 0.3048 m exactly (NIST SP 811, appendix B), from core/units.
-	if last := o.Presses[len(o.Presses)-1]; !strings.Contains(h.text("#coach-list"), fmtRes(last.BeforeStopM/units.Foot)+"\u00a0ft before the stop point") {
+	if last := o.Presses[len(o.Presses)-1]; !strings.Contains(h.text("#coach-list"), shown("length", "ft", last.BeforeStopM)+"\u00a0ft before the stop point") {
 		t.Errorf("the marks are not in feet: %q", h.text("#coach-list"))
 	}
 	h.click("#coach-start")

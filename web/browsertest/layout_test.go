@@ -54,7 +54,7 @@ const layoutProblems = `(function () {
 // else covers.
 const covered = `(function () {
   var bar = document.querySelector('nav.actions').getBoundingClientRect().top, out = [];
-  document.querySelectorAll('#form input[type=text], #form select').forEach(function (e) {
+  document.querySelectorAll('#inputs input[type=text], #inputs select').forEach(function (e) {
     var r = e.getBoundingClientRect(), x = r.left + r.width / 2, y = r.top + r.height / 2;
     if (r.width === 0 || y < 0 || y > bar) return;
     var at = document.elementFromPoint(x, y);

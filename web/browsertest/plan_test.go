@@ -16,6 +16,7 @@ import (
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // openExample opens the example whose name contains part from the library.
@@ -24,6 +25,18 @@ func (h *harness) openExample(part string) {
 	h.do(chromedp.Click(chromedp.ID("open-examples")))
 	h.do(chromedp.Click(chromedp.Search(`//ul[@id='examples-list']//li[contains(., ` + strconv.Quote(part) + `)]//button`)))
 	h.settle()
+}
+
+// said is a planner's sentence as the core's "say" call puts it in the
+// page's units of the system (core/words).
+func said(t *testing.T, s plan.Sentence, system string) string {
+	t.Helper()
+	var w words.Sentence
+	b, _ := json.Marshal(s)
+	if err := json.Unmarshal(b, &w); err != nil {
+		t.Fatal(err)
+	}
+	return w.Format(units.Choice{System: system})
 }
 
 // planSettled waits until the page has a plan (count above before) and is
@@ -93,7 +106,7 @@ func TestPlanner(t *testing.T) {
 			t.Errorf("recommended %q, the core recommends %q", got, rec.Label)
 		}
 		// The reason in the core's words, without repeating the option's name.
-		if got, w := h.text("#plan-reason"), strings.TrimPrefix(want.Reason, "Recommended: "+rec.Label+" — "); got != w || !strings.HasPrefix(h.text("#plan-rec"), "★ Recommended: "+rec.Label) {
+		if got, w := h.text("#plan-reason"), strings.TrimPrefix(said(t, want.ReasonSentence, "si"), "Recommended: "+rec.Label+" — "); got != w || !strings.HasPrefix(h.text("#plan-rec"), "★ Recommended: "+rec.Label) {
 			t.Errorf("reason %q, the core's %q", got, want.Reason)
 		}
 		// Marked by word and by symbol, not by colour alone.
@@ -107,9 +120,9 @@ func TestPlanner(t *testing.T) {
 		}
 		for i, o := range want.Options {
 			row := "#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + ") "
-			for col, w := range map[string]string{"rank": strconv.Itoa(o.Rank) + ".", "label": o.Label, "move": fmtRes(o.MoveTimeS),
-				"extra": fmtRes(o.PenaltyS), "peak": fmtRes(o.WorstPeakSwingDeg), "excursion": fmtRes(o.WorstPeakExcursionM),
-				"residual": fmtRes(o.WorstResidualSwingDeg)} {
+			for col, w := range map[string]string{"rank": strconv.Itoa(o.Rank) + ".", "label": o.Label, "move": shown("time", "s", o.MoveTimeS),
+				"extra": shown("time", "s", o.PenaltyS), "peak": shown("angle", "deg", o.WorstPeakSwingDeg), "excursion": shown("length", "m", o.WorstPeakExcursionM),
+				"residual": shown("angle", "deg", o.WorstResidualSwingDeg)} {
 				got := strings.TrimPrefix(h.text(row+`[data-col="`+col+`"]`), "\u2605 ")
 				if got != w {
 					t.Errorf("row %d (%s) %s: %q, the core gives %q", i, o.Key, col, got, w)
@@ -131,7 +144,7 @@ func TestPlanner(t *testing.T) {
 					continue
 				}
 				for k, p := range o.Presses {
-					if got[k] != fmtRes(p.AtS)+"\u00a0s" {
+					if got[k] != shown("time", "s", p.AtS)+"\u00a0s" {
 						t.Errorf("%s press %d at %q, the core %v s", o.Key, k, got[k], p.AtS)
 					}
 				}
@@ -140,7 +153,7 @@ func TestPlanner(t *testing.T) {
 					t.Errorf("%s: %d ramp rows, the core has %d knots", o.Key, n, len(o.SpeedProfile))
 				}
 			default:
-				if got := h.text(sel + ` [data-crew="ramp"]`); !strings.Contains(got, fmtRes(o.RampS)+"\u00a0s") || !strings.Contains(got, fmtRes(o.AccelMPerS2)) {
+				if got := h.text(sel + ` [data-crew="ramp"]`); !strings.Contains(got, shown("time", "s", o.RampS)+"\u00a0s") || !strings.Contains(got, shown("acceleration", "m/s²", o.AccelMPerS2)) {
 					t.Errorf("%s: ramp settings %q, the core: ramp %v s, accel %v", o.Key, got, o.RampS, o.AccelMPerS2)
 				}
 			}
@@ -188,22 +201,26 @@ func TestPlanner(t *testing.T) {
 		// ft = 0.3048 m exactly (NIST SP 811, appendix B), from core/units.
 		for i, o := range want.Options {
 			got := h.text("#plan-table tbody tr:nth-child(" + strconv.Itoa(i+1) + `) [data-col="excursion"]`)
-			if w := fmtRes(o.WorstPeakExcursionM / units.Foot); got != w {
+			if w := shown("length", "ft", o.WorstPeakExcursionM); got != w {
 				t.Errorf("%s: excursion %q ft, want %q", o.Key, got, w)
 			}
 		}
-		if s := h.text("#plan-summary"); !strings.Contains(s, fmtRes(want.DistanceM/units.Foot)+"\u00a0ft") {
+		if s := h.text("#plan-summary"); !strings.Contains(s, shown("length", "ft", want.DistanceM)+"\u00a0ft") {
 			t.Errorf("summary in US units: %q", s)
 		}
 		rec := want.Options[want.Recommended]
 		if len(rec.Presses) > 0 {
 			sp := h.texts("#plan-opt-" + strconv.Itoa(want.Recommended) + ` table[data-crew="presses"] tbody tr td:last-child`)
-			if w := fmtRes(math.Abs(rec.Presses[0].Speed)/(units.Foot/units.Minute)) + "\u00a0ft/min"; len(sp) == 0 || sp[0] != w {
+			if w := shown("speed", "ft/min", math.Abs(rec.Presses[0].Speed)) + "\u00a0ft/min"; len(sp) == 0 || sp[0] != w {
 				t.Errorf("press speed in US units %q, want %q", sp, w)
 			}
 		}
-		if !strings.Contains(h.text("#plan-rec"), "SI units") {
-			t.Error("the planner's own sentence is not marked as SI in US units")
+		// The planner's own sentences in US units, as the core put them
+		// (the "say" call): no SI unit after a number.
+		for _, sel := range []string{"#plan-rec", "#plan-out"} {
+			if txt := h.text(sel); siAfterNumber.MatchString(txt) || strings.Contains(txt, "SI units") {
+				t.Errorf("%s in US units: %q", sel, siAfterNumber.FindString(txt))
+			}
 		}
 		eval[bool](h, `document.getElementById('notice').hidden = true; document.getElementById('plan-rec').scrollIntoView({block: 'start'}); true`)
 		time.Sleep(150 * time.Millisecond)
@@ -437,8 +454,8 @@ func TestPlanner(t *testing.T) {
 		if len(got) != len(w.Infeasible) {
 			t.Fatalf("infeasible messages %q, the core %q", got, w.Infeasible)
 		}
-		for i, m := range w.Infeasible {
-			if !strings.Contains(got[i], m) {
+		for i, m := range w.InfeasibleSentences {
+			if m := said(t, m, "si"); !strings.Contains(got[i], m) {
 				t.Errorf("message %d: %q, the core %q", i, got[i], m)
 			}
 		}
@@ -460,7 +477,7 @@ func TestHookPlan(t *testing.T) {
 	if w.Recommended < 0 || h.text("#plan-rec-label") != w.Options[w.Recommended].Label {
 		t.Errorf("recommended %q, the core %d", h.text("#plan-rec-label"), w.Recommended)
 	}
-	for sel, v := range map[string]string{"#plan-mode1": fmtRes(w.ModePeriodsS[0]) + "\u00a0s", "#plan-mode2": fmtRes(w.ModePeriodsS[1]) + "\u00a0s",
+	for sel, v := range map[string]string{"#plan-mode1": shown("time", "s", w.ModePeriodsS[0]) + "\u00a0s", "#plan-mode2": shown("time", "s", w.ModePeriodsS[1]) + "\u00a0s",
 		"#plan-share": fmtRes(100*w.SecondModeShare) + "\u00a0%"} {
 		if got := h.text(sel); got != v {
 			t.Errorf("%s: %q, the core %q", sel, got, v)
@@ -476,7 +493,7 @@ func TestHookPlan(t *testing.T) {
 		}
 		if v := o.Verified[0]; v.PeakRiggingAngleDeg > 0 {
 			got := h.text("#plan-opt-" + strconv.Itoa(i) + " table.verified tbody tr:first-child td:last-child")
-			if got != fmtRes(v.PeakRiggingAngleDeg) {
+			if got != shown("angle", "deg", v.PeakRiggingAngleDeg) {
 				t.Errorf("%s: rope to rigging %q, the core %v", o.Key, got, v.PeakRiggingAngleDeg)
 			}
 		}

@@ -4,6 +4,7 @@ import (
 	"os"
 	"path/filepath"
 	"strconv"
+	"strings"
 	"testing"
 
 	"github.com/chromedp/chromedp"
@@ -73,6 +74,14 @@ func TestSingleFileFromDisk(t *testing.T) {
 	if eval[string](b, `document.getElementById('engine-error').hidden ? '' : document.getElementById('engine-error').textContent`) != "" {
 		t.Error("the engine reported an error")
 	}
+	// A page opened from a file has no server, so no site library: the
+	// Examples dialog says so (the core's message) and lists none.
+	b.do(chromedp.Click(chromedp.ID("open-examples")))
+	b.poll(`!window.swaysheetLibrary.reading() && document.getElementById('library').dataset.state === 'none'`, "the library was not asked for")
+	if msg := b.text("#library-source"); !strings.Contains(msg, "opened from a file") || b.text("#library-list") != "" {
+		t.Errorf("single file: library %q, list %q", msg, b.text("#library-list"))
+	}
+	eval[bool](b, `document.getElementById('dlg-examples').close(); true`)
 	// The press coach's module is in the file too.
 	if !eval[bool](b, `typeof window.swaysheetCoach === 'object' && window.swaysheetCoach.running() === false`) {
 		t.Error("the press coach is not in the single file")

@@ -12,7 +12,7 @@
 
 import { esc } from './dom.js';
 import { isSlew, speedDQ, withU } from './plan-form.js';
-import { fmtRes, toShown, unitOf } from './units.js';
+import { fmtRes, fmtStep } from './units.js';
 
 const REAL_CLOCK = {
   now: function () { return performance.now(); },
@@ -42,23 +42,15 @@ function cueSteps(r, o) {
   });
 }
 
-// fillSentence puts a planner sentence's quantities in the units shown.
-function fillSentence(s) {
-  return String(s.text).replace(/\{(\d+)\}/g, function (m, k) {
-    var q = s.quantities[Number(k)];
-    if (!q) return m;
-    var v = toShown(q.quantity, q.value);
-    return (q.digits > 0 && isFinite(v) ? Number(v.toPrecision(q.digits)).toString() : fmtRes(v)) + '\u00A0' + unitOf(q.quantity).symbol;
-  });
-}
-
+// timingNote: the finding about a person's timing, in the units shown as
+// the core put it (plan-view.js passes the plan's words in o.said).
 function timingNote(o) {
-  var f = (o.finding_sentences || []).filter(function (s) { return /9 in 10 times/.test(s.text); })[0];
+  var fs = o.finding_sentences || [], said = o.said && o.said.findings, f = '';
+  for (var i = 0; i < fs.length; i++) if (/9 in 10 times/.test(fs[i].text)) f = said && said[i] ? said[i] : '';
   if (!o.timing) {
     return 'These counts were checked with the presses exactly on the cues only: a person\u2019s timing scatter was NOT accounted for.';
   }
-  return 'The counts allow for a person\u2019s timing scatter (' + fmtRes(o.timing.sigma_s) + '\u00A0s standard deviation), as the planner checked them. ' +
-    (f ? fillSentence(f) : '');
+  return 'The counts allow for a person\u2019s timing scatter (' + fmtStep('time', o.timing.sigma_s) + '\u00A0s standard deviation), as the planner checked them. ' + f;
 }
 
 // markPasser names what reaches the mark: the crane's position, not the
@@ -68,7 +60,7 @@ function markPasser(r) { return isSlew(r) ? 'jib passes the mark' : 'crane passe
 function coachHTML(r, o, st, stale) {
   var lim = (stale ? '<p class="coach-out" id="coach-stale" role="alert"><span aria-hidden="true">\u26A0</span> The inputs changed since this plan was made: plan the move again before using these counts.</p>' : '') +
     (o.within ? '' : '<p class="coach-out" id="coach-outside" role="alert"><span aria-hidden="true">\u2716</span> This option is OUTSIDE the plan\u2019s limits: ' +
-    esc((o.outside || []).join('; ')) + '. Do not use it for the lift without the person in charge agreeing.</p>');
+    esc(((o.said && o.said.outside) || o.outside || []).join('; ')) + '. Do not use it for the lift without the person in charge agreeing.</p>');
   var list = st.map(function (s) {
     return '<li data-step="' + s.i + '">' + esc(s.word) + ' (' + esc(s.speed) + ')' +
       (s.byMark ? ' <b>at the mark</b>' : s.i === 0 ? ' after the count-in' : ', count ' + esc(fmtRes(s.count_ms / 1000)) + '\u00A0s') +

@@ -24,11 +24,11 @@ export function numField(path, label, opts) {
   var v = getPath(S.scenario, path);
   var text = '';
   if (S.bad[path] !== undefined) text = S.bad[path].text;
-  else if (typeof v === 'number') text = fmtField(dq ? toShown(dq, v) : v);
+  else if (typeof v === 'number') text = fmtField(dq ? toShown(dq, v) : v, dq);
   var hint = '';
   if (r.text !== undefined) {
     var lo = dq ? toShown(dq, r.min) : r.min, hi = dq ? toShown(dq, r.max) : r.max;
-    hint = (r.open_min ? 'above ' : '') + fmtRange(lo) + ' to ' + fmtRange(hi) + (u.symbol ? ' ' + u.symbol : '');
+    hint = (r.open_min ? 'above ' : '') + fmtRange(lo, 'min') + ' to ' + fmtRange(hi, 'max') + (u.symbol ? ' ' + u.symbol : '');
   }
   if (opts.hint) hint = opts.hint + (hint ? '; ' + hint : '');
   var id = opts.id || fieldId(path);

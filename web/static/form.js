@@ -1,6 +1,7 @@
 // form.js: the inputs: the form, its events and the messages at fields.
 
 import { changed } from './compute.js';
+import { renderBodyForm } from './body-form.js';
 import { $, cssEsc } from './dom.js';
 import { numField, section, selectField, syncPrint, textField, unitChoosers } from './fields.js';
 import { inputsHTML, motionHTML, onList, planOnChange, planOnSelect } from './plan-form.js';
@@ -10,7 +11,7 @@ import { saveUnits } from './storage.js';
 import { fmtRange, parseNumber, toSI, toShown, unitOf } from './units.js';
 
 // The forms the inputs are in, in the page's order.
-const FORMS = ['form', 'plan-form', 'sheet-form', 'more-form'];
+const FORMS = ['form', 'body-form', 'move-form', 'plan-form', 'sheet-form', 'more-form'];
 
 // renderForm lays the inputs out in the job's order: load and crane, the
 // move, the wind on it and the lift plan's limits (the planner follows
@@ -29,14 +30,17 @@ export function renderForm() {
     '<span class="opt">(heavy hook block, or long slings: two sway modes)</span></label></div>' +
     (hook ? numField('load.hook.mass_kg', 'Hook block mass') +
       numField('load.hook.rigging_length_m', 'Rigging length', { hint: 'hook block to the load\u2019s centre of mass' }) : ''), 'load-card'));
-  h.push(motionsHTML(s));
-  h.push(section('Wind', windHTML(s.wind)));
+  $('form').innerHTML = h.join('');
+  // The rigid load (body-form.js) follows the load; then the move, the
+  // wind and the limits, which the planner after them uses.
+  renderBodyForm();
+  h = [motionsHTML(s), section('Wind', windHTML(s.wind))];
   h.push(section('Limits from the lift plan',
     numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
     numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
     numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
     numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' }), 'limits-card'));
-  $('form').innerHTML = h.join('');
+  $('move-form').innerHTML = h.join('');
   $('plan-form').innerHTML = inputsHTML();
   $('sheet-form').innerHTML = section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card') +
     section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
@@ -266,7 +270,7 @@ function shownMessage(fe) {
   var u = unitOf(el.dataset.dq);
   if (u.to_si === 1 && u.symbol === r.unit) return msg;
   var lo = toShown(el.dataset.dq, r.min), hi = toShown(el.dataset.dq, r.max);
-  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo) + ' up to ' + fmtRange(hi) + ' ' + u.symbol;
+  var accepted = 'accepted ' + (r.open_min ? 'above ' : 'from ') + fmtRange(lo, 'min') + ' up to ' + fmtRange(hi, 'max') + ' ' + u.symbol;
   if (/ is out of range: /.test(fe.message)) {
     return el.value.trim() + ' ' + u.symbol + ' is out of range: ' + accepted + ' (' + r.text.replace(/^accepted /, '') + ').';
   }

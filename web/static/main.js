@@ -11,6 +11,7 @@ import { DEADLINES, call, cancel, engineError, startWorker } from './engine.js';
 import { bindForm, renderForm } from './form.js';
 import { bindPlan, planLoaded, renderPlan } from './plan-view.js';
 import { sheetCurrent } from './sheet.js';
+import { bindLibrary } from './library.js';
 import './offline.js';
 import { P } from './plan-form.js';
 import { renderAll, renderPlots, renderSys, updateBanner } from './results.js';
@@ -41,7 +42,7 @@ function demo() {
 
 function start() {
   startWorker();
-  bindForm(); bindSaved(); bindFiles(); bindShare(); bindExamples(); bindSys();
+  bindForm(); bindSaved(); bindFiles(); bindShare(); bindExamples(); bindLibrary(); bindSys();
   Promise.all([call('units'), call('ranges'), call('examples'), call('version')]).then(function (rs) {
     for (var i = 0; i < rs.length; i++) if (rs[i].error) { engineError(rs[i].error.message); return; }
     S.table = rs[0].result;
@@ -111,13 +112,16 @@ $('do-print').onclick = function () {
 
 $('cancel-calc').onclick = cancel;
 
-// "Use as my own": the example's mark and its description (which speaks of
-// the invented lift's figures) go; the figures typed stay.
+// "Use as my own": nothing of the example stays to print under the
+// user's lift: its name, description and example mark go (the sheet's
+// reference fields, typed by the user, stay).
 $('example-own').onclick = function () {
   delete S.scenario.example;
+  delete S.scenario.name;
   delete S.scenario.description;
   renderForm();
   changed();
+  notice('The example\u2019s name and description are cleared: name this lift before printing.');
 };
 
 // For the browser tests and for people checking a figure: the current
@@ -139,7 +143,7 @@ window.swaysheet = {
   // answered is true when the core has answered for the inputs as they
   // are; settled (below) also waits for the check sheet.
   answered: function () {
-    return !S.waiting && !computing() && !S.adopting && !S.keeping && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
+    return !S.waiting && !computing() && !S.adopting && !S.keeping && !S.saying && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
   }
 };
 // settled: answered, and the check sheet is that of the last result.

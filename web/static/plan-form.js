@@ -8,7 +8,7 @@ import { numField, selectField } from './fields.js';
 import { clearBad, renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { ANGULAR, LINEAR, PLAN_AXES, S, getPath, setPath } from './state.js';
-import { fmtField, fmtRes, parseNumber, toShown, unitOf } from './units.js';
+import { fmtField, fmtStep, parseNumber, toShown, unitOf } from './units.js';
 
 export const P = {
   result: null,   // last plan.Result
@@ -45,11 +45,11 @@ export function planKey(sc) {
 
 // ------------------------------------------------------------ formatting
 
-export function num(dq, v) { return fmtRes(toShown(dq, v)); }
+export function num(dq, v) { return fmtStep(dq, toShown(dq, v)); }
 export function sym(dq) { return unitOf(dq).symbol; }
 export function withU(dq, v) { return num(dq, v) + '\u00A0' + sym(dq); }
-export function secs(v) { return fmtRes(v) + '\u00A0s'; }
-export function deg(v) { return fmtRes(v) + '\u00A0deg'; }
+export function secs(v) { return fmtStep('time', v) + '\u00A0s'; }
+export function deg(v) { return fmtStep('angle', v) + '\u00A0deg'; }
 // siNote marks the planner's own sentences, which give figures in SI
 // units, when other units are shown.
 export function siNote() {
@@ -89,10 +89,13 @@ function defaultPlan(s) {
 }
 
 export function limitsLine(s) {
+  // The limits are inputs: shown as typed (fields' format), not rounded
+  // as results.
   var l = s.limits || {}, parts = [];
-  if (typeof l.peak_swing_deg === 'number') parts.push('peak swing ' + deg(l.peak_swing_deg));
-  if (typeof l.peak_excursion_m === 'number') parts.push('peak excursion ' + withU('length', l.peak_excursion_m));
-  if (typeof l.residual_swing_deg === 'number') parts.push('residual swing ' + deg(l.residual_swing_deg));
+  var typed = function (dq, v) { return fmtField(toShown(dq, v), dq) + '\u00A0' + sym(dq); };
+  if (typeof l.peak_swing_deg === 'number') parts.push('peak swing ' + fmtField(l.peak_swing_deg) + '\u00A0deg');
+  if (typeof l.peak_excursion_m === 'number') parts.push('peak excursion ' + typed('length', l.peak_excursion_m));
+  if (typeof l.residual_swing_deg === 'number') parts.push('residual swing ' + fmtField(l.residual_swing_deg) + '\u00A0deg');
   return '<p class="field wide plan-limits" id="plan-limits">Limits used: ' +
     (parts.length ? esc(parts.join(', ')) : 'none set yet') +
     ' \u2014 from <a href="#f-limits-peak_swing_deg">Limits from the lift plan</a>; a plan needs the residual swing and a peak swing or excursion.</p>';

@@ -11,8 +11,10 @@ import { clearBad, renderForm } from './form.js';
 import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
 import { S } from './state.js';
 import { chart, fitWidth } from './plot.js';
+import { presentFigures } from './results.js';
 import { keepInSaved } from './storage.js';
-import { fmtRes, toShown } from './units.js';
+import { fmtRes, fmtStep, toShown } from './units.js';
+import { planWords, unitsKey } from './words.js';
 
 function runPlan() {
   if (!S.scenario || !S.scenario.plan || P.running) return;
@@ -29,7 +31,10 @@ function runPlan() {
   P.ticker = setInterval(planProgress, 250);
   planProgress();
   renderPlan();
+  // The plan, then its sentences in the units shown, before it is shown.
   Promise.all([call('plan', sent), keyed]).then(function (rs) {
+    return rs[0].error ? rs : planWords(rs[0].result).then(function (w) { return rs.concat([w]); });
+  }).then(function (rs) {
     var r = rs[0], key = rs[1];
     P.running = false;
     clearInterval(P.ticker);
@@ -42,10 +47,36 @@ function runPlan() {
       if (P.keySeq === seq) P.nowKey = key;
       P.applied = null;
       P.count++;
+      P.words = rs[2];
+      if (P.words) P.words.count = P.count;
     }
     renderPlan();
+    // A planned request without moves is presented for the recommended
+    // move: the results follow the plan.
+    if (!r.error) presentFigures();
   });
 }
+
+// words are the plan's sentences in the units shown (the core's "say"
+// call, asked again when the units change); until they come, the
+// planner's SI text, said to be SI.
+function words(r) {
+  var w = P.words;
+  if (w && w.key === unitsKey() && w.count === P.count) return w;
+  if (!P.wordsAsked || P.wordsAsked.key !== unitsKey() || P.wordsAsked.count !== P.count) {
+    var asked = P.wordsAsked = { key: unitsKey(), count: P.count };
+    planWords(r).then(function (got) {
+      if (P.wordsAsked !== asked || !got || P.result !== r) return;
+      got.count = asked.count;
+      P.words = got;
+      renderPlan();
+    });
+  }
+  return { si: true, reason: r.reason, infeasible: r.infeasible, notes: r.notes,
+    options: r.options.map(function (o) { return { settings: o.settings, findings: o.findings, outside: o.outside }; }) };
+}
+
+function note(w) { return w.si ? siNote() : ''; }
 
 function planProgress() {
   var box = $('plan-progress');
@@ -97,20 +128,21 @@ export function renderPlan() {
   }
   out.push('<p class="stale" id="plan-stale" role="status"' + (P.key === P.nowKey ? ' hidden' : '') +
     '>\u26A0 The inputs changed since this plan was made: press \u201CPlan the move\u201D again. The plan below is for the earlier inputs.</p>');
+  var w = words(r);
   out.push(summary(r));
-  out.push(recommended(r));
+  out.push(recommended(r, w));
   if (!(s.motions || []).length && r.options.length) {
-    out.push('<p class="plan-nomove" id="plan-nomove"><span aria-hidden="true">\u2139</span> The crane motions are empty, so the results above show the load at rest. ' +
-      'Use one of these moves in the crane motions to see its swing there.</p>');
+    out.push('<p class="plan-nomove" id="plan-nomove"><span aria-hidden="true">\u2139</span> The crane motions are empty, so the results, plots and sheet show the recommended move. ' +
+      'Use one of these moves in the crane motions to see another.</p>');
   }
-  if (r.infeasible && r.infeasible.length) {
-    out.push('<div class="plan-infeasible" id="plan-infeasible"><h3>What to change</h3>' + listHTML(r.infeasible, 'warn-list', '\u2716') + siNote() + '</div>');
+  if (w.infeasible && w.infeasible.length) {
+    out.push('<div class="plan-infeasible" id="plan-infeasible"><h3>What to change</h3>' + listHTML(w.infeasible, 'warn-list', '\u2716') + note(w) + '</div>');
   }
-  if (r.notes && r.notes.length) out.push('<div class="plan-notes"><h3>Notes</h3>' + listHTML(r.notes, 'note-list', '\u2139') + siNote() + '</div>');
+  if (w.notes && w.notes.length) out.push('<div class="plan-notes"><h3>Notes</h3>' + listHTML(w.notes, 'note-list', '\u2139') + note(w) + '</div>');
   if (r.options.length) {
     out.push(planTable(r));
     out.push('<h3 class="plan-h">Each option: crew settings and checked figures</h3>');
-    r.options.forEach(function (o, i) { out.push(optionCard(r, o, i)); });
+    r.options.forEach(function (o, i) { out.push(optionCard(r, o, i, w)); });
   }
   out.push('<div class="plots plan-plots"><figure id="plot-plan-ramp" class="plot"></figure><figure id="plot-plan-rope" class="plot"></figure></div>');
   out.push('<details class="assumptions"><summary>What the planner assumes</summary>' + listHTML(r.assumptions, '', '') + '</details>');
@@ -140,26 +172,27 @@ function summary(r) {
     esc(String(r.simulations)) + ' simulations.</p>' + modes(r);
 }
 
-// modes shows the hook block's two sway modes, when the plan has them.
+// modes shows the two sway modes of a hook block or a rigid load, when
+// the plan has them (modes_of: whose they are, in the core's words).
 function modes(r) {
   var m = r.mode_periods_s;
   if (!m || m.length < 2) return '';
-  return '<p class="plan-modes" id="plan-modes"><b>Hook block and rigging: two sway modes</b>, <span id="plan-mode1">' + esc(secs(m[0])) +
+  return '<p class="plan-modes" id="plan-modes"><b>Two sway modes ' + esc(r.modes_of || 'of hook block and rigging') + '</b>, <span id="plan-mode1">' + esc(secs(m[0])) +
     '</span> and <span id="plan-mode2">' + esc(secs(m[1])) + '</span> at the nominal rope; the second carries up to <span id="plan-share">' +
     esc(fmtRes(100 * r.second_mode_share)) + '\u00A0%</span> of the load\u2019s swing. Two-mode shapers are tuned to ' +
     esc(secs(r.design_period_s)) + ' and ' + esc(secs(r.second_design_period_s)) + '.</p>';
 }
 
-function recommended(r) {
+function recommended(r, w) {
   if (r.recommended < 0) {
-    return '<div class="plan-rec none" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2716</span> No option is recommended</p><p>' + esc(r.reason) + siNote() + '</p></div>';
+    return '<div class="plan-rec none" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2716</span> No option is recommended</p><p>' + esc(w.reason) + note(w) + '</p></div>';
   }
   var o = r.options[r.recommended];
   // The core's reason starts by naming the option, as the heading does.
-  var why = r.reason, lead = 'Recommended: ' + o.label + ' \u2014 ';
+  var why = w.reason, lead = 'Recommended: ' + o.label + ' \u2014 ';
   if (why.indexOf(lead) === 0) why = why.slice(lead.length);
   return '<div class="plan-rec" id="plan-rec"><p class="rec-head"><span aria-hidden="true">\u2605</span> Recommended: <span id="plan-rec-label">' + esc(o.label) + '</span></p>' +
-    '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span>' + siNote() + '</p>' +
+    '<p><b>Why:</b> <span id="plan-reason">' + esc(why) + '</span>' + note(w) + '</p>' +
     '<p><a class="button" href="#plan-opt-' + r.recommended + '">Its crew settings</a>' +
     (o.presses && o.presses.length ? ' <button type="button" class="coach-open" data-coach="' + r.recommended + '">Press coach</button>' : '') + '</p></div>';
 }
@@ -168,6 +201,7 @@ function recommended(r) {
 // breaks (the figures are in the table beside it).
 function optionVerdict(o, short) {
   if (o.within) return '<span class="verdict ok"><span aria-hidden="true">\u2714</span> within</span>';
+  // The limit's name: the first two words of each (no figures).
   var which = (o.outside || []).map(function (t) { return t.split(' ').slice(0, 2).join(' '); });
   return '<span class="verdict out"><span aria-hidden="true">\u2716</span> OUTSIDE</span>' +
     (which.length ? (short ? '<br>' : ': ') + '<span class="which">' + esc(which.join(', ')) + '</span>' : '');
@@ -186,16 +220,16 @@ function planTable(r) {
       '<span data-col="label">' + esc(o.label) + '</span></a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') +
       (o.two_mode ? ' <span class="mode-word">both modes</span>' : '') +
       '<span class="lim" data-col="limits">' + optionVerdict(o, false) + '</span></th>' +
-      '<td class="n" data-col="move" data-label="Move (s)">' + fmtRes(o.move_time_s) + '</td><td class="n" data-col="extra" data-label="Extra (s)">' + fmtRes(o.penalty_s) + '</td>' +
-      '<td class="n" data-col="peak" data-label="Peak (deg)">' + fmtRes(o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion" data-label="Excursion (' + esc(L) + ')">' +
+      '<td class="n" data-col="move" data-label="Move (s)">' + fmtStep('time', o.move_time_s) + '</td><td class="n" data-col="extra" data-label="Extra (s)">' + fmtStep('time', o.penalty_s) + '</td>' +
+      '<td class="n" data-col="peak" data-label="Peak (deg)">' + fmtStep('angle', o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion" data-label="Excursion (' + esc(L) + ')">' +
       num('length', o.worst_peak_excursion_m) + '</td>' +
-      '<td class="n" data-col="residual" data-label="Residual (deg)">' + fmtRes(o.worst_residual_swing_deg) + '</td></tr>';
+      '<td class="n" data-col="residual" data-label="Residual (deg)">' + fmtStep('angle', o.worst_residual_swing_deg) + '</td></tr>';
   });
   return h + '</tbody></table></div>';
 }
 
 // crew renders an option's settings from the planner's own numbers.
-function crew(r, o) {
+function crew(r, o, ow, w) {
   var sdq = speedDQ(r), adq = accelDQ(r), h = '';
   var top = isSlew(r) ? o.top_rate_deg_per_s : o.top_speed_m_per_s;
   var acc = isSlew(r) ? o.accel_deg_per_s2 : o.accel_m_per_s2;
@@ -225,19 +259,20 @@ function crew(r, o) {
       '<li>Ramp time to the top speed: <b>' + esc(secs(o.ramp_s)) + '</b></li>' +
       '<li>Top ' + (isSlew(r) ? 'slew rate' : 'speed') + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
   }
-  if (o.settings && o.settings.length) {
-    h += '<details class="words"><summary>The planner\u2019s own words (figures in SI units)</summary>' +
-      '<pre>' + esc(o.settings.join('\n')) + '</pre></details>';
+  if (ow.settings && ow.settings.length) {
+    h += '<details class="words"><summary>The planner\u2019s own words' + (w.si ? ' (figures in SI units)' : '') + '</summary>' +
+      '<pre>' + esc(ow.settings.join('\n')) + '</pre></details>';
   }
   return h;
 }
 
-function optionCard(r, o, i) {
+function optionCard(r, o, i, w) {
+  var ow = w.options[i];
   var rec = i === r.recommended, L = sym('length');
   var h = '<details class="opt-card' + (rec ? ' rec' : '') + '" id="plan-opt-' + i + '"' + (rec ? ' open' : '') + '><summary>' +
     (rec ? '<span aria-hidden="true">\u2605</span> ' : '') + o.rank + '. ' + esc(o.label) + (rec ? ' \u2014 <strong>Recommended</strong>' : '') +
     ' \u00B7 ' + esc(secs(o.move_time_s)) + ' \u00B7 ' + optionVerdict(o) + '</summary><div class="opt-body">';
-  h += '<h4>Settings for the crew</h4>' + crew(r, o);
+  h += '<h4>Settings for the crew</h4>' + crew(r, o, ow, w);
   if (o.presses && o.presses.length) {
     h += '<p class="row"><button type="button" class="coach-open" data-coach="' + i + '">Press coach: count the presses on screen</button></p>';
   }
@@ -252,8 +287,8 @@ function optionCard(r, o, i) {
       '<div class="table-wrap" tabindex="0" role="region" aria-label="Estimated figures at each rope length"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
       '<th scope="col">Peak swing, estimate (deg)</th><th scope="col">Peak excursion, estimate (' + esc(L) + ')</th><th scope="col">Residual swing, estimate (deg)</th></tr></thead><tbody>' +
       (o.estimated || []).map(function (v, j) {
-        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
-          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td></tr>';
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtStep('angle', v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtStep('angle', v.residual_swing_deg) + '</td></tr>';
       }).join('') + '</tbody></table></div>';
   } else {
     var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
@@ -261,12 +296,12 @@ function optionCard(r, o, i) {
       '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
       (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
       o.verified.map(function (v, j) {
-        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtRes(v.peak_swing_deg) +
-          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtRes(v.residual_swing_deg) + '</td><td class="n">' +
-          fmtRes(v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtRes(v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
+        return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtStep('angle', v.peak_swing_deg) +
+          '</td><td class="n">' + num('length', v.peak_excursion_m) + '</td><td class="n">' + fmtStep('angle', v.residual_swing_deg) + '</td><td class="n">' +
+          fmtStep('ratio', v.tension_factor) + '</td>' + (rig ? '<td class="n">' + (typeof v.peak_rigging_angle_deg === 'number' ? fmtStep('angle', v.peak_rigging_angle_deg) : '\u2014') + '</td>' : '') + '</tr>';
       }).join('') + '</tbody></table></div>';
   }
-  if (!o.within) h += listHTML(o.outside, 'warn-list', '\u2716');
+  if (!o.within) h += listHTML(ow.outside, 'warn-list', '\u2716') + note(w);
   h += '<p class="row"><button type="button" class="apply" data-apply="' + i + '">' +
     (P.applied === o.key ? '\u2714 In the crane motions' : 'Use this move in the crane motions') + '</button></p>';
   return h + '</div></details>';
@@ -287,7 +322,7 @@ const CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
 
 function curves(r) {
   var at = r.curves.accel_time, re = r.curves.rope_error, lim = r.limits || {};
-  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + fmtRes(lim.residual_swing_deg) + ' deg' }] : [];
+  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + deg(lim.residual_swing_deg) }] : [];
   $('plot-plan-ramp').innerHTML = chart({ width: fitWidth($('plot-plan-ramp')),
     id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', xLabel: 'ramp time to top speed (s)', yLabel: 'residual swing (deg)',
     yFromZero: true, hlines: hl, legendTop: true,
@@ -347,7 +382,12 @@ export function bindPlan() {
     var b = e.target.closest && e.target.closest('[data-apply]');
     if (b && P.result) applyOption(Number(b.dataset.apply));
     var c = e.target.closest && e.target.closest('[data-coach]');
-    if (c && P.result) openCoach(P.result, P.result.options[Number(c.dataset.coach)], c, P.key !== P.nowKey);
+    if (c && P.result) {
+      // The option with its sentences in the units shown, when the core has put them.
+      var i = Number(c.dataset.coach), o = Object.assign({}, P.result.options[i]), w = words(P.result);
+      if (!w.si) o.said = w.options[i];
+      openCoach(P.result, o, c, P.key !== P.nowKey);
+    }
   });
 }
 

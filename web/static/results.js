@@ -8,7 +8,8 @@ import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
 import { chart, fitWidth } from './plot.js';
 import { S } from './state.js';
-import { SHOWN_QUANTITIES, defaultsFor, fmtRes, toShown, unitOf } from './units.js';
+import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
+import { say } from './words.js';
 
 let figuresAsked = 0, figuresWaiting = false;
 
@@ -22,16 +23,32 @@ function figuresInput(sent) {
 // (S.resultSent) in the units shown, then shows them with the warnings
 // and plots. The bridge keeps the last results by scenario fingerprint,
 // so this computes nothing again. An answer overtaken by a later request
-// (the units changed meanwhile) is dropped.
+// (the units changed meanwhile) is dropped. The figures may be of another
+// scenario than the inputs (a planned request without moves: the
+// recommended move, result_scenario); the warnings and plots are then of
+// that one too, so page, plots and sheet show the same move.
 export function presentFigures() {
   if (!S.result || !S.resultSent) return Promise.resolve();
-  var n = ++figuresAsked;
+  var n = ++figuresAsked, own = S.result;
   figuresWaiting = true;
   return call('figures', figuresInput(S.resultSent)).then(function (f) {
-    if (n !== figuresAsked) return;
-    figuresWaiting = false;
-    S.figures = f.error ? { error: f.error.message } : f.result;
-    renderResults();
+    if (n !== figuresAsked) return null;
+    if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
+    var rep = f.result;
+    var got = rep.result_scenario ? call('evaluate', JSON.stringify(rep.result_scenario)) : Promise.resolve({ result: own });
+    return got.then(function (e) {
+      if (e.error) return { figures: { error: 'the figures\u2019 own move could not be evaluated: ' + e.error.message }, result: own, fingerprint: '' };
+      return { figures: rep, result: e.result, fingerprint: rep.result_fingerprint };
+    });
+  }).then(function (p) {
+    if (!p || n !== figuresAsked) return null;
+    return say(p.result.warning_sentences || []).then(function (texts) {
+      if (n !== figuresAsked) return;
+      figuresWaiting = false;
+      S.figures = p.figures;
+      S.shown = { result: p.result, fingerprint: p.fingerprint, warnings: texts };
+      renderResults();
+    });
   });
 }
 
@@ -85,8 +102,11 @@ function engineeringDetail(rows, open) {
     }).join('') + '</tbody></table></div></details>';
 }
 
+// shownResult is the result the figures, warnings and plots are of.
+function shownResult() { return S.shown && S.shown.result ? S.shown.result : S.result; }
+
 export function renderResults() {
-  var r = S.result, f = S.figures;
+  var r = shownResult(), f = S.figures;
   if (!r || !f) return;
   var hd = $('headline');
   if (f.error) {
@@ -99,9 +119,13 @@ export function renderResults() {
       engineeringDetail(f.rows, det && det.open);
   }
   hd.dataset.count = String(S.count);
-  var w = r.warnings || [];
+  // The core's warnings in the units shown (the "say" call); should that
+  // fail, its SI text, said to be SI.
+  var w = S.shown && S.shown.warnings, si = !w;
+  if (!w) w = r.warnings || [];
   $('warnings').innerHTML = w.length ?
-    '<h3>Warnings</h3><ul>' + w.map(function (t) { return '<li><span aria-hidden="true">\u26A0</span> ' + esc(t) + '</li>'; }).join('') + '</ul>' :
+    '<h3>Warnings</h3><ul>' + w.map(function (t) { return '<li><span aria-hidden="true">\u26A0</span> ' + esc(t) + '</li>'; }).join('') + '</ul>' +
+      (si ? '<p class="small">(in SI units: they could not be put into the units shown)</p>' : '') :
     '<p class="no-warn"><span aria-hidden="true">\u2714</span> No warnings for these inputs.</p>';
   $('assumptions').innerHTML = (r.assumptions || []).map(function (t) { return '<li>' + esc(t) + '</li>'; }).join('');
   // The check sheet (sheet.js) follows each result.
@@ -124,7 +148,9 @@ export function markStale(on) {
 }
 
 export function renderPlots() {
-  var r = S.result, hs = r.history;
+  var r = shownResult(), hs = r.history;
+  // Which scenario the plots are of: the figures' (result_fingerprint).
+  $('charts').dataset.fingerprint = (S.shown && S.shown.fingerprint) || '';
   if (!hs || !hs.time_s || !hs.time_s.length) return;
   var L = unitOf('length').symbol, F = unitOf('force').symbol;
   var bands = [];
@@ -135,10 +161,13 @@ export function renderPlots() {
   });
   var lim = S.scenario.limits || {};
   var hl = [];
-  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtRes(lim.peak_swing_deg) + ' deg' });
+  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
+  // Plots of another move than the inputs' (the planner's recommended
+  // one) say so, as the figures above do.
+  var of = S.figures && S.figures.result_for ? 'Of ' + S.figures.result_for + '. ' : '';
   $('plot-angle').innerHTML = chart({ width: fitWidth($('plot-angle')), id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
-    '<figcaption>Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
+    '<figcaption>' + esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
   $('plot-path').innerHTML = chart({ width: fitWidth($('plot-path')), id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
@@ -151,7 +180,7 @@ export function renderPlots() {
   var st = toShown('force', r.static_tension_n);
   $('plot-tension').innerHTML = chart({ width: fitWidth($('plot-tension')), id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
     series: [{ x: hs.time_s, y: scale('force', hs.tension_n), label: 'tension', cls: 's1' }], bands: bands,
-    hlines: [{ y: st, label: 'static ' + fmtRes(st) + ' ' + F }] }) +
+    hlines: [{ y: st, label: 'static ' + fmtStep('force', st) + ' ' + F }] }) +
     '<figcaption>Dashed line: the load\u2019s weight (static pull).</figcaption>';
 }
 

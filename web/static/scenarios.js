@@ -6,6 +6,7 @@ import { $, download, esc, notice } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { planLoaded } from './plan-view.js';
+import { importRecord, isRecord } from './record.js';
 import { updateBanner } from './results.js';
 import { S } from './state.js';
 import { SAVED, looksLikeScenario, store } from './storage.js';
@@ -73,7 +74,10 @@ export function bindFiles() {
     var rd = new FileReader();
     rd.onload = function () {
       e.target.value = '';
-      adopt(String(rd.result), f.name, 'Imported ' + f.name + '.');
+      var text = String(rd.result);
+      // A drive record (CSV) becomes a recorded move (record.js).
+      if (isRecord(f.name, text)) importRecord(text, f.name);
+      else adopt(text, f.name, 'Imported ' + f.name + '.');
     };
     rd.onerror = function () { notice('\u2716 ' + f.name + ' could not be read.'); };
     rd.readAsText(f);

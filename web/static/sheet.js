@@ -33,6 +33,8 @@ function buildSheet() {
     // escaped by the renderer.
     sheetHost.innerHTML = r.result.html;
     sheetHost.dataset.fingerprint = r.result.fingerprint;
+    // Which scenario's results it prints (the figures' and plots' too).
+    sheetHost.dataset.resultFingerprint = r.result.result_fingerprint;
     fitSheet();
     sheetHost.dataset.ready = String(my);
     sheetMadeFor = forResult;
