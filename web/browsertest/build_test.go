@@ -8,6 +8,8 @@ import (
 	"runtime"
 	"sync"
 	"testing"
+
+	"swaysheet/web/dist"
 )
 
 var (
@@ -24,11 +26,24 @@ func wasmBuild(t *testing.T) string {
 		if wasmDir, wasmErr = os.MkdirTemp("", "swaysheet-browsertest-"); wasmErr != nil {
 			return
 		}
-		cmd := exec.Command("go", "build", "-o", filepath.Join(wasmDir, "swaysheet.wasm"), "./wasm")
+		// Built as make wasm builds it: stripped, data segments joined.
+		wasmFile := filepath.Join(wasmDir, "swaysheet.wasm")
+		cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
 		cmd.Dir = root
 		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
 		if out, err := cmd.CombinedOutput(); err != nil {
 			wasmErr = fmt.Errorf("building the wasm: %v\n%s", err, out)
+			return
+		}
+		w, err := os.ReadFile(wasmFile)
+		if err == nil {
+			w, err = dist.PackData(w, dist.PackGap)
+		}
+		if err == nil {
+			err = os.WriteFile(wasmFile, w, 0o644)
+		}
+		if err != nil {
+			wasmErr = err
 			return
 		}
 		wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
