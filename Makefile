@@ -6,23 +6,31 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm clean
 
 all: test
 
 # System packages the tests need (Debian): chromium for browser tests,
-# poppler-utils for the print tests. Installed only when missing.
+# poppler-utils for the print tests. Installed only when missing. The
+# browser tests' accessibility checks run axe-core from the npm registry,
+# installed into out/axe (never committed; web/browsertest installs it
+# too when it is missing; keep the version in step with axeVersion there).
+AXE_VERSION := 4.10.3
+AXE := $(OUT)/axe/node_modules/axe-core/axe.min.js
 deps:
 	@need=""; \
 	command -v chromium >/dev/null 2>&1 || need="$$need chromium"; \
 	command -v pdfinfo >/dev/null 2>&1 || need="$$need poppler-utils"; \
 	command -v pdftoppm >/dev/null 2>&1 || need="$$need poppler-utils"; \
+	command -v npm >/dev/null 2>&1 || need="$$need npm"; \
 	if [ -n "$$need" ]; then \
 	  echo "installing:$$need"; \
 	  if [ "$$(id -u)" = 0 ]; then apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; \
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; fi; \
 	fi
 	$(GO) mod download
+	@test -f $(AXE) || { echo "installing: axe-core $(AXE_VERSION) (npm, into $(OUT)/axe)"; \
+	  npm install --prefix $(OUT)/axe --no-audit --no-fund --no-save axe-core@$(AXE_VERSION); }
 
 vet:
 	$(GO) vet ./...
@@ -46,24 +54,33 @@ test-wasm:
 test-browser:
 	SWAYSHEET_BROWSER=1 $(GO) test -p 1 -count=1 -timeout 15m ./web/browsertest/ ./web/sheettest/
 
-# The wasm embeds copies of the example scenarios for pages opened from a
-# file; a test in wasm/bridge fails when they differ from testdata/scenarios.
+# The wasm embeds the example scenarios for pages opened from a file, as
+# one file (wasm/bridge/examples.json: each file's name and its text as it
+# is); a test in wasm/bridge fails when it differs from testdata/scenarios.
 examples:
-	rm -f wasm/bridge/examples/*.json
-	cp testdata/scenarios/*.json wasm/bridge/examples/
+	@set -e; LC_ALL=C; sep=''; { printf '['; for f in testdata/scenarios/*.json; do \
+	  printf '%s\n{"file": "%s", "scenario": ' "$$sep" "$${f##*/}"; cat "$$f"; printf '}'; sep=','; \
+	done; printf '\n]\n'; } > wasm/bridge/examples.json
+	@echo "wrote wasm/bridge/examples.json"
 
-# The page's build output: the wasm and Go's matching wasm_exec.js.
+# The page's build output: the wasm and Go's matching wasm_exec.js. -s -w
+# leave out the wasm's name section (function names for the browser's
+# debugger, about 40 KB gzipped); Go's own panics and stack traces still
+# name functions (they read Go's function table, not that section).
 wasm:
 	@mkdir -p $(OUT)/web
-	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(OUT)/web/swaysheet.wasm ./wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
+	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
 # The wasm of the single-file page: no net/http (a page opened from a file
 # has no origin to fetch from; the examples are the copies inside it),
-# symbols stripped.
+# symbols stripped. Both wasm files get their data segments joined
+# (swaypack: the same memory at start, about 6 % less gzipped).
 single-wasm:
 	@mkdir -p $(OUT)/single
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
+	$(GO) run ./web/cmd/swaypack $(OUT)/single/swaysheet.wasm
 
 # dist/web: the page to host on any web server (with its service worker);
 # dist/swaysheet.html: one file, the wasm inside, that opens from a file.
@@ -75,10 +92,6 @@ dist: wasm single-wasm
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq zopfli; fi; }
 	zopfli -c --i5 $(OUT)/single/swaysheet.wasm > $(OUT)/single/swaysheet.wasm.gz
 	$(GO) run ./web/cmd/swaydist -build $(OUT)/web -single-wasm $(OUT)/single/swaysheet.wasm -single-gz $(OUT)/single/swaysheet.wasm.gz -out dist
-
-# web/static/sheet.css is the page's copy of the check sheet's style sheet.
-sheetcss:
-	cp core/sheet/sheet.css web/static/sheet.css
 
 # Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
 serve: wasm
@@ -144,7 +157,8 @@ BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.j
 bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
-	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web > $(BENCH)/size.json
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(BENCH)/parts.wasm ./wasm
+	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json

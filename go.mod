@@ -6,7 +6,6 @@ require (
 	github.com/chromedp/cdproto v0.159.0
 	github.com/chromedp/chromedp v0.23.0
 	github.com/makiuchi-d/gozxing v0.1.1
-	github.com/skip2/go-qrcode v0.0.0-20200617195104-da1b6568686e
 	github.com/syumai/tinyutil v0.3.2
 	gonum.org/v1/gonum v0.17.0
 )

@@ -5,7 +5,6 @@ import (
 	"math"
 	"sort"
 
-	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -39,12 +38,21 @@ const freeOmega2 = 1e-7
 // Modes returns the small-oscillation modes about hanging still at rope
 // length l, slowest first, free modes last. It linearises the equations
 // numerically: N is an orthonormal basis of the null space of the
-// constraint gradient G (the displacements the rope and legs allow, from
-// gonum's SVD); the accelerations z(eta) for a displacement N eta from
-// rest, by fourth-order central differences (step about 1e-3; the constraint
-// violation, even in eta, cancels), lie in the same space to first order, so
-// eta” = N^T dz/deta eta = -K eta and omega^2 are the eigenvalues of K
-// (gonum's Eigen). Velocity terms are of second order at rest.
+// constraint gradient G (the displacements the rope and legs allow; by a
+// one-sided Jacobi SVD, smallmat.go); the accelerations z(eta) for a
+// displacement N eta from rest, by fourth-order central differences (step
+// about 1e-3; the constraint violation, even in eta, cancels), lie in the
+// same space to first order, so eta” = N^T dz/deta eta = -K eta and
+// omega^2 are the eigenvalues of K. Velocity terms are of second order at
+// rest. K = M_N^-1 S with M_N = N^T M N the mass matrix in that space (M
+// the block diagonal of the body's mass, its inertia in the ground frame
+// and the hook's mass) and S the stiffness, symmetric for a conservative
+// system (any mechanics text on small oscillations). So the modes come
+// from the symmetric problem S x = omega^2 M_N x: with M_N = L L^T
+// (Cholesky), the eigenvalues of L^-1 S L^-T by Jacobi rotations, S taken
+// as the symmetric part of M_N K (its antisymmetric part is the
+// differences' error). Each shape is scaled to unit length with its
+// largest component positive.
 func (r *Rigid) Modes(l float64) ([]RigidMode, error) { return r.modes(l, nil) }
 
 func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
@@ -56,43 +64,25 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 	}
 	f0 := c.frameOf(0, y0)
 	rws := c.rows(&f0, nil)
-	g := mat.NewDense(max(len(rws), 1), nd, nil)
+	g := newDense(len(rws), nd)
 	for i, rw := range rws {
-		for k := range nd {
-			g.Set(i, k, rw.j[k])
-		}
+		copy(g[i], rw.j[:nd])
 	}
-	var svd mat.SVD
-	if !svd.Factorize(g, mat.SVDFull) {
-		return nil, errors.New("pendulum: SVD of the constraint gradient failed")
-	}
-	sv := svd.Values(nil)
-	rank := 0
-	for _, s := range sv {
-		if s > 1e-10*sv[0] {
-			rank++
-		}
-	}
-	if len(rws) == 0 {
-		rank = 0
-	}
-	var v mat.Dense
-	svd.VTo(&v)
-	k := nd - rank
-	nb := mat.DenseCopyOf(v.Slice(0, nd, rank, nd))
+	nb := nullSpace(g, nd, 1e-10)
+	k := len(nb[0])
 	// Fourth-order central differences, f'(0) = (f(-2h) - 8 f(-h) + 8 f(h)
 	// - f(2h)) / (12 h): truncation about h^4, rounding about 1e-16/h. The
 	// step is 1e-3 (m and rad) times the smallest radius of gyration in m
 	// when that is below 1 m: a small load's fast turning modes vary on
 	// that scale.
 	h := 1e-3 * math.Min(1, math.Min(c.Gyration.X, math.Min(c.Gyration.Y, c.Gyration.Z)))
-	dz := mat.NewDense(nd, k, nil)
+	dz := newDense(nd, k)
 	for j := range k {
 		var zs [4][9]float64
 		for n, step := range [4]float64{-2 * h, -h, h, 2 * h} {
 			var d [9]float64
 			for i := range nd {
-				d[i] = step * nb.At(i, j)
+				d[i] = step * nb[i][j]
 			}
 			y := append([]float64(nil), y0...)
 			c.displace(y, d)
@@ -100,41 +90,100 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 			zs[n], _ = c.accel(&f)
 		}
 		for i := range nd {
-			dz.Set(i, j, (zs[0][i]-8*zs[1][i]+8*zs[2][i]-zs[3][i])/(12*h))
+			dz[i][j] = (zs[0][i] - 8*zs[1][i] + 8*zs[2][i] - zs[3][i]) / (12 * h)
 		}
 	}
-	var kr mat.Dense
-	kr.Mul(nb.T(), dz)
-	kr.Scale(-1, &kr)
-	var eig mat.Eigen
-	if !eig.Factorize(&kr, mat.EigenRight) {
-		return nil, errors.New("pendulum: eigenvalues of the linearised model failed")
+	// The mass matrix M, then M N.
+	geo := c.geo
+	iw := f0.R.mul3(geo.ib).mul3(f0.R.transpose())
+	mn := newDense(nd, k)
+	for j := range k {
+		for i := range 3 {
+			mn[i][j] = geo.m * nb[i][j]
+			for q := range 3 {
+				mn[3+i][j] += iw[i][q] * nb[3+q][j]
+			}
+			if nd == 9 {
+				mn[6+i][j] = geo.mh * nb[6+i][j]
+			}
+		}
 	}
-	vals := eig.Values(nil)
-	var vecs mat.CDense
-	eig.VectorsTo(&vecs)
+	// M_N = N^T M N and M_N K = -N^T M N N^T dz = -(M N)^T dz, as N N^T
+	// projects onto the null space, where dz lies to first order; the
+	// symmetric part of the latter is S.
+	mk, kr := newDense(k, k), newDense(k, k)
+	for a := range k {
+		for b := range k {
+			for i := range nd {
+				mk[a][b] += nb[i][a] * mn[i][b]
+				kr[a][b] -= mn[i][a] * dz[i][b]
+			}
+		}
+	}
+	ll, ok := cholesky(mk)
+	if !ok {
+		return nil, errors.New("pendulum: the mass matrix of the linearised model is not positive definite")
+	}
+	// C = L^-1 S L^-T: S's columns through L^-1, then its rows.
+	sym := newDense(k, k)
+	for a := range k {
+		for b := range k {
+			sym[a][b] = 0.5 * (kr[a][b] + kr[b][a])
+		}
+	}
+	col := make([]float64, k)
+	for b := range k {
+		for a := range k {
+			col[a] = sym[a][b]
+		}
+		lowerSolve(ll, col, false)
+		for a := range k {
+			sym[a][b] = col[a]
+		}
+	}
+	for a := range k {
+		lowerSolve(ll, sym[a], false)
+	}
+	vals, vecs := symEigen(sym)
+	// The eigenvectors in the coordinates eta, x = L^-T y (columns of xs):
+	// M_N-orthonormal, so xs^-1 = xs^T M_N.
+	xs := newDense(k, k)
+	for j := range k {
+		for a := range k {
+			col[a] = vecs[a][j]
+		}
+		lowerSolve(ll, col, true)
+		for a := range k {
+			xs[a][j] = col[a]
+		}
+	}
 	out := make([]RigidMode, k)
 	for j := range k {
-		w2 := real(vals[j])
+		w2 := vals[j]
 		md := &out[j]
 		if w2 < freeOmega2 {
 			md.Free = true
 		} else {
 			md.PeriodS = 2 * math.Pi / math.Sqrt(w2)
 		}
-		for i := range nd {
-			s := 0.0
-			for q := range k {
-				s += nb.At(i, q) * real(vecs.At(q, j))
+		md.Shape = shapeOf(nb, xs, j)
+		norm, big := 0.0, 0.0
+		for _, s := range md.Shape {
+			norm += s * s
+			if math.Abs(s) > math.Abs(big) {
+				big = s
 			}
-			md.Shape[i] = s
+		}
+		if norm > 0 {
+			f := 1 / math.Copysign(math.Sqrt(norm), big)
+			for i := range md.Shape {
+				md.Shape[i] *= f
+			}
 		}
 		md.Kind = c.kindOf(md.Shape)
 	}
 	if dir != nil {
-		if err := c.shares(out, y0, nb, &vecs, vals, *dir); err != nil {
-			return nil, err
-		}
+		c.shares(out, y0, nb, xs, mk, vals, *dir)
 	}
 	sort.SliceStable(out, func(a, b int) bool {
 		if out[a].Free != out[b].Free {
@@ -143,6 +192,17 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 		return out[a].PeriodS > out[b].PeriodS
 	})
 	return out, nil
+}
+
+// shapeOf is N x_j, the j-th column of xs in the constraints' tangent
+// space.
+func shapeOf(nb, xs dense, j int) (s [9]float64) {
+	for i := range nb {
+		for q := range xs {
+			s[i] += nb[i][q] * xs[q][j]
+		}
+	}
+	return s
 }
 
 // kindOf names a mode shape by its largest kinetic energy share.

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"math"
 
-	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -26,7 +25,8 @@ import (
 // i, so mode i carries |c_i y_i / lambda_i| of it; Share is that over the
 // sum of all modes. This is what pendulum.LinearModes computes for the
 // hook block (its LoadShare). A free mode (twist on one hook) has no
-// share: a sudden start along a symmetric load does not turn it.
+// share: a sudden start along a symmetric load does not turn it. Modes'
+// eigenvectors are M_N-orthonormal, so V^-1 = V^T M_N: no system to solve.
 func (r *Rigid) ModesAlong(l float64, dir r3.Vec) ([]RigidMode, error) {
 	if n := r3.Norm(dir); n == 0 || dir.Z != 0 {
 		return nil, errors.New("pendulum: ModesAlong needs a horizontal direction")
@@ -36,10 +36,10 @@ func (r *Rigid) ModesAlong(l float64, dir r3.Vec) ([]RigidMode, error) {
 }
 
 // shares fills the modes' Share (c is r.Fixed(l); y0 its rest state; nb
-// the tangent basis; vecs, vals the eigenvectors and eigenvalues of K in
-// the order of out).
-func (c *Rigid) shares(out []RigidMode, y0 []float64, nb *mat.Dense, vecs *mat.CDense, vals []complex128, dir r3.Vec) error {
-	nd, k := nb.RawMatrix().Rows, nb.RawMatrix().Cols
+// the tangent basis; xs the eigenvectors of K in eta, M_N-orthonormal, and
+// vals their eigenvalues, in the order of out; mk is M_N).
+func (c *Rigid) shares(out []RigidMode, y0 []float64, nb, xs, mk dense, vals []float64, dir r3.Vec) {
+	nd, k := len(nb), len(xs)
 	// z at rest with the suspension point accelerating along dir, less
 	// the same at rest (zero to rounding).
 	still := c.frameOf(0, y0)
@@ -49,44 +49,38 @@ func (c *Rigid) shares(out []RigidMode, y0 []float64, nb *mat.Dense, vecs *mat.C
 	f := pushed.frameOf(0, y0)
 	za, _ := pushed.accel(&f)
 	u := [9]float64{dir.X, dir.Y, dir.Z, 0, 0, 0, dir.X, dir.Y, dir.Z}
-	b := mat.NewVecDense(k, nil)
+	b := make([]float64, k)
 	for j := range k {
-		s := 0.0
 		for i := range nd {
-			s += nb.At(i, j) * (za[i] - z0[i] - u[i])
+			b[j] += nb[i][j] * (za[i] - z0[i] - u[i])
 		}
-		b.SetVec(j, s)
-	}
-	v := mat.NewDense(k, k, nil)
-	for i := range k {
-		for j := range k {
-			v.Set(i, j, real(vecs.At(i, j)))
-		}
-	}
-	var cm mat.VecDense
-	if err := cm.SolveVec(v, b); err != nil {
-		return errors.New("pendulum: the modes of the rigid load do not span its motion")
 	}
 	// The load's centre of mass from the body's, hanging still.
 	arm := rotOf(c.geo.rest[:]).mul(c.geo.loadC)
 	tot := 0.0
 	for j := range out {
 		m := &out[j]
-		lam := real(vals[j])
+		lam := vals[j]
 		if m.Free || lam <= 0 {
 			continue
 		}
-		dx := r3.Vec{X: m.Shape[0], Y: m.Shape[1], Z: m.Shape[2]}
-		th := r3.Vec{X: m.Shape[3], Y: m.Shape[4], Z: m.Shape[5]}
+		cj := 0.0 // (V^T M_N b)_j
+		for a := range k {
+			for q := range k {
+				cj += xs[a][j] * mk[a][q] * b[q]
+			}
+		}
+		s := shapeOf(nb, xs, j) // the same scale as cj's eigenvector
+		dx := r3.Vec{X: s[0], Y: s[1], Z: s[2]}
+		th := r3.Vec{X: s[3], Y: s[4], Z: s[5]}
 		y := r3.Dot(dir, r3.Add(dx, r3.Cross(th, arm)))
-		m.Share = math.Abs(cm.AtVec(j) * y / lam)
+		m.Share = math.Abs(cj * y / lam)
 		tot += m.Share
 	}
 	if tot == 0 {
-		return nil
+		return
 	}
 	for j := range out {
 		out[j].Share /= tot
 	}
-	return nil
 }

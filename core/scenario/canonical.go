@@ -2,7 +2,6 @@ package scenario
 
 import (
 	"bytes"
-	"crypto/sha256"
 	"encoding/hex"
 	"encoding/json"
 
@@ -64,7 +63,7 @@ func Fingerprint(s *Scenario) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	sum := sha256.Sum256(c)
+	sum := sum256(c)
 	return hex.EncodeToString(sum[:]), nil
 }
 

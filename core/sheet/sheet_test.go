@@ -7,14 +7,15 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 
 	"github.com/makiuchi-d/gozxing"
 	gzqr "github.com/makiuchi-d/gozxing/qrcode"
-	qrcode "github.com/skip2/go-qrcode"
 
 	"swaysheet/core/plan"
+	"swaysheet/core/qr"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -138,33 +139,22 @@ func TestQRCodeCarriesScenario(t *testing.T) {
 		s := demo(t, name)
 		s.Sheet = &scenario.Sheet{Project: hostile, PreparedBy: "Ünal Öz"}
 		sh, doc := build(t, s, Input{LinkBase: "https://example.org/swaysheet/"})
-		qr, err := qrcode.New(sh.QRText, qrcode.Medium)
+		code, err := qr.Encode(sh.QRText, qr.M)
 		if err != nil {
 			t.Fatal(err)
 		}
-		// The SVG on the sheet is drawn from the same bitmap: check it
-		// holds one path square for each dark module.
-		dark := 0
-		for _, row := range qr.Bitmap() {
-			for _, b := range row {
-				if b {
-					dark++
+		// The SVG on the sheet draws the code's modules, and what it
+		// draws decodes to the link.
+		bits := code.Bitmap(4)
+		drawn := svgModules(t, doc, len(bits))
+		for y := range bits {
+			for x := range bits[y] {
+				if bits[y][x] != drawn[y][x] {
+					t.Fatalf("%s: the SVG's module (%d, %d) is not the code's", name, x, y)
 				}
 			}
 		}
-		m := regexp.MustCompile(`M\d+ \d+h(\d+)v1h-\d+z`).FindAllStringSubmatch(doc, -1)
-		drawn := 0
-		for _, x := range m {
-			n := 0
-			for _, c := range x[1] {
-				n = n*10 + int(c-'0')
-			}
-			drawn += n
-		}
-		if drawn != dark {
-			t.Fatalf("%s: the SVG draws %d modules, the code has %d", name, drawn, dark)
-		}
-		text := decodeQR(t, qr.Bitmap())
+		text := decodeQR(t, drawn)
 		if text != sh.QRText {
 			t.Fatalf("%s: QR decodes to %q, want %q", name, text, sh.QRText)
 		}
@@ -188,6 +178,31 @@ func TestQRCodeCarriesScenario(t *testing.T) {
 			t.Fatalf("%s: reopened scenario has another fingerprint", name)
 		}
 	}
+}
+
+// svgModules reads the QR code's modules back from the sheet's SVG path
+// ("Mx yhNv1h-Nz" for each run of dark modules in a row).
+func svgModules(t *testing.T, doc string, n int) [][]bool {
+	t.Helper()
+	if !strings.Contains(doc, `viewBox="0 0 `+strconv.Itoa(n)+" "+strconv.Itoa(n)+`"`) {
+		t.Fatalf("no %d-module QR code on the sheet", n)
+	}
+	bits := make([][]bool, n)
+	for y := range bits {
+		bits[y] = make([]bool, n)
+	}
+	for _, m := range regexp.MustCompile(`M(\d+) (\d+)h(\d+)v1h-(\d+)z`).FindAllStringSubmatch(doc, -1) {
+		x, _ := strconv.Atoi(m[1])
+		y, _ := strconv.Atoi(m[2])
+		run, _ := strconv.Atoi(m[3])
+		if m[3] != m[4] || y >= n || x+run > n {
+			t.Fatalf("odd QR path piece %q", m[0])
+		}
+		for i := 0; i < run; i++ {
+			bits[y][x+i] = true
+		}
+	}
+	return bits
 }
 
 // decodeQR renders bits at 4 px a module and decodes them with gozxing.
@@ -221,17 +236,6 @@ func TestShareFragmentBadInput(t *testing.T) {
 		if _, err := ReadShareFragment(bad); err == nil {
 			t.Errorf("%q: no error", bad)
 		}
-	}
-}
-
-// web/static/sheet.css is the page's copy of sheet.css.
-func TestPageCopyOfCSS(t *testing.T) {
-	page, err := os.ReadFile("../../web/static/sheet.css")
-	if err != nil {
-		t.Fatal(err)
-	}
-	if string(page) != CSS {
-		t.Fatal("web/static/sheet.css differs from core/sheet/sheet.css: run make sheetcss")
 	}
 }
 

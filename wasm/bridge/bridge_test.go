@@ -131,15 +131,17 @@ func TestUnitsAndRanges(t *testing.T) {
 
 func TestEmbeddedExamplesMatchTestdata(t *testing.T) {
 	files, _ := filepath.Glob(filepath.Join("..", "..", "testdata", "scenarios", "*.json"))
-	ents, _ := embedded.ReadDir("examples")
-	if len(files) == 0 || len(files) != len(ents) {
-		t.Fatalf("testdata has %d scenarios, the embedded copies %d: copy testdata/scenarios/*.json to wasm/bridge/examples/", len(files), len(ents))
+	var got []embeddedFile
+	if err := json.Unmarshal(embeddedJSON, &got); err != nil {
+		t.Fatalf("examples.json: %v: run make examples", err)
 	}
-	for _, f := range files {
+	if len(files) == 0 || len(files) != len(got) {
+		t.Fatalf("testdata has %d scenarios, examples.json %d: run make examples", len(files), len(got))
+	}
+	for i, f := range files {
 		want, _ := os.ReadFile(f)
-		got, err := embedded.ReadFile("examples/" + filepath.Base(f))
-		if err != nil || !bytes.Equal(got, want) {
-			t.Errorf("%s: the embedded copy differs from testdata/scenarios: copy it again", filepath.Base(f))
+		if got[i].File != filepath.Base(f) || !bytes.Equal(got[i].Scenario, bytes.TrimSpace(want)) {
+			t.Errorf("%s: examples.json's copy (%s) differs from testdata/scenarios: run make examples", filepath.Base(f), got[i].File)
 		}
 	}
 }

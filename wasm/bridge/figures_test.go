@@ -13,7 +13,7 @@ import (
 // The figures call presents from the table, in the units asked for, and
 // uses the evaluation the evaluate call made of the same scenario.
 func TestFiguresCallUsesTheLastResult(t *testing.T) {
-	data, err := os.ReadFile("examples/bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -54,7 +54,7 @@ func TestFiguresCallUsesTheLastResult(t *testing.T) {
 // After the page's plan call, the sheet of the same scenario plans
 // nothing again, and a second sheet computes nothing at all.
 func TestSheetUsesTheLastPlan(t *testing.T) {
-	data, err := os.ReadFile("examples/plan-tower-slew.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-tower-slew.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -97,6 +97,18 @@ func TestPlotCall(t *testing.T) {
 	if !strings.HasPrefix(r.Result.SVG, "<svg") || strings.Contains(r.Result.SVG, "<b>") || strings.Contains(r.Result.SVG, "onload") {
 		t.Errorf("svg %q", r.Result.SVG)
 	}
+	// The page's charts: at the width shown, with bands, a circle, equal axes.
+	in = `{"id": "rel", "title": "t", "width_px": 340, "title_above": true, "equal": true, "legend_top": true,
+		"series": [{"x": [0, 1], "y": [0, 1], "name": "a", "class": "s2"}, {"x": [0, 1], "y": [1, 0], "name": "b"}],
+		"bands": [{"x0": 0, "x1": 0.5, "text": "A1"}], "circles": [{"r": 0.5}]}`
+	if err := json.Unmarshal(Call(nil, "plot", []byte(in)), &r); err != nil || r.Error != nil {
+		t.Fatalf("plot: %v %+v", err, r.Error)
+	}
+	for _, want := range []string{`viewBox="0 0 340 `, `class="chart"`, `url(#rel-hatch)`, `<ellipse`, `class="line s2"`, `class="legend"`} {
+		if !strings.Contains(r.Result.SVG, want) {
+			t.Errorf("no %s in %s", want, r.Result.SVG)
+		}
+	}
 	var e struct{ Error *Error }
 	json.Unmarshal(Call(nil, "plot", []byte(`{"series": 3}`)), &e)
 	if e.Error == nil {
@@ -107,7 +119,7 @@ func TestPlotCall(t *testing.T) {
 // A changed reference field of the sheet computes nothing again; a
 // changed input does.
 func TestMemoKey(t *testing.T) {
-	data, _ := os.ReadFile("examples/hard-stop.json")
+	data, _ := os.ReadFile("../../testdata/scenarios/hard-stop.json")
 	s, err := scenario.Parse(data)
 	if err != nil {
 		t.Fatal(err)
@@ -134,7 +146,7 @@ func TestMemoKey(t *testing.T) {
 // scenario itself for the page's plots), the sheet prints the same one,
 // and evaluating that scenario computes nothing again.
 func TestFiguresSheetAndPlotsAgree(t *testing.T) {
-	data, err := os.ReadFile("examples/plan-bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/plan-bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -185,7 +197,7 @@ func TestFiguresSheetAndPlotsAgree(t *testing.T) {
 		}
 	}
 	// The scenario's own moves: presented as they are.
-	own, _ := os.ReadFile("examples/bay-travel.json")
+	own, _ := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	in, _ = json.Marshal(map[string]any{"scenario": json.RawMessage(own)})
 	f.Result = FiguresReply{}
 	json.Unmarshal(Call(nil, "figures", in), &f)

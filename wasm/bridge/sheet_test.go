@@ -10,7 +10,7 @@ import (
 )
 
 func TestSheetCallAndUnshare(t *testing.T) {
-	data, err := os.ReadFile("examples/bay-travel.json")
+	data, err := os.ReadFile("../../testdata/scenarios/bay-travel.json")
 	if err != nil {
 		t.Fatal(err)
 	}

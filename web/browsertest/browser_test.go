@@ -14,7 +14,6 @@ import (
 	"os/exec"
 	"path/filepath"
 	"reflect"
-	"runtime"
 	"strconv"
 	"strings"
 	"sync"
@@ -81,20 +80,7 @@ func setupFor(t *testing.T, limit time.Duration) *harness {
 	if err != nil {
 		t.Fatal("chromium is not installed (make deps installs it)")
 	}
-	build := t.TempDir()
-	cmd := exec.Command("go", "build", "-o", filepath.Join(build, "swaysheet.wasm"), "./wasm")
-	cmd.Dir = root
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	if out, err := cmd.CombinedOutput(); err != nil {
-		t.Fatalf("building the wasm: %v\n%s", err, out)
-	}
-	wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := os.WriteFile(filepath.Join(build, "wasm_exec.js"), wexec, 0o644); err != nil {
-		t.Fatal(err)
-	}
+	build := wasmBuild(t)
 	h := &harness{t: t, dl: t.TempDir()}
 	files := site.Handler(site.Dirs{Static: filepath.Join(root, "web", "static"), Build: build,
 		Examples: filepath.Join(root, "testdata", "scenarios")})
@@ -518,7 +504,10 @@ func TestPage(t *testing.T) {
 		if src := h.text("#examples-source"); !strings.Contains(src, "own server") {
 			t.Errorf("examples source: %q", src)
 		}
-		h.do(chromedp.Click(chromedp.CSS(`#examples-list button[data-ex="0"]`)))
+		// An example with a move of its own (a planning request without one
+		// is shown for the planner's recommended move, which the core's
+		// evaluation of the file alone does not have).
+		h.do(chromedp.Click(chromedp.Search(`//ul[@id='examples-list']//li[contains(., 'girder on the overhead crane')]//button`)))
 		h.settle()
 		h.checkShown(h.core())
 	})

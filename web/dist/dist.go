@@ -4,7 +4,7 @@
 //     page, the example library and a filled-in service worker;
 //   - Single writes one self-contained HTML file that opens from a file
 //     (file://) with no server: style sheets and scripts inline, the wasm
-//     gzipped and written as base85 text inside (Encode85), decompressed
+//     gzipped and written as 7-bit text inside (Encode7), decompressed
 //     in the browser with DecompressionStream, and run in a Web Worker
 //     made from a blob.
 package dist
@@ -59,8 +59,13 @@ var (
 // Single builds the one-file page from the static folder, Go's
 // wasm_exec.js and a wasm built for it (GOOS=js GOARCH=wasm, -tags
 // nofetch: a page opened from a file has no origin to fetch from, and the
-// examples come from the copies built into the wasm).
+// examples come from the copies built into the wasm). A wasm in Go's form
+// has its data segments joined first (PackData); anything else is taken
+// as it is.
 func Single(static string, wasmExec, wasm []byte) ([]byte, error) {
+	if packed, err := PackData(wasm, PackGap); err == nil {
+		wasm = packed
+	}
 	var gz bytes.Buffer
 	zw, _ := gzip.NewWriterLevel(&gz, gzip.BestCompression)
 	zw.Write(wasm)
@@ -72,7 +77,7 @@ func Single(static string, wasmExec, wasm []byte) ([]byte, error) {
 // zopfli, about 5 % smaller than gzip -9).
 func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 	read := func(n string) (string, error) {
-		b, err := os.ReadFile(filepath.Join(static, n))
+		b, err := offline.ReadStatic(static, n)
 		return string(b), err
 	}
 	page, err := read("index.html")
@@ -83,7 +88,7 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
-	text := Encode85(wasmGz)
+	text := Encode7(wasmGz)
 
 	var styleHashes, scriptHashes []string
 	hash := func(s string) string {
@@ -119,7 +124,7 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 			// that holds wasm_exec.js, the wasm and worker.js.
 			first = false
 			pre := "window.swaysheetSingleFile = true;\nwindow.swaysheetWorkerURL = URL.createObjectURL(new Blob([" +
-				jsString(string(wasmExec)) + ", '\\nself.swaysheetWasmGz85 = ', JSON.stringify(document.getElementById('swaysheet-wasm').textContent.trim()), ';\\n', " +
+				jsString(string(wasmExec)) + ", '\\nself.swaysheetWasmText = ', JSON.stringify(document.getElementById('swaysheet-wasm').textContent.trim()), ';\\n', " +
 				jsString(worker) + "], { type: 'text/javascript' }));\n"
 			scriptHashes = append(scriptHashes, hash(pre))
 			out = "<script>" + pre + "</script>\n"
@@ -150,7 +155,8 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 		return nil, fmt.Errorf("index.html has no Content-Security-Policy meta to replace")
 	}
 	page = cspMeta.ReplaceAllLiteralString(page, `<meta http-equiv="Content-Security-Policy" content="`+csp+`">`)
-	data := "<script type=\"application/octet-stream\" id=\"swaysheet-wasm\">\n" + wrap(text, 120) + "</script>\n"
+	// One line: in 7-bit text a line break is data.
+	data := "<script type=\"application/octet-stream\" id=\"swaysheet-wasm\">\n" + text + "\n</script>\n"
 	i := strings.Index(page, "<script>")
 	if i < 0 {
 		return nil, fmt.Errorf("no script in index.html")
@@ -164,16 +170,4 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 func jsString(s string) string {
 	b, _ := json.Marshal(s)
 	return strings.ReplaceAll(string(b), "</", `<\/`)
-}
-
-func wrap(s string, n int) string {
-	var b strings.Builder
-	for len(s) > n {
-		b.WriteString(s[:n])
-		b.WriteByte('\n')
-		s = s[n:]
-	}
-	b.WriteString(s)
-	b.WriteByte('\n')
-	return b.String()
 }

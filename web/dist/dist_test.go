@@ -3,29 +3,50 @@ package dist
 import (
 	"bytes"
 	"math/rand/v2"
+	"strconv"
 	"strings"
 	"testing"
+	"unicode/utf8"
+
+	"swaysheet/core/sheet"
 )
 
-func TestBase85RoundTrip(t *testing.T) {
-	if len(Alphabet85) != 85 || strings.ContainsAny(Alphabet85, "\"&'<>\\`") {
-		t.Fatalf("alphabet %q", Alphabet85)
-	}
+func TestText7RoundTrip(t *testing.T) {
 	r := rand.New(rand.NewPCG(1, 2))
-	for n := 0; n < 40; n++ {
+	for n := 0; n < 200; n++ {
 		b := make([]byte, n)
 		for i := range b {
 			b[i] = byte(r.UintN(256))
 		}
-		if n == 5 {
-			b = []byte{255, 255, 255, 255, 255}
+		switch n {
+		case 7: // every group 0 (NUL): each pair of groups is one character
+			b = make([]byte, 7)
+		case 8: // the last group '<' with no group after it
+			b = []byte{0, 0, 0, 0, 0, 0, 0, '<' << 1}
 		}
-		s := Encode85(b)
-		if len(s) != n/4*5+map[bool]int{true: n%4 + 1, false: 0}[n%4 != 0] {
-			t.Fatalf("%d bytes gave %d characters", n, len(s))
+		s := Encode7(b)
+		if !utf8.ValidString(s) || strings.ContainsAny(s, Unsafe7) || !strings.HasSuffix(s, ".") {
+			t.Fatalf("%d bytes: text %q holds a character it must not", n, s)
 		}
-		if got := Decode85(s); !bytes.Equal(got, b) {
-			t.Fatalf("%d bytes: round trip gave %v, want %v", n, got, b)
+		if max := len(strconv.Itoa(n)) + 2 + (8*n+6)/7 + (8*n+6)/7/2; len(s) > max {
+			t.Fatalf("%d bytes gave %d bytes of text", n, len(s))
+		}
+		got, err := Decode7(s)
+		if err != nil || !bytes.Equal(got, b) {
+			t.Fatalf("%d bytes: round trip gave %v %v, want %v", n, got, err, b)
+		}
+	}
+	// Random data takes about 8/7 bytes of text a byte.
+	b := make([]byte, 100000)
+	for i := range b {
+		b[i] = byte(r.UintN(256))
+	}
+	if ratio := float64(len(Encode7(b))) / float64(len(b)); ratio > 1.155 {
+		t.Errorf("%.4f bytes of text a byte", ratio)
+	}
+	for _, bad := range []string{"", "x:abc", "5:ab", "2:\u0300\u0300"} {
+		if _, err := Decode7(bad); err == nil {
+			t.Errorf("%q: no error", bad)
 		}
 	}
 }
@@ -43,7 +64,8 @@ func TestSingle(t *testing.T) {
 			t.Errorf("the single file still has %q", no)
 		}
 	}
-	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL"} {
+	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL",
+		strings.ReplaceAll(sheet.CSS, "</", `<\/`)} {
 		if !strings.Contains(s, want) {
 			t.Errorf("the single file lacks %q", want)
 		}

@@ -3,14 +3,14 @@
 // figure comes from the core; nothing is computed here beyond differences
 // of times the planner gives (a ramp's duration).
 
+import { drawChart } from './charts.js';
 import { openCoach } from './coach.js';
 import { changed } from './compute.js';
 import { $, esc, notice } from './dom.js';
 import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
-import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
-import { S } from './state.js';
-import { chart, fitWidth } from './plot.js';
+import { P, accelDQ, axisName, deg, kindOf, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
+import { S, axisOf, axisWord } from './state.js';
 import { presentFigures } from './results.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, fmtStep, toShown } from './units.js';
@@ -161,10 +161,11 @@ export function renderPlan() {
 }
 
 function summary(r) {
-  var move = isSlew(r) ?
-    'Slew ' + deg(r.angle_deg) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU('angular_speed', r.top_rate_deg_per_s) +
+  var K = kindOf(r);
+  var move = typeof r.radius_m === 'number' ?
+    axisOf(r.axis).label + ' ' + withU(K.quantity, r[K.distance]) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU(K.speedQ, r[K.top]) +
       (r.slew_lean_deg ? ' (outward lean ' + deg(r.slew_lean_deg) + ' at that rate)' : '') :
-    'Travel ' + withU('length', r.distance_m) + ' on ' + axisName(r.axis) + ', top speed ' + withU('speed', r.top_speed_m_per_s);
+    'Travel ' + withU(K.quantity, r[K.distance]) + ' on ' + axisName(r.axis) + ', top speed ' + withU(K.speedQ, r[K.top]);
   var ropes = r.rope_lengths_m.map(function (l) { return num('length', l); }).join(', ') + '\u00A0' + sym('length');
   return '<p class="plan-summary" id="plan-summary">' + esc(move) + '. Rope ' + esc(withU('length', r.rope_length_m)) +
     ' (sway period ' + esc(secs(r.period_s)) + '); each option simulated at ' + esc(ropes) +
@@ -209,7 +210,8 @@ function optionVerdict(o, short) {
 
 function planTable(r) {
   var L = sym('length');
-  var h = '<div class="table-wrap"><table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
+  var h = '<div class="table-wrap" tabindex="0" role="region" aria-label="Options, best first">' +
+    '<table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
     '<th scope="col">Option</th><th scope="col">Move (s)</th><th scope="col">Extra (s)</th>' +
     '<th scope="col">Peak (deg)</th><th scope="col">Excursion (' + esc(L) + ')</th><th scope="col">Residual (deg)</th></tr></thead><tbody>';
   r.options.forEach(function (o, i) {
@@ -219,9 +221,10 @@ function planTable(r) {
       '<span data-col="label">' + esc(o.label) + '</span></a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') +
       (o.two_mode ? ' <span class="mode-word">both modes</span>' : '') +
       '<span class="lim" data-col="limits">' + optionVerdict(o, false) + '</span></th>' +
-      '<td class="n" data-col="move">' + fmtStep('time', o.move_time_s) + '</td><td class="n" data-col="extra">' + fmtStep('time', o.penalty_s) + '</td>' +
-      '<td class="n" data-col="peak">' + fmtStep('angle', o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion">' + num('length', o.worst_peak_excursion_m) + '</td>' +
-      '<td class="n" data-col="residual">' + fmtStep('angle', o.worst_residual_swing_deg) + '</td></tr>';
+      '<td class="n" data-col="move" data-label="Move (s)">' + fmtStep('time', o.move_time_s) + '</td><td class="n" data-col="extra" data-label="Extra (s)">' + fmtStep('time', o.penalty_s) + '</td>' +
+      '<td class="n" data-col="peak" data-label="Peak (deg)">' + fmtStep('angle', o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion" data-label="Excursion (' + esc(L) + ')">' +
+      num('length', o.worst_peak_excursion_m) + '</td>' +
+      '<td class="n" data-col="residual" data-label="Residual (deg)">' + fmtStep('angle', o.worst_residual_swing_deg) + '</td></tr>';
   });
   return h + '</tbody></table></div>';
 }
@@ -229,8 +232,7 @@ function planTable(r) {
 // crew renders an option's settings from the planner's own numbers.
 function crew(r, o, ow, w) {
   var sdq = speedDQ(r), adq = accelDQ(r), h = '';
-  var top = isSlew(r) ? o.top_rate_deg_per_s : o.top_speed_m_per_s;
-  var acc = isSlew(r) ? o.accel_deg_per_s2 : o.accel_m_per_s2;
+  var K = kindOf(r), top = o[K.top], acc = o[K.accel];
   if (o.speed_profile && o.speed_profile.length > 1) {
     h += '<p>Program the drive\u2019s speed profile (multi-segment ramps, or the drive\u2019s own sway-control function) for starting; stopping mirrors it.</p>';
     h += '<table class="plain crew" data-crew="ramps"><caption>Speed profile for a variable-speed drive</caption><thead><tr><th scope="col">From</th><th scope="col">To</th><th scope="col">The drive</th><th scope="col">Ramp time</th></tr></thead><tbody>';
@@ -255,7 +257,7 @@ function crew(r, o, ow, w) {
   } else {
     h += '<ul class="crew-list" data-crew="ramp"><li>Acceleration and deceleration: <b>' + esc(withU(adq, acc)) + '</b></li>' +
       '<li>Ramp time to the top speed: <b>' + esc(secs(o.ramp_s)) + '</b></li>' +
-      '<li>Top ' + (isSlew(r) ? 'slew rate' : 'speed') + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
+      '<li>' + esc(axisWord(r.axis, 'top')) + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
   }
   if (ow.settings && ow.settings.length) {
     h += '<details class="words"><summary>The planner\u2019s own words' + (w.si ? ' (figures in SI units)' : '') + '</summary>' +
@@ -282,7 +284,7 @@ function optionCard(r, o, i, w) {
   if (o.not_simulated) {
     // Screened by the planner: linear-theory estimates, never shown as checked.
     h += '<h4>Not simulated: linear-theory estimate</h4><p class="note">' + esc(o.not_simulated) + '. Use this move in the crane motions to simulate it.</p>' +
-      '<div class="table-wrap"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<div class="table-wrap" tabindex="0" role="region" aria-label="Estimated figures at each rope length"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
       '<th scope="col">Peak swing, estimate (deg)</th><th scope="col">Peak excursion, estimate (' + esc(L) + ')</th><th scope="col">Residual swing, estimate (deg)</th></tr></thead><tbody>' +
       (o.estimated || []).map(function (v, j) {
         return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtStep('angle', v.peak_swing_deg) +
@@ -290,7 +292,7 @@ function optionCard(r, o, i, w) {
       }).join('') + '</tbody></table></div>';
   } else {
     var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
-    h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+    h += '<h4>Checked by simulation</h4><div class="table-wrap" tabindex="0" role="region" aria-label="Checked figures at each rope length"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
       '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
       (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
       o.verified.map(function (v, j) {
@@ -320,22 +322,22 @@ const CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
 
 function curves(r) {
   var at = r.curves.accel_time, re = r.curves.rope_error, lim = r.limits || {};
-  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + deg(lim.residual_swing_deg) }] : [];
-  $('plot-plan-ramp').innerHTML = chart({ width: fitWidth($('plot-plan-ramp')),
-    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', xLabel: 'ramp time to top speed (s)', yLabel: 'residual swing (deg)',
-    yFromZero: true, hlines: hl, legendTop: true,
+  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, text: 'limit ' + deg(lim.residual_swing_deg) }] : [];
+  drawChart($('plot-plan-ramp'), {
+    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', x_label: 'ramp time to top speed (s)', y_label: 'residual swing (deg)',
+    y_from_zero: true, lines: hl, legend_top: true,
     series: at.series.map(function (sr, i) {
-      return { x: at.ramp_s, y: sr.residual_deg, label: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), cls: CLS[i % CLS.length] };
+      return { x: at.ramp_s, y: sr.residual_deg, name: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)) + '</figcaption>';
-  $('plot-plan-rope').innerHTML = chart({ width: fitWidth($('plot-plan-rope')),
-    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', xLabel: 'rope length error from the tuned length (%)',
-    yLabel: 'residual (% of unshaped)', yFromZero: true, legendTop: true,
+  }, 'Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)));
+  drawChart($('plot-plan-rope'), {
+    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', x_label: 'rope length error from the tuned length (%)',
+    y_label: 'residual (% of unshaped)', y_from_zero: true, legend_top: true,
     bands: [{ x0: re.range_pct[0], x1: re.range_pct[1], text: 'your range' }],
     series: re.series.map(function (sr, i) {
-      return { x: re.error_pct, y: sr.residual_pct, label: shaperName(sr.shaper), cls: CLS[i % CLS.length] };
+      return { x: re.error_pct, y: sr.residual_pct, name: shaperName(sr.shaper), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)) + '</figcaption>';
+  }, 'Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)));
 }
 
 export function planChanged() {

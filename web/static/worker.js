@@ -3,27 +3,35 @@
 // the reply JSON of the named call (see wasm/bridge).
 'use strict';
 // The single-file build (make dist, web/dist) puts wasm_exec.js and the
-// gzipped wasm as base85 text (self.swaysheetWasmGz85) in front of this file.
+// gzipped wasm as 7-bit text (self.swaysheetWasmText) in front of this file.
 if (typeof Go === 'undefined') importScripts('wasm_exec.js');
 
-// decode85 is web/dist's Decode85: 5 digits of its alphabet to 4 bytes.
-function decode85(s) {
-  var A = '';
-  for (var c = 33; c <= 126 && A.length < 85; c++) if ('"&\'<>\\`'.indexOf(String.fromCharCode(c)) < 0) A += String.fromCharCode(c);
-  var idx = new Int16Array(128).fill(-1), d = [], i, k;
-  for (i = 0; i < 85; i++) idx[A.charCodeAt(i)] = i;
-  for (i = 0; i < s.length; i++) { var x = s.charCodeAt(i); if (x < 128 && idx[x] >= 0) d.push(idx[x]); }
-  var out = new Uint8Array(Math.floor(d.length / 5) * 4 + 4), n = 0;
-  for (i = 0; i < d.length; i += 5) {
-    var m = Math.min(5, d.length - i), v = 0;
-    for (k = 0; k < 5; k++) v = v * 85 + (k < m ? d[i + k] : 84);
-    for (k = 0; k < m - 1; k++) out[n++] = Math.floor(v / Math.pow(256, 3 - k)) % 256;
+// decode7 is web/dist's Decode7: "<bytes>:", then each character is 7
+// bits, except U+0100 + 128 i + w, which stands for the i-th of the values
+// NUL, CR, '<' and then w.
+function decode7(s) {
+  var colon = s.indexOf(':'), n = parseInt(s.slice(0, colon), 10);
+  var unsafe = [0, 13, 60], out = new Uint8Array(n), o = 0, acc = 0, bits = 0;
+  function put(v) {
+    acc = (acc << 7) | v;
+    bits += 7;
+    if (bits >= 8) {
+      bits -= 8;
+      if (o < n) out[o++] = (acc >> bits) & 255;
+      acc &= (1 << bits) - 1;
+    }
   }
-  return out.subarray(0, n);
+  for (var i = colon + 1; i < s.length && o < n; i++) {
+    var c = s.charCodeAt(i);
+    if (c < 128) put(c);
+    else { c -= 256; put(unsafe[c >> 7]); put(c & 127); }
+  }
+  if (o < n) throw new Error('the wasm text inside the page is cut short');
+  return out;
 }
 
 async function embeddedWasm() {
-  var gz = decode85(self.swaysheetWasmGz85);
+  var gz = decode7(self.swaysheetWasmText);
   return new Response(new Blob([gz]).stream().pipeThrough(new DecompressionStream('gzip'))).arrayBuffer();
 }
 
@@ -34,7 +42,7 @@ function errorReply(msg) {
 var ready = (async function () {
   var go = new Go();
   var inst;
-  if (self.swaysheetWasmGz85) {
+  if (self.swaysheetWasmText) {
     inst = (await WebAssembly.instantiate(await embeddedWasm(), go.importObject)).instance;
   } else if (WebAssembly.instantiateStreaming) {
     try {
@@ -43,7 +51,7 @@ var ready = (async function () {
       inst = null;
     }
   }
-  if (!inst && !self.swaysheetWasmGz85) {
+  if (!inst && !self.swaysheetWasmText) {
     var resp = await fetch('swaysheet.wasm');
     if (!resp.ok) throw new Error('swaysheet.wasm: ' + resp.status + ' ' + resp.statusText);
     inst = (await WebAssembly.instantiate(await resp.arrayBuffer(), go.importObject)).instance;

@@ -1,0 +1,69 @@
+package scenario
+
+import "math/bits"
+
+// sum256 is SHA-256 of data (FIPS 180-4, sections 4.1.2, 4.2.2, 5.1.1,
+// 6.2), written here rather than taken from crypto/sha256: that package
+// brings the FIPS 140 module's self-tests and random generator (AES,
+// SHA-3, HMAC) into the wasm, about 40 KB gzipped, for one hash of a few
+// kilobytes. A test checks it against crypto/sha256 and the standard's
+// examples.
+func sum256(data []byte) [32]byte {
+	h := [8]uint32{0x6a09e667, 0xbb67ae85, 0x3c6ef372, 0xa54ff53a, 0x510e527f, 0x9b05688c, 0x1f83d9ab, 0x5be0cd19}
+	// Padding: a 1 bit, zeros to 56 bytes mod 64, the length in bits.
+	msg := append(append([]byte(nil), data...), 0x80)
+	for len(msg)%64 != 56 {
+		msg = append(msg, 0)
+	}
+	n := uint64(len(data)) * 8
+	for i := 7; i >= 0; i-- {
+		msg = append(msg, byte(n>>(8*i)))
+	}
+	var w [64]uint32
+	for len(msg) > 0 {
+		for t := 0; t < 16; t++ {
+			w[t] = uint32(msg[4*t])<<24 | uint32(msg[4*t+1])<<16 | uint32(msg[4*t+2])<<8 | uint32(msg[4*t+3])
+		}
+		for t := 16; t < 64; t++ {
+			s0 := bits.RotateLeft32(w[t-15], -7) ^ bits.RotateLeft32(w[t-15], -18) ^ w[t-15]>>3
+			s1 := bits.RotateLeft32(w[t-2], -17) ^ bits.RotateLeft32(w[t-2], -19) ^ w[t-2]>>10
+			w[t] = w[t-16] + s0 + w[t-7] + s1
+		}
+		a, b, c, d, e, f, g, hh := h[0], h[1], h[2], h[3], h[4], h[5], h[6], h[7]
+		for t := 0; t < 64; t++ {
+			s1 := bits.RotateLeft32(e, -6) ^ bits.RotateLeft32(e, -11) ^ bits.RotateLeft32(e, -25)
+			ch := e&f ^ ^e&g
+			t1 := hh + s1 + ch + sha256K[t] + w[t]
+			s0 := bits.RotateLeft32(a, -2) ^ bits.RotateLeft32(a, -13) ^ bits.RotateLeft32(a, -22)
+			maj := a&b ^ a&c ^ b&c
+			hh, g, f, e, d, c, b, a = g, f, e, d+t1, c, b, a, t1+s0+maj
+		}
+		h[0] += a
+		h[1] += b
+		h[2] += c
+		h[3] += d
+		h[4] += e
+		h[5] += f
+		h[6] += g
+		h[7] += hh
+		msg = msg[64:]
+	}
+	var out [32]byte
+	for i, v := range h {
+		out[4*i], out[4*i+1], out[4*i+2], out[4*i+3] = byte(v>>24), byte(v>>16), byte(v>>8), byte(v)
+	}
+	return out
+}
+
+// sha256K are the first 32 bits of the fractional parts of the cube roots
+// of the first 64 primes (FIPS 180-4 section 4.2.2).
+var sha256K = [64]uint32{
+	0x428a2f98, 0x71374491, 0xb5c0fbcf, 0xe9b5dba5, 0x3956c25b, 0x59f111f1, 0x923f82a4, 0xab1c5ed5,
+	0xd807aa98, 0x12835b01, 0x243185be, 0x550c7dc3, 0x72be5d74, 0x80deb1fe, 0x9bdc06a7, 0xc19bf174,
+	0xe49b69c1, 0xefbe4786, 0x0fc19dc6, 0x240ca1cc, 0x2de92c6f, 0x4a7484aa, 0x5cb0a9dc, 0x76f988da,
+	0x983e5152, 0xa831c66d, 0xb00327c8, 0xbf597fc7, 0xc6e00bf3, 0xd5a79147, 0x06ca6351, 0x14292967,
+	0x27b70a85, 0x2e1b2138, 0x4d2c6dfc, 0x53380d13, 0x650a7354, 0x766a0abb, 0x81c2c92e, 0x92722c85,
+	0xa2bfe8a1, 0xa81a664b, 0xc24b8b70, 0xc76c51a3, 0xd192e819, 0xd6990624, 0xf40e3585, 0x106aa070,
+	0x19a4c116, 0x1e376c08, 0x2748774c, 0x34b0bcb5, 0x391c0cb3, 0x4ed8aa4a, 0x5b9cca4f, 0x682e6ff3,
+	0x748f82ee, 0x78a5636f, 0x84c87814, 0x8cc70208, 0x90befffa, 0xa4506ceb, 0xbef9a3f7, 0xc67178f2,
+}
