@@ -55,7 +55,9 @@ examples:
 	done; printf '\n]\n'; } > wasm/bridge/examples.json
 	@echo "wrote wasm/bridge/examples.json"
 
-# The page's build output: the wasm and Go's matching wasm_exec.js. -s -w
+# The page's build output: the wasm (the core, with no net/http), the
+# small fetch wasm for the site library (wasm/fetch: tinyutil's httputil,
+# loaded only when the library is opened) and Go's matching wasm_exec.js. -s -w
 # leave out the wasm's name section (function names for the browser's
 # debugger, about 40 KB gzipped); Go's own panics and stack traces still
 # name functions (they read Go's function table, not that section).
@@ -63,6 +65,8 @@ wasm:
 	@mkdir -p $(OUT)/web
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swayfetch.wasm ./wasm/fetch
+	$(GO) run ./web/cmd/swaypack $(OUT)/web/swayfetch.wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
 # The wasm of the single-file page: no net/http (a page opened from a file

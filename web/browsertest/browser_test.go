@@ -68,6 +68,7 @@ type harness struct {
 	dl       string
 	mu       sync.Mutex
 	requests []string // seen by DevTools in the page and its worker
+	workers  []string // the script URL of each worker started
 	served   []string // paths the test server answered
 }
 
@@ -83,20 +84,23 @@ func setupFor(t *testing.T, limit time.Duration) *harness {
 		t.Fatal("chromium is not installed (make deps installs it)")
 	}
 	build := t.TempDir()
-	// Built as make wasm builds it: stripped, data segments joined.
-	wasmFile := filepath.Join(build, "swaysheet.wasm")
-	cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
-	cmd.Dir = root
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	if out, err := cmd.CombinedOutput(); err != nil {
-		t.Fatalf("building the wasm: %v\n%s", err, out)
-	}
-	if w, err := os.ReadFile(wasmFile); err != nil {
-		t.Fatal(err)
-	} else if w, err = dist.PackData(w, dist.PackGap); err != nil {
-		t.Fatal(err)
-	} else if err := os.WriteFile(wasmFile, w, 0o644); err != nil {
-		t.Fatal(err)
+	// Built as make wasm builds them: stripped, data segments joined; the
+	// core and the site library's small fetch wasm.
+	for _, b := range [][2]string{{"swaysheet.wasm", "./wasm"}, {"swayfetch.wasm", "./wasm/fetch"}} {
+		wasmFile := filepath.Join(build, b[0])
+		cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, b[1])
+		cmd.Dir = root
+		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
+		if out, err := cmd.CombinedOutput(); err != nil {
+			t.Fatalf("building %s: %v\n%s", b[0], err, out)
+		}
+		if w, err := os.ReadFile(wasmFile); err != nil {
+			t.Fatal(err)
+		} else if w, err = dist.PackData(w, dist.PackGap); err != nil {
+			t.Fatal(err)
+		} else if err := os.WriteFile(wasmFile, w, 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 	wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
 	if err != nil {
@@ -154,6 +158,9 @@ func setupFor(t *testing.T, limit time.Duration) *harness {
 			if ev.TargetInfo.Type != "worker" {
 				continue
 			}
+			h.mu.Lock()
+			h.workers = append(h.workers, ev.TargetInfo.URL)
+			h.mu.Unlock()
 			wctx, _ := chromedp.NewContext(ctx, chromedp.WithTargetID(ev.TargetInfo.TargetID))
 			go func() {
 				if chromedp.Do(wctx) != nil {
@@ -524,7 +531,26 @@ func TestPage(t *testing.T) {
 
 	t.Run("examples come from the origin", func(t *testing.T) {
 		h.t = t
+		// The site library's fetch wasm starts only when the Examples
+		// dialog (with the library's list) opens.
+		fetcher := func() bool {
+			h.mu.Lock()
+			defer h.mu.Unlock()
+			return strings.Contains(strings.Join(h.workers, " ")+strings.Join(h.requests, " "), "fetchworker.js")
+		}
+		if fetcher() {
+			t.Errorf("the fetch worker started before the library was opened: %v", h.workers)
+		}
 		h.do(chromedp.Click(chromedp.ID("open-examples")))
+		if err := h.poll(`!window.swaysheetLibrary.reading() && !!document.getElementById('library').dataset.state`, 60*time.Second); err != nil {
+			t.Errorf("the library was not read: %v", err)
+		}
+		if st := h.text("#library-source"); !strings.Contains(st, "No site library here") {
+			t.Errorf("with no library/ on the server: %q", st)
+		}
+		if !fetcher() {
+			t.Errorf("no fetch worker started for the library: %v %v", h.workers, h.requests)
+		}
 		if src := h.text("#examples-source"); !strings.Contains(src, "own server") {
 			t.Errorf("examples source: %q", src)
 		}

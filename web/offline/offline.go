@@ -27,7 +27,7 @@ type Dirs struct {
 }
 
 // Built are the build outputs served beside the static files.
-var Built = []string{"swaysheet.wasm", "wasm_exec.js"}
+var Built = []string{"swaysheet.wasm", "swayfetch.wasm", "wasm_exec.js"}
 
 // Collect reads every file of the page: the static folder but sw.js, the
 // built wasm and wasm_exec.js, and the example scenarios under examples/

@@ -23,7 +23,7 @@ func main() {
 	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm and wasm_exec.js")
 	library := flag.String("library", "", "a site library folder to serve under /library/ (library/index.json and the scenario files it lists)")
 	flag.Parse()
-	for _, f := range []string{"swaysheet.wasm", "wasm_exec.js"} {
+	for _, f := range []string{"swaysheet.wasm", "swayfetch.wasm", "wasm_exec.js"} {
 		if _, err := os.Stat(filepath.Join(*build, f)); err != nil {
 			log.Fatalf("%v: build the wasm first (make serve)", err)
 		}
