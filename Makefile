@@ -158,7 +158,7 @@ bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(BENCH)/parts.wasm ./wasm
-	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
+	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -fetch-wasm $(OUT)/web/swayfetch.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json

@@ -20,7 +20,7 @@ import (
 // Dirs are the folders served.
 type Dirs struct {
 	Static   string // web/static
-	Build    string // holds swaysheet.wasm and wasm_exec.js
+	Build    string // holds swaysheet.wasm, swayfetch.wasm and wasm_exec.js
 	Examples string // testdata/scenarios
 	// Library is a site library folder (library/index.json and the
 	// scenario files it names), served under /library/; empty: none.
