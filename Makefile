@@ -69,9 +69,10 @@ wasm:
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swayfetch.wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
-# The wasm of the single-file page: no net/http (a page opened from a file
-# has no origin to fetch from; the examples are the copies inside it),
-# symbols stripped. Both wasm files get their data segments joined
+# The wasm of the single-file page: no fetch at all (a page opened from a
+# file has no origin to fetch from; the examples are the copies inside it,
+# and there is no site library), symbols stripped. Every wasm file gets
+# its data segments joined
 # (swaypack: the same memory at start, about 6 % less gzipped).
 single-wasm:
 	@mkdir -p $(OUT)/single
