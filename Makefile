@@ -6,7 +6,7 @@ WASM_EXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 OUT := out
 ADDR ?= 127.0.0.1:8080
 
-.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm sheetcss clean
+.PHONY: all test test-go test-wasm test-browser deps vet serve wasm examples bench scipy-deps reference planned fuzz fuzz-long hostile dist single-wasm clean
 
 all: test
 
@@ -89,10 +89,6 @@ dist: wasm single-wasm
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq zopfli; fi; }
 	zopfli -c --i5 $(OUT)/single/swaysheet.wasm > $(OUT)/single/swaysheet.wasm.gz
 	$(GO) run ./web/cmd/swaydist -build $(OUT)/web -single-wasm $(OUT)/single/swaysheet.wasm -single-gz $(OUT)/single/swaysheet.wasm.gz -out dist
-
-# web/static/sheet.css is the page's copy of the check sheet's style sheet.
-sheetcss:
-	cp core/sheet/sheet.css web/static/sheet.css
 
 # Build the wasm and serve the page on 127.0.0.1 (ADDR=127.0.0.1:PORT to move it).
 serve: wasm

@@ -3,7 +3,6 @@ package clearance
 import (
 	"errors"
 	"math"
-	"sort"
 
 	"gonum.org/v1/gonum/mathext"
 )
@@ -31,8 +30,9 @@ type Envelope struct {
 	Runs    int     // N
 	Inside  int     // k
 	StrayM  float64 // the k-th smallest stray: the envelope's own
-	X0M     float64 // the grid's lower left corner
+	X0M     float64 // the grid's lower left corner, I0*CellM, J0*CellM
 	Y0M     float64
+	I0, J0  int // the lattice index of the grid's lower left cell
 	CellM   float64
 	NX, NY  int
 	Covered []bool // NX*NY cells, row by row from Y0M
@@ -201,88 +201,104 @@ func Strays(runs []PlanPath, nominal []Point2) ([]float64, error) {
 // which the confidence that its coverage is at least level reaches conf
 // (all N when none does).
 func newEnvelope(runs []PlanPath, strays []float64, level, conf, cellM float64) (*Envelope, error) {
-	type scored struct {
-		i     int
-		stray float64
-	}
-	rank := make([]scored, len(runs))
-	for i := range runs {
-		rank[i] = scored{i, strays[i]}
-	}
-	sort.SliceStable(rank, func(a, b int) bool { return rank[a].stray < rank[b].stray })
+	order, k := keep(strays, level, conf)
 	n := len(runs)
-	k := int(math.Ceil(level*float64(n) - 1e-9))
-	if k < 1 {
-		k = 1
-	}
-	for conf > 0 && k < n && CoverageConfidence(k, n, level) < conf {
-		k++
-	}
-	e := &Envelope{Level: level, Runs: n, Inside: k, StrayM: rank[k-1].stray, CellM: cellM}
+	e := &Envelope{Level: level, Runs: n, Inside: k, StrayM: strays[order[k-1]], CellM: cellM}
 	e.Confidence = CoverageConfidence(k, n, level)
+	e.Members = append([]int(nil), order[:k]...)
 
-	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
-	for _, s := range rank[:k] {
-		r := runs[s.i]
-		e.Members = append(e.Members, s.i)
-		for _, p := range r.Points {
-			lo.X, lo.Y = math.Min(lo.X, p.X-r.RadiusM), math.Min(lo.Y, p.Y-r.RadiusM)
-			hi.X, hi.Y = math.Max(hi.X, p.X+r.RadiusM), math.Max(hi.Y, p.Y+r.RadiusM)
-		}
-		for _, o := range r.Outlines {
-			for _, p := range o {
-				lo.X, lo.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y)
-				hi.X, hi.Y = math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
-			}
-		}
+	// The grid is a window on the lattice of cells [I*cellM, (I+1)*cellM)
+	// shared by every envelope of this cell size, wide enough that no
+	// cell a run marks falls outside it (see latticeRange); so the cells
+	// marked do not depend on which runs share the grid.
+	i0, i1, j0, j1 := math.MaxInt, math.MinInt, math.MaxInt, math.MinInt
+	for _, i := range order[:k] {
+		a0, a1, b0, b1 := runs[i].latticeBox(cellM)
+		i0, i1, j0, j1 = min(i0, a0), max(i1, a1), min(j0, b0), max(j1, b1)
 	}
-	e.X0M, e.Y0M = lo.X-cellM, lo.Y-cellM
-	e.NX = int(math.Ceil((hi.X-lo.X)/cellM)) + 2
-	e.NY = int(math.Ceil((hi.Y-lo.Y)/cellM)) + 2
-	if e.NX*e.NY > maxCells {
+	e.I0, e.J0 = i0, j0
+	e.X0M, e.Y0M = float64(i0)*cellM, float64(j0)*cellM
+	e.NX, e.NY = i1-i0+1, j1-j0+1
+	if e.NX <= 0 || e.NY <= 0 || e.NX*e.NY > maxCells {
 		return nil, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
 	}
 	e.Covered = make([]bool, e.NX*e.NY)
-	for _, s := range rank[:k] {
-		e.sweep(runs[s.i])
+	for _, i := range order[:k] {
+		e.sweep(runs[i])
 	}
 	return e, nil
 }
 
 const maxCells = 4 << 20
 
-// sweep marks every cell that comes within the radius of the path: the
-// cell's centre within radius plus half the cell's diagonal.
-func (e *Envelope) sweep(r PlanPath) {
+// sweep marks every cell the run's load comes over.
+func (e *Envelope) sweep(r PlanPath) { r.sweepLattice(e.CellM, e.I0, e.J0, e.NX, e.NY, e.Covered) }
+
+// latticeBox is the range of lattice indices (i0 to i1 across, j0 to j1
+// up) whose cells the run can mark.
+func (r *PlanPath) latticeBox(cellM float64) (i0, i1, j0, j1 int) {
+	lo, hi := Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
+	reach := 0.0
+	if r.Outlines == nil {
+		reach = r.RadiusM + cellM*math.Sqrt2/2
+		for _, p := range r.Points {
+			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+		}
+	}
+	for _, o := range r.Outlines {
+		for _, p := range o {
+			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+		}
+	}
+	i0, i1 = latticeRange(lo.X, hi.X, reach, cellM)
+	j0, j1 = latticeRange(lo.Y, hi.Y, reach, cellM)
+	return i0, i1, j0, j1
+}
+
+// latticeRange is the range of lattice indices, from i0 to i1, whose
+// cells can come within reach of coordinates from lo to hi: a cell
+// [I*c, (I+1)*c) marked has its centre (I+1/2)*c within reach, or meets
+// [lo, hi] itself; one more cell each side keeps the rounding of the
+// division inside.
+func latticeRange(lo, hi, reach, cellM float64) (int, int) {
+	return int(math.Floor((lo-reach)/cellM)) - 1, int(math.Floor((hi+reach)/cellM)) + 1
+}
+
+// sweepLattice marks the cells of the lattice the run's load comes over
+// on the grid of nx by ny cells whose lower left cell has the lattice
+// index (i0, j0) (covered, row by row); cells off the grid are left out.
+// A ball of radius RadiusM about the points, taken as straight between
+// them: a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
+// is within the radius plus half the cell's diagonal of a piece (cells
+// already marked are not looked at again). Outlines: see sweepOutlines.
+func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
 	if r.Outlines != nil {
-		e.sweepOutlines(r.Outlines)
+		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
 		return
 	}
-	reach := r.RadiusM + e.CellM*math.Sqrt2/2
+	reach := r.RadiusM + cellM*math.Sqrt2/2
 	reach2 := reach * reach
-	mark := func(a, b Point2) {
-		i0 := int(math.Floor((math.Min(a.X, b.X) - reach - e.X0M) / e.CellM))
-		i1 := int(math.Floor((math.Max(a.X, b.X) + reach - e.X0M) / e.CellM))
-		j0 := int(math.Floor((math.Min(a.Y, b.Y) - reach - e.Y0M) / e.CellM))
-		j1 := int(math.Floor((math.Max(a.Y, b.Y) + reach - e.Y0M) / e.CellM))
-		for j := max(j0, 0); j <= min(j1, e.NY-1); j++ {
-			for i := max(i0, 0); i <= min(i1, e.NX-1); i++ {
-				k := j*e.NX + i
-				if e.Covered[k] {
+	piece := func(a, b Point2) {
+		lo, hi := latticeRange(math.Min(a.X, b.X), math.Max(a.X, b.X), reach, cellM)
+		jlo, jhi := latticeRange(math.Min(a.Y, b.Y), math.Max(a.Y, b.Y), reach, cellM)
+		for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
+			cy := (float64(j) + 0.5) * cellM
+			base := (j-j0)*nx - i0
+			for i := max(lo, i0); i <= min(hi, i0+nx-1); i++ {
+				if covered[base+i] {
 					continue
 				}
-				c := Point2{e.X0M + (float64(i)+0.5)*e.CellM, e.Y0M + (float64(j)+0.5)*e.CellM}
-				if pointSegmentDist2(c, a, b) <= reach2 {
-					e.Covered[k] = true
+				if pointSegmentDist2(Point2{(float64(i) + 0.5) * cellM, cy}, a, b) <= reach2 {
+					covered[base+i] = true
 				}
 			}
 		}
 	}
 	if len(r.Points) == 1 {
-		mark(r.Points[0], r.Points[0])
+		piece(r.Points[0], r.Points[0])
 	}
 	for i := 0; i+1 < len(r.Points); i++ {
-		mark(r.Points[i], r.Points[i+1])
+		piece(r.Points[i], r.Points[i+1])
 	}
 }
 
@@ -299,8 +315,8 @@ func (e *Envelope) AreaM2() float64 {
 
 // Contains reports whether the cell holding p is covered.
 func (e *Envelope) Contains(p Point2) bool {
-	i := int(math.Floor((p.X - e.X0M) / e.CellM))
-	j := int(math.Floor((p.Y - e.Y0M) / e.CellM))
+	i := int(math.Floor(p.X/e.CellM)) - e.I0
+	j := int(math.Floor(p.Y/e.CellM)) - e.J0
 	return i >= 0 && j >= 0 && i < e.NX && j < e.NY && e.Covered[j*e.NX+i]
 }
 
@@ -321,11 +337,15 @@ func (e *Envelope) Spans() []Span {
 			for i < e.NX && e.Covered[j*e.NX+i] {
 				i++
 			}
-			y := e.Y0M + float64(j)*e.CellM
-			out = append(out, Span{e.X0M + float64(start)*e.CellM, y, e.X0M + float64(i)*e.CellM, y + e.CellM})
+			out = append(out, latticeSpan(e.J0+j, e.I0+start, e.I0+i, e.CellM))
 		}
 	}
 	return out
+}
+
+// latticeSpan is the rectangle of lattice cells i0 to i1-1 in row j.
+func latticeSpan(j, i0, i1 int, cellM float64) Span {
+	return Span{float64(i0) * cellM, float64(j) * cellM, float64(i1) * cellM, float64(j+1) * cellM}
 }
 
 // CoverageConfidence is the probability that the k-th smallest of n

@@ -90,68 +90,29 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	if runs < 1 {
 		return nil, errors.New("clearance: at least one run")
 	}
-	if opt.StepM == 0 {
-		opt.StepM = 0.02
-	}
-	if opt.CellM == 0 {
-		opt.CellM = 0.1
-	}
-	site := SiteOf(s.Site)
-	nominal, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
+	c, err := prepare(s, opt.defaults())
 	if err != nil {
 		return nil, err
 	}
-	all, err := evaluateRuns(s, runs, variant, opt.Workers, opt.Budget)
+	part, err := c.part(s, 0, runs, variant)
 	if err != nil {
 		return nil, err
 	}
-	reps, where, err := site.check(all, opt.StepM)
-	if err != nil {
-		return nil, err
-	}
-	rep := &Report{Runs: runs, Seed: seed, MarginM: site.MarginM, Obstacles: reps,
-		Outline: OutlineBall, LoadRadiusM: site.LoadRadiusM}
-	nomRun := RunOf(nominal)
-	if nomRun.Rigid() {
-		rep.Outline, rep.LoadRadiusM = OutlineBox, 0
-	}
-	nomPlan := nomRun.planPath(site.SuspensionHeightM, rep.LoadRadiusM)
-	rep.Nominal = nomPlan.Points
-	plans := make([]PlanPath, len(all))
-	for i := range all {
-		plans[i] = all[i].planPath(site.SuspensionHeightM, rep.LoadRadiusM)
-	}
-	strays, err := Strays(plans, rep.Nominal)
-	if err != nil {
-		return nil, err
-	}
-	var envs [2]*Envelope
-	for k, e := range []struct {
-		level, conf float64
-		out         *EnvelopeOut
-	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
-		env, err := newEnvelope(plans, strays, e.level, e.conf, opt.CellM)
-		if err != nil {
-			return nil, err
-		}
-		envs[k] = env
-		*e.out = EnvelopeOut{Level: e.level, Inside: env.Inside, StrayM: env.StrayM, CellM: env.CellM,
-			AreaM2: env.AreaM2(), Confidence: env.Confidence, Spans: env.Spans()}
-	}
-	rep.Section = sectionOf(site, &nomRun, all, envs[0], envs[1], rep.Obstacles, where)
-	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)
-	rep.Words = words.Strings(rep.WordSentences)
+	return c.join(runs, seed, []Part{*part})
+}
+
+// assumptions state what the check takes for granted.
+func assumptions(outline string, opt Options) []string {
 	load := "The load is a ball of the stated size about its centre of mass"
-	if rep.Outline == OutlineBox {
+	if outline == OutlineBox {
 		load = "The load is its box, corners as simulated, taken against each obstacle as the upright prism that holds it (exact for a level load, on the safe side for a tilted one)"
 	}
-	rep.Assumptions = []string{
+	return []string{
 		load + "; obstacles are upright shapes standing from the floor up to their top height.",
 		fmt.Sprintf("Each run's path is taken as straight between the simulation's time samples and checked at points at most %.2f m apart; the clearance between them can be smaller by at most half that gap.", opt.StepM),
 		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations; an emergency stop at a moment drawn evenly over the move); they say how the path spreads when the inputs do, not how likely any input is.",
 		"The 95 % envelope holds the paths of the runs that stray least from the path with no spread, as many as it takes to be 95 % sure that it holds 95 % of all possible runs (a tolerance region; with few runs, all of them, and the confidence is stated).",
 	}
-	return rep, nil
 }
 
 // CheckWork is the work budget of one clearance check, shared by all its

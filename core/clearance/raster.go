@@ -7,14 +7,15 @@ import "math"
 // convex hull of its two positions, which is exactly the area a convex
 // outline sweeps moving straight without turning (and holds both ends of
 // the sweep when it turns a little between samples).
-func (e *Envelope) sweepOutlines(outlines [][]Point2) {
+// The cells are those of the lattice (see PlanPath.sweepLattice).
+func sweepOutlines(outlines [][]Point2, cellM float64, i0, j0, nx, ny int, covered []bool) {
 	if len(outlines) == 1 {
-		e.fillConvex(outlines[0])
+		fillConvex(outlines[0], cellM, i0, j0, nx, ny, covered)
 	}
 	var pair []Point2
 	for i := 0; i+1 < len(outlines); i++ {
 		pair = append(append(pair[:0], outlines[i]...), outlines[i+1]...)
-		e.fillConvex(Hull(pair))
+		fillConvex(Hull(pair), cellM, i0, j0, nx, ny, covered)
 	}
 }
 
@@ -23,7 +24,7 @@ func (e *Envelope) sweepOutlines(outlines [][]Point2) {
 // the cells it touches are those whose x range meets that part's x range
 // (found from the corners inside the band and the edges' crossings of its
 // two lines).
-func (e *Envelope) fillConvex(poly []Point2) {
+func fillConvex(poly []Point2, cellM float64, gi0, gj0, nx, ny int, covered []bool) {
 	if len(poly) == 0 {
 		return
 	}
@@ -31,11 +32,11 @@ func (e *Envelope) fillConvex(poly []Point2) {
 	for _, p := range poly {
 		ylo, yhi = math.Min(ylo, p.Y), math.Max(yhi, p.Y)
 	}
-	j0 := max(int(math.Floor((ylo-e.Y0M)/e.CellM)), 0)
-	j1 := min(int(math.Floor((yhi-e.Y0M)/e.CellM)), e.NY-1)
+	j0 := max(int(math.Floor(ylo/cellM)), gj0)
+	j1 := min(int(math.Floor(yhi/cellM)), gj0+ny-1)
 	for j := j0; j <= j1; j++ {
-		y0 := e.Y0M + float64(j)*e.CellM
-		y1 := y0 + e.CellM
+		y0 := float64(j) * cellM
+		y1 := float64(j+1) * cellM
 		xlo, xhi := math.Inf(1), math.Inf(-1)
 		take := func(x float64) { xlo, xhi = math.Min(xlo, x), math.Max(xhi, x) }
 		n := len(poly)
@@ -53,10 +54,10 @@ func (e *Envelope) fillConvex(poly []Point2) {
 		if xlo > xhi {
 			continue
 		}
-		i0 := max(int(math.Floor((xlo-e.X0M)/e.CellM)), 0)
-		i1 := min(int(math.Floor((xhi-e.X0M)/e.CellM)), e.NX-1)
+		i0 := max(int(math.Floor(xlo/cellM)), gi0)
+		i1 := min(int(math.Floor(xhi/cellM)), gi0+nx-1)
 		for i := i0; i <= i1; i++ {
-			e.Covered[j*e.NX+i] = true
+			covered[(j-gj0)*nx+i-gi0] = true
 		}
 	}
 }

@@ -1,11 +1,8 @@
 package clearance
 
 import (
-	"fmt"
 	"math"
 
-	"swaysheet/core/draws"
-	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
 
@@ -108,25 +105,4 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 		}
 	}
 	return p
-}
-
-// evaluateRuns evaluates every run, in parallel; a run the core rejects
-// ends the check with that run's error, naming it.
-func evaluateRuns(s *scenario.Scenario, n int, variant Variant, workers int, budget *sway.Budget) ([]Run, error) {
-	out := make([]Run, n)
-	err := draws.Each(n, workers, func(i int) error {
-		v := s
-		if variant != nil {
-			if d := variant(i); d != nil {
-				v = d
-			}
-		}
-		r, err := sway.EvaluateWith(v, sway.Options{Budget: budget})
-		if err != nil {
-			return fmt.Errorf("run %d: %w", i, err)
-		}
-		out[i] = RunOf(r)
-		return nil
-	})
-	return out, err
 }

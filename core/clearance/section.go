@@ -66,6 +66,27 @@ func (k *track) distance(p Point2) float64 {
 func sectionOf(site *Site, nominal *Run, runs []Run, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	trk := newTrack(nominal)
+	ds, lows := make(map[int][]float64, len(e95.Members)), make(map[int][]float64, len(e95.Members))
+	for _, m := range e95.Members {
+		ds[m], lows[m] = trk.runSection(&runs[m], h, r)
+	}
+	return sectionFrom(site, nominal, trk, ds, lows, e50, e95, reps, where)
+}
+
+// runSection is a run's distance along the track and its lowest point's
+// height at each sample.
+func (k *track) runSection(run *Run, h, r float64) (d, low []float64) {
+	d, low = make([]float64, len(run.TimeS)), make([]float64, len(run.TimeS))
+	for i := range run.TimeS {
+		d[i], low[i] = k.distance(run.centre(i, h).Plan()), run.LowM(i, h, r)
+	}
+	return d, low
+}
+
+// sectionFrom is sectionOf with the distances and lowest points of the
+// 95 % envelope's runs given (ds, lows by run index).
+func sectionFrom(site *Site, nominal *Run, trk *track, ds, lows map[int][]float64, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
+	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	sec := Section{PathLengthM: trk.length(), SuspensionHeightM: h, Obstacles: []SectionObstacle{}}
 	dist := func(run *Run) []float64 {
 		out := make([]float64, len(run.TimeS))
@@ -80,18 +101,16 @@ func sectionOf(site *Site, nominal *Run, runs []Run, e50, e95 *Envelope, reps []
 			LowM: nominal.LowM(i, h, r), HookM: nominal.HookM(i, h)})
 	}
 	// The 50 % runs are the first of the 95 % runs (least straying first).
-	ds := make(map[int][]float64, len(e95.Members))
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, m := range e95.Members {
-		ds[m] = dist(&runs[m])
 		for _, d := range ds[m] {
 			lo, hi = math.Min(lo, d), math.Max(hi, d)
 		}
 	}
 	bin := math.Max(sec.PathLengthM/200, 0.05)
 	bin = math.Max(bin, (hi-lo)/2000)
-	sec.Envelope50 = band(e50, runs, ds, lo, bin, h, r)
-	sec.Envelope95 = band(e95, runs, ds, lo, bin, h, r)
+	sec.Envelope50 = band(e50, ds, lows, lo, bin)
+	sec.Envelope95 = band(e95, ds, lows, lo, bin)
 
 	reach := r + e95.StrayM + site.MarginM
 	if nominal.Rigid() {
@@ -135,15 +154,15 @@ func sectionOf(site *Site, nominal *Run, runs []Run, e50, e95 *Envelope, reps []
 // band is the lowest point's band over the envelope's runs: between two
 // samples a run's lowest point is taken as anywhere between its two
 // heights over the bins between their distances.
-func band(e *Envelope, runs []Run, ds map[int][]float64, d0, bin, h, r float64) SectionBand {
+func band(e *Envelope, ds, lows map[int][]float64, d0, bin float64) SectionBand {
 	out := SectionBand{Level: e.Level, Inside: e.Inside, BinM: bin, DistM: []float64{}, LowM: []float64{}, HighM: []float64{}}
 	low, high := map[int]float64{}, map[int]float64{}
 	first, last := math.MaxInt, math.MinInt
 	for _, m := range e.Members {
-		run, d := &runs[m], ds[m]
-		prev := run.LowM(0, h, r)
+		d, lm := ds[m], lows[m]
+		prev := lm[0]
 		for i := range d {
-			z := run.LowM(i, h, r)
+			z := lm[i]
 			j0, j1 := int(math.Floor((d[max(i-1, 0)]-d0)/bin)), int(math.Floor((d[i]-d0)/bin))
 			if j0 > j1 {
 				j0, j1 = j1, j0

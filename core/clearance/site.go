@@ -85,30 +85,48 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 			return nil, nil, fmt.Errorf("obstacle %d (%s): %w", i+1, s.Obstacles[i].Name, err)
 		}
 	}
-	paths := make([][]Sample, len(runs))
-	boxes := make([][]BoxSample, len(runs))
+	near := make([][]Closest, len(runs))
 	for i := range runs {
-		if runs[i].Rigid() {
-			boxes[i] = runs[i].Boxes(s.SuspensionHeightM)
+		near[i] = s.checkRun(&runs[i], stepM)
+	}
+	reps, where := s.summarise(near)
+	return reps, where, nil
+}
+
+// checkRun is one run's Closest to each obstacle: a rigid load's box, or
+// the ball about the load's centre.
+func (s *Site) checkRun(r *Run, stepM float64) []Closest {
+	out := make([]Closest, len(s.Obstacles))
+	var path []Sample
+	var boxes []BoxSample
+	if r.Rigid() {
+		boxes = r.Boxes(s.SuspensionHeightM)
+	} else {
+		path = r.Path(s.SuspensionHeightM)
+	}
+	for k := range s.Obstacles {
+		if boxes != nil {
+			out[k] = s.Obstacles[k].AlongBoxPath(boxes, stepM)
 		} else {
-			paths[i] = runs[i].Path(s.SuspensionHeightM)
+			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
 		}
 	}
+	return out
+}
+
+// summarise gives each obstacle's figures over the runs from each run's
+// Closest (near[run][obstacle]), the runs taken in order, with where each
+// obstacle's smallest clearance, first strike and smallest gap are.
+func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 	out := make([]ObstacleReport, len(s.Obstacles))
 	where := make([]Closest, len(s.Obstacles))
 	for k := range s.Obstacles {
-		o := &s.Obstacles[k]
-		rep := ObstacleReport{Name: o.Name, Runs: len(runs), SmallestM: math.Inf(1)}
+		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), SmallestM: math.Inf(1)}
 		w := Closest{GapM: math.Inf(1)}
-		smallest := make([]float64, len(runs))
+		smallest := make([]float64, len(near))
 		var gaps []float64
-		for i := range runs {
-			var c Closest
-			if boxes[i] != nil {
-				c = o.AlongBoxPath(boxes[i], stepM)
-			} else {
-				c = o.AlongPath(paths[i], s.LoadRadiusM, stepM)
-			}
+		for i := range near {
+			c := near[i][k]
 			smallest[i] = c.ClearanceM
 			if c.ClearanceM >= s.MarginM && !c.Strikes {
 				rep.KeepMargin++
@@ -132,8 +150,8 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 		}
 		sort.Float64s(smallest)
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
-		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(runs))
-		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(runs), 0.95)
+		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
+		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
 		if len(gaps) > 0 {
 			sort.Float64s(gaps)
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
@@ -142,7 +160,7 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 		w.At = rep.SmallestAt
 		out[k], where[k] = rep, w
 	}
-	return out, where, nil
+	return out, where
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the

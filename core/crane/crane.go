@@ -23,20 +23,37 @@ type Kind struct {
 	// The scenario fields of a move: distance, top speed, acceleration,
 	// braking, jerk.
 	Distance, Speed, Accel, Decel, Jerk string
+	// The plan block's fields (plan.distance_m or plan.angle_deg is
+	// Distance): the top speed and the largest acceleration.
+	TopSpeed, MaxAccel string
 	// CSVSuffix is the unit part of a record's column ("_m", "_deg").
 	CSVSuffix string
+	// The core/units quantities of a distance, a speed and an
+	// acceleration of the axis (their first unit is the scenario's).
+	Quantity, SpeedQuantity, AccelQuantity string
 }
 
 // Linear and Angular are the two kinds of axis; Kinds lists them.
 var (
 	Linear = &Kind{Name: "linear", Words: "metres", Unit: "m", SpeedUnit: "m/s", AccelUnit: "m/s²", ToSI: 1,
 		Distance: "distance_m", Speed: "speed_m_per_s", Accel: "accel_m_per_s2", Decel: "decel_m_per_s2",
-		Jerk: "jerk_m_per_s3", CSVSuffix: "_m"}
+		Jerk: "jerk_m_per_s3", TopSpeed: "top_speed_m_per_s", MaxAccel: "max_accel_m_per_s2", CSVSuffix: "_m",
+		Quantity: "length", SpeedQuantity: "speed", AccelQuantity: "acceleration"}
 	Angular = &Kind{Name: "angular", Words: "degrees", Unit: "deg", SpeedUnit: "deg/s", AccelUnit: "deg/s²",
 		ToSI: units.Degree, Distance: "angle_deg", Speed: "rate_deg_per_s", Accel: "accel_deg_per_s2",
-		Decel: "decel_deg_per_s2", Jerk: "jerk_deg_per_s3", CSVSuffix: "_deg"}
+		Decel: "decel_deg_per_s2", Jerk: "jerk_deg_per_s3", TopSpeed: "top_rate_deg_per_s", MaxAccel: "max_accel_deg_per_s2",
+		CSVSuffix: "_deg", Quantity: "angle", SpeedQuantity: "angular_speed", AccelQuantity: "angular_acceleration"}
 	Kinds = []*Kind{Linear, Angular}
 )
+
+// Pick is linear or angular by the kind: for the values and fields a type
+// holds once for each kind (distance_m and angle_deg).
+func Pick[T any](k *Kind, linear, angular T) T {
+	if k == Angular {
+		return angular
+	}
+	return linear
+}
 
 // Role is what an axis does to the suspension point or the rope.
 type Role int
@@ -61,13 +78,17 @@ type Axis struct {
 	Role  Role
 	// Plannable: the planner plans a move of this axis (plan.axis).
 	Plannable bool
+	// Needs is the crane block's field (JSON path) that the axis'
+	// geometry needs above 0 to be planned ("crane.radius_m": a slew
+	// moves the hook along an arc of that radius); empty: none.
+	Needs string
 }
 
 // Axes lists every axis, in display order.
 var Axes = []Axis{
 	{Name: "travel_x", Words: "travel x", Kind: Linear, Role: AlongX, Plannable: true},
 	{Name: "travel_y", Words: "travel y", Kind: Linear, Role: AlongY, Plannable: true},
-	{Name: "slew", Words: "slew", Kind: Angular, Role: Turn, Plannable: true},
+	{Name: "slew", Words: "slew", Kind: Angular, Role: Turn, Plannable: true, Needs: "crane.radius_m"},
 	{Name: "radius", Words: "trolley on the jib (radius)", Kind: Linear, Role: Reach},
 	{Name: "hoist", Words: "hoist (up +)", Kind: Linear, Role: Rope},
 }

@@ -73,3 +73,33 @@ func TestWordsFor(t *testing.T) {
 		}
 	}
 }
+
+// The planner's linear theory of each axis: the hook moves r·dphi along
+// the arc of a slew at radius r and leans out by atan(r·w²/g) at rate w
+// (circular motion; any dynamics text); a travel moves it one for one and
+// does not lean it; the hoist does not move it sideways.
+func TestPlannerGeometry(t *testing.T) {
+	at := Start{RadiusM: 35}
+	for _, c := range []struct {
+		axis        string
+		hook, outer float64
+	}{{"travel_x", 1, 0}, {"travel_y", 1, 0}, {"radius", 1, 0}, {"hoist", 0, 0}, {"slew", 35, 35 * 0.07 * 0.07}} {
+		a, _ := Of(c.axis)
+		if got := a.HookPerUnit(at); got != c.hook {
+			t.Errorf("%s: hook per unit %g, want %g", c.axis, got, c.hook)
+		}
+		if got := a.OutwardAccel(at, 0.07); math.Abs(got-c.outer) > 1e-15 {
+			t.Errorf("%s: outward acceleration %g, want %g", c.axis, got, c.outer)
+		}
+	}
+	// The hook's first direction: the jib at 30 deg turning forward moves
+	// it along the tangent (-sin 30°, cos 30°); the trolley along the jib.
+	at.SlewRad = math.Pi / 6
+	for axis, want := range map[string][2]float64{"travel_x": {1, 0}, "travel_y": {0, 1}, "slew": {-0.5, math.Sqrt(3) / 2},
+		"radius": {math.Sqrt(3) / 2, 0.5}, "hoist": {0, 0}} {
+		a, _ := Of(axis)
+		if d := a.HookDirection(at); math.Abs(d.X-want[0]) > 1e-15 || math.Abs(d.Y-want[1]) > 1e-15 || d.Z != 0 {
+			t.Errorf("%s: hook direction %v, want %v", axis, d, want)
+		}
+	}
+}

@@ -73,3 +73,48 @@ func (d *Drives) RopeLength(l0 float64) func(float64) (float64, float64, float64
 		return l0 - h.Pos, -h.Vel, -h.Acc
 	}
 }
+
+// HookPerUnit is how far the hook moves sideways per SI unit of the axis
+// (m per m, or m per rad) with the crane standing at at, as linear theory
+// sees a move of the axis alone: 1 for a travel or the trolley, the hook
+// radius for a slew (arc length = radius × angle), 0 for the hoist.
+func (a Axis) HookPerUnit(at Start) float64 {
+	switch a.Role {
+	case Turn:
+		return at.RadiusM
+	case Rope:
+		return 0
+	}
+	return 1
+}
+
+// OutwardAccel is the acceleration (m/s²) that leans the load away from
+// the centre of the hook's path while the axis moves at speed v (SI) with
+// the crane standing at at: r·v² for a slew at hook radius r (the
+// centripetal acceleration of circular motion; any dynamics text), 0 for
+// an axis that moves the hook in a straight line. The lean is
+// atan(r·v²/g).
+func (a Axis) OutwardAccel(at Start, v float64) float64 {
+	if a.Role == Turn {
+		return at.RadiusM * v * v
+	}
+	return 0
+}
+
+// HookDirection is the unit vector, in the ground plane, along which the
+// hook starts to move when the axis moves forward from at: +x or +y for
+// a travel, the jib's tangent (-sin phi0, cos phi0) for a slew, its
+// radial (cos phi0, sin phi0) for the trolley; zero for the hoist.
+func (a Axis) HookDirection(at Start) r3.Vec {
+	switch a.Role {
+	case AlongX:
+		return r3.Vec{X: 1}
+	case AlongY:
+		return r3.Vec{Y: 1}
+	case Turn:
+		return r3.Vec{X: -math.Sin(at.SlewRad), Y: math.Cos(at.SlewRad)}
+	case Reach:
+		return r3.Vec{X: math.Cos(at.SlewRad), Y: math.Sin(at.SlewRad)}
+	}
+	return r3.Vec{}
+}

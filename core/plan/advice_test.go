@@ -139,7 +139,7 @@ func TestPendantP90(t *testing.T) {
 			for range draws {
 				m := o.Motion
 				if o.Presses != nil {
-					m = pressed(t, o, r.DistanceM+r.AngleDeg, accelOf(o.Motion), scenario.DefaultTimingSigmaS, 0, rnd, r.Axis == scenario.Slew)
+					m = pressed(t, o, r.DistanceM+r.AngleDeg, accelOf(o.Motion), scenario.DefaultTimingSigmaS, 0, rnd, r.Axis == "slew")
 				}
 				sc.Motions = []scenario.Motion{m}
 				e, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true})

@@ -22,9 +22,8 @@ func linearPeak(p *motion.Trapezoid, k, l float64) float64 {
 func (rq *request) linearRatio(a float64) float64 {
 	p := motion.NewTrapezoid(0, rq.dist, rq.vmax, a, a)
 	lean := 0.0
-	if rq.slew {
-		v := p.PeakSpeed()
-		lean = math.Atan(rq.radius * v * v / units.StandardGravity)
+	if rq.leans() {
+		lean = rq.lean(p.PeakSpeed())
 	}
 	worst := 0.0
 	for _, l := range rq.ropes {

@@ -5,40 +5,46 @@ import (
 	"math"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
 	"swaysheet/core/shaper"
 	"swaysheet/core/units"
 )
 
-// axisUnit is the axis' display unit per SI unit (1 for m, 1/deg for rad).
-func (rq *request) axisUnit() float64 {
-	if rq.slew {
-		return 1 / units.Degree
-	}
-	return 1
+// axisUnit is the axis' scenario unit per SI unit (1 for m, 1/deg for
+// rad: its kind's).
+func (rq *request) axisUnit() float64 { return 1 / rq.axis.Kind.ToSI }
+
+// inAxis is x (SI: m or rad, per s, per s²) in the axis' scenario unit.
+func (rq *request) inAxis(x float64) float64 { return x / rq.axis.Kind.ToSI }
+
+// leans reports whether moving the axis leans the load out (a slew: the
+// hook goes round an arc; crane.Axis.OutwardAccel).
+func (rq *request) leans() bool { return rq.axis.OutwardAccel(rq.start, 1) > 0 }
+
+// lean is the load's outward lean while the axis moves at speed v (SI),
+// rad: atan(a_out/g), 0 for an axis that moves the hook straight.
+func (rq *request) lean(v float64) float64 {
+	return math.Atan(rq.axis.OutwardAccel(rq.start, v) / units.StandardGravity)
 }
 
 // motionFor is a trapezoidal scenario move of the planned axis, SI inputs.
 func (rq *request) motionFor(a, v float64) scenario.Motion {
 	f := func(x float64) *float64 { return &x }
 	m := scenario.Motion{Axis: rq.s.Plan.Axis, Profile: scenario.ProfileTrapezoid}
-	if rq.slew {
-		d := units.Degree
-		m.AngleDeg, m.RateDegPerS, m.AccelDegPerS2, m.DecelDegPerS2 = f(rq.dist/d), f(v/d), f(a/d), f(a/d)
-	} else {
-		m.DistanceM, m.SpeedMPerS, m.AccelMPerS2, m.DecelMPerS2 = f(rq.dist), f(v), f(a), f(a)
-	}
+	k := rq.axis.Kind
+	*crane.Pick(k, &m.DistanceM, &m.AngleDeg) = f(rq.inAxis(rq.dist))
+	*crane.Pick(k, &m.SpeedMPerS, &m.RateDegPerS) = f(rq.inAxis(v))
+	*crane.Pick(k, &m.AccelMPerS2, &m.AccelDegPerS2) = f(rq.inAxis(a))
+	*crane.Pick(k, &m.DecelMPerS2, &m.DecelDegPerS2) = f(rq.inAxis(a))
 	return m
 }
 
 func (rq *request) setAccel(o *Option, a, v float64) {
 	o.accelSI = a
-	if rq.slew {
-		o.AccelDegPerS2, o.TopRateDegPerS = a/units.Degree, v/units.Degree
-	} else {
-		o.AccelMPerS2, o.TopSpeedMPerS = a, v
-	}
+	*crane.Pick(rq.axis.Kind, &o.AccelMPerS2, &o.AccelDegPerS2) = rq.inAxis(a)
+	*crane.Pick(rq.axis.Kind, &o.TopSpeedMPerS, &o.TopRateDegPerS) = rq.inAxis(v)
 }
 
 // trapezoidOption is a plain ramp setting: acceleration a, top speed v.
@@ -64,7 +70,7 @@ func (rq *request) wholePeriodOption(n int) *Option {
 	}
 	o := rq.trapezoidOption(fmt.Sprintf("whole_periods_%d", n), fmt.Sprintf("Ramp time of %d sway %s", n, word), a, v)
 	claim := "each ramp then leaves no residual swing in linear theory."
-	if rq.slew {
+	if rq.leans() {
 		// The outward lean R*w^2/g is released as the slew slows: a whole
 		// number of periods cancels the swing of the slew's acceleration,
 		// not that release (see ramp.go); the simulated figures say what
@@ -129,20 +135,12 @@ func (rq *request) shapedDriveWith(sh *shaper.Shaper, kind, key, label string) *
 // segments describes a piecewise linear speed profile in words.
 func (rq *request) segments(ks []Knot) []Sentence {
 	// Knot speeds are in the axis' unit: m/s, or deg/s for a slew.
+	k := rq.axis.Kind
 	sp := func(x float64) Quantity {
-		q := qSpeed(x)
-		if rq.slew {
-			q = qRate(x)
-		}
-		q.short = true // one unit in the plain text of a table-like line
-		return q
+		// short: one unit in the plain text of a table-like line
+		return Quantity{Value: x, Quantity: k.SpeedQuantity, Digits: 3, short: true}
 	}
-	acc := func(x float64) Quantity {
-		if rq.slew {
-			return qAlpha(x)
-		}
-		return qAcc(x)
-	}
+	acc := func(x float64) Quantity { return Quantity{Value: x, Quantity: k.AccelQuantity, Digits: 3} }
 	tq := func(t float64) Quantity { return qTime(t).digits(4) }
 	var out []Sentence
 	for i := 0; i+1 < len(ks); i++ {

@@ -52,9 +52,7 @@ func (rq *request) peakLimited() *Option {
 func (rq *request) peakGuess() (a0, a float64) {
 	g := units.StandardGravity
 	th := rq.angleLimit()
-	if rq.slew {
-		th -= math.Atan(rq.radius * rq.vmax * rq.vmax / g)
-	}
+	th -= rq.lean(rq.vmax)
 	a0 = math.Min(rq.amax, g*math.Tan(th/2)/rq.k)
 	a = a0
 	for range 200 {

@@ -6,9 +6,9 @@ import (
 	"math/cmplx"
 	"strings"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
-	"swaysheet/core/units"
 )
 
 // ownPendant times the presses of the crane's own pendant steps (fractions
@@ -216,11 +216,7 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 			t := times[k]
 			sp := sign * p.frac * v * rq.axisUnit()
 			st := scenario.SpeedStep{AtS: t}
-			if rq.slew {
-				st.RateDegPerS = &sp
-			} else {
-				st.SpeedMPerS = &sp
-			}
+			*crane.Pick(rq.axis.Kind, &st.SpeedMPerS, &st.RateDegPerS) = &sp
 			if k := len(ms); k > 0 && t-ms[k-1].AtS < 1e-9 {
 				steps, ms = steps[:k-1], ms[:k-1] // two steps at one moment: straight to the second
 			}
@@ -233,13 +229,9 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 		}
 		m := scenario.Motion{Axis: rq.s.Plan.Axis, Profile: scenario.ProfileSteps}
 		m.Steps = steps
-		a := rq.amax
-		if rq.slew {
-			ad := a / units.Degree
-			m.AccelDegPerS2, m.DecelDegPerS2 = &ad, &ad
-		} else {
-			m.AccelMPerS2, m.DecelMPerS2 = &a, &a
-		}
+		a := rq.inAxis(rq.amax)
+		*crane.Pick(rq.axis.Kind, &m.AccelMPerS2, &m.AccelDegPerS2) = &a
+		*crane.Pick(rq.axis.Kind, &m.DecelMPerS2, &m.DecelDegPerS2) = &a
 		return m, prof, nil
 	}
 	nominal := make([]float64, len(ps))
@@ -313,11 +305,7 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 			// The person releases d late at the mark: the mark is where the
 			// crane is d before the planned moment.
 			at = markAt(math.Max(0, p.t-tm.ReactionDelayS))
-			if rq.slew {
-				pr.BeforeStopDeg = at / units.Degree
-			} else {
-				pr.BeforeStopM = at
-			}
+			*crane.Pick(rq.axis.Kind, &pr.BeforeStopM, &pr.BeforeStopDeg) = rq.inAxis(at)
 			if k == n {
 				pr.ByMark = true
 			}
@@ -343,16 +331,10 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 
 // markQ is a mark (SI: m or rad) as a quantity.
 func (rq *request) markQ(x float64) Quantity {
-	if rq.slew {
-		return qAngle(x / units.Degree).digits(3)
-	}
-	return qLen(x)
+	return Quantity{Value: rq.inAxis(x), Quantity: rq.axis.Kind.Quantity, Digits: 3}
 }
 
 // accelQ is an acceleration of the axis (SI in) as a quantity.
 func (rq *request) accelQ(a float64) Quantity {
-	if rq.slew {
-		return qAlpha(a / units.Degree)
-	}
-	return qAcc(a)
+	return Quantity{Value: rq.inAxis(a), Quantity: rq.axis.Kind.AccelQuantity, Digits: 3}
 }

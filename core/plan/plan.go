@@ -48,6 +48,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
 	"swaysheet/core/shaper"
@@ -85,13 +86,14 @@ var Cautions = []string{
 // request is the plan in SI.
 type request struct {
 	s          *scenario.Scenario
-	slew       bool
-	dist       float64   // m or rad (signed)
-	vmax, amax float64   // m/s or rad/s, m/s^2 or rad/s^2
-	radius     float64   // m (slew)
-	k          float64   // hook metres per axis unit: 1 or R
-	ropes      []float64 // nominal, then the range ends
-	checked    []float64 // ropes, then two between the ends
+	axis       crane.Axis  // the planned axis (core/crane: its kind and geometry)
+	start      crane.Start // where the crane stands at the start
+	dist       float64     // m or rad (signed)
+	vmax, amax float64     // m/s or rad/s, m/s^2 or rad/s^2
+	radius     float64     // m: the hook radius (a slew's arc)
+	k          float64     // hook metres per axis unit: 1 or R (crane.Axis.HookPerUnit)
+	ropes      []float64   // nominal, then the range ends
+	checked    []float64   // ropes, then two between the ends
 	lim        Limits
 	zeta, tol  float64
 	drive      string
@@ -140,7 +142,6 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 		return nil, err
 	}
 	rq.budget = budget
-	g := units.StandardGravity
 	res := &Result{
 		Name: s.Name, Axis: s.Plan.Axis, RopeLengthM: *s.Load.RopeLengthM, RopeLengthsM: rq.ropes,
 		CheckedRopeLengthsM: rq.checked, Drive: rq.drive, DriveAssumed: rq.driveAssumed,
@@ -169,14 +170,11 @@ func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if rq.drive == scenario.DrivePendant {
 		res.Assumptions = append(append([]string{}, res.Assumptions...), timingAssumption(rq.timing()))
 	}
-	if rq.slew {
-		res.AngleDeg = rq.dist / units.Degree
+	*crane.Pick(rq.axis.Kind, &res.DistanceM, &res.AngleDeg) = rq.inAxis(rq.dist)
+	*crane.Pick(rq.axis.Kind, &res.TopSpeedMPerS, &res.TopRateDegPerS) = rq.inAxis(rq.vmax)
+	if rq.leans() {
 		res.RadiusM = rq.radius
-		res.TopRateDegPerS = rq.vmax / units.Degree
-		res.SlewLeanDeg = math.Atan(rq.radius*rq.vmax*rq.vmax/g) / units.Degree
-	} else {
-		res.DistanceM = rq.dist
-		res.TopSpeedMPerS = rq.vmax
+		res.SlewLeanDeg = rq.lean(rq.vmax) / units.Degree
 	}
 	res.Curves = curves(rq)
 	if msgs := rq.precheck(); len(msgs) > 0 {
@@ -299,16 +297,12 @@ func newRequest(s *scenario.Scenario) (*request, error) {
 			rq.drive = scenario.DrivePendant
 		}
 	}
-	if p.Axis == scenario.Slew {
-		rq.slew = true
-		rq.dist = *p.AngleDeg * units.Degree
-		rq.vmax = *p.TopRateDegPerS * units.Degree
-		rq.amax = *p.MaxAccelDegPerS2 * units.Degree
-		rq.radius = s.Crane.RadiusM
-		rq.k = rq.radius
-	} else {
-		rq.dist, rq.vmax, rq.amax = *p.DistanceM, *p.TopSpeedMPerS, *p.MaxAccelMPerS2
-	}
+	// Validated: the axis is plannable and its three fields are given.
+	ax, dist, v, a, _ := p.Move()
+	rq.axis, rq.start = ax, s.Crane.Start()
+	u := ax.Kind.ToSI
+	rq.dist, rq.vmax, rq.amax = *dist*u, *v*u, *a*u
+	rq.radius, rq.k = rq.start.RadiusM, ax.HookPerUnit(rq.start)
 	l := *s.Load.RopeLengthM
 	rq.ropes = []float64{l}
 	lo, hi := l, l
@@ -391,8 +385,8 @@ func (rq *request) precheck() []Sentence {
 				qAngle(lean/units.Degree).digits(3), qAngle(res/units.Degree).digits(3)))
 		}
 	}
-	if rq.slew {
-		lean := math.Atan(rq.radius * rq.vmax * rq.vmax / g)
+	if rq.leans() {
+		lean := rq.lean(rq.vmax)
 		if lean >= th {
 			wmax := math.Sqrt(g * math.Tan(th) / rq.radius)
 			msgs = append(msgs, say("At the top slew rate of {0} the load leans out {1} at {2} radius, at or above the swing allowed ({3}). Lower plan.top_rate_deg_per_s below {4} (better: to about {5}), or slew at a smaller radius.",

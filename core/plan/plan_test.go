@@ -164,7 +164,7 @@ func TestResidualAgainstRampTime(t *testing.T) {
 		sc := &scenario.Scenario{Format: scenario.FormatName, Version: 1, Name: "single ramp",
 			Load:     scenario.Load{MassKg: &mass, RopeLengthM: &l},
 			Settings: &scenario.Settings{Accuracy: "tight"}}
-		m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop}
+		m := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileHardStop}
 		m.SpeedMPerS, m.DecelMPerS2, m.BrakeAtS = &v, &dec, &brake
 		sc.Motions = []scenario.Motion{m}
 		res, err := sway.Evaluate(sc)
@@ -313,7 +313,7 @@ func TestSuddenAccelerationPeak(t *testing.T) {
 		k := math.Sin(thDeg * units.Degree / 4)
 		T := 4 * math.Sqrt(l/math.Hypot(g, a)) * mathext.CompleteK(k*k)
 		v := a * T
-		m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop}
+		m := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileHardStop}
 		m.SpeedMPerS, m.DecelMPerS2, m.BrakeAtS = &v, &a, &brake
 		sc := &scenario.Scenario{Format: scenario.FormatName, Version: 1, Name: "sudden ramp",
 			Load: scenario.Load{MassKg: &mass, RopeLengthM: &l}, Motions: []scenario.Motion{m},

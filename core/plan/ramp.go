@@ -57,7 +57,7 @@ func (rq *request) rampResidual(tr, r float64, ms modeSet) float64 {
 	var tot float64
 	for i, w := range ms.omega {
 		var res float64
-		if rq.slew {
+		if rq.leans() {
 			res = slewResidual(p, rq.radius, w)
 		} else {
 			res = 2 * (a / g) * math.Abs(math.Sin(w*ta/2))
@@ -135,7 +135,7 @@ func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool
 	peakOK := rq.linearRatio(a) <= 1
 	out := make([]bool, len(grid))
 	share := 0.5 // each ramp alone within half the limit
-	if rq.slew {
+	if rq.leans() {
 		share = 0.8 // the whole slew, with room for what linear theory leaves out
 	}
 	for i, ms := range grid {
@@ -258,7 +258,7 @@ func (rq *request) rampOption(tr, r float64) *Option {
 			rq.speedQ(rq.vmax), qTime(tr).digits(3), qTime(r).digits(3), qLen(lo).digits(4), qLen(hi).digits(4))
 	}
 	why := plain("In linear theory each ramp alone leaves at most half the residual limit at every rope length in the range, so the start and the stop cannot add past it wherever the stop is called.")
-	if rq.slew {
+	if rq.leans() {
 		why = plain("In linear theory (the hook's path in a fixed frame: the jib turning during each ramp and the outward lean's release counted) this slew leaves at most 0.8 of the residual limit at every rope length in the range; for another slew angle check again.")
 	}
 	o.Sentences = append([]Sentence{s, why}, o.Sentences...)
@@ -273,10 +273,7 @@ func (rq *request) rampOption(tr, r float64) *Option {
 
 // speedQ is a speed of the axis (SI in) as a quantity.
 func (rq *request) speedQ(v float64) Quantity {
-	if rq.slew {
-		return qRate(v / units.Degree)
-	}
-	return qSpeed(v)
+	return Quantity{Value: rq.inAxis(v), Quantity: rq.axis.Kind.SpeedQuantity, Digits: 3}
 }
 
 // rampCandidates offer the drive's single ramp setting (and one with

@@ -6,9 +6,6 @@ import (
 	"sort"
 	"strings"
 
-	"gonum.org/v1/gonum/spatial/r3"
-
-	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
 )
@@ -56,22 +53,15 @@ func (rq *request) simWords() string {
 }
 
 // setBody builds the rigid load and the move's direction: along the
-// travel axis, or for a slew the hook's direction of travel at the start.
+// travel axis, or for a slew the hook's direction of travel at the start
+// (crane.Axis.HookDirection).
 func (rq *request) setBody() error {
 	b, err := sway.NewRigidLoad(rq.s)
 	if err != nil {
 		return err
 	}
 	rq.body, rq.bodyMemo = b, map[float64]modeSet{}
-	switch rq.s.Plan.Axis {
-	case scenario.Slew:
-		a := rq.s.Crane.SlewDeg * units.Degree
-		rq.dir = r3.Vec{X: -math.Sin(a), Y: math.Cos(a)}
-	case "travel_y":
-		rq.dir = r3.Vec{Y: 1}
-	default:
-		rq.dir = r3.Vec{X: 1}
-	}
+	rq.dir = rq.axis.HookDirection(rq.start)
 	sw, err := b.Swing(*rq.s.Load.RopeLengthM, rq.dir)
 	if err != nil {
 		return err

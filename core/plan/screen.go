@@ -220,23 +220,22 @@ func (rq *request) clearlyOutside(est []Verified) bool {
 // the modes has been seen below the simulation (by a fifth in the
 // precast-hook example), on the safe side for that screen.
 func (rq *request) estimate(o *Option) (shown, low []Verified) {
-	g := units.StandardGravity
 	shown = make([]Verified, len(rq.checked))
 	low = make([]Verified, len(rq.checked))
 	lean := 0.0
-	if rq.slew {
+	if rq.leans() {
 		v := 0.0
 		for _, t := range o.profile.Breakpoints() {
 			v = math.Max(v, math.Abs(o.profile.At(t).Vel))
 		}
-		lean = math.Atan(rq.radius * v * v / g)
+		lean = rq.lean(v)
 	}
 	for i, l := range rq.checked {
 		ms := rq.modesAt(l)
 		peak, res := 0.0, 0.0
 		for j, w := range ms.omega {
 			pk, rs := linearSwing(o.profile, rq.k, w)
-			if rq.slew {
+			if rq.leans() {
 				rs = slewResidual(o.profile, rq.radius, w)
 			}
 			peak += ms.share[j] * pk

@@ -5,6 +5,8 @@ import (
 	"io"
 	"strings"
 	"text/tabwriter"
+
+	"swaysheet/core/crane"
 )
 
 // WriteTable prints a plan as a ranked table with the crew settings of
@@ -12,12 +14,16 @@ import (
 func WriteTable(w io.Writer, r *Result) error {
 	var b strings.Builder
 	fmt.Fprintf(&b, "%s\n", r.Name)
-	if r.Axis == "slew" {
-		fmt.Fprintf(&b, "Slew %.4g deg at radius %.4g m, top rate %.3g deg/s (outward lean %.2g deg at that rate)\n",
-			r.AngleDeg, r.RadiusM, r.TopRateDegPerS, r.SlewLeanDeg)
-	} else {
-		fmt.Fprintf(&b, "Travel %.4g m on %s, top speed %.3g m/s\n", r.DistanceM, r.Axis, r.TopSpeedMPerS)
+	k := crane.Linear
+	if ax, ok := crane.Of(r.Axis); ok {
+		k = ax.Kind
 	}
+	fmt.Fprintf(&b, "Move %.4g %s on %s, top speed %.3g %s", crane.Pick(k, r.DistanceM, r.AngleDeg), k.Unit, r.Axis,
+		crane.Pick(k, r.TopSpeedMPerS, r.TopRateDegPerS), k.SpeedUnit)
+	if r.RadiusM > 0 {
+		fmt.Fprintf(&b, " at radius %.4g m (outward lean %.2g deg at that speed)", r.RadiusM, r.SlewLeanDeg)
+	}
+	b.WriteString("\n")
 	fmt.Fprintf(&b, "Rope %.4g m (period %.3g s); simulated at %s m; shapers tuned to %.3g s (rope %.4g m)\n",
 		r.RopeLengthM, r.PeriodS, floats(r.RopeLengthsM), r.DesignPeriodS, r.DesignRopeM)
 	if len(r.ModePeriodsS) == 2 {

@@ -1,6 +1,8 @@
 package scenario
 
 import (
+	"math"
+
 	"swaysheet/core/crane"
 	"swaysheet/core/units"
 )
@@ -9,6 +11,19 @@ import (
 // model's units.
 func (c Crane) Start() crane.Start {
 	return crane.Start{RadiusM: c.RadiusM, SlewRad: c.SlewDeg * units.Degree}
+}
+
+// Field is the crane block's value at its JSON path, for the fields an
+// axis' geometry needs (crane.Axis.Needs); NaN for a path it does not
+// hold.
+func (c Crane) Field(path string) float64 {
+	switch path {
+	case "crane.radius_m":
+		return c.RadiusM
+	case "crane.slew_deg":
+		return c.SlewDeg
+	}
+	return math.NaN()
 }
 
 // Drive is a move's kinematic fields, whichever kind its axis is: the

@@ -6,12 +6,12 @@ import "swaysheet/core/motion"
 // the largest acceleration) already ends after the longest run simulated,
 // at the field to raise.
 func (p *Plan) checkDuration(c *checker) {
-	dist, v, a := p.DistanceM, p.TopSpeedMPerS, p.MaxAccelMPerS2
-	fd, fv, fa := "plan.distance_m", "plan.top_speed_m_per_s", "plan.max_accel_m_per_s2"
-	if p.Axis == Slew {
-		dist, v, a = p.AngleDeg, p.TopRateDegPerS, p.MaxAccelDegPerS2
-		fd, fv, fa = "plan.angle_deg", "plan.top_rate_deg_per_s", "plan.max_accel_deg_per_s2"
+	ax, dist, v, a, ok := p.Move()
+	if !ok {
+		return
 	}
+	k := ax.Kind
+	fd, fv, fa := "plan."+k.Distance, "plan."+k.TopSpeed, "plan."+k.MaxAccel
 	if dist == nil || v == nil || a == nil {
 		return
 	}

@@ -69,61 +69,6 @@ type ShaperSpec struct {
 // ShaperKinds are the accepted shaper kinds.
 var ShaperKinds = []string{"zv", "zvd", "ei"}
 
-// Plan asks the planner (package plan) for drive settings for one move of
-// the travel or slew axis. The rope length is load.rope_length_m, with an
-// optional range around it; the limits are the scenario's limits, of which
-// residual_swing_deg and one of peak_swing_deg or peak_excursion_m are
-// required.
-type Plan struct {
-	Axis string `json:"axis"`
-
-	DistanceM      *float64 `json:"distance_m,omitempty"`
-	TopSpeedMPerS  *float64 `json:"top_speed_m_per_s,omitempty"`
-	MaxAccelMPerS2 *float64 `json:"max_accel_m_per_s2,omitempty"`
-
-	AngleDeg         *float64 `json:"angle_deg,omitempty"`
-	TopRateDegPerS   *float64 `json:"top_rate_deg_per_s,omitempty"`
-	MaxAccelDegPerS2 *float64 `json:"max_accel_deg_per_s2,omitempty"`
-
-	// The rope lengths the load may have during the move (hoisting, or
-	// doubt about where the centre of mass is); both or neither.
-	RopeLengthMinM *float64 `json:"rope_length_min_m,omitempty"`
-	RopeLengthMaxM *float64 `json:"rope_length_max_m,omitempty"`
-
-	DampingRatio   float64 `json:"damping_ratio,omitempty"`
-	EITolerancePct float64 `json:"ei_tolerance_pct,omitempty"`
-	// Drive is the crane's drive: "variable_speed" or "pendant". Empty
-	// (files written before the drive was required) reads as "pendant"
-	// when pendant_steps_pct are given and "variable_speed" otherwise; the
-	// plan says which it assumed.
-	Drive string `json:"drive,omitempty"`
-	// PendantStepsPct are the speeds of the crane's pendant steps, % of
-	// the top speed, ascending, the last 100; required for a pendant. The
-	// planner times the presses of these steps and never invents others.
-	PendantStepsPct []float64 `json:"pendant_steps_pct,omitempty"`
-	// SCurveMaxRoundingS is the largest S-curve rounding (jerk limiting,
-	// as in the s_curve profile's rounding_s) the variable-speed drive
-	// offers; 0 or absent: the drive has none.
-	SCurveMaxRoundingS float64 `json:"s_curve_max_rounding_s,omitempty"`
-	// TimingSigmaS is the standard deviation of a person's press and
-	// release times on a pendant (default DefaultTimingSigmaS; 0 is exact
-	// timing); ReactionDelayS is added to every press timed by a count or
-	// a mark (default 0).
-	TimingSigmaS   *float64 `json:"timing_sigma_s,omitempty"`
-	ReactionDelayS float64  `json:"reaction_delay_s,omitempty"`
-}
-
-// DefaultTimingSigmaS is the default scatter of a person's press times:
-// a person pressing on a count is off by roughly 0.2 to 0.3 s (standard
-// deviation; from memory).
-const DefaultTimingSigmaS = 0.25
-
-// Drive kinds for a plan.
-const (
-	DriveVariableSpeed = "variable_speed"
-	DrivePendant       = "pendant"
-)
-
 // MaxSteps bounds the steps of one step-speed move.
 const MaxSteps = 50
 
@@ -141,20 +86,6 @@ func init() {
 		"motions[].shaper.damping_ratio":       {Min: 0, Max: 0.3, Unit: ""},
 		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
 		"motions[].shaper.second_period_s":     {Min: 0.1, Max: 120, Unit: "s"},
-		"plan.distance_m":                      {Min: -2000, Max: 2000, Unit: "m", MinAbs: 0.01},
-		"plan.top_speed_m_per_s":               {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
-		"plan.max_accel_m_per_s2":              {Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"},
-		"plan.angle_deg":                       {Min: -3600, Max: 3600, Unit: "deg", MinAbs: MinAngleDeg},
-		"plan.top_rate_deg_per_s":              {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
-		"plan.max_accel_deg_per_s2":            {Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"},
-		"plan.rope_length_min_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
-		"plan.rope_length_max_m":               {Min: MinRopeM, Max: 500, Unit: "m"},
-		"plan.damping_ratio":                   {Min: 0, Max: 0.3, Unit: ""},
-		"plan.ei_tolerance_pct":                {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
-		"plan.pendant_steps_pct[]":             {Min: 1, Max: 100, Unit: "%"},
-		"plan.s_curve_max_rounding_s":          {Min: 0, Max: 30, Unit: "s", MinAbs: MinDurationS},
-		"plan.timing_sigma_s":                  {Min: 0, Max: 2, Unit: "s"},
-		"plan.reaction_delay_s":                {Min: 0, Max: 3, Unit: "s"},
 		"motions[].hard_stop.speed_m_per_s":    {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
 		"motions[].hard_stop.rate_deg_per_s":   {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
 		"motions[].hard_stop.decel_m_per_s2":   {Min: MinAccelMPerS2, Max: 10, Unit: "m/s²"},
@@ -225,13 +156,12 @@ func (m *Motion) validateProfile(c *checker, at string) {
 		return
 	}
 	if p != ProfileSCurve { // the trapezoid's checks cover the S-curve's axis
-		switch m.Axis {
-		case TravelX, TravelY, Radius, Hoist, Slew:
-		case "":
-			c.add(f("axis"), "is required: accepted %q", Axes)
-			return
-		default:
-			c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+		if _, ok := crane.Of(m.Axis); !ok {
+			if m.Axis == "" {
+				c.add(f("axis"), "is required: accepted %q", Axes)
+			} else {
+				c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+			}
 			return
 		}
 	}
@@ -417,94 +347,5 @@ func (m *Motion) validateShaper(c *checker, at string) {
 	}
 	if sh.Kind != "ei" && sh.TolerancePct != 0 {
 		c.add(f("tolerance_pct"), "applies to the ei shaper only")
-	}
-}
-
-func (p *Plan) validate(c *checker, s *Scenario) {
-	switch p.Axis {
-	case TravelX, TravelY:
-		c.required("plan.distance_m", "plan.distance_m", p.DistanceM)
-		c.required("plan.top_speed_m_per_s", "plan.top_speed_m_per_s", p.TopSpeedMPerS)
-		c.required("plan.max_accel_m_per_s2", "plan.max_accel_m_per_s2", p.MaxAccelMPerS2)
-		why := "a travel move is planned in metres; use distance_m, top_speed_m_per_s, max_accel_m_per_s2"
-		c.forbidden("plan.angle_deg", p.AngleDeg, why)
-		c.forbidden("plan.top_rate_deg_per_s", p.TopRateDegPerS, why)
-		c.forbidden("plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2, why)
-		if p.DistanceM != nil && *p.DistanceM == 0 {
-			c.add("plan.distance_m", "is 0: give the distance to travel, %s", Ranges["plan.distance_m"].Text())
-		}
-	case Slew:
-		c.required("plan.angle_deg", "plan.angle_deg", p.AngleDeg)
-		c.required("plan.top_rate_deg_per_s", "plan.top_rate_deg_per_s", p.TopRateDegPerS)
-		c.required("plan.max_accel_deg_per_s2", "plan.max_accel_deg_per_s2", p.MaxAccelDegPerS2)
-		why := "a slew is planned in degrees; use angle_deg, top_rate_deg_per_s, max_accel_deg_per_s2"
-		c.forbidden("plan.distance_m", p.DistanceM, why)
-		c.forbidden("plan.top_speed_m_per_s", p.TopSpeedMPerS, why)
-		c.forbidden("plan.max_accel_m_per_s2", p.MaxAccelMPerS2, why)
-		if p.AngleDeg != nil && *p.AngleDeg == 0 {
-			c.add("plan.angle_deg", "is 0: give the slew angle, %s", Ranges["plan.angle_deg"].Text())
-		}
-		if s.Crane.RadiusM <= 0 {
-			c.add("crane.radius_m", "is required to plan a slew: the hook radius, above 0 up to %g m", MaxRadiusM)
-		}
-	case "":
-		c.add("plan.axis", "is required: accepted %q", crane.Names(true))
-		return
-	default:
-		c.add("plan.axis", "is %q: the planner plans %q", p.Axis, crane.Names(true))
-		return
-	}
-	p.checkDuration(c)
-	if (p.RopeLengthMinM == nil) != (p.RopeLengthMaxM == nil) {
-		c.add("plan.rope_length_min_m", "give both plan.rope_length_min_m and plan.rope_length_max_m, or neither")
-	}
-	c.optional("plan.rope_length_min_m", "plan.rope_length_min_m", p.RopeLengthMinM)
-	c.optional("plan.rope_length_max_m", "plan.rope_length_max_m", p.RopeLengthMaxM)
-	if p.RopeLengthMinM != nil && p.RopeLengthMaxM != nil && s.Load.RopeLengthM != nil {
-		lo, hi, l := *p.RopeLengthMinM, *p.RopeLengthMaxM, *s.Load.RopeLengthM
-		if !(lo <= l && l <= hi) {
-			c.add("plan.rope_length_min_m", "the range %s to %s m must contain load.rope_length_m = %s m", num(lo), num(hi), num(l))
-		}
-	}
-	c.value("plan.damping_ratio", "plan.damping_ratio", p.DampingRatio)
-	c.value("plan.ei_tolerance_pct", "plan.ei_tolerance_pct", p.EITolerancePct)
-	switch p.Drive {
-	case "", DriveVariableSpeed, DrivePendant:
-	default:
-		c.add("plan.drive", "is %q: accepted %q or %q, the drive the crane has", p.Drive, DriveVariableSpeed, DrivePendant)
-	}
-	if p.Drive == DrivePendant && len(p.PendantStepsPct) == 0 {
-		c.add("plan.pendant_steps_pct", "is required for a pendant: list the pendant's speed steps, %% of the top speed, slowest first, the last 100 (e.g. [50, 100])")
-	}
-	c.value("plan.s_curve_max_rounding_s", "plan.s_curve_max_rounding_s", p.SCurveMaxRoundingS)
-	c.optional("plan.timing_sigma_s", "plan.timing_sigma_s", p.TimingSigmaS)
-	c.value("plan.reaction_delay_s", "plan.reaction_delay_s", p.ReactionDelayS)
-	if n := len(p.PendantStepsPct); n > 0 {
-		if n > 5 {
-			c.add("plan.pendant_steps_pct", "has %d steps: accepted 1 to 5", n)
-		}
-		for i, v := range p.PendantStepsPct {
-			f := fmt.Sprintf("plan.pendant_steps_pct[%d]", i)
-			c.value(f, "plan.pendant_steps_pct[]", v)
-			if i > 0 && v <= p.PendantStepsPct[i-1] {
-				c.add(f, "%s %% is not above the step before (%s %%): list the steps from slowest to fastest", num(v), num(p.PendantStepsPct[i-1]))
-			}
-		}
-		if last := p.PendantStepsPct[n-1]; last != 100 {
-			c.add(fmt.Sprintf("plan.pendant_steps_pct[%d]", n-1), "is %s: the last step is the top speed, 100 %%", num(last))
-		}
-		if p.Drive == DriveVariableSpeed {
-			c.add("plan.pendant_steps_pct", "applies to a pendant: set plan.drive to %q or leave it empty", DrivePendant)
-		}
-	}
-	l := s.Limits
-	if l == nil || l.ResidualSwingDeg == nil {
-		if l == nil || l.ResidualExcursionM == nil {
-			c.add("limits.residual_swing_deg", "is required for a plan (or limits.residual_excursion_m): the residual swing allowed when the move ends, %s", Ranges["limits.residual_swing_deg"].Text())
-		}
-	}
-	if l == nil || (l.PeakSwingDeg == nil && l.PeakExcursionM == nil) {
-		c.add("limits.peak_swing_deg", "a plan needs limits.peak_swing_deg (%s) or limits.peak_excursion_m (%s)",
-			Ranges["limits.peak_swing_deg"].Text(), Ranges["limits.peak_excursion_m"].Text())
 	}
 }

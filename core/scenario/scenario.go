@@ -26,15 +26,6 @@ const (
 	Version    = 1
 )
 
-// Axis names.
-const (
-	TravelX = "travel_x" // trolley or bridge travel along x, m
-	TravelY = "travel_y" // travel along y, m
-	Slew    = "slew"     // slewing about the vertical axis through the origin, deg
-	Radius  = "radius"   // trolley on a jib: change of slew radius, m
-	Hoist   = "hoist"    // hoisting: positive up (rope shortens), m
-)
-
 // Axes lists the axis names in display order (core/crane's table).
 var Axes = crane.Names(false)
 
@@ -56,7 +47,7 @@ type Scenario struct {
 	Settings *Settings `json:"settings,omitempty"`
 	// Sheet holds the user's reference fields for the printed check sheet.
 	Sheet *Sheet `json:"sheet,omitempty"`
-	// Plan asks the planner for drive settings (see profiles.go).
+	// Plan asks the planner for drive settings (see plan.go).
 	Plan *Plan `json:"plan,omitempty"`
 	// Site holds the obstacles for the clearance check (see site.go).
 	Site *Site `json:"site,omitempty"`

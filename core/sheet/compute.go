@@ -1,6 +1,7 @@
 package sheet
 
 import (
+	"swaysheet/core/clearance"
 	"swaysheet/core/figures"
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
@@ -13,6 +14,9 @@ import (
 type Computer struct {
 	Evaluate func(*scenario.Scenario) (*sway.Result, error)
 	Plan     func(*scenario.Scenario) (*plan.Result, error)
+	// Clearance gives the clearance check of a scenario with a site
+	// block (nil: the sheet says it was not run).
+	Clearance func(*scenario.Scenario) (*clearance.Report, error)
 }
 
 // Compute gathers what the sheet of s shows with c's functions: the plan
@@ -22,6 +26,13 @@ type Computer struct {
 // version, link and time.
 func (c Computer) Compute(s *scenario.Scenario) Input {
 	in := Input{Scenario: s, Evaluated: s}
+	if s.Site != nil && c.Clearance != nil {
+		rep, err := c.Clearance(s)
+		if err != nil {
+			in.ClearanceErr = err.Error()
+		}
+		in.Clearance = rep
+	}
 	if s.Plan != nil {
 		p, err := c.Plan(s)
 		if err != nil {

@@ -151,6 +151,9 @@ func (h *htmlWriter) body(v *view) {
 	h.m(v.PathPlot)
 	h.el("figcaption", "", v.PathCaption)
 	h.raw("</figure>\n</section>\n")
+	if v.Site != nil {
+		h.site(v.Site)
+	}
 
 	h.raw("<section class=\"sw-warn\">\n<h2>Warnings</h2>\n")
 	if len(v.Warnings) > 0 {

@@ -35,7 +35,7 @@ func fillResults(v *view, ev *scenario.Scenario, r *sway.Result, ropes []figures
 	rep := figures.PresentRopes(ev, ropes, u)
 	v.Verdict, v.VerdictState = rep.Verdict.Text, rep.Verdict.State
 	v.Simulated = rep.Verdict.State != figures.NotSimulated
-	lim := []hline{}
+	lim := []PlotLine{}
 	var limited, others []figureRow
 	for _, row := range rep.Rows {
 		fr := figureRow{Label: capital(row.Crew), Value: row.Text, Unit: row.Unit, Technical: row.Technical}
@@ -64,7 +64,7 @@ func fillResults(v *view, ev *scenario.Scenario, r *sway.Result, ropes []figures
 					words.Length(ropes[0].RopeLengthM).Show(u) + ")."
 			}
 			if row.Key == "peak_swing_deg" {
-				lim = append(lim, hline{Y: k.LimitSI, Text: "limit " + k.LimitText + " deg"})
+				lim = append(lim, PlotLine{Y: k.LimitSI, Text: "limit " + k.LimitText + " deg"})
 			}
 		case !v.Simulated:
 			fr.Verdict = "nothing simulated"
@@ -79,8 +79,8 @@ func fillResults(v *view, ev *scenario.Scenario, r *sway.Result, ropes []figures
 		v.Warnings = r.Warnings
 	}
 	h := r.History
-	v.AnglePlot = markup(chart("Rope angle from the vertical", "time, s", "rope angle, deg",
-		[]series{{X: h.TimeS, Y: h.SwingDeg, Width: 1.3, Name: "rope angle"}}, lim))
+	v.AnglePlot = markup((&Plot{ID: "sheet-angle", Title: "Rope angle from the vertical", XLabel: "time, s", YLabel: "rope angle, deg",
+		Series: []PlotSeries{{X: h.TimeS, Y: h.SwingDeg, Width: 1.3, Name: "rope angle"}}, Lines: lim}).SVG())
 	v.PathPlot, v.PathCaption = swingOutPlot(&h, u)
 }
 

@@ -25,6 +25,7 @@ import (
 	"io"
 	"strings"
 
+	"swaysheet/core/clearance"
 	"swaysheet/core/figures"
 	"swaysheet/core/plan"
 	"swaysheet/core/qr"
@@ -34,8 +35,8 @@ import (
 )
 
 // CSS is the sheet's style sheet: written into a stand-alone sheet, and
-// served to the page as sheet.css (web/static/sheet.css is a copy; a test
-// keeps the two the same).
+// the page's sheet.css (web/offline FromCore serves and builds it from
+// here; there is no copy).
 //
 //go:embed sheet.css
 var CSS string
@@ -78,6 +79,10 @@ type Input struct {
 	// nil: PlanErr says why.
 	Plan    *plan.Result
 	PlanErr string
+	// Clearance is the clearance check of the scenario's site block (nil:
+	// ClearanceErr says why, or it was not run); the sheet prints it.
+	Clearance    *clearance.Report
+	ClearanceErr string
 	// Units are the display units (the page's unit choice, or a system).
 	Units units.Choice
 	// Version is the tool's version printed on the sheet.
@@ -170,6 +175,7 @@ type view struct {
 	DetailFigures []string
 	Simulated     bool
 	Plan          *planView
+	Site          *siteView
 	AnglePlot     markup
 	PathPlot      markup
 	PathCaption   string
@@ -247,6 +253,7 @@ func Build(in Input) (*Sheet, error) {
 	} else if v.EvalErr == "" {
 		v.EvalErr = "no result was given to the sheet"
 	}
+	v.Site = siteSection(s, in.Clearance, in.ClearanceErr, u)
 	switch d := density(v); {
 	case d > 72:
 		v.Dense, v.Denser, v.Densest = true, true, true
@@ -323,6 +330,10 @@ func density(v *view) int {
 		n += 1 + len(w)/150
 	}
 	n += len(v.Description) / 120
+	if st := v.Site; st != nil {
+		// The plan view sits beside its table: about a dozen lines.
+		n += 14 + len(st.Rows) + 2*len(st.Words)
+	}
 	if p := v.Plan; p != nil {
 		n += 9 + len(p.Notes)*2
 		n += len(p.Settings)

@@ -239,17 +239,6 @@ func TestShareFragmentBadInput(t *testing.T) {
 	}
 }
 
-// web/static/sheet.css is the page's copy of sheet.css.
-func TestPageCopyOfCSS(t *testing.T) {
-	page, err := os.ReadFile("../../web/static/sheet.css")
-	if err != nil {
-		t.Fatal(err)
-	}
-	if string(page) != CSS {
-		t.Fatal("web/static/sheet.css differs from core/sheet/sheet.css: run make sheetcss")
-	}
-}
-
 func TestNum(t *testing.T) {
 	for v, want := range map[float64]string{0: "0", 8.5: "8.5", 0.25: "0.25", 12345.678: "12350", 1e-7: "0.0000001", 0.00595: "0.00595", -2.5: "-2.5"} {
 		if got := Num(v, 4); got != want {

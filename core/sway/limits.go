@@ -3,6 +3,7 @@ package sway
 import (
 	"fmt"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/scenario"
 )
@@ -15,15 +16,11 @@ func moveTooLong(i int, m *scenario.Motion, p motion.Profile) error {
 	if end <= scenario.MaxRunS {
 		return nil
 	}
-	met := m.Axis != scenario.Slew
-	name := func(metres, degrees string) string {
-		if met {
-			return metres
-		}
-		return degrees
+	k := crane.Linear // an unknown axis is rejected before this
+	if d, ok := m.Drive(); ok {
+		k = d.Axis.Kind
 	}
-	speed, accel, decel := name("speed_m_per_s", "rate_deg_per_s"), name("accel_m_per_s2", "accel_deg_per_s2"), name("decel_m_per_s2", "decel_deg_per_s2")
-	dist := name("distance_m", "angle_deg")
+	speed, accel, decel, dist := k.Speed, k.Accel, k.Decel, k.Distance
 	field, advice := accel, ""
 	rangeKey := "motions[]." + accel
 	own := end - m.StartS // the move's own length, shaper included

@@ -28,7 +28,7 @@ func eval(t *testing.T, s *scenario.Scenario) *Result {
 }
 
 func trap(d, v, a float64) scenario.Motion {
-	return scenario.Motion{Axis: scenario.TravelX, DistanceM: pf(d), SpeedMPerS: pf(v), AccelMPerS2: pf(a)}
+	return scenario.Motion{Axis: "travel_x", DistanceM: pf(d), SpeedMPerS: pf(v), AccelMPerS2: pf(a)}
 }
 
 // An S-curve whose rounding time is one sway period is the trapezoid seen
@@ -89,7 +89,7 @@ func TestSeriesMatchesTrapezoid(t *testing.T) {
 	if err := motion.WriteCSV(&buf, motion.Sample(times, []string{"travel_x_m_per_s"}, []motion.Profile{p}, []float64{1})); err != nil {
 		t.Fatal(err)
 	}
-	ser := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileSeries}
+	ser := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileSeries}
 	ser.CSV = buf.String()
 	a, b := eval(t, travel(5, m)), eval(t, travel(5, ser))
 	if math.Abs(a.PeakSwingDeg-b.PeakSwingDeg) > 1e-6 || math.Abs(a.ResidualSwingDeg-b.ResidualSwingDeg) > 1e-6 {
@@ -118,7 +118,7 @@ func sortDedupe(ts *[]float64) {
 // phase of a linear oscillator, any vibrations text): a near-instant stop leaves about
 // v*w/g; at a few degrees the nonlinear model agrees within 1 %.
 func TestHardStop(t *testing.T) {
-	m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop,
+	m := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileHardStop,
 		SpeedMPerS: pf(0.6667), DecelMPerS2: pf(1.2)}
 	m.BrakeAtS = pf(2)
 	l := 5.0
@@ -143,7 +143,7 @@ func TestHardStop(t *testing.T) {
 func TestPendantHalfPeriod(t *testing.T) {
 	l := 7.0
 	T := 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
-	m := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileSteps, AccelMPerS2: pf(0.5)}
+	m := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileSteps, AccelMPerS2: pf(0.5)}
 	m.Steps = []scenario.SpeedStep{{AtS: 0, SpeedMPerS: pf(0.25)}, {AtS: T / 2, SpeedMPerS: pf(0.5)},
 		{AtS: 20, SpeedMPerS: pf(0.25)}, {AtS: 20 + T/2, SpeedMPerS: pf(0)}}
 	r := eval(t, travel(l, m))
@@ -160,10 +160,10 @@ func TestPendantHalfPeriod(t *testing.T) {
 func TestProfileMessages(t *testing.T) {
 	sc := trap(5, 0.5, 0.3)
 	sc.Profile = scenario.ProfileSCurve
-	st := scenario.Motion{Axis: scenario.TravelX, Profile: scenario.ProfileSteps, AccelMPerS2: pf(0.3)}
+	st := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileSteps, AccelMPerS2: pf(0.3)}
 	st.Steps = []scenario.SpeedStep{{AtS: 2, SpeedMPerS: pf(0.3)}, {AtS: 1, SpeedMPerS: pf(0.2)}}
-	hs := scenario.Motion{Axis: scenario.Slew, Profile: scenario.ProfileHardStop, StartS: 3, RateDegPerS: pf(2), DistanceM: pf(3)}
-	se := scenario.Motion{Axis: scenario.TravelY, Profile: scenario.ProfileSeries}
+	hs := scenario.Motion{Axis: "slew", Profile: scenario.ProfileHardStop, StartS: 3, RateDegPerS: pf(2), DistanceM: pf(3)}
+	se := scenario.Motion{Axis: "travel_y", Profile: scenario.ProfileSeries}
 	se.CSV = "time_s,travel_y_m_per_s\n0,0\n1,0.2\n0.5,0\n"
 	tr := trap(5, 0.5, 0.3)
 	tr.RoundingS = pf(1)

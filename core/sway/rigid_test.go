@@ -84,7 +84,7 @@ func TestRigidBayGirder(t *testing.T) {
 	s := testscenario.Example(t, "bay-girder-rigid.json")
 	// The example asks the planner for its move; here it makes the 18 m
 	// travel at 0.25 m/s² itself.
-	s.Motions = []scenario.Motion{{Axis: scenario.TravelX, Profile: scenario.ProfileTrapezoid, StartS: 1,
+	s.Motions = []scenario.Motion{{Axis: "travel_x", Profile: scenario.ProfileTrapezoid, StartS: 1,
 		DistanceM: f(18), SpeedMPerS: f(0.5), AccelMPerS2: f(0.25), DecelMPerS2: f(0.25)}}
 	r := mustEval(t, s)
 	b := r.Body
@@ -154,7 +154,7 @@ func TestRigidSlackLegWarning(t *testing.T) {
 	leg := math.Sqrt(9 + 0.25)
 	s.Load.Body = &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(0.5), HookMassKg: 100,
 		Legs: []scenario.BodyLeg{{LengthM: f(leg), AttachXM: 0.5, AttachZM: f(0.25)}, {LengthM: f(leg), AttachXM: -0.5, AttachZM: f(0.25)}}}
-	s.Motions = []scenario.Motion{{Axis: scenario.TravelX, Profile: scenario.ProfileHardStop,
+	s.Motions = []scenario.Motion{{Axis: "travel_x", Profile: scenario.ProfileHardStop,
 		SpeedMPerS: f(1.5), DecelMPerS2: f(5), ProfileFields: scenario.ProfileFields{BrakeAtS: f(1)}}}
 	r := mustEval(t, s)
 	if !hasWarning(r, "Leg 1 goes slack") || !hasWarning(r, "Leg 2 goes slack") {

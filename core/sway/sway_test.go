@@ -27,7 +27,7 @@ func still(mass, rope float64) *scenario.Scenario {
 }
 
 func move(start, dist, speed, acc, dec float64) scenario.Motion {
-	return scenario.Motion{Axis: scenario.TravelX, StartS: start, DistanceM: f(dist),
+	return scenario.Motion{Axis: "travel_x", StartS: start, DistanceM: f(dist),
 		SpeedMPerS: f(speed), AccelMPerS2: f(acc), DecelMPerS2: f(dec)}
 }
 
@@ -138,7 +138,7 @@ func TestWholePeriodAccelerationLeavesNoSwing(t *testing.T) {
 func TestSlowLoweringAmplitude(t *testing.T) {
 	s := still(1000, 5)
 	s.Initial = &scenario.Initial{SwingDeg: 4}
-	s.Motions = []scenario.Motion{{Axis: scenario.Hoist, StartS: 0, DistanceM: f(-15),
+	s.Motions = []scenario.Motion{{Axis: "hoist", StartS: 0, DistanceM: f(-15),
 		SpeedMPerS: f(0.04), AccelMPerS2: f(0.02)}}
 	r := mustEval(t, s)
 	want := 4 * math.Pow(20.0/5.0, -0.75)
@@ -179,7 +179,7 @@ func TestGustFromCalm(t *testing.T) {
 func TestSlewOutwardLean(t *testing.T) {
 	s := still(2000, 20)
 	s.Crane = scenario.Crane{RadiusM: 30}
-	s.Motions = []scenario.Motion{{Axis: scenario.Slew, AngleDeg: f(3000), RateDegPerS: f(6),
+	s.Motions = []scenario.Motion{{Axis: "slew", AngleDeg: f(3000), RateDegPerS: f(6),
 		AccelDegPerS2: f(0.05)}}
 	s.Settings = &scenario.Settings{Samples: 4001}
 	r := mustEval(t, s)
@@ -344,14 +344,14 @@ func TestSlackRopeWarned(t *testing.T) {
 
 func TestBuildRejectsRopeReachingZero(t *testing.T) {
 	s := still(1000, 10)
-	s.Motions = []scenario.Motion{{Axis: scenario.Hoist, DistanceM: f(12), SpeedMPerS: f(0.2), AccelMPerS2: f(0.1)}}
+	s.Motions = []scenario.Motion{{Axis: "hoist", DistanceM: f(12), SpeedMPerS: f(0.2), AccelMPerS2: f(0.1)}}
 	_, err := Evaluate(s)
 	if err == nil || !strings.Contains(err.Error(), "load.rope_length_m") || !strings.Contains(err.Error(), "-2 m at t = 62 s") {
 		t.Fatalf("want rope length message, got %v", err)
 	}
 	s = still(1000, 10)
 	s.Crane.RadiusM = 10
-	s.Motions = []scenario.Motion{{Axis: scenario.Radius, DistanceM: f(-15), SpeedMPerS: f(0.5), AccelMPerS2: f(0.3)}}
+	s.Motions = []scenario.Motion{{Axis: "radius", DistanceM: f(-15), SpeedMPerS: f(0.5), AccelMPerS2: f(0.3)}}
 	if _, err = Evaluate(s); err == nil || !strings.Contains(err.Error(), "crane.radius_m") {
 		t.Fatalf("want radius message, got %v", err)
 	}

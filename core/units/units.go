@@ -22,17 +22,16 @@ const AirDensity = 1.25
 
 // Exact factors to SI (NIST SP 811, appendix B).
 const (
-	Foot         = 0.3048                 // m
-	Inch         = 0.0254                 // m
-	Pound        = 0.45359237             // kg
-	PoundForce   = 4.4482216152605        // N
-	Kip          = 1000 * PoundForce      // N
-	ShortTon     = 2000 * Pound           // kg
-	Tonne        = 1000                   // kg
-	TonneForce   = 1000 * StandardGravity // N
-	Minute       = 60                     // s
-	Degree       = math.Pi / 180          // rad
-	RevPerMinute = 2 * math.Pi / 60       // rad/s
+	Foot       = 0.3048                 // m
+	Inch       = 0.0254                 // m
+	Pound      = 0.45359237             // kg
+	PoundForce = 4.4482216152605        // N
+	Kip        = 1000 * PoundForce      // N
+	ShortTon   = 2000 * Pound           // kg
+	Tonne      = 1000                   // kg
+	TonneForce = 1000 * StandardGravity // N
+	Minute     = 60                     // s
+	Degree     = math.Pi / 180          // rad
 )
 
 // Unit is one unit of measure of a quantity: its symbol and the factor that

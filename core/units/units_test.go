@@ -36,9 +36,6 @@ func TestFactorsAreTheDefinitions(t *testing.T) {
 			t.Errorf("1 %s = %.17g SI, want %.17g", c.sym, got, c.want)
 		}
 	}
-	if RevPerMinute != 2*math.Pi/60 {
-		t.Errorf("rpm")
-	}
 }
 
 func TestRoundTripAndTable(t *testing.T) {

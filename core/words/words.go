@@ -65,11 +65,6 @@ func Angle(v float64) Quantity        { return Quantity{Value: v, Quantity: "ang
 func Speed(v float64) Quantity        { return Quantity{Value: v, Quantity: "speed"} }
 func Acceleration(v float64) Quantity { return Quantity{Value: v, Quantity: "acceleration"} }
 func Force(v float64) Quantity        { return Quantity{Value: v, Quantity: "force"} }
-func Share(v float64) Quantity        { return Quantity{Value: v, Quantity: "share"} }
-func AngularSpeed(v float64) Quantity { return Quantity{Value: v, Quantity: "angular_speed"} }
-func AngularAcceleration(v float64) Quantity {
-	return Quantity{Value: v, Quantity: "angular_acceleration"}
-}
 
 // Of is the quantity of an SI unit symbol ("m", "m/s", "deg/s"): a move's
 // fields carry their axis' unit (core/crane Kind).

@@ -31,7 +31,7 @@ func TestFormat(t *testing.T) {
 	if got := Plain("set {a}").Text; got != "set (a)" {
 		t.Errorf("plain: %s", got)
 	}
-	if got := Say("{0} of the swing", Share(0.123)).Format(us); got != "12 % of the swing" {
+	if got := Say("{0} of the swing", Quantity{Value: 0.123, Quantity: "share"}).Format(us); got != "12 % of the swing" {
 		t.Errorf("share: %s", got)
 	}
 }

@@ -1,6 +1,7 @@
 package bridge
 
 import (
+	"encoding/json"
 	"sync"
 
 	"swaysheet/core/clearance"
@@ -14,6 +15,8 @@ func init() {
 	Calls["clearance"] = checkClearance
 	Calls["site_plan"] = planSite
 	Calls["clearance_figures"] = clearanceFigures
+	Calls["clearance_part"] = clearancePart
+	Calls["clearance_join"] = clearanceJoin
 }
 
 // kept is the last clearance check with its scenario's fingerprint: the
@@ -108,4 +111,85 @@ func planSite(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	return clearance.PlanSite(s, res, clearance.Options{})
+}
+
+// PartInput is the input of "clearance_part": the scenario and the runs
+// from From to To-1 of its check (the page splits the runs over workers).
+type PartInput struct {
+	Scenario json.RawMessage `json:"scenario"`
+	From     int             `json:"from"`
+	To       int             `json:"to"`
+}
+
+// clearancePart evaluates some runs of the check: the result is a
+// clearance.Part, to be joined by "clearance_join".
+func clearancePart(_ *Env, input []byte) (any, error) {
+	var in PartInput
+	if err := json.Unmarshal(input, &in); err != nil {
+		return nil, scenario.Errors{{Field: "(input)", Message: "not a clearance_part request: " + err.Error()}}
+	}
+	s, err := siteScenario(in.Scenario)
+	if err != nil {
+		return nil, err
+	}
+	return clearance.CheckPart(s, in.From, in.To, clearance.Options{})
+}
+
+// JoinInput is the input of "clearance_join": the scenario and the parts
+// received so far.
+type JoinInput struct {
+	Scenario json.RawMessage  `json:"scenario"`
+	Parts    []clearance.Part `json:"parts"`
+}
+
+// clearanceJoin joins parts into the report over their runs: with every
+// run of the check, the report of the "clearance" call, exactly, and kept
+// (for the check sheet and clearance_figures).
+func clearanceJoin(_ *Env, input []byte) (any, error) {
+	var in JoinInput
+	if err := json.Unmarshal(input, &in); err != nil {
+		return nil, scenario.Errors{{Field: "(input)", Message: "not a clearance_join request: " + err.Error()}}
+	}
+	s, err := siteScenario(in.Scenario)
+	if err != nil {
+		return nil, err
+	}
+	rep, err := clearance.CheckJoin(s, in.Parts, clearance.Options{})
+	if err != nil {
+		return nil, err
+	}
+	if sp, _ := clearance.SpecOf(s); rep.Runs == sp.Runs {
+		if fp, err := key(s); err == nil {
+			kept.Lock()
+			kept.fp, kept.rep = fp, rep
+			kept.Unlock()
+		}
+	}
+	return rep, nil
+}
+
+func siteScenario(input []byte) (*scenario.Scenario, error) {
+	s, err := scenario.Parse(input)
+	if err != nil {
+		return nil, err
+	}
+	if s.Site == nil {
+		return nil, noSite
+	}
+	return s, nil
+}
+
+// keptClearance is the clearance check of s when the bridge keeps it
+// (nil otherwise): the check sheet prints it and never runs the check.
+func keptClearance(s *scenario.Scenario) *clearance.Report {
+	fp, err := key(s)
+	if err != nil {
+		return nil
+	}
+	kept.Lock()
+	defer kept.Unlock()
+	if kept.fp == fp {
+		return kept.rep
+	}
+	return nil
 }

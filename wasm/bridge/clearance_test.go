@@ -2,6 +2,7 @@ package bridge
 
 import (
 	"encoding/json"
+	"fmt"
 	"os"
 	"strings"
 	"testing"
@@ -73,5 +74,49 @@ func TestClearanceFiguresCall(t *testing.T) {
 	}
 	if _, err := json.Marshal(rep); err != nil {
 		t.Fatal(err)
+	}
+}
+
+// The page splits the runs over workers: "clearance_part" for each range
+// and "clearance_join" of them answer as the "clearance" call does, and
+// the joined report of every run is what the sheet prints (no check run).
+func TestClearancePartsAndSheet(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/scenarios/site-bay-columns.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	sc := strings.Replace(string(data), `"runs": 200`, `"runs": 24`, 1)
+	one, err := Calls["clearance"](nil, []byte(sc))
+	if err != nil {
+		t.Fatal(err)
+	}
+	kept.rep = nil
+	var parts []string
+	for _, r := range [][2]int{{10, 24}, {0, 10}} {
+		out, err := Calls["clearance_part"](nil, []byte(fmt.Sprintf(`{"scenario":%s,"from":%d,"to":%d}`, sc, r[0], r[1])))
+		if err != nil {
+			t.Fatal(err)
+		}
+		b, _ := json.Marshal(out)
+		parts = append(parts, string(b))
+	}
+	joined, err := Calls["clearance_join"](nil, []byte(`{"scenario":`+sc+`,"parts":[`+strings.Join(parts, ",")+`]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := json.Marshal(one)
+	b, _ := json.Marshal(joined)
+	if string(a) != string(b) {
+		t.Error("the joined parts differ from the clearance call")
+	}
+	out, err := Calls["sheet"](nil, []byte(`{"scenario":`+sc+`,"units":{},"system":"si"}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if html := out.(SheetReply).HTML; !strings.Contains(html, "sw-hatch") || !strings.Contains(html, "24 runs, seed 1") {
+		t.Error("the sheet does not print the kept clearance report")
+	}
+	if _, err := Calls["clearance_part"](nil, []byte(`{"scenario":`+sc+`,"from":20,"to":30}`)); err == nil {
+		t.Error("runs past the check's own accepted")
 	}
 }

@@ -89,7 +89,7 @@ type FiguresReply struct {
 func plotCall(_ *Env, input []byte) (any, error) {
 	var p sheet.Plot
 	if err := json.Unmarshal(input, &p); err != nil {
-		return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"title\", \"x_label\", \"y_label\", \"series\": [{\"x\": [...], \"y\": [...]}], \"lines\": [...]}: " + err.Error()}}
+		return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"title\", \"x_label\", \"y_label\", \"series\": [{\"x\": [...], \"y\": [...]}], \"lines\", \"bands\", \"circles\", \"width_px\", ...}: " + err.Error()}}
 	}
 	return map[string]string{"svg": p.SVG()}, nil
 }

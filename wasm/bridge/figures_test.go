@@ -97,6 +97,18 @@ func TestPlotCall(t *testing.T) {
 	if !strings.HasPrefix(r.Result.SVG, "<svg") || strings.Contains(r.Result.SVG, "<b>") || strings.Contains(r.Result.SVG, "onload") {
 		t.Errorf("svg %q", r.Result.SVG)
 	}
+	// The page's charts: at the width shown, with bands, a circle, equal axes.
+	in = `{"id": "rel", "title": "t", "width_px": 340, "title_above": true, "equal": true, "legend_top": true,
+		"series": [{"x": [0, 1], "y": [0, 1], "name": "a", "class": "s2"}, {"x": [0, 1], "y": [1, 0], "name": "b"}],
+		"bands": [{"x0": 0, "x1": 0.5, "text": "A1"}], "circles": [{"r": 0.5}]}`
+	if err := json.Unmarshal(Call(nil, "plot", []byte(in)), &r); err != nil || r.Error != nil {
+		t.Fatalf("plot: %v %+v", err, r.Error)
+	}
+	for _, want := range []string{`viewBox="0 0 340 `, `class="chart"`, `url(#rel-hatch)`, `<ellipse`, `class="line s2"`, `class="legend"`} {
+		if !strings.Contains(r.Result.SVG, want) {
+			t.Errorf("no %s in %s", want, r.Result.SVG)
+		}
+	}
 	var e struct{ Error *Error }
 	json.Unmarshal(Call(nil, "plot", []byte(`{"series": 3}`)), &e)
 	if e.Error == nil {

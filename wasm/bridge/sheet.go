@@ -2,7 +2,9 @@ package bridge
 
 import (
 	"encoding/json"
+	"errors"
 
+	"swaysheet/core/clearance"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
 	"swaysheet/core/sway"
@@ -50,6 +52,12 @@ func sheetCall(_ *Env, input []byte) (any, error) {
 	// nothing. Only the parsed scenario is known to be valid.
 	memo := sheet.Computer{Plan: planned, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
 		return evaluated(x, x == s)
+	}, Clearance: func(x *scenario.Scenario) (*clearance.Report, error) {
+		// The page's last check of these inputs: printing never runs it.
+		if rep := keptClearance(x); rep != nil {
+			return rep, nil
+		}
+		return nil, errors.New("the clearance check of these inputs is still running or was stopped; print again when the page shows its result")
 	}}
 	si := memo.Compute(s)
 	si.Units, si.Version, si.LinkBase, si.PrintedAt = in.choice(), version.Version, in.LinkBase, in.PrintedAt

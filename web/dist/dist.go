@@ -77,7 +77,7 @@ func Single(static string, wasmExec, wasm []byte) ([]byte, error) {
 // zopfli, about 5 % smaller than gzip -9).
 func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 	read := func(n string) (string, error) {
-		b, err := os.ReadFile(filepath.Join(static, n))
+		b, err := offline.ReadStatic(static, n)
 		return string(b), err
 	}
 	page, err := read("index.html")

@@ -10,6 +10,7 @@ import (
 	"testing"
 	"unicode/utf8"
 
+	"swaysheet/core/sheet"
 	"swaysheet/web/offline"
 )
 
@@ -66,7 +67,8 @@ func TestSingle(t *testing.T) {
 			t.Errorf("the single file still has %q", no)
 		}
 	}
-	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL"} {
+	for _, want := range []string{`id="swaysheet-wasm"`, "script-src 'sha256-", "worker-src blob:", "connect-src 'none'", "swaysheetWorkerURL",
+		strings.ReplaceAll(sheet.CSS, "</", `<\/`)} {
 		if !strings.Contains(s, want) {
 			t.Errorf("the single file lacks %q", want)
 		}

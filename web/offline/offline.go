@@ -13,6 +13,8 @@ import (
 	"path/filepath"
 	"sort"
 	"strings"
+
+	"swaysheet/core/sheet"
 )
 
 // File is one file of the page, by its URL path relative to the page.
@@ -29,9 +31,23 @@ type Dirs struct {
 // Built are the build outputs served beside the static files.
 var Built = []string{"swaysheet.wasm", "swayfetch.wasm", "wasm_exec.js"}
 
+// FromCore are the page's files that the core holds, by name: the check
+// sheet's style sheet is core/sheet's own (the page shows the sheet the
+// core renders), served and built from there, with no copy in web/static.
+var FromCore = map[string][]byte{"sheet.css": []byte(sheet.CSS)}
+
+// ReadStatic reads one file of the page's static folder, or the core's
+// own when FromCore has it.
+func ReadStatic(static, name string) ([]byte, error) {
+	if b, ok := FromCore[name]; ok {
+		return b, nil
+	}
+	return os.ReadFile(filepath.Join(static, name))
+}
+
 // Collect reads every file of the page: the static folder but sw.js, the
-// built wasm and wasm_exec.js, and the example scenarios under examples/
-// with examples/index.json listing them.
+// files FromCore, the built wasm and wasm_exec.js, and the example
+// scenarios under examples/ with examples/index.json listing them.
 func Collect(d Dirs) ([]File, error) {
 	var out []File
 	ents, err := os.ReadDir(d.Static)
@@ -47,6 +63,9 @@ func Collect(d Dirs) ([]File, error) {
 			return nil, err
 		}
 		out = append(out, File{e.Name(), b})
+	}
+	for n, b := range FromCore {
+		out = append(out, File{n, b})
 	}
 	for _, n := range Built {
 		b, err := os.ReadFile(filepath.Join(d.Build, n))

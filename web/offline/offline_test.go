@@ -8,6 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"swaysheet/core/sheet"
 )
 
 var update = flag.Bool("update", false, "rewrite the icon PNGs in web/static")
@@ -60,6 +62,9 @@ func TestServiceWorkerFilesAndVersion(t *testing.T) {
 	have := map[string]bool{}
 	for _, f := range files {
 		have[f.Name] = true
+		if f.Name == "sheet.css" && string(f.Data) != sheet.CSS {
+			t.Error("sheet.css is not core/sheet's")
+		}
 	}
 	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "coach.js", "coach.css", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js",
 		"manifest.webmanifest", "icon-192.png", "swaysheet.wasm", "swayfetch.wasm", "fetchworker.js", "wasm_exec.js", "examples/index.json", "examples/bay-travel.json"} {

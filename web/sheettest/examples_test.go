@@ -9,6 +9,7 @@ import (
 
 	"github.com/chromedp/chromedp"
 
+	"swaysheet/core/clearance"
 	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
@@ -17,7 +18,8 @@ import (
 )
 
 // Every example's stand-alone sheet (as swaysheet -sheet writes it) prints
-// on exactly one page at A4 and at Letter, in SI and in US units.
+// on exactly one page at A4 and at Letter, in SI and in US units (the
+// site examples with their clearance section and plan view).
 func TestEveryExampleOnePage(t *testing.T) {
 	need(t)
 	files, _ := filepath.Glob(filepath.Join(root, "testdata", "scenarios", "*.json"))
@@ -33,8 +35,15 @@ func TestEveryExampleOnePage(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
+		var rep *clearance.Report
+		if s.Site != nil {
+			if rep, err = clearance.Check(s, clearance.Options{}); err != nil {
+				t.Fatal(err)
+			}
+		}
+		kept := func(*scenario.Scenario) (*clearance.Report, error) { return rep, nil }
 		for _, sys := range []string{"si", "us"} {
-			in := sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make}.Compute(s)
+			in := sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make, Clearance: kept}.Compute(s)
 			in.Units, in.Version, in.LinkBase, in.PrintedAt = units.Choice{System: sys}, "test", "https://example.org/swaysheet/", "2026-12-02 07:30"
 			sh, err := sheet.Build(in)
 			if err != nil {

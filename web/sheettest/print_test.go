@@ -1,6 +1,7 @@
 package sheettest
 
 import (
+	"encoding/base64"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -153,3 +154,37 @@ func TestPrintCheckSheet(t *testing.T) {
 }
 
 func ptr[T any](v T) *T { return &v }
+
+// The page's print of the site example, once its clearance check is done:
+// the sheet the bridge makes from its kept report (no check run for it)
+// holds the site plan, each obstacle and the spreads used, on one page at
+// A4 and at Letter.
+func TestPrintSitePlan(t *testing.T) {
+	need(t)
+	url, _ := pageServer(t, filepath.Join(root, "web", "static"))
+	data, err := os.ReadFile(filepath.Join(root, "testdata", "scenarios", "site-bay-columns.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := open(t)
+	b.do(chromedp.Navigate(url + "#s=" + base64.RawURLEncoding.EncodeToString(data)))
+	b.settle()
+	b.poll(`window.swaysheetSite && window.swaysheetSite.settled() && !!window.swaysheetSite.report() && window.swaysheet.settled() && !!document.querySelector('#sheet-host .sw-site svg')`, "the sheet with the site plan")
+	out := filepath.Join(root, "out", "browser")
+	os.MkdirAll(out, 0o755)
+	for _, p := range papers {
+		file := filepath.Join(out, "sheet-site-"+p.name+".pdf")
+		if err := os.WriteFile(file, b.pdf(p.w, p.h), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		if info := pdfText(t, file, "pdfinfo"); !regexp.MustCompile(`(?m)^Pages:\s+1$`).MatchString(info) {
+			t.Errorf("%s: not exactly one page:\n%s", p.name, info)
+		}
+		text := strings.Join(strings.Fields(pdfText(t, file, "pdftotext")), " ")
+		for _, want := range []string{"CLEARANCES ALONG THE PATH", "DOES NOT CLEAR", "nobody stands here during the lift", "column C3", "panel stack", "200 runs, seed 1"} {
+			if !strings.Contains(text, want) {
+				t.Errorf("%s: the printed sheet lacks %q", p.name, want)
+			}
+		}
+	}
+}

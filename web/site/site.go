@@ -1,10 +1,12 @@
 // Package site serves the page's own files and nothing else: the static
-// page (web/static), the built wasm and Go's wasm_exec.js (the build
+// page (web/static) and the files the core holds for it (offline.FromCore:
+// sheet.css), the built wasm and Go's wasm_exec.js (the build
 // folder), and the example scenarios (testdata/scenarios) under
 // /examples/, with /examples/index.json listing them.
 package site
 
 import (
+	"bytes"
 	"encoding/json"
 	"net/http"
 	"os"
@@ -12,6 +14,7 @@ import (
 	"path/filepath"
 	"sort"
 	"strings"
+	"time"
 
 	"swaysheet/core/version"
 	"swaysheet/web/offline"
@@ -69,6 +72,12 @@ func Handler(d Dirs) http.Handler {
 				return
 			}
 			file(w, r, filepath.Join(d.Library, name))
+		case offline.FromCore[strings.TrimPrefix(p, "/")] != nil:
+			name := strings.TrimPrefix(p, "/")
+			if strings.HasSuffix(name, ".css") {
+				w.Header().Set("Content-Type", "text/css; charset=utf-8")
+			}
+			http.ServeContent(w, r, name, time.Time{}, bytes.NewReader(offline.FromCore[name]))
 		case built[strings.TrimPrefix(p, "/")]:
 			file(w, r, filepath.Join(d.Build, strings.TrimPrefix(p, "/")))
 		default:

@@ -8,6 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"swaysheet/core/sheet"
 )
 
 func handler(t *testing.T) http.Handler {
@@ -48,6 +50,11 @@ func TestServesOwnFilesOnly(t *testing.T) {
 	}
 	if ct := get(h, "GET", "/swaysheet.wasm").Header().Get("Content-Type"); ct != "application/wasm" {
 		t.Errorf("wasm content type %q", ct)
+	}
+	// The check sheet's style sheet is the core's own (no copy in web/static).
+	css := get(h, "GET", "/sheet.css")
+	if css.Code != 200 || css.Body.String() != sheet.CSS || !strings.HasPrefix(css.Header().Get("Content-Type"), "text/css") {
+		t.Errorf("GET /sheet.css: %d %q, not core/sheet's sheet.css", css.Code, css.Header().Get("Content-Type"))
 	}
 }
 

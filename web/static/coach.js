@@ -11,7 +11,7 @@
 // .useClock), so a test can drive the coach on a fake clock.
 
 import { esc } from './dom.js';
-import { isSlew, speedDQ, withU } from './plan-form.js';
+import { kindOf, speedDQ, withU } from './plan-form.js';
 import { fmtRes, fmtStep } from './units.js';
 
 const REAL_CLOCK = {
@@ -55,7 +55,7 @@ function timingNote(o) {
 
 // markPasser names what reaches the mark: the crane's position, not the
 // swinging load.
-function markPasser(r) { return isSlew(r) ? 'jib passes the mark' : 'crane passes the mark'; }
+function markPasser(r) { return kindOf(r).words.passer + ' passes the mark'; }
 
 function coachHTML(r, o, st, stale) {
   var lim = (stale ? '<p class="coach-out" id="coach-stale" role="alert"><span aria-hidden="true">\u26A0</span> The inputs changed since this plan was made: plan the move again before using these counts.</p>' : '') +

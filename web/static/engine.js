@@ -9,7 +9,7 @@ let worker = null, nextId = 1, waiting = {}, restarts = [];
 // DEADLINES: how long (ms) a call may go unanswered before the engine is
 // taken as stuck or gone (a worker can end without an error event). The
 // first calls wait for the engine to start; a plan simulates many moves.
-export const DEADLINES = { plan: 180000, evaluate: 90000, sheet: 90000, other: 60000 };
+export const DEADLINES = { plan: 180000, evaluate: 90000, sheet: 90000, clearance: 120000, other: 60000 };
 
 export function startWorker() {
   worker = new Worker(window.swaysheetWorkerURL || 'worker.js');

@@ -6,7 +6,7 @@ import { $, cssEsc } from './dom.js';
 import { numField, section, selectField, syncPrint, textField, unitChoosers } from './fields.js';
 import { inputsHTML, motionHTML, onList, planOnChange, planOnSelect } from './plan-form.js';
 import { renderAll } from './results.js';
-import { ANGULAR, AXES, KINDS, LINEAR, S, rangeKey, setPath } from './state.js';
+import { KINDS, S, axisOf, axisOptions, axisWord, rangeKey, setPath } from './state.js';
 import { saveUnits } from './storage.js';
 import { fmtRange, parseNumber, toSI, toShown, unitOf } from './units.js';
 
@@ -29,19 +29,18 @@ export function renderForm() {
     numField('crane.slew_deg', 'Slew angle at the start', { optional: true })));
   var mv = [];
   (s.motions || []).forEach(function (m, i) {
-    var at = 'motions[' + i + ']', F = m.axis === 'slew' ? ANGULAR : LINEAR;
-    var slew = m.axis === 'slew';
+    var at = 'motions[' + i + ']', F = axisOf(m.axis).kind;
     if ((m.profile && m.profile !== 'trapezoid' || m.shaper)) {
       mv.push(motionHTML(m, i));
       return;
     }
     mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + '</h4>' +
       '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">' +
-      selectField(at + '.axis', 'Axis', AXES, m.axis) +
+      selectField(at + '.axis', 'Axis', axisOptions(false), m.axis) +
       selectField(at + '.profile', 'Speed profile', [['trapezoid', 'trapezoid: ramp, run, ramp']], m.profile || 'trapezoid') +
       numField(at + '.start_s', 'Starts at', { optional: true }) +
-      numField(at + '.' + F.distance, slew ? 'Slew angle' : (m.axis === 'hoist' ? 'Hoist distance' : 'Distance')) +
-      numField(at + '.' + F.speed, slew ? 'Slew rate' : 'Speed') +
+      numField(at + '.' + F.distance, axisWord(m.axis, 'distance')) +
+      numField(at + '.' + F.speed, axisWord(m.axis, 'speed')) +
       numField(at + '.' + F.accel, 'Acceleration') +
       numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' }) +
       '</div></div>');
@@ -123,13 +122,11 @@ function onSelect(el) {
   }
   var m = /^motions\[(\d+)\]\.axis$/.exec(path);
   if (m) {
-    var mo = s.motions[Number(m[1])], wasSlew = mo.axis === 'slew', isSlew = v === 'slew';
+    var mo = s.motions[Number(m[1])], from = axisOf(mo.axis).kind, to = axisOf(v).kind;
     mo.axis = v;
-    if (wasSlew !== isSlew) {
-      var from = wasSlew ? ANGULAR : LINEAR;
-      Object.keys(from).forEach(function (k) { delete mo[from[k]]; });
-      if (isSlew) { mo.angle_deg = 90; mo.rate_deg_per_s = 3.6; mo.accel_deg_per_s2 = 0.5; }
-      else { mo.distance_m = 10; mo.speed_m_per_s = 0.5; mo.accel_m_per_s2 = 0.25; }
+    if (from !== to) {
+      ['distance', 'speed', 'accel', 'decel'].forEach(function (k) { delete mo[from[k]]; });
+      mo[to.distance] = to.move[0]; mo[to.speed] = to.move[1]; mo[to.accel] = to.move[2];
       clearBad('motions[' + m[1] + ']');
     }
     renderForm();
@@ -148,7 +145,7 @@ export function bindForm() {
   [$('form'), $('plan-form'), $('body-form')].forEach(bindOne);
 }
 
-function bindOne(f) {
+export function bindOne(f) {
   f.addEventListener('input', function (e) {
     var el = e.target;
     syncPrint(el);

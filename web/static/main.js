@@ -3,8 +3,9 @@
 // factor from the core's unit table (core/units, through the "units" call).
 // The modules: engine (worker calls), state, units, fields and form,
 // compute, results, storage, scenarios (links, files), plan-form and
-// plan-view, plot, sheet, offline.
+// plan-view, charts (the core's plotter), sheet, offline.
 
+import { plotting } from './charts.js';
 import { changed, computing } from './compute.js';
 import { $, notice } from './dom.js';
 import { DEADLINES, call, cancel, engineError, startWorker } from './engine.js';
@@ -16,6 +17,7 @@ import './offline.js';
 import { P } from './plan-form.js';
 import { renderAll, renderPlots, renderSys, updateBanner } from './results.js';
 import { bindExamples, bindFiles, bindShare, openLink } from './scenarios.js';
+import './site-view.js';
 import { S } from './state.js';
 import { CURRENT, UNITS, bindSaved, keepDamaged, looksLikeScenario, saveUnits, store } from './storage.js';
 import { defaultsFor } from './units.js';
@@ -146,8 +148,9 @@ window.swaysheet = {
     return !S.waiting && !computing() && !S.adopting && !S.keeping && !S.saying && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
   }
 };
-// settled: answered, and the check sheet is that of the last result.
-window.swaysheet.settled = function () { return window.swaysheet.answered() && sheetCurrent(); };
+// settled: answered, the charts drawn, and the check sheet is that of the
+// last result.
+window.swaysheet.settled = function () { return window.swaysheet.answered() && !plotting() && sheetCurrent(); };
 
 // The charts are drawn at the width they are shown at: again when it
 // changes (a phone turned, a window resized).

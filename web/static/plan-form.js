@@ -7,7 +7,7 @@ import { call } from './engine.js';
 import { numField, selectField } from './fields.js';
 import { clearBad, renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
-import { ANGULAR, LINEAR, PLAN_AXES, S, getPath, setPath } from './state.js';
+import { ANGULAR, LINEAR, S, axisOf, axisOptions, axisWord, getPath, setPath } from './state.js';
 import { fmtField, fmtStep, parseNumber, toShown, unitOf } from './units.js';
 
 export const P = {
@@ -56,13 +56,11 @@ export function siNote() {
   if (unitOf('length').symbol === 'm' && unitOf('speed').symbol.indexOf('ft') < 0) return '';
   return ' <span class="small si-note">(the planner\u2019s sentences give figures in SI units)</span>';
 }
-export function isSlew(r) { return r.axis === 'slew'; }
-export function speedDQ(r) { return isSlew(r) ? 'angular_speed' : 'speed'; }
-export function accelDQ(r) { return isSlew(r) ? 'angular_acceleration' : 'acceleration'; }
-export function axisName(a) {
-  for (var i = 0; i < PLAN_AXES.length; i++) if (PLAN_AXES[i][0] === a) return PLAN_AXES[i][1].toLowerCase();
-  return a;
-}
+// kindOf is the kind of the plan's (or a move's) axis: LINEAR or ANGULAR.
+export function kindOf(r) { return axisOf(r.axis).kind; }
+export function speedDQ(r) { return kindOf(r).speedQ; }
+export function accelDQ(r) { return kindOf(r).accelQ; }
+export function axisName(a) { return axisOf(a).label.toLowerCase(); }
 export function listHTML(items, cls, mark) {
   if (!items || !items.length) return '';
   return '<ul class="' + cls + '">' + items.map(function (t) {
@@ -78,11 +76,11 @@ function defaultPlan(s) {
   var m = (s.motions || [])[0];
   var ok = function (v) { return typeof v === 'number' && v !== 0; };
   if (m && (m.profile || 'trapezoid') === 'trapezoid' && !m.shaper) {
-    if ((m.axis === 'travel_x' || m.axis === 'travel_y') && ok(m.distance_m) && ok(m.speed_m_per_s) && ok(m.accel_m_per_s2)) {
-      return { axis: m.axis, distance_m: m.distance_m, top_speed_m_per_s: m.speed_m_per_s, max_accel_m_per_s2: m.accel_m_per_s2 };
-    }
-    if (m.axis === 'slew' && ok(m.angle_deg) && ok(m.rate_deg_per_s) && ok(m.accel_deg_per_s2)) {
-      return { axis: 'slew', angle_deg: m.angle_deg, top_rate_deg_per_s: m.rate_deg_per_s, max_accel_deg_per_s2: m.accel_deg_per_s2 };
+    var K = kindOf(m);
+    if (axisOf(m.axis).plan && ok(m[K.distance]) && ok(m[K.speed]) && ok(m[K.accel])) {
+      var p = { axis: m.axis };
+      p[K.distance] = m[K.distance]; p[K.top] = m[K.speed]; p[K.maxAccel] = m[K.accel];
+      return p;
     }
   }
   return { axis: 'travel_x', distance_m: 10, top_speed_m_per_s: 0.5, max_accel_m_per_s2: 0.3 };
@@ -107,18 +105,14 @@ export function inputsHTML() {
   h.push('<div class="field wide"><label class="check"><input type="checkbox" id="plan-on"' + (p ? ' checked' : '') +
     '> Plan a move for this load</label></div>');
   if (p) {
-    var slew = p.axis === 'slew';
-    h.push(selectField('plan.axis', 'Move to plan', PLAN_AXES, p.axis));
-    if (slew) {
-      h.push(numField('plan.angle_deg', 'Slew angle'));
+    var K = kindOf(p), ax = axisOf(p.axis);
+    h.push(selectField('plan.axis', 'Move to plan', axisOptions(true), p.axis));
+    h.push(numField('plan.' + K.distance, axisWord(p.axis, 'distance')));
+    if (ax.needs && ax.needs[0] === 'crane.radius_m') {
       h.push(numField('crane.radius_m', 'Hook radius', { id: 'f-plan-radius', hint: 'the same as the crane\u2019s hook radius' }));
-      h.push(numField('plan.top_rate_deg_per_s', 'Top slew rate'));
-      h.push(numField('plan.max_accel_deg_per_s2', 'Largest slew acceleration'));
-    } else {
-      h.push(numField('plan.distance_m', 'Distance'));
-      h.push(numField('plan.top_speed_m_per_s', 'Top speed'));
-      h.push(numField('plan.max_accel_m_per_s2', 'Largest acceleration', { hint: 'the drive\u2019s shortest ramp' }));
     }
+    h.push(numField('plan.' + K.top, axisWord(p.axis, 'top')));
+    h.push(numField('plan.' + K.maxAccel, axisWord(p.axis, 'maxAccel'), K === LINEAR ? { hint: 'the drive\u2019s shortest ramp' } : undefined));
     h.push(numField('plan.rope_length_min_m', 'Shortest rope during the move', { optional: true, hint: 'blank: the rope length only' }));
     h.push(numField('plan.rope_length_max_m', 'Longest rope during the move', { optional: true }));
     h.push(selectField('plan.drive', 'Drive', DRIVES, p.drive || ''));
@@ -176,18 +170,14 @@ export function planOnSelect(el) {
     return true;
   }
   if (el.dataset.select !== 'plan.axis') return false;
-  var p = s.plan, wasSlew = p.axis === 'slew', nowSlew = el.value === 'slew';
+  var p = s.plan, from = kindOf(p), to = axisOf(el.value).kind, needs = axisOf(el.value).needs;
   p.axis = el.value;
-  if (wasSlew !== nowSlew) {
-    ['distance_m', 'top_speed_m_per_s', 'max_accel_m_per_s2', 'angle_deg', 'top_rate_deg_per_s', 'max_accel_deg_per_s2'].forEach(function (k) { delete p[k]; });
-    if (nowSlew) {
-      p.angle_deg = 90; p.top_rate_deg_per_s = 3.6; p.max_accel_deg_per_s2 = 0.5;
-      if (!(s.crane && s.crane.radius_m > 0)) setPath(s, 'crane.radius_m', 20);
-    } else {
-      p.distance_m = 10; p.top_speed_m_per_s = 0.5; p.max_accel_m_per_s2 = 0.3;
-    }
+  if (from !== to) {
+    [LINEAR, ANGULAR].forEach(function (K) { delete p[K.distance]; delete p[K.top]; delete p[K.maxAccel]; });
+    p[to.distance] = to.plan[0]; p[to.top] = to.plan[1]; p[to.maxAccel] = to.plan[2];
     clearBad('plan.');
   }
+  if (needs && !(getPath(s, needs[0]) > 0)) setPath(s, needs[0], needs[1]);
   renderForm();
   changed();
   return true;
@@ -212,22 +202,22 @@ export function planOnChange(el) {
 // motionHTML shows a move the planner made (speed steps, or a shaped
 // ramp) in the motions list; app.js shows the plain trapezoids.
 export function motionHTML(m, i) {
-  var at = 'motions[' + i + ']', slew = m.axis === 'slew', F = slew ? ANGULAR : LINEAR;
-  var sdq = slew ? 'angular_speed' : 'speed';
+  var at = 'motions[' + i + ']', F = kindOf(m);
+  var sdq = F.speedQ;
   var h = '<div class="move planned" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + ': ' + esc(axisName(m.axis)) +
     (m.profile === 'steps' ? ', pendant speed steps' : ', shaped ramp') + '</h4>' +
     '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">';
   if (m.profile === 'steps') {
     h += '<div class="field wide"><table class="plain"><caption>Speed steps</caption><thead><tr><th scope="col">At</th><th scope="col">Speed</th></tr></thead><tbody>' +
       (m.steps || []).map(function (st) {
-        var v = slew ? st.rate_deg_per_s : st.speed_m_per_s;
+        var v = st[F.speed];
         return '<tr><td>' + secs(st.at_s) + '</td><td>' + (typeof v === 'number' ? withU(sdq, v) : '\u2014') + '</td></tr>';
       }).join('') + '</tbody></table><p class="hint">From the planner. To change the steps, plan again or edit the scenario file.</p></div>';
     h += numField(at + '.' + F.accel, 'Drive ramp, speeding up') + numField(at + '.' + F.decel, 'Drive ramp, slowing', { optional: true });
   } else {
     h += numField(at + '.start_s', 'Starts at', { optional: true }) +
-      numField(at + '.' + F.distance, slew ? 'Slew angle' : 'Distance') +
-      numField(at + '.' + F.speed, slew ? 'Slew rate' : 'Speed') +
+      numField(at + '.' + F.distance, axisWord(m.axis, 'distance')) +
+      numField(at + '.' + F.speed, axisWord(m.axis, 'speed')) +
       numField(at + '.' + F.accel, 'Acceleration') +
       numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' });
     if (m.shaper) {

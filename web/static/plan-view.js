@@ -3,14 +3,14 @@
 // figure comes from the core; nothing is computed here beyond differences
 // of times the planner gives (a ramp's duration).
 
+import { drawChart } from './charts.js';
 import { openCoach } from './coach.js';
 import { changed } from './compute.js';
 import { $, esc, notice } from './dom.js';
 import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
-import { P, accelDQ, axisName, deg, isSlew, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
-import { S } from './state.js';
-import { chart, fitWidth } from './plot.js';
+import { P, accelDQ, axisName, deg, kindOf, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
+import { S, axisOf, axisWord } from './state.js';
 import { presentFigures } from './results.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, fmtStep, toShown } from './units.js';
@@ -161,10 +161,11 @@ export function renderPlan() {
 }
 
 function summary(r) {
-  var move = isSlew(r) ?
-    'Slew ' + deg(r.angle_deg) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU('angular_speed', r.top_rate_deg_per_s) +
+  var K = kindOf(r);
+  var move = typeof r.radius_m === 'number' ?
+    axisOf(r.axis).label + ' ' + withU(K.quantity, r[K.distance]) + ' at a hook radius of ' + withU('length', r.radius_m) + ', top rate ' + withU(K.speedQ, r[K.top]) +
       (r.slew_lean_deg ? ' (outward lean ' + deg(r.slew_lean_deg) + ' at that rate)' : '') :
-    'Travel ' + withU('length', r.distance_m) + ' on ' + axisName(r.axis) + ', top speed ' + withU('speed', r.top_speed_m_per_s);
+    'Travel ' + withU(K.quantity, r[K.distance]) + ' on ' + axisName(r.axis) + ', top speed ' + withU(K.speedQ, r[K.top]);
   var ropes = r.rope_lengths_m.map(function (l) { return num('length', l); }).join(', ') + '\u00A0' + sym('length');
   return '<p class="plan-summary" id="plan-summary">' + esc(move) + '. Rope ' + esc(withU('length', r.rope_length_m)) +
     ' (sway period ' + esc(secs(r.period_s)) + '); each option simulated at ' + esc(ropes) +
@@ -229,8 +230,7 @@ function planTable(r) {
 // crew renders an option's settings from the planner's own numbers.
 function crew(r, o, ow, w) {
   var sdq = speedDQ(r), adq = accelDQ(r), h = '';
-  var top = isSlew(r) ? o.top_rate_deg_per_s : o.top_speed_m_per_s;
-  var acc = isSlew(r) ? o.accel_deg_per_s2 : o.accel_m_per_s2;
+  var K = kindOf(r), top = o[K.top], acc = o[K.accel];
   if (o.speed_profile && o.speed_profile.length > 1) {
     h += '<p>Program the drive\u2019s speed profile (multi-segment ramps, or the drive\u2019s own sway-control function) for starting; stopping mirrors it.</p>';
     h += '<table class="plain crew" data-crew="ramps"><caption>Speed profile for a variable-speed drive</caption><thead><tr><th scope="col">From</th><th scope="col">To</th><th scope="col">The drive</th><th scope="col">Ramp time</th></tr></thead><tbody>';
@@ -255,7 +255,7 @@ function crew(r, o, ow, w) {
   } else {
     h += '<ul class="crew-list" data-crew="ramp"><li>Acceleration and deceleration: <b>' + esc(withU(adq, acc)) + '</b></li>' +
       '<li>Ramp time to the top speed: <b>' + esc(secs(o.ramp_s)) + '</b></li>' +
-      '<li>Top ' + (isSlew(r) ? 'slew rate' : 'speed') + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
+      '<li>' + esc(axisWord(r.axis, 'top')) + ': <b>' + esc(withU(sdq, top)) + '</b></li></ul>';
   }
   if (ow.settings && ow.settings.length) {
     h += '<details class="words"><summary>The planner\u2019s own words' + (w.si ? ' (figures in SI units)' : '') + '</summary>' +
@@ -320,22 +320,22 @@ const CLS = ['s1', 's2', 's3', 's4', 's5', 's6'];
 
 function curves(r) {
   var at = r.curves.accel_time, re = r.curves.rope_error, lim = r.limits || {};
-  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, label: 'limit ' + deg(lim.residual_swing_deg) }] : [];
-  $('plot-plan-ramp').innerHTML = chart({ width: fitWidth($('plot-plan-ramp')),
-    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', xLabel: 'ramp time to top speed (s)', yLabel: 'residual swing (deg)',
-    yFromZero: true, hlines: hl, legendTop: true,
+  var hl = typeof lim.residual_swing_deg === 'number' ? [{ y: lim.residual_swing_deg, text: 'limit ' + deg(lim.residual_swing_deg) }] : [];
+  drawChart($('plot-plan-ramp'), {
+    id: 'plan-ramp', title: 'Residual swing after one ramp, against ramp time', x_label: 'ramp time to top speed (s)', y_label: 'residual swing (deg)',
+    y_from_zero: true, lines: hl, legend_top: true,
     series: at.series.map(function (sr, i) {
-      return { x: at.ramp_s, y: sr.residual_deg, label: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), cls: CLS[i % CLS.length] };
+      return { x: at.ramp_s, y: sr.residual_deg, name: 'rope ' + num('length', sr.rope_length_m) + ' ' + sym('length'), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)) + '</figcaption>';
-  $('plot-plan-rope').innerHTML = chart({ width: fitWidth($('plot-plan-rope')),
-    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', xLabel: 'rope length error from the tuned length (%)',
-    yLabel: 'residual (% of unshaped)', yFromZero: true, legendTop: true,
+  }, 'Zero at whole sway periods (' + esc(secs(r.design_period_s)) + ' each). ' + esc(sentence(at.basis)));
+  drawChart($('plot-plan-rope'), {
+    id: 'plan-rope', title: 'Residual swing against rope-length error, per shaper', x_label: 'rope length error from the tuned length (%)',
+    y_label: 'residual (% of unshaped)', y_from_zero: true, legend_top: true,
     bands: [{ x0: re.range_pct[0], x1: re.range_pct[1], text: 'your range' }],
     series: re.series.map(function (sr, i) {
-      return { x: re.error_pct, y: sr.residual_pct, label: shaperName(sr.shaper), cls: CLS[i % CLS.length] };
+      return { x: re.error_pct, y: sr.residual_pct, name: shaperName(sr.shaper), class: CLS[i % CLS.length] };
     })
-  }) + '<figcaption>Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)) + '</figcaption>';
+  }, 'Hatched: the plan\u2019s rope-length range. A flatter curve forgives a wrong rope length. ' + esc(sentence(re.basis)));
 }
 
 export function planChanged() {

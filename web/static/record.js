@@ -8,7 +8,7 @@
 import { $, esc, notice } from './dom.js';
 import { call } from './engine.js';
 import { adopt } from './scenarios.js';
-import { AXES, S } from './state.js';
+import { S, axisOf, axisOptions } from './state.js';
 import { fmtStep } from './units.js';
 
 // isRecord: a file to read as a drive record rather than a scenario: a
@@ -42,10 +42,7 @@ export function importRecord(text, name, axis) {
   });
 }
 
-function axisLabel(a) {
-  for (var i = 0; i < AXES.length; i++) if (AXES[i][0] === a) return AXES[i][1].toLowerCase();
-  return a;
-}
+function axisLabel(a) { return axisOf(a).label.toLowerCase(); }
 
 // chooseAxis asks which axis a record with several axis columns is for.
 function chooseAxis(text, name, why) {
@@ -58,7 +55,7 @@ function chooseAxis(text, name, why) {
   }
   d.innerHTML = '<h2 id="dlg-record-h">Which axis is this drive record for?</h2><p class="small" id="record-why"></p>' +
     '<div class="row"><label for="record-axis">Axis</label><select id="record-axis">' +
-    AXES.map(function (a) { return '<option value="' + esc(a[0]) + '">' + esc(a[1]) + '</option>'; }).join('') + '</select></div>' +
+    axisOptions(false).map(function (a) { return '<option value="' + esc(a[0]) + '">' + esc(a[1]) + '</option>'; }).join('') + '</select></div>' +
     '<div class="row"><button type="button" id="record-use">Use the record</button><form method="dialog"><button>Cancel</button></form></div>';
   $('record-why').textContent = name + ': ' + why + '.';
   $('record-use').onclick = function () {

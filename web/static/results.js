@@ -2,11 +2,12 @@
 // row of core/figures, its words, rounded text and unit as the core gives
 // them), warnings, assumptions and plots.
 
+import { drawChart } from './charts.js';
 import { $, esc } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
 import { renderPlan } from './plan-view.js';
-import { chart, fitWidth } from './plot.js';
+import { clearanceVerdict } from './site-view.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
 import { say } from './words.js';
@@ -117,6 +118,7 @@ export function renderResults() {
       (f.result_for ? '<p class="result-for" id="result-for">' + esc(f.result_for) + '</p>' : '') +
       '<ul class="figs" id="figures">' + f.rows.map(function (row) { return figureRow(row, f.verdict.state); }).join('') + '</ul>' +
       engineeringDetail(f.rows, det && det.open);
+    clearanceVerdict();
   }
   hd.dataset.count = String(S.count);
   // The core's warnings in the units shown (the "say" call); should that
@@ -147,6 +149,8 @@ export function markStale(on) {
   $('charts').classList.toggle('is-stale', on);
 }
 
+// renderPlots draws the result's charts with the core's plotter
+// (charts.js), the values in the units shown.
 export function renderPlots() {
   var r = shownResult(), hs = r.history;
   // Which scenario the plots are of: the figures' (result_fingerprint).
@@ -161,27 +165,27 @@ export function renderPlots() {
   });
   var lim = S.scenario.limits || {};
   var hl = [];
-  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, label: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
+  if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
   // Plots of another move than the inputs' (the planner's recommended
   // one) say so, as the figures above do.
   var of = S.figures && S.figures.result_for ? 'Of ' + S.figures.result_for + '. ' : '';
-  $('plot-angle').innerHTML = chart({ width: fitWidth($('plot-angle')), id: 'angle', title: 'Rope angle from the vertical', xLabel: 'time (s)', yLabel: 'rope angle (deg)',
-    series: [{ x: hs.time_s, y: hs.swing_deg, label: 'rope angle', cls: 's1' }], bands: bands, hlines: hl, yFromZero: true }) +
-    '<figcaption>' + esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.</figcaption>';
-  $('plot-path').innerHTML = chart({ width: fitWidth($('plot-path')), id: 'path', title: 'Seen from above: load and trolley paths', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
-    series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), label: 'suspension point', cls: 's2' },
-      { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), label: 'load', cls: 's1' }] }) +
-    '<figcaption>The load (solid) and the suspension point (dashed) on the ground plan.</figcaption>';
+  drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
+    series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
+  esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
+  drawChart($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
+    series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), name: 'suspension point', class: 's2' },
+      { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), name: 'load', class: 's1' }] },
+  'The load (solid) and the suspension point (dashed) on the ground plan.');
   var circles = [];
   if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-  $('plot-rel').innerHTML = chart({ width: fitWidth($('plot-rel')), id: 'rel', title: 'Seen from above: load around the suspension point', xLabel: 'x (' + L + ')', yLabel: 'y (' + L + ')', equal: true,
-    series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), label: 'load', cls: 's1' }], circles: circles }) +
-    '<figcaption>' + (circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.') + '</figcaption>';
+  drawChart($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
+    series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), name: 'load', class: 's1' }], circles: circles },
+  circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.');
   var st = toShown('force', r.static_tension_n);
-  $('plot-tension').innerHTML = chart({ width: fitWidth($('plot-tension')), id: 'tension', title: 'Rope tension', xLabel: 'time (s)', yLabel: 'tension (' + F + ')',
-    series: [{ x: hs.time_s, y: scale('force', hs.tension_n), label: 'tension', cls: 's1' }], bands: bands,
-    hlines: [{ y: st, label: 'static ' + fmtStep('force', st) + ' ' + F }] }) +
-    '<figcaption>Dashed line: the load\u2019s weight (static pull).</figcaption>';
+  drawChart($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
+    series: [{ x: hs.time_s, y: scale('force', hs.tension_n), name: 'tension', class: 's1' }], bands: bands,
+    lines: [{ y: st, text: 'static ' + fmtStep('force', st) + ' ' + F }] },
+  'Dashed line: the load\u2019s weight (static pull).');
 }
 
 export function updateBanner() {

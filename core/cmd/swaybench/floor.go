@@ -4,6 +4,7 @@ import (
 	"math"
 	"slices"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -45,10 +46,11 @@ func newFloorRun(s *scenario.Scenario) (f *floorRun, ok bool) {
 		if (m.Profile != "" && m.Profile != scenario.ProfileTrapezoid) || m.Shaper != nil {
 			return nil, false
 		}
+		ax, _ := crane.Of(m.Axis)
 		k := 0
-		switch m.Axis {
-		case scenario.TravelX:
-		case scenario.TravelY:
+		switch {
+		case ax.Role == crane.AlongX && ax.Kind == crane.Linear:
+		case ax.Role == crane.AlongY && ax.Kind == crane.Linear:
 			k = 1
 		default:
 			return nil, false

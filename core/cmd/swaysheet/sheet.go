@@ -8,7 +8,9 @@ import (
 	"strings"
 	"time"
 
+	"swaysheet/core/clearance"
 	"swaysheet/core/plan"
+	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -16,7 +18,11 @@ import (
 )
 
 // direct evaluates and plans for the sheet, with no memo.
-var direct = sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make}
+var direct = sheet.Computer{Evaluate: sway.Evaluate, Plan: plan.Make, Clearance: checkSite}
+
+func checkSite(s *scenario.Scenario) (*clearance.Report, error) {
+	return clearance.Check(s, clearance.Options{})
+}
 
 // runSheets writes one check sheet per scenario file into dir, named after
 // the file (bay-travel.json -> bay-travel.html), with the renderer of

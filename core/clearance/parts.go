@@ -1,0 +1,443 @@
+package clearance
+
+import (
+	"encoding/binary"
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+
+	"swaysheet/core/draws"
+	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
+	"swaysheet/core/words"
+)
+
+// A clearance check in parts: the runs of a check can be split into ranges
+// [From, To) of the run index, each evaluated on its own (on its own
+// worker: EvaluatePart), and the parts joined (Join) into the report. The
+// report of the joined parts is the report of one call over the same runs,
+// exactly: each run is drawn from the seed and its own index alone
+// (package draws), what a run contributes (its stray from the path with no
+// spread, its closest approach to each obstacle, the lattice cells it
+// sweeps) does not depend on the other runs, and the join ranks and counts
+// the runs in index order as one call does (Evaluate is itself one part
+// joined). Joining the parts received so far gives the report of those
+// runs: an envelope refined as the parts arrive.
+
+// Part is what the runs From to To-1 of a check contribute.
+type Part struct {
+	From int       `json:"from"`
+	To   int       `json:"to"`
+	Runs []RunPart `json:"runs"`
+}
+
+// RunPart is what one run contributes: its stray from the nominal path,
+// its closest approach to each obstacle in the site's order, the lattice
+// cells its load sweeps (see PlanPath.sweepLattice) as row spans, each
+// three numbers: the row less the previous span's row, the first cell less
+// the previous span's first cell, the number of cells (the first span's
+// from row 0, cell 0), and for the vertical section its distance along the
+// crane's path and its lowest point's height at each sample (float64,
+// little-endian: the distances, then the heights).
+type RunPart struct {
+	StrayM  float64   `json:"stray_m"`
+	Near    []RunNear `json:"near"`
+	Cells   []int     `json:"cells"`
+	Section []byte    `json:"section"`
+}
+
+// RunNear is one run's Closest to one obstacle in JSON: the first strike
+// when it strikes, the gap below the load when it passes over.
+type RunNear struct {
+	ClearanceM    float64 `json:"c"`
+	TimeS         float64 `json:"t"`
+	At            Point3  `json:"at"`
+	ErrorBoundM   float64 `json:"e"`
+	Strikes       bool    `json:"s,omitempty"`
+	FirstStrikeS  float64 `json:"f,omitempty"`
+	FirstStrikeAt Point3  `json:"fa"`
+	Over          bool    `json:"o,omitempty"`
+	GapM          float64 `json:"g,omitempty"`
+	GapAtS        float64 `json:"gt,omitempty"`
+	GapAt         Point3  `json:"ga"`
+}
+
+func nearOf(c Closest) RunNear {
+	n := RunNear{ClearanceM: c.ClearanceM, TimeS: c.TimeS, At: c.At, ErrorBoundM: c.ErrorBoundM, Strikes: c.Strikes}
+	if c.Strikes {
+		n.FirstStrikeS, n.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
+	}
+	if !math.IsInf(c.GapM, 1) {
+		n.Over, n.GapM, n.GapAtS, n.GapAt = true, c.GapM, c.GapAtS, c.GapAt
+	}
+	return n
+}
+
+func (n RunNear) closest() Closest {
+	c := Closest{ClearanceM: n.ClearanceM, TimeS: n.TimeS, At: n.At, ErrorBoundM: n.ErrorBoundM, Strikes: n.Strikes,
+		FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
+	if n.Strikes {
+		c.FirstStrikeS, c.FirstStrikeAt = n.FirstStrikeS, n.FirstStrikeAt
+	}
+	if n.Over {
+		c.GapM, c.GapAtS, c.GapAt = n.GapM, n.GapAtS, n.GapAt
+	}
+	return c
+}
+
+// Spec is what a scenario's site block asks for: how many runs, the seed,
+// the spreads and how run i is drawn (nil: every run is the scenario
+// itself).
+type Spec struct {
+	Runs    int
+	Seed    int
+	Spread  *draws.Spread
+	Variant Variant
+}
+
+// SpecOf reads the spec of s's site block: its spread's runs
+// (scenario.DefaultSiteRuns when it gives none) drawn by package draws
+// with its seed; with no spread, one run.
+func SpecOf(s *scenario.Scenario) (Spec, error) {
+	if s.Site == nil {
+		return Spec{}, ErrNoSite
+	}
+	sp := s.Site.Spread
+	if sp == nil {
+		return Spec{Runs: 1}, nil
+	}
+	runs := sp.Runs
+	if runs == 0 {
+		runs = scenario.DefaultSiteRuns
+	}
+	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
+		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
+	seed := uint64(sp.Seed)
+	return Spec{Runs: runs, Seed: sp.Seed, Spread: &spread, Variant: func(i int) *scenario.Scenario {
+		return draws.Draw(s, spread, seed, i)
+	}}, nil
+}
+
+// CheckPart evaluates the runs from to to-1 of the check s's site block
+// asks for (0 <= from < to <= its runs); they share opt.Budget, or one of
+// CheckWork.
+func CheckPart(s *scenario.Scenario, from, to int, opt Options) (*Part, error) {
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
+	}
+	if from < 0 || to <= from || to > sp.Runs {
+		return nil, fmt.Errorf("clearance: runs from %d to %d: the check has runs 0 to %d", from, to, sp.Runs)
+	}
+	if opt.Budget == nil {
+		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
+	}
+	c, err := prepare(s, opt.defaults())
+	if err != nil {
+		return nil, err
+	}
+	return c.part(s, from, to, sp.Variant)
+}
+
+// CheckJoin joins parts of the check s's site block asks for into its
+// report over the runs they hold (in any order, none twice).
+func CheckJoin(s *scenario.Scenario, parts []Part, opt Options) (*Report, error) {
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
+	}
+	c, err := prepare(s, opt.defaults())
+	if err != nil {
+		return nil, err
+	}
+	rep, err := c.join(sp.Runs, sp.Seed, parts)
+	if rep != nil {
+		rep.Spread = sp.Spread
+	}
+	return rep, err
+}
+
+func (o Options) defaults() Options {
+	if o.StepM == 0 {
+		o.StepM = 0.02
+	}
+	if o.CellM == 0 {
+		o.CellM = 0.1
+	}
+	return o
+}
+
+// checker holds what every part and the join of one check share: the
+// site, the nominal run (every spread at zero) and its path, from which
+// the runs' strays and distances along the path are measured.
+type checker struct {
+	opt     Options
+	site    *Site
+	nominal Run
+	radiusM float64 // the load's ball; zero for a rigid load's box
+	plan    PlanPath
+	near    *nearest
+	track   *track
+}
+
+func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
+	if s.Site == nil {
+		return nil, ErrNoSite
+	}
+	c := &checker{opt: opt, site: SiteOf(s.Site)}
+	for i := range c.site.Obstacles {
+		if err := c.site.Obstacles[i].Validate(); err != nil {
+			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, c.site.Obstacles[i].Name, err)
+		}
+	}
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
+	if err != nil {
+		return nil, err
+	}
+	c.nominal = RunOf(res)
+	c.radiusM = c.site.LoadRadiusM
+	if c.nominal.Rigid() {
+		c.radiusM = 0
+	}
+	c.plan = c.nominal.planPath(c.site.SuspensionHeightM, c.radiusM)
+	c.near = newNearest(c.plan.Points)
+	c.track = newTrack(&c.nominal)
+	return c, nil
+}
+
+// part evaluates runs from to to-1, in parallel, each checked against
+// every obstacle, swept onto the lattice and placed along the path.
+func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Part, error) {
+	h := c.site.SuspensionHeightM
+	p := &Part{From: from, To: to, Runs: make([]RunPart, to-from)}
+	err := draws.Each(to-from, c.opt.Workers, func(k int) error {
+		i := from + k
+		v := s
+		if variant != nil {
+			if d := variant(i); d != nil {
+				v = d
+			}
+		}
+		r, err := sway.EvaluateWith(v, sway.Options{Budget: c.opt.Budget})
+		if err != nil {
+			return fmt.Errorf("run %d: %w", i, err)
+		}
+		run := RunOf(r)
+		near := c.site.checkRun(&run, c.opt.StepM)
+		rp := RunPart{Near: make([]RunNear, len(near))}
+		for n := range near {
+			if !finite(near[n].ClearanceM) {
+				return fmt.Errorf("run %d: the path has no points", i)
+			}
+			rp.Near[n] = nearOf(near[n])
+		}
+		plan := run.planPath(h, c.radiusM)
+		rp.StrayM = c.near.stray(plan.Points)
+		rp.Cells = runCells(&plan, c.opt.CellM)
+		d, low := c.track.runSection(&run, h, c.site.LoadRadiusM)
+		rp.Section = packFloats(append(d, low...))
+		p.Runs[k] = rp
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	return p, nil
+}
+
+func packFloats(v []float64) []byte {
+	out := make([]byte, 8*len(v))
+	for i, x := range v {
+		binary.LittleEndian.PutUint64(out[8*i:], math.Float64bits(x))
+	}
+	return out
+}
+
+func unpackFloats(b []byte) []float64 {
+	out := make([]float64, len(b)/8)
+	for i := range out {
+		out[i] = math.Float64frombits(binary.LittleEndian.Uint64(b[8*i:]))
+	}
+	return out
+}
+
+// runCells sweeps one run onto a grid of its own and lists the cells.
+func runCells(r *PlanPath, cellM float64) []int {
+	i0, i1, j0, j1 := r.latticeBox(cellM)
+	nx, ny := i1-i0+1, j1-j0+1
+	if nx <= 0 || ny <= 0 || nx*ny > maxCells {
+		return nil
+	}
+	covered := make([]bool, nx*ny)
+	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
+	var out []int
+	pj, pi := 0, 0
+	for j := 0; j < ny; j++ {
+		for i := 0; i < nx; {
+			if !covered[j*nx+i] {
+				i++
+				continue
+			}
+			start := i
+			for i < nx && covered[j*nx+i] {
+				i++
+			}
+			out = append(out, j0+j-pj, i0+start-pi, i-start)
+			pj, pi = j0+j, i0+start
+		}
+	}
+	return out
+}
+
+// cellSpan is one row span of lattice cells: row J, cells I0 to I1-1.
+type cellSpan struct{ J, I0, I1 int }
+
+func decodeCells(c []int) ([]cellSpan, error) {
+	if len(c)%3 != 0 {
+		return nil, errors.New("clearance: a run's cells are not whole spans")
+	}
+	out := make([]cellSpan, 0, len(c)/3)
+	j, i := 0, 0
+	for k := 0; k < len(c); k += 3 {
+		j, i = j+c[k], i+c[k+1]
+		if c[k+2] < 1 {
+			return nil, errors.New("clearance: a run's cells hold an empty span")
+		}
+		out = append(out, cellSpan{j, i, i + c[k+2]})
+	}
+	return out, nil
+}
+
+// join makes the report of the runs the parts hold: every obstacle's
+// figures over them, the verdict, the envelopes and the vertical section.
+func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
+	var runs []RunPart
+	parts = append([]Part(nil), parts...)
+	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
+	next := -1
+	for _, p := range parts {
+		if p.From < 0 || p.To > total || p.To-p.From != len(p.Runs) || p.From < next {
+			return nil, fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", p.From, p.To, total)
+		}
+		next = p.To
+		runs = append(runs, p.Runs...)
+	}
+	if len(runs) == 0 {
+		return nil, errors.New("clearance: no runs to join")
+	}
+	near := make([][]Closest, len(runs))
+	strays := make([]float64, len(runs))
+	for i, r := range runs {
+		if len(r.Near) != len(c.site.Obstacles) {
+			return nil, errors.New("clearance: a run's obstacles are not the site's")
+		}
+		near[i] = make([]Closest, len(r.Near))
+		for k, n := range r.Near {
+			near[i][k] = n.closest()
+		}
+		strays[i] = r.StrayM
+	}
+	site := c.site
+	reps, where := site.summarise(near)
+	rep := &Report{Runs: len(runs), Seed: seed, MarginM: site.MarginM, Obstacles: reps,
+		Outline: OutlineBall, LoadRadiusM: c.radiusM, Nominal: c.plan.Points}
+	if c.nominal.Rigid() {
+		rep.Outline = OutlineBox
+	}
+	var envs [2]*Envelope
+	for k, e := range []struct {
+		level, conf float64
+		out         *EnvelopeOut
+	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
+		order, n := keep(strays, e.level, e.conf)
+		var spans []cellSpan
+		for _, i := range order[:n] {
+			cs, err := decodeCells(runs[i].Cells)
+			if err != nil {
+				return nil, err
+			}
+			spans = append(spans, cs...)
+		}
+		out, err := unionSpans(spans, c.opt.CellM)
+		if err != nil {
+			return nil, err
+		}
+		out.Level, out.Inside, out.StrayM = e.level, n, strays[order[n-1]]
+		out.Confidence = CoverageConfidence(n, len(runs), e.level)
+		*e.out = out
+		envs[k] = &Envelope{Level: e.level, Runs: len(runs), Inside: n, StrayM: out.StrayM, Members: order[:n]}
+	}
+	ds, lows := map[int][]float64{}, map[int][]float64{}
+	for _, m := range envs[1].Members {
+		v := unpackFloats(runs[m].Section)
+		if len(v)%2 != 0 {
+			return nil, errors.New("clearance: a run's section is not whole")
+		}
+		ds[m], lows[m] = v[:len(v)/2], v[len(v)/2:]
+	}
+	rep.Section = sectionFrom(site, &c.nominal, c.track, ds, lows, envs[0], envs[1], rep.Obstacles, where)
+	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)
+	rep.Words = words.Strings(rep.WordSentences)
+	rep.Assumptions = assumptions(rep.Outline, c.opt)
+	return rep, nil
+}
+
+// keep ranks the runs by stray, least first (ties in run order), and says
+// how many the envelope at level holds: ceil(level*N), or with conf above
+// zero the fewest for which the confidence that its coverage is at least
+// level reaches conf (all N when none does).
+func keep(strays []float64, level, conf float64) ([]int, int) {
+	order := make([]int, len(strays))
+	for i := range order {
+		order[i] = i
+	}
+	sort.SliceStable(order, func(a, b int) bool { return strays[order[a]] < strays[order[b]] })
+	n := len(strays)
+	k := max(int(math.Ceil(level*float64(n)-1e-9)), 1)
+	for conf > 0 && k < n && CoverageConfidence(k, n, level) < conf {
+		k++
+	}
+	return order, k
+}
+
+// unionSpans is the envelope drawn from the union of the runs' cells: row
+// spans in rows from the lowest, each row from the left, and the area.
+func unionSpans(spans []cellSpan, cellM float64) (EnvelopeOut, error) {
+	out := EnvelopeOut{CellM: cellM}
+	if len(spans) == 0 {
+		return out, nil
+	}
+	i0, i1, j0, j1 := spans[0].I0, spans[0].I1, spans[0].J, spans[0].J
+	for _, s := range spans {
+		i0, i1, j0, j1 = min(i0, s.I0), max(i1, s.I1), min(j0, s.J), max(j1, s.J)
+	}
+	nx, ny := i1-i0, j1-j0+1
+	if nx*ny > maxCells {
+		return out, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
+	}
+	covered := make([]bool, nx*ny)
+	for _, s := range spans {
+		row := covered[(s.J-j0)*nx:]
+		for i := s.I0; i < s.I1; i++ {
+			row[i-i0] = true
+		}
+	}
+	n := 0
+	for j := 0; j < ny; j++ {
+		for i := 0; i < nx; {
+			if !covered[j*nx+i] {
+				i++
+				continue
+			}
+			start := i
+			for i < nx && covered[j*nx+i] {
+				i++
+			}
+			n += i - start
+			out.Spans = append(out.Spans, latticeSpan(j0+j, i0+start, i0+i, cellM))
+		}
+	}
+	out.AreaM2 = float64(n) * cellM * cellM
+	return out, nil
+}

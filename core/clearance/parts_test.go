@@ -1,0 +1,117 @@
+package clearance
+
+import (
+	"encoding/json"
+	"reflect"
+	"testing"
+
+	"swaysheet/core/internal/testscenario"
+	"swaysheet/core/scenario"
+)
+
+func TestPartsJoinToTheSingleCall(t *testing.T) {
+	// The runs split into parts (unequal, joined out of order, each part
+	// sent through JSON as between the page's workers) give the report of
+	// one call over the same runs, exactly: the check is reproducible from
+	// the seed and each run's index alone.
+	s := testscenario.Example(t, "site-bay-columns")
+	s.Site.Spread.Runs = 40
+	one, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var parts []Part
+	for _, r := range [][2]int{{25, 40}, {0, 7}, {7, 25}} {
+		p, err := CheckPart(s, r[0], r[1], Options{Workers: 1})
+		if err != nil {
+			t.Fatal(err)
+		}
+		data, err := json.Marshal(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var back Part
+		if err := json.Unmarshal(data, &back); err != nil {
+			t.Fatal(err)
+		}
+		parts = append(parts, back)
+	}
+	joined, err := CheckJoin(s, parts, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := json.Marshal(one)
+	b, _ := json.Marshal(joined)
+	if string(a) != string(b) {
+		t.Error("joined parts differ from the single call")
+	}
+	if !reflect.DeepEqual(one.Envelope95, joined.Envelope95) || len(one.Envelope95.Spans) == 0 {
+		t.Error("95 % envelope differs or is empty")
+	}
+	// Some of the runs: a report over those runs.
+	some, err := CheckJoin(s, parts[1:2], Options{})
+	if err != nil || some.Runs != 7 {
+		t.Fatalf("part of the runs: %v", err)
+	}
+	// Overlapping or foreign parts are refused.
+	if _, err := CheckJoin(s, []Part{parts[1], parts[1]}, Options{}); err == nil {
+		t.Error("overlapping parts joined")
+	}
+	if _, err := CheckPart(s, 30, 41, Options{}); err == nil {
+		t.Error("runs past the check's own accepted")
+	}
+}
+
+func TestEnvelopeCellsAreTheLattice(t *testing.T) {
+	// A run swept onto a grid of its own marks the cells it marks on a
+	// shared grid (the lattice does not move with the grid).
+	pts := []Point2{{0.03, 0.01}, {3.37, 1.12}, {5.9, -0.4}}
+	r := PlanPath{Points: pts, RadiusM: 0.7}
+	lone := PlanPath{Points: []Point2{{-20, 9}}, RadiusM: 0.1}
+	e, err := NewEnvelope([]PlanPath{r, lone}, pts, 1, 0.1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cells, _ := decodeCells(runCells(&r, 0.1))
+	far, _ := decodeCells(runCells(&lone, 0.1))
+	out, err := unionSpans(append(cells, far...), 0.1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(out.Spans, e.Spans()) || out.AreaM2 != e.AreaM2() {
+		t.Errorf("own grid: %d spans, %g m²; shared: %d spans, %g m²", len(out.Spans), out.AreaM2, len(e.Spans()), e.AreaM2())
+	}
+}
+
+func TestPartsJoinRigidLoad(t *testing.T) {
+	// A rigid load's box: its outlines swept onto the lattice, its lowest
+	// corner in the section; parts joined as one call.
+	s := testscenario.Example(t, "bay-girder-rigid")
+	h, r := 12.0, 0.0
+	top := 3.0
+	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
+		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
+			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
+		Spread: &scenario.SiteSpread{Runs: 6, Seed: 3, RopeLengthM: 0.2}}
+	one, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var parts []Part
+	for _, rg := range [][2]int{{4, 6}, {0, 4}} {
+		p, err := CheckPart(s, rg[0], rg[1], Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		parts = append(parts, *p)
+	}
+	joined, err := CheckJoin(s, parts, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := json.Marshal(one)
+	b, _ := json.Marshal(joined)
+	if one.Outline != OutlineBox || string(a) != string(b) {
+		t.Errorf("rigid load: outline %q; joined parts equal the single call: %v", one.Outline, string(a) == string(b))
+	}
+}

@@ -1,0 +1,73 @@
+// charts.js: the page's charts, drawn by the core's plotter (core/sheet
+// svg.go, the same that draws the check sheet's plots) through the "plot"
+// call. The page gives the values already in the units shown; the core's
+// SVG is parsed as SVG, checked to hold only drawing elements (no script,
+// no event handler, no outside link) and put in the page as nodes.
+
+import { esc } from './dom.js';
+import { call } from './engine.js';
+
+let chartAsked = {}, chartsDrawing = 0;
+
+// fitWidth is the width to draw a chart in el at: the width it is shown
+// at, from 300 (a phone) to 640 px (wider, the SVG is scaled up). The
+// core sizes the chart's viewBox to it, so its text keeps its size.
+function fitWidth(el) {
+  var w = el ? el.clientWidth - 12 : 640;
+  return Math.max(300, Math.min(640, Math.round(w || 640)));
+}
+
+// plotting is true while a chart is being drawn.
+export function plotting() { return chartsDrawing > 0; }
+
+const SVG_ELEMENTS = /^(svg|g|defs|clipPath|pattern|rect|line|path|circle|ellipse|polyline|text|tspan|title)$/;
+
+// safeSVG parses the core's SVG text; null when it is not one plain
+// drawing. Attributes that could run or fetch anything are dropped.
+function safeSVG(text) {
+  var doc = new DOMParser().parseFromString(String(text), 'image/svg+xml');
+  var root = doc.documentElement;
+  if (!root || root.localName !== 'svg' || root.namespaceURI !== 'http://www.w3.org/2000/svg' || doc.getElementsByTagName('parsererror').length) return null;
+  var all = [root].concat(Array.prototype.slice.call(root.getElementsByTagName('*')));
+  for (var i = 0; i < all.length; i++) {
+    var el = all[i];
+    if (!SVG_ELEMENTS.test(el.localName)) return null;
+    Array.prototype.slice.call(el.attributes).forEach(function (a) {
+      var n = a.name.toLowerCase(), v = a.value.trim().toLowerCase();
+      if (n.indexOf('on') === 0 || n === 'style' || /href$/.test(n) || (/url\(/.test(v) && !/^url\(#[a-z0-9_-]+\)$/.test(v))) el.removeAttribute(a.name);
+    });
+  }
+  return document.importNode(root, true);
+}
+
+// drawChart asks the core for the chart opt (the "plot" call's input:
+// id, title, x_label, y_label, series, lines, bands, circles, equal,
+// y_from_zero, legend_top) at the width fig is shown, and puts it in fig
+// with its title above and the caption (HTML) below. An answer overtaken
+// by a later drawing of the same figure is dropped; a failed one keeps
+// the chart shown and says why.
+export function drawChart(fig, opt, caption) {
+  if (!fig) return Promise.resolve();
+  opt.width_px = fitWidth(fig);
+  opt.title_above = true;
+  var n = (chartAsked[fig.id] || 0) + 1;
+  chartAsked[fig.id] = n;
+  chartsDrawing++;
+  return call('plot', JSON.stringify(opt)).then(function (r) {
+    chartsDrawing--;
+    if (chartAsked[fig.id] !== n) return;
+    var svg = r.error ? null : safeSVG(r.result && r.result.svg);
+    if (!svg) {
+      if (!fig.querySelector('svg')) fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p>';
+      var old = fig.querySelector('.chart-error');
+      if (old) old.remove();
+      var p = document.createElement('p');
+      p.className = 'chart-error';
+      p.textContent = '\u26A0 The chart could not be drawn' + (r.error ? ': ' + r.error.message : '.');
+      fig.appendChild(p);
+      return;
+    }
+    fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p><figcaption>' + caption + '</figcaption>';
+    fig.insertBefore(svg, fig.lastChild);
+  });
+}

@@ -1,0 +1,138 @@
+// site-runs.js: the clearance check's runs, split over several workers.
+// Each worker runs the core (worker.js, as the engine's does) and answers
+// "clearance_part" for a range of run indices; the engine's own worker
+// joins the parts received ("clearance_join") into the core's report over
+// those runs, so the envelope is refined as the parts arrive, and the
+// report of every run is the single "clearance" call's, exactly (each run
+// is drawn from the seed and its index alone: core/clearance parts.go).
+// The page computes nothing here: it splits index ranges and waits.
+
+import { DEADLINES, call } from './engine.js';
+
+let pool = [], jobSeq = 0, nextCall = 1;
+
+// poolSize is how many workers share the runs: min(4, the processors the
+// browser reports), at least 1.
+export function poolSize() {
+  return Math.max(1, Math.min(4, navigator.hardwareConcurrency || 1));
+}
+
+function startPoolWorker() {
+  var w = { worker: new Worker(window.swaysheetWorkerURL || 'worker.js'), waiting: null };
+  w.worker.onmessage = function (e) {
+    var m = e.data, p = w.waiting;
+    if (m.id === 0 || !p || p.id !== m.id) {
+      if (m.id === 0) stopPool('The calculation engine of the clearance runs stopped.', 'failed');
+      return;
+    }
+    w.waiting = null;
+    clearTimeout(p.timer);
+    p.resolve(JSON.parse(m.out));
+  };
+  w.worker.onerror = function (e) {
+    if (e.preventDefault) e.preventDefault();
+    stopPool('The calculation engine of the clearance runs failed: ' + (e.message || 'unknown error') + '.', 'failed');
+  };
+  return w;
+}
+
+// stopPool ends every pool worker and answers the calls still waiting
+// with an error ('failed', 'timeout' or 'cancelled'); the next runs start
+// fresh workers.
+function stopPool(msg, how) {
+  var old = pool;
+  pool = [];
+  jobSeq++;
+  old.forEach(function (w) {
+    try { w.worker.terminate(); } catch (e) { /* gone */ }
+    var p = w.waiting;
+    w.waiting = null;
+    if (p) { clearTimeout(p.timer); p.resolve({ error: { message: msg, fields: [], stopped: how } }); }
+  });
+}
+
+// partCall asks pool worker w for runs [from, to) of the scenario, with
+// the engine's deadline for the clearance calls.
+function partCall(w, sent, from, to) {
+  return new Promise(function (resolve) {
+    var id = nextCall++, ms = DEADLINES.clearance || DEADLINES.other;
+    w.waiting = { id: id, resolve: resolve, timer: setTimeout(function () {
+      stopPool('The clearance runs were not answered within ' + Math.round(ms / 1000) + ' s.', 'timeout');
+    }, ms) };
+    w.worker.postMessage({ id: id, name: 'clearance_part', input: '{"scenario":' + sent + ',"from":' + from + ',"to":' + to + '}' });
+  });
+}
+
+// chunks splits runs 0..n-1 into ranges: a few per worker, so the
+// envelope is refined several times, and none smaller than 5 runs.
+export function chunks(n, workers) {
+  var size = Math.max(5, Math.ceil(n / (workers * 3))), out = [];
+  for (var i = 0; i < n; i += size) out.push([i, Math.min(n, i + size)]);
+  return out;
+}
+
+// runSplit runs the check of the scenario JSON sent (n runs) on the
+// pool. on(state) is told of progress: {done, total, report (the join of
+// the parts so far, or null), final}. It resolves to {result} (the
+// report of every run) or {error}; a later runSplit or cancelRuns ends it.
+export function runSplit(sent, n, on, workers) {
+  stopPool('Replaced by newer inputs.', 'cancelled');
+  var job = jobSeq, want = workers || poolSize();
+  while (pool.length < want) pool.push(startPoolWorker());
+  var todo = chunks(n, want), parts = [], done = 0, joining = false, joinedCount = -1, failed = null;
+  return new Promise(function (resolve) {
+    function finish(r) {
+      if (failed) return;
+      failed = r;
+      resolve(r);
+    }
+    // join asks the engine's worker for the report of the parts so far:
+    // one join at a time, a refinement only when a quarter of the runs
+    // more are in (each join reads every part again), the last one over
+    // every part.
+    var joinedRuns = 0;
+    function join() {
+      if (joining || job !== jobSeq || failed) return;
+      if (parts.length === joinedCount) return;
+      if (done < n && done - joinedRuns < n / 4) return;
+      joinedRuns = done;
+      joining = true;
+      var count = parts.length, all = done === n;
+      call('clearance_join', '{"scenario":' + sent + ',"parts":[' + parts.join(',') + ']}').then(function (r) {
+        joining = false;
+        joinedCount = count;
+        if (job !== jobSeq) { finish({ error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
+        if (r.error) { finish(r); return; }
+        if (all) { on({ done: done, total: n, report: r.result, final: true }); finish(r); return; }
+        on({ done: done, total: n, report: r.result, final: false });
+        join();
+      });
+    }
+    function feed(w) {
+      if (job !== jobSeq || failed) return;
+      var range = todo.shift();
+      if (!range) return;
+      partCall(w, sent, range[0], range[1]).then(function (r) {
+        if (job !== jobSeq) { finish(r.error ? r : { error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
+        if (r.error) { stopPool(r.error.message, 'failed'); finish(r); return; }
+        parts.push(JSON.stringify(r.result));
+        done += range[1] - range[0];
+        on({ done: done, total: n, report: null, final: false });
+        join();
+        feed(w);
+      });
+    }
+    on({ done: 0, total: n, report: null, final: false });
+    pool.forEach(feed);
+  });
+}
+
+// cancelRuns stops the runs going (the pool's workers are ended).
+export function cancelRuns(msg) {
+  stopPool(msg || 'The clearance runs were cancelled.', 'cancelled');
+}
+
+// runsGoing is true while a split check has pool workers busy.
+export function runsGoing() {
+  return pool.some(function (w) { return !!w.waiting; });
+}
