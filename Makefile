@@ -11,18 +11,26 @@ ADDR ?= 127.0.0.1:8080
 all: test
 
 # System packages the tests need (Debian): chromium for browser tests,
-# poppler-utils for the print tests. Installed only when missing.
+# poppler-utils for the print tests. Installed only when missing. The
+# browser tests' accessibility checks run axe-core from the npm registry,
+# installed into out/axe (never committed; web/browsertest installs it
+# too when it is missing; keep the version in step with axeVersion there).
+AXE_VERSION := 4.10.3
+AXE := $(OUT)/axe/node_modules/axe-core/axe.min.js
 deps:
 	@need=""; \
 	command -v chromium >/dev/null 2>&1 || need="$$need chromium"; \
 	command -v pdfinfo >/dev/null 2>&1 || need="$$need poppler-utils"; \
 	command -v pdftoppm >/dev/null 2>&1 || need="$$need poppler-utils"; \
+	command -v npm >/dev/null 2>&1 || need="$$need npm"; \
 	if [ -n "$$need" ]; then \
 	  echo "installing:$$need"; \
 	  if [ "$$(id -u)" = 0 ]; then apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; \
 	  else sudo apt-get update -qq && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $$need; fi; \
 	fi
 	$(GO) mod download
+	@test -f $(AXE) || { echo "installing: axe-core $(AXE_VERSION) (npm, into $(OUT)/axe)"; \
+	  npm install --prefix $(OUT)/axe --no-audit --no-fund --no-save axe-core@$(AXE_VERSION); }
 
 vet:
 	$(GO) vet ./...

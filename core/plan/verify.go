@@ -21,7 +21,7 @@ import (
 // and named in the returned list with why; the others are kept.
 func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropped []string) {
 	type job struct{ o, l int }
-	jobs := make(chan job)
+	jobs := make(chan job, len(opts)*len(rq.checked))
 	exact := make([][]Verified, len(opts))
 	drawn := make([][][]Verified, len(opts))
 	failed := make([]error, len(opts))
@@ -38,47 +38,56 @@ func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropp
 		}
 		mu.Unlock()
 	}
-	for range runtime.GOMAXPROCS(0) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for j := range jobs {
-				mu.Lock()
-				skip := failed[j.o] != nil
-				mu.Unlock()
-				if skip {
-					continue
-				}
-				o, rope := opts[j.o], rq.checked[j.l]
-				v, err := rq.simulate(&o.Motion, rope, tol)
-				if err != nil {
-					fail(j, err)
-					continue
-				}
-				exact[j.o][j.l] = v
-				var ds []Verified
-				for d := range o.draws {
-					v, err := rq.simulate(&o.draws[d], rope, tol)
-					if err != nil {
-						fail(j, err)
-						break
-					}
-					ds = append(ds, v)
-					if rq.decided(ds, len(o.draws)) {
-						break
-					}
-				}
-				drawn[j.o][j.l] = ds
-			}
-		}()
-	}
 	for o := range opts {
 		for l := range rq.checked {
 			jobs <- job{o, l}
 		}
 	}
 	close(jobs)
-	wg.Wait()
+	work := func() {
+		for j := range jobs {
+			mu.Lock()
+			skip := failed[j.o] != nil
+			mu.Unlock()
+			if skip {
+				continue
+			}
+			o, rope := opts[j.o], rq.checked[j.l]
+			v, err := rq.simulate(&o.Motion, rope, tol)
+			if err != nil {
+				fail(j, err)
+				continue
+			}
+			exact[j.o][j.l] = v
+			var ds []Verified
+			for d := range o.draws {
+				v, err := rq.simulate(&o.draws[d], rope, tol)
+				if err != nil {
+					fail(j, err)
+					break
+				}
+				ds = append(ds, v)
+				if rq.decided(ds, len(o.draws)) {
+					break
+				}
+			}
+			drawn[j.o][j.l] = ds
+		}
+	}
+	if procs := runtime.GOMAXPROCS(0); procs > 1 {
+		for range procs {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				work()
+			}()
+		}
+		wg.Wait()
+	} else {
+		// One processor (js/wasm always): no goroutines, whose switches
+		// cost there more than they share.
+		work()
+	}
 	for i, o := range opts {
 		if failed[i] != nil {
 			dropped = append(dropped, fmt.Sprintf("%s: left out, it could not be verified (%v).", o.Label, failed[i]))

@@ -33,36 +33,59 @@ func (c Crane) Field(path string) float64 {
 type Drive struct {
 	Axis                                crane.Axis
 	Distance, Speed, Accel, Decel, Jerk *float64
-	// Given and Other are the fields by name: those of the axis' kind,
-	// and those of the other kinds (which a move of this axis must not
-	// have).
-	Given, Other map[string]*float64
+	m                                   *Motion
 }
 
 // Drive reads m's kinematic fields by its axis' kind; ok is false for an
-// unknown axis.
+// unknown axis. (Plain fields, no maps: every evaluation of a plan's
+// moves reads them, and in wasm a map costs more than the rest.)
 func (m *Motion) Drive() (Drive, bool) {
 	ax, ok := crane.Of(m.Axis)
 	if !ok {
 		return Drive{}, false
 	}
-	byKind := map[*crane.Kind]map[string]*float64{
-		crane.Linear: {"distance_m": m.DistanceM, "speed_m_per_s": m.SpeedMPerS, "accel_m_per_s2": m.AccelMPerS2,
-			"decel_m_per_s2": m.DecelMPerS2, "jerk_m_per_s3": m.JerkMPerS3},
-		crane.Angular: {"angle_deg": m.AngleDeg, "rate_deg_per_s": m.RateDegPerS, "accel_deg_per_s2": m.AccelDegPerS2,
-			"decel_deg_per_s2": m.DecelDegPerS2, "jerk_deg_per_s3": m.JerkDegPerS3},
-	}
-	k := ax.Kind
-	d := Drive{Axis: ax, Given: byKind[k], Other: map[string]*float64{}}
-	d.Distance, d.Speed, d.Accel, d.Decel, d.Jerk = d.Given[k.Distance], d.Given[k.Speed], d.Given[k.Accel], d.Given[k.Decel], d.Given[k.Jerk]
-	for kind, fields := range byKind {
-		if kind != k {
-			for name, v := range fields {
-				d.Other[name] = v
-			}
-		}
+	d := Drive{Axis: ax, m: m}
+	if ax.Kind == crane.Angular {
+		d.Distance, d.Speed, d.Accel, d.Decel, d.Jerk = m.AngleDeg, m.RateDegPerS, m.AccelDegPerS2, m.DecelDegPerS2, m.JerkDegPerS3
+	} else {
+		d.Distance, d.Speed, d.Accel, d.Decel, d.Jerk = m.DistanceM, m.SpeedMPerS, m.AccelMPerS2, m.DecelMPerS2, m.JerkMPerS3
 	}
 	return d, true
+}
+
+// Field is the move's field of the given kind and name (one of the kind's
+// Distance, Speed, Accel, Decel, Jerk names), nil when absent or unknown:
+// a move of this axis must not have those of the other kind.
+func (d Drive) Field(k *crane.Kind, name string) *float64 {
+	m := d.m
+	if k == crane.Angular {
+		switch name {
+		case k.Distance:
+			return m.AngleDeg
+		case k.Speed:
+			return m.RateDegPerS
+		case k.Accel:
+			return m.AccelDegPerS2
+		case k.Decel:
+			return m.DecelDegPerS2
+		case k.Jerk:
+			return m.JerkDegPerS3
+		}
+		return nil
+	}
+	switch name {
+	case k.Distance:
+		return m.DistanceM
+	case k.Speed:
+		return m.SpeedMPerS
+	case k.Accel:
+		return m.AccelMPerS2
+	case k.Decel:
+		return m.DecelMPerS2
+	case k.Jerk:
+		return m.JerkMPerS3
+	}
+	return nil
 }
 
 // Speed is the step's speed in the unit of the axis' kind.

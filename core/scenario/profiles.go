@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"swaysheet/core/crane"
@@ -167,21 +168,19 @@ func (m *Motion) validateProfile(c *checker, at string) {
 	}
 	met := metric(m.Axis)
 	// only lists the kinematic fields the profile takes; others are errors.
+	// (Plain slices, no maps: a plan validates its pendant moves hundreds
+	// of times.)
 	only := func(why string, allowed ...string) {
-		given := map[string]bool{
-			"distance_m": m.DistanceM != nil, "speed_m_per_s": m.SpeedMPerS != nil,
-			"accel_m_per_s2": m.AccelMPerS2 != nil, "decel_m_per_s2": m.DecelMPerS2 != nil,
-			"angle_deg": m.AngleDeg != nil, "rate_deg_per_s": m.RateDegPerS != nil,
-			"accel_deg_per_s2": m.AccelDegPerS2 != nil, "decel_deg_per_s2": m.DecelDegPerS2 != nil,
-		}
-		ok := map[string]bool{}
-		for _, a := range allowed {
-			ok[a] = true
-		}
-		for _, name := range []string{"distance_m", "speed_m_per_s", "accel_m_per_s2", "decel_m_per_s2",
-			"angle_deg", "rate_deg_per_s", "accel_deg_per_s2", "decel_deg_per_s2"} {
-			if given[name] && !ok[name] {
-				c.add(f(name), "does not apply here: %s", why)
+		fields := [...]struct {
+			name  string
+			given bool
+		}{{"distance_m", m.DistanceM != nil}, {"speed_m_per_s", m.SpeedMPerS != nil},
+			{"accel_m_per_s2", m.AccelMPerS2 != nil}, {"decel_m_per_s2", m.DecelMPerS2 != nil},
+			{"angle_deg", m.AngleDeg != nil}, {"rate_deg_per_s", m.RateDegPerS != nil},
+			{"accel_deg_per_s2", m.AccelDegPerS2 != nil}, {"decel_deg_per_s2", m.DecelDegPerS2 != nil}}
+		for _, fd := range fields {
+			if fd.given && !slices.Contains(allowed, fd.name) {
+				c.add(f(fd.name), "does not apply here: %s", why)
 			}
 		}
 	}

@@ -272,11 +272,15 @@ func (m *Motion) validate(c *checker, at string) {
 		c.required(f(k.Speed), key(k.Speed), d.Speed)
 		c.required(f(k.Accel), key(k.Accel), d.Accel)
 		c.optional(f(k.Decel), key(k.Decel), d.Decel)
-		why := "the " + m.Axis + " axis moves in " + k.Words + "; use " + strings.Join([]string{k.Distance, k.Speed, k.Accel, k.Decel}, ", ")
 		for _, o := range crane.Kinds {
 			if o != k {
-				for _, name := range []string{o.Distance, o.Speed, o.Accel, o.Decel} {
-					c.forbidden(f(name), d.Other[name], why)
+				for _, name := range [...]string{o.Distance, o.Speed, o.Accel, o.Decel} {
+					if v := d.Field(o, name); v != nil {
+						// The words only when needed: a scenario is validated at
+						// every evaluation, a plan's hundreds of times.
+						why := "the " + m.Axis + " axis moves in " + k.Words + "; use " + strings.Join([]string{k.Distance, k.Speed, k.Accel, k.Decel}, ", ")
+						c.forbidden(f(name), v, why)
+					}
 				}
 			}
 		}

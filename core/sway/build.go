@@ -29,6 +29,9 @@ type setup struct {
 	warnings    []words.Sentence
 	axes        []motion.Profile // each axis' moves combined, for the work budget
 	fast        *fastModel       // the specialised path's model, nil when it does not fit
+	// general builds model when the specialised path is set up instead
+	// (nil otherwise): model is nil until then.
+	general func() pendulum.System
 }
 
 func deref(p *float64, def float64) float64 {
@@ -122,11 +125,26 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		su.activityEnd = math.Max(su.activityEnd, air.LastChange())
 	}
 
-	susp := ax.Suspension(s.Crane.Start())
-	rope := ax.RopeLength(l0)
 	var force func(t float64, pos, vel r3.Vec) r3.Vec
 	if air != nil {
 		force = func(t float64, _, vel r3.Vec) r3.Vec { return air.Force(t, vel) }
+	}
+	hook := s.Load.Hook
+	if s.Load.Body == nil && hook == nil {
+		su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass, air)
+	}
+	if su.fast != nil {
+		// The general path's model is built only when it runs (Options.General):
+		// combining the profiles into the suspension point's motion costs
+		// more than the specialised path's whole set-up (in wasm most of all).
+		su.general = func() pendulum.System {
+			return &pendulum.Model{Mass: mass, Suspension: ax.Suspension(s.Crane.Start()), Rope: ax.RopeLength(l0), Force: force}
+		}
+	}
+	var susp func(float64) pendulum.Kinematics
+	var rope func(float64) (float64, float64, float64)
+	if su.fast == nil {
+		susp, rope = ax.Suspension(s.Crane.Start()), ax.RopeLength(l0)
 	}
 	if s.Load.Body != nil {
 		r, y0, err := rigidModel(s, susp, rope, force, ax[crane.Turn])
@@ -136,10 +154,10 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		su.model, su.y0, su.breaks = r, y0, breaks
 		return su, nil
 	}
-	hook := s.Load.Hook
 	if hook == nil {
-		su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
-		su.fast = newFastModel(&ax, l0, s.Crane.Start(), mass, air)
+		if su.fast == nil {
+			su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
+		}
 	} else {
 		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
 			Suspension: susp, Rope: rope, Force: force}

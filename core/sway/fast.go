@@ -3,12 +3,12 @@ package sway
 import (
 	"errors"
 	"fmt"
+	"math"
 	"slices"
-
-	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
+	"swaysheet/core/units"
 )
 
 // The specialised path. A scenario with one rope (no hook block) whose
@@ -63,6 +63,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
+	if su.model == nil {
+		su.model = su.general()
+	}
 	sc := newScanner(su.model, su.motionEnd)
 	sc.maxSteps = maxN
 	sc.recorder = rec
@@ -94,7 +97,6 @@ type fastScan struct {
 	m             *fastModel
 	v             fastSolver
 	constraintErr float64
-	pt            pendulum.Point // scratch for the history
 }
 
 // state is the dense output at t inside the last step, projected.
@@ -171,7 +173,7 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	}
 	for s.hist != nil && s.next < s.samples {
 		// The last sample falls on tEnd exactly.
-		s.record(s.point(tEnd, &s.v.y))
+		s.recordState(tEnd, &s.v.y)
 	}
 	return nil
 }
@@ -184,23 +186,31 @@ func (s *fastScan) emit(t0, t1 float64) {
 			return
 		}
 		y := s.state(max(tt, t0))
-		s.record(s.point(tt, &y))
+		s.recordState(tt, &y)
 	}
 }
 
-// point is the pendulum.Point of a state, for the history (in the scratch
-// point: a returned new one would be an allocation per sample).
-func (s *fastScan) point(t float64, y *[6]float64) *pendulum.Point {
+// recordState writes the history sample of state y at t: the fields of
+// recorder.record, computed from the state as point does, without the
+// pendulum.Point between, and the swing angle's horizontal part by a
+// square root rather than math.Hypot (Go code in wasm, where this runs
+// for every one of the 601 samples; the two differ in the last bits).
+func (s *fastScan) recordState(t float64, y *[6]float64) {
 	k := s.m.kinAt(t)
 	rx, ry, rz := s.m.rel(t, &k, y)
-	p := &s.pt
-	p.T, p.Rope, p.Tension = t, k.l, s.m.tension(rx, ry, rz, k.l, k.ddl, y)
-	p.Dir = r3.Vec{X: y[0], Y: y[1], Z: y[2]}
-	p.Rate = r3.Vec{X: y[3], Y: y[4], Z: y[5]}
-	p.Suspension.Pos = r3.Vec{X: k.px, Y: k.py}
-	p.Suspension.Vel = r3.Vec{X: k.vx, Y: k.vy}
-	p.Suspension.Acc = r3.Vec{X: k.ax, Y: k.ay}
-	p.LoadPos = r3.Vec{X: k.px + k.l*y[0], Y: k.py + k.l*y[1], Z: k.l * y[2]}
-	p.LoadVel = r3.Vec{X: k.vx + (k.dl*y[0] + k.l*y[3]), Y: k.vy + (k.dl*y[1] + k.l*y[4]), Z: k.dl*y[2] + k.l*y[5]}
-	return p
+	h := s.hist
+	lx, ly, lz := k.px+k.l*y[0], k.py+k.l*y[1], k.l*y[2]
+	dx, dy := lx-k.px, ly-k.py
+	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
+	h.SwingDeg = append(h.SwingDeg, math.Atan2(math.Sqrt(dx*dx+dy*dy), -lz)/units.Degree)
+	h.RelXM = append(h.RelXM, dx)
+	h.RelYM = append(h.RelYM, dy)
+	h.RelZM = append(h.RelZM, lz)
+	h.LoadXM = append(h.LoadXM, lx)
+	h.LoadYM = append(h.LoadYM, ly)
+	h.SuspensionXM = append(h.SuspensionXM, k.px)
+	h.SuspensionYM = append(h.SuspensionYM, k.py)
+	h.TensionN = append(h.TensionN, s.m.tension(rx, ry, rz, k.l, k.ddl, y))
+	h.RopeM = append(h.RopeM, k.l)
+	s.next++
 }

@@ -122,7 +122,9 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 		p, w, al := m.ss.at(t)
 		q, rd, rdd := m.sr.at(t)
 		phi, r := m.phi0+p, m.r0+q
-		c, s := math.Cos(phi), math.Sin(phi)
+		// One argument reduction for both (Sin and Cos are written in Go, in
+		// wasm too, with the same polynomials as Sincos).
+		s, c := math.Sincos(phi)
 		vr, vt := rd, r*w
 		ar, at := rdd-r*w*w, r*al+2*rd*w
 		k.px += r * c

@@ -45,7 +45,7 @@ func (v *fastSolver) reset(t float64, y *[6]float64) {
 	v.y = *y
 	v.fresh = false
 	v.facOld = 1e-4
-	v.facOldPow = math.Exp(stepBeta * math.Log(1e-4))
+	v.facOldPow = stepExp(stepBeta * logFacFloor)
 }
 
 func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
@@ -96,7 +96,7 @@ func (v *fastSolver) initialStep(tEnd float64) float64 {
 const stepBeta = 0.04
 
 // logFacFloor is log(1e-4), the least facOld.
-var logFacFloor = math.Log(1e-4)
+var logFacFloor = stepLog(1e-4)
 
 // step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
 func (v *fastSolver) step(tEnd float64) (done bool, err error) {
@@ -162,9 +162,10 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 			errv = 1e10
 		}
 		// errv^expo1 and facOld^beta as exponentials of one logarithm:
-		// math.Pow costs about three times as much (in wasm too).
-		logErr := math.Log(errv)
-		fac11 := math.Exp(expo1 * logErr)
+		// math.Pow costs about three times as much (in wasm too), and in
+		// wasm math.Exp and math.Log cost more than stepExp and stepLog.
+		logErr := stepLog(errv)
+		fac11 := stepExp(expo1 * logErr)
 		fac := fac11 / v.facOldPow
 		// Plain comparisons in place of math.Max and math.Min (calls of
 		// their own, for NaN and signed zeros that cannot occur here).
@@ -180,7 +181,7 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 			if logErr < logFacFloor {
 				v.facOld, logErr = 1e-4, logFacFloor
 			}
-			v.facOldPow = math.Exp(beta * logErr)
+			v.facOldPow = stepExp(beta * logErr)
 			v.accepted++
 			for i := range 6 {
 				ydiff := ynew[i] - y[i]

@@ -12,6 +12,13 @@ rope length the planner verified it at: the nominal one and both ends of
 the range, with the planner's two periods of settling. The files are testdata/reference/scenarios/planned-<plan>-<option>-<L>m.json;
 `make reference` then solves them (reference.py, or double.py for those
 with a hook block). Re-run after a planner change, then `make reference`.
+
+The recommended option is the plan's own ("recommended", the index the
+planner ranks first; checked on 2026-12-02 for every planning example).
+The other shaped option may be one the planner screened and did not
+simulate (its "not_simulated" says why; in plan-precast-hook, ZV2):
+TestPlannerAgainstReference then runs that move itself, at the planner's
+tolerance, before comparing.
 Only the Python standard library is used.
 """
 

@@ -14,7 +14,6 @@ import (
 	"os/exec"
 	"path/filepath"
 	"reflect"
-	"runtime"
 	"strconv"
 	"strings"
 	"sync"
@@ -30,7 +29,6 @@ import (
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
-	"swaysheet/web/dist"
 	"swaysheet/web/site"
 )
 
@@ -82,29 +80,7 @@ func setupFor(t *testing.T, limit time.Duration) *harness {
 	if err != nil {
 		t.Fatal("chromium is not installed (make deps installs it)")
 	}
-	build := t.TempDir()
-	// Built as make wasm builds it: stripped, data segments joined.
-	wasmFile := filepath.Join(build, "swaysheet.wasm")
-	cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
-	cmd.Dir = root
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	if out, err := cmd.CombinedOutput(); err != nil {
-		t.Fatalf("building the wasm: %v\n%s", err, out)
-	}
-	if w, err := os.ReadFile(wasmFile); err != nil {
-		t.Fatal(err)
-	} else if w, err = dist.PackData(w, dist.PackGap); err != nil {
-		t.Fatal(err)
-	} else if err := os.WriteFile(wasmFile, w, 0o644); err != nil {
-		t.Fatal(err)
-	}
-	wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := os.WriteFile(filepath.Join(build, "wasm_exec.js"), wexec, 0o644); err != nil {
-		t.Fatal(err)
-	}
+	build := wasmBuild(t)
 	h := &harness{t: t, dl: t.TempDir()}
 	files := site.Handler(site.Dirs{Static: filepath.Join(root, "web", "static"), Build: build,
 		Examples: filepath.Join(root, "testdata", "scenarios")})
@@ -528,7 +504,10 @@ func TestPage(t *testing.T) {
 		if src := h.text("#examples-source"); !strings.Contains(src, "own server") {
 			t.Errorf("examples source: %q", src)
 		}
-		h.do(chromedp.Click(chromedp.CSS(`#examples-list button[data-ex="0"]`)))
+		// An example with a move of its own (a planning request without one
+		// is shown for the planner's recommended move, which the core's
+		// evaluation of the file alone does not have).
+		h.do(chromedp.Click(chromedp.Search(`//ul[@id='examples-list']//li[contains(., 'girder on the overhead crane')]//button`)))
 		h.settle()
 		h.checkShown(h.core())
 	})

@@ -170,8 +170,8 @@ func TestFiguresRows(t *testing.T) {
 	t.Run("no move: nothing simulated", func(t *testing.T) {
 		h.t = t
 		h.do(chromedp.Click(chromedp.ID("sys-si")))
-		for eval[int](h, `document.querySelectorAll('#form .move').length`) > 0 {
-			h.click("#form .move button[data-remove]")
+		for eval[int](h, `document.querySelectorAll('#move-form .move').length`) > 0 {
+			h.click("#move-form .move button[data-remove]")
 			h.settle()
 		}
 		r := h.core()

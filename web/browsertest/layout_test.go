@@ -16,7 +16,7 @@ import (
 // label cut off, chart text under 12 px as drawn.
 const layoutProblems = `(function () {
   var out = [], W = innerWidth;
-  var seen = function (e) { var r = e.getBoundingClientRect(); return r.width > 0 && r.height > 0 && getComputedStyle(e).visibility !== 'hidden'; };
+  var seen = function (e) { var r = e.getBoundingClientRect(); return e.checkVisibility({visibilityProperty: true}) && r.width > 0 && r.height > 0; };
   var name = function (e) { return e.id || (e.textContent || '').trim().slice(0, 20) || e.tagName; };
   if (document.documentElement.scrollWidth > W + 1) out.push('the page is ' + document.documentElement.scrollWidth + ' px wide');
   document.querySelectorAll('header.top *, nav.actions *, #results .fig, #verdict, .plot').forEach(function (e) {
@@ -27,6 +27,17 @@ const layoutProblems = `(function () {
   document.querySelectorAll('button, .button, label, legend, h1, h2, h3, .chart-title').forEach(function (e) {
     if (seen(e) && e.scrollWidth > e.clientWidth + 1 && getComputedStyle(e).overflow !== 'visible') out.push(name(e) + ' is cut off');
     if (seen(e) && e.closest('nav.actions') && e.scrollWidth > e.clientWidth + 1) out.push(name(e) + ' is cut off');
+  });
+  // Nothing in the page scrolls on its own (the results panel in
+  // landscape did); the plan's table keeps every number in sight.
+  document.querySelectorAll('main *').forEach(function (e) {
+    var o = getComputedStyle(e).overflowY;
+    if (seen(e) && e.tagName !== 'TEXTAREA' && (o === 'auto' || o === 'scroll') && e.scrollHeight > e.clientHeight + 1) out.push(name(e) + ' scrolls on its own');
+  });
+  document.querySelectorAll('#plan-table').forEach(function (t) {
+    var w = t.closest('.table-wrap');
+    if (seen(t) && w && w.scrollWidth > w.clientWidth + 1) out.push('the plan table is ' + w.scrollWidth + ' px wide in ' + w.clientWidth + ' px: numbers out of sight');
+    t.querySelectorAll('td').forEach(function (c) { if (c.scrollWidth > c.clientWidth + 1) out.push('plan table cell "' + c.textContent + '" is cut off'); });
   });
   document.querySelectorAll('svg.chart').forEach(function (svg) {
     if (!seen(svg)) return;
@@ -43,7 +54,7 @@ const layoutProblems = `(function () {
 // else covers.
 const covered = `(function () {
   var bar = document.querySelector('nav.actions').getBoundingClientRect().top, out = [];
-  document.querySelectorAll('#form input[type=text], #form select').forEach(function (e) {
+  document.querySelectorAll('#inputs input[type=text], #inputs select').forEach(function (e) {
     var r = e.getBoundingClientRect(), x = r.left + r.width / 2, y = r.top + r.height / 2;
     if (r.width === 0 || y < 0 || y > bar) return;
     var at = document.elementFromPoint(x, y);

@@ -35,8 +35,8 @@ export function numField(path, label, opts) {
   return '<div class="field" data-field="' + esc(path) + '">' +
     '<label for="' + id + '">' + esc(label) + (opts.optional ? ' <span class="opt">(optional)</span>' : '') + '</label>' +
     '<div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-path="' + esc(path) + '" data-dq="' + esc(dq) + '"' +
-    (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg">' + PV +
-    '<span class="unit" aria-label="unit">' + esc(u.symbol || '\u00A0') + '</span></div>' +
+    (opts.optional ? ' data-optional="1"' : '') + ' value="' + esc(text) + '" aria-describedby="' + id + '-unit ' + id + '-hint ' + id + '-msg">' + PV +
+    '<span class="unit" id="' + id + '-unit">' + esc(u.symbol || '\u00A0') + '</span></div>' +
     '<p class="hint" id="' + id + '-hint">' + esc(hint) + '</p>' +
     '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
 }

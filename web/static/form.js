@@ -10,23 +10,71 @@ import { KINDS, S, axisOf, axisOptions, axisWord, rangeKey, setPath } from './st
 import { saveUnits } from './storage.js';
 import { fmtRange, parseNumber, toSI, toShown, unitOf } from './units.js';
 
+// The forms the inputs are in, in the page's order.
+const FORMS = ['form', 'body-form', 'move-form', 'plan-form', 'sheet-form', 'more-form'];
+
+// renderForm lays the inputs out in the job's order: load and crane, the
+// move, the wind on it and the lift plan's limits (the planner follows
+// them); the sheet's references after the answer; rarely used inputs in
+// the folded "more" (swing at the start, air drag, units shown,
+// computation).
 export function renderForm() {
   var s = S.scenario, h = [];
-  h.push(section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card'));
   var hook = s.load && s.load.hook;
-  h.push(section('Load and rope',
+  h.push(section('Load and crane',
+    selectField('crane.kind', 'Crane', KINDS, (s.crane && s.crane.kind) || '') +
     numField('load.mass_kg', 'Load mass', { hint: hook ? 'the rigged load, without the hook block' : 'hook block and rigging included' }) +
     numField('load.rope_length_m', 'Rope length', { hint: hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
-    numField('load.area_m2', 'Area facing the wind', { optional: true }) +
-    numField('load.drag_coefficient', 'Air drag coefficient', { optional: true, hint: 'on the speed relative to the air; usually the shape factor; blank: no damping by the air' }) +
+    numField('crane.radius_m', 'Hook radius from the slew axis', { optional: true }) +
     '<div class="field wide"><label class="check"><input type="checkbox" id="hook-on"' + (hook ? ' checked' : '') + '> Hook block and rigging as a second mass ' +
     '<span class="opt">(heavy hook block, or long slings: two sway modes)</span></label></div>' +
     (hook ? numField('load.hook.mass_kg', 'Hook block mass') +
       numField('load.hook.rigging_length_m', 'Rigging length', { hint: 'hook block to the load\u2019s centre of mass' }) : ''), 'load-card'));
-  h.push(section('Crane',
-    selectField('crane.kind', 'Crane', KINDS, (s.crane && s.crane.kind) || '') +
-    numField('crane.radius_m', 'Hook radius from the slew axis', { optional: true }) +
-    numField('crane.slew_deg', 'Slew angle at the start', { optional: true })));
+  $('form').innerHTML = h.join('');
+  // The rigid load (body-form.js) follows the load; then the move, the
+  // wind and the limits, which the planner after them uses.
+  renderBodyForm();
+  h = [motionsHTML(s), section('Wind', windHTML(s.wind))];
+  h.push(section('Limits from the lift plan',
+    numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
+    numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
+    numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
+    numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' }), 'limits-card'));
+  $('move-form').innerHTML = h.join('');
+  $('plan-form').innerHTML = inputsHTML();
+  $('sheet-form').innerHTML = section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card') +
+    section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
+    textField('sheet.crane', 'Crane') + textField('sheet.load_description', 'Load') + textField('sheet.prepared_by', 'Prepared by') +
+    textField('sheet.checked_by', 'Checked by') + textField('sheet.date', 'Date and time'), 'sheet-card');
+  $('more-form').innerHTML = section('Swing at the start',
+    numField('initial.swing_deg', 'Initial swing', { optional: true }) +
+    numField('initial.toward_deg', 'Swing toward', { optional: true, hint: 'degrees from +x toward +y' })) +
+    section('Air drag on the load',
+    numField('load.drag_coefficient', 'Air drag coefficient', { optional: true, hint: 'on the speed relative to the air; usually the shape factor; blank: no damping by the air' }) +
+    (s.wind ? '' : numField('load.area_m2', 'Area facing the wind', { optional: true }))) +
+    section('Crane at the start', numField('crane.slew_deg', 'Slew angle at the start', { optional: true })) +
+    section('Units shown', unitChoosers(), 'units-card') +
+    section('Computation', selectField('settings.accuracy', 'Accuracy',
+      [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || ''));
+  FORMS.forEach(function (id) {
+    $(id).querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
+  });
+  openMoreWhenSet(s);
+  showErrors();
+}
+
+// openMoreWhenSet opens the "more" fold when a scenario sets something in
+// it, so nothing that changes the answer is out of sight.
+function openMoreWhenSet(s) {
+  var set = function (v) { return v !== undefined && v !== null && v !== ''; };
+  if (set(s.initial && s.initial.swing_deg) || set(s.load && s.load.drag_coefficient) || (!s.wind && set(s.load && s.load.area_m2)) ||
+    set(s.crane && s.crane.slew_deg) || set(s.settings && s.settings.accuracy) || Object.keys(S.bad).some(inMore)) {
+    $('more-fold').open = true;
+  }
+}
+function inMore(path) { return !!document.querySelector('#more-form [data-field="' + cssEsc(path) + '"]'); }
+
+function motionsHTML(s) {
   var mv = [];
   (s.motions || []).forEach(function (m, i) {
     var at = 'motions[' + i + ']', F = axisOf(m.axis).kind;
@@ -34,7 +82,7 @@ export function renderForm() {
       mv.push(motionHTML(m, i));
       return;
     }
-    mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + '</h4>' +
+    mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h3>Move ' + (i + 1) + '</h3>' +
       '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">' +
       selectField(at + '.axis', 'Axis', axisOptions(false), m.axis) +
       selectField(at + '.profile', 'Speed profile', [['trapezoid', 'trapezoid: ramp, run, ramp']], m.profile || 'trapezoid') +
@@ -45,47 +93,27 @@ export function renderForm() {
       numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' }) +
       '</div></div>');
   });
-  h.push('<fieldset class="card wide-card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
-    '<button type="button" id="add-move">Add a move</button></fieldset>');
-  var w = s.wind, wb = '';
-  wb += '<div class="field"><label class="check"><input type="checkbox" id="wind-on"' + (w ? ' checked' : '') + '> Wind on the load</label></div>';
-  if (w) {
-    var bySpeed = w.speed_m_per_s !== undefined;
-    wb += selectField('wind.mode', 'Wind given as', [['force', 'force on the load'], ['speed', 'wind speed']], bySpeed ? 'speed' : 'force', ' data-windmode="1"');
-    if (bySpeed) {
-      wb += numField('wind.speed_m_per_s', 'Wind speed', { dq: 'wind_speed', hint: '3-s gust at the load\u2019s height' }) +
-        numField('wind.shape_factor', 'Shape factor', { hint: 'about 1.2 to 2 for boxes and plates' }) +
-        numField('wind.air_density_kg_per_m3', 'Air density', { optional: true, hint: 'blank: 1.25 kg/m\u00B3' });
-    } else {
-      wb += numField('wind.force_n', 'Wind force');
-    }
-    wb += numField('wind.toward_deg', 'Pushes toward', { optional: true, hint: 'degrees from +x toward +y' }) +
-      numField('wind.start_s', 'Starts at', { optional: true }) +
-      numField('wind.duration_s', 'Lasts', { optional: true, hint: 'blank: to the end' }) +
-      numField('wind.ramp_s', 'Rises over', { optional: true, hint: 'blank: a sudden gust' });
+  return '<fieldset class="card wide-card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
+    '<button type="button" id="add-move">Add a move</button></fieldset>';
+}
+
+function windHTML(w) {
+  var wb = '<div class="field"><label class="check"><input type="checkbox" id="wind-on"' + (w ? ' checked' : '') + '> Wind on the load</label></div>';
+  if (!w) return wb;
+  var bySpeed = w.speed_m_per_s !== undefined;
+  wb += selectField('wind.mode', 'Wind given as', [['force', 'force on the load'], ['speed', 'wind speed']], bySpeed ? 'speed' : 'force', ' data-windmode="1"');
+  if (bySpeed) {
+    wb += numField('wind.speed_m_per_s', 'Wind speed', { dq: 'wind_speed', hint: '3-s gust at the load\u2019s height' }) +
+      numField('load.area_m2', 'Area facing the wind', { optional: true }) +
+      numField('wind.shape_factor', 'Shape factor', { hint: 'about 1.2 to 2 for boxes and plates' }) +
+      numField('wind.air_density_kg_per_m3', 'Air density', { optional: true, hint: 'blank: 1.25 kg/m\u00B3' });
+  } else {
+    wb += numField('wind.force_n', 'Wind force') + numField('load.area_m2', 'Area facing the wind', { optional: true });
   }
-  h.push(section('Wind', wb));
-  h.push(section('Swing at the start',
-    numField('initial.swing_deg', 'Initial swing', { optional: true }) +
-    numField('initial.toward_deg', 'Swing toward', { optional: true, hint: 'degrees from +x toward +y' })));
-  h.push(section('Limits from the lift plan',
-    numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
-    numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
-    numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
-    numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' })));
-  h.push(section('Check sheet details', textField('sheet.project', 'Project') + textField('sheet.lift_reference', 'Lift reference') +
-    textField('sheet.crane', 'Crane') + textField('sheet.load_description', 'Load') + textField('sheet.prepared_by', 'Prepared by') +
-    textField('sheet.checked_by', 'Checked by') + textField('sheet.date', 'Date and time'), 'sheet-card'));
-  h.push(section('Units shown', unitChoosers(), 'units-card'));
-  h.push(section('Computation', selectField('settings.accuracy', 'Accuracy',
-    [['', 'default'], ['tight', 'tight (slower)']], (s.settings && s.settings.accuracy) || '')));
-  $('form').innerHTML = h.join('');
-  $('plan-form').innerHTML = inputsHTML();
-  renderBodyForm();
-  document.querySelectorAll('#form, #plan-form, #body-form').forEach(function (f) {
-    f.querySelectorAll('input[type="text"], select, textarea').forEach(syncPrint);
-  });
-  showErrors();
+  return wb + numField('wind.toward_deg', 'Pushes toward', { optional: true, hint: 'degrees from +x toward +y' }) +
+    numField('wind.start_s', 'Starts at', { optional: true }) +
+    numField('wind.duration_s', 'Lasts', { optional: true, hint: 'blank: to the end' }) +
+    numField('wind.ramp_s', 'Rises over', { optional: true, hint: 'blank: a sudden gust' });
 }
 
 function onNumberInput(el) {
@@ -142,7 +170,7 @@ export function clearBad(prefix) {
 }
 
 export function bindForm() {
-  [$('form'), $('plan-form'), $('body-form')].forEach(bindOne);
+  FORMS.forEach(function (id) { bindOne($(id)); });
 }
 
 export function bindOne(f) {
@@ -214,6 +242,8 @@ export function showErrors() {
       p.textContent = (p.textContent ? p.textContent + ' ' : '') + '\u2716 ' + msg;
       var inp = box.querySelector('input,select,textarea');
       if (inp) inp.setAttribute('aria-invalid', 'true');
+      // A message is never left in the closed "more" fold.
+      if (box.closest('#more-fold')) $('more-fold').open = true;
     });
   }
   Object.keys(S.bad).forEach(function (p) { put(p, S.bad[p].message); });

@@ -128,8 +128,8 @@ function listField(path, label) {
   var text = bad ? bad.text : (Array.isArray(v) ? v.map(function (x) { return fmtField(x); }).join(', ') : '');
   return '<div class="field" data-field="' + esc(path) + '"><label for="' + id + '">' + esc(label) +
     ' <span class="opt">(optional)</span></label><div class="with-unit"><input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-list="' +
-    esc(path) + '" value="' + esc(text) + '" aria-describedby="' + id + '-hint ' + id + '-msg"><span class="pv" aria-hidden="true"></span>' +
-    '<span class="unit" aria-label="unit">%</span></div>' +
+    esc(path) + '" value="' + esc(text) + '" aria-describedby="' + id + '-unit ' + id + '-hint ' + id + '-msg"><span class="pv" aria-hidden="true"></span>' +
+    '<span class="unit" id="' + id + '-unit">%</span></div>' +
     '<p class="hint" id="' + id + '-hint">% of the top speed, slowest first, the last 100, for example 33, 67, 100; blank: the planner picks the steps</p>' +
     '<p class="msg" id="' + id + '-msg" role="alert"></p></div>';
 }
@@ -204,8 +204,8 @@ export function planOnChange(el) {
 export function motionHTML(m, i) {
   var at = 'motions[' + i + ']', F = kindOf(m);
   var sdq = F.speedQ;
-  var h = '<div class="move planned" data-move="' + i + '"><div class="move-head"><h4>Move ' + (i + 1) + ': ' + esc(axisName(m.axis)) +
-    (m.profile === 'steps' ? ', pendant speed steps' : ', shaped ramp') + '</h4>' +
+  var h = '<div class="move planned" data-move="' + i + '"><div class="move-head"><h3>Move ' + (i + 1) + ': ' + esc(axisName(m.axis)) +
+    (m.profile === 'steps' ? ', pendant speed steps' : ', shaped ramp') + '</h3>' +
     '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">';
   if (m.profile === 'steps') {
     h += '<div class="field wide"><table class="plain"><caption>Speed steps</caption><thead><tr><th scope="col">At</th><th scope="col">Speed</th></tr></thead><tbody>' +

@@ -210,7 +210,8 @@ function optionVerdict(o, short) {
 
 function planTable(r) {
   var L = sym('length');
-  var h = '<div class="table-wrap"><table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
+  var h = '<div class="table-wrap" tabindex="0" role="region" aria-label="Options, best first">' +
+    '<table class="plan-table" id="plan-table"><caption>Options, best first, each against the limits. Peak and residual: the worst over the rope lengths simulated; extra: longer than the fastest move.</caption><thead><tr>' +
     '<th scope="col">Option</th><th scope="col">Move (s)</th><th scope="col">Extra (s)</th>' +
     '<th scope="col">Peak (deg)</th><th scope="col">Excursion (' + esc(L) + ')</th><th scope="col">Residual (deg)</th></tr></thead><tbody>';
   r.options.forEach(function (o, i) {
@@ -220,9 +221,10 @@ function planTable(r) {
       '<span data-col="label">' + esc(o.label) + '</span></a>' + (rec ? ' <strong class="rec-word">Recommended</strong>' : '') +
       (o.two_mode ? ' <span class="mode-word">both modes</span>' : '') +
       '<span class="lim" data-col="limits">' + optionVerdict(o, false) + '</span></th>' +
-      '<td class="n" data-col="move">' + fmtStep('time', o.move_time_s) + '</td><td class="n" data-col="extra">' + fmtStep('time', o.penalty_s) + '</td>' +
-      '<td class="n" data-col="peak">' + fmtStep('angle', o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion">' + num('length', o.worst_peak_excursion_m) + '</td>' +
-      '<td class="n" data-col="residual">' + fmtStep('angle', o.worst_residual_swing_deg) + '</td></tr>';
+      '<td class="n" data-col="move" data-label="Move (s)">' + fmtStep('time', o.move_time_s) + '</td><td class="n" data-col="extra" data-label="Extra (s)">' + fmtStep('time', o.penalty_s) + '</td>' +
+      '<td class="n" data-col="peak" data-label="Peak (deg)">' + fmtStep('angle', o.worst_peak_swing_deg) + '</td><td class="n" data-col="excursion" data-label="Excursion (' + esc(L) + ')">' +
+      num('length', o.worst_peak_excursion_m) + '</td>' +
+      '<td class="n" data-col="residual" data-label="Residual (deg)">' + fmtStep('angle', o.worst_residual_swing_deg) + '</td></tr>';
   });
   return h + '</tbody></table></div>';
 }
@@ -282,7 +284,7 @@ function optionCard(r, o, i, w) {
   if (o.not_simulated) {
     // Screened by the planner: linear-theory estimates, never shown as checked.
     h += '<h4>Not simulated: linear-theory estimate</h4><p class="note">' + esc(o.not_simulated) + '. Use this move in the crane motions to simulate it.</p>' +
-      '<div class="table-wrap"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+      '<div class="table-wrap" tabindex="0" role="region" aria-label="Estimated figures at each rope length"><table class="plain estimated"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
       '<th scope="col">Peak swing, estimate (deg)</th><th scope="col">Peak excursion, estimate (' + esc(L) + ')</th><th scope="col">Residual swing, estimate (deg)</th></tr></thead><tbody>' +
       (o.estimated || []).map(function (v, j) {
         return '<tr><th scope="row">' + num('length', v.rope_length_m) + (j === 0 ? ' (nominal)' : '') + '</th><td class="n">' + fmtStep('angle', v.peak_swing_deg) +
@@ -290,7 +292,7 @@ function optionCard(r, o, i, w) {
       }).join('') + '</tbody></table></div>';
   } else {
     var rig = o.verified.some(function (v) { return typeof v.peak_rigging_angle_deg === 'number'; });
-    h += '<h4>Checked by simulation</h4><div class="table-wrap"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
+    h += '<h4>Checked by simulation</h4><div class="table-wrap" tabindex="0" role="region" aria-label="Checked figures at each rope length"><table class="plain verified"><thead><tr><th scope="col">Rope length (' + esc(L) + ')</th>' +
       '<th scope="col">Peak swing (deg)</th><th scope="col">Peak excursion (' + esc(L) + ')</th><th scope="col">Residual swing (deg)</th><th scope="col">Tension factor</th>' +
       (rig ? '<th scope="col">Rope to rigging (deg)</th>' : '') + '</tr></thead><tbody>' +
       o.verified.map(function (v, j) {

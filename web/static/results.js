@@ -96,7 +96,7 @@ function figureRow(row, state) {
 // evaluate call's result, folded away.
 function engineeringDetail(rows, open) {
   return '<details class="engineering" id="engineering"' + (open ? ' open' : '') + '><summary>Engineering detail</summary>' +
-    '<div class="table-wrap"><table class="plain"><thead><tr><th scope="col">technical name</th><th scope="col">value</th><th scope="col">in the result</th></tr></thead><tbody>' +
+    '<div class="table-wrap" tabindex="0" role="region" aria-label="Engineering detail"><table class="plain"><thead><tr><th scope="col">technical name</th><th scope="col">value</th><th scope="col">in the result</th></tr></thead><tbody>' +
     rows.map(function (row) {
       return '<tr data-key="' + esc(row.key) + '"><th scope="row">' + esc(row.technical) + '</th><td class="n">' + esc(row.text) + (row.unit ? ' ' + esc(row.unit) : '') +
         '</td><td><code>' + esc(row.key) + '</code></td></tr>';

@@ -51,7 +51,16 @@ func main() {
 	drawsFile := flag.String("draws", "", "time 1,000 draws of this scenario on one goroutine and on all processors")
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
+	cpuProfile := flag.String("cpuprofile", "", "write a CPU profile of the run to this file (native only; under node use node --cpu-prof)")
 	flag.Parse()
+	if *cpuProfile != "" {
+		stop, err := startProfile(*cpuProfile)
+		if err != nil {
+			fmt.Fprintln(os.Stderr, "swaybench:", err)
+			os.Exit(1)
+		}
+		defer stop()
+	}
 	switch {
 	case *scipy != "":
 		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))

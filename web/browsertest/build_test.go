@@ -1,0 +1,67 @@
+package browsertest
+
+import (
+	"fmt"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"runtime"
+	"sync"
+	"testing"
+
+	"swaysheet/web/dist"
+)
+
+var (
+	wasmOnce sync.Once
+	wasmDir  string
+	wasmErr  error
+)
+
+// wasmBuild builds the wasm and puts Go's wasm_exec.js beside it, once for
+// all the package's tests (TestMain removes the folder).
+func wasmBuild(t *testing.T) string {
+	t.Helper()
+	wasmOnce.Do(func() {
+		if wasmDir, wasmErr = os.MkdirTemp("", "swaysheet-browsertest-"); wasmErr != nil {
+			return
+		}
+		// Built as make wasm builds it: stripped, data segments joined.
+		wasmFile := filepath.Join(wasmDir, "swaysheet.wasm")
+		cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
+		cmd.Dir = root
+		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
+		if out, err := cmd.CombinedOutput(); err != nil {
+			wasmErr = fmt.Errorf("building the wasm: %v\n%s", err, out)
+			return
+		}
+		w, err := os.ReadFile(wasmFile)
+		if err == nil {
+			w, err = dist.PackData(w, dist.PackGap)
+		}
+		if err == nil {
+			err = os.WriteFile(wasmFile, w, 0o644)
+		}
+		if err != nil {
+			wasmErr = err
+			return
+		}
+		wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
+		if err == nil {
+			err = os.WriteFile(filepath.Join(wasmDir, "wasm_exec.js"), wexec, 0o644)
+		}
+		wasmErr = err
+	})
+	if wasmErr != nil {
+		t.Fatal(wasmErr)
+	}
+	return wasmDir
+}
+
+func TestMain(m *testing.M) {
+	code := m.Run()
+	if wasmDir != "" {
+		os.RemoveAll(wasmDir)
+	}
+	os.Exit(code)
+}
