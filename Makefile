@@ -63,7 +63,9 @@ examples:
 	done; printf '\n]\n'; } > wasm/bridge/examples.json
 	@echo "wrote wasm/bridge/examples.json"
 
-# The page's build output: the wasm and Go's matching wasm_exec.js. -s -w
+# The page's build output: the wasm (the core, with no net/http), the
+# small fetch wasm for the site library (wasm/fetch: tinyutil's httputil,
+# loaded only when the library is opened) and Go's matching wasm_exec.js. -s -w
 # leave out the wasm's name section (function names for the browser's
 # debugger, about 40 KB gzipped); Go's own panics and stack traces still
 # name functions (they read Go's function table, not that section).
@@ -71,11 +73,14 @@ wasm:
 	@mkdir -p $(OUT)/web
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swayfetch.wasm ./wasm/fetch
+	$(GO) run ./web/cmd/swaypack $(OUT)/web/swayfetch.wasm
 	cp "$(GOROOT)/lib/wasm/wasm_exec.js" $(OUT)/web/wasm_exec.js
 
-# The wasm of the single-file page: no net/http (a page opened from a file
-# has no origin to fetch from; the examples are the copies inside it),
-# symbols stripped. Both wasm files get their data segments joined
+# The wasm of the single-file page: no fetch at all (a page opened from a
+# file has no origin to fetch from; the examples are the copies inside it,
+# and there is no site library), symbols stripped. Every wasm file gets
+# its data segments joined
 # (swaypack: the same memory at start, about 6 % less gzipped).
 single-wasm:
 	@mkdir -p $(OUT)/single
@@ -158,7 +163,7 @@ bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(BENCH)/parts.wasm ./wasm
-	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
+	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -fetch-wasm $(OUT)/web/swayfetch.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json

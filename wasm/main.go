@@ -8,8 +8,9 @@
 //	swaysheetCall(name, inputJSON, done)
 //
 // that runs the call of bridge.Calls named name on a goroutine and calls
-// done(replyJSON) with the reply, so a call that waits (the example
-// library's fetch) never blocks the worker's event loop. It then sets
+// done(replyJSON) with the reply, so a call that waits (reading the
+// example files or the site library, fetch.go) never blocks the worker's
+// event loop. It then sets
 // swaysheetReady = true and blocks forever: the program never exits while
 // the page is open.
 package main
@@ -26,7 +27,7 @@ func main() {
 }
 
 func register() {
-	env := &bridge.Env{Fetch: fetch}
+	env := &bridge.Env{Fetch: fetch, LibraryFetch: libraryFetch}
 	js.Global().Set("swaysheetCall", js.FuncOf(func(this js.Value, args []js.Value) any {
 		if len(args) < 3 || args[0].Type() != js.TypeString || args[1].Type() != js.TypeString || args[2].Type() != js.TypeFunction {
 			return js.ValueOf(`{"error":{"message":"swaysheetCall(name, inputJSON, done) needs two strings and a function","fields":[]}}`)

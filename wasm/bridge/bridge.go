@@ -26,6 +26,11 @@ type Env struct {
 	// Fetch reads a file from the page's own origin by a URL relative to
 	// the page (nil: no network; embedded copies are used).
 	Fetch func(url string) ([]byte, error)
+	// LibraryFetch reads a file of the site library from the page's own
+	// origin by a URL relative to the page (nil: no site library). In the
+	// page it is the small fetch wasm (wasm/fetch); the calls check what
+	// it returns as they check any file.
+	LibraryFetch func(url string) ([]byte, error)
 }
 
 // Calls is the table of calls by name.

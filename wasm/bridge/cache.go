@@ -114,3 +114,20 @@ func keptPlan(s *scenario.Scenario) (*plan.Result, error) {
 	}
 	return nil, nil
 }
+
+// keptResultOf is the evaluation of s when the memo holds it, else nil:
+// for drawings that never start one.
+func keptResultOf(s *scenario.Scenario) *sway.Result {
+	fp, err := key(s)
+	if err != nil {
+		return nil
+	}
+	last.mu.Lock()
+	defer last.mu.Unlock()
+	for _, k := range last.results {
+		if k.fp == fp {
+			return k.result
+		}
+	}
+	return nil
+}

@@ -60,10 +60,10 @@ func library(env *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	if env.Fetch == nil {
+	if env.LibraryFetch == nil {
 		return nil, errNoServer
 	}
-	idx, err := env.Fetch(in.Base + "index.json")
+	idx, err := env.LibraryFetch(in.Base + "index.json")
 	if err != nil {
 		return nil, scenario.Errors{{Field: "(library)", Message: "no site library here: " + in.Base + "index.json could not be read (" + err.Error() + ")"}}
 	}
@@ -127,7 +127,7 @@ func libraryFile(env *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	if env.Fetch == nil {
+	if env.LibraryFetch == nil {
 		return nil, errNoServer
 	}
 	ex, err := libraryRead(env, in.Base, in.File)
@@ -143,7 +143,7 @@ func libraryRead(env *Env, base, f string) (Example, error) {
 	if f == "" || f != path.Base(f) || !strings.HasSuffix(f, ".json") || f == "index.json" || strings.ContainsAny(f, "?#%\\") {
 		return Example{}, fmt.Errorf("%q: not a .json file name in the library's folder", f)
 	}
-	data, err := env.Fetch(base + f)
+	data, err := env.LibraryFetch(base + f)
 	if err != nil {
 		return Example{}, fmt.Errorf("%s: could not be read (%v)", f, err)
 	}

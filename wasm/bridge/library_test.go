@@ -55,7 +55,7 @@ func TestSiteLibrary(t *testing.T) {
 	if !strings.HasPrefix(srv.URL, "http://127.0.0.1:") {
 		t.Fatalf("the test server is not on the loopback interface: %s", srv.URL)
 	}
-	env := &Env{Fetch: httpFetch(srv.URL + "/")}
+	env := &Env{LibraryFetch: httpFetch(srv.URL + "/")}
 	var r struct {
 		Result *Library
 		Error  *Error

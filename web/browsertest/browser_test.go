@@ -234,6 +234,11 @@ func TestPage(t *testing.T) {
 
 	t.Run("demo shows the core's period", func(t *testing.T) {
 		h.t = t
+		h.mu.Lock()
+		if strings.Contains(strings.Join(h.requests, " "), "fetchworker.js") {
+			t.Error("the site library's fetch worker started before the library was opened")
+		}
+		h.mu.Unlock()
 		if h.text("#example-banner") == "" || eval[bool](h, `document.getElementById('example-banner').hidden`) {
 			t.Error("the demo is not labelled as an example")
 		}
@@ -510,6 +515,28 @@ func TestPage(t *testing.T) {
 		h.do(chromedp.Click(chromedp.Search(`//ul[@id='examples-list']//li[contains(., 'girder on the overhead crane')]//button`)))
 		h.settle()
 		h.checkShown(h.core())
+	})
+
+	t.Run("the site library's fetch wasm starts only for the library", func(t *testing.T) {
+		h.t = t
+		// fetchworker.js (swayfetch.wasm) is requested by the core's worker
+		// the first time the Examples dialog lists the site library.
+		fetches := func() int {
+			h.mu.Lock()
+			defer h.mu.Unlock()
+			return strings.Count(strings.Join(h.requests, " "), "fetchworker.js")
+		}
+		h.do(chromedp.Click(chromedp.ID("open-examples")))
+		if err := h.poll(`!window.swaysheetLibrary.reading() && !!document.getElementById('library').dataset.state`, 60*time.Second); err != nil {
+			t.Errorf("the library was not read: %v", err)
+		}
+		if st := h.text("#library-source"); !strings.Contains(st, "No site library here") {
+			t.Errorf("with no library/ on the server: %q", st)
+		}
+		if fetches() == 0 {
+			t.Errorf("no fetch worker started for the library (requests: %v)", h.requests)
+		}
+		h.do(chromedp.Click(chromedp.CSS("#dlg-examples form button")))
 	})
 
 	t.Run("portrait tablet screenshot", func(t *testing.T) {

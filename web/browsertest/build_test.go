@@ -26,25 +26,28 @@ func wasmBuild(t *testing.T) string {
 		if wasmDir, wasmErr = os.MkdirTemp("", "swaysheet-browsertest-"); wasmErr != nil {
 			return
 		}
-		// Built as make wasm builds it: stripped, data segments joined.
-		wasmFile := filepath.Join(wasmDir, "swaysheet.wasm")
-		cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, "./wasm")
-		cmd.Dir = root
-		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-		if out, err := cmd.CombinedOutput(); err != nil {
-			wasmErr = fmt.Errorf("building the wasm: %v\n%s", err, out)
-			return
-		}
-		w, err := os.ReadFile(wasmFile)
-		if err == nil {
-			w, err = dist.PackData(w, dist.PackGap)
-		}
-		if err == nil {
-			err = os.WriteFile(wasmFile, w, 0o644)
-		}
-		if err != nil {
-			wasmErr = err
-			return
+		// Built as make wasm builds them: stripped, data segments joined;
+		// the core and the site library's small fetch wasm.
+		for _, b := range [][2]string{{"swaysheet.wasm", "./wasm"}, {"swayfetch.wasm", "./wasm/fetch"}} {
+			wasmFile := filepath.Join(wasmDir, b[0])
+			cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, b[1])
+			cmd.Dir = root
+			cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
+			if out, err := cmd.CombinedOutput(); err != nil {
+				wasmErr = fmt.Errorf("building %s: %v\n%s", b[0], err, out)
+				return
+			}
+			w, err := os.ReadFile(wasmFile)
+			if err == nil {
+				w, err = dist.PackData(w, dist.PackGap)
+			}
+			if err == nil {
+				err = os.WriteFile(wasmFile, w, 0o644)
+			}
+			if err != nil {
+				wasmErr = err
+				return
+			}
 		}
 		wexec, err := os.ReadFile(filepath.Join(runtime.GOROOT(), "lib", "wasm", "wasm_exec.js"))
 		if err == nil {

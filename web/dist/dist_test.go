@@ -3,12 +3,15 @@ package dist
 import (
 	"bytes"
 	"math/rand/v2"
+	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
 	"unicode/utf8"
 
 	"swaysheet/core/sheet"
+	"swaysheet/web/offline"
 )
 
 func TestText7RoundTrip(t *testing.T) {
@@ -68,6 +71,33 @@ func TestSingle(t *testing.T) {
 		strings.ReplaceAll(sheet.CSS, "</", `<\/`)} {
 		if !strings.Contains(s, want) {
 			t.Errorf("the single file lacks %q", want)
+		}
+	}
+}
+
+// TestStatic: the hostable folder holds both wasm files (the core and the
+// site library's fetch wasm with its worker), and its service worker
+// caches them.
+func TestStatic(t *testing.T) {
+	build, out := t.TempDir(), t.TempDir()
+	for _, n := range offline.Built {
+		if err := os.WriteFile(filepath.Join(build, n), []byte("x"+n), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if _, err := Static(offline.Dirs{Static: "../static", Build: build, Examples: "../../testdata/scenarios"}, "test", out); err != nil {
+		t.Fatal(err)
+	}
+	sw, err := os.ReadFile(filepath.Join(out, "sw.js"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, f := range []string{"swaysheet.wasm", "swayfetch.wasm", "fetchworker.js", "worker.js", "wasm_exec.js"} {
+		if _, err := os.Stat(filepath.Join(out, f)); err != nil {
+			t.Errorf("dist/web lacks %s", f)
+		}
+		if !strings.Contains(string(sw), `"`+f+`"`) {
+			t.Errorf("the service worker does not cache %s", f)
 		}
 	}
 }

@@ -29,7 +29,7 @@ type Dirs struct {
 }
 
 // Built are the build outputs served beside the static files.
-var Built = []string{"swaysheet.wasm", "wasm_exec.js"}
+var Built = []string{"swaysheet.wasm", "swayfetch.wasm", "wasm_exec.js"}
 
 // FromCore are the page's files that the core holds, by name: the check
 // sheet's style sheet is core/sheet's own (the page shows the sheet the

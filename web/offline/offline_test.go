@@ -67,7 +67,7 @@ func TestServiceWorkerFilesAndVersion(t *testing.T) {
 		}
 	}
 	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "coach.js", "coach.css", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js",
-		"manifest.webmanifest", "icon-192.png", "swaysheet.wasm", "wasm_exec.js", "examples/index.json", "examples/bay-travel.json"} {
+		"manifest.webmanifest", "icon-192.png", "swaysheet.wasm", "swayfetch.wasm", "fetchworker.js", "wasm_exec.js", "examples/index.json", "examples/bay-travel.json"} {
 		if !have[want] {
 			t.Errorf("the release lacks %s", want)
 		}

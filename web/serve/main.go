@@ -20,10 +20,10 @@ import (
 
 func main() {
 	addr := flag.String("addr", "127.0.0.1:8080", "address to listen on (keep it on the loopback)")
-	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm and wasm_exec.js")
+	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm, swayfetch.wasm and wasm_exec.js")
 	library := flag.String("library", "", "a site library folder to serve under /library/ (library/index.json and the scenario files it lists)")
 	flag.Parse()
-	for _, f := range []string{"swaysheet.wasm", "wasm_exec.js"} {
+	for _, f := range []string{"swaysheet.wasm", "swayfetch.wasm", "wasm_exec.js"} {
 		if _, err := os.Stat(filepath.Join(*build, f)); err != nil {
 			log.Fatalf("%v: build the wasm first (make serve)", err)
 		}

@@ -48,14 +48,21 @@ func need(t *testing.T) {
 }
 
 // buildWasm builds the wasm (with extra go build arguments) into dir with
-// Go's wasm_exec.js beside it.
+// Go's wasm_exec.js beside it, and with no extra arguments also the site
+// library's small fetch wasm (swayfetch.wasm) as make wasm does.
 func buildWasm(t *testing.T, dir string, args ...string) {
 	t.Helper()
-	cmd := exec.Command("go", append(append([]string{"build", "-trimpath"}, args...), "-o", filepath.Join(dir, "swaysheet.wasm"), "./wasm")...)
-	cmd.Dir = root
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	if out, err := cmd.CombinedOutput(); err != nil {
-		t.Fatalf("building the wasm: %v\n%s", err, out)
+	builds := [][2]string{{"swaysheet.wasm", "./wasm"}}
+	if len(args) == 0 {
+		builds = append(builds, [2]string{"swayfetch.wasm", "./wasm/fetch"})
+	}
+	for _, b := range builds {
+		cmd := exec.Command("go", append(append([]string{"build", "-trimpath"}, args...), "-o", filepath.Join(dir, b[0]), b[1])...)
+		cmd.Dir = root
+		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
+		if out, err := cmd.CombinedOutput(); err != nil {
+			t.Fatalf("building %s: %v\n%s", b[0], err, out)
+		}
 	}
 	wexec, err := os.ReadFile(filepath.Join(goruntime(), "lib", "wasm", "wasm_exec.js"))
 	if err != nil {

@@ -97,7 +97,7 @@ func TestOfflineAndNewVersion(t *testing.T) {
 	for _, p := range paths {
 		have[p] = true
 	}
-	for _, f := range []string{"/", "/index.html", "/main.js", "/engine.js", "/plan-view.js", "/coach.js", "/coach.css", "/worker.js", "/swaysheet.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
+	for _, f := range []string{"/", "/index.html", "/main.js", "/engine.js", "/plan-view.js", "/coach.js", "/coach.css", "/worker.js", "/swaysheet.wasm", "/fetchworker.js", "/swayfetch.wasm", "/wasm_exec.js", "/style.css", "/sheet.css",
 		"/print.css", "/sheet.js", "/offline.js", "/manifest.webmanifest", "/icon-192.png", "/examples/index.json", "/examples/bay-travel.json"} {
 		if !have[f] {
 			t.Errorf("the cache lacks %s", f)

@@ -23,7 +23,7 @@ import (
 // Dirs are the folders served.
 type Dirs struct {
 	Static   string // web/static
-	Build    string // holds swaysheet.wasm and wasm_exec.js
+	Build    string // holds swaysheet.wasm, swayfetch.wasm and wasm_exec.js
 	Examples string // testdata/scenarios
 	// Library is a site library folder (library/index.json and the
 	// scenario files it names), served under /library/; empty: none.
@@ -36,7 +36,7 @@ const CSP = "default-src 'self'; script-src 'self' 'wasm-unsafe-eval'; style-src
 	"img-src 'self' data: blob:; connect-src 'self'; worker-src 'self'; object-src 'none'; " +
 	"base-uri 'none'; form-action 'none'; frame-ancestors 'none'"
 
-var built = map[string]bool{"swaysheet.wasm": true, "wasm_exec.js": true}
+var built = map[string]bool{"swaysheet.wasm": true, "swayfetch.wasm": true, "wasm_exec.js": true}
 
 // Handler serves d. Only GET and HEAD of plain files are answered.
 func Handler(d Dirs) http.Handler {

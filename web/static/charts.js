@@ -24,7 +24,7 @@ const SVG_ELEMENTS = /^(svg|g|defs|clipPath|pattern|rect|line|path|circle|ellips
 
 // safeSVG parses the core's SVG text; null when it is not one plain
 // drawing. Attributes that could run or fetch anything are dropped.
-function safeSVG(text) {
+export function safeSVG(text) {
   var doc = new DOMParser().parseFromString(String(text), 'image/svg+xml');
   var root = doc.documentElement;
   if (!root || root.localName !== 'svg' || root.namespaceURI !== 'http://www.w3.org/2000/svg' || doc.getElementsByTagName('parsererror').length) return null;

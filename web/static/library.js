@@ -1,9 +1,10 @@
 // library.js: the site library, the scenario files a site office puts in
 // library/ beside the page (library/index.json lists them). The core
 // reads them from the page's own server (the "library" and "library_file"
-// calls, through tinyutil's httputil; the service worker keeps a copy of
-// each file read for use with no network) and says when there is none (a
-// page opened from a file). The list shows in the Examples dialog; a file
+// calls; the text comes from the small fetch wasm, tinyutil's httputil, in
+// a worker the core's worker starts the first time; the service worker
+// keeps a copy of each file read for use with no network) and says when
+// there is none (a page opened from a file). The list shows in the Examples dialog; a file
 // opened is adopted only when the core reads it, as a share link is.
 
 import { $, esc } from './dom.js';

@@ -11,14 +11,14 @@ import { call } from './engine.js';
 import { numField, section, textField } from './fields.js';
 import { bindOne, clearBad, showErrors } from './form.js';
 import { changed } from './compute.js';
-import { dragEdit, makeView, planSVG, sectionSVG } from './site-plan.js';
+import { askSite, dragEdit, putSVG, showHandles, siteDrawing, toMetres } from './site-plan.js';
 import { cancelRuns, poolSize, runSplit, runsGoing } from './site-runs.js';
 import { S, setPath } from './state.js';
 import { say, unitsKey } from './words.js';
 
 // C is the clearance check's state: the report shown and the inputs it is
 // of, the runs going.
-const C = { report: null, reportFor: null, started: null, going: false, done: 0, total: 0, error: null, sel: -1, fieldsKey: null, view: null, drag: null, partial: null, said: null, saying: null };
+const C = { report: null, reportFor: null, started: null, going: false, done: 0, total: 0, error: null, sel: -1, fieldsKey: null, frame: null, outlines: null, sendReport: null, drag: null, partial: null, said: null, saying: null };
 
 // siteKey is what the clearance check depends on: the scenario JSON
 // without the check sheet's reference fields (as the bridge's memo).
@@ -128,34 +128,54 @@ function verdictWords(r) {
   return r.words;
 }
 
-function pathsOf() {
-  var out = [], h = S.result && S.result.history, r = C.partial || C.report;
-  if (h && h.suspension_x_m) out.push({ x: h.suspension_x_m, y: h.suspension_y_m, cls: 'crane-path' });
-  if (r && r.nominal) out.push({ x: r.nominal.map(function (p) { return p.X; }), y: r.nominal.map(function (p) { return p.Y; }), cls: 'load-path' });
-  else if (h && h.load_x_m) out.push({ x: h.load_x_m, y: h.load_y_m, cls: 'load-path' });
-  return out;
-}
-
-// drawPlan draws the plan at the width shown (kept during a drag).
+// drawPlan asks the core for the plan and the section at the width shown
+// (the transform kept during a drag): the site as edited, the envelopes
+// of the report the bridge keeps for the inputs checked (or the partial
+// report while runs arrive, or the page's own when the bridge keeps
+// another). The selected obstacle's handles are drawn at once.
 function drawPlan(keepView) {
   var fig = $('site-plan');
   if (!fig || !S.scenario.site) return;
-  var site = C.drag ? C.drag.site : S.scenario.site, rep = C.partial || C.report, paths = pathsOf();
-  if (!keepView || !C.view) C.view = makeView(site, rep, paths, Math.max(fig.clientWidth - 4, 280));
-  fig.innerHTML = planSVG(C.view, site, rep, paths, C.sel) +
-    '<figcaption>Hatched: the exclusion zone, where the load may pass in 95 % of runs: nobody stands here during the lift. ' +
-    'Grey: where it stays in half the runs. Solid line: the load with no spread; dashed: the crane (suspension point). ' +
-    'Black: obstacles with their top heights, ringed by the margin. Drag an obstacle to move it, its round handles to resize it.' +
-    (rep && stale() ? ' The envelopes are for earlier inputs.' : '') + '</figcaption>';
-  var sec = $('site-section-fig');
-  if (sec) {
-    sec.hidden = !(rep && rep.section);
-    if (rep && rep.section && !C.drag) {
-      sec.innerHTML = sectionSVG(rep.section, Math.max(fig.clientWidth - 4, 280)) +
-        '<figcaption>Seen from the side along the crane\u2019s path: the band the load\u2019s lowest point stays in (hatched: 95 % of runs; grey: half), ' +
-        'the load\u2019s lowest point with no spread (solid) and the hook (dashed), and the obstacles it passes with their tops (black).</figcaption>';
+  var site = C.drag ? C.drag.site : S.scenario.site;
+  var input = { scenario: Object.assign({}, S.scenario, { site: site }), units: S.chosen, system: S.sys === 'us' ? 'us' : 'si',
+    width_px: Math.max(fig.clientWidth - 4, 280), max_height_px: Math.max(260, Math.min(window.innerHeight * 0.7, 640)), selected: C.sel };
+  if (C.reportFor) input.report_for = JSON.parse(C.reportFor);
+  if (C.partial) input.report = C.partial;
+  else if (C.report && C.sendReport === C.report) input.report = C.report;
+  if (keepView && C.frame) input.frame = C.frame;
+  showHandles(fig.querySelector('svg'), C.frame, C.outlines && C.outlines[C.sel], C.sel);
+  var rep = C.partial || C.report, dragging = !!C.drag;
+  askSite(input, function (r) {
+    if (!r.error && !r.result.envelopes && C.report && !C.partial && C.sendReport !== C.report) {
+      C.sendReport = C.report; // the bridge keeps another check: send the one shown
+      drawPlan(keepView);
+      return;
     }
-  }
+    var old = fig.querySelector('.chart-error');
+    if (old) old.remove();
+    if (r.error || !putSVG(fig, r.result.svg, 'site-svg')) {
+      var p = document.createElement('p');
+      p.className = 'chart-error';
+      p.textContent = '\u26A0 The plan could not be drawn' + (r.error ? ': ' + r.error.message : '.');
+      fig.appendChild(p);
+      return;
+    }
+    C.frame = r.result.frame;
+    C.outlines = r.result.outlines;
+    showHandles(fig.querySelector('svg'), C.frame, C.outlines[C.sel], C.sel);
+    var cap = fig.querySelector('figcaption') || fig.appendChild(document.createElement('figcaption'));
+    cap.textContent = 'Hatched: the exclusion zone, where the load may pass in 95 % of runs: nobody stands here during the lift. ' +
+      'Grey: where it stays in half the runs. Solid line: the load with no spread; dashed: the crane (suspension point). ' +
+      'Black: obstacles with their top heights, ringed by the margin. Drag an obstacle to move it, its round handles to resize it.' +
+      (rep && stale() ? ' The envelopes are for earlier inputs.' : '');
+    var sec = $('site-section-fig');
+    if (!sec || dragging) return;
+    sec.hidden = !r.result.section_svg;
+    if (r.result.section_svg && putSVG(sec, r.result.section_svg, 'site-section') && !sec.querySelector('figcaption')) {
+      sec.appendChild(document.createElement('figcaption')).textContent = 'Seen from the side along the crane\u2019s path: the band the load\u2019s lowest point stays in (hatched: 95 % of runs; grey: half), ' +
+        'the load\u2019s lowest point with no spread (solid) and the hook (dashed), and the obstacles it passes with their tops (black).';
+    }
+  });
 }
 
 function fieldsHTML(st) {
@@ -238,10 +258,11 @@ function bindSitePlan() {
     var t = e.target, ob = t.dataset ? t.dataset.ob : undefined;
     if (ob === undefined) { if (C.sel >= 0) { C.sel = -1; drawPlan(true); } return; }
     e.preventDefault();
+    if (!C.frame || !C.outlines) return;
     var i = Number(ob), rect = fig.querySelector('svg').getBoundingClientRect();
     C.sel = i;
     C.drag = { i: i, handle: t.dataset.handle !== undefined ? Number(t.dataset.handle) : -1, id: e.pointerId, moved: false,
-      from: C.view.world(e.clientX - rect.left, e.clientY - rect.top), rect: rect,
+      from: toMetres(C.frame, rect, e.clientX, e.clientY), rect: rect, frame: C.frame, outline: C.outlines[i],
       orig: JSON.stringify(S.scenario.site.obstacles[i]), site: JSON.parse(JSON.stringify(S.scenario.site)) };
     try { fig.setPointerCapture(e.pointerId); } catch (err) { /* synthetic pointer */ }
     drawPlan(true);
@@ -249,8 +270,8 @@ function bindSitePlan() {
   fig.addEventListener('pointermove', function (e) {
     var d = C.drag;
     if (!d || e.pointerId !== d.id) return;
-    var to = C.view.world(e.clientX - d.rect.left, e.clientY - d.rect.top);
-    d.site.obstacles[d.i] = dragEdit(JSON.parse(d.orig), d.handle, d.from, to);
+    var to = toMetres(d.frame, d.rect, e.clientX, e.clientY);
+    d.site.obstacles[d.i] = dragEdit(JSON.parse(d.orig), d.handle, d.from, to, d.outline);
     d.moved = true;
     drawPlan(true);
   });
@@ -274,7 +295,7 @@ document.addEventListener('click', function (e) {
     changed();
   } else if (t.id === 'site-add-obstacle') {
     // A 1 m square, 3 m high, in the middle of the plan shown.
-    var v = C.view, cx = v ? (v.lo[0] + v.hi[0]) / 2 : 0, cy = v ? (v.lo[1] + v.hi[1]) / 2 : 0;
+    var f = C.frame, cx = f ? f.x_m + f.width_px * f.m_per_px / 2 : 0, cy = f ? f.y_m - f.height_px * f.m_per_px / 2 : 0;
     edit(function (st) {
       st.obstacles = st.obstacles || [];
       st.obstacles.push({ name: 'obstacle ' + (st.obstacles.length + 1), top_m: 3,
@@ -311,7 +332,7 @@ window.addEventListener('resize', function () {
 window.swaysheetSite = {
   report: function () { return C.report; },
   state: function () { return { going: C.going || runsGoing(), done: C.done, total: C.total, error: C.error, stale: stale(), sel: C.sel }; },
-  settled: function () { return !C.going && !siteRunPending() && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
+  settled: function () { return !C.going && !siteRunPending() && !siteDrawing() && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
   single: function (sent) { return call('clearance', sent); },
   split: function (sent, n, workers, on) { return runSplit(sent, n, on || function () {}, workers); },
   poolSize: poolSize,

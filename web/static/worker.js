@@ -63,6 +63,63 @@ var ready = (async function () {
   while (!self.swaysheetReady) await new Promise(function (r) { setTimeout(r, 5); });
 })();
 
+// swaysheetFetch(kind, url, done) is how the core (wasm/fetch.go) reads
+// files of the page's server: done(text, '') or done('', message). The
+// example files ('example') are read with the Fetch API; the site library
+// ('library') by the small fetch wasm (swayfetch.wasm, tinyutil's
+// httputil) in a worker of its own (fetchworker.js), started the first
+// time the library is read. Each read has a deadline: one not answered in
+// time ends the fetch worker (a fresh one starts on the next read).
+var FETCH_DEADLINE_MS = 30000, fetcher = null, fetchId = 1, fetchWaiting = {};
+
+function fetchText(url) {
+  return fetch(url).then(function (r) {
+    if (!r.ok) throw new Error(url + ': ' + r.status + ' ' + r.statusText);
+    return r.text();
+  });
+}
+
+function stopFetcher(msg) {
+  var pending = fetchWaiting;
+  fetchWaiting = {};
+  if (fetcher) { try { fetcher.terminate(); } catch (e) { /* already gone */ } }
+  fetcher = null;
+  Object.keys(pending).forEach(function (id) {
+    clearTimeout(pending[id].timer);
+    pending[id].done('', msg);
+  });
+}
+
+function startFetcher() {
+  fetcher = new Worker('fetchworker.js');
+  fetcher.onmessage = function (e) {
+    var m = e.data, w = fetchWaiting[m.id];
+    if (m.id === 0) { stopFetcher('the site library reader stopped: ' + m.error); return; }
+    delete fetchWaiting[m.id];
+    if (w) { clearTimeout(w.timer); w.done(m.text || '', m.error || ''); }
+  };
+  fetcher.onerror = function (e) {
+    if (e.preventDefault) e.preventDefault();
+    stopFetcher('the site library reader failed (' + (e.message || 'unknown error') + ')');
+  };
+}
+
+self.swaysheetFetch = function (kind, url, done) {
+  if (kind !== 'library') {
+    fetchText(url).then(function (t) { done(t, ''); }, function (err) { done('', err.message); });
+    return;
+  }
+  if (!fetcher) startFetcher();
+  var id = fetchId++;
+  fetchWaiting[id] = {
+    done: done,
+    timer: setTimeout(function () {
+      if (fetchWaiting[id]) stopFetcher(url + ' was not read within ' + FETCH_DEADLINE_MS / 1000 + ' s');
+    }, FETCH_DEADLINE_MS)
+  };
+  fetcher.postMessage({ id: id, url: new URL(url, self.location.href).href });
+};
+
 onmessage = async function (e) {
   var m = e.data;
   try {

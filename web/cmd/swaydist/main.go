@@ -19,7 +19,7 @@ import (
 )
 
 func main() {
-	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm and wasm_exec.js")
+	build := flag.String("build", filepath.Join("out", "web"), "folder holding swaysheet.wasm, swayfetch.wasm and wasm_exec.js")
 	single := flag.String("single-wasm", filepath.Join("out", "single", "swaysheet.wasm"), "the wasm built with -tags nofetch for the single file")
 	out := flag.String("out", "dist", "output folder")
 	gzFile := flag.String("single-gz", "", "the single file's wasm, already gzipped (zopfli); empty: gzip -9 here")
