@@ -155,7 +155,9 @@ func (n *nearest) closest(p Point2) (float64, int) {
 	}
 }
 
-func (n *nearest) stray(run []Point2) float64 {
+// strayEvery is stray finding every point's distance: the plain form,
+// kept to check stray against.
+func (n *nearest) strayEvery(run []Point2) float64 {
 	worst := 0.0
 	for _, p := range run {
 		worst = max(worst, n.dist2(p))
@@ -270,13 +272,19 @@ func latticeRange(lo, hi, reach, cellM float64) (int, int) {
 // A ball of radius RadiusM about the points, taken as straight between
 // them: a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
 // is within the radius plus half the cell's diagonal of a piece (cells
-// already marked are not looked at again). Outlines: see sweepOutlines.
+// already marked are not looked at again; see sweepCapsules, which marks
+// each row's cells at once). Outlines: see sweepOutlines.
 func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
 	if r.Outlines != nil {
 		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
 		return
 	}
-	reach := r.RadiusM + cellM*math.Sqrt2/2
+	sweepCapsules(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
+}
+
+// sweepBallCells is sweepLattice for a ball, cell by cell: the plain form
+// of sweepCapsules, kept to check it against.
+func sweepBallCells(points []Point2, reach, cellM float64, i0, j0, nx, ny int, covered []bool) {
 	reach2 := reach * reach
 	piece := func(a, b Point2) {
 		lo, hi := latticeRange(math.Min(a.X, b.X), math.Max(a.X, b.X), reach, cellM)
@@ -294,11 +302,11 @@ func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []boo
 			}
 		}
 	}
-	if len(r.Points) == 1 {
-		piece(r.Points[0], r.Points[0])
+	if len(points) == 1 {
+		piece(points[0], points[0])
 	}
-	for i := 0; i+1 < len(r.Points); i++ {
-		piece(r.Points[i], r.Points[i+1])
+	for i := 0; i+1 < len(points); i++ {
+		piece(points[i], points[i+1])
 	}
 }
 

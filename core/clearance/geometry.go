@@ -202,18 +202,25 @@ func (o *Obstacle) Clearance(q Point3, radiusM float64) float64 {
 // outline seen from above (its centre within its radius of it), with the
 // height of its lowest point above the top (gapM, negative below it).
 func (o *Obstacle) ballClearance(q Point3, radiusM float64) (clearM float64, over bool, gapM float64) {
+	clearM, gapM, dxy := o.ballClearancePlan(q, radiusM)
+	return clearM, dxy <= radiusM, gapM
+}
+
+// ballClearancePlan is ballClearance with the plan distance dxy from the
+// centre to the outline (zero inside it); the ball is over it when dxy is
+// at most its radius.
+func (o *Obstacle) ballClearancePlan(q Point3, radiusM float64) (clearM, gapM, dxy float64) {
 	p := q.Plan()
 	in := Inside(p, o.Outline)
 	gapM = q.Z - radiusM - o.TopM
 	if in && q.Z <= o.TopM {
-		return -math.Min(EdgeDistance(p, o.Outline), o.TopM-q.Z) - radiusM, true, gapM
+		return -math.Min(EdgeDistance(p, o.Outline), o.TopM-q.Z) - radiusM, gapM, 0
 	}
-	dxy := 0.0
 	if !in {
 		dxy = EdgeDistance(p, o.Outline)
 	}
 	dz := math.Max(0, q.Z-o.TopM)
-	return math.Hypot(dxy, dz) - radiusM, dxy <= radiusM, gapM
+	return math.Hypot(dxy, dz) - radiusM, gapM, dxy
 }
 
 // SegmentStrikes reports whether the straight segment from a to b passes

@@ -37,9 +37,9 @@ type Part struct {
 // cells its load sweeps (see PlanPath.sweepLattice) as row spans, each
 // three numbers: the row less the previous span's row, the first cell less
 // the previous span's first cell, the number of cells (the first span's
-// from row 0, cell 0), and for the vertical section its distance along the
-// crane's path and its lowest point's height at each sample (float64,
-// little-endian: the distances, then the heights).
+// from row 0, cell 0), and for the vertical section its lowest point's
+// band in the section's bins along the crane's path (see runBins;
+// float64, little-endian: the first bin's index, the lows, the highs).
 type RunPart struct {
 	StrayM  float64   `json:"stray_m"`
 	Near    []RunNear `json:"near"`
@@ -236,7 +236,8 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		rp.StrayM = c.near.stray(plan.Points)
 		rp.Cells = runCells(&plan, c.opt.CellM)
 		d, low := c.track.runSection(&run, h, c.site.LoadRadiusM)
-		rp.Section = packFloats(append(d, low...))
+		b := binSection(d, low, sectionBin(c.track.length()))
+		rp.Section = packFloats(append(append([]float64{float64(b.J0)}, b.Low...), b.High...))
 		p.Runs[k] = rp
 		return nil
 	})
@@ -368,15 +369,16 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 		*e.out = out
 		envs[k] = &Envelope{Level: e.level, Runs: len(runs), Inside: n, StrayM: out.StrayM, Members: order[:n]}
 	}
-	ds, lows := map[int][]float64{}, map[int][]float64{}
+	bins := map[int]runBins{}
 	for _, m := range envs[1].Members {
 		v := unpackFloats(runs[m].Section)
-		if len(v)%2 != 0 {
+		if len(v)%2 != 1 || v[0] != math.Trunc(v[0]) || math.Abs(v[0]) > 1<<40 {
 			return nil, errors.New("clearance: a run's section is not whole")
 		}
-		ds[m], lows[m] = v[:len(v)/2], v[len(v)/2:]
+		n := len(v) / 2
+		bins[m] = runBins{J0: int(v[0]), Low: v[1 : 1+n], High: v[1+n:]}
 	}
-	rep.Section = sectionFrom(site, &c.nominal, c.track, ds, lows, envs[0], envs[1], rep.Obstacles, where)
+	rep.Section = sectionFrom(site, &c.nominal, c.track, bins, envs[0], envs[1], rep.Obstacles, where)
 	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)
 	rep.Words = words.Strings(rep.WordSentences)
 	rep.Assumptions = assumptions(rep.Outline, c.opt)

@@ -43,29 +43,27 @@ type Closest struct {
 // AlongPath checks a path, taken as straight between its samples, against
 // the obstacle: the points checked are the samples and points between
 // them at most stepM apart. stepM must be positive (a programmer's error
-// otherwise: it panics).
+// otherwise: it panics). It gives what alongPathEvery gives, looking only
+// at the points that can matter (see alongPathNear).
 func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 	if !(stepM > 0) {
 		panic("clearance: AlongPath needs a positive step")
 	}
-	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
+	return o.alongPathNear(path, radiusM, stepM)
+}
+
+// alongPathEvery is AlongPath looking at every point checked: the plain
+// form, kept to check alongPathNear against.
+func (o *Obstacle) alongPathEvery(path []Sample, radiusM, stepM float64) Closest {
+	if !(stepM > 0) {
+		panic("clearance: AlongPath needs a positive step")
+	}
+	w := newBallWatch(o, radiusM)
+	c := &w.c
 	if len(path) == 0 {
-		return c
+		return *c
 	}
-	firstOverlap := math.NaN()
-	var overlapAt Point3
-	offer := func(t float64, q Point3) {
-		v, over, gap := o.ballClearance(q, radiusM)
-		if v < c.ClearanceM {
-			c.ClearanceM, c.TimeS, c.At = v, t, q
-		}
-		if over && gap < c.GapM {
-			c.GapM, c.GapAtS, c.GapAt = gap, t, q
-		}
-		if v < 0 && math.IsNaN(firstOverlap) {
-			firstOverlap, overlapAt = t, q
-		}
-	}
+	offer := w.offer
 	offer(path[0].TimeS, path[0].At)
 	for i := 0; i+1 < len(path); i++ {
 		a, b := path[i], path[i+1]
@@ -86,11 +84,48 @@ func (o *Obstacle) AlongPath(path []Sample, radiusM, stepM float64) Closest {
 			c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, a.TimeS, a.At
 		}
 	}
-	if !math.IsNaN(firstOverlap) {
-		// An overlap at a point checked is a strike (the load's radius
-		// reaches the obstacle even where its centre line does not).
-		if !c.Strikes || firstOverlap < c.FirstStrikeS {
-			c.FirstStrikeS, c.FirstStrikeAt = firstOverlap, overlapAt
+	return w.result()
+}
+
+// ballWatch gathers what a ball's points checked along a path show (see
+// AlongPath): the smallest clearance, the smallest gap over the outline
+// and the first overlap, each the first point with it.
+type ballWatch struct {
+	o            *Obstacle
+	radiusM      float64
+	c            Closest
+	firstOverlap float64
+	overlapAt    Point3
+}
+
+func newBallWatch(o *Obstacle, radiusM float64) *ballWatch {
+	return &ballWatch{o: o, radiusM: radiusM, firstOverlap: math.NaN(),
+		c: Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}}
+}
+
+// offer checks the point q at the moment t.
+func (w *ballWatch) offer(t float64, q Point3) {
+	v, over, gap := w.o.ballClearance(q, w.radiusM)
+	if v < w.c.ClearanceM {
+		w.c.ClearanceM, w.c.TimeS, w.c.At = v, t, q
+	}
+	if over && gap < w.c.GapM {
+		w.c.GapM, w.c.GapAtS, w.c.GapAt = gap, t, q
+	}
+	if v < 0 && math.IsNaN(w.firstOverlap) {
+		w.firstOverlap, w.overlapAt = t, q
+	}
+}
+
+// result is the Closest of the points offered, the strikes of the pieces
+// between samples (set in c) joined with the first overlap: an overlap at
+// a point checked is a strike (the load's radius reaches the obstacle
+// even where its centre line does not).
+func (w *ballWatch) result() Closest {
+	c := w.c
+	if !math.IsNaN(w.firstOverlap) {
+		if !c.Strikes || w.firstOverlap < c.FirstStrikeS {
+			c.FirstStrikeS, c.FirstStrikeAt = w.firstOverlap, w.overlapAt
 		}
 		c.Strikes = true
 	}

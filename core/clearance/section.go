@@ -66,12 +66,20 @@ func (k *track) distance(p Point2) float64 {
 func sectionOf(site *Site, nominal *Run, runs []Run, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	trk := newTrack(nominal)
-	ds, lows := make(map[int][]float64, len(e95.Members)), make(map[int][]float64, len(e95.Members))
+	bin := sectionBin(trk.length())
+	bins := make(map[int]runBins, len(e95.Members))
 	for _, m := range e95.Members {
-		ds[m], lows[m] = trk.runSection(&runs[m], h, r)
+		d, low := trk.runSection(&runs[m], h, r)
+		bins[m] = binSection(d, low, bin)
 	}
-	return sectionFrom(site, nominal, trk, ds, lows, e50, e95, reps, where)
+	return sectionFrom(site, nominal, trk, bins, e50, e95, reps, where)
 }
+
+// sectionBin is the width of the section's bins along a path of lengthM:
+// a two hundredth of it, at least 5 cm. The bins are [j*bin, (j+1)*bin)
+// for whole j, the same for every run, so that each run's bins can be
+// found on its own (runBins) and joined (band).
+func sectionBin(lengthM float64) float64 { return math.Max(lengthM/200, 0.05) }
 
 // runSection is a run's distance along the track and its lowest point's
 // height at each sample.
@@ -83,9 +91,9 @@ func (k *track) runSection(run *Run, h, r float64) (d, low []float64) {
 	return d, low
 }
 
-// sectionFrom is sectionOf with the distances and lowest points of the
-// 95 % envelope's runs given (ds, lows by run index).
-func sectionFrom(site *Site, nominal *Run, trk *track, ds, lows map[int][]float64, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
+// sectionFrom is sectionOf with the bins of the 95 % envelope's runs
+// given (by run index).
+func sectionFrom(site *Site, nominal *Run, trk *track, bins map[int]runBins, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	sec := Section{PathLengthM: trk.length(), SuspensionHeightM: h, Obstacles: []SectionObstacle{}}
 	dist := func(run *Run) []float64 {
@@ -100,17 +108,9 @@ func sectionFrom(site *Site, nominal *Run, trk *track, ds, lows map[int][]float6
 		sec.Nominal = append(sec.Nominal, SectionPoint{TimeS: t, DistanceM: nd[i],
 			LowM: nominal.LowM(i, h, r), HookM: nominal.HookM(i, h)})
 	}
-	// The 50 % runs are the first of the 95 % runs (least straying first).
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, m := range e95.Members {
-		for _, d := range ds[m] {
-			lo, hi = math.Min(lo, d), math.Max(hi, d)
-		}
-	}
-	bin := math.Max(sec.PathLengthM/200, 0.05)
-	bin = math.Max(bin, (hi-lo)/2000)
-	sec.Envelope50 = band(e50, ds, lows, lo, bin)
-	sec.Envelope95 = band(e95, ds, lows, lo, bin)
+	bin := sectionBin(sec.PathLengthM)
+	sec.Envelope50 = band(e50, bins, bin)
+	sec.Envelope95 = band(e95, bins, bin)
 
 	reach := r + e95.StrayM + site.MarginM
 	if nominal.Rigid() {
@@ -151,38 +151,79 @@ func sectionFrom(site *Site, nominal *Run, trk *track, ds, lows map[int][]float6
 	return sec
 }
 
-// band is the lowest point's band over the envelope's runs: between two
-// samples a run's lowest point is taken as anywhere between its two
-// heights over the bins between their distances.
-func band(e *Envelope, ds, lows map[int][]float64, d0, bin float64) SectionBand {
+// runBins is one run's lowest point over the section's bins: in bin J0+i
+// it is between Low[i] and High[i]. Between two samples the lowest point
+// is taken as anywhere between its two heights over the bins between
+// their distances, so the bins from the first to the last are all held.
+type runBins struct {
+	J0        int
+	Low, High []float64
+}
+
+// binSection bins a run's distances along the path and lowest points at
+// each sample (see runBins) on bins of a width given.
+func binSection(d, low []float64, bin float64) runBins {
+	var out runBins
+	if len(d) == 0 {
+		return out
+	}
+	first, last := math.MaxInt, math.MinInt
+	for i := range d {
+		j0, j1 := binRange(d[max(i-1, 0)], d[i], bin)
+		first, last = min(first, j0), max(last, j1)
+	}
+	out.J0 = first
+	out.Low, out.High = make([]float64, last-first+1), make([]float64, last-first+1)
+	for i := range out.Low {
+		out.Low[i], out.High[i] = math.Inf(1), math.Inf(-1)
+	}
+	prev := low[0]
+	for i := range d {
+		j0, j1 := binRange(d[max(i-1, 0)], d[i], bin)
+		zl, zh := math.Min(prev, low[i]), math.Max(prev, low[i])
+		for j := j0; j <= j1; j++ {
+			out.Low[j-first] = math.Min(out.Low[j-first], zl)
+			out.High[j-first] = math.Max(out.High[j-first], zh)
+		}
+		prev = low[i]
+	}
+	return out
+}
+
+// binRange is the bins from distance a to distance b (either way).
+func binRange(a, b, bin float64) (int, int) {
+	j0, j1 := int(math.Floor(a/bin)), int(math.Floor(b/bin))
+	return min(j0, j1), max(j0, j1)
+}
+
+// band is the lowest point's band over the envelope's runs: each bin's
+// lowest and highest over the runs' bins.
+func band(e *Envelope, bins map[int]runBins, bin float64) SectionBand {
 	out := SectionBand{Level: e.Level, Inside: e.Inside, BinM: bin, DistM: []float64{}, LowM: []float64{}, HighM: []float64{}}
-	low, high := map[int]float64{}, map[int]float64{}
 	first, last := math.MaxInt, math.MinInt
 	for _, m := range e.Members {
-		d, lm := ds[m], lows[m]
-		prev := lm[0]
-		for i := range d {
-			z := lm[i]
-			j0, j1 := int(math.Floor((d[max(i-1, 0)]-d0)/bin)), int(math.Floor((d[i]-d0)/bin))
-			if j0 > j1 {
-				j0, j1 = j1, j0
-			}
-			zl, zh := math.Min(prev, z), math.Max(prev, z)
-			for j := j0; j <= j1; j++ {
-				if v, ok := low[j]; !ok || zl < v {
-					low[j] = zl
-				}
-				if v, ok := high[j]; !ok || zh > v {
-					high[j] = zh
-				}
-			}
-			first, last, prev = min(first, j0), max(last, j1), z
+		if b := bins[m]; len(b.Low) > 0 {
+			first, last = min(first, b.J0), max(last, b.J0+len(b.Low)-1)
 		}
 	}
-	for j := first; j <= last; j++ {
-		if v, ok := low[j]; ok {
-			out.DistM = append(out.DistM, d0+float64(j)*bin)
-			out.LowM = append(out.LowM, v)
+	if first > last {
+		return out
+	}
+	low, high := make([]float64, last-first+1), make([]float64, last-first+1)
+	for j := range low {
+		low[j], high[j] = math.Inf(1), math.Inf(-1)
+	}
+	for _, m := range e.Members {
+		b := bins[m]
+		for i := range b.Low {
+			low[b.J0+i-first] = math.Min(low[b.J0+i-first], b.Low[i])
+			high[b.J0+i-first] = math.Max(high[b.J0+i-first], b.High[i])
+		}
+	}
+	for j := range low {
+		if low[j] <= high[j] {
+			out.DistM = append(out.DistM, float64(first+j)*bin)
+			out.LowM = append(out.LowM, low[j])
 			out.HighM = append(out.HighM, high[j])
 		}
 	}

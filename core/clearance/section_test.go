@@ -2,6 +2,8 @@ package clearance
 
 import (
 	"math"
+	"math/rand/v2"
+	"reflect"
 	"testing"
 )
 
@@ -77,5 +79,68 @@ func TestSectionHandCase(t *testing.T) {
 	// the run at 0.9 m comes level with its face, from x = 9.8 m.
 	if r := reps[0]; math.Abs(r.SmallestM-0.4) > 1e-9 || r.SmallestAtDistanceM < 9.8-0.05 || r.SmallestAtDistanceM > 10.2 || r.Vertical != nil {
 		t.Errorf("column: %+v", r)
+	}
+}
+
+// bandEvery is band found from every sample of the runs at once: each
+// bin's lowest and highest over the heights of every piece between two
+// samples whose distances span it (the plain form of band).
+func bandEvery(e *Envelope, ds, lows map[int][]float64, bin float64) SectionBand {
+	out := SectionBand{Level: e.Level, Inside: e.Inside, BinM: bin, DistM: []float64{}, LowM: []float64{}, HighM: []float64{}}
+	low, high := map[int]float64{}, map[int]float64{}
+	first, last := math.MaxInt, math.MinInt
+	for _, m := range e.Members {
+		d, lm := ds[m], lows[m]
+		for i := range d {
+			j0, j1 := binRange(d[max(i-1, 0)], d[i], bin)
+			zl, zh := math.Min(lm[max(i-1, 0)], lm[i]), math.Max(lm[max(i-1, 0)], lm[i])
+			for j := j0; j <= j1; j++ {
+				if v, ok := low[j]; !ok || zl < v {
+					low[j] = zl
+				}
+				if v, ok := high[j]; !ok || zh > v {
+					high[j] = zh
+				}
+			}
+			first, last = min(first, j0), max(last, j1)
+		}
+	}
+	for j := first; j <= last; j++ {
+		if v, ok := low[j]; ok {
+			out.DistM = append(out.DistM, float64(j)*bin)
+			out.LowM = append(out.LowM, v)
+			out.HighM = append(out.HighM, high[j])
+		}
+	}
+	return out
+}
+
+func TestBandFromRunBinsMatchesEvery(t *testing.T) {
+	// The band joined from each run's own bins is the band found from
+	// every run's samples at once: runs going forward and back, some far
+	// apart so the bins between them hold none.
+	rng := rand.New(rand.NewPCG(1, 2))
+	for trial := range 100 {
+		ds, lows := map[int][]float64{}, map[int][]float64{}
+		bins := map[int]runBins{}
+		var members []int
+		bin := 0.05 + rng.Float64()
+		for m := range 1 + rng.IntN(12) {
+			n := 1 + rng.IntN(60)
+			d, z := make([]float64, n), make([]float64, n)
+			x := rng.Float64()*40 - 20
+			for i := range d {
+				d[i], z[i] = x, rng.Float64()*5
+				x += (rng.Float64() - 0.3) * 0.8
+			}
+			ds[m], lows[m], bins[m] = d, z, binSection(d, z, bin)
+			if rng.IntN(3) > 0 {
+				members = append(members, m)
+			}
+		}
+		e := &Envelope{Level: 0.5, Inside: len(members), Members: members}
+		if got, want := band(e, bins, bin), bandEvery(e, ds, lows, bin); !reflect.DeepEqual(got, want) {
+			t.Fatalf("trial %d: band %+v, from every sample %+v", trial, got, want)
+		}
 	}
 }

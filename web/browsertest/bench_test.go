@@ -40,13 +40,18 @@ const probe = `(function () {
 // first result shown, the time from an input change to the updated plot
 // (median and 95th percentile over 40 changes) and one full plan of each
 // planning example (benchPlans). It runs only when SWAYSHEET_BENCH_OUT
-// names the file for its rows.
+// names the file for its rows; with SWAYSHEET_BENCH_ROWS=clearance it
+// measures the clearance row alone.
 func TestBenchPage(t *testing.T) {
 	out := os.Getenv("SWAYSHEET_BENCH_OUT")
 	if out == "" {
 		t.Skip("page benchmark runs with SWAYSHEET_BENCH_OUT=FILE (make bench)")
 	}
 	h := setupFor(t, 15*time.Minute)
+	if os.Getenv("SWAYSHEET_BENCH_ROWS") == "clearance" {
+		writeRows(t, out, []map[string]any{benchClearance(t, h)})
+		return
+	}
 	var colds []float64
 	for range 5 {
 		if _, err := chromedp.Call(h.ctx, page.AddScriptToEvaluateOnNewDocument,
@@ -92,6 +97,11 @@ func TestBenchPage(t *testing.T) {
 	}
 	rows = append(rows, planRows...)
 	rows = append(rows, benchClearance(t, h))
+	writeRows(t, out, rows)
+}
+
+// writeRows writes the rows to the file out, one JSON object a line.
+func writeRows(t *testing.T, out string, rows []map[string]any) {
 	f, err := os.Create(out)
 	if err != nil {
 		t.Fatal(err)
