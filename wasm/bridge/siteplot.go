@@ -83,7 +83,7 @@ func sitePlot(_ *Env, input []byte) (any, error) {
 			}
 		}
 	}
-	out := SitePlotReply{Envelopes: rep != nil}
+	out := SitePlotReply{Envelopes: rep != nil, Outlines: [][]clearance.Point2{}}
 	out.SVG, out.Frame = sheet.SitePlanScreen(p)
 	for _, o := range p.Site.Obstacles {
 		out.Outlines = append(out.Outlines, o.Outline)

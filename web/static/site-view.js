@@ -161,7 +161,7 @@ function drawPlan(keepView) {
       return;
     }
     C.frame = r.result.frame;
-    C.outlines = r.result.outlines;
+    C.outlines = r.result.outlines || []; // none when the site has no obstacle
     showHandles(fig.querySelector('svg'), C.frame, C.outlines[C.sel], C.sel);
     var cap = fig.querySelector('figcaption') || fig.appendChild(document.createElement('figcaption'));
     cap.textContent = 'Hatched: the exclusion zone, where the load may pass in 95 % of runs: nobody stands here during the lift. ' +
