@@ -78,11 +78,11 @@ func Bundle(dir, entry string) (string, error) {
 				}
 				line = strings.TrimPrefix(line, "export ")
 			}
-			if m := topName.FindStringSubmatch(line); m != nil {
-				if other, ok := declared[m[1]]; ok {
-					return fmt.Errorf("%s: %s is declared in %s too", where, m[1], other)
+			for _, n := range topNames(line) {
+				if other, ok := declared[n]; ok {
+					return fmt.Errorf("%s: %s is declared in %s too", where, n, other)
 				}
-				declared[m[1]] = name
+				declared[n] = name
 			}
 			body = append(body, line)
 		}
@@ -95,3 +95,47 @@ func Bundle(dir, entry string) (string, error) {
 	}
 	return out.String(), nil
 }
+
+// topNames gives the names a top-level line declares: a function's or
+// class's name, or every name of a `let`, `const` or `var` list on the
+// line (`let a = 1, b = {}, c;`: the names before each comma at bracket
+// depth 0).
+func topNames(line string) []string {
+	m := topName.FindStringSubmatch(line)
+	if m == nil {
+		return nil
+	}
+	names := []string{m[1]}
+	rest, ok := strings.CutPrefix(line, "const ")
+	if !ok {
+		if rest, ok = strings.CutPrefix(line, "let "); !ok {
+			if rest, ok = strings.CutPrefix(line, "var "); !ok {
+				return names
+			}
+		}
+	}
+	depth, quote := 0, rune(0)
+	for i, r := range rest {
+		switch {
+		case quote != 0:
+			if r == quote {
+				quote = 0
+			}
+		case r == '\'' || r == '"' || r == '`':
+			quote = r
+		case r == '(' || r == '[' || r == '{':
+			depth++
+		case r == ')' || r == ']' || r == '}':
+			depth--
+		case r == ';' && depth == 0:
+			return names
+		case r == ',' && depth == 0:
+			if n := leadingName.FindStringSubmatch(rest[i+1:]); n != nil {
+				names = append(names, n[1])
+			}
+		}
+	}
+	return names
+}
+
+var leadingName = regexp.MustCompile(`^\s*([A-Za-z_$][\w$]*)\s*(?:=|,|;|$)`)

@@ -74,3 +74,20 @@ func TestBundleThePage(t *testing.T) {
 		t.Error("main.js is not last")
 	}
 }
+
+// Every name of a declaration list counts (two modules that both declared
+// `waiting` second in a `let` list joined into a page that did not start).
+func TestTopNamesOfALetList(t *testing.T) {
+	for line, want := range map[string]string{
+		"let worker = null, nextId = 1, waiting = {}, restarts = [];": "worker nextId waiting restarts",
+		"let waiting = null, asking = false;":                         "waiting asking",
+		"const A = { a: 1, b: [2, 3] }, B = f(1, 2);":                 "A B",
+		"var s = 'a,b', t;":                                           "s t",
+		"function f(a, b) {":                                          "f",
+		"if (x) { y = 1, z = 2; }":                                    "",
+	} {
+		if got := strings.Join(topNames(line), " "); got != want {
+			t.Errorf("%q: %q, want %q", line, got, want)
+		}
+	}
+}

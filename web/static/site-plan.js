@@ -14,31 +14,31 @@ import { call } from './engine.js';
 const HIT = 24;
 const NS = 'http://www.w3.org/2000/svg';
 
-let waiting = null, asking = false;
+let sitePending = null, siteAsking = false;
 
 // askSite asks the core for the plan of input (the "site_plot" call's:
 // scenario, units, system, report_for, report, width_px, max_height_px,
 // selected, frame); done(reply) is told of the answer unless a newer
 // request came meanwhile. One call at a time: a drag's moves coalesce.
 export function askSite(input, done) {
-  waiting = { input: input, done: done };
-  if (!asking) next();
+  sitePending = { input: input, done: done };
+  if (!siteAsking) next();
 }
 
 function next() {
-  var w = waiting;
-  waiting = null;
+  var w = sitePending;
+  sitePending = null;
   if (!w) return;
-  asking = true;
+  siteAsking = true;
   call('site_plot', JSON.stringify(w.input)).then(function (r) {
-    asking = false;
-    if (!waiting) w.done(r);
+    siteAsking = false;
+    if (!sitePending) w.done(r);
     next();
   });
 }
 
 // siteDrawing is true while a drawing is asked for.
-export function siteDrawing() { return asking || !!waiting; }
+export function siteDrawing() { return siteAsking || !!sitePending; }
 
 // putSVG puts the core's SVG text into fig in place of the one there (or
 // first), with the id given; false when it is not one plain drawing.
