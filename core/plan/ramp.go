@@ -58,7 +58,7 @@ func (rq *request) rampResidual(tr, r float64, ms modeSet) float64 {
 	for i, w := range ms.omega {
 		var res float64
 		if rq.leans() {
-			res = slewResidual(p, rq.radius, w)
+			res = rq.slewResidual(p, w)
 		} else {
 			res = 2 * (a / g) * math.Abs(math.Sin(w*ta/2))
 			if x := w * r / 2; x > 1e-9 {
@@ -125,6 +125,25 @@ func slewResidual(p motion.Profile, R, w float64) float64 {
 	// that ellipse squared is (|X|^2 + |Y|^2 + |X^2 + Y^2|)/2.
 	ax, ay := cmplx.Abs(x), cmplx.Abs(y)
 	return w / units.StandardGravity * math.Sqrt((ax*ax+ay*ay+cmplx.Abs(x*x+y*y))/2)
+}
+
+// slewResidual is slewResidual of the request's slew radius, charged to
+// the plan's budget: the quadrature's points (slewResidualPoints), each
+// about as costly as 4 work units. Once the budget is spent it returns
+// +Inf without computing (the option fails the screening, and the plan
+// ends with the budget's message right after the screening).
+func (rq *request) slewResidual(p motion.Profile, w float64) float64 {
+	if !rq.budget.Spend(4 * slewResidualPoints(p, w)) {
+		return math.Inf(1)
+	}
+	return slewResidual(p, rq.radius, w)
+}
+
+// slewResidualPoints is about the number of points slewResidual's
+// quadrature takes for the slew p at circular frequency w (8 a period and
+// a few per span): its work, for the budget.
+func slewResidualPoints(p motion.Profile, w float64) int64 {
+	return int64(p.End()*w*8/(2*math.Pi)) + 4*int64(len(p.Breakpoints())+1)
 }
 
 // rampOK reports whether one ramp setting passes the linear screening at

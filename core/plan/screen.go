@@ -236,7 +236,7 @@ func (rq *request) estimate(o *Option) (shown, low []Verified) {
 		for j, w := range ms.omega {
 			pk, rs := linearSwing(o.profile, rq.k, w)
 			if rq.leans() {
-				rs = slewResidual(o.profile, rq.radius, w)
+				rs = rq.slewResidual(o.profile, w)
 			}
 			peak += ms.share[j] * pk
 			res += ms.share[j] * rs

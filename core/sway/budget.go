@@ -73,5 +73,11 @@ func segmentWork(axes []motion.Profile, t float64) int64 {
 	return w
 }
 
+// Spend charges w units of work done outside an evaluation (a planner's
+// screening by the linear theory, for example) and reports whether the
+// budget still holds; once it is spent the caller should stop and return
+// a WorkError with the budget's message.
+func (b *Budget) Spend(w int64) bool { return b.take(w) }
+
 // Left is the work not yet spent (below zero once spent).
 func (b *Budget) Left() int64 { return b.left.Load() }
