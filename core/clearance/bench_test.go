@@ -2,6 +2,7 @@ package clearance
 
 import (
 	"swaysheet/core/internal/testscenario"
+	"swaysheet/core/sway"
 	"testing"
 )
 
@@ -26,4 +27,35 @@ func BenchmarkCheckPartPerRun(b *testing.B) {
 		}
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*runs)/1e6, "ms/run")
+}
+
+// BenchmarkObstaclesPerRun is the cost of checking one run's path against
+// every obstacle (the simulation left out: the runs are made once), the
+// part of a run's cost that the obstacle geometry adds.
+func BenchmarkObstaclesPerRun(b *testing.B) {
+	for _, name := range []string{"site-bay-columns", "site-tower-hoarding"} {
+		b.Run(name, func(b *testing.B) {
+			s := testscenario.Example(b, name)
+			sp, err := SpecOf(s)
+			if err != nil {
+				b.Fatal(err)
+			}
+			site := SiteOf(s.Site)
+			const n = 20
+			runs := make([]Run, n)
+			for i := range runs {
+				r, err := sway.EvaluateWith(sp.Variant(i), sway.Options{})
+				if err != nil {
+					b.Fatal(err)
+				}
+				runs[i] = RunOf(r)
+			}
+			for b.Loop() {
+				for i := range runs {
+					site.checkRun(&runs[i], 0.02)
+				}
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*n)/1e6, "ms/run")
+		})
+	}
 }
