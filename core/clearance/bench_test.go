@@ -50,12 +50,14 @@ func BenchmarkObstaclesPerRun(b *testing.B) {
 				}
 				runs[i] = RunOf(r)
 			}
+			cpu := cpuSeconds()
 			for b.Loop() {
 				for i := range runs {
 					site.checkRun(&runs[i], 0.02)
 				}
 			}
 			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*n)/1e6, "ms/run")
+			b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*n), "cpu-ms/run")
 		})
 	}
 }
