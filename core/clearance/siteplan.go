@@ -21,7 +21,7 @@ const planBudgetMessage = "Checking the plan's options against the site needs mo
 
 // bisections is how many times the top speed's bracket (between two
 // grid speeds) is halved.
-const bisections = 4
+const bisections = 3
 
 // PlanSite checks a plan's options against the scenario's site (see
 // SitePlan): each option's move replaces the scenario's motions and is
