@@ -21,12 +21,14 @@ func BenchmarkCheckBayColumns(b *testing.B) {
 func BenchmarkCheckPartPerRun(b *testing.B) {
 	s := testscenario.Example(b, "site-bay-columns")
 	const runs = 20
+	cpu := cpuSeconds()
 	for b.Loop() {
 		if _, err := CheckPart(s, 0, runs, Options{Workers: 1}); err != nil {
 			b.Fatal(err)
 		}
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*runs)/1e6, "ms/run")
+	b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*runs), "cpu-ms/run")
 }
 
 // BenchmarkObstaclesPerRun is the cost of checking one run's path against

@@ -54,14 +54,26 @@ func (o *Obstacle) SegmentClearance(a, b Point3, stepM float64) (clearM float64,
 	low := min(min(a.Z, b.Z), o.TopM)
 	n := len(o.Outline)
 	best2 := clearM * clearM
+	// The distance between the boxes holding ab and an edge bounds theirs
+	// from below: an edge whose box is farther than the best so far is
+	// passed over.
+	x0, x1, y0, y1, z0 := min(a.X, b.X), max(a.X, b.X), min(a.Y, b.Y), max(a.Y, b.Y), min(a.Z, b.Z)
+	gap2 := func(ex0, ex1, ey0, ey1, ez1 float64) float64 {
+		dx, dy, dz := max(0, ex0-x1, x0-ex1), max(0, ey0-y1, y0-ey1), max(0, z0-ez1)
+		return dx*dx + dy*dy + dz*dz
+	}
 	for i := 0; i < n; i++ {
 		c, e := o.Outline[i], o.Outline[(i+1)%n]
 		top := Point3{c.X, c.Y, o.TopM}
-		if d2, p := segmentDist2(a, b, top, Point3{e.X, e.Y, o.TopM}); d2 < best2 {
-			best2, at = d2, p
+		if gap2(min(c.X, e.X), max(c.X, e.X), min(c.Y, e.Y), max(c.Y, e.Y), o.TopM) < best2 {
+			if d2, p := segmentDist2(a, b, top, Point3{e.X, e.Y, o.TopM}); d2 < best2 {
+				best2, at = d2, p
+			}
 		}
-		if d2, p := segmentDist2(a, b, Point3{c.X, c.Y, low}, top); d2 < best2 {
-			best2, at = d2, p
+		if gap2(c.X, c.X, c.Y, c.Y, o.TopM) < best2 {
+			if d2, p := segmentDist2(a, b, Point3{c.X, c.Y, low}, top); d2 < best2 {
+				best2, at = d2, p
+			}
 		}
 	}
 	return math.Sqrt(best2), at, false
