@@ -22,16 +22,10 @@ import "math"
 //
 //	V = sqrt(4*d*A*D / (pi*(A + D))).
 //
-// It is not piecewise polynomial, so it implements Profile itself.
+// It is not piecewise polynomial, so it implements Profile itself. Its
+// fields are the Trapezoid's (ramped's), Accel and Decel the peaks.
 type SineRamp struct {
-	Start    float64 // s
-	Distance float64 // signed, axis units
-	Speed    float64 // top speed, > 0
-	Accel    float64 // peak acceleration, > 0
-	Decel    float64 // peak deceleration, > 0
-
-	// Derived by NewSineRamp.
-	dist, sign, peak, tAcc, tCruise, tDec float64
+	ramped
 }
 
 // NewSineRamp builds a sine-ramp move. Speed, accel and decel must be
@@ -40,43 +34,7 @@ func NewSineRamp(start, distance, speed, accel, decel float64) *SineRamp {
 	if !(speed > 0 && accel > 0 && decel > 0) {
 		panic("motion: sine ramp needs positive speed, acceleration and deceleration")
 	}
-	p := &SineRamp{Start: start, Distance: distance, Speed: speed, Accel: accel, Decel: decel}
-	d := math.Abs(distance)
-	p.dist, p.sign = d, 1
-	if distance < 0 {
-		p.sign = -1
-	}
-	v := speed
-	if ramps := math.Pi * v * v / 4 * (1/accel + 1/decel); ramps > d {
-		v = math.Sqrt(4 * d * accel * decel / (math.Pi * (accel + decel)))
-	}
-	p.peak = v
-	if v > 0 {
-		p.tAcc = math.Pi * v / (2 * accel)
-		p.tDec = math.Pi * v / (2 * decel)
-		p.tCruise = math.Max(0, (d-v*p.tAcc/2-v*p.tDec/2)/v)
-	}
-	return p
-}
-
-// Triangular reports whether the move is too short to reach its top speed.
-func (p *SineRamp) Triangular() bool { return p.peak < p.Speed*(1-1e-12) }
-
-// PeakSpeed is the highest speed the move reaches.
-func (p *SineRamp) PeakSpeed() float64 { return p.peak }
-
-// Duration is the time from start to rest.
-func (p *SineRamp) Duration() float64 { return p.tAcc + p.tCruise + p.tDec }
-
-// End implements Profile.
-func (p *SineRamp) End() float64 { return p.Start + p.Duration() }
-
-// Breakpoints implements Profile: the start and end of each ramp, where
-// the jerk jumps.
-func (p *SineRamp) Breakpoints() []float64 {
-	t1 := p.Start + p.tAcc
-	t2 := t1 + p.tCruise
-	return dedupe([]float64{p.Start, t1, t2, t2 + p.tDec})
+	return &SineRamp{newRamped(start, distance, speed, accel, decel, math.Pi/2)}
 }
 
 // At implements Profile.
@@ -109,5 +67,3 @@ func halfCosine(u, T, v float64) State {
 	h := math.Sin(w * u / 2)
 	return State{Pos: 0.5 * v * (u - math.Sin(w*u)/w), Vel: v * h * h, Acc: 0.5 * v * w * math.Sin(w*u)}
 }
-
-func (p *SineRamp) window() (float64, bool) { return p.Start, true }

@@ -144,6 +144,14 @@ class TrapezoidMove:
     def breakpoints(self):
         return [self.t0, self.t0 + self.ta, self.t0 + self.ta + self.tc, self.end()]
 
+    def _ramp_up(self, u):
+        """Position, speed and acceleration u s into the ramp up."""
+        return 0.5 * self.acc * u * u, self.acc * u, self.acc
+
+    def _ramp_down(self, left):
+        """Distance still to go, speed and acceleration left s before rest."""
+        return 0.5 * self.dec * left * left, self.dec * left, -self.dec
+
     def at(self, t):
         """Position, speed and acceleration at time t (rest outside the move)."""
         s = t - self.t0
@@ -151,13 +159,13 @@ class TrapezoidMove:
         if s <= 0:
             return 0.0, 0.0, 0.0
         if s < ta:
-            p, v, a = 0.5 * self.acc * s * s, self.acc * s, self.acc
+            p, v, a = self._ramp_up(s)
         elif s < ta + tc:
             p, v, a = 0.5 * self.v * ta + self.v * (s - ta), self.v, 0.0
         elif s < ta + tc + td:
             # Distance covered so far = d minus what the deceleration still needs.
-            left = ta + tc + td - s
-            p, v, a = self.d - 0.5 * self.dec * left * left, self.dec * left, -self.dec
+            togo, v, a = self._ramp_down(ta + tc + td - s)
+            p = self.d - togo
         else:
             p, v, a = self.d, 0.0, 0.0
         return self.sign * p, self.sign * v, self.sign * a
@@ -173,7 +181,7 @@ def trapezoid(m):
                          m.get("decel_m_per_s2", acc))
 
 
-class SineRampMove:
+class SineRampMove(TrapezoidMove):
     """Point-to-point move with half-cosine speed ramps, as motion.SineRamp
     documents it: over a ramp of duration T to speed v the acceleration is
     A sin(pi u / T) with A = pi v / (2 T), the speed v (1 - cos(pi u / T)) / 2
@@ -194,33 +202,20 @@ class SineRampMove:
         self.td = math.pi * v / (2 * dec) if v > 0 else 0.0
         self.tc = max(0.0, (d - v * self.ta / 2 - v * self.td / 2) / v) if v > 0 else 0.0
 
-    def end(self):
-        return self.t0 + self.ta + self.tc + self.td
+    # end(), breakpoints() and at() are the trapezoid's: the same phases,
+    # with these ramps.
 
-    def breakpoints(self):
-        return [self.t0, self.t0 + self.ta, self.t0 + self.ta + self.tc, self.end()]
-
-    @staticmethod
-    def _ramp(u, T, v):
+    def _ramp(self, u, T):
         w = math.pi / T
-        return (0.5 * v * (u - math.sin(w * u) / w), 0.5 * v * (1 - math.cos(w * u)),
-                0.5 * v * w * math.sin(w * u))
+        return (0.5 * self.v * (u - math.sin(w * u) / w), 0.5 * self.v * (1 - math.cos(w * u)),
+                0.5 * self.v * w * math.sin(w * u))
 
-    def at(self, t):
-        s = t - self.t0
-        ta, tc, td = self.ta, self.tc, self.td
-        if s <= 0:
-            return 0.0, 0.0, 0.0
-        if s < ta:
-            p, v, a = self._ramp(s, ta, self.v)
-        elif s < ta + tc:
-            p, v, a = 0.5 * self.v * ta + self.v * (s - ta), self.v, 0.0
-        elif s < ta + tc + td:
-            p, v, a = self._ramp(ta + tc + td - s, td, self.v)
-            p, a = self.d - p, -a
-        else:
-            p, v, a = self.d, 0.0, 0.0
-        return self.sign * p, self.sign * v, self.sign * a
+    def _ramp_up(self, u):
+        return self._ramp(u, self.ta)
+
+    def _ramp_down(self, left):
+        p, v, a = self._ramp(left, self.td)
+        return p, v, -a
 
 
 def sine_ramp(m):
