@@ -58,8 +58,8 @@ func TestAxisKinds(t *testing.T) {
 
 // TestSineRampMove: the move form offers the sine ramp (motion.SineRamp)
 // beside the trapezoid; choosing it sets the move's profile and keeps its
-// fields, the acceleration's hint says it is the largest, and the figures
-// shown are the core's for that scenario.
+// fields, the acceleration's hint says it is the largest, the figures
+// shown are the core's for that scenario, and axe-core finds nothing.
 func TestSineRampMove(t *testing.T) {
 	h := setup(t)
 	move := `JSON.parse(window.swaysheet.scenarioJSON()).motions[0]`
@@ -74,6 +74,9 @@ func TestSineRampMove(t *testing.T) {
 		t.Errorf("acceleration field of a sine ramp says %q", hint)
 	}
 	h.checkShown(h.core())
+	if bad := h.axe(); len(bad) > 0 {
+		t.Errorf("the form with a sine ramp: axe-core finds:\n%s", strings.Join(bad, "\n"))
+	}
 	h.choose("f-motions-0-profile", "trapezoid")
 	if got := eval[string](h, move+`.profile`); got != "trapezoid" {
 		t.Errorf("move switched back: profile %q", got)
