@@ -15,6 +15,11 @@ type RopeLine struct {
 	lo, hi []Point3
 	move   []float64
 	errM   float64
+	// The clearance at sample i from the obstacle being checked, val[i],
+	// is known when seen[i] == gen (gen counts the obstacles).
+	val  []float64
+	seen []int
+	gen  int
 }
 
 // prepare finds each stretch's box and movement, once.
@@ -24,6 +29,7 @@ func (l *RopeLine) prepare(stepM float64) {
 		return
 	}
 	l.lo, l.hi, l.move = make([]Point3, n), make([]Point3, n), make([]float64, n)
+	l.val, l.seen = make([]float64, n+1), make([]int, n+1)
 	for i := range n {
 		a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
 		l.lo[i] = Point3{min(a0.X, b0.X, a1.X, b1.X), min(a0.Y, b0.Y, a1.Y, b1.Y), min(a0.Z, b0.Z, a1.Z, b1.Z)}
@@ -82,45 +88,40 @@ func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Close
 		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM)
 		return
 	}
-	w := lineWatch{o: o, l: l, c: c, stepM: stepM, every: every, at: make([]float64, n)}
-	for i := range w.at {
-		w.at[i] = math.NaN()
-	}
 	l.prepare(stepM)
+	l.gen++ // a new obstacle: no sample checked against it yet
+	w := lineWatch{o: o, l: l, c: c, stepM: stepM, every: every}
 	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
-	bound := make([]float64, n-1)
-	first := 0
-	for i := range bound {
-		bound[i] = boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i])
-		if bound[i] < bound[first] {
-			first = i
+	first, least := 0, math.Inf(1)
+	for i := range n - 1 {
+		if b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]); b < least {
+			first, least = i, b
 		}
 	}
 	w.stretch(first)
-	for i := range bound {
-		if i != first && (every || bound[i] <= max(c.ClearanceM, 0)) {
+	for i := range n - 1 {
+		if i != first && (every || boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]) <= max(c.ClearanceM, 0)) {
 			w.stretch(i)
 		}
 	}
 }
 
-// lineWatch checks one line's stretches, keeping the clearance at each
-// sample once found (at, NaN until then).
+// lineWatch checks one line's stretches against one obstacle.
 type lineWatch struct {
 	o     *Obstacle
 	l     *RopeLine
 	c     *Closest
 	stepM float64
 	every bool
-	at    []float64
 }
 
 // sample is the clearance at sample i, checked once.
 func (w *lineWatch) sample(i int) float64 {
-	if math.IsNaN(w.at[i]) {
-		w.at[i] = w.o.offerLine(w.c, w.l.Name, w.l.TimeS[i], w.l.A[i], w.l.B[i], w.stepM)
+	l := w.l
+	if l.seen[i] != l.gen {
+		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM), l.gen
 	}
-	return w.at[i]
+	return l.val[i]
 }
 
 // stretch checks the moments of the stretch from sample i to i+1: a
