@@ -62,3 +62,35 @@ func TestClearanceRowsAreTheReportsFields(t *testing.T) {
 		}
 	}
 }
+
+// TestClearanceRowsHaveTheRope: each obstacle's rows give the rope's
+// clearance after the load's, name the line that comes closest, and keep
+// the engineers' figures last.
+func TestClearanceRowsHaveTheRope(t *testing.T) {
+	s := testscenario.Example(t, "site-tower-hoarding")
+	s.Site.Spread.Runs = 10
+	rep, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := PresentClearance(rep, units.Choice{})
+	o := p.Obstacles[0]
+	if o.RopePart != "hoist rope" {
+		t.Errorf("rope part %q", o.RopePart)
+	}
+	at := map[string]int{}
+	for i, r := range o.Rows {
+		at[r.Key] = i
+	}
+	for _, k := range []string{"share_keep_margin", "smallest_m", "rope.smallest_m", "rope.smallest_at_height_m", "error_bound_m"} {
+		if _, ok := at[k]; !ok {
+			t.Fatalf("no row %s: %+v", k, o.Rows)
+		}
+	}
+	if !(at["share_keep_margin"] < at["smallest_m"] && at["smallest_m"] < at["rope.smallest_m"] && at["rope.smallest_m"] < at["error_bound_m"]) || !o.Rows[len(o.Rows)-1].Detail {
+		t.Errorf("order %v", at)
+	}
+	if r := o.Rows[at["rope.smallest_m"]]; r.Crew != "closest the rope comes" || r.ValueSI != rep.Obstacles[0].Rope.SmallestM {
+		t.Errorf("rope row %+v", r)
+	}
+}

@@ -127,6 +127,10 @@ type BodyPoint struct {
 	// corner from where it hangs still under the suspension point (with a
 	// spreader, turned with the slew), m^2.
 	CornerSwing2 float64
+	// LegTop and LegEnd are each leg's ends on the ground frame, m: the
+	// hook (parallel legs: the leg's top point) and its attach point on
+	// the load; NLegs of them.
+	LegTop, LegEnd [4]r3.Vec
 }
 
 func (r *Rigid) g() float64 {

@@ -160,6 +160,12 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	}
 	p.HookPos = hook
 	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+	for i := range bp.NLegs {
+		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
+		if r.Spreader > 0 {
+			bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+		}
+	}
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
 	for i := range 8 {
 		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))

@@ -83,6 +83,11 @@ type BodyHistory struct {
 	CornerXM [][]float64 `json:"corner_x_m"`
 	CornerYM [][]float64 `json:"corner_y_m"`
 	CornerZM [][]float64 `json:"corner_z_m"`
+	// LegTopXM ... LegEndZM are each sling leg's ends on the ground frame,
+	// [leg][sample] (pendulum.BodyPoint's LegTop, LegEnd): for the
+	// clearance check's lines (core/clearance), not sent as JSON.
+	LegTopXM, LegTopYM, LegTopZM [][]float64 `json:"-"`
+	LegEndXM, LegEndYM, LegEndZM [][]float64 `json:"-"`
 }
 
 func (h *BodyHistory) add(p *pendulum.Point) {
@@ -90,11 +95,17 @@ func (h *BodyHistory) add(p *pendulum.Point) {
 	if h.LegTensionN == nil {
 		h.LegTensionN = make([][]float64, b.NLegs)
 		h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
+		for _, a := range []*[][]float64{&h.LegTopXM, &h.LegTopYM, &h.LegTopZM, &h.LegEndXM, &h.LegEndYM, &h.LegEndZM} {
+			*a = make([][]float64, b.NLegs)
+		}
 	}
 	h.TiltDeg = append(h.TiltDeg, b.TiltRad/units.Degree)
 	h.TwistDeg = append(h.TwistDeg, b.TwistRad/units.Degree)
 	for i := range b.NLegs {
 		h.LegTensionN[i] = append(h.LegTensionN[i], b.Legs[i])
+		t, e := b.LegTop[i], b.LegEnd[i]
+		h.LegTopXM[i], h.LegTopYM[i], h.LegTopZM[i] = append(h.LegTopXM[i], t.X), append(h.LegTopYM[i], t.Y), append(h.LegTopZM[i], t.Z)
+		h.LegEndXM[i], h.LegEndYM[i], h.LegEndZM[i] = append(h.LegEndXM[i], e.X), append(h.LegEndYM[i], e.Y), append(h.LegEndZM[i], e.Z)
 	}
 	for i, c := range b.Corners {
 		h.CornerXM[i] = append(h.CornerXM[i], c.X)

@@ -69,8 +69,17 @@ func TestClearanceFiguresCall(t *testing.T) {
 		t.Fatal(err)
 	}
 	rep := out.(figures.ClearanceReport)
-	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].Rows[0].Unit != "ft" {
+	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].RopePart != "hoist rope" {
 		t.Errorf("report %+v", rep)
+	}
+	// Lengths in the units asked for, the rope's among them.
+	for _, r := range rep.Obstacles[0].Rows {
+		if r.UnitSI == "m" && r.Unit != "ft" {
+			t.Errorf("%s in %q", r.Key, r.Unit)
+		}
+	}
+	if r := rep.Obstacles[0].Rows; len(r) == 0 || r[0].Key != "share_keep_margin" {
+		t.Errorf("first row %+v", r)
 	}
 	if _, err := json.Marshal(rep); err != nil {
 		t.Fatal(err)
