@@ -27,6 +27,8 @@ var ObstacleTable = []ClearanceFigure{
 		func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtDistanceM, true }},
 	{"share_keep_margin", "runs that keep the margin", "share of the runs keeping the margin", "", "share",
 		func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMargin, true }},
+	{"share_strike", "runs that strike it", "share of the runs whose load touches or passes into it", "", "share",
+		func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareStrike, true }},
 	{"share_keep_margin_low", "of all runs, at least (95 % sure)", "lower 95 % confidence bound of that share (Clopper-Pearson)", "", "share",
 		func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
 	{"first_strike_s", "first strike at", "earliest moment of a strike over the runs", "s", "",
@@ -107,12 +109,21 @@ func spread(f func(*clearance.Report) float64) func(*clearance.Report) (float64,
 type ClearanceReport struct {
 	Rows      []Row          `json:"rows"`
 	Obstacles []ObstacleRows `json:"obstacles"`
+	// WorstFirst lists the obstacles' indices, the one kept clear in the
+	// fewest runs first (then the closest approach): the order a crew
+	// reads them in (clearanceverdict.go).
+	WorstFirst []int `json:"worst_first"`
 }
 
 // ObstacleRows are one obstacle's figures.
 type ObstacleRows struct {
 	Name string `json:"name"`
 	Rows []Row  `json:"rows"`
+	// Keeps is true when the obstacle keeps the margin in at least
+	// clearance.Required of the runs; Verdict says so in words, in the
+	// units shown (clearanceverdict.go).
+	Keeps   bool   `json:"keeps"`
+	Verdict string `json:"verdict"`
 }
 
 // PresentClearance gives the rows of the check and of each obstacle, in
@@ -133,7 +144,9 @@ func PresentClearance(r *clearance.Report, u units.Choice) ClearanceReport {
 				rows.Rows = append(rows.Rows, Figure{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Unit: f.Unit, Quantity: f.Qu}.row(v, u))
 			}
 		}
+		rows.Keeps, rows.Verdict = obstacleVerdict(o, r.MarginM, u)
 		out.Obstacles = append(out.Obstacles, rows)
 	}
+	out.WorstFirst = worstFirst(r.Obstacles)
 	return out
 }
