@@ -145,6 +145,7 @@ func PresentClearance(r *clearance.Report, u units.Choice) ClearanceReport {
 			}
 		}
 		rows.Keeps, rows.Verdict = obstacleVerdict(o, r.MarginM, u)
+		markDetail(rows.Rows)
 		out.Obstacles = append(out.Obstacles, rows)
 	}
 	out.WorstFirst = worstFirst(r.Obstacles)

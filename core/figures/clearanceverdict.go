@@ -47,3 +47,15 @@ func worstFirst(obs []clearance.ObstacleReport) []int {
 	})
 	return idx
 }
+
+// obstacleDetail are the obstacle's figures for engineers (Row.Detail):
+// the page gives them folded, after the crew's.
+var obstacleDetail = map[string]bool{"share_keep_margin_low": true, "error_bound_m": true}
+
+func markDetail(rows []Row) {
+	for i := range rows {
+		if obstacleDetail[rows[i].Key] {
+			rows[i].Detail = true
+		}
+	}
+}
