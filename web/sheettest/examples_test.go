@@ -5,6 +5,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"strings"
 	"testing"
 
 	"github.com/chromedp/chromedp"
@@ -64,7 +65,11 @@ func TestEveryExampleOnePage(t *testing.T) {
 					t.Fatal(err)
 				}
 				if !one.Match(info) {
-					t.Errorf("%s (%s) at %s: not one page", filepath.Base(f), sys, p.name)
+					// Kept to look at: out/browser/not-one-page-*.pdf.
+					keep := filepath.Join(root, "out", "browser", "not-one-page-"+strings.TrimSuffix(filepath.Base(f), ".json")+"-"+sys+"-"+p.name+".pdf")
+					os.MkdirAll(filepath.Dir(keep), 0o755)
+					os.WriteFile(keep, b.pdf(p.w, p.h), 0o644)
+					t.Errorf("%s (%s) at %s: not one page (kept as %s)", filepath.Base(f), sys, p.name, keep)
 				}
 			}
 		}
