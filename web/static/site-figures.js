@@ -12,9 +12,9 @@ import { call } from './engine.js';
 import { S } from './state.js';
 import { unitsKey } from './words.js';
 
-// F is what is shown: the report and units key it is of, the reply, the
+// CF is what is shown: the report and units key it is of, the reply, the
 // request waiting.
-const F = { report: null, key: null, reply: null, error: null, asking: null };
+const CF = { report: null, key: null, reply: null, error: null, asking: null };
 
 // showObstacleFigures shows the figures of report (the last full check,
 // or null) in #clearance-figures; note says when it is of earlier inputs
@@ -24,66 +24,66 @@ export function showObstacleFigures(report, note) {
   var box = $('clearance-figures');
   if (!box) return;
   var key = unitsKey();
-  if (!report) { F.report = null; F.reply = null; F.error = null; draw(box, note); return; }
-  if (F.report === report && F.key === key) { draw(box, note); return; }
-  if (F.asking && F.asking.report === report && F.asking.key === key) return;
-  var asked = F.asking = { report: report, key: key };
+  if (!report) { CF.report = null; CF.reply = null; CF.error = null; drawObstacleFigures(box, note); return; }
+  if (CF.report === report && CF.key === key) { drawObstacleFigures(box, note); return; }
+  if (CF.asking && CF.asking.report === report && CF.asking.key === key) return;
+  var asked = CF.asking = { report: report, key: key };
   var input = '{"scenario":' + S.resultSent + ',"units":' + JSON.stringify(S.chosen) + ',"system":' + JSON.stringify(S.sys === 'us' ? 'us' : 'si') +
     ',"report":' + JSON.stringify(report) + '}';
   call('clearance_figures', input).then(function (r) {
-    if (F.asking !== asked) return;
-    F.asking = null;
-    F.report = report;
-    F.key = key;
-    F.reply = r.error ? null : r.result;
-    F.error = r.error ? r.error.message : null;
+    if (CF.asking !== asked) return;
+    CF.asking = null;
+    CF.report = report;
+    CF.key = key;
+    CF.reply = r.error ? null : r.result;
+    CF.error = r.error ? r.error.message : null;
     var b = $('clearance-figures');
-    if (b) draw(b, F.note);
+    if (b) drawObstacleFigures(b, CF.note);
   });
-  F.note = note;
+  CF.note = note;
 }
 
-function rowsHTML(rows) {
+function clrRowsHTML(rows) {
   return rows.map(function (r) {
     return '<div class="clr-row" data-key="' + esc(r.key) + '"><dt>' + esc(r.crew) + '</dt><dd>' + esc(r.text) + (r.unit ? ' ' + esc(r.unit) : '') + '</dd></div>';
   }).join('');
 }
 
-function detailHTML(rows) {
+function clrDetailHTML(rows) {
   if (!rows.length) return '';
   return '<details class="clr-detail"><summary>For engineers</summary><dl>' + rows.map(function (r) {
     return '<div class="clr-row" data-key="' + esc(r.key) + '"><dt>' + esc(r.technical) + '</dt><dd>' + esc(r.text) + (r.unit ? ' ' + esc(r.unit) : '') + '</dd></div>';
   }).join('') + '</dl></details>';
 }
 
-function split(rows) {
+function clrSplit(rows) {
   return { crew: rows.filter(function (r) { return !r.detail; }), detail: rows.filter(function (r) { return r.detail; }) };
 }
 
 // draw writes the list: the obstacles in the core's worst_first order
 // (the site's order when the reply has none).
-function draw(box, note) {
-  F.note = note;
+function drawObstacleFigures(box, note) {
+  CF.note = note;
   var h = ['<h3 class="clr-head">Each obstacle, worst first</h3>'];
   if (note) h.push('<p class="clr-note">' + esc(note) + '</p>');
-  if (F.error) h.push('<p class="clr-note">\u2716 The figures could not be presented: ' + esc(F.error) + '</p>');
-  var rep = F.reply;
-  if (!rep && !note && !F.error) { h = []; }
+  if (CF.error) h.push('<p class="clr-note">\u2716 The figures could not be presented: ' + esc(CF.error) + '</p>');
+  var rep = CF.reply;
+  if (!rep && !note && !CF.error) { h = []; }
   if (rep) {
     var order = rep.worst_first || rep.obstacles.map(function (o, i) { return i; });
     h.push('<ol class="clr-list">');
     order.forEach(function (i) {
       var o = rep.obstacles[i];
       if (!o) return;
-      var rs = split(o.rows || []), v = o.verdict || '';
+      var rs = clrSplit(o.rows || []), v = o.verdict || '';
       h.push('<li class="clr-ob ' + (o.keeps ? 'ok' : 'out') + '" data-ob="' + i + '"><h4>' + esc(o.name || 'obstacle ' + (i + 1)) + '</h4>' +
         (v ? '<p class="clr-verdict">' + (o.keeps ? '\u2714 ' : '\u2716 ') + esc(v) + '</p>' : '') +
-        '<dl>' + rowsHTML(rs.crew) + '</dl>' + detailHTML(rs.detail) + '</li>');
+        '<dl>' + clrRowsHTML(rs.crew) + '</dl>' + clrDetailHTML(rs.detail) + '</li>');
     });
     h.push('</ol>');
-    var all = split(rep.rows || []);
+    var all = clrSplit(rep.rows || []);
     if (all.crew.length || all.detail.length) {
-      h.push('<details class="clr-check"><summary>The check as a whole: margin, keep-out area, spreads</summary><dl>' + rowsHTML(all.crew) + '</dl>' + detailHTML(all.detail) + '</details>');
+      h.push('<details class="clr-check"><summary>The check as a whole: margin, keep-out area, spreads</summary><dl>' + clrRowsHTML(all.crew) + '</dl>' + clrDetailHTML(all.detail) + '</details>');
     }
   }
   var html = h.join('');
@@ -91,7 +91,7 @@ function draw(box, note) {
 }
 
 // obstacleFiguresSettled: no figures asked for and not yet shown.
-export function obstacleFiguresSettled() { return !F.asking; }
+export function obstacleFiguresSettled() { return !CF.asking; }
 
 // obstacleFigures is the reply shown (for the browser tests).
-export function obstacleFigures() { return F.reply; }
+export function obstacleFigures() { return CF.reply; }

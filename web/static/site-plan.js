@@ -62,7 +62,7 @@ export function toMetres(frame, rect, clientX, clientY) {
 // showHandles draws the handles of obstacle sel at the corners of its
 // outline (the core's, in metres) over the plan svg; none when sel < 0.
 // When two corners are closer on screen than a handle's target (a small
-// obstacle on a phone), every handle is set out from its corner by OUT
+// obstacle on a phone), every handle is set out from its corner by HANDLE_OUT
 // px along the corner's outward bisector, with a line back to it: the
 // targets then do not overlap one another (a rectangle's neighbours end
 // at least 51 px apart) and leave the obstacle itself free to drag.
@@ -77,20 +77,20 @@ export function showHandles(svg, frame, outline, sel) {
   var at = handlePlaces(pts, s);
   pts.forEach(function (p, j) {
     var x = at[j][0].toFixed(1), y = at[j][1].toFixed(1);
-    if (at[j][0] !== p[0] || at[j][1] !== p[1]) g.appendChild(shape('line', { 'class': 'handle-lead', x1: p[0].toFixed(1), y1: p[1].toFixed(1), x2: x, y2: y }));
-    g.appendChild(shape('circle', { 'class': 'handle-hit', cx: x, cy: y, r: (HIT * s).toFixed(1), 'data-handle': j, 'data-ob': sel }));
-    g.appendChild(shape('circle', { 'class': 'handle', cx: x, cy: y, r: (8 * s).toFixed(1) }));
+    if (at[j][0] !== p[0] || at[j][1] !== p[1]) g.appendChild(svgShape('line', { 'class': 'handle-lead', x1: p[0].toFixed(1), y1: p[1].toFixed(1), x2: x, y2: y }));
+    g.appendChild(svgShape('circle', { 'class': 'handle-hit', cx: x, cy: y, r: (HIT * s).toFixed(1), 'data-handle': j, 'data-ob': sel }));
+    g.appendChild(svgShape('circle', { 'class': 'handle', cx: x, cy: y, r: (8 * s).toFixed(1) }));
   });
   svg.appendChild(g);
 }
 
-// OUT is how far (CSS px) a handle is set out from its corner when the
+// HANDLE_OUT is how far (CSS px) a handle is set out from its corner when the
 // corners are too close for their targets.
-const OUT = 36;
+const HANDLE_OUT = 36;
 
 // handlePlaces gives each corner's handle centre (drawing units; s of
 // them to a CSS px): the corner itself when every two corners are at
-// least a target (2 HIT px) apart, else set out by OUT px along the
+// least a target (2 HIT px) apart, else set out by HANDLE_OUT px along the
 // outward bisector of its corner (away from the outline's inside, also
 // at a corner turned inward).
 export function handlePlaces(pts, s) {
@@ -102,7 +102,7 @@ export function handlePlaces(pts, s) {
   }
   if (near >= 2 * HIT || n < 3) return pts;
   return pts.map(function (p, i) {
-    var u = unit(pts[(i + n - 1) % n], p), v = unit(pts[(i + 1) % n], p);
+    var u = unitToward(pts[(i + n - 1) % n], p), v = unitToward(pts[(i + 1) % n], p);
     var bx = u[0] + v[0], by = u[1] + v[1], l = Math.hypot(bx, by);
     // At a corner that turns the way the outline runs, u + v points
     // inside; at one turned against it, outside.
@@ -111,17 +111,17 @@ export function handlePlaces(pts, s) {
     if (l < 1e-9) out = area > 0 ? [-u[1], u[0]] : [u[1], -u[0]]; // straight on: the edge's outward normal
     else if (turn * area > 0) out = [-bx / l, -by / l];
     else out = [bx / l, by / l];
-    return [p[0] + out[0] * OUT * s, p[1] + out[1] * OUT * s];
+    return [p[0] + out[0] * HANDLE_OUT * s, p[1] + out[1] * HANDLE_OUT * s];
   });
 }
 
 // unit is the unit vector from p to q ([0, 0] when they meet).
-function unit(q, p) {
+function unitToward(q, p) {
   var dx = q[0] - p[0], dy = q[1] - p[1], l = Math.hypot(dx, dy);
   return l > 0 ? [dx / l, dy / l] : [0, 0];
 }
 
-function shape(tag, attrs) {
+function svgShape(tag, attrs) {
   var e = document.createElementNS(NS, tag);
   Object.keys(attrs).forEach(function (k) { e.setAttribute(k, attrs[k]); });
   return e;
