@@ -86,6 +86,19 @@ func TestClearanceFiguresList(t *testing.T) {
 		t.Errorf("the page is %g px wide at 390", w)
 	}
 	shot(h, "clearance-figures-phone.png")
+	for _, vp := range []struct {
+		name string
+		w, h int64
+	}{{"tablet-portrait", 820, 1180}, {"tablet-landscape", 1180, 820}} {
+		h.do(chromedp.EmulateViewport(vp.w, vp.h))
+		time.Sleep(400 * time.Millisecond)
+		h.centreOf("#clearance-figures")
+		if bad := eval[string](h, `(function(){var W=innerWidth,out=[];if(document.documentElement.scrollWidth>W+1)out.push('page '+document.documentElement.scrollWidth+' px wide');
+			document.querySelectorAll('#clearance-figures dd').forEach(function(d){var r=d.getBoundingClientRect();if(r.right>W+0.5)out.push(d.textContent+' past the edge');});return out.join('; ');})()`); bad != "" {
+			t.Errorf("%s: %s", vp.name, bad)
+		}
+		shot(h, "clearance-figures-"+vp.name+".png")
+	}
 }
 
 // shot keeps a screenshot in out/browser.
