@@ -66,8 +66,8 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 	v.Section = markup(siteSectionPaper(&rep.Section, u))
 	v.Caption = "Seen from above. Hatched: the exclusion zone (95 % of runs): nobody stands here during the lift. Grey: where the load stays in half the runs. Solid line: the load's path with no spread. Black: obstacles, with their top heights; grey band: the margin around them."
 	if v.Section != "" {
-		v.Caption = "Left, from above: hatched, the exclusion zone (95 % of runs): nobody stands here during the lift; grey, half the runs; solid, the load's path with no spread; black, obstacles with their tops, the margin in grey around. " +
-			"Right, from the side along the path: the load's lowest point, hatched band 95 % of runs, grey half; solid, no spread; dashed, the hook; black, the obstacles passed, to their tops."
+		v.Caption = "Left, from above: hatched, the exclusion zone (95 % of runs): nobody stands here during the lift; grey, half the runs; solid, the load with no spread; black, obstacles with their tops, the margin grey around. " +
+			"Right, from the side along the path: the load's lowest point (hatched 95 % of runs, grey half, solid no spread), the hook dashed, the obstacles passed black to their tops."
 	}
 	return v
 }
@@ -95,22 +95,22 @@ func (h *htmlWriter) site(v *siteView) {
 		h.m(v.Plan)
 		h.m(v.Section)
 		h.raw("</div>")
-		h.el("figcaption", "", v.Caption)
+		h.el("figcaption", "", v.Caption+" Spreads used: "+v.Spread)
 		h.raw("</figure>\n")
-		h.siteTable(v)
+		h.siteTable(v, false)
 	} else {
 		h.raw("<div class=\"sw-site-grid sw-site-beside\">\n<figure>")
 		h.m(v.Plan)
 		h.el("figcaption", "", v.Caption)
 		h.raw("</figure>\n<div>\n")
-		h.siteTable(v)
+		h.siteTable(v, true)
 		h.raw("</div>\n</div>\n")
 	}
 	h.raw("</section>\n")
 }
 
-// siteTable writes each obstacle's row and the spreads used.
-func (h *htmlWriter) siteTable(v *siteView) {
+// siteTable writes each obstacle's row, and the spreads used when asked.
+func (h *htmlWriter) siteTable(v *siteView, spreads bool) {
 	h.raw("<table class=\"sw-t sw-clr\"><thead><tr><th>obstacle</th><th>top</th><th>keeps the margin</th><th>95 % of runs keep</th><th>smallest</th><th>room under the load over it</th></tr></thead><tbody>\n")
 	for _, r := range v.Rows {
 		h.raw("<tr>")
@@ -124,5 +124,7 @@ func (h *htmlWriter) siteTable(v *siteView) {
 		h.raw("</tr>\n")
 	}
 	h.raw("</tbody></table>\n")
-	h.el("p", "sw-small", "Spreads used: "+v.Spread)
+	if spreads {
+		h.el("p", "sw-small", "Spreads used: "+v.Spread)
+	}
 }

@@ -64,12 +64,17 @@ func TestEveryExampleOnePage(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				if !one.Match(info) {
-					// Kept to look at: out/browser/not-one-page-*.pdf.
-					keep := filepath.Join(root, "out", "browser", "not-one-page-"+strings.TrimSuffix(filepath.Base(f), ".json")+"-"+sys+"-"+p.name+".pdf")
+				// Kept to look at: out/browser/not-one-page-*.pdf, and
+				// every sheet as out/browser/example-*.pdf with
+				// SWAYSHEET_KEEP_SHEETS=1.
+				bad := !one.Match(info)
+				if bad || os.Getenv("SWAYSHEET_KEEP_SHEETS") == "1" {
+					keep := filepath.Join(root, "out", "browser", map[bool]string{true: "not-one-page-", false: "example-"}[bad]+strings.TrimSuffix(filepath.Base(f), ".json")+"-"+sys+"-"+p.name+".pdf")
 					os.MkdirAll(filepath.Dir(keep), 0o755)
 					os.WriteFile(keep, b.pdf(p.w, p.h), 0o644)
-					t.Errorf("%s (%s) at %s: not one page (kept as %s)", filepath.Base(f), sys, p.name, keep)
+					if bad {
+						t.Errorf("%s (%s) at %s: not one page (kept as %s)", filepath.Base(f), sys, p.name, keep)
+					}
 				}
 			}
 		}
