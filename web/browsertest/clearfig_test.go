@@ -195,3 +195,37 @@ func TestSiteHandlesPhone(t *testing.T) {
 		t.Errorf("resized box %+v (%g x %g) from %+v (%g x %g)", b2, *b2.LengthM, *b2.WidthM, b1, *b1.LengthM, *b1.WidthM)
 	}
 }
+
+// TestSiteHandlePlaces: handlePlaces (site-plan.js) leaves the handles of
+// a large outline on its corners, sets a small one's off along each
+// corner's outward bisector (outside an L's inward corner too, worked by
+// hand: 36 px at 45 degrees is 25.46 px each way), and nearestHandle takes
+// the nearest of two overlapping targets.
+func TestSiteHandlePlaces(t *testing.T) {
+	h := setup(t)
+	got := eval2[map[string]any](h, `import('./site-plan.js').then(function (m) {
+		var big = m.handlePlaces([[0,0],[200,0],[200,200],[0,200]], 1);
+		var ell = m.handlePlaces([[0,0],[20,0],[20,10],[10,10],[10,20],[0,20]], 1);
+		var NS = 'http://www.w3.org/2000/svg', svg = document.createElementNS(NS, 'svg');
+		svg.setAttribute('width', 300); svg.setAttribute('height', 100); svg.style.position = 'fixed'; svg.style.left = '0'; svg.style.top = '0';
+		[[50, 'a'], [80, 'b']].forEach(function (c) { var e = document.createElementNS(NS, 'circle'); e.setAttribute('class', 'handle-hit');
+			e.setAttribute('cx', c[0]); e.setAttribute('cy', 50); e.setAttribute('r', 24); e.dataset.handle = c[1]; svg.appendChild(e); });
+		document.body.appendChild(svg);
+		var near = m.nearestHandle(svg, 70, 50), none = m.nearestHandle(svg, 200, 50);
+		svg.remove();
+		return {big: big, ell: ell, near: near && near.dataset.handle, none: none === null};
+	})`)
+	if b := got["big"].([]any); b[2].([]any)[0].(float64) != 200 || b[2].([]any)[1].(float64) != 200 {
+		t.Errorf("a large outline's handle moved: %v", b)
+	}
+	want := [][2]float64{{-25.46, -25.46}, {45.46, -25.46}, {45.46, 35.46}, {35.46, 35.46}, {35.46, 45.46}, {-25.46, 45.46}}
+	for i, p := range got["ell"].([]any) {
+		xy := p.([]any)
+		if math.Abs(xy[0].(float64)-want[i][0]) > 0.01 || math.Abs(xy[1].(float64)-want[i][1]) > 0.01 {
+			t.Errorf("L corner %d: handle at %v, want %v", i, xy, want[i])
+		}
+	}
+	if got["near"] != "b" || got["none"] != true {
+		t.Errorf("nearest handle to x=70 of targets at 50 and 80: %v; none far off: %v", got["near"], got["none"])
+	}
+}

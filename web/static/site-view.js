@@ -111,7 +111,8 @@ export function clearanceVerdict() {
   p.className = 'clearance-verdict ' + cls;
   p.dataset.state = C.going ? 'running' : !r ? 'none' : r.clears ? 'clears' : 'hit';
   p.textContent = t;
-  showObstacleFigures(r, C.going ? 'Runs going: the figures below are of the last check done.' : r && stale() ? 'These figures are for earlier inputs.' : '');
+  showObstacleFigures(r, !C.going ? (r && stale() ? 'These figures are for earlier inputs.' : '') :
+    r ? 'Runs going: the figures below are of the last check done.' : 'Each obstacle\u2019s figures follow when the runs are done.');
 }
 
 // verdictWords are the core's verdict sentences in the units shown (the
