@@ -39,6 +39,8 @@ type ObstacleReport struct {
 	// of a strike over all runs (zero when none strikes).
 	Strikes      int     `json:"strikes"`
 	FirstStrikeS float64 `json:"first_strike_s"`
+	// ShareStrike is Strikes/Runs: how often it is hit.
+	ShareStrike float64 `json:"share_strike"`
 	// ClearanceP5M is the clearance that 95 % of the runs keep (the 5th
 	// percentile of each run's smallest clearance, nearest rank);
 	// SmallestM the smallest over every run, at SmallestAtS and SmallestAt.
@@ -186,6 +188,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
+		rep.ShareStrike = float64(rep.Strikes) / float64(len(near))
 		if len(gaps) > 0 {
 			sort.Float64s(gaps)
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,

@@ -24,7 +24,9 @@ type ClearanceFigure struct {
 var ObstacleTable = []ClearanceFigure{
 	{Key: "share_keep_margin", Crew: "runs that keep the margin (load and rope)", Technical: "share of the runs in which the load and its rope keep the margin and strike nothing", Qu: "share",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMargin, true }},
-	{Key: "share_keep_margin_low", Crew: "of all runs, at least (95 % sure)", Technical: "lower 95 % confidence bound of that share (Clopper-Pearson)", Qu: "share",
+	{Key: "share_strike", Crew: "runs where the load strikes it", Technical: "share of the runs whose load touches or passes into it (the rope's strikes are the rope rows')", Qu: "share",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareStrike, true }},
+	{Key: "share_keep_margin_low", Crew: "of all runs, at least (95 % sure)", Technical: "lower 95 % confidence bound of that share (Clopper-Pearson)", Qu: "share", Detail: true,
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
 	{Key: "first_strike_s", Crew: "load first strikes it at", Technical: "earliest moment of a strike by the load over the runs", Unit: "s",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeS, o.Strikes > 0 }},
@@ -142,6 +144,10 @@ func spread(f func(*clearance.Report) float64) func(*clearance.Report) (float64,
 type ClearanceReport struct {
 	Rows      []Row          `json:"rows"`
 	Obstacles []ObstacleRows `json:"obstacles"`
+	// WorstFirst lists the obstacles' indices, the one kept clear in the
+	// fewest runs first (then the closest approach): the order a crew
+	// reads them in (clearanceverdict.go).
+	WorstFirst []int `json:"worst_first"`
 }
 
 // ObstacleRows are one obstacle's figures. RopePart names the line of
@@ -151,6 +157,11 @@ type ObstacleRows struct {
 	Name     string `json:"name"`
 	RopePart string `json:"rope_part,omitempty"`
 	Rows     []Row  `json:"rows"`
+	// Keeps is true when the obstacle keeps the margin in at least
+	// clearance.Required of the runs; Verdict says so in words, in the
+	// units shown (clearanceverdict.go).
+	Keeps   bool   `json:"keeps"`
+	Verdict string `json:"verdict"`
 }
 
 // PresentClearance gives the rows of the check and of each obstacle, in
@@ -174,7 +185,9 @@ func PresentClearance(r *clearance.Report, u units.Choice) ClearanceReport {
 				rows.Rows = append(rows.Rows, Figure{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Unit: f.Unit, Quantity: f.Qu, Detail: f.Detail}.row(v, u))
 			}
 		}
+		rows.Keeps, rows.Verdict = obstacleVerdict(o, r.MarginM, u)
 		out.Obstacles = append(out.Obstacles, rows)
 	}
+	out.WorstFirst = worstFirst(r.Obstacles)
 	return out
 }

@@ -333,6 +333,9 @@ func density(v *view) int {
 	if st := v.Site; st != nil {
 		// The plan view sits beside its table: about a dozen lines.
 		n += 14 + len(st.Rows) + 2*len(st.Words)
+		if st.Section != "" {
+			n += 6 // the vertical section under the table
+		}
 	}
 	if p := v.Plan; p != nil {
 		n += 9 + len(p.Notes)*2

@@ -84,6 +84,27 @@ func TestClearanceFiguresCall(t *testing.T) {
 	if _, err := json.Marshal(rep); err != nil {
 		t.Fatal(err)
 	}
+	// The report the page shows, given: presented as it is, nothing
+	// checked (a one-run report of another seed is not the kept one).
+	sc := strings.Replace(string(data), `"runs": 200`, `"runs": 3`, 1)
+	small, err := clearance.Check(mustParse(t, []byte(sc)), clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	given, _ := json.Marshal(small)
+	out, err = Calls["clearance_figures"](nil, []byte(`{"scenario": `+string(data)+`, "units": {}, "system": "si", "report": `+string(given)+`}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := out.(figures.ClearanceReport)
+	if len(got.WorstFirst) != 4 || !strings.Contains(got.Rows[0].Key, "margin") {
+		t.Fatalf("given report: %+v", got)
+	}
+	for _, r := range got.Rows {
+		if r.Key == "envelope_95.area_m2" && r.ValueSI != small.Envelope95.AreaM2 {
+			t.Errorf("area %g, the given report's %g", r.ValueSI, small.Envelope95.AreaM2)
+		}
+	}
 }
 
 // The page splits the runs over workers: "clearance_part" for each range
