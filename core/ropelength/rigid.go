@@ -95,7 +95,8 @@ func rigidAnswers(in *Input, res *Result) error {
 		if err != nil {
 			return err
 		}
-		res.FromHeights = &HeightsAnswer{RopeLengthM: rope + depth, RopeToHookM: rope, RiggingLengthM: depth, SmallSwingPeriodS: p}
+		res.FromHeights = &HeightsAnswer{RopeLengthM: rope + depth, RopeToHookM: rope, RiggingLengthM: depth, SmallSwingPeriodS: p,
+			EffectiveLengthM: effectiveLength(p)}
 	}
 	if tm := in.Timed; tm != nil {
 		a, err := timedAnswer(tm, func(t0 float64) (float64, error) { return rigidRope(b, t0) })
