@@ -118,7 +118,7 @@ export function ropeFindHTML() {
     '<div class="grid">' + ropeShownFields().map(ropeFieldHTML).join('') + (RF.way === 'timed' ? ropeSizeHTML() : '') + '</div>' +
     '<div id="rope-out" aria-live="polite">' + ropeOutHTML() + '</div>' +
     '<ul class="rope-cautions small">' +
-    '<li>Time at least 5 full swings (there and back is one), starting and stopping the watch as the load passes the same end.</li>' +
+    '<li>Time at least 5 full swings, ten where you can (there and back is one), starting and stopping the watch as the load passes the same end.</li>' +
     '<li>Time with the crane still, the load just clear of the ground and no wind; keep the swing small.</li>' +
     '<li>Read every height from the same level (the ground, or the crane\u2019s height indicator).</li>' +
     '<li>The answer is an estimate from a simplified model; the lift plan and the person in charge of the lift decide.</li></ul></details>';
