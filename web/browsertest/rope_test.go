@@ -76,6 +76,15 @@ func TestRopeForm(t *testing.T) {
 	if axe := h.axe(); len(axe) > 0 {
 		t.Errorf("axe, the fold open with an answer:\n%s", strings.Join(axe, "\n"))
 	}
+	// Open, it keeps the keyboard's order the screen's (jobs_test.go) and
+	// its targets large enough for a gloved finger.
+	if p := eval[string](h, tabOrder); p != "" {
+		t.Errorf("the keyboard's order with the fold open: %s", p)
+	}
+	if small := eval[string](h, `Array.from(document.querySelectorAll('#rope-find input, #rope-find select, #rope-find button, #rope-find summary'))
+		.filter(function (e) { var r = e.getBoundingClientRect(); return r.height < 44 || r.width < 44; }).map(function (e) { return e.id || e.tagName; }).join(', ')`); small != "" {
+		t.Errorf("targets in the fold smaller than 44 px: %s", small)
+	}
 
 	// Use this length: the field, the scenario and the results follow.
 	before := eval[float64](h, `window.swaysheet.resultCount()`)

@@ -108,12 +108,18 @@ function ropeSizeHTML() {
 // changed).
 export function ropeFindHTML() {
   setTimeout(ropeAsk, 0);
+  return '<details class="field wide rope-find" id="rope-find"' + (RF.open ? ' open' : '') + '><summary>Find the rope length ' +
+    '<span class="opt">from heights, or by timing a swing</span></summary><div id="rope-body">' + ropeBodyHTML() + '</div></details>';
+}
+
+// ropeBodyHTML is the fold's inside; nothing while it is closed, so that
+// no input is hidden in it.
+function ropeBodyHTML() {
+  if (!RF.open) return '';
   var way = function (v, label) {
     return '<label class="check"><input type="radio" name="rope-way" value="' + v + '" data-ropeway="1"' + (RF.way === v ? ' checked' : '') + '> ' + label + '</label>';
   };
-  return '<details class="field wide rope-find" id="rope-find"' + (RF.open ? ' open' : '') + '><summary>Find the rope length ' +
-    '<span class="opt">from heights, or by timing a swing</span></summary>' +
-    '<fieldset class="rope-way"><legend>How</legend>' + way('heights', 'From heights') + way('timed', 'Time a swing') + '</fieldset>' +
+  return '<fieldset class="rope-way"><legend>How</legend>' + way('heights', 'From heights') + way('timed', 'Time a swing') + '</fieldset>' +
     '<p class="hint">The rope length found runs ' + esc(ROPE_TO[ropeModel()]) + ', as in the rope length field.</p>' +
     '<div class="grid">' + ropeShownFields().map(ropeFieldHTML).join('') + (RF.way === 'timed' ? ropeSizeHTML() : '') + '</div>' +
     '<div id="rope-out" aria-live="polite">' + ropeOutHTML() + '</div>' +
@@ -121,7 +127,7 @@ export function ropeFindHTML() {
     '<li>Time at least 5 full swings, ten where you can (there and back is one), starting and stopping the watch as the load passes the same end.</li>' +
     '<li>Time with the crane still, the load just clear of the ground and no wind; keep the swing small.</li>' +
     '<li>Read every height from the same level (the ground, or the crane\u2019s height indicator).</li>' +
-    '<li>The answer is an estimate from a simplified model; the lift plan and the person in charge of the lift decide.</li></ul></details>';
+    '<li>The answer is an estimate from a simplified model; the lift plan and the person in charge of the lift decide.</li></ul>';
 }
 
 // ropeQuestion is the call's input for what is typed, '' when nothing is
@@ -294,7 +300,8 @@ export function bindRopeFind() {
     if (el.dataset.ropeway) {
       RF.way = el.value;
       ropeKeep();
-      $('rope-find').outerHTML = ropeFindHTML();
+      $('rope-body').innerHTML = ropeBodyHTML();
+      ropeAskSoon();
       var r = document.querySelector('#rope-find input[data-ropeway]:checked');
       if (r) r.focus();
     } else if (el.dataset.ropesize) {
@@ -304,10 +311,12 @@ export function bindRopeFind() {
     }
   });
   f.addEventListener('toggle', function (e) {
-    if (e.target.id !== 'rope-find') return;
+    if (e.target.id !== 'rope-find' || RF.open === e.target.open) return;
     RF.open = e.target.open;
     ropeKeep();
+    $('rope-body').innerHTML = ropeBodyHTML();
     ropeAsk();
+    ropeShow();
   }, true);
   f.addEventListener('click', function (e) { if (e.target.id === 'rope-use') ropeUse(); });
   var b = $('body-form');
@@ -323,8 +332,8 @@ export function bindRopeFind() {
 
 // ropeRedraw draws the fold again, unless someone is typing in it.
 function ropeRedraw() {
-  var d = $('rope-find');
-  if (d && !d.contains(document.activeElement)) d.outerHTML = ropeFindHTML();
+  var d = $('rope-body');
+  if (d && !d.contains(document.activeElement)) { d.innerHTML = ropeBodyHTML(); ropeAskSoon(); ropeShow(); }
 }
 
 ropeRestore();
