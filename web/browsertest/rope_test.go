@@ -180,10 +180,27 @@ func TestRopeForm(t *testing.T) {
 			h.value("#rf-heights-hook_height_m"), h.text("#rope-length"))
 	}
 
-	// A rigid load: the rope to the hook and the effective length the
-	// tool shapes for (the bay girder: 5 swings in 32.65 s is about 5 m).
+	// A hook block: the rope to the hook, the effective length the tool
+	// shapes for, and the core's note on the swing size's correction (the
+	// timed swing typed before is kept).
 	h.do(chromedp.Click(chromedp.ID("sys-si")))
 	h.settle()
+	h.click("#hook-on")
+	h.settle()
+	h.ropeWay("timed")
+	l := h.scenario()["load"].(map[string]any)
+	hq, _ := json.Marshal(map[string]any{"timed": map[string]any{"swings": 8, "time_s": 47.2, "amplitude_deg": 20},
+		"hook": map[string]any{"mass_kg": l["hook"].(map[string]any)["mass_kg"], "load_mass_kg": l["mass_kg"], "rigging_length_m": l["hook"].(map[string]any)["rigging_length_m"]}})
+	want = ropeCore(t, string(hq))
+	out = h.text("#rope-out")
+	if got := h.text("#rope-length"); got != shown("length", "m", want.RopeLengthM)+" m" || want.RopeLengthM != want.FromTimed.RopeToHookM ||
+		!strings.Contains(out, "Effective length the tool shapes for: "+shown("length", "m", want.FromTimed.EffectiveLengthM)+" m") ||
+		len(want.Notes) == 0 || !strings.Contains(out, want.Notes[0]) {
+		t.Errorf("hook block: %q, %q; the core gives rope to the hook %.3f m, effective %.3f m, notes %q", got, out, want.RopeLengthM, want.FromTimed.EffectiveLengthM, want.Notes)
+	}
+
+	// A rigid load: the rope to the hook and the effective length the
+	// tool shapes for (the bay girder: 5 swings in 32.65 s is about 5 m).
 	h.openExample("girder as a rigid load")
 	h.ropeWay("timed")
 	h.ropeType("timed.swings", "5")
@@ -191,7 +208,7 @@ func TestRopeForm(t *testing.T) {
 	h.choose("rf-size", "0")
 	time.Sleep(200 * time.Millisecond)
 	h.ropeSettled()
-	l := h.scenario()["load"].(map[string]any)
+	l = h.scenario()["load"].(map[string]any)
 	lq, _ := json.Marshal(map[string]any{"timed": map[string]any{"swings": 5, "time_s": 32.65},
 		"load": map[string]any{"mass_kg": l["mass_kg"], "body": l["body"]}})
 	want = ropeCore(t, string(lq))
