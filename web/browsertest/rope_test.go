@@ -47,6 +47,16 @@ func (h *harness) ropeWay(way string) {
 	h.ropeSettled()
 }
 
+// ropeTimed types a timed swing: the count, the seconds, the swing size.
+func (h *harness) ropeTimed(swings, seconds, size string) {
+	h.t.Helper()
+	h.ropeWay("timed")
+	h.ropeType("timed.swings", swings)
+	h.ropeType("timed.time_s", seconds)
+	h.choose("rf-size", size)
+	h.ropeSettled()
+}
+
 // The rope-length fold (rope-form.js): from heights and from a timed
 // swing, in SI and US units, its answer is the core's ropelength call's
 // (compared with core/ropelength directly), "Use this length" puts it into
@@ -112,12 +122,7 @@ func TestRopeForm(t *testing.T) {
 	}
 
 	// A timed swing, SI, with the large-swing correction.
-	h.ropeWay("timed")
-	h.ropeType("timed.swings", "8")
-	h.ropeType("timed.time_s", "47.2")
-	h.choose("rf-size", "20")
-	time.Sleep(200 * time.Millisecond)
-	h.ropeSettled()
+	h.ropeTimed("8", "47.2", "20")
 	want = ropeCore(t, `{"timed": {"swings": 8, "time_s": 47.2, "amplitude_deg": 20}}`)
 	out := h.text("#rope-out")
 	if got, w := h.text("#rope-length"), shown("length", "m", want.RopeLengthM)+" m"; got != w ||
@@ -202,12 +207,7 @@ func TestRopeForm(t *testing.T) {
 	// A rigid load: the rope to the hook and the effective length the
 	// tool shapes for (the bay girder: 5 swings in 32.65 s is about 5 m).
 	h.openExample("girder as a rigid load")
-	h.ropeWay("timed")
-	h.ropeType("timed.swings", "5")
-	h.ropeType("timed.time_s", "32.65")
-	h.choose("rf-size", "0")
-	time.Sleep(200 * time.Millisecond)
-	h.ropeSettled()
+	h.ropeTimed("5", "32.65", "0")
 	l = h.scenario()["load"].(map[string]any)
 	lq, _ := json.Marshal(map[string]any{"timed": map[string]any{"swings": 5, "time_s": 32.65},
 		"load": map[string]any{"mass_kg": l["mass_kg"], "body": l["body"]}})
