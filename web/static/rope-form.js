@@ -178,7 +178,9 @@ function ropeOutHTML() {
   if (q === '') {
     return '<p class="waiting">' + (RF.way === 'heights' ? 'Type the heights read off the crane.' : 'Count the full swings, time them and pick the swing size.') + '</p>';
   }
-  if (!r || RF.asked !== q || RF.asking) return '<p class="waiting">Working it out\u2026</p>';
+  if (RF.asking) return '<p class="waiting">Working it out\u2026</p>';
+  if (r && r.error && r.error.stopped) return '<p class="waiting">\u2716 ' + esc(r.error.message) + ' Change a value to ask again.</p>';
+  if (!r || RF.asked !== q) return '<p class="waiting">Working it out\u2026</p>';
   if (r.error) {
     var other = ropeErrors().filter(function (fe) { return !ropeBox(fe.field); });
     return '<p class="waiting">\u2716 No rope length yet: ' + (other.length ? esc(other.map(ropeGeneral).join(' ')) : 'correct the marked field.') + '</p>';
