@@ -206,6 +206,16 @@ func TestRopeForm(t *testing.T) {
 
 	// A rigid load: the rope to the hook and the effective length the
 	// tool shapes for (the bay girder: 5 swings in 32.65 s is about 5 m).
+	// Ticking the rigid load: the rope length field and the fold say the
+	// rope runs to the hook.
+	h.click("#hook-on")
+	h.settle()
+	h.click("#body-on")
+	h.settle()
+	h.ropeSettled()
+	if fh, rh := h.text("#f-load-rope_length_m-hint"), h.text("#rope-body > .hint"); !strings.Contains(fh, "sheave to the hook (") || !strings.Contains(rh, "sheave to the hook (") {
+		t.Errorf("rigid load: the field's hint %q, the fold's %q", fh, rh)
+	}
 	h.openExample("girder as a rigid load")
 	h.ropeTimed("5", "32.65", "0")
 	l = h.scenario()["load"].(map[string]any)

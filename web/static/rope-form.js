@@ -323,19 +323,15 @@ export function bindRopeFind() {
   f.addEventListener('click', function (e) { if (e.target.id === 'rope-use') ropeUse(); });
   var b = $('body-form');
   b.addEventListener('input', ropeAskSoon);
-  // The rigid load ticked or hung otherwise: the fold's words and fields.
-  b.addEventListener('change', function () { setTimeout(ropeRedraw, 0); });
+  // The rigid load ticked or hung otherwise: the rope length field's words
+  // and the fold's fields follow.
+  b.addEventListener('change', function (e) { if (e.target.id === 'body-on' || e.target.dataset.bodyhung) setTimeout(renderForm, 0); });
   call('ropelength_ranges').then(function (r) {
     if (r.error) return;
     RF.ranges = r.result;
-    ropeRedraw();
+    var d = $('rope-body');
+    if (d && !d.contains(document.activeElement)) { d.innerHTML = ropeBodyHTML(); ropeShow(); }
   });
-}
-
-// ropeRedraw draws the fold again, unless someone is typing in it.
-function ropeRedraw() {
-  var d = $('rope-body');
-  if (d && !d.contains(document.activeElement)) { d.innerHTML = ropeBodyHTML(); ropeAskSoon(); ropeShow(); }
 }
 
 ropeRestore();
