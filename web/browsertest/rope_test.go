@@ -47,6 +47,16 @@ func (h *harness) ropeWay(way string) {
 	h.ropeSettled()
 }
 
+// ropeOpen opens the fold and waits for its inside (drawn on the
+// details' toggle event, which comes after the click).
+func (h *harness) ropeOpen() {
+	h.t.Helper()
+	h.click("#rope-find > summary")
+	if err := h.poll(`document.getElementById('rope-find').open && !!document.querySelector('#rope-body input')`, 10*time.Second); err != nil {
+		h.t.Fatalf("the fold did not open: %v", err)
+	}
+}
+
 // ropeTimed types a timed swing: the count, the seconds, the swing size.
 func (h *harness) ropeTimed(swings, seconds, size string) {
 	h.t.Helper()
@@ -66,10 +76,7 @@ func (h *harness) ropeTimed(swings, seconds, size string) {
 // rigid load the effective length is shown; axe finds nothing serious.
 func TestRopeForm(t *testing.T) {
 	h := setup(t)
-	h.click("#rope-find > summary")
-	if !eval[bool](h, `document.getElementById('rope-find').open`) {
-		t.Fatal("the fold did not open")
-	}
+	h.ropeOpen()
 
 	// From heights, SI: L = sheave - hook + slings + centre (core/ropelength).
 	h.ropeType("heights.sheave_height_m", "32.5")
