@@ -69,7 +69,8 @@ func TestRigidTimedSwing(t *testing.T) {
 		if math.Abs(h.SmallSwingPeriodS/want-1) > 1e-6 || math.Abs(tm.RopeToHookM/l1-1) > 1e-5 || r.RopeLengthM != h.RopeToHookM {
 			t.Errorf("rope %g m: first mode %.8g s, want %.8g s; timed swing gives %.8g m", l1, h.SmallSwingPeriodS, want, tm.RopeToHookM)
 		}
-		if math.Abs(h.RiggingLengthM-d) > 1e-9 || math.Abs(tm.EffectiveLengthM-g*math.Pow(want/(2*math.Pi), 2)) > 1e-9 {
+		if math.Abs(h.RiggingLengthM-d) > 1e-9 || math.Abs(tm.EffectiveLengthM-g*math.Pow(want/(2*math.Pi), 2)) > 1e-9 ||
+			math.Abs(h.EffectiveLengthM/tm.EffectiveLengthM-1) > 3e-6 {
 			t.Errorf("rope %g m: depth %g m (want %g), effective length %g m", l1, h.RiggingLengthM, d, tm.EffectiveLengthM)
 		}
 		if l1 == 0.3 {
