@@ -26,6 +26,9 @@ import (
 //     slew (Yaw); each leg (hook rope, or leg from a spreader beam held by
 //     the crane) has length L(t) and holds the load at body points
 //     (+/-a, 0, SpreaderZ). This is the bifilar suspension.
+//   - Two hook ropes (Tandem set; rigid_tandem.go): as the parallel legs,
+//     but the top points are S(t) + Top_i e(t), each rope of its own
+//     length L(t) + Extra_i to its own attach point: a tandem lift.
 //
 // Pivot (tests) holds the hook point fixed at S(t) instead of on a rope:
 // a compound pendulum.
@@ -94,6 +97,9 @@ type Rigid struct {
 	// Yaw is the crane's slew since the start (turns the spreader's top
 	// points); nil is none.
 	Yaw func(t float64) (psi, dpsi, ddpsi float64)
+	// Tandem, when set, hangs the load from two hook ropes (in place of
+	// Legs and Spreader).
+	Tandem *TandemRopes
 
 	geo *rigidGeometry // set by Prepare
 	bp  BodyPoint      // scratch for Eval
@@ -159,7 +165,8 @@ type end struct {
 // constraint is one distance (or, pivot, one coordinate) constraint.
 type constraint struct {
 	a, b  end
-	rope  bool    // length L(t); else fixed length
+	rope  bool    // length L(t) + extra; else fixed length
+	extra float64 // a tandem rope's length less L(t)
 	l     float64 // fixed length
 	coord int     // pivot: -1 for distance, else the coordinate 0..2
 }
@@ -198,20 +205,19 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 	if r.Rope != nil {
 		f.l, f.dl, f.ddl = r.Rope(t)
 	}
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		var dpsi, ddpsi float64
 		if r.Yaw != nil {
 			f.psi, dpsi, ddpsi = r.Yaw(t)
 		}
 		h := r.Heading + f.psi
 		c, s := math.Cos(h), math.Sin(h)
-		a := r.Spreader
 		e := r3.Vec{X: c, Y: s}
 		et := r3.Vec{X: -s, Y: c}
-		for i, sg := range [2]float64{1, -1} {
-			f.top[i] = r3.Scale(sg*a, e)
-			f.topV[i] = r3.Scale(sg*a*dpsi, et)
-			f.topA[i] = r3.Add(r3.Scale(sg*a*ddpsi, et), r3.Scale(-sg*a*dpsi*dpsi, e))
+		for i, a := range r.geo.top {
+			f.top[i] = r3.Scale(a, e)
+			f.topV[i] = r3.Scale(a*dpsi, et)
+			f.topA[i] = r3.Add(r3.Scale(a*ddpsi, et), r3.Scale(-a*dpsi*dpsi, e))
 		}
 	}
 	return f
@@ -228,7 +234,7 @@ func (r *Rigid) kinOf(f *frame, e end, leg int) kin {
 		return kin{p: f.P, v: f.Pv, kind: onHook}
 	}
 	k := kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		k.p = r3.Add(k.p, f.top[leg])
 		k.v = r3.Add(k.v, f.topV[leg])
 		k.a0 = r3.Add(k.a0, f.topA[leg])
@@ -284,7 +290,7 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		}
 		l, dl, ddl := c.l, 0.0, 0.0
 		if c.rope {
-			l, dl, ddl = f.l, f.dl, f.ddl
+			l, dl, ddl = f.l+c.extra, f.dl, f.ddl
 		}
 		addPart(&rw.j, ka, d, 1)
 		addPart(&rw.j, kb, d, -1)

@@ -103,11 +103,11 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
 	var hook, hookV, pull r3.Vec
 	switch {
-	case r.Spreader > 0:
+	case geo.twoTop:
 		bp.NLegs = 2
 		var dir, rate r3.Vec
 		for i := range 2 {
-			bp.Legs[i] = -lam[i] * f.l
+			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
 			p.Tension += bp.Legs[i]
 			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
 			top := r.kinOf(f, end{kind: onTop}, i)
@@ -147,7 +147,7 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 		}
 		pull = r3.Scale(-1, pull)
 	}
-	if r.Spreader == 0 {
+	if !geo.twoTop {
 		d := r3.Sub(hook, f.s.Pos)
 		if r.Pivot {
 			d = r3.Sub(load, f.s.Pos)
@@ -190,6 +190,10 @@ func (r *Rigid) Rest(t float64) []float64 {
 	}
 	var x r3.Vec
 	switch {
+	case r.Tandem != nil:
+		q, c := r.tandemRest(l)
+		copy(y[7:11], q[:])
+		x = r3.Add(s.Pos, c)
 	case r.Spreader > 0:
 		x = r3.Sub(s.Pos, r3.Vec{Z: l + r.SpreaderZ})
 	case r.Pivot:
@@ -219,8 +223,9 @@ func (r *Rigid) Initial(theta, phi, vx, vy float64) []float64 {
 	turn := quatAxis(k, theta)
 	Q := rotOf(turn[:])
 	x := vec(y[1:])
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		l, _, _ := r.Rope(0)
+		l += (r.geo.extra[0] + r.geo.extra[1]) / 2
 		dn := r3.Sub(Q.mul(r3.Vec{Z: -l}), r3.Vec{Z: -l})
 		x = r3.Add(x, dn)
 		n := r3.Unit(Q.mul(r3.Vec{Z: -1}))
