@@ -101,8 +101,9 @@ type Rigid struct {
 	// Legs and Spreader).
 	Tandem *TandemRopes
 
-	geo *rigidGeometry // set by Prepare
-	bp  BodyPoint      // scratch for Eval
+	geo   *rigidGeometry // set by Prepare
+	bp    BodyPoint      // scratch for Eval
+	tmemo tandemMemo     // the last tandem rest solved
 }
 
 // Leg is one sling leg: where it attaches on the load (from the load's
@@ -133,6 +134,11 @@ type BodyPoint struct {
 	// corner from where it hangs still under the suspension point (with a
 	// spreader, turned with the slew), m^2.
 	CornerSwing2 float64
+	// Plumb is where the load's centre of mass hangs still from the
+	// suspension point, horizontally (turned with the slew), at the
+	// present rope length: zero but with two hook ropes, whose suspension
+	// point is their midpoint. Point.Rel measures from there.
+	Plumb r3.Vec
 }
 
 func (r *Rigid) g() float64 {

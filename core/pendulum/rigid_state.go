@@ -161,9 +161,22 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	p.HookPos = hook
 	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
+	restCorner, restHeading := &geo.restCorner, geo.restHeading
+	if r.Tandem != nil {
+		// Hanging still at the present rope length.
+		var rc [8]r3.Vec
+		q, c := r.tandemRest(f.l)
+		R := rotOf(q[:])
+		for i := range 8 {
+			rc[i] = r3.Add(R.mul(r.corner(i)), c)
+			rc[i].Z = 0
+		}
+		restCorner, restHeading = &rc, math.Atan2(R[1][0], R[0][0])
+		bp.Plumb = r3.Vec{X: cs*c.X - sn*c.Y, Y: sn*c.X + cs*c.Y}
+	}
 	for i := range 8 {
 		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))
-		rc := geo.restCorner[i]
+		rc := restCorner[i]
 		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
 		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
 		bp.CornerSwing2 = math.Max(bp.CornerSwing2, dx*dx+dy*dy)
@@ -171,7 +184,7 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	ez := f.R.Col(2)
 	bp.TiltRad = math.Atan2(math.Hypot(ez.X, ez.Y), ez.Z)
 	ex := f.R.Col(0)
-	tw := math.Atan2(ex.Y, ex.X) - geo.restHeading - f.psi
+	tw := math.Atan2(ex.Y, ex.X) - restHeading - f.psi
 	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
 }
 

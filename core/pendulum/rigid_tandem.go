@@ -79,7 +79,7 @@ func (r *Rigid) prepareTandem(geo *rigidGeometry, iLoad m3, heading quat) error 
 			return &GeometryError{Leg: i, Msg: fmt.Sprintf("rope %d has no length", i)}
 		}
 	}
-	q, c, ok := tandemRestAt(t, heading, l)
+	q, c, _, ok := tandemRestAt(t, heading, l, 0, false)
 	if !ok {
 		return &GeometryError{Leg: 0, Msg: fmt.Sprintf("the two ropes (%.4g m and %.4g m, %.4g m apart at the crane) cannot hold the attach points %.4g m apart below their suspension points", l+t.Extra[0], l+t.Extra[1], t.Top[0]-t.Top[1], span)}
 	}
@@ -88,13 +88,27 @@ func (r *Rigid) prepareTandem(geo *rigidGeometry, iLoad m3, heading quat) error 
 	return nil
 }
 
+// tandemMemo is the last rest solved, the start of the next.
+type tandemMemo struct {
+	l, alpha float64
+	q        quat
+	c        r3.Vec
+	ok       bool
+}
+
 // tandemRest is the orientation and the centre of mass (from a still
-// suspension point) hanging still at rope length l.
+// suspension point) hanging still at rope length l; the last answer is
+// kept, and the next solve starts from it.
 func (r *Rigid) tandemRest(l float64) (quat, r3.Vec) {
-	q, c, ok := tandemRestAt(r.Tandem, quatAxis(r3.Vec{Z: 1}, r.Heading), l)
+	m := &r.tmemo
+	if m.ok && m.l == l {
+		return m.q, m.c
+	}
+	q, c, alpha, ok := tandemRestAt(r.Tandem, quatAxis(r3.Vec{Z: 1}, r.Heading), l, m.alpha, m.ok)
 	if !ok {
 		return r.geo.rest, r3.Vec{Z: -l}
 	}
+	*m = tandemMemo{l: l, alpha: alpha, q: q, c: c, ok: true}
 	return q, c
 }
 
@@ -135,8 +149,10 @@ func (b *fourBar) at(alpha float64) (cu, cz, su, sz float64, ok bool) {
 }
 
 // tandemRestAt solves the four-bar for the state hanging still at rope
-// length l (see TandemRopes).
-func tandemRestAt(t *TandemRopes, heading quat, l float64) (quat, r3.Vec, bool) {
+// length l (see TandemRopes), and returns its angle alpha; warm starts
+// the secant steps at alpha0, without the scan and the search (the rest
+// moves little between two nearby rope lengths).
+func tandemRestAt(t *TandemRopes, heading quat, l, alpha0 float64, warm bool) (quat, r3.Vec, float64, bool) {
 	a0, a1 := t.Attach[0], t.Attach[1]
 	d := r3.Norm(r3.Sub(a0, a1))
 	ub := r3.Scale(1/d, r3.Sub(a0, a1))
@@ -151,29 +167,11 @@ func tandemRestAt(t *TandemRopes, heading quat, l float64) (quat, r3.Vec, bool) 
 		}
 		return cz
 	}
-	const n = 2000
-	best, bi := math.Inf(1), -1
-	for i := 1; i < n; i++ {
-		if e := height(math.Pi * (float64(i)/n - 0.5)); e < best {
-			best, bi = e, i
-		}
-	}
-	if bi < 0 {
-		return quat{}, r3.Vec{}, false
-	}
-	lo, hi := math.Pi*(float64(bi-1)/n-0.5), math.Pi*(float64(bi+1)/n-0.5)
-	const gr = 0.6180339887498949
-	x1, x2 := hi-gr*(hi-lo), lo+gr*(hi-lo)
-	f1, f2 := height(x1), height(x2)
-	for range 80 {
-		if f1 < f2 {
-			hi, x2, f2 = x2, x1, f1
-			x1 = hi - gr*(hi-lo)
-			f1 = height(x1)
-		} else {
-			lo, x1, f1 = x1, x2, f2
-			x2 = lo + gr*(hi-lo)
-			f2 = height(x2)
+	start := alpha0
+	if !warm {
+		var ok bool
+		if start, ok = searchRest(height); !ok {
+			return quat{}, r3.Vec{}, 0, false
 		}
 	}
 	// Secant on dE/dalpha, fourth-order central differences.
@@ -181,7 +179,7 @@ func tandemRestAt(t *TandemRopes, heading quat, l float64) (quat, r3.Vec, bool) 
 	slope := func(x float64) float64 {
 		return (height(x-2*hd) - 8*height(x-hd) + 8*height(x+hd) - height(x+2*hd)) / (12 * hd)
 	}
-	xa, xb := (lo+hi)/2, (lo+hi)/2+1e-7
+	xa, xb := start, start+1e-7
 	fa, fb := slope(xa), slope(xb)
 	for range 20 {
 		if fb == fa || math.IsInf(fb, 0) || math.IsNaN(fb) {
@@ -198,8 +196,8 @@ func tandemRestAt(t *TandemRopes, heading quat, l float64) (quat, r3.Vec, bool) 
 		}
 	}
 	cu, cz, su, sz, ok := b.at(xb)
-	if !ok || !(cz < math.Inf(1)) {
-		return quat{}, r3.Vec{}, false
+	if !ok {
+		return quat{}, r3.Vec{}, 0, false
 	}
 	// The rotation taking the body's frame (ub, pb/|pb|, ub x pb) to the
 	// ground's (s, n, s x n), s the attach line, n below it, in the
@@ -211,7 +209,39 @@ func tandemRestAt(t *TandemRopes, heading quat, l float64) (quat, r3.Vec, bool) 
 	B := frameCols(ub, pn, r3.Cross(ub, pn))
 	G := frameCols(sg, ng, r3.Cross(sg, ng))
 	q := quatOf(G.mul3(B.transpose()))
-	return q, r3.Add(r3.Scale(cu, e), r3.Vec{Z: cz}), true
+	return q, r3.Add(r3.Scale(cu, e), r3.Vec{Z: cz}), xb, true
+}
+
+// searchRest is the lowest point of height(alpha) over (-90, 90) deg: a
+// scan in 2000 steps, then golden-section search between the best
+// sample's neighbours.
+func searchRest(height func(float64) float64) (float64, bool) {
+	const n = 2000
+	best, bi := math.Inf(1), -1
+	for i := 1; i < n; i++ {
+		if e := height(math.Pi * (float64(i)/n - 0.5)); e < best {
+			best, bi = e, i
+		}
+	}
+	if bi < 0 {
+		return 0, false
+	}
+	lo, hi := math.Pi*(float64(bi-1)/n-0.5), math.Pi*(float64(bi+1)/n-0.5)
+	const gr = 0.6180339887498949
+	x1, x2 := hi-gr*(hi-lo), lo+gr*(hi-lo)
+	f1, f2 := height(x1), height(x2)
+	for range 80 {
+		if f1 < f2 {
+			hi, x2, f2 = x2, x1, f1
+			x1 = hi - gr*(hi-lo)
+			f1 = height(x1)
+		} else {
+			lo, x1, f1 = x1, x2, f2
+			x2 = lo + gr*(hi-lo)
+			f2 = height(x2)
+		}
+	}
+	return (lo + hi) / 2, true
 }
 
 // frameCols is the matrix with columns a, b, c.
@@ -246,13 +276,13 @@ func quatOf(m m3) quat {
 func (r *Rigid) TwoTops() bool { return r.geo.twoTop }
 
 // TopDepthM is the depth of the load's centre of mass hanging still below
-// the suspension point less the mean of the two ropes' (or legs')
-// lengths at rope length l: with a spreader the attach points' height
-// above the centre of mass.
+// the suspension point less the rope length l (with two hook ropes l is
+// L(t), each rope's length less its Extra): with a spreader the attach
+// points' height above the centre of mass.
 func (r *Rigid) TopDepthM(l float64) float64 {
 	if r.Tandem == nil {
 		return r.SpreaderZ
 	}
 	_, c := r.tandemRest(l)
-	return -c.Z - l - (r.Tandem.Extra[0]+r.Tandem.Extra[1])/2
+	return -c.Z - l
 }
