@@ -52,8 +52,8 @@ type Body struct {
 	TwistPeriodS float64 `json:"twist_period_s"`
 	// LegTensionMaxN and LegTensionMinN are the largest and smallest
 	// tension of any leg.
-	LegTensionMaxN float64   `json:"leg_tension_max_n"`
-	LegTensionMinN float64   `json:"leg_tension_min_n"`
+	LegTensionMaxN float64 `json:"leg_tension_max_n"`
+	LegTensionMinN float64 `json:"leg_tension_min_n"`
 	// Legs are the sling legs' (with a spreader its legs', with two
 	// ropes the ropes') tensions, in the order given.
 	Legs []LegLoad `json:"legs"`
