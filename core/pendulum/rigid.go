@@ -121,9 +121,12 @@ const (
 
 // BodyPoint is what a Rigid adds to a Point.
 type BodyPoint struct {
-	R       m3         // body to ground rotation
-	Omega   r3.Vec     // angular velocity, ground frame, rad/s
-	Legs    [4]float64 // leg tensions (parallel legs: each leg), N
+	R     m3         // body to ground rotation
+	Omega r3.Vec     // angular velocity, ground frame, rad/s
+	Legs  [4]float64 // leg tensions (parallel legs: each leg), N
+	// LegsUp are the upward parts of the pulls of a spreader's legs or of
+	// two hook ropes, N (they add up to the weight hanging still).
+	LegsUp  [2]float64
 	NLegs   int
 	Corners [8]r3.Vec // the box's corners, ground frame, m
 	// TiltRad is the angle of the load's height axis from the vertical;

@@ -111,7 +111,9 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 			p.Tension += bp.Legs[i]
 			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
 			top := r.kinOf(f, end{kind: onTop}, i)
-			dir = r3.Add(dir, r3.Sub(a.p, top.p))
+			d := r3.Sub(a.p, top.p)
+			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
+			dir = r3.Add(dir, d)
 			rate = r3.Add(rate, r3.Sub(a.v, top.v))
 		}
 		n := r3.Norm(dir)

@@ -76,7 +76,8 @@ type LegLoad struct {
 	TensionMaxN float64 `json:"tension_max_n"`
 	TensionMinN float64 `json:"tension_min_n"`
 	// WeightShare is a hook rope's share of the load's weight hanging
-	// still, StaticN / (m g) (two ropes only).
+	// still: the upward part of its pull over m g (two ropes only; the
+	// two add up to 1).
 	WeightShare float64 `json:"weight_share,omitempty"`
 	// Slack marks a hook rope whose tension reached zero or below (two
 	// ropes only; a warning says so too).
@@ -188,25 +189,6 @@ func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
 	return r, y0, nil
 }
 
-// tandemRopes are the two hook ropes of a validated scenario with
-// load.body.tandem: suspension points +/- spacing/2 along the heading
-// (spacing by default the attach points' distance along the load's
-// length), each rope's length less load.rope_length_m as its Extra (both
-// follow the rope length's changes).
-func tandemRopes(s *scenario.Scenario) *pendulum.TandemRopes {
-	b := s.Load.Body
-	tr := b.Tandem
-	out := &pendulum.TandemRopes{}
-	lens := s.TandemLengths()
-	for i, rp := range tr.Ropes {
-		out.Attach[i] = r3.Vec{X: *rp.AttachXM, Y: rp.AttachYM, Z: deref(rp.AttachZM, *b.HeightM/2)}
-		out.Extra[i] = lens[i] - *s.Load.RopeLengthM
-	}
-	spacing := deref(tr.SpacingM, out.Attach[0].X-out.Attach[1].X)
-	out.Top = [2]float64{spacing / 2, -spacing / 2}
-	return out
-}
-
 // bodyWind is the steady lean of the line from the suspension point to
 // the load's centre of mass and the load's offset from plumb under a
 // steady horizontal force F at the load's centre of mass (static
@@ -287,9 +269,6 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	for i := range rest.Body.NLegs {
 		l := LegLoad{StaticN: rest.Body.Legs[i],
 			TensionMaxN: sc.ext[qLeg+quantity(i)].max, TensionMinN: -sc.ext[qLegLow+quantity(i)].max}
-		if b.Tandem != nil {
-			l.WeightShare = l.StaticN / (*s.Load.MassKg * units.StandardGravity)
-		}
 		out.Legs = append(out.Legs, l)
 		if i == 0 || l.TensionMaxN > out.LegTensionMaxN {
 			out.LegTensionMaxN = l.TensionMaxN
@@ -306,9 +285,8 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 		// core/pendulum against the modal analysis and a free twist.
 		k := deref(b.GyrationHeightM, math.Sqrt((*b.LengthM**b.LengthM+*b.WidthM**b.WidthM)/12))
 		a, h := r.Spreader, ropeEnd
-		if tr := r.Tandem; tr != nil {
-			d := r3.Sub(tr.Attach[0], tr.Attach[1])
-			a, h = math.Hypot(d.X, d.Y)/2, ropeEnd+(tr.Extra[0]+tr.Extra[1])/2
+		if r.Tandem != nil {
+			a, h = bifilarTandem(r.Tandem, ropeEnd)
 		}
 		out.BifilarTwistPeriodS = 2 * math.Pi * (k / a) * math.Sqrt(h/units.StandardGravity)
 		if measure && twist != nil {
@@ -325,14 +303,11 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 		res.warn(words.Say(
 			"The load ({0} long) hangs from one hook, which does not restrain its twist: once it turns, nothing turns it back. Control it with tag lines, or carry it on a spreader with two legs held by the crane.", words.Length(long)))
 	}
+	if b.Tandem != nil {
+		tandemFigures(out, rest.Body, *s.Load.MassKg, res)
+	}
 	for i, l := range out.Legs {
-		if b.Tandem != nil && l.TensionMinN <= 0 {
-			out.Legs[i].Slack = true
-			res.warn(words.Plain(fmt.Sprintf(
-				"Hook rope %d goes slack (its tension reaches zero): the load drops onto the other rope and snatches this one when it tightens; the model, which keeps both ropes straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
-			continue
-		}
-		if l.TensionMinN <= 0 {
+		if b.Tandem == nil && l.TensionMinN <= 0 {
 			res.warn(words.Plain(fmt.Sprintf(
 				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
 		}
