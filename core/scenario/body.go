@@ -98,7 +98,7 @@ func (b *Body) validate(c *checker, s *Scenario) {
 	case b.Tandem != nil && (b.Spreader != nil || len(b.Legs) > 0):
 		c.add(at+"tandem", "give one of load.body.legs (one hook), load.body.spreader (two parallel legs) or load.body.tandem (two hook ropes), not more")
 	case b.Tandem != nil:
-		b.Tandem.validate(c, b)
+		b.Tandem.validate(c, s)
 	case b.Spreader != nil && len(b.Legs) > 0:
 		c.add(at+"legs", "give either load.body.legs (one hook) or load.body.spreader (two parallel legs), not both")
 	case b.Spreader != nil:

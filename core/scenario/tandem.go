@@ -48,8 +48,9 @@ func init() {
 	}
 }
 
-func (t *Tandem) validate(c *checker, b *Body) {
+func (t *Tandem) validate(c *checker, s *Scenario) {
 	const at = "load.body.tandem."
+	b := s.Load.Body
 	c.optional(at+"spacing_m", at+"spacing_m", t.SpacingM)
 	if b.HookMassKg != 0 {
 		c.add("load.body.hook_mass_kg", "does not apply with two hook ropes: give each hook block's mass with the load's")
@@ -65,6 +66,18 @@ func (t *Tandem) validate(c *checker, b *Body) {
 		c.required(f+"attach_x_m", at+"ropes[].attach_x_m", r.AttachXM)
 		c.value(f+"attach_y_m", at+"ropes[].attach_y_m", r.AttachYM)
 		c.optional(f+"attach_z_m", at+"ropes[].attach_z_m", r.AttachZM)
+	}
+	// Both ropes follow the rope length: at the plan's shortest, each
+	// must still be in range.
+	if p, l0 := s.Plan, s.Load.RopeLengthM; p != nil && p.RopeLengthMinM != nil && l0 != nil {
+		for i, r := range t.Ropes {
+			if r.LengthM == nil {
+				continue
+			}
+			if l := *p.RopeLengthMinM + *r.LengthM - *l0; l < MinRopeM {
+				c.add(fmt.Sprintf(at+"ropes[%d].length_m", i), "is %g m less than load.rope_length_m, so at plan.rope_length_min_m this rope would be %.4g m long: it must stay at least %g m", *l0-*r.LengthM, l, MinRopeM)
+			}
+		}
 	}
 	if x0, x1 := t.Ropes[0].AttachXM, t.Ropes[1].AttachXM; x0 != nil && x1 != nil && !(*x0 > *x1) {
 		c.add(at+"ropes[1].attach_x_m", "is %g m, not behind ropes[0].attach_x_m (%g m): rope 0 hangs from the suspension point toward the load's +x end, rope 1 from the other, so rope 0 attaches further along +x", *x1, *x0)

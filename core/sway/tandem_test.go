@@ -99,6 +99,7 @@ func TestTandemSlackAndBadGeometry(t *testing.T) {
 	s.Initial = &scenario.Initial{SwingDeg: 50}
 	s.Motions = []scenario.Motion{move(0.5, 4, 1, 2, 2)}
 	r := mustEval(t, s)
+	var es scenario.Errors
 	slack := false
 	for _, l := range r.Body.Legs {
 		slack = slack || l.Slack
@@ -106,9 +107,14 @@ func TestTandemSlackAndBadGeometry(t *testing.T) {
 	if !slack || !hasWarning(r, "Hook rope") {
 		t.Errorf("no slack rope flagged: legs %+v, warnings %q", r.Body.Legs, r.Warnings)
 	}
+	// Hoisting 3 m takes the 1 m shorter rope below the shortest rope.
+	up := tandemBeam(4, 11, [2]float64{4, 3}, 0)
+	up.Motions = []scenario.Motion{{Axis: "hoist", StartS: 1, DistanceM: f(3), SpeedMPerS: f(0.2), AccelMPerS2: f(0.2)}}
+	if _, err := Evaluate(up); !errors.As(err, &es) || es[0].Field != "load.body.tandem.ropes[1].length_m" {
+		t.Errorf("a rope hoisted too short: %v", err)
+	}
 	bad := tandemBeam(4, 30, [2]float64{4, 4}, 0)
 	_, err := Evaluate(bad)
-	var es scenario.Errors
 	if !errors.As(err, &es) || es[0].Field != "load.body.tandem.ropes[0].length_m" {
 		t.Errorf("ropes that cannot reach: %v", err)
 	}
