@@ -340,8 +340,8 @@ func bodyAssumptions(b *scenario.Body) []string {
 		"Wind and drag act at the centre of the load's area, for a uniform box its centre of mass: no moment tilts or turns it.",
 	}
 	if b.Tandem != nil {
-		out[0] = "The load is a rigid box on two hook ropes that do not stretch and stay taut (a rope whose pull reaches zero is flagged: the model no longer holds), straight and turning freely at both ends, from two points that move together with the crane and turn with its slew; the hook blocks count with the load."
-		out[1] = "Each hook rope's length runs from its upper point of rotation to its attach point on the load; both change together with the rope length (hoisting, the plan's rope lengths). Swing and excursion are measured from where the load hangs still."
+		out[0] = "The load is a rigid box on two straight hook ropes that do not stretch and stay taut (a slack rope is flagged), from two points moving with the crane; hook blocks count with the load."
+		out[1] = "Each rope runs from its upper point of rotation to the load; both change with the rope length. Swing is measured from where the load hangs still."
 	}
 	for _, a := range Assumptions {
 		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {
