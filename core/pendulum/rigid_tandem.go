@@ -283,6 +283,11 @@ func (r *Rigid) TopDepthM(l float64) float64 {
 	if r.Tandem == nil {
 		return r.SpreaderZ
 	}
-	_, c := r.tandemRest(l)
+	// Solved afresh, not through the memo: a planner calls this from
+	// several goroutines on one Rigid.
+	_, c, _, ok := tandemRestAt(r.Tandem, quatAxis(r3.Vec{Z: 1}, r.Heading), l, 0, false)
+	if !ok {
+		return 0
+	}
 	return -c.Z - l
 }
