@@ -25,7 +25,8 @@ type Body struct {
 	// HookMassKg is the hook block's mass at the hook where the legs meet
 	// (needed with two legs).
 	HookMassKg float64 `json:"hook_mass_kg,omitempty"`
-	// Legs are two or four sling legs from one hook; or give Spreader.
+	// Legs are two or four sling legs from one hook; or give Spreader or
+	// Tandem.
 	Legs []BodyLeg `json:"legs,omitempty"`
 	// Spreader hangs the load from two parallel legs held by the crane.
 	Spreader *Spreader `json:"spreader,omitempty"`

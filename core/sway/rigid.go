@@ -38,8 +38,9 @@ type Body struct {
 	RestTiltDeg float64 `json:"rest_tilt_deg"`
 	// PeakTiltDeg is the largest angle of the load's height axis from the
 	// vertical; PeakTwistDeg its largest turn about the vertical from its
-	// heading at the start (with a spreader: relative to the crane, which
-	// turns the spreader when it slews).
+	// heading at the start (with a spreader or two hook ropes: relative to
+	// the crane, which turns them when it slews; with two ropes from its
+	// heading hanging still at the present rope length).
 	PeakTiltDeg  float64 `json:"peak_tilt_deg"`
 	PeakTwistDeg float64 `json:"peak_twist_deg"`
 	// PeakCornerSwingM is the largest horizontal distance of a corner of
