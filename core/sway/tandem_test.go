@@ -130,3 +130,21 @@ func TestTandemExample(t *testing.T) {
 		t.Error(err)
 	}
 }
+
+// Hoisting unequal, splayed ropes slowly moves where the load hangs still
+// (its plumb and tilt follow the rope length): swing and corner swing,
+// measured from there at each moment, stay small, and the tilt at the end
+// is the rest tilt at the shorter rope (quasi-static: a slow hoist keeps
+// the load near its rest; Landau & Lifshitz, Mechanics, sec. 49).
+func TestTandemHoistFollowsRest(t *testing.T) {
+	s := tandemBeam(6, 12, [2]float64{6, 6.4}, 0)
+	s.Motions = []scenario.Motion{{Axis: "hoist", StartS: 1, DistanceM: f(2), SpeedMPerS: f(0.1), AccelMPerS2: f(0.05)}}
+	r := mustEval(t, s)
+	b := r.Body
+	h := b.History
+	end := h.TiltDeg[len(h.TiltDeg)-1]
+	t.Logf("peak swing %.3g deg, corner %.3g m, tilt at the end %.6g deg, rest tilt at 4 m %.6g deg", r.PeakSwingDeg, b.PeakCornerSwingM, end, b.RestTiltDeg)
+	if r.PeakSwingDeg > 0.05 || b.PeakCornerSwingM > 0.01 || math.Abs(end-b.RestTiltDeg) > 0.05 {
+		t.Errorf("slow hoist: swing %g deg, corner %g m, tilt %g deg at the end against %g deg at rest", r.PeakSwingDeg, b.PeakCornerSwingM, end, b.RestTiltDeg)
+	}
+}
