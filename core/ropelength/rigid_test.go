@@ -100,6 +100,9 @@ func TestRigidBadInput(t *testing.T) {
 	noLegs := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1)}}
 	short := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1),
 		Legs: []scenario.BodyLeg{{LengthM: f(2), AttachXM: 5, AttachZM: f(0.5)}, {LengthM: f(2), AttachXM: -5, AttachZM: f(0.5)}}, HookMassKg: 100}}
+	// Two hook ropes: the answer is both ropes' length, so neither has its own.
+	tandem := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1),
+		Tandem: &scenario.Tandem{Ropes: []scenario.HookRope{{AttachXM: f(5)}, {LengthM: f(4), AttachXM: f(-5)}}}}}
 	cases := []struct {
 		in    Input
 		field string
@@ -111,6 +114,7 @@ func TestRigidBadInput(t *testing.T) {
 		{Input{Load: load, Heights: &Heights{SheaveHeightM: f(20), HookHeightM: f(10), SlingDepthM: 2}}, "heights.sling_depth_m"},
 		{Input{Load: load, Timed: &Timed{Swings: f(10), TimeS: f(20)}}, "timed.time_s"},
 		{Input{Load: &Load{MassKg: f(-1), Body: load.Body}, Timed: &Timed{Swings: f(5), TimeS: f(40)}}, "load.mass_kg"},
+		{Input{Load: tandem, Timed: &Timed{Swings: f(5), TimeS: f(40)}}, "load.body.tandem.ropes[1].length_m"},
 	}
 	for _, c := range cases {
 		_, err := Find(&c.in)

@@ -264,7 +264,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
 	if rigid != nil {
-		res.Assumptions = bodyAssumptions()
+		res.Assumptions = bodyAssumptions(s.Load.Body)
 		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
 		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
 	}
