@@ -271,15 +271,15 @@ func latticeRange(lo, hi, reach, cellM float64) (int, int) {
 // index (i0, j0) (covered, row by row); cells off the grid are left out.
 // A ball of radius RadiusM about the points, taken as straight between
 // them: a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
-// is within the radius plus half the cell's diagonal of a piece (cells
-// already marked are not looked at again; see sweepCapsules, which marks
-// each row's cells at once). Outlines: see sweepOutlines.
+// is within the radius plus half the cell's diagonal of a piece (see
+// sweepGroups, which marks the cells well inside at once and tests only
+// those near the edge). Outlines: see sweepOutlines.
 func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
 	if r.Outlines != nil {
 		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
 		return
 	}
-	sweepCapsules(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
+	sweepGroups(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
 }
 
 // sweepBallCells is sweepLattice for a ball, cell by cell: the plain form
