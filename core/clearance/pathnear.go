@@ -30,23 +30,44 @@ import "math"
 // SegmentStrikes test is made only on the others. The answer is that of
 // alongPathEvery (TestAlongPathNearMatchesEvery).
 func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest {
+	return o.alongPathWith(path, measurePath(path), radiusM, stepM)
+}
+
+// pathLengths is a path's length up to each point, in space (cum) and
+// seen from above (cumPlan), and its coarse samples: what alongPathNear
+// needs of the path whatever the obstacle, found once for all of them.
+type pathLengths struct {
+	cum, cumPlan []float64
+	coarse       []int
+}
+
+const coarseM = 0.25 // m between coarse samples
+
+func measurePath(path []Sample) *pathLengths {
+	n := len(path)
+	pl := &pathLengths{cum: make([]float64, n), cumPlan: make([]float64, n), coarse: []int{0}}
+	cum, cumPlan := pl.cum, pl.cumPlan
+	for i := 1; i < n; i++ {
+		a, b := path[i-1].At, path[i].At
+		cum[i] = cum[i-1] + dist3(a, b)
+		cumPlan[i] = cumPlan[i-1] + math.Hypot(b.X-a.X, b.Y-a.Y)
+		if i == n-1 || cum[i]-cum[pl.coarse[len(pl.coarse)-1]] >= coarseM {
+			pl.coarse = append(pl.coarse, i)
+		}
+	}
+	return pl
+}
+
+// alongPathWith is alongPathNear with the path's lengths given.
+func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM float64) Closest {
 	w := newBallWatch(o, radiusM)
 	c := &w.c
 	if len(path) == 0 {
 		return *c
 	}
-	const coarseM, tolM = 0.25, 1e-9
+	const tolM = 1e-9
 	n := len(path)
-	cum, cumPlan := make([]float64, n), make([]float64, n)
-	coarse := []int{0}
-	for i := 1; i < n; i++ {
-		a, b := path[i-1].At, path[i].At
-		cum[i] = cum[i-1] + dist3(a, b)
-		cumPlan[i] = cumPlan[i-1] + math.Hypot(b.X-a.X, b.Y-a.Y)
-		if i == n-1 || cum[i]-cum[coarse[len(coarse)-1]] >= coarseM {
-			coarse = append(coarse, i)
-		}
-	}
+	cum, cumPlan, coarse := pl.cum, pl.cumPlan, pl.coarse
 	vs, ds := make([]float64, len(coarse)), make([]float64, len(coarse))
 	least := math.Inf(1)
 	for m, i := range coarse {

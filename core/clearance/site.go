@@ -104,12 +104,20 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 	} else {
 		path = r.Path(s.SuspensionHeightM)
 	}
+	var pl *pathLengths
 	for k := range s.Obstacles {
 		if boxes != nil {
 			out[k] = s.Obstacles[k].AlongBoxPath(boxes, stepM)
-		} else {
-			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
+			continue
 		}
+		if stepM <= 0 || len(path) < 2 {
+			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
+			continue
+		}
+		if pl == nil {
+			pl = measurePath(path)
+		}
+		out[k] = s.Obstacles[k].alongPathWith(path, pl, s.LoadRadiusM, stepM)
 	}
 	return out
 }

@@ -10,7 +10,7 @@ import "math"
 //
 // The path is cut into groups of consecutive points that stay within δ of
 // the chord q from the group's first point to its last (at most
-// groupPoints points, δ at most a quarter cell). Then:
+// 33 points, δ at most a quarter cell). Then:
 //
 //   - Every point within reach-δ of q is within reach of the group's
 //     pieces: the path runs from one end of q to the other, so its
@@ -44,6 +44,8 @@ func sweepGroups(points []Point2, reach, cellM float64, i0, j0, nx, ny int, cove
 	for _, g := range groups {
 		a, b := points[g.first], points[g.last]
 		outer := newCapsule(a, b, reach+g.dev+sure)
+		rin := reach - g.dev - 2*sure
+		inner := newCapsule(a, b, max(rin, 0))
 		jlo, jhi := latticeRange(math.Min(a.Y, b.Y), math.Max(a.Y, b.Y), reach+g.dev+sure, cellM)
 		for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
 			cy := (float64(j) + 0.5) * cellM
@@ -53,8 +55,19 @@ func sweepGroups(points []Point2, reach, cellM float64, i0, j0, nx, ny int, cove
 			}
 			l := max(int(math.Ceil(xl/cellM-0.5))-1, i0)
 			r := min(int(math.Floor(xr/cellM-0.5))+1, i0+nx-1)
+			// The cells marked in the first pass are skipped.
+			il, ir := r+1, r
+			if rin > 0 {
+				if xl, xr, ok := inner.row(cy); ok {
+					il, ir = int(math.Ceil(xl/cellM-0.5)), int(math.Floor(xr/cellM-0.5))
+				}
+			}
 			row := covered[(j-j0)*nx : (j-j0+1)*nx]
 			for i := l; i <= r; i++ {
+				if i >= il && i <= ir {
+					i = ir
+					continue
+				}
 				if row[i-i0] {
 					continue
 				}
@@ -74,8 +87,8 @@ func sweepGroups(points []Point2, reach, cellM float64, i0, j0, nx, ny int, cove
 	}
 }
 
-// groupPoints is the most points a group holds.
-const groupPoints = 32
+// groupPieces is the most pieces (points less one) a group holds.
+const groupPieces = 32
 
 // pathGroup is the points first to last of a path (each group's last
 // point is the next one's first) and how far they stray from the chord
@@ -93,13 +106,15 @@ func pathGroups(points []Point2, devM float64) []pathGroup {
 	}
 	var out []pathGroup
 	for s := 0; s+1 < len(points); {
+		// Groups of 2, 3, 5, 9, 17 or 33 points: the longest that keeps
+		// to devM, found with a few looks at each point.
 		g := pathGroup{first: s, last: s + 1}
-		for e := s + 2; e < len(points) && e-s < groupPoints; e++ {
-			d := chordDev(points, s, e)
+		for w := 2; w <= groupPieces && s+w < len(points); w *= 2 {
+			d := chordDev(points, s, s+w)
 			if d > devM {
 				break
 			}
-			g.last, g.dev = e, d
+			g.last, g.dev = s+w, d
 		}
 		out = append(out, g)
 		s = g.last
