@@ -190,7 +190,7 @@ func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
 			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, c.site.Obstacles[i].Name, err)
 		}
 	}
-	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget, PathOnly: true})
 	if err != nil {
 		return nil, err
 	}
@@ -222,7 +222,7 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		// in prepare) is not made again for each run (in wasm it was a
 		// tenth of a run's time, mostly the field names' formatting).
 		v.Site = nil
-		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget})
+		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
