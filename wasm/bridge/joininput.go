@@ -22,6 +22,7 @@ func readJoinInput(in []byte) (scenarioJSON []byte, parts []clearance.Part, err 
 	err = r.object(func(key []byte) error {
 		switch string(key) {
 		case "scenario":
+			r.ws()
 			start := r.i
 			if err := r.skipValue(); err != nil {
 				return err
