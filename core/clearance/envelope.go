@@ -123,8 +123,8 @@ func (n *nearest) closest(p Point2) (float64, int) {
 	}
 	ci, cj := n.cell(p.X, p.Y)
 	// Distance from p to the grid's box, for points outside it.
-	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
-	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
+	ox := outsideBy(p.X, n.x0, n.x0+float64(n.nx)*n.g)
+	oy := outsideBy(p.Y, n.y0, n.y0+float64(n.ny)*n.g)
 	outside := math.Hypot(ox, oy)
 	best, seg := math.Inf(1), 0
 	for ring := 0; ; ring++ {
@@ -153,6 +153,18 @@ func (n *nearest) closest(p Point2) (float64, int) {
 			}
 		}
 	}
+}
+
+// outsideBy is how far x lies outside [lo, hi] (zero inside), with
+// comparisons rather than max (a call in wasm).
+func outsideBy(x, lo, hi float64) float64 {
+	if x < lo {
+		return lo - x
+	}
+	if x > hi {
+		return x - hi
+	}
+	return 0
 }
 
 // strayEvery is stray finding every point's distance: the plain form,

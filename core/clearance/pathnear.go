@@ -125,9 +125,10 @@ func outlineBox(poly []Point2) (lo, hi Point2) {
 // the obstacle: its plan box is clear of the outline's box (lo, hi), or
 // it stays above the top, by more than tolM.
 func (o *Obstacle) mayStrike(a, b Point3, lo, hi Point2, tolM float64) bool {
-	if math.Min(a.Z, b.Z) > o.TopM+tolM {
+	// Comparisons of each end rather than math.Min and Max (calls in wasm).
+	if a.Z > o.TopM+tolM && b.Z > o.TopM+tolM {
 		return false
 	}
-	return math.Max(a.X, b.X) >= lo.X-tolM && math.Min(a.X, b.X) <= hi.X+tolM &&
-		math.Max(a.Y, b.Y) >= lo.Y-tolM && math.Min(a.Y, b.Y) <= hi.Y+tolM
+	return (a.X >= lo.X-tolM || b.X >= lo.X-tolM) && (a.X <= hi.X+tolM || b.X <= hi.X+tolM) &&
+		(a.Y >= lo.Y-tolM || b.Y >= lo.Y-tolM) && (a.Y <= hi.Y+tolM || b.Y <= hi.Y+tolM)
 }
