@@ -3,6 +3,7 @@ package sway_test
 import (
 	"math"
 	"path/filepath"
+	"reflect"
 	"testing"
 
 	"swaysheet/core/scenario"
@@ -102,5 +103,27 @@ func TestFastPathAgrees(t *testing.T) {
 	}
 	for k, v := range worst {
 		t.Logf("largest difference, %s: %.3g", k, v)
+	}
+}
+
+// TestPathOnlyKeepsTheHistories: with Options.PathOnly (the clearance
+// runs) the specialised path skips the peak search and gives the same time
+// histories, bit for bit, as the full evaluation, on every example and
+// reference scenario.
+func TestPathOnlyKeepsTheHistories(t *testing.T) {
+	for _, file := range fastScenarios(t) {
+		s := readScenario(t, file)
+		s.Plan = nil
+		full, err := sway.EvaluateWith(s, sway.Options{})
+		if err != nil {
+			t.Fatalf("%s: %v", file, err)
+		}
+		path, err := sway.EvaluateWith(s, sway.Options{PathOnly: true})
+		if err != nil {
+			t.Fatalf("%s: %v", file, err)
+		}
+		if !reflect.DeepEqual(full.History, path.History) || !reflect.DeepEqual(full.Body, path.Body) || len(full.History.TimeS) == 0 {
+			t.Errorf("%s: the histories differ with PathOnly", file)
+		}
 	}
 }
