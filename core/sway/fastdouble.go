@@ -64,11 +64,14 @@ func (d *fastDouble) eval(t float64, y []float64, a1, a2 *[3]float64, p *pendulu
 			fx, fy, fz = d.im2*f.X, d.im2*f.Y, d.im2*f.Z
 		}
 		if p != nil {
+			// Field by field: the fields pendulum.Double sets (the others
+			// stay zero), without a whole Point copied in (it holds a
+			// pointer, so a copy also runs write barriers).
 			p1 := r3.Vec{X: k.px + l1*n1x, Y: k.py + l1*n1y, Z: l1 * n1z}
-			*p = pendulum.Point{T: t, Dir: r3.Vec{X: n1x, Y: n1y, Z: n1z}, Rate: r3.Vec{X: u1x, Y: u1y, Z: u1z}, Rope: l1,
-				Suspension: pendulum.Kinematics{Pos: r3.Vec{X: k.px, Y: k.py}, Vel: r3.Vec{X: k.vx, Y: k.vy}, Acc: r3.Vec{X: k.ax, Y: k.ay}},
-				LoadPos:    r3.Vec{X: p1.X + l2*n2x, Y: p1.Y + l2*n2y, Z: p1.Z + l2*n2z}, LoadVel: v2,
-				HookPos: p1, RiggingDir: r3.Vec{X: n2x, Y: n2y, Z: n2z}}
+			p.T, p.Dir, p.Rate, p.Rope = t, r3.Vec{X: n1x, Y: n1y, Z: n1z}, r3.Vec{X: u1x, Y: u1y, Z: u1z}, l1
+			p.Suspension = pendulum.Kinematics{Pos: r3.Vec{X: k.px, Y: k.py}, Vel: r3.Vec{X: k.vx, Y: k.vy}, Acc: r3.Vec{X: k.ax, Y: k.ay}}
+			p.LoadPos, p.LoadVel = r3.Vec{X: p1.X + l2*n2x, Y: p1.Y + l2*n2y, Z: p1.Z + l2*n2z}, v2
+			p.HookPos, p.RiggingDir = p1, r3.Vec{X: n2x, Y: n2y, Z: n2z}
 		}
 	}
 	g := -d.g

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"runtime"
 	"sort"
 	"strings"
 	"time"
@@ -53,12 +54,14 @@ type planTimes struct {
 	keptMs, checkMs                      float64 // the kept and rechecked simulations timed again, ms in all
 	steps                                int     // integrator steps of the simulations timed again
 	replyBytes                           int
+	allocMB, mallocs, gcs                float64 // per plan call: heap allocated, allocations, collections
 }
 
 func (p planTimes) note(repeat int) string {
 	s := fmt.Sprintf("parse+validate %.2f, fingerprint %.2f, plan %.2f, reply JSON %.2f ms (%d kB); %d simulations: %d kept at tol %g take %.2f ms, %d rechecked at %g take %.2f ms (%d steps in all), the rest of the plan %.2f ms; median of %d",
 		p.parse, p.key, p.make, p.encode, p.replyBytes/1000, p.sims, p.kept, plan.RelTol, p.keptMs, p.checks, plan.CheckRelTol, p.checkMs, p.steps,
 		p.make-p.keptMs-p.checkMs, repeat)
+	s += fmt.Sprintf("; per plan call %.2f MB allocated in %.0f allocations, %.2f collections", p.allocMB, p.mallocs, p.gcs)
 	if p.cpu > 0 {
 		s += fmt.Sprintf("; processor time %.2f ms a plan", p.cpu)
 	}
@@ -71,6 +74,7 @@ func planParts(data []byte, repeat int) (planTimes, error) {
 	var last *plan.Result
 	var lastS *scenario.Scenario
 	c0 := processCPU()
+	var m0, m1 runtime.MemStats
 	for i := range repeat + 2 {
 		t0 := time.Now()
 		s, err := scenario.Parse(data)
@@ -98,6 +102,7 @@ func planParts(data []byte, repeat int) (planTimes, error) {
 		t4 := time.Now()
 		if i == 1 {
 			c0 = processCPU() // the first two warm up
+			runtime.ReadMemStats(&m0)
 		}
 		if i < 2 {
 			continue
@@ -110,6 +115,10 @@ func planParts(data []byte, repeat int) (planTimes, error) {
 	if c := processCPU(); c > 0 {
 		p.cpu = (c - c0) * 1e3 / float64(repeat)
 	}
+	runtime.ReadMemStats(&m1)
+	n := float64(repeat)
+	p.allocMB, p.mallocs = float64(m1.TotalAlloc-m0.TotalAlloc)/1e6/n, float64(m1.Mallocs-m0.Mallocs)/n
+	p.gcs = float64(m1.NumGC-m0.NumGC) / n
 	p.parse, p.key, p.make, p.encode, p.total = Median(parse), Median(key), Median(mk), Median(enc), Median(total)
 	p.sims = last.Simulations
 	// The simulations the plan kept, timed again one by one.
