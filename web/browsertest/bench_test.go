@@ -55,7 +55,7 @@ func TestBenchPage(t *testing.T) {
 		return
 	case "plans":
 		h.settle()
-		writeRows(t, out, benchPlans(h))
+		writeRows(t, out, append(benchPlans(h), benchPlanPage(h)...))
 		return
 	}
 	var colds []float64
