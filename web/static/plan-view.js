@@ -52,8 +52,11 @@ function runPlan() {
     }
     renderPlan();
     // A planned request without moves is presented for the recommended
-    // move: the results follow the plan.
-    if (!r.error) presentFigures();
+    // move: the results follow the plan. Only when the result shown is of
+    // the inputs as they are: otherwise their evaluation is due or under
+    // way, and presents its figures (of the plan, now kept) when it comes;
+    // asking now would compute the figures of earlier inputs for nothing.
+    if (!r.error && S.resultSent === JSON.stringify(S.scenario)) presentFigures();
   });
 }
 
