@@ -47,7 +47,15 @@ func (d *fastDouble) segment(a, b float64) { d.k.segment(a, b) }
 // and fills p when it is not nil.
 func (d *fastDouble) eval(t float64, y []float64, a1, a2 *[3]float64, p *pendulum.Point) {
 	y = y[:12]
-	k := d.k.kinAt(t)
+	var k kin
+	if m := d.k; !m.slewing && !m.hoisting {
+		// Travel alone: the two axes' spans, the rope at its length.
+		k.px, k.vx, k.ax = m.sx.at(t)
+		k.py, k.vy, k.ay = m.sy.at(t)
+		k.l = m.l0
+	} else {
+		k = m.kinAt(t)
+	}
 	l1, dl1, ddl1 := k.l, k.dl, k.ddl
 	l2 := d.l2
 	n1x, n1y, n1z := y[0], y[1], y[2]
