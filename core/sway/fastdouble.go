@@ -1,8 +1,6 @@
 package sway
 
 import (
-	"math"
-
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/pendulum"
@@ -129,5 +127,11 @@ func (d *fastDouble) Func(t float64, y, dy []float64) {
 // Project implements pendulum.System: both directions back onto their
 // constraints (pendulum.Double.Project).
 func (d *fastDouble) Project(y []float64) float64 {
-	return math.Max(pendulum.Project(y[0:6]), pendulum.Project(y[6:12]))
+	// A plain comparison for math.Max (a call of its own, for NaN and
+	// signed zeros; the sizes of two corrections are neither).
+	a, b := pendulum.Project(y[0:6]), pendulum.Project(y[6:12])
+	if b > a {
+		return b
+	}
+	return a
 }
