@@ -41,7 +41,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}
 			rec.hook = m.Spreader == 0
-		case *pendulum.Double:
+		case *pendulum.Double, *fastDouble:
 			rec.hook = true
 		}
 	}
@@ -68,7 +68,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
-	if su.model == nil {
+	if _, concrete := su.model.(*fastDouble); su.model == nil || (concrete && opt.General) {
 		su.model = su.general()
 	}
 	sc := newScanner(su.model, su.motionEnd)
