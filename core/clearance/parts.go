@@ -236,6 +236,10 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		// in prepare) is not made again for each run (in wasm it was a
 		// tenth of a run's time, mostly the field names' formatting).
 		v.Site = nil
+		// Nor its plan block: a drawn rope length may lie outside the
+		// plan's rope range (that range is what the planner tries, not a
+		// limit of the crane), and the run plans nothing.
+		v.Plan = nil
 		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
