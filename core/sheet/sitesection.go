@@ -2,7 +2,6 @@ package sheet
 
 import (
 	"fmt"
-	"html"
 	"math"
 	"strings"
 
@@ -91,7 +90,7 @@ func SiteSectionScreen(sec *clearance.Section, u units.Choice, widthPx float64) 
 	}
 	for _, o := range sec.Obstacles {
 		fmt.Fprintf(&b, `<rect x="%.2f" y="%.2f" width="%.2f" height="%.2f" fill="#000" class="obstacle-side"><title>%s</title></rect>`,
-			px(o.FromM), py(o.TopM), math.Max((o.ToM-o.FromM)*kx, 2), o.TopM*kz, html.EscapeString(o.Name))
+			px(o.FromM), py(o.TopM), math.Max((o.ToM-o.FromM)*kx, 2), o.TopM*kz, escapeHTML(o.Name))
 	}
 	for _, c := range []struct {
 		cls, dash string
@@ -104,9 +103,9 @@ func SiteSectionScreen(sec *clearance.Section, u units.Choice, widthPx float64) 
 		fmt.Fprintf(&b, `<path d="%s" fill="none" stroke="#000" stroke-width="2"%s class="%s"/>`, d.String(), c.dash, c.cls)
 	}
 	fmt.Fprintf(&b, `<rect x="%g" y="%g" width="%g" height="%g" fill="none" stroke="#000" stroke-width="1" class="frame"/>`, l.left, l.top, pw, ph)
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" class="axis-label">along the path (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" class="axis-label">along the path (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, escapeHTML(sym))
 	ax := l.axis * 1.05
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)" class="axis-label">height (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)" class="axis-label">height (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, escapeHTML(sym))
 	b.WriteString(`</svg>`)
 	return b.String()
 }
