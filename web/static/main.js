@@ -158,7 +158,7 @@ let resizeTimer = null;
 window.addEventListener('resize', function () {
   clearTimeout(resizeTimer);
   resizeTimer = setTimeout(function () {
-    if (S.result) renderPlots();
+    if (S.result) renderPlots(true);
     if (P.result) renderPlan();
   }, 150);
 });

@@ -10,7 +10,7 @@ import { renderPlan } from './plan-view.js';
 import { clearanceVerdict } from './site-view.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
-import { say } from './words.js';
+import { say, unitsKey } from './words.js';
 
 let figuresAsked = 0, figuresWaiting = false;
 
@@ -32,6 +32,15 @@ export function presentFigures() {
   if (!S.result || !S.resultSent) return Promise.resolve();
   var n = ++figuresAsked, own = S.result;
   figuresWaiting = true;
+  // The figures are of this result itself unless the inputs are a
+  // planning request without moves of their own (then of the planner's
+  // recommended move): its charts are drawn now, beside the figures call,
+  // not after it.
+  var sent = JSON.parse(S.resultSent);
+  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false);
+  // The result's own warnings are put into words at the same time as
+  // the figures are asked for (not after them).
+  var ownWords = say(own.warning_sentences || []);
   return call('figures', figuresInput(S.resultSent)).then(function (f) {
     if (n !== figuresAsked) return null;
     if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
@@ -43,7 +52,7 @@ export function presentFigures() {
     });
   }).then(function (p) {
     if (!p || n !== figuresAsked) return null;
-    return say(p.result.warning_sentences || []).then(function (texts) {
+    return (p.result === own ? ownWords : say(p.result.warning_sentences || [])).then(function (texts) {
       if (n !== figuresAsked) return;
       figuresWaiting = false;
       S.figures = p.figures;
@@ -149,13 +158,28 @@ export function markStale(on) {
   $('charts').classList.toggle('is-stale', on);
 }
 
-// renderPlots draws the result's charts with the core's plotter
-// (charts.js), the values in the units shown.
-export function renderPlots() {
-  var r = shownResult(), hs = r.history;
+// renderPlots draws the shown result's charts with the core's plotter
+// (charts.js), the values in the units shown; again (redraw) even when
+// they are drawn already (the width changed).
+export function renderPlots(redraw) {
   // Which scenario the plots are of: the figures' (result_fingerprint).
   $('charts').dataset.fingerprint = (S.shown && S.shown.fingerprint) || '';
+  drawPlots(shownResult(), S.figures && S.figures.result_for ? S.figures.result_for : '', redraw === true);
+}
+
+// plotted says what the charts shown were drawn of: the result, whose
+// move they are said to be of, the units and the limits.
+let plotted = { result: null, key: '' };
+
+// drawPlots draws the charts of result r (of: the words for whose move it
+// is, '' for the inputs' own), unless they are drawn of the same already.
+function drawPlots(r, of, redraw) {
+  var hs = r && r.history;
   if (!hs || !hs.time_s || !hs.time_s.length) return;
+  var key = of + '|' + unitsKey() + '|' + JSON.stringify(S.scenario.limits || {});
+  if (!redraw && plotted.result === r && plotted.key === key) return;
+  plotted = { result: r, key: key };
+  of = of ? 'Of ' + of + '. ' : '';
   var L = unitOf('length').symbol, F = unitOf('force').symbol;
   var bands = [];
   (r.phases || []).forEach(function (p) {
@@ -167,8 +191,7 @@ export function renderPlots() {
   var hl = [];
   if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
   // Plots of another move than the inputs' (the planner's recommended
-  // one) say so, as the figures above do.
-  var of = S.figures && S.figures.result_for ? 'Of ' + S.figures.result_for + '. ' : '';
+  // one) say so (of), as the figures above do.
   drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
   esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
