@@ -29,7 +29,7 @@ export function changed() {
   S.waiting = true;
   var now = performance.now(), quiet = now - lastChange > 30;
   lastChange = now;
-  timer = setTimeout(function () { S.waiting = false; keepCurrent(); evaluate(); }, quiet ? 0 : 30);
+  timer = setTimeout(function () { S.waiting = false; evaluate(); keepCurrent(); }, quiet ? 0 : 30);
 }
 
 function noResults() {

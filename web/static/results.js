@@ -36,12 +36,16 @@ export function presentFigures() {
   // planning request without moves of their own (then of the planner's
   // recommended move): its charts are drawn now, beside the figures call,
   // not after it.
-  var sent = JSON.parse(S.resultSent);
-  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false);
+  // (The rope-angle chart is asked for first, the other three after the
+  // figures and words.)
+  var sent = JSON.parse(S.resultSent), rest = [];
+  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
   // The result's own warnings are put into words at the same time as
   // the figures are asked for (not after them).
+  var asked = call('figures', figuresInput(S.resultSent));
   var ownWords = say(own.warning_sentences || []);
-  return call('figures', figuresInput(S.resultSent)).then(function (f) {
+  rest.forEach(function (draw) { draw(); });
+  return asked.then(function (f) {
     if (n !== figuresAsked) return null;
     if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
     var rep = f.result;
@@ -173,13 +177,19 @@ let plotted = { result: null, key: '' };
 
 // drawPlots draws the charts of result r (of: the words for whose move it
 // is, '' for the inputs' own), unless they are drawn of the same already.
-function drawPlots(r, of, redraw) {
+// With later (a list), only the first chart is asked for now: the others
+// are put in the list as functions to call.
+function drawPlots(r, of, redraw, later) {
   var hs = r && r.history;
   if (!hs || !hs.time_s || !hs.time_s.length) return;
   var key = of + '|' + unitsKey() + '|' + JSON.stringify(S.scenario.limits || {});
   if (!redraw && plotted.result === r && plotted.key === key) return;
   plotted = { result: r, key: key };
   of = of ? 'Of ' + of + '. ' : '';
+  var draw = function (fig, opt, caption) {
+    if (later) later.push(function () { drawChart(fig, opt, caption); });
+    else drawChart(fig, opt, caption);
+  };
   var L = unitOf('length').symbol, F = unitOf('force').symbol;
   var bands = [];
   (r.phases || []).forEach(function (p) {
@@ -195,17 +205,17 @@ function drawPlots(r, of, redraw) {
   drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
   esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
-  drawChart($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
+  draw($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), name: 'suspension point', class: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), name: 'load', class: 's1' }] },
   'The load (solid) and the suspension point (dashed) on the ground plan.');
   var circles = [];
   if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-  drawChart($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
+  draw($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), name: 'load', class: 's1' }], circles: circles },
   circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.');
   var st = toShown('force', r.static_tension_n);
-  drawChart($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
+  draw($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
     series: [{ x: hs.time_s, y: scale('force', hs.tension_n), name: 'tension', class: 's1' }], bands: bands,
     lines: [{ y: st, text: 'static ' + fmtStep('force', st) + ' ' + F }] },
   'Dashed line: the load\u2019s weight (static pull).');
