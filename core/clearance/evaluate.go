@@ -127,28 +127,16 @@ const checkBudgetMessage = "This clearance check needs more computing than allow
 // package draws with its seed; with no spread, one run. The runs share
 // opt.Budget, or one of CheckWork.
 func Check(s *scenario.Scenario, opt Options) (*Report, error) {
-	if s.Site == nil {
-		return nil, ErrNoSite
+	sp, err := SpecOf(s)
+	if err != nil {
+		return nil, err
 	}
 	if opt.Budget == nil {
 		opt.Budget = sway.NewBudget(CheckWork, checkBudgetMessage)
 	}
-	sp := s.Site.Spread
-	if sp == nil {
-		return Evaluate(s, 1, 0, nil, opt)
-	}
-	runs := sp.Runs
-	if runs == 0 {
-		runs = scenario.DefaultSiteRuns
-	}
-	spread := draws.Spread{RopeLengthM: sp.RopeLengthM, CentreDepthM: sp.CentreDepthM,
-		PressS: sp.PressS, GustPct: sp.GustPct, GustS: sp.GustS, EmergencyStop: sp.EmergencyStop}
-	seed := uint64(sp.Seed)
-	rep, err := Evaluate(s, runs, sp.Seed, func(i int) *scenario.Scenario {
-		return draws.Draw(s, spread, seed, i)
-	}, opt)
+	rep, err := Evaluate(s, sp.Runs, sp.Seed, sp.Variant, opt)
 	if rep != nil {
-		rep.Spread = &spread
+		rep.Spread = sp.Spread
 	}
 	return rep, err
 }

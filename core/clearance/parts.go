@@ -263,53 +263,6 @@ func unpackFloats(b []byte) []float64 {
 	return out
 }
 
-// runCells sweeps one run onto a grid of its own and lists the cells.
-func runCells(r *PlanPath, cellM float64) []int {
-	i0, i1, j0, j1 := r.latticeBox(cellM)
-	nx, ny := i1-i0+1, j1-j0+1
-	if nx <= 0 || ny <= 0 || nx*ny > maxCells {
-		return nil
-	}
-	covered := make([]bool, nx*ny)
-	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
-	var out []int
-	pj, pi := 0, 0
-	for j := 0; j < ny; j++ {
-		for i := 0; i < nx; {
-			if !covered[j*nx+i] {
-				i++
-				continue
-			}
-			start := i
-			for i < nx && covered[j*nx+i] {
-				i++
-			}
-			out = append(out, j0+j-pj, i0+start-pi, i-start)
-			pj, pi = j0+j, i0+start
-		}
-	}
-	return out
-}
-
-// cellSpan is one row span of lattice cells: row J, cells I0 to I1-1.
-type cellSpan struct{ J, I0, I1 int }
-
-func decodeCells(c []int) ([]cellSpan, error) {
-	if len(c)%3 != 0 {
-		return nil, errors.New("clearance: a run's cells are not whole spans")
-	}
-	out := make([]cellSpan, 0, len(c)/3)
-	j, i := 0, 0
-	for k := 0; k < len(c); k += 3 {
-		j, i = j+c[k], i+c[k+1]
-		if c[k+2] < 1 {
-			return nil, errors.New("clearance: a run's cells hold an empty span")
-		}
-		out = append(out, cellSpan{j, i, i + c[k+2]})
-	}
-	return out, nil
-}
-
 // join makes the report of the runs the parts hold: every obstacle's
 // figures over them, the verdict, the envelopes and the vertical section.
 func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
@@ -401,45 +354,4 @@ func keep(strays []float64, level, conf float64) ([]int, int) {
 		k++
 	}
 	return order, k
-}
-
-// unionSpans is the envelope drawn from the union of the runs' cells: row
-// spans in rows from the lowest, each row from the left, and the area.
-func unionSpans(spans []cellSpan, cellM float64) (EnvelopeOut, error) {
-	out := EnvelopeOut{CellM: cellM}
-	if len(spans) == 0 {
-		return out, nil
-	}
-	i0, i1, j0, j1 := spans[0].I0, spans[0].I1, spans[0].J, spans[0].J
-	for _, s := range spans {
-		i0, i1, j0, j1 = min(i0, s.I0), max(i1, s.I1), min(j0, s.J), max(j1, s.J)
-	}
-	nx, ny := i1-i0, j1-j0+1
-	if nx*ny > maxCells {
-		return out, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
-	}
-	covered := make([]bool, nx*ny)
-	for _, s := range spans {
-		row := covered[(s.J-j0)*nx:]
-		for i := s.I0; i < s.I1; i++ {
-			row[i-i0] = true
-		}
-	}
-	n := 0
-	for j := 0; j < ny; j++ {
-		for i := 0; i < nx; {
-			if !covered[j*nx+i] {
-				i++
-				continue
-			}
-			start := i
-			for i < nx && covered[j*nx+i] {
-				i++
-			}
-			n += i - start
-			out.Spans = append(out.Spans, latticeSpan(j0+j, i0+start, i0+i, cellM))
-		}
-	}
-	out.AreaM2 = float64(n) * cellM * cellM
-	return out, nil
 }

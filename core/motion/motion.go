@@ -34,16 +34,11 @@ type Profile interface {
 // Trapezoid is a point-to-point move with a trapezoidal speed profile:
 // constant acceleration up to the top speed, cruise, constant deceleration to
 // rest. If the distance is too short to reach the top speed, the move is
-// triangular and peaks at PeakSpeed.
+// triangular and peaks at PeakSpeed. Its fields Start (s), Distance
+// (signed, axis units), Speed (top speed), Accel and Decel (all > 0) are
+// ramped's.
 type Trapezoid struct {
-	Start    float64 // s
-	Distance float64 // signed, axis units
-	Speed    float64 // top speed, > 0
-	Accel    float64 // > 0
-	Decel    float64 // > 0
-
-	// Derived by NewTrapezoid.
-	dist, sign, peak, tAcc, tCruise, tDec float64
+	ramped
 }
 
 // NewTrapezoid builds a trapezoidal move. Speed, accel and decel must be
@@ -52,7 +47,29 @@ func NewTrapezoid(start, distance, speed, accel, decel float64) *Trapezoid {
 	if !(speed > 0 && accel > 0 && decel > 0) {
 		panic("motion: trapezoid needs positive speed, acceleration and deceleration")
 	}
-	p := &Trapezoid{Start: start, Distance: distance, Speed: speed, Accel: accel, Decel: decel}
+	return &Trapezoid{newRamped(start, distance, speed, accel, decel, 1)}
+}
+
+// ramped is what the point-to-point moves with a ramp up, a cruise and a
+// ramp down share (Trapezoid, SineRamp): their fields and phase times. A
+// ramp to speed v at the largest acceleration a lasts k*v/a and covers
+// k*v²/(2*a): k = 1 for a linear ramp, pi/2 for a half-cosine one. When
+// the distance d is shorter than the two ramps at the top speed, the move
+// never cruises and peaks at v = sqrt(2*d*a*b/(k*(a + b))), b the largest
+// deceleration.
+type ramped struct {
+	Start    float64 // s
+	Distance float64 // signed, axis units
+	Speed    float64 // top speed, > 0
+	Accel    float64 // the largest acceleration, > 0
+	Decel    float64 // the largest deceleration, > 0
+
+	// Derived by newRamped.
+	dist, sign, peak, tAcc, tCruise, tDec float64
+}
+
+func newRamped(start, distance, speed, accel, decel, k float64) ramped {
+	p := ramped{Start: start, Distance: distance, Speed: speed, Accel: accel, Decel: decel}
 	d := math.Abs(distance)
 	p.dist, p.sign = d, 1
 	if distance < 0 {
@@ -60,36 +77,38 @@ func NewTrapezoid(start, distance, speed, accel, decel float64) *Trapezoid {
 	}
 	v := speed
 	// Distance covered by the two ramps at full speed.
-	if ramps := v*v/(2*accel) + v*v/(2*decel); ramps > d {
-		v = math.Sqrt(2 * d * accel * decel / (accel + decel))
+	if ramps := k*v*v/(2*accel) + k*v*v/(2*decel); ramps > d {
+		v = math.Sqrt(2 * d * accel * decel / (k * (accel + decel)))
 	}
 	p.peak = v
 	if v > 0 {
-		p.tAcc = v / accel
-		p.tDec = v / decel
-		p.tCruise = math.Max(0, (d-v*v/(2*accel)-v*v/(2*decel))/v)
+		p.tAcc = k * v / accel
+		p.tDec = k * v / decel
+		p.tCruise = math.Max(0, (d-k*v*v/(2*accel)-k*v*v/(2*decel))/v)
 	}
 	return p
 }
 
 // Triangular reports whether the move is too short to reach its top speed.
-func (p *Trapezoid) Triangular() bool { return p.peak < p.Speed*(1-1e-12) }
+func (p *ramped) Triangular() bool { return p.peak < p.Speed*(1-1e-12) }
 
 // PeakSpeed is the highest speed the move reaches.
-func (p *Trapezoid) PeakSpeed() float64 { return p.peak }
+func (p *ramped) PeakSpeed() float64 { return p.peak }
 
 // Duration is the time from start to rest.
-func (p *Trapezoid) Duration() float64 { return p.tAcc + p.tCruise + p.tDec }
+func (p *ramped) Duration() float64 { return p.tAcc + p.tCruise + p.tDec }
 
 // End implements Profile.
-func (p *Trapezoid) End() float64 { return p.Start + p.Duration() }
+func (p *ramped) End() float64 { return p.Start + p.Duration() }
 
-// Breakpoints implements Profile.
-func (p *Trapezoid) Breakpoints() []float64 {
+// Breakpoints implements Profile: the start and end of each ramp.
+func (p *ramped) Breakpoints() []float64 {
 	t1 := p.Start + p.tAcc
 	t2 := t1 + p.tCruise
 	return dedupe([]float64{p.Start, t1, t2, t2 + p.tDec})
 }
+
+func (p *ramped) window() (float64, bool) { return p.Start, true }
 
 // At implements Profile.
 func (p *Trapezoid) At(t float64) State {

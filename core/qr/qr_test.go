@@ -2,41 +2,11 @@ package qr
 
 import (
 	"errors"
-	"image"
-	"image/color"
 	"strings"
 	"testing"
 
-	"github.com/makiuchi-d/gozxing"
-	gzqr "github.com/makiuchi-d/gozxing/qrcode"
+	"swaysheet/core/internal/qrdecode"
 )
-
-// decode reads a bitmap back with an independent decoder (gozxing), at
-// 2 px a module.
-func decode(t *testing.T, bits [][]bool) string {
-	t.Helper()
-	const px = 2
-	n := len(bits)
-	img := image.NewGray(image.Rect(0, 0, n*px, n*px))
-	for y := 0; y < n*px; y++ {
-		for x := 0; x < n*px; x++ {
-			c := color.Gray{Y: 255}
-			if bits[y/px][x/px] {
-				c.Y = 0
-			}
-			img.SetGray(x, y, c)
-		}
-	}
-	bmp, err := gozxing.NewBinaryBitmapFromImage(img)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := gzqr.NewQRCodeReader().Decode(bmp, map[gozxing.DecodeHintType]interface{}{gozxing.DecodeHintType_PURE_BARCODE: true})
-	if err != nil {
-		t.Fatal(err)
-	}
-	return res.GetText()
-}
 
 // text is n bytes of a link with a base64url fragment.
 func text(n int) string {
@@ -65,7 +35,7 @@ func TestEveryVersionDecodes(t *testing.T) {
 			if c.Version != v || c.Size != 17+4*v {
 				t.Fatalf("level %d, %d bytes: version %d size %d, want version %d", lv, len(s), c.Version, c.Size, v)
 			}
-			if got := decode(t, c.Bitmap(4)); got != s {
+			if got := qrdecode.Modules(t, c.Bitmap(4), 2); got != s {
 				t.Fatalf("level %d version %d: decodes to %q, want %q", lv, v, got, s)
 			}
 		}

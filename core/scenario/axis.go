@@ -44,46 +44,29 @@ func (m *Motion) Drive() (Drive, bool) {
 	if !ok {
 		return Drive{}, false
 	}
-	d := Drive{Axis: ax, m: m}
-	if ax.Kind == crane.Angular {
-		d.Distance, d.Speed, d.Accel, d.Decel, d.Jerk = m.AngleDeg, m.RateDegPerS, m.AccelDegPerS2, m.DecelDegPerS2, m.JerkDegPerS3
-	} else {
-		d.Distance, d.Speed, d.Accel, d.Decel, d.Jerk = m.DistanceM, m.SpeedMPerS, m.AccelMPerS2, m.DecelMPerS2, m.JerkMPerS3
+	v := m.kinematic(ax.Kind)
+	return Drive{Axis: ax, Distance: v[0], Speed: v[1], Accel: v[2], Decel: v[3], Jerk: v[4], m: m}, true
+}
+
+// kinematic is the table of m's kinematic fields of kind k, in the order
+// of the kind's names (Distance, Speed, Accel, Decel, Jerk): the degree
+// fields for the angular kind, the metre fields for the linear one.
+func (m *Motion) kinematic(k *crane.Kind) [5]*float64 {
+	if k == crane.Angular {
+		return [5]*float64{m.AngleDeg, m.RateDegPerS, m.AccelDegPerS2, m.DecelDegPerS2, m.JerkDegPerS3}
 	}
-	return d, true
+	return [5]*float64{m.DistanceM, m.SpeedMPerS, m.AccelMPerS2, m.DecelMPerS2, m.JerkMPerS3}
 }
 
 // Field is the move's field of the given kind and name (one of the kind's
 // Distance, Speed, Accel, Decel, Jerk names), nil when absent or unknown:
 // a move of this axis must not have those of the other kind.
 func (d Drive) Field(k *crane.Kind, name string) *float64 {
-	m := d.m
-	if k == crane.Angular {
-		switch name {
-		case k.Distance:
-			return m.AngleDeg
-		case k.Speed:
-			return m.RateDegPerS
-		case k.Accel:
-			return m.AccelDegPerS2
-		case k.Decel:
-			return m.DecelDegPerS2
-		case k.Jerk:
-			return m.JerkDegPerS3
+	v := d.m.kinematic(k)
+	for i, n := range [5]string{k.Distance, k.Speed, k.Accel, k.Decel, k.Jerk} {
+		if n == name {
+			return v[i]
 		}
-		return nil
-	}
-	switch name {
-	case k.Distance:
-		return m.DistanceM
-	case k.Speed:
-		return m.SpeedMPerS
-	case k.Accel:
-		return m.AccelMPerS2
-	case k.Decel:
-		return m.DecelMPerS2
-	case k.Jerk:
-		return m.JerkMPerS3
 	}
 	return nil
 }

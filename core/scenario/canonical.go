@@ -84,7 +84,7 @@ func Normalise(s *Scenario) (*Scenario, error) {
 			m.Profile = ""
 		}
 		switch m.Profile {
-		case "", ProfileSCurve, ProfileSteps: // decel_* defaults to accel_*
+		case "", ProfileSCurve, ProfileSteps, ProfileSineRamp: // decel_* defaults to accel_*
 			if sameValue(m.DecelMPerS2, m.AccelMPerS2) {
 				m.DecelMPerS2 = nil
 			}

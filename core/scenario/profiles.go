@@ -16,11 +16,13 @@ const (
 	ProfileSteps     = "steps"     // step-speed pendant or two-speed drive
 	ProfileHardStop  = "hard_stop" // moving from t = 0, then braking
 	ProfileSeries    = "series"    // recorded or planned time series (CSV)
+	ProfileSineRamp  = "sine_ramp" // point to point, half-cosine speed ramps
 )
 
-// ProfileFields are the fields of the profiles other than the trapezoid,
-// and the input shaper any profile may pass through. Each belongs only to
-// the profile named beside it.
+// ProfileFields are the fields of the profiles other than the trapezoid
+// (the sine ramp has none of its own: it takes the trapezoid's, with
+// accel_* and decel_* its peak values), and the input shaper any profile
+// may pass through. Each belongs only to the profile named beside it.
 type ProfileFields struct {
 	// s_curve: a jerk limit (in the axis' unit) or a rounding time, one of.
 	JerkMPerS3   *float64 `json:"jerk_m_per_s3,omitempty"`
@@ -153,7 +155,7 @@ func (m *Motion) validateProfile(c *checker, at string) {
 		not("csv", m.CSV != "", ProfileSeries)
 		not("column", m.Column != "", ProfileSeries)
 	}
-	if p == ProfileTrapezoid {
+	if p == ProfileTrapezoid || p == ProfileSineRamp { // the trapezoid's checks cover them
 		return
 	}
 	if p != ProfileSCurve { // the trapezoid's checks cover the S-curve's axis

@@ -95,7 +95,8 @@ type Crane struct {
 // Motion is one move of one axis. Travel, radius and hoist axes take the
 // _m fields, the slew axis the _deg fields. StartS shifts the whole move
 // (a hard stop, which moves from t = 0, takes none). Decel, when not given,
-// is Accel (trapezoid, s_curve, steps); a hard stop needs its own.
+// is Accel (trapezoid, s_curve, steps, sine_ramp); a hard stop needs its
+// own.
 type Motion struct {
 	Axis    string  `json:"axis"`
 	Profile string  `json:"profile,omitempty"` // "trapezoid" (default)

@@ -101,7 +101,7 @@ const (
 )
 
 // Profiles lists the motion profile names this version reads.
-var Profiles = []string{ProfileTrapezoid, ProfileSCurve, ProfileSteps, ProfileHardStop, ProfileSeries}
+var Profiles = []string{ProfileTrapezoid, ProfileSCurve, ProfileSteps, ProfileHardStop, ProfileSeries, ProfileSineRamp}
 
 type checker struct{ errs Errors }
 
@@ -251,7 +251,7 @@ func (m *Motion) validate(c *checker, at string) {
 	f := func(name string) string { return at + "." + name }
 	key := func(name string) string { return "motions[]." + name }
 	switch m.Profile {
-	case "", ProfileTrapezoid, ProfileSCurve:
+	case "", ProfileTrapezoid, ProfileSCurve, ProfileSineRamp:
 		m.validateProfile(c, at) // the S-curve's rounding; nothing else belongs here
 	case ProfileSteps, ProfileHardStop, ProfileSeries:
 		m.validateProfile(c, at)

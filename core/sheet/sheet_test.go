@@ -2,8 +2,6 @@ package sheet
 
 import (
 	"bytes"
-	"image"
-	"image/color"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -11,9 +9,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/makiuchi-d/gozxing"
-	gzqr "github.com/makiuchi-d/gozxing/qrcode"
-
+	"swaysheet/core/internal/qrdecode"
 	"swaysheet/core/plan"
 	"swaysheet/core/qr"
 	"swaysheet/core/scenario"
@@ -154,7 +150,7 @@ func TestQRCodeCarriesScenario(t *testing.T) {
 				}
 			}
 		}
-		text := decodeQR(t, drawn)
+		text := qrdecode.Modules(t, drawn, 4)
 		if text != sh.QRText {
 			t.Fatalf("%s: QR decodes to %q, want %q", name, text, sh.QRText)
 		}
@@ -203,32 +199,6 @@ func svgModules(t *testing.T, doc string, n int) [][]bool {
 		}
 	}
 	return bits
-}
-
-// decodeQR renders bits at 4 px a module and decodes them with gozxing.
-func decodeQR(t *testing.T, bits [][]bool) string {
-	t.Helper()
-	const px = 4
-	n := len(bits)
-	img := image.NewGray(image.Rect(0, 0, n*px, n*px))
-	for y := 0; y < n*px; y++ {
-		for x := 0; x < n*px; x++ {
-			c := color.Gray{Y: 255}
-			if bits[y/px][x/px] {
-				c.Y = 0
-			}
-			img.SetGray(x, y, c)
-		}
-	}
-	bmp, err := gozxing.NewBinaryBitmapFromImage(img)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := gzqr.NewQRCodeReader().Decode(bmp, map[gozxing.DecodeHintType]interface{}{gozxing.DecodeHintType_PURE_BARCODE: true})
-	if err != nil {
-		t.Fatal(err)
-	}
-	return res.GetText()
 }
 
 func TestShareFragmentBadInput(t *testing.T) {

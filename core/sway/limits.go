@@ -32,8 +32,8 @@ func moveTooLong(i int, m *scenario.Motion, p motion.Profile) error {
 	}
 	if advice == "" {
 		switch m.Profile {
-		case "", scenario.ProfileTrapezoid, scenario.ProfileSCurve:
-			t := Profile(m)
+		case "", scenario.ProfileTrapezoid, scenario.ProfileSCurve, scenario.ProfileSineRamp:
+			t := Profile(m) // for a sine ramp, its trapezoid decides near enough
 			ramps := t.PeakSpeed()/t.Accel + t.PeakSpeed()/t.Decel
 			if ramps < t.Duration()-ramps {
 				field = speed

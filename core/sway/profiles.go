@@ -37,6 +37,9 @@ func BuildProfile(s *scenario.Scenario, m *scenario.Motion) (motion.Profile, err
 			r = t.Accel / (*dr.Jerk * scale)
 		}
 		p = motion.NewSCurve(t.Start, t.Distance, t.Speed, t.Accel, t.Decel, r)
+	case scenario.ProfileSineRamp:
+		t := Profile(m) // the same fields; accel_* and decel_* are the peaks
+		p = motion.NewSineRamp(t.Start, t.Distance, t.Speed, t.Accel, t.Decel)
 	case scenario.ProfileSteps:
 		a, d := acc()
 		steps := make([]motion.Step, len(m.Steps))
@@ -135,22 +138,24 @@ func phaseOf(i int, axis string, p motion.Profile) Phase {
 // profileWarning says when a point-to-point move is too short to reach
 // its top speed; ok is false when it is not.
 func profileWarning(i int, m *scenario.Motion, p motion.Profile, craneKind string) (words.Sentence, bool) {
-	var t *motion.Trapezoid
+	var dist, speed, peak float64
 	switch q := p.(type) {
 	case *motion.Trapezoid:
-		t = q
+		dist, speed, peak = q.Distance, q.Speed, q.PeakSpeed()
 	case *motion.SCurve:
-		t = q.Base
+		dist, speed, peak = q.Base.Distance, q.Base.Speed, q.Base.PeakSpeed()
+	case *motion.SineRamp:
+		dist, speed, peak = q.Distance, q.Speed, q.PeakSpeed()
 	case *motion.Shaped:
 		return profileWarning(i, m, q.Base, craneKind)
 	}
-	if t == nil || !t.Triangular() {
+	if !(peak < speed*(1-1e-12)) {
 		return words.Sentence{}, false
 	}
 	k := kindOf(m)
 	scale := 1 / k.ToSI
 	return words.Say(fmt.Sprintf("Move %d (%s, {0}) is too short to reach its top speed of {1}: it peaks at {2}.",
 		i+1, crane.WordsFor(craneKind, m.Axis)),
-		words.Of(math.Abs(t.Distance)*scale, k.Unit), words.Of(t.Speed*scale, k.SpeedUnit),
-		words.Of(t.PeakSpeed()*scale, k.SpeedUnit)), true
+		words.Of(math.Abs(dist)*scale, k.Unit), words.Of(speed*scale, k.SpeedUnit),
+		words.Of(peak*scale, k.SpeedUnit)), true
 }

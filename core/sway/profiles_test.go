@@ -168,7 +168,9 @@ func TestProfileMessages(t *testing.T) {
 	tr := trap(5, 0.5, 0.3)
 	tr.RoundingS = pf(1)
 	tr.Shaper = &scenario.ShaperSpec{Kind: "zz", PeriodS: pf(5), RopeLengthM: pf(5)}
-	err := travel(5, sc, st, hs, se, tr).Validate()
+	sr := scenario.Motion{Axis: "travel_x", Profile: scenario.ProfileSineRamp, DistanceM: pf(5), AccelMPerS2: pf(0.3)}
+	sr.RoundingS = pf(1)
+	err := travel(5, sc, st, hs, se, tr, sr).Validate()
 	if err == nil {
 		t.Fatal("no error")
 	}
@@ -184,9 +186,56 @@ func TestProfileMessages(t *testing.T) {
 		"motions[4].rounding_s: does not apply to profile \"trapezoid\"",
 		"motions[4].shaper.kind: is \"zz\"",
 		"motions[4].shaper.period_s: give either period_s or rope_length_m",
+		"motions[5].rounding_s: does not apply to profile \"sine_ramp\"",
+		"motions[5].speed_m_per_s: is required",
 	} {
 		if !strings.Contains(err.Error(), want) {
 			t.Errorf("missing %q in\n%v", want, err)
 		}
+	}
+}
+
+// A sine ramp against the linear theory of a pendulum whose suspension
+// point is accelerated by a(t) (any mechanics text: the Duhamel integral
+// of d²theta/dt² + w²*theta = -a(t)/L). After the forcing the swing's
+// amplitude is |integral of a(t)*exp(-i*w*t) dt| * w/g. A half-sine pulse of peak A and
+// duration T gives A*(pi/T)*2*|cos(w*T/2)| / |(pi/T)² - w²|, and a move's
+// two ramps (the second the first reversed, starting t2 later) multiply it
+// by 2*|sin(w*t2/2)|. So:
+//   - ramps of one sway period each, the second starting 1.5 periods after
+//     the first: the residual swing is 2 * (4/3) * A/g rad, where a linear
+//     ramp of one period leaves none (the nonlinear model at 0.8 deg is
+//     within 1e-5 of it);
+//   - ramps of 1.5 periods: cos(3*pi/2) = 0, no residual swing whatever
+//     the cruise, where a linear ramp of the same length leaves the most.
+func TestSineRampLinearTheory(t *testing.T) {
+	l := 6.0
+	T := 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
+	sine := func(d, v, a float64) scenario.Motion {
+		m := trap(d, v, a)
+		m.Profile = scenario.ProfileSineRamp
+		return m
+	}
+	// Ramp of one period: V = 2*A*T/pi; ramps cover V*T, the cruise 0.5*T.
+	a := 0.05
+	v := 2 * a * T / math.Pi
+	r := eval(t, travel(l, sine(1.5*v*T, v, a)))
+	want := 8.0 / 3 * a / units.StandardGravity / units.Degree
+	if math.Abs(r.ResidualSwingDeg-want) > 0.001*want {
+		t.Errorf("sine ramps of one period: residual %.5f deg, want %.5f deg (linear theory)", r.ResidualSwingDeg, want)
+	}
+	if lin := eval(t, travel(l, trap(1.5*v*T, v, v/T))); lin.ResidualSwingDeg > 0.01*want {
+		t.Errorf("linear ramps of one period leave %g deg, want about 0", lin.ResidualSwingDeg)
+	}
+	// Ramps of 1.5 periods, cruise 2 s.
+	a = 0.3
+	v = 2 * a * 1.5 * T / math.Pi
+	r = eval(t, travel(l, sine(v*1.5*T+2*v, v, a)))
+	lin := eval(t, travel(l, trap(v*1.5*T+2*v, v, v/(1.5*T))))
+	if lin.ResidualSwingDeg < 0.5 {
+		t.Fatalf("linear ramps of 1.5 periods leave only %g deg: pick a harsher move", lin.ResidualSwingDeg)
+	}
+	if r.ResidualSwingDeg > 0.01 {
+		t.Errorf("sine ramps of 1.5 periods leave %g deg, want about 0 (linear ramps: %g deg)", r.ResidualSwingDeg, lin.ResidualSwingDeg)
 	}
 }

@@ -44,8 +44,8 @@ stabilising terms vanish; they only stop the drift of the rope length.
 Motions are rebuilt from the documentation of the scenario format and the
 profiles (core/scenario, DEVELOPERS.md "Motion profiles", the doc comments
 of core/motion and core/shaper), not from the core's code: every profile
-(trapezoid, s_curve, steps, hard_stop, series from CSV with speed or
-position columns) and any of them through a ZV, ZVD or EI shaper, one- or
+(trapezoid, s_curve, steps, hard_stop, sine_ramp, series from CSV with
+speed or position columns) and any of them through a ZV, ZVD or EI shaper, one- or
 two-mode (PROFILES and build_move below); moves on one axis are summed.
 Travel on x and y; slew about the vertical axis through the origin at
 radius r (which a "radius" move changes); hoist positive up (rope
@@ -144,6 +144,14 @@ class TrapezoidMove:
     def breakpoints(self):
         return [self.t0, self.t0 + self.ta, self.t0 + self.ta + self.tc, self.end()]
 
+    def _ramp_up(self, u):
+        """Position, speed and acceleration u s into the ramp up."""
+        return 0.5 * self.acc * u * u, self.acc * u, self.acc
+
+    def _ramp_down(self, left):
+        """Distance still to go, speed and acceleration left s before rest."""
+        return 0.5 * self.dec * left * left, self.dec * left, -self.dec
+
     def at(self, t):
         """Position, speed and acceleration at time t (rest outside the move)."""
         s = t - self.t0
@@ -151,13 +159,13 @@ class TrapezoidMove:
         if s <= 0:
             return 0.0, 0.0, 0.0
         if s < ta:
-            p, v, a = 0.5 * self.acc * s * s, self.acc * s, self.acc
+            p, v, a = self._ramp_up(s)
         elif s < ta + tc:
             p, v, a = 0.5 * self.v * ta + self.v * (s - ta), self.v, 0.0
         elif s < ta + tc + td:
             # Distance covered so far = d minus what the deceleration still needs.
-            left = ta + tc + td - s
-            p, v, a = self.d - 0.5 * self.dec * left * left, self.dec * left, -self.dec
+            togo, v, a = self._ramp_down(ta + tc + td - s)
+            p = self.d - togo
         else:
             p, v, a = self.d, 0.0, 0.0
         return self.sign * p, self.sign * v, self.sign * a
@@ -171,6 +179,50 @@ def trapezoid(m):
     acc = m["accel_m_per_s2"]
     return TrapezoidMove(m.get("start_s", 0.0), m["distance_m"], m["speed_m_per_s"], acc,
                          m.get("decel_m_per_s2", acc))
+
+
+class SineRampMove(TrapezoidMove):
+    """Point-to-point move with half-cosine speed ramps, as motion.SineRamp
+    documents it: over a ramp of duration T to speed v the acceleration is
+    A sin(pi u / T) with A = pi v / (2 T), the speed v (1 - cos(pi u / T)) / 2
+    and the position (v / 2) (u - (T / pi) sin(pi u / T)); accel and decel
+    are the peaks A and D, so T = pi v / (2 A). A ramp covers v T / 2; when
+    the distance is shorter than both ramps at the top speed the move peaks
+    at v = sqrt(4 d A D / (pi (A + D))). The ramp down mirrors the ramp up."""
+
+    def __init__(self, start, distance, speed, acc, dec):
+        self.t0 = start
+        self.sign = -1.0 if distance < 0 else 1.0
+        d = abs(distance)
+        v = speed
+        if math.pi * v * v / 4 * (1 / acc + 1 / dec) > d:
+            v = math.sqrt(4 * d * acc * dec / (math.pi * (acc + dec)))
+        self.v, self.d = v, d
+        self.ta = math.pi * v / (2 * acc) if v > 0 else 0.0
+        self.td = math.pi * v / (2 * dec) if v > 0 else 0.0
+        self.tc = max(0.0, (d - v * self.ta / 2 - v * self.td / 2) / v) if v > 0 else 0.0
+
+    # end(), breakpoints() and at() are the trapezoid's: the same phases,
+    # with these ramps.
+
+    def _ramp(self, u, T):
+        w = math.pi / T
+        return (0.5 * self.v * (u - math.sin(w * u) / w), 0.5 * self.v * (1 - math.cos(w * u)),
+                0.5 * self.v * w * math.sin(w * u))
+
+    def _ramp_up(self, u):
+        return self._ramp(u, self.ta)
+
+    def _ramp_down(self, left):
+        p, v, a = self._ramp(left, self.td)
+        return p, v, -a
+
+
+def sine_ramp(m):
+    acc, dec = _acc_dec(m)
+    if m["axis"] == "slew":
+        return SineRampMove(m.get("start_s", 0.0), m["angle_deg"] * DEG, m["rate_deg_per_s"] * DEG, acc, dec)
+    return SineRampMove(m.get("start_s", 0.0), m["distance_m"], m["speed_m_per_s"], acc, dec)
 
 
 def _acc_dec(m):
@@ -502,7 +554,7 @@ class ShapedMove:
 
 # Motion profiles by the scenario's "profile" name.
 PROFILES = {"trapezoid": trapezoid, "s_curve": s_curve, "steps": steps, "hard_stop": hard_stop,
-            "series": series}
+            "series": series, "sine_ramp": sine_ramp}
 
 
 def build_move(m, sc):

@@ -2,6 +2,7 @@ package browsertest
 
 import (
 	"strconv"
+	"strings"
 	"testing"
 )
 
@@ -52,5 +53,32 @@ func TestAxisKinds(t *testing.T) {
 	h.planSettled(before)
 	if w := h.corePlan(); w.AngleDeg != 90 || h.text("#plan-summary") == "" {
 		t.Errorf("slew plan: core angle %g, summary %q", w.AngleDeg, h.text("#plan-summary"))
+	}
+}
+
+// TestSineRampMove: the move form offers the sine ramp (motion.SineRamp)
+// beside the trapezoid; choosing it sets the move's profile and keeps its
+// fields, the acceleration's hint says it is the largest, the figures
+// shown are the core's for that scenario, and axe-core finds nothing.
+func TestSineRampMove(t *testing.T) {
+	h := setup(t)
+	move := `JSON.parse(window.swaysheet.scenarioJSON()).motions[0]`
+	h.choose("f-motions-0-profile", "sine_ramp")
+	if !eval[bool](h, `(function (m) { return m.profile === 'sine_ramp' && m.distance_m > 0 && m.accel_m_per_s2 > 0; })(`+move+`)`) {
+		t.Errorf("move switched to the sine ramp: %s", eval[string](h, `JSON.stringify(`+move+`)`))
+	}
+	if got := h.value("#f-motions-0-profile"); got != "sine_ramp" {
+		t.Errorf("profile shown %q after the form was drawn again", got)
+	}
+	if hint := h.text(`[data-field="motions[0].accel_m_per_s2"]`); !strings.Contains(hint, "the largest") {
+		t.Errorf("acceleration field of a sine ramp says %q", hint)
+	}
+	h.checkShown(h.core())
+	if bad := h.axe(); len(bad) > 0 {
+		t.Errorf("the form with a sine ramp: axe-core finds:\n%s", strings.Join(bad, "\n"))
+	}
+	h.choose("f-motions-0-profile", "trapezoid")
+	if got := eval[string](h, move+`.profile`); got != "trapezoid" {
+		t.Errorf("move switched back: profile %q", got)
 	}
 }

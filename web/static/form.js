@@ -74,23 +74,28 @@ function openMoreWhenSet(s) {
 }
 function inMore(path) { return !!document.querySelector('#more-form [data-field="' + cssEsc(path) + '"]'); }
 
+// PROFILES are the speed profiles the move form edits (the others are
+// shown by plan-form.js motionHTML); the core checks the name.
+var PROFILES = [['trapezoid', 'trapezoid: ramp, run, ramp'], ['sine_ramp', 'sine ramp: smooth ramp, run, smooth ramp']];
+
 function motionsHTML(s) {
   var mv = [];
   (s.motions || []).forEach(function (m, i) {
     var at = 'motions[' + i + ']', F = axisOf(m.axis).kind;
-    if ((m.profile && m.profile !== 'trapezoid' || m.shaper)) {
+    var sine = m.profile === 'sine_ramp';
+    if ((m.profile && m.profile !== 'trapezoid' && !sine || m.shaper)) {
       mv.push(motionHTML(m, i));
       return;
     }
     mv.push('<div class="move" data-move="' + i + '"><div class="move-head"><h3>Move ' + (i + 1) + '</h3>' +
       '<button type="button" class="small-btn" data-remove="' + i + '">Remove move ' + (i + 1) + '</button></div><div class="grid">' +
       selectField(at + '.axis', 'Axis', axisOptions(false), m.axis) +
-      selectField(at + '.profile', 'Speed profile', [['trapezoid', 'trapezoid: ramp, run, ramp']], m.profile || 'trapezoid') +
+      selectField(at + '.profile', 'Speed profile', PROFILES, m.profile || 'trapezoid', ' data-reform="1"') +
       numField(at + '.start_s', 'Starts at', { optional: true }) +
       numField(at + '.' + F.distance, axisWord(m.axis, 'distance')) +
       numField(at + '.' + F.speed, axisWord(m.axis, 'speed')) +
-      numField(at + '.' + F.accel, 'Acceleration') +
-      numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' }) +
+      numField(at + '.' + F.accel, 'Acceleration', sine ? { hint: 'the largest, half way up the ramp' } : undefined) +
+      numField(at + '.' + F.decel, 'Braking', { optional: true, hint: 'blank: same as acceleration' + (sine ? '; the largest' : '') }) +
       '</div></div>');
   });
   return '<fieldset class="card wide-card" id="moves"><legend>Crane motions</legend>' + mv.join('') +
@@ -162,6 +167,7 @@ function onSelect(el) {
     return;
   }
   setPath(s, path, v === '' ? undefined : v);
+  if (el.dataset.reform) renderForm(); // the profile's hints
   changed();
 }
 
