@@ -2,6 +2,7 @@ package clearance
 
 import (
 	"swaysheet/core/internal/testscenario"
+	"swaysheet/core/sway"
 	"testing"
 )
 
@@ -20,10 +21,45 @@ func BenchmarkCheckBayColumns(b *testing.B) {
 func BenchmarkCheckPartPerRun(b *testing.B) {
 	s := testscenario.Example(b, "site-bay-columns")
 	const runs = 20
+	cpu := cpuSeconds()
 	for b.Loop() {
 		if _, err := CheckPart(s, 0, runs, Options{Workers: 1}); err != nil {
 			b.Fatal(err)
 		}
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*runs)/1e6, "ms/run")
+	b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*runs), "cpu-ms/run")
+}
+
+// BenchmarkObstaclesPerRun is the cost of checking one run's path against
+// every obstacle (the simulation left out: the runs are made once), the
+// part of a run's cost that the obstacle geometry adds.
+func BenchmarkObstaclesPerRun(b *testing.B) {
+	for _, name := range []string{"site-bay-columns", "site-tower-hoarding"} {
+		b.Run(name, func(b *testing.B) {
+			s := testscenario.Example(b, name)
+			sp, err := SpecOf(s)
+			if err != nil {
+				b.Fatal(err)
+			}
+			site := SiteOf(s.Site)
+			const n = 20
+			runs := make([]Run, n)
+			for i := range runs {
+				r, err := sway.EvaluateWith(sp.Variant(i), sway.Options{})
+				if err != nil {
+					b.Fatal(err)
+				}
+				runs[i] = RunOf(r)
+			}
+			cpu := cpuSeconds()
+			for b.Loop() {
+				for i := range runs {
+					site.checkRun(&runs[i], 0.02)
+				}
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*n)/1e6, "ms/run")
+			b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*n), "cpu-ms/run")
+		})
+	}
 }

@@ -146,14 +146,17 @@ type SiteOption struct {
 	SmallestM       float64 `json:"smallest_m"`
 }
 
-// TopSpeed is the bisection on the drive-limits move's top speed (its
-// acceleration kept), from the plan's top speed down to a tenth of it:
-// Unit is "m/s" for travel and "deg/s" for a slew; Speed clears (the
-// lower end of the last bracket, 0 when not even a tenth does), Above
-// does not (0 when the plan's own top speed clears). Checks counts the
-// checks made, each of RunsPerCheck runs with the same seed. The
-// bisection takes a slower top speed to swing no more; each speed it
-// reports was itself checked.
+// TopSpeed is the search for the drive-limits move's largest top speed
+// that keeps the margin, its acceleration kept (see topSpeed): a grid of
+// top speeds from a tenth of the plan's to the plan's, then halvings
+// between the slowest grid speed that fails and the one below it. Unit is
+// "m/s" for travel and "deg/s" for a slew. Speed is the largest speed
+// tested such that it and every slower speed tested keep the margin (0
+// when not even a tenth does); Above the slowest speed tested that does
+// not (0 when every speed tested does). Checks counts the checks made,
+// each of RunsPerCheck runs with the same seed (the plan's own top speed
+// reuses the option's check). Swing is not monotonic in the top speed, so
+// no speed between those tested is promised.
 type TopSpeed struct {
 	Unit   string  `json:"unit"`
 	Speed  float64 `json:"speed"`
@@ -161,6 +164,19 @@ type TopSpeed struct {
 	Checks int     `json:"checks"`
 	// Clears is false when even the slowest speed tried does not clear.
 	Clears bool `json:"clears"`
+	// Tested is every top speed checked, slowest first.
+	Tested []SpeedTried `json:"tested"`
+	// FasterClears are the grid speeds above Above that keep the margin
+	// again (the swing's dependence on the ramp time); not advised.
+	FasterClears []float64 `json:"faster_clears,omitempty"`
+}
+
+// SpeedTried is one top speed checked: whether its runs keep the margin
+// from every obstacle, and the share of runs keeping it from the worst.
+type SpeedTried struct {
+	Speed           float64 `json:"speed"`
+	Clears          bool    `json:"clears"`
+	ShareKeepMargin float64 `json:"share_keep_margin"`
 }
 
 // MaxPlanRuns bounds the runs of each of the planner's clearance checks.

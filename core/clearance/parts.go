@@ -61,6 +61,10 @@ type RunNear struct {
 	GapM          float64 `json:"g,omitempty"`
 	GapAtS        float64 `json:"gt,omitempty"`
 	GapAt         Point3  `json:"ga"`
+	// Line names the nearest line of the hoisting gear (in Rope); Rope is
+	// the hoisting gear's closest approach, nil when not checked.
+	Line string   `json:"l,omitempty"`
+	Rope *RunNear `json:"r,omitempty"`
 }
 
 func nearOf(c Closest) RunNear {
@@ -70,6 +74,11 @@ func nearOf(c Closest) RunNear {
 	}
 	if !math.IsInf(c.GapM, 1) {
 		n.Over, n.GapM, n.GapAtS, n.GapAt = true, c.GapM, c.GapAtS, c.GapAt
+	}
+	n.Line = c.Line
+	if c.Rope != nil {
+		r := nearOf(*c.Rope)
+		n.Rope = &r
 	}
 	return n
 }
@@ -82,6 +91,11 @@ func (n RunNear) closest() Closest {
 	}
 	if n.Over {
 		c.GapM, c.GapAtS, c.GapAt = n.GapM, n.GapAtS, n.GapAt
+	}
+	c.Line = n.Line
+	if n.Rope != nil {
+		r := n.Rope.closest()
+		c.Rope = &r
 	}
 	return c
 }
@@ -227,7 +241,7 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		near := c.site.checkRun(&run, c.opt.StepM)
 		rp := RunPart{Near: make([]RunNear, len(near))}
 		for n := range near {
-			if !finite(near[n].ClearanceM) {
+			if !finite(near[n].ClearanceM) || (near[n].Rope != nil && !finite(near[n].Rope.ClearanceM)) {
 				return fmt.Errorf("run %d: the path has no points", i)
 			}
 			rp.Near[n] = nearOf(near[n])

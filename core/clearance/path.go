@@ -38,6 +38,13 @@ type Closest struct {
 	GapM   float64
 	GapAtS float64
 	GapAt  Point3
+	// Line names the line of the hoisting gear nearest (AlongLines: "hoist
+	// rope", "sling leg 2"); empty for the load.
+	Line string
+	// Rope is the hoisting gear's Closest to the same obstacle over the
+	// same run (AlongLines; its At is the nearest point of the line, its
+	// GapM unused); nil when the run has no lines checked.
+	Rope *Closest
 }
 
 // AlongPath checks a path, taken as straight between its samples, against

@@ -1,6 +1,7 @@
 package clearance
 
 import (
+	"fmt"
 	"math"
 
 	"swaysheet/core/sway"
@@ -20,16 +21,27 @@ type Run struct {
 	// ground frame, z from the suspension point, [corner][sample]
 	// (sway.BodyHistory); nil for a point load.
 	CornerXM, CornerYM, CornerZM [][]float64
+	// HookRelXM, HookRelYM, HookRelZM are the hook relative to the
+	// suspension point (a hook block, or a rigid load on a hook); nil when
+	// the rope ends at the load. LegTop and LegEnd hold a rigid load's
+	// sling legs' ends on the ground frame, z from the suspension point,
+	// [leg][sample] (sway.BodyHistory).
+	HookRelXM, HookRelYM, HookRelZM []float64
+	LegTopXM, LegTopYM, LegTopZM    [][]float64
+	LegEndXM, LegEndYM, LegEndZM    [][]float64
 }
 
 // RunOf takes a run from an evaluation's time histories.
 func RunOf(r *sway.Result) Run {
 	h := &r.History
 	run := Run{TimeS: h.TimeS, RelXM: h.RelXM, RelYM: h.RelYM, RelZM: h.RelZM,
-		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM, RopeM: h.RopeM, SwingDeg: h.SwingDeg}
+		SuspensionXM: h.SuspensionXM, SuspensionYM: h.SuspensionYM, RopeM: h.RopeM, SwingDeg: h.SwingDeg,
+		HookRelXM: h.HookRelXM, HookRelYM: h.HookRelYM, HookRelZM: h.HookRelZM}
 	if r.Body != nil && r.Body.History != nil && len(r.Body.History.CornerXM) == 8 {
 		b := r.Body.History
 		run.CornerXM, run.CornerYM, run.CornerZM = b.CornerXM, b.CornerYM, b.CornerZM
+		run.LegTopXM, run.LegTopYM, run.LegTopZM = b.LegTopXM, b.LegTopYM, b.LegTopZM
+		run.LegEndXM, run.LegEndYM, run.LegEndZM = b.LegEndXM, b.LegEndYM, b.LegEndZM
 	}
 	return run
 }
@@ -105,4 +117,64 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 		}
 	}
 	return p
+}
+
+// Lines is the hoisting gear of the run as straight lines (RopeLine), z up
+// from the floor: the hoist rope from the suspension point to the hook;
+// below a hook block the rigging to the load; a rigid load's sling legs
+// from the hook (or their top points) to their attach points. The rope
+// of a point load ends at the load's ball of radiusM (the ball is
+// checked as the load), and so does the rigging below a hook block.
+// Parallel legs have no hoist rope of their own (their tops are the
+// suspension points).
+func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
+	h, n := suspensionHeightM, len(r.TimeS)
+	if n == 0 || len(r.SuspensionXM) < n {
+		return nil
+	}
+	susp := func(i int) Point3 { return Point3{r.SuspensionXM[i], r.SuspensionYM[i], h} }
+	line := func(name string) RopeLine {
+		return RopeLine{Name: name, TimeS: r.TimeS, A: make([]Point3, n), B: make([]Point3, n)}
+	}
+	// toBall shortens the line from a to the centre c by the ball's radius.
+	toBall := func(a, c Point3) Point3 {
+		d := dist3(a, c)
+		if d <= radiusM {
+			return a
+		}
+		return lerp3(c, a, radiusM/d)
+	}
+	var out []RopeLine
+	hooked := len(r.HookRelXM) == n
+	if len(r.LegTopXM) == 0 || hooked {
+		rope := line("hoist rope")
+		for i := range n {
+			rope.A[i] = susp(i)
+			if hooked {
+				rope.B[i] = Point3{r.SuspensionXM[i] + r.HookRelXM[i], r.SuspensionYM[i] + r.HookRelYM[i], h + r.HookRelZM[i]}
+			} else {
+				rope.B[i] = toBall(rope.A[i], r.centre(i, h))
+			}
+		}
+		out = append(out, rope)
+	}
+	switch {
+	case len(r.LegTopXM) > 0:
+		for k := range r.LegTopXM {
+			leg := line(fmt.Sprintf("sling leg %d", k+1))
+			for i := range n {
+				leg.A[i] = Point3{r.LegTopXM[k][i], r.LegTopYM[k][i], h + r.LegTopZM[k][i]}
+				leg.B[i] = Point3{r.LegEndXM[k][i], r.LegEndYM[k][i], h + r.LegEndZM[k][i]}
+			}
+			out = append(out, leg)
+		}
+	case hooked:
+		rig := line("rigging")
+		for i := range n {
+			rig.A[i] = out[0].B[i]
+			rig.B[i] = toBall(rig.A[i], r.centre(i, h))
+		}
+		out = append(out, rig)
+	}
+	return out
 }

@@ -147,6 +147,12 @@ func sectionFrom(site *Site, nominal *Run, trk *track, bins map[int]runBins, e50
 		if v := reps[k].Vertical; v != nil {
 			v.AtDistanceM = trk.distance(where[k].GapAt.Plan())
 		}
+		if r, w := reps[k].Rope, where[k].Rope; r != nil && w != nil {
+			r.SmallestAtDistanceM = trk.distance(w.At.Plan())
+			if r.Strikes > 0 {
+				r.FirstStrikeAtDistanceM = trk.distance(w.FirstStrikeAt.Plan())
+			}
+		}
 	}
 	return sec
 }

@@ -39,6 +39,8 @@ type ObstacleReport struct {
 	// of a strike over all runs (zero when none strikes).
 	Strikes      int     `json:"strikes"`
 	FirstStrikeS float64 `json:"first_strike_s"`
+	// ShareStrike is Strikes/Runs: how often it is hit.
+	ShareStrike float64 `json:"share_strike"`
 	// ClearanceP5M is the clearance that 95 % of the runs keep (the 5th
 	// percentile of each run's smallest clearance, nearest rank);
 	// SmallestM the smallest over every run, at SmallestAtS and SmallestAt.
@@ -57,6 +59,33 @@ type ObstacleReport struct {
 	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
+	// Rope is how the hoisting gear (hoist rope, rigging, sling legs)
+	// passes the obstacle; nil when no run's lines were checked.
+	// KeepMargin and ShareKeepMargin above count a run only when both the
+	// load and its rope keep the margin (and neither strikes).
+	Rope *RopeReport `json:"rope,omitempty"`
+}
+
+// RopeReport is how the hoisting gear's straight lines (see Run.Lines)
+// pass one obstacle over the runs; its fields read as the load's in
+// ObstacleReport. SmallestAt is the point of the line nearest the
+// obstacle (its height is SmallestAt.Z), on the line named Part.
+type RopeReport struct {
+	Runs                   int     `json:"runs"`
+	KeepMargin             int     `json:"keep_margin"`
+	ShareKeepMargin        float64 `json:"share_keep_margin"`
+	Strikes                int     `json:"strikes"`
+	FirstStrikeS           float64 `json:"first_strike_s"`
+	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
+	FirstStrikeAtHeightM   float64 `json:"first_strike_at_height_m"`
+	ClearanceP5M           float64 `json:"clearance_p5_m"`
+	SmallestM              float64 `json:"smallest_m"`
+	SmallestAtS            float64 `json:"smallest_at_s"`
+	SmallestAt             Point3  `json:"smallest_at"`
+	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
+	SmallestAtHeightM      float64 `json:"smallest_at_height_m"`
+	Part                   string  `json:"part"`
+	ErrorBoundM            float64 `json:"error_bound_m"`
 }
 
 // Required is the share of runs that must keep the margin from every
@@ -94,7 +123,7 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 }
 
 // checkRun is one run's Closest to each obstacle: a rigid load's box, or
-// the ball about the load's centre.
+// the ball about the load's centre, and the hoisting gear's lines (Rope).
 func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 	out := make([]Closest, len(s.Obstacles))
 	var path []Sample
@@ -104,11 +133,16 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 	} else {
 		path = r.Path(s.SuspensionHeightM)
 	}
+	lines := r.Lines(s.SuspensionHeightM, s.LoadRadiusM)
 	for k := range s.Obstacles {
 		if boxes != nil {
 			out[k] = s.Obstacles[k].AlongBoxPath(boxes, stepM)
 		} else {
 			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
+		}
+		if len(lines) > 0 {
+			rope := s.Obstacles[k].AlongLines(lines, stepM)
+			out[k].Rope = &rope
 		}
 	}
 	return out
@@ -125,10 +159,12 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 		w := Closest{GapM: math.Inf(1)}
 		smallest := make([]float64, len(near))
 		var gaps []float64
+		rope := s.summariseRope(near, k, &w)
+		rep.Rope = rope
 		for i := range near {
 			c := near[i][k]
 			smallest[i] = c.ClearanceM
-			if c.ClearanceM >= s.MarginM && !c.Strikes {
+			if c.ClearanceM >= s.MarginM && !c.Strikes && (c.Rope == nil || c.Rope.ClearanceM >= s.MarginM && !c.Rope.Strikes) {
 				rep.KeepMargin++
 			}
 			if c.Strikes {
@@ -152,6 +188,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
+		rep.ShareStrike = float64(rep.Strikes) / float64(len(near))
 		if len(gaps) > 0 {
 			sorts.Floats(gaps)
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
@@ -161,6 +198,52 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 		out[k], where[k] = rep, w
 	}
 	return out, where
+}
+
+// summariseRope is the hoisting gear's figures for obstacle k over the
+// runs that checked it (nil when none did), with where its smallest
+// clearance and first strike are (w.Rope).
+func (s *Site) summariseRope(near [][]Closest, k int, w *Closest) *RopeReport {
+	var rep *RopeReport
+	var smallest []float64
+	var where Closest
+	for i := range near {
+		c := near[i][k].Rope
+		if c == nil {
+			continue
+		}
+		if rep == nil {
+			rep = &RopeReport{SmallestM: math.Inf(1)}
+		}
+		rep.Runs++
+		smallest = append(smallest, c.ClearanceM)
+		if c.ClearanceM >= s.MarginM && !c.Strikes {
+			rep.KeepMargin++
+		}
+		if c.Strikes {
+			if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
+				rep.FirstStrikeS, where.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
+			}
+			rep.Strikes++
+		}
+		if c.ClearanceM < rep.SmallestM {
+			rep.SmallestM, rep.SmallestAtS, rep.SmallestAt, rep.Part = c.ClearanceM, c.TimeS, c.At, c.Line
+		}
+		rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
+	}
+	if rep == nil {
+		return nil
+	}
+	sorts.Floats(smallest)
+	rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
+	rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(rep.Runs)
+	rep.SmallestAtHeightM = rep.SmallestAt.Z
+	if rep.Strikes > 0 {
+		rep.FirstStrikeAtHeightM = where.FirstStrikeAt.Z
+	}
+	where.At = rep.SmallestAt
+	w.Rope = &where
+	return rep
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the
@@ -188,17 +271,37 @@ func VerdictSentences(reports []ObstacleReport, marginM float64) (ok bool, ss []
 			continue
 		}
 		ok = false
-		text := fmt.Sprintf("%s: the load keeps {0} from it in %d of %d runs (%.0f %%; %.0f %% needed)",
-			braces(r.Name), r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
+		who := "the load"
+		if r.Rope != nil && r.Rope.KeepMargin < r.Rope.Runs {
+			who = "the load and its rope"
+		}
+		text := fmt.Sprintf("%s: %s keep{0} from it in %d of %d runs (%.0f %%; %.0f %% needed)",
+			braces(r.Name), who, r.KeepMargin, r.Runs, 100*r.ShareKeepMargin, 100*Required)
+		if who == "the load" {
+			text = strings.Replace(text, "keep{0}", "keeps {0}", 1)
+		} else {
+			text = strings.Replace(text, "keep{0}", "keep {0}", 1)
+		}
 		qs := []words.Quantity{words.Length(marginM)}
 		if r.Strikes > 0 {
-			text += fmt.Sprintf("; it strikes it in %d runs, the earliest {1} into the move, {2} along the path", r.Strikes)
+			text += fmt.Sprintf("; it strikes it in %d runs, the earliest {%d} into the move, {%d} along the path", r.Strikes, len(qs), len(qs)+1)
 			qs = append(qs, words.Time(r.FirstStrikeS), words.Length(r.FirstStrikeAtDistanceM))
+		}
+		if rp := r.Rope; rp != nil && rp.Strikes > 0 {
+			text += fmt.Sprintf("; the rope passes through it in %d runs, the earliest {%d} into the move, {%d} along the path, {%d} up",
+				rp.Strikes, len(qs), len(qs)+1, len(qs)+2)
+			qs = append(qs, words.Time(rp.FirstStrikeS), words.Length(rp.FirstStrikeAtDistanceM), words.Length(rp.FirstStrikeAtHeightM))
 		}
 		ss = append(ss, words.Say(text+".", qs...))
 	}
 	if ok {
-		ss = append(ss, words.Say(fmt.Sprintf("The load keeps {0} from every obstacle in at least %.0f %% of the runs.", 100*Required), words.Length(marginM)))
+		who := "The load keeps"
+		for _, r := range reports {
+			if r.Rope != nil {
+				who = "The load and its rope keep"
+			}
+		}
+		ss = append(ss, words.Say(fmt.Sprintf("%s {0} from every obstacle in at least %.0f %% of the runs.", who, 100*Required), words.Length(marginM)))
 	}
 	return ok, ss
 }

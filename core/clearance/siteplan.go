@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"sort"
+	"strings"
 
 	"swaysheet/core/draws"
 	"swaysheet/core/plan"
@@ -18,8 +19,9 @@ const PlanWork = 400_000_000
 
 const planBudgetMessage = "Checking the plan's options against the site needs more computing than allowed: use fewer runs (site.spread.runs) or shorten the move (plan.distance_m or plan.angle_deg)."
 
-// bisections is how many times the top speed's bracket is halved.
-const bisections = 5
+// bisections is how many times the top speed's bracket (between two
+// grid speeds) is halved.
+const bisections = 3
 
 // PlanSite checks a plan's options against the scenario's site (see
 // SitePlan): each option's move replaces the scenario's motions and is
@@ -135,7 +137,22 @@ func worst(rep *Report) (string, float64, float64) {
 	return name, share, smallest
 }
 
-// topSpeed bisects the drive-limits move's top speed (see TopSpeed).
+// topSpeed searches the drive-limits move's top speed (see TopSpeed).
+//
+// The swing a move leaves is not monotonic in its top speed: at a given
+// acceleration a, the ramp to top speed v lasts t_a = v/a, and in linear
+// theory one ramp leaves a swing of amplitude 2(a/g)|sin(pi*t_a/T)|
+// (T the sway period; any mechanics text): none when the ramp lasts a
+// whole number of periods, the most when it lasts an odd number of half
+// periods. A slower top speed can so swing more than a faster one, and a
+// bisection that takes "slower never swings more" can report a speed
+// above one that fails. The search is therefore: check a grid of
+// speedGrid top speeds evenly from a tenth of the plan's top speed to
+// the top speed itself; the answer lies below the slowest grid speed
+// that fails, and is bisected (bisections halvings) between it and the
+// grid speed below it, which clears. Every speed checked at or below the
+// answer clears (Tested lists them all); grid speeds above the first
+// failure that clear again are named (FasterClears), not advised.
 func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Report, error)) *TopSpeed {
 	var base *plan.Option
 	for i := range res.Options {
@@ -153,42 +170,64 @@ func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Re
 	if speed == nil {
 		return nil
 	}
-	ts := &TopSpeed{Unit: unit}
-	clears := func(v float64) (bool, bool) {
-		m := base.Motion
-		if unit == "m/s" {
-			m.SpeedMPerS = &v
-		} else {
-			m.RateDegPerS = &v
+	ts := &TopSpeed{Unit: unit, Tested: []SpeedTried{}}
+	// clears checks top speed v (the plan's own from its report when
+	// given); done is false when the check could not be made.
+	clears := func(v float64, rep *Report) (ok, done bool) {
+		if rep == nil {
+			m := base.Motion
+			if unit == "m/s" {
+				m.SpeedMPerS = &v
+			} else {
+				m.RateDegPerS = &v
+			}
+			ts.Checks++
+			var err error
+			if rep, err = check(m); err != nil {
+				return false, false
+			}
 		}
-		ts.Checks++
-		rep, err := check(m)
-		return err == nil && rep.Clears, err == nil
+		_, share, _ := worst(rep)
+		ts.Tested = append(ts.Tested, SpeedTried{Speed: v, Clears: rep.Clears, ShareKeepMargin: share})
+		return rep.Clears, true
 	}
-	hi := *speed
-	if limits == nil {
-		ok, done := clears(hi)
+	top := *speed
+	fail := -1 // the slowest grid speed that fails
+	grid := make([]float64, speedGrid)
+	for j := range grid {
+		grid[j] = top * (0.1 + 0.9*float64(j)/float64(speedGrid-1))
+		if j == speedGrid-1 {
+			grid[j] = top
+		}
+		var rep *Report
+		if j == speedGrid-1 {
+			rep = limits
+		}
+		ok, done := clears(grid[j], rep)
 		if !done {
 			return nil
 		}
-		limits = &Report{Clears: ok}
+		if !ok && fail < 0 {
+			fail = j
+		}
+		if ok && fail >= 0 {
+			ts.FasterClears = append(ts.FasterClears, grid[j])
+		}
 	}
-	if limits.Clears {
-		ts.Speed, ts.Clears = hi, true
+	switch fail {
+	case -1:
+		ts.Speed, ts.Clears = top, true
+		sortTried(ts.Tested)
+		return ts
+	case 0:
+		ts.Above = grid[0]
+		sortTried(ts.Tested)
 		return ts
 	}
-	lo := hi / 10
-	ok, done := clears(lo)
-	if !done {
-		return nil
-	}
-	if !ok {
-		ts.Above = lo
-		return ts
-	}
+	lo, hi := grid[fail-1], grid[fail]
 	for range bisections {
 		mid := (lo + hi) / 2
-		ok, done := clears(mid)
+		ok, done := clears(mid, nil)
 		if !done {
 			break
 		}
@@ -199,7 +238,17 @@ func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Re
 		}
 	}
 	ts.Speed, ts.Above, ts.Clears = lo, hi, true
+	sortTried(ts.Tested)
 	return ts
+}
+
+// speedGrid is how many top speeds the search checks evenly from a tenth
+// of the plan's top speed to the top speed.
+const speedGrid = 5
+
+// sortTried puts the speeds tried slowest first.
+func sortTried(v []SpeedTried) {
+	sort.SliceStable(v, func(a, b int) bool { return v[a].Speed < v[b].Speed })
 }
 
 // planWords says the outcome, the quantities marked (core/words).
@@ -225,12 +274,22 @@ func planWords(marginM float64, res *plan.Result, sp *SitePlan) []words.Sentence
 		speed, above := words.Of(ts.Speed, ts.Unit), words.Of(ts.Above, ts.Unit)
 		switch {
 		case ts.Clears && ts.Above == 0:
-			w = append(w, words.Say("The plan's top speed of {0} keeps the margin.", speed))
+			w = append(w, words.Say(fmt.Sprintf("The plan's top speed of {0} keeps the margin, and so does every slower top speed tested (%d, from {1}).",
+				len(ts.Tested)), speed, words.Of(ts.Tested[0].Speed, ts.Unit)))
 		case ts.Clears:
-			w = append(w, words.Say(fmt.Sprintf("Largest top speed found that keeps the margin at the drive's acceleration: {0} ({1} does not; %d checks of %d runs each).",
-				ts.Checks, sp.RunsPerCheck), speed, above))
+			w = append(w, words.Say(fmt.Sprintf("Largest top speed tested that keeps the margin at the drive's acceleration, every slower one tested keeping it too: {0} ({1} does not; %d speeds tested, %d runs each).",
+				len(ts.Tested), sp.RunsPerCheck), speed, above))
 		default:
 			w = append(w, words.Say("Even a tenth of the top speed ({0}) does not keep the margin at the drive's acceleration: the path, the obstacles or the load must change.", above))
+		}
+		if len(ts.FasterClears) > 0 {
+			qs := make([]words.Quantity, len(ts.FasterClears))
+			var marks []string
+			for i, v := range ts.FasterClears {
+				qs[i] = words.Of(v, ts.Unit)
+				marks = append(marks, fmt.Sprintf("{%d}", i))
+			}
+			w = append(w, words.Say("Faster top speeds tested keep it again ("+strings.Join(marks, ", ")+"): the swing a ramp leaves depends on its time against the sway period, so speeds between may not; they are not advised.", qs...))
 		}
 	}
 	return w

@@ -12,37 +12,74 @@ type ClearanceFigure struct {
 	Key                       string
 	Crew, Technical, Unit, Qu string
 	Value                     func(o *clearance.ObstacleReport) (float64, bool)
+	// Detail: a figure for engineers (Row.Detail).
+	Detail bool
 }
 
-// ObstacleTable is every figure of an obstacle, in the order people read
-// them.
+// ObstacleTable is every figure of an obstacle, in the order a crew reads
+// them: does the lift keep the margin from it (load and rope), does
+// anything strike it and when first, how close the load comes, how close
+// the rope comes and how high up, the room under the load passing over
+// it; then the engineers' figures.
 var ObstacleTable = []ClearanceFigure{
-	{"clearance_p5_m", "room kept in 95 of 100 runs", "clearance kept by 95 % of the runs (5th percentile of each run's smallest)", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.ClearanceP5M, true }},
-	{"smallest_m", "closest the load comes", "smallest clearance over every run (negative: it strikes)", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestM, true }},
-	{"smallest_at_s", "closest at", "time of the smallest clearance", "s", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtS, true }},
-	{"smallest_at_distance_m", "closest where, along the path", "distance along the crane's path of the smallest clearance", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtDistanceM, true }},
-	{"share_keep_margin", "runs that keep the margin", "share of the runs keeping the margin", "", "share",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMargin, true }},
-	{"share_keep_margin_low", "of all runs, at least (95 % sure)", "lower 95 % confidence bound of that share (Clopper-Pearson)", "", "share",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
-	{"first_strike_s", "first strike at", "earliest moment of a strike over the runs", "s", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeS, o.Strikes > 0 }},
-	{"first_strike_at_distance_m", "first strike where, along the path", "distance along the crane's path of the earliest strike", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeAtDistanceM, o.Strikes > 0 }},
-	{"vertical.smallest_m", "least room under the load over it", "smallest height of the load's lowest point above its top while over it", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) {
+	{Key: "share_keep_margin", Crew: "runs that keep the margin (load and rope)", Technical: "share of the runs in which the load and its rope keep the margin and strike nothing", Qu: "share",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMargin, true }},
+	{Key: "share_strike", Crew: "runs where the load strikes it", Technical: "share of the runs whose load touches or passes into it (the rope's strikes are the rope rows')", Qu: "share",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareStrike, true }},
+	{Key: "share_keep_margin_low", Crew: "of all runs, at least (95 % sure)", Technical: "lower 95 % confidence bound of that share (Clopper-Pearson)", Qu: "share", Detail: true,
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
+	{Key: "first_strike_s", Crew: "load first strikes it at", Technical: "earliest moment of a strike by the load over the runs", Unit: "s",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeS, o.Strikes > 0 }},
+	{Key: "first_strike_at_distance_m", Crew: "load first strikes it where, along the path", Technical: "distance along the crane's path of the load's earliest strike", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeAtDistanceM, o.Strikes > 0 }},
+	{Key: "rope.first_strike_s", Crew: "rope first passes through it at", Technical: "earliest moment the hoist rope (or rigging, a sling leg) passes through it over the runs", Unit: "s",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.FirstStrikeS, r.Strikes > 0 })},
+	{Key: "rope.first_strike_at_distance_m", Crew: "rope first passes through it where, along the path", Technical: "distance along the crane's path of that point of the rope", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.FirstStrikeAtDistanceM, r.Strikes > 0 })},
+	{Key: "rope.first_strike_at_height_m", Crew: "rope first passes through it how high up", Technical: "height above the floor of that point of the rope", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.FirstStrikeAtHeightM, r.Strikes > 0 })},
+	{Key: "clearance_p5_m", Crew: "room the load keeps in 95 of 100 runs", Technical: "load's clearance kept by 95 % of the runs (5th percentile of each run's smallest)", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ClearanceP5M, true }},
+	{Key: "smallest_m", Crew: "closest the load comes", Technical: "load's smallest clearance over every run (negative: it strikes)", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestM, true }},
+	{Key: "smallest_at_distance_m", Crew: "closest where, along the path", Technical: "distance along the crane's path of the load's smallest clearance", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtDistanceM, true }},
+	{Key: "smallest_at_s", Crew: "closest at", Technical: "time of the load's smallest clearance", Unit: "s",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtS, true }},
+	{Key: "rope.clearance_p5_m", Crew: "room the rope keeps in 95 of 100 runs", Technical: "clearance of the hoist rope (rigging, sling legs) kept by 95 % of the runs", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.ClearanceP5M, true })},
+	{Key: "rope.smallest_m", Crew: "closest the rope comes", Technical: "smallest clearance of the hoist rope (rigging, sling legs) over every run (negative: it passes through)", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestM, true })},
+	{Key: "rope.smallest_at_height_m", Crew: "rope closest how high up", Technical: "height above the floor of the rope's nearest point", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestAtHeightM, true })},
+	{Key: "rope.smallest_at_distance_m", Crew: "rope closest where, along the path", Technical: "distance along the crane's path of the rope's nearest point", Unit: "m",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestAtDistanceM, true })},
+	{Key: "rope.smallest_at_s", Crew: "rope closest at", Technical: "time of the rope's smallest clearance", Unit: "s",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestAtS, true })},
+	{Key: "rope.share_keep_margin", Crew: "runs where the rope keeps the margin", Technical: "share of the runs in which the rope alone keeps the margin and passes through nothing", Qu: "share",
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.ShareKeepMargin, true })},
+	{Key: "vertical.smallest_m", Crew: "least room under the load over it", Technical: "smallest height of the load's lowest point above its top while over it", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) {
 			return vertical(o, func(v *clearance.Vertical) float64 { return v.SmallestM })
 		}},
-	{"vertical.at_distance_m", "least room under the load where", "distance along the crane's path of that", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) {
+	{Key: "vertical.at_distance_m", Crew: "least room under the load where", Technical: "distance along the crane's path of that", Unit: "m",
+		Value: func(o *clearance.ObstacleReport) (float64, bool) {
 			return vertical(o, func(v *clearance.Vertical) float64 { return v.AtDistanceM })
 		}},
-	{"error_bound_m", "checked to within", "what the points checked can miss between samples", "m", "",
-		func(o *clearance.ObstacleReport) (float64, bool) { return o.ErrorBoundM, true }},
+	{Key: "error_bound_m", Crew: "load checked to within", Technical: "what the load's points checked can miss between samples", Unit: "m", Detail: true,
+		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ErrorBoundM, true }},
+	{Key: "rope.error_bound_m", Crew: "rope checked to within", Technical: "what the rope's moments checked can miss between samples", Unit: "m", Detail: true,
+		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.ErrorBoundM, true })},
+}
+
+// rope reads a figure of the obstacle's rope report, when there is one.
+func rope(f func(*clearance.RopeReport) (float64, bool)) func(*clearance.ObstacleReport) (float64, bool) {
+	return func(o *clearance.ObstacleReport) (float64, bool) {
+		if o.Rope == nil {
+			return 0, false
+		}
+		return f(o.Rope)
+	}
 }
 
 func vertical(o *clearance.ObstacleReport, f func(*clearance.Vertical) float64) (float64, bool) {
@@ -107,12 +144,24 @@ func spread(f func(*clearance.Report) float64) func(*clearance.Report) (float64,
 type ClearanceReport struct {
 	Rows      []Row          `json:"rows"`
 	Obstacles []ObstacleRows `json:"obstacles"`
+	// WorstFirst lists the obstacles' indices, the one kept clear in the
+	// fewest runs first (then the closest approach): the order a crew
+	// reads them in (clearanceverdict.go).
+	WorstFirst []int `json:"worst_first"`
 }
 
-// ObstacleRows are one obstacle's figures.
+// ObstacleRows are one obstacle's figures. RopePart names the line of
+// the hoisting gear that comes closest ("hoist rope", "rigging", "sling
+// leg 2"; the rope rows are of it), empty when the rope was not checked.
 type ObstacleRows struct {
-	Name string `json:"name"`
-	Rows []Row  `json:"rows"`
+	Name     string `json:"name"`
+	RopePart string `json:"rope_part,omitempty"`
+	Rows     []Row  `json:"rows"`
+	// Keeps is true when the obstacle keeps the margin in at least
+	// clearance.Required of the runs; Verdict says so in words, in the
+	// units shown (clearanceverdict.go).
+	Keeps   bool   `json:"keeps"`
+	Verdict string `json:"verdict"`
 }
 
 // PresentClearance gives the rows of the check and of each obstacle, in
@@ -128,12 +177,17 @@ func PresentClearance(r *clearance.Report, u units.Choice) ClearanceReport {
 	for i := range r.Obstacles {
 		o := &r.Obstacles[i]
 		rows := ObstacleRows{Name: o.Name, Rows: []Row{}}
+		if o.Rope != nil {
+			rows.RopePart = o.Rope.Part
+		}
 		for _, f := range ObstacleTable {
 			if v, ok := f.Value(o); ok {
-				rows.Rows = append(rows.Rows, Figure{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Unit: f.Unit, Quantity: f.Qu}.row(v, u))
+				rows.Rows = append(rows.Rows, Figure{Key: f.Key, Crew: f.Crew, Technical: f.Technical, Unit: f.Unit, Quantity: f.Qu, Detail: f.Detail}.row(v, u))
 			}
 		}
+		rows.Keeps, rows.Verdict = obstacleVerdict(o, r.MarginM, u)
 		out.Obstacles = append(out.Obstacles, rows)
 	}
+	out.WorstFirst = worstFirst(r.Obstacles)
 	return out
 }

@@ -62,3 +62,76 @@ func TestClearanceRowsAreTheReportsFields(t *testing.T) {
 		}
 	}
 }
+
+// TestClearanceRowsHaveTheRope: each obstacle's rows give the rope's
+// clearance after the load's, name the line that comes closest, and keep
+// the engineers' figures last.
+func TestClearanceRowsHaveTheRope(t *testing.T) {
+	s := testscenario.Example(t, "site-tower-hoarding")
+	s.Site.Spread.Runs = 10
+	rep, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := PresentClearance(rep, units.Choice{})
+	o := p.Obstacles[0]
+	if o.RopePart != "hoist rope" {
+		t.Errorf("rope part %q", o.RopePart)
+	}
+	at := map[string]int{}
+	for i, r := range o.Rows {
+		at[r.Key] = i
+	}
+	for _, k := range []string{"share_keep_margin", "smallest_m", "rope.smallest_m", "rope.smallest_at_height_m", "error_bound_m"} {
+		if _, ok := at[k]; !ok {
+			t.Fatalf("no row %s: %+v", k, o.Rows)
+		}
+	}
+	if !(at["share_keep_margin"] < at["smallest_m"] && at["smallest_m"] < at["rope.smallest_m"] && at["rope.smallest_m"] < at["error_bound_m"]) || !o.Rows[len(o.Rows)-1].Detail {
+		t.Errorf("order %v", at)
+	}
+	if r := o.Rows[at["rope.smallest_m"]]; r.Crew != "closest the rope comes" || r.ValueSI != rep.Obstacles[0].Rope.SmallestM {
+		t.Errorf("rope row %+v", r)
+	}
+}
+
+// TestObstacleVerdictsWorstFirst: each obstacle's verdict is the check's
+// own rule (clearance.VerdictSentences names exactly the obstacles that
+// do not keep the margin), said in the units shown, and the obstacles are
+// listed worst first (the planner's worst one leads).
+func TestObstacleVerdictsWorstFirst(t *testing.T) {
+	s := testscenario.Example(t, "site-bay-columns")
+	s.Site.Spread.Runs = 30
+	rep, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := PresentClearance(rep, units.Choice{System: "us"})
+	_, said := clearance.Verdict(rep.Obstacles, rep.MarginM)
+	verdicts := strings.Join(said, " ")
+	if len(p.WorstFirst) != len(rep.Obstacles) {
+		t.Fatalf("worst_first %v", p.WorstFirst)
+	}
+	for k, i := range p.WorstFirst {
+		o, rows := rep.Obstacles[i], p.Obstacles[i]
+		if rows.Keeps != (o.ShareKeepMargin >= clearance.Required) || rows.Keeps == strings.Contains(verdicts, o.Name+":") {
+			t.Errorf("%s: keeps %v, the check's words %q", o.Name, rows.Keeps, verdicts)
+		}
+		if !strings.Contains(rows.Verdict, "ft") || !strings.Contains(rows.Verdict, "95 %") {
+			t.Errorf("%s: verdict %q not in the units shown", o.Name, rows.Verdict)
+		}
+		if o.Strikes > 0 && !strings.Contains(rows.Verdict, "strikes it in") {
+			t.Errorf("%s: struck %d times, verdict %q", o.Name, o.Strikes, rows.Verdict)
+		}
+		if k > 0 {
+			prev := rep.Obstacles[p.WorstFirst[k-1]]
+			if prev.ShareKeepMargin > o.ShareKeepMargin || (prev.ShareKeepMargin == o.ShareKeepMargin && prev.SmallestM > o.SmallestM) {
+				t.Errorf("%s listed after %s", o.Name, prev.Name)
+			}
+		}
+	}
+	if p.Obstacles[p.WorstFirst[0]].Keeps {
+		t.Errorf("the bay example's worst obstacle keeps the margin: %+v", p.Obstacles[p.WorstFirst[0]])
+	}
+	t.Log(p.Obstacles[p.WorstFirst[0]].Verdict)
+}

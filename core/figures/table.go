@@ -102,10 +102,18 @@ var Table = []Figure{
 		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTwistDeg }, false)},
 	{Key: "body.peak_corner_swing_m", Crew: "a corner swings out by", Technical: "peak corner swing (horizontal, from where it hangs still)",
 		Unit: "m", Value: bodied(func(b *sway.Body) float64 { return b.PeakCornerSwingM }, false)},
+	{Key: "body.legs[0].weight_share", Crew: "hook rope 1 holds, hanging still", Technical: "share of the load's weight on hook rope 1 (load.body.tandem.ropes[0])",
+		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.WeightShare })},
+	{Key: "body.legs[1].weight_share", Crew: "hook rope 2 holds, hanging still", Technical: "share of the load's weight on hook rope 2 (load.body.tandem.ropes[1])",
+		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.WeightShare })},
+	{Key: "body.legs[0].tension_max_n", Crew: "largest pull in hook rope 1", Technical: "peak tension of hook rope 1",
+		Unit: "N", Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
+	{Key: "body.legs[1].tension_max_n", Crew: "largest pull in hook rope 2", Technical: "peak tension of hook rope 2",
+		Unit: "N", Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
 	{Key: "body.leg_tension_max_n", Crew: "largest pull in a sling leg", Technical: "peak leg tension",
-		Unit: "N", Value: bodied(func(b *sway.Body) float64 { return b.LegTensionMaxN }, false)},
+		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMaxN })},
 	{Key: "body.leg_tension_min_n", Crew: "smallest pull in a sling leg", Technical: "lowest leg tension",
-		Unit: "N", Value: bodied(func(b *sway.Body) float64 { return b.LegTensionMinN }, false)},
+		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMinN })},
 	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
@@ -167,6 +175,28 @@ func positive(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
 // windy: a figure that is there when the wind blows.
 func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) { return f(r), r.WindForceN > 0 }
+}
+
+// slung: a figure of a rigid load's sling or spreader legs, there when
+// the load has them (two hook ropes have their own figures).
+func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) {
+		if r.Body == nil || r.Body.Suspension == "two ropes" {
+			return 0, false
+		}
+		return f(r.Body), true
+	}
+}
+
+// tandemRope: a figure of hook rope i of two (load.body.tandem), there
+// when the load hangs from two hook ropes.
+func tandemRope(i int, f func(*sway.LegLoad) float64) func(*sway.Result) (float64, bool) {
+	return func(r *sway.Result) (float64, bool) {
+		if r.Body == nil || r.Body.Suspension != "two ropes" || len(r.Body.Legs) <= i {
+			return 0, false
+		}
+		return f(&r.Body.Legs[i]), true
+	}
 }
 
 // rigged: a figure of the hook block and rigging, there when modelled.

@@ -89,8 +89,16 @@ type Point struct {
 	Body *BodyPoint
 }
 
-// Rel is the load's position relative to the suspension point.
-func (p *Point) Rel() r3.Vec { return r3.Sub(p.LoadPos, p.Suspension.Pos) }
+// Rel is the load's position relative to the suspension point (with two
+// hook ropes, relative to the point above where the load hangs still:
+// BodyPoint.Plumb).
+func (p *Point) Rel() r3.Vec {
+	d := r3.Sub(p.LoadPos, p.Suspension.Pos)
+	if p.Body != nil && p.Body.Plumb != (r3.Vec{}) {
+		d = r3.Sub(d, p.Body.Plumb)
+	}
+	return d
+}
 
 // SwingRad is the angle from the downward vertical of the line from the
 // suspension point to the load, radians. For a single rope it is the rope

@@ -26,6 +26,9 @@ import (
 //     slew (Yaw); each leg (hook rope, or leg from a spreader beam held by
 //     the crane) has length L(t) and holds the load at body points
 //     (+/-a, 0, SpreaderZ). This is the bifilar suspension.
+//   - Two hook ropes (Tandem set; rigid_tandem.go): as the parallel legs,
+//     but the top points are S(t) + Top_i e(t), each rope of its own
+//     length L(t) + Extra_i to its own attach point: a tandem lift.
 //
 // Pivot (tests) holds the hook point fixed at S(t) instead of on a rope:
 // a compound pendulum.
@@ -94,9 +97,13 @@ type Rigid struct {
 	// Yaw is the crane's slew since the start (turns the spreader's top
 	// points); nil is none.
 	Yaw func(t float64) (psi, dpsi, ddpsi float64)
+	// Tandem, when set, hangs the load from two hook ropes (in place of
+	// Legs and Spreader).
+	Tandem *TandemRopes
 
-	geo *rigidGeometry // set by Prepare
-	bp  BodyPoint      // scratch for Eval
+	geo   *rigidGeometry // set by Prepare
+	bp    BodyPoint      // scratch for Eval
+	tmemo tandemMemo     // the last tandem rest solved
 }
 
 // Leg is one sling leg: where it attaches on the load (from the load's
@@ -114,9 +121,12 @@ const (
 
 // BodyPoint is what a Rigid adds to a Point.
 type BodyPoint struct {
-	R       m3         // body to ground rotation
-	Omega   r3.Vec     // angular velocity, ground frame, rad/s
-	Legs    [4]float64 // leg tensions (parallel legs: each leg), N
+	R     m3         // body to ground rotation
+	Omega r3.Vec     // angular velocity, ground frame, rad/s
+	Legs  [4]float64 // leg tensions (parallel legs: each leg), N
+	// LegsUp are the upward parts of the pulls of a spreader's legs or of
+	// two hook ropes, N (they add up to the weight hanging still).
+	LegsUp  [2]float64
 	NLegs   int
 	Corners [8]r3.Vec // the box's corners, ground frame, m
 	// TiltRad is the angle of the load's height axis from the vertical;
@@ -127,6 +137,15 @@ type BodyPoint struct {
 	// corner from where it hangs still under the suspension point (with a
 	// spreader, turned with the slew), m^2.
 	CornerSwing2 float64
+	// LegTop and LegEnd are each leg's ends on the ground frame, m: the
+	// hook (parallel legs: the leg's top point) and its attach point on
+	// the load; NLegs of them.
+	LegTop, LegEnd [4]r3.Vec
+	// Plumb is where the load's centre of mass hangs still from the
+	// suspension point, horizontally (turned with the slew), at the
+	// present rope length: zero but with two hook ropes, whose suspension
+	// point is their midpoint. Point.Rel measures from there.
+	Plumb r3.Vec
 }
 
 func (r *Rigid) g() float64 {
@@ -159,7 +178,8 @@ type end struct {
 // constraint is one distance (or, pivot, one coordinate) constraint.
 type constraint struct {
 	a, b  end
-	rope  bool    // length L(t); else fixed length
+	rope  bool    // length L(t) + extra; else fixed length
+	extra float64 // a tandem rope's length less L(t)
 	l     float64 // fixed length
 	coord int     // pivot: -1 for distance, else the coordinate 0..2
 }
@@ -198,20 +218,19 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 	if r.Rope != nil {
 		f.l, f.dl, f.ddl = r.Rope(t)
 	}
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		var dpsi, ddpsi float64
 		if r.Yaw != nil {
 			f.psi, dpsi, ddpsi = r.Yaw(t)
 		}
 		h := r.Heading + f.psi
 		c, s := math.Cos(h), math.Sin(h)
-		a := r.Spreader
 		e := r3.Vec{X: c, Y: s}
 		et := r3.Vec{X: -s, Y: c}
-		for i, sg := range [2]float64{1, -1} {
-			f.top[i] = r3.Scale(sg*a, e)
-			f.topV[i] = r3.Scale(sg*a*dpsi, et)
-			f.topA[i] = r3.Add(r3.Scale(sg*a*ddpsi, et), r3.Scale(-sg*a*dpsi*dpsi, e))
+		for i, a := range r.geo.top {
+			f.top[i] = r3.Scale(a, e)
+			f.topV[i] = r3.Scale(a*dpsi, et)
+			f.topA[i] = r3.Add(r3.Scale(a*ddpsi, et), r3.Scale(-a*dpsi*dpsi, e))
 		}
 	}
 	return f
@@ -228,7 +247,7 @@ func (r *Rigid) kinOf(f *frame, e end, leg int) kin {
 		return kin{p: f.P, v: f.Pv, kind: onHook}
 	}
 	k := kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		k.p = r3.Add(k.p, f.top[leg])
 		k.v = r3.Add(k.v, f.topV[leg])
 		k.a0 = r3.Add(k.a0, f.topA[leg])
@@ -284,7 +303,7 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		}
 		l, dl, ddl := c.l, 0.0, 0.0
 		if c.rope {
-			l, dl, ddl = f.l, f.dl, f.ddl
+			l, dl, ddl = f.l+c.extra, f.dl, f.ddl
 		}
 		addPart(&rw.j, ka, d, 1)
 		addPart(&rw.j, kb, d, -1)

@@ -9,14 +9,19 @@ import (
 
 // rigidGeometry is what Prepare derives from a Rigid's inputs.
 type rigidGeometry struct {
-	hookPoint bool    // two legs: the hook is a point of its own
-	m, mh     float64 // body mass (with four legs: load and hook block), hook point mass
-	ib, ibInv m3      // body inertia about the body's centre of mass, body frame
-	loadC     r3.Vec  // the load's centre of mass from the body's
-	hook      r3.Vec  // the hook from the body's centre of mass (single hook)
-	attach    []r3.Vec
-	cons      []constraint
-	rest      quat // orientation hanging still
+	hookPoint bool // two legs: the hook is a point of its own
+	// twoTop: two ropes or legs from two top points S + top_i e (a
+	// spreader's parallel legs, or tandem hook ropes), of lengths
+	// L(t) + extra_i.
+	twoTop     bool
+	top, extra [2]float64
+	m, mh      float64 // body mass (with four legs: load and hook block), hook point mass
+	ib, ibInv  m3      // body inertia about the body's centre of mass, body frame
+	loadC      r3.Vec  // the load's centre of mass from the body's
+	hook       r3.Vec  // the hook from the body's centre of mass (single hook)
+	attach     []r3.Vec
+	cons       []constraint
+	rest       quat // orientation hanging still
 	// Four legs: the stiffness sharing, T_i = share_i . Fs.
 	share [4]r3.Vec
 	// restCorner are the corners' horizontal offsets from the suspension
@@ -25,6 +30,9 @@ type rigidGeometry struct {
 	// restHeading is the direction of the load's length axis hanging
 	// still, rad from +x toward +y.
 	restHeading float64
+	// restOffset is a tandem load's centre of mass from the suspension
+	// point hanging still, horizontal part.
+	restOffset r3.Vec
 }
 
 // GeometryError is a hanging arrangement the model cannot take; Leg is
@@ -45,8 +53,13 @@ func (r *Rigid) Prepare() error {
 	iLoad := m3{{r.Mass * k.X * k.X}, {0, r.Mass * k.Y * k.Y}, {0, 0, r.Mass * k.Z * k.Z}}
 	rest := quatAxis(r3.Vec{Z: 1}, r.Heading)
 	switch {
+	case r.Tandem != nil:
+		if err := r.prepareTandem(geo, iLoad, rest); err != nil {
+			return err
+		}
 	case r.Spreader > 0:
 		a := r.Spreader
+		geo.twoTop, geo.top = true, [2]float64{a, -a}
 		geo.attach = []r3.Vec{{X: a, Z: r.SpreaderZ}, {X: -a, Z: r.SpreaderZ}}
 		for i := range 2 {
 			geo.cons = append(geo.cons, constraint{a: end{kind: onBody, b: geo.attach[i]}, b: end{kind: onTop}, rope: true, coord: -1})
@@ -109,10 +122,13 @@ func (r *Rigid) Prepare() error {
 	geo.restHeading = math.Atan2(R[1][0], R[0][0])
 	for i := range 8 {
 		c := r3.Sub(r3.Add(geo.loadC, r.corner(i)), geo.hook)
-		if r.Spreader > 0 {
+		if geo.twoTop {
 			c = r.corner(i)
 		}
 		geo.restCorner[i] = R.mul(c)
+		if r.Tandem != nil {
+			geo.restCorner[i] = r3.Add(geo.restCorner[i], geo.restOffset)
+		}
 		geo.restCorner[i].Z = 0
 	}
 	return nil
@@ -264,7 +280,7 @@ func (geo *rigidGeometry) sharing(legs []Leg) error {
 // HookDepthM is the distance from the hook (where the legs meet) to the
 // load's centre of mass hanging still; zero with a spreader.
 func (r *Rigid) HookDepthM() float64 {
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		return 0
 	}
 	return r3.Norm(r3.Sub(r.geo.hook, r.geo.loadC))

@@ -103,15 +103,17 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
 	var hook, hookV, pull r3.Vec
 	switch {
-	case r.Spreader > 0:
+	case geo.twoTop:
 		bp.NLegs = 2
 		var dir, rate r3.Vec
 		for i := range 2 {
-			bp.Legs[i] = -lam[i] * f.l
+			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
 			p.Tension += bp.Legs[i]
 			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
 			top := r.kinOf(f, end{kind: onTop}, i)
-			dir = r3.Add(dir, r3.Sub(a.p, top.p))
+			d := r3.Sub(a.p, top.p)
+			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
+			dir = r3.Add(dir, d)
 			rate = r3.Add(rate, r3.Sub(a.v, top.v))
 		}
 		n := r3.Norm(dir)
@@ -147,7 +149,7 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 		}
 		pull = r3.Scale(-1, pull)
 	}
-	if r.Spreader == 0 {
+	if !geo.twoTop {
 		d := r3.Sub(hook, f.s.Pos)
 		if r.Pivot {
 			d = r3.Sub(load, f.s.Pos)
@@ -160,10 +162,29 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	}
 	p.HookPos = hook
 	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+	for i := range bp.NLegs {
+		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
+		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
+			bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+		}
+	}
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
+	restCorner, restHeading := &geo.restCorner, geo.restHeading
+	if r.Tandem != nil {
+		// Hanging still at the present rope length.
+		var rc [8]r3.Vec
+		q, c := r.tandemRest(f.l)
+		R := rotOf(q[:])
+		for i := range 8 {
+			rc[i] = r3.Add(R.mul(r.corner(i)), c)
+			rc[i].Z = 0
+		}
+		restCorner, restHeading = &rc, math.Atan2(R[1][0], R[0][0])
+		bp.Plumb = r3.Vec{X: cs*c.X - sn*c.Y, Y: sn*c.X + cs*c.Y}
+	}
 	for i := range 8 {
 		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))
-		rc := geo.restCorner[i]
+		rc := restCorner[i]
 		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
 		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
 		bp.CornerSwing2 = math.Max(bp.CornerSwing2, dx*dx+dy*dy)
@@ -171,7 +192,7 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	ez := f.R.Col(2)
 	bp.TiltRad = math.Atan2(math.Hypot(ez.X, ez.Y), ez.Z)
 	ex := f.R.Col(0)
-	tw := math.Atan2(ex.Y, ex.X) - geo.restHeading - f.psi
+	tw := math.Atan2(ex.Y, ex.X) - restHeading - f.psi
 	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
 }
 
@@ -190,6 +211,10 @@ func (r *Rigid) Rest(t float64) []float64 {
 	}
 	var x r3.Vec
 	switch {
+	case r.Tandem != nil:
+		q, c := r.tandemRest(l)
+		copy(y[7:11], q[:])
+		x = r3.Add(s.Pos, c)
 	case r.Spreader > 0:
 		x = r3.Sub(s.Pos, r3.Vec{Z: l + r.SpreaderZ})
 	case r.Pivot:
@@ -219,8 +244,9 @@ func (r *Rigid) Initial(theta, phi, vx, vy float64) []float64 {
 	turn := quatAxis(k, theta)
 	Q := rotOf(turn[:])
 	x := vec(y[1:])
-	if r.Spreader > 0 {
+	if r.geo.twoTop {
 		l, _, _ := r.Rope(0)
+		l += (r.geo.extra[0] + r.geo.extra[1]) / 2
 		dn := r3.Sub(Q.mul(r3.Vec{Z: -l}), r3.Vec{Z: -l})
 		x = r3.Add(x, dn)
 		n := r3.Unit(Q.mul(r3.Vec{Z: -1}))

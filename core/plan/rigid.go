@@ -116,8 +116,11 @@ func (rq *request) rigidNotes() []Sentence {
 	ms := rq.modesAt(l)
 	point := 2 * math.Pi * math.Sqrt(l/units.StandardGravity)
 	rope, ropes := "rope of {2} to the hook", "rope to the hook"
-	if rq.s.Load.Body.Spreader != nil {
+	switch {
+	case rq.s.Load.Body.Spreader != nil:
 		rope, ropes = "parallel legs of {2}", "legs"
+	case rq.s.Load.Body.Tandem != nil:
+		rope, ropes = "rope length of {2} (load.rope_length_m; each hook rope's own length follows it)", "rope length"
 	}
 	qs := []Quantity{qTime(2 * math.Pi / ms.omega[0]), qTime(point), qLen(l).digits(4), qTime(rq.designT)}
 	list := make([]string, len(rq.ropes))

@@ -47,7 +47,7 @@ func kindWords(t string) string {
 	switch strings.TrimPrefix(t, "*") {
 	case "float64":
 		return "a number"
-	case "ropelength.Heights", "ropelength.Timed", "ropelength.Hook", "ropelength.Input", "ropelength.Load", "scenario.Body", "scenario.Spreader":
+	case "ropelength.Heights", "ropelength.Timed", "ropelength.Hook", "ropelength.Input", "ropelength.Load", "scenario.Body", "scenario.Spreader", "scenario.Tandem", "scenario.HookRope":
 		return "an object in { }"
 	}
 	return t

@@ -30,7 +30,7 @@ type Load struct {
 }
 
 // rigidNote goes with every answer for a rigid load.
-const rigidNote = "For a rigid load the rope length is to the hook (with a spreader, the parallel legs' length), as load.rope_length_m with load.body; the effective length is the one rope with the same first mode, what a shaper designed by rope length needs. The amplitude correction is one rope's, applied to the first mode: exact for a load on a fixed pivot, an approximation on a rope."
+const rigidNote = "For a rigid load the rope length is to the hook (with a spreader: the length of the two legs; with two hook ropes: the length of both), as load.rope_length_m with load.body. The effective length is the single rope that swings in the same time as the load's slowest swing (its first mode); the planner shapes moves for it. The correction for the swing size is one rope's, applied to that swing: exact for a load swinging on a fixed hook, an approximation on a rope."
 
 // rigidLoad builds the rigid load; its errors name the input's fields
 // (load.mass_kg, load.body...), the same paths as in a scenario.
@@ -40,6 +40,15 @@ func (l *Load) rigidLoad() (*sway.RigidLoad, error) {
 		Load: scenario.Load{MassKg: l.MassKg, RopeLengthM: &one, Body: l.Body}, Motions: []scenario.Motion{}}
 	if l.Body == nil {
 		return nil, scenario.Errors{{Field: "load.body", Message: "is required: the rigid load's box and sling set, as load.body in a scenario"}}
+	}
+	if t := l.Body.Tandem; t != nil {
+		// The answer is the length of both hook ropes alike.
+		for i, r := range t.Ropes {
+			if r.LengthM != nil {
+				return nil, scenario.Errors{{Field: fmt.Sprintf("load.body.tandem.ropes[%d].length_m", i),
+					Message: "does not apply here: the rope length found is that of both hook ropes (give the ropes without their own lengths)"}}
+			}
+		}
 	}
 	return sway.NewRigidLoad(s)
 }
@@ -95,7 +104,8 @@ func rigidAnswers(in *Input, res *Result) error {
 		if err != nil {
 			return err
 		}
-		res.FromHeights = &HeightsAnswer{RopeLengthM: rope + depth, RopeToHookM: rope, RiggingLengthM: depth, SmallSwingPeriodS: p}
+		res.FromHeights = &HeightsAnswer{RopeLengthM: rope + depth, RopeToHookM: rope, RiggingLengthM: depth, SmallSwingPeriodS: p,
+			EffectiveLengthM: effectiveLength(p)}
 	}
 	if tm := in.Timed; tm != nil {
 		a, err := timedAnswer(tm, func(t0 float64) (float64, error) { return rigidRope(b, t0) })

@@ -69,7 +69,8 @@ func TestRigidTimedSwing(t *testing.T) {
 		if math.Abs(h.SmallSwingPeriodS/want-1) > 1e-6 || math.Abs(tm.RopeToHookM/l1-1) > 1e-5 || r.RopeLengthM != h.RopeToHookM {
 			t.Errorf("rope %g m: first mode %.8g s, want %.8g s; timed swing gives %.8g m", l1, h.SmallSwingPeriodS, want, tm.RopeToHookM)
 		}
-		if math.Abs(h.RiggingLengthM-d) > 1e-9 || math.Abs(tm.EffectiveLengthM-g*math.Pow(want/(2*math.Pi), 2)) > 1e-9 {
+		if math.Abs(h.RiggingLengthM-d) > 1e-9 || math.Abs(tm.EffectiveLengthM-g*math.Pow(want/(2*math.Pi), 2)) > 1e-9 ||
+			math.Abs(h.EffectiveLengthM/tm.EffectiveLengthM-1) > 3e-6 {
 			t.Errorf("rope %g m: depth %g m (want %g), effective length %g m", l1, h.RiggingLengthM, d, tm.EffectiveLengthM)
 		}
 		if l1 == 0.3 {
@@ -99,6 +100,9 @@ func TestRigidBadInput(t *testing.T) {
 	noLegs := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1)}}
 	short := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1),
 		Legs: []scenario.BodyLeg{{LengthM: f(2), AttachXM: 5, AttachZM: f(0.5)}, {LengthM: f(2), AttachXM: -5, AttachZM: f(0.5)}}, HookMassKg: 100}}
+	// Two hook ropes: the answer is both ropes' length, so neither has its own.
+	tandem := &Load{MassKg: f(5000), Body: &scenario.Body{LengthM: f(12), WidthM: f(0.5), HeightM: f(1),
+		Tandem: &scenario.Tandem{Ropes: []scenario.HookRope{{AttachXM: f(5)}, {LengthM: f(4), AttachXM: f(-5)}}}}}
 	cases := []struct {
 		in    Input
 		field string
@@ -110,6 +114,7 @@ func TestRigidBadInput(t *testing.T) {
 		{Input{Load: load, Heights: &Heights{SheaveHeightM: f(20), HookHeightM: f(10), SlingDepthM: 2}}, "heights.sling_depth_m"},
 		{Input{Load: load, Timed: &Timed{Swings: f(10), TimeS: f(20)}}, "timed.time_s"},
 		{Input{Load: &Load{MassKg: f(-1), Body: load.Body}, Timed: &Timed{Swings: f(5), TimeS: f(40)}}, "load.mass_kg"},
+		{Input{Load: tandem, Timed: &Timed{Swings: f(5), TimeS: f(40)}}, "load.body.tandem.ropes[1].length_m"},
 	}
 	for _, c := range cases {
 		_, err := Find(&c.in)

@@ -154,6 +154,10 @@ type HeightsAnswer struct {
 	// SmallSwingPeriodS is 2*pi*sqrt(L/g), or the first mode's with a hook
 	// block: what a timed swing should give.
 	SmallSwingPeriodS float64 `json:"small_swing_period_s"`
+	// EffectiveLengthM is g*(T0/(2*pi))^2 for that period: the one rope
+	// with the same sway period (RopeLengthM for one rope; with a hook
+	// block or a rigid load, what a shaper designed by rope length needs).
+	EffectiveLengthM float64 `json:"effective_length_m"`
 }
 
 // TimedAnswer is the rope length from a timed swing.
@@ -245,6 +249,7 @@ func pointAnswers(in *Input, res *Result, hook bool, m1, m2, l2 float64) error {
 			a.RopeLengthM = rope + l2
 			a.SmallSwingPeriodS = 2 * math.Pi / pendulum.LinearModes(m1, m2, rope, l2, g).Omega[0]
 		}
+		a.EffectiveLengthM = effectiveLength(a.SmallSwingPeriodS)
 		res.FromHeights = a
 	}
 	if tm := in.Timed; tm != nil {
@@ -267,7 +272,6 @@ func pointAnswers(in *Input, res *Result, hook bool, m1, m2, l2 float64) error {
 // timedAnswer answers the timed swing: one rope when toHook is nil, else
 // the rope to the hook that toHook gives for the small-swing period.
 func timedAnswer(tm *Timed, toHook func(t0 float64) (float64, error)) (*TimedAnswer, error) {
-	g := units.StandardGravity
 	n, t := *tm.Swings, *tm.TimeS
 	errS := tm.TimingErrorS
 	if errS == 0 {
@@ -278,12 +282,12 @@ func timedAnswer(tm *Timed, toHook func(t0 float64) (float64, error)) (*TimedAns
 	length := func(t float64) (float64, error) {
 		t0 := t / n / factor
 		if toHook == nil {
-			return g * math.Pow(t0/(2*math.Pi), 2), nil
+			return effectiveLength(t0), nil
 		}
 		return toHook(t0)
 	}
 	a := &TimedAnswer{PeriodS: t / n, AmplitudeFactor: factor, SmallSwingPeriodS: t / n / factor, TimingErrorS: errS}
-	a.EffectiveLengthM = g * math.Pow(a.SmallSwingPeriodS/(2*math.Pi), 2)
+	a.EffectiveLengthM = effectiveLength(a.SmallSwingPeriodS)
 	l, err := length(t)
 	if err != nil {
 		return nil, err
@@ -303,6 +307,12 @@ func timedAnswer(tm *Timed, toHook func(t0 float64) (float64, error)) (*TimedAns
 			n, t, l, scenario.Ranges["load.rope_length_m"].Text())}}
 	}
 	return a, nil
+}
+
+// effectiveLength is the one rope's length with the small-swing period
+// t0: L = g*(t0/(2*pi))^2, from T0 = 2*pi*sqrt(L/g) (any mechanics text).
+func effectiveLength(t0 float64) float64 {
+	return units.StandardGravity * math.Pow(t0/(2*math.Pi), 2)
 }
 
 // RopeToHook is the rope length to the hook block (mass m1) whose first

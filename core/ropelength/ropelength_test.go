@@ -180,7 +180,10 @@ func TestHeights(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if r.RopeLengthM != 22 || math.Abs(r.FromHeights.SmallSwingPeriodS-2*math.Pi*math.Sqrt(22/g)) > 1e-12 {
+	// Source: T = 2*pi*sqrt(L/g) (any mechanics text); one rope is its
+	// own effective length.
+	if r.RopeLengthM != 22 || math.Abs(r.FromHeights.SmallSwingPeriodS-2*math.Pi*math.Sqrt(22/g)) > 1e-12 ||
+		math.Abs(r.FromHeights.EffectiveLengthM-22) > 1e-12 {
 		t.Errorf("heights: %+v", r.FromHeights)
 	}
 	r, err = Find(&Input{Heights: h, Hook: &Hook{MassKg: f(800), LoadMassKg: f(5000)},
@@ -190,6 +193,13 @@ func TestHeights(t *testing.T) {
 	}
 	if r.RopeLengthM != 18.5 || r.RiggingLengthM != 3.5 {
 		t.Errorf("hook from heights: rope %g m, rigging %g m; want 18.5 and 3.5", r.RopeLengthM, r.RiggingLengthM)
+	}
+	// The effective length is the one rope with the first mode's period,
+	// the same from heights as from the timed swing of that period
+	// (T = 2*pi*sqrt(L/g), any mechanics text); it lies between the rope
+	// to the hook and the whole line, as a slower mode than the rope's alone.
+	if he, te := r.FromHeights.EffectiveLengthM, r.FromTimed.EffectiveLengthM; math.Abs(he/te-1) > 1e-12 || he <= 18.5 {
+		t.Errorf("hook from heights: effective length %g m, timed %g m", he, te)
 	}
 	t.Logf("heights %.4f m, timed %.4f m, %.2f %%; notes %q", r.FromHeights.RopeToHookM, r.FromTimed.RopeToHookM, *r.DifferencePct, r.Notes)
 	if len(r.Notes) != 0 {

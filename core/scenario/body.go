@@ -25,10 +25,13 @@ type Body struct {
 	// HookMassKg is the hook block's mass at the hook where the legs meet
 	// (needed with two legs).
 	HookMassKg float64 `json:"hook_mass_kg,omitempty"`
-	// Legs are two or four sling legs from one hook; or give Spreader.
+	// Legs are two or four sling legs from one hook; or give Spreader or
+	// Tandem.
 	Legs []BodyLeg `json:"legs,omitempty"`
 	// Spreader hangs the load from two parallel legs held by the crane.
 	Spreader *Spreader `json:"spreader,omitempty"`
+	// Tandem hangs the load from two hook ropes of their own (tandem.go).
+	Tandem *Tandem `json:"tandem,omitempty"`
 }
 
 // BodyLeg is one sling leg: its length from the hook to the attach point,
@@ -93,6 +96,10 @@ func (b *Body) validate(c *checker, s *Scenario) {
 		c.add("load.hook", "does not apply with load.body: give the hook block's mass as load.body.hook_mass_kg and the slings as load.body.legs")
 	}
 	switch {
+	case b.Tandem != nil && (b.Spreader != nil || len(b.Legs) > 0):
+		c.add(at+"tandem", "give one of load.body.legs (one hook), load.body.spreader (two parallel legs) or load.body.tandem (two hook ropes), not more")
+	case b.Tandem != nil:
+		b.Tandem.validate(c, s)
 	case b.Spreader != nil && len(b.Legs) > 0:
 		c.add(at+"legs", "give either load.body.legs (one hook) or load.body.spreader (two parallel legs), not both")
 	case b.Spreader != nil:
@@ -114,7 +121,7 @@ func (b *Body) validate(c *checker, s *Scenario) {
 			c.add(at+"hook_mass_kg", "is required with two legs, at least %g kg here (%g %% of the load's mass): the hook moves between the two legs", MinHookShare**m, 100*MinHookShare)
 		}
 	default:
-		c.add(at+"legs", "has %d legs: give two or four legs meeting at the hook, or load.body.spreader for two parallel legs", len(b.Legs))
+		c.add(at+"legs", "has %d legs: give two or four legs meeting at the hook, load.body.spreader for two parallel legs, or load.body.tandem for two hook ropes", len(b.Legs))
 	}
 }
 

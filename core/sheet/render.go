@@ -309,7 +309,7 @@ func (h *htmlWriter) detail(v *view) {
 	if len(v.DetailFigures) > 0 {
 		h.el("p", "", "Also computed: "+strings.Join(v.DetailFigures, "; ")+".")
 	}
-	for _, d := range Methods {
+	for _, d := range v.Methods {
 		h.el("p", "", d)
 	}
 	if p := v.Plan; p != nil {

@@ -49,10 +49,16 @@ var Cautions = []string{
 	"Stop the lift when sway or wind exceeds the plan's limits. A qualified person approves the lift.",
 }
 
-// Methods name the methods behind the figures and their sources, for the
-// sheet's engineering detail (crew lines use plain words).
-var Methods = []string{
-	"Model: full nonlinear 3D pendulum (two masses with a hook block), Dormand-Prince 5(4) integration with error control (Dormand & Prince 1980).",
+// Methods name the methods behind the figures of s and their sources, for
+// the sheet's engineering detail (crew lines use plain words); the model
+// is named by sway.ModelName, the one place its words are kept.
+func Methods(s *scenario.Scenario) []string {
+	return append([]string{"Model: " + sway.ModelName(s) + ", Dormand-Prince 5(4) integration with error control (Dormand & Prince 1980)."},
+		otherMethods...)
+}
+
+// otherMethods are the methods lines that do not depend on the scenario.
+var otherMethods = []string{
 	"Drive settings: ZV, ZVD and EI input shapers (Singer & Seering 1990; Singhose, Seering & Singer 1994), each checked by simulation at every rope length.",
 	"Fingerprint: SHA-256 (FIPS 180-4) of the scenario's canonical JSON; the QR code holds that JSON, DEFLATE-compressed (RFC 1951), base64url (RFC 4648).",
 }
@@ -182,13 +188,15 @@ type view struct {
 	Warnings      []string
 	Assumptions   []string
 	Cautions      []string
-	Version       string
-	PrintedAt     string
-	Fingerprint   string
-	QR            markup
-	QRNote        string
-	EvalErr       string
-	ResultsFor    string
+	// Methods are the engineering detail's methods lines (Methods).
+	Methods     []string
+	Version     string
+	PrintedAt   string
+	Fingerprint string
+	QR          markup
+	QRNote      string
+	EvalErr     string
+	ResultsFor  string
 	// Dense and Denser set smaller type for a sheet with much to say.
 	Dense, Denser, Densest bool
 }
@@ -211,7 +219,7 @@ func Build(in Input) (*Sheet, error) {
 	v := &view{
 		Title: "Hook-load sway check sheet", Name: s.Name, Description: s.Description, Example: s.Example,
 		Inputs: inputGroups(s, u), Version: in.Version, PrintedAt: in.PrintedAt, Fingerprint: fp,
-		Cautions: Cautions, Assumptions: sway.Assumptions, ResultsFor: in.ResultFor, EvalErr: in.ResultErr,
+		Cautions: Cautions, Assumptions: sway.Assumptions, Methods: Methods(s), ResultsFor: in.ResultFor, EvalErr: in.ResultErr,
 		Simulated: true,
 	}
 	if v.Version == "" {
@@ -320,7 +328,7 @@ func mergeCautions(own, more []string) []string {
 // smaller still, to stay on one page.
 func density(v *view) int {
 	// 4: the verdict band; then the engineering detail.
-	n := len(v.Figures) + len(v.Assumptions)*2 + len(v.Cautions)*2 + 4 + len(Methods) + 2
+	n := len(v.Figures) + len(v.Assumptions)*2 + len(v.Cautions)*2 + 4 + len(v.Methods) + 2
 	in := 0
 	for _, g := range v.Inputs {
 		in += len(g.Rows) + 1
@@ -333,6 +341,9 @@ func density(v *view) int {
 	if st := v.Site; st != nil {
 		// The plan view sits beside its table: about a dozen lines.
 		n += 14 + len(st.Rows) + 2*len(st.Words)
+		if st.Section != "" {
+			n += 6 // the vertical section under the table
+		}
 	}
 	if p := v.Plan; p != nil {
 		n += 9 + len(p.Notes)*2

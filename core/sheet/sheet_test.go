@@ -264,3 +264,29 @@ func TestNothingSimulatedOnTheSheet(t *testing.T) {
 		t.Error("a sheet of no move does not say nothing was simulated")
 	}
 }
+
+// The engineering detail's methods line names the model the figures come
+// from (sway.ModelName): a point load, a hook block and load as two
+// masses, a rigid load on its sling set; never the two masses for a load
+// that has none.
+func TestMethodsNameTheModel(t *testing.T) {
+	for file, want := range map[string]string{
+		"bay-travel.json":             "Model: point load on one rope (full nonlinear 3D pendulum)",
+		"heavy-hook-long-slings.json": "Model: hook block and load as two masses (full nonlinear 3D double pendulum)",
+		"bay-girder-rigid.json":       "Model: rigid load on a two-leg sling set from the hook block",
+		"precast-panel-spreader.json": "Model: rigid load on two parallel legs from a spreader beam or two hook ropes",
+	} {
+		s := demo(t, file)
+		_, doc := build(t, s, Input{Version: "test"})
+		detail := doc[strings.Index(doc, "Engineering detail"):]
+		if !strings.Contains(detail, want) {
+			t.Errorf("%s: the methods line does not say %q", file, want)
+		}
+		if s.Load.Hook == nil && strings.Contains(detail, "two masses") {
+			t.Errorf("%s: the methods line speaks of two masses", file)
+		}
+		if m := Methods(s)[0]; !strings.HasPrefix(m, "Model: "+sway.ModelName(s)+",") {
+			t.Errorf("%s: Methods gives %q", file, m)
+		}
+	}
+}

@@ -19,7 +19,10 @@ type siteView struct {
 	Words   []string
 	Plan    markup
 	Caption string
-	Rows    [][]string // obstacle, top, keeps the margin, 95 % keep, smallest (at)
+	// Section is the vertical section along the path (empty without
+	// one); Caption then says both drawings.
+	Section markup
+	Rows    [][]string // obstacle, top, keeps the margin, 95 % keep, smallest (at), room under
 	Spread  string
 }
 
@@ -49,14 +52,23 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 		if o.Strikes > 0 {
 			keeps += fmt.Sprintf("; strikes in %d, first %s s", o.Strikes, Num(o.FirstStrikeS, 3))
 		}
+		under := "not passed over"
+		if vt := o.Vertical; vt != nil {
+			under = length(vt.SmallestM) + " at " + length(vt.AtDistanceM) + " along"
+		}
 		v.Rows = append(v.Rows, []string{o.Name, top, keeps, length(o.ClearanceP5M),
-			length(o.SmallestM) + " at " + Num(o.SmallestAtS, 3) + " s, " + length(o.SmallestAtDistanceM) + " along"})
+			length(o.SmallestM) + " at " + Num(o.SmallestAtS, 3) + " s, " + length(o.SmallestAtDistanceM) + " along", under})
 	}
 	e := rep.Envelope95
 	v.Spread = fmt.Sprintf("%d runs, seed %d; margin %s. The exclusion zone holds %d of the runs: %.0f %% sure to hold 95 %% of all runs.",
 		rep.Runs, rep.Seed, length(rep.MarginM), e.Inside, 100*e.Confidence)
 	v.Plan = markup(sitePlanPaper(SitePlanInput{Site: clearance.SiteOf(s.Site), Report: rep, Units: u, Selected: -1}))
+	v.Section = markup(siteSectionPaper(&rep.Section, u))
 	v.Caption = "Seen from above. Hatched: the exclusion zone (95 % of runs): nobody stands here during the lift. Grey: where the load stays in half the runs. Solid line: the load's path with no spread. Black: obstacles, with their top heights; grey band: the margin around them."
+	if v.Section != "" {
+		v.Caption = "Left, from above: hatched, the exclusion zone (95 % of runs): nobody stands here during the lift; grey, half the runs; solid, the load with no spread; black, obstacles with their tops, the margin grey around. " +
+			"Right, from the side along the path: the load's lowest point (hatched 95 % of runs, grey half, solid no spread), the hook dashed, the obstacles passed black to their tops."
+	}
 	return v
 }
 
@@ -74,10 +86,32 @@ func (h *htmlWriter) site(v *siteView) {
 	}
 	h.raw(`<p class="` + cls + `">` + sym)
 	h.t(strings.Join(v.Words, " "))
-	h.raw("</p>\n<div class=\"sw-site-grid\">\n<figure>")
-	h.m(v.Plan)
-	h.el("figcaption", "", v.Caption)
-	h.raw("</figure>\n<div>\n<table class=\"sw-t sw-clr\"><thead><tr><th>obstacle</th><th>top</th><th>keeps the margin</th><th>95 % of runs keep</th><th>smallest</th></tr></thead><tbody>\n")
+	// With a section: the plan and the section side by side, the table
+	// under both at the full width (a line an obstacle); without, the
+	// plan beside the table.
+	h.raw("</p>\n")
+	if v.Section != "" {
+		h.raw("<figure class=\"sw-site-figs\"><div class=\"sw-site-grid\">")
+		h.m(v.Plan)
+		h.m(v.Section)
+		h.raw("</div>")
+		h.el("figcaption", "", v.Caption+" Spreads used: "+v.Spread)
+		h.raw("</figure>\n")
+		h.siteTable(v, false)
+	} else {
+		h.raw("<div class=\"sw-site-grid sw-site-beside\">\n<figure>")
+		h.m(v.Plan)
+		h.el("figcaption", "", v.Caption)
+		h.raw("</figure>\n<div>\n")
+		h.siteTable(v, true)
+		h.raw("</div>\n</div>\n")
+	}
+	h.raw("</section>\n")
+}
+
+// siteTable writes each obstacle's row, and the spreads used when asked.
+func (h *htmlWriter) siteTable(v *siteView, spreads bool) {
+	h.raw("<table class=\"sw-t sw-clr\"><thead><tr><th>obstacle</th><th>top</th><th>keeps the margin</th><th>95 % of runs keep</th><th>smallest</th><th>room under the load over it</th></tr></thead><tbody>\n")
 	for _, r := range v.Rows {
 		h.raw("<tr>")
 		for i, c := range r {
@@ -90,6 +124,7 @@ func (h *htmlWriter) site(v *siteView) {
 		h.raw("</tr>\n")
 	}
 	h.raw("</tbody></table>\n")
-	h.el("p", "sw-small", "Spreads used: "+v.Spread)
-	h.raw("</div>\n</div>\n</section>\n")
+	if spreads {
+		h.el("p", "sw-small", "Spreads used: "+v.Spread)
+	}
 }

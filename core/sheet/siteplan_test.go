@@ -37,7 +37,9 @@ func TestSiteSectionRendersTheReport(t *testing.T) {
 	page := b.String()
 	want := []string{"Clearances along the path", "DOES NOT CLEAR", rep.Words[0], `url(#sw-hatch)`,
 		"column C3, top 8 m", "panel stack, top 2.2 m", "nobody stands here during the lift",
-		"30 runs, seed 1; margin 0.3 m", "<th>column C4</th>"}
+		"30 runs, seed 1; margin 0.3 m", "<th>column C4</th>",
+		// The vertical section beside the plan, and the room under the load.
+		`url(#sw-section-hatch)`, "along the path (m)", "room under the load over it", "not passed over", ">column C3</text>"}
 	for _, w := range want {
 		if !strings.Contains(page, w) {
 			t.Errorf("sheet lacks %q", w)
@@ -59,5 +61,29 @@ func TestSiteSectionRendersTheReport(t *testing.T) {
 	frag, _ = sh.Fragment()
 	if !strings.Contains(frag, "Not checked: the check was stopped.") || strings.Contains(frag, "sw-hatch") {
 		t.Error("a sheet without the report does not say so")
+	}
+}
+
+// A crane that does not travel has no path to take a section along: the
+// sheet prints the plan beside the table, and no section.
+func TestSiteSectionNeedsAPath(t *testing.T) {
+	sec := &clearance.Section{PathLengthM: 0, Nominal: []clearance.SectionPoint{{DistanceM: 0, LowM: 2.8, HookM: 4}}}
+	if got := siteSectionPaper(sec, units.Choice{System: "si"}); got != "" {
+		t.Errorf("a section along no path: %.80q", got)
+	}
+	if got := SiteSectionScreen(sec, units.Choice{System: "si"}, 400); got != "" {
+		t.Errorf("a section along no path on screen: %.80q", got)
+	}
+	sec.PathLengthM = 10
+	sec.Nominal = append(sec.Nominal, clearance.SectionPoint{TimeS: 5, DistanceM: 10, LowM: 2.8, HookM: 4})
+	sec.Obstacles = []clearance.SectionObstacle{{Name: "wall <A>", FromM: 4, ToM: 5, TopM: 3}}
+	got := siteSectionPaper(sec, units.Choice{System: "us"})
+	for _, w := range []string{"along the path (ft)", ">wall &lt;A&gt;</text>", `id="sw-section-hatch"`} {
+		if !strings.Contains(got, w) {
+			t.Errorf("paper section lacks %q", w)
+		}
+	}
+	if strings.Contains(got, "class=") || strings.Contains(got, "NaN") {
+		t.Error("the paper section has screen classes or NaN")
 	}
 }

@@ -103,6 +103,16 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		"load.rope_length_m", "the rope length", "m"); err != nil {
 		return nil, err
 	}
+	if b := s.Load.Body; b != nil && b.Tandem != nil {
+		// Each hook rope follows the rope length: L(t) + (l_i - L0).
+		for i, l := range s.TandemLengths() {
+			extra := l - l0
+			if err := checkSpan(hoist, func(h float64) float64 { return l0 - h + extra }, scenario.MinRopeM, 500,
+				fmt.Sprintf("load.body.tandem.ropes[%d].length_m", i), fmt.Sprintf("hook rope %d's length", i+1), "m"); err != nil {
+				return nil, err
+			}
+		}
+	}
 	if err := checkSpan(reach, func(d float64) float64 { return r0 + d }, 0, scenario.MaxRadiusM,
 		"crane.radius_m", "the slew radius", "m"); err != nil {
 		return nil, err

@@ -37,8 +37,12 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
 		rec.reserve()
-		if _, ok := su.model.(*pendulum.Rigid); ok {
+		switch m := su.model.(type) {
+		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}
+			rec.hook = m.Spreader == 0
+		case *pendulum.Double:
+			rec.hook = true
 		}
 	}
 	maxN := maxSteps

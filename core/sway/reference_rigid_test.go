@@ -56,7 +56,7 @@ type rigidTolerance struct {
 	samplePosM           float64
 }
 
-// Bounds: about 7 to 10 times the largest difference seen over the eight
+// Bounds: about 7 to 10 times the largest difference seen over the eleven
 // reference scenarios (go test -v -run TestReferenceRigid prints them; the
 // README's validation table records them), far below anything a lift plan
 // reads (0.01 deg, 1 mm, 0.1 % of the weight). At the tight accuracy the

@@ -17,7 +17,8 @@ import (
 
 // Body reports a load modelled as a rigid body (load.body).
 type Body struct {
-	// Suspension is "four legs", "two legs" or "spreader".
+	// Suspension is "four legs", "two legs", "spreader" or "two ropes"
+	// (load.body.tandem).
 	Suspension string `json:"suspension"`
 	// Modes are the small-swing modes at the rope length at the end of
 	// the run, slowest first (modal analysis of the linearised model);
@@ -26,8 +27,10 @@ type Body struct {
 	// TwistRestrained is false on one hook: nothing turns the load back
 	// when it twists.
 	TwistRestrained bool `json:"twist_restrained"`
-	// With a spreader: the twist period of the bifilar formula
-	// 2*pi*(k/a)*sqrt(h/g) and as simulated (free twist of 0.05 deg).
+	// With a spreader or two ropes: the twist period of the bifilar
+	// formula 2*pi*(k/a)*sqrt(h/g) (two ropes: a half the attach points'
+	// distance, h the ropes' mean length; exact for parallel equal ropes
+	// only) and as simulated (free twist of 0.05 deg).
 	BifilarTwistPeriodS   float64 `json:"bifilar_twist_period_s,omitempty"`
 	SimulatedTwistPeriodS float64 `json:"simulated_twist_period_s,omitempty"`
 	// RestTiltDeg is the load's tilt hanging still (unequal legs or attach
@@ -35,8 +38,9 @@ type Body struct {
 	RestTiltDeg float64 `json:"rest_tilt_deg"`
 	// PeakTiltDeg is the largest angle of the load's height axis from the
 	// vertical; PeakTwistDeg its largest turn about the vertical from its
-	// heading at the start (with a spreader: relative to the crane, which
-	// turns the spreader when it slews).
+	// heading at the start (with a spreader or two hook ropes: relative to
+	// the crane, which turns them when it slews; with two ropes from its
+	// heading hanging still at the present rope length).
 	PeakTiltDeg  float64 `json:"peak_tilt_deg"`
 	PeakTwistDeg float64 `json:"peak_twist_deg"`
 	// PeakCornerSwingM is the largest horizontal distance of a corner of
@@ -49,9 +53,11 @@ type Body struct {
 	TwistPeriodS float64 `json:"twist_period_s"`
 	// LegTensionMaxN and LegTensionMinN are the largest and smallest
 	// tension of any leg.
-	LegTensionMaxN float64   `json:"leg_tension_max_n"`
-	LegTensionMinN float64   `json:"leg_tension_min_n"`
-	Legs           []LegLoad `json:"legs"`
+	LegTensionMaxN float64 `json:"leg_tension_max_n"`
+	LegTensionMinN float64 `json:"leg_tension_min_n"`
+	// Legs are the sling legs' (with a spreader its legs', with two
+	// ropes the ropes') tensions, in the order given.
+	Legs []LegLoad `json:"legs"`
 	// History holds the load's tilt, twist, leg tensions and corner
 	// paths at the result's history times.
 	History *BodyHistory `json:"history,omitempty"`
@@ -70,6 +76,13 @@ type LegLoad struct {
 	StaticN     float64 `json:"static_n"`
 	TensionMaxN float64 `json:"tension_max_n"`
 	TensionMinN float64 `json:"tension_min_n"`
+	// WeightShare is a hook rope's share of the load's weight hanging
+	// still: the upward part of its pull over m g (two ropes only; the
+	// two add up to 1).
+	WeightShare float64 `json:"weight_share,omitempty"`
+	// Slack marks a hook rope whose tension reached zero or below (two
+	// ropes only; a warning says so too).
+	Slack bool `json:"slack,omitempty"`
 }
 
 // BodyHistory are time series beside History.
@@ -83,6 +96,11 @@ type BodyHistory struct {
 	CornerXM [][]float64 `json:"corner_x_m"`
 	CornerYM [][]float64 `json:"corner_y_m"`
 	CornerZM [][]float64 `json:"corner_z_m"`
+	// LegTopXM ... LegEndZM are each sling leg's ends on the ground frame,
+	// [leg][sample] (pendulum.BodyPoint's LegTop, LegEnd): for the
+	// clearance check's lines (core/clearance), not sent as JSON.
+	LegTopXM, LegTopYM, LegTopZM [][]float64 `json:"-"`
+	LegEndXM, LegEndYM, LegEndZM [][]float64 `json:"-"`
 }
 
 func (h *BodyHistory) add(p *pendulum.Point) {
@@ -90,11 +108,17 @@ func (h *BodyHistory) add(p *pendulum.Point) {
 	if h.LegTensionN == nil {
 		h.LegTensionN = make([][]float64, b.NLegs)
 		h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
+		for _, a := range []*[][]float64{&h.LegTopXM, &h.LegTopYM, &h.LegTopZM, &h.LegEndXM, &h.LegEndYM, &h.LegEndZM} {
+			*a = make([][]float64, b.NLegs)
+		}
 	}
 	h.TiltDeg = append(h.TiltDeg, b.TiltRad/units.Degree)
 	h.TwistDeg = append(h.TwistDeg, b.TwistRad/units.Degree)
 	for i := range b.NLegs {
 		h.LegTensionN[i] = append(h.LegTensionN[i], b.Legs[i])
+		t, e := b.LegTop[i], b.LegEnd[i]
+		h.LegTopXM[i], h.LegTopYM[i], h.LegTopZM[i] = append(h.LegTopXM[i], t.X), append(h.LegTopYM[i], t.Y), append(h.LegTopZM[i], t.Z)
+		h.LegEndXM[i], h.LegEndYM[i], h.LegEndZM[i] = append(h.LegEndXM[i], e.X), append(h.LegEndYM[i], e.Y), append(h.LegEndZM[i], e.Z)
 	}
 	for i, c := range b.Corners {
 		h.CornerXM[i] = append(h.CornerXM[i], c.X)
@@ -148,6 +172,9 @@ func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
 		r.Spreader = *sp.SpacingM / 2
 		r.SpreaderZ = deref(sp.AttachZM, h/2)
 	}
+	if tr := b.Tandem; tr != nil {
+		r.Tandem = tandemRopes(s)
+	}
 	for _, l := range b.Legs {
 		r.Legs = append(r.Legs, pendulum.Leg{Length: *l.LengthM,
 			Attach: r3.Vec{X: l.AttachXM, Y: l.AttachYM, Z: *l.AttachZM}})
@@ -155,7 +182,13 @@ func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
 	if err := r.Prepare(); err != nil {
 		var ge *pendulum.GeometryError
 		field := "load.body.legs"
-		if errors.As(err, &ge) && ge.Leg >= 0 && ge.Leg < len(b.Legs) {
+		switch {
+		case b.Tandem != nil:
+			field = "load.body.tandem"
+			if errors.As(err, &ge) && ge.Leg >= 0 && ge.Leg < 2 {
+				field = fmt.Sprintf("load.body.tandem.ropes[%d].length_m", ge.Leg)
+			}
+		case errors.As(err, &ge) && ge.Leg >= 0 && ge.Leg < len(b.Legs):
 			field = fmt.Sprintf("load.body.legs[%d].length_m", ge.Leg)
 		}
 		return nil, nil, scenario.Errors{{Field: field, Message: err.Error()}}
@@ -177,13 +210,20 @@ func rigidModel(s *scenario.Scenario, susp func(float64) pendulum.Kinematics,
 // hook to its centre of mass lies along the resultant of F and its weight,
 // atan(F/(m g)). With a spreader the parallel legs lean atan(F/(m g)) and
 // the load moves without turning (its roll under a force across it, which
-// the attach points' height brings, is left out of this figure).
+// the attach points' height brings, is left out of this figure). Two hook
+// ropes are taken as parallel legs of their mean length (exact for
+// parallel equal ropes; an estimate otherwise).
 func bodyWind(r *pendulum.Rigid, force, rope float64) (leanRad, offsetM float64) {
 	g := units.StandardGravity
 	t2 := math.Atan2(force, r.Mass*g)
-	if r.Spreader > 0 {
+	if r.TwoTops() {
+		depth := r.TopDepthM(rope)
+		if r.Tandem != nil {
+			mean := (r.Tandem.Extra[0] + r.Tandem.Extra[1]) / 2
+			rope, depth = rope+mean, depth-mean
+		}
 		x := rope * math.Sin(t2)
-		return math.Atan2(x, rope*math.Cos(t2)+r.SpreaderZ), x
+		return math.Atan2(x, rope*math.Cos(t2)+depth), x
 	}
 	t1 := math.Atan2(force, (r.Mass+r.HookMass)*g)
 	d := r.HookDepthM()
@@ -209,6 +249,8 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	b := s.Load.Body
 	out := &Body{TwistRestrained: true, Legs: []LegLoad{}}
 	switch {
+	case b.Tandem != nil:
+		out.Suspension = "two ropes"
 	case b.Spreader != nil:
 		out.Suspension = "spreader"
 	case len(b.Legs) == 2:
@@ -250,11 +292,15 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	out.PeakTiltDeg = sc.ext[qTilt].max / units.Degree
 	out.PeakTwistDeg = sc.ext[qTwist].max / units.Degree
 	out.PeakCornerSwingM = excursionM(sc.ext[qCorner].max)
-	if b.Spreader != nil {
+	if b.Spreader != nil || b.Tandem != nil {
 		// Source: bifilar suspension (any mechanics text), checked in
 		// core/pendulum against the modal analysis and a free twist.
 		k := deref(b.GyrationHeightM, math.Sqrt((*b.LengthM**b.LengthM+*b.WidthM**b.WidthM)/12))
-		out.BifilarTwistPeriodS = 2 * math.Pi * (k / r.Spreader) * math.Sqrt(ropeEnd/units.StandardGravity)
+		a, h := r.Spreader, ropeEnd
+		if r.Tandem != nil {
+			a, h = bifilarTandem(r.Tandem, ropeEnd)
+		}
+		out.BifilarTwistPeriodS = 2 * math.Pi * (k / a) * math.Sqrt(h/units.StandardGravity)
 		if measure && twist != nil {
 			p, err := twistPeriod(fixed, twist)
 			if err != nil {
@@ -269,8 +315,11 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 		res.warn(words.Say(
 			"The load ({0} long) hangs from one hook, which does not restrain its twist: once it turns, nothing turns it back. Control it with tag lines, or carry it on a spreader with two legs held by the crane.", words.Length(long)))
 	}
+	if b.Tandem != nil {
+		tandemFigures(out, rest.Body, *s.Load.MassKg, res)
+	}
 	for i, l := range out.Legs {
-		if l.TensionMinN <= 0 {
+		if b.Tandem == nil && l.TensionMinN <= 0 {
 			res.warn(words.Plain(fmt.Sprintf(
 				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
 		}
@@ -296,11 +345,15 @@ func twistPeriod(r *pendulum.Rigid, m *pendulum.RigidMode) (float64, error) {
 // bodyAssumptions are the assumptions of an evaluation with load.body:
 // those of the point model, less the two it replaces, after the rigid
 // load's own.
-func bodyAssumptions() []string {
+func bodyAssumptions(b *scenario.Body) []string {
 	out := []string{
 		"The load is a rigid box on slings that do not stretch: four legs are a rigid frame sharing the load by their stiffness; two legs let it roll about their attach line; a spreader's parallel legs hang from points fixed to the crane.",
 		"The rope length runs from the rope's upper point of rotation to the hook (with a spreader: to the load).",
 		"Wind and drag act at the centre of the load's area, for a uniform box its centre of mass: no moment tilts or turns it.",
+	}
+	if b.Tandem != nil {
+		out[0] = "The load is a rigid box on two straight hook ropes that do not stretch and stay taut (a slack rope is flagged), from two points moving with the crane; hook blocks count with the load."
+		out[1] = "Each rope runs from its upper point of rotation to the load; both change with the rope length. Swing is measured from where the load hangs still."
 	}
 	for _, a := range Assumptions {
 		if strings.HasPrefix(a, "The load is a point mass") || strings.HasPrefix(a, "The rope length runs") || strings.HasPrefix(a, "The load does not spin") {

@@ -14,7 +14,8 @@ import (
 // RigidLoad is a scenario's rigid load (load.body) under a still
 // suspension point, for a planner to tune to the modes it has.
 type RigidLoad struct {
-	r *pendulum.Rigid
+	r     *pendulum.Rigid
+	ropeM float64 // load.rope_length_m
 }
 
 // RigidSwing is the linear sway of a rigid load at one rope length: its
@@ -46,7 +47,7 @@ func NewRigidLoad(s *scenario.Scenario) (*RigidLoad, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &RigidLoad{r: r}, nil
+	return &RigidLoad{r: r, ropeM: *s.Load.RopeLengthM}, nil
 }
 
 // Swing is the linear sway at rope length ropeM (to the hook; with a
@@ -57,7 +58,7 @@ func (b *RigidLoad) Swing(ropeM float64, dir r3.Vec) (RigidSwing, error) {
 	if err != nil {
 		return RigidSwing{}, err
 	}
-	out := RigidSwing{DepthM: b.DepthM()}
+	out := RigidSwing{DepthM: b.depthAt(ropeM)}
 	for _, m := range modes {
 		if m.Free {
 			continue
@@ -87,9 +88,15 @@ func (b *RigidLoad) FirstMode(ropeM float64) (periodS, effectiveLengthM float64,
 // DepthM is the depth of the load's centre of mass below the hook hanging
 // still (with a spreader, below the parallel legs' lower ends: their
 // attach height above it).
-func (b *RigidLoad) DepthM() float64 {
-	if b.r.Spreader > 0 {
-		return b.r.SpreaderZ
+func (b *RigidLoad) DepthM() float64 { return b.depthAt(b.ropeM) }
+
+// depthAt is DepthM at rope length ropeM (two hook ropes: below the
+// suspension point less load.rope_length_m's value ropeM, which includes
+// the ropes' own lengths less it and changes a little with the rope
+// length when the ropes are not parallel).
+func (b *RigidLoad) depthAt(ropeM float64) float64 {
+	if b.r.TwoTops() {
+		return b.r.TopDepthM(ropeM)
 	}
 	return b.r.HookDepthM()
 }

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"swaysheet/core/motion"
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
@@ -251,7 +253,8 @@ type recorder struct {
 	bodyHist *BodyHistory // with a rigid load's history
 	sampleDt float64
 	samples  int
-	next     int // index of the next history sample
+	next     int  // index of the next history sample
+	hook     bool // record the hook (hook block or rigid load on a hook)
 }
 
 // reserve makes room for every sample at once: growing eleven slices
@@ -281,6 +284,12 @@ func (s *recorder) record(p *pendulum.Point) {
 	h.SuspensionYM = append(h.SuspensionYM, p.Suspension.Pos.Y)
 	h.TensionN = append(h.TensionN, p.Tension)
 	h.RopeM = append(h.RopeM, p.Rope)
+	if s.hook {
+		hk := r3.Sub(p.HookPos, p.Suspension.Pos)
+		h.HookRelXM = append(h.HookRelXM, hk.X)
+		h.HookRelYM = append(h.HookRelYM, hk.Y)
+		h.HookRelZM = append(h.HookRelZM, hk.Z)
+	}
 	if s.bodyHist != nil {
 		s.bodyHist.add(p)
 	}

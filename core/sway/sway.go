@@ -115,6 +115,13 @@ type History struct {
 	SuspensionYM []float64 `json:"suspension_y_m"`
 	TensionN     []float64 `json:"tension_n"`
 	RopeM        []float64 `json:"rope_m"`
+	// HookRelXM, HookRelYM, HookRelZM are the hook (the hoist rope's lower
+	// end) relative to the suspension point, with a hook block or a rigid
+	// load on a hook; nil otherwise (the rope ends at the load). Kept for
+	// the clearance check's rope (core/clearance), not sent as JSON.
+	HookRelXM []float64 `json:"-"`
+	HookRelYM []float64 `json:"-"`
+	HookRelZM []float64 `json:"-"`
 }
 
 // Stats describe the integration.
@@ -257,7 +264,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.WindDampingRatio, _ = su.air.DampingRatio(mass, su.ropeEnd)
 	}
 	if rigid != nil {
-		res.Assumptions = bodyAssumptions()
+		res.Assumptions = bodyAssumptions(s.Load.Body)
 		lean, off := bodyWind(rigid, su.windForce, su.ropeEnd)
 		res.WindLeanDeg, res.WindOffsetM = lean/units.Degree, off
 	}

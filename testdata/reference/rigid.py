@@ -32,7 +32,8 @@ of the vertices (none when m_h = 0: the rope then pulls on the load's hook
 point). The rope is a distance L(t) from the suspension point to the hook;
 a spreader's two parallel legs are distances L(t) from the points
 S(t) +/- a e(t) (e the load's heading turned with the slew) to the attach
-points. Every constraint is c_j = (d_j.d_j - l_j^2)/2 with d_j linear in the
+points; two hook ropes (load.body.tandem) are distances L(t) + (l_i - L0)
+from the points S(t) +/- (spacing/2) e(t) to their own attach points. Every constraint is c_j = (d_j.d_j - l_j^2)/2 with d_j linear in the
 point positions; Newton's law M q'' = F + G^T lambda and the Baumgarte
 stabilised constraints c'' + 2 w c' + w^2 c = 0 (Baumgarte, Comput.
 Methods Appl. Mech. Eng. 1, 1972; w = sqrt(g_n / L)) give the multipliers
@@ -46,6 +47,14 @@ K = sum k_i e_i e_i^T, e_i the unit vector hook to attach point.
 The hanging-still state is built here from the same rule (the hook over
 the load's centre of mass; two legs in the plane through the attach line
 and the centre of mass), the hook point by scipy.optimize.least_squares.
+With two hook ropes it is the solution of the static equilibrium itself,
+by scipy.optimize.least_squares from the load hanging level below the
+suspension points: unknowns the centre of mass, a rotation vector and the
+two rope tensions; equations the two rope lengths, the sum of forces and
+the sum of moments about the centre of mass (where the core minimises the
+height of the centre of mass over a planar four-bar linkage). The swing
+and excursion are measured from the point above where the load hangs
+still (turned with the slew), as the core does for two ropes.
 The initial swing follows the convention core/pendulum documents for
 Rigid.Initial. Mode periods come from the exact linearisation of this
 constrained system: with N an orthonormal basis of the null space of G
@@ -119,13 +128,26 @@ class RigidModel(ref.Model):
         self.heading = b.get("heading_deg", 0.0) * DEG
         self.mh = b.get("hook_mass_kg", 0.0)
         self.spreader = b.get("spreader")
+        self.tandem = b.get("tandem")
         self.legs = b.get("legs", [])
+        self.extra = [0.0, 0.0]
+        self.rest_memo = {}
         if self.spreader:
             sa = self.spreader["spacing_m"] / 2
             za = self.spreader.get("attach_z_m", h / 2)
             self.attach = [np.array([sa, 0, za]), np.array([-sa, 0, za])]
             self.half = sa
+            self.tops = [sa, -sa]
             self.kind = "spreader"
+        elif self.tandem:
+            ropes = self.tandem["ropes"]
+            self.attach = [np.array([r["attach_x_m"], r.get("attach_y_m", 0.0), r.get("attach_z_m", h / 2)])
+                           for r in ropes]
+            l0 = sc["load"]["rope_length_m"]
+            self.extra = [r.get("length_m", l0) - l0 for r in ropes]
+            sp = self.tandem.get("spacing_m", self.attach[0][0] - self.attach[1][0])
+            self.tops = [sp / 2, -sp / 2]
+            self.kind = "two ropes"
         else:
             self.attach = [np.array([l.get("attach_x_m", 0.0), l.get("attach_y_m", 0.0), l["attach_z_m"]])
                            for l in self.legs]
@@ -185,21 +207,67 @@ class RigidModel(ref.Model):
         r0 = rot_axis([0, 0, 1], self.heading)
         if self.kind == "spreader":
             return r0
+        if self.kind == "two ropes":
+            return self.tandem_rest(self.rope(0.0)[0])[0]
         d = r0 @ (-self.hook_b)
         return rot_to(d / np.linalg.norm(d), np.array([0, 0, -1.0])) @ r0
+
+    def tandem_rest(self, l):
+        """Two hook ropes hanging still under a still suspension point at
+        the origin, rope length l: (rotation, centre of mass)."""
+        if l in self.rest_memo:
+            return self.rest_memo[l]
+        r0 = rot_axis([0, 0, 1], self.heading)
+        e = r0 @ np.array([1.0, 0, 0])
+        tops = [t * e for t in self.tops]
+        lens = [l + x for x in self.extra]
+        w = self.m * G_N
+
+        def rot(v):
+            a = np.linalg.norm(v)
+            return r0 if a == 0 else rot_axis(v / a, a) @ r0
+
+        def res(p):
+            c, R, lam = p[:3], rot(p[3:6]), p[6:8]
+            out, force, moment = [], np.array([0, 0, -w]), np.zeros(3)
+            for a, t, ln, tn in zip(self.attach, tops, lens, lam):
+                arm = R @ a
+                d = t - (c + arm)
+                n = np.linalg.norm(d)
+                out.append((n - ln) / ln)
+                force = force + tn * d / n
+                moment = moment + np.cross(arm, tn * d / n)
+            return out + list(force / w) + list(moment / (w * l))
+        zc = -(np.mean(lens) + np.mean([a[2] for a in self.attach]))
+        sol = least_squares(res, np.concatenate(([0, 0, zc], [0, 0, 0], [w / 2, w / 2])),
+                            xtol=1e-15, ftol=1e-15, gtol=1e-15)
+        if max(abs(x) for x in sol.fun) > 1e-12:
+            raise RuntimeError("two ropes: no rest found (residual %g)" % max(abs(x) for x in sol.fun))
+        self.rest_memo[l] = (rot(sol.x[3:6]), sol.x[:3])
+        return self.rest_memo[l]
+
+    def plumb(self, t):
+        """Two hook ropes: where the load hangs still from the suspension
+        point, horizontally, turned with the slew, at the rope length at t."""
+        if self.kind != "two ropes":
+            return np.zeros(3)
+        c = self.tandem_rest(self.rope(t)[0])[1]
+        psi = self.axes["slew"].at(t)[0]
+        cs, sn = math.cos(psi), math.sin(psi)
+        return np.array([cs * c[0] - sn * c[1], sn * c[0] + cs * c[1], 0.0])
 
     # -- points and constraints
     def body_pos(self, y, wts):
         p = y[:3 * self.npts].reshape(self.npts, 3)
         return wts @ p[:4]
 
-    def top_offset(self, t, sign):
-        """Offset of a spreader top point from S: position, velocity, acceleration."""
+    def top_offset(self, t, i):
+        """Offset of top point i (spreader, two ropes) from S: position, velocity, acceleration."""
         psi, dpsi, ddpsi = self.axes["slew"].at(t)
         h = self.heading + psi
         e = np.array([math.cos(h), math.sin(h), 0.0])
         et = np.array([-math.sin(h), math.cos(h), 0.0])
-        a = sign * self.half
+        a = self.tops[i]
         return a * e, a * dpsi * et, a * ddpsi * et - a * dpsi * dpsi * e
 
     def build_constraints(self):
@@ -217,9 +285,9 @@ class RigidModel(ref.Model):
             w = np.zeros(n)
             w[:4] = self.bary(b)
             return w
-        if self.kind == "spreader":
-            for i, sg in enumerate((1, -1)):
-                cons.append((on_body(self.attach[i]), ("top", sg), "rope"))
+        if self.kind in ("spreader", "two ropes"):
+            for i in range(2):
+                cons.append((on_body(self.attach[i]), ("top", i), "rope"))
         else:
             if self.hook_pt:
                 wh = np.zeros(n)
@@ -250,10 +318,14 @@ class RigidModel(ref.Model):
             z = np.zeros(3)
             return z, z, z
         s, ds, dds = self.suspension(t)
-        if self.kind == "spreader":
+        if self.kind in ("spreader", "two ropes"):
             o, do, ddo = self.top_offset(t, spec[1])
             return -(s + o), -(ds + do), -(dds + ddo)
         return -s, -ds, -dds
+
+    def rope_extra(self, spec):
+        """A rope's length less L(t): two hook ropes' own lengths."""
+        return self.extra[spec[1]] if self.kind == "two ropes" else 0.0
 
     def length(self, t, l):
         if l == "rope":
@@ -287,7 +359,7 @@ class RigidModel(ref.Model):
             d[i] += o
             dd[i] += do
             dda[i] = ddo
-            l[i], dl[i], ddl[i] = lr, dlr, ddlr
+            l[i], dl[i], ddl[i] = lr + self.rope_extra(self.cons[i][1]), dlr, ddlr
         gm = (wm[:, :, None] * d[:, None, :]).reshape(nc, 3 * n)
         kappa = np.einsum("ij,ij->i", d, dda) + np.einsum("ij,ij->i", dd, dd) - dl * dl - l * ddl
         if baumgarte:
@@ -310,7 +382,10 @@ class RigidModel(ref.Model):
     def rest_state(self, t, l):
         s = self.suspension(t)[0]
         R = self.rest_R
-        if self.kind == "spreader":
+        if self.kind == "two ropes":
+            R, c0 = self.tandem_rest(l)
+            c = s + c0
+        elif self.kind == "spreader":
             c = s - np.array([0, 0, l + self.attach[0][2]])
         else:
             hook = s - np.array([0, 0, l])
@@ -331,7 +406,8 @@ class RigidModel(ref.Model):
         n = self.npts
         p = y[:3 * n].reshape(n, 3)
         q = rot_axis([math.sin(az), -math.cos(az), 0.0], th)
-        if self.kind == "spreader":
+        if self.kind in ("spreader", "two ropes"):
+            l += np.mean(self.extra)
             p = p + (q @ np.array([0, 0, -l]) - np.array([0, 0, -l]))
             nd = q @ np.array([0, 0, -1.0])
             w = np.array([vx, vy, -(nd[0] * vx + nd[1] * vy) / nd[2]])
@@ -386,10 +462,10 @@ def figures(model, t, y):
     p = y[:3 * n].reshape(n, 3)
     s = model.suspension(t)[0]
     c, R = orientation(model, p)
-    d = c - s
+    d = c - s - model.plumb(t)
     h = math.hypot(d[0], d[1])
     k0 = model.n_rigid
-    if model.kind == "spreader":
+    if model.kind in ("spreader", "two ropes"):
         legs = [-lam[k0 + i] * info[k0 + i][1] for i in range(2)]
         ten = sum(legs)
     else:
@@ -411,12 +487,18 @@ def figures(model, t, y):
             legs = [(e @ x) / l for e, l in zip(es, model.lens)]
     ez, ex = R[:, 2], R[:, 0]
     tilt = math.atan2(math.hypot(ez[0], ez[1]), ez[2])
-    psi = model.axes["slew"].at(t)[0] if model.kind == "spreader" else 0.0
+    psi = model.axes["slew"].at(t)[0] if model.kind in ("spreader", "two ropes") else 0.0
     rx = model.rest_R[:, 0]
+    rest_corner = model.rest_corner
+    if model.kind == "two ropes":
+        # Hanging still at the present rope length.
+        rr, c0 = model.tandem_rest(model.rope(t)[0])
+        rx = rr[:, 0]
+        rest_corner = [(c0 + rr @ cb)[:2] for cb in model.corners_b()]
     tw = math.remainder(math.atan2(ex[1], ex[0]) - math.atan2(rx[1], rx[0]) - psi, 2 * math.pi)
     cs, sn = math.cos(psi), math.sin(psi)
     corner = 0.0
-    for cb, rc in zip(model.corners_b(), model.rest_corner):
+    for cb, rc in zip(model.corners_b(), rest_corner):
         pc = c + R @ cb - s
         dx = pc[0] - (cs * rc[0] - sn * rc[1])
         dy = pc[1] - (sn * rc[0] + cs * rc[1])
@@ -531,6 +613,12 @@ def solve(model, rtol=RTOL, atol=ATOL, per_step=6):
     }
     if model.kind == "spreader":
         out["body"]["bifilar_twist_period_s"] = 2 * math.pi * (model.k[2] / model.half) * math.sqrt(model.l_end / G_N)
+    if model.kind == "two ropes":
+        # The bifilar formula with a half the attach points' horizontal
+        # distance and h the ropes' mean length (exact for parallel equal ropes).
+        da = model.attach[0] - model.attach[1]
+        a = math.hypot(da[0], da[1]) / 2
+        out["body"]["bifilar_twist_period_s"] = 2 * math.pi * (model.k[2] / a) * math.sqrt((model.l_end + np.mean(model.extra)) / G_N)
     return out
 
 

@@ -50,13 +50,22 @@ func checked(s *scenario.Scenario) (*clearance.Report, error) {
 	return r, nil
 }
 
-// clearanceFigures presents the scenario's clearance check (the last
-// one when it is of the same scenario; computed otherwise): input as the
-// figures call's ({"scenario", "units", "system"}), the result
-// figures.ClearanceReport JSON (the check's rows and each obstacle's,
-// converted and rounded as the figures call's rows).
+// ClearanceFiguresInput is the input of "clearance_figures": the
+// figures call's, and the report to present when the page gives the one
+// it shows (then nothing is checked).
+type ClearanceFiguresInput struct {
+	ShownInput
+	Report *clearance.Report `json:"report,omitempty"`
+}
+
+// clearanceFigures presents the scenario's clearance check: the report
+// given, else the last one when it is of the same scenario, else one
+// computed. Input as the figures call's ({"scenario", "units", "system"})
+// with "report" optional; the result figures.ClearanceReport JSON (the
+// check's rows and each obstacle's, converted and rounded as the figures
+// call's rows, each obstacle's verdict, and the obstacles worst first).
 func clearanceFigures(_ *Env, input []byte) (any, error) {
-	var in ShownInput
+	var in ClearanceFiguresInput
 	s, err := in.read(input, &in)
 	if err != nil {
 		return nil, err
@@ -64,9 +73,11 @@ func clearanceFigures(_ *Env, input []byte) (any, error) {
 	if s.Site == nil {
 		return nil, noSite
 	}
-	r, err := checked(s)
-	if err != nil {
-		return nil, err
+	r := in.Report
+	if r == nil {
+		if r, err = checked(s); err != nil {
+			return nil, err
+		}
 	}
 	return figures.PresentClearance(r, in.choice()), nil
 }

@@ -69,11 +69,41 @@ func TestClearanceFiguresCall(t *testing.T) {
 		t.Fatal(err)
 	}
 	rep := out.(figures.ClearanceReport)
-	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].Rows[0].Unit != "ft" {
+	if len(rep.Obstacles) != 4 || rep.Obstacles[0].Name != "column C2" || rep.Obstacles[0].RopePart != "hoist rope" {
 		t.Errorf("report %+v", rep)
+	}
+	// Lengths in the units asked for, the rope's among them.
+	for _, r := range rep.Obstacles[0].Rows {
+		if r.UnitSI == "m" && r.Unit != "ft" {
+			t.Errorf("%s in %q", r.Key, r.Unit)
+		}
+	}
+	if r := rep.Obstacles[0].Rows; len(r) == 0 || r[0].Key != "share_keep_margin" {
+		t.Errorf("first row %+v", r)
 	}
 	if _, err := json.Marshal(rep); err != nil {
 		t.Fatal(err)
+	}
+	// The report the page shows, given: presented as it is, nothing
+	// checked (a one-run report of another seed is not the kept one).
+	sc := strings.Replace(string(data), `"runs": 200`, `"runs": 3`, 1)
+	small, err := clearance.Check(mustParse(t, []byte(sc)), clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	given, _ := json.Marshal(small)
+	out, err = Calls["clearance_figures"](nil, []byte(`{"scenario": `+string(data)+`, "units": {}, "system": "si", "report": `+string(given)+`}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := out.(figures.ClearanceReport)
+	if len(got.WorstFirst) != 4 || !strings.Contains(got.Rows[0].Key, "margin") {
+		t.Fatalf("given report: %+v", got)
+	}
+	for _, r := range got.Rows {
+		if r.Key == "envelope_95.area_m2" && r.ValueSI != small.Envelope95.AreaM2 {
+			t.Errorf("area %g, the given report's %g", r.ValueSI, small.Envelope95.AreaM2)
+		}
 	}
 }
 

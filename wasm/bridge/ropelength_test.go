@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"swaysheet/core/ropelength"
 	"swaysheet/core/units"
 )
 
@@ -66,5 +67,24 @@ func TestRopeLengthCallRigid(t *testing.T) {
 	if err := json.Unmarshal(Call(nil, "ropelength", q("500")), &e); err != nil || e.Error == nil ||
 		len(e.Error.Fields) == 0 || e.Error.Fields[0].Field != "load.body.legs[0].length_m" {
 		t.Errorf("a leg of 500 m: want an error at load.body.legs[0].length_m, got %+v", e.Error)
+	}
+}
+
+// The ropelength_ranges call gives every field of the ropelength call
+// with its quantity, for the page to convert.
+func TestRopeLengthRangesCall(t *testing.T) {
+	var r struct {
+		Result map[string]FieldRange `json:"result"`
+	}
+	if err := json.Unmarshal(Call(nil, "ropelength_ranges", nil), &r); err != nil {
+		t.Fatal(err)
+	}
+	if len(r.Result) != len(ropelength.Ranges) {
+		t.Fatalf("%d ranges, want %d", len(r.Result), len(ropelength.Ranges))
+	}
+	for k, q := range map[string]string{"heights.sheave_height_m": "length", "timed.time_s": "time", "timed.amplitude_deg": "angle", "timed.swings": ""} {
+		if got := r.Result[k]; got.Quantity != q || got.Text != ropelength.Ranges[k].Text() {
+			t.Errorf("%s: %+v, want quantity %q", k, got, q)
+		}
 	}
 }

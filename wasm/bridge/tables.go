@@ -46,12 +46,17 @@ type FieldRange struct {
 }
 
 func ranges(*Env, []byte) (any, error) {
-	out := make(map[string]FieldRange, len(scenario.Ranges))
-	for k, r := range scenario.Ranges {
+	return fieldRanges(scenario.Ranges), nil
+}
+
+// fieldRanges gives accepted ranges by key with their quantities.
+func fieldRanges(rs map[string]scenario.Range) map[string]FieldRange {
+	out := make(map[string]FieldRange, len(rs))
+	for k, r := range rs {
 		out[k] = FieldRange{Min: r.Min, Max: r.Max, Unit: r.Unit, OpenMin: r.OpenMin, MinAbs: r.MinAbs,
 			Text: r.Text(), Quantity: units.QuantityOf(r.Unit)}
 	}
-	return out, nil
+	return out
 }
 
 // embeddedJSON holds the example scenarios for pages without an origin

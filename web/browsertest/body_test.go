@@ -70,4 +70,26 @@ func TestBodyForm(t *testing.T) {
 		t.Fatalf("after choosing a spreader: %v", body)
 	}
 	h.checkShown(h.core())
+
+	// Two hook ropes (a tandem lift): their fields replace the spreader's;
+	// rope 2's own length goes into the scenario, and the results (each
+	// rope's pull among them) are the core's.
+	eval[bool](h, `(function(){var e=document.getElementById('body-hung');e.value='tandem';e.dispatchEvent(new Event('change',{bubbles:true}));return true;})()`)
+	h.settle()
+	rope := "#f-load-body-tandem-ropes-1-length_m"
+	h.typeInto(rope, "5.2")
+	h.settle()
+	body = h.scenario()["load"].(map[string]any)["body"].(map[string]any)
+	tandem, _ := body["tandem"].(map[string]any)
+	if _, sp := body["spreader"]; sp || tandem == nil || tandem["ropes"].([]any)[1].(map[string]any)["length_m"] != 5.2 {
+		t.Fatalf("after choosing two hook ropes: %v", body)
+	}
+	r = h.core()
+	if r.Body == nil || r.Body.Suspension != "two ropes" {
+		t.Fatalf("the core's result for two hook ropes: %+v", r.Body)
+	}
+	h.checkShown(r)
+	if p := h.text(`[data-key="body.legs[1].tension_max_n"]`); p == "" {
+		t.Error("rope 2's largest pull not shown")
+	}
 }

@@ -62,7 +62,7 @@ func TestBundleThePage(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, m := range []string{"// engine.js", "// plan-view.js", "// coach.js", "// sheet.js", "// offline.js", "// main.js"} {
+	for _, m := range []string{"// engine.js", "// plan-view.js", "// coach.js", "// sheet.js", "// offline.js", "// site-figures.js", "// main.js"} {
 		if !strings.Contains(js, m+"\n") {
 			t.Errorf("the bundle lacks %s", m)
 		}

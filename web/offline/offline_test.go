@@ -66,7 +66,7 @@ func TestServiceWorkerFilesAndVersion(t *testing.T) {
 			t.Error("sheet.css is not core/sheet's")
 		}
 	}
-	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "coach.js", "coach.css", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js",
+	for _, want := range []string{"index.html", "main.js", "engine.js", "plan-view.js", "coach.js", "coach.css", "worker.js", "sheet.js", "sheet.css", "print.css", "offline.js", "site-view.js", "site-figures.js",
 		"manifest.webmanifest", "icon-192.png", "swaysheet.wasm", "swayfetch.wasm", "fetchworker.js", "wasm_exec.js", "examples/index.json", "examples/bay-travel.json"} {
 		if !have[want] {
 			t.Errorf("the release lacks %s", want)

@@ -5,6 +5,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"strings"
 	"testing"
 
 	"github.com/chromedp/chromedp"
@@ -63,8 +64,17 @@ func TestEveryExampleOnePage(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				if !one.Match(info) {
-					t.Errorf("%s (%s) at %s: not one page", filepath.Base(f), sys, p.name)
+				// Kept to look at: out/browser/not-one-page-*.pdf, and
+				// every sheet as out/browser/example-*.pdf with
+				// SWAYSHEET_KEEP_SHEETS=1.
+				bad := !one.Match(info)
+				if bad || os.Getenv("SWAYSHEET_KEEP_SHEETS") == "1" {
+					keep := filepath.Join(root, "out", "browser", map[bool]string{true: "not-one-page-", false: "example-"}[bad]+strings.TrimSuffix(filepath.Base(f), ".json")+"-"+sys+"-"+p.name+".pdf")
+					os.MkdirAll(filepath.Dir(keep), 0o755)
+					os.WriteFile(keep, b.pdf(p.w, p.h), 0o644)
+					if bad {
+						t.Errorf("%s (%s) at %s: not one page (kept as %s)", filepath.Base(f), sys, p.name, keep)
+					}
 				}
 			}
 		}

@@ -157,8 +157,9 @@ func ptr[T any](v T) *T { return &v }
 
 // The page's print of the site example, once its clearance check is done:
 // the sheet the bridge makes from its kept report (no check run for it)
-// holds the site plan, each obstacle and the spreads used, on one page at
-// A4 and at Letter.
+// holds the site plan, the vertical section along the path, each obstacle
+// (with the room under the load) and the spreads used, on one page at A4
+// and at Letter.
 func TestPrintSitePlan(t *testing.T) {
 	need(t)
 	url, _ := pageServer(t, filepath.Join(root, "web", "static"))
@@ -181,7 +182,8 @@ func TestPrintSitePlan(t *testing.T) {
 			t.Errorf("%s: not exactly one page:\n%s", p.name, info)
 		}
 		text := strings.Join(strings.Fields(pdfText(t, file, "pdftotext")), " ")
-		for _, want := range []string{"CLEARANCES ALONG THE PATH", "DOES NOT CLEAR", "nobody stands here during the lift", "column C3", "panel stack", "200 runs, seed 1"} {
+		for _, want := range []string{"CLEARANCES ALONG THE PATH", "DOES NOT CLEAR", "nobody stands here during the lift", "column C3", "panel stack", "200 runs, seed 1",
+			"room under the load over it", "along the path (m)", "from the side along the path"} {
 			if !strings.Contains(text, want) {
 				t.Errorf("%s: the printed sheet lacks %q", p.name, want)
 			}

@@ -1,6 +1,7 @@
 // body-form.js: the load as a rigid body (the scenario's load.body): the
 // box, its radii of gyration, how it hangs (two or four sling legs from
-// the hook, or a spreader's two parallel legs), the hook block's mass.
+// the hook, a spreader's two parallel legs, or two hook ropes each to its
+// own lifting point: a tandem lift), the hook block's mass.
 // It only collects: every value goes into the scenario as typed (in SI,
 // through the form's number handling) and the core validates it; its
 // field errors are shown at these fields by form.js showErrors. Nothing
@@ -23,15 +24,18 @@ const HUNG = {
   two: function () {
     return { hook_mass_kg: 100, legs: [{ length_m: 4, attach_x_m: 2.5, attach_z_m: 0.5 }, { length_m: 4, attach_x_m: -2.5, attach_z_m: 0.5 }] };
   },
-  spreader: function () { return { spreader: { spacing_m: 4 } }; }
+  spreader: function () { return { spreader: { spacing_m: 4 } }; },
+  tandem: function () { return { tandem: { ropes: [{ attach_x_m: 2.5 }, { attach_x_m: -2.5 }] } }; }
 };
 const HUNG_WORDS = [['two', 'two sling legs from the hook'], ['four', 'four sling legs from the hook'],
-  ['spreader', 'a spreader beam or two hook ropes (two parallel legs)']];
+  ['spreader', 'a spreader beam or two hook ropes (two parallel legs)'],
+  ['tandem', 'two hook ropes, each to its own lifting point (tandem lift)']];
 
 let stash = null; // load.body kept while the box is unticked
 
 function hungOf(b) {
   if (b.spreader) return 'spreader';
+  if (b.tandem) return 'tandem';
   return b.legs && b.legs.length === 2 ? 'two' : 'four';
 }
 
@@ -49,7 +53,7 @@ export function renderBodyForm() {
   var b = S.scenario.load && S.scenario.load.body;
   var h = '<div class="field wide" data-field="' + B + '"><label class="check"><input type="checkbox" id="body-on"' + (b ? ' checked' : '') +
     '> The load as a rigid box on its slings <span class="opt">(long loads, spreader beams: pitch, twist and every leg\u2019s pull)</span></label>' +
-    '<p class="hint">With it, the rope length above runs from the sheave to the hook (with a spreader: the legs\u2019 length) and the load mass is without the hook block.</p>' +
+    '<p class="hint">With it, the rope length above runs from the sheave to the hook (with a spreader: the legs\u2019 length; with two hook ropes: each rope\u2019s length unless given below, and both change with it) and the load mass is without the hook block.</p>' +
     '<p class="msg" role="alert"></p></div>';
   if (!b) { f.innerHTML = section('Rigid load', h, 'body-card'); return; }
   var hung = hungOf(b);
@@ -62,7 +66,18 @@ export function renderBodyForm() {
     HUNG_WORDS.map(function (o) { return '<option value="' + o[0] + '"' + (o[0] === hung ? ' selected' : '') + '>' + esc(o[1]) + '</option>'; }).join('') +
     '</select></div>';
   var parts = [section('Rigid load', h, 'body-card')];
-  if (hung === 'spreader') {
+  if (hung === 'tandem') {
+    var ropes = ((b.tandem && b.tandem.ropes) || []).map(function (r, i) {
+      var at = B + '.tandem.ropes[' + i + ']';
+      return '<div class="field wide"><b>Hook rope ' + (i + 1) + (i === 0 ? ' (toward the load\u2019s +x end)' : '') + '</b></div>' +
+        numField(at + '.length_m', 'Rope ' + (i + 1) + ' length', { optional: true, hint: 'blank: the rope length above' }) +
+        numField(at + '.attach_x_m', 'Attached along the length at', { hint: 'from the centre of mass' }) +
+        numField(at + '.attach_y_m', 'across at', { optional: true }) +
+        numField(at + '.attach_z_m', 'above the centre of mass at', { optional: true, hint: 'blank: the load\u2019s top face' });
+    }).join('');
+    parts.push(group('Two hook ropes (tandem lift)', numField(B + '.tandem.spacing_m', 'Spacing of the two ropes at the crane',
+      { optional: true, hint: 'blank: the lifting points\u2019 spacing (ropes straight down)' }) + ropes, B + '.tandem'));
+  } else if (hung === 'spreader') {
     parts.push(group('Spreader', numField(B + '.spreader.spacing_m', 'Spacing of the two legs') +
       numField(B + '.spreader.attach_z_m', 'Lifting points above the centre of mass', { optional: true, hint: 'blank: the load\u2019s top face' })));
   } else {
@@ -94,7 +109,7 @@ function onChange(e) {
     }
   } else if (el.dataset.bodyhung) {
     var b = load.body;
-    delete b.legs; delete b.spreader; delete b.hook_mass_kg;
+    delete b.legs; delete b.spreader; delete b.tandem; delete b.hook_mass_kg;
     Object.assign(b, HUNG[el.value]());
   } else {
     return;

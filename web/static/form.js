@@ -7,6 +7,7 @@ import { numField, section, selectField, syncPrint, textField, unitChoosers } fr
 import { inputsHTML, motionHTML, onList, planOnChange, planOnSelect } from './plan-form.js';
 import { renderAll } from './results.js';
 import { KINDS, S, axisOf, axisOptions, axisWord, rangeKey, setPath } from './state.js';
+import { bindRopeFind, ropeFindHTML } from './rope-form.js';
 import { saveUnits } from './storage.js';
 import { fmtRange, parseNumber, toSI, toShown, unitOf } from './units.js';
 
@@ -24,7 +25,9 @@ export function renderForm() {
   h.push(section('Load and crane',
     selectField('crane.kind', 'Crane', KINDS, (s.crane && s.crane.kind) || '') +
     numField('load.mass_kg', 'Load mass', { hint: hook ? 'the rigged load, without the hook block' : 'hook block and rigging included' }) +
-    numField('load.rope_length_m', 'Rope length', { hint: hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
+    numField('load.rope_length_m', 'Rope length', { hint: s.load && s.load.body ? 'sheave to the hook (with a spreader: the legs\u2019 length)' :
+      hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
+    ropeFindHTML() +
     numField('crane.radius_m', 'Hook radius from the slew axis', { optional: true }) +
     '<div class="field wide"><label class="check"><input type="checkbox" id="hook-on"' + (hook ? ' checked' : '') + '> Hook block and rigging as a second mass ' +
     '<span class="opt">(heavy hook block, or long slings: two sway modes)</span></label></div>' +
@@ -177,6 +180,7 @@ export function clearBad(prefix) {
 
 export function bindForm() {
   FORMS.forEach(function (id) { bindOne($(id)); });
+  bindRopeFind();
 }
 
 export function bindOne(f) {
@@ -235,8 +239,9 @@ function endGuess() { return S.result ? Number(S.result.motion_end_s.toPrecision
 // --------------------------------------------------------------- errors
 
 export function showErrors() {
-  document.querySelectorAll('.field .msg').forEach(function (p) { p.textContent = ''; });
-  document.querySelectorAll('[aria-invalid]').forEach(function (el) { el.removeAttribute('aria-invalid'); });
+  // The rope-length fold (rope-form.js) keeps its own messages.
+  document.querySelectorAll('.field .msg').forEach(function (p) { if (!p.closest('#rope-find')) p.textContent = ''; });
+  document.querySelectorAll('[aria-invalid]').forEach(function (el) { if (!el.closest('#rope-find')) el.removeAttribute('aria-invalid'); });
   var general = [];
   function put(path, msg) {
     var boxes = document.querySelectorAll('[data-field="' + cssEsc(path) + '"]');

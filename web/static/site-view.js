@@ -11,7 +11,8 @@ import { call } from './engine.js';
 import { numField, section, textField } from './fields.js';
 import { bindOne, clearBad, showErrors } from './form.js';
 import { changed } from './compute.js';
-import { askSite, dragEdit, putSVG, showHandles, siteDrawing, toMetres } from './site-plan.js';
+import { askSite, dragEdit, nearestHandle, putSVG, showHandles, siteDrawing, toMetres } from './site-plan.js';
+import { obstacleFigures, obstacleFiguresSettled, showObstacleFigures } from './site-figures.js';
 import { cancelRuns, poolSize, runSplit, runsGoing } from './site-runs.js';
 import { S, setPath } from './state.js';
 import { say, unitsKey } from './words.js';
@@ -110,6 +111,8 @@ export function clearanceVerdict() {
   p.className = 'clearance-verdict ' + cls;
   p.dataset.state = C.going ? 'running' : !r ? 'none' : r.clears ? 'clears' : 'hit';
   p.textContent = t;
+  showObstacleFigures(r, !C.going ? (r && stale() ? 'These figures are for earlier inputs.' : '') :
+    r ? 'Runs going: the figures below are of the last check done.' : 'Each obstacle\u2019s figures follow when the runs are done.');
 }
 
 // verdictWords are the core's verdict sentences in the units shown (the
@@ -166,7 +169,7 @@ function drawPlan(keepView) {
     var cap = fig.querySelector('figcaption') || fig.appendChild(document.createElement('figcaption'));
     cap.textContent = 'Hatched: the exclusion zone, where the load may pass in 95 % of runs: nobody stands here during the lift. ' +
       'Grey: where it stays in half the runs. Solid line: the load with no spread; dashed: the crane (suspension point). ' +
-      'Black: obstacles with their top heights, ringed by the margin. Drag an obstacle to move it, its round handles to resize it.' +
+      'Black: obstacles with their top heights, ringed by the margin. Tap an obstacle to select it; drag it to move it, its round handles to resize it (on a small one the handles stand off its corners, joined by a line).' +
       (rep && stale() ? ' The envelopes are for earlier inputs.' : '');
     var sec = $('site-section-fig');
     if (!sec || dragging) return;
@@ -228,6 +231,7 @@ export function renderSite() {
       '<button type="button" id="clearance-run" class="small-btn">Run the clearance check again</button></div>' +
       '<p id="clearance-msg" class="clearance-msg" role="status"></p>' +
       '<figure id="site-plan" class="site-plan"></figure><figure id="site-section-fig" class="site-plan" hidden></figure>' +
+      '<section id="clearance-figures" class="clr-figures" aria-label="Clearance of each obstacle"></section>' +
       '<form id="site-form" novalidate autocomplete="off"></form>';
     bindOne($('site-form'));
     bindSitePlan();
@@ -255,7 +259,10 @@ function edit(fn) {
 function bindSitePlan() {
   var fig = $('site-plan');
   fig.addEventListener('pointerdown', function (e) {
-    var t = e.target, ob = t.dataset ? t.dataset.ob : undefined;
+    var t = e.target;
+    // Of overlapping handles, the one nearest the finger.
+    if (t.classList && t.classList.contains('handle-hit')) t = nearestHandle(fig.querySelector('svg'), e.clientX, e.clientY) || t;
+    var ob = t.dataset ? t.dataset.ob : undefined;
     if (ob === undefined) { if (C.sel >= 0) { C.sel = -1; drawPlan(true); } return; }
     e.preventDefault();
     if (!C.frame || !C.outlines) return;
@@ -332,7 +339,8 @@ window.addEventListener('resize', function () {
 window.swaysheetSite = {
   report: function () { return C.report; },
   state: function () { return { going: C.going || runsGoing(), done: C.done, total: C.total, error: C.error, stale: stale(), sel: C.sel }; },
-  settled: function () { return !C.going && !siteRunPending() && !siteDrawing() && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
+  figures: obstacleFigures,
+  settled: function () { return obstacleFiguresSettled() && !C.going && !siteRunPending() && !siteDrawing() && (!S.scenario || !S.scenario.site || !!C.error || (!!C.report && !stale())); },
   single: function (sent) { return call('clearance', sent); },
   split: function (sent, n, workers, on) { return runSplit(sent, n, on || function () {}, workers); },
   poolSize: poolSize,

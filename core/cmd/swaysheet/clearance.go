@@ -45,14 +45,21 @@ func printClearance(w io.Writer, file, title string, r *clearance.Report) {
 		fmt.Fprintf(w, "  %s\n", s)
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  obstacle\tkeeps the margin\tat least (95 % conf.)\tclearance 95 % of runs keep\tsmallest\tat\talong the path\tstrikes\tgap below the load")
+	fmt.Fprintln(tw, "  obstacle\tkeeps the margin\tat least (95 % conf.)\tclearance 95 % of runs keep\tsmallest\tat\talong the path\tstrikes\tgap below the load\trope: closest")
 	for _, o := range r.Obstacles {
 		gap := "not passed over"
 		if v := o.Vertical; v != nil {
 			gap = fmt.Sprintf("%.2f m at %.1f m (%d runs over it)", v.SmallestM, v.AtDistanceM, v.Runs)
 		}
-		fmt.Fprintf(tw, "  %s\t%d of %d\t%.0f %%\t%.2f m\t%.2f m\t%.1f s\t%.1f m\t%d\t%s\n", o.Name, o.KeepMargin, o.Runs,
-			100*o.ShareKeepMarginLow, o.ClearanceP5M, o.SmallestM, o.SmallestAtS, o.SmallestAtDistanceM, o.Strikes, gap)
+		rope := "not checked"
+		if rp := o.Rope; rp != nil {
+			rope = fmt.Sprintf("%.2f m (%s, %.1f m up, %.1f s)", rp.SmallestM, rp.Part, rp.SmallestAtHeightM, rp.SmallestAtS)
+			if rp.Strikes > 0 {
+				rope += fmt.Sprintf("; passes through it in %d runs, first at %.1f s, %.1f m up", rp.Strikes, rp.FirstStrikeS, rp.FirstStrikeAtHeightM)
+			}
+		}
+		fmt.Fprintf(tw, "  %s\t%d of %d\t%.0f %%\t%.2f m\t%.2f m\t%.1f s\t%.1f m\t%d\t%s\t%s\n", o.Name, o.KeepMargin, o.Runs,
+			100*o.ShareKeepMarginLow, o.ClearanceP5M, o.SmallestM, o.SmallestAtS, o.SmallestAtDistanceM, o.Strikes, gap, rope)
 	}
 	tw.Flush()
 	if b := r.Section.Envelope95; len(b.LowM) > 0 {

@@ -30,7 +30,7 @@ func TestSitePlanCommand(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errw.String())
 	}
-	for _, want := range []string{"Fastest option that keeps 0.30 m", "Largest top speed found", "60 runs each", "Drive limits"} {
+	for _, want := range []string{"Fastest option that keeps 0.30 m", "Largest top speed tested that keeps the margin", "60 runs each", "Drive limits"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q:\n%s", want, out.String())
 		}

@@ -1,0 +1,15 @@
+//go:build linux
+
+package clearance
+
+import "syscall"
+
+// cpuSeconds is the process' user and system CPU time so far, seconds.
+func cpuSeconds() float64 {
+	var ru syscall.Rusage
+	if syscall.Getrusage(syscall.RUSAGE_SELF, &ru) != nil {
+		return 0
+	}
+	tv := func(t syscall.Timeval) float64 { return float64(t.Sec) + float64(t.Usec)/1e6 }
+	return tv(ru.Utime) + tv(ru.Stime)
+}

@@ -1,0 +1,190 @@
+package clearance
+
+import "math"
+
+// RopeLine is one straight line of the hoisting gear over a run: the hoist
+// rope, the rigging below a hook block or a sling leg, from A[i] (upper
+// end) to B[i] (lower end) at sample i, z up from the floor.
+type RopeLine struct {
+	Name  string
+	TimeS []float64
+	A, B  []Point3
+	// What every obstacle needs of each stretch between samples, found
+	// once (prepare): the box holding its four ends, how far the ends
+	// move, and the largest half movement between moments (ErrorBoundM).
+	lo, hi []Point3
+	move   []float64
+	errM   float64
+	// The clearance at sample i from the obstacle being checked, val[i],
+	// is known when seen[i] == gen (gen counts the obstacles).
+	val  []float64
+	seen []int
+	gen  int
+}
+
+// prepare finds each stretch's box and movement, once.
+func (l *RopeLine) prepare(stepM float64) {
+	n := len(l.TimeS) - 1
+	if n < 1 || len(l.move) == n {
+		return
+	}
+	l.lo, l.hi, l.move = make([]Point3, n), make([]Point3, n), make([]float64, n)
+	l.val, l.seen = make([]float64, n+1), make([]int, n+1)
+	for i := range n {
+		a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
+		l.lo[i] = Point3{min(a0.X, b0.X, a1.X, b1.X), min(a0.Y, b0.Y, a1.Y, b1.Y), min(a0.Z, b0.Z, a1.Z, b1.Z)}
+		l.hi[i] = Point3{max(a0.X, b0.X, a1.X, b1.X), max(a0.Y, b0.Y, a1.Y, b1.Y), max(a0.Z, b0.Z, a1.Z, b1.Z)}
+		m := max(dist3(a0, a1), dist3(b0, b1))
+		l.move[i] = m
+		if m/2 > l.errM {
+			l.errM = max(l.errM, m/float64(moments(m, stepM))/2)
+		}
+	}
+}
+
+// AlongLines checks the lines of a run against the obstacle: each line's
+// ends are taken as moving straight between samples, and the line is
+// checked exactly (SegmentClearance) at moments where neither end has
+// moved more than stepM since the last (stepM positive; 2^p moments a
+// stretch between samples). Every point of
+// the line moves no more than its ends, and the clearance changes by no
+// more than the line moves, so the smallest clearance between the
+// moments checked is within ErrorBoundM (half that movement) below the
+// one found; a wall thinner than the movement can be missed between
+// moments, as for a rigid load's box.
+//
+// It stays cheap by skipping the stretches that cannot matter: the line
+// between samples i and i+1 lies inside the box that holds its four
+// ends, so the distance from that box to the box that holds the
+// obstacle (its outline's box, from below up to its top) bounds its
+// clearance from below. A stretch is checked only when that bound is at
+// most the smallest clearance found so far (or zero, so that every
+// strike is found), and then only at the moments that the clearance at
+// moments already checked and the ends' movement leave in question
+// (lineWatch.stretch). The stretch with the least bound is checked first.
+// The answer (smallest clearance, the first moment with it, the first
+// strike) is that of checking every stretch (TestAlongLinesSkipsNothing).
+// Closest.Line names the line nearest.
+func (o *Obstacle) AlongLines(lines []RopeLine, stepM float64) Closest {
+	if !(stepM > 0) {
+		panic("clearance: AlongLines needs a positive step")
+	}
+	c := Closest{ClearanceM: math.Inf(1), FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
+	lo, hi := outlineBox(o.Outline)
+	for li := range lines {
+		o.alongLine(&lines[li], stepM, lo, hi, &c, false)
+	}
+	return c
+}
+
+// alongLine checks one line into c (see AlongLines); every checks every
+// stretch and moment (the plain form, for the test).
+func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Closest, every bool) {
+	n := len(l.TimeS)
+	if n == 0 {
+		return
+	}
+	if n == 1 {
+		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM)
+		return
+	}
+	l.prepare(stepM)
+	l.gen++ // a new obstacle: no sample checked against it yet
+	w := lineWatch{o: o, l: l, c: c, stepM: stepM, every: every}
+	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
+	first, least := 0, math.Inf(1)
+	for i := range n - 1 {
+		if b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]); b < least {
+			first, least = i, b
+		}
+	}
+	w.stretch(first)
+	for i := range n - 1 {
+		if i != first && (every || boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]) <= max(c.ClearanceM, 0)) {
+			w.stretch(i)
+		}
+	}
+}
+
+// lineWatch checks one line's stretches against one obstacle.
+type lineWatch struct {
+	o     *Obstacle
+	l     *RopeLine
+	c     *Closest
+	stepM float64
+	every bool
+}
+
+// sample is the clearance at sample i, checked once.
+func (w *lineWatch) sample(i int) float64 {
+	l := w.l
+	if l.seen[i] != l.gen {
+		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM), l.gen
+	}
+	return l.val[i]
+}
+
+// stretch checks the moments of the stretch from sample i to i+1: a
+// grid of 2^p moments, the fewest that keep the ends' movement between
+// moments within stepM. Between two moments checked, a fraction g of the
+// stretch apart with clearances va and vb, the ends move at most g*m,
+// so every moment between has a clearance of at least (va + vb - g*m)/2
+// (each point of the line moves no more than its ends, and the
+// clearance changes no faster than the line moves). The grid is halved
+// only where that bound is at most the smallest clearance so far (or
+// zero, for every strike), so the moments left out cannot change the
+// answer: it is that of every moment of the grid.
+func (w *lineWatch) stretch(i int) {
+	l := w.l
+	a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
+	m := l.move[i]
+	k := moments(m, w.stepM)
+	t0, t1 := l.TimeS[i], l.TimeS[i+1]
+	var half func(j0, j1 int, v0, v1 float64)
+	half = func(j0, j1 int, v0, v1 float64) {
+		if j1-j0 < 2 {
+			return
+		}
+		if !w.every && (v0+v1-m*float64(j1-j0)/float64(k))/2 > max(w.c.ClearanceM, 0) {
+			return
+		}
+		j := (j0 + j1) / 2
+		f := float64(j) / float64(k)
+		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(a0, a1, f), lerp3(b0, b1, f), w.stepM)
+		half(j0, j, v0, v)
+		half(j, j1, v, v1)
+	}
+	half(0, k, w.sample(i), w.sample(i+1))
+}
+
+// offerLine checks the line from a to b at the moment t, and returns its
+// clearance.
+func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, stepM float64) float64 {
+	v, at, strikes := o.SegmentClearance(a, b, stepM)
+	if v < c.ClearanceM || (v == c.ClearanceM && t < c.TimeS) {
+		c.ClearanceM, c.TimeS, c.At, c.Line = v, t, at, name
+	}
+	if strikes && (!c.Strikes || t < c.FirstStrikeS) {
+		c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, t, at
+	}
+	return v
+}
+
+// moments is the grid of a stretch whose ends move m: the least power
+// of two k with m/k at most stepM.
+func moments(m, stepM float64) int {
+	k := 1
+	for float64(k)*stepM < m {
+		k *= 2
+	}
+	return k
+}
+
+// boxGap is the distance between the box from lo3 to hi3 and the box of
+// the outline (lo, hi) from below up to topM.
+func boxGap(lo, hi Point2, topM float64, lo3, hi3 Point3) float64 {
+	dx := max(0, lo.X-hi3.X, lo3.X-hi.X)
+	dy := max(0, lo.Y-hi3.Y, lo3.Y-hi.Y)
+	dz := max(0, lo3.Z-topM)
+	return math.Sqrt(dx*dx + dy*dy + dz*dz)
+}
