@@ -6,10 +6,12 @@ package dist
 // resumable state machine), and these packages run once a call, not in
 // the simulation's loops: reading and checking the scenario, the figures'
 // table and words, units, the check sheet and its plotter, the QR code,
-// the bridge. Without inlining there the wasm is about 46 kB smaller
-// gzipped (1.60 to 1.56 MB) and 130 kB smaller raw, with the same
-// output (inlining changes no result). The physics (sway, ode, pendulum,
-// motion, crane, plan, clearance, draws, shaper) keeps it. make wasm and
+// the bridge; and the standard library's fmt and encoding/json (their
+// work per call is in calls through function values and strconv, which
+// keep their speed). Without inlining there the wasm is about 75 kB
+// smaller gzipped and 30 kB smaller raw, with the same output (inlining
+// changes no result). The physics (sway, ode, pendulum, motion, crane,
+// plan, clearance, draws, shaper) keeps it. make wasm and
 // make single-wasm pass the same list (NOINLINE in the Makefile;
 // TestMakefileNoInline), and the browser tests build with WasmGcflags.
 var NoInline = []string{
@@ -21,6 +23,8 @@ var NoInline = []string{
 	"swaysheet/core/ropelength",
 	"swaysheet/core/qr",
 	"swaysheet/wasm/bridge",
+	"fmt",
+	"encoding/json",
 }
 
 // WasmGcflags are the go build arguments of NoInline.
