@@ -90,6 +90,8 @@ func newCapsule(a, b Point2, R float64) capsule {
 // row is the interval [xl, xr] of x on the line y = cy within R of the
 // segment ab (see above); ok is false when the line misses it.
 func (c *capsule) row(cy float64) (xl, xr float64, ok bool) {
+	// Plain comparisons rather than min and max: in wasm those are calls
+	// (for NaN and the sign of zero, neither of which arises here).
 	xl, xr = math.Inf(1), math.Inf(-1)
 	if h := c.R2 - (cy-c.a.Y)*(cy-c.a.Y); h >= 0 {
 		w := math.Sqrt(h)
@@ -97,7 +99,12 @@ func (c *capsule) row(cy float64) (xl, xr float64, ok bool) {
 	}
 	if h := c.R2 - (cy-c.b.Y)*(cy-c.b.Y); h >= 0 {
 		w := math.Sqrt(h)
-		xl, xr = min(xl, c.b.X-w), max(xr, c.b.X+w)
+		if x := c.b.X - w; x < xl {
+			xl = x
+		}
+		if x := c.b.X + w; x > xr {
+			xr = x
+		}
 	}
 	if !c.hasBand {
 		return xl, xr, xl <= xr
@@ -113,15 +120,27 @@ func (c *capsule) row(cy float64) (xl, xr float64, ok bool) {
 	} else if m1 > 0 || m2 < 0 {
 		return xl, xr, xl <= xr
 	}
-	if m1, m2 := -c.rl-c.dx*py, c.rl-c.dx*py; c.dy < 0 {
-		ul, ur = max(ul, m1/-c.dy), min(ur, m2/-c.dy)
-	} else if c.dy > 0 {
-		ul, ur = max(ul, m2/-c.dy), min(ur, m1/-c.dy)
+	if m1, m2 := -c.rl-c.dx*py, c.rl-c.dx*py; c.dy != 0 {
+		lo, hi := m1/-c.dy, m2/-c.dy
+		if c.dy > 0 {
+			lo, hi = hi, lo
+		}
+		if lo > ul {
+			ul = lo
+		}
+		if hi < ur {
+			ur = hi
+		}
 	} else if m1 > 0 || m2 < 0 {
 		return xl, xr, xl <= xr
 	}
 	if ul <= ur {
-		xl, xr = min(xl, c.a.X+ul), max(xr, c.a.X+ur)
+		if x := c.a.X + ul; x < xl {
+			xl = x
+		}
+		if x := c.a.X + ur; x > xr {
+			xr = x
+		}
 	}
 	return xl, xr, xl <= xr
 }

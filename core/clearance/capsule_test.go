@@ -7,12 +7,17 @@ import (
 )
 
 func TestCapsuleSweepMatchesCellSweep(t *testing.T) {
-	// The row by row sweep marks exactly the cells the cell by cell sweep
-	// marks: random paths (short wobbly steps, long straight pieces, a
-	// standing point, level and upright pieces), radii and cell sizes.
+	// The row by row sweep and the sweep by groups of pieces
+	// (sweepGroups, what runs use) mark exactly the cells the cell by cell
+	// sweep marks: random paths (short wobbly steps, long straight pieces,
+	// a standing point, level and upright pieces, and paths of hundreds of
+	// short steps as a run's), radii and cell sizes.
 	rng := rand.New(rand.NewPCG(7, 17))
-	for trial := range 300 {
+	for trial := range 400 {
 		n := 1 + rng.IntN(40)
+		if trial >= 300 {
+			n = 100 + rng.IntN(500)
+		}
 		pts := make([]Point2, n)
 		p := Point2{rng.Float64()*20 - 10, rng.Float64()*20 - 10}
 		step := []float64{0.01, 0.3, 3}[trial%3]
@@ -40,18 +45,21 @@ func TestCapsuleSweepMatchesCellSweep(t *testing.T) {
 		reach := r.RadiusM + cellM*math.Sqrt2/2
 		sweepBallCells(pts, reach, cellM, i0, j0, nx, ny, want)
 		sweepCapsules(pts, reach, cellM, i0, j0, nx, ny, got)
+		grouped := make([]bool, nx*ny)
+		sweepGroups(pts, reach, cellM, i0, j0, nx, ny, grouped)
 		// A window that cuts the path off on every side too.
-		cw, cg := make([]bool, (nx/2+1)*(ny/2+1)), make([]bool, (nx/2+1)*(ny/2+1))
+		cw, cg, cgr := make([]bool, (nx/2+1)*(ny/2+1)), make([]bool, (nx/2+1)*(ny/2+1)), make([]bool, (nx/2+1)*(ny/2+1))
 		sweepBallCells(pts, reach, cellM, i0+nx/4, j0+ny/4, nx/2+1, ny/2+1, cw)
 		sweepCapsules(pts, reach, cellM, i0+nx/4, j0+ny/4, nx/2+1, ny/2+1, cg)
+		sweepGroups(pts, reach, cellM, i0+nx/4, j0+ny/4, nx/2+1, ny/2+1, cgr)
 		for k := range want {
-			if want[k] != got[k] {
-				t.Fatalf("trial %d: cell %d: cell sweep %v, row sweep %v", trial, k, want[k], got[k])
+			if want[k] != got[k] || want[k] != grouped[k] {
+				t.Fatalf("trial %d: cell %d: cell sweep %v, row sweep %v, group sweep %v", trial, k, want[k], got[k], grouped[k])
 			}
 		}
 		for k := range cw {
-			if cw[k] != cg[k] {
-				t.Fatalf("trial %d (window): cell %d: cell sweep %v, row sweep %v", trial, k, cw[k], cg[k])
+			if cw[k] != cg[k] || cw[k] != cgr[k] {
+				t.Fatalf("trial %d (window): cell %d: cell sweep %v, row sweep %v, group sweep %v", trial, k, cw[k], cg[k], cgr[k])
 			}
 		}
 	}

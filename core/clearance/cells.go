@@ -70,6 +70,10 @@ func decodeCells(c []int) ([]cellSpan, error) {
 
 // unionSpans is the envelope drawn from the union of the runs' cells: row
 // spans in rows from the lowest, each row from the left, and the area.
+// Each span adds one at its first cell and takes one away past its last
+// (a difference row), so the union costs a few steps a span and one a
+// cell of the rows' width, not one a cell of every span: with 1,000 runs
+// of thousands of cells each, marking cell by cell was most of the join.
 func unionSpans(spans []cellSpan, cellM float64) (EnvelopeOut, error) {
 	out := EnvelopeOut{CellM: cellM}
 	if len(spans) == 0 {
@@ -83,11 +87,19 @@ func unionSpans(spans []cellSpan, cellM float64) (EnvelopeOut, error) {
 	if nx*ny > maxCells {
 		return out, errors.New("clearance: the envelope would need more than 4 million cells: use larger cells")
 	}
-	covered := make([]bool, nx*ny)
+	w := nx + 1
+	diff := make([]int32, w*ny)
 	for _, s := range spans {
-		row := covered[(s.J-j0)*nx:]
-		for i := s.I0; i < s.I1; i++ {
-			row[i-i0] = true
+		row := diff[(s.J-j0)*w:]
+		row[s.I0-i0]++
+		row[s.I1-i0]--
+	}
+	covered := make([]bool, nx*ny)
+	for j := 0; j < ny; j++ {
+		var c int32
+		for i, d := range diff[j*w : j*w+nx] {
+			c += d
+			covered[j*nx+i] = c > 0
 		}
 	}
 	n := 0

@@ -123,8 +123,8 @@ func (n *nearest) closest(p Point2) (float64, int) {
 	}
 	ci, cj := n.cell(p.X, p.Y)
 	// Distance from p to the grid's box, for points outside it.
-	ox := max(n.x0-p.X, 0, p.X-(n.x0+float64(n.nx)*n.g))
-	oy := max(n.y0-p.Y, 0, p.Y-(n.y0+float64(n.ny)*n.g))
+	ox := outsideBy(p.X, n.x0, n.x0+float64(n.nx)*n.g)
+	oy := outsideBy(p.Y, n.y0, n.y0+float64(n.ny)*n.g)
 	outside := math.Hypot(ox, oy)
 	best, seg := math.Inf(1), 0
 	for ring := 0; ; ring++ {
@@ -153,6 +153,18 @@ func (n *nearest) closest(p Point2) (float64, int) {
 			}
 		}
 	}
+}
+
+// outsideBy is how far x lies outside [lo, hi] (zero inside), with
+// comparisons rather than max (a call in wasm).
+func outsideBy(x, lo, hi float64) float64 {
+	if x < lo {
+		return lo - x
+	}
+	if x > hi {
+		return x - hi
+	}
+	return 0
 }
 
 // strayEvery is stray finding every point's distance: the plain form,
@@ -271,15 +283,15 @@ func latticeRange(lo, hi, reach, cellM float64) (int, int) {
 // index (i0, j0) (covered, row by row); cells off the grid are left out.
 // A ball of radius RadiusM about the points, taken as straight between
 // them: a cell is marked when its centre ((I+1/2)*cellM, (J+1/2)*cellM)
-// is within the radius plus half the cell's diagonal of a piece (cells
-// already marked are not looked at again; see sweepCapsules, which marks
-// each row's cells at once). Outlines: see sweepOutlines.
+// is within the radius plus half the cell's diagonal of a piece (see
+// sweepGroups, which marks the cells well inside at once and tests only
+// those near the edge). Outlines: see sweepOutlines.
 func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
 	if r.Outlines != nil {
 		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
 		return
 	}
-	sweepCapsules(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
+	sweepGroups(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
 }
 
 // sweepBallCells is sweepLattice for a ball, cell by cell: the plain form

@@ -142,7 +142,9 @@ func pointSegmentDist2(p, a, b Point2) float64 {
 func EdgeDistance(p Point2, poly []Point2) float64 {
 	d := math.Inf(1)
 	for i := range poly {
-		d = math.Min(d, pointSegmentDistance(p, poly[i], poly[(i+1)%len(poly)]))
+		if e := pointSegmentDistance(p, poly[i], poly[(i+1)%len(poly)]); e < d || e != e {
+			d = e // a NaN is kept, as math.Min keeps it
+		}
 	}
 	return d
 }

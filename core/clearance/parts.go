@@ -1,7 +1,6 @@
 package clearance
 
 import (
-	"encoding/binary"
 	"errors"
 	"fmt"
 	"math"
@@ -25,11 +24,12 @@ import (
 // joined). Joining the parts received so far gives the report of those
 // runs: an envelope refined as the parts arrive.
 
-// Part is what the runs From to To-1 of a check contribute.
+// Part is what the runs From to To-1 of a check contribute: each run's
+// RunPart, as one block of bytes (Data; see partcode.go).
 type Part struct {
-	From int       `json:"from"`
-	To   int       `json:"to"`
-	Runs []RunPart `json:"runs"`
+	From int    `json:"from"`
+	To   int    `json:"to"`
+	Data []byte `json:"data"`
 }
 
 // RunPart is what one run contributes: its stray from the nominal path,
@@ -38,33 +38,32 @@ type Part struct {
 // three numbers: the row less the previous span's row, the first cell less
 // the previous span's first cell, the number of cells (the first span's
 // from row 0, cell 0), and for the vertical section its lowest point's
-// band in the section's bins along the crane's path (see runBins;
-// float64, little-endian: the first bin's index, the lows, the highs).
+// band in the section's bins along the crane's path (see runBins).
 type RunPart struct {
-	StrayM  float64   `json:"stray_m"`
-	Near    []RunNear `json:"near"`
-	Cells   []int     `json:"cells"`
-	Section []byte    `json:"section"`
+	StrayM float64
+	Near   []RunNear
+	Cells  []int
+	bins   runBins
 }
 
-// RunNear is one run's Closest to one obstacle in JSON: the first strike
-// when it strikes, the gap below the load when it passes over.
+// RunNear is one run's Closest to one obstacle: the first strike when it
+// strikes, the gap below the load when it passes over.
 type RunNear struct {
-	ClearanceM    float64 `json:"c"`
-	TimeS         float64 `json:"t"`
-	At            Point3  `json:"at"`
-	ErrorBoundM   float64 `json:"e"`
-	Strikes       bool    `json:"s,omitempty"`
-	FirstStrikeS  float64 `json:"f,omitempty"`
-	FirstStrikeAt Point3  `json:"fa"`
-	Over          bool    `json:"o,omitempty"`
-	GapM          float64 `json:"g,omitempty"`
-	GapAtS        float64 `json:"gt,omitempty"`
-	GapAt         Point3  `json:"ga"`
+	ClearanceM    float64
+	TimeS         float64
+	At            Point3
+	ErrorBoundM   float64
+	Strikes       bool
+	FirstStrikeS  float64
+	FirstStrikeAt Point3
+	Over          bool
+	GapM          float64
+	GapAtS        float64
+	GapAt         Point3
 	// Line names the nearest line of the hoisting gear (in Rope); Rope is
 	// the hoisting gear's closest approach, nil when not checked.
-	Line string   `json:"l,omitempty"`
-	Rope *RunNear `json:"r,omitempty"`
+	Line string
+	Rope *RunNear
 }
 
 func nearOf(c Closest) RunNear {
@@ -205,7 +204,7 @@ func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
 			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, c.site.Obstacles[i].Name, err)
 		}
 	}
-	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget})
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget, PathOnly: true})
 	if err != nil {
 		return nil, err
 	}
@@ -224,16 +223,24 @@ func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
 // every obstacle, swept onto the lattice and placed along the path.
 func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Part, error) {
 	h := c.site.SuspensionHeightM
-	p := &Part{From: from, To: to, Runs: make([]RunPart, to-from)}
+	runs := make([]RunPart, to-from)
 	err := draws.Each(to-from, c.opt.Workers, func(k int) error {
 		i := from + k
-		v := s
+		v := *s
 		if variant != nil {
 			if d := variant(i); d != nil {
-				v = d
+				v = *d
 			}
 		}
-		r, err := sway.EvaluateWith(v, sway.Options{Budget: c.opt.Budget})
+		// The run needs no site: its check (validated with the scenario
+		// in prepare) is not made again for each run (in wasm it was a
+		// tenth of a run's time, mostly the field names' formatting).
+		v.Site = nil
+		// Nor its plan block: a drawn rope length may lie outside the
+		// plan's rope range (that range is what the planner tries, not a
+		// limit of the crane), and the run plans nothing.
+		v.Plan = nil
+		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
@@ -250,31 +257,14 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		rp.StrayM = c.near.stray(plan.Points)
 		rp.Cells = runCells(&plan, c.opt.CellM)
 		d, low := c.track.runSection(&run, h, c.site.LoadRadiusM)
-		b := binSection(d, low, sectionBin(c.track.length()))
-		rp.Section = packFloats(append(append([]float64{float64(b.J0)}, b.Low...), b.High...))
-		p.Runs[k] = rp
+		rp.bins = binSection(d, low, sectionBin(c.track.length()))
+		runs[k] = rp
 		return nil
 	})
 	if err != nil {
 		return nil, err
 	}
-	return p, nil
-}
-
-func packFloats(v []float64) []byte {
-	out := make([]byte, 8*len(v))
-	for i, x := range v {
-		binary.LittleEndian.PutUint64(out[8*i:], math.Float64bits(x))
-	}
-	return out
-}
-
-func unpackFloats(b []byte) []float64 {
-	out := make([]float64, len(b)/8)
-	for i := range out {
-		out[i] = math.Float64frombits(binary.LittleEndian.Uint64(b[8*i:]))
-	}
-	return out
+	return &Part{From: from, To: to, Data: encodeRuns(runs)}, nil
 }
 
 // join makes the report of the runs the parts hold: every obstacle's
@@ -285,11 +275,15 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
 	next := -1
 	for _, p := range parts {
-		if p.From < 0 || p.To > total || p.To-p.From != len(p.Runs) || p.From < next {
+		pr, err := decodeRuns(p.Data)
+		if err != nil {
+			return nil, err
+		}
+		if p.From < 0 || p.To > total || p.To-p.From != len(pr) || p.From < next {
 			return nil, fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", p.From, p.To, total)
 		}
 		next = p.To
-		runs = append(runs, p.Runs...)
+		runs = append(runs, pr...)
 	}
 	if len(runs) == 0 {
 		return nil, errors.New("clearance: no runs to join")
@@ -336,14 +330,9 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 		*e.out = out
 		envs[k] = &Envelope{Level: e.level, Runs: len(runs), Inside: n, StrayM: out.StrayM, Members: order[:n]}
 	}
-	bins := map[int]runBins{}
+	bins := make(map[int]runBins, len(envs[1].Members))
 	for _, m := range envs[1].Members {
-		v := unpackFloats(runs[m].Section)
-		if len(v)%2 != 1 || v[0] != math.Trunc(v[0]) || math.Abs(v[0]) > 1<<40 {
-			return nil, errors.New("clearance: a run's section is not whole")
-		}
-		n := len(v) / 2
-		bins[m] = runBins{J0: int(v[0]), Low: v[1 : 1+n], High: v[1+n:]}
+		bins[m] = runs[m].bins
 	}
 	rep.Section = sectionFrom(site, &c.nominal, c.track, bins, envs[0], envs[1], rep.Obstacles, where)
 	rep.Clears, rep.WordSentences = VerdictSentences(rep.Obstacles, site.MarginM)

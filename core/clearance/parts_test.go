@@ -115,3 +115,27 @@ func TestPartsJoinRigidLoad(t *testing.T) {
 		t.Errorf("rigid load: outline %q; joined parts equal the single call: %v", one.Outline, string(a) == string(b))
 	}
 }
+
+// TestDrawnRopeOutsideThePlanRange: a drawn rope length outside the plan
+// block's rope range is a run like any other (the range is what the
+// planner tries); before, run 7 of this check failed its validation with
+// a 5.91 m rope against the plan's 4.5 to 5.5 m.
+func TestDrawnRopeOutsideThePlanRange(t *testing.T) {
+	s := testscenario.Example(t, "bay-girder-rigid")
+	if s.Plan == nil {
+		t.Fatal("the example has no plan block; the test needs one")
+	}
+	h, r := 12.0, 0.0
+	top := 3.0
+	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
+		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
+			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
+		Spread: &scenario.SiteSpread{Runs: 20, Seed: 1, RopeLengthM: 0.5}}
+	rep, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if rep.Runs != 20 {
+		t.Errorf("%d runs", rep.Runs)
+	}
+}

@@ -30,23 +30,44 @@ import "math"
 // SegmentStrikes test is made only on the others. The answer is that of
 // alongPathEvery (TestAlongPathNearMatchesEvery).
 func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest {
+	return o.alongPathWith(path, measurePath(path), radiusM, stepM)
+}
+
+// pathLengths is a path's length up to each point, in space (cum) and
+// seen from above (cumPlan), and its coarse samples: what alongPathNear
+// needs of the path whatever the obstacle, found once for all of them.
+type pathLengths struct {
+	cum, cumPlan []float64
+	coarse       []int
+}
+
+const coarseM = 0.25 // m between coarse samples
+
+func measurePath(path []Sample) *pathLengths {
+	n := len(path)
+	pl := &pathLengths{cum: make([]float64, n), cumPlan: make([]float64, n), coarse: []int{0}}
+	cum, cumPlan := pl.cum, pl.cumPlan
+	for i := 1; i < n; i++ {
+		a, b := path[i-1].At, path[i].At
+		cum[i] = cum[i-1] + dist3(a, b)
+		cumPlan[i] = cumPlan[i-1] + math.Hypot(b.X-a.X, b.Y-a.Y)
+		if i == n-1 || cum[i]-cum[pl.coarse[len(pl.coarse)-1]] >= coarseM {
+			pl.coarse = append(pl.coarse, i)
+		}
+	}
+	return pl
+}
+
+// alongPathWith is alongPathNear with the path's lengths given.
+func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM float64) Closest {
 	w := newBallWatch(o, radiusM)
 	c := &w.c
 	if len(path) == 0 {
 		return *c
 	}
-	const coarseM, tolM = 0.25, 1e-9
+	const tolM = 1e-9
 	n := len(path)
-	cum, cumPlan := make([]float64, n), make([]float64, n)
-	coarse := []int{0}
-	for i := 1; i < n; i++ {
-		a, b := path[i-1].At, path[i].At
-		cum[i] = cum[i-1] + dist3(a, b)
-		cumPlan[i] = cumPlan[i-1] + math.Hypot(b.X-a.X, b.Y-a.Y)
-		if i == n-1 || cum[i]-cum[coarse[len(coarse)-1]] >= coarseM {
-			coarse = append(coarse, i)
-		}
-	}
+	cum, cumPlan, coarse := pl.cum, pl.cumPlan, pl.coarse
 	vs, ds := make([]float64, len(coarse)), make([]float64, len(coarse))
 	least := math.Inf(1)
 	for m, i := range coarse {
@@ -104,9 +125,10 @@ func outlineBox(poly []Point2) (lo, hi Point2) {
 // the obstacle: its plan box is clear of the outline's box (lo, hi), or
 // it stays above the top, by more than tolM.
 func (o *Obstacle) mayStrike(a, b Point3, lo, hi Point2, tolM float64) bool {
-	if math.Min(a.Z, b.Z) > o.TopM+tolM {
+	// Comparisons of each end rather than math.Min and Max (calls in wasm).
+	if a.Z > o.TopM+tolM && b.Z > o.TopM+tolM {
 		return false
 	}
-	return math.Max(a.X, b.X) >= lo.X-tolM && math.Min(a.X, b.X) <= hi.X+tolM &&
-		math.Max(a.Y, b.Y) >= lo.Y-tolM && math.Min(a.Y, b.Y) <= hi.Y+tolM
+	return (a.X >= lo.X-tolM || b.X >= lo.X-tolM) && (a.X <= hi.X+tolM || b.X <= hi.X+tolM) &&
+		(a.Y >= lo.Y-tolM || b.Y >= lo.Y-tolM) && (a.Y <= hi.Y+tolM || b.Y <= hi.Y+tolM)
 }

@@ -134,11 +134,18 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 		path = r.Path(s.SuspensionHeightM)
 	}
 	lines := r.Lines(s.SuspensionHeightM, s.LoadRadiusM)
+	var pl *pathLengths
 	for k := range s.Obstacles {
-		if boxes != nil {
+		switch {
+		case boxes != nil:
 			out[k] = s.Obstacles[k].AlongBoxPath(boxes, stepM)
-		} else {
+		case stepM <= 0 || len(path) < 2:
 			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
+		default:
+			if pl == nil {
+				pl = measurePath(path)
+			}
+			out[k] = s.Obstacles[k].alongPathWith(path, pl, s.LoadRadiusM, stepM)
 		}
 		if len(lines) > 0 {
 			rope := s.Obstacles[k].AlongLines(lines, stepM)

@@ -153,7 +153,9 @@ func (v *Solver) eval(t float64, y, dy []float64) {
 
 func (v *Solver) errNorm(y0, y1, e []float64) float64 {
 	var sum float64
-	for i := range v.n {
+	n := v.n
+	y0, y1, e = y0[:n], y1[:n], e[:n]
+	for i := range n {
 		a, b := y0[i], y1[i]
 		if a < 0 {
 			a = -a
@@ -208,8 +210,11 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		return true, nil
 	}
 	n := v.n
-	y, ynew, tmp := v.y, v.ynew, v.tmp
-	k1, k2, k3, k4, k5, k6, k7 := v.k[0], v.k[1], v.k[2], v.k[3], v.k[4], v.k[5], v.k[6]
+	// Every slice cut to n, so that the compiler can prove the loops' indices
+	// in bounds (no checks inside them; in wasm each is a compare and branch).
+	y, ynew, tmp := v.y[:n], v.ynew[:n], v.tmp[:n]
+	k1, k2, k3, k4, k5, k6, k7 := v.k[0][:n], v.k[1][:n], v.k[2][:n], v.k[3][:n], v.k[4][:n], v.k[5][:n], v.k[6][:n]
+	c0, c1, c2, c3, c4 := v.cont[0][:n], v.cont[1][:n], v.cont[2][:n], v.cont[3][:n], v.cont[4][:n]
 	if !v.fresh {
 		v.eval(v.t, y, k1)
 		v.fresh = true
@@ -278,11 +283,11 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 			for i := range n {
 				ydiff := ynew[i] - y[i]
 				bspl := h*k1[i] - ydiff
-				v.cont[0][i] = y[i]
-				v.cont[1][i] = ydiff
-				v.cont[2][i] = bspl
-				v.cont[3][i] = ydiff - h*k7[i] - bspl
-				v.cont[4][i] = h * (D1*k1[i] + D3*k3[i] + D4*k4[i] + D5*k5[i] + D6*k6[i] + D7*k7[i])
+				c0[i] = y[i]
+				c1[i] = ydiff
+				c2[i] = bspl
+				c3[i] = ydiff - h*k7[i] - bspl
+				c4[i] = h * (D1*k1[i] + D3*k3[i] + D4*k4[i] + D5*k5[i] + D6*k6[i] + D7*k7[i])
 			}
 			copy(k1, k7) // first same as last
 			copy(y, ynew)
@@ -308,8 +313,10 @@ func (v *Solver) Dense(t float64, out []float64) {
 		s = (t - v.told) / h
 	}
 	s1 := 1 - s
-	c := v.cont
-	for i := range v.n {
-		out[i] = c[0][i] + s*(c[1][i]+s1*(c[2][i]+s*(c[3][i]+s1*c[4][i])))
+	n := v.n
+	out = out[:n]
+	c0, c1, c2, c3, c4 := v.cont[0][:n], v.cont[1][:n], v.cont[2][:n], v.cont[3][:n], v.cont[4][:n]
+	for i := range out {
+		out[i] = c0[i] + s*(c1[i]+s1*(c2[i]+s*(c3[i]+s1*c4[i])))
 	}
 }

@@ -170,6 +170,7 @@ func (m *Model) Func(t float64, y, dy []float64) {
 // Project puts y back onto the constraint |n| = 1, n.u = 0 and returns how
 // far |n| was from 1 before.
 func Project(y []float64) float64 {
+	y = y[:6] // one bounds check for all six
 	norm := math.Sqrt(y[0]*y[0] + y[1]*y[1] + y[2]*y[2])
 	y[0], y[1], y[2] = y[0]/norm, y[1]/norm, y[2]/norm
 	d := y[0]*y[3] + y[1]*y[4] + y[2]*y[5]

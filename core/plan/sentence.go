@@ -73,13 +73,39 @@ func (q Quantity) String() string {
 	return s
 }
 
-// String fills the placeholders in SI.
+// String fills the placeholders in SI: each {i} with i below the number
+// of quantities is replaced by Quantities[i] (a placeholder past them is
+// kept as it is), in one pass over the text (a plan writes some hundred
+// sentences; a replacement pass per quantity costs several times more).
 func (s Sentence) String() string {
-	out := s.Text
-	for i, q := range s.Quantities {
-		out = strings.ReplaceAll(out, fmt.Sprintf("{%d}", i), q.String())
+	text := s.Text
+	if len(s.Quantities) == 0 || !strings.Contains(text, "{") {
+		return text
 	}
-	return out
+	var b strings.Builder
+	b.Grow(len(text) + 16*len(s.Quantities))
+	for {
+		open := strings.IndexByte(text, '{')
+		if open < 0 {
+			break
+		}
+		end := open + 1
+		for end < len(text) && text[end] >= '0' && text[end] <= '9' {
+			end++
+		}
+		i, err := strconv.Atoi(text[open+1 : end])
+		lead0 := end > open+2 && text[open+1] == '0' // "{01}" is no placeholder
+		if end == open+1 || lead0 || end >= len(text) || text[end] != '}' || err != nil || i >= len(s.Quantities) {
+			b.WriteString(text[:open+1])
+			text = text[open+1:]
+			continue
+		}
+		b.WriteString(text[:open])
+		b.WriteString(s.Quantities[i].String())
+		text = text[end+1:]
+	}
+	b.WriteString(text)
+	return b.String()
 }
 
 // join appends t to s, a space between, renumbering t's placeholders.

@@ -153,7 +153,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	}
 	var susp func(float64) pendulum.Kinematics
 	var rope func(float64) (float64, float64, float64)
-	if su.fast == nil {
+	if su.fast == nil && (s.Load.Body != nil || hook == nil) {
 		susp, rope = ax.Suspension(s.Crane.Start()), ax.RopeLength(l0)
 	}
 	if s.Load.Body != nil {
@@ -169,8 +169,17 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 			su.model = &pendulum.Model{Mass: mass, Suspension: susp, Rope: rope, Force: force}
 		}
 	} else {
-		su.model = &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
-			Suspension: susp, Rope: rope, Force: force}
+		general := func() pendulum.System {
+			return &pendulum.Double{M1: *hook.MassKg, M2: mass, L2: *hook.RiggingLengthM,
+				Suspension: ax.Suspension(s.Crane.Start()), Rope: ax.RopeLength(l0), Force: force}
+		}
+		// The concrete two-mass model (fastdouble.go) when the suspension
+		// point's motion flattens into span tables; the general one else.
+		if k := newFastModel(&ax, l0, s.Crane.Start(), mass, air); k != nil {
+			su.model, su.general = newFastDouble(k, *hook.MassKg, mass, *hook.RiggingLengthM, units.StandardGravity), general
+		} else {
+			su.model = general()
+		}
 	}
 
 	// Initial state.

@@ -41,7 +41,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}
 			rec.hook = m.Spreader == 0
-		case *pendulum.Double:
+		case *pendulum.Double, *fastDouble:
 			rec.hook = true
 		}
 	}
@@ -55,7 +55,8 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		if opt.Budget != nil && opt.Budget.Left() < 0 {
 			return nil, nil, Stats{}, &WorkError{Message: opt.Budget.message}
 		}
-		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec}
+		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec,
+			pathOnly: opt.PathOnly && hist != nil}
 		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
 		err := fs.run(su.y0, su.breaks, tEnd)
 		if opt.Budget != nil && !opt.Budget.take(int64(fs.v.evals)*WorkPerEval) && err == nil {
@@ -67,7 +68,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
-	if su.model == nil {
+	if _, concrete := su.model.(*fastDouble); su.model == nil || (concrete && opt.General) {
 		su.model = su.general()
 	}
 	sc := newScanner(su.model, su.motionEnd)
@@ -101,6 +102,7 @@ type fastScan struct {
 	m             *fastModel
 	v             fastSolver
 	constraintErr float64
+	pathOnly      bool // no peak search (Options.PathOnly)
 }
 
 // state is the dense output at t inside the last step, projected.
@@ -141,6 +143,16 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			}
 			t0, t1 := s.v.told, s.v.t
 			residual := t0 >= s.motionEnd-1e-12
+			if s.pathOnly {
+				if d := project(&s.v.y); d > s.constraintErr {
+					s.constraintErr = d
+				}
+				s.emit(t0, t1)
+				if done {
+					break
+				}
+				continue
+			}
 			if !carry {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.

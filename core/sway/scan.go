@@ -39,7 +39,7 @@ type scanner struct {
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
 	nq := qRigAngle
 	switch m.(type) {
-	case *pendulum.Double:
+	case *pendulum.Double, *fastDouble:
 		nq = qTilt
 	case *pendulum.Rigid:
 		nq = nQuantities
@@ -103,6 +103,10 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	t := 0.0
 	s.solver.Reset(0, y)
 	s.segStart, s.segEnd = 0, cuts[0]
+	sg, _ := s.model.(segmented)
+	if sg != nil {
+		sg.segment(0, cuts[0])
+	}
 	s.model.Eval(s.inSegment(0), y, &s.pt)
 	s.pt.T = 0
 	s.observePoint(&s.pt)
@@ -113,6 +117,9 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			continue
 		}
 		s.segStart, s.segEnd = t, cut
+		if sg != nil {
+			sg.segment(t, cut)
+		}
 		s.segWork = segmentWork(s.axes, 0.5*(t+cut))
 		s.solver.Reset(t, s.solver.State())
 		carry := false // the first sample of the step is the last of the one before

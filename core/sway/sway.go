@@ -156,6 +156,11 @@ type Options struct {
 	// changed it since (scenario.Parse and Decode validate): it is not
 	// validated again.
 	Validated bool
+	// PathOnly says only the time histories are wanted (the clearance
+	// check's runs): the specialised path then makes no peak search, so
+	// the result's peak and residual figures are not to be read. The
+	// general path ignores it.
+	PathOnly bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.

@@ -146,26 +146,22 @@ func clearancePart(_ *Env, input []byte) (any, error) {
 	return clearance.CheckPart(s, in.From, in.To, clearance.Options{})
 }
 
-// JoinInput is the input of "clearance_join": the scenario and the parts
-// received so far.
-type JoinInput struct {
-	Scenario json.RawMessage  `json:"scenario"`
-	Parts    []clearance.Part `json:"parts"`
-}
+// The input of "clearance_join" is the scenario and the parts received
+// so far: {"scenario": {...}, "parts": [...]} (read by readJoinInput).
 
 // clearanceJoin joins parts into the report over their runs: with every
 // run of the check, the report of the "clearance" call, exactly, and kept
 // (for the check sheet and clearance_figures).
 func clearanceJoin(_ *Env, input []byte) (any, error) {
-	var in JoinInput
-	if err := json.Unmarshal(input, &in); err != nil {
+	sc, parts, err := readJoinInput(input)
+	if err != nil {
 		return nil, scenario.Errors{{Field: "(input)", Message: "not a clearance_join request: " + err.Error()}}
 	}
-	s, err := siteScenario(in.Scenario)
+	s, err := siteScenario(sc)
 	if err != nil {
 		return nil, err
 	}
-	rep, err := clearance.CheckJoin(s, in.Parts, clearance.Options{})
+	rep, err := clearance.CheckJoin(s, parts, clearance.Options{})
 	if err != nil {
 		return nil, err
 	}

@@ -43,15 +43,21 @@ const probe = `(function () {
 // plan of each planning example (benchPlans) and the clearance runs. It
 // runs only when SWAYSHEET_BENCH_OUT names the file for its rows; with
 // SWAYSHEET_BENCH_ROWS=clearance it measures the clearance row alone,
-// with SWAYSHEET_BENCH_ROWS=page the cold start and input rows alone.
+// with SWAYSHEET_BENCH_ROWS=plans the plan rows alone, with
+// SWAYSHEET_BENCH_ROWS=page the cold start and input rows alone.
 func TestBenchPage(t *testing.T) {
 	out := os.Getenv("SWAYSHEET_BENCH_OUT")
 	if out == "" {
 		t.Skip("page benchmark runs with SWAYSHEET_BENCH_OUT=FILE (make bench)")
 	}
 	h := setupFor(t, 15*time.Minute)
-	if os.Getenv("SWAYSHEET_BENCH_ROWS") == "clearance" {
+	switch os.Getenv("SWAYSHEET_BENCH_ROWS") {
+	case "clearance":
 		writeRows(t, out, []map[string]any{benchClearance(t, h)})
+		return
+	case "plans":
+		h.settle()
+		writeRows(t, out, append(benchPlans(h), benchPlanPage(h)...))
 		return
 	}
 	rows := benchTimes(t, h, 1)
@@ -85,29 +91,43 @@ func writeRows(t *testing.T, out string, rows []map[string]any) {
 // reply, parsing and the reply's JSON included. Each run renames the
 // scenario, so that the engine's memo of the last plan never answers.
 // Two runs warm the worker up (the first starts the engine); the median
-// of the next n is reported.
+// of the next n is reported. Beside it, for the breakdown: the first
+// (cold) plan after the engine started, the "validate" call of the same
+// scenario (message passing, JSON decode, validation and fingerprint:
+// the part of a plan call before planning), the page's JSON.parse of the
+// plan's reply and the reply's length.
 const planTimer = `(async function (text, n) {
-  var w = new Worker(window.swaysheetWorkerURL || 'worker.js'), id = 0, ts = [];
-  function call(input) {
+  var w = new Worker(window.swaysheetWorkerURL || 'worker.js'), id = 0, ts = [], vs = [], ps = [], first = 0, bytes = 0;
+  function call(name, input) {
     return new Promise(function (resolve) {
       var my = ++id;
-      w.onmessage = function (e) { if (e.data.id === my) resolve(JSON.parse(e.data.out)); };
-      w.postMessage({ id: my, name: 'plan', input: input });
+      w.onmessage = function (e) { if (e.data.id === my) resolve(e.data.out); };
+      w.postMessage({ id: my, name: name, input: input });
     });
   }
+  await call('version', '');
   var s = JSON.parse(text), sims = 0;
   for (var i = 0; i < n + 2; i++) {
     s.name = 'bench ' + i;
+    var input = JSON.stringify(s);
     var t0 = performance.now();
-    var r = await call(JSON.stringify(s));
+    var out = await call('plan', input);
+    var t1 = performance.now();
+    var r = JSON.parse(out);
     var dt = performance.now() - t0;
     if (r.error) { w.terminate(); return [-1, 0, r.error.message]; }
     sims = r.result.simulations;
-    if (i >= 2) ts.push(dt);
+    bytes = out.length;
+    if (i === 0) first = dt;
+    if (i >= 2) { ts.push(dt); ps.push(performance.now() - t1); }
+    s.name = 'bench v' + i;
+    var v0 = performance.now();
+    await call('validate', JSON.stringify(s));
+    if (i >= 2) vs.push(performance.now() - v0);
   }
   w.terminate();
-  ts.sort(function (a, b) { return a - b; });
-  return [ts[ts.length >> 1], sims, ''];
+  function med(xs) { xs.sort(function (a, b) { return a - b; }); return xs[xs.length >> 1]; }
+  return [med(ts), sims, '', first, med(vs), med(ps), bytes, ts[0]];
 })`
 
 // benchPlans times one full plan of each planning example in the page
@@ -139,6 +159,8 @@ func benchPlans(h *harness) []map[string]any {
 		if msg != "" {
 			h.t.Fatalf("%s: %s", f, msg)
 		}
+		parts := fmt.Sprintf("first plan after the engine started %.0f ms; validate call of the same scenario %.1f ms; JSON.parse of the reply %.1f ms (%.0f kB); fastest %.1f ms; ",
+			v[3].(float64), v[4].(float64), v[5].(float64), v[6].(float64)/1000, v[7].(float64))
 		target, what := 10.0, "single rope"
 		if s.Load.Hook != nil {
 			target, what = 30, "two-mode plan of a hook block"
@@ -150,9 +172,9 @@ func benchPlans(h *harness) []map[string]any {
 		if s.Load.Body != nil { // issue 16 sets no target for a rigid load's plan
 			target, what, verdict = 0, "", "no target for a rigid load"
 		}
-		h.t.Logf("%s: %.1f ms, %.0f simulations", filepath.Base(f), ms, sims)
+		h.t.Logf("%s: %.1f ms, %.0f simulations; %s", filepath.Base(f), ms, sims, parts)
 		rows = append(rows, map[string]any{"group": "page (headless Chromium)", "name": "plan, " + strings.TrimSuffix(filepath.Base(f), ".json"),
-			"value": ms, "unit": "ms", "note": planNote(sims, n, target, what, verdict)})
+			"value": ms, "unit": "ms", "note": parts + planNote(sims, n, target, what, verdict)})
 	}
 	return rows
 }

@@ -11,7 +11,7 @@ import { call, cancel } from './engine.js';
 import { clearBad, renderForm } from './form.js';
 import { P, accelDQ, axisName, deg, kindOf, limitsLine, listHTML, num, planKey, secs, siNote, speedDQ, sym, withU } from './plan-form.js';
 import { S, axisOf, axisWord } from './state.js';
-import { presentFigures } from './results.js';
+import { figuresCount, presentFigures } from './results.js';
 import { keepInSaved } from './storage.js';
 import { fmtRes, fmtStep, toShown } from './units.js';
 import { planWords, unitsKey } from './words.js';
@@ -32,7 +32,9 @@ function runPlan() {
   planProgress();
   renderPlan();
   // The plan, then its sentences in the units shown, before it is shown.
+  var asked = 0; // the figures asked for when the plan came
   Promise.all([call('plan', sent), keyed]).then(function (rs) {
+    asked = figuresCount();
     return rs[0].error ? rs : planWords(rs[0].result).then(function (w) { return rs.concat([w]); });
   }).then(function (rs) {
     var r = rs[0], key = rs[1];
@@ -52,8 +54,12 @@ function runPlan() {
     }
     renderPlan();
     // A planned request without moves is presented for the recommended
-    // move: the results follow the plan.
-    if (!r.error) presentFigures();
+    // move: the results follow the plan. Only when the result shown is of
+    // the inputs as they are: otherwise their evaluation is due or under
+    // way, and presents its figures (of the plan, now kept) when it comes;
+    // asking now would compute the figures of earlier inputs for nothing.
+    // Nor when they were asked for since the plan came (the core had it).
+    if (!r.error && S.resultSent === JSON.stringify(S.scenario) && figuresCount() === asked) presentFigures();
   });
 }
 

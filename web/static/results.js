@@ -69,6 +69,10 @@ export function presentFigures() {
 // presenting is true while the figures of the last result are asked for.
 export function presenting() { return figuresWaiting; }
 
+// figuresCount counts the figures asked for so far (a later count: they
+// were asked again since).
+export function figuresCount() { return figuresAsked; }
+
 // The verdict band's words and symbol by the core's verdict state; the
 // sentence after them is the core's own.
 const VERDICT_WORDS = {

@@ -6,6 +6,7 @@
 //	swaybench -scipy REF.json FILE.json ...  time SciPy at the core's accuracy
 //	swaybench -floor FILE.json [-repeat N]   time the floor kernel beside the core
 //	swaybench -draws FILE.json               time 1,000 draws of the scenario (core/draws)
+//	swaybench -plans DIR [-repeat N]         time each plan-*.json in DIR by its parts
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -48,6 +49,7 @@ func main() {
 	group := flag.String("group", "", "group name for the rows (default: core native or core wasm)")
 	scipy := flag.String("scipy", "", "with the reference results JSON: time SciPy beside the core for the given scenario files")
 	floor := flag.String("floor", "", "time the floor kernel beside the core on this travel scenario")
+	plansDir := flag.String("plans", "", "time the parts of one full plan of each plan-*.json in this folder")
 	drawsFile := flag.String("draws", "", "time 1,000 draws of this scenario on one goroutine and on all processors")
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
@@ -64,6 +66,8 @@ func main() {
 	switch {
 	case *scipy != "":
 		emit(scipyRows(*scipy, *python, *script, flag.Args(), *repeat))
+	case *plansDir != "":
+		emit(planRows(*plansDir, *repeat, "plan parts "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *drawsFile != "":
 		emit(drawsRows(*drawsFile, "draws "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *floor != "":

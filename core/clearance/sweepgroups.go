@@ -1,0 +1,150 @@
+package clearance
+
+import "math"
+
+// sweepGroups marks the cells sweepBallCells marks (a cell whose centre is
+// within reach of a piece of the path), with far fewer tests on paths of
+// many short pieces (a simulated run: hundreds of samples a few cm apart,
+// a ball of a metre or more, where sweepCapsules worked out the same row
+// of cells again for every piece).
+//
+// The path is cut into groups of consecutive points that stay within δ of
+// the chord q from the group's first point to its last (at most
+// 33 points, δ at most a quarter cell). Then:
+//
+//   - Every point within reach-δ of q is within reach of the group's
+//     pieces: the path runs from one end of q to the other, so its
+//     projection on q's line passes every point of q, at a distance of at
+//     most δ from it. The cells whose centres are that close (less a
+//     micrometre, far above the rounding) are marked row by row at once
+//     (capsule.row), with no test.
+//   - Every point within reach of a piece is within reach+δ of q (each
+//     piece's points are within δ of q: the distance to a segment is
+//     convex along a piece). Only the cells of that wider capsule not yet
+//     marked are tested, each with the test sweepBallCells makes
+//     (pointSegmentDist2 against reach²) on the group's pieces.
+//
+// So a cell is marked exactly when the cell by cell sweep marks it
+// (TestGroupSweepMatchesCellSweep), and the tests are left to a band
+// about δ wide on either side of the envelope's edge. All groups' sure
+// cells are marked first, so the band's cells that another group covers
+// are not tested.
+func sweepGroups(points []Point2, reach, cellM float64, i0, j0, nx, ny int, covered []bool) {
+	if len(points) == 0 || nx <= 0 || ny <= 0 {
+		return
+	}
+	groups := pathGroups(points, cellM/4)
+	const sure = 1e-6 // m, kept off each side of the exact boundary
+	for _, g := range groups {
+		if rin := reach - g.dev - 2*sure; rin > 0 {
+			markInner(newCapsule(points[g.first], points[g.last], rin), g, reach, cellM, i0, j0, nx, ny, covered)
+		}
+	}
+	reach2 := reach * reach
+	for _, g := range groups {
+		a, b := points[g.first], points[g.last]
+		outer := newCapsule(a, b, reach+g.dev+sure)
+		rin := reach - g.dev - 2*sure
+		inner := newCapsule(a, b, max(rin, 0))
+		jlo, jhi := latticeRange(math.Min(a.Y, b.Y), math.Max(a.Y, b.Y), reach+g.dev+sure, cellM)
+		for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
+			cy := (float64(j) + 0.5) * cellM
+			xl, xr, ok := outer.row(cy)
+			if !ok {
+				continue
+			}
+			l := max(int(math.Ceil(xl/cellM-0.5))-1, i0)
+			r := min(int(math.Floor(xr/cellM-0.5))+1, i0+nx-1)
+			// The cells marked in the first pass are skipped.
+			il, ir := r+1, r
+			if rin > 0 {
+				if xl, xr, ok := inner.row(cy); ok {
+					il, ir = int(math.Ceil(xl/cellM-0.5)), int(math.Floor(xr/cellM-0.5))
+				}
+			}
+			row := covered[(j-j0)*nx : (j-j0+1)*nx]
+			for i := l; i <= r; i++ {
+				if i >= il && i <= ir {
+					i = ir
+					continue
+				}
+				if row[i-i0] {
+					continue
+				}
+				c := Point2{(float64(i) + 0.5) * cellM, cy}
+				if g.first == g.last {
+					row[i-i0] = pointSegmentDist2(c, a, a) <= reach2
+					continue
+				}
+				for k := g.first; k < g.last; k++ {
+					if pointSegmentDist2(c, points[k], points[k+1]) <= reach2 {
+						row[i-i0] = true
+						break
+					}
+				}
+			}
+		}
+	}
+}
+
+// groupPieces is the most pieces (points less one) a group holds.
+const groupPieces = 32
+
+// pathGroup is the points first to last of a path (each group's last
+// point is the next one's first) and how far they stray from the chord
+// between its ends.
+type pathGroup struct {
+	first, last int
+	dev         float64
+}
+
+// pathGroups cuts the path into groups whose points are within devM of
+// their chords; a group of one point is a path of one point.
+func pathGroups(points []Point2, devM float64) []pathGroup {
+	if len(points) == 1 {
+		return []pathGroup{{0, 0, 0}}
+	}
+	var out []pathGroup
+	for s := 0; s+1 < len(points); {
+		// Groups of 2, 3, 5, 9, 17 or 33 points: the longest that keeps
+		// to devM, found with a few looks at each point.
+		g := pathGroup{first: s, last: s + 1}
+		for w := 2; w <= groupPieces && s+w < len(points); w *= 2 {
+			d := chordDev(points, s, s+w)
+			if d > devM {
+				break
+			}
+			g.last, g.dev = s+w, d
+		}
+		out = append(out, g)
+		s = g.last
+	}
+	return out
+}
+
+// chordDev is the largest distance of points s to e from the segment
+// between the two.
+func chordDev(points []Point2, s, e int) float64 {
+	d2 := 0.0
+	for k := s + 1; k < e; k++ {
+		d2 = math.Max(d2, pointSegmentDist2(points[k], points[s], points[e]))
+	}
+	return math.Sqrt(d2)
+}
+
+// markInner marks the cells whose centres are in the capsule, row by row.
+func markInner(c capsule, g pathGroup, reach, cellM float64, i0, j0, nx, ny int, covered []bool) {
+	jlo, jhi := latticeRange(math.Min(c.a.Y, c.b.Y), math.Max(c.a.Y, c.b.Y), reach, cellM)
+	for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
+		cy := (float64(j) + 0.5) * cellM
+		xl, xr, ok := c.row(cy)
+		if !ok {
+			continue
+		}
+		l := max(int(math.Ceil(xl/cellM-0.5)), i0)
+		r := min(int(math.Floor(xr/cellM-0.5)), i0+nx-1)
+		if l <= r {
+			fillTrue(covered[(j-j0)*nx+l-i0 : (j-j0)*nx+r-i0+1])
+		}
+	}
+}
