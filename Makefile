@@ -71,9 +71,9 @@ examples:
 # name functions (they read Go's function table, not that section).
 # NOINLINE: packages of the main wasm compiled without inlining (-l):
 # they run once a call, not in the simulation's loops, and Go's wasm code
-# pays for each inlined copy (about 75 kB gzipped; see web/dist/gcflags.go,
+# pays for each inlined copy (about 85 kB gzipped; see web/dist/gcflags.go,
 # which holds the same list for the tests).
-NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures swaysheet/core/words swaysheet/core/units swaysheet/core/ropelength swaysheet/core/qr swaysheet/wasm/bridge fmt encoding/json
+NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures swaysheet/core/words swaysheet/core/units swaysheet/core/ropelength swaysheet/core/qr swaysheet/wasm/bridge fmt encoding/json reflect
 WASM_GCFLAGS := $(foreach p,$(NOINLINE),-gcflags=$(p)=-l)
 wasm:
 	@mkdir -p $(OUT)/web
