@@ -69,9 +69,15 @@ examples:
 # leave out the wasm's name section (function names for the browser's
 # debugger, about 40 KB gzipped); Go's own panics and stack traces still
 # name functions (they read Go's function table, not that section).
+# NOINLINE: packages of the main wasm compiled without inlining (-l):
+# they run once a call, not in the simulation's loops, and Go's wasm code
+# pays for each inlined copy (about 85 kB gzipped; see web/dist/gcflags.go,
+# which holds the same list for the tests).
+NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures swaysheet/core/words swaysheet/core/units swaysheet/core/ropelength swaysheet/core/qr swaysheet/wasm/bridge fmt encoding/json reflect
+WASM_GCFLAGS := $(foreach p,$(NOINLINE),-gcflags=$(p)=-l)
 wasm:
 	@mkdir -p $(OUT)/web
-	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath $(WASM_GCFLAGS) -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swayfetch.wasm ./wasm/fetch
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swayfetch.wasm
@@ -84,7 +90,7 @@ wasm:
 # (swaypack: the same memory at start, about 6 % less gzipped).
 single-wasm:
 	@mkdir -p $(OUT)/single
-	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch $(WASM_GCFLAGS) -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/single/swaysheet.wasm
 
 # dist/web: the page to host on any web server (with its service worker);
@@ -162,7 +168,7 @@ BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.j
 bench: deps scipy-deps dist
 	@mkdir -p $(BENCH)
 	$(GO) test -run '^$$' -bench . -benchtime 100x ./core/... ./core/sheet/ | tee $(BENCH)/go-bench.txt
-	GOOS=js GOARCH=wasm $(GO) build -trimpath -o $(BENCH)/parts.wasm ./wasm
+	GOOS=js GOARCH=wasm $(GO) build -trimpath $(WASM_GCFLAGS) -o $(BENCH)/parts.wasm ./wasm
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -fetch-wasm $(OUT)/web/swayfetch.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json

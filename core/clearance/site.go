@@ -4,9 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
 	"strings"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/words"
 )
 
@@ -191,13 +191,13 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 			}
 			rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
 		}
-		sort.Float64s(smallest)
+		sorts.Floats(smallest)
 		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
 		rep.ShareStrike = float64(rep.Strikes) / float64(len(near))
 		if len(gaps) > 0 {
-			sort.Float64s(gaps)
+			sorts.Floats(gaps)
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
 				P5M: gaps[nearestRank(0.05, len(gaps))]}
 		}
@@ -241,7 +241,7 @@ func (s *Site) summariseRope(near [][]Closest, k int, w *Closest) *RopeReport {
 	if rep == nil {
 		return nil
 	}
-	sort.Float64s(smallest)
+	sorts.Floats(smallest)
 	rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
 	rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(rep.Runs)
 	rep.SmallestAtHeightM = rep.SmallestAt.Z

@@ -3,7 +3,8 @@ package clearance
 import (
 	"cmp"
 	"math"
-	"slices"
+
+	"swaysheet/core/internal/sorts"
 )
 
 // stray is the largest distance of the run's points from the polyline
@@ -40,7 +41,7 @@ func (n *nearest) stray(run []Point2) float64 {
 	for i := range order {
 		order[i] = i
 	}
-	slices.SortFunc(order, func(a, b int) int { return cmp.Compare(bound[b], bound[a]) })
+	sorts.By(order, func(a, b int) bool { return cmp.Compare(bound[b], bound[a]) < 0 })
 	worst := 0.0
 	for _, i := range order {
 		if !(bound[i] > worst) {

@@ -25,6 +25,7 @@ import (
 	"slices"
 	"sync"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 )
@@ -237,7 +238,7 @@ func percentiles(xs []float64) Percentiles {
 		return Percentiles{}
 	}
 	v := slices.Clone(xs)
-	slices.Sort(v)
+	sorts.Floats(v)
 	q := func(p float64) float64 {
 		h := p * float64(len(v)-1)
 		i := int(math.Floor(h))

@@ -1,9 +1,9 @@
 package figures
 
 import (
-	"sort"
 	"strings"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -124,7 +124,7 @@ func PresentRopes(s *scenario.Scenario, evals []Evaluation, u units.Choice) Repo
 				strings.TrimSuffix(row.Check.Words, " (worst at rope "+row.Check.WorstRope+")"))
 		}
 	}
-	sort.Float64s(checked)
+	sorts.Floats(checked)
 	ls := make([]string, len(checked))
 	for i, l := range checked {
 		ls[i] = ropeText(l)

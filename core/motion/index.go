@@ -3,6 +3,8 @@ package motion
 import (
 	"math"
 	"slices"
+
+	"swaysheet/core/internal/sorts"
 )
 
 // An index evaluates a sum of terms a_i * p_i(t - s_i) (the moves of a Sum,
@@ -77,7 +79,7 @@ func newIndex(terms []term) *index {
 		}
 		spans[i] = edge{lo, math.Max(hi, lo)}
 	}
-	slices.Sort(x.bounds)
+	sorts.Floats(x.bounds)
 	x.bounds = slices.Compact(x.bounds)
 	x.cells = make([]cell, len(x.bounds)+1)
 	for k := range x.cells {

@@ -10,7 +10,8 @@ package motion
 
 import (
 	"math"
-	"sort"
+
+	"swaysheet/core/internal/sorts"
 )
 
 // State is position, speed and acceleration of an axis at one instant.
@@ -167,7 +168,7 @@ func (m Sum) End() float64 {
 
 // dedupe sorts ts and drops times closer than 1e-9 s to the one before.
 func dedupe(ts []float64) []float64 {
-	sort.Float64s(ts)
+	sorts.Floats(ts)
 	out := ts[:0]
 	for _, t := range ts {
 		if len(out) == 0 || t-out[len(out)-1] > 1e-9 {

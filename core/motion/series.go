@@ -9,6 +9,8 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+
+	"swaysheet/core/internal/sorts"
 )
 
 // A time series of one or more axes, as recorded from a drive or planned in
@@ -237,7 +239,7 @@ func (s *Series) checkGaps() error {
 		steps[i] = s.TimeS[i+1] - s.TimeS[i]
 	}
 	sorted := append([]float64(nil), steps...)
-	sort.Float64s(sorted)
+	sorts.Floats(sorted)
 	median := sorted[len(sorted)/2]
 	limit := math.Min(MaxGapS, GapFactor*median)
 	for i, d := range steps {

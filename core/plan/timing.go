@@ -5,8 +5,8 @@ import (
 	"math"
 	"math/cmplx"
 	"math/rand/v2"
-	"slices"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/scenario"
 )
 
@@ -92,7 +92,7 @@ func percentile(xs []float64, p float64) float64 {
 	if len(xs) == 0 {
 		return 0
 	}
-	slices.Sort(xs)
+	sorts.Floats(xs)
 	k := int(math.Ceil(p/100*float64(len(xs)))) - 1
 	return xs[max(0, min(k, len(xs)-1))]
 }

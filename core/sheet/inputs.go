@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"swaysheet/core/crane"
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
 )
@@ -165,7 +166,7 @@ func inputGroups(s *scenario.Scenario, u units.Choice) []Group {
 			rest = append(rest, k)
 		}
 	}
-	sort.Strings(rest)
+	sorts.Strings(rest)
 	for _, k := range rest {
 		add(k)
 	}
@@ -179,7 +180,7 @@ func flatten(g *Group, path, label string, v any, u units.Choice, kind string) {
 		for k := range x {
 			keys = append(keys, k)
 		}
-		sort.Strings(keys)
+		sorts.Strings(keys)
 		// Axis and profile first, then the rest by name.
 		sort.SliceStable(keys, func(i, j int) bool { return rank(keys[i]) < rank(keys[j]) })
 		for _, k := range keys {

@@ -1,7 +1,6 @@
 package sheet
 
 import (
-	"html"
 	"strconv"
 	"strings"
 )
@@ -27,5 +26,5 @@ func qrSVG(bits [][]bool, label string) string {
 		}
 	}
 	return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ` + n + " " + n + `" shape-rendering="crispEdges" role="img" aria-label="` +
-		html.EscapeString(label) + `"><rect width="` + n + `" height="` + n + `" fill="#fff"/><path d="` + d.String() + `" fill="#000"/></svg>`
+		escapeHTML(label) + `"><rect width="` + n + `" height="` + n + `" fill="#fff"/><path d="` + d.String() + `" fill="#000"/></svg>`
 }

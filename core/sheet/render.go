@@ -1,7 +1,6 @@
 package sheet
 
 import (
-	"html"
 	"strings"
 
 	"swaysheet/core/figures"
@@ -17,7 +16,7 @@ type markup string
 type htmlWriter struct{ strings.Builder }
 
 func (h *htmlWriter) raw(s string) { h.WriteString(s) }
-func (h *htmlWriter) t(s string)   { h.WriteString(html.EscapeString(s)) }
+func (h *htmlWriter) t(s string)   { h.WriteString(escapeHTML(s)) }
 func (h *htmlWriter) m(s markup)   { h.WriteString(string(s)) }
 func (h *htmlWriter) el(tag, class, text string) {
 	h.raw("<" + tag)

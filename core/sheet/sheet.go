@@ -11,7 +11,7 @@
 // result and the plan (Compute gathers them with the caller's own
 // evaluation and planner) and never computes physics. The results are
 // presented from the figures table (core/figures). The HTML is written by
-// hand (render.go), every text through html.EscapeString: text the user
+// hand (render.go), every text through escapeHTML (html.EscapeString): text the user
 // typed is always text, never markup. Nothing on the sheet is told by
 // colour alone; it prints in black and white.
 package sheet

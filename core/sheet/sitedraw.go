@@ -2,7 +2,6 @@ package sheet
 
 import (
 	"fmt"
-	"html"
 	"math"
 	"strings"
 
@@ -256,15 +255,15 @@ func drawSitePlan(in SitePlanInput, l siteLayout) (string, SiteFrame) {
 		if i == in.Selected {
 			sel = " selected"
 		}
-		fmt.Fprintf(&b, `<path d="%s" fill="#000" class="obstacle%s" data-ob="%d"><title>%s</title></path>`, d, sel, i, html.EscapeString(nameOf(o, i)))
+		fmt.Fprintf(&b, `<path d="%s" fill="#000" class="obstacle%s" data-ob="%d"><title>%s</title></path>`, d, sel, i, escapeHTML(nameOf(o, i)))
 	}
 	b.WriteString(`</g>`)
 	in.labels(&b, l, px, py, pw, sym)
 	fmt.Fprintf(&b, `<rect x="%g" y="%g" width="%.2f" height="%.2f" fill="none" stroke="#000" stroke-width="%g"%s/>`, l.left, l.top, pw, ph, l.axis/14, l.cls("frame"))
 	in.tickLabels(&b, l, px, py, fr, f)
-	fmt.Fprintf(&b, `<text x="%.2f" y="%.2f" font-size="%g" text-anchor="middle"%s>x (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, l.cls("axis-label"), html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%.2f" y="%.2f" font-size="%g" text-anchor="middle"%s>x (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, l.cls("axis-label"), escapeHTML(sym))
 	ax := l.axis * 1.05
-	fmt.Fprintf(&b, `<text x="%g" y="%.2f" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %.2f)"%s>y (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, l.cls("axis-label"), html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%g" y="%.2f" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %.2f)"%s>y (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, l.cls("axis-label"), escapeHTML(sym))
 	b.WriteString(`</svg>`)
 	return b.String(), fr
 }
@@ -314,7 +313,7 @@ func (in *SitePlanInput) labels(b *strings.Builder, l siteLayout, px, py func(fl
 		}
 		placed = append(placed, c)
 		fmt.Fprintf(b, `<text x="%.2f" y="%.2f" font-size="%g" font-weight="bold" text-anchor="middle" paint-order="stroke" stroke="#fff" stroke-width="%g"%s>%s</text>`,
-			x, c.y, l.label, l.label/3, l.cls("ob-label"), html.EscapeString(text))
+			x, c.y, l.label, l.label/3, l.cls("ob-label"), escapeHTML(text))
 	}
 }
 

@@ -2,7 +2,6 @@ package sheet
 
 import (
 	"fmt"
-	"html"
 	"math"
 	"strings"
 
@@ -112,7 +111,7 @@ func drawSiteSection(sec *clearance.Section, u units.Choice, widthPx float64, l 
 	}
 	for _, o := range sec.Obstacles {
 		fmt.Fprintf(&b, `<rect x="%.2f" y="%.2f" width="%.2f" height="%.2f" fill="#000"%s><title>%s</title></rect>`,
-			px(o.FromM), py(o.TopM), math.Max((o.ToM-o.FromM)*kx, 2), o.TopM*kz, l.cls("obstacle-side"), html.EscapeString(o.Name))
+			px(o.FromM), py(o.TopM), math.Max((o.ToM-o.FromM)*kx, 2), o.TopM*kz, l.cls("obstacle-side"), escapeHTML(o.Name))
 	}
 	for _, c := range []struct {
 		cls, dash string
@@ -128,9 +127,9 @@ func drawSiteSection(sec *clearance.Section, u units.Choice, widthPx float64, l 
 		sectionNames(&b, sec, l, px, py)
 	}
 	fmt.Fprintf(&b, `<rect x="%g" y="%g" width="%g" height="%g" fill="none" stroke="#000" stroke-width="%g"%s/>`, l.left, l.top, pw, ph, thin, l.cls("frame"))
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle"%s>along the path (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, l.cls("axis-label"), html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle"%s>along the path (%s)</text>`, l.left+pw/2, H-l.axis*0.3, l.axis, l.cls("axis-label"), escapeHTML(sym))
 	ax := l.axis * 1.05
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)"%s>height (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, l.cls("axis-label"), html.EscapeString(sym))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)"%s>height (%s)</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, l.cls("axis-label"), escapeHTML(sym))
 	b.WriteString(`</svg>`)
 	return b.String()
 }
@@ -153,6 +152,6 @@ func sectionNames(b *strings.Builder, sec *clearance.Section, l siteLayout, px, 
 		ends[row] = x + w/2 + l.label*0.4
 		y := py(o.TopM) - l.label*0.35 - float64(row)*l.label*1.05
 		fmt.Fprintf(b, `<text x="%.2f" y="%.2f" font-size="%g" text-anchor="middle" stroke="#fff" stroke-width="%g" paint-order="stroke">%s</text>`,
-			x, math.Max(y, l.top+l.label*0.9), l.label, l.label/4, html.EscapeString(o.Name))
+			x, math.Max(y, l.top+l.label*0.9), l.label, l.label/4, escapeHTML(o.Name))
 	}
 }

@@ -2,7 +2,6 @@ package sheet
 
 import (
 	"fmt"
-	"html"
 	"math"
 	"strings"
 )
@@ -100,9 +99,9 @@ func (p *Plot) draw(l layout) string {
 		l.h += rowH * rows
 	}
 	pw, ph := l.w-l.left-l.right, l.h-l.top-l.bottom
-	fmt.Fprintf(&b, `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %g %g"%s role="img" aria-label="%s">`, l.w, l.h, cls("chart"), html.EscapeString(p.Title))
+	fmt.Fprintf(&b, `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %g %g"%s role="img" aria-label="%s">`, l.w, l.h, cls("chart"), escapeHTML(p.Title))
 	if p.Title != "" && !p.TitleAbove {
-		fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" font-weight="bold"%s>%s</text>`, l.left, l.title+1, l.title, cls("title"), html.EscapeString(p.Title))
+		fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" font-weight="bold"%s>%s</text>`, l.left, l.title+1, l.title, cls("title"), escapeHTML(p.Title))
 	}
 	xr, yr, ok := p.ranges(pw, ph)
 	if !ok {
@@ -130,7 +129,7 @@ func (p *Plot) draw(l layout) string {
 		fmt.Fprintf(&b, `<rect x="%.1f" y="%g" width="%.1f" height="%g" fill="url(#%s-hatch)" opacity="0.75"%s/>`, x0, l.top, x1-x0, ph, id, cls("band"))
 		if band.Text != "" {
 			fmt.Fprintf(&b, `<text x="%.1f" y="%g" font-size="%g" font-weight="bold" text-anchor="middle"%s>%s</text>`,
-				(x0+x1)/2, l.top+l.small, l.small, cls("band-text"), html.EscapeString(band.Text))
+				(x0+x1)/2, l.top+l.small, l.small, cls("band-text"), escapeHTML(band.Text))
 		}
 	}
 	nx := 6
@@ -181,20 +180,20 @@ func (p *Plot) draw(l layout) string {
 		if y-l.small < l.top {
 			y = py(h.Y) + l.small
 		}
-		fmt.Fprintf(&b, `<text x="%g" y="%.2f" font-size="%g" font-weight="bold" text-anchor="end"%s>%s</text>`, l.left+pw-l.small/3, y, l.small, cls("limit-text"), html.EscapeString(h.Text))
+		fmt.Fprintf(&b, `<text x="%g" y="%.2f" font-size="%g" font-weight="bold" text-anchor="end"%s>%s</text>`, l.left+pw-l.small/3, y, l.small, cls("limit-text"), escapeHTML(h.Text))
 	}
 	for _, c := range p.Circles {
 		if !finite(c.R) || c.R <= 0 || c.Text == "" {
 			continue
 		}
-		fmt.Fprintf(&b, `<text x="%.2f" y="%.2f" font-size="%g" font-weight="bold" text-anchor="middle"%s>%s</text>`, px(0), py(c.R)-l.small/3, l.small, cls("limit-text"), html.EscapeString(c.Text))
+		fmt.Fprintf(&b, `<text x="%.2f" y="%.2f" font-size="%g" font-weight="bold" text-anchor="middle"%s>%s</text>`, px(0), py(c.R)-l.small/3, l.small, cls("limit-text"), escapeHTML(c.Text))
 	}
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle"%s>%s</text>`, l.left+pw/2, l.h-l.axis*0.45, l.axis, cls("axis-label"), html.EscapeString(p.XLabel))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle"%s>%s</text>`, l.left+pw/2, l.h-l.axis*0.45, l.axis, cls("axis-label"), escapeHTML(p.XLabel))
 	ax := l.axis * 1.1
-	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)"%s>%s</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, cls("axis-label"), html.EscapeString(p.YLabel))
+	fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g" text-anchor="middle" transform="rotate(-90 %g %g)"%s>%s</text>`, ax, l.top+ph/2, l.axis, ax, l.top+ph/2, cls("axis-label"), escapeHTML(p.YLabel))
 	for _, it := range legend {
 		fmt.Fprintf(&b, `<line x1="%g" y1="%g" x2="%g" y2="%g" stroke="#000"%s%s/>`, it.x, it.y, it.x+2*l.small, it.y, it.s.stroke(l, it.i, len(p.Series)), cls("line "+it.s.class(it.i)))
-		fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g"%s>%s</text>`, it.x+2*l.small+4, it.y+0.35*l.small, l.small, cls("legend"), html.EscapeString(it.s.Name))
+		fmt.Fprintf(&b, `<text x="%g" y="%g" font-size="%g"%s>%s</text>`, it.x+2*l.small+4, it.y+0.35*l.small, l.small, cls("legend"), escapeHTML(it.s.Name))
 	}
 	b.WriteString(`</svg>`)
 	return b.String()
@@ -303,8 +302,8 @@ func (s *PlotSeries) stroke(l layout, i, n int) string {
 	out := fmt.Sprintf(` stroke-width="%g"`, w*l.line)
 	d := dashOnly(s.Dash)
 	if s.Dash == "" && n > 1 {
-		var k int
-		if _, err := fmt.Sscanf(s.class(i), "s%d", &k); err != nil || k < 1 {
+		k, ok := classNumber(s.class(i))
+		if !ok || k < 1 {
 			k = i + 1
 		}
 		d = dashes[(k+len(dashes)-1)%len(dashes)]

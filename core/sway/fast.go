@@ -4,8 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
@@ -91,7 +91,7 @@ func restartCuts(breaks []float64, tEnd float64) []float64 {
 			cuts = append(cuts, b)
 		}
 	}
-	slices.Sort(cuts)
+	sorts.Floats(cuts)
 	return append(cuts, tEnd)
 }
 

@@ -5,6 +5,7 @@ import (
 	"slices"
 	"sort"
 
+	"swaysheet/core/internal/sorts"
 	"swaysheet/core/motion"
 )
 
@@ -123,7 +124,7 @@ func flatten(comps [][]motion.Piece) axisTable {
 			ts = append(ts, p.T)
 		}
 	}
-	slices.Sort(ts)
+	sorts.Floats(ts)
 	ts = slices.Compact(ts)
 	tab := make(axisTable, 0, len(ts)+1)
 	// Before the first breakpoint every component moves steadily.

@@ -9,7 +9,8 @@ package units
 
 import (
 	"math"
-	"sort"
+
+	"swaysheet/core/internal/sorts"
 )
 
 // StandardGravity is g_n in m/s^2 (3rd CGPM 1901; ISO 80000-3).
@@ -125,7 +126,7 @@ func QuantityOf(siSymbol string) string {
 	for k := range Table {
 		names = append(names, k)
 	}
-	sort.Strings(names)
+	sorts.Strings(names)
 	for _, k := range names {
 		if q := Table[k]; len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
 			return k

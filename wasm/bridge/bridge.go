@@ -24,7 +24,9 @@ type Func func(env *Env, input []byte) (any, error)
 // Env is what the calls may use from their surroundings.
 type Env struct {
 	// Fetch reads a file from the page's own origin by a URL relative to
-	// the page (nil: no network; embedded copies are used).
+	// the page (nil: no network; embedded copies are used). It may be
+	// called from several goroutines at once (the examples are read
+	// together).
 	Fetch func(url string) ([]byte, error)
 	// LibraryFetch reads a file of the site library from the page's own
 	// origin by a URL relative to the page (nil: no site library). In the

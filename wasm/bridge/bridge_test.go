@@ -8,6 +8,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"sync"
 	"testing"
 
 	"swaysheet/core/units"
@@ -149,8 +150,11 @@ func TestEmbeddedExamplesMatchTestdata(t *testing.T) {
 func TestExamplesFetchAndFallback(t *testing.T) {
 	dir := filepath.Join("..", "..", "testdata", "scenarios")
 	var asked []string
+	var mu sync.Mutex // the examples are read at once, from several goroutines
 	fromDisk := func(url string) ([]byte, error) {
+		mu.Lock()
 		asked = append(asked, url)
+		mu.Unlock()
 		name, ok := strings.CutPrefix(url, ExamplesBase)
 		if !ok {
 			return nil, errors.New("outside the examples folder")

@@ -138,16 +138,39 @@ func fetchExamples(fetch func(string) ([]byte, error), base string) ([]Example, 
 	if err := json.Unmarshal(idx, &files); err != nil {
 		return nil, fmt.Errorf("%sindex.json is not a list of file names: %v", base, err)
 	}
-	var out []Example
-	for _, f := range files {
+	// The files are read all at once (one read waits for the server, not
+	// for the reads before it: the page's first result waits for this
+	// list), then taken in the index's order, so the list and the first
+	// problem reported are those of reading them one by one.
+	named := len(files)
+	for i, f := range files {
 		if f != path.Base(f) || !strings.HasSuffix(f, ".json") {
+			named = i
+			break
+		}
+	}
+	type read struct {
+		data []byte
+		err  error
+	}
+	reads := make([]chan read, named)
+	for i := range reads {
+		reads[i] = make(chan read, 1)
+		go func(url string, ch chan<- read) {
+			data, err := fetch(url)
+			ch <- read{data, err}
+		}(base+files[i], reads[i])
+	}
+	var out []Example
+	for i, f := range files {
+		if i == named {
 			return nil, fmt.Errorf("%sindex.json names %q, not a .json file beside it", base, f)
 		}
-		data, err := fetch(base + f)
-		if err != nil {
-			return nil, err
+		r := <-reads[i]
+		if r.err != nil {
+			return nil, r.err
 		}
-		ex, err := example(f, data)
+		ex, err := example(f, r.data)
 		if err != nil {
 			return nil, err
 		}

@@ -26,11 +26,15 @@ func wasmBuild(t *testing.T) string {
 		if wasmDir, wasmErr = os.MkdirTemp("", "swaysheet-browsertest-"); wasmErr != nil {
 			return
 		}
-		// Built as make wasm builds them: stripped, data segments joined;
+		// Built as make wasm builds them: stripped, NoInline uninlined, data segments joined;
 		// the core and the site library's small fetch wasm.
 		for _, b := range [][2]string{{"swaysheet.wasm", "./wasm"}, {"swayfetch.wasm", "./wasm/fetch"}} {
 			wasmFile := filepath.Join(wasmDir, b[0])
-			cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile, b[1])
+			args := []string{"build", "-trimpath", "-ldflags=-s -w", "-o", wasmFile}
+			if b[1] == "./wasm" {
+				args = append(args, dist.WasmGcflags()...)
+			}
+			cmd := exec.Command("go", append(args, b[1])...)
 			cmd.Dir = root
 			cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
 			if out, err := cmd.CombinedOutput(); err != nil {

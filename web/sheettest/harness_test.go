@@ -24,6 +24,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"swaysheet/core/figures"
+	"swaysheet/web/dist"
 )
 
 const root = "../.."
@@ -57,7 +58,11 @@ func buildWasm(t *testing.T, dir string, args ...string) {
 		builds = append(builds, [2]string{"swayfetch.wasm", "./wasm/fetch"})
 	}
 	for _, b := range builds {
-		cmd := exec.Command("go", append(append([]string{"build", "-trimpath"}, args...), "-o", filepath.Join(dir, b[0]), b[1])...)
+		build := append([]string{"build", "-trimpath"}, args...)
+		if b[1] == "./wasm" {
+			build = append(build, dist.WasmGcflags()...)
+		}
+		cmd := exec.Command("go", append(build, "-o", filepath.Join(dir, b[0]), b[1])...)
 		cmd.Dir = root
 		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
 		if out, err := cmd.CombinedOutput(); err != nil {

@@ -10,18 +10,26 @@ import { markStale, presentFigures, presenting, updateBanner } from './results.j
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
-let timer = null, busy = false, again = false, progressTimer = null, cancelTimer = null;
+let timer = null, lastChange = -1e9, busy = false, again = false, progressTimer = null, cancelTimer = null;
 
 // computing is true while the core works on the inputs or more are due,
 // or while the figures of the last result are asked for.
 export function computing() { return busy || again || presenting(); }
 
+// changed: the inputs changed. After a quiet moment the core is asked a
+// task later (the changes made together, as a form redrawn, go as one);
+// within a burst of changes (faster than one each 30 ms) it is asked 30 ms
+// after the last. A change while the core works is sent once it has
+// answered (evaluate's again), and a result overtaken by a change is not
+// presented (evaluate), so typing never queues more than one computation.
 export function changed() {
   updateBanner();
   planChanged();
   clearTimeout(timer);
   S.waiting = true;
-  timer = setTimeout(function () { S.waiting = false; keepCurrent(); evaluate(); }, 30);
+  var now = performance.now(), quiet = now - lastChange > 30;
+  lastChange = now;
+  timer = setTimeout(function () { S.waiting = false; evaluate(); keepCurrent(); }, quiet ? 0 : 30);
 }
 
 function noResults() {
@@ -81,6 +89,8 @@ export function evaluate() {
     S.resultSent = sent;
     S.count++;
     markStale(false);
+    // Inputs changed since: their result follows and is presented.
+    if (S.waiting) return;
     // The verdict and figures come from the core's table (one more call,
     // answered from the bridge's memo of this result).
     presentFigures();

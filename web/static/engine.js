@@ -12,7 +12,9 @@ let worker = null, nextId = 1, waiting = {}, restarts = [];
 export const DEADLINES = { plan: 180000, evaluate: 90000, sheet: 90000, clearance: 120000, other: 60000 };
 
 export function startWorker() {
-  worker = new Worker(window.swaysheetWorkerURL || 'worker.js');
+  // The first start takes the worker boot.js started early.
+  worker = window.swaysheetBootWorker || new Worker(window.swaysheetWorkerURL || 'worker.js');
+  window.swaysheetBootWorker = null;
   worker.onmessage = function (e) {
     var m = e.data;
     if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message, 'failed'); return; }
@@ -24,6 +26,8 @@ export function startWorker() {
     if (e.preventDefault) e.preventDefault();
     engineStopped('The calculation engine failed: ' + (e.message || 'unknown error') + '.', 'failed');
   };
+  var early = worker.bootError;
+  if (early) setTimeout(function () { engineStopped('The calculation engine failed: ' + early + '.', 'failed'); }, 0);
 }
 
 // engineStopped answers every call still waiting with an error, ends the

@@ -45,12 +45,11 @@ function demo() {
 function start() {
   startWorker();
   bindForm(); bindSaved(); bindFiles(); bindShare(); bindExamples(); bindLibrary(); bindSys();
-  Promise.all([call('units'), call('ranges'), call('examples'), call('version')]).then(function (rs) {
+  Promise.all([call('units'), call('ranges'), call('version')]).then(function (rs) {
     for (var i = 0; i < rs.length; i++) if (rs[i].error) { engineError(rs[i].error.message); return; }
     S.table = rs[0].result;
     S.ranges = rs[1].result;
-    S.examples = rs[2].result;
-    $('version').textContent = 'swaysheet ' + rs[3].result.version + ' \u00B7 scenario format ' + rs[3].result.format + ' v' + rs[3].result.format_version;
+    $('version').textContent = 'swaysheet ' + rs[2].result.version + ' \u00B7 scenario format ' + rs[2].result.format + ' v' + rs[2].result.format_version;
     S.chosen = defaultsFor('si');
     var st = store();
     try {
@@ -58,10 +57,26 @@ function start() {
       if (u && u.chosen && typeof u.chosen === 'object') { S.sys = u.sys; Object.keys(u.chosen).forEach(function (k) { S.chosen[k] = u.chosen[k]; }); }
     } catch (e) { /* default units */ }
     readCurrent(st).then(function (cur) {
-      if (!cur || !show(cur)) {
+      var own = cur && show(cur);
+      // The example library is asked for after the inputs kept from last
+      // time are sent to be computed (it reads and checks every example
+      // file); the demo, shown on a first visit, waits for it.
+      S.examplesLoading = true;
+      var examples = call('examples').then(function (r) {
+        S.examplesLoading = false;
+        if (r.error) { engineError(r.error.message); return false; }
+        S.examples = r.result;
+        return true;
+      });
+      if (own) return true;
+      return examples.then(function (ok) {
+        if (!ok) return false;
         if (cur) damagedCurrent(JSON.stringify(cur), 'the page could not show them');
-        if (!show(demo())) { engineError('No scenario to show: the example library could not be read.'); return; }
-      }
+        if (!show(demo())) { engineError('No scenario to show: the example library could not be read.'); return false; }
+        return true;
+      });
+    }).then(function (ok) {
+      if (!ok) return;
       renderSys();
       openLink();
       document.body.dataset.state = 'ready';
@@ -145,7 +160,7 @@ window.swaysheet = {
   // answered is true when the core has answered for the inputs as they
   // are; settled (below) also waits for the check sheet.
   answered: function () {
-    return !S.waiting && !computing() && !S.adopting && !S.keeping && !S.saying && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
+    return !S.waiting && !computing() && !S.adopting && !S.keeping && !S.saying && !S.examplesLoading && (Object.keys(S.bad).length > 0 || S.lastDone === JSON.stringify(S.scenario));
   }
 };
 // settled: answered, the charts drawn, and the check sheet is that of the
@@ -158,7 +173,7 @@ let resizeTimer = null;
 window.addEventListener('resize', function () {
   clearTimeout(resizeTimer);
   resizeTimer = setTimeout(function () {
-    if (S.result) renderPlots();
+    if (S.result) renderPlots(true);
     if (P.result) renderPlan();
   }, 150);
 });

@@ -10,7 +10,7 @@ import { renderPlan } from './plan-view.js';
 import { clearanceVerdict } from './site-view.js';
 import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
-import { say } from './words.js';
+import { say, unitsKey } from './words.js';
 
 let figuresAsked = 0, figuresWaiting = false;
 
@@ -32,7 +32,20 @@ export function presentFigures() {
   if (!S.result || !S.resultSent) return Promise.resolve();
   var n = ++figuresAsked, own = S.result;
   figuresWaiting = true;
-  return call('figures', figuresInput(S.resultSent)).then(function (f) {
+  // The figures are of this result itself unless the inputs are a
+  // planning request without moves of their own (then of the planner's
+  // recommended move): its charts are drawn now, beside the figures call,
+  // not after it.
+  // (The rope-angle chart is asked for first, the other three after the
+  // figures and words.)
+  var sent = JSON.parse(S.resultSent), rest = [];
+  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
+  // The result's own warnings are put into words at the same time as
+  // the figures are asked for (not after them).
+  var asked = call('figures', figuresInput(S.resultSent));
+  var ownWords = say(own.warning_sentences || []);
+  rest.forEach(function (draw) { draw(); });
+  return asked.then(function (f) {
     if (n !== figuresAsked) return null;
     if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
     var rep = f.result;
@@ -43,7 +56,7 @@ export function presentFigures() {
     });
   }).then(function (p) {
     if (!p || n !== figuresAsked) return null;
-    return say(p.result.warning_sentences || []).then(function (texts) {
+    return (p.result === own ? ownWords : say(p.result.warning_sentences || [])).then(function (texts) {
       if (n !== figuresAsked) return;
       figuresWaiting = false;
       S.figures = p.figures;
@@ -153,13 +166,34 @@ export function markStale(on) {
   $('charts').classList.toggle('is-stale', on);
 }
 
-// renderPlots draws the result's charts with the core's plotter
-// (charts.js), the values in the units shown.
-export function renderPlots() {
-  var r = shownResult(), hs = r.history;
+// renderPlots draws the shown result's charts with the core's plotter
+// (charts.js), the values in the units shown; again (redraw) even when
+// they are drawn already (the width changed).
+export function renderPlots(redraw) {
   // Which scenario the plots are of: the figures' (result_fingerprint).
   $('charts').dataset.fingerprint = (S.shown && S.shown.fingerprint) || '';
+  drawPlots(shownResult(), S.figures && S.figures.result_for ? S.figures.result_for : '', redraw === true);
+}
+
+// plotted says what the charts shown were drawn of: the result, whose
+// move they are said to be of, the units and the limits.
+let plotted = { result: null, key: '' };
+
+// drawPlots draws the charts of result r (of: the words for whose move it
+// is, '' for the inputs' own), unless they are drawn of the same already.
+// With later (a list), only the first chart is asked for now: the others
+// are put in the list as functions to call.
+function drawPlots(r, of, redraw, later) {
+  var hs = r && r.history;
   if (!hs || !hs.time_s || !hs.time_s.length) return;
+  var key = of + '|' + unitsKey() + '|' + JSON.stringify(S.scenario.limits || {});
+  if (!redraw && plotted.result === r && plotted.key === key) return;
+  plotted = { result: r, key: key };
+  of = of ? 'Of ' + of + '. ' : '';
+  var draw = function (fig, opt, caption) {
+    if (later) later.push(function () { drawChart(fig, opt, caption); });
+    else drawChart(fig, opt, caption);
+  };
   var L = unitOf('length').symbol, F = unitOf('force').symbol;
   var bands = [];
   (r.phases || []).forEach(function (p) {
@@ -171,22 +205,21 @@ export function renderPlots() {
   var hl = [];
   if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
   // Plots of another move than the inputs' (the planner's recommended
-  // one) say so, as the figures above do.
-  var of = S.figures && S.figures.result_for ? 'Of ' + S.figures.result_for + '. ' : '';
+  // one) say so (of), as the figures above do.
   drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
     series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
   esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
-  drawChart($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
+  draw($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), name: 'suspension point', class: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), name: 'load', class: 's1' }] },
   'The load (solid) and the suspension point (dashed) on the ground plan.');
   var circles = [];
   if (typeof lim.peak_excursion_m === 'number') circles.push({ r: toShown('length', lim.peak_excursion_m) });
-  drawChart($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
+  draw($('plot-rel'), { id: 'rel', title: 'Seen from above: load around the suspension point', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true,
     series: [{ x: scale('length', hs.rel_x_m), y: scale('length', hs.rel_y_m), name: 'load', class: 's1' }], circles: circles },
   circles.length ? 'Dashed circle: the allowed excursion.' : 'No excursion limit set.');
   var st = toShown('force', r.static_tension_n);
-  drawChart($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
+  draw($('plot-tension'), { id: 'tension', title: 'Rope tension', x_label: 'time (s)', y_label: 'tension (' + F + ')',
     series: [{ x: hs.time_s, y: scale('force', hs.tension_n), name: 'tension', class: 's1' }], bands: bands,
     lines: [{ y: st, text: 'static ' + fmtStep('force', st) + ' ' + F }] },
   'Dashed line: the load\u2019s weight (static pull).');

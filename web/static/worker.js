@@ -4,6 +4,10 @@
 'use strict';
 // The single-file build (make dist, web/dist) puts wasm_exec.js and the
 // gzipped wasm as 7-bit text (self.swaysheetWasmText) in front of this file.
+// The served page's wasm is asked for first, so that it downloads (and
+// compiles as it arrives) while wasm_exec.js is read.
+var wasmResponse = self.swaysheetWasmText ? null : fetch('swaysheet.wasm');
+if (wasmResponse) wasmResponse.catch(function () { /* reported by the start below */ });
 if (typeof Go === 'undefined') importScripts('wasm_exec.js');
 
 // decode7 is web/dist's Decode7: "<bytes>:", then each character is 7
@@ -46,7 +50,7 @@ var ready = (async function () {
     inst = (await WebAssembly.instantiate(await embeddedWasm(), go.importObject)).instance;
   } else if (WebAssembly.instantiateStreaming) {
     try {
-      inst = (await WebAssembly.instantiateStreaming(fetch('swaysheet.wasm'), go.importObject)).instance;
+      inst = (await WebAssembly.instantiateStreaming(wasmResponse, go.importObject)).instance;
     } catch (e) {
       inst = null;
     }
