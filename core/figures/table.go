@@ -97,7 +97,7 @@ var Table = []Figure{
 	{Key: "body.rest_tilt_deg", Crew: "load hangs tilted by", Technical: "tilt of the load hanging still",
 		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.RestTiltDeg }, false)},
 	{Key: "body.peak_tilt_deg", Crew: "largest tilt of the load", Technical: "peak tilt of the load's height axis from the vertical",
-		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTiltDeg }, false)},
+		Unit: "deg", Limit: "peak_tilt_deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTiltDeg }, false)},
 	{Key: "body.peak_twist_deg", Crew: "largest twist of the load", Technical: "peak twist about the vertical",
 		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTwistDeg }, false)},
 	{Key: "body.peak_corner_swing_m", Crew: "a corner swings out by", Technical: "peak corner swing (horizontal, from where it hangs still)",

@@ -192,6 +192,10 @@ type Limits struct {
 	// tolerance).
 	ResidualExcursionM *float64 `json:"residual_excursion_m,omitempty"`
 	TensionFactor      *float64 `json:"tension_factor,omitempty"`
+	// PeakTiltDeg is the largest tilt of a rigid load (load.body: its
+	// height axis from the vertical) the rigging plan allows; a load
+	// given as a point has no tilt and is not held against it.
+	PeakTiltDeg *float64 `json:"peak_tilt_deg,omitempty"`
 }
 
 // Settings tune the computation; the zero value is the default.

@@ -62,6 +62,7 @@ var Ranges = map[string]Range{
 	"limits.residual_swing_deg":   {Min: MinAngleDeg, Max: 90, Unit: "deg"},
 	"limits.residual_excursion_m": {Min: MinDistanceM, Max: 100, Unit: "m"},
 	"limits.tension_factor":       {Min: 1, Max: 10, Unit: ""},
+	"limits.peak_tilt_deg":        {Min: 0.1, Max: 45, Unit: "deg"},
 
 	"settings.rel_tol":        {Min: 1e-13, Max: 1e-3, Unit: ""},
 	"settings.settle_periods": {Min: 2, Max: 50, Unit: "periods"},
@@ -219,6 +220,7 @@ func (s *Scenario) Validate() error {
 		c.optional("limits.residual_swing_deg", "limits.residual_swing_deg", l.ResidualSwingDeg)
 		c.optional("limits.residual_excursion_m", "limits.residual_excursion_m", l.ResidualExcursionM)
 		c.optional("limits.tension_factor", "limits.tension_factor", l.TensionFactor)
+		c.optional("limits.peak_tilt_deg", "limits.peak_tilt_deg", l.PeakTiltDeg)
 	}
 	if st := s.Settings; st != nil {
 		switch st.Accuracy {

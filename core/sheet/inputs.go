@@ -91,7 +91,7 @@ var fieldWords = map[string]string{
 	"toward_deg": "toward (from +x to +y)", "duration_s": "lasts", "ramp_s": "rises over",
 	"swing_deg": "swing", "velocity_x_m_per_s": "velocity x", "velocity_y_m_per_s": "velocity y",
 	"peak_swing_deg": "peak swing allowed", "peak_excursion_m": "peak excursion allowed",
-	"residual_swing_deg": "residual swing allowed", "tension_factor": "tension factor allowed",
+	"residual_swing_deg": "residual swing allowed", "tension_factor": "tension factor allowed", "peak_tilt_deg": "peak tilt of the load allowed",
 	"accuracy": "accuracy", "rel_tol": "relative tolerance", "settle_periods": "settle periods",
 	"samples": "samples", "top_speed_m_per_s": "top speed", "max_accel_m_per_s2": "largest acceleration",
 	"top_rate_deg_per_s": "top slew rate", "max_accel_deg_per_s2": "largest acceleration",

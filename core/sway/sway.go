@@ -359,6 +359,10 @@ func checks(s *scenario.Scenario, r *Result) []Check {
 		add("residual_swing_deg", "Residual swing", "The swing left after stopping", r.ResidualSwingDeg, l.ResidualSwingDeg, "deg")
 		add("residual_excursion_m", "Residual excursion", "The swing-out left after stopping", r.ResidualExcursionM, l.ResidualExcursionM, "m")
 		add("tension_factor", "Tension factor", "The rope pull increase (times the load's weight)", r.TensionFactor, l.TensionFactor, "")
+		if r.Body != nil {
+			// A point load has no tilt: no check.
+			add("peak_tilt_deg", "Peak tilt", "The load's largest tilt", r.Body.PeakTiltDeg, l.PeakTiltDeg, "deg")
+		}
 		if l.PeakSwingDeg != nil && r.WindLeanDeg > *l.PeakSwingDeg {
 			r.warn(words.Say("The wind alone leans the rope {0}, more than the plan's swing limit of {1}: no drive setting can keep the load inside it. Wait for less wind or change the limit.",
 				words.Angle(r.WindLeanDeg), words.Angle(*l.PeakSwingDeg)))

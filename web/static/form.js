@@ -42,7 +42,8 @@ export function renderForm() {
     numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
     numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
     numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
-    numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' }), 'limits-card'));
+    numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' }) +
+    numField('limits.peak_tilt_deg', 'Allowed peak tilt of the load', { optional: true, hint: 'rigid load only (a point load has no tilt)' }), 'limits-card'));
   $('move-form').innerHTML = h.join('');
   $('plan-form').innerHTML = inputsHTML();
   $('sheet-form').innerHTML = section('Lift', textField('name', 'Scenario name', false, true) + textField('description', 'Description', true), 'lift-card') +

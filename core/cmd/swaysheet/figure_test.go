@@ -7,6 +7,7 @@ import (
 
 	"swaysheet/core/figures"
 	"swaysheet/core/internal/testscenario"
+	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -49,7 +50,17 @@ func TestFigureFromTableOnly(t *testing.T) {
 		t.Fatalf("the figures call's rows lack the figure in feet: %+v", row)
 	}
 
-	in := sheet.Computer{Plan: nil, Evaluate: sway.Evaluate}.Compute(s)
+	doc := sheetFragment(t, s, u)
+	if !strings.Contains(doc, "Rope length when the run ends") || !strings.Contains(doc, row.Text) {
+		t.Error("the check sheet lacks the figure")
+	}
+}
+
+// sheetFragment is the check sheet of s in the units of u, computed
+// without a plan, as HTML.
+func sheetFragment(t *testing.T, s *scenario.Scenario, u units.Choice) string {
+	t.Helper()
+	in := sheet.Computer{Evaluate: sway.Evaluate}.Compute(s)
 	in.Units = u
 	sh, err := sheet.Build(in)
 	if err != nil {
@@ -59,7 +70,5 @@ func TestFigureFromTableOnly(t *testing.T) {
 	if err := sh.WriteFragment(&doc); err != nil {
 		t.Fatal(err)
 	}
-	if !strings.Contains(doc.String(), "Rope length when the run ends") || !strings.Contains(doc.String(), row.Text) {
-		t.Error("the check sheet lacks the figure")
-	}
+	return doc.String()
 }
