@@ -51,7 +51,7 @@ var Table = []Figure{
 	{Key: "residual_swing_deg", Crew: "swing left after stopping", Technical: "residual swing after the last move",
 		Named: swingName("residual swing after the last move"), Unit: "deg", Limit: "residual_swing_deg", Value: always(func(r *sway.Result) float64 { return r.ResidualSwingDeg })},
 	{Key: "residual_excursion_m", Crew: "swing-out left after stopping", Technical: "residual excursion",
-		Unit: "m", Value: always(func(r *sway.Result) float64 { return r.ResidualExcursionM })},
+		Unit: "m", Limit: "residual_excursion_m", Value: always(func(r *sway.Result) float64 { return r.ResidualExcursionM })},
 	{Key: "period_s", Crew: "time for one full swing", Technical: pointPeriod,
 		Named: periodName, Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
 	{Key: "period_amplitude_s", Crew: "full swing time at the swing left", Technical: "sway period at the residual swing's amplitude",

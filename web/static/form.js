@@ -42,6 +42,7 @@ export function renderForm() {
     numField('limits.peak_swing_deg', 'Allowed peak swing angle', { optional: true }) +
     numField('limits.peak_excursion_m', 'Allowed peak excursion', { optional: true, hint: 'load off plumb, sideways' }) +
     numField('limits.residual_swing_deg', 'Allowed residual swing', { optional: true, hint: 'after the last move' }) +
+    numField('limits.residual_excursion_m', 'Allowed swing-out after stopping', { optional: true, hint: 'load off plumb after the last move: a landing tolerance' }) +
     numField('limits.tension_factor', 'Allowed tension factor', { optional: true, hint: 'peak rope pull / static' }) +
     numField('limits.peak_tilt_deg', 'Allowed peak tilt of the load', { optional: true, hint: 'rigid load only (a point load has no tilt)' }), 'limits-card'));
   $('move-form').innerHTML = h.join('');
