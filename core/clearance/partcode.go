@@ -59,14 +59,15 @@ func encodeRuns(runs []RunPart) []byte {
 }
 
 // appendNear writes one near (and its rope's, after the line's name).
-func appendNear(b []byte, n *RunNear) []byte {
+func appendNear(b []byte, n *Closest) []byte {
 	f := func(x float64) { b = binary.LittleEndian.AppendUint64(b, math.Float64bits(x)) }
 	p3 := func(p Point3) { f(p.X); f(p.Y); f(p.Z) }
 	var flags byte
 	if n.Strikes {
 		flags |= nearStrikes
 	}
-	if n.Over {
+	over := !math.IsInf(n.GapM, 1)
+	if over {
 		flags |= nearOver
 	}
 	if n.Rope != nil {
@@ -81,7 +82,7 @@ func appendNear(b []byte, n *RunNear) []byte {
 		f(n.FirstStrikeS)
 		p3(n.FirstStrikeAt)
 	}
-	if n.Over {
+	if over {
 		f(n.GapM)
 		f(n.GapAtS)
 		p3(n.GapAt)
@@ -151,7 +152,7 @@ func decodeRuns(data []byte) ([]RunPart, error) {
 		}
 		rp := &runs[i]
 		rp.StrayM = r.float()
-		rp.Near = make([]RunNear, r.count(1))
+		rp.Near = make([]Closest, r.count(1))
 		for k := range rp.Near {
 			rp.Near[k] = r.near(0)
 		}
@@ -180,31 +181,33 @@ func decodeRuns(data []byte) ([]RunPart, error) {
 
 // near reads one near written by appendNear; a rope's near has no rope of
 // its own (depth 1).
-func (r *partReader) near(depth int) RunNear {
+func (r *partReader) near(depth int) Closest {
 	if len(r.b) < 1 {
 		r.fail()
-		return RunNear{}
+		return Closest{}
 	}
 	flags := r.b[0]
 	r.b = r.b[1:]
-	n := RunNear{Strikes: flags&nearStrikes != 0, Over: flags&nearOver != 0}
+	// What the block leaves out reads as the checker gives it: no strike
+	// (FirstStrikeS NaN), never over the outline (GapM +Inf).
+	n := Closest{Strikes: flags&nearStrikes != 0, FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
 	n.ClearanceM, n.TimeS, n.At, n.ErrorBoundM = r.float(), r.float(), r.point(), r.float()
 	if n.Strikes {
 		n.FirstStrikeS, n.FirstStrikeAt = r.float(), r.point()
 	}
-	if n.Over {
+	if flags&nearOver != 0 {
 		n.GapM, n.GapAtS, n.GapAt = r.float(), r.float(), r.point()
 	}
 	l := r.count(1)
 	if r.err != nil {
-		return RunNear{}
+		return Closest{}
 	}
 	n.Line = string(r.b[:l])
 	r.b = r.b[l:]
 	if flags&nearRope != 0 {
 		if depth > 0 {
 			r.fail()
-			return RunNear{}
+			return Closest{}
 		}
 		rope := r.near(depth + 1)
 		n.Rope = &rope

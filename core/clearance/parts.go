@@ -41,62 +41,9 @@ type Part struct {
 // band in the section's bins along the crane's path (see runBins).
 type RunPart struct {
 	StrayM float64
-	Near   []RunNear
+	Near   []Closest
 	Cells  []int
 	bins   runBins
-}
-
-// RunNear is one run's Closest to one obstacle: the first strike when it
-// strikes, the gap below the load when it passes over.
-type RunNear struct {
-	ClearanceM    float64
-	TimeS         float64
-	At            Point3
-	ErrorBoundM   float64
-	Strikes       bool
-	FirstStrikeS  float64
-	FirstStrikeAt Point3
-	Over          bool
-	GapM          float64
-	GapAtS        float64
-	GapAt         Point3
-	// Line names the nearest line of the hoisting gear (in Rope); Rope is
-	// the hoisting gear's closest approach, nil when not checked.
-	Line string
-	Rope *RunNear
-}
-
-func nearOf(c Closest) RunNear {
-	n := RunNear{ClearanceM: c.ClearanceM, TimeS: c.TimeS, At: c.At, ErrorBoundM: c.ErrorBoundM, Strikes: c.Strikes}
-	if c.Strikes {
-		n.FirstStrikeS, n.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
-	}
-	if !math.IsInf(c.GapM, 1) {
-		n.Over, n.GapM, n.GapAtS, n.GapAt = true, c.GapM, c.GapAtS, c.GapAt
-	}
-	n.Line = c.Line
-	if c.Rope != nil {
-		r := nearOf(*c.Rope)
-		n.Rope = &r
-	}
-	return n
-}
-
-func (n RunNear) closest() Closest {
-	c := Closest{ClearanceM: n.ClearanceM, TimeS: n.TimeS, At: n.At, ErrorBoundM: n.ErrorBoundM, Strikes: n.Strikes,
-		FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
-	if n.Strikes {
-		c.FirstStrikeS, c.FirstStrikeAt = n.FirstStrikeS, n.FirstStrikeAt
-	}
-	if n.Over {
-		c.GapM, c.GapAtS, c.GapAt = n.GapM, n.GapAtS, n.GapAt
-	}
-	c.Line = n.Line
-	if n.Rope != nil {
-		r := n.Rope.closest()
-		c.Rope = &r
-	}
-	return c
 }
 
 // Spec is what a scenario's site block asks for: how many runs, the seed,
@@ -246,12 +193,11 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		}
 		run := RunOf(r)
 		near := c.site.checkRun(&run, c.opt.StepM)
-		rp := RunPart{Near: make([]RunNear, len(near))}
+		rp := RunPart{Near: near}
 		for n := range near {
 			if !finite(near[n].ClearanceM) || (near[n].Rope != nil && !finite(near[n].Rope.ClearanceM)) {
 				return fmt.Errorf("run %d: the path has no points", i)
 			}
-			rp.Near[n] = nearOf(near[n])
 		}
 		plan := run.planPath(h, c.radiusM)
 		rp.StrayM = c.near.stray(plan.Points)
@@ -294,10 +240,7 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 		if len(r.Near) != len(c.site.Obstacles) {
 			return nil, errors.New("clearance: a run's obstacles are not the site's")
 		}
-		near[i] = make([]Closest, len(r.Near))
-		for k, n := range r.Near {
-			near[i][k] = n.closest()
-		}
+		near[i] = r.Near
 		strays[i] = r.StrayM
 	}
 	site := c.site
