@@ -1,6 +1,7 @@
 package clearance
 
 import (
+	"swaysheet/core/internal/cputime"
 	"swaysheet/core/internal/testscenario"
 	"swaysheet/core/sway"
 	"testing"
@@ -21,14 +22,14 @@ func BenchmarkCheckBayColumns(b *testing.B) {
 func BenchmarkCheckPartPerRun(b *testing.B) {
 	s := testscenario.Example(b, "site-bay-columns")
 	const runs = 20
-	cpu := cpuSeconds()
+	cpu := cputime.Seconds()
 	for b.Loop() {
 		if _, err := CheckPart(s, 0, runs, Options{Workers: 1}); err != nil {
 			b.Fatal(err)
 		}
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*runs)/1e6, "ms/run")
-	b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*runs), "cpu-ms/run")
+	b.ReportMetric((cputime.Seconds()-cpu)*1e3/float64(b.N*runs), "cpu-ms/run")
 }
 
 // BenchmarkObstaclesPerRun is the cost of checking one run's path against
@@ -52,14 +53,14 @@ func BenchmarkObstaclesPerRun(b *testing.B) {
 				}
 				runs[i] = RunOf(r)
 			}
-			cpu := cpuSeconds()
+			cpu := cputime.Seconds()
 			for b.Loop() {
 				for i := range runs {
 					site.checkRun(&runs[i], 0.02)
 				}
 			}
 			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*n)/1e6, "ms/run")
-			b.ReportMetric((cpuSeconds()-cpu)*1e3/float64(b.N*n), "cpu-ms/run")
+			b.ReportMetric((cputime.Seconds()-cpu)*1e3/float64(b.N*n), "cpu-ms/run")
 		})
 	}
 }

@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"swaysheet/core/internal/cputime"
 	"testing"
 )
 
@@ -12,7 +13,7 @@ func BenchmarkPlanExamples(b *testing.B) {
 	for _, name := range []string{"plan-bay-travel.json", "plan-tower-slew.json", "plan-precast-hook.json", "plan-gantry-pendant.json"} {
 		s := load(b, name)
 		b.Run(name, func(b *testing.B) {
-			c0 := cpuSeconds()
+			c0 := cputime.Seconds()
 			sims := 0
 			for b.Loop() {
 				r, err := Make(s)
@@ -21,7 +22,7 @@ func BenchmarkPlanExamples(b *testing.B) {
 				}
 				sims = r.Simulations
 			}
-			if c := cpuSeconds(); c > 0 {
+			if c := cputime.Seconds(); c > 0 {
 				b.ReportMetric((c-c0)*1e3/float64(b.N), "cpu-ms/op")
 			}
 			b.ReportMetric(float64(sims), "sims/op")

@@ -1,11 +1,11 @@
 //go:build linux
 
-package plan
+package cputime
 
 import "syscall"
 
-// cpuSeconds is the process' user and system CPU time so far, seconds.
-func cpuSeconds() float64 {
+// Seconds is the process' user and system CPU time so far, seconds.
+func Seconds() float64 {
 	var ru syscall.Rusage
 	if syscall.Getrusage(syscall.RUSAGE_SELF, &ru) != nil {
 		return 0

@@ -1,6 +1,0 @@
-//go:build !linux
-
-package plan
-
-// cpuSeconds is not measured here: the benchmark reports wall time only.
-func cpuSeconds() float64 { return 0 }
