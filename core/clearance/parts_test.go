@@ -86,13 +86,7 @@ func TestEnvelopeCellsAreTheLattice(t *testing.T) {
 func TestPartsJoinRigidLoad(t *testing.T) {
 	// A rigid load's box: its outlines swept onto the lattice, its lowest
 	// corner in the section; parts joined as one call.
-	s := testscenario.Example(t, "bay-girder-rigid")
-	h, r := 12.0, 0.0
-	top := 3.0
-	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
-		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
-			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
-		Spread: &scenario.SiteSpread{Runs: 6, Seed: 3, RopeLengthM: 0.2}}
+	s := rigidBesideStack(t, scenario.SiteSpread{Runs: 6, Seed: 3, RopeLengthM: 0.2})
 	one, err := Check(s, Options{})
 	if err != nil {
 		t.Fatal(err)
@@ -121,16 +115,10 @@ func TestPartsJoinRigidLoad(t *testing.T) {
 // planner tries); before, run 7 of this check failed its validation with
 // a 5.91 m rope against the plan's 4.5 to 5.5 m.
 func TestDrawnRopeOutsideThePlanRange(t *testing.T) {
-	s := testscenario.Example(t, "bay-girder-rigid")
+	s := rigidBesideStack(t, scenario.SiteSpread{Runs: 20, Seed: 1, RopeLengthM: 0.5})
 	if s.Plan == nil {
 		t.Fatal("the example has no plan block; the test needs one")
 	}
-	h, r := 12.0, 0.0
-	top := 3.0
-	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
-		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
-			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
-		Spread: &scenario.SiteSpread{Runs: 20, Seed: 1, RopeLengthM: 0.5}}
 	rep, err := Check(s, Options{})
 	if err != nil {
 		t.Fatal(err)
@@ -138,4 +126,18 @@ func TestDrawnRopeOutsideThePlanRange(t *testing.T) {
 	if rep.Runs != 20 {
 		t.Errorf("%d runs", rep.Runs)
 	}
+}
+
+// rigidBesideStack is the bay girder as a rigid load with a site of one
+// stack beside its path (invented) and the spreads sp.
+func rigidBesideStack(t *testing.T, sp scenario.SiteSpread) *scenario.Scenario {
+	t.Helper()
+	s := testscenario.Example(t, "bay-girder-rigid")
+	h, r := 12.0, 0.0
+	top := 3.0
+	s.Site = &scenario.Site{SuspensionHeightM: &h, LoadRadiusM: &r, MarginM: 0.3,
+		Obstacles: []scenario.SiteObstacle{{Name: "stack", TopM: &top,
+			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
+		Spread: &sp}
+	return s
 }
