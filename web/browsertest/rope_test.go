@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"errors"
 	"math"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -236,5 +237,20 @@ func TestRopeForm(t *testing.T) {
 	}
 	if axe := h.axe(); len(axe) > 0 {
 		t.Errorf("axe, US and a rigid load:\n%s", strings.Join(axe, "\n"))
+	}
+
+	// A swing too quick for any rope: the core's message names the rope
+	// lengths it tried as a pair "a to b m"; in US units both ends are in
+	// ft (before, only the second was converted and the first kept its
+	// metres under the ft label).
+	h.do(chromedp.Click(chromedp.ID("sys-us")))
+	h.settle()
+	h.ropeTimed("5", "5", "0")
+	rr := scenario.Ranges["load.rope_length_m"]
+	// Six significant digits, as units.js's fmtRange gives a bound
+	// without a side: 0.3 m is 0.984252 ft, 500 m 1640.42 ft.
+	pair := strconv.FormatFloat(rr.Min/0.3048, 'g', 6, 64) + " to " + strconv.FormatFloat(rr.Max/0.3048, 'g', 6, 64) + " ft"
+	if msg := h.text("#rope-find"); !strings.Contains(msg, pair) || strings.Contains(msg, " m ") || strings.Contains(msg, " m)") {
+		t.Errorf("US, a swing too quick: want %q in %q", pair, msg)
 	}
 }

@@ -222,13 +222,18 @@ function ropeGeneral(fe) {
 }
 
 // ropeUnits puts the lengths of a core message (in m) into the length
-// unit shown, with the core's factor.
+// unit shown, with the core's factor: a range "from a up to b m", a pair
+// "a to b m" (both ends are lengths), a single "a m". (The core's
+// ropelength messages are plain text; marked quantities, as core/words
+// gives the other sentences, would make this pattern-matching go.)
 function ropeUnits(msg) {
   var u = unitOf('length');
   if (u.symbol === 'm') return msg;
   var num = function (t) { return Number(t); };
   return msg.replace(/(from|above) (-?[\d.]+(?:e[-+]?\d+)?) up to (-?[\d.]+(?:e[-+]?\d+)?) m\b/g, function (all, w, lo, hi) {
     return w + ' ' + fmtRange(toShown('length', num(lo)), 'min') + ' up to ' + fmtRange(toShown('length', num(hi)), 'max') + ' ' + u.symbol;
+  }).replace(/(-?\d[\d.]*(?:e[-+]?\d+)?) to (-?\d[\d.]*(?:e[-+]?\d+)?) m\b/g, function (all, lo, hi) {
+    return fmtRange(toShown('length', num(lo))) + ' to ' + fmtRange(toShown('length', num(hi))) + ' ' + u.symbol;
   }).replace(/(-?\d[\d.]*(?:e[-+]?\d+)?) m\b/g, function (all, v) {
     return fmtRange(toShown('length', num(v))) + ' ' + u.symbol;
   });
