@@ -157,42 +157,35 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 
 // summarise gives each obstacle's figures over the runs from each run's
 // Closest (near[run][obstacle]), the runs taken in order, with where each
-// obstacle's smallest clearance, first strike and smallest gap are.
+// obstacle's smallest clearance, first strike and smallest gap are. A run
+// keeps the margin from an obstacle when its load and its hoisting gear
+// both do.
 func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 	out := make([]ObstacleReport, len(s.Obstacles))
 	where := make([]Closest, len(s.Obstacles))
 	for k := range s.Obstacles {
-		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), SmallestM: math.Inf(1)}
+		load, rope := newTally(len(near)), newTally(0)
 		w := Closest{GapM: math.Inf(1)}
-		smallest := make([]float64, len(near))
 		var gaps []float64
-		rope := s.summariseRope(near, k, &w)
-		rep.Rope = rope
 		for i := range near {
-			c := near[i][k]
-			smallest[i] = c.ClearanceM
-			if c.ClearanceM >= s.MarginM && !c.Strikes && (c.Rope == nil || c.Rope.ClearanceM >= s.MarginM && !c.Rope.Strikes) {
-				rep.KeepMargin++
+			c := &near[i][k]
+			ropeKeeps := true
+			if c.Rope != nil {
+				ropeKeeps = c.Rope.keeps(s.MarginM)
+				rope.add(c.Rope, ropeKeeps)
 			}
-			if c.Strikes {
-				if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
-					rep.FirstStrikeS, w.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
-				}
-				rep.Strikes++
-			}
-			if c.ClearanceM < rep.SmallestM {
-				rep.SmallestM, rep.SmallestAtS, rep.SmallestAt = c.ClearanceM, c.TimeS, c.At
-			}
+			load.add(c, c.keeps(s.MarginM) && ropeKeeps)
 			if !math.IsInf(c.GapM, 1) {
 				gaps = append(gaps, c.GapM)
 				if c.GapM < w.GapM {
 					w.GapM, w.GapAtS, w.GapAt = c.GapM, c.GapAtS, c.GapAt
 				}
 			}
-			rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
 		}
-		sorts.Floats(smallest)
-		rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
+		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), KeepMargin: load.keep,
+			Strikes: load.strikes, FirstStrikeS: load.firstS, ClearanceP5M: load.p5(),
+			SmallestM: load.smallestM, SmallestAtS: load.smallestAtS, SmallestAt: load.smallestAt, ErrorBoundM: load.boundM}
+		rep.Rope, w.Rope = rope.rope()
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
 		rep.ShareKeepMarginLow = ShareLowerBound(rep.KeepMargin, len(near), 0.95)
 		rep.ShareStrike = float64(rep.Strikes) / float64(len(near))
@@ -201,56 +194,10 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
 				P5M: gaps[nearestRank(0.05, len(gaps))]}
 		}
-		w.At = rep.SmallestAt
+		w.FirstStrikeAt, w.At = load.firstAt, rep.SmallestAt
 		out[k], where[k] = rep, w
 	}
 	return out, where
-}
-
-// summariseRope is the hoisting gear's figures for obstacle k over the
-// runs that checked it (nil when none did), with where its smallest
-// clearance and first strike are (w.Rope).
-func (s *Site) summariseRope(near [][]Closest, k int, w *Closest) *RopeReport {
-	var rep *RopeReport
-	var smallest []float64
-	var where Closest
-	for i := range near {
-		c := near[i][k].Rope
-		if c == nil {
-			continue
-		}
-		if rep == nil {
-			rep = &RopeReport{SmallestM: math.Inf(1)}
-		}
-		rep.Runs++
-		smallest = append(smallest, c.ClearanceM)
-		if c.ClearanceM >= s.MarginM && !c.Strikes {
-			rep.KeepMargin++
-		}
-		if c.Strikes {
-			if rep.Strikes == 0 || c.FirstStrikeS < rep.FirstStrikeS {
-				rep.FirstStrikeS, where.FirstStrikeAt = c.FirstStrikeS, c.FirstStrikeAt
-			}
-			rep.Strikes++
-		}
-		if c.ClearanceM < rep.SmallestM {
-			rep.SmallestM, rep.SmallestAtS, rep.SmallestAt, rep.Part = c.ClearanceM, c.TimeS, c.At, c.Line
-		}
-		rep.ErrorBoundM = math.Max(rep.ErrorBoundM, c.ErrorBoundM)
-	}
-	if rep == nil {
-		return nil
-	}
-	sorts.Floats(smallest)
-	rep.ClearanceP5M = smallest[nearestRank(0.05, len(smallest))]
-	rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(rep.Runs)
-	rep.SmallestAtHeightM = rep.SmallestAt.Z
-	if rep.Strikes > 0 {
-		rep.FirstStrikeAtHeightM = where.FirstStrikeAt.Z
-	}
-	where.At = rep.SmallestAt
-	w.Rope = &where
-	return rep
 }
 
 // nearestRank is the index of the p-th quantile of n sorted values by the
