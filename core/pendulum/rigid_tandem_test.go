@@ -97,14 +97,7 @@ func TestTandemBifilarTwistSimulated(t *testing.T) {
 	const h = 3.0
 	r := mustPrepare(t, tandemGirder(h, [2]float64{}))
 	want := 2 * math.Pi * (box(13, 0.5, 1).Z / 4) * math.Sqrt(h/g)
-	y := r.Rest(0)
-	q := mulq(quatAxis(r3.Vec{Z: 1}, 0.01*math.Pi/180), quat{y[7], y[8], y[9], y[10]})
-	copy(y[7:11], q[:])
-	r.Project(y)
-	sim, err := CrossingPeriod(r, y, 13, 5, 5*want)
-	if err != nil {
-		t.Fatal(err)
-	}
+	sim := smallTwistPeriod(t, r, want)
 	t.Logf("twist: simulated %.10g s, bifilar %.10g s, relative difference %.2g", sim, want, sim/want-1)
 	if math.Abs(sim/want-1) > 1e-6 {
 		t.Errorf("simulated twist period %.10g s, bifilar %.10g s", sim, want)

@@ -178,15 +178,7 @@ func TestRigidBifilarTwist(t *testing.T) {
 	if tw == nil || math.Abs(tw.PeriodS/want-1) > 1e-8 {
 		t.Fatalf("twist mode %+v, bifilar formula %.10g s", tw, want)
 	}
-	// A small twist, 0.01 deg, released from rest.
-	y := r.Rest(0)
-	q := mulq(quatAxis(r3.Vec{Z: 1}, 0.01*math.Pi/180), quat{y[7], y[8], y[9], y[10]})
-	copy(y[7:11], q[:])
-	r.Project(y)
-	sim, err := CrossingPeriod(r, y, 13, 5, 5*want)
-	if err != nil {
-		t.Fatal(err)
-	}
+	sim := smallTwistPeriod(t, r, want)
 	t.Logf("twist: modal %.10g s, simulated %.10g s, bifilar %.10g s (relative differences %.2g, %.2g)",
 		tw.PeriodS, sim, want, tw.PeriodS/want-1, sim/want-1)
 	// The free twist has the amplitude correction of a small swing: at
@@ -277,4 +269,20 @@ func TestRigidFourLegSharingOffCentre(t *testing.T) {
 	if p.Body.TiltRad < 0.01 {
 		t.Errorf("tilt at rest %v rad: the hook off centre should tilt the load", p.Body.TiltRad)
 	}
+}
+
+// smallTwistPeriod is the period of a small twist, 0.01 deg, released
+// from rest, simulated over about five periods (want is the expected
+// period, to size the run).
+func smallTwistPeriod(t *testing.T, r *Rigid, want float64) float64 {
+	t.Helper()
+	y := r.Rest(0)
+	q := mulq(quatAxis(r3.Vec{Z: 1}, 0.01*math.Pi/180), quat{y[7], y[8], y[9], y[10]})
+	copy(y[7:11], q[:])
+	r.Project(y)
+	sim, err := CrossingPeriod(r, y, 13, 5, 5*want)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return sim
 }
