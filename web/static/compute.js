@@ -6,30 +6,30 @@ import { $ } from './dom.js';
 import { call } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { markStale, presentFigures, presenting, updateBanner } from './results.js';
+import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
-let timer = null, lastChange = -1e9, busy = false, again = false, progressTimer = null, cancelTimer = null;
+let queued = false, busy = false, again = false, progressTimer = null, cancelTimer = null;
 
 // computing is true while the core works on the inputs or more are due,
 // or while the figures of the last result are asked for.
 export function computing() { return busy || again || presenting(); }
 
-// changed: the inputs changed. After a quiet moment the core is asked a
-// task later (the changes made together, as a form redrawn, go as one);
-// within a burst of changes (faster than one each 30 ms) it is asked 30 ms
-// after the last. A change while the core works is sent once it has
-// answered (evaluate's again), and a result overtaken by a change is not
-// presented (evaluate), so typing never queues more than one computation.
+// changed: the inputs changed. The core is asked at once, when the task
+// that changed them ends (the changes made together, as a form redrawn,
+// go as one): no wait after a keystroke. A change while the core works
+// is sent once it has answered (evaluate's again), and a result
+// overtaken by a change is not presented (evaluate), so typing never
+// queues more than one computation. The inputs are kept (storage.js)
+// when the engine has nothing else to do.
 export function changed() {
   updateBanner();
   planChanged();
-  clearTimeout(timer);
   S.waiting = true;
-  var now = performance.now(), quiet = now - lastChange > 30;
-  lastChange = now;
-  timer = setTimeout(function () { S.waiting = false; evaluate(); keepCurrent(); }, quiet ? 0 : 30);
+  if (queued) return;
+  queued = true;
+  queueMicrotask(function () { queued = false; S.waiting = false; evaluate(); keepCurrent(); });
 }
 
 function noResults() {
@@ -60,10 +60,14 @@ export function evaluate() {
   }
   if (busy) { again = true; return; }
   busy = true;
-  var sent = JSON.stringify(S.scenario);
+  var sent = JSON.stringify(S.scenario), angle = angleChart('');
   S.lastSent = sent;
   showProgress(true);
-  call('evaluate', sent).then(function (r) {
+  // The worker draws the rope-angle chart with the result and sends it
+  // first: it is shown unless the inputs changed meanwhile.
+  call('evaluate', sent, { chart: angle.opt, onChart: function (c) {
+    if (!again && !S.waiting && S.lastSent === sent) showEarly(sent, angle, c);
+  } }).then(function (r) {
     busy = false;
     S.lastDone = sent;
     showProgress(false);
@@ -87,6 +91,7 @@ export function evaluate() {
     showErrors();
     S.result = r.result;
     S.resultSent = sent;
+    keepBands(r.result, r.bands);
     S.count++;
     markStale(false);
     // Inputs changed since: their result follows and is presented.

@@ -21,7 +21,7 @@ export function keepCurrent() {
   if (!st) return;
   var text = JSON.stringify(S.scenario), my = ++keepSeq;
   S.keeping = (S.keeping || 0) + 1;
-  call('validate', text).then(function (r) {
+  call('validate', text, { later: 'keep' }).then(function (r) {
     S.keeping--;
     if (r.error || my < keptSeq) return;
     keptSeq = my;

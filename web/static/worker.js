@@ -137,6 +137,29 @@ onmessage = async function (e) {
     return;
   }
   self.swaysheetCall(m.name, m.input || '', function (out) {
-    postMessage({ id: m.id, out: out });
+    var answer = function () { postMessage({ id: m.id, out: out }); };
+    if (m.chart) drawFirst(m, out, answer);
+    else answer();
   });
 };
+
+// drawFirst draws the chart an evaluate call came with (engine.js) from
+// its result and posts it, with the bands drawn, before the result: the
+// page shows it without a second trip here. The chart's series name the
+// result's history fields ("time_s"); the bands are the moves' speeding
+// up (A) and braking (B), numbered by move.
+function drawFirst(m, out, then) {
+  var r = JSON.parse(out).result, hs = r && r.history, c = m.chart, bands = [];
+  if (!hs || !hs.time_s) { then(); return; }
+  (r.phases || []).forEach(function (p) {
+    var n = p.motion + 1;
+    bands.push({ x0: p.start_s, x1: p.accel_end_s, text: 'A' + n });
+    bands.push({ x0: p.decel_start_s, x1: p.end_s, text: 'B' + n });
+  });
+  c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
+  c.bands = bands;
+  self.swaysheetCall('plot', JSON.stringify(c), function (svg) {
+    postMessage({ id: m.id, chart: svg, bands: bands });
+    then();
+  });
+}
