@@ -22,14 +22,14 @@ export function computing() { return busy || again || presenting(); }
 // is sent once it has answered (evaluate's again), and a result
 // overtaken by a change is not presented (evaluate), so typing never
 // queues more than one computation. The inputs are kept (storage.js)
-// when the engine has nothing else to do.
+// once the core has read them.
 export function changed() {
   updateBanner();
   planChanged();
   S.waiting = true;
   if (queued) return;
   queued = true;
-  queueMicrotask(function () { queued = false; S.waiting = false; evaluate(); keepCurrent(); });
+  queueMicrotask(function () { queued = false; S.waiting = false; evaluate(); });
 }
 
 function noResults() {
@@ -52,6 +52,7 @@ function showProgress(on) {
 
 export function evaluate() {
   if (Object.keys(S.bad).length) {
+    keepCurrent(JSON.stringify(S.scenario), false);
     S.coreErrors = [];
     showErrors();
     markStale(!!S.result);
@@ -79,6 +80,10 @@ export function evaluate() {
       again = false;
       S.lastDone = JSON.stringify(S.scenario);
     }
+    // Kept: inputs the core evaluated; those it could not (not for their
+    // fields) once it has read them.
+    if (!r.error) keepCurrent(sent, true);
+    else if (!(r.error.fields && r.error.fields.length)) keepCurrent(S.lastDone, false);
     if (again) { again = false; evaluate(); return; }
     if (r.error) {
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
