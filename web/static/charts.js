@@ -12,17 +12,25 @@ let chartAsked = {}, chartsDrawing = 0;
 // fitWidth is the width to draw a chart in el at: the width it is shown
 // at, from 300 (a phone) to 640 px (wider, the SVG is scaled up). The
 // core sizes the chart's viewBox to it, so its text keeps its size. It is
-// measured once and again only when el's size changes (a ResizeObserver):
-// reading it forces the page's layout, which would hold up a change's
-// evaluate call.
-const widths = {}, sized = typeof ResizeObserver === 'function' ?
-  new ResizeObserver(function (es) { es.forEach(function (e) { delete widths[e.target.id]; }); }) : null;
-function fitWidth(el) {
+// measured once and again only when el's width changes (a
+// ResizeObserver): reading it forces the page's layout, which would hold
+// up a change's evaluate call. known: only a width measured before (0
+// when there is none).
+const widths = {}, boxes = {}, sized = typeof ResizeObserver === 'function' ?
+  new ResizeObserver(function (es) {
+    es.forEach(function (e) {
+      var id = e.target.id, w = e.contentRect.width;
+      if (id in boxes && boxes[id] !== w) delete widths[id];
+      boxes[id] = w;
+    });
+  }) : null;
+function fitWidth(el, known) {
   if (!el) return 640;
   if (sized && widths[el.id]) return widths[el.id];
+  if (known) return 0;
   var w = Math.max(300, Math.min(640, Math.round(el.clientWidth - 12 || 640)));
   if (sized && el.id) {
-    if (!(el.id in widths)) sized.observe(el);
+    sized.observe(el);
     widths[el.id] = w;
   }
   return w;
@@ -54,9 +62,9 @@ export function safeSVG(text) {
 // chartInput completes opt, the "plot" call's input (id, title, x_label,
 // y_label, series, lines, bands, circles, equal, y_from_zero,
 // legend_top), for the figure fig: the width it is shown at, the title
-// above.
-export function chartInput(fig, opt) {
-  opt.width_px = fitWidth(fig);
+// above. known: only a width measured before (0 when there is none).
+export function chartInput(fig, opt, known) {
+  opt.width_px = fitWidth(fig, known);
   opt.title_above = true;
   return opt;
 }

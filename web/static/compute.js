@@ -61,7 +61,7 @@ export function evaluate() {
   }
   if (busy) { again = true; return; }
   busy = true;
-  var sent = JSON.stringify(S.scenario), angle = angleChart('');
+  var sent = JSON.stringify(S.scenario), angle = angleChart('', true);
   S.lastSent = sent;
   showProgress(true);
   // The worker draws the rope-angle chart with the result and sends it

@@ -21,7 +21,7 @@ export function startWorker() {
     var w = waiting[m.id];
     // An evaluate call's chart comes before its result (worker.js).
     if (m.chart !== undefined) {
-      if (w) { w.bands = m.bands; if (w.onChart) w.onChart(JSON.parse(m.chart)); }
+      if (w) { w.bands = m.bands; if (m.chart && w.onChart) w.onChart(JSON.parse(m.chart)); }
       return;
     }
     delete waiting[m.id];
@@ -87,8 +87,8 @@ function engineStopped(msg, how) {
 // superseded: true). chart and onChart (evaluate only): the rope-angle
 // chart's "plot" input without its data; worker.js fills it from the
 // result (the history's fields named in the series, the moves' bands) and
-// draws it before it answers, and onChart gets that plot reply first; the
-// result then carries the bands drawn (bands).
+// draws it before it answers (unless its width_px is 0), and onChart gets
+// that plot reply first; the result then carries the bands (bands).
 export function call(name, input, opt) {
   return new Promise(function (resolve) {
     var m = { name: name, input: input === undefined ? '' : input, resolve: resolve, opt: opt || {} };

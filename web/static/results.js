@@ -35,22 +35,22 @@ export function presentFigures() {
   // The figures are of this result itself unless the inputs are a
   // planning request without moves of their own (then of the planner's
   // recommended move): its charts are drawn now, beside the figures call,
-  // not after it.
-  // (The rope-angle chart is asked for first, the other three after the
-  // figures and words.)
+  // not after it. The result's own warnings are put into words at the
+  // same time (not after the figures). The rope-angle chart, when the
+  // worker has not drawn it with the result (compute.js), is asked for
+  // after the figures and words, the other three once the engine has
+  // nothing else to do.
   var sent = JSON.parse(S.resultSent), rest = [];
-  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
-  // The result's own warnings are put into words at the same time as
-  // the figures are asked for (not after them).
   var asked = call('figures', figuresInput(S.resultSent));
   var ownWords = say(own.warning_sentences || []);
+  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
   rest.forEach(function (draw) { draw(); });
   return asked.then(function (f) {
     if (n !== figuresAsked) return null;
     if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
     var rep = f.result;
     // (Its rope-angle chart is drawn with it for the moves' bands.)
-    var got = rep.result_scenario ? call('evaluate', JSON.stringify(rep.result_scenario), { chart: angleChart(rep.result_for || '').opt }) :
+    var got = rep.result_scenario ? call('evaluate', JSON.stringify(rep.result_scenario), { chart: angleChart(rep.result_for || '', true).opt }) :
       Promise.resolve({ result: own });
     return got.then(function (e) {
       if (e.error) return { figures: { error: 'the figures\u2019 own move could not be evaluated: ' + e.error.message }, result: own, fingerprint: '' };
@@ -194,7 +194,9 @@ function plotKey(of) { return of + '|' + unitsKey() + '|' + JSON.stringify(S.sce
 // whose move it is, '' for the inputs' own): its "plot" input and its
 // caption. The series name the history's fields and there are no bands:
 // the worker fills them in (engine.js call's chart), or drawPlots does.
-export function angleChart(of) {
+// known: at a width measured before, or none (width_px 0: the worker
+// then gives the bands only).
+export function angleChart(of, known) {
   var lim = S.scenario.limits || {}, hl = [], fig = $('plot-angle');
   if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
   // Plots of another move than the inputs' (the planner's recommended
@@ -202,7 +204,7 @@ export function angleChart(of) {
   return {
     fig: fig, key: plotKey(of),
     opt: chartInput(fig, { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
-      series: [{ x: 'time_s', y: 'swing_deg', name: 'rope angle', class: 's1' }], lines: hl, y_from_zero: true }),
+      series: [{ x: 'time_s', y: 'swing_deg', name: 'rope angle', class: 's1' }], lines: hl, y_from_zero: true }, known),
     caption: esc(of ? 'Of ' + of + '. ' : '') + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.'
   };
 }
