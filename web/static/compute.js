@@ -68,8 +68,10 @@ export function evaluate() {
   // first: it is shown unless the inputs changed meanwhile.
   call('evaluate', sent, { chart: angle.opt, onChart: function (c) {
     if (!again && !S.waiting && S.lastSent === sent) showEarly(sent, angle, c);
-  } }).then(function (r) {
+  }, stale: function () { return again; } }).then(function (r) {
     busy = false;
+    // Overtaken by a change before it arrived: the change is sent.
+    if (r.stale) { again = false; evaluate(); return; }
     S.lastDone = sent;
     showProgress(false);
     document.body.dataset.state = 'ready';

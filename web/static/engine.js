@@ -28,7 +28,9 @@ export function startWorker() {
     if (!w) return;
     inFlight--;
     clearTimeout(w.timer);
-    var r = JSON.parse(m.out);
+    // An answer its caller no longer wants is not read (a result can be
+    // large: reading it holds up the page).
+    var r = w.stale && w.stale() ? { stale: true } : JSON.parse(m.out);
     if (w.bands) r.bands = w.bands;
     w.resolve(r);
     pumpSoon();
@@ -89,6 +91,8 @@ function engineStopped(msg, how) {
 // result (the history's fields named in the series, the moves' bands) and
 // draws it before it answers (unless its width_px is 0), and onChart gets
 // that plot reply first; the result then carries the bands (bands).
+// stale: a function, true when the answer arrives: it is not read, and
+// the call resolves to {stale: true}.
 export function call(name, input, opt) {
   return new Promise(function (resolve) {
     var m = { name: name, input: input === undefined ? '' : input, resolve: resolve, opt: opt || {} };
@@ -109,6 +113,7 @@ function send(m) {
   waiting[id] = {
     resolve: m.resolve,
     onChart: m.opt.onChart,
+    stale: m.opt.stale,
     timer: setTimeout(function () {
       if (waiting[id]) engineStopped('The calculation engine did not answer within ' + Math.round(ms / 1000) + ' s (' + m.name + ').', 'timeout');
     }, ms)
