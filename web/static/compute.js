@@ -3,10 +3,10 @@
 // results.js present it.
 
 import { $ } from './dom.js';
-import { call } from './engine.js';
+import { call, unwanted } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly, updateBanner } from './results.js';
+import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly, unshown, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
@@ -53,13 +53,21 @@ function showProgress(on) {
 export function evaluate() {
   if (Object.keys(S.bad).length) {
     keepCurrent(JSON.stringify(S.scenario), false);
+    unshown();
     S.coreErrors = [];
     showErrors();
     markStale(!!S.result);
     noResults();
     return;
   }
-  if (busy) { again = true; return; }
+  // While the core works: its answer is wanted only if the inputs are
+  // still those sent ("8" typed on to "8." leaves them so).
+  if (busy) {
+    var was = again;
+    again = JSON.stringify(S.scenario) !== S.lastSent;
+    if (again && !was) unwanted();
+    return;
+  }
   busy = true;
   var sent = JSON.stringify(S.scenario), angle = angleChart('', true);
   S.lastSent = sent;
@@ -88,6 +96,7 @@ export function evaluate() {
     else if (!(r.error.fields && r.error.fields.length)) keepCurrent(S.lastDone, false);
     if (again) { again = false; evaluate(); return; }
     if (r.error) {
+      unshown();
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
       showErrors();
       markStale(!!S.result);

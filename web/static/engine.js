@@ -135,6 +135,15 @@ function pumpSoon() {
   }, 0);
 }
 
+// unwanted tells the worker that the answers of the calls waiting whose
+// stale function says so are no longer wanted: it leaves out the chart
+// of an evaluate call it has not drawn yet.
+export function unwanted() {
+  Object.keys(waiting).forEach(function (id) {
+    if (waiting[id].stale && waiting[id].stale()) worker.postMessage({ unwanted: Number(id) });
+  });
+}
+
 // cancel stops whatever the engine is doing (a fresh one is started).
 export function cancel() {
   engineStopped('The calculation was cancelled; your inputs are kept and the results shown are for earlier inputs.', 'cancelled');

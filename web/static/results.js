@@ -216,6 +216,15 @@ export function showEarly(sent, a, reply) {
   showChart(a.fig, a.opt, a.caption, reply);
 }
 
+// unshown: the inputs' result was not presented (an error, or
+// overtaken): a rope-angle chart the worker drew of them is replaced by
+// the charts of the result shown.
+export function unshown() {
+  if (!early.sent || early.sent === S.resultSent) return;
+  early = { sent: null, key: '' };
+  if (S.result) renderPlots(true);
+}
+
 // drawPlots draws the charts of result r (of: the words for whose move it
 // is, '' for the inputs' own), unless they are drawn of the same already.
 // With later (a list), the rope-angle chart is asked for now (unless the

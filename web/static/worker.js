@@ -131,7 +131,7 @@ self.swaysheetFetch = function (kind, url, done) {
 // evaluated, so the page's own evaluate call finds them in the bridge's
 // memo; and the figures and plot calls run once, so that their code is
 // compiled before a person waits for it. Nothing here is shown.
-var FIXED = ['units', 'ranges', 'version', 'ropelength_ranges'], fixed = {}, warm = null, started = false;
+var FIXED = ['units', 'ranges', 'version', 'ropelength_ranges'], fixed = {}, warm = null, started = false, unwanted = {};
 
 function callOut(name, input) {
   return new Promise(function (resolve) { self.swaysheetCall(name, input, resolve); });
@@ -151,6 +151,10 @@ ready.then(warmUp, function () { /* reported to each call */ });
 
 onmessage = async function (e) {
   var m = e.data;
+  if (m.unwanted) {
+    unwanted[m.unwanted] = true;
+    return;
+  }
   if (m.warm !== undefined) {
     if (!started) warm = m.warm;
     return;
@@ -190,11 +194,17 @@ function drawFirst(m, out, then) {
     bands.push({ x0: p.start_s, x1: p.accel_end_s, text: 'A' + n });
     bands.push({ x0: p.decel_start_s, x1: p.end_s, text: 'B' + n });
   });
-  if (!c.width_px) { postMessage({ id: m.id, chart: '', bands: bands }); then(); return; }
-  c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
-  c.bands = bands;
-  self.swaysheetCall('plot', JSON.stringify(c), function (svg) {
-    postMessage({ id: m.id, chart: svg, bands: bands });
-    then();
-  });
+  // A task later: the page may have said meanwhile that it no longer
+  // wants the result ({unwanted: id}, engine.js); the chart is then not drawn.
+  setTimeout(function () {
+    var drop = unwanted[m.id];
+    unwanted = {};
+    if (!c.width_px || drop) { postMessage({ id: m.id, chart: '', bands: bands }); then(); return; }
+    c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
+    c.bands = bands;
+    self.swaysheetCall('plot', JSON.stringify(c), function (svg) {
+      postMessage({ id: m.id, chart: svg, bands: bands });
+      then();
+    });
+  }, 0);
 }
