@@ -128,7 +128,7 @@ func (rq *request) decided(ds []Verified, n int) bool {
 	if len(ds) < MinTimingDraws || !screening {
 		return false
 	}
-	k := int(math.Ceil(TimingPercentile / 100 * float64(n)))
+	k := int(math.Ceil(float64(TimingPercentile) / 100 * float64(n))) // not 90/100: an integer constant division, 0
 	lim := rq.lim
 	beyond := [4]int{}
 	inside := 0

@@ -1,0 +1,33 @@
+package plan
+
+import "testing"
+
+// decided stops drawing at a rope length only when the verdict of all 40
+// draws is known: 36 inside every limit (within) or 5 beyond one limit
+// (outside), after MinTimingDraws at least. The percentile's rank was once
+// computed as 90/100 in integer constants (0), which made every rope
+// length stop at MinTimingDraws whatever the draws gave.
+func TestDecidedNeedsTheVerdictOfAll(t *testing.T) {
+	rq := &request{lim: Limits{PeakSwingDeg: 3, ResidualSwingDeg: 0.5}}
+	in, out := Verified{PeakSwingDeg: 1, ResidualSwingDeg: 0.2}, Verified{PeakSwingDeg: 1, ResidualSwingDeg: 0.8}
+	runs := func(nIn, nOut int) []Verified {
+		var ds []Verified
+		for range nIn {
+			ds = append(ds, in)
+		}
+		for range nOut {
+			ds = append(ds, out)
+		}
+		return ds
+	}
+	for _, c := range []struct {
+		nIn, nOut int
+		want      bool
+	}{
+		{20, 0, false}, {35, 0, false}, {36, 0, true}, {16, 4, false}, {15, 5, true}, {4, 5, false}, {31, 4, false}, {35, 4, false}, {36, 4, true},
+	} {
+		if got := rq.decided(runs(c.nIn, c.nOut), TimingDraws); got != c.want {
+			t.Errorf("%d inside, %d beyond: decided %v, want %v", c.nIn, c.nOut, got, c.want)
+		}
+	}
+}
