@@ -31,3 +31,26 @@ func TestDecidedNeedsTheVerdictOfAll(t *testing.T) {
 		}
 	}
 }
+
+// A pendant option that is recommended is checked again at the default
+// accuracy with its drawn timings in the seeded order until the verdict
+// of all 40 is decided by simulation alone: at least 36 draws inside
+// every limit at every rope length (the first pass simulated only the
+// draws linear theory says can be the percentile).
+func TestRecommendedPendantCheckedByEveryDraw(t *testing.T) {
+	s := load(t, "plan-gantry-pendant.json")
+	sig := 0.05
+	s.Plan.TimingSigmaS = &sig
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Recommended != 0 || r.Options[0].Key != "own_pendant" {
+		t.Fatalf("recommended %d (%s), want the pendant steps", r.Recommended, r.Options[0].Key)
+	}
+	for _, v := range r.Options[0].Verified {
+		if v.Draws < 36 || v.simulated != v.Draws {
+			t.Errorf("at %g m: percentile over %d draws, %d simulated; want 36 or more, all simulated", v.RopeLengthM, v.Draws, v.simulated)
+		}
+	}
+}

@@ -89,11 +89,18 @@ func timingErrors(n int) [][]float64 {
 
 // percentile is the nearest-rank p-th percentile of xs (which it sorts).
 func percentile(xs []float64, p float64) float64 {
+	return percentileOf(xs, len(xs), p)
+}
+
+// percentileOf is the nearest-rank p-th percentile of n values of which xs
+// (sorted here) are the largest: the k-th smallest of n, k = ceil(p*n), is
+// the (n-k+1)-th largest, of xs as of all n.
+func percentileOf(xs []float64, n int, p float64) float64 {
 	if len(xs) == 0 {
 		return 0
 	}
 	sorts.Floats(xs)
-	k := int(math.Ceil(p/100*float64(len(xs)))) - 1
+	k := int(math.Ceil(p/100*float64(n))) - 1 - (n - len(xs))
 	return xs[max(0, min(k, len(xs)-1))]
 }
 
