@@ -1,6 +1,9 @@
 package plan
 
-import "testing"
+import (
+	"strings"
+	"testing"
+)
 
 // decided stops drawing at a rope length only when the verdict of all 40
 // draws is known: 36 inside every limit (within) or 5 beyond one limit
@@ -51,6 +54,40 @@ func TestRecommendedPendantCheckedByEveryDraw(t *testing.T) {
 	for _, v := range r.Options[0].Verified {
 		if v.Draws < 36 || v.simulated != v.Draws {
 			t.Errorf("at %g m: percentile over %d draws, %d simulated; want 36 or more, all simulated", v.RopeLengthM, v.Draws, v.simulated)
+		}
+	}
+}
+
+// Where the small-angle theory is off (a 3 m rope and sudden ramps of
+// 1.5 m/s²: swings of some 15 deg), an estimate differs from its
+// simulation by more than half its margin and the draws are simulated in
+// the seeded order until the verdict of all 40 is decided, as without the
+// estimates: every draw the percentile is over is simulated, the verdict
+// is the one every draw simulated gives, and the findings do not speak of
+// estimates.
+func TestTimingDrawsFallBackWhenLinearTheoryIsOff(t *testing.T) {
+	s := load(t, "plan-gantry-pendant.json")
+	l, lo, hi, a := 3.0, 2.85, 3.15, 1.5
+	s.Load.RopeLengthM, s.Plan.RopeLengthMinM, s.Plan.RopeLengthMaxM = &l, &lo, &hi
+	s.Plan.MaxAccelMPerS2 = &a
+	s.Plan.PendantStepsPct = []float64{50, 100}
+	r, err := Make(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	full := withoutScreening(t, s)
+	o, f := optionByKey(t, r, "own_pendant"), optionByKey(t, full, "own_pendant")
+	if o.Within != f.Within {
+		t.Errorf("within %v, with every draw simulated %v", o.Within, f.Within)
+	}
+	for _, v := range o.Verified {
+		if v.simulated != v.Draws || v.Draws < MinTimingDraws {
+			t.Errorf("at %g m: percentile over %d draws, %d simulated", v.RopeLengthM, v.Draws, v.simulated)
+		}
+	}
+	for _, x := range o.Findings {
+		if strings.Contains(x, "linear-theory estimate") {
+			t.Errorf("findings speak of estimates: %q", x)
 		}
 	}
 }
