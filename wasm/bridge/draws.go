@@ -6,8 +6,6 @@ import (
 	"bytes"
 	"encoding/json"
 
-	"slices"
-
 	"swaysheet/core/draws"
 	"swaysheet/core/figures"
 	"swaysheet/core/scenario"
@@ -81,7 +79,12 @@ func joinDraws(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	slices.SortFunc(in.Parts, func(a, b draws.Result) int { return a.First - b.First })
+	ps := in.Parts
+	for i := 1; i < len(ps); i++ { // a few parts: insertion sort
+		for j := i; j > 0 && ps[j].First < ps[j-1].First; j-- {
+			ps[j], ps[j-1] = ps[j-1], ps[j]
+		}
+	}
 	var out JoinedDraws
 	f := &out.Figures
 	for i, p := range in.Parts {
