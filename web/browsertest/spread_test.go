@@ -17,8 +17,9 @@ import (
 // draws split over its workers and shows the percentiles of the crew's
 // figures; they are those of the Go core's own draws of the same scenario,
 // request and seed (core/draws Run, figures.PresentSpread), to the last
-// bit and in the same words. New inputs mark the answer as for earlier
-// ones. Not timed (the page bench has the 1,000-run row).
+// bit and in the same words. A spread out of range is named at its field.
+// New inputs mark the answer as for earlier ones and stop runs going. Not
+// timed (the page bench has the 1,000-run row).
 func TestSpreadOverLikelyRuns(t *testing.T) {
 	h := setup(t)
 	h.openExample("girder on the overhead crane")
@@ -80,11 +81,35 @@ func TestSpreadOverLikelyRuns(t *testing.T) {
 	}
 	eval[bool](h, `(document.getElementById('spread').scrollIntoView(), true)`)
 	shot(h, "spread-over-likely-runs.png")
+	if bad := h.axe(); len(bad) > 0 {
+		t.Errorf("axe: %v", bad)
+	}
+
+	// A spread out of the core's range: its message at the field.
+	h.typeInto("#spread-spread-rope_length_m", "60")
+	h.click("#spread-run")
+	if err := h.poll(`document.getElementById('spread-out').dataset.state !== 'going' && document.querySelector('#spread-form [data-field="draws.spread.rope_length_m"] .msg').textContent !== ''`, time.Minute); err != nil {
+		t.Fatalf("no message at the rope's spread: %v", err)
+	}
+	if msg := h.text(`#spread-form [data-field="draws.spread.rope_length_m"] .msg`); !strings.Contains(msg, "accepted from 0 to 50") {
+		t.Errorf("rope spread 60 m: %q", msg)
+	}
+	h.typeInto("#spread-spread-rope_length_m", "0.4")
 
 	// New inputs: the spread shown is said to be of earlier ones.
 	h.typeInto("#f-load-rope_length_m", "9")
 	h.settle()
 	if st := eval[string](h, `document.getElementById('spread-out').dataset.state`); st != "stale" {
 		t.Errorf("after new inputs the spread is %q, want stale", st)
+	}
+
+	// Runs going when the inputs change are stopped.
+	h.typeInto("#spread-runs", "50000")
+	h.click("#spread-run")
+	h.waitFor(`window.swaysheetSpread.state().going && !document.getElementById('spread-progress').hidden`, "runs going")
+	h.typeInto("#f-load-rope_length_m", "8.5")
+	h.settle()
+	if err := h.poll(`!window.swaysheetSpread.state().going && /stopped/.test(window.swaysheetSpread.state().error)`, 30*time.Second); err != nil {
+		t.Errorf("runs of earlier inputs not stopped: %+v", eval[map[string]any](h, `window.swaysheetSpread.state()`))
 	}
 }

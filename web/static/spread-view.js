@@ -17,11 +17,11 @@ import { unitsKey } from './words.js';
 // The spread asked for (SI, as the draws call takes it) and the runs.
 // These are starting values for a first look, to be set to what is known
 // of the lift; they are stated beside every answer.
-const REQ = { runs: 1000, seed: 1, spread: { rope_length_m: 0.3, centre_depth_m: 0.1, press_s: 0.2, gust_pct: 20, gust_s: 1 } };
+const SPREAD_REQ = { runs: 1000, seed: 1, spread: { rope_length_m: 0.3, centre_depth_m: 0.1, press_s: 0.2, gust_pct: 20, gust_s: 1 } };
 
 // The fields: request path, label, display quantity (converted with the
 // core's factors) or fixed unit.
-const FIELDS = [
+const SPREAD_FIELDS = [
   ['spread.rope_length_m', 'Rope length, give or take', 'length'],
   ['spread.centre_depth_m', 'Depth of the load\'s centre, give or take', 'length'],
   ['spread.press_s', 'Press timing, give or take', '', 's'],
@@ -31,125 +31,124 @@ const FIELDS = [
   ['seed', 'Seed (the same seed gives the same runs)', '', '']
 ];
 
-// D: the runs going or last done, the scenario they are of (key), the
+// SP: the runs going or last done, the scenario they are of (key), the
 // parts joined, and the presented answer.
-const D = { going: false, key: null, sent: null, req: null, parts: null, shown: null, done: 0, total: 0, error: null, bad: {}, units: null, job: 0 };
+const SP = { going: false, key: null, sent: null, req: null, parts: null, shown: null, done: 0, total: 0, error: null, bad: {}, units: null, job: 0 };
 
-function keyOf(sent) {
+function spreadKey(sent) {
   var sc = JSON.parse(sent);
   delete sc.sheet;
   return JSON.stringify(sc);
 }
 
-function get(path) { var p = path.split('.'); return p.length > 1 ? REQ[p[0]][p[1]] : REQ[p[0]]; }
-function put(path, v) { var p = path.split('.'); if (p.length > 1) REQ[p[0]][p[1]] = v; else REQ[p[0]] = v; }
+function getSpread(path) { var p = path.split('.'); return p.length > 1 ? SPREAD_REQ[p[0]][p[1]] : SPREAD_REQ[p[0]]; }
+function putSpread(path, v) { var p = path.split('.'); if (p.length > 1) SPREAD_REQ[p[0]][p[1]] = v; else SPREAD_REQ[p[0]] = v; }
 
-function renderForm() {
-  $('spread-form').innerHTML = FIELDS.map(function (f) {
+function spreadForm() {
+  $('spread-form').innerHTML = SPREAD_FIELDS.map(function (f) {
     var id = 'spread-' + f[0].replace('.', '-'), sym = f[2] ? unitOf(f[2]).symbol : f[3];
-    var v = D.bad[f[0]] !== undefined ? D.bad[f[0]].text : fmtField(f[2] ? toShown(f[2], get(f[0])) : get(f[0]), f[2]);
+    var v = SP.bad[f[0]] !== undefined ? SP.bad[f[0]].text : fmtField(f[2] ? toShown(f[2], getSpread(f[0])) : getSpread(f[0]), f[2]);
     return '<div class="field" data-field="draws.' + esc(f[0]) + '"><label for="' + id + '">' + esc(f[1]) + '</label>' +
       (sym ? '<div class="with-unit">' : '') + '<input id="' + id + '" type="text" inputmode="decimal" spellcheck="false" data-spread="' + esc(f[0]) + '" value="' + esc(v) + '" aria-describedby="' + id + '-msg">' +
-      (sym ? '<span class="unit">' + esc(sym) + '</span></div>' : '') + '<p class="msg" id="' + id + '-msg" role="alert">' + esc(D.bad[f[0]] ? D.bad[f[0]].msg : '') + '</p></div>';
+      (sym ? '<span class="unit">' + esc(sym) + '</span></div>' : '') + '<p class="msg" id="' + id + '-msg" role="alert">' + esc(SP.bad[f[0]] ? SP.bad[f[0]].msg : '') + '</p></div>';
   }).join('');
-  D.units = unitsKey();
+  SP.units = unitsKey();
 }
 
-// read takes a typed value; a text that is not a number is kept and
+// readSpread takes a typed value; a text that is not a number is kept and
 // marked (the core checks the ranges and names the field).
-function read(el) {
-  var path = el.dataset.spread, f = FIELDS.filter(function (x) { return x[0] === path; })[0];
+function readSpread(el) {
+  var path = el.dataset.spread, f = SPREAD_FIELDS.filter(function (x) { return x[0] === path; })[0];
   var v = parseNumber(el.value);
   if (isNaN(v)) {
-    D.bad[path] = { text: el.value, msg: 'Not a number: type a number such as 0.2.' };
+    SP.bad[path] = { text: el.value, msg: 'Not a number: type a number such as 0.2.' };
   } else {
-    delete D.bad[path];
-    put(path, f[2] ? toSI(f[2], v) : v);
+    delete SP.bad[path];
+    putSpread(path, f[2] ? toSI(f[2], v) : v);
   }
-  el.closest('.field').querySelector('.msg').textContent = D.bad[path] ? D.bad[path].msg : '';
+  el.closest('.field').querySelector('.msg').textContent = SP.bad[path] ? SP.bad[path].msg : '';
 }
 
-// kindOf is the split of request req for the worker pool (site-runs.js
+// spreadKind is the split of request req for the worker pool (site-runs.js
 // runSplit): runs [from, to) by the draws call, joined by draws_join.
-function kindOf(req) {
+function spreadKind(req) {
   return {
     part: 'draws', join: 'draws_join',
     partInput: function (sent, from, to) { return '{"scenario":' + sent + ',"draws":' + JSON.stringify(Object.assign({}, req, { first: from, count: to - from })) + '}'; },
-    joinInput: function (sent, parts) { return joinInput(sent, req, parts); }
+    joinInput: function (sent, parts) { return spreadJoinInput(sent, req, parts); }
   };
 }
 
-function joinInput(sent, req, parts) {
+function spreadJoinInput(sent, req, parts) {
   return '{"scenario":' + sent + ',"draws":' + JSON.stringify(req) + ',"parts":[' + parts.join(',') + '],"units":' + JSON.stringify(S.chosen) + ',"system":' + JSON.stringify(S.sys === 'us' ? 'us' : 'si') + '}';
 }
 
-// start runs the draws of the last result's scenario on the worker pool;
+// startSpread runs the draws of the last result's scenario on the worker pool;
 // it waits while the clearance runs have the pool.
-function start() {
-  if (!S.resultSent || Object.keys(D.bad).length) { render(); return; }
-  if (runsGoing() && !D.going) {
-    D.error = null;
+function startSpread() {
+  if (!S.resultSent || Object.keys(SP.bad).length) { renderSpread(); return; }
+  if (runsGoing() && !SP.going) {
+    SP.error = null;
     $('spread-progress-text').textContent = 'Waiting for the clearance runs to finish\u2026';
     $('spread-progress').hidden = false;
-    clearTimeout(start.t);
-    start.t = setTimeout(start, 250);
+    clearTimeout(startSpread.t);
+    startSpread.t = setTimeout(startSpread, 250);
     return;
   }
-  var sent = S.resultSent, job = ++D.job;
-  D.sent = sent; D.key = keyOf(sent); D.req = JSON.parse(JSON.stringify(REQ));
-  D.going = true; D.error = null; D.done = 0; D.total = REQ.runs; D.parts = null;
-  render();
-  runSplit(sent, REQ.runs, function (st) {
-    if (job !== D.job) return;
-    D.done = st.done;
-    if (st.report) D.shown = st.report.shown;
-    showProgress();
-    if (st.report && !st.final) render();
-  }, 0, kindOf(D.req)).then(function (r) {
-    if (job !== D.job) return;
-    D.going = false;
+  var sent = S.resultSent, job = ++SP.job;
+  SP.sent = sent; SP.key = spreadKey(sent); SP.req = JSON.parse(JSON.stringify(SPREAD_REQ));
+  SP.going = true; SP.error = null; SP.done = 0; SP.total = SPREAD_REQ.runs; SP.parts = null;
+  renderSpread();
+  runSplit(sent, SPREAD_REQ.runs, function (st) {
+    if (job !== SP.job) return;
+    SP.done = st.done;
+    if (st.report) SP.shown = st.report.shown;
+    spreadProgress();
+    if (st.report && !st.final) renderSpread();
+  }, 0, spreadKind(SP.req)).then(function (r) {
+    if (job !== SP.job) return;
+    SP.going = false;
     if (r.error) {
-      D.error = r.error.stopped === 'cancelled' ? 'The runs were stopped; the spread shown, if any, is for earlier inputs or fewer runs.' :
-        /unknown call/.test(r.error.message) ? 'The spread of likely runs is not in this single-file copy of swaysheet: use the hosted page.' : r.error.message;
-      markFields(r.error.fields || []);
+      SP.error = r.error.stopped === 'cancelled' ? 'The runs were stopped; the spread shown, if any, is for earlier inputs or fewer runs.' : r.error.message;
+      markSpreadFields(r.error.fields || []);
     } else {
-      D.shown = r.result.shown;
-      D.parts = [JSON.stringify(r.result)];
+      SP.shown = r.result.shown;
+      SP.parts = [JSON.stringify(r.result)];
     }
-    render();
+    renderSpread();
   });
 }
 
-// markFields shows the core's messages on the spread's fields (draws.*).
-function markFields(fields) {
+// markSpreadFields shows the core's messages on the spread's fields (draws.*).
+function markSpreadFields(fields) {
   fields.forEach(function (f) {
     var el = document.querySelector('#spread-form [data-field="' + f.field + '"] .msg');
     if (el) el.textContent = f.message;
   });
 }
 
-function showProgress() {
-  $('spread-progress').hidden = !D.going;
-  $('spread-progress-text').textContent = 'Runs done ' + D.done.toLocaleString('en-US') + ' of ' + D.total.toLocaleString('en-US');
-  $('spread-bar').style.width = (D.total ? Math.round(100 * D.done / D.total) : 0) + '%';
+function spreadProgress() {
+  $('spread-progress').hidden = !SP.going;
+  $('spread-progress-text').textContent = 'Runs done ' + SP.done.toLocaleString('en-US') + ' of ' + SP.total.toLocaleString('en-US');
+  $('spread-bar').style.width = (SP.total ? Math.round(100 * SP.done / SP.total) : 0) + '%';
 }
 
-function stale() { return !!D.shown && D.key !== (S.resultSent && keyOf(S.resultSent)); }
+function spreadStale() { return !!SP.shown && SP.key !== (S.resultSent && spreadKey(S.resultSent)); }
 
-function render() {
-  showProgress();
-  var out = $('spread-out'), sh = D.shown;
-  out.dataset.state = D.going ? 'going' : D.error ? 'error' : sh ? (stale() ? 'stale' : 'done') : 'none';
+function renderSpread() {
+  spreadProgress();
+  var out = $('spread-out'), sh = SP.shown;
+  out.dataset.state = SP.going ? 'going' : SP.error ? 'error' : sh ? (spreadStale() ? 'stale' : 'done') : 'none';
   if (!sh) {
-    out.innerHTML = D.error ? '<p class="spread-msg" role="alert">' + esc(D.error) + '</p>' : '';
+    out.innerHTML = SP.error ? '<p class="spread-msg" role="alert">' + esc(SP.error) + '</p>' : '';
     return;
   }
   var head = '<tr><th scope="col">Figure</th><th scope="col">in half the runs up to</th><th scope="col">in 9 of 10 runs up to</th><th scope="col">in 95 of 100 runs up to</th><th scope="col">largest of all runs</th></tr>';
   var cell = function (row, p) { return '<td class="' + p + '" data-value-si="' + row[p].value_si + '">' + esc(row[p].text + (row.unit ? ' ' + row.unit : '')) + '</td>'; };
   out.dataset.runs = String(sh.runs);
   out.dataset.seed = String(sh.seed);
-  out.innerHTML = (D.error ? '<p class="spread-msg" role="alert">' + esc(D.error) + '</p>' : '') +
-    (stale() ? '<p class="stale" role="status">\u26A0 The inputs have changed since: this spread is for earlier inputs. Work it out again.</p>' : '') +
+  out.innerHTML = (SP.error ? '<p class="spread-msg" role="alert">' + esc(SP.error) + '</p>' : '') +
+    (spreadStale() ? '<p class="stale" role="status">\u26A0 The inputs have changed since: this spread is for earlier inputs. Work it out again.</p>' : '') +
     (sh.limits ? '<p class="spread-verdict ' + (sh.over ? 'out' : 'ok') + '">' + esc(sh.limits) + '</p>' : '') +
     '<ul class="spread-words">' + sh.rows.map(function (row) {
       return '<li data-key="' + esc(row.key) + '">' + esc(row.words) + (row.limit_words ? ' <span class="' + (row.over ? 'out' : 'ok') + '">' + esc(row.limit_words) + '</span>' : '') + '</li>';
@@ -161,39 +160,45 @@ function render() {
     '<p class="small spread-used">' + esc(sh.spreads) + '</p>';
 }
 
-// present asks the core again for the last answer in the units now shown
+// presentSpread asks the core again for the last answer in the units now shown
 // (the join of the runs kept: nothing is run again).
-function present() {
-  if (!D.parts || D.going) return;
-  var job = D.job;
-  call('draws_join', joinInput(D.sent, D.req, D.parts)).then(function (r) {
-    if (job !== D.job || r.error) return;
-    D.shown = r.result.shown;
-    render();
+function presentSpread() {
+  if (!SP.parts || SP.going) return;
+  var job = SP.job;
+  call('draws_join', spreadJoinInput(SP.sent, SP.req, SP.parts)).then(function (r) {
+    if (job !== SP.job || r.error) return;
+    SP.shown = r.result.shown;
+    renderSpread();
   });
 }
 
-$('spread-form').addEventListener('change', function (e) { if (e.target.dataset.spread) read(e.target); });
+// The single-file copy's core has no draws call (no room for it).
+if (window.swaysheetSingleFile) $('spread').hidden = true;
+
+$('spread-form').addEventListener('change', function (e) { if (e.target.dataset.spread) readSpread(e.target); });
 $('spread-run').onclick = function () {
-  document.querySelectorAll('#spread-form [data-spread]').forEach(read);
-  start();
+  document.querySelectorAll('#spread-form [data-spread]').forEach(readSpread);
+  startSpread();
 };
-$('spread-cancel').onclick = function () { if (D.going) cancelRuns('The runs were cancelled.'); };
+$('spread-cancel').onclick = function () { if (SP.going) cancelRuns('The runs were cancelled.'); };
 
 // A new result ends runs of earlier inputs and marks what they showed;
 // new units show the same answer in them.
 document.addEventListener('swaysheet:result', function () {
-  if (D.units !== unitsKey()) { renderForm(); present(); }
-  if (D.going && D.key !== keyOf(S.resultSent)) cancelRuns('Replaced by newer inputs.');
-  render();
+  if (SP.units !== unitsKey()) { spreadForm(); presentSpread(); }
+  if (SP.key !== spreadKey(S.resultSent)) {
+    if (SP.going) cancelRuns('Replaced by newer inputs.');
+    else SP.error = null;
+  }
+  renderSpread();
 });
 
 // For the browser tests and the page bench: the answer shown, the state,
 // the request, and the split on its own.
 window.swaysheetSpread = {
-  shown: function () { return D.shown; },
-  state: function () { return { going: D.going, done: D.done, total: D.total, error: D.error, stale: stale() }; },
-  request: function () { return JSON.parse(JSON.stringify(REQ)); },
-  split: function (sent, req, workers, on) { return runSplit(sent, req.runs, on || function () {}, workers, kindOf(req)); },
+  shown: function () { return SP.shown; },
+  state: function () { return { going: SP.going, done: SP.done, total: SP.total, error: SP.error, stale: spreadStale() }; },
+  request: function () { return JSON.parse(JSON.stringify(SPREAD_REQ)); },
+  split: function (sent, req, workers, on) { return runSplit(sent, req.runs, on || function () {}, workers, spreadKind(req)); },
   poolSize: poolSize
 };
