@@ -144,6 +144,13 @@ export function runSplit(sent, n, on, workers, kind) {
   });
 }
 
+// warmPool starts the pool's workers ahead of runs asked for, so that
+// their start (compiling the wasm and starting Go) overlaps the person's
+// reading and typing rather than the runs.
+export function warmPool() {
+  while (pool.length < poolSize()) pool.push(startPoolWorker());
+}
+
 // cancelRuns stops the runs going (the pool's workers are ended).
 export function cancelRuns(msg) {
   stopPool(msg || 'The clearance runs were cancelled.', 'cancelled');

@@ -9,7 +9,7 @@
 
 import { call } from './engine.js';
 import { $, esc } from './dom.js';
-import { cancelRuns, poolSize, runSplit, runsGoing } from './site-runs.js';
+import { cancelRuns, poolSize, runSplit, runsGoing, warmPool } from './site-runs.js';
 import { S } from './state.js';
 import { parseNumber, toSI, toShown, unitOf, fmtField } from './units.js';
 import { unitsKey } from './words.js';
@@ -175,6 +175,11 @@ function presentSpread() {
 // The single-file copy's core has no draws call (no room for it).
 if (window.swaysheetSingleFile) $('spread').hidden = true;
 
+// The workers start when the person comes to the section (not with the
+// page: they would compete with the first result).
+$('spread').addEventListener('focusin', warmPool);
+$('spread').addEventListener('pointerenter', warmPool);
+
 $('spread-form').addEventListener('change', function (e) { if (e.target.dataset.spread) readSpread(e.target); });
 $('spread-run').onclick = function () {
   document.querySelectorAll('#spread-form [data-spread]').forEach(readSpread);
@@ -184,14 +189,17 @@ $('spread-cancel').onclick = function () { if (SP.going) cancelRuns('The runs we
 
 // A new result ends runs of earlier inputs and marks what they showed;
 // new units show the same answer in them.
-document.addEventListener('swaysheet:result', function () {
+// (In a task of its own: nothing here delays the result shown.)
+document.addEventListener('swaysheet:result', function () { setTimeout(afterResult, 0); });
+function afterResult() {
+  if (!S.resultSent) return;
   if (SP.units !== unitsKey()) { spreadForm(); presentSpread(); }
   if (SP.key !== spreadKey(S.resultSent)) {
     if (SP.going) cancelRuns('Replaced by newer inputs.');
     else SP.error = null;
   }
   renderSpread();
-});
+}
 
 // For the browser tests and the page bench: the answer shown, the state,
 // the request, and the split on its own.
