@@ -2,7 +2,6 @@ package figures
 
 import (
 	"strconv"
-	"strings"
 
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
@@ -106,27 +105,39 @@ func PresentSpread(s *scenario.Scenario, req draws.Request, res *draws.Result, u
 	return sh
 }
 
-// spreadWords states the spread used, each quantity that has none or
-// that the scenario gives nothing to draw for said so.
+// spreadWords states the spread used; a quantity that has none, or that
+// the scenario gives nothing to draw for, is said so.
 func spreadWords(s *scenario.Scenario, sp draws.Spread, u units.Choice) string {
-	var parts []string
-	add := func(what string, v float64, text string, applies bool, why string) {
-		switch {
-		case v == 0:
-			parts = append(parts, what+" none")
-		case !applies:
-			parts = append(parts, what+" none ("+why+")")
-		default:
-			parts = append(parts, what+" "+text)
-		}
-	}
 	moves, wind := len(s.Motions) > 0, s.Wind != nil
-	add("rope length", sp.RopeLengthM, words.Length(sp.RopeLengthM).Show(u), true, "")
-	add("depth of the load's centre", sp.CentreDepthM, words.Length(sp.CentreDepthM).Show(u), true, "")
-	add("press timing", sp.PressS, words.Time(sp.PressS).Show(u), moves, "no crane move")
-	add("gust strength", sp.GustPct, strconv.FormatFloat(sp.GustPct, 'f', -1, 64)+" %", wind, "no wind in the scenario")
-	add("gust timing", sp.GustS, words.Time(sp.GustS).Show(u), wind, "no wind in the scenario")
-	return "Spread used, one standard deviation either way, cut off at three: " + strings.Join(parts, ", ") + "."
+	text := "Spread used, one standard deviation either way, cut off at three:"
+	for i, x := range []struct {
+		what, quantity string
+		v              float64
+		applies        bool
+	}{
+		{"rope length", "length", sp.RopeLengthM, true},
+		{"depth of the load's centre", "length", sp.CentreDepthM, true},
+		{"press timing", "time", sp.PressS, moves},
+		{"gust strength", "", sp.GustPct, wind},
+		{"gust timing", "time", sp.GustS, wind},
+	} {
+		v := "none"
+		switch {
+		case x.v != 0 && !x.applies && i == 2:
+			v = "none (no crane move)"
+		case x.v != 0 && !x.applies:
+			v = "none (no wind in the scenario)"
+		case x.v != 0 && x.quantity == "":
+			v = strconv.FormatFloat(x.v, 'f', -1, 64) + " %"
+		case x.v != 0:
+			v = words.Quantity{Value: x.v, Quantity: x.quantity}.Show(u)
+		}
+		if i > 0 {
+			text += ","
+		}
+		text += " " + x.what + " " + v
+	}
+	return text + "."
 }
 
 // count writes a whole number with thousands marked: 1,000.
