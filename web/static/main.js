@@ -18,7 +18,6 @@ import { P } from './plan-form.js';
 import { renderAll, renderPlots, renderSys, updateBanner } from './results.js';
 import { bindExamples, bindFiles, bindShare, openLink } from './scenarios.js';
 import './site-view.js';
-import './spread-view.js';
 import { S } from './state.js';
 import { CURRENT, UNITS, bindSaved, keepDamaged, looksLikeScenario, saveUnits, store } from './storage.js';
 import { defaultsFor } from './units.js';

@@ -6,6 +6,9 @@
 // pool (site-runs.js); the engine's worker joins the parts ("draws_join")
 // and presents the percentiles in the figures table's words, units and
 // rounding. The page computes nothing here: it splits, waits and shows.
+// A module of its own (index.html, after main.js), left out of the single
+// file with its section (web/dist servedOnly): that copy's core has no
+// draws calls.
 
 import { call } from './engine.js';
 import { $, esc } from './dom.js';
@@ -172,9 +175,6 @@ function presentSpread() {
   });
 }
 
-// The single-file copy's core has no draws call (no room for it).
-if (window.swaysheetSingleFile) $('spread').hidden = true;
-
 // The workers start when the person comes to the section (not with the
 // page: they would compete with the first result).
 $('spread').addEventListener('focusin', warmPool);
@@ -200,6 +200,9 @@ function afterResult() {
   }
   renderSpread();
 }
+
+// A result shown before this module ran is taken up now.
+if (S.resultSent) afterResult();
 
 // For the browser tests and the page bench: the answer shown, the state,
 // the request, and the split on its own.
