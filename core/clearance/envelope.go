@@ -125,34 +125,54 @@ func (n *nearest) closest(p Point2) (float64, int) {
 	// Distance from p to the grid's box, for points outside it.
 	ox := outsideBy(p.X, n.x0, n.x0+float64(n.nx)*n.g)
 	oy := outsideBy(p.Y, n.y0, n.y0+float64(n.ny)*n.g)
-	outside := math.Hypot(ox, oy)
+	outside := 0.0
+	if ox != 0 || oy != 0 {
+		outside = math.Hypot(ox, oy)
+	}
 	best, seg := math.Inf(1), 0
 	for ring := 0; ; ring++ {
 		// Every bucket not yet searched is at least ring-1 buckets from
 		// p's own along some axis, and no nearer than the grid's box.
-		reach := max(outside, float64(ring-1)*n.g)
+		reach := outside
+		if r := float64(ring-1) * n.g; r > reach {
+			reach = r
+		}
 		if ring > 0 && reach > 0 && reach*reach >= best {
 			return best, seg
 		}
 		if ring > n.nx && ring > n.ny {
 			return best, seg
 		}
-		for j := cj - ring; j <= cj+ring; j++ {
-			if j < 0 || j >= n.ny {
-				continue
-			}
-			for i := ci - ring; i <= ci+ring; i++ {
-				if i < 0 || i >= n.nx || (j != cj-ring && j != cj+ring && i != ci-ring && i != ci+ring) {
-					continue
-				}
-				for _, s := range n.bucket[j*n.nx+i] {
-					if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
-						best, seg = d, int(s)
-					}
-				}
-			}
+		// The ring's buckets: its top and bottom rows whole, its sides
+		// between (the order does not matter: ties go to the first
+		// segment).
+		if ring == 0 {
+			best, seg = n.look(p, ci, cj, best, seg)
+			continue
+		}
+		for i := max(ci-ring, 0); i <= min(ci+ring, n.nx-1); i++ {
+			best, seg = n.look(p, i, cj-ring, best, seg)
+			best, seg = n.look(p, i, cj+ring, best, seg)
+		}
+		for j := max(cj-ring+1, 0); j <= min(cj+ring-1, n.ny-1); j++ {
+			best, seg = n.look(p, ci-ring, j, best, seg)
+			best, seg = n.look(p, ci+ring, j, best, seg)
 		}
 	}
+}
+
+// look searches bucket (i, j) for a segment nearer p than best (or as
+// near with a lower index than seg), when the bucket is on the grid.
+func (n *nearest) look(p Point2, i, j int, best float64, seg int) (float64, int) {
+	if i < 0 || i >= n.nx || j < 0 || j >= n.ny {
+		return best, seg
+	}
+	for _, s := range n.bucket[j*n.nx+i] {
+		if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
+			best, seg = d, int(s)
+		}
+	}
+	return best, seg
 }
 
 // outsideBy is how far x lies outside [lo, hi] (zero inside), with
