@@ -140,6 +140,16 @@ func (n *nearest) closest(p Point2) (float64, int) {
 		if ring > 0 && reach > 0 && reach*reach >= best {
 			return best, seg
 		}
+		// Nearer: every bucket not yet searched lies beyond the square of
+		// rings searched, whose sides are at p's own cell's edges plus
+		// ring-1 cells (a side at the grid's edge has nothing beyond).
+		// Less a rounding allowance (a segment's cells come from a
+		// division), and strictly, so no segment as near is left out.
+		if ring > 0 {
+			if wall := n.wall(p, ci, cj, ring-1) - 1e-9*n.g; wall > 0 && wall*wall > best {
+				return best, seg
+			}
+		}
 		if ring > n.nx && ring > n.ny {
 			return best, seg
 		}
@@ -159,6 +169,32 @@ func (n *nearest) closest(p Point2) (float64, int) {
 			best, seg = n.look(p, ci+ring, j, best, seg)
 		}
 	}
+}
+
+// wall is the distance from p to the nearest side of the square of
+// buckets within r of (ci, cj) beyond which the grid has buckets
+// (+Inf when it has none beyond any side).
+func (n *nearest) wall(p Point2, ci, cj, r int) float64 {
+	w := math.Inf(1)
+	if ci+r+1 < n.nx {
+		w = n.x0 + float64(ci+r+1)*n.g - p.X
+	}
+	if ci-r-1 >= 0 {
+		if v := p.X - (n.x0 + float64(ci-r)*n.g); v < w {
+			w = v
+		}
+	}
+	if cj+r+1 < n.ny {
+		if v := n.y0 + float64(cj+r+1)*n.g - p.Y; v < w {
+			w = v
+		}
+	}
+	if cj-r-1 >= 0 {
+		if v := p.Y - (n.y0 + float64(cj-r)*n.g); v < w {
+			w = v
+		}
+	}
+	return w
 }
 
 // look searches bucket (i, j) for a segment nearer p than best (or as
