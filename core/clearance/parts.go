@@ -187,13 +187,13 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		// plan's rope range (that range is what the planner tries, not a
 		// limit of the crane), and the run plans nothing.
 		v.Plan = nil
-		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true})
+		sc := scratches.Get().(*scratch)
+		defer scratches.Put(sc)
+		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true, HistoryBuffer: &sc.hist})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
 		run := RunOf(r)
-		sc := scratches.Get().(*scratch)
-		defer scratches.Put(sc)
 		near := c.site.checkRunWith(&run, c.opt.StepM, sc)
 		rp := RunPart{Near: near}
 		for n := range near {

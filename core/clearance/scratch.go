@@ -8,7 +8,7 @@ import "sync"
 // on the same goroutine: a run made its own, about 170 kB, and in wasm
 // the allocation and its collection were about a sixth of a run's time
 // (node --cpu-prof of clearance_part). Nothing a run returns points into
-// it.
+// it, and the run's time histories are read only while it is made.
 type scratch struct {
 	path   []Sample
 	lines  []RopeLine
@@ -19,6 +19,7 @@ type scratch struct {
 	d, low []float64
 	bound  []float64
 	cover  []bool
+	hist   []float64 // the run's time histories (sway.Options.HistoryBuffer)
 }
 
 var scratches = sync.Pool{New: func() any { return new(scratch) }}
