@@ -54,7 +54,12 @@ func (r *Run) Rigid() bool { return len(r.CornerXM) == 8 }
 
 // Path is the load's centre on the ground frame, z up from the floor.
 func (r *Run) Path(suspensionHeightM float64) []Sample {
-	out := make([]Sample, len(r.TimeS))
+	return r.pathInto(suspensionHeightM, nil)
+}
+
+// pathInto is Path in buf's memory (see scratch).
+func (r *Run) pathInto(suspensionHeightM float64, buf []Sample) []Sample {
+	out := grow(buf, len(r.TimeS))
 	for i, t := range r.TimeS {
 		out[i] = Sample{TimeS: t, At: r.centre(i, suspensionHeightM)}
 	}
@@ -103,7 +108,12 @@ func (r *Run) HookM(i int, suspensionHeightM float64) float64 {
 // planPath is the run seen from above for the envelopes: the centre's
 // points and, for a rigid load, the box's outline at each sample.
 func (r *Run) planPath(h, radiusM float64) PlanPath {
-	pts := make([]Point2, len(r.TimeS))
+	return r.planPathInto(h, radiusM, nil)
+}
+
+// planPathInto is planPath with its points in buf's memory (see scratch).
+func (r *Run) planPathInto(h, radiusM float64, buf []Point2) PlanPath {
+	pts := grow(buf, len(r.TimeS))
 	for i := range r.TimeS {
 		pts[i] = r.centre(i, h).Plan()
 	}
@@ -133,12 +143,24 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 // Parallel legs and two hook ropes have no hoist rope of their own
 // (their tops are the suspension points).
 func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
+	return r.linesInto(suspensionHeightM, radiusM, nil)
+}
+
+// linesInto is Lines in the memory of the lines in buf (see scratch):
+// each line's ends and what it prepares (RopeLine.reuse).
+func (r *Run) linesInto(suspensionHeightM, radiusM float64, buf []RopeLine) []RopeLine {
 	h, n := suspensionHeightM, len(r.TimeS)
 	if n == 0 || len(r.SuspensionXM) < n {
 		return nil
 	}
 	susp := func(i int) Point3 { return Point3{r.SuspensionXM[i], r.SuspensionYM[i], h} }
+	out := buf[:0]
 	line := func(name string) RopeLine {
+		if k := len(out); k < cap(out) {
+			l := out[:k+1][k]
+			l.reuse(name, r.TimeS)
+			return l
+		}
 		return RopeLine{Name: name, TimeS: r.TimeS, A: make([]Point3, n), B: make([]Point3, n)}
 	}
 	// toBall shortens the line from a to the centre c by the ball's radius.
@@ -149,7 +171,6 @@ func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 		}
 		return lerp3(c, a, radiusM/d)
 	}
-	var out []RopeLine
 	hooked := len(r.HookRelXM) == n
 	// Two hook ropes have no hoist rope between them: the history's hook
 	// is then the crane's suspension point itself.

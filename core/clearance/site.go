@@ -139,15 +139,24 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 // checkRun is one run's Closest to each obstacle: a rigid load's box, or
 // the ball about the load's centre, and the hoisting gear's lines (Rope).
 func (s *Site) checkRun(r *Run, stepM float64) []Closest {
+	return s.checkRunWith(r, stepM, new(scratch))
+}
+
+// checkRunWith is checkRun in sc's memory.
+func (s *Site) checkRunWith(r *Run, stepM float64, sc *scratch) []Closest {
 	out := make([]Closest, len(s.Obstacles))
 	var path []Sample
 	var boxes []BoxSample
 	if r.Rigid() {
 		boxes = r.Boxes(s.SuspensionHeightM)
 	} else {
-		path = r.Path(s.SuspensionHeightM)
+		path = r.pathInto(s.SuspensionHeightM, sc.path)
+		sc.path = path
 	}
-	lines := r.Lines(s.SuspensionHeightM, s.LoadRadiusM)
+	lines := r.linesInto(s.SuspensionHeightM, s.LoadRadiusM, sc.lines)
+	if len(lines) > 0 {
+		sc.lines = lines
+	}
 	var pl *pathLengths
 	for k := range s.Obstacles {
 		switch {
@@ -157,7 +166,7 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
 		default:
 			if pl == nil {
-				pl = measurePath(path)
+				pl = measurePathInto(path, sc)
 			}
 			out[k] = s.Obstacles[k].alongPathWith(path, pl, s.LoadRadiusM, stepM)
 		}

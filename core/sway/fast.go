@@ -36,7 +36,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	rec := recorder{}
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
-		rec.reserve()
+		rec.reserve(opt.HistoryBuffer)
 		switch m := su.model.(type) {
 		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}

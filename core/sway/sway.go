@@ -161,6 +161,12 @@ type Options struct {
 	// the result's peak and residual figures are not to be read. The
 	// general path ignores it.
 	PathOnly bool
+	// HistoryBuffer, when set, is memory for the time histories' series,
+	// used when large enough and replaced by the larger one made when
+	// not: a caller making many runs one after another (the clearance
+	// check's) reuses it, and reads each result's histories only until
+	// its next run.
+	HistoryBuffer *[]float64
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
