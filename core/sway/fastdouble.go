@@ -12,13 +12,14 @@ import (
 // rigging tensions from the 2x2 system of the constraints), with the
 // suspension point's motion and the rope length from the flattened span
 // tables of fastModel (fastaxis.go) in place of the closures over the
-// combined profiles, and plain numbers in place of r3 vectors. It runs on
-// the general path's scanner and solver, which tells it each segment
-// between restarts (segmented) and moves the time a hair inside it as for
-// every model. The two differ by rounding only: the suspension point's
-// motion summed as one polynomial per span rather than profile by profile
-// (fastdouble_test.go states how closely they agree); Options.General
-// selects pendulum.Double.
+// combined profiles, and plain numbers in place of r3 vectors. Without air
+// it runs on its own scan (fastdoublescan.go: peaks from the rates); in
+// wind on the general path's scanner and solver, which tells it each
+// segment between restarts (segmented) and moves the time a hair inside
+// it as for every model. The two differ by rounding only: the suspension
+// point's motion summed as one polynomial per span rather than profile by
+// profile (fastdouble_test.go states how closely they agree);
+// Options.General selects pendulum.Double.
 type fastDouble struct {
 	k             *fastModel // suspension point, rope length, air
 	m1, m2, l2, g float64
