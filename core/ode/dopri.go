@@ -320,32 +320,3 @@ func (v *Solver) Dense(t float64, out []float64) {
 		out[i] = c0[i] + s*(c1[i]+s1*(c2[i]+s*(c3[i]+s1*c4[i])))
 	}
 }
-
-// Rate returns f(t1, y1) at the end t1 of the last accepted step: the next
-// step's first stage, kept by first-same-as-last (evaluated before any
-// projection of the state). The slice belongs to the solver.
-func (v *Solver) Rate() []float64 { return v.k[0] }
-
-// DenseRate writes into out the time derivative of the continuous
-// extension of the last accepted step at t. With
-// y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))), s = (t - t0)/h, s1 = 1 - s:
-// dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P), P = c2 + s(c3 + s1 c4),
-// Q = c1 + s1 P, and dy/dt = (dy/ds)/h.
-func (v *Solver) DenseRate(t float64, out []float64) {
-	h := v.t - v.told
-	n := v.n
-	out = out[:n]
-	if h <= 0 {
-		copy(out, v.k[0])
-		return
-	}
-	s := (t - v.told) / h
-	s1 := 1 - s
-	ih := 1 / h
-	c1, c2, c3, c4 := v.cont[1][:n], v.cont[2][:n], v.cont[3][:n], v.cont[4][:n]
-	for i := range out {
-		p := c2[i] + s*(c3[i]+s1*c4[i])
-		q := c1[i] + s1*p
-		out[i] = (q + s*(s1*(c3[i]+(1-2*s)*c4[i])-p)) * ih
-	}
-}

@@ -115,10 +115,13 @@ func (d *fastDouble) Eval(t float64, y []float64, p *pendulum.Point) {
 
 // Func implements pendulum.System.
 func (d *fastDouble) Func(t float64, y, dy []float64) {
+	d.rhs(t, (*[12]float64)(y), (*[12]float64)(dy))
+}
+
+// rhs is the right-hand side y' = f(t, y) on the state's array.
+func (d *fastDouble) rhs(t float64, y, dy *[12]float64) {
 	var a1, a2 [3]float64
-	d.eval(t, y, &a1, &a2, nil)
-	dy = dy[:12]
-	y = y[:12]
+	d.eval(t, y[:], &a1, &a2, nil)
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
 	dy[3], dy[4], dy[5] = a1[0], a1[1], a1[2]
 	dy[6], dy[7], dy[8] = y[9], y[10], y[11]

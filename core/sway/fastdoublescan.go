@@ -11,19 +11,20 @@ import (
 
 // The hook block's own scan (issue 16: the peak scanner was about a third
 // of the two-mode plan). A run of fastDouble without air is integrated by
-// ode.Solver with the model's right-hand side called directly, and its
-// peaks are found from the rates as on the single-rope path (fastpeaks.go):
-// each watched quantity of the two masses (swing and excursion of the line
-// from the suspension point to the load, the rope tension and its
-// negative, the angle between rope and rigging, the rope's own swing, the
-// rigging tension and its negative) is known at both ends of every step
-// with its time derivative, from the projected end state and the rate
-// f(t1, y1) the solver keeps; a top inside a step is the root of the
-// derivative on the dense output (regula falsi, Illinois, to 1e-9 of the
-// bracket), a hidden top and trough pair is caught from the cubic Hermite
+// doubleSolver (fastdoubleode.go: ode.Solver's steps on fixed-size arrays)
+// and its peaks are found from the rates as on the single-rope path
+// (fastpeaks.go): each watched quantity of the two masses (swing and
+// excursion of the line from the suspension point to the load, the rope
+// tension and its negative, the angle between rope and rigging, the rope's
+// own swing, the rigging tension and its negative) is known at both ends
+// of every step with its time derivative, from the projected end state
+// and the rate f(t1, y1) the solver keeps; a top inside a step is the
+// root of the derivative on the dense output (rateRoot, to rootTol of the
+// value), a hidden top and trough pair is caught from the cubic Hermite
 // interpolant of the ends. The general scanner (scan.go: four samples a
 // step and parabolic refinement) stays for Options.General and for a hook
-// block in wind; fastdoublescan_test.go holds the two together.
+// block in wind; TestFastDoubleAgrees (fastdouble_test.go) holds the two
+// together.
 
 // dmeasure is the two masses' watched quantities and their rates at one
 // instant.
@@ -36,10 +37,9 @@ type doubleScan struct {
 	peaks
 	recorder
 	d             *fastDouble
-	v             *ode.Solver
+	v             doubleSolver
 	constraintErr float64
 	pathOnly      bool
-	maxSteps      int
 	pt            pendulum.Point
 }
 
@@ -59,14 +59,17 @@ type doubleScan struct {
 // b2' = 2 L2 u2·n2¨, D' = -2 c c'/M1²; the angle between rope and rigging
 // has rate -c' and the rope's own swing u1_z (unit directions).
 func (s *doubleScan) measureAt(t float64, y, yd *[12]float64, out *dmeasure) {
-	dm := s.d
-	k := dm.k.kinAt(t)
-	l1, dl1, ddl1, l2 := k.l, k.dl, k.ddl, dm.l2
-	n1x, n1y, n1z, u1x, u1y, u1z := y[0], y[1], y[2], y[3], y[4], y[5]
-	n2x, n2y, n2z, u2x, u2y, u2z := y[6], y[7], y[8], y[9], y[10], y[11]
-	// The line to the load and its rate.
-	dx, dy, dz := l1*n1x+l2*n2x, l1*n1y+l2*n2y, l1*n1z+l2*n2z
-	ex, ey, ez := dl1*n1x+l1*u1x+l2*u2x, dl1*n1y+l1*u1y+l2*u2y, dl1*n1z+l1*u1z+l2*u2z
+	k := s.d.k.kinAt(t)
+	s.line(&k, y, out)
+	ropeAngles(y, out)
+	s.tensions(&k, y, yd, out)
+}
+
+// line fills the swing and the excursion of the line to the load.
+func (s *doubleScan) line(k *kin, y *[12]float64, out *dmeasure) {
+	l1, dl1, l2 := k.l, k.dl, s.d.l2
+	dx, dy, dz := l1*y[0]+l2*y[6], l1*y[1]+l2*y[7], l1*y[2]+l2*y[8]
+	ex, ey, ez := dl1*y[0]+l1*y[3]+l2*y[9], dl1*y[1]+l1*y[4]+l2*y[10], dl1*y[2]+l1*y[5]+l2*y[11]
 	h2 := dx*dx + dy*dy
 	dd := h2 + dz*dz
 	dl := math.Sqrt(dd)
@@ -74,12 +77,17 @@ func (s *doubleScan) measureAt(t float64, y, yd *[12]float64, out *dmeasure) {
 	out.g[qSwing] = (ez*dd - dz*(dx*ex+dy*ey+dz*ez)) / (dd * dl)
 	out.v[qExcursion] = h2
 	out.g[qExcursion] = 2 * (dx*ex + dy*ey)
-	// The rope's own swing and the angle between rope and rigging.
+}
+
+// ropeAngles fills the rope's own swing and the angle between rope and
+// rigging.
+func ropeAngles(y *[12]float64, out *dmeasure) {
+	n1x, n1y, n1z, u1x, u1y, u1z := y[0], y[1], y[2], y[3], y[4], y[5]
+	n2x, n2y, n2z, u2x, u2y, u2z := y[6], y[7], y[8], y[9], y[10], y[11]
 	r2 := n1x*n1x + n1y*n1y
 	out.v[qRopeSwing] = oneMinusCosDown(r2, n1z, math.Sqrt(r2+n1z*n1z))
 	out.g[qRopeSwing] = u1z
 	c := n1x*n2x + n1y*n2y + n1z*n2z
-	dc := u1x*n2x + u1y*n2y + u1z*n2z + n1x*u2x + n1y*u2y + n1z*u2z
 	cx, cy, cz := n2y*n1z-n2z*n1y, n2z*n1x-n2x*n1z, n2x*n1y-n2y*n1x
 	nl := math.Sqrt(n2x*n2x + n2y*n2y + n2z*n2z)
 	if c > 0 {
@@ -87,8 +95,18 @@ func (s *doubleScan) measureAt(t float64, y, yd *[12]float64, out *dmeasure) {
 	} else {
 		out.v[qRigAngle] = 1 - c/nl
 	}
-	out.g[qRigAngle] = -dc
-	// The two tensions, as fastDouble.eval forms them, and their rates.
+	out.g[qRigAngle] = -(u1x*n2x + u1y*n2y + u1z*n2z + n1x*u2x + n1y*u2y + n1z*u2z)
+}
+
+// tensions fills the rope and rigging tensions, as fastDouble.eval forms
+// them, their negatives and the rates.
+func (s *doubleScan) tensions(k *kin, y, yd *[12]float64, out *dmeasure) {
+	dm := s.d
+	l1, dl1, ddl1, l2 := k.l, k.dl, k.ddl, dm.l2
+	n1x, n1y, n1z, u1x, u1y, u1z := y[0], y[1], y[2], y[3], y[4], y[5]
+	n2x, n2y, n2z, u2x, u2y, u2z := y[6], y[7], y[8], y[9], y[10], y[11]
+	c := n1x*n2x + n1y*n2y + n1z*n2z
+	dc := u1x*n2x + u1y*n2y + u1z*n2z + n1x*u2x + n1y*u2y + n1z*u2z
 	g := -dm.g
 	r1x, r1y, r1z := 0-k.ax, 0-k.ay, g-0
 	uu1 := u1x*u1x + u1y*u1y + u1z*u1z
@@ -121,19 +139,25 @@ func oneMinusCosDown(h2, z, l float64) float64 {
 	return 1 + z/l
 }
 
-// dense writes the projected dense state at t and its rate.
-func (s *doubleScan) dense(t float64, y, yd *[12]float64) {
-	s.v.Dense(t, y[:])
-	s.d.Project(y[:])
-	s.v.DenseRate(t, yd[:])
-}
-
-// probe is q's value and rate on the dense output at t.
+// probe is q's value and rate on the dense output at t: the projected
+// dense state, and for the tensions its rate too (the other quantities'
+// rates are of the state alone).
 func (s *doubleScan) probe(q quantity, t float64) (v, g float64) {
 	var y, yd [12]float64
 	var m dmeasure
-	s.dense(t, &y, &yd)
-	s.measureAt(t, &y, &yd, &m)
+	s.v.dense(t, &y)
+	s.d.Project(y[:])
+	switch q {
+	case qSwing, qExcursion:
+		k := s.d.k.kinAt(t)
+		s.line(&k, &y, &m)
+	case qRopeSwing, qRigAngle:
+		ropeAngles(&y, &m)
+	default:
+		k := s.d.k.kinAt(t)
+		s.v.denseRate(t, &yd)
+		s.tensions(&k, &y, &yd, &m)
+	}
 	return m.v[q], m.g[q]
 }
 
@@ -144,18 +168,18 @@ func integrateDouble(d *fastDouble, su *setup, opt Options, rec recorder, tEnd, 
 	if opt.Budget != nil && opt.Budget.Left() < 0 {
 		return nil, nil, Stats{}, &WorkError{Message: opt.Budget.message}
 	}
-	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d, maxSteps: maxN,
+	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d,
 		pathOnly: opt.PathOnly && rec.hist != nil}
-	s.v = ode.New(d.Func, d.Len(), ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
+	s.v = doubleSolver{m: d, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
 	err := s.run(su.y0, su.breaks, tEnd)
-	if opt.Budget != nil && !opt.Budget.take(int64(s.v.Evals)*WorkPerEval) && err == nil {
+	if opt.Budget != nil && !opt.Budget.take(int64(s.v.evals)*WorkPerEval) && err == nil {
 		err = &WorkError{Message: opt.Budget.message}
 	}
 	if err != nil {
 		return nil, nil, Stats{}, err
 	}
-	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.Accepted, Rejected: s.v.Rejected,
-		Evals: s.v.Evals, ConstraintError: s.constraintErr}, nil
+	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.accepted, Rejected: s.v.rejected,
+		Evals: s.v.evals, ConstraintError: s.constraintErr}, nil
 }
 
 func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
@@ -165,9 +189,9 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	copy(y[:], y0)
 	t := 0.0
 	d.segment(0, cuts[0])
-	s.v.Reset(0, y[:])
+	s.v.reset(0, &y)
 	var a, b dmeasure
-	d.Func(0, y[:], rate[:])
+	d.rhs(0, &y, &rate)
 	s.measureAt(0, &y, &rate, &a)
 	for q := range qTilt {
 		s.watch(q, a.v[q], 0, 0 >= s.motionEnd-1e-12)
@@ -177,22 +201,24 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			continue
 		}
 		d.segment(t, cut)
-		s.v.Reset(t, s.v.State())
+		s.v.reset(t, &s.v.y)
 		carry := false // the start of the step is the end of the one before
 		for {
-			done, err := s.v.Step(cut)
+			done, err := s.v.step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
-					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.v.T(), tEnd)
+					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.v.maxSteps, s.v.t, tEnd)
 				}
 				return err
 			}
-			t0, t1 := s.v.LastStep()
+			t0, t1 := s.v.told, s.v.t
 			residual := t0 >= s.motionEnd-1e-12
 			if !s.pathOnly && !carry {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.
-				s.dense(t0, &y, &rate)
+				s.v.dense(t0, &y)
+				d.Project(y[:])
+				s.v.denseRate(t0, &rate)
 				s.measureAt(t0, &y, &rate, &a)
 				for q := range qTilt {
 					s.watch(q, a.v[q], t0, residual)
@@ -200,13 +226,13 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			}
 			// Back onto the constraint for the next step, keeping the slope
 			// at the step's end (as scanner.run does).
-			if e := d.Project(s.v.State()); e > s.constraintErr {
+			if e := d.Project(s.v.y[:]); e > s.constraintErr {
 				s.constraintErr = e
 			}
 			if !s.pathOnly {
-				copy(y[:], s.v.State())
-				copy(rate[:], s.v.Rate())
-				s.measureAt(t1, &y, &rate, &b)
+				// The rate at the step's end is the last stage, f(t1, y1),
+				// kept as the next step's first.
+				s.measureAt(t1, &s.v.y, &s.v.k[0], &b)
 				for q := range qTilt {
 					s.watch(q, b.v[q], t1, residual)
 				}
@@ -223,7 +249,7 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	}
 	for s.hist != nil && s.next < s.samples {
 		// The last sample falls on tEnd exactly.
-		d.Eval(tEnd, s.v.State(), &s.pt)
+		d.Eval(tEnd, s.v.y[:], &s.pt)
 		s.pt.T = tEnd
 		s.record(&s.pt)
 	}
@@ -238,7 +264,7 @@ func (s *doubleScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		s.v.Dense(max(tt, t0), y[:])
+		s.v.dense(max(tt, t0), &y)
 		s.d.Project(y[:])
 		s.d.Eval(tt, y[:], &s.pt)
 		s.pt.T = tt
@@ -317,10 +343,15 @@ func (s *doubleScan) top(q quantity, ta, va, ga, tb, vb, gb float64, residual bo
 
 // rateRoot finds the root of a rate g between ta and tb (ga > 0 > gb) by
 // regula falsi with the Illinois modification (M. Dowell and P. Jarratt,
-// BIT 11 (1971) 168-174) to 1e-9 of the bracket, from f, which gives the
-// value and the rate at t; it returns the root and the value there.
+// BIT 11 (1971) 168-174), from f, which gives the value and the rate at t;
+// it returns the root and the value there. It stops when the value is
+// within rootTol of the top: near a top of curvature -c, a point whose
+// rate is g lies g²/(2c) below it, with c taken as the rate's secant over
+// the first bracket, (ga - gb)/(tb - ta). It also stops at 1e-9 of the
+// bracket, or after 60 probes.
 func rateRoot(ta, ga, tb, gb float64, f func(float64) (v, g float64)) (x, v float64) {
 	tol := 1e-9 * (tb - ta)
+	c2 := 2 * (ga - gb) / (tb - ta)
 	x = ta
 	side := 0
 	for range 60 {
@@ -329,7 +360,7 @@ func rateRoot(ta, ga, tb, gb float64, f func(float64) (v, g float64)) (x, v floa
 			xn = 0.5 * (ta + tb)
 		}
 		vx, gx := f(xn)
-		done := math.Abs(xn-x) <= tol || tb-ta <= tol || gx == 0
+		done := gx*gx <= rootTol*c2*math.Abs(vx) || math.Abs(xn-x) <= tol || tb-ta <= tol
 		x, v = xn, vx
 		if done {
 			break
@@ -350,3 +381,7 @@ func rateRoot(ta, ga, tb, gb float64, f func(float64) (v, g float64)) (x, v floa
 	}
 	return x, v
 }
+
+// rootTol is how close to the top of the dense output rateRoot places a
+// peak's value, relative to the value: a few units in the last place.
+const rootTol = 1e-14

@@ -1,0 +1,255 @@
+package sway
+
+import (
+	"fmt"
+	"math"
+
+	"swaysheet/core/ode"
+)
+
+// doubleSolver is ode.Solver's Dormand-Prince 5(4) pair for the twelve
+// numbers of the hook block's state (fastDouble): the same tableau, error
+// norm, step-size control (with Lund stabilisation), starting step,
+// restarts and dense output, with every operation in ode.Solver's order
+// (core/ode/dopri.go cites the sources), so that it takes the same steps
+// to the last bit given the same right-hand side. It differs in form only:
+// fixed-size arrays, so that the loops need no bounds checks and no slice
+// headers, the right-hand side called directly (no function value), the
+// power facOld^beta taken once per accepted step rather than once per
+// attempt, and the last dense-output coefficients computed only when the
+// dense output is used (contTail). (Go's generics cannot take an array's
+// length as a parameter: fastSolver is the same for the single rope's six
+// numbers, and ode.Solver for any system.)
+type doubleSolver struct {
+	m              *fastDouble
+	relTol, absTol float64
+	maxSteps       int
+
+	t, h, told float64
+	y, ynew    [12]float64
+	k          [7][12]float64
+	tmp        [12]float64
+	cont       [5][12]float64
+	d1k1       [12]float64 // ode.D1*k1 of the last step
+	hLast      float64
+	contDone   bool // cont[4] is computed
+	facOld     float64
+	facOldPow  float64 // math.Pow(facOld, beta)
+	started    bool
+	fresh      bool
+
+	accepted, rejected, evals int
+}
+
+func (v *doubleSolver) eval(t float64, y, dy *[12]float64) {
+	v.m.rhs(t, y, dy)
+	v.evals++
+}
+
+// reset places the solver at (t, y); the next step starts afresh.
+func (v *doubleSolver) reset(t float64, y *[12]float64) {
+	v.t, v.told = t, t
+	v.y = *y
+	v.fresh = false
+	v.facOld = 1e-4
+	v.facOldPow = math.Pow(1e-4, stepBeta)
+}
+
+// errNorm is ode.Solver's scaled RMS norm of e.
+func (v *doubleSolver) errNorm(y0, y1, e *[12]float64) float64 {
+	var sum float64
+	for i := range 12 {
+		a, b := math.Abs(y0[i]), math.Abs(y1[i])
+		if b > a {
+			a = b
+		}
+		r := e[i] / (v.absTol + v.relTol*a)
+		sum += r * r
+	}
+	return math.Sqrt(sum / 12)
+}
+
+// initialStep is ode's starting step heuristic.
+func (v *doubleSolver) initialStep(tEnd float64) float64 {
+	f0 := &v.k[0]
+	d0 := v.errNorm(&v.y, &v.y, &v.y)
+	d1 := v.errNorm(&v.y, &v.y, f0)
+	var h0 float64
+	if d0 < 1e-5 || d1 < 1e-5 {
+		h0 = 1e-6
+	} else {
+		h0 = 0.01 * d0 / d1
+	}
+	h0 = math.Min(h0, tEnd-v.t)
+	for i := range 12 {
+		v.tmp[i] = v.y[i] + h0*f0[i]
+	}
+	v.eval(v.t+h0, &v.tmp, &v.k[1])
+	for i := range 12 {
+		v.ynew[i] = v.k[1][i] - f0[i]
+	}
+	d2 := v.errNorm(&v.y, &v.y, &v.ynew) / h0
+	var h1 float64
+	if m := math.Max(d1, d2); m <= 1e-15 {
+		h1 = math.Max(1e-6, h0*1e-3)
+	} else {
+		h1 = math.Pow(0.01/m, 0.2)
+	}
+	return math.Min(100*h0, h1)
+}
+
+// step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
+func (v *doubleSolver) step(tEnd float64) (done bool, err error) {
+	if tEnd <= v.t {
+		return true, nil
+	}
+	y, ynew, tmp := &v.y, &v.ynew, &v.tmp
+	k1, k2, k3, k4, k5, k6, k7 := &v.k[0], &v.k[1], &v.k[2], &v.k[3], &v.k[4], &v.k[5], &v.k[6]
+	if !v.fresh {
+		v.eval(v.t, y, k1)
+		v.fresh = true
+	}
+	if !v.started || v.h <= 0 {
+		v.h = v.initialStep(tEnd)
+		v.started = true
+	}
+	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, stepBeta
+	const expo1 = 0.2 - beta*0.75
+	span := tEnd - v.t
+	for {
+		if v.accepted+v.rejected >= v.maxSteps {
+			return false, fmt.Errorf("%w (%d steps at t = %.6g)", ode.ErrTooManySteps, v.maxSteps, v.t)
+		}
+		h := v.h
+		last := false
+		if h >= span*(1-1e-12) {
+			h, last = span, true
+		}
+		t := v.t
+		for i := range 12 {
+			tmp[i] = y[i] + h*ode.A21*k1[i]
+		}
+		v.eval(t+ode.C2*h, tmp, k2)
+		for i := range 12 {
+			tmp[i] = y[i] + h*(ode.A31*k1[i]+ode.A32*k2[i])
+		}
+		v.eval(t+ode.C3*h, tmp, k3)
+		for i := range 12 {
+			tmp[i] = y[i] + h*(ode.A41*k1[i]+ode.A42*k2[i]+ode.A43*k3[i])
+		}
+		v.eval(t+ode.C4*h, tmp, k4)
+		for i := range 12 {
+			tmp[i] = y[i] + h*(ode.A51*k1[i]+ode.A52*k2[i]+ode.A53*k3[i]+ode.A54*k4[i])
+		}
+		v.eval(t+ode.C5*h, tmp, k5)
+		for i := range 12 {
+			tmp[i] = y[i] + h*(ode.A61*k1[i]+ode.A62*k2[i]+ode.A63*k3[i]+ode.A64*k4[i]+ode.A65*k5[i])
+		}
+		tn := t + h
+		if last {
+			tn = tEnd
+		}
+		v.eval(tn, tmp, k6)
+		for i := range 12 {
+			ynew[i] = y[i] + h*(ode.A71*k1[i]+ode.A73*k3[i]+ode.A74*k4[i]+ode.A75*k5[i]+ode.A76*k6[i])
+		}
+		v.eval(tn, ynew, k7)
+		for i := range 12 {
+			tmp[i] = h * (ode.E1*k1[i] + ode.E3*k3[i] + ode.E4*k4[i] + ode.E5*k5[i] + ode.E6*k6[i] + ode.E7*k7[i])
+		}
+		errv := v.errNorm(y, ynew, tmp)
+		if math.IsNaN(errv) || math.IsInf(errv, 0) {
+			errv = 1e10
+		}
+		fac11 := math.Pow(errv, expo1)
+		fac := fac11 / v.facOldPow
+		// Plain comparisons in place of math.Max and math.Min (calls of
+		// their own, for NaN and signed zeros that cannot occur here).
+		fac /= safe
+		if fac > 1/facMin {
+			fac = 1 / facMin
+		}
+		if fac < 1/facMax {
+			fac = 1 / facMax
+		}
+		if errv <= 1 {
+			v.facOld = errv
+			if errv < 1e-4 {
+				v.facOld = 1e-4
+			}
+			v.facOldPow = math.Pow(v.facOld, beta)
+			v.accepted++
+			for i := range 12 {
+				ydiff := ynew[i] - y[i]
+				bspl := h*k1[i] - ydiff
+				v.cont[0][i] = y[i]
+				v.cont[1][i] = ydiff
+				v.cont[2][i] = bspl
+				v.cont[3][i] = ydiff - h*k7[i] - bspl
+				v.d1k1[i] = ode.D1 * k1[i]
+			}
+			v.contDone, v.hLast = false, h
+			*k1 = *k7 // first same as last
+			*y = *ynew
+			v.told, v.t = t, tn
+			v.h = h / fac
+			return last, nil
+		}
+		v.rejected++
+		v.h = h / math.Min(1/facMin, fac11/safe)
+		if v.h < 1e-14*math.Max(1, math.Abs(t)) {
+			return false, fmt.Errorf("ode: step size underflow at t = %.6g", t)
+		}
+	}
+}
+
+// contTail computes the last dense output coefficients of the step
+// (ode.Solver's cont[4]); k3 to k7 hold the step's stages until the next.
+func (v *doubleSolver) contTail() {
+	h := v.hLast
+	k := &v.k
+	for i := range 12 {
+		v.cont[4][i] = h * (v.d1k1[i] + ode.D3*k[2][i] + ode.D4*k[3][i] + ode.D5*k[4][i] + ode.D6*k[5][i] + ode.D7*k[6][i])
+	}
+	v.contDone = true
+}
+
+// dense writes the continuous extension of the last step at t into out
+// (ode.Solver.Dense).
+func (v *doubleSolver) dense(t float64, out *[12]float64) {
+	h := v.t - v.told
+	var s float64
+	if h > 0 {
+		s = (t - v.told) / h
+	}
+	s1 := 1 - s
+	if !v.contDone {
+		v.contTail()
+	}
+	c := &v.cont
+	for i := range 12 {
+		out[i] = c[0][i] + s*(c[1][i]+s1*(c[2][i]+s*(c[3][i]+s1*c[4][i])))
+	}
+}
+
+// denseRate writes the time derivative of the continuous extension at t
+// into out (ode.Solver.DenseRate).
+func (v *doubleSolver) denseRate(t float64, out *[12]float64) {
+	h := v.t - v.told
+	if h <= 0 {
+		*out = v.k[0]
+		return
+	}
+	s := (t - v.told) / h
+	s1 := 1 - s
+	if !v.contDone {
+		v.contTail()
+	}
+	c := &v.cont
+	ih := 1 / h
+	for i := range 12 {
+		p := c[2][i] + s*(c[3][i]+s1*c[4][i])
+		q := c[1][i] + s1*p
+		out[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
+	}
+}
