@@ -15,9 +15,10 @@ import (
 // to the last bit given the same right-hand side. It differs in form only:
 // fixed-size arrays, so that the loops need no bounds checks and no slice
 // headers, the right-hand side called directly (no function value), the
-// power facOld^beta taken once per accepted step rather than once per
-// attempt, and the last dense-output coefficients computed only when the
-// dense output is used (contTail). (Go's generics cannot take an array's
+// step control's powers as powExp of a multiple of one powLog (math.Pow's
+// own bits, fastpow.go; facOld^beta once per accepted step rather than
+// once per attempt), and the last dense-output coefficients computed only
+// when the dense output is used (contTail). (Go's generics cannot take an array's
 // length as a parameter: fastSolver is the same for the single rope's six
 // numbers, and ode.Solver for any system.)
 type doubleSolver struct {
@@ -34,7 +35,7 @@ type doubleSolver struct {
 	hLast      float64
 	contDone   bool // cont[4] is computed
 	facOld     float64
-	facOldPow  float64 // math.Pow(facOld, beta)
+	facOldPow  float64 // facOld^beta
 	started    bool
 	fresh      bool
 
@@ -52,7 +53,7 @@ func (v *doubleSolver) reset(t float64, y *[12]float64) {
 	v.y = *y
 	v.fresh = false
 	v.facOld = 1e-4
-	v.facOldPow = math.Pow(1e-4, stepBeta)
+	v.facOldPow = powExp(stepBeta * powLog(1e-4))
 }
 
 // errNorm is ode.Solver's scaled RMS norm of e.
@@ -161,7 +162,8 @@ func (v *doubleSolver) step(tEnd float64) (done bool, err error) {
 		if math.IsNaN(errv) || math.IsInf(errv, 0) {
 			errv = 1e10
 		}
-		fac11 := math.Pow(errv, expo1)
+		logErr := powLog(errv)
+		fac11 := powExp(expo1 * logErr)
 		fac := fac11 / v.facOldPow
 		// Plain comparisons in place of math.Max and math.Min (calls of
 		// their own, for NaN and signed zeros that cannot occur here).
@@ -175,9 +177,9 @@ func (v *doubleSolver) step(tEnd float64) (done bool, err error) {
 		if errv <= 1 {
 			v.facOld = errv
 			if errv < 1e-4 {
-				v.facOld = 1e-4
+				v.facOld, logErr = 1e-4, powLog(1e-4)
 			}
-			v.facOldPow = math.Pow(v.facOld, beta)
+			v.facOldPow = powExp(beta * logErr)
 			v.accepted++
 			for i := range 12 {
 				ydiff := ynew[i] - y[i]

@@ -90,3 +90,18 @@ func TestDoubleSolverIsODESolver(t *testing.T) {
 		t.Logf("tol %g: %d steps the same; dense rate within %.3g of the central difference", tol, steps, worst)
 	}
 }
+
+// TestPowIsMathPow: powExp(y*powLog(x)) is math.Pow(x, y) to the bit for
+// the step control's exponents (fastpow.go), over the error norms a step
+// can have (and its floor 1e-4, and the starting step's 0.2).
+func TestPowIsMathPow(t *testing.T) {
+	for _, y := range []float64{0.2 - stepBeta*0.75, stepBeta, 0.2} {
+		for x := 1e-12; x < 1e12; x *= 1.0137 {
+			for _, z := range []float64{x, 1e-4, 1e10} {
+				if got, want := powExp(y*powLog(z)), math.Pow(z, y); got != want {
+					t.Fatalf("%v^%v: %v, math.Pow %v", z, y, got, want)
+				}
+			}
+		}
+	}
+}
