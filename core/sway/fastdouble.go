@@ -120,12 +120,9 @@ func (d *fastDouble) Func(t float64, y, dy []float64) {
 
 // rhs is the right-hand side y' = f(t, y) on the state's array.
 func (d *fastDouble) rhs(t float64, y, dy *[12]float64) {
-	var a1, a2 [3]float64
-	d.eval(t, y[:], &a1, &a2, nil)
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
-	dy[3], dy[4], dy[5] = a1[0], a1[1], a1[2]
 	dy[6], dy[7], dy[8] = y[9], y[10], y[11]
-	dy[9], dy[10], dy[11] = a2[0], a2[1], a2[2]
+	d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
 }
 
 // Project implements pendulum.System: both directions back onto their
