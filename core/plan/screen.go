@@ -270,6 +270,7 @@ func linearSwing(p motion.Profile, k, w float64) (peak, residual float64) {
 type linearPiece struct {
 	t0, t1, acc float64
 	varying     bool
+	_           [0]func() // not comparable: no equality function in the wasm
 }
 
 // linearPieces lists the intervals linearSwing solves piece by piece: they

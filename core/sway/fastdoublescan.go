@@ -11,8 +11,8 @@ import (
 
 // The hook block's own scan (issue 16: the peak scanner was about a third
 // of the two-mode plan). A run of fastDouble without air is integrated by
-// doubleSolver (fastdoubleode.go: ode.Solver's steps on fixed-size arrays)
-// and its peaks are found from the rates as on the single-rope path
+// ode.Solver with the model's right-hand side called directly, and its
+// peaks are found from the rates as on the single-rope path
 // (fastpeaks.go): each watched quantity of the two masses (swing and
 // excursion of the line from the suspension point to the load, the rope
 // tension and its negative, the angle between rope and rigging, the rope's
@@ -37,10 +37,12 @@ type doubleScan struct {
 	peaks
 	recorder
 	d             *fastDouble
-	v             doubleSolver
+	v             *ode.Solver
 	constraintErr float64
 	pathOnly      bool
+	maxSteps      int
 	pt            pendulum.Point
+	_             [0]func() // not comparable: no equality function in the wasm
 }
 
 // measureAt fills m from time t, the projected state y (n1, u1, n2, u2)
@@ -145,7 +147,7 @@ func oneMinusCosDown(h2, z, l float64) float64 {
 func (s *doubleScan) probe(q quantity, t float64) (v, g float64) {
 	var y, yd [12]float64
 	var m dmeasure
-	s.v.dense(t, &y)
+	s.v.Dense(t, y[:])
 	s.d.Project(y[:])
 	switch q {
 	case qSwing, qExcursion:
@@ -155,7 +157,7 @@ func (s *doubleScan) probe(q quantity, t float64) (v, g float64) {
 		ropeAngles(&y, &m)
 	default:
 		k := s.d.k.kinAt(t)
-		s.v.denseRate(t, &yd)
+		s.v.DenseRate(t, yd[:])
 		s.tensions(&k, &y, &yd, &m)
 	}
 	return m.v[q], m.g[q]
@@ -170,16 +172,17 @@ func integrateDouble(d *fastDouble, su *setup, opt Options, rec recorder, tEnd, 
 	}
 	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d,
 		pathOnly: opt.PathOnly && rec.hist != nil}
-	s.v = doubleSolver{m: d, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
+	s.v = ode.New(d.Func, d.Len(), ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
+	s.maxSteps = maxN
 	err := s.run(su.y0, su.breaks, tEnd)
-	if opt.Budget != nil && !opt.Budget.take(int64(s.v.evals)*WorkPerEval) && err == nil {
+	if opt.Budget != nil && !opt.Budget.take(int64(s.v.Evals)*WorkPerEval) && err == nil {
 		err = &WorkError{Message: opt.Budget.message}
 	}
 	if err != nil {
 		return nil, nil, Stats{}, err
 	}
-	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.accepted, Rejected: s.v.rejected,
-		Evals: s.v.evals, ConstraintError: s.constraintErr}, nil
+	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.Accepted, Rejected: s.v.Rejected,
+		Evals: s.v.Evals, ConstraintError: s.constraintErr}, nil
 }
 
 func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
@@ -189,7 +192,7 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	copy(y[:], y0)
 	t := 0.0
 	d.segment(0, cuts[0])
-	s.v.reset(0, &y)
+	s.v.Reset(0, y[:])
 	var a, b dmeasure
 	d.rhs(0, &y, &rate)
 	s.measureAt(0, &y, &rate, &a)
@@ -201,24 +204,24 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			continue
 		}
 		d.segment(t, cut)
-		s.v.reset(t, &s.v.y)
+		s.v.Reset(t, s.v.State())
 		carry := false // the start of the step is the end of the one before
 		for {
-			done, err := s.v.step(cut)
+			done, err := s.v.Step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
-					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.v.maxSteps, s.v.t, tEnd)
+					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.v.T(), tEnd)
 				}
 				return err
 			}
-			t0, t1 := s.v.told, s.v.t
+			t0, t1 := s.v.LastStep()
 			residual := t0 >= s.motionEnd-1e-12
 			if !s.pathOnly && !carry {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.
-				s.v.dense(t0, &y)
+				s.v.Dense(t0, y[:])
 				d.Project(y[:])
-				s.v.denseRate(t0, &rate)
+				s.v.DenseRate(t0, rate[:])
 				s.measureAt(t0, &y, &rate, &a)
 				for q := range qTilt {
 					s.watch(q, a.v[q], t0, residual)
@@ -226,13 +229,13 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			}
 			// Back onto the constraint for the next step, keeping the slope
 			// at the step's end (as scanner.run does).
-			if e := d.Project(s.v.y[:]); e > s.constraintErr {
+			if e := d.Project(s.v.State()); e > s.constraintErr {
 				s.constraintErr = e
 			}
 			if !s.pathOnly {
 				// The rate at the step's end is the last stage, f(t1, y1),
 				// kept as the next step's first.
-				s.measureAt(t1, &s.v.y, &s.v.k[0], &b)
+				s.measureAt(t1, (*[12]float64)(s.v.State()), (*[12]float64)(s.v.Rate()), &b)
 				for q := range qTilt {
 					s.watch(q, b.v[q], t1, residual)
 				}
@@ -249,7 +252,7 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	}
 	for s.hist != nil && s.next < s.samples {
 		// The last sample falls on tEnd exactly.
-		d.Eval(tEnd, s.v.y[:], &s.pt)
+		d.Eval(tEnd, s.v.State(), &s.pt)
 		s.pt.T = tEnd
 		s.record(&s.pt)
 	}
@@ -264,7 +267,7 @@ func (s *doubleScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		s.v.dense(max(tt, t0), &y)
+		s.v.Dense(max(tt, t0), y[:])
 		s.d.Project(y[:])
 		s.d.Eval(tt, y[:], &s.pt)
 		s.pt.T = tt
