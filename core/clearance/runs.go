@@ -29,6 +29,8 @@ type Run struct {
 	HookRelXM, HookRelYM, HookRelZM []float64
 	LegTopXM, LegTopYM, LegTopZM    [][]float64
 	LegEndXM, LegEndYM, LegEndZM    [][]float64
+	// TwoRopes is true when the legs are two hook ropes (load.body.tandem).
+	TwoRopes bool
 }
 
 // RunOf takes a run from an evaluation's time histories.
@@ -42,6 +44,7 @@ func RunOf(r *sway.Result) Run {
 		run.CornerXM, run.CornerYM, run.CornerZM = b.CornerXM, b.CornerYM, b.CornerZM
 		run.LegTopXM, run.LegTopYM, run.LegTopZM = b.LegTopXM, b.LegTopYM, b.LegTopZM
 		run.LegEndXM, run.LegEndYM, run.LegEndZM = b.LegEndXM, b.LegEndYM, b.LegEndZM
+		run.TwoRopes = r.Body.Suspension == sway.TwoRopes
 	}
 	return run
 }
@@ -122,11 +125,13 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 // Lines is the hoisting gear of the run as straight lines (RopeLine), z up
 // from the floor: the hoist rope from the suspension point to the hook;
 // below a hook block the rigging to the load; a rigid load's sling legs
-// from the hook (or their top points) to their attach points. The rope
+// from the hook (or their top points) to their attach points, named
+// "sling leg N", or two hook ropes (load.body.tandem) from their
+// suspension points, named as everywhere (sway.HookRope). The rope
 // of a point load ends at the load's ball of radiusM (the ball is
 // checked as the load), and so does the rigging below a hook block.
-// Parallel legs have no hoist rope of their own (their tops are the
-// suspension points).
+// Parallel legs and two hook ropes have no hoist rope of their own
+// (their tops are the suspension points).
 func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 	h, n := suspensionHeightM, len(r.TimeS)
 	if n == 0 || len(r.SuspensionXM) < n {
@@ -146,7 +151,9 @@ func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 	}
 	var out []RopeLine
 	hooked := len(r.HookRelXM) == n
-	if len(r.LegTopXM) == 0 || hooked {
+	// Two hook ropes have no hoist rope between them: the history's hook
+	// is then the crane's suspension point itself.
+	if (len(r.LegTopXM) == 0 || hooked) && !r.TwoRopes {
 		rope := line("hoist rope")
 		for i := range n {
 			rope.A[i] = susp(i)
@@ -161,7 +168,11 @@ func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 	switch {
 	case len(r.LegTopXM) > 0:
 		for k := range r.LegTopXM {
-			leg := line(fmt.Sprintf("sling leg %d", k+1))
+			name := fmt.Sprintf("sling leg %d", k+1)
+			if r.TwoRopes {
+				name = sway.HookRope(k)
+			}
+			leg := line(name)
 			for i := range n {
 				leg.A[i] = Point3{r.LegTopXM[k][i], r.LegTopYM[k][i], h + r.LegTopZM[k][i]}
 				leg.B[i] = Point3{r.LegEndXM[k][i], r.LegEndYM[k][i], h + r.LegEndZM[k][i]}

@@ -112,6 +112,9 @@ type request struct {
 	bodyMemo map[float64]modeSet
 	// budget is the work all the plan's runs draw on together.
 	budget *sway.Budget
+	// rampFailed is the index of the grid rope length where the ramp
+	// search's last setting failed its screening (rampOK).
+	rampFailed int
 	// sims counts the simulations run.
 	sims atomic.Int64
 }
@@ -130,13 +133,32 @@ const Work = 400_000_000
 
 const budgetMessage = "This plan needs more computing than allowed: narrow the rope-length range (plan.rope_length_min_m to plan.rope_length_max_m) or shorten the move (plan.distance_m or plan.angle_deg)."
 
+// MakeValidated is Make for a scenario that scenario.Parse returned
+// unchanged: it was validated there and is not validated again (the
+// page's plan call reads and validates its scenario once).
+func MakeValidated(s *scenario.Scenario) (*Result, error) {
+	if s.Plan == nil {
+		return nil, noPlan()
+	}
+	return makeValid(s, sway.NewBudget(Work, budgetMessage))
+}
+
+func noPlan() error {
+	return scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
+}
+
 func makeWith(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	if s.Plan == nil {
-		return nil, scenario.Errors{{Field: "plan", Message: "is required: the scenario has no planning request; add a \"plan\" block (see testdata/scenarios/plan-bay-travel.json)"}}
+		return nil, noPlan()
 	}
 	if err := s.Validate(); err != nil {
 		return nil, err
 	}
+	return makeValid(s, budget)
+}
+
+// makeValid plans the validated scenario s, which has a plan block.
+func makeValid(s *scenario.Scenario, budget *sway.Budget) (*Result, error) {
 	rq, err := newRequest(s)
 	if err != nil {
 		return nil, err

@@ -146,5 +146,5 @@ func makePlan(_ *Env, input []byte) (any, error) {
 	if err != nil {
 		return nil, err
 	}
-	return planned(s)
+	return planned(s, true)
 }

@@ -68,8 +68,10 @@ type keptResult struct {
 	result *sway.Result
 }
 
-// planned is the plan of s, from the memo when it holds s's.
-func planned(s *scenario.Scenario) (*plan.Result, error) {
+// planned is the plan of s, from the memo when it holds s's; validated
+// says s came from scenario.Parse unchanged (not validated again), as
+// for evaluated.
+func planned(s *scenario.Scenario, validated bool) (*plan.Result, error) {
 	fp, err := key(s)
 	if err != nil {
 		return nil, err
@@ -81,7 +83,11 @@ func planned(s *scenario.Scenario) (*plan.Result, error) {
 		return r, nil
 	}
 	last.mu.Unlock()
-	r, err := plan.Make(s)
+	mk := plan.Make
+	if validated {
+		mk = plan.MakeValidated
+	}
+	r, err := mk(s)
 	if err != nil {
 		return nil, err
 	}

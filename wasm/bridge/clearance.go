@@ -117,7 +117,7 @@ func planSite(_ *Env, input []byte) (any, error) {
 	if s.Plan == nil {
 		return nil, scenario.Errors{{Field: "plan", Message: "the scenario has no plan block: add the move to plan (see plan-site-bay-columns)"}}
 	}
-	res, err := planned(s)
+	res, err := planned(s, true)
 	if err != nil {
 		return nil, err
 	}

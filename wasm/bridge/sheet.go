@@ -5,6 +5,7 @@ import (
 	"errors"
 
 	"swaysheet/core/clearance"
+	"swaysheet/core/plan"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sheet"
 	"swaysheet/core/sway"
@@ -50,7 +51,9 @@ func sheetCall(_ *Env, input []byte) (any, error) {
 	// Through the memo of the last results and plan: after the page's
 	// evaluate and plan calls of the same scenario the sheet computes
 	// nothing. Only the parsed scenario is known to be valid.
-	memo := sheet.Computer{Plan: planned, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
+	memo := sheet.Computer{Plan: func(x *scenario.Scenario) (*plan.Result, error) {
+		return planned(x, x == s)
+	}, Evaluate: func(x *scenario.Scenario) (*sway.Result, error) {
 		return evaluated(x, x == s)
 	}, Clearance: func(x *scenario.Scenario) (*clearance.Report, error) {
 		// The page's last check of these inputs: printing never runs it.
