@@ -340,19 +340,20 @@ func (s *doubleScan) top(q quantity, ta, va, ga, tb, vb, gb float64, residual bo
 	if e.set && bound < e.max && (r == nil || (r.set && bound < r.max)) {
 		return
 	}
-	x, v := rateRoot(ta, ga, tb, gb, func(t float64) (float64, float64) { return s.probe(q, t) })
+	x, v := rateRoot(ta, ga, tb, gb, rootTol, func(t float64) (float64, float64) { return s.probe(q, t) })
 	s.watch(q, v, x, residual)
 }
 
 // rateRoot finds the root of a rate g between ta and tb (ga > 0 > gb) by
 // regula falsi with the Illinois modification (M. Dowell and P. Jarratt,
 // BIT 11 (1971) 168-174), from f, which gives the value and the rate at t;
-// it returns the root and the value there. It stops when the value is
-// within rootTol of the top: near a top of curvature -c, a point whose
-// rate is g lies g²/(2c) below it, with c taken as the rate's secant over
-// the first bracket, (ga - gb)/(tb - ta). It also stops at 1e-9 of the
-// bracket, or after 60 probes.
-func rateRoot(ta, ga, tb, gb float64, f func(float64) (v, g float64)) (x, v float64) {
+// it returns the root and the value there. It stops at 1e-9 of the
+// bracket, at a zero rate, after 60 probes, and with valueTol > 0 once the
+// value is within valueTol of the top (relative): near a top of curvature
+// -c, a point whose rate is g lies g²/(2c) below it, with c taken as the
+// rate's secant over the first bracket, (ga - gb)/(tb - ta). The
+// single-rope path's peaks use it without valueTol (fastpeaks.go).
+func rateRoot(ta, ga, tb, gb, valueTol float64, f func(float64) (v, g float64)) (x, v float64) {
 	tol := 1e-9 * (tb - ta)
 	c2 := 2 * (ga - gb) / (tb - ta)
 	x = ta
@@ -363,7 +364,7 @@ func rateRoot(ta, ga, tb, gb float64, f func(float64) (v, g float64)) (x, v floa
 			xn = 0.5 * (ta + tb)
 		}
 		vx, gx := f(xn)
-		done := gx*gx <= rootTol*c2*math.Abs(vx) || math.Abs(xn-x) <= tol || tb-ta <= tol
+		done := math.Abs(xn-x) <= tol || tb-ta <= tol || gx == 0 || (valueTol > 0 && gx*gx <= valueTol*c2*math.Abs(vx))
 		x, v = xn, vx
 		if done {
 			break
