@@ -68,6 +68,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
+	if d, ok := su.model.(*fastDouble); ok && !opt.General && d.k.air == nil {
+		return integrateDouble(d, su, opt, rec, tEnd, relTol, maxN)
+	}
 	if _, concrete := su.model.(*fastDouble); su.model == nil || (concrete && opt.General) {
 		su.model = su.general()
 	}

@@ -139,35 +139,10 @@ func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual b
 	if e.set && bound < e.max && (r == nil || (r.set && bound < r.max)) {
 		return
 	}
-	tol := 1e-9 * (tb - ta)
-	x := ta
-	side := 0
-	var m measure
-	for range 60 {
-		xn := (ta*gb - tb*ga) / (gb - ga)
-		if !(xn > ta && xn < tb) {
-			xn = 0.5 * (ta + tb)
-		}
-		s.measureDense(xn, &m)
-		gx := m.g[q]
-		done := math.Abs(xn-x) <= tol || tb-ta <= tol || gx == 0
-		x = xn
-		if done {
-			break
-		}
-		if gx > 0 {
-			ta, ga = x, gx
-			if side == -1 {
-				gb *= 0.5
-			}
-			side = -1
-		} else {
-			tb, gb = x, gx
-			if side == 1 {
-				ga *= 0.5
-			}
-			side = 1
-		}
-	}
-	s.offer(q, m.v[q], x, residual)
+	x, v := rateRoot(ta, ga, tb, gb, 0, func(t float64) (float64, float64) {
+		var m measure
+		s.measureDense(t, &m)
+		return m.v[q], m.g[q]
+	})
+	s.offer(q, v, x, residual)
 }

@@ -310,7 +310,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.warn(words.Plain("The load swings over the top of its circle: it whirls round the suspension point and has no swing period."))
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
