@@ -128,9 +128,23 @@ func (s *fastScan) stepPeaks(t0, t1 float64, a, b *measure, residual bool) {
 func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual bool) {
 	// The tangents at both ends meet above a concave top.
 	tx := (vb - va + ga*ta - gb*tb) / (ga - gb)
-	tx = min(max(tx, ta), tb)
-	top := max(va+ga*(tx-ta), va, vb)
-	bound := top + (top - max(va, vb)) + 1e-12*math.Abs(top)
+	// Plain comparisons: the builtin min and max of floats are calls in
+	// wasm (runtime.fmin64, fmax64), and no NaN reaches here.
+	if tx < ta {
+		tx = ta
+	}
+	if tx > tb {
+		tx = tb
+	}
+	hi := va
+	if vb > hi {
+		hi = vb
+	}
+	top := va + ga*(tx-ta)
+	if hi > top {
+		top = hi
+	}
+	bound := top + (top - hi) + 1e-12*math.Abs(top)
 	e := &s.ext[q]
 	r := (*extremum)(nil)
 	if residual {

@@ -9,8 +9,6 @@ package units
 
 import (
 	"math"
-
-	"swaysheet/core/internal/sorts"
 )
 
 // StandardGravity is g_n in m/s^2 (3rd CGPM 1901; ISO 80000-3).
@@ -119,18 +117,15 @@ func find(q, symbol string) (Unit, bool) {
 
 // QuantityOf names the quantity of Table whose SI unit has the given
 // symbol, or "" when there is none. Scenarios carry angles in degrees, so
-// "deg" is the angle quantity. Names are tried in sorted order, so the
-// answer does not depend on map order.
+// "deg" is the angle quantity. Of several, the first name in sorted order
+// is taken, so the answer does not depend on map order (found in one pass
+// without sorting: every warning's numbers ask for it).
 func QuantityOf(siSymbol string) string {
-	names := make([]string, 0, len(Table))
-	for k := range Table {
-		names = append(names, k)
-	}
-	sorts.Strings(names)
-	for _, k := range names {
-		if q := Table[k]; len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
-			return k
+	found := ""
+	for k, q := range Table {
+		if len(q.Units) > 0 && q.Units[0].Symbol == siSymbol && (found == "" || k < found) {
+			found = k
 		}
 	}
-	return ""
+	return found
 }
