@@ -49,11 +49,18 @@ func (v *fastSolver) reset(t float64, y *[6]float64) {
 }
 
 func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
-	// math.Abs is an instruction (also in wasm); written so, the function
-	// is small enough for the compiler to write it into the stepper.
+	// Written so, the function is small enough for the compiler to write
+	// it into the stepper (math.Abs counts as two calls there; a zero's
+	// sign does not matter here: a is added to absTol > 0).
 	var sum float64
 	for i := range 6 {
-		a, b := math.Abs(y0[i]), math.Abs(y1[i])
+		a, b := y0[i], y1[i]
+		if a < 0 {
+			a = -a
+		}
+		if b < 0 {
+			b = -b
+		}
 		if b > a {
 			a = b
 		}
@@ -300,5 +307,30 @@ func (v *fastSolver) denseRate(t float64, out *[6]float64) {
 		p := c[2][i] + s*(c[3][i]+s1*c[4][i])
 		q := c[1][i] + s1*p
 		out[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
+	}
+}
+
+// denseBoth writes dense and denseRate at t into y and yd in one pass
+// (the rate's P and Q are the value's inner terms: y = c0 + s Q), the
+// same numbers as the two: one call where the peak search needs both.
+func (v *fastSolver) denseBoth(t float64, y, yd *[6]float64) {
+	h := v.t - v.told
+	if h <= 0 {
+		v.dense(t, y)
+		*yd = v.k[0]
+		return
+	}
+	s := (t - v.told) / h
+	s1 := 1 - s
+	if !v.contDone {
+		v.contTail()
+	}
+	c := &v.cont
+	ih := 1 / h
+	for i := range 6 {
+		p := c[2][i] + s*(c[3][i]+s1*c[4][i])
+		q := c[1][i] + s1*p
+		y[i] = c[0][i] + s*q
+		yd[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
 	}
 }

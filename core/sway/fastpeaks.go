@@ -68,9 +68,8 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 // measureDense is measureAt on the dense output at t inside the last step.
 func (s *fastScan) measureDense(t float64, out *measure) {
 	var y, yd [6]float64
-	s.v.dense(t, &y)
+	s.v.denseBoth(t, &y, &yd)
 	project(&y)
-	s.v.denseRate(t, &yd)
 	s.measureAt(t, &y, &yd, out)
 }
 
