@@ -219,7 +219,7 @@ func (s *fastScan) emit(t0, t1 float64) {
 // square root rather than math.Hypot (Go code in wasm, where this runs
 // for every one of the 601 samples; the two differ in the last bits).
 func (s *fastScan) recordState(t float64, y *[6]float64) {
-	k := s.m.kinAt(t)
+	k := s.m.kinOf(t, false)
 	rx, ry, rz := s.m.rel(t, &k, y)
 	h, i := s.hist, s.next
 	lx, ly, lz := k.px+k.l*y[0], k.py+k.l*y[1], k.l*y[2]
