@@ -117,15 +117,30 @@ func (m *fastModel) kinAt(t float64) kin { return m.kinOf(t, true) }
 // kinOf is kinAt without the slewing arm's share of the jerk unless jerk
 // is set (only the peak search's rates need it; the right-hand side and
 // the history do not).
+//
+// An axis without moves is left out: its span is all zero, where the
+// polynomial gives +0 for every t >= 0, as the zero values do.
 func (m *fastModel) kinOf(t float64, jerk bool) (k kin) {
-	k.px, k.vx, k.ax = m.sx.at(t)
-	k.py, k.vy, k.ay = m.sy.at(t)
+	if len(m.x) > 0 {
+		k.px, k.vx, k.ax = m.sx.at(t)
+	}
+	if len(m.y) > 0 {
+		k.py, k.vy, k.ay = m.sy.at(t)
+	}
 	k.jx, k.jy = m.sx.j, m.sy.j
-	h, dh, ddh := m.sh.at(t)
+	var h, dh, ddh float64
+	if m.hoisting {
+		h, dh, ddh = m.sh.at(t)
+	}
 	k.l, k.dl, k.ddl, k.dddl = m.l0-h, -dh, -ddh, -m.sh.j
 	if m.slewing {
-		p, w, al := m.ss.at(t)
-		q, rd, rdd := m.sr.at(t)
+		var p, w, al, q, rd, rdd float64
+		if len(m.slew) > 0 {
+			p, w, al = m.ss.at(t)
+		}
+		if len(m.radius) > 0 {
+			q, rd, rdd = m.sr.at(t)
+		}
 		phi, r := m.phi0+p, m.r0+q
 		// One argument reduction for both (Sin and Cos are written in Go, in
 		// wasm too, with the same polynomials as Sincos).
