@@ -93,7 +93,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	// The rope's and the radius' moves added together, evaluated at a cost
 	// that does not grow with the number of moves and shaper impulses; the
 	// other axes' are combined when the general path runs (combinedAxes).
-	hoist, reach := motion.Combine(ax[crane.Rope]...), motion.Combine(ax[crane.Reach]...)
+	hoist, reach := combined(ax[crane.Rope]), combined(ax[crane.Reach])
 	su.drives = ax
 
 	// The rope and the radius must stay in range over the whole run.
@@ -194,6 +194,16 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	}
 	su.breaks = breaks
 	return su, nil
+}
+
+// combined is the moves of one axis added together (motion.Combine), or
+// the empty sum when there are none (at rest, +0 everywhere, as Combine's;
+// its index is not built for nothing).
+func combined(ps motion.Sum) motion.Profile {
+	if len(ps) == 0 {
+		return ps
+	}
+	return motion.Combine(ps...)
 }
 
 // combinedAxes is each axis' moves combined, for the general path's work
