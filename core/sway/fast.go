@@ -160,7 +160,8 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.
 				y0 := s.v.cont[0]
-				s.v.denseRate(t0, &rate)
+				var unused [6]float64 // the value at t0: y0, the step's start
+				s.v.denseBoth(t0, &unused, &rate)
 				s.measureAt(t0, &y0, &rate, &a)
 				for q := range qRigAngle {
 					s.offer(q, a.v[q], t0, residual)

@@ -286,33 +286,11 @@ func (v *fastSolver) dense(t float64, out *[6]float64) {
 	}
 }
 
-// denseRate writes the time derivative of the continuous extension of the
-// last step at t into out: with y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))),
-// s1 = 1 - s, dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P), where
-// P = c2 + s(c3 + s1 c4) and Q = c1 + s1 P; dy/dt = (dy/ds)/h.
-func (v *fastSolver) denseRate(t float64, out *[6]float64) {
-	h := v.t - v.told
-	if h <= 0 {
-		*out = v.k[0]
-		return
-	}
-	s := (t - v.told) / h
-	s1 := 1 - s
-	if !v.contDone {
-		v.contTail()
-	}
-	c := &v.cont
-	ih := 1 / h
-	for i := range 6 {
-		p := c[2][i] + s*(c[3][i]+s1*c[4][i])
-		q := c[1][i] + s1*p
-		out[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
-	}
-}
-
-// denseBoth writes dense and denseRate at t into y and yd in one pass
-// (the rate's P and Q are the value's inner terms: y = c0 + s Q), the
-// same numbers as the two: one call where the peak search needs both.
+// denseBoth writes the continuous extension of the last step at t into y
+// (the numbers dense gives) and its time derivative into yd, in one pass:
+// with y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))), s1 = 1 - s,
+// P = c2 + s(c3 + s1 c4) and Q = c1 + s1 P (so y = c0 + s Q),
+// dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P); dy/dt = (dy/ds)/h.
 func (v *fastSolver) denseBoth(t float64, y, yd *[6]float64) {
 	h := v.t - v.told
 	if h <= 0 {
