@@ -278,11 +278,12 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 		for _, x := range dn {
 			times = append(times, math.Max(first+x, times[len(times)-1]))
 		}
-		dm, _, err := build(times)
+		dm, dp, err := build(times)
 		if err != nil {
 			return nil, fmt.Errorf("plan: pendant steps, drawn timing: %w", err)
 		}
 		o.draws = append(o.draws, dm)
+		o.drawProfiles = append(o.drawProfiles, dp)
 	}
 
 	// Cues.

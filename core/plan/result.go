@@ -142,7 +142,9 @@ type Option struct {
 	profile motion.Profile
 	accelSI float64
 	draws   []scenario.Motion // the move as pressed, one per drawn timing
-	checked func(*Option)     // adds sentences once the figures are known
+	// drawProfiles are the draws' speed profiles (linear estimates).
+	drawProfiles []motion.Profile
+	checked      func(*Option) // adds sentences once the figures are known
 	// estimated: the linear-theory figures; rechecked: simulated at the
 	// check tolerance (CheckRelTol).
 	estimated []Verified
@@ -180,11 +182,14 @@ type Verified struct {
 	Warnings            int     `json:"warnings"`
 	// Draws is the number of drawn timings a pendant option's percentiles
 	// are over at this rope length (fewer than Timing.Draws when the
-	// answer was decided early: see verify.go).
+	// answer was decided early: see verify.go; all of them when the draws
+	// that can be the percentile were found by linear theory: draws.go).
 	Draws int `json:"draws,omitempty"`
 	// Exact holds a pendant option's figures with the presses exactly at
 	// their cues (the Verified figures are then 90th percentiles).
 	Exact *Verified `json:"exact,omitempty"`
+	// simulated is how many of the Draws were simulated (draws.go).
+	simulated int
 }
 
 // Knot is one corner of a piecewise linear speed profile (speed in the

@@ -89,11 +89,18 @@ func timingErrors(n int) [][]float64 {
 
 // percentile is the nearest-rank p-th percentile of xs (which it sorts).
 func percentile(xs []float64, p float64) float64 {
+	return percentileOf(xs, len(xs), p)
+}
+
+// percentileOf is the nearest-rank p-th percentile of n values of which xs
+// (sorted here) are the largest: the k-th smallest of n, k = ceil(p*n), is
+// the (n-k+1)-th largest, of xs as of all n.
+func percentileOf(xs []float64, n int, p float64) float64 {
 	if len(xs) == 0 {
 		return 0
 	}
 	sorts.Floats(xs)
-	k := int(math.Ceil(p/100*float64(len(xs)))) - 1
+	k := int(math.Ceil(p/100*float64(n))) - 1 - (n - len(xs))
 	return xs[max(0, min(k, len(xs)-1))]
 }
 
@@ -158,56 +165,69 @@ func robustCost(g group, gaps []float64, ws []modeSet, tm Timing, errs [][]float
 // step's vector by exp(i*w*x), so the group's vector is the sum over steps
 // k of C_k*prod_(j<=k) P_j with C_k = A_k*sinc(w*tau_k/2)*exp(i*w*tau_k/2)
 // and P_j the turn of press j's gap (the same sum as group.vector, as
-// products instead of one exponential each).
+// products instead of one exponential each). The tables are flat slices
+// and cost's work space is kept, so a search of hundreds of counts
+// allocates nothing per count.
 type costTable struct {
 	g     group
 	ws    []modeSet
 	tm    Timing
 	steps int
-	// turn[d][k][c][m] is press k's turn in draw d with count c, for the
-	// m-th frequency (rope lengths, then modes, flattened); coef[k][m] is C_k.
-	turn  [][][][]complex128
-	coef  [][]complex128
+	draws int
+	// turn[((d*n+k)*(steps+1)+c)*nm+m] is press k's turn in draw d with
+	// count c, for the m-th of the nm frequencies (rope lengths, then
+	// modes, flattened); coef[k*nm+m] is C_k.
+	turn  []complex128
+	coef  []complex128
+	nm    int
 	share []float64
 	vals  []float64
+	// cost's work space.
+	idx      []int
+	rot, sum []complex128
+}
+
+// turnOf is exp(i*y) (cmplx.Exp of a pure imaginary, bit for bit).
+func turnOf(y float64) complex128 {
+	s, c := math.Sincos(y)
+	return complex(c, s)
 }
 
 func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64) *costTable {
-	ct := &costTable{g: g, ws: ws, tm: tm, steps: steps}
+	ct := &costTable{g: g, ws: ws, tm: tm, steps: steps, draws: len(errs)}
 	var om []float64
 	for _, ms := range ws {
 		om = append(om, ms.omega...)
 		ct.share = append(ct.share, ms.share...)
 	}
-	n := len(g.share)
-	ct.coef = make([][]complex128, n)
+	n, nm := len(g.share), len(om)
+	ct.nm = nm
+	ct.coef = make([]complex128, n*nm)
 	for k, a := range g.share {
-		ct.coef[k] = make([]complex128, len(om))
 		for m, w := range om {
 			x := w * g.tau[k] / 2
 			sinc := 1.0
 			if x > 1e-9 {
 				sinc = math.Sin(x) / x
 			}
-			ct.coef[k][m] = complex(a*sinc, 0) * cmplx.Exp(complex(0, w*g.tau[k]/2))
+			ct.coef[k*nm+m] = complex(a*sinc, 0) * turnOf(w*g.tau[k]/2)
 		}
 	}
-	ct.turn = make([][][][]complex128, len(errs))
+	ct.turn = make([]complex128, len(errs)*n*(steps+1)*nm)
 	for d, e := range errs {
-		ct.turn[d] = make([][][]complex128, n)
 		for k := 1; k < n; k++ {
-			ct.turn[d][k] = make([][]complex128, steps+1)
-			for c := range ct.turn[d][k] {
+			for c := 0; c <= steps; c++ {
 				x := math.Max(0, float64(c)*CueStepS+tm.ReactionDelayS+tm.SigmaS*e[k])
-				row := make([]complex128, len(om))
+				row := ct.turn[((d*n+k)*(steps+1)+c)*nm:][:nm]
 				for m, w := range om {
-					row[m] = cmplx.Exp(complex(0, w*x))
+					row[m] = turnOf(w * x)
 				}
-				ct.turn[d][k][c] = row
 			}
 		}
 	}
 	ct.vals = make([]float64, 0, len(errs)*len(ws))
+	ct.idx = make([]int, n)
+	ct.rot, ct.sum = make([]complex128, nm), make([]complex128, nm)
 	return ct
 }
 
@@ -217,27 +237,26 @@ func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64)
 // least bound once N - k + 1 values are), which leaves the search's
 // choice as it was and skips most of the work for poor counts.
 func (ct *costTable) cost(counts []float64, bound float64) float64 {
-	n := len(ct.g.share)
-	idx := make([]int, n)
+	n, nm := len(ct.g.share), ct.nm
+	idx := ct.idx
 	for k := 1; k < n; k++ {
 		idx[k] = int(math.Round(counts[k] / CueStepS))
 	}
 	ct.vals = ct.vals[:0]
-	total := len(ct.turn) * len(ct.ws)
+	total := ct.draws * len(ct.ws)
 	stop := total - int(math.Ceil(ct.tm.Percentile/100*float64(total))) + 1
 	over := 0
-	nm := len(ct.share)
-	rot := make([]complex128, nm)
-	sum := make([]complex128, nm)
-	for d := range ct.turn {
+	rot, sum := ct.rot, ct.sum
+	for d := range ct.draws {
 		for m := range rot {
-			rot[m], sum[m] = 1, ct.coef[0][m]
+			rot[m], sum[m] = 1, ct.coef[m]
 		}
 		for k := 1; k < n; k++ {
-			tr := ct.turn[d][k][idx[k]]
+			tr := ct.turn[((d*n+k)*(ct.steps+1)+idx[k])*nm:][:nm]
+			cf := ct.coef[k*nm:][:nm]
 			for m := range rot {
 				rot[m] *= tr[m]
-				sum[m] += ct.coef[k][m] * rot[m]
+				sum[m] += cf[m] * rot[m]
 			}
 		}
 		m := 0

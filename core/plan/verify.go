@@ -15,19 +15,29 @@ import (
 // verifyAll simulates every option at every checked rope length at the
 // integrator tolerance tol, in parallel over options and rope lengths: a
 // drive-timed option once, a pendant option once as planned and then for
-// its drawn timings in order, until the answer at that rope length is
-// decided (decided). An option whose simulation fails (the run's step
-// limit, a rope that goes slack in a way the model refuses) is left out
-// and named in the returned list with why; the others are kept.
+// the drawn timings that can be its percentile (draws.go), or, where the
+// linear theory does not serve, for its drawn timings in order until the
+// answer at that rope length is decided (decided). An option whose
+// simulation fails (the run's step limit, a rope that goes slack in a way
+// the model refuses) is left out and named in the returned list with why;
+// the others are kept.
 func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropped []string) {
+	return rq.verifyWith(opts, tol, true)
+}
+
+// verifyWith is verifyAll; linear false simulates a pendant option's draws
+// in the seeded order until decided, as the recheck does.
+func (rq *request) verifyWith(opts []*Option, tol float64, linear bool) (kept []*Option, dropped []string) {
 	type job struct{ o, l int }
 	jobs := make(chan job, len(opts)*len(rq.checked))
 	exact := make([][]Verified, len(opts))
 	drawn := make([][][]Verified, len(opts))
+	of := make([][]int, len(opts)) // how many draws the percentile is over
 	failed := make([]error, len(opts))
 	for i := range opts {
 		exact[i] = make([]Verified, len(rq.checked))
 		drawn[i] = make([][]Verified, len(rq.checked))
+		of[i] = make([]int, len(rq.checked))
 	}
 	var wg sync.WaitGroup
 	var mu sync.Mutex
@@ -60,6 +70,17 @@ func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropp
 			}
 			exact[j.o][j.l] = v
 			var ds []Verified
+			if linear && rq.linearDraws(o) {
+				bound, ok, err := rq.drawnBound(o, rope, tol)
+				if err != nil {
+					fail(j, err)
+					continue
+				}
+				if ok {
+					drawn[j.o][j.l], of[j.o][j.l] = bound, len(o.draws)
+					continue
+				}
+			}
 			for d := range o.draws {
 				v, err := rq.simulate(&o.draws[d], rope, tol)
 				if err != nil {
@@ -71,7 +92,7 @@ func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropp
 					break
 				}
 			}
-			drawn[j.o][j.l] = ds
+			drawn[j.o][j.l], of[j.o][j.l] = ds, len(ds)
 		}
 	}
 	if procs := runtime.GOMAXPROCS(0); procs > 1 {
@@ -97,7 +118,7 @@ func (rq *request) verifyAll(opts []*Option, tol float64) (kept []*Option, dropp
 		if len(o.draws) > 0 {
 			vs = make([]Verified, len(rq.checked))
 			for l := range vs {
-				vs[l] = p90(drawn[i][l], exact[i][l])
+				vs[l] = p90(drawn[i][l], of[i][l], exact[i][l])
 			}
 			o.Basis = fmt.Sprintf("%gth percentile of a person's timing", rq.timing().Percentile)
 		} else {
@@ -128,7 +149,7 @@ func (rq *request) decided(ds []Verified, n int) bool {
 	if len(ds) < MinTimingDraws || !screening {
 		return false
 	}
-	k := int(math.Ceil(TimingPercentile / 100 * float64(n)))
+	k := int(math.Ceil(float64(TimingPercentile) / 100 * float64(n))) // not 90/100: an integer constant division, 0
 	lim := rq.lim
 	beyond := [4]int{}
 	inside := 0
@@ -158,21 +179,22 @@ func (rq *request) decided(ds []Verified, n int) bool {
 // length and takes those figures (a pendant option with its draws).
 func (rq *request) recheck(o *Option) {
 	o.rechecked = true
-	if kept, _ := rq.verifyAll([]*Option{o}, CheckRelTol); len(kept) == 0 {
+	if kept, _ := rq.verifyWith([]*Option{o}, CheckRelTol, false); len(kept) == 0 {
 		o.Within = false
 		o.outside(plain("could not be simulated again at the default accuracy"))
 	}
 }
 
-// p90 is the percentile of each figure over the drawn runs, with the
-// planned run's figures as Exact.
-func p90(vs []Verified, exact Verified) Verified {
+// p90 is the percentile of each figure over n drawn runs of which vs are
+// simulated (n = len(vs), or the draws left out are below the percentile:
+// draws.go), with the planned run's figures as Exact.
+func p90(vs []Verified, n int, exact Verified) Verified {
 	pick := func(f func(Verified) float64) float64 {
 		xs := make([]float64, len(vs))
 		for i, v := range vs {
 			xs[i] = f(v)
 		}
-		return percentile(xs, TimingPercentile)
+		return percentileOf(xs, n, TimingPercentile)
 	}
 	out := Verified{RopeLengthM: exact.RopeLengthM,
 		PeakSwingDeg:        pick(func(v Verified) float64 { return v.PeakSwingDeg }),
@@ -185,7 +207,7 @@ func p90(vs []Verified, exact Verified) Verified {
 	for _, v := range vs {
 		out.Warnings = max(out.Warnings, v.Warnings)
 	}
-	out.Draws = len(vs)
+	out.Draws, out.simulated = n, len(vs)
 	e := exact
 	out.Exact = &e
 	return out
@@ -288,7 +310,18 @@ func (rq *request) checkedSentences(o *Option) {
 	for _, v := range o.Verified {
 		dlo, dhi = min(dlo, v.Draws), max(dhi, v.Draws)
 	}
+	slo, shi := tm.Draws, 0
+	for _, v := range o.Verified {
+		slo, shi = min(slo, v.simulated), max(shi, v.simulated)
+	}
 	draws := fmt.Sprintf("%d draws", tm.Draws)
+	if dlo == tm.Draws && slo < tm.Draws {
+		sims := fmt.Sprintf("%d", slo)
+		if shi > slo {
+			sims = fmt.Sprintf("%d to %d", slo, shi)
+		}
+		draws = fmt.Sprintf("%d draws (at each rope length the %s whose linear-theory estimate could reach the percentile simulated, the others below it by that estimate)", tm.Draws, sims)
+	}
 	if dlo < tm.Draws && dlo == dhi {
 		draws = fmt.Sprintf("%d draws (a rope length stops drawing once the verdict of all %d is decided, after %d at least)", dlo, tm.Draws, MinTimingDraws)
 	} else if dlo < tm.Draws {
