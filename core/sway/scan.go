@@ -269,9 +269,7 @@ type recorder struct {
 // With reuse set (Options.HistoryBuffer) its memory is used when large
 // enough, else the memory made is kept there.
 func (s *recorder) reserve(reuse *[]float64) {
-	h := s.hist
-	cs := []*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
-		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
+	cs := s.hist.series()
 	n := s.samples
 	var buf []float64
 	if reuse != nil && cap(*reuse) >= len(cs)*n {
@@ -285,6 +283,12 @@ func (s *recorder) reserve(reuse *[]float64) {
 	for k, c := range cs {
 		*c = buf[k*n : k*n : (k+1)*n]
 	}
+}
+
+// series are the eleven series every history has.
+func (h *History) series() [11]*[]float64 {
+	return [11]*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
+		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
 }
 
 func (s *recorder) record(p *pendulum.Point) {

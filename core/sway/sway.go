@@ -396,6 +396,14 @@ func (r *Result) markWarnings() {
 	if r.Warnings == nil {
 		r.Warnings = []string{}
 	}
+	if len(r.WarningSentences) == len(r.Warnings) {
+		// warn adds to both: they are one for one already (and a
+		// sentence's text is not made twice).
+		if r.WarningSentences == nil {
+			r.WarningSentences = []words.Sentence{}
+		}
+		return
+	}
 	out := make([]words.Sentence, len(r.Warnings))
 	k := 0
 	for i, w := range r.Warnings {
