@@ -9,13 +9,18 @@ import (
 // and as the join unions them into an envelope (EnvelopeOut.Spans).
 
 // runCells sweeps one run onto a grid of its own and lists the cells.
-func runCells(r *PlanPath, cellM float64) []int {
+func runCells(r *PlanPath, cellM float64) []int { return runCellsInto(r, cellM, new(scratch)) }
+
+// runCellsInto is runCells with its grid in sc's memory.
+func runCellsInto(r *PlanPath, cellM float64, sc *scratch) []int {
 	i0, i1, j0, j1 := r.latticeBox(cellM)
 	nx, ny := i1-i0+1, j1-j0+1
 	if nx <= 0 || ny <= 0 || nx*ny > maxCells {
 		return nil
 	}
-	covered := make([]bool, nx*ny)
+	sc.cover = grow(sc.cover, nx*ny)
+	covered := sc.cover
+	clear(covered)
 	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
 	var out []int
 	pj, pi := 0, 0

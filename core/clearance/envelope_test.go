@@ -191,3 +191,40 @@ func TestExclusionZoneIsA95By95Region(t *testing.T) {
 		t.Errorf("200 runs: %d inside", e.Inside)
 	}
 }
+
+func TestClosestSegmentIsTheFirstNearest(t *testing.T) {
+	// The bucketed search stops as soon as no bucket left can hold a
+	// nearer segment (nearest.wall): the distance and the first segment
+	// at it are those of trying every segment, for points near the path
+	// and far from it, on a path that comes back over itself (a trolley
+	// run out and back) and a zig-zag.
+	rng := rand.New(rand.NewPCG(3, 4))
+	var back, zig []Point2
+	for i := 0; i <= 400; i++ {
+		x := float64(i) * 0.05
+		if i > 200 {
+			x = float64(400-i) * 0.05
+		}
+		back = append(back, Point2{x, 0.01 * math.Sin(float64(i))})
+		zig = append(zig, Point2{float64(i) * 0.05, float64(i%40) * 0.1})
+	}
+	for _, path := range [][]Point2{back, zig} {
+		n := newNearest(path)
+		for k := 0; k < 4000; k++ {
+			q := path[rng.IntN(len(path))]
+			p := Point2{q.X + rng.NormFloat64()*0.3, q.Y + rng.NormFloat64()*0.3}
+			if k%4 == 0 {
+				p = Point2{rng.Float64()*40 - 10, rng.Float64()*40 - 10}
+			}
+			best, seg := math.Inf(1), 0
+			for i := 0; i+1 < len(path); i++ {
+				if d := pointSegmentDist2(p, path[i], path[i+1]); d < best {
+					best, seg = d, i
+				}
+			}
+			if d, s := n.closest(p); d != best || s != seg {
+				t.Fatalf("point %v: %g at segment %d, every segment %g at %d", p, d, s, best, seg)
+			}
+		}
+	}
+}

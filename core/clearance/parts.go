@@ -187,22 +187,25 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		// plan's rope range (that range is what the planner tries, not a
 		// limit of the crane), and the run plans nothing.
 		v.Plan = nil
-		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true})
+		sc := scratches.Get().(*scratch)
+		defer scratches.Put(sc)
+		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true, HistoryBuffer: &sc.hist})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}
 		run := RunOf(r)
-		near := c.site.checkRun(&run, c.opt.StepM)
+		near := c.site.checkRunWith(&run, c.opt.StepM, sc)
 		rp := RunPart{Near: near}
 		for n := range near {
 			if !finite(near[n].ClearanceM) || (near[n].Rope != nil && !finite(near[n].Rope.ClearanceM)) {
 				return fmt.Errorf("run %d: the path has no points", i)
 			}
 		}
-		plan := run.planPath(h, c.radiusM)
-		rp.StrayM = c.near.stray(plan.Points)
-		rp.Cells = runCells(&plan, c.opt.CellM)
-		d, low := c.track.runSection(&run, h, c.site.LoadRadiusM)
+		plan := run.planPathInto(h, c.radiusM, sc.points)
+		sc.points = plan.Points
+		rp.StrayM = c.near.strayInto(plan.Points, sc)
+		rp.Cells = runCellsInto(&plan, c.opt.CellM, sc)
+		d, low := c.track.runSectionInto(&run, h, c.site.LoadRadiusM, sc)
 		rp.bins = binSection(d, low, sectionBin(c.track.length()))
 		runs[k] = rp
 		return nil

@@ -43,10 +43,17 @@ type pathLengths struct {
 
 const coarseM = 0.25 // m between coarse samples
 
-func measurePath(path []Sample) *pathLengths {
+func measurePath(path []Sample) *pathLengths { return measurePathInto(path, new(scratch)) }
+
+// measurePathInto is measurePath in sc's memory.
+func measurePathInto(path []Sample, sc *scratch) *pathLengths {
 	n := len(path)
-	pl := &pathLengths{cum: make([]float64, n), cumPlan: make([]float64, n), coarse: []int{0}}
+	sc.cum, sc.plan = grow(sc.cum, n), grow(sc.plan, n)
+	pl := &pathLengths{cum: sc.cum, cumPlan: sc.plan, coarse: append(sc.coarse[:0], 0)}
 	cum, cumPlan := pl.cum, pl.cumPlan
+	if n > 0 {
+		cum[0], cumPlan[0] = 0, 0
+	}
 	for i := 1; i < n; i++ {
 		a, b := path[i-1].At, path[i].At
 		cum[i] = cum[i-1] + dist3(a, b)
@@ -55,6 +62,7 @@ func measurePath(path []Sample) *pathLengths {
 			pl.coarse = append(pl.coarse, i)
 		}
 	}
+	sc.coarse = pl.coarse
 	return pl
 }
 
@@ -72,7 +80,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 	least := math.Inf(1)
 	for m, i := range coarse {
 		vs[m], _, ds[m] = o.ballClearancePlan(path[i].At, radiusM)
-		least = math.Min(least, vs[m])
+		least = lower(least, vs[m])
 	}
 	keepV, keepD := math.Max(least, 0)+tolM, radiusM+tolM
 	lo, hi := outlineBox(o.Outline)
@@ -103,7 +111,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 		for k := 1; k <= steps; k++ {
 			f := float64(k) / float64(steps)
 			s, sp := cum[i]-cum[A]+f*length, cumPlan[i]-cumPlan[A]+f*lengthPlan
-			if math.Max(vs[m]-s, vs[m+1]-(span-s)) > keepV && math.Max(ds[m]-sp, ds[m+1]-(spanPlan-sp)) > keepD {
+			if upper(vs[m]-s, vs[m+1]-(span-s)) > keepV && upper(ds[m]-sp, ds[m+1]-(spanPlan-sp)) > keepD {
 				continue
 			}
 			offer(a.TimeS+f*(b.TimeS-a.TimeS), Point3{a.At.X + f*dx, a.At.Y + f*dy, a.At.Z + f*dz})
@@ -116,7 +124,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 func outlineBox(poly []Point2) (lo, hi Point2) {
 	lo, hi = Point2{math.Inf(1), math.Inf(1)}, Point2{math.Inf(-1), math.Inf(-1)}
 	for _, p := range poly {
-		lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+		lo.X, lo.Y, hi.X, hi.Y = lower(lo.X, p.X), lower(lo.Y, p.Y), upper(hi.X, p.X), upper(hi.Y, p.Y)
 	}
 	return lo, hi
 }

@@ -57,15 +57,15 @@ func (o *Obstacle) SegmentClearance(a, b Point3, stepM float64) (clearM float64,
 	// The distance between the boxes holding ab and an edge bounds theirs
 	// from below: an edge whose box is farther than the best so far is
 	// passed over.
-	x0, x1, y0, y1, z0 := min(a.X, b.X), max(a.X, b.X), min(a.Y, b.Y), max(a.Y, b.Y), min(a.Z, b.Z)
+	x0, x1, y0, y1, z0 := lower(a.X, b.X), upper(a.X, b.X), lower(a.Y, b.Y), upper(a.Y, b.Y), lower(a.Z, b.Z)
 	gap2 := func(ex0, ex1, ey0, ey1, ez1 float64) float64 {
-		dx, dy, dz := max(0, ex0-x1, x0-ex1), max(0, ey0-y1, y0-ey1), max(0, z0-ez1)
+		dx, dy, dz := beyond(ex0-x1, x0-ex1), beyond(ey0-y1, y0-ey1), beyond(z0-ez1, 0)
 		return dx*dx + dy*dy + dz*dz
 	}
 	for i := 0; i < n; i++ {
 		c, e := o.Outline[i], o.Outline[(i+1)%n]
 		top := Point3{c.X, c.Y, o.TopM}
-		if gap2(min(c.X, e.X), max(c.X, e.X), min(c.Y, e.Y), max(c.Y, e.Y), o.TopM) < best2 {
+		if gap2(lower(c.X, e.X), upper(c.X, e.X), lower(c.Y, e.Y), upper(c.Y, e.Y), o.TopM) < best2 {
 			if d2, p := segmentDist2(a, b, top, Point3{e.X, e.Y, o.TopM}); d2 < best2 {
 				best2, at = d2, p
 			}
@@ -156,4 +156,17 @@ func segmentDist2(p0, p1, q0, q1 Point3) (float64, Point3) {
 
 func dot3(a, b Point3) float64 { return a.X*b.X + a.Y*b.Y + a.Z*b.Z }
 
-func clamp01(v float64) float64 { return min(max(v, 0), 1) }
+// clamp01 is min(max(v, 0), 1) by comparisons (see minmax.go), NaN and
+// the sign of zero as those give.
+func clamp01(v float64) float64 {
+	if v > 0 {
+		if v < 1 {
+			return v
+		}
+		return 1
+	}
+	if v != v {
+		return v
+	}
+	return 0
+}

@@ -3,6 +3,7 @@ package clearance
 import (
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 )
 
@@ -11,6 +12,8 @@ import (
 func TestSegmentClearanceHandCases(t *testing.T) {
 	square := &Obstacle{Name: "stack", Outline: Rectangle(1, 1, 2, 2, 0), TopM: 3} // x, y in [0, 2], top 3 m
 	wall := &Obstacle{Name: "hoarding", Outline: []Point2{{0, 0}, {0.2, 0}, {0.2, 10}, {0, 10}}, TopM: 2.4}
+	ell := &Obstacle{Name: "L", Outline: []Point2{{0, 0}, {3, 0}, {3, 3}, {2, 3}, {2, 1}, {0, 1}}, TopM: 4}
+	diamond := &Obstacle{Name: "turned box", Outline: Rectangle(0, 0, 2, 2, 45), TopM: 3}
 	cases := []struct {
 		name    string
 		o       *Obstacle
@@ -51,13 +54,32 @@ func TestSegmentClearanceHandCases(t *testing.T) {
 		// side (x = 2.5) and 1 m below its top (z = 2): 0.5 m, square to
 		// the side face at the hook's height or above up to the top.
 		{"beside the side face", square, Point3{2.5, 1, 8}, Point3{2.5, 1, 2}, 0.5, false, Point3{2.5, 1, 2}},
+		// Hand computation: a plumb rope down to 1 m in the notch of an L
+		// (outline (0,0) (3,0) (3,3) (2,3) (2,1) (0,1), top 4 m) at
+		// (1, 2): 1 m from the face x = 2 and from the face y = 1 (the
+		// re-entrant corner (2, 1) is sqrt(2) m away): 1 m, not a strike.
+		{"in the notch of an L", ell, Point3{1, 2, 10}, Point3{1, 2, 1}, 1, false, Point3{1, 2, 1}},
+		// Hand computation: the rope from (1, 2, 10) to (2.5, 2, 2) comes
+		// over the L's arm (x = 2) at 10 - 8/1.5 = 4.67 m, above its 4 m
+		// top, and ends inside it 2 m up, 0.5 m from both faces x = 2 and
+		// x = 3 (1 m from y = 3, 2 m under the top): through it, deepest
+		// at its end, -0.5 m.
+		{"into the arm of an L", ell, Point3{1, 2, 10}, Point3{2.5, 2, 2}, -0.5, true, Point3{2.5, 2, 2}},
+		// Hand computation: a box of 2 by 2 m turned 45 deg about the
+		// origin has its corners at (+/-sqrt(2), 0) and (0, +/-sqrt(2));
+		// a plumb rope at (2, 0) down to 1 m is 2 - sqrt(2) = 0.5858 m
+		// from the corner's upright edge, below the 3 m top.
+		{"beside a turned box's corner", diamond, Point3{2, 0, 9}, Point3{2, 0, 1}, 2 - math.Sqrt2, false, Point3{2, 0, 1}},
 	}
 	for _, c := range cases {
 		v, at, strikes := c.o.SegmentClearance(c.a, c.b, 0.02)
 		if math.Abs(v-c.want) > 1e-9 || strikes != c.strikes {
 			t.Errorf("%s: clearance %.9f strikes %v, want %.9f %v (hand computation)", c.name, v, strikes, c.want, c.strikes)
 		}
-		if c.name != "beside the corner" && c.name != "beside the side face" && dist3(at, c.at) > 1e-9 {
+		// Beside an upright face or edge every height below the top is as
+		// near: the point is not checked there.
+		beside := strings.HasPrefix(c.name, "beside") || c.name == "in the notch of an L"
+		if !beside && dist3(at, c.at) > 1e-9 {
 			t.Errorf("%s: nearest at %+v, want %+v (hand computation)", c.name, at, c.at)
 		}
 		// Reversed, the same segment.

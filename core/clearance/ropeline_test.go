@@ -26,6 +26,9 @@ func TestRunLines(t *testing.T) {
 		// precast-panel-spreader: two parallel legs as long as the rope.
 		{"precast-panel-spreader", []string{"sling leg 1", "sling leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i]} }},
 		{"heavy-hook-long-slings", []string{"hoist rope", "rigging"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], 0} }},
+		// precast-beam-tandem: two hook ropes, named as the figures name
+		// them, 6 m (the rope length) and 6.2 m long.
+		{"precast-beam-tandem", []string{sway.HookRope(0), sway.HookRope(1)}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i] + 0.2} }},
 	}
 	for _, c := range cases {
 		s := testscenario.Example(t, c.example)
@@ -82,8 +85,8 @@ func TestRopeStrikesWhereTheLoadClears(t *testing.T) {
 	o := reps[0]
 	// Hand computation: the load's ball (radius 0.3 m about y = 1.4 m)
 	// comes to 1.4 - 0.3 - 0.8 = 0.3 m of the post's face y = 0.8 m.
-	if math.Abs(o.SmallestM-0.3) > 1e-9 || o.Strikes != 0 {
-		t.Errorf("load: smallest %g, strikes %d; want 0.3 m (hand computation), none", o.SmallestM, o.Strikes)
+	if math.Abs(o.SmallestM-0.3) > 1e-9 || o.LoadStrikes != 0 {
+		t.Errorf("load: smallest %g, strikes %d; want 0.3 m (hand computation), none", o.SmallestM, o.LoadStrikes)
 	}
 	// Hand computation: in the plane x = 0 the rope runs from (y, z) =
 	// (0, 12) to the ball's top, at (1.4, 4.1) + 0.3*(-1.4, 7.9)/8.023;
@@ -100,9 +103,14 @@ func TestRopeStrikesWhereTheLoadClears(t *testing.T) {
 	if o.KeepMargin != 0 || o.ShareKeepMargin != 0 {
 		t.Errorf("the obstacle is kept in %d runs", o.KeepMargin)
 	}
+	// The rope's strike is the obstacle's: struck in the one run, first
+	// by the rope, at the rope's moment.
+	if o.Strikes != 1 || o.ShareStrike != 1 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeS != rp.FirstStrikeS {
+		t.Errorf("strikes %d (share %g), first by %q at %g s; want 1 (1), the rope at %g s", o.Strikes, o.ShareStrike, o.FirstStrikeBy, o.FirstStrikeS, rp.FirstStrikeS)
+	}
 	ok, texts := Verdict(reps, site.MarginM)
 	if ok || !strings.Contains(texts[0], "the load and its rope keep 0.20 m from it in 0 of 1 runs") ||
-		!strings.Contains(texts[0], "the rope passes through it in 1 runs, the earliest 3.8 s into the move") {
+		!strings.Contains(texts[0], "it is struck in 1 of 1 runs, by its rope (the hoist rope deepest); first by its rope, 3.8 s into the move") {
 		t.Errorf("verdict %v %q", ok, texts)
 	}
 }

@@ -14,6 +14,7 @@ type RopeLine struct {
 	// move, and the largest half movement between moments (ErrorBoundM).
 	lo, hi []Point3
 	move   []float64
+	gap    []float64 // each stretch's boxGap from the obstacle being checked
 	errM   float64
 	// The clearance at sample i from the obstacle being checked, val[i],
 	// is known when seen[i] == gen (gen counts the obstacles).
@@ -22,18 +23,30 @@ type RopeLine struct {
 	gen  int
 }
 
+// reuse makes l the line name over the samples at timeS in its own
+// memory: its ends (to be filled in) and what it prepares. gen goes on
+// counting, so no sample is taken as checked against the obstacle.
+func (l *RopeLine) reuse(name string, timeS []float64) {
+	n := len(timeS)
+	l.Name, l.TimeS, l.A, l.B = name, timeS, grow(l.A, n), grow(l.B, n)
+	l.lo, l.hi, l.move, l.gap, l.errM = l.lo[:0], l.hi[:0], l.move[:0], l.gap[:0], 0
+}
+
 // prepare finds each stretch's box and movement, once.
 func (l *RopeLine) prepare(stepM float64) {
 	n := len(l.TimeS) - 1
 	if n < 1 || len(l.move) == n {
 		return
 	}
-	l.lo, l.hi, l.move = make([]Point3, n), make([]Point3, n), make([]float64, n)
-	l.val, l.seen = make([]float64, n+1), make([]int, n+1)
+	l.lo, l.hi, l.move, l.gap = grow(l.lo, n), grow(l.hi, n), grow(l.move, n), grow(l.gap, n)
+	if cap(l.seen) < n+1 {
+		l.val, l.seen = make([]float64, n+1), make([]int, n+1)
+	}
+	l.val, l.seen = l.val[:n+1], l.seen[:n+1]
 	for i := range n {
 		a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-		l.lo[i] = Point3{min(a0.X, b0.X, a1.X, b1.X), min(a0.Y, b0.Y, a1.Y, b1.Y), min(a0.Z, b0.Z, a1.Z, b1.Z)}
-		l.hi[i] = Point3{max(a0.X, b0.X, a1.X, b1.X), max(a0.Y, b0.Y, a1.Y, b1.Y), max(a0.Z, b0.Z, a1.Z, b1.Z)}
+		l.lo[i] = Point3{lower(lower(a0.X, b0.X), lower(a1.X, b1.X)), lower(lower(a0.Y, b0.Y), lower(a1.Y, b1.Y)), lower(lower(a0.Z, b0.Z), lower(a1.Z, b1.Z))}
+		l.hi[i] = Point3{upper(upper(a0.X, b0.X), upper(a1.X, b1.X)), upper(upper(a0.Y, b0.Y), upper(a1.Y, b1.Y)), upper(upper(a0.Z, b0.Z), upper(a1.Z, b1.Z))}
 		m := max(dist3(a0, a1), dist3(b0, b1))
 		l.move[i] = m
 		if m/2 > l.errM {
@@ -94,13 +107,15 @@ func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Close
 	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
 	first, least := 0, math.Inf(1)
 	for i := range n - 1 {
-		if b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]); b < least {
+		b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i])
+		l.gap[i] = b
+		if b < least {
 			first, least = i, b
 		}
 	}
 	w.stretch(first)
 	for i := range n - 1 {
-		if i != first && (every || boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i]) <= max(c.ClearanceM, 0)) {
+		if i != first && (every || l.gap[i] <= atLeast0(c.ClearanceM)) {
 			w.stretch(i)
 		}
 	}
@@ -145,7 +160,7 @@ func (w *lineWatch) stretch(i int) {
 		if j1-j0 < 2 {
 			return
 		}
-		if !w.every && (v0+v1-m*float64(j1-j0)/float64(k))/2 > max(w.c.ClearanceM, 0) {
+		if !w.every && (v0+v1-m*float64(j1-j0)/float64(k))/2 > atLeast0(w.c.ClearanceM) {
 			return
 		}
 		j := (j0 + j1) / 2
@@ -170,6 +185,15 @@ func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, st
 	return v
 }
 
+// atLeast0 is max(c, 0) for a clearance found so far (never NaN: a NaN
+// clearance is never taken as smaller).
+func atLeast0(c float64) float64 {
+	if c > 0 {
+		return c
+	}
+	return 0
+}
+
 // moments is the grid of a stretch whose ends move m: the least power
 // of two k with m/k at most stepM.
 func moments(m, stepM float64) int {
@@ -183,8 +207,8 @@ func moments(m, stepM float64) int {
 // boxGap is the distance between the box from lo3 to hi3 and the box of
 // the outline (lo, hi) from below up to topM.
 func boxGap(lo, hi Point2, topM float64, lo3, hi3 Point3) float64 {
-	dx := max(0, lo.X-hi3.X, lo3.X-hi.X)
-	dy := max(0, lo.Y-hi3.Y, lo3.Y-hi.Y)
-	dz := max(0, lo3.Z-topM)
+	dx := beyond(lo.X-hi3.X, lo3.X-hi.X)
+	dy := beyond(lo.Y-hi3.Y, lo3.Y-hi.Y)
+	dz := beyond(lo3.Z-topM, 0)
 	return math.Sqrt(dx*dx + dy*dy + dz*dz)
 }

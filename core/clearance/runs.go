@@ -29,6 +29,8 @@ type Run struct {
 	HookRelXM, HookRelYM, HookRelZM []float64
 	LegTopXM, LegTopYM, LegTopZM    [][]float64
 	LegEndXM, LegEndYM, LegEndZM    [][]float64
+	// TwoRopes is true when the legs are two hook ropes (load.body.tandem).
+	TwoRopes bool
 }
 
 // RunOf takes a run from an evaluation's time histories.
@@ -42,6 +44,7 @@ func RunOf(r *sway.Result) Run {
 		run.CornerXM, run.CornerYM, run.CornerZM = b.CornerXM, b.CornerYM, b.CornerZM
 		run.LegTopXM, run.LegTopYM, run.LegTopZM = b.LegTopXM, b.LegTopYM, b.LegTopZM
 		run.LegEndXM, run.LegEndYM, run.LegEndZM = b.LegEndXM, b.LegEndYM, b.LegEndZM
+		run.TwoRopes = r.Body.Suspension == sway.TwoRopes
 	}
 	return run
 }
@@ -51,7 +54,12 @@ func (r *Run) Rigid() bool { return len(r.CornerXM) == 8 }
 
 // Path is the load's centre on the ground frame, z up from the floor.
 func (r *Run) Path(suspensionHeightM float64) []Sample {
-	out := make([]Sample, len(r.TimeS))
+	return r.pathInto(suspensionHeightM, nil)
+}
+
+// pathInto is Path in buf's memory (see scratch).
+func (r *Run) pathInto(suspensionHeightM float64, buf []Sample) []Sample {
+	out := grow(buf, len(r.TimeS))
 	for i, t := range r.TimeS {
 		out[i] = Sample{TimeS: t, At: r.centre(i, suspensionHeightM)}
 	}
@@ -100,7 +108,12 @@ func (r *Run) HookM(i int, suspensionHeightM float64) float64 {
 // planPath is the run seen from above for the envelopes: the centre's
 // points and, for a rigid load, the box's outline at each sample.
 func (r *Run) planPath(h, radiusM float64) PlanPath {
-	pts := make([]Point2, len(r.TimeS))
+	return r.planPathInto(h, radiusM, nil)
+}
+
+// planPathInto is planPath with its points in buf's memory (see scratch).
+func (r *Run) planPathInto(h, radiusM float64, buf []Point2) PlanPath {
+	pts := grow(buf, len(r.TimeS))
 	for i := range r.TimeS {
 		pts[i] = r.centre(i, h).Plan()
 	}
@@ -122,18 +135,32 @@ func (r *Run) planPath(h, radiusM float64) PlanPath {
 // Lines is the hoisting gear of the run as straight lines (RopeLine), z up
 // from the floor: the hoist rope from the suspension point to the hook;
 // below a hook block the rigging to the load; a rigid load's sling legs
-// from the hook (or their top points) to their attach points. The rope
+// from the hook (or their top points) to their attach points, named
+// "sling leg N", or two hook ropes (load.body.tandem) from their
+// suspension points, named as everywhere (sway.HookRope). The rope
 // of a point load ends at the load's ball of radiusM (the ball is
 // checked as the load), and so does the rigging below a hook block.
-// Parallel legs have no hoist rope of their own (their tops are the
-// suspension points).
+// Parallel legs and two hook ropes have no hoist rope of their own
+// (their tops are the suspension points).
 func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
+	return r.linesInto(suspensionHeightM, radiusM, nil)
+}
+
+// linesInto is Lines in the memory of the lines in buf (see scratch):
+// each line's ends and what it prepares (RopeLine.reuse).
+func (r *Run) linesInto(suspensionHeightM, radiusM float64, buf []RopeLine) []RopeLine {
 	h, n := suspensionHeightM, len(r.TimeS)
 	if n == 0 || len(r.SuspensionXM) < n {
 		return nil
 	}
 	susp := func(i int) Point3 { return Point3{r.SuspensionXM[i], r.SuspensionYM[i], h} }
+	out := buf[:0]
 	line := func(name string) RopeLine {
+		if k := len(out); k < cap(out) {
+			l := out[:k+1][k]
+			l.reuse(name, r.TimeS)
+			return l
+		}
 		return RopeLine{Name: name, TimeS: r.TimeS, A: make([]Point3, n), B: make([]Point3, n)}
 	}
 	// toBall shortens the line from a to the centre c by the ball's radius.
@@ -144,9 +171,10 @@ func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 		}
 		return lerp3(c, a, radiusM/d)
 	}
-	var out []RopeLine
 	hooked := len(r.HookRelXM) == n
-	if len(r.LegTopXM) == 0 || hooked {
+	// Two hook ropes have no hoist rope between them: the history's hook
+	// is then the crane's suspension point itself.
+	if (len(r.LegTopXM) == 0 || hooked) && !r.TwoRopes {
 		rope := line("hoist rope")
 		for i := range n {
 			rope.A[i] = susp(i)
@@ -161,7 +189,11 @@ func (r *Run) Lines(suspensionHeightM, radiusM float64) []RopeLine {
 	switch {
 	case len(r.LegTopXM) > 0:
 		for k := range r.LegTopXM {
-			leg := line(fmt.Sprintf("sling leg %d", k+1))
+			name := fmt.Sprintf("sling leg %d", k+1)
+			if r.TwoRopes {
+				name = sway.HookRope(k)
+			}
+			leg := line(name)
 			for i := range n {
 				leg.A[i] = Point3{r.LegTopXM[k][i], r.LegTopYM[k][i], h + r.LegTopZM[k][i]}
 				leg.B[i] = Point3{r.LegEndXM[k][i], r.LegEndYM[k][i], h + r.LegEndZM[k][i]}

@@ -84,7 +84,13 @@ func sectionBin(lengthM float64) float64 { return math.Max(lengthM/200, 0.05) }
 // runSection is a run's distance along the track and its lowest point's
 // height at each sample.
 func (k *track) runSection(run *Run, h, r float64) (d, low []float64) {
-	d, low = make([]float64, len(run.TimeS)), make([]float64, len(run.TimeS))
+	return k.runSectionInto(run, h, r, new(scratch))
+}
+
+// runSectionInto is runSection in sc's memory.
+func (k *track) runSectionInto(run *Run, h, r float64, sc *scratch) (d, low []float64) {
+	sc.d, sc.low = grow(sc.d, len(run.TimeS)), grow(sc.low, len(run.TimeS))
+	d, low = sc.d, sc.low
 	for i := range run.TimeS {
 		d[i], low[i] = k.distance(run.centre(i, h).Plan()), run.LowM(i, h, r)
 	}

@@ -35,10 +35,17 @@ type ObstacleReport struct {
 	// one-sided 95 % lower confidence bound (Clopper-Pearson).
 	ShareKeepMargin    float64 `json:"share_keep_margin"`
 	ShareKeepMarginLow float64 `json:"share_keep_margin_low"`
-	// Strikes is how many runs strike it; FirstStrikeS the earliest moment
-	// of a strike over all runs (zero when none strikes).
-	Strikes      int     `json:"strikes"`
-	FirstStrikeS float64 `json:"first_strike_s"`
+	// Strikes is how many runs strike it, by the load or its hoisting
+	// gear (Rope: hoist rope, rigging, sling legs, hook ropes), a run
+	// counted once; LoadStrikes how many of them by the load (the gear's
+	// own count is Rope.Strikes). FirstStrikeS is the earliest moment of a
+	// strike over all runs (zero when none strikes), and FirstStrikeBy
+	// what struck then: StruckByLoad or StruckByRope (Rope.Part names the
+	// line that passes deepest through it).
+	Strikes       int     `json:"strikes"`
+	LoadStrikes   int     `json:"load_strikes,omitempty"`
+	FirstStrikeS  float64 `json:"first_strike_s"`
+	FirstStrikeBy string  `json:"first_strike_by,omitempty"`
 	// ShareStrike is Strikes/Runs: how often it is hit.
 	ShareStrike float64 `json:"share_strike"`
 	// ClearanceP5M is the clearance that 95 % of the runs keep (the 5th
@@ -51,7 +58,8 @@ type ObstacleReport struct {
 	// SmallestAtDistanceM is where that is along the crane's path, and
 	// FirstStrikeAtDistanceM where the earliest strike is: the distance
 	// of the load's centre (see Section; a long load's end reaches an
-	// obstacle well before its centre does).
+	// obstacle well before its centre does), or of the rope's point in
+	// the obstacle when the rope struck first.
 	SmallestAtDistanceM    float64 `json:"smallest_at_distance_m"`
 	FirstStrikeAtDistanceM float64 `json:"first_strike_at_distance_m"`
 	// Vertical is the gap below the load while it passes over the
@@ -87,6 +95,12 @@ type RopeReport struct {
 	Part                   string  `json:"part"`
 	ErrorBoundM            float64 `json:"error_bound_m"`
 }
+
+// What struck an obstacle first (ObstacleReport.FirstStrikeBy).
+const (
+	StruckByLoad = "load"
+	StruckByRope = "rope"
+)
 
 // Required is the share of runs that must keep the margin from every
 // obstacle for the lift to clear.
@@ -125,15 +139,24 @@ func (s *Site) check(runs []Run, stepM float64) ([]ObstacleReport, []Closest, er
 // checkRun is one run's Closest to each obstacle: a rigid load's box, or
 // the ball about the load's centre, and the hoisting gear's lines (Rope).
 func (s *Site) checkRun(r *Run, stepM float64) []Closest {
+	return s.checkRunWith(r, stepM, new(scratch))
+}
+
+// checkRunWith is checkRun in sc's memory.
+func (s *Site) checkRunWith(r *Run, stepM float64, sc *scratch) []Closest {
 	out := make([]Closest, len(s.Obstacles))
 	var path []Sample
 	var boxes []BoxSample
 	if r.Rigid() {
 		boxes = r.Boxes(s.SuspensionHeightM)
 	} else {
-		path = r.Path(s.SuspensionHeightM)
+		path = r.pathInto(s.SuspensionHeightM, sc.path)
+		sc.path = path
 	}
-	lines := r.Lines(s.SuspensionHeightM, s.LoadRadiusM)
+	lines := r.linesInto(s.SuspensionHeightM, s.LoadRadiusM, sc.lines)
+	if len(lines) > 0 {
+		sc.lines = lines
+	}
 	var pl *pathLengths
 	for k := range s.Obstacles {
 		switch {
@@ -143,7 +166,7 @@ func (s *Site) checkRun(r *Run, stepM float64) []Closest {
 			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
 		default:
 			if pl == nil {
-				pl = measurePath(path)
+				pl = measurePathInto(path, sc)
 			}
 			out[k] = s.Obstacles[k].alongPathWith(path, pl, s.LoadRadiusM, stepM)
 		}
@@ -167,6 +190,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 		load, rope := newTally(len(near)), newTally(0)
 		w := Closest{GapM: math.Inf(1)}
 		var gaps []float64
+		var hit struck
 		for i := range near {
 			c := &near[i][k]
 			ropeKeeps := true
@@ -175,6 +199,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 				rope.add(c.Rope, ropeKeeps)
 			}
 			load.add(c, c.keeps(s.MarginM) && ropeKeeps)
+			hit.add(c)
 			if !math.IsInf(c.GapM, 1) {
 				gaps = append(gaps, c.GapM)
 				if c.GapM < w.GapM {
@@ -183,7 +208,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 			}
 		}
 		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), KeepMargin: load.keep,
-			Strikes: load.strikes, FirstStrikeS: load.firstS, ClearanceP5M: load.p5(),
+			Strikes: hit.runs, LoadStrikes: load.strikes, FirstStrikeS: hit.firstS, FirstStrikeBy: hit.by, ClearanceP5M: load.p5(),
 			SmallestM: load.smallestM, SmallestAtS: load.smallestAtS, SmallestAt: load.smallestAt, ErrorBoundM: load.boundM}
 		rep.Rope, w.Rope = rope.rope()
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
@@ -194,7 +219,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 			rep.Vertical = &Vertical{Runs: len(gaps), SmallestM: w.GapM, AtS: w.GapAtS,
 				P5M: gaps[nearestRank(0.05, len(gaps))]}
 		}
-		w.FirstStrikeAt, w.At = load.firstAt, rep.SmallestAt
+		w.FirstStrikeAt, w.At = hit.firstAt, rep.SmallestAt
 		out[k], where[k] = rep, w
 	}
 	return out, where
@@ -220,8 +245,14 @@ func Verdict(reports []ObstacleReport, marginM float64) (ok bool, texts []string
 // the page and the sheet to give in the units shown.
 func VerdictSentences(reports []ObstacleReport, marginM float64) (ok bool, ss []words.Sentence) {
 	ok = true
+	var few []words.Sentence // obstacles kept, but struck in a few runs
 	for _, r := range reports {
 		if r.ShareKeepMargin >= Required {
+			// Kept, but struck in a few runs: said all the same.
+			if r.Strikes > 0 {
+				text := fmt.Sprintf("%s: kept clear by the margin {0} in %d of %d runs", braces(r.Name), r.KeepMargin, r.Runs) + strikeWords(&r)
+				few = append(few, strikeSentence(text, &r, marginM))
+			}
 			continue
 		}
 		ok = false
@@ -236,17 +267,10 @@ func VerdictSentences(reports []ObstacleReport, marginM float64) (ok bool, ss []
 		} else {
 			text = strings.Replace(text, "keep{0}", "keep {0}", 1)
 		}
-		qs := []words.Quantity{words.Length(marginM)}
 		if r.Strikes > 0 {
-			text += fmt.Sprintf("; it strikes it in %d runs, the earliest {%d} into the move, {%d} along the path", r.Strikes, len(qs), len(qs)+1)
-			qs = append(qs, words.Time(r.FirstStrikeS), words.Length(r.FirstStrikeAtDistanceM))
+			text += strikeWords(&r)
 		}
-		if rp := r.Rope; rp != nil && rp.Strikes > 0 {
-			text += fmt.Sprintf("; the rope passes through it in %d runs, the earliest {%d} into the move, {%d} along the path, {%d} up",
-				rp.Strikes, len(qs), len(qs)+1, len(qs)+2)
-			qs = append(qs, words.Time(rp.FirstStrikeS), words.Length(rp.FirstStrikeAtDistanceM), words.Length(rp.FirstStrikeAtHeightM))
-		}
-		ss = append(ss, words.Say(text+".", qs...))
+		ss = append(ss, strikeSentence(text, &r, marginM))
 	}
 	if ok {
 		who := "The load keeps"
@@ -257,9 +281,57 @@ func VerdictSentences(reports []ObstacleReport, marginM float64) (ok bool, ss []
 		}
 		ss = append(ss, words.Say(fmt.Sprintf("%s {0} from every obstacle in at least %.0f %% of the runs.", who, 100*Required), words.Length(marginM)))
 	}
-	return ok, ss
+	return ok, append(ss, few...)
 }
 
 // braces makes a name safe inside a sentence's text: its braces become
 // parentheses, so that none reads as a placeholder.
 func braces(name string) string { return strings.NewReplacer("{", "(", "}", ")").Replace(name) }
+
+// strikeSentence is an obstacle's sentence with its quantities: the
+// margin, and with a strike those of strikeWords.
+func strikeSentence(text string, r *ObstacleReport, marginM float64) words.Sentence {
+	qs := []words.Quantity{words.Length(marginM)}
+	if r.Strikes > 0 {
+		qs = append(qs, words.Time(r.FirstStrikeS), words.Length(r.FirstStrikeAtDistanceM))
+		if r.FirstStrikeBy == StruckByRope {
+			qs = append(qs, words.Length(r.Rope.FirstStrikeAtHeightM))
+		}
+	}
+	return words.Say(text+".", qs...)
+}
+
+// strikeWords say how often the obstacle is struck and by what, and the
+// first strike: its moment {1}, where along the path {2} and, when the
+// rope struck first, how high up {3} (the margin is {0}).
+func strikeWords(r *ObstacleReport) string {
+	text := fmt.Sprintf("; it is struck in %d of %d runs", r.Strikes, r.Runs)
+	ropeN := 0
+	if r.Rope != nil {
+		ropeN = r.Rope.Strikes
+	}
+	switch {
+	case ropeN == 0:
+		text += ", by the load"
+	case r.LoadStrikes == 0:
+		text += fmt.Sprintf(", by its rope (%s deepest)", LineWords(r.Rope.Part))
+	default:
+		text += fmt.Sprintf(": by the load in %d, by its rope in %d (%s deepest)", r.LoadStrikes, ropeN, LineWords(r.Rope.Part))
+	}
+	if r.FirstStrikeBy == StruckByRope {
+		return text + "; first by its rope, {1} into the move, {2} along the path, {3} up"
+	}
+	if ropeN > 0 {
+		return text + "; first by the load, {1} into the move, {2} along the path"
+	}
+	return text + "; first {1} into the move, {2} along the path"
+}
+
+// LineWords is a line of the hoisting gear as a sentence names it: "the
+// hoist rope", "the rigging", "sling leg 2", "hook rope 1".
+func LineWords(name string) string {
+	if name == "" || (name[len(name)-1] >= '0' && name[len(name)-1] <= '9') {
+		return name
+	}
+	return "the " + name
+}

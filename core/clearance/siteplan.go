@@ -80,7 +80,12 @@ func PlanSite(s *scenario.Scenario, res *plan.Result, opt Options) (*SitePlan, e
 			continue
 		}
 		so.Checked, so.Clears = true, rep.Clears
-		so.Worst, so.ShareKeepMargin, so.SmallestM = worst(rep)
+		if w := worst(rep); w != nil {
+			so.Worst, so.ShareKeepMargin, so.SmallestM = w.Name, w.ShareKeepMargin, w.SmallestM
+			so.Strikes, so.FirstStrikeBy = w.Strikes, w.FirstStrikeBy
+		} else {
+			so.ShareKeepMargin = 1
+		}
 		if rep.Clears && out.Fastest < 0 {
 			out.Fastest = i
 		}
@@ -123,18 +128,17 @@ func drawn(s *scenario.Scenario, sp draws.Spread, seed int) Variant {
 	return func(i int) *scenario.Scenario { return draws.Draw(s, sp, uint64(seed), i) }
 }
 
-// worst is the obstacle kept clear in the fewest runs.
-func worst(rep *Report) (string, float64, float64) {
-	name, share, smallest := "", 2.0, 0.0
-	for _, o := range rep.Obstacles {
-		if o.ShareKeepMargin < share || (o.ShareKeepMargin == share && o.SmallestM < smallest) {
-			name, share, smallest = o.Name, o.ShareKeepMargin, o.SmallestM
+// worst is the obstacle kept clear in the fewest runs (then the one the
+// load comes closest to), nil when the site has none.
+func worst(rep *Report) *ObstacleReport {
+	var w *ObstacleReport
+	for i := range rep.Obstacles {
+		o := &rep.Obstacles[i]
+		if w == nil || o.ShareKeepMargin < w.ShareKeepMargin || (o.ShareKeepMargin == w.ShareKeepMargin && o.SmallestM < w.SmallestM) {
+			w = o
 		}
 	}
-	if name == "" {
-		return "", 1, 0
-	}
-	return name, share, smallest
+	return w
 }
 
 // topSpeed searches the drive-limits move's top speed (see TopSpeed).
@@ -187,7 +191,10 @@ func topSpeed(res *plan.Result, limits *Report, check func(scenario.Motion) (*Re
 				return false, false
 			}
 		}
-		_, share, _ := worst(rep)
+		share := 1.0
+		if w := worst(rep); w != nil {
+			share = w.ShareKeepMargin
+		}
 		ts.Tested = append(ts.Tested, SpeedTried{Speed: v, Clears: rep.Clears, ShareKeepMargin: share})
 		return rep.Clears, true
 	}
@@ -267,7 +274,15 @@ func planWords(marginM float64, res *plan.Result, sp *SitePlan) []words.Sentence
 		if so.Clears {
 			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) keeps it.", so.Label)))
 		} else {
-			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs.", so.Label, so.Worst, 100*so.ShareKeepMargin)))
+			struck := ""
+			if so.Strikes > 0 {
+				by := "the load"
+				if so.FirstStrikeBy == StruckByRope {
+					by = "its rope"
+				}
+				struck = fmt.Sprintf(", and struck in %d of %d (first by %s)", so.Strikes, sp.RunsPerCheck, by)
+			}
+			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs%s.", so.Label, so.Worst, 100*so.ShareKeepMargin, struck)))
 		}
 	}
 	if ts := sp.TopSpeed; ts != nil {

@@ -69,3 +69,29 @@ func (t *tally) rope() (*RopeReport, *Closest) {
 	}
 	return rep, &Closest{FirstStrikeAt: t.firstAt, At: t.smallestAt}
 }
+
+// struck counts the runs in which the load or its hoisting gear strikes
+// one obstacle (a run once), with the earliest strike over them and what
+// made it (the load when both strike at the same moment).
+type struck struct {
+	runs    int
+	firstS  float64
+	firstAt Point3
+	by      string
+}
+
+// add counts one run's closest approach c of the load (c.Rope the gear's).
+func (h *struck) add(c *Closest) {
+	r := c.Rope
+	if !c.Strikes && (r == nil || !r.Strikes) {
+		return
+	}
+	first := h.runs == 0
+	h.runs++
+	if c.Strikes && (first || c.FirstStrikeS < h.firstS) {
+		h.firstS, h.firstAt, h.by, first = c.FirstStrikeS, c.FirstStrikeAt, StruckByLoad, false
+	}
+	if r != nil && r.Strikes && (first || r.FirstStrikeS < h.firstS) {
+		h.firstS, h.firstAt, h.by = r.FirstStrikeS, r.FirstStrikeAt, StruckByRope
+	}
+}

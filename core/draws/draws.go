@@ -121,7 +121,7 @@ func Run(s *scenario.Scenario, req Request, workers int) (*Result, error) {
 	f.ResidualSwingDeg = make([]float64, count)
 	f.TensionFactor = make([]float64, count)
 	err := Each(count, workers, func(i int) error {
-		r, err := sway.EvaluateWith(Draw(s, req.Spread, req.Seed, req.First+i), sway.Options{NoHistory: true})
+		r, err := sway.EvaluateWith(Draw(s, req.Spread, req.Seed, req.First+i), sway.Options{NoHistory: true, NoModePeriods: true})
 		if err != nil {
 			return fmt.Errorf("draw %d of seed %d: %w", req.First+i, req.Seed, err)
 		}

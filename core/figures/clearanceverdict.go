@@ -11,7 +11,8 @@ import (
 // (the margin kept in at least clearance.Required of the runs, as
 // clearance.VerdictSentences): keeps, and the words in the units of u,
 // e.g. "keeps 0.3 m in 97 % of the runs (95 % needed)" or "does NOT keep
-// 0.3 m: 80 % of the runs do (95 % needed); struck in 4 %".
+// 0.3 m: 80 % of the runs do (95 % needed); struck in 4 % of the runs,
+// by the load".
 func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choice) (bool, string) {
 	margin := Figure{Unit: "m"}.row(marginM, u)
 	share := func(v float64) string {
@@ -20,14 +21,32 @@ func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choic
 	}
 	need := share(clearance.Required)
 	m := margin.Text + unitText(margin.Unit)
-	if o.ShareKeepMargin >= clearance.Required {
-		return true, "keeps " + m + " in " + share(o.ShareKeepMargin) + " of the runs (" + need + " needed)"
-	}
+	keeps := o.ShareKeepMargin >= clearance.Required
 	w := "does NOT keep " + m + ": " + share(o.ShareKeepMargin) + " of the runs do (" + need + " needed)"
-	if o.Strikes > 0 {
-		w += "; the load strikes it in " + share(o.ShareStrike) + " of the runs"
+	if keeps {
+		w = "keeps " + m + " in " + share(o.ShareKeepMargin) + " of the runs (" + need + " needed)"
 	}
-	return false, w
+	if o.Strikes > 0 {
+		w += "; struck in " + share(o.ShareStrike) + " of the runs"
+		ropeN := 0
+		if o.Rope != nil {
+			ropeN = o.Rope.Strikes
+		}
+		runs := float64(o.Runs)
+		switch {
+		case ropeN == 0:
+			w += ", by the load"
+		case o.LoadStrikes == 0:
+			w += ", by its rope (" + clearance.LineWords(o.Rope.Part) + " deepest)"
+		default:
+			first := "the load"
+			if o.FirstStrikeBy == clearance.StruckByRope {
+				first = "its rope"
+			}
+			w += " (by the load in " + share(float64(o.LoadStrikes)/runs) + ", by its rope in " + share(float64(ropeN)/runs) + "), first by " + first
+		}
+	}
+	return keeps, w
 }
 
 // worstFirst orders the obstacles as the planner's worst one is found

@@ -224,3 +224,24 @@ func limitOf(l *scenario.Limits, name string) *float64 {
 	}
 	return nil
 }
+
+// presentValue presents v (SI) as the figure key of the table would be in
+// a result of s: its words, unit and rounding, and, when s sets the
+// figure's limit, the check against it. False when the table has no such
+// figure. For figures gathered outside one result (the spread over many
+// runs, core/draws).
+func presentValue(s *scenario.Scenario, key string, v float64, u units.Choice) (Row, bool) {
+	for _, f := range Table {
+		if f.Key != key {
+			continue
+		}
+		row := f.row(v, u)
+		if f.Limit != "" && s != nil {
+			if lim := limitOf(s.Limits, f.Limit); lim != nil {
+				row.Check = check(v, *lim, u.Unit(row.Quantity), row.Unit)
+			}
+		}
+		return row, true
+	}
+	return Row{}, false
+}

@@ -102,13 +102,13 @@ var Table = []Figure{
 		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTwistDeg }, false)},
 	{Key: "body.peak_corner_swing_m", Crew: "a corner swings out by", Technical: "peak corner swing (horizontal, from where it hangs still)",
 		Unit: "m", Value: bodied(func(b *sway.Body) float64 { return b.PeakCornerSwingM }, false)},
-	{Key: "body.legs[0].weight_share", Crew: "hook rope 1 holds, hanging still", Technical: "share of the load's weight on hook rope 1 (load.body.tandem.ropes[0])",
+	{Key: "body.legs[0].weight_share", Crew: sway.HookRope(0) + " holds, hanging still", Technical: "share of the load's weight on " + sway.HookRope(0) + " (load.body.tandem.ropes[0])",
 		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.WeightShare })},
-	{Key: "body.legs[1].weight_share", Crew: "hook rope 2 holds, hanging still", Technical: "share of the load's weight on hook rope 2 (load.body.tandem.ropes[1])",
+	{Key: "body.legs[1].weight_share", Crew: sway.HookRope(1) + " holds, hanging still", Technical: "share of the load's weight on " + sway.HookRope(1) + " (load.body.tandem.ropes[1])",
 		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.WeightShare })},
-	{Key: "body.legs[0].tension_max_n", Crew: "largest pull in hook rope 1", Technical: "peak tension of hook rope 1",
+	{Key: "body.legs[0].tension_max_n", Crew: "largest pull in " + sway.HookRope(0), Technical: "peak tension of " + sway.HookRope(0),
 		Unit: "N", Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
-	{Key: "body.legs[1].tension_max_n", Crew: "largest pull in hook rope 2", Technical: "peak tension of hook rope 2",
+	{Key: "body.legs[1].tension_max_n", Crew: "largest pull in " + sway.HookRope(1), Technical: "peak tension of " + sway.HookRope(1),
 		Unit: "N", Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
 	{Key: "body.leg_tension_max_n", Crew: "largest pull in a sling leg", Technical: "peak leg tension",
 		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMaxN })},
@@ -181,7 +181,7 @@ func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
 // the load has them (two hook ropes have their own figures).
 func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil || r.Body.Suspension == "two ropes" {
+		if r.Body == nil || r.Body.Suspension == sway.TwoRopes {
 			return 0, false
 		}
 		return f(r.Body), true
@@ -192,7 +192,7 @@ func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
 // when the load hangs from two hook ropes.
 func tandemRope(i int, f func(*sway.LegLoad) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil || r.Body.Suspension != "two ropes" || len(r.Body.Legs) <= i {
+		if r.Body == nil || r.Body.Suspension != sway.TwoRopes || len(r.Body.Legs) <= i {
 			return 0, false
 		}
 		return f(&r.Body.Legs[i]), true

@@ -77,6 +77,7 @@ type Solver struct {
 	tmp      []float64
 	cont     [5][]float64
 	facOld   float64
+	facPow   float64 // facOld^beta, taken when facOld is set
 	started  bool
 	fresh    bool // k[0] holds f(t, y)
 	Accepted int  // accepted steps
@@ -124,7 +125,11 @@ func (v *Solver) Reset(t float64, y []float64) {
 	copy(v.y, y)
 	v.fresh = false
 	v.facOld = 1e-4
+	v.facPow = math.Exp(stepBeta * math.Log(1e-4))
 }
+
+// stepBeta is the Lund stabilisation exponent of the step control.
+const stepBeta = 0.04
 
 // SetState replaces the current state (for instance after projecting it onto
 // a constraint) without moving in time.
@@ -223,7 +228,7 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		v.h = v.initialStep(tEnd)
 		v.started = true
 	}
-	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, 0.04
+	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, stepBeta
 	const expo1 = 0.2 - beta*0.75
 	span := tEnd - v.t
 	for {
@@ -274,11 +279,20 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		if math.IsNaN(errv) || math.IsInf(errv, 0) {
 			errv = 1e10
 		}
-		fac11 := math.Pow(errv, expo1)
-		fac := fac11 / math.Pow(v.facOld, beta)
+		// The powers as Exp(y*Log(x)): that is what math.Pow computes for
+		// 0 < y < 1/2, to the bit, after reductions that cost more than a
+		// step's arithmetic in wasm (TestStepPowersAreMathPow); facOld^beta
+		// is taken once per accepted step.
+		logErr := math.Log(errv)
+		fac11 := math.Exp(expo1 * logErr)
+		fac := fac11 / v.facPow
 		fac = math.Max(1/facMax, math.Min(1/facMin, fac/safe))
 		if errv <= 1 {
 			v.facOld = math.Max(errv, 1e-4)
+			if errv < 1e-4 {
+				logErr = math.Log(1e-4)
+			}
+			v.facPow = math.Exp(beta * logErr)
 			v.Accepted++
 			for i := range n {
 				ydiff := ynew[i] - y[i]
@@ -318,5 +332,34 @@ func (v *Solver) Dense(t float64, out []float64) {
 	c0, c1, c2, c3, c4 := v.cont[0][:n], v.cont[1][:n], v.cont[2][:n], v.cont[3][:n], v.cont[4][:n]
 	for i := range out {
 		out[i] = c0[i] + s*(c1[i]+s1*(c2[i]+s*(c3[i]+s1*c4[i])))
+	}
+}
+
+// Rate returns f(t1, y1) at the end t1 of the last accepted step: the next
+// step's first stage, kept by first-same-as-last (evaluated before any
+// projection of the state). The slice belongs to the solver.
+func (v *Solver) Rate() []float64 { return v.k[0] }
+
+// DenseRate writes into out the time derivative of the continuous
+// extension of the last accepted step at t. With
+// y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))), s = (t - t0)/h, s1 = 1 - s:
+// dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P), P = c2 + s(c3 + s1 c4),
+// Q = c1 + s1 P, and dy/dt = (dy/ds)/h.
+func (v *Solver) DenseRate(t float64, out []float64) {
+	h := v.t - v.told
+	n := v.n
+	out = out[:n]
+	if h <= 0 {
+		copy(out, v.k[0])
+		return
+	}
+	s := (t - v.told) / h
+	s1 := 1 - s
+	ih := 1 / h
+	c1, c2, c3, c4 := v.cont[1][:n], v.cont[2][:n], v.cont[3][:n], v.cont[4][:n]
+	for i := range out {
+		p := c2[i] + s*(c3[i]+s1*c4[i])
+		q := c1[i] + s1*p
+		out[i] = (q + s*(s1*(c3[i]+(1-2*s)*c4[i])-p)) * ih
 	}
 }

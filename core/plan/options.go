@@ -217,10 +217,13 @@ func curves(rq *request) Curves {
 			}
 		}
 	}
+	mss := make([]modeSet, len(re.ErrorPct)) // the modes at each rope length, for every shaper
+	for i, e := range re.ErrorPct {
+		mss[i] = rq.modesAt(ld * (1 + e/100))
+	}
 	for _, sh := range shapers {
 		s := ShaperSeries{Shaper: sh.Kind}
-		for _, e := range re.ErrorPct {
-			ms := rq.modesAt(ld * (1 + e/100))
+		for _, ms := range mss {
 			s.ResidualPct = append(s.ResidualPct, 100*ms.loadResidual(sh.Impulses, sh.Damping))
 		}
 		re.Series = append(re.Series, s)

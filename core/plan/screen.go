@@ -230,11 +230,12 @@ func (rq *request) estimate(o *Option) (shown, low []Verified) {
 		}
 		lean = rq.lean(v)
 	}
+	pieces := linearPieces(o.profile)
 	for i, l := range rq.checked {
 		ms := rq.modesAt(l)
 		peak, res := 0.0, 0.0
 		for j, w := range ms.omega {
-			pk, rs := linearSwing(o.profile, rq.k, w)
+			pk, rs := linearSwingOf(o.profile, pieces, rq.k, w)
 			if rq.leans() {
 				rs = rq.slewResidual(o.profile, w)
 			}
@@ -260,8 +261,45 @@ func (rq *request) estimate(o *Option) (shown, low []Verified) {
 // into pieces of at most a sixteenth of a period at their middle
 // acceleration.
 func linearSwing(p motion.Profile, k, w float64) (peak, residual float64) {
-	g := units.StandardGravity
+	return linearSwingOf(p, linearPieces(p), k, w)
+}
+
+// linearPiece is an interval between two breakpoints of a profile and,
+// when the acceleration does not change across it, that acceleration (at
+// its middle).
+type linearPiece struct {
+	t0, t1, acc float64
+	varying     bool
+	_           [0]func() // not comparable: no equality function in the wasm
+}
+
+// linearPieces lists the intervals linearSwing solves piece by piece: they
+// do not depend on the pendulum, so an option's estimate at every rope
+// length and mode reads one list (each profile.At sums every component of
+// a shaped move).
+func linearPieces(p motion.Profile) []linearPiece {
 	bp := append(p.Breakpoints(), p.End())
+	ps := make([]linearPiece, 0, len(bp))
+	for i := 0; i+1 < len(bp); i++ {
+		t0, t1 := bp[i], bp[i+1]
+		if t1 <= t0 {
+			continue
+		}
+		e := 1e-9 * (t1 - t0)
+		pc := linearPiece{t0: t0, t1: t1}
+		if a0, a1 := p.At(t0+e).Acc, p.At(t1-e).Acc; math.Abs(a1-a0) > 1e-12*(math.Abs(a0)+math.Abs(a1)) {
+			pc.varying = true
+		} else {
+			pc.acc = p.At(t0 + 0.5*(t1-t0)).Acc
+		}
+		ps = append(ps, pc)
+	}
+	return ps
+}
+
+// linearSwingOf is linearSwing on the pieces of p.
+func linearSwingOf(p motion.Profile, pieces []linearPiece, k, w float64) (peak, residual float64) {
+	g := units.StandardGravity
 	th, dth := 0.0, 0.0
 	piece := func(d, acc float64) {
 		eq := -k * acc / g
@@ -280,16 +318,13 @@ func linearSwing(p motion.Profile, k, w float64) (peak, residual float64) {
 		th = at(d)
 		dth = -r * w * math.Sin(w*d-phi)
 	}
-	for i := 0; i+1 < len(bp); i++ {
-		t0, t1 := bp[i], bp[i+1]
-		if t1 <= t0 {
+	for _, pc := range pieces {
+		t0, t1 := pc.t0, pc.t1
+		if !pc.varying {
+			piece((t1-t0)/1, pc.acc)
 			continue
 		}
-		n := 1
-		e := 1e-9 * (t1 - t0)
-		if a0, a1 := p.At(t0+e).Acc, p.At(t1-e).Acc; math.Abs(a1-a0) > 1e-12*(math.Abs(a0)+math.Abs(a1)) {
-			n = int(math.Ceil((t1 - t0) * w / (2 * math.Pi) * 16))
-		}
+		n := int(math.Ceil((t1 - t0) * w / (2 * math.Pi) * 16))
 		h := (t1 - t0) / float64(n)
 		for j := range n {
 			piece(h, p.At(t0+(float64(j)+0.5)*h).Acc)

@@ -7,6 +7,7 @@ import (
 	"swaysheet/core/clearance"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // siteView is the sheet's clearance section: the clearance check's
@@ -39,6 +40,9 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 		return v
 	}
 	v.Clears, v.Words = rep.Clears, rep.Words
+	if len(rep.WordSentences) == len(rep.Words) {
+		v.Words = words.FormatAll(rep.WordSentences, u)
+	}
 	length := func(m float64) string {
 		x, sym := u.Show("length", m)
 		return Num(x, 3) + " " + sym
@@ -50,7 +54,11 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 		}
 		keeps := fmt.Sprintf("%d of %d", o.KeepMargin, o.Runs)
 		if o.Strikes > 0 {
-			keeps += fmt.Sprintf("; strikes in %d, first %s s", o.Strikes, Num(o.FirstStrikeS, 3))
+			by := "the load"
+			if o.FirstStrikeBy == clearance.StruckByRope {
+				by = "its rope"
+			}
+			keeps += fmt.Sprintf("; struck in %d, first %s s by %s", o.Strikes, Num(o.FirstStrikeS, 3), by)
 		}
 		under := "not passed over"
 		if vt := o.Vertical; vt != nil {

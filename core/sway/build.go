@@ -27,8 +27,8 @@ type setup struct {
 	air         *Air    // wind and drag; nil when neither
 	phases      []Phase
 	warnings    []words.Sentence
-	axes        []motion.Profile // each axis' moves combined, for the work budget
-	fast        *fastModel       // the specialised path's model, nil when it does not fit
+	drives      crane.Drives // each axis' moves
+	fast        *fastModel   // the specialised path's model, nil when it does not fit
 	// general builds model when the specialised path is set up instead
 	// (nil otherwise): model is nil until then.
 	general func() pendulum.System
@@ -90,13 +90,11 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	mass := *s.Load.MassKg
 	r0 := s.Crane.RadiusM
 
-	// Each axis' moves added together, evaluated at a cost that does not
-	// grow with the number of moves and shaper impulses (the work budget
-	// counts their moving pieces).
-	for r := range ax {
-		su.axes = append(su.axes, motion.Combine(ax[r]...))
-	}
-	hoist, reach := su.axes[crane.Rope], su.axes[crane.Reach]
+	// The rope's and the radius' moves added together, evaluated at a cost
+	// that does not grow with the number of moves and shaper impulses; the
+	// other axes' are combined when the general path runs (combinedAxes).
+	hoist, reach := combined(ax[crane.Rope]), combined(ax[crane.Reach])
+	su.drives = ax
 
 	// The rope and the radius must stay in range over the whole run.
 	if err := checkSpan(hoist, func(h float64) float64 { return l0 - h }, scenario.MinRopeM, 500,
@@ -196,6 +194,26 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 	}
 	su.breaks = breaks
 	return su, nil
+}
+
+// combined is the moves of one axis added together (motion.Combine), or
+// the empty sum when there are none (at rest, +0 everywhere, as Combine's;
+// its index is not built for nothing).
+func combined(ps motion.Sum) motion.Profile {
+	if len(ps) == 0 {
+		return ps
+	}
+	return motion.Combine(ps...)
+}
+
+// combinedAxes is each axis' moves combined, for the general path's work
+// budget (budget.go, which counts their moving pieces).
+func (su *setup) combinedAxes() []motion.Profile {
+	axes := make([]motion.Profile, 0, len(su.drives))
+	for r := range su.drives {
+		axes = append(axes, motion.Combine(su.drives[r]...))
+	}
+	return axes
 }
 
 // WindForceN is the steady wind force on the load of a validated scenario,

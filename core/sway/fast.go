@@ -36,7 +36,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	rec := recorder{}
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
-		rec.reserve()
+		rec.reserve(opt.HistoryBuffer)
 		switch m := su.model.(type) {
 		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}
@@ -68,13 +68,16 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		return &fs.peaks, nil, Stats{RelTol: relTol, Steps: fs.v.accepted, Rejected: fs.v.rejected,
 			Evals: fs.v.evals, ConstraintError: fs.constraintErr}, nil
 	}
+	if d, ok := su.model.(*fastDouble); ok && !opt.General && d.k.air == nil {
+		return integrateDouble(d, su, opt, rec, tEnd, relTol, maxN)
+	}
 	if _, concrete := su.model.(*fastDouble); su.model == nil || (concrete && opt.General) {
 		su.model = su.general()
 	}
 	sc := newScanner(su.model, su.motionEnd)
 	sc.maxSteps = maxN
 	sc.recorder = rec
-	sc.axes, sc.budget = su.axes, opt.Budget // the general path's work budget (budget.go)
+	sc.axes, sc.budget = su.combinedAxes(), opt.Budget // the general path's work budget (budget.go)
 	if err := sc.run(su.y0, su.breaks, tEnd, relTol); err != nil {
 		return nil, nil, Stats{}, err
 	}
@@ -114,6 +117,9 @@ func (s *fastScan) state(t float64) (y [6]float64) {
 
 func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	cuts := restartCuts(breaks, tEnd)
+	if s.hist != nil {
+		s.hist.sized(s.samples)
+	}
 	var y [6]float64
 	copy(y[:], y0)
 	t := 0.0
@@ -157,7 +163,8 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.
 				y0 := s.v.cont[0]
-				s.v.denseRate(t0, &rate)
+				var unused [6]float64 // the value at t0: y0, the step's start
+				s.v.denseBoth(t0, &unused, &rate)
 				s.measureAt(t0, &y0, &rate, &a)
 				for q := range qRigAngle {
 					s.offer(q, a.v[q], t0, residual)
@@ -201,7 +208,11 @@ func (s *fastScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		y := s.state(max(tt, t0))
+		at := tt // in the step: a plain comparison, as the builtin max of floats is a call in wasm
+		if at < t0 {
+			at = t0
+		}
+		y := s.state(at)
 		s.recordState(tt, &y)
 	}
 }
@@ -212,21 +223,27 @@ func (s *fastScan) emit(t0, t1 float64) {
 // square root rather than math.Hypot (Go code in wasm, where this runs
 // for every one of the 601 samples; the two differ in the last bits).
 func (s *fastScan) recordState(t float64, y *[6]float64) {
-	k := s.m.kinAt(t)
+	k := s.m.kinOf(t, false)
 	rx, ry, rz := s.m.rel(t, &k, y)
-	h := s.hist
+	h, i := s.hist, s.next
 	lx, ly, lz := k.px+k.l*y[0], k.py+k.l*y[1], k.l*y[2]
 	dx, dy := lx-k.px, ly-k.py
-	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
-	h.SwingDeg = append(h.SwingDeg, math.Atan2(math.Sqrt(dx*dx+dy*dy), -lz)/units.Degree)
-	h.RelXM = append(h.RelXM, dx)
-	h.RelYM = append(h.RelYM, dy)
-	h.RelZM = append(h.RelZM, lz)
-	h.LoadXM = append(h.LoadXM, lx)
-	h.LoadYM = append(h.LoadYM, ly)
-	h.SuspensionXM = append(h.SuspensionXM, k.px)
-	h.SuspensionYM = append(h.SuspensionYM, k.py)
-	h.TensionN = append(h.TensionN, s.m.tension(rx, ry, rz, k.l, k.ddl, y))
-	h.RopeM = append(h.RopeM, k.l)
+	// Written in place (the series are at full length from the start,
+	// sized): an append writes each slice's length back besides.
+	h.TimeS[i] = float64(i) * s.sampleDt
+	h.SwingDeg[i] = math.Atan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
+	h.RelXM[i], h.RelYM[i], h.RelZM[i] = dx, dy, lz
+	h.LoadXM[i], h.LoadYM[i] = lx, ly
+	h.SuspensionXM[i], h.SuspensionYM[i] = k.px, k.py
+	h.TensionN[i] = s.m.tension(rx, ry, rz, k.l, k.ddl, y)
+	h.RopeM[i] = k.l
 	s.next++
+}
+
+// sized puts every series of the history at n samples (reserve made the
+// room), for recordState to write in place.
+func (h *History) sized(n int) {
+	for _, c := range h.series() {
+		*c = (*c)[:n]
+	}
 }

@@ -12,13 +12,14 @@ import (
 // rigging tensions from the 2x2 system of the constraints), with the
 // suspension point's motion and the rope length from the flattened span
 // tables of fastModel (fastaxis.go) in place of the closures over the
-// combined profiles, and plain numbers in place of r3 vectors. It runs on
-// the general path's scanner and solver, which tells it each segment
-// between restarts (segmented) and moves the time a hair inside it as for
-// every model. The two differ by rounding only: the suspension point's
-// motion summed as one polynomial per span rather than profile by profile
-// (fastdouble_test.go states how closely they agree); Options.General
-// selects pendulum.Double.
+// combined profiles, and plain numbers in place of r3 vectors. Without air
+// it runs on its own scan (fastdoublescan.go: peaks from the rates); in
+// wind on the general path's scanner and solver, which tells it each
+// segment between restarts (segmented) and moves the time a hair inside
+// it as for every model. The two differ by rounding only: the suspension
+// point's motion summed as one polynomial per span rather than profile by
+// profile (fastdouble_test.go states how closely they agree);
+// Options.General selects pendulum.Double.
 type fastDouble struct {
 	k             *fastModel // suspension point, rope length, air
 	m1, m2, l2, g float64
@@ -114,14 +115,14 @@ func (d *fastDouble) Eval(t float64, y []float64, p *pendulum.Point) {
 
 // Func implements pendulum.System.
 func (d *fastDouble) Func(t float64, y, dy []float64) {
-	var a1, a2 [3]float64
-	d.eval(t, y, &a1, &a2, nil)
-	dy = dy[:12]
-	y = y[:12]
+	d.rhs(t, (*[12]float64)(y), (*[12]float64)(dy))
+}
+
+// rhs is the right-hand side y' = f(t, y) on the state's array.
+func (d *fastDouble) rhs(t float64, y, dy *[12]float64) {
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
-	dy[3], dy[4], dy[5] = a1[0], a1[1], a1[2]
 	dy[6], dy[7], dy[8] = y[9], y[10], y[11]
-	dy[9], dy[10], dy[11] = a2[0], a2[1], a2[2]
+	d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
 }
 
 // Project implements pendulum.System: both directions back onto their

@@ -112,15 +112,35 @@ func loadVel(k *kin, y *[6]float64) r3.Vec {
 
 // kinAt evaluates the suspension point and the rope at t inside the
 // current segment (the slewing arm as in suspension, build.go).
-func (m *fastModel) kinAt(t float64) (k kin) {
-	k.px, k.vx, k.ax = m.sx.at(t)
-	k.py, k.vy, k.ay = m.sy.at(t)
+func (m *fastModel) kinAt(t float64) kin { return m.kinOf(t, true) }
+
+// kinOf is kinAt without the slewing arm's share of the jerk unless jerk
+// is set (only the peak search's rates need it; the right-hand side and
+// the history do not).
+//
+// An axis without moves is left out: its span is all zero, where the
+// polynomial gives +0 for every t >= 0, as the zero values do.
+func (m *fastModel) kinOf(t float64, jerk bool) (k kin) {
+	if len(m.x) > 0 {
+		k.px, k.vx, k.ax = m.sx.at(t)
+	}
+	if len(m.y) > 0 {
+		k.py, k.vy, k.ay = m.sy.at(t)
+	}
 	k.jx, k.jy = m.sx.j, m.sy.j
-	h, dh, ddh := m.sh.at(t)
+	var h, dh, ddh float64
+	if m.hoisting {
+		h, dh, ddh = m.sh.at(t)
+	}
 	k.l, k.dl, k.ddl, k.dddl = m.l0-h, -dh, -ddh, -m.sh.j
 	if m.slewing {
-		p, w, al := m.ss.at(t)
-		q, rd, rdd := m.sr.at(t)
+		var p, w, al, q, rd, rdd float64
+		if len(m.slew) > 0 {
+			p, w, al = m.ss.at(t)
+		}
+		if len(m.radius) > 0 {
+			q, rd, rdd = m.sr.at(t)
+		}
 		phi, r := m.phi0+p, m.r0+q
 		// One argument reduction for both (Sin and Cos are written in Go, in
 		// wasm too, with the same polynomials as Sincos).
@@ -133,6 +153,9 @@ func (m *fastModel) kinAt(t float64) (k kin) {
 		k.vy += vr*s + vt*c
 		k.ax += ar*c - at*s
 		k.ay += ar*s + at*c
+		if !jerk {
+			return k
+		}
 		// The jerk: the rates of ar and at, and the turning of the arm.
 		dar := m.sr.j - rd*w*w - 2*r*w*al
 		dat := r*m.ss.j + 3*rd*al + 2*rdd*w
@@ -196,8 +219,12 @@ func (m *fastModel) rel(t float64, k *kin, y *[6]float64) (rx, ry, rz float64) {
 // acceleration alone.
 func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl float64) {
 	if m.slewing || m.air != nil {
-		k := m.kinAt(t)
-		rx, ry, rz = m.rel(t, &k, y)
+		k := m.kinOf(t, false)
+		if m.air == nil {
+			rx, ry, rz = -k.ax, -k.ay, -m.g // rel without air: a call fewer a stage
+		} else {
+			rx, ry, rz = m.rel(t, &k, y)
+		}
 		return rx, ry, rz, k.l, k.dl, k.ddl
 	}
 	l = m.l0

@@ -49,11 +49,18 @@ func (v *fastSolver) reset(t float64, y *[6]float64) {
 }
 
 func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
-	// math.Abs is an instruction (also in wasm); written so, the function
-	// is small enough for the compiler to write it into the stepper.
+	// Written so, the function is small enough for the compiler to write
+	// it into the stepper (math.Abs counts as two calls there; a zero's
+	// sign does not matter here: a is added to absTol > 0).
 	var sum float64
 	for i := range 6 {
-		a, b := math.Abs(y0[i]), math.Abs(y1[i])
+		a, b := y0[i], y1[i]
+		if a < 0 {
+			a = -a
+		}
+		if b < 0 {
+			b = -b
+		}
 		if b > a {
 			a = b
 		}
@@ -113,6 +120,23 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		v.h = v.initialStep(tEnd)
 		v.started = true
 	}
+	// The right-hand side of each stage: fastModel.rhs, whose travel case
+	// (the commonest) is written out here, where the compiler puts it into
+	// each stage (a closure called directly has twice a function's
+	// inlining budget; the method is beyond it): in wasm a call costs more
+	// than that arithmetic. Same operations in the same order as rhs.
+	m := v.m
+	travel := m.travel
+	ax, ay, jx, jy := m.sx.a, m.sy.a, m.sx.j, m.sy.j
+	ox, oy, il, rz := m.sx.origin, m.sy.origin, m.il, -m.g
+	travelRHS := func(t float64, y, dy *[6]float64) {
+		rx, ry := -(ax + (t-ox)*jx), -(ay + (t-oy)*jy)
+		cn := -(rx*y[0]+ry*y[1]+rz*y[2])*il - (y[3]*y[3] + y[4]*y[4] + y[5]*y[5])
+		dy[0], dy[1], dy[2] = y[3], y[4], y[5]
+		dy[3] = rx*il + cn*y[0]
+		dy[4] = ry*il + cn*y[1]
+		dy[5] = rz*il + cn*y[2]
+	}
 	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, stepBeta
 	const expo1 = 0.2 - beta*0.75
 	span := tEnd - v.t
@@ -129,19 +153,35 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		for i := range 6 {
 			tmp[i] = y[i] + h*ode.A21*k1[i]
 		}
-		v.eval(t+ode.C2*h, tmp, k2)
+		if travel {
+			travelRHS(t+ode.C2*h, tmp, k2)
+		} else {
+			m.rhs(t+ode.C2*h, tmp, k2)
+		}
 		for i := range 6 {
 			tmp[i] = y[i] + h*(ode.A31*k1[i]+ode.A32*k2[i])
 		}
-		v.eval(t+ode.C3*h, tmp, k3)
+		if travel {
+			travelRHS(t+ode.C3*h, tmp, k3)
+		} else {
+			m.rhs(t+ode.C3*h, tmp, k3)
+		}
 		for i := range 6 {
 			tmp[i] = y[i] + h*(ode.A41*k1[i]+ode.A42*k2[i]+ode.A43*k3[i])
 		}
-		v.eval(t+ode.C4*h, tmp, k4)
+		if travel {
+			travelRHS(t+ode.C4*h, tmp, k4)
+		} else {
+			m.rhs(t+ode.C4*h, tmp, k4)
+		}
 		for i := range 6 {
 			tmp[i] = y[i] + h*(ode.A51*k1[i]+ode.A52*k2[i]+ode.A53*k3[i]+ode.A54*k4[i])
 		}
-		v.eval(t+ode.C5*h, tmp, k5)
+		if travel {
+			travelRHS(t+ode.C5*h, tmp, k5)
+		} else {
+			m.rhs(t+ode.C5*h, tmp, k5)
+		}
 		for i := range 6 {
 			tmp[i] = y[i] + h*(ode.A61*k1[i]+ode.A62*k2[i]+ode.A63*k3[i]+ode.A64*k4[i]+ode.A65*k5[i])
 		}
@@ -149,14 +189,23 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		if last {
 			tn = tEnd
 		}
-		v.eval(tn, tmp, k6)
+		if travel {
+			travelRHS(tn, tmp, k6)
+		} else {
+			m.rhs(tn, tmp, k6)
+		}
 		for i := range 6 {
 			ynew[i] = y[i] + h*(ode.A71*k1[i]+ode.A73*k3[i]+ode.A74*k4[i]+ode.A75*k5[i]+ode.A76*k6[i])
 		}
-		v.eval(tn, ynew, k7)
+		if travel {
+			travelRHS(tn, ynew, k7)
+		} else {
+			m.rhs(tn, ynew, k7)
+		}
 		for i := range 6 {
 			tmp[i] = h * (ode.E1*k1[i] + ode.E3*k3[i] + ode.E4*k4[i] + ode.E5*k5[i] + ode.E6*k6[i] + ode.E7*k7[i])
 		}
+		v.evals += 6
 		errv := v.errNorm(y, ynew, tmp)
 		if math.IsNaN(errv) || math.IsInf(errv, 0) {
 			errv = 1e10
@@ -237,14 +286,16 @@ func (v *fastSolver) dense(t float64, out *[6]float64) {
 	}
 }
 
-// denseRate writes the time derivative of the continuous extension of the
-// last step at t into out: with y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))),
-// s1 = 1 - s, dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P), where
-// P = c2 + s(c3 + s1 c4) and Q = c1 + s1 P; dy/dt = (dy/ds)/h.
-func (v *fastSolver) denseRate(t float64, out *[6]float64) {
+// denseBoth writes the continuous extension of the last step at t into y
+// (the numbers dense gives) and its time derivative into yd, in one pass:
+// with y = c0 + s(c1 + s1(c2 + s(c3 + s1 c4))), s1 = 1 - s,
+// P = c2 + s(c3 + s1 c4) and Q = c1 + s1 P (so y = c0 + s Q),
+// dy/ds = Q + s(s1 (c3 + (1 - 2s) c4) - P); dy/dt = (dy/ds)/h.
+func (v *fastSolver) denseBoth(t float64, y, yd *[6]float64) {
 	h := v.t - v.told
 	if h <= 0 {
-		*out = v.k[0]
+		v.dense(t, y)
+		*yd = v.k[0]
 		return
 	}
 	s := (t - v.told) / h
@@ -257,6 +308,7 @@ func (v *fastSolver) denseRate(t float64, out *[6]float64) {
 	for i := range 6 {
 		p := c[2][i] + s*(c[3][i]+s1*c[4][i])
 		q := c[1][i] + s1*p
-		out[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
+		y[i] = c[0][i] + s*q
+		yd[i] = (q + s*(s1*(c[3][i]+(1-2*s)*c[4][i])-p)) * ih
 	}
 }

@@ -68,9 +68,8 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 // measureDense is measureAt on the dense output at t inside the last step.
 func (s *fastScan) measureDense(t float64, out *measure) {
 	var y, yd [6]float64
-	s.v.dense(t, &y)
+	s.v.denseBoth(t, &y, &yd)
 	project(&y)
-	s.v.denseRate(t, &yd)
 	s.measureAt(t, &y, &yd, out)
 }
 
@@ -128,9 +127,23 @@ func (s *fastScan) stepPeaks(t0, t1 float64, a, b *measure, residual bool) {
 func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual bool) {
 	// The tangents at both ends meet above a concave top.
 	tx := (vb - va + ga*ta - gb*tb) / (ga - gb)
-	tx = min(max(tx, ta), tb)
-	top := max(va+ga*(tx-ta), va, vb)
-	bound := top + (top - max(va, vb)) + 1e-12*math.Abs(top)
+	// Plain comparisons: the builtin min and max of floats are calls in
+	// wasm (runtime.fmin64, fmax64), and no NaN reaches here.
+	if tx < ta {
+		tx = ta
+	}
+	if tx > tb {
+		tx = tb
+	}
+	hi := va
+	if vb > hi {
+		hi = vb
+	}
+	top := va + ga*(tx-ta)
+	if hi > top {
+		top = hi
+	}
+	bound := top + (top - hi) + 1e-12*math.Abs(top)
 	e := &s.ext[q]
 	r := (*extremum)(nil)
 	if residual {
@@ -139,35 +152,10 @@ func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual b
 	if e.set && bound < e.max && (r == nil || (r.set && bound < r.max)) {
 		return
 	}
-	tol := 1e-9 * (tb - ta)
-	x := ta
-	side := 0
-	var m measure
-	for range 60 {
-		xn := (ta*gb - tb*ga) / (gb - ga)
-		if !(xn > ta && xn < tb) {
-			xn = 0.5 * (ta + tb)
-		}
-		s.measureDense(xn, &m)
-		gx := m.g[q]
-		done := math.Abs(xn-x) <= tol || tb-ta <= tol || gx == 0
-		x = xn
-		if done {
-			break
-		}
-		if gx > 0 {
-			ta, ga = x, gx
-			if side == -1 {
-				gb *= 0.5
-			}
-			side = -1
-		} else {
-			tb, gb = x, gx
-			if side == 1 {
-				ga *= 0.5
-			}
-			side = 1
-		}
-	}
-	s.offer(q, m.v[q], x, residual)
+	x, v := rateRoot(ta, ga, tb, gb, 0, func(t float64) (float64, float64) {
+		var m measure
+		s.measureDense(t, &m)
+		return m.v[q], m.g[q]
+	})
+	s.offer(q, v, x, residual)
 }

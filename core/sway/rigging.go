@@ -65,7 +65,7 @@ func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float6
 }
 
 // rigging fills the hook-and-rigging figures and their warning.
-func rigging(s *scenario.Scenario, sc *scanner, ropeEnd float64, res *Result, measure bool) error {
+func rigging(s *scenario.Scenario, sc *peaks, ropeEnd float64, res *Result, measure bool) error {
 	h := s.Load.Hook
 	md := modes(h, *s.Load.MassKg, ropeEnd)
 	rg := &Rigging{

@@ -250,7 +250,7 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	out := &Body{TwistRestrained: true, Legs: []LegLoad{}}
 	switch {
 	case b.Tandem != nil:
-		out.Suspension = "two ropes"
+		out.Suspension = TwoRopes
 	case b.Spreader != nil:
 		out.Suspension = "spreader"
 	case len(b.Legs) == 2:

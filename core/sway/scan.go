@@ -266,15 +266,29 @@ type recorder struct {
 
 // reserve makes room for every sample at once: growing eleven slices
 // sample by sample costs more than the samples (in wasm most of all).
-func (s *recorder) reserve() {
-	h := s.hist
-	cs := []*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
-		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
+// With reuse set (Options.HistoryBuffer) its memory is used when large
+// enough, else the memory made is kept there.
+func (s *recorder) reserve(reuse *[]float64) {
+	cs := s.hist.series()
 	n := s.samples
-	buf := make([]float64, len(cs)*n) // one allocation, each series its own part
+	var buf []float64
+	if reuse != nil && cap(*reuse) >= len(cs)*n {
+		buf = (*reuse)[:len(cs)*n]
+	} else {
+		buf = make([]float64, len(cs)*n) // one allocation, each series its own part
+		if reuse != nil {
+			*reuse = buf
+		}
+	}
 	for k, c := range cs {
 		*c = buf[k*n : k*n : (k+1)*n]
 	}
+}
+
+// series are the eleven series every history has.
+func (h *History) series() [11]*[]float64 {
+	return [11]*[]float64{&h.TimeS, &h.SwingDeg, &h.RelXM, &h.RelYM, &h.RelZM, &h.LoadXM,
+		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
 }
 
 func (s *recorder) record(p *pendulum.Point) {

@@ -161,6 +161,12 @@ type Options struct {
 	// the result's peak and residual figures are not to be read. The
 	// general path ignores it.
 	PathOnly bool
+	// HistoryBuffer, when set, is memory for the time histories' series,
+	// used when large enough and replaced by the larger one made when
+	// not: a caller making many runs one after another (the clearance
+	// check's) reuses it, and reads each result's histories only until
+	// its next run.
+	HistoryBuffer *[]float64
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
@@ -304,7 +310,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 		res.warn(words.Plain("The load swings over the top of its circle: it whirls round the suspension point and has no swing period."))
 	}
 	if s.Load.Hook != nil {
-		if err := rigging(s, general, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
+		if err := rigging(s, sc, su.ropeEnd, res, !opt.NoModePeriods); err != nil {
 			return nil, err
 		}
 	}
@@ -389,6 +395,14 @@ func (r *Result) warn(w words.Sentence) {
 func (r *Result) markWarnings() {
 	if r.Warnings == nil {
 		r.Warnings = []string{}
+	}
+	if len(r.WarningSentences) == len(r.Warnings) {
+		// warn adds to both: they are one for one already (and a
+		// sentence's text is not made twice).
+		if r.WarningSentences == nil {
+			r.WarningSentences = []words.Sentence{}
+		}
+		return
 	}
 	out := make([]words.Sentence, len(r.Warnings))
 	k := 0

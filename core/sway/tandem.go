@@ -3,6 +3,7 @@ package sway
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -11,6 +12,15 @@ import (
 	"swaysheet/core/units"
 	"swaysheet/core/words"
 )
+
+// TwoRopes is Body.Suspension for a load on two hook ropes
+// (load.body.tandem).
+const TwoRopes = "two ropes"
+
+// HookRope names hook rope i (from 0) of a load on two hook ropes, rope 0
+// hanging from the suspension point toward +heading: the one name the
+// figures, the warnings and the clearance check's rope lines give it.
+func HookRope(i int) string { return fmt.Sprintf("hook rope %d", i+1) }
 
 // tandemRopes are the two hook ropes of a validated scenario with
 // load.body.tandem: suspension points +/- spacing/2 along the heading
@@ -41,8 +51,9 @@ func tandemFigures(out *Body, rest *pendulum.BodyPoint, massKg float64, res *Res
 		l.WeightShare = rest.LegsUp[i] / (massKg * units.StandardGravity)
 		if l.TensionMinN <= 0 {
 			l.Slack = true
-			res.warn(words.Plain(fmt.Sprintf(
-				"Hook rope %d goes slack (its tension reaches zero): the load drops onto the other rope and snatches this one when it tightens; the model, which keeps both ropes straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
+			name := HookRope(i)
+			res.warn(words.Plain(strings.ToUpper(name[:1]) + name[1:] +
+				" goes slack (its tension reaches zero): the load drops onto the other rope and snatches this one when it tightens; the model, which keeps both ropes straight, no longer holds. Reduce the motion or change the rigging."))
 		}
 	}
 }

@@ -9,8 +9,6 @@ package units
 
 import (
 	"math"
-
-	"swaysheet/core/internal/sorts"
 )
 
 // StandardGravity is g_n in m/s^2 (3rd CGPM 1901; ISO 80000-3).
@@ -119,18 +117,22 @@ func find(q, symbol string) (Unit, bool) {
 
 // QuantityOf names the quantity of Table whose SI unit has the given
 // symbol, or "" when there is none. Scenarios carry angles in degrees, so
-// "deg" is the angle quantity. Names are tried in sorted order, so the
-// answer does not depend on map order.
-func QuantityOf(siSymbol string) string {
-	names := make([]string, 0, len(Table))
-	for k := range Table {
-		names = append(names, k)
-	}
-	sorts.Strings(names)
-	for _, k := range names {
-		if q := Table[k]; len(q.Units) > 0 && q.Units[0].Symbol == siSymbol {
-			return k
+// "deg" is the angle quantity. Of several, the first name in sorted order
+// is taken, so the answer does not depend on map order.
+func QuantityOf(siSymbol string) string { return quantityOfSI[siSymbol] }
+
+// quantityOfSI is QuantityOf's answer for each SI symbol of Table, made
+// once (every warning's numbers ask for it, and a walk over the table
+// costs more than the rest of the sentence in wasm).
+var quantityOfSI = func() map[string]string {
+	m := map[string]string{}
+	for k, q := range Table {
+		if len(q.Units) == 0 {
+			continue
+		}
+		if s := q.Units[0].Symbol; m[s] == "" || k < m[s] {
+			m[s] = k
 		}
 	}
-	return ""
-}
+	return m
+}()

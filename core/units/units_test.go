@@ -85,6 +85,21 @@ func TestRoundAndChoice(t *testing.T) {
 	if QuantityOf("") != "ratio" {
 		t.Errorf(`QuantityOf("") = %q`, QuantityOf(""))
 	}
+	// The table made once answers as a walk over the names in sorted order.
+	for _, q := range Table {
+		sym, first := q.Units[0].Symbol, ""
+		for k, o := range Table {
+			if o.Units[0].Symbol == sym && (first == "" || k < first) {
+				first = k
+			}
+		}
+		if got := QuantityOf(sym); got != first {
+			t.Errorf("QuantityOf(%q) = %q, want %q", sym, got, first)
+		}
+	}
+	if got := QuantityOf("furlong"); got != "" {
+		t.Errorf(`QuantityOf("furlong") = %q`, got)
+	}
 	if u := (Choice{System: "us"}).Unit(WindSpeed); u.Symbol != "ft/s" {
 		t.Errorf("US wind speed in %s", u.Symbol)
 	}

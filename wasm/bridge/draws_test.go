@@ -4,6 +4,9 @@ package bridge
 
 import (
 	"encoding/json"
+	"reflect"
+	"strconv"
+	"strings"
 	"testing"
 )
 
@@ -30,5 +33,43 @@ func TestDrawsCall(t *testing.T) {
 	bad := []byte(`{"scenario": ` + string(readExample(t, DemoFile)) + `, "draws": {"runs": 0}}`)
 	if err := json.Unmarshal(Call(nil, "draws", bad), &e); err != nil || e.Error == nil || e.Error.Fields[0].Field != "draws.runs" {
 		t.Fatalf("runs 0: %+v", e.Error)
+	}
+}
+
+// Two parts of a request joined by draws_join (given out of order) answer
+// as the whole request in one draws call, and the spread is presented from
+// the figures table in the units asked for.
+func TestDrawsJoin(t *testing.T) {
+	sc := string(readExample(t, DemoFile))
+	req := `{"runs": 30, "seed": 3, "spread": {"rope_length_m": 0.3, "press_s": 0.2}`
+	part := func(first, count int) string {
+		var r struct{ Result json.RawMessage }
+		out := Call(nil, "draws", []byte(`{"scenario": `+sc+`, "draws": `+req+`, "first": `+strconv.Itoa(first)+`, "count": `+strconv.Itoa(count)+`}}`))
+		if err := json.Unmarshal(out, &r); err != nil || r.Result == nil {
+			t.Fatalf("draws part: %s", out)
+		}
+		return string(r.Result)
+	}
+	var whole, joined struct {
+		Result *JoinedDraws `json:"result"`
+	}
+	if err := json.Unmarshal(Call(nil, "draws", []byte(`{"scenario": `+sc+`, "draws": `+req+`}}`)), &whole); err != nil || whole.Result == nil {
+		t.Fatal("whole request failed")
+	}
+	out := Call(nil, "draws_join", []byte(`{"scenario": `+sc+`, "draws": `+req+`}, "parts": [`+part(12, 18)+`, `+part(0, 12)+`], "system": "us"}`))
+	if err := json.Unmarshal(out, &joined); err != nil || joined.Result == nil {
+		t.Fatalf("draws_join: %s", out)
+	}
+	j := joined.Result
+	if j.Runs != 30 || j.Summary != whole.Result.Summary || !reflect.DeepEqual(j.Figures, whole.Result.Figures) {
+		t.Fatalf("joined %+v, whole %+v", j.Summary, whole.Result.Summary)
+	}
+	if len(j.Shown.Rows) != 4 || j.Shown.Rows[1].Unit != "ft" || !strings.HasPrefix(j.Shown.Rows[0].Words, "In 95 of 100 likely runs: largest swing ") ||
+		!strings.Contains(j.Shown.Spreads, "rope length 1.00 ft") || !strings.Contains(j.Shown.Spreads, "Seed 3") {
+		t.Fatalf("shown: %+v", j.Shown)
+	}
+	var e errReply
+	if err := json.Unmarshal(Call(nil, "draws_join", []byte(`{"scenario": `+sc+`, "draws": `+req+`}, "parts": []}`)), &e); err != nil || e.Error == nil || e.Error.Fields[0].Field != "parts" {
+		t.Fatalf("no parts: %+v", e.Error)
 	}
 }

@@ -40,11 +40,13 @@ const probe = `(function () {
 // TestBenchPage measures, for make bench, the page's cold start to the
 // first result shown and the time from an input change to the updated
 // plot (benchTimes: as it is and with the CPU slowed 4 times), one full
-// plan of each planning example (benchPlans) and the clearance runs. It
+// plan of each planning example (benchPlans), the clearance runs and the
+// runs over draws (benchDraws). It
 // runs only when SWAYSHEET_BENCH_OUT names the file for its rows; with
 // SWAYSHEET_BENCH_ROWS=clearance it measures the clearance row alone,
 // with SWAYSHEET_BENCH_ROWS=plans the plan rows alone, with
-// SWAYSHEET_BENCH_ROWS=page the cold start and input rows alone.
+// SWAYSHEET_BENCH_ROWS=page the cold start and input rows alone, with
+// SWAYSHEET_BENCH_ROWS=draws the 1,000 runs over draws alone.
 func TestBenchPage(t *testing.T) {
 	out := os.Getenv("SWAYSHEET_BENCH_OUT")
 	if out == "" {
@@ -54,6 +56,9 @@ func TestBenchPage(t *testing.T) {
 	switch os.Getenv("SWAYSHEET_BENCH_ROWS") {
 	case "clearance":
 		writeRows(t, out, []map[string]any{benchClearance(t, h)})
+		return
+	case "draws":
+		writeRows(t, out, []map[string]any{benchDraws(t, h)})
 		return
 	case "plans":
 		h.settle()
@@ -68,6 +73,7 @@ func TestBenchPage(t *testing.T) {
 	}
 	rows = append(rows, benchPlans(h)...)
 	rows = append(rows, benchClearance(t, h))
+	rows = append(rows, benchDraws(t, h))
 	writeRows(t, out, rows)
 }
 

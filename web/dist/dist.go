@@ -54,6 +54,10 @@ var (
 	moduleTag = regexp.MustCompile(`<script type="module" src="([a-z0-9._-]+)"></script>`)
 	otherLink = regexp.MustCompile(`<link rel="(manifest|icon)"[^>]*>\n?`)
 	cspMeta   = regexp.MustCompile(`<meta http-equiv="Content-Security-Policy" content="[^"]*">`)
+	// servedOnly marks a part of index.html that the single file leaves
+	// out, scripts and styles included: what its core cannot run (the
+	// spread over likely runs: the draws calls are not in its wasm).
+	servedOnly = regexp.MustCompile(`(?s)[ \t]*<!-- served page only -->.*?<!-- end served page only -->\n?`)
 )
 
 // Single builds the one-file page from the static folder, Go's
@@ -89,6 +93,7 @@ func SingleGz(static string, wasmExec, wasmGz []byte) ([]byte, error) {
 		return nil, err
 	}
 	text := Encode7(wasmGz)
+	page = servedOnly.ReplaceAllString(page, "")
 
 	var styleHashes, scriptHashes []string
 	hash := func(s string) string {

@@ -74,6 +74,11 @@ func TestSingleFileFromDisk(t *testing.T) {
 	if eval[string](b, `document.getElementById('engine-error').hidden ? '' : document.getElementById('engine-error').textContent`) != "" {
 		t.Error("the engine reported an error")
 	}
+	// The single file's core has no draws call: the spread over likely
+	// runs is not offered.
+	if eval[bool](b, `!!document.getElementById('spread') || !!window.swaysheetSpread`) {
+		t.Error("the single file offers the spread over likely runs, which its core cannot run")
+	}
 	// A page opened from a file has no server, so no site library: the
 	// Examples dialog says so (the core's message) and lists none.
 	b.do(chromedp.Click(chromedp.ID("open-examples")))

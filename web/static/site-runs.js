@@ -51,15 +51,24 @@ function stopPool(msg, how) {
   });
 }
 
+// CLEARANCE is the split of the clearance check: the calls that run a
+// range of runs and join the parts (another split, the spread of likely
+// runs in spread-view.js, gives its own).
+const CLEARANCE = {
+  part: 'clearance_part', join: 'clearance_join',
+  partInput: function (sent, from, to) { return '{"scenario":' + sent + ',"from":' + from + ',"to":' + to + '}'; },
+  joinInput: function (sent, parts) { return '{"scenario":' + sent + ',"parts":[' + parts.join(',') + ']}'; }
+};
+
 // partCall asks pool worker w for runs [from, to) of the scenario, with
 // the engine's deadline for the clearance calls.
-function partCall(w, sent, from, to) {
+function partCall(w, sent, from, to, kind) {
   return new Promise(function (resolve) {
     var id = nextCall++, ms = DEADLINES.clearance || DEADLINES.other;
     w.waiting = { id: id, resolve: resolve, timer: setTimeout(function () {
       stopPool('The clearance runs were not answered within ' + Math.round(ms / 1000) + ' s.', 'timeout');
     }, ms) };
-    w.worker.postMessage({ id: id, name: 'clearance_part', input: '{"scenario":' + sent + ',"from":' + from + ',"to":' + to + '}' });
+    w.worker.postMessage({ id: id, name: kind.part, input: kind.partInput(sent, from, to) });
   });
 }
 
@@ -78,7 +87,10 @@ export function chunks(n, workers) {
 // Workers left idle by the check before are used again (a fresh worker
 // compiles the wasm and starts Go: about half a second, a third of the
 // 1,000-run check); busy ones are ended, as their runs cannot be stopped.
-export function runSplit(sent, n, on, workers) {
+// kind, when given, is another split than the clearance check's (as
+// CLEARANCE: its part and join calls and their inputs).
+export function runSplit(sent, n, on, workers, kind) {
+  kind = kind || CLEARANCE;
   if (runsGoing()) stopPool('Replaced by newer inputs.', 'cancelled');
   else jobSeq++;
   var job = jobSeq, want = workers || poolSize();
@@ -103,7 +115,7 @@ export function runSplit(sent, n, on, workers) {
       joinedRuns = done;
       joining = true;
       var count = parts.length, all = done === n;
-      call('clearance_join', '{"scenario":' + sent + ',"parts":[' + parts.join(',') + ']}').then(function (r) {
+      call(kind.join, kind.joinInput(sent, parts)).then(function (r) {
         joining = false;
         joinedCount = count;
         if (job !== jobSeq) { finish({ error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
@@ -117,7 +129,7 @@ export function runSplit(sent, n, on, workers) {
       if (job !== jobSeq || failed) return;
       var range = todo.shift();
       if (!range) return;
-      partCall(w, sent, range[0], range[1]).then(function (r) {
+      partCall(w, sent, range[0], range[1], kind).then(function (r) {
         if (job !== jobSeq) { finish(r.error ? r : { error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
         if (r.error) { stopPool(r.error.message, 'failed'); finish(r); return; }
         parts.push(JSON.stringify(r.result));
@@ -130,6 +142,13 @@ export function runSplit(sent, n, on, workers) {
     on({ done: 0, total: n, report: null, final: false });
     mine.forEach(feed);
   });
+}
+
+// warmPool starts the pool's workers ahead of runs asked for, so that
+// their start (compiling the wasm and starting Go) overlaps the person's
+// reading and typing rather than the runs.
+export function warmPool() {
+  while (pool.length < poolSize()) pool.push(startPoolWorker());
 }
 
 // cancelRuns stops the runs going (the pool's workers are ended).

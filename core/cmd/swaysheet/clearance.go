@@ -58,8 +58,12 @@ func printClearance(w io.Writer, file, title string, r *clearance.Report) {
 				rope += fmt.Sprintf("; passes through it in %d runs, first at %.1f s, %.1f m up", rp.Strikes, rp.FirstStrikeS, rp.FirstStrikeAtHeightM)
 			}
 		}
-		fmt.Fprintf(tw, "  %s\t%d of %d\t%.0f %%\t%.2f m\t%.2f m\t%.1f s\t%.1f m\t%d\t%s\t%s\n", o.Name, o.KeepMargin, o.Runs,
-			100*o.ShareKeepMarginLow, o.ClearanceP5M, o.SmallestM, o.SmallestAtS, o.SmallestAtDistanceM, o.Strikes, gap, rope)
+		strikes := fmt.Sprint(o.Strikes)
+		if o.Strikes > 0 {
+			strikes += fmt.Sprintf(" (load %d, first by the %s at %.1f s)", o.LoadStrikes, o.FirstStrikeBy, o.FirstStrikeS)
+		}
+		fmt.Fprintf(tw, "  %s\t%d of %d\t%.0f %%\t%.2f m\t%.2f m\t%.1f s\t%.1f m\t%s\t%s\t%s\n", o.Name, o.KeepMargin, o.Runs,
+			100*o.ShareKeepMarginLow, o.ClearanceP5M, o.SmallestM, o.SmallestAtS, o.SmallestAtDistanceM, strikes, gap, rope)
 	}
 	tw.Flush()
 	if b := r.Section.Envelope95; len(b.LowM) > 0 {
