@@ -10,6 +10,11 @@ try {
     if (e.preventDefault) e.preventDefault();
     this.bootError = e.message || 'unknown error';
   };
+  // The inputs kept from last time (storage.js CURRENT): the worker
+  // evaluates them while the page's modules load (worker.js warmUp).
+  var kept = null;
+  try { kept = window.localStorage.getItem('swaysheet.current.v1'); } catch (e) { kept = null; }
+  if (kept) window.swaysheetBootWorker.postMessage({ warm: kept });
 } catch (e) {
   window.swaysheetBootWorker = null; // engine.js starts one (and reports what fails)
 }

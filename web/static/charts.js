@@ -11,10 +11,29 @@ let chartAsked = {}, chartsDrawing = 0;
 
 // fitWidth is the width to draw a chart in el at: the width it is shown
 // at, from 300 (a phone) to 640 px (wider, the SVG is scaled up). The
-// core sizes the chart's viewBox to it, so its text keeps its size.
-function fitWidth(el) {
-  var w = el ? el.clientWidth - 12 : 640;
-  return Math.max(300, Math.min(640, Math.round(w || 640)));
+// core sizes the chart's viewBox to it, so its text keeps its size. It is
+// measured once and again only when el's width changes (a
+// ResizeObserver): reading it forces the page's layout, which would hold
+// up a change's evaluate call. known: only a width measured before (0
+// when there is none).
+const widths = {}, boxes = {}, sized = typeof ResizeObserver === 'function' ?
+  new ResizeObserver(function (es) {
+    es.forEach(function (e) {
+      var id = e.target.id, w = e.contentRect.width;
+      if (id in boxes && boxes[id] !== w) delete widths[id];
+      boxes[id] = w;
+    });
+  }) : null;
+function fitWidth(el, known) {
+  if (!el) return 640;
+  if (sized && widths[el.id]) return widths[el.id];
+  if (known) return 0;
+  var w = Math.max(300, Math.min(640, Math.round(el.clientWidth - 12 || 640)));
+  if (sized && el.id) {
+    sized.observe(el);
+    widths[el.id] = w;
+  }
+  return w;
 }
 
 // plotting is true while a chart is being drawn.
@@ -40,34 +59,53 @@ export function safeSVG(text) {
   return document.importNode(root, true);
 }
 
-// drawChart asks the core for the chart opt (the "plot" call's input:
-// id, title, x_label, y_label, series, lines, bands, circles, equal,
-// y_from_zero, legend_top) at the width fig is shown, and puts it in fig
-// with its title above and the caption (HTML) below. An answer overtaken
-// by a later drawing of the same figure is dropped; a failed one keeps
-// the chart shown and says why.
-export function drawChart(fig, opt, caption) {
-  if (!fig) return Promise.resolve();
-  opt.width_px = fitWidth(fig);
+// chartInput completes opt, the "plot" call's input (id, title, x_label,
+// y_label, series, lines, bands, circles, equal, y_from_zero,
+// legend_top), for the figure fig: the width it is shown at, the title
+// above. known: only a width measured before (0 when there is none).
+export function chartInput(fig, opt, known) {
+  opt.width_px = fitWidth(fig, known);
   opt.title_above = true;
+  return opt;
+}
+
+// drawChart asks the core for the chart opt at the width fig is shown,
+// and puts it in fig (showChart). An answer overtaken by a later drawing
+// of the same figure is dropped. later: the call waits until the engine
+// has nothing else to do, and a later drawing of the figure takes its
+// place (engine.js call's later).
+export function drawChart(fig, opt, caption, later) {
+  if (!fig) return Promise.resolve();
   var n = (chartAsked[fig.id] || 0) + 1;
   chartAsked[fig.id] = n;
   chartsDrawing++;
-  return call('plot', JSON.stringify(opt)).then(function (r) {
+  return call('plot', JSON.stringify(chartInput(fig, opt)), later ? { later: 'plot:' + fig.id } : undefined).then(function (r) {
     chartsDrawing--;
-    if (chartAsked[fig.id] !== n) return;
-    var svg = r.error ? null : safeSVG(r.result && r.result.svg);
-    if (!svg) {
-      if (!fig.querySelector('svg')) fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p>';
-      var old = fig.querySelector('.chart-error');
-      if (old) old.remove();
-      var p = document.createElement('p');
-      p.className = 'chart-error';
-      p.textContent = '\u26A0 The chart could not be drawn' + (r.error ? ': ' + r.error.message : '.');
-      fig.appendChild(p);
-      return;
-    }
-    fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p><figcaption>' + caption + '</figcaption>';
-    fig.insertBefore(svg, fig.lastChild);
+    if (chartAsked[fig.id] === n) put(fig, opt, caption, r);
   });
+}
+
+// showChart puts the plot reply r of opt into fig, in place of any
+// drawing of it still asked for.
+export function showChart(fig, opt, caption, r) {
+  chartAsked[fig.id] = (chartAsked[fig.id] || 0) + 1;
+  put(fig, opt, caption, r);
+}
+
+// put puts the chart in fig with its title above and the caption (HTML)
+// below; a failed one keeps the chart shown and says why.
+function put(fig, opt, caption, r) {
+  var svg = r.error ? null : safeSVG(r.result && r.result.svg);
+  if (!svg) {
+    if (!fig.querySelector('svg')) fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p>';
+    var old = fig.querySelector('.chart-error');
+    if (old) old.remove();
+    var p = document.createElement('p');
+    p.className = 'chart-error';
+    p.textContent = '\u26A0 The chart could not be drawn' + (r.error ? ': ' + r.error.message : '.');
+    fig.appendChild(p);
+    return;
+  }
+  fig.innerHTML = '<p class="chart-title">' + esc(opt.title) + '</p><figcaption>' + caption + '</figcaption>';
+  fig.insertBefore(svg, fig.lastChild);
 }

@@ -3,33 +3,33 @@
 // results.js present it.
 
 import { $ } from './dom.js';
-import { call } from './engine.js';
+import { call, unwanted } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { markStale, presentFigures, presenting, updateBanner } from './results.js';
+import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly, unshown, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
-let timer = null, lastChange = -1e9, busy = false, again = false, progressTimer = null, cancelTimer = null;
+let queued = false, busy = false, again = false, progressTimer = null, cancelTimer = null;
 
 // computing is true while the core works on the inputs or more are due,
 // or while the figures of the last result are asked for.
 export function computing() { return busy || again || presenting(); }
 
-// changed: the inputs changed. After a quiet moment the core is asked a
-// task later (the changes made together, as a form redrawn, go as one);
-// within a burst of changes (faster than one each 30 ms) it is asked 30 ms
-// after the last. A change while the core works is sent once it has
-// answered (evaluate's again), and a result overtaken by a change is not
-// presented (evaluate), so typing never queues more than one computation.
+// changed: the inputs changed. The core is asked at once, when the task
+// that changed them ends (the changes made together, as a form redrawn,
+// go as one): no wait after a keystroke. A change while the core works
+// is sent once it has answered (evaluate's again), and a result
+// overtaken by a change is not presented (evaluate), so typing never
+// queues more than one computation. The inputs are kept (storage.js)
+// once the core has read them.
 export function changed() {
   updateBanner();
   planChanged();
-  clearTimeout(timer);
   S.waiting = true;
-  var now = performance.now(), quiet = now - lastChange > 30;
-  lastChange = now;
-  timer = setTimeout(function () { S.waiting = false; evaluate(); keepCurrent(); }, quiet ? 0 : 30);
+  if (queued) return;
+  queued = true;
+  queueMicrotask(function () { queued = false; S.waiting = false; evaluate(); });
 }
 
 function noResults() {
@@ -52,19 +52,34 @@ function showProgress(on) {
 
 export function evaluate() {
   if (Object.keys(S.bad).length) {
+    keepCurrent(JSON.stringify(S.scenario), false);
+    unshown();
     S.coreErrors = [];
     showErrors();
     markStale(!!S.result);
     noResults();
     return;
   }
-  if (busy) { again = true; return; }
+  // While the core works: its answer is wanted only if the inputs are
+  // still those sent ("8" typed on to "8." leaves them so).
+  if (busy) {
+    var was = again;
+    again = JSON.stringify(S.scenario) !== S.lastSent;
+    if (again && !was) unwanted();
+    return;
+  }
   busy = true;
-  var sent = JSON.stringify(S.scenario);
+  var sent = JSON.stringify(S.scenario), angle = angleChart('', true);
   S.lastSent = sent;
   showProgress(true);
-  call('evaluate', sent).then(function (r) {
+  // The worker draws the rope-angle chart with the result and sends it
+  // first: it is shown unless the inputs changed meanwhile.
+  call('evaluate', sent, { chart: angle.opt, onChart: function (c) {
+    if (!again && !S.waiting && S.lastSent === sent) showEarly(sent, angle, c);
+  }, stale: function () { return again; } }).then(function (r) {
     busy = false;
+    // Overtaken by a change before it arrived: the change is sent.
+    if (r.stale) { again = false; evaluate(); return; }
     S.lastDone = sent;
     showProgress(false);
     document.body.dataset.state = 'ready';
@@ -75,8 +90,13 @@ export function evaluate() {
       again = false;
       S.lastDone = JSON.stringify(S.scenario);
     }
+    // Kept: inputs the core evaluated; those it could not (not for their
+    // fields) once it has read them.
+    if (!r.error) keepCurrent(sent, true);
+    else if (!(r.error.fields && r.error.fields.length)) keepCurrent(S.lastDone, false);
     if (again) { again = false; evaluate(); return; }
     if (r.error) {
+      unshown();
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];
       showErrors();
       markStale(!!S.result);
@@ -87,6 +107,7 @@ export function evaluate() {
     showErrors();
     S.result = r.result;
     S.resultSent = sent;
+    keepBands(r.result, r.bands);
     S.count++;
     markStale(false);
     // Inputs changed since: their result follows and is presented.

@@ -4,7 +4,7 @@
 import { evaluate } from './compute.js';
 import { $, notice } from './dom.js';
 
-let worker = null, nextId = 1, waiting = {}, restarts = [];
+let worker = null, nextId = 1, waiting = {}, restarts = [], inFlight = 0, held = [], pumping = false;
 
 // DEADLINES: how long (ms) a call may go unanswered before the engine is
 // taken as stuck or gone (a worker can end without an error event). The
@@ -19,8 +19,21 @@ export function startWorker() {
     var m = e.data;
     if (m.id === 0) { engineStopped(JSON.parse(m.out).error.message, 'failed'); return; }
     var w = waiting[m.id];
+    // An evaluate call's chart comes before its result (worker.js).
+    if (m.chart !== undefined) {
+      if (w) { w.bands = m.bands; if (m.chart && w.onChart) w.onChart(JSON.parse(m.chart)); }
+      return;
+    }
     delete waiting[m.id];
-    if (w) { clearTimeout(w.timer); w.resolve(JSON.parse(m.out)); }
+    if (!w) return;
+    inFlight--;
+    clearTimeout(w.timer);
+    // An answer its caller no longer wants is not read (a result can be
+    // large: reading it holds up the page).
+    var r = w.stale && w.stale() ? { stale: true } : JSON.parse(m.out);
+    if (w.bands) r.bands = w.bands;
+    w.resolve(r);
+    pumpSoon();
   };
   worker.onerror = function (e) {
     if (e.preventDefault) e.preventDefault();
@@ -37,13 +50,16 @@ export function startWorker() {
 // time) or 'cancelled' (the person pressed Cancel): the inputs, the last
 // valid results and the saved scenarios stay.
 function engineStopped(msg, how) {
-  var pending = waiting;
+  var pending = waiting, later = held;
   waiting = {};
+  held = [];
+  inFlight = 0;
   var tail = how === 'cancelled' ? '' : ' The calculation was not finished.';
   Object.keys(pending).forEach(function (id) {
     clearTimeout(pending[id].timer);
     pending[id].resolve({ error: { message: msg + tail, fields: [], stopped: how } });
   });
+  later.forEach(function (h) { h.resolve({ error: { message: msg + tail, fields: [], stopped: how } }); });
   try { worker.terminate(); } catch (e) { /* already gone */ }
   if (how === 'failed') {
     var now = Date.now();
@@ -67,16 +83,64 @@ function engineStopped(msg, how) {
 
 // call runs a core call; it resolves to {result} or {error}. A call not
 // answered within its deadline ends the worker (see engineStopped).
-export function call(name, input) {
+// opt (optional): later, a key: the call can wait; it is sent only when
+// the engine has nothing else to do, and a later call with the same key
+// takes its place (the one replaced resolves to an error with
+// superseded: true). chart and onChart (evaluate only): the rope-angle
+// chart's "plot" input without its data; worker.js fills it from the
+// result (the history's fields named in the series, the moves' bands) and
+// draws it before it answers (unless its width_px is 0), and onChart gets
+// that plot reply first; the result then carries the bands (bands).
+// stale: a function, true when the answer arrives: it is not read, and
+// the call resolves to {stale: true}.
+export function call(name, input, opt) {
   return new Promise(function (resolve) {
-    var id = nextId++, ms = DEADLINES[name] || DEADLINES.other;
-    waiting[id] = {
-      resolve: resolve,
-      timer: setTimeout(function () {
-        if (waiting[id]) engineStopped('The calculation engine did not answer within ' + Math.round(ms / 1000) + ' s (' + name + ').', 'timeout');
-      }, ms)
-    };
-    worker.postMessage({ id: id, name: name, input: input === undefined ? '' : input });
+    var m = { name: name, input: input === undefined ? '' : input, resolve: resolve, opt: opt || {} };
+    if (!m.opt.later) { send(m); return; }
+    held = held.filter(function (h) {
+      if (h.opt.later !== m.opt.later) return true;
+      h.resolve({ error: { message: 'superseded by a later ' + name + ' call', fields: [], superseded: true } });
+      return false;
+    });
+    held.push(m);
+    pumpSoon();
+  });
+}
+
+function send(m) {
+  var id = nextId++, ms = DEADLINES[m.name] || DEADLINES.other;
+  inFlight++;
+  waiting[id] = {
+    resolve: m.resolve,
+    onChart: m.opt.onChart,
+    stale: m.opt.stale,
+    timer: setTimeout(function () {
+      if (waiting[id]) engineStopped('The calculation engine did not answer within ' + Math.round(ms / 1000) + ' s (' + m.name + ').', 'timeout');
+    }, ms)
+  };
+  var msg = { id: id, name: m.name, input: m.input };
+  if (m.opt.chart) msg.chart = m.opt.chart;
+  worker.postMessage(msg);
+}
+
+// pumpSoon sends the first call that waits (opt.later) once the engine
+// has answered everything sent and what the answers start has been sent
+// (a task later).
+function pumpSoon() {
+  if (pumping || !held.length) return;
+  pumping = true;
+  setTimeout(function () {
+    pumping = false;
+    if (inFlight === 0 && held.length) send(held.shift());
+  }, 0);
+}
+
+// unwanted tells the worker that the answers of the calls waiting whose
+// stale function says so are no longer wanted: it leaves out the chart
+// of an evaluate call it has not drawn yet.
+export function unwanted() {
+  Object.keys(waiting).forEach(function (id) {
+    if (waiting[id].stale && waiting[id].stale()) worker.postMessage({ unwanted: Number(id) });
   });
 }
 

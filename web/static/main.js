@@ -58,11 +58,12 @@ function start() {
     } catch (e) { /* default units */ }
     readCurrent(st).then(function (cur) {
       var own = cur && show(cur);
-      // The example library is asked for after the inputs kept from last
-      // time are sent to be computed (it reads and checks every example
-      // file); the demo, shown on a first visit, waits for it.
+      // The example library is asked for once the engine has answered for
+      // the inputs kept from last time (it reads and checks every example
+      // file: engine.js call's later); the demo, shown on a first visit,
+      // waits for it.
       S.examplesLoading = true;
-      var examples = call('examples').then(function (r) {
+      var examples = call('examples', '', { later: 'examples' }).then(function (r) {
         S.examplesLoading = false;
         if (r.error) { engineError(r.error.message); return false; }
         S.examples = r.result;

@@ -2,7 +2,7 @@
 // row of core/figures, its words, rounded text and unit as the core gives
 // them), warnings, assumptions and plots.
 
-import { drawChart } from './charts.js';
+import { chartInput, drawChart, showChart } from './charts.js';
 import { $, esc } from './dom.js';
 import { call } from './engine.js';
 import { renderForm } from './form.js';
@@ -35,23 +35,26 @@ export function presentFigures() {
   // The figures are of this result itself unless the inputs are a
   // planning request without moves of their own (then of the planner's
   // recommended move): its charts are drawn now, beside the figures call,
-  // not after it.
-  // (The rope-angle chart is asked for first, the other three after the
-  // figures and words.)
+  // not after it. The result's own warnings are put into words at the
+  // same time (not after the figures). The rope-angle chart, when the
+  // worker has not drawn it with the result (compute.js), is asked for
+  // after the figures and words, the other three once the engine has
+  // nothing else to do.
   var sent = JSON.parse(S.resultSent), rest = [];
-  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
-  // The result's own warnings are put into words at the same time as
-  // the figures are asked for (not after them).
   var asked = call('figures', figuresInput(S.resultSent));
   var ownWords = say(own.warning_sentences || []);
+  if (!(sent.plan && !(sent.motions || []).length)) drawPlots(own, '', false, rest);
   rest.forEach(function (draw) { draw(); });
   return asked.then(function (f) {
     if (n !== figuresAsked) return null;
     if (f.error) return { figures: { error: f.error.message }, result: own, fingerprint: '' };
     var rep = f.result;
-    var got = rep.result_scenario ? call('evaluate', JSON.stringify(rep.result_scenario)) : Promise.resolve({ result: own });
+    // (Its rope-angle chart is drawn with it for the moves' bands.)
+    var got = rep.result_scenario ? call('evaluate', JSON.stringify(rep.result_scenario), { chart: angleChart(rep.result_for || '', true).opt }) :
+      Promise.resolve({ result: own });
     return got.then(function (e) {
       if (e.error) return { figures: { error: 'the figures\u2019 own move could not be evaluated: ' + e.error.message }, result: own, fingerprint: '' };
+      keepBands(e.result, e.bands);
       return { figures: rep, result: e.result, fingerprint: rep.result_fingerprint };
     });
   }).then(function (p) {
@@ -176,39 +179,78 @@ export function renderPlots(redraw) {
 }
 
 // plotted says what the charts shown were drawn of: the result, whose
-// move they are said to be of, the units and the limits.
-let plotted = { result: null, key: '' };
+// move they are said to be of, the units and the limits. early: the
+// rope-angle chart drawn by the worker with the evaluate call (sent: the
+// scenario JSON it is of; key as plotted's).
+let plotted = { result: null, key: '' }, early = { sent: null, key: '' };
+// bandsOf keeps the moves' bands of each result as the worker drew them
+// with its rope-angle chart (engine.js call's chart, worker.js).
+const bandsOf = new WeakMap();
+export function keepBands(result, bands) { if (result && bands) bandsOf.set(result, bands); }
 
-// drawPlots draws the charts of result r (of: the words for whose move it
-// is, '' for the inputs' own), unless they are drawn of the same already.
-// With later (a list), only the first chart is asked for now: the others
-// are put in the list as functions to call.
-function drawPlots(r, of, redraw, later) {
-  var hs = r && r.history;
-  if (!hs || !hs.time_s || !hs.time_s.length) return;
-  var key = of + '|' + unitsKey() + '|' + JSON.stringify(S.scenario.limits || {});
-  if (!redraw && plotted.result === r && plotted.key === key) return;
-  plotted = { result: r, key: key };
-  of = of ? 'Of ' + of + '. ' : '';
-  var draw = function (fig, opt, caption) {
-    if (later) later.push(function () { drawChart(fig, opt, caption); });
-    else drawChart(fig, opt, caption);
-  };
-  var L = unitOf('length').symbol, F = unitOf('force').symbol;
-  var bands = [];
-  (r.phases || []).forEach(function (p) {
-    var n = p.motion + 1;
-    bands.push({ x0: p.start_s, x1: p.accel_end_s, text: 'A' + n });
-    bands.push({ x0: p.decel_start_s, x1: p.end_s, text: 'B' + n });
-  });
-  var lim = S.scenario.limits || {};
-  var hl = [];
+function plotKey(of) { return of + '|' + unitsKey() + '|' + JSON.stringify(S.scenario.limits || {}); }
+
+// angleChart is the rope-angle chart of a result (of: the words for
+// whose move it is, '' for the inputs' own): its "plot" input and its
+// caption. The series name the history's fields and there are no bands:
+// the worker fills them in (engine.js call's chart), or drawPlots does.
+// known: at a width measured before, or none (width_px 0: the worker
+// then gives the bands only).
+export function angleChart(of, known) {
+  var lim = S.scenario.limits || {}, hl = [], fig = $('plot-angle');
   if (typeof lim.peak_swing_deg === 'number') hl.push({ y: lim.peak_swing_deg, text: 'limit ' + fmtStep('angle', lim.peak_swing_deg) + ' deg' });
   // Plots of another move than the inputs' (the planner's recommended
   // one) say so (of), as the figures above do.
-  drawChart($('plot-angle'), { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
-    series: [{ x: hs.time_s, y: hs.swing_deg, name: 'rope angle', class: 's1' }], bands: bands, lines: hl, y_from_zero: true },
-  esc(of) + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.');
+  return {
+    fig: fig, key: plotKey(of),
+    opt: chartInput(fig, { id: 'angle', title: 'Rope angle from the vertical', x_label: 'time (s)', y_label: 'rope angle (deg)',
+      series: [{ x: 'time_s', y: 'swing_deg', name: 'rope angle', class: 's1' }], lines: hl, y_from_zero: true }, known),
+    caption: esc(of ? 'Of ' + of + '. ' : '') + 'Hatched bands: A = a move speeding up, B = braking, numbered by move.'
+  };
+}
+
+// showEarly puts the rope-angle chart a (angleChart('')) the worker drew
+// with the evaluate call of sent into the page, ahead of the result.
+export function showEarly(sent, a, reply) {
+  early = { sent: sent, key: a.key };
+  showChart(a.fig, a.opt, a.caption, reply);
+}
+
+// unshown: the inputs' result was not presented (an error, or
+// overtaken): a rope-angle chart the worker drew of them is replaced by
+// the charts of the result shown.
+export function unshown() {
+  if (!early.sent || early.sent === S.resultSent) return;
+  early = { sent: null, key: '' };
+  if (S.result) renderPlots(true);
+}
+
+// drawPlots draws the charts of result r (of: the words for whose move it
+// is, '' for the inputs' own), unless they are drawn of the same already.
+// With later (a list), the rope-angle chart is asked for now (unless the
+// worker drew it with the evaluate call: showEarly) and the others are
+// put in the list as functions to call: they wait until the engine has
+// nothing else to do (charts.js drawChart's later).
+function drawPlots(r, of, redraw, later) {
+  var hs = r && r.history;
+  if (!hs || !hs.time_s || !hs.time_s.length) return;
+  var key = plotKey(of), drawn = !redraw && later && early.sent === S.resultSent && early.key === key;
+  if (!redraw && plotted.result === r && plotted.key === key) return;
+  plotted = { result: r, key: key };
+  early = { sent: null, key: '' };
+  var bands = bandsOf.get(r) || [];
+  if (!drawn) {
+    var a = angleChart(of);
+    a.opt.series[0].x = hs.time_s;
+    a.opt.series[0].y = hs.swing_deg;
+    a.opt.bands = bands;
+    drawChart(a.fig, a.opt, a.caption);
+  }
+  var draw = function (fig, opt, caption) {
+    if (later) later.push(function () { drawChart(fig, opt, caption, true); });
+    else drawChart(fig, opt, caption);
+  };
+  var L = unitOf('length').symbol, F = unitOf('force').symbol, lim = S.scenario.limits || {};
   draw($('plot-path'), { id: 'path', title: 'Seen from above: load and trolley paths', x_label: 'x (' + L + ')', y_label: 'y (' + L + ')', equal: true, legend_top: true,
     series: [{ x: scale('length', hs.suspension_x_m), y: scale('length', hs.suspension_y_m), name: 'suspension point', class: 's2' },
       { x: scale('length', hs.load_x_m), y: scale('length', hs.load_y_m), name: 'load', class: 's1' }] },

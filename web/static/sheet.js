@@ -20,7 +20,7 @@ function buildSheet() {
   if (!sc) { sheetMadeFor = forResult; return Promise.resolve(false); }
   var input = JSON.stringify({ scenario: sc, units: sw.units(), system: sw.system(),
     link_base: location.protocol === 'file:' ? '' : location.href.split('#')[0], printed_at: printedAt() });
-  return sw.call('sheet', input).then(function (r) {
+  return sw.call('sheet', input, { later: 'sheet' }).then(function (r) {
     if (my !== sheetSeq) return false;
     if (r.error) {
       sheetMadeFor = forResult;

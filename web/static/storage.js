@@ -12,20 +12,27 @@ export const SAVED = 'swaysheet.saved.v1:', CURRENT = 'swaysheet.current.v1', UN
 export function store() {
   try { return window.localStorage; } catch (e) { return null; }
 }
-// keepCurrent keeps the inputs in this browser once the core has read
-// them: the kept inputs are always a scenario the page can show again
-// (a value the core rejects is not kept; the one before it is).
+// keepCurrent keeps the inputs (text, the scenario JSON) in this browser
+// once the core has read them: the kept inputs are always a scenario the
+// page can show again (a value the core rejects is not kept; the one
+// before it is). read: the core has evaluated text without an error
+// (compute.js), so it is kept at once; otherwise the core is asked to read
+// it when it has nothing else to do.
 let keepSeq = 0, keptSeq = 0;
-export function keepCurrent() {
+export function keepCurrent(text, read) {
   var st = store();
   if (!st) return;
-  var text = JSON.stringify(S.scenario), my = ++keepSeq;
-  S.keeping = (S.keeping || 0) + 1;
-  call('validate', text).then(function (r) {
-    S.keeping--;
-    if (r.error || my < keptSeq) return;
+  var my = ++keepSeq;
+  var keep = function () {
+    if (my < keptSeq) return;
     keptSeq = my;
     try { st.setItem(CURRENT, text); } catch (e) { notice('The inputs could not be kept in this browser: ' + e.message); }
+  };
+  if (read) { keep(); return; }
+  S.keeping = (S.keeping || 0) + 1;
+  call('validate', text, { later: 'keep' }).then(function (r) {
+    S.keeping--;
+    if (!r.error) keep();
   });
 }
 // keepInSaved keeps the inputs among the saved scenarios under why and

@@ -124,8 +124,45 @@ self.swaysheetFetch = function (kind, url, done) {
   fetcher.postMessage({ id: id, url: new URL(url, self.location.href).href });
 };
 
+// Work done before the page asks, while its modules still load (the
+// wasm is ready well before them): the calls without input whose answer
+// never changes in one engine (the page's first calls) are answered from
+// here; the inputs kept from last time (boot.js sends them: {warm}) are
+// evaluated, so the page's own evaluate call finds them in the bridge's
+// memo; and the figures and plot calls run once, so that their code is
+// compiled before a person waits for it. Nothing here is shown.
+var FIXED = ['units', 'ranges', 'version', 'ropelength_ranges'], fixed = {}, warm = null, started = false, unwanted = {};
+
+function callOut(name, input) {
+  return new Promise(function (resolve) { self.swaysheetCall(name, input, resolve); });
+}
+
+function warmUp() {
+  if (typeof self.swaysheetCall !== 'function') return;
+  started = true;
+  FIXED.forEach(function (n) { fixed[n] = callOut(n, ''); });
+  if (warm) {
+    callOut('evaluate', warm);
+    callOut('figures', '{"scenario":' + warm + ',"units":{},"system":"si"}');
+  }
+  callOut('plot', '{"title":"","x_label":"","y_label":"","series":[{"x":[0,1],"y":[0,1]}],"width_px":300}');
+}
+ready.then(warmUp, function () { /* reported to each call */ });
+
 onmessage = async function (e) {
   var m = e.data;
+  if (m.unwanted) {
+    unwanted[m.unwanted] = true;
+    return;
+  }
+  if (m.warm !== undefined) {
+    if (!started) warm = m.warm;
+    return;
+  }
+  if (!m.input && fixed[m.name]) {
+    fixed[m.name].then(function (out) { postMessage({ id: m.id, out: out }); });
+    return;
+  }
   try {
     await ready;
   } catch (err) {
@@ -137,6 +174,37 @@ onmessage = async function (e) {
     return;
   }
   self.swaysheetCall(m.name, m.input || '', function (out) {
-    postMessage({ id: m.id, out: out });
+    var answer = function () { postMessage({ id: m.id, out: out }); };
+    if (m.chart) drawFirst(m, out, answer);
+    else answer();
   });
 };
+
+// drawFirst draws the chart an evaluate call came with (engine.js) from
+// its result and posts it, with the bands drawn, before the result: the
+// page shows it without a second trip here (a chart without a width: the
+// bands alone). The chart's series name the
+// result's history fields ("time_s"); the bands are the moves' speeding
+// up (A) and braking (B), numbered by move.
+function drawFirst(m, out, then) {
+  var r = JSON.parse(out).result, hs = r && r.history, c = m.chart, bands = [];
+  if (!hs || !hs.time_s) { then(); return; }
+  (r.phases || []).forEach(function (p) {
+    var n = p.motion + 1;
+    bands.push({ x0: p.start_s, x1: p.accel_end_s, text: 'A' + n });
+    bands.push({ x0: p.decel_start_s, x1: p.end_s, text: 'B' + n });
+  });
+  // A task later: the page may have said meanwhile that it no longer
+  // wants the result ({unwanted: id}, engine.js); the chart is then not drawn.
+  setTimeout(function () {
+    var drop = unwanted[m.id];
+    unwanted = {};
+    if (!c.width_px || drop) { postMessage({ id: m.id, chart: '', bands: bands }); then(); return; }
+    c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
+    c.bands = bands;
+    self.swaysheetCall('plot', JSON.stringify(c), function (svg) {
+      postMessage({ id: m.id, chart: svg, bands: bands });
+      then();
+    });
+  }, 0);
+}
