@@ -304,6 +304,8 @@ func (rq *request) rampOption(tr, r float64) *Option {
 }
 
 // speedQ is a speed of the axis (SI in) as a quantity.
+//
+//go:noinline
 func (rq *request) speedQ(v float64) Quantity {
 	return Quantity{Value: rq.inAxis(v), Quantity: rq.axis.Kind.SpeedQuantity, Digits: 3}
 }

@@ -163,9 +163,13 @@ type Estimate struct {
 }
 
 // add appends a sentence to the option's settings.
+//
+//go:noinline
 func (o *Option) add(s Sentence) { o.Sentences = append(o.Sentences, s) }
 
 // found appends a sentence to the option's findings.
+//
+//go:noinline
 func (o *Option) found(s Sentence) { o.FindingSentences = append(o.FindingSentences, s) }
 
 // Verified is one simulation of an option.

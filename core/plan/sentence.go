@@ -31,6 +31,14 @@ type Quantity struct {
 }
 
 // say builds a sentence whose placeholders {i} stand for qs[i].
+//
+// say, the quantity constructors below, digits, speedQ and Option's add
+// and found are not inlined: they build words once a plan, at some 250
+// call sites, and every inlined copy costs the page's wasm (7.5 kB
+// gzipped in all); the planner's arithmetic keeps
+// inlining (web/dist NoInline says why the rest of the package does).
+//
+//go:noinline
 func say(text string, qs ...Quantity) Sentence {
 	if qs == nil {
 		qs = []Quantity{}
@@ -39,17 +47,33 @@ func say(text string, qs ...Quantity) Sentence {
 }
 
 // Quantity constructors, SI in (angles in degrees).
-func qLen(v float64) Quantity   { return Quantity{Value: v, Quantity: "length", Digits: 3} }
-func qTime(v float64) Quantity  { return Quantity{Value: v, Quantity: "time", Digits: 3} }
+
+//go:noinline
+func qLen(v float64) Quantity { return Quantity{Value: v, Quantity: "length", Digits: 3} }
+
+//go:noinline
+func qTime(v float64) Quantity { return Quantity{Value: v, Quantity: "time", Digits: 3} }
+
+//go:noinline
 func qAngle(v float64) Quantity { return Quantity{Value: v, Quantity: "angle", Digits: 2} }
+
+//go:noinline
 func qSpeed(v float64) Quantity { return Quantity{Value: v, Quantity: "speed", Digits: 3} }
-func qAcc(v float64) Quantity   { return Quantity{Value: v, Quantity: "acceleration", Digits: 3} }
-func qRate(v float64) Quantity  { return Quantity{Value: v, Quantity: "angular_speed", Digits: 3} }
+
+//go:noinline
+func qAcc(v float64) Quantity { return Quantity{Value: v, Quantity: "acceleration", Digits: 3} }
+
+//go:noinline
+func qRate(v float64) Quantity { return Quantity{Value: v, Quantity: "angular_speed", Digits: 3} }
+
+//go:noinline
 func qAlpha(v float64) Quantity {
 	return Quantity{Value: v, Quantity: "angular_acceleration", Digits: 3}
 }
 
 // digits returns q with d significant digits.
+//
+//go:noinline
 func (q Quantity) digits(d int) Quantity { q.Digits = d; return q }
 
 // String is the quantity in SI with its unit symbol.

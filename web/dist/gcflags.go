@@ -6,12 +6,16 @@ package dist
 // resumable state machine), and these packages run once a call, not in
 // the simulation's loops: reading and checking the scenario, the figures'
 // table and words, units, the check sheet and its plotter, the QR code,
-// the bridge; and the standard library's fmt, encoding/json and reflect
-// (their work per call is in calls through function values and strconv,
-// which keep their speed). Without inlining there the wasm is about 85 kB
-// smaller gzipped and 20 kB smaller raw, with the same output (inlining
-// changes no result). The physics (sway, ode, pendulum, motion, crane,
-// plan, clearance, draws, shaper) keeps it. make wasm and
+// the bridge; and the standard library's fmt, encoding/json, reflect and
+// the text packages strings, strconv, unicode/utf8 and bytes (their work
+// is words and JSON once a call; the simulation's loops call none of
+// them). Without inlining there the wasm is about 90 kB smaller gzipped
+// (the text packages 6 kB of it) and 20 kB smaller raw, with the same
+// output (inlining changes no result). The crane's geometry and the motion profiles
+// (crane, motion) are flattened into the fast paths' own span tables
+// before a run, so only the general path (rigid loads, wind) calls them
+// per step and pays a little (4 kB less). The physics (sway, ode,
+// pendulum, plan, clearance, draws, shaper) keeps inlining. make wasm and
 // make single-wasm pass the same list (NOINLINE in the Makefile;
 // TestMakefileNoInline), and the browser tests build with WasmGcflags.
 var NoInline = []string{
@@ -23,9 +27,17 @@ var NoInline = []string{
 	"swaysheet/core/ropelength",
 	"swaysheet/core/qr",
 	"swaysheet/wasm/bridge",
+	"swaysheet/core/crane",
+	"swaysheet/core/motion",
+	"swaysheet/core/version",
+	"swaysheet/core/internal/sorts",
 	"fmt",
 	"encoding/json",
 	"reflect",
+	"strings",
+	"strconv",
+	"unicode/utf8",
+	"bytes",
 }
 
 // WasmGcflags are the go build arguments of NoInline.
