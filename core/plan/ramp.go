@@ -42,6 +42,23 @@ import (
 // rampGrid is the number of rope lengths of the linear screening.
 const rampGrid = 9
 
+// rampSearch is what the ramp search runs over: the modes at rampGrid
+// rope lengths ls evenly over the range, and the ramp times from the
+// shortest the drive allows (to 0.1 s) up to four periods at the longest
+// rope (at most 120 s).
+func (rq *request) rampSearch() (grid []modeSet, ls []float64, tmin, tmax float64) {
+	lo, hi := rq.ropeRange()
+	grid = make([]modeSet, rampGrid)
+	ls = make([]float64, rampGrid)
+	for i := range grid {
+		ls[i] = lo + (hi-lo)*float64(i)/(rampGrid-1)
+		grid[i] = rq.modesAt(ls[i])
+	}
+	tmin = math.Ceil(rq.vmax/rq.amax*10-1e-9) / 10
+	tmax = math.Min(120, 4*rq.periodAt(hi))
+	return grid, ls, tmin, tmax
+}
+
 // rampResidual is the linear-theory residual of one ramp with ramp time
 // tr (0 to full speed) and rounding r at rope length l, rad; for a slew,
 // of the whole slew (slewResidual).
@@ -191,15 +208,7 @@ type rampSetting struct {
 }
 
 func (rq *request) findRamp(maxR float64) rampSetting {
-	lo, hi := rq.ropeRange()
-	grid := make([]modeSet, rampGrid)
-	ls := make([]float64, rampGrid)
-	for i := range grid {
-		ls[i] = lo + (hi-lo)*float64(i)/(rampGrid-1)
-		grid[i] = rq.modesAt(ls[i])
-	}
-	tmin := math.Ceil(rq.vmax/rq.amax*10-1e-9) / 10
-	tmax := math.Min(120, 4*rq.periodAt(hi))
+	grid, ls, tmin, tmax := rq.rampSearch()
 	best := rq.scanRamps(tmin, tmax, maxR, grid, ls, false)
 	if len(best.candidates) == 0 {
 		// None passes: again, every rope length of every setting, for the

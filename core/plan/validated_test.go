@@ -3,7 +3,6 @@ package plan
 import (
 	"cmp"
 	"encoding/json"
-	"math"
 	"slices"
 	"testing"
 
@@ -56,15 +55,7 @@ func TestRampSearchOrder(t *testing.T) {
 			fast := request1(t, name)
 			got := fast.findRamp(maxR)
 			all := request1(t, name)
-			lo, hi := all.ropeRange()
-			grid := make([]modeSet, rampGrid)
-			ls := make([]float64, rampGrid)
-			for i := range grid {
-				ls[i] = lo + (hi-lo)*float64(i)/(rampGrid-1)
-				grid[i] = all.modesAt(ls[i])
-			}
-			tmin := math.Ceil(all.vmax/all.amax*10-1e-9) / 10
-			tmax := math.Min(120, 4*all.periodAt(hi))
+			grid, ls, tmin, tmax := all.rampSearch()
 			want := all.scanRamps(tmin, tmax, maxR, grid, ls, true).candidates
 			if len(want) == 0 || !slices.Equal(sortedTotal(got.candidates), sortedTotal(want)) {
 				t.Errorf("%s, rounding up to %g s: found %v, every length tried %v", name, maxR, got.candidates, want)
