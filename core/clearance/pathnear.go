@@ -27,26 +27,35 @@ import "math"
 //
 // A piece between samples whose plan box stays clear of the outline's
 // box, or which stays above the top, passes through nothing, so the exact
-// SegmentStrikes test is made only on the others. The answer is that of
-// alongPathEvery (TestAlongPathNearMatchesEvery).
+// SegmentStrikes test is made only on the others; nor does a piece of a
+// stretch left out whole (its clearance is above zero all along), so
+// such a stretch is passed over at once. The bound on what the points
+// checked miss (Closest.ErrorBoundM) is the path's, whatever the obstacle
+// (pathLengths.errM). The answer is that of alongPathEvery
+// (TestAlongPathNearMatchesEvery).
 func (o *Obstacle) alongPathNear(path []Sample, radiusM, stepM float64) Closest {
-	return o.alongPathWith(path, measurePath(path), radiusM, stepM)
+	return o.alongPathWith(path, measurePath(path, stepM), radiusM, stepM)
 }
 
 // pathLengths is a path's length up to each point, in space (cum) and
-// seen from above (cumPlan), and its coarse samples: what alongPathNear
-// needs of the path whatever the obstacle, found once for all of them.
+// seen from above (cumPlan), its coarse samples, and the largest half
+// distance between the points checked at steps of stepM (errM: the
+// Closest's ErrorBoundM): what alongPathNear needs of the path whatever
+// the obstacle, found once for all of them.
 type pathLengths struct {
 	cum, cumPlan []float64
 	coarse       []int
+	errM         float64
 }
 
 const coarseM = 0.25 // m between coarse samples
 
-func measurePath(path []Sample) *pathLengths { return measurePathInto(path, new(scratch)) }
+func measurePath(path []Sample, stepM float64) *pathLengths {
+	return measurePathInto(path, stepM, new(scratch))
+}
 
 // measurePathInto is measurePath in sc's memory.
-func measurePathInto(path []Sample, sc *scratch) *pathLengths {
+func measurePathInto(path []Sample, stepM float64, sc *scratch) *pathLengths {
 	n := len(path)
 	sc.cum, sc.plan = grow(sc.cum, n), grow(sc.plan, n)
 	pl := &pathLengths{cum: sc.cum, cumPlan: sc.plan, coarse: append(sc.coarse[:0], 0)}
@@ -56,7 +65,12 @@ func measurePathInto(path []Sample, sc *scratch) *pathLengths {
 	}
 	for i := 1; i < n; i++ {
 		a, b := path[i-1].At, path[i].At
-		cum[i] = cum[i-1] + dist3(a, b)
+		length := dist3(a, b)
+		cum[i] = cum[i-1] + length
+		// As alongPathEvery finds it, piece by piece.
+		if half := length / float64(max(int(math.Ceil(length/stepM)), 1)) / 2; half > pl.errM {
+			pl.errM = half
+		}
 		cumPlan[i] = cumPlan[i-1] + math.Hypot(b.X-a.X, b.Y-a.Y)
 		if i == n-1 || cum[i]-cum[pl.coarse[len(pl.coarse)-1]] >= coarseM {
 			pl.coarse = append(pl.coarse, i)
@@ -85,6 +99,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 	keepV, keepD := math.Max(least, 0)+tolM, radiusM+tolM
 	lo, hi := outlineBox(o.Outline)
 
+	c.ErrorBoundM = pl.errM
 	offer := w.offer
 	offer(path[0].TimeS, path[0].At)
 	m := 0 // coarse[m] <= i < coarse[m+1]
@@ -93,19 +108,20 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 			m++
 		}
 		A, B := coarse[m], coarse[m+1]
+		span, spanPlan := cum[B]-cum[A], cumPlan[B]-cumPlan[A]
+		if (vs[m]+vs[m+1]-span)/2 > keepV && (ds[m]+ds[m+1]-spanPlan)/2 > keepD {
+			// The clearance is above keepV, so above zero, all along
+			// the stretch: no point of it matters and no piece of it
+			// strikes. On to the next stretch.
+			i = B - 1
+			continue
+		}
 		a, b := path[i], path[i+1]
 		dx, dy, dz := b.At.X-a.At.X, b.At.Y-a.At.Y, b.At.Z-a.At.Z
 		length := math.Sqrt(dx*dx + dy*dy + dz*dz)
 		steps := max(int(math.Ceil(length/stepM)), 1)
-		if half := length / float64(steps) / 2; half > c.ErrorBoundM {
-			c.ErrorBoundM = half
-		}
 		if !c.Strikes && o.mayStrike(a.At, b.At, lo, hi, tolM) && o.SegmentStrikes(a.At, b.At) {
 			c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, a.TimeS, a.At
-		}
-		span, spanPlan := cum[B]-cum[A], cumPlan[B]-cumPlan[A]
-		if (vs[m]+vs[m+1]-span)/2 > keepV && (ds[m]+ds[m+1]-spanPlan)/2 > keepD {
-			continue
 		}
 		lengthPlan := math.Hypot(dx, dy)
 		for k := 1; k <= steps; k++ {

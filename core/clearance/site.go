@@ -166,7 +166,7 @@ func (s *Site) checkRunWith(r *Run, stepM float64, sc *scratch) []Closest {
 			out[k] = s.Obstacles[k].AlongPath(path, s.LoadRadiusM, stepM)
 		default:
 			if pl == nil {
-				pl = measurePathInto(path, sc)
+				pl = measurePathInto(path, stepM, sc)
 			}
 			out[k] = s.Obstacles[k].alongPathWith(path, pl, s.LoadRadiusM, stepM)
 		}
