@@ -139,3 +139,25 @@ func TestValidateOutline(t *testing.T) {
 		t.Errorf("L-shape: %v", err)
 	}
 }
+
+func TestInsideEdgeMatches(t *testing.T) {
+	// The one-pass form gives what Inside and EdgeDistance give, exactly:
+	// points about a concave outline, on its corners and edges, and not
+	// finite.
+	poly := []Point2{{0, 0}, {4, 0}, {4, 2}, {2, 2}, {2, 4}, {0, 4}}
+	var pts []Point2
+	for x := -1.0; x <= 5; x += 0.25 {
+		for y := -1.0; y <= 5; y += 0.125 {
+			pts = append(pts, Point2{x, y})
+		}
+	}
+	pts = append(pts, poly...)
+	pts = append(pts, Point2{1, 0}, Point2{4, 1.3}, Point2{math.NaN(), 1}, Point2{math.Inf(1), 2}, Point2{1, math.Inf(-1)})
+	for _, p := range pts {
+		in, d := insideEdge(p, poly)
+		wd := EdgeDistance(p, poly)
+		if in != Inside(p, poly) || !(d == wd || (math.IsNaN(d) && math.IsNaN(wd))) {
+			t.Fatalf("%v: one pass (%v, %g), two passes (%v, %g)", p, in, d, Inside(p, poly), wd)
+		}
+	}
+}
