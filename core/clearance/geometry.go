@@ -102,20 +102,9 @@ func area(poly []Point2) float64 {
 }
 
 // Inside reports whether p lies inside the polygon or on its boundary
-// (crossing-number test; Haines, "Point in polygon strategies", Graphics
-// Gems IV, 1994).
+// (see insideEdge).
 func Inside(p Point2, poly []Point2) bool {
-	in := false
-	n := len(poly)
-	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		a, b := poly[j], poly[i]
-		if pointSegmentDistance(p, a, b) == 0 {
-			return true
-		}
-		if (a.Y > p.Y) != (b.Y > p.Y) && p.X < a.X+(p.Y-a.Y)*(b.X-a.X)/(b.Y-a.Y) {
-			in = !in
-		}
-	}
+	in, _ := insideEdge(p, poly)
 	return in
 }
 
@@ -138,14 +127,10 @@ func pointSegmentDist2(p, a, b Point2) float64 {
 	return ex*ex + ey*ey
 }
 
-// EdgeDistance is the distance from p to the polygon's boundary.
+// EdgeDistance is the distance from p to the polygon's boundary (see
+// insideEdge).
 func EdgeDistance(p Point2, poly []Point2) float64 {
-	d := math.Inf(1)
-	for i := range poly {
-		if e := pointSegmentDistance(p, poly[i], poly[(i+1)%len(poly)]); e < d || e != e {
-			d = e // a NaN is kept, as math.Min keeps it
-		}
-	}
+	_, d := insideEdge(p, poly)
 	return d
 }
 
@@ -158,13 +143,15 @@ func PlanDistance(p Point2, poly []Point2) float64 {
 	return 0
 }
 
-// insideEdge is Inside(p, poly) and EdgeDistance(p, poly) in one pass
-// over the edges, each edge's distance found once (Inside's test for a
-// point on the boundary is an edge at distance zero): a clearance needs
-// both, and in wasm the two passes were a sixth of a run's obstacle
-// check. The square root of the least squared distance is the least
-// distance (the root is monotone and correctly rounded), and a NaN
-// distance is kept, as EdgeDistance keeps it (TestInsideEdgeMatches).
+// insideEdge is whether p lies inside the polygon or on its boundary
+// (crossing-number test; Haines, "Point in polygon strategies", Graphics
+// Gems IV, 1994), and the distance from p to the boundary, in one pass
+// over the edges: each edge's distance is found once, and a distance of
+// zero is a point on the boundary. A clearance needs both (in wasm the
+// two passes were a sixth of a run's obstacle check). The square root of
+// the least squared distance is the least distance (the root is monotone
+// and correctly rounded); a NaN distance is kept, as math.Min keeps it
+// (TestInsideEdgeMatches: the same as an edge by edge pass of each).
 func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	on := false
 	d2 := math.Inf(1)
