@@ -93,3 +93,45 @@ func TestStrayMatchesEvery(t *testing.T) {
 		}
 	}
 }
+
+func TestNearestMatchesEverySegment(t *testing.T) {
+	// The grid's search gives the least squared distance and the first
+	// segment with it, as looking at every segment does: winding and
+	// straight polylines (a travel track: one row of buckets), points
+	// near them, far off the grid and on their corners.
+	rng := rand.New(rand.NewPCG(19, 23))
+	for trial := range 300 {
+		poly := make([]Point2, 2+rng.IntN(300))
+		p := Point2{rng.Float64() * 10, rng.Float64() * 10}
+		for i := range poly {
+			poly[i] = p
+			switch trial % 3 {
+			case 0: // straight along x, some points standing
+				p.X += float64(rng.IntN(2)) * rng.Float64() * 0.1
+			case 1: // a slew's arc
+				a := float64(i) * 0.01
+				p = Point2{20 * math.Cos(a), 20 * math.Sin(a)}
+			default:
+				p.X += rng.Float64() * 0.3
+				p.Y += (rng.Float64() - 0.5) * 0.5
+			}
+		}
+		n := newNearest(poly)
+		for k := range 200 {
+			q := poly[rng.IntN(len(poly))]
+			if k%4 != 0 {
+				q.X += rng.NormFloat64() * []float64{0.05, 0.5, 5}[k%3]
+				q.Y += rng.NormFloat64() * []float64{0.05, 0.5, 5}[k%3]
+			}
+			best, seg := math.Inf(1), 0
+			for s := 0; s+1 < len(poly); s++ {
+				if d := pointSegmentDist2(q, poly[s], poly[s+1]); d < best {
+					best, seg = d, s
+				}
+			}
+			if d, s := n.closest(q); d != best || s != seg {
+				t.Fatalf("trial %d point %v: grid (%g, segment %d), every segment (%g, segment %d)", trial, q, d, s, best, seg)
+			}
+		}
+	}
+}

@@ -151,20 +151,24 @@ func (n *nearest) closest(p Point2) (float64, int) {
 		if ring > n.nx && ring > n.ny {
 			return best, seg
 		}
-		// The ring's buckets: its top and bottom rows whole, its sides
-		// between (the order does not matter: ties go to the first
-		// segment).
+		// The ring's buckets on the grid: its top and bottom rows whole,
+		// its sides between (the order does not matter: ties go to the
+		// first segment).
 		if ring == 0 {
 			best, seg = n.look(p, ci, cj, best, seg)
 			continue
 		}
-		for i := max(ci-ring, 0); i <= min(ci+ring, n.nx-1); i++ {
-			best, seg = n.look(p, i, cj-ring, best, seg)
-			best, seg = n.look(p, i, cj+ring, best, seg)
+		i0, i1 := max(ci-ring, 0), min(ci+ring, n.nx-1)
+		for _, j := range [2]int{cj - ring, cj + ring} {
+			for i := i0; j >= 0 && j < n.ny && i <= i1; i++ {
+				best, seg = n.look(p, i, j, best, seg)
+			}
 		}
-		for j := max(cj-ring+1, 0); j <= min(cj+ring-1, n.ny-1); j++ {
-			best, seg = n.look(p, ci-ring, j, best, seg)
-			best, seg = n.look(p, ci+ring, j, best, seg)
+		j0, j1 := max(cj-ring+1, 0), min(cj+ring-1, n.ny-1)
+		for _, i := range [2]int{ci - ring, ci + ring} {
+			for j := j0; i >= 0 && i < n.nx && j <= j1; j++ {
+				best, seg = n.look(p, i, j, best, seg)
+			}
 		}
 	}
 }
@@ -196,13 +200,30 @@ func (n *nearest) wall(p Point2, ci, cj, r int) float64 {
 }
 
 // look searches bucket (i, j) for a segment nearer p than best (or as
-// near with a lower index than seg), when the bucket is on the grid.
+// near with a lower index than seg), when the bucket is on the grid. A
+// segment whose box is farther from p than best, by more than the
+// rounding of either (a billionth, and 1e-18 m² for the smallest), is no
+// nearer than best, nor as near: it is passed over without its distance
+// (in wasm a call; the box is a few comparisons). So best and seg are
+// those of every segment's distance, exactly, and the search around them
+// is unchanged.
 func (n *nearest) look(p Point2, i, j int, best float64, seg int) (float64, int) {
 	if i < 0 || i >= n.nx || j < 0 || j >= n.ny {
 		return best, seg
 	}
 	for _, s := range n.bucket[j*n.nx+i] {
-		if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
+		a, b := n.pts[s], n.pts[s+1]
+		lx, hx, ly, hy := a.X, b.X, a.Y, b.Y
+		if lx > hx {
+			lx, hx = hx, lx
+		}
+		if ly > hy {
+			ly, hy = hy, ly
+		}
+		if bx, by := outsideBy(p.X, lx, hx), outsideBy(p.Y, ly, hy); bx*bx+by*by > best+best*1e-9+1e-18 {
+			continue
+		}
+		if d := pointSegmentDist2(p, a, b); d < best || (d == best && int(s) < seg) {
 			best, seg = d, int(s)
 		}
 	}
