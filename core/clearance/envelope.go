@@ -137,12 +137,12 @@ func (r *PlanPath) latticeBox(cellM float64) (i0, i1, j0, j1 int) {
 	if r.Outlines == nil {
 		reach = r.RadiusM + cellM*math.Sqrt2/2
 		for _, p := range r.Points {
-			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+			lo.X, lo.Y, hi.X, hi.Y = lower(lo.X, p.X), lower(lo.Y, p.Y), upper(hi.X, p.X), upper(hi.Y, p.Y)
 		}
 	}
 	for _, o := range r.Outlines {
 		for _, p := range o {
-			lo.X, lo.Y, hi.X, hi.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y), math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
+			lo.X, lo.Y, hi.X, hi.Y = lower(lo.X, p.X), lower(lo.Y, p.Y), upper(hi.X, p.X), upper(hi.Y, p.Y)
 		}
 	}
 	i0, i1 = latticeRange(lo.X, hi.X, reach, cellM)

@@ -51,11 +51,13 @@ func (k *track) distance(p Point2) float64 {
 	a, b := k.pts[s], k.pts[s+1]
 	l := k.cum[s+1] - k.cum[s]
 	u := ((p.X-a.X)*(b.X-a.X) + (p.Y-a.Y)*(b.Y-a.Y)) / l
-	if s > 0 {
-		u = math.Max(u, 0)
+	// Comparisons rather than math.Max and Min (calls in wasm): the
+	// same distance (a zero's sign aside, which the sum drops).
+	if s > 0 && u < 0 {
+		u = 0
 	}
-	if s+2 < len(k.pts) {
-		u = math.Min(u, l)
+	if s+2 < len(k.pts) && u > l {
+		u = l
 	}
 	return k.cum[s] + u
 }

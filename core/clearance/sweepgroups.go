@@ -46,7 +46,7 @@ func sweepGroups(points []Point2, reach, cellM float64, i0, j0, nx, ny int, cove
 		outer := newCapsule(a, b, reach+g.dev+sure)
 		rin := reach - g.dev - 2*sure
 		inner := newCapsule(a, b, max(rin, 0))
-		jlo, jhi := latticeRange(math.Min(a.Y, b.Y), math.Max(a.Y, b.Y), reach+g.dev+sure, cellM)
+		jlo, jhi := latticeRange(lower(a.Y, b.Y), upper(a.Y, b.Y), reach+g.dev+sure, cellM)
 		for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
 			cy := (float64(j) + 0.5) * cellM
 			xl, xr, ok := outer.row(cy)
@@ -132,14 +132,14 @@ func pathGroups(points []Point2, devM float64) []pathGroup {
 func chordDev(points []Point2, s, e int) float64 {
 	d2 := 0.0
 	for k := s + 1; k < e; k++ {
-		d2 = math.Max(d2, pointSegmentDist2(points[k], points[s], points[e]))
+		d2 = upper(d2, pointSegmentDist2(points[k], points[s], points[e]))
 	}
 	return math.Sqrt(d2)
 }
 
 // markInner marks the cells whose centres are in the capsule, row by row.
 func markInner(c capsule, g pathGroup, reach, cellM float64, i0, j0, nx, ny int, covered []bool) {
-	jlo, jhi := latticeRange(math.Min(c.a.Y, c.b.Y), math.Max(c.a.Y, c.b.Y), reach, cellM)
+	jlo, jhi := latticeRange(lower(c.a.Y, c.b.Y), upper(c.a.Y, c.b.Y), reach, cellM)
 	for j := max(jlo, j0); j <= min(jhi, j0+ny-1); j++ {
 		cy := (float64(j) + 0.5) * cellM
 		xl, xr, ok := c.row(cy)
