@@ -255,7 +255,7 @@ func (s *fastScan) recordState(t float64, y *[6]float64) {
 	// Written in place (the series are at full length from the start,
 	// sized): an append writes each slice's length back besides.
 	h.TimeS[i] = float64(i) * s.sampleDt
-	h.SwingDeg[i] = math.Atan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
+	h.SwingDeg[i] = swingAtan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
 	h.RelXM[i], h.RelYM[i], h.RelZM[i] = dx, dy, lz
 	h.LoadXM[i], h.LoadYM[i] = lx, ly
 	h.SuspensionXM[i], h.SuspensionYM[i] = px, py
