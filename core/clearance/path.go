@@ -32,6 +32,9 @@ type Closest struct {
 	// checked, the start of that piece.
 	FirstStrikeS  float64
 	FirstStrikeAt Point3
+	// FirstStrikeLine names the line of the hoisting gear that made the
+	// first strike (AlongLines, as Line); empty for the load.
+	FirstStrikeLine string
 	// GapM is the smallest height of the load's lowest point above the
 	// obstacle's top at the points checked where the load is over its
 	// outline seen from above (+Inf when it never is), at GapAtS, GapAt.

@@ -105,12 +105,12 @@ func TestRopeStrikesWhereTheLoadClears(t *testing.T) {
 	}
 	// The rope's strike is the obstacle's: struck in the one run, first
 	// by the rope, at the rope's moment.
-	if o.Strikes != 1 || o.ShareStrike != 1 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeS != rp.FirstStrikeS {
+	if o.Strikes != 1 || o.ShareStrike != 1 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeLine != "hoist rope" || o.FirstStrikeS != rp.FirstStrikeS {
 		t.Errorf("strikes %d (share %g), first by %q at %g s; want 1 (1), the rope at %g s", o.Strikes, o.ShareStrike, o.FirstStrikeBy, o.FirstStrikeS, rp.FirstStrikeS)
 	}
 	ok, texts := Verdict(reps, site.MarginM)
 	if ok || !strings.Contains(texts[0], "the load and its rope keep 0.20 m from it in 0 of 1 runs") ||
-		!strings.Contains(texts[0], "it is struck in 1 of 1 runs, by its rope (the hoist rope deepest); first by its rope, 3.8 s into the move") {
+		!strings.Contains(texts[0], "it is struck in 1 of 1 runs, by its rope (the hoist rope deepest); first by the hoist rope, 3.8 s into the move") {
 		t.Errorf("verdict %v %q", ok, texts)
 	}
 }

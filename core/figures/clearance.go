@@ -28,7 +28,7 @@ var ObstacleTable = []ClearanceFigure{
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareStrike, true }},
 	{Key: "share_keep_margin_low", Crew: "of all runs, at least (95 % sure)", Technical: "lower 95 % confidence bound of that share (Clopper-Pearson)", Qu: "share", Detail: true,
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
-	{Key: "first_strike_s", Crew: "first struck at", Technical: "earliest moment of a strike by the load or its rope over the runs (first_strike_by says which; the verdict names it)", Unit: "s",
+	{Key: "first_strike_s", Crew: "first struck at", Technical: "earliest moment of a strike by the load or its rope over the runs (first_strike_by and first_strike_line say which; the verdict names it)", Unit: "s",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeS, o.Strikes > 0 }},
 	{Key: "first_strike_at_distance_m", Crew: "first struck where, along the path", Technical: "distance along the crane's path of the earliest strike (the load's centre, or the rope's point in it)", Unit: "m",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeAtDistanceM, o.Strikes > 0 }},
