@@ -42,7 +42,7 @@ type Closest struct {
 	GapAtS float64
 	GapAt  Point3
 	// Line names the line of the hoisting gear nearest (AlongLines: "hoist
-	// rope", "sling leg 2"); empty for the load.
+	// rope", "sling leg 2", "spreader leg 1"); empty for the load.
 	Line string
 	// Rope is the hoisting gear's Closest to the same obstacle over the
 	// same run (AlongLines; its At is the nearest point of the line, its

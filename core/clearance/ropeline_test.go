@@ -11,8 +11,9 @@ import (
 
 // TestRunLines: the hoisting gear's lines of a run are the model's own:
 // the hoist rope as long as the rope (to the hook, or to the ball of a
-// point load), a sling leg as long as the leg, the rigging from the hook
-// towards the load.
+// point load), a sling leg as long as the leg, a spreader's legs as long
+// as the rope (named spreader legs, not sling legs), the rigging from the
+// hook towards the load.
 func TestRunLines(t *testing.T) {
 	cases := []struct {
 		example string
@@ -24,7 +25,7 @@ func TestRunLines(t *testing.T) {
 		// bay-girder-rigid: rope 5 m to the hook, legs 5.831 m.
 		{"bay-girder-rigid", []string{"hoist rope", "sling leg 1", "sling leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], 5.831, 5.831} }},
 		// precast-panel-spreader: two parallel legs as long as the rope.
-		{"precast-panel-spreader", []string{"sling leg 1", "sling leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i]} }},
+		{"precast-panel-spreader", []string{sway.LegName(sway.Spreader, 0), "spreader leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i]} }},
 		{"heavy-hook-long-slings", []string{"hoist rope", "rigging"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], 0} }},
 		// precast-beam-tandem: two hook ropes, named as the figures name
 		// them, 6 m (the rope length) and 6.2 m long.

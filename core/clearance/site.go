@@ -36,7 +36,7 @@ type ObstacleReport struct {
 	ShareKeepMargin    float64 `json:"share_keep_margin"`
 	ShareKeepMarginLow float64 `json:"share_keep_margin_low"`
 	// Strikes is how many runs strike it, by the load or its hoisting
-	// gear (Rope: hoist rope, rigging, sling legs, hook ropes), a run
+	// gear (Rope: hoist rope, rigging, sling or spreader legs, hook ropes), a run
 	// counted once; LoadStrikes how many of them by the load (the gear's
 	// own count is Rope.Strikes). FirstStrikeS is the earliest moment of a
 	// strike over all runs (zero when none strikes), and FirstStrikeBy
@@ -69,7 +69,7 @@ type ObstacleReport struct {
 	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
-	// Rope is how the hoisting gear (hoist rope, rigging, sling legs)
+	// Rope is how the hoisting gear (hoist rope, rigging, legs, hook ropes)
 	// passes the obstacle; nil when no run's lines were checked.
 	// KeepMargin and ShareKeepMargin above count a run only when both the
 	// load and its rope keep the margin (and neither strikes).
@@ -344,7 +344,8 @@ func StruckBy(by, line string) string {
 }
 
 // LineWords is a line of the hoisting gear as a sentence names it: "the
-// hoist rope", "the rigging", "sling leg 2", "hook rope 1".
+// hoist rope", "the rigging", "sling leg 2", "spreader leg 1", "hook rope
+// 1".
 func LineWords(name string) string {
 	if name == "" || (name[len(name)-1] >= '0' && name[len(name)-1] <= '9') {
 		return name
