@@ -15,9 +15,9 @@ import (
 //
 // The block: "swp2", the run count, then each run: its stray, the number
 // of obstacles and each one's near (flags, then eight numbers, the first
-// strike's four and the name of the line that made it (its length first;
-// empty but for the rope's) when it strikes, the gap's five when over, the
-// nearest line's name (the same way), and with the
+// strike's four and the name of the line that made it (its length first,
+// one byte; empty but for the rope's) when it strikes, the gap's five when
+// over, the nearest line's name (the same way), and with the
 // rope checked the rope's near the same way), the cells
 // (count, then each zigzag varint), the section (the first bin's index,
 // the bin count, the lows, the highs).
@@ -96,9 +96,14 @@ func appendNear(b []byte, n *Closest) []byte {
 	return b
 }
 
-// appendName writes a line's name, its length first.
+// appendName writes a line's name, its length first in one byte (the
+// names are the core's own: "hoist rope", "sling leg 2"; one longer than
+// 255 bytes is cut).
+//
+//go:noinline
 func appendName(b []byte, name string) []byte {
-	return append(binary.AppendUvarint(b, uint64(len(name))), name...)
+	name = name[:min(len(name), 255)]
+	return append(append(b, byte(len(name))), name...)
 }
 
 var errPartData = errors.New("clearance: a part's data is not whole (not made by clearance_part of this version)")
@@ -147,8 +152,12 @@ func (r *partReader) int() int {
 
 // name reads a name written by appendName.
 func (r *partReader) name() string {
-	l := r.count(1)
-	s := string(r.b[:l])
+	if len(r.b) < 1 || len(r.b) <= int(r.b[0]) {
+		r.fail()
+		return ""
+	}
+	l := 1 + int(r.b[0])
+	s := string(r.b[1:l])
 	r.b = r.b[l:]
 	return s
 }

@@ -333,6 +333,8 @@ func strikeWords(r *ObstacleReport) string {
 // ObstacleReport.FirstStrikeBy and FirstStrikeLine): "the load", the line
 // of the hoisting gear ("the hoist rope", "hook rope 2"), or "its rope"
 // when the line is not known.
+//
+//go:noinline
 func StruckBy(by, line string) string {
 	switch {
 	case by != StruckByRope:

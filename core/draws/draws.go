@@ -186,12 +186,6 @@ func Check(s *scenario.Scenario, req Request, u units.Choice) error {
 	if req.First < 0 || req.Count < 0 || req.First+req.Count > req.Runs || (req.Count == 0 && req.First >= req.Runs && req.Runs > 0) {
 		add("draws.first", "draws %d to %d are not among the %d runs", req.First, req.First+req.Count, req.Runs)
 	}
-	// accepted is the range of quantity q (a core/units.Table name) in
-	// words.
-	accepted := func(min, max float64, q string) string {
-		return words.Say("accepted from {0} up to {1}", inside(min, q, true, u), inside(max, q, false, u)).Format(u)
-	}
-	is := func(v float64, q string) string { return words.Quantity{Value: v, Quantity: q}.Show(u) }
 	sp := req.Spread
 	for _, v := range []struct {
 		field, q   string
@@ -204,7 +198,7 @@ func Check(s *scenario.Scenario, req Request, u units.Choice) error {
 		{"draws.spread.gust_s", "time", sp.GustS, 60},
 	} {
 		if !(v.value >= 0 && v.value <= v.max) {
-			add(v.field, "is %s: %s", is(v.value, v.q), accepted(0, v.max, v.q))
+			add(v.field, "%s", outside(&v.value, 0, v.max, v.q, u))
 		}
 	}
 	if e := sp.EmergencyStop; e != nil {
@@ -218,11 +212,8 @@ func Check(s *scenario.Scenario, req Request, u units.Choice) error {
 			{"draws.spread.emergency_stop.decel_m_per_s2", "acceleration", e.DecelMPerS2, false, 0.01, 20},
 			{"draws.spread.emergency_stop.decel_deg_per_s2", "angular_acceleration", e.DecelDegPerS2, false, 0.01, 100},
 		} {
-			switch {
-			case v.value == nil && v.need:
-				add(v.field, "is required: %s", accepted(v.min, v.max, v.q))
-			case v.value != nil && !(*v.value >= v.min && *v.value <= v.max):
-				add(v.field, "is %s: %s", is(*v.value, v.q), accepted(v.min, v.max, v.q))
+			if (v.value == nil && v.need) || (v.value != nil && !(*v.value >= v.min && *v.value <= v.max)) {
+				add(v.field, "%s", outside(v.value, v.min, v.max, v.q, u))
 			}
 		}
 	}
@@ -232,21 +223,21 @@ func Check(s *scenario.Scenario, req Request, u units.Choice) error {
 	return s.Validate()
 }
 
-// inside is the bound b (SI) of quantity q as said in the units of u:
-// rounded to the unit's step (core/units) toward the accepted side (up
-// for a lower bound, down for an upper one), so that a value typed as
-// said is accepted.
-func inside(b float64, q string, lower bool, u units.Choice) words.Quantity {
-	if un := u.Unit(q); un.Step > 0 && un.ToSI > 0 {
-		n := b / un.ToSI / un.Step
-		if lower {
-			n = math.Ceil(n - 1e-9)
-		} else {
-			n = math.Floor(n + 1e-9)
-		}
-		b = n * un.Step * un.ToSI
+// outside is the message of a value v (nil: not given) of quantity q (a
+// core/units.Table name) outside [min, max], said in the units of u as
+// the core says a quantity (words), the bounds rounded to the unit's step
+// (core/units) toward the accepted side (up for the lower, down for the
+// upper), so that a value typed as said is accepted.
+func outside(v *float64, min, max float64, q string, u units.Choice) string {
+	is := "is required"
+	if v != nil {
+		is = "is " + words.Quantity{Value: *v, Quantity: q}.Show(u)
 	}
-	return words.Quantity{Value: b, Quantity: q}
+	if un := u.Unit(q); un.Step > 0 && un.ToSI > 0 {
+		step := un.Step * un.ToSI
+		min, max = math.Ceil(min/step-1e-9)*step, math.Floor(max/step+1e-9)*step
+	}
+	return is + ": accepted from " + words.Quantity{Value: min, Quantity: q}.Show(u) + " up to " + words.Quantity{Value: max, Quantity: q}.Show(u)
 }
 
 // Summarise gives the percentiles of each figure (of draws merged from

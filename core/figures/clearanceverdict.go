@@ -12,16 +12,16 @@ import (
 // clearance.VerdictSentences): keeps, and the words in the units of u,
 // e.g. "keeps 0.3 m in 97 % of the runs (95 % needed)" or "does NOT keep
 // 0.3 m: 80 % of the runs do (95 % needed); struck in 4 % of the runs,
-// by the load"; when the rope strikes too, the line that struck first and
-// when ("first by hook rope 2 at 4.5 s").
+// by the load"; when the rope strikes too, the line that struck first
+// ("first by hook rope 2"; when is the obstacle's first_strike_s row).
 func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choice) (bool, string) {
-	say := func(f Figure, v float64) string {
-		r := f.row(v, u)
+	margin := Figure{Unit: "m"}.row(marginM, u)
+	share := func(v float64) string {
+		r := Figure{Quantity: "share"}.row(v, u)
 		return r.Text + unitText(r.Unit)
 	}
-	share := func(v float64) string { return say(Figure{Quantity: "share"}, v) }
 	need := share(clearance.Required)
-	m := say(Figure{Unit: "m"}, marginM)
+	m := margin.Text + unitText(margin.Unit)
 	keeps := o.ShareKeepMargin >= clearance.Required
 	w := "does NOT keep " + m + ": " + share(o.ShareKeepMargin) + " of the runs do (" + need + " needed)"
 	if keeps {
@@ -43,7 +43,7 @@ func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choic
 			w += " (by the load in " + share(float64(o.LoadStrikes)/runs) + ", by its rope in " + share(float64(ropeN)/runs) + ")"
 		}
 		if ropeN > 0 {
-			w += ", first by " + clearance.StruckBy(o.FirstStrikeBy, o.FirstStrikeLine) + " at " + say(Figure{Unit: "s"}, o.FirstStrikeS)
+			w += ", first by " + clearance.StruckBy(o.FirstStrikeBy, o.FirstStrikeLine)
 		}
 	}
 	return keeps, w

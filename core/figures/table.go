@@ -111,13 +111,9 @@ var Table = []Figure{
 	{Key: "body.legs[1].tension_max_n", Crew: "largest pull in " + sway.HookRope(1), Technical: "peak tension of " + sway.HookRope(1),
 		Unit: "N", Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
 	{Key: "body.leg_tension_max_n", Crew: "largest pull in a sling leg", Technical: "peak leg tension",
-		Unit: "N", Value: slung(false, func(b *sway.Body) float64 { return b.LegTensionMaxN })},
+		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMaxN })},
 	{Key: "body.leg_tension_min_n", Crew: "smallest pull in a sling leg", Technical: "lowest leg tension",
-		Unit: "N", Value: slung(false, func(b *sway.Body) float64 { return b.LegTensionMinN })},
-	{Key: "body.leg_tension_max_n", Crew: "largest pull in a spreader leg", Technical: "peak leg tension",
-		Unit: "N", Value: slung(true, func(b *sway.Body) float64 { return b.LegTensionMaxN })},
-	{Key: "body.leg_tension_min_n", Crew: "smallest pull in a spreader leg", Technical: "lowest leg tension",
-		Unit: "N", Value: slung(true, func(b *sway.Body) float64 { return b.LegTensionMinN })},
+		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMinN })},
 	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
 		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
@@ -181,13 +177,12 @@ func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) { return f(r), r.WindForceN > 0 }
 }
 
-// slung: a figure of a rigid load's sling legs (spreader false) or of a
-// spreader's legs (true), there when the load has them (two hook ropes
-// have their own figures). Each has its row, the words naming its legs
-// (sway.LegName).
-func slung(spreader bool, f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
+// slung: a figure of a rigid load's sling or spreader legs, there when
+// the load has them (two hook ropes have their own figures); the words
+// say sling legs, and Present says spreader legs under a spreader.
+func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil || r.Body.Suspension == sway.TwoRopes || (r.Body.Suspension == sway.Spreader) != spreader {
+		if r.Body == nil || r.Body.Suspension == sway.TwoRopes {
 			return 0, false
 		}
 		return f(r.Body), true

@@ -320,8 +320,8 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	}
 	for i, l := range out.Legs {
 		if b.Tandem == nil && l.TensionMinN <= 0 {
-			name := LegName(out.Suspension, i)
-			res.warn(words.Plain(strings.ToUpper(name[:1]) + name[1:] +
+			// "Sling leg 2", "Spreader leg 1": both start with an s.
+			res.warn(words.Plain("S" + LegName(out.Suspension, i)[1:] +
 				" goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging."))
 		}
 	}

@@ -35,7 +35,7 @@ func TestRopeStrikeShown(t *testing.T) {
 		if !strings.Contains(band, "DOES NOT CLEAR") || !strings.Contains(band, "first by the hoist rope, ") || !strings.Contains(band, unit+" up") {
 			t.Errorf("%s: verdict band %q", sys, band)
 		}
-		if v := got[0]["verdict"].(string); !strings.Contains(v, "struck in") || !strings.Contains(v, "its rope") || !strings.Contains(v, "first by the hoist rope at ") {
+		if v := got[0]["verdict"].(string); !strings.Contains(v, "struck in") || !strings.Contains(v, "its rope") || !strings.Contains(v, "first by the hoist rope") {
 			t.Errorf("%s: the tower's verdict %q", sys, v)
 		}
 		if _, ok := got[0]["rows"].(map[string]any)["share_strike"]; !ok {
