@@ -200,30 +200,13 @@ func (n *nearest) wall(p Point2, ci, cj, r int) float64 {
 }
 
 // look searches bucket (i, j) for a segment nearer p than best (or as
-// near with a lower index than seg), when the bucket is on the grid. A
-// segment whose box is farther from p than best, by more than the
-// rounding of either (a billionth, and 1e-18 m² for the smallest), is no
-// nearer than best, nor as near: it is passed over without its distance
-// (in wasm a call; the box is a few comparisons). So best and seg are
-// those of every segment's distance, exactly, and the search around them
-// is unchanged.
+// near with a lower index than seg), when the bucket is on the grid.
 func (n *nearest) look(p Point2, i, j int, best float64, seg int) (float64, int) {
 	if i < 0 || i >= n.nx || j < 0 || j >= n.ny {
 		return best, seg
 	}
 	for _, s := range n.bucket[j*n.nx+i] {
-		a, b := n.pts[s], n.pts[s+1]
-		lx, hx, ly, hy := a.X, b.X, a.Y, b.Y
-		if lx > hx {
-			lx, hx = hx, lx
-		}
-		if ly > hy {
-			ly, hy = hy, ly
-		}
-		if bx, by := outsideBy(p.X, lx, hx), outsideBy(p.Y, ly, hy); bx*bx+by*by > best+best*1e-9+1e-18 {
-			continue
-		}
-		if d := pointSegmentDist2(p, a, b); d < best || (d == best && int(s) < seg) {
+		if d := pointSegmentDist2(p, n.pts[s], n.pts[s+1]); d < best || (d == best && int(s) < seg) {
 			best, seg = d, int(s)
 		}
 	}
