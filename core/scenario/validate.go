@@ -80,7 +80,7 @@ type fieldRange struct {
 // addRanges adds rs to Ranges. The files give their ranges as a list, not
 // as a map literal: a list of constants is data in the binary, while a map
 // literal of fewer than 26 entries compiles to code that stores one entry
-// after another (in the page's wasm about 300 bytes an entry).
+// after another (in the page's wasm about 400 bytes an entry).
 func addRanges(rs []fieldRange) {
 	for _, r := range rs {
 		Ranges[r.field] = r.Range

@@ -93,7 +93,7 @@ var quantities = []keyedQuantity{
 // keyedQuantity is one entry of Table. Table is written as a list (data
 // in the binary) and made a map once at start: a map literal of fewer
 // than 26 entries compiles to code that stores one entry after another
-// (in the page's wasm about 600 bytes an entry).
+// (in the page's wasm about 700 bytes an entry).
 type keyedQuantity struct {
 	key string
 	q   Quantity
