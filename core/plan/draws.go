@@ -53,7 +53,7 @@ const (
 // the draws' profiles at hand.
 func (rq *request) linearDraws(o *Option) bool {
 	return screening && !rq.multi() && !rq.leans() && rq.s.Wind == nil && rq.s.Initial == nil &&
-		len(o.drawProfiles) == len(o.draws) && len(o.drawPieces) == len(o.draws) && len(o.draws) > 0
+		len(o.drawProfiles) == len(o.draws) && len(o.draws) > 0
 }
 
 // drawnBound simulates the draws of o at rope length rope that can be the
@@ -66,7 +66,7 @@ func (rq *request) drawnBound(o *Option, rope, tol float64) (ds []Verified, ok b
 	peak := make([]float64, n)
 	res := make([]float64, n)
 	for d, p := range o.drawProfiles {
-		pk, rs := linearSwingOf(p, o.drawPieces[d], rq.k, w)
+		pk, rs := linearSwing(p, rq.k, w)
 		peak[d], res[d] = pk/units.Degree, rs/units.Degree
 	}
 	top := n - int(math.Ceil(float64(TimingPercentile)/100*float64(n))) + 1

@@ -284,7 +284,6 @@ func (rq *request) pendantCues(key, label string, imps []motion.Impulse) (*Optio
 		}
 		o.draws = append(o.draws, dm)
 		o.drawProfiles = append(o.drawProfiles, dp)
-		o.drawPieces = append(o.drawPieces, linearPieces(dp))
 	}
 
 	// Cues.

@@ -144,8 +144,7 @@ type Option struct {
 	draws   []scenario.Motion // the move as pressed, one per drawn timing
 	// drawProfiles are the draws' speed profiles (linear estimates).
 	drawProfiles []motion.Profile
-	drawPieces   [][]linearPiece // and their pieces (linearPieces), for every rope length
-	checked      func(*Option)   // adds sentences once the figures are known
+	checked      func(*Option) // adds sentences once the figures are known
 	// estimated: the linear-theory figures; rechecked: simulated at the
 	// check tolerance (CheckRelTol).
 	estimated []Verified
