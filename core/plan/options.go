@@ -169,10 +169,8 @@ func curves(rq *request) Curves {
 	at.Basis = "linear theory: one ramp of time t_a to the top speed V leaves 2*(a/g)*|sin(pi*t_a/T)| rad with a = V/t_a (hook speed R*w for a slew)"
 	const n = 121
 	vHook := rq.vmax * rq.k
-	var ramps []float64 // s, as computed; RampS is rounded for the plot
 	for i := range n {
 		q := 3 * float64(i) / (n - 1)
-		ramps = append(ramps, q*rq.designT)
 		at.RampS = append(at.RampS, plotted(q*rq.designT, 1e4))
 		at.Periods = append(at.Periods, q)
 	}
@@ -182,8 +180,8 @@ func curves(rq *request) Curves {
 	for _, l := range rq.ropes {
 		ms := rq.modesAt(l)
 		s := RampSeries{RopeLengthM: l}
-		for _, t := range ramps {
-			r := 0.0
+		for _, q := range at.Periods {
+			t, r := q*rq.designT, 0.0 // RampS rounded for the plot
 			for i, w := range ms.omega {
 				tl := 2 * math.Pi / w
 				ri := vHook * w / g // limit t -> 0: V*w/g
@@ -240,4 +238,5 @@ func curves(rq *request) Curves {
 // plotted is x rounded to a whole number of 1/perUnit (perUnit a power of
 // ten, at most 1e22 so that it is exact): the division is then correctly
 // rounded, so the result's shortest decimal is that number's few digits.
-func plotted(x, perUnit float64) float64 { return math.Round(x*perUnit) / perUnit }
+// (RoundToEven: one wasm instruction, f64.nearest.)
+func plotted(x, perUnit float64) float64 { return math.RoundToEven(x*perUnit) / perUnit }

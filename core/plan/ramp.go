@@ -184,18 +184,20 @@ func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool
 	if rq.leans() {
 		share = 0.8 // the whole slew, with room for what linear theory leaves out
 	}
-	resOK := func(i int) bool { return rq.rampResidual(tr, r, grid[i]) <= share*rq.resLimitRad(ls[i]) }
 	first := 0
 	if !full && rq.rampFailed < len(grid) {
 		first = rq.rampFailed
 	}
-	if !full && !resOK(first) {
-		return out
-	}
-	peakOK := rq.linearRatio(rq.vmax/tr) <= 1
+	// With full the peak first (no residual is needed without it), else
+	// after the first residual, and only when that passes.
+	peakOK := full && rq.linearRatio(rq.vmax/tr) <= 1
 	for k := range grid {
 		i := (first + k) % len(grid)
-		out[i] = peakOK && ((k == 0 && !full) || resOK(i))
+		out[i] = (peakOK || !full) && rq.rampResidual(tr, r, grid[i]) <= share*rq.resLimitRad(ls[i])
+		if k == 0 && out[i] && !full {
+			peakOK = rq.linearRatio(rq.vmax/tr) <= 1
+		}
+		out[i] = out[i] && peakOK
 		if !out[i] && !full {
 			if peakOK {
 				rq.rampFailed = i
