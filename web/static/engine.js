@@ -135,12 +135,17 @@ function pumpSoon() {
   }, 0);
 }
 
-// unwanted tells the worker that the answers of the calls waiting whose
-// stale function says so are no longer wanted: it leaves out the chart
-// of an evaluate call it has not drawn yet.
+// unwanted tells the worker (once a call) that the answers of the calls
+// waiting whose stale function says so are no longer wanted: it leaves
+// out an evaluate call it has not begun, and the chart of one it has not
+// drawn yet.
 export function unwanted() {
   Object.keys(waiting).forEach(function (id) {
-    if (waiting[id].stale && waiting[id].stale()) worker.postMessage({ unwanted: Number(id) });
+    var w = waiting[id];
+    if (w.stale && !w.told && w.stale()) {
+      w.told = true;
+      worker.postMessage({ unwanted: Number(id) });
+    }
   });
 }
 
