@@ -21,7 +21,8 @@ export function startWorker() {
     var w = waiting[m.id];
     // An evaluate call's chart comes before its result (worker.js).
     if (m.chart !== undefined) {
-      if (w) { w.bands = m.bands; if (m.chart && w.onChart) w.onChart(JSON.parse(m.chart)); }
+      // (One no longer wanted is not read.)
+      if (w) { w.bands = m.bands; if (m.chart && w.onChart && !(w.stale && w.stale())) w.onChart(JSON.parse(m.chart)); }
       return;
     }
     delete waiting[m.id];
