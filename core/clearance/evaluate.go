@@ -109,7 +109,7 @@ func assumptions(outline string, opt Options) []string {
 	}
 	return []string{
 		load + "; obstacles are upright shapes standing from the floor up to their top height.",
-		"The hoist rope (and the rigging below a hook block, a rigid load's sling legs) is a straight line of no thickness from the suspension point to the hook (a point load's rope ends at its ball): sag, sheaves and the rope's own diameter are left out, so keep the margin for them.",
+		"The hoist rope (and the rigging below a hook block, a rigid load's sling or spreader legs) is a straight line of no thickness from the suspension point to the hook (a point load's rope ends at its ball): sag, sheaves and the rope's own diameter are left out, so keep the margin for them.",
 		fmt.Sprintf("Each run's path is taken as straight between the simulation's time samples and checked at points at most %.2f m apart; the clearance between them can be smaller by at most half that gap.", opt.StepM),
 		"The runs spread as stated (each a normal scatter about the scenario's value, cut at three standard deviations; an emergency stop at a moment drawn evenly over the move); they say how the path spreads when the inputs do, not how likely any input is.",
 		"The 95 % envelope holds the paths of the runs that stray least from the path with no spread, as many as it takes to be 95 % sure that it holds 95 % of all possible runs (a tolerance region; with few runs, all of them, and the confidence is stated).",

@@ -142,12 +142,13 @@ type SiteOption struct {
 	// Worst names the obstacle kept clear in the fewest runs, with that
 	// share and the load's smallest clearance; Strikes is how many runs
 	// strike it (by the load or its rope, a run once) and FirstStrikeBy
-	// what struck first (ObstacleReport's).
+	// and FirstStrikeLine what struck first (ObstacleReport's).
 	Worst           string  `json:"worst,omitempty"`
 	ShareKeepMargin float64 `json:"share_keep_margin"`
 	SmallestM       float64 `json:"smallest_m"`
 	Strikes         int     `json:"strikes,omitempty"`
 	FirstStrikeBy   string  `json:"first_strike_by,omitempty"`
+	FirstStrikeLine string  `json:"first_strike_line,omitempty"`
 }
 
 // TopSpeed is the search for the drive-limits move's largest top speed

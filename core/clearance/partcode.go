@@ -13,15 +13,16 @@ import (
 // runs (about 5.5 kB a run, most of it the section's floats in base64
 // inside the JSON) cost the join some 0.4 s in wasm for 1,000 runs.
 //
-// The block: "swp1", the run count, then each run: its stray, the number
+// The block: "swp2", the run count, then each run: its stray, the number
 // of obstacles and each one's near (flags, then eight numbers, the first
-// strike's four when it strikes, the gap's five when over, the nearest
-// line's name (its length first; empty but for the rope's), and with the
+// strike's four and the name of the line that made it (its length first,
+// one byte; empty but for the rope's) when it strikes, the gap's five when
+// over, the nearest line's name (the same way), and with the
 // rope checked the rope's near the same way), the cells
 // (count, then each zigzag varint), the section (the first bin's index,
 // the bin count, the lows, the highs).
 
-var partMagic = [4]byte{'s', 'w', 'p', '1'}
+var partMagic = [4]byte{'s', 'w', 'p', '2'}
 
 const (
 	nearStrikes = 1 << iota
@@ -81,18 +82,28 @@ func appendNear(b []byte, n *Closest) []byte {
 	if n.Strikes {
 		f(n.FirstStrikeS)
 		p3(n.FirstStrikeAt)
+		b = appendName(b, n.FirstStrikeLine)
 	}
 	if over {
 		f(n.GapM)
 		f(n.GapAtS)
 		p3(n.GapAt)
 	}
-	b = binary.AppendUvarint(b, uint64(len(n.Line)))
-	b = append(b, n.Line...)
+	b = appendName(b, n.Line)
 	if n.Rope != nil {
 		b = appendNear(b, n.Rope)
 	}
 	return b
+}
+
+// appendName writes a line's name, its length first in one byte (the
+// names are the core's own: "hoist rope", "sling leg 2"; one longer than
+// 255 bytes is cut).
+//
+//go:noinline
+func appendName(b []byte, name string) []byte {
+	name = name[:min(len(name), 255)]
+	return append(append(b, byte(len(name))), name...)
 }
 
 var errPartData = errors.New("clearance: a part's data is not whole (not made by clearance_part of this version)")
@@ -137,6 +148,18 @@ func (r *partReader) int() int {
 	}
 	r.b = r.b[n:]
 	return int(v)
+}
+
+// name reads a name written by appendName.
+func (r *partReader) name() string {
+	if len(r.b) < 1 || len(r.b) <= int(r.b[0]) {
+		r.fail()
+		return ""
+	}
+	l := 1 + int(r.b[0])
+	s := string(r.b[1:l])
+	r.b = r.b[l:]
+	return s
 }
 
 // decodeRuns reads a block written by encodeRuns.
@@ -193,17 +216,15 @@ func (r *partReader) near(depth int) Closest {
 	n := Closest{Strikes: flags&nearStrikes != 0, FirstStrikeS: math.NaN(), GapM: math.Inf(1)}
 	n.ClearanceM, n.TimeS, n.At, n.ErrorBoundM = r.float(), r.float(), r.point(), r.float()
 	if n.Strikes {
-		n.FirstStrikeS, n.FirstStrikeAt = r.float(), r.point()
+		n.FirstStrikeS, n.FirstStrikeAt, n.FirstStrikeLine = r.float(), r.point(), r.name()
 	}
 	if flags&nearOver != 0 {
 		n.GapM, n.GapAtS, n.GapAt = r.float(), r.float(), r.point()
 	}
-	l := r.count(1)
+	n.Line = r.name()
 	if r.err != nil {
 		return Closest{}
 	}
-	n.Line = string(r.b[:l])
-	r.b = r.b[l:]
 	if flags&nearRope != 0 {
 		if depth > 0 {
 			r.fail()

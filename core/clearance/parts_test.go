@@ -110,6 +110,35 @@ func TestPartsJoinRigidLoad(t *testing.T) {
 	}
 }
 
+// TestPartsCarryTheFirstStrikingLine: a part's runs carry the line of
+// the hoisting gear that struck first, so the joined report names it as
+// the single call does (the rope example, struck first by its hoist rope).
+func TestPartsCarryTheFirstStrikingLine(t *testing.T) {
+	s := testscenario.Example(t, "site-tower-rope-mast")
+	s.Site.Spread.Runs = 4
+	one, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var parts []Part
+	for _, rg := range [][2]int{{1, 4}, {0, 1}} {
+		p, err := CheckPart(s, rg[0], rg[1], Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		parts = append(parts, *p)
+	}
+	joined, err := CheckJoin(s, parts, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := json.Marshal(one)
+	b, _ := json.Marshal(joined)
+	if o := joined.Obstacles[0]; o.FirstStrikeLine != "hoist rope" || string(a) != string(b) {
+		t.Errorf("first struck by %q %q; joined parts equal the single call: %v", o.FirstStrikeBy, o.FirstStrikeLine, string(a) == string(b))
+	}
+}
+
 // TestDrawnRopeOutsideThePlanRange: a drawn rope length outside the plan
 // block's rope range is a run like any other (the range is what the
 // planner tries); before, run 7 of this check failed its validation with

@@ -32,6 +32,9 @@ type Closest struct {
 	// checked, the start of that piece.
 	FirstStrikeS  float64
 	FirstStrikeAt Point3
+	// FirstStrikeLine names the line of the hoisting gear that made the
+	// first strike (AlongLines, as Line); empty for the load.
+	FirstStrikeLine string
 	// GapM is the smallest height of the load's lowest point above the
 	// obstacle's top at the points checked where the load is over its
 	// outline seen from above (+Inf when it never is), at GapAtS, GapAt.
@@ -39,7 +42,7 @@ type Closest struct {
 	GapAtS float64
 	GapAt  Point3
 	// Line names the line of the hoisting gear nearest (AlongLines: "hoist
-	// rope", "sling leg 2"); empty for the load.
+	// rope", "sling leg 2", "spreader leg 1"); empty for the load.
 	Line string
 	// Rope is the hoisting gear's Closest to the same obstacle over the
 	// same run (AlongLines; its At is the nearest point of the line, its

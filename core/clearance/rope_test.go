@@ -156,3 +156,27 @@ func TestAlongLinesSkipsNothing(t *testing.T) {
 		}
 	}
 }
+
+// TestAlongLinesNamesTheFirstStriker: two sling legs moving along x at
+// 0.5 m/s past a block 2 m thick from x = 0, top 2.4 m; leg 2, 1 m ahead
+// of leg 1, reaches its face first, at t = (0 - 1 - (-5))/0.5 = 8 s, leg
+// 1 at 10 s (hand computation). Leg 1 hangs lower (to 0.5 m, leg 2 to
+// 2 m) and passes deepest: 1 m (half the block) against 0.4 m.
+func TestAlongLinesNamesTheFirstStriker(t *testing.T) {
+	block := &Obstacle{Outline: []Point2{{0, 0}, {2, 0}, {2, 10}, {0, 10}}, TopM: 2.4}
+	leg := func(name string, ahead, lowM float64) RopeLine {
+		l := RopeLine{Name: name}
+		for i := 0; i <= 200; i++ {
+			ts := float64(i) * 0.1
+			x := -5 + 0.5*ts + ahead
+			l.TimeS = append(l.TimeS, ts)
+			l.A = append(l.A, Point3{x, 5, 6})
+			l.B = append(l.B, Point3{x, 5, lowM})
+		}
+		return l
+	}
+	got := block.AlongLines([]RopeLine{leg("sling leg 1", 0, 0.5), leg("sling leg 2", 1, 2)}, 0.02)
+	if !got.Strikes || got.FirstStrikeLine != "sling leg 2" || math.Abs(got.FirstStrikeS-8) > 0.051 || got.Line != "sling leg 1" || math.Abs(got.ClearanceM+1) > 0.02 {
+		t.Errorf("first strike %v by %q at %g s (want sling leg 2 at 8 s); deepest %q, %g m (want sling leg 1, -1 m)", got.Strikes, got.FirstStrikeLine, got.FirstStrikeS, got.Line, got.ClearanceM)
+	}
+}

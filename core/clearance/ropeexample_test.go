@@ -74,10 +74,10 @@ func TestRopeStrikesTheTowerExample(t *testing.T) {
 		t.Fatal(err)
 	}
 	o = rep.Obstacles[0]
-	if rep.Clears || o.Strikes < 36 || o.LoadStrikes > 2 || o.Rope.Strikes < 36 || o.ShareStrike != float64(o.Strikes)/40 || o.FirstStrikeBy != StruckByRope {
-		t.Errorf("40 runs: clears %v, strikes %d (load %d), first by %q", rep.Clears, o.Strikes, o.LoadStrikes, o.FirstStrikeBy)
+	if rep.Clears || o.Strikes < 36 || o.LoadStrikes > 2 || o.Rope.Strikes < 36 || o.ShareStrike != float64(o.Strikes)/40 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeLine != "hoist rope" {
+		t.Errorf("40 runs: clears %v, strikes %d (load %d), first by %q %q", rep.Clears, o.Strikes, o.LoadStrikes, o.FirstStrikeBy, o.FirstStrikeLine)
 	}
-	if !strings.Contains(rep.Words[0], "(the hoist rope deepest); first by its rope") {
+	if !strings.Contains(rep.Words[0], "(the hoist rope deepest); first by the hoist rope, 15.0 s into the move") {
 		t.Errorf("verdict %q", rep.Words)
 	}
 }

@@ -11,8 +11,9 @@ import (
 
 // TestRunLines: the hoisting gear's lines of a run are the model's own:
 // the hoist rope as long as the rope (to the hook, or to the ball of a
-// point load), a sling leg as long as the leg, the rigging from the hook
-// towards the load.
+// point load), a sling leg as long as the leg, a spreader's legs as long
+// as the rope (named spreader legs, not sling legs), the rigging from the
+// hook towards the load.
 func TestRunLines(t *testing.T) {
 	cases := []struct {
 		example string
@@ -24,7 +25,7 @@ func TestRunLines(t *testing.T) {
 		// bay-girder-rigid: rope 5 m to the hook, legs 5.831 m.
 		{"bay-girder-rigid", []string{"hoist rope", "sling leg 1", "sling leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], 5.831, 5.831} }},
 		// precast-panel-spreader: two parallel legs as long as the rope.
-		{"precast-panel-spreader", []string{"sling leg 1", "sling leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i]} }},
+		{"precast-panel-spreader", []string{sway.LegName(sway.Spreader, 0), "spreader leg 2"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], r.RopeM[i]} }},
 		{"heavy-hook-long-slings", []string{"hoist rope", "rigging"}, func(r *Run, i int) []float64 { return []float64{r.RopeM[i], 0} }},
 		// precast-beam-tandem: two hook ropes, named as the figures name
 		// them, 6 m (the rope length) and 6.2 m long.
@@ -105,12 +106,12 @@ func TestRopeStrikesWhereTheLoadClears(t *testing.T) {
 	}
 	// The rope's strike is the obstacle's: struck in the one run, first
 	// by the rope, at the rope's moment.
-	if o.Strikes != 1 || o.ShareStrike != 1 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeS != rp.FirstStrikeS {
+	if o.Strikes != 1 || o.ShareStrike != 1 || o.FirstStrikeBy != StruckByRope || o.FirstStrikeLine != "hoist rope" || o.FirstStrikeS != rp.FirstStrikeS {
 		t.Errorf("strikes %d (share %g), first by %q at %g s; want 1 (1), the rope at %g s", o.Strikes, o.ShareStrike, o.FirstStrikeBy, o.FirstStrikeS, rp.FirstStrikeS)
 	}
 	ok, texts := Verdict(reps, site.MarginM)
 	if ok || !strings.Contains(texts[0], "the load and its rope keep 0.20 m from it in 0 of 1 runs") ||
-		!strings.Contains(texts[0], "it is struck in 1 of 1 runs, by its rope (the hoist rope deepest); first by its rope, 3.8 s into the move") {
+		!strings.Contains(texts[0], "it is struck in 1 of 1 runs, by its rope (the hoist rope deepest); first by the hoist rope, 3.8 s into the move") {
 		t.Errorf("verdict %v %q", ok, texts)
 	}
 }

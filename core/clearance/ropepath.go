@@ -77,7 +77,8 @@ func (l *RopeLine) prepare(stepM float64) {
 // (lineWatch.stretch). The stretch with the least bound is checked first.
 // The answer (smallest clearance, the first moment with it, the first
 // strike) is that of checking every stretch (TestAlongLinesSkipsNothing).
-// Closest.Line names the line nearest.
+// Closest.Line names the line nearest, FirstStrikeLine the line of the
+// first strike.
 func (o *Obstacle) AlongLines(lines []RopeLine, stepM float64) Closest {
 	if !(stepM > 0) {
 		panic("clearance: AlongLines needs a positive step")
@@ -180,7 +181,7 @@ func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, st
 		c.ClearanceM, c.TimeS, c.At, c.Line = v, t, at, name
 	}
 	if strikes && (!c.Strikes || t < c.FirstStrikeS) {
-		c.Strikes, c.FirstStrikeS, c.FirstStrikeAt = true, t, at
+		c.Strikes, c.FirstStrikeS, c.FirstStrikeAt, c.FirstStrikeLine = true, t, at, name
 	}
 	return v
 }

@@ -1,7 +1,6 @@
 package clearance
 
 import (
-	"fmt"
 	"math"
 
 	"swaysheet/core/sway"
@@ -29,8 +28,9 @@ type Run struct {
 	HookRelXM, HookRelYM, HookRelZM []float64
 	LegTopXM, LegTopYM, LegTopZM    [][]float64
 	LegEndXM, LegEndYM, LegEndZM    [][]float64
-	// TwoRopes is true when the legs are two hook ropes (load.body.tandem).
-	TwoRopes bool
+	// Suspension is how a rigid load hangs (sway.Body.Suspension: two
+	// hook ropes, a spreader's legs, sling legs); empty for a point load.
+	Suspension string
 }
 
 // RunOf takes a run from an evaluation's time histories.
@@ -44,7 +44,7 @@ func RunOf(r *sway.Result) Run {
 		run.CornerXM, run.CornerYM, run.CornerZM = b.CornerXM, b.CornerYM, b.CornerZM
 		run.LegTopXM, run.LegTopYM, run.LegTopZM = b.LegTopXM, b.LegTopYM, b.LegTopZM
 		run.LegEndXM, run.LegEndYM, run.LegEndZM = b.LegEndXM, b.LegEndYM, b.LegEndZM
-		run.TwoRopes = r.Body.Suspension == sway.TwoRopes
+		run.Suspension = r.Body.Suspension
 	}
 	return run
 }
@@ -135,9 +135,10 @@ func (r *Run) planPathInto(h, radiusM float64, buf []Point2) PlanPath {
 // Lines is the hoisting gear of the run as straight lines (RopeLine), z up
 // from the floor: the hoist rope from the suspension point to the hook;
 // below a hook block the rigging to the load; a rigid load's sling legs
-// from the hook (or their top points) to their attach points, named
-// "sling leg N", or two hook ropes (load.body.tandem) from their
-// suspension points, named as everywhere (sway.HookRope). The rope
+// from the hook to their attach points ("sling leg N"), a spreader's two
+// legs from the beam ("spreader leg N"), or two hook ropes
+// (load.body.tandem) from their suspension points ("hook rope N"), each
+// named as everywhere (sway.LegName). The rope
 // of a point load ends at the load's ball of radiusM (the ball is
 // checked as the load), and so does the rigging below a hook block.
 // Parallel legs and two hook ropes have no hoist rope of their own
@@ -174,7 +175,7 @@ func (r *Run) linesInto(suspensionHeightM, radiusM float64, buf []RopeLine) []Ro
 	hooked := len(r.HookRelXM) == n
 	// Two hook ropes have no hoist rope between them: the history's hook
 	// is then the crane's suspension point itself.
-	if (len(r.LegTopXM) == 0 || hooked) && !r.TwoRopes {
+	if (len(r.LegTopXM) == 0 || hooked) && r.Suspension != sway.TwoRopes {
 		rope := line("hoist rope")
 		for i := range n {
 			rope.A[i] = susp(i)
@@ -189,11 +190,7 @@ func (r *Run) linesInto(suspensionHeightM, radiusM float64, buf []RopeLine) []Ro
 	switch {
 	case len(r.LegTopXM) > 0:
 		for k := range r.LegTopXM {
-			name := fmt.Sprintf("sling leg %d", k+1)
-			if r.TwoRopes {
-				name = sway.HookRope(k)
-			}
-			leg := line(name)
+			leg := line(sway.LegName(r.Suspension, k))
 			for i := range n {
 				leg.A[i] = Point3{r.LegTopXM[k][i], r.LegTopYM[k][i], h + r.LegTopZM[k][i]}
 				leg.B[i] = Point3{r.LegEndXM[k][i], r.LegEndYM[k][i], h + r.LegEndZM[k][i]}

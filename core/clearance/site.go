@@ -36,16 +36,18 @@ type ObstacleReport struct {
 	ShareKeepMargin    float64 `json:"share_keep_margin"`
 	ShareKeepMarginLow float64 `json:"share_keep_margin_low"`
 	// Strikes is how many runs strike it, by the load or its hoisting
-	// gear (Rope: hoist rope, rigging, sling legs, hook ropes), a run
+	// gear (Rope: hoist rope, rigging, sling or spreader legs, hook ropes), a run
 	// counted once; LoadStrikes how many of them by the load (the gear's
 	// own count is Rope.Strikes). FirstStrikeS is the earliest moment of a
 	// strike over all runs (zero when none strikes), and FirstStrikeBy
-	// what struck then: StruckByLoad or StruckByRope (Rope.Part names the
-	// line that passes deepest through it).
-	Strikes       int     `json:"strikes"`
-	LoadStrikes   int     `json:"load_strikes,omitempty"`
-	FirstStrikeS  float64 `json:"first_strike_s"`
-	FirstStrikeBy string  `json:"first_strike_by,omitempty"`
+	// what struck then: StruckByLoad or StruckByRope, and with the rope
+	// FirstStrikeLine the line that struck ("hoist rope", "sling leg 2",
+	// "hook rope 1"; Rope.Part names the line that passes deepest).
+	Strikes         int     `json:"strikes"`
+	LoadStrikes     int     `json:"load_strikes,omitempty"`
+	FirstStrikeS    float64 `json:"first_strike_s"`
+	FirstStrikeBy   string  `json:"first_strike_by,omitempty"`
+	FirstStrikeLine string  `json:"first_strike_line,omitempty"`
 	// ShareStrike is Strikes/Runs: how often it is hit.
 	ShareStrike float64 `json:"share_strike"`
 	// ClearanceP5M is the clearance that 95 % of the runs keep (the 5th
@@ -67,7 +69,7 @@ type ObstacleReport struct {
 	Vertical *Vertical `json:"vertical,omitempty"`
 	// ErrorBoundM bounds what the points checked can miss between samples.
 	ErrorBoundM float64 `json:"error_bound_m"`
-	// Rope is how the hoisting gear (hoist rope, rigging, sling legs)
+	// Rope is how the hoisting gear (hoist rope, rigging, legs, hook ropes)
 	// passes the obstacle; nil when no run's lines were checked.
 	// KeepMargin and ShareKeepMargin above count a run only when both the
 	// load and its rope keep the margin (and neither strikes).
@@ -208,7 +210,7 @@ func (s *Site) summarise(near [][]Closest) ([]ObstacleReport, []Closest) {
 			}
 		}
 		rep := ObstacleReport{Name: s.Obstacles[k].Name, Runs: len(near), KeepMargin: load.keep,
-			Strikes: hit.runs, LoadStrikes: load.strikes, FirstStrikeS: hit.firstS, FirstStrikeBy: hit.by, ClearanceP5M: load.p5(),
+			Strikes: hit.runs, LoadStrikes: load.strikes, FirstStrikeS: hit.firstS, FirstStrikeBy: hit.by, FirstStrikeLine: hit.line, ClearanceP5M: load.p5(),
 			SmallestM: load.smallestM, SmallestAtS: load.smallestAtS, SmallestAt: load.smallestAt, ErrorBoundM: load.boundM}
 		rep.Rope, w.Rope = rope.rope()
 		rep.ShareKeepMargin = float64(rep.KeepMargin) / float64(len(near))
@@ -319,7 +321,7 @@ func strikeWords(r *ObstacleReport) string {
 		text += fmt.Sprintf(": by the load in %d, by its rope in %d (%s deepest)", r.LoadStrikes, ropeN, LineWords(r.Rope.Part))
 	}
 	if r.FirstStrikeBy == StruckByRope {
-		return text + "; first by its rope, {1} into the move, {2} along the path, {3} up"
+		return text + "; first by " + StruckBy(r.FirstStrikeBy, r.FirstStrikeLine) + ", {1} into the move, {2} along the path, {3} up"
 	}
 	if ropeN > 0 {
 		return text + "; first by the load, {1} into the move, {2} along the path"
@@ -327,8 +329,25 @@ func strikeWords(r *ObstacleReport) string {
 	return text + "; first {1} into the move, {2} along the path"
 }
 
+// StruckBy names what struck first as a sentence does (by and line as
+// ObstacleReport.FirstStrikeBy and FirstStrikeLine): "the load", the line
+// of the hoisting gear ("the hoist rope", "hook rope 2"), or "its rope"
+// when the line is not known.
+//
+//go:noinline
+func StruckBy(by, line string) string {
+	switch {
+	case by != StruckByRope:
+		return "the load"
+	case line == "":
+		return "its rope"
+	}
+	return LineWords(line)
+}
+
 // LineWords is a line of the hoisting gear as a sentence names it: "the
-// hoist rope", "the rigging", "sling leg 2", "hook rope 1".
+// hoist rope", "the rigging", "sling leg 2", "spreader leg 1", "hook rope
+// 1".
 func LineWords(name string) string {
 	if name == "" || (name[len(name)-1] >= '0' && name[len(name)-1] <= '9') {
 		return name

@@ -82,7 +82,7 @@ func PlanSite(s *scenario.Scenario, res *plan.Result, opt Options) (*SitePlan, e
 		so.Checked, so.Clears = true, rep.Clears
 		if w := worst(rep); w != nil {
 			so.Worst, so.ShareKeepMargin, so.SmallestM = w.Name, w.ShareKeepMargin, w.SmallestM
-			so.Strikes, so.FirstStrikeBy = w.Strikes, w.FirstStrikeBy
+			so.Strikes, so.FirstStrikeBy, so.FirstStrikeLine = w.Strikes, w.FirstStrikeBy, w.FirstStrikeLine
 		} else {
 			so.ShareKeepMargin = 1
 		}
@@ -276,11 +276,7 @@ func planWords(marginM float64, res *plan.Result, sp *SitePlan) []words.Sentence
 		} else {
 			struck := ""
 			if so.Strikes > 0 {
-				by := "the load"
-				if so.FirstStrikeBy == StruckByRope {
-					by = "its rope"
-				}
-				struck = fmt.Sprintf(", and struck in %d of %d (first by %s)", so.Strikes, sp.RunsPerCheck, by)
+				struck = fmt.Sprintf(", and struck in %d of %d (first by %s)", so.Strikes, sp.RunsPerCheck, StruckBy(so.FirstStrikeBy, so.FirstStrikeLine))
 			}
 			w = append(w, words.Plain(fmt.Sprintf("The planner's recommended option (%s) does not: %s is kept clear in %.0f %% of the runs%s.", so.Label, so.Worst, 100*so.ShareKeepMargin, struck)))
 		}

@@ -72,12 +72,13 @@ func (t *tally) rope() (*RopeReport, *Closest) {
 
 // struck counts the runs in which the load or its hoisting gear strikes
 // one obstacle (a run once), with the earliest strike over them and what
-// made it (the load when both strike at the same moment).
+// made it (the load when both strike at the same moment): by, and the
+// line of the hoisting gear when that was it.
 type struck struct {
-	runs    int
-	firstS  float64
-	firstAt Point3
-	by      string
+	runs     int
+	firstS   float64
+	firstAt  Point3
+	by, line string
 }
 
 // add counts one run's closest approach c of the load (c.Rope the gear's).
@@ -89,9 +90,9 @@ func (h *struck) add(c *Closest) {
 	first := h.runs == 0
 	h.runs++
 	if c.Strikes && (first || c.FirstStrikeS < h.firstS) {
-		h.firstS, h.firstAt, h.by, first = c.FirstStrikeS, c.FirstStrikeAt, StruckByLoad, false
+		h.firstS, h.firstAt, h.by, h.line, first = c.FirstStrikeS, c.FirstStrikeAt, StruckByLoad, "", false
 	}
 	if r != nil && r.Strikes && (first || r.FirstStrikeS < h.firstS) {
-		h.firstS, h.firstAt, h.by = r.FirstStrikeS, r.FirstStrikeAt, StruckByRope
+		h.firstS, h.firstAt, h.by, h.line = r.FirstStrikeS, r.FirstStrikeAt, StruckByRope, r.FirstStrikeLine
 	}
 }

@@ -28,6 +28,8 @@ import (
 	"swaysheet/core/internal/sorts"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
+	"swaysheet/core/words"
 )
 
 // Spread gives the standard deviation of each drawn quantity; zero keeps
@@ -107,7 +109,7 @@ type Result struct {
 // per processor). A draw that the core rejects (a rope drawn too short,
 // say) ends the request with that draw's error, naming the draw.
 func Run(s *scenario.Scenario, req Request, workers int) (*Result, error) {
-	if err := check(s, req); err != nil {
+	if err := Check(s, req, units.Choice{System: "si"}); err != nil {
 		return nil, err
 	}
 	count := req.Count
@@ -170,7 +172,10 @@ func Each(n, workers int, f func(i int) error) error {
 	return nil
 }
 
-func check(s *scenario.Scenario, req Request) error {
+// Check is Run's check of the request and the scenario: a field out of
+// range gets a message naming its accepted range, the quantities in the
+// units of u (core/words) and the bounds rounded inward (see inside).
+func Check(s *scenario.Scenario, req Request, u units.Choice) error {
 	var errs scenario.Errors
 	add := func(field, format string, a ...any) {
 		errs = append(errs, scenario.FieldError{Field: field, Message: fmt.Sprintf(format, a...)})
@@ -183,36 +188,32 @@ func check(s *scenario.Scenario, req Request) error {
 	}
 	sp := req.Spread
 	for _, v := range []struct {
-		field string
-		value float64
-		max   float64
+		field, q   string
+		value, max float64
 	}{
-		{"draws.spread.rope_length_m", sp.RopeLengthM, 50},
-		{"draws.spread.centre_depth_m", sp.CentreDepthM, 10},
-		{"draws.spread.press_s", sp.PressS, 10},
-		{"draws.spread.gust_pct", sp.GustPct, 100},
-		{"draws.spread.gust_s", sp.GustS, 60},
+		{"draws.spread.rope_length_m", "length", sp.RopeLengthM, 50},
+		{"draws.spread.centre_depth_m", "length", sp.CentreDepthM, 10},
+		{"draws.spread.press_s", "time", sp.PressS, 10},
+		{"draws.spread.gust_pct", "share", sp.GustPct / 100, 1},
+		{"draws.spread.gust_s", "time", sp.GustS, 60},
 	} {
 		if !(v.value >= 0 && v.value <= v.max) {
-			add(v.field, "is %g: accepted from 0 to %g", v.value, v.max)
+			add(v.field, "%s", outside(&v.value, 0, v.max, v.q, u))
 		}
 	}
 	if e := sp.EmergencyStop; e != nil {
 		for _, v := range []struct {
-			field    string
+			field, q string
 			value    *float64
 			need     bool
 			min, max float64
 		}{
-			{"draws.spread.emergency_stop.reaction_s", e.ReactionS, true, 0, 10},
-			{"draws.spread.emergency_stop.decel_m_per_s2", e.DecelMPerS2, false, 0.01, 20},
-			{"draws.spread.emergency_stop.decel_deg_per_s2", e.DecelDegPerS2, false, 0.01, 100},
+			{"draws.spread.emergency_stop.reaction_s", "time", e.ReactionS, true, 0, 10},
+			{"draws.spread.emergency_stop.decel_m_per_s2", "acceleration", e.DecelMPerS2, false, 0.01, 20},
+			{"draws.spread.emergency_stop.decel_deg_per_s2", "angular_acceleration", e.DecelDegPerS2, false, 0.01, 100},
 		} {
-			switch {
-			case v.value == nil && v.need:
-				add(v.field, "is required: from %g to %g", v.min, v.max)
-			case v.value != nil && !(*v.value >= v.min && *v.value <= v.max):
-				add(v.field, "is %g: accepted from %g to %g", *v.value, v.min, v.max)
+			if (v.value == nil && v.need) || (v.value != nil && !(*v.value >= v.min && *v.value <= v.max)) {
+				add(v.field, "%s", outside(v.value, v.min, v.max, v.q, u))
 			}
 		}
 	}
@@ -220,6 +221,23 @@ func check(s *scenario.Scenario, req Request) error {
 		return errs
 	}
 	return s.Validate()
+}
+
+// outside is the message of a value v (nil: not given) of quantity q (a
+// core/units.Table name) outside [min, max], said in the units of u as
+// the core says a quantity (words), the bounds rounded to the unit's step
+// (core/units) toward the accepted side (up for the lower, down for the
+// upper), so that a value typed as said is accepted.
+func outside(v *float64, min, max float64, q string, u units.Choice) string {
+	is := "is required"
+	if v != nil {
+		is = "is " + words.Quantity{Value: *v, Quantity: q}.Show(u)
+	}
+	if un := u.Unit(q); un.Step > 0 && un.ToSI > 0 {
+		step := un.Step * un.ToSI
+		min, max = math.Ceil(min/step-1e-9)*step, math.Floor(max/step+1e-9)*step
+	}
+	return is + ": accepted from " + words.Quantity{Value: min, Quantity: q}.Show(u) + " up to " + words.Quantity{Value: max, Quantity: q}.Show(u)
 }
 
 // Summarise gives the percentiles of each figure (of draws merged from

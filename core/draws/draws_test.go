@@ -3,11 +3,13 @@ package draws
 import (
 	"errors"
 	"reflect"
+	"strings"
 	"swaysheet/core/internal/testscenario"
 	"testing"
 
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
+	"swaysheet/core/units"
 )
 
 var spread = Spread{RopeLengthM: 0.3, CentreDepthM: 0.1, PressS: 0.2, GustPct: 20, GustS: 1}
@@ -111,6 +113,38 @@ func TestBadRequest(t *testing.T) {
 	short.Load.RopeLengthM = &l
 	if _, err := Run(short, Request{Runs: 50, Seed: 3, Spread: Spread{RopeLengthM: 0.1}}, 2); err == nil {
 		t.Fatal("a rope drawn below 0.3 m went through")
+	}
+}
+
+// A spread out of range is said with its accepted range in the units
+// shown, its bounds rounded inward to the unit's step: 50 m = 164.04 ft
+// (ft = 0.3048 m exactly, NIST SP 811), said as 164.00 ft; 20 m/s² =
+// 65.62 ft/s², said as 65.60; 0.01 m/s² = 0.0328 ft/s², said as 0.05.
+func TestBadRequestInUnitsShown(t *testing.T) {
+	s := testscenario.Example(t, "bay-travel")
+	decel := 25.0
+	req := Request{Runs: 10, Spread: Spread{RopeLengthM: 60.96, GustPct: 150, EmergencyStop: &scenario.EmergencyStop{DecelMPerS2: &decel}}}
+	for _, c := range []struct {
+		u    units.Choice
+		want []string
+	}{
+		{units.Choice{System: "us"}, []string{
+			"draws.spread.rope_length_m: is 200.00 ft: accepted from 0.00 ft up to 164.00 ft",
+			"draws.spread.gust_pct: is 150 %: accepted from 0 % up to 100 %",
+			"draws.spread.emergency_stop.reaction_s: is required: accepted from 0.0 s up to 10.0 s",
+			"draws.spread.emergency_stop.decel_m_per_s2: is 82.00 ft/s²: accepted from 0.05 ft/s² up to 65.60 ft/s²"}},
+		{units.Choice{System: "si"}, []string{
+			"draws.spread.rope_length_m: is 60.96 m: accepted from 0.00 m up to 50.00 m"}},
+	} {
+		err := Check(s, req, c.u)
+		for _, w := range c.want {
+			if err == nil || !strings.Contains(err.Error()+";", w+";") {
+				t.Errorf("%s: %v\nwant %q", c.u.System, err, w)
+			}
+		}
+	}
+	if _, err := Run(s, req, 1); err == nil || err.Error() != Check(s, req, units.Choice{System: "si"}).Error() {
+		t.Errorf("Run's messages are not Check's in SI: %v", err)
 	}
 }
 

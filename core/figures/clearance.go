@@ -24,15 +24,15 @@ type ClearanceFigure struct {
 var ObstacleTable = []ClearanceFigure{
 	{Key: "share_keep_margin", Crew: "runs that keep the margin (load and rope)", Technical: "share of the runs in which the load and its rope keep the margin and strike nothing", Qu: "share",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMargin, true }},
-	{Key: "share_strike", Crew: "runs where it is struck (load or rope)", Technical: "share of the runs in which the load or its rope (hoist rope, rigging, sling legs, hook ropes) touches or passes into it, a run counted once", Qu: "share",
+	{Key: "share_strike", Crew: "runs where it is struck (load or rope)", Technical: "share of the runs in which the load or its rope (hoist rope, rigging, sling or spreader legs, hook ropes) touches or passes into it, a run counted once", Qu: "share",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareStrike, true }},
 	{Key: "share_keep_margin_low", Crew: "of all runs, at least (95 % sure)", Technical: "lower 95 % confidence bound of that share (Clopper-Pearson)", Qu: "share", Detail: true,
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.ShareKeepMarginLow, true }},
-	{Key: "first_strike_s", Crew: "first struck at", Technical: "earliest moment of a strike by the load or its rope over the runs (first_strike_by says which; the verdict names it)", Unit: "s",
+	{Key: "first_strike_s", Crew: "first struck at", Technical: "earliest moment of a strike by the load or its rope over the runs (first_strike_by and first_strike_line say which; the verdict names it)", Unit: "s",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeS, o.Strikes > 0 }},
 	{Key: "first_strike_at_distance_m", Crew: "first struck where, along the path", Technical: "distance along the crane's path of the earliest strike (the load's centre, or the rope's point in it)", Unit: "m",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.FirstStrikeAtDistanceM, o.Strikes > 0 }},
-	{Key: "rope.first_strike_s", Crew: "rope first passes through it at", Technical: "earliest moment the hoist rope (or rigging, a sling leg, a hook rope) passes through it over the runs", Unit: "s",
+	{Key: "rope.first_strike_s", Crew: "rope first passes through it at", Technical: "earliest moment the hoist rope (or rigging, a sling or spreader leg, a hook rope) passes through it over the runs", Unit: "s",
 		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.FirstStrikeS, r.Strikes > 0 })},
 	{Key: "rope.first_strike_at_distance_m", Crew: "rope first passes through it where, along the path", Technical: "distance along the crane's path of that point of the rope", Unit: "m",
 		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.FirstStrikeAtDistanceM, r.Strikes > 0 })},
@@ -46,9 +46,9 @@ var ObstacleTable = []ClearanceFigure{
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtDistanceM, true }},
 	{Key: "smallest_at_s", Crew: "closest at", Technical: "time of the load's smallest clearance", Unit: "s",
 		Value: func(o *clearance.ObstacleReport) (float64, bool) { return o.SmallestAtS, true }},
-	{Key: "rope.clearance_p5_m", Crew: "room the rope keeps in 95 of 100 runs", Technical: "clearance of the hoist rope (rigging, sling legs, hook ropes) kept by 95 % of the runs", Unit: "m",
+	{Key: "rope.clearance_p5_m", Crew: "room the rope keeps in 95 of 100 runs", Technical: "clearance of the hoist rope (rigging, sling or spreader legs, hook ropes) kept by 95 % of the runs", Unit: "m",
 		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.ClearanceP5M, true })},
-	{Key: "rope.smallest_m", Crew: "closest the rope comes", Technical: "smallest clearance of the hoist rope (rigging, sling legs, hook ropes) over every run (negative: it passes through)", Unit: "m",
+	{Key: "rope.smallest_m", Crew: "closest the rope comes", Technical: "smallest clearance of the hoist rope (rigging, sling or spreader legs, hook ropes) over every run (negative: it passes through)", Unit: "m",
 		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestM, true })},
 	{Key: "rope.smallest_at_height_m", Crew: "rope closest how high up", Technical: "height above the floor of the rope's nearest point", Unit: "m",
 		Value: rope(func(r *clearance.RopeReport) (float64, bool) { return r.SmallestAtHeightM, true })},
@@ -152,7 +152,7 @@ type ClearanceReport struct {
 
 // ObstacleRows are one obstacle's figures. RopePart names the line of
 // the hoisting gear that comes closest ("hoist rope", "rigging", "sling
-// leg 2", "hook rope 1"; the rope rows are of it), empty when the rope
+// leg 2", "spreader leg 1", "hook rope 1"; the rope rows are of it), empty when the rope
 // was not checked.
 type ObstacleRows struct {
 	Name     string `json:"name"`

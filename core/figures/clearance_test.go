@@ -140,7 +140,8 @@ func TestObstacleVerdictsWorstFirst(t *testing.T) {
 
 // A tower struck by the rope alone (the example site-tower-rope-mast):
 // the obstacle's verdict says it is struck, by its rope, and names the
-// line; the strike rows are the obstacle's, the rope's own beside them.
+// line, and the line that struck first (the rows say when); the strike
+// rows are the obstacle's, the rope's own beside them.
 func TestObstacleVerdictRopeStrike(t *testing.T) {
 	s := testscenario.Example(t, "site-tower-rope-mast")
 	s.Site.Spread.Runs = 20
@@ -150,7 +151,7 @@ func TestObstacleVerdictRopeStrike(t *testing.T) {
 	}
 	p := PresentClearance(rep, units.Choice{System: "si"})
 	o := p.Obstacles[0]
-	if o.Keeps || !strings.Contains(o.Verdict, "; struck in") || !strings.Contains(o.Verdict, "by its rope (the hoist rope deepest)") || o.RopePart != "hoist rope" {
+	if o.Keeps || !strings.Contains(o.Verdict, "; struck in") || !strings.Contains(o.Verdict, "by its rope (the hoist rope deepest), first by the hoist rope") || o.RopePart != "hoist rope" {
 		t.Errorf("verdict %q, rope part %q", o.Verdict, o.RopePart)
 	}
 	keys := map[string]bool{}

@@ -12,7 +12,8 @@ import (
 // clearance.VerdictSentences): keeps, and the words in the units of u,
 // e.g. "keeps 0.3 m in 97 % of the runs (95 % needed)" or "does NOT keep
 // 0.3 m: 80 % of the runs do (95 % needed); struck in 4 % of the runs,
-// by the load".
+// by the load"; when the rope strikes too, the line that struck first
+// ("first by hook rope 2"; when is the obstacle's first_strike_s row).
 func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choice) (bool, string) {
 	margin := Figure{Unit: "m"}.row(marginM, u)
 	share := func(v float64) string {
@@ -39,11 +40,10 @@ func obstacleVerdict(o *clearance.ObstacleReport, marginM float64, u units.Choic
 		case o.LoadStrikes == 0:
 			w += ", by its rope (" + clearance.LineWords(o.Rope.Part) + " deepest)"
 		default:
-			first := "the load"
-			if o.FirstStrikeBy == clearance.StruckByRope {
-				first = "its rope"
-			}
-			w += " (by the load in " + share(float64(o.LoadStrikes)/runs) + ", by its rope in " + share(float64(ropeN)/runs) + "), first by " + first
+			w += " (by the load in " + share(float64(o.LoadStrikes)/runs) + ", by its rope in " + share(float64(ropeN)/runs) + ")"
+		}
+		if ropeN > 0 {
+			w += ", first by " + clearance.StruckBy(o.FirstStrikeBy, o.FirstStrikeLine)
 		}
 	}
 	return keeps, w

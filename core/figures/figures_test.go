@@ -282,3 +282,34 @@ func TestPeriodNamesItsModel(t *testing.T) {
 		}
 	}
 }
+
+// The legs' pull is named by what holds the load (sway.LegName): sling
+// legs from the hook, a spreader's legs, two hook ropes' own rows; each
+// key once in a result's rows.
+func TestLegRowsNameTheLegs(t *testing.T) {
+	cases := map[string]string{
+		"bay-girder-rigid.json":       "largest pull in a sling leg",
+		"precast-panel-spreader.json": "largest pull in a spreader leg",
+		"precast-beam-tandem.json":    "largest pull in hook rope 1",
+	}
+	for file, want := range cases {
+		s := testscenario.Example(t, file)
+		r, err := sway.EvaluateWith(s, sway.Options{NoHistory: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var crew []string
+		seen := map[string]bool{}
+		for _, row := range Present(s, r, units.Choice{}).Rows {
+			if seen[row.Key] {
+				t.Errorf("%s: %s twice", file, row.Key)
+			}
+			seen[row.Key] = true
+			crew = append(crew, row.Crew)
+		}
+		all := strings.Join(crew, "; ")
+		if !strings.Contains(all, want) || (r.Body.Suspension != "four legs" && r.Body.Suspension != "two legs") == strings.Contains(all, "sling leg") {
+			t.Errorf("%s: rows %q, want %q", file, all, want)
+		}
+	}
+}

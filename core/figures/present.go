@@ -103,6 +103,10 @@ func Present(s *scenario.Scenario, r *sway.Result, u units.Choice) Report {
 		if f.Named != nil {
 			row.Technical = f.Named(r)
 		}
+		if r.Body != nil && r.Body.Suspension == sway.Spreader {
+			// The legs under a spreader are spreader legs (sway.LegName).
+			row.Crew = strings.Replace(row.Crew, "sling leg", "spreader leg", 1)
+		}
 		if f.Limit != "" && moved {
 			if lim := limitOf(s.Limits, f.Limit); lim != nil {
 				anyLimit = true

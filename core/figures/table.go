@@ -178,7 +178,8 @@ func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
 }
 
 // slung: a figure of a rigid load's sling or spreader legs, there when
-// the load has them (two hook ropes have their own figures).
+// the load has them (two hook ropes have their own figures); the words
+// say sling legs, and Present says spreader legs under a spreader.
 func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
 	return func(r *sway.Result) (float64, bool) {
 		if r.Body == nil || r.Body.Suspension == sway.TwoRopes {

@@ -118,7 +118,7 @@ func (rq *request) rigidNotes() []Sentence {
 	rope, ropes := "rope of {2} to the hook", "rope to the hook"
 	switch {
 	case rq.s.Load.Body.Spreader != nil:
-		rope, ropes = "parallel legs of {2}", "legs"
+		rope, ropes = "spreader legs of {2}", "spreader legs"
 	case rq.s.Load.Body.Tandem != nil:
 		rope, ropes = "rope length of {2} (load.rope_length_m; each hook rope's own length follows it)", "rope length"
 	}

@@ -267,14 +267,16 @@ func TestNothingSimulatedOnTheSheet(t *testing.T) {
 
 // The engineering detail's methods line names the model the figures come
 // from (sway.ModelName): a point load, a hook block and load as two
-// masses, a rigid load on its sling set; never the two masses for a load
-// that has none.
+// masses, a rigid load on its sling set, its spreader legs or its two
+// hook ropes; never the two masses for a load that has none.
 func TestMethodsNameTheModel(t *testing.T) {
 	for file, want := range map[string]string{
 		"bay-travel.json":             "Model: point load on one rope (full nonlinear 3D pendulum)",
 		"heavy-hook-long-slings.json": "Model: hook block and load as two masses (full nonlinear 3D double pendulum)",
 		"bay-girder-rigid.json":       "Model: rigid load on a two-leg sling set from the hook block",
-		"precast-panel-spreader.json": "Model: rigid load on two parallel legs from a spreader beam or two hook ropes",
+		"precast-panel-spreader.json": "Model: rigid load on two parallel spreader legs from a spreader beam held by the crane",
+		// Two hook ropes were named a four-leg sling set before.
+		"precast-beam-tandem.json": "Model: rigid load on two hook ropes, each to its own lifting point",
 	} {
 		s := demo(t, file)
 		_, doc := build(t, s, Input{Version: "test"})

@@ -54,11 +54,7 @@ func siteSection(s *scenario.Scenario, rep *clearance.Report, err string, u unit
 		}
 		keeps := fmt.Sprintf("%d of %d", o.KeepMargin, o.Runs)
 		if o.Strikes > 0 {
-			by := "the load"
-			if o.FirstStrikeBy == clearance.StruckByRope {
-				by = "its rope"
-			}
-			keeps += fmt.Sprintf("; struck in %d, first %s s by %s", o.Strikes, Num(o.FirstStrikeS, 3), by)
+			keeps += fmt.Sprintf("; struck in %d, first %s s by %s", o.Strikes, Num(o.FirstStrikeS, 3), clearance.StruckBy(o.FirstStrikeBy, o.FirstStrikeLine))
 		}
 		under := "not passed over"
 		if vt := o.Vertical; vt != nil {

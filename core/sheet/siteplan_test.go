@@ -87,3 +87,21 @@ func TestSiteSectionNeedsAPath(t *testing.T) {
 		t.Error("the paper section has screen classes or NaN")
 	}
 }
+
+// A rope strike on the sheet: the obstacle's row and the verdict name the
+// line that struck first (site-tower-rope-mast: the hoist rope).
+func TestSiteSectionNamesTheFirstStrikingLine(t *testing.T) {
+	s := demo(t, "site-tower-rope-mast.json")
+	s.Site.Spread.Runs = 4
+	rep, err := clearance.Check(s, clearance.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	v := siteSection(s, rep, "", units.Choice{System: "us"})
+	if row := v.Rows[0][2]; !strings.Contains(row, " s by the hoist rope") {
+		t.Errorf("row %q", row)
+	}
+	if !strings.Contains(strings.Join(v.Words, " "), "first by the hoist rope, ") {
+		t.Errorf("verdict %q", v.Words)
+	}
+}

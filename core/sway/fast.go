@@ -56,7 +56,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 			return nil, nil, Stats{}, &WorkError{Message: opt.Budget.message}
 		}
 		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec,
-			pathOnly: opt.PathOnly && hist != nil}
+			pathOnly: opt.PathOnly && hist != nil, kinSamples: opt.kinSamples}
 		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
 		err := fs.run(su.y0, su.breaks, tEnd)
 		if opt.Budget != nil && !opt.Budget.take(int64(fs.v.evals)*WorkPerEval) && err == nil {
@@ -100,19 +100,19 @@ func restartCuts(breaks []float64, tEnd float64) []float64 {
 
 // fastScan is scanner for fastModel.
 type fastScan struct {
+	// A field that cannot be compared makes the type not comparable: Go
+	// then writes no equality function for it, which nothing calls (a
+	// heap object's type carries one when it is comparable). The same in
+	// fastSolver, peaks, extremum, recorder, span and fastDouble: 7.2 kB
+	// of the page's wasm, 1.4 kB gzipped.
+	_ [0]func()
 	peaks
 	recorder
 	m             *fastModel
 	v             fastSolver
 	constraintErr float64
 	pathOnly      bool // no peak search (Options.PathOnly)
-}
-
-// state is the dense output at t inside the last step, projected.
-func (s *fastScan) state(t float64) (y [6]float64) {
-	s.v.dense(t, &y)
-	project(&y)
-	return y
+	kinSamples    bool // every history sample through kinOf (Options.kinSamples)
 }
 
 func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
@@ -212,7 +212,9 @@ func (s *fastScan) emit(t0, t1 float64) {
 		if at < t0 {
 			at = t0
 		}
-		y := s.state(at)
+		var y [6]float64
+		s.v.dense(at, &y)
+		project(&y)
 		s.recordState(tt, &y)
 	}
 }
@@ -222,21 +224,43 @@ func (s *fastScan) emit(t0, t1 float64) {
 // pendulum.Point between, and the swing angle's horizontal part by a
 // square root rather than math.Hypot (Go code in wasm, where this runs
 // for every one of the 601 samples; the two differ in the last bits).
+//
+// On travel moves alone (fastModel.travel, the commonest case) the
+// suspension point's position and acceleration are read from the
+// segment's spans here, the rope length being l0 (l0 - 0) and its second
+// rate -0 (-(0)), as kinOf and rel give them: the same bits, without
+// the two calls and the whole kin made and copied for every sample
+// (fasthistory_test.go holds the two ways together).
 func (s *fastScan) recordState(t float64, y *[6]float64) {
-	k := s.m.kinOf(t, false)
-	rx, ry, rz := s.m.rel(t, &k, y)
+	m := s.m
+	var px, py, l, ddl, rx, ry, rz float64
+	if m.travel && !s.kinSamples {
+		var ax, ay float64
+		if len(m.x) > 0 {
+			px, _, ax = m.sx.at(t)
+		}
+		if len(m.y) > 0 {
+			py, _, ay = m.sy.at(t)
+		}
+		l, ddl = m.l0, math.Copysign(0, -1)
+		rx, ry, rz = -ax, -ay, -m.g
+	} else {
+		k := m.kinOf(t, false)
+		rx, ry, rz = m.rel(t, &k, y)
+		px, py, l, ddl = k.px, k.py, k.l, k.ddl
+	}
 	h, i := s.hist, s.next
-	lx, ly, lz := k.px+k.l*y[0], k.py+k.l*y[1], k.l*y[2]
-	dx, dy := lx-k.px, ly-k.py
+	lx, ly, lz := px+l*y[0], py+l*y[1], l*y[2]
+	dx, dy := lx-px, ly-py
 	// Written in place (the series are at full length from the start,
 	// sized): an append writes each slice's length back besides.
 	h.TimeS[i] = float64(i) * s.sampleDt
-	h.SwingDeg[i] = math.Atan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
+	h.SwingDeg[i] = swingAtan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
 	h.RelXM[i], h.RelYM[i], h.RelZM[i] = dx, dy, lz
 	h.LoadXM[i], h.LoadYM[i] = lx, ly
-	h.SuspensionXM[i], h.SuspensionYM[i] = k.px, k.py
-	h.TensionN[i] = s.m.tension(rx, ry, rz, k.l, k.ddl, y)
-	h.RopeM[i] = k.l
+	h.SuspensionXM[i], h.SuspensionYM[i] = px, py
+	h.TensionN[i] = m.tension(rx, ry, rz, l, ddl, y)
+	h.RopeM[i] = l
 	s.next++
 }
 

@@ -18,6 +18,7 @@ import (
 // The first span of a table starts at -Inf and has its origin at the
 // first breakpoint (a profile before its first span moves steadily).
 type span struct {
+	_             [0]func() // not comparable: no equality function (see fastScan)
 	start, origin float64
 	p, v, a, j    float64
 }

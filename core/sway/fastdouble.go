@@ -21,6 +21,7 @@ import (
 // profile (fastdouble_test.go states how closely they agree);
 // Options.General selects pendulum.Double.
 type fastDouble struct {
+	_             [0]func()  // not comparable: no equality function (see fastScan)
 	k             *fastModel // suspension point, rope length, air
 	m1, m2, l2, g float64
 	im1, im2, il2 float64

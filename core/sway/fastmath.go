@@ -85,3 +85,50 @@ func stepExp(x float64) float64 {
 	// and the product by 2^k exact.
 	return y * math.Float64frombits(uint64(k+1023)<<52)
 }
+
+// swingAtan2 is math.Atan2(y, x) written out for the history's swing
+// angle, whose arguments are both positive and finite but for a load at or
+// above the suspension point's height: Go's atan2 for them is
+// Atan(y/x), that is satan(y/x), written here in one call instead of a
+// chain of four (the same reduction and polynomial, from the Cephes
+// library's atan.c by Stephen L. Moshier, as Go's math/atan.go; on every
+// platform Go runs those sources for Atan2, so the bits are the same,
+// fastmath_test.go). Any other argument goes to package math.
+func swingAtan2(y, x float64) float64 {
+	const (
+		morebits = 6.123233995736765886130e-17 // pi/2 = PIO2 + morebits
+		tan3pio8 = 2.41421356237309504880      // tan(3*pi/8)
+	)
+	if !(y > 0 && x > 0 && y <= math.MaxFloat64 && x <= math.MaxFloat64) {
+		return math.Atan2(y, x)
+	}
+	r := y / x
+	if r <= 0.66 {
+		return xatan(r)
+	}
+	if r > tan3pio8 {
+		return math.Pi/2 - xatan(1/r) + morebits
+	}
+	return math.Pi/4 + xatan((r-1)/(r+1)) + 0.5*morebits
+}
+
+// xatan is math's xatan: atan(x) for x in [0, 0.66] by a rational
+// function (Cephes).
+func xatan(x float64) float64 {
+	const (
+		P0 = -8.750608600031904122785e-01
+		P1 = -1.615753718733365076637e+01
+		P2 = -7.500855792314704667340e+01
+		P3 = -1.228866684490136173410e+02
+		P4 = -6.485021904942025371773e+01
+		Q0 = +2.485846490142306297962e+01
+		Q1 = +1.650270098316988542046e+02
+		Q2 = +4.328810604912902668951e+02
+		Q3 = +4.853903996359136964868e+02
+		Q4 = +1.945506571482613964425e+02
+	)
+	z := x * x
+	z = z * ((((P0*z+P1)*z+P2)*z+P3)*z + P4) / (((((z+Q0)*z+Q1)*z+Q2)*z+Q3)*z + Q4)
+	z = x*z + x
+	return z
+}

@@ -14,6 +14,7 @@ import (
 // sources), on fixed-size arrays so that the loops need no bounds checks,
 // with the right-hand side called directly.
 type fastSolver struct {
+	_              [0]func() // not comparable: no equality function (see fastScan)
 	m              *fastModel
 	relTol, absTol float64
 	maxSteps       int

@@ -65,10 +65,19 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 	out.v[qTensionLow], out.g[qTensionLow] = -tn, -gt
 }
 
-// measureDense is measureAt on the dense output at t inside the last step.
-func (s *fastScan) measureDense(t float64, out *measure) {
+// measureDense is measureAt on the dense output at t inside the last
+// step, for reading quantity q: the swing and the excursion with their
+// rates come from the state alone (measureAt reads the state's rate yd
+// for the tension's rate only), so for them the dense output's rate is
+// not made and the tensions' figures in out are not to be read. dense
+// and denseBoth give the state the same bits.
+func (s *fastScan) measureDense(t float64, q quantity, out *measure) {
 	var y, yd [6]float64
-	s.v.denseBoth(t, &y, &yd)
+	if q <= qExcursion {
+		s.v.dense(t, &y)
+	} else {
+		s.v.denseBoth(t, &y, &yd)
+	}
 	project(&y)
 	s.measureAt(t, &y, &yd, out)
 }
@@ -105,14 +114,17 @@ func (s *fastScan) stepPeaks(t0, t1 float64, a, b *measure, residual bool) {
 			// C = h g0 and B² > 4AC (no division until then).
 			d := v0 - v1
 			A := 6*d + 3*h*(g0+g1)
-			B := -6*d - h*(4*g0+2*g1)
 			C := h * g0
-			if A*C <= 0 || B*B <= 4*A*C || B*A >= 0 || B*B >= 4*A*A {
+			if A*C <= 0 {
 				continue // the derivative keeps its sign
+			}
+			B := -6*d - h*(4*g0+2*g1)
+			if B*B <= 4*A*C || B*A >= 0 || B*B >= 4*A*A {
+				continue
 			}
 			tm := t0 - B/(2*A)*h
 			var m measure
-			s.measureDense(tm, &m)
+			s.measureDense(tm, q, &m)
 			if g0 > 0 && m.g[q] < 0 {
 				s.peakIn(q, t0, v0, g0, tm, m.v[q], m.g[q], residual)
 			} else if g0 < 0 && m.g[q] > 0 {
@@ -154,7 +166,7 @@ func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual b
 	}
 	x, v := rateRoot(ta, ga, tb, gb, 0, func(t float64) (float64, float64) {
 		var m measure
-		s.measureDense(t, &m)
+		s.measureDense(t, q, &m)
 		return m.v[q], m.g[q]
 	})
 	s.offer(q, v, x, residual)

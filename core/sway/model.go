@@ -12,12 +12,15 @@ import "swaysheet/core/scenario"
 //     pendulum (core/pendulum Double).
 //   - load.body: a rigid load on its sling set, a 3D rigid body with the
 //     legs as constraints (core/pendulum Rigid): four legs from the hook
-//     as a rigid frame, two legs from the hook block, or two parallel legs
-//     from a spreader beam or two hook ropes.
+//     as a rigid frame, two legs from the hook block, two parallel
+//     spreader legs from a spreader beam held by the crane, or two hook
+//     ropes each to its own lifting point.
 func ModelName(s *scenario.Scenario) string {
 	switch b := s.Load.Body; {
 	case b != nil && b.Spreader != nil:
-		return "rigid load on two parallel legs from a spreader beam or two hook ropes (3D rigid body, Newton-Euler with constraint forces)"
+		return "rigid load on two parallel spreader legs from a spreader beam held by the crane (3D rigid body, Newton-Euler with constraint forces)"
+	case b != nil && b.Tandem != nil:
+		return "rigid load on two hook ropes, each to its own lifting point (3D rigid body, Newton-Euler with constraint forces)"
 	case b != nil && len(b.Legs) == 2:
 		return "rigid load on a two-leg sling set from the hook block (3D rigid body and hook block, Newton-Euler with constraint forces)"
 	case b != nil:

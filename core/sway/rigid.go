@@ -252,7 +252,7 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	case b.Tandem != nil:
 		out.Suspension = TwoRopes
 	case b.Spreader != nil:
-		out.Suspension = "spreader"
+		out.Suspension = Spreader
 	case len(b.Legs) == 2:
 		out.Suspension = "two legs"
 	default:
@@ -320,8 +320,9 @@ func body(s *scenario.Scenario, r *pendulum.Rigid, modes []pendulum.RigidMode, s
 	}
 	for i, l := range out.Legs {
 		if b.Tandem == nil && l.TensionMinN <= 0 {
-			res.warn(words.Plain(fmt.Sprintf(
-				"Leg %d goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging.", i+1)))
+			// "Sling leg 2", "Spreader leg 1": both start with an s.
+			res.warn(words.Plain("S" + LegName(out.Suspension, i)[1:] +
+				" goes slack (its tension reaches zero): the load shifts onto the other legs and can snatch this one when it tightens; the model, which keeps every leg straight, no longer holds. Reduce the motion or change the rigging."))
 		}
 	}
 	if out.RestTiltDeg > 2 {

@@ -157,7 +157,7 @@ func TestRigidSlackLegWarning(t *testing.T) {
 	s.Motions = []scenario.Motion{{Axis: "travel_x", Profile: scenario.ProfileHardStop,
 		SpeedMPerS: f(1.5), DecelMPerS2: f(5), ProfileFields: scenario.ProfileFields{BrakeAtS: f(1)}}}
 	r := mustEval(t, s)
-	if !hasWarning(r, "Leg 1 goes slack") || !hasWarning(r, "Leg 2 goes slack") {
+	if !hasWarning(r, "Sling leg 1 goes slack") || !hasWarning(r, "Sling leg 2 goes slack") {
 		t.Errorf("legs %+v, warnings %q", r.Body.Legs, r.Warnings)
 	}
 }

@@ -256,6 +256,7 @@ func (s *scanner) emitSamples(t0, t1 float64) {
 
 // recorder writes the evenly spaced history samples of a run.
 type recorder struct {
+	_        [0]func()    // not comparable: no equality function (see fastScan)
 	hist     *History     // nil: no history
 	bodyHist *BodyHistory // with a rigid load's history
 	sampleDt float64

@@ -14,6 +14,7 @@ import (
 
 // extremum tracks the largest value of a quantity and when it occurred.
 type extremum struct {
+	_       [0]func() // not comparable: no equality function (see fastScan)
 	max, at float64
 	set     bool
 }
@@ -30,6 +31,7 @@ func (e *extremum) offer(v, t float64) bool {
 // and after the last motion that of the swing and the excursion (the
 // general and the specialised path's scans share it).
 type peaks struct {
+	_            [0]func()
 	motionEnd    float64
 	nq           quantity // quantities watched: all of them with rigging
 	ext          [nQuantities]extremum

@@ -167,6 +167,9 @@ type Options struct {
 	// check's) reuses it, and reads each result's histories only until
 	// its next run.
 	HistoryBuffer *[]float64
+	// kinSamples makes the specialised path take every history sample
+	// through kinOf, as on moves other than travel (for tests).
+	kinSamples bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.

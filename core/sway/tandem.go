@@ -1,8 +1,8 @@
 package sway
 
 import (
-	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -17,10 +17,30 @@ import (
 // (load.body.tandem).
 const TwoRopes = "two ropes"
 
+// Spreader is Body.Suspension for a load on a spreader's two parallel
+// legs (load.body.spreader).
+const Spreader = "spreader"
+
 // HookRope names hook rope i (from 0) of a load on two hook ropes, rope 0
 // hanging from the suspension point toward +heading: the one name the
 // figures, the warnings and the clearance check's rope lines give it.
-func HookRope(i int) string { return fmt.Sprintf("hook rope %d", i+1) }
+func HookRope(i int) string { return LegName(TwoRopes, i) }
+
+// LegName names leg i (from 0) of a rigid load hung as suspension
+// (Body.Suspension) says, in the order given: a hook rope (HookRope), a
+// spreader leg (down from the spreader beam to the load), or a sling leg
+// (from the hook): the one name the figures and the clearance check's
+// rope lines give it.
+func LegName(suspension string, i int) string {
+	kind := "sling leg "
+	switch suspension {
+	case TwoRopes:
+		kind = "hook rope "
+	case Spreader:
+		kind = "spreader leg "
+	}
+	return kind + strconv.Itoa(i+1)
+}
 
 // tandemRopes are the two hook ropes of a validated scenario with
 // load.body.tandem: suspension points +/- spacing/2 along the heading

@@ -20,30 +20,37 @@ func init() {
 	Calls["draws_join"] = joinDraws
 }
 
-// drawsInput is the input of the draws call: a scenario and the draws to
-// run on it. First and Count in the request select a share of the runs,
-// so that the page can split one request over several workers and merge
-// the figures (each draw is the same wherever it runs).
+// drawsInput is the input of the draws call: a scenario, the draws to
+// run on it and the units shown (for the messages; SI when not given).
+// First and Count in the request select a share of the runs, so that the
+// page can split one request over several workers and merge the figures
+// (each draw is the same wherever it runs).
 type drawsInput struct {
-	Scenario json.RawMessage `json:"scenario"`
-	Draws    draws.Request   `json:"draws"`
+	Scenario json.RawMessage   `json:"scenario"`
+	Draws    draws.Request     `json:"draws"`
+	Units    map[string]string `json:"units"`
+	System   string            `json:"system"`
 }
 
 // runDraws evaluates the scenario over the draws; the result is the
 // draws.Result JSON (percentiles and each draw's figures). Field errors
-// name the scenario's own paths, or draws.* for the request.
+// name the scenario's own paths, or draws.* for the request with the
+// accepted range in the units shown.
 func runDraws(_ *Env, input []byte) (any, error) {
 	var in drawsInput
 	dec := json.NewDecoder(bytes.NewReader(input))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(&in); err != nil {
-		return nil, scenario.Errors{{Field: "draws", Message: "the input must be {\"scenario\": {...}, \"draws\": {\"runs\", \"seed\", \"spread\", \"first\", \"count\"}}: " + err.Error()}}
+		return nil, scenario.Errors{{Field: "draws", Message: "the input must be {\"scenario\": {...}, \"draws\": {\"runs\", \"seed\", \"spread\", \"first\", \"count\"}, \"units\", \"system\"}: " + err.Error()}}
 	}
 	if len(in.Scenario) == 0 {
 		return nil, scenario.Errors{{Field: "scenario", Message: "the scenario is missing"}}
 	}
 	s, err := scenario.Parse(in.Scenario)
 	if err != nil {
+		return nil, err
+	}
+	if err := draws.Check(s, in.Draws, units.Choice{Chosen: in.Units, System: in.System}); err != nil {
 		return nil, err
 	}
 	return draws.Run(s, in.Draws, 0)
@@ -54,9 +61,7 @@ func runDraws(_ *Env, input []byte) (any, error) {
 // units shown.
 type joinInput struct {
 	drawsInput
-	Parts  []draws.Result    `json:"parts"`
-	Units  map[string]string `json:"units"`
-	System string            `json:"system"`
+	Parts []draws.Result `json:"parts"`
 }
 
 // JoinedDraws is the draws_join call's result: the parts' draws in order

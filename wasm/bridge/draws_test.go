@@ -34,6 +34,15 @@ func TestDrawsCall(t *testing.T) {
 	if err := json.Unmarshal(Call(nil, "draws", bad), &e); err != nil || e.Error == nil || e.Error.Fields[0].Field != "draws.runs" {
 		t.Fatalf("runs 0: %+v", e.Error)
 	}
+	// A spread out of range, the page in US units: the message names the
+	// field and its range in feet, with no SI unit (50 m = 164.04 ft, ft =
+	// 0.3048 m, NIST SP 811; said rounded down to the 0.05 ft step).
+	bad = []byte(`{"scenario": ` + string(readExample(t, DemoFile)) + `, "draws": {"runs": 5, "spread": {"rope_length_m": 60.96}}, "system": "us"}`)
+	e = errReply{}
+	if err := json.Unmarshal(Call(nil, "draws", bad), &e); err != nil || e.Error == nil || len(e.Error.Fields) != 1 ||
+		e.Error.Fields[0].Field != "draws.spread.rope_length_m" || e.Error.Fields[0].Message != "is 200.00 ft: accepted from 0.00 ft up to 164.00 ft" {
+		t.Fatalf("rope spread 200 ft: %+v", e.Error)
+	}
 }
 
 // Two parts of a request joined by draws_join (given out of order) answer

@@ -17,7 +17,9 @@ import (
 // draws split over its workers and shows the percentiles of the crew's
 // figures; they are those of the Go core's own draws of the same scenario,
 // request and seed (core/draws Run, figures.PresentSpread), to the last
-// bit and in the same words. A spread out of range is named at its field.
+// bit and in the same words. A spread out of range is named at its field,
+// with its range in the units shown (and in US units nothing in the
+// section is said in SI).
 // New inputs mark the answer as for earlier ones and stop runs going. Not
 // timed (the page bench has the 1,000-run row).
 func TestSpreadOverLikelyRuns(t *testing.T) {
@@ -91,10 +93,38 @@ func TestSpreadOverLikelyRuns(t *testing.T) {
 	if err := h.poll(`document.getElementById('spread-out').dataset.state !== 'going' && document.querySelector('#spread-form [data-field="draws.spread.rope_length_m"] .msg').textContent !== ''`, time.Minute); err != nil {
 		t.Fatalf("no message at the rope's spread: %v", err)
 	}
-	if msg := h.text(`#spread-form [data-field="draws.spread.rope_length_m"] .msg`); !strings.Contains(msg, "accepted from 0 to 50") {
+	if msg := h.text(`#spread-form [data-field="draws.spread.rope_length_m"] .msg`); !strings.Contains(msg, "is 60.00 m: accepted from 0.00 m up to 50.00 m") {
 		t.Errorf("rope spread 60 m: %q", msg)
 	}
 	h.typeInto("#spread-spread-rope_length_m", "0.4")
+
+	// In US units: the answer shown again in feet, and a spread out of
+	// range said in feet (50 m = 164.04 ft, ft = 0.3048 m, NIST SP 811;
+	// said rounded down to the 0.05 ft step), no SI unit anywhere in the
+	// section.
+	h.click("#sys-us")
+	h.settle()
+	h.waitFor(`document.querySelector('#spread-out .spread-used').textContent.indexOf(' ft') >= 0`, "the spread in feet")
+	noSI := func(when string) {
+		for _, sel := range []string{"#spread-out", "#spread-form"} {
+			if txt := h.text(sel); siAfterNumber.MatchString(txt) {
+				t.Errorf("%s, US view: %s shows %q", when, sel, siAfterNumber.FindString(txt))
+			}
+		}
+	}
+	noSI("the answer")
+	h.typeInto("#spread-spread-rope_length_m", "200")
+	h.click("#spread-run")
+	if err := h.poll(`document.getElementById('spread-out').dataset.state !== 'going' && document.querySelector('#spread-form [data-field="draws.spread.rope_length_m"] .msg').textContent !== ''`, time.Minute); err != nil {
+		t.Fatalf("no message at the rope's spread in feet: %v", err)
+	}
+	if msg := h.text(`#spread-form [data-field="draws.spread.rope_length_m"] .msg`); msg != "is 200.00 ft: accepted from 0.00 ft up to 164.00 ft" {
+		t.Errorf("rope spread 200 ft: %q", msg)
+	}
+	noSI("a spread out of range")
+	h.typeInto("#spread-spread-rope_length_m", "1.3")
+	h.click("#sys-si")
+	h.settle()
 
 	// New inputs: the spread shown is said to be of earlier ones.
 	h.typeInto("#f-load-rope_length_m", "9")

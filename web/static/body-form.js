@@ -28,7 +28,7 @@ const HUNG = {
   tandem: function () { return { tandem: { ropes: [{ attach_x_m: 2.5 }, { attach_x_m: -2.5 }] } }; }
 };
 const HUNG_WORDS = [['two', 'two sling legs from the hook'], ['four', 'four sling legs from the hook'],
-  ['spreader', 'a spreader beam or two hook ropes (two parallel legs)'],
+  ['spreader', 'a spreader beam held by the crane (two parallel spreader legs)'],
   ['tandem', 'two hook ropes, each to its own lifting point (tandem lift)']];
 
 let stash = null; // load.body kept while the box is unticked
@@ -53,7 +53,7 @@ export function renderBodyForm() {
   var b = S.scenario.load && S.scenario.load.body;
   var h = '<div class="field wide" data-field="' + B + '"><label class="check"><input type="checkbox" id="body-on"' + (b ? ' checked' : '') +
     '> The load as a rigid box on its slings <span class="opt">(long loads, spreader beams: pitch, twist and every leg\u2019s pull)</span></label>' +
-    '<p class="hint">With it, the rope length above runs from the sheave to the hook (with a spreader: the legs\u2019 length; with two hook ropes: each rope\u2019s length unless given below, and both change with it) and the load mass is without the hook block.</p>' +
+    '<p class="hint">With it, the rope length above runs from the sheave to the hook (with a spreader: the spreader legs\u2019 length; with two hook ropes: each rope\u2019s length unless given below, and both change with it) and the load mass is without the hook block.</p>' +
     '<p class="msg" role="alert"></p></div>';
   if (!b) { f.innerHTML = section('Rigid load', h, 'body-card'); return; }
   var hung = hungOf(b);
@@ -78,7 +78,7 @@ export function renderBodyForm() {
     parts.push(group('Two hook ropes (tandem lift)', numField(B + '.tandem.spacing_m', 'Spacing of the two ropes at the crane',
       { optional: true, hint: 'blank: the lifting points\u2019 spacing (ropes straight down)' }) + ropes, B + '.tandem'));
   } else if (hung === 'spreader') {
-    parts.push(group('Spreader', numField(B + '.spreader.spacing_m', 'Spacing of the two legs') +
+    parts.push(group('Spreader legs (beam to lifting point)', numField(B + '.spreader.spacing_m', 'Spacing of the two spreader legs') +
       numField(B + '.spreader.attach_z_m', 'Lifting points above the centre of mass', { optional: true, hint: 'blank: the load\u2019s top face' })));
   } else {
     if (hung === 'two' || b.hook_mass_kg !== undefined) parts.push(group('Hook block', numField(B + '.hook_mass_kg', 'Hook block mass', { optional: hung !== 'two' })));

@@ -25,7 +25,7 @@ export function renderForm() {
   h.push(section('Load and crane',
     selectField('crane.kind', 'Crane', KINDS, (s.crane && s.crane.kind) || '') +
     numField('load.mass_kg', 'Load mass', { hint: hook ? 'the rigged load, without the hook block' : 'hook block and rigging included' }) +
-    numField('load.rope_length_m', 'Rope length', { hint: s.load && s.load.body ? 'sheave to the hook (with a spreader: the legs\u2019 length)' :
+    numField('load.rope_length_m', 'Rope length', { hint: s.load && s.load.body ? 'sheave to the hook (with a spreader: the spreader legs\u2019 length)' :
       hook ? 'sheave to the hook block\u2019s centre of mass' : 'sheave to the load\u2019s centre of mass' }) +
     ropeFindHTML() +
     numField('crane.radius_m', 'Hook radius from the slew axis', { optional: true }) +

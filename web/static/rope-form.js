@@ -65,7 +65,7 @@ function ropeModel() {
 const ROPE_TO = {
   one: 'from the sheave to the load\u2019s centre of mass',
   hook: 'from the sheave to the hook block',
-  rigid: 'from the sheave to the hook (with a spreader: the legs\u2019 length)'
+  rigid: 'from the sheave to the hook (with a spreader: the spreader legs\u2019 length)'
 };
 
 // ropeShownFields are the fields of the way chosen; with a hook block or

@@ -35,8 +35,10 @@ const SPREAD_FIELDS = [
 ];
 
 // SP: the runs going or last done, the scenario they are of (key), the
-// parts joined, and the presented answer.
-const SP = { going: false, key: null, sent: null, req: null, parts: null, shown: null, done: 0, total: 0, error: null, bad: {}, units: null, job: 0 };
+// last answer's scenario, request and parts joined (last: kept when later
+// runs fail, to show it in new units), and the presented answer; fieldError
+// marks an error that is the core's messages at the fields.
+const SP = { going: false, key: null, sent: null, req: null, last: null, shown: null, done: 0, total: 0, error: null, fieldError: false, bad: {}, units: null, job: 0 };
 
 function spreadKey(sent) {
   var sc = JSON.parse(sent);
@@ -73,18 +75,21 @@ function readSpread(el) {
 }
 
 // spreadKind is the split of request req for the worker pool (site-runs.js
-// runSplit): runs [from, to) by the draws call, joined by draws_join.
+// runSplit): runs [from, to) by the draws call, joined by draws_join. Both
+// are given the units shown: the core says a spread out of range in them.
 function spreadKind(req) {
   return {
     part: 'draws', join: 'draws_join',
-    partInput: function (sent, from, to) { return '{"scenario":' + sent + ',"draws":' + JSON.stringify(Object.assign({}, req, { first: from, count: to - from })) + '}'; },
+    partInput: function (sent, from, to) { return '{"scenario":' + sent + ',"draws":' + JSON.stringify(Object.assign({}, req, { first: from, count: to - from })) + unitsShown() + '}'; },
     joinInput: function (sent, parts) { return spreadJoinInput(sent, req, parts); }
   };
 }
 
 function spreadJoinInput(sent, req, parts) {
-  return '{"scenario":' + sent + ',"draws":' + JSON.stringify(req) + ',"parts":[' + parts.join(',') + '],"units":' + JSON.stringify(S.chosen) + ',"system":' + JSON.stringify(S.sys === 'us' ? 'us' : 'si') + '}';
+  return '{"scenario":' + sent + ',"draws":' + JSON.stringify(req) + ',"parts":[' + parts.join(',') + ']' + unitsShown() + '}';
 }
+
+function unitsShown() { return ',"units":' + JSON.stringify(S.chosen) + ',"system":' + JSON.stringify(S.sys === 'us' ? 'us' : 'si'); }
 
 // startSpread runs the draws of the last result's scenario on the worker pool;
 // it waits while the clearance runs have the pool.
@@ -100,7 +105,7 @@ function startSpread() {
   }
   var sent = S.resultSent, job = ++SP.job;
   SP.sent = sent; SP.key = spreadKey(sent); SP.req = JSON.parse(JSON.stringify(SPREAD_REQ));
-  SP.going = true; SP.error = null; SP.done = 0; SP.total = SPREAD_REQ.runs; SP.parts = null;
+  SP.going = true; SP.error = null; SP.done = 0; SP.total = SPREAD_REQ.runs;
   renderSpread();
   runSplit(sent, SPREAD_REQ.runs, function (st) {
     if (job !== SP.job) return;
@@ -113,10 +118,11 @@ function startSpread() {
     SP.going = false;
     if (r.error) {
       SP.error = r.error.stopped === 'cancelled' ? 'The runs were stopped; the spread shown, if any, is for earlier inputs or fewer runs.' : r.error.message;
+      SP.fieldError = !!(r.error.fields && r.error.fields.length);
       markSpreadFields(r.error.fields || []);
     } else {
       SP.shown = r.result.shown;
-      SP.parts = [JSON.stringify(r.result)];
+      SP.last = { sent: SP.sent, req: SP.req, parts: [JSON.stringify(r.result)] };
     }
     renderSpread();
   });
@@ -166,9 +172,9 @@ function renderSpread() {
 // presentSpread asks the core again for the last answer in the units now shown
 // (the join of the runs kept: nothing is run again).
 function presentSpread() {
-  if (!SP.parts || SP.going) return;
+  if (!SP.last || SP.going) return;
   var job = SP.job;
-  call('draws_join', spreadJoinInput(SP.sent, SP.req, SP.parts)).then(function (r) {
+  call('draws_join', spreadJoinInput(SP.last.sent, SP.last.req, SP.last.parts)).then(function (r) {
     if (job !== SP.job || r.error) return;
     SP.shown = r.result.shown;
     renderSpread();
@@ -193,7 +199,9 @@ $('spread-cancel').onclick = function () { if (SP.going) cancelRuns('The runs we
 document.addEventListener('swaysheet:result', function () { setTimeout(afterResult, 0); });
 function afterResult() {
   if (!S.resultSent) return;
-  if (SP.units !== unitsKey()) { spreadForm(); presentSpread(); }
+  // New units: the fields and the answer in them; the core's messages at
+  // the fields, in the old units, go with the fields.
+  if (SP.units !== unitsKey()) { spreadForm(); presentSpread(); if (SP.fieldError) SP.error = null; }
   if (SP.key !== spreadKey(S.resultSent)) {
     if (SP.going) cancelRuns('Replaced by newer inputs.');
     else SP.error = null;

@@ -60,7 +60,7 @@ func printClearance(w io.Writer, file, title string, r *clearance.Report) {
 		}
 		strikes := fmt.Sprint(o.Strikes)
 		if o.Strikes > 0 {
-			strikes += fmt.Sprintf(" (load %d, first by the %s at %.1f s)", o.LoadStrikes, o.FirstStrikeBy, o.FirstStrikeS)
+			strikes += fmt.Sprintf(" (load %d, first by %s at %.1f s)", o.LoadStrikes, clearance.StruckBy(o.FirstStrikeBy, o.FirstStrikeLine), o.FirstStrikeS)
 		}
 		fmt.Fprintf(tw, "  %s\t%d of %d\t%.0f %%\t%.2f m\t%.2f m\t%.1f s\t%.1f m\t%s\t%s\t%s\n", o.Name, o.KeepMargin, o.Runs,
 			100*o.ShareKeepMarginLow, o.ClearanceP5M, o.SmallestM, o.SmallestAtS, o.SmallestAtDistanceM, strikes, gap, rope)

@@ -52,9 +52,9 @@ const (
 func verdict(n int, target float64) string {
 	mb := float64(n) / 1e6
 	if mb <= target {
-		return fmt.Sprintf("target %g MB: met, %.3f MB to spare", target, target-mb)
+		return fmt.Sprintf("target %g MB: met, %.1f kB to spare", target, (target-mb)*1e3)
 	}
-	return fmt.Sprintf("target %g MB: MISSED by %.3f MB", target, mb-target)
+	return fmt.Sprintf("target %g MB: MISSED by %.1f kB", target, (mb-target)*1e3)
 }
 
 func main() {
