@@ -73,7 +73,7 @@ examples:
 # they run once a call, not in the simulation's loops, and Go's wasm code
 # pays for each inlined copy (about 85 kB gzipped; see web/dist/gcflags.go,
 # which holds the same list for the tests).
-NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures swaysheet/core/words swaysheet/core/units swaysheet/core/ropelength swaysheet/core/qr swaysheet/wasm/bridge swaysheet/core/crane swaysheet/core/motion swaysheet/core/version swaysheet/core/internal/sorts fmt encoding/json reflect strings strconv unicode/utf8 bytes
+NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures swaysheet/core/words swaysheet/core/units swaysheet/core/ropelength swaysheet/core/qr swaysheet/wasm/bridge swaysheet/core/crane swaysheet/core/motion swaysheet/core/version swaysheet/core/internal/sorts fmt encoding/json reflect strings strconv unicode/utf8 bytes internal/reflectlite internal/fmtsort compress/flate encoding/csv bufio syscall/js
 WASM_GCFLAGS := $(foreach p,$(NOINLINE),-gcflags=$(p)=-l)
 wasm:
 	@mkdir -p $(OUT)/web

@@ -129,6 +129,8 @@ type SitePlan struct {
 
 // SiteOption is one plan option's clearance check.
 type SiteOption struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	// Index in the plan's options; Key and Label as there.
 	Index     int     `json:"index"`
 	Key       string  `json:"key"`

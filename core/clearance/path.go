@@ -10,6 +10,8 @@ type Sample struct {
 
 // Closest is where a path comes closest to an obstacle.
 type Closest struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	// ClearanceM is the smallest signed clearance over the points checked
 	// (negative: the load overlaps the obstacle there).
 	ClearanceM float64

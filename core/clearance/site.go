@@ -27,6 +27,8 @@ type Site struct {
 
 // ObstacleReport is how a set of runs passes one obstacle.
 type ObstacleReport struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Name string `json:"name"`
 	Runs int    `json:"runs"`
 	// KeepMargin is how many runs keep at least the margin from it.
@@ -81,6 +83,8 @@ type ObstacleReport struct {
 // ObstacleReport. SmallestAt is the point of the line nearest the
 // obstacle (its height is SmallestAt.Z), on the line named Part.
 type RopeReport struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Runs                   int     `json:"runs"`
 	KeepMargin             int     `json:"keep_margin"`
 	ShareKeepMargin        float64 `json:"share_keep_margin"`

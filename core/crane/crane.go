@@ -14,6 +14,8 @@ import "swaysheet/core/units"
 // Kind is how an axis moves: in metres or in degrees. It names the
 // scenario fields of a move of the axis, each with its unit in the name.
 type Kind struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Name  string // "linear" or "angular"
 	Words string // "metres", "degrees": "the slew axis moves in degrees"
 	// Unit, SpeedUnit and AccelUnit are the units of the scenario's

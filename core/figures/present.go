@@ -11,6 +11,8 @@ import (
 
 // Row is one figure of a result as it is presented.
 type Row struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Key       string `json:"key"`
 	Crew      string `json:"crew"`
 	Technical string `json:"technical"`
@@ -34,6 +36,8 @@ type Row struct {
 
 // Check is one figure held against the lift plan's limit.
 type Check struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	LimitSI   float64 `json:"limit_si"`
 	LimitText string  `json:"limit_text"` // in the row's Unit, rounded
 	Within    bool    `json:"within"`     // ValueSI <= LimitSI, unrounded

@@ -30,6 +30,8 @@ type Spread struct {
 // presents a value (Text in Unit), a sentence for the crew, and how many
 // runs go beyond the lift plan's limit.
 type SpreadRow struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Key       string `json:"key"`
 	Crew      string `json:"crew"`
 	Technical string `json:"technical"`

@@ -72,6 +72,8 @@ type System interface {
 
 // Point is everything known about the load at one instant.
 type Point struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	T          float64 // time, s
 	Dir, Rate  r3.Vec  // rope direction n and dn/dt
 	Rope       float64 // rope length L, m

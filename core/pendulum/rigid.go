@@ -121,6 +121,8 @@ const (
 
 // BodyPoint is what a Rigid adds to a Point.
 type BodyPoint struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	R     m3         // body to ground rotation
 	Omega r3.Vec     // angular velocity, ground frame, rad/s
 	Legs  [4]float64 // leg tensions (parallel legs: each leg), N

@@ -26,9 +26,11 @@ func (rq *request) linearRatio(a float64) float64 {
 		lean = rq.lean(p.PeakSpeed())
 	}
 	worst := 0.0
+	pieces := linearPieces(p) // one list for every rope length
 	for _, l := range rq.ropes {
 		l += rq.rig // a hook block's rigging: one pendulum to the load, a first guess
-		th := linearPeak(p, rq.k, l) + lean
+		pk, _ := linearSwingOf(p, pieces, rq.k, math.Sqrt(units.StandardGravity/l))
+		th := pk + lean
 		if rq.lim.PeakSwingDeg > 0 {
 			worst = math.Max(worst, th/(rq.lim.PeakSwingDeg*units.Degree))
 		}

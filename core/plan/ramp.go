@@ -171,9 +171,14 @@ func slewResidualPoints(p motion.Profile, w float64) int64 {
 // (in the tower-slew example this saves two in five of the search's
 // slew residuals, the costliest part of that plan after its
 // simulations). Whether every length passes does not depend on the order.
+// Unless full, the residual at that first rope length is also tried
+// before the linear peak (linearRatio), which is then needed only when it
+// passes: a failure there reads the same whatever the peak (nothing
+// passes, and the length to try first stays the same), and most settings
+// tried fail there (in the tower-slew example 2 in 3; in the bay-travel
+// example, whose residual is a closed form, that saves most of the
+// search's work).
 func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool) []bool {
-	a := rq.vmax / tr
-	peakOK := rq.linearRatio(a) <= 1
 	out := make([]bool, len(grid))
 	share := 0.5 // each ramp alone within half the limit
 	if rq.leans() {
@@ -183,9 +188,16 @@ func (rq *request) rampOK(tr, r float64, grid []modeSet, ls []float64, full bool
 	if !full && rq.rampFailed < len(grid) {
 		first = rq.rampFailed
 	}
+	// With full the peak first (no residual is needed without it), else
+	// after the first residual, and only when that passes.
+	peakOK := full && rq.linearRatio(rq.vmax/tr) <= 1
 	for k := range grid {
 		i := (first + k) % len(grid)
-		out[i] = peakOK && rq.rampResidual(tr, r, grid[i]) <= share*rq.resLimitRad(ls[i])
+		out[i] = (peakOK || !full) && rq.rampResidual(tr, r, grid[i]) <= share*rq.resLimitRad(ls[i])
+		if k == 0 && out[i] && !full {
+			peakOK = rq.linearRatio(rq.vmax/tr) <= 1
+		}
+		out[i] = out[i] && peakOK
 		if !out[i] && !full {
 			if peakOK {
 				rq.rampFailed = i

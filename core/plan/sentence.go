@@ -24,6 +24,8 @@ type Sentence struct {
 // deg/s, deg/s² for angles, as scenarios carry them), shown with Digits
 // significant digits.
 type Quantity struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Value    float64 `json:"value"`
 	Quantity string  `json:"quantity"`
 	Digits   int     `json:"digits"`

@@ -56,24 +56,22 @@ type Spreader struct {
 }
 
 func init() {
-	for k, v := range map[string]Range{
-		"load.body.length_m":            {Min: 0.01, Max: 100, Unit: "m"},
-		"load.body.width_m":             {Min: 0.01, Max: 100, Unit: "m"},
-		"load.body.height_m":            {Min: 0.01, Max: 100, Unit: "m"},
-		"load.body.gyration_length_m":   {Min: 0.001, Max: 100, Unit: "m"},
-		"load.body.gyration_width_m":    {Min: 0.001, Max: 100, Unit: "m"},
-		"load.body.gyration_height_m":   {Min: 0.001, Max: 100, Unit: "m"},
-		"load.body.heading_deg":         {Min: -360, Max: 360, Unit: "deg"},
-		"load.body.hook_mass_kg":        {Min: 0, Max: 2e5, Unit: "kg"},
-		"load.body.legs[].length_m":     {Min: 0.1, Max: 100, Unit: "m"},
-		"load.body.legs[].attach_x_m":   {Min: -60, Max: 60, Unit: "m"},
-		"load.body.legs[].attach_y_m":   {Min: -60, Max: 60, Unit: "m"},
-		"load.body.legs[].attach_z_m":   {Min: -60, Max: 60, Unit: "m"},
-		"load.body.spreader.spacing_m":  {Min: 0.1, Max: 100, Unit: "m"},
-		"load.body.spreader.attach_z_m": {Min: -60, Max: 60, Unit: "m"},
-	} {
-		Ranges[k] = v
-	}
+	addRanges([]fieldRange{
+		{"load.body.length_m", Range{Min: 0.01, Max: 100, Unit: "m"}},
+		{"load.body.width_m", Range{Min: 0.01, Max: 100, Unit: "m"}},
+		{"load.body.height_m", Range{Min: 0.01, Max: 100, Unit: "m"}},
+		{"load.body.gyration_length_m", Range{Min: 0.001, Max: 100, Unit: "m"}},
+		{"load.body.gyration_width_m", Range{Min: 0.001, Max: 100, Unit: "m"}},
+		{"load.body.gyration_height_m", Range{Min: 0.001, Max: 100, Unit: "m"}},
+		{"load.body.heading_deg", Range{Min: -360, Max: 360, Unit: "deg"}},
+		{"load.body.hook_mass_kg", Range{Min: 0, Max: 2e5, Unit: "kg"}},
+		{"load.body.legs[].length_m", Range{Min: 0.1, Max: 100, Unit: "m"}},
+		{"load.body.legs[].attach_x_m", Range{Min: -60, Max: 60, Unit: "m"}},
+		{"load.body.legs[].attach_y_m", Range{Min: -60, Max: 60, Unit: "m"}},
+		{"load.body.legs[].attach_z_m", Range{Min: -60, Max: 60, Unit: "m"}},
+		{"load.body.spreader.spacing_m", Range{Min: 0.1, Max: 100, Unit: "m"}},
+		{"load.body.spreader.attach_z_m", Range{Min: -60, Max: 60, Unit: "m"}},
+	})
 }
 
 // MinHookShare is the smallest hook block mass accepted with two legs, as a

@@ -62,24 +62,22 @@ const (
 )
 
 func init() {
-	for k, r := range map[string]Range{
-		"plan.distance_m":             {Min: -2000, Max: 2000, Unit: "m", MinAbs: 0.01},
-		"plan.top_speed_m_per_s":      {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
-		"plan.max_accel_m_per_s2":     {Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"},
-		"plan.angle_deg":              {Min: -3600, Max: 3600, Unit: "deg", MinAbs: MinAngleDeg},
-		"plan.top_rate_deg_per_s":     {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
-		"plan.max_accel_deg_per_s2":   {Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"},
-		"plan.rope_length_min_m":      {Min: MinRopeM, Max: 500, Unit: "m"},
-		"plan.rope_length_max_m":      {Min: MinRopeM, Max: 500, Unit: "m"},
-		"plan.damping_ratio":          {Min: 0, Max: 0.3, Unit: ""},
-		"plan.ei_tolerance_pct":       {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
-		"plan.pendant_steps_pct[]":    {Min: 1, Max: 100, Unit: "%"},
-		"plan.s_curve_max_rounding_s": {Min: 0, Max: 30, Unit: "s", MinAbs: MinDurationS},
-		"plan.timing_sigma_s":         {Min: 0, Max: 2, Unit: "s"},
-		"plan.reaction_delay_s":       {Min: 0, Max: 3, Unit: "s"},
-	} {
-		Ranges[k] = r
-	}
+	addRanges([]fieldRange{
+		{"plan.distance_m", Range{Min: -2000, Max: 2000, Unit: "m", MinAbs: 0.01}},
+		{"plan.top_speed_m_per_s", Range{Min: MinSpeedMPerS, Max: 10, Unit: "m/s"}},
+		{"plan.max_accel_m_per_s2", Range{Min: MinAccelMPerS2, Max: 5, Unit: "m/s²"}},
+		{"plan.angle_deg", Range{Min: -3600, Max: 3600, Unit: "deg", MinAbs: MinAngleDeg}},
+		{"plan.top_rate_deg_per_s", Range{Min: MinRateDegPerS, Max: 36, Unit: "deg/s"}},
+		{"plan.max_accel_deg_per_s2", Range{Min: MinAccelDegPerS2, Max: 30, Unit: "deg/s²"}},
+		{"plan.rope_length_min_m", Range{Min: MinRopeM, Max: 500, Unit: "m"}},
+		{"plan.rope_length_max_m", Range{Min: MinRopeM, Max: 500, Unit: "m"}},
+		{"plan.damping_ratio", Range{Min: 0, Max: 0.3, Unit: ""}},
+		{"plan.ei_tolerance_pct", Range{Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent}},
+		{"plan.pendant_steps_pct[]", Range{Min: 1, Max: 100, Unit: "%"}},
+		{"plan.s_curve_max_rounding_s", Range{Min: 0, Max: 30, Unit: "s", MinAbs: MinDurationS}},
+		{"plan.timing_sigma_s", Range{Min: 0, Max: 2, Unit: "s"}},
+		{"plan.reaction_delay_s", Range{Min: 0, Max: 3, Unit: "s"}},
+	})
 }
 
 // planFields are the plan block's move fields by the kind of axis they

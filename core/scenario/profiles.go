@@ -76,26 +76,24 @@ var ShaperKinds = []string{"zv", "zvd", "ei"}
 const MaxSteps = 50
 
 func init() {
-	for k, r := range map[string]Range{
-		"motions[].jerk_m_per_s3":              {Min: MinAccelMPerS2, Max: 50, Unit: "m/s³"},
-		"motions[].jerk_deg_per_s3":            {Min: MinAccelDegPerS2, Max: 300, Unit: "deg/s³"},
-		"motions[].rounding_s":                 {Min: 0, Max: 60, Unit: "s", MinAbs: MinDurationS},
-		"motions[].brake_at_s":                 {Min: 0, Max: MaxRunS, Unit: "s"},
-		"motions[].steps[].at_s":               {Min: 0, Max: MaxRunS, Unit: "s"},
-		"motions[].steps[].speed_m_per_s":      {Min: -10, Max: 10, Unit: "m/s", MinAbs: MinSpeedMPerS},
-		"motions[].steps[].rate_deg_per_s":     {Min: -36, Max: 36, Unit: "deg/s", MinAbs: MinRateDegPerS},
-		"motions[].shaper.period_s":            {Min: 0.5, Max: 120, Unit: "s"},
-		"motions[].shaper.rope_length_m":       {Min: MinRopeM, Max: 500, Unit: "m"},
-		"motions[].shaper.damping_ratio":       {Min: 0, Max: 0.3, Unit: ""},
-		"motions[].shaper.tolerance_pct":       {Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent},
-		"motions[].shaper.second_period_s":     {Min: 0.1, Max: 120, Unit: "s"},
-		"motions[].hard_stop.speed_m_per_s":    {Min: MinSpeedMPerS, Max: 10, Unit: "m/s"},
-		"motions[].hard_stop.rate_deg_per_s":   {Min: MinRateDegPerS, Max: 36, Unit: "deg/s"},
-		"motions[].hard_stop.decel_m_per_s2":   {Min: MinAccelMPerS2, Max: 10, Unit: "m/s²"},
-		"motions[].hard_stop.decel_deg_per_s2": {Min: MinAccelDegPerS2, Max: 60, Unit: "deg/s²"},
-	} {
-		Ranges[k] = r
-	}
+	addRanges([]fieldRange{
+		{"motions[].jerk_m_per_s3", Range{Min: MinAccelMPerS2, Max: 50, Unit: "m/s³"}},
+		{"motions[].jerk_deg_per_s3", Range{Min: MinAccelDegPerS2, Max: 300, Unit: "deg/s³"}},
+		{"motions[].rounding_s", Range{Min: 0, Max: 60, Unit: "s", MinAbs: MinDurationS}},
+		{"motions[].brake_at_s", Range{Min: 0, Max: MaxRunS, Unit: "s"}},
+		{"motions[].steps[].at_s", Range{Min: 0, Max: MaxRunS, Unit: "s"}},
+		{"motions[].steps[].speed_m_per_s", Range{Min: -10, Max: 10, Unit: "m/s", MinAbs: MinSpeedMPerS}},
+		{"motions[].steps[].rate_deg_per_s", Range{Min: -36, Max: 36, Unit: "deg/s", MinAbs: MinRateDegPerS}},
+		{"motions[].shaper.period_s", Range{Min: 0.5, Max: 120, Unit: "s"}},
+		{"motions[].shaper.rope_length_m", Range{Min: MinRopeM, Max: 500, Unit: "m"}},
+		{"motions[].shaper.damping_ratio", Range{Min: 0, Max: 0.3, Unit: ""}},
+		{"motions[].shaper.tolerance_pct", Range{Min: 0, Max: 50, Unit: "%", MinAbs: MinPercent}},
+		{"motions[].shaper.second_period_s", Range{Min: 0.1, Max: 120, Unit: "s"}},
+		{"motions[].hard_stop.speed_m_per_s", Range{Min: MinSpeedMPerS, Max: 10, Unit: "m/s"}},
+		{"motions[].hard_stop.rate_deg_per_s", Range{Min: MinRateDegPerS, Max: 36, Unit: "deg/s"}},
+		{"motions[].hard_stop.decel_m_per_s2", Range{Min: MinAccelMPerS2, Max: 10, Unit: "m/s²"}},
+		{"motions[].hard_stop.decel_deg_per_s2", Range{Min: MinAccelDegPerS2, Max: 60, Unit: "deg/s²"}},
+	})
 }
 
 // metric reports whether the axis moves in metres (else degrees).

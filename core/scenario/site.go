@@ -84,31 +84,29 @@ type EmergencyStop struct {
 const DefaultSiteRuns = 200
 
 func init() {
-	for k, r := range map[string]Range{
-		"site.suspension_height_m":                    {Min: 0.5, Max: 300, Unit: "m"},
-		"site.margin_m":                               {Min: 0, Max: 20, Unit: "m"},
-		"site.load_radius_m":                          {Min: 0, Max: 50, Unit: "m"},
-		"site.obstacles[].top_m":                      {Min: 0.01, Max: 300, Unit: "m"},
-		"site.obstacles[].corners[].x_m":              {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].corners[].y_m":              {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.centre_x_m":             {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.centre_y_m":             {Min: -5000, Max: 5000, Unit: "m"},
-		"site.obstacles[].box.length_m":               {Min: 0.01, Max: 1000, Unit: "m"},
-		"site.obstacles[].box.width_m":                {Min: 0.01, Max: 1000, Unit: "m"},
-		"site.obstacles[].box.angle_deg":              {Min: -360, Max: 360, Unit: "deg"},
-		"site.spread.runs":                            {Min: 1, Max: MaxSiteRuns, Unit: "runs"},
-		"site.spread.seed":                            {Min: 0, Max: 1<<32 - 1, Unit: ""},
-		"site.spread.rope_length_m":                   {Min: 0, Max: 20, Unit: "m"},
-		"site.spread.centre_depth_m":                  {Min: 0, Max: 10, Unit: "m"},
-		"site.spread.press_s":                         {Min: 0, Max: 5, Unit: "s"},
-		"site.spread.gust_pct":                        {Min: 0, Max: 100, Unit: "%"},
-		"site.spread.gust_s":                          {Min: 0, Max: MaxRunS, Unit: "s"},
-		"site.spread.emergency_stop.reaction_s":       {Min: 0, Max: 10, Unit: "s"},
-		"site.spread.emergency_stop.decel_m_per_s2":   {Min: 0.01, Max: 20, Unit: "m/s²"},
-		"site.spread.emergency_stop.decel_deg_per_s2": {Min: 0.01, Max: 100, Unit: "deg/s²"},
-	} {
-		Ranges[k] = r
-	}
+	addRanges([]fieldRange{
+		{"site.suspension_height_m", Range{Min: 0.5, Max: 300, Unit: "m"}},
+		{"site.margin_m", Range{Min: 0, Max: 20, Unit: "m"}},
+		{"site.load_radius_m", Range{Min: 0, Max: 50, Unit: "m"}},
+		{"site.obstacles[].top_m", Range{Min: 0.01, Max: 300, Unit: "m"}},
+		{"site.obstacles[].corners[].x_m", Range{Min: -5000, Max: 5000, Unit: "m"}},
+		{"site.obstacles[].corners[].y_m", Range{Min: -5000, Max: 5000, Unit: "m"}},
+		{"site.obstacles[].box.centre_x_m", Range{Min: -5000, Max: 5000, Unit: "m"}},
+		{"site.obstacles[].box.centre_y_m", Range{Min: -5000, Max: 5000, Unit: "m"}},
+		{"site.obstacles[].box.length_m", Range{Min: 0.01, Max: 1000, Unit: "m"}},
+		{"site.obstacles[].box.width_m", Range{Min: 0.01, Max: 1000, Unit: "m"}},
+		{"site.obstacles[].box.angle_deg", Range{Min: -360, Max: 360, Unit: "deg"}},
+		{"site.spread.runs", Range{Min: 1, Max: MaxSiteRuns, Unit: "runs"}},
+		{"site.spread.seed", Range{Min: 0, Max: 1<<32 - 1, Unit: ""}},
+		{"site.spread.rope_length_m", Range{Min: 0, Max: 20, Unit: "m"}},
+		{"site.spread.centre_depth_m", Range{Min: 0, Max: 10, Unit: "m"}},
+		{"site.spread.press_s", Range{Min: 0, Max: 5, Unit: "s"}},
+		{"site.spread.gust_pct", Range{Min: 0, Max: 100, Unit: "%"}},
+		{"site.spread.gust_s", Range{Min: 0, Max: MaxRunS, Unit: "s"}},
+		{"site.spread.emergency_stop.reaction_s", Range{Min: 0, Max: 10, Unit: "s"}},
+		{"site.spread.emergency_stop.decel_m_per_s2", Range{Min: 0.01, Max: 20, Unit: "m/s²"}},
+		{"site.spread.emergency_stop.decel_deg_per_s2", Range{Min: 0.01, Max: 100, Unit: "deg/s²"}},
+	})
 }
 
 // Bounds of the site block.

@@ -37,15 +37,13 @@ type HookRope struct {
 }
 
 func init() {
-	for k, v := range map[string]Range{
-		"load.body.tandem.spacing_m":          {Min: 0.1, Max: 100, Unit: "m"},
-		"load.body.tandem.ropes[].length_m":   {Min: 0.1, Max: 500, Unit: "m"},
-		"load.body.tandem.ropes[].attach_x_m": {Min: -60, Max: 60, Unit: "m"},
-		"load.body.tandem.ropes[].attach_y_m": {Min: -60, Max: 60, Unit: "m"},
-		"load.body.tandem.ropes[].attach_z_m": {Min: -60, Max: 60, Unit: "m"},
-	} {
-		Ranges[k] = v
-	}
+	addRanges([]fieldRange{
+		{"load.body.tandem.spacing_m", Range{Min: 0.1, Max: 100, Unit: "m"}},
+		{"load.body.tandem.ropes[].length_m", Range{Min: 0.1, Max: 500, Unit: "m"}},
+		{"load.body.tandem.ropes[].attach_x_m", Range{Min: -60, Max: 60, Unit: "m"}},
+		{"load.body.tandem.ropes[].attach_y_m", Range{Min: -60, Max: 60, Unit: "m"}},
+		{"load.body.tandem.ropes[].attach_z_m", Range{Min: -60, Max: 60, Unit: "m"}},
+	})
 }
 
 func (t *Tandem) validate(c *checker, s *Scenario) {

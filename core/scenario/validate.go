@@ -70,6 +70,23 @@ var Ranges = map[string]Range{
 	"settings.samples":        {Min: 50, Max: 5000, Unit: "points"},
 }
 
+// fieldRange is one entry of Ranges, for the files that add the ranges of
+// their own block in an init (addRanges).
+type fieldRange struct {
+	field string
+	Range
+}
+
+// addRanges adds rs to Ranges. The files give their ranges as a list, not
+// as a map literal: a list of constants is data in the binary, while a map
+// literal of fewer than 26 entries compiles to code that stores one entry
+// after another (in the page's wasm about 400 bytes an entry).
+func addRanges(rs []fieldRange) {
+	for _, r := range rs {
+		Ranges[r.field] = r.Range
+	}
+}
+
 // Bounds that other packages check against.
 const (
 	// The smallest values a crane drive has, well below any real creep

@@ -84,6 +84,8 @@ type Result struct {
 
 // Check is one result held against one of the plan's limits.
 type Check struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	Name   string  `json:"name"` // the Result field checked
 	Label  string  `json:"label"`
 	Value  float64 `json:"value"`

@@ -56,35 +56,55 @@ type Quantity struct {
 }
 
 // Table lists every quantity the page shows, keyed by name.
-var Table = map[string]Quantity{
-	"length": {Name: "length", SIDefault: "m", USDefault: "ft", Units: []Unit{
-		{"m", "metre", 1, 0.01}, {"ft", "foot", Foot, 0.05}, {"in", "inch", Inch, 0.5}}},
-	"mass": {Name: "mass", SIDefault: "kg", USDefault: "lb", Units: []Unit{
-		{"kg", "kilogram", 1, 1}, {"t", "tonne", Tonne, 0.01}, {"lb", "pound", Pound, 1}, {"sh tn", "short ton", ShortTon, 0.01}}},
-	"speed": {Name: "speed", SIDefault: "m/min", USDefault: "ft/min", Units: []Unit{
+var Table = tableOf(quantities)
+
+// quantities are the entries of Table.
+var quantities = []keyedQuantity{
+	{"length", Quantity{Name: "length", SIDefault: "m", USDefault: "ft", Units: []Unit{
+		{"m", "metre", 1, 0.01}, {"ft", "foot", Foot, 0.05}, {"in", "inch", Inch, 0.5}}}},
+	{"mass", Quantity{Name: "mass", SIDefault: "kg", USDefault: "lb", Units: []Unit{
+		{"kg", "kilogram", 1, 1}, {"t", "tonne", Tonne, 0.01}, {"lb", "pound", Pound, 1}, {"sh tn", "short ton", ShortTon, 0.01}}}},
+	{"speed", Quantity{Name: "speed", SIDefault: "m/min", USDefault: "ft/min", Units: []Unit{
 		{"m/s", "metre per second", 1, 0.01}, {"m/min", "metre per minute", 1.0 / Minute, 0.1},
-		{"ft/s", "foot per second", Foot, 0.05}, {"ft/min", "foot per minute", Foot / Minute, 1}}},
-	"acceleration": {Name: "acceleration", SIDefault: "m/s²", USDefault: "ft/s²", Units: []Unit{
-		{"m/s²", "metre per second squared", 1, 0.01}, {"ft/s²", "foot per second squared", Foot, 0.05}}},
-	"angle": {Name: "angle", SIDefault: "deg", USDefault: "deg", Units: []Unit{
-		{"deg", "degree", 1, 0.1}}}, // scenarios and results carry angles in degrees
-	"angular_speed": {Name: "angular speed", SIDefault: "deg/s", USDefault: "rpm", Units: []Unit{
-		{"deg/s", "degree per second", 1, 0.01}, {"rpm", "revolution per minute", 360.0 / Minute, 0.01}}},
-	"angular_acceleration": {Name: "angular acceleration", SIDefault: "deg/s²", USDefault: "deg/s²", Units: []Unit{
-		{"deg/s²", "degree per second squared", 1, 0.01}}},
-	"force": {Name: "force", SIDefault: "kN", USDefault: "lbf", Units: []Unit{
+		{"ft/s", "foot per second", Foot, 0.05}, {"ft/min", "foot per minute", Foot / Minute, 1}}}},
+	{"acceleration", Quantity{Name: "acceleration", SIDefault: "m/s²", USDefault: "ft/s²", Units: []Unit{
+		{"m/s²", "metre per second squared", 1, 0.01}, {"ft/s²", "foot per second squared", Foot, 0.05}}}},
+	{"angle", Quantity{Name: "angle", SIDefault: "deg", USDefault: "deg", Units: []Unit{
+		{"deg", "degree", 1, 0.1}}}}, // scenarios and results carry angles in degrees
+	{"angular_speed", Quantity{Name: "angular speed", SIDefault: "deg/s", USDefault: "rpm", Units: []Unit{
+		{"deg/s", "degree per second", 1, 0.01}, {"rpm", "revolution per minute", 360.0 / Minute, 0.01}}}},
+	{"angular_acceleration", Quantity{Name: "angular acceleration", SIDefault: "deg/s²", USDefault: "deg/s²", Units: []Unit{
+		{"deg/s²", "degree per second squared", 1, 0.01}}}},
+	{"force", Quantity{Name: "force", SIDefault: "kN", USDefault: "lbf", Units: []Unit{
 		{"N", "newton", 1, 100}, {"kN", "kilonewton", 1000, 0.1}, {"lbf", "pound-force", PoundForce, 10},
-		{"kip", "kip", Kip, 0.01}, {"tf", "tonne-force", TonneForce, 0.01}}},
-	"time": {Name: "time", SIDefault: "s", USDefault: "s", Units: []Unit{{"s", "second", 1, 0.1}}},
-	"area": {Name: "area", SIDefault: "m²", USDefault: "ft²", Units: []Unit{
-		{"m²", "square metre", 1, 0.01}, {"ft²", "square foot", Foot * Foot, 0.1}}},
-	"density": {Name: "density", SIDefault: "kg/m³", USDefault: "kg/m³", Units: []Unit{
-		{"kg/m³", "kilogram per cubic metre", 1, 0.01}}},
-	"ratio": {Name: "ratio", SIDefault: "", USDefault: "", Units: []Unit{{"", "", 1, 0.01}}},
+		{"kip", "kip", Kip, 0.01}, {"tf", "tonne-force", TonneForce, 0.01}}}},
+	{"time", Quantity{Name: "time", SIDefault: "s", USDefault: "s", Units: []Unit{{"s", "second", 1, 0.1}}}},
+	{"area", Quantity{Name: "area", SIDefault: "m²", USDefault: "ft²", Units: []Unit{
+		{"m²", "square metre", 1, 0.01}, {"ft²", "square foot", Foot * Foot, 0.1}}}},
+	{"density", Quantity{Name: "density", SIDefault: "kg/m³", USDefault: "kg/m³", Units: []Unit{
+		{"kg/m³", "kilogram per cubic metre", 1, 0.01}}}},
+	{"ratio", Quantity{Name: "ratio", SIDefault: "", USDefault: "", Units: []Unit{{"", "", 1, 0.01}}}},
 	// A share of a whole: the core holds 0 to 1, people read per cent.
 	// (QuantityOf("") stays "ratio": names are tried in sorted order.)
-	"share": {Name: "share", SIDefault: "%", USDefault: "%", Units: []Unit{
-		{"", "fraction of one", 1, 0.01}, {"%", "per cent", 0.01, 1}}},
+	{"share", Quantity{Name: "share", SIDefault: "%", USDefault: "%", Units: []Unit{
+		{"", "fraction of one", 1, 0.01}, {"%", "per cent", 0.01, 1}}}},
+}
+
+// keyedQuantity is one entry of Table. Table is written as a list (data
+// in the binary) and made a map once at start: a map literal of fewer
+// than 26 entries compiles to code that stores one entry after another
+// (in the page's wasm about 700 bytes an entry).
+type keyedQuantity struct {
+	key string
+	q   Quantity
+}
+
+func tableOf(list []keyedQuantity) map[string]Quantity {
+	m := make(map[string]Quantity, len(list))
+	for _, e := range list {
+		m[e.key] = e.q
+	}
+	return m
 }
 
 // ToSI converts v in the unit with the given symbol of quantity q to SI.

@@ -27,6 +27,8 @@ import (
 
 // Quantity is one marked number of a sentence.
 type Quantity struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	// Value is in the SI unit of Quantity (angles in degrees).
 	Value float64 `json:"value"`
 	// Quantity is a core/units.Table name ("length", "speed", "time") or

@@ -31,6 +31,8 @@ type SheetInput struct {
 // <article> element (the user's text in it escaped), the scenario's
 // fingerprint and the text of the QR code.
 type SheetReply struct {
+	_ [0]func() // not comparable, so Go writes no equality function for it (page wasm size)
+
 	HTML        string `json:"html"`
 	Fingerprint string `json:"fingerprint"`
 	QRText      string `json:"qr_text"`

@@ -9,9 +9,13 @@ package dist
 // the bridge; and the standard library's fmt, encoding/json, reflect and
 // the text packages strings, strconv, unicode/utf8 and bytes (their work
 // is words and JSON once a call; the simulation's loops call none of
-// them). Without inlining there the wasm is about 90 kB smaller gzipped
-// (the text packages 6 kB of it) and 20 kB smaller raw, with the same
-// output (inlining changes no result). The crane's geometry and the motion profiles
+// them); errors.Is and sort.Slice's swapper (internal/reflectlite), the
+// sorting of maps fmt prints (internal/fmtsort), the QR code's DEFLATE
+// (compress/flate), reading a recorded run (encoding/csv, bufio) and the
+// calls between the page and the wasm (syscall/js), each once a call.
+// Without inlining there the wasm is about 95 kB smaller gzipped (the
+// text packages 6 kB of it, the last six 5.5 kB) and 20 kB smaller raw,
+// with the same output (inlining changes no result). The crane's geometry and the motion profiles
 // (crane, motion) are flattened into the fast paths' own span tables
 // before a run, so only the general path (rigid loads, wind) calls them
 // per step and pays a little (4 kB less). The physics (sway, ode,
@@ -38,6 +42,12 @@ var NoInline = []string{
 	"strconv",
 	"unicode/utf8",
 	"bytes",
+	"internal/reflectlite",
+	"internal/fmtsort",
+	"compress/flate",
+	"encoding/csv",
+	"bufio",
+	"syscall/js",
 }
 
 // WasmGcflags are the go build arguments of NoInline.

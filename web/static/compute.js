@@ -10,18 +10,18 @@ import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
-let queued = false, busy = false, again = false, progressTimer = null, cancelTimer = null;
+let queued = false, busy = false, sentCount = 0, progressTimer = null, cancelTimer = null;
 
 // computing is true while the core works on the inputs or more are due,
 // or while the figures of the last result are asked for.
-export function computing() { return busy || again || presenting(); }
+export function computing() { return busy || presenting(); }
 
 // changed: the inputs changed. The core is asked at once, when the task
 // that changed them ends (the changes made together, as a form redrawn,
 // go as one): no wait after a keystroke. A change while the core works
-// is sent once it has answered (evaluate's again), and a result
-// overtaken by a change is not presented (evaluate), so typing never
-// queues more than one computation. The inputs are kept (storage.js)
+// is sent at once too; a result overtaken by a change is not presented
+// (evaluate), and the worker skips an evaluation overtaken before it
+// began, so typing never queues more than one computation. The inputs are kept (storage.js)
 // once the core has read them.
 export function changed() {
   updateBanner();
@@ -61,40 +61,38 @@ export function evaluate() {
     return;
   }
   // While the core works: its answer is wanted only if the inputs are
-  // still those sent ("8" typed on to "8." leaves them so).
-  if (busy) {
-    var was = again;
-    again = JSON.stringify(S.scenario) !== S.lastSent;
-    if (again && !was) unwanted();
-    return;
-  }
-  busy = true;
-  var sent = JSON.stringify(S.scenario), angle = angleChart('', true);
+  // still those sent ("8" typed on to "8." leaves them so). Otherwise the
+  // change is sent at once, not when that answer is back: the worker
+  // leaves out what it has not begun of the answer no longer wanted
+  // (engine.js unwanted, worker.js), so a change waits at most for the
+  // rest of the evaluation under way, never for its trip back through a
+  // page busy with the typing.
+  var sent = JSON.stringify(S.scenario);
+  if (busy && sent === S.lastSent) return;
+  var my = ++sentCount, angle = angleChart('', true);
   S.lastSent = sent;
+  if (busy) unwanted();
+  busy = true;
   showProgress(true);
   // The worker draws the rope-angle chart with the result and sends it
   // first: it is shown unless the inputs changed meanwhile.
   call('evaluate', sent, { chart: angle.opt, onChart: function (c) {
-    if (!again && !S.waiting && S.lastSent === sent) showEarly(sent, angle, c);
-  }, stale: function () { return again; } }).then(function (r) {
+    if (my === sentCount && !S.waiting) showEarly(sent, angle, c);
+  }, stale: function () { return my !== sentCount; } }).then(function (r) {
+    // Overtaken by a change: the answer for it follows.
+    if (my !== sentCount) return;
     busy = false;
-    // Overtaken by a change before it arrived: the change is sent.
-    if (r.stale) { again = false; evaluate(); return; }
     S.lastDone = sent;
     showProgress(false);
     document.body.dataset.state = 'ready';
     // Stopped or cancelled: the inputs changed meanwhile are not computed
     // until the next change, so the page has answered for them (with the
     // message; the results shown are marked as for earlier inputs).
-    if (r.error && r.error.stopped && r.error.stopped !== 'failed') {
-      again = false;
-      S.lastDone = JSON.stringify(S.scenario);
-    }
+    if (r.error && r.error.stopped && r.error.stopped !== 'failed') S.lastDone = JSON.stringify(S.scenario);
     // Kept: inputs the core evaluated; those it could not (not for their
     // fields) once it has read them.
     if (!r.error) keepCurrent(sent, true);
     else if (!(r.error.fields && r.error.fields.length)) keepCurrent(S.lastDone, false);
-    if (again) { again = false; evaluate(); return; }
     if (r.error) {
       unshown();
       S.coreErrors = r.error.fields && r.error.fields.length ? r.error.fields : [{ field: '(inputs)', message: r.error.message }];

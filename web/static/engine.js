@@ -21,7 +21,8 @@ export function startWorker() {
     var w = waiting[m.id];
     // An evaluate call's chart comes before its result (worker.js).
     if (m.chart !== undefined) {
-      if (w) { w.bands = m.bands; if (m.chart && w.onChart) w.onChart(JSON.parse(m.chart)); }
+      // (One no longer wanted is not read.)
+      if (w) { w.bands = m.bands; if (m.chart && w.onChart && !(w.stale && w.stale())) w.onChart(JSON.parse(m.chart)); }
       return;
     }
     delete waiting[m.id];
@@ -135,12 +136,17 @@ function pumpSoon() {
   }, 0);
 }
 
-// unwanted tells the worker that the answers of the calls waiting whose
-// stale function says so are no longer wanted: it leaves out the chart
-// of an evaluate call it has not drawn yet.
+// unwanted tells the worker (once a call) that the answers of the calls
+// waiting whose stale function says so are no longer wanted: it leaves
+// out an evaluate call it has not begun, and the chart of one it has not
+// drawn yet.
 export function unwanted() {
   Object.keys(waiting).forEach(function (id) {
-    if (waiting[id].stale && waiting[id].stale()) worker.postMessage({ unwanted: Number(id) });
+    var w = waiting[id];
+    if (w.stale && !w.told && w.stale()) {
+      w.told = true;
+      worker.postMessage({ unwanted: Number(id) });
+    }
   });
 }
 

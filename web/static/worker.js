@@ -131,7 +131,10 @@ self.swaysheetFetch = function (kind, url, done) {
 // evaluated, so the page's own evaluate call finds them in the bridge's
 // memo; and the figures and plot calls run once, so that their code is
 // compiled before a person waits for it. Nothing here is shown.
-var FIXED = ['units', 'ranges', 'version', 'ropelength_ranges'], fixed = {}, warm = null, started = false, unwanted = {};
+var FIXED = ['units', 'ranges', 'version', 'ropelength_ranges'], fixed = {}, warm = null, started = false;
+// live: the evaluate calls with a chart not answered yet; unwanted: those
+// of them the page no longer wants.
+var live = {}, unwanted = {};
 
 function callOut(name, input) {
   return new Promise(function (resolve) { self.swaysheetCall(name, input, resolve); });
@@ -152,7 +155,7 @@ ready.then(warmUp, function () { /* reported to each call */ });
 onmessage = async function (e) {
   var m = e.data;
   if (m.unwanted) {
-    unwanted[m.unwanted] = true;
+    if (live[m.unwanted]) unwanted[m.unwanted] = true;
     return;
   }
   if (m.warm !== undefined) {
@@ -173,12 +176,43 @@ onmessage = async function (e) {
     postMessage({ id: m.id, out: errorReply('The calculation engine is not running. Reload the page.') });
     return;
   }
-  self.swaysheetCall(m.name, m.input || '', function (out) {
-    var answer = function () { postMessage({ id: m.id, out: out }); };
-    if (m.chart) drawFirst(m, out, answer);
-    else answer();
-  });
+  var run = function () {
+    if (unwanted[m.id]) {
+      done(m.id);
+      postMessage({ id: m.id, out: errorReply('Not computed: later inputs were sent.') });
+      return;
+    }
+    self.swaysheetCall(m.name, m.input || '', function (out) {
+      var answer = function () { done(m.id); postMessage({ id: m.id, out: out }); };
+      if (m.chart) drawFirst(m, out, answer);
+      else answer();
+    });
+  };
+  // An evaluate call with a chart (the page's inputs, typed on) begins a
+  // task later: a later change sent meanwhile has said by then that this
+  // one is no longer wanted ({unwanted: id}, posted before it), and it is
+  // left out.
+  if (m.chart) {
+    live[m.id] = true;
+    soon(run);
+  } else {
+    run();
+  }
 };
+
+function done(id) {
+  delete live[id];
+  delete unwanted[id];
+}
+
+// soon runs f in a task of its own after the messages already here (a
+// message to itself: no timer's minimum wait).
+var soonPort = new MessageChannel(), soonQueue = [];
+soonPort.port1.onmessage = function () { var f = soonQueue.shift(); if (f) f(); };
+function soon(f) {
+  soonQueue.push(f);
+  soonPort.port2.postMessage(0);
+}
 
 // drawFirst draws the chart an evaluate call came with (engine.js) from
 // its result and posts it, with the bands drawn, before the result: the
@@ -194,11 +228,10 @@ function drawFirst(m, out, then) {
     bands.push({ x0: p.start_s, x1: p.accel_end_s, text: 'A' + n });
     bands.push({ x0: p.decel_start_s, x1: p.end_s, text: 'B' + n });
   });
-  // A task later: the page may have said meanwhile that it no longer
+  // A task later (soon): the page may have said meanwhile that it no longer
   // wants the result ({unwanted: id}, engine.js); the chart is then not drawn.
-  setTimeout(function () {
+  soon(function () {
     var drop = unwanted[m.id];
-    unwanted = {};
     if (!c.width_px || drop) { postMessage({ id: m.id, chart: '', bands: bands }); then(); return; }
     c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
     c.bands = bands;
@@ -206,5 +239,5 @@ function drawFirst(m, out, then) {
       postMessage({ id: m.id, chart: svg, bands: bands });
       then();
     });
-  }, 0);
+  });
 }
