@@ -87,22 +87,7 @@ func TestPartsJoinRigidLoad(t *testing.T) {
 	// A rigid load's box: its outlines swept onto the lattice, its lowest
 	// corner in the section; parts joined as one call.
 	s := rigidBesideStack(t, scenario.SiteSpread{Runs: 6, Seed: 3, RopeLengthM: 0.2})
-	one, err := Check(s, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	var parts []Part
-	for _, rg := range [][2]int{{4, 6}, {0, 4}} {
-		p, err := CheckPart(s, rg[0], rg[1], Options{})
-		if err != nil {
-			t.Fatal(err)
-		}
-		parts = append(parts, *p)
-	}
-	joined, err := CheckJoin(s, parts, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	one, joined := singleAndJoined(t, s, [][2]int{{4, 6}, {0, 4}})
 	a, _ := json.Marshal(one)
 	b, _ := json.Marshal(joined)
 	if one.Outline != OutlineBox || string(a) != string(b) {
@@ -116,22 +101,7 @@ func TestPartsJoinRigidLoad(t *testing.T) {
 func TestPartsCarryTheFirstStrikingLine(t *testing.T) {
 	s := testscenario.Example(t, "site-tower-rope-mast")
 	s.Site.Spread.Runs = 4
-	one, err := Check(s, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	var parts []Part
-	for _, rg := range [][2]int{{1, 4}, {0, 1}} {
-		p, err := CheckPart(s, rg[0], rg[1], Options{})
-		if err != nil {
-			t.Fatal(err)
-		}
-		parts = append(parts, *p)
-	}
-	joined, err := CheckJoin(s, parts, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	one, joined := singleAndJoined(t, s, [][2]int{{1, 4}, {0, 1}})
 	a, _ := json.Marshal(one)
 	b, _ := json.Marshal(joined)
 	if o := joined.Obstacles[0]; o.FirstStrikeLine != "hoist rope" || string(a) != string(b) {
@@ -169,4 +139,27 @@ func rigidBesideStack(t *testing.T, sp scenario.SiteSpread) *scenario.Scenario {
 			Box: &scenario.SiteBox{CentreXM: 6, CentreYM: 3, LengthM: ptr(2), WidthM: ptr(1)}}},
 		Spread: &sp}
 	return s
+}
+
+// singleAndJoined checks s in one call and in parts of the given run
+// ranges (first, last+1) joined, for tests that hold the two equal.
+func singleAndJoined(t *testing.T, s *scenario.Scenario, ranges [][2]int) (one, joined *Report) {
+	t.Helper()
+	one, err := Check(s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var parts []Part
+	for _, rg := range ranges {
+		p, err := CheckPart(s, rg[0], rg[1], Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		parts = append(parts, *p)
+	}
+	joined, err = CheckJoin(s, parts, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return one, joined
 }
