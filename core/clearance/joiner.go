@@ -72,6 +72,15 @@ func (j *Joiner) Add(p Part) error {
 	return nil
 }
 
+// HeldRuns is how many runs the parts held have.
+func (j *Joiner) HeldRuns() int {
+	n := 0
+	for _, h := range j.held {
+		n += h.to - h.from
+	}
+	return n
+}
+
 // Holds reports whether runs from to to-1 are held, as one part.
 func (j *Joiner) Holds(from, to int) bool { return j.find(from, to) != nil }
 
@@ -107,7 +116,11 @@ func (j *Joiner) Report(ranges []Range) (*Report, error) {
 		order[i] = i
 	}
 	sort.SliceStable(order, func(a, b int) bool { return ranges[order[a]].From < ranges[order[b]].From })
-	var runs []RunPart
+	count := 0
+	for _, r := range ranges {
+		count += max(r.To-r.From, 0)
+	}
+	runs := make([]RunPart, 0, min(count, j.total))
 	next := -1
 	for _, i := range order {
 		r := ranges[i]

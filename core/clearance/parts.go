@@ -288,13 +288,16 @@ func (c *checker) joinRuns(seed int, runs []RunPart) (*Report, error) {
 		out         *EnvelopeOut
 	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
 		order, n := keep(strays, e.level, e.conf)
-		var spans []cellSpan
+		count := 0
 		for _, i := range order[:n] {
-			cs, err := decodeCells(runs[i].Cells)
-			if err != nil {
+			count += len(runs[i].Cells) / 3
+		}
+		spans := make([]cellSpan, 0, count)
+		for _, i := range order[:n] {
+			var err error
+			if spans, err = appendCells(spans, runs[i].Cells); err != nil {
 				return nil, err
 			}
-			spans = append(spans, cs...)
 		}
 		out, err := unionSpans(spans, c.opt.CellM)
 		if err != nil {
