@@ -2,7 +2,6 @@ package clearance
 
 import (
 	"fmt"
-	"sort"
 
 	"swaysheet/core/draws"
 	"swaysheet/core/scenario"
@@ -24,7 +23,7 @@ type Joiner struct {
 	total  int
 	seed   int
 	spread *draws.Spread
-	held   []heldPart // in run order, none overlapping
+	held   []heldPart // none overlapping
 }
 
 type heldPart struct {
@@ -68,7 +67,6 @@ func (j *Joiner) Add(p Part) error {
 		j.held[i] = heldPart{}
 	}
 	j.held = append(kept, heldPart{from: p.From, to: p.To, runs: runs})
-	sort.Slice(j.held, func(a, b int) bool { return j.held[a].from < j.held[b].from })
 	return nil
 }
 
@@ -112,10 +110,13 @@ func (e *NotHeldError) Error() string {
 // *NotHeldError.
 func (j *Joiner) Report(ranges []Range) (*Report, error) {
 	order := make([]int, len(ranges))
-	for i := range order {
-		order[i] = i
+	for i := range order { // a few parts: insertion sort by first run
+		k := i
+		for ; k > 0 && ranges[order[k-1]].From > ranges[i].From; k-- {
+			order[k] = order[k-1]
+		}
+		order[k] = i
 	}
-	sort.SliceStable(order, func(a, b int) bool { return ranges[order[a]].From < ranges[order[b]].From })
 	count := 0
 	for _, r := range ranges {
 		count += max(r.To-r.From, 0)

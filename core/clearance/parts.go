@@ -221,27 +221,6 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 	return &Part{From: from, To: to, Data: encodeRuns(runs)}, nil
 }
 
-// join makes the report of the runs the parts hold: every obstacle's
-// figures over them, the verdict, the envelopes and the vertical section.
-func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
-	var runs []RunPart
-	parts = append([]Part(nil), parts...)
-	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
-	next := -1
-	for _, p := range parts {
-		pr, err := c.decodePart(total, p)
-		if err != nil {
-			return nil, err
-		}
-		if p.From < next {
-			return nil, errPartRange(p.From, p.To, total)
-		}
-		next = p.To
-		runs = append(runs, pr...)
-	}
-	return c.joinRuns(seed, runs)
-}
-
 // decodePart reads a part's runs and checks that they are runs From to
 // To-1 of a check of total runs, each with the site's obstacles.
 func (c *checker) decodePart(total int, p Part) ([]RunPart, error) {
@@ -264,7 +243,8 @@ func errPartRange(from, to, total int) error {
 	return fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", from, to, total)
 }
 
-// joinRuns makes the report of runs, in run order (see join).
+// joinRuns makes the report of runs, in run order: every obstacle's
+// figures over them, the verdict, the envelopes and the vertical section.
 func (c *checker) joinRuns(seed int, runs []RunPart) (*Report, error) {
 	if len(runs) == 0 {
 		return nil, errors.New("clearance: no runs to join")
