@@ -43,6 +43,13 @@ import "math"
 // spaces the points at which the depth is taken through the obstacle.
 func (o *Obstacle) SegmentClearance(a, b Point3, stepM float64) (clearM float64, at Point3, strikes bool) {
 	lo, hi := outlineBox(o.Outline)
+	return o.segmentClearance(a, b, stepM, lo, hi)
+}
+
+// segmentClearance is SegmentClearance with the outline's box (lo, hi:
+// outlineBox) found once by the caller: a line is checked at many
+// moments against the same obstacle.
+func (o *Obstacle) segmentClearance(a, b Point3, stepM float64, lo, hi Point2) (clearM float64, at Point3, strikes bool) {
 	if o.mayStrike(a, b, lo, hi, 1e-9) && o.SegmentStrikes(a, b) {
 		d, at := o.segmentDepth(a, b, stepM)
 		return -d, at, true

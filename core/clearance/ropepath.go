@@ -16,6 +16,12 @@ type RopeLine struct {
 	move   []float64
 	gap    []float64 // each stretch's boxGap from the obstacle being checked
 	errM   float64
+	// The box holding each block of lineBlock stretches (blo, bhi), its
+	// boxGap from the obstacle being checked (bgap), and whether its
+	// stretches' gap is found for it (bseen[k] == gen); see firstStretch.
+	blo, bhi []Point3
+	bgap     []float64
+	bseen    []int
 	// The clearance at sample i from the obstacle being checked, val[i],
 	// is known when seen[i] == gen (gen counts the obstacles).
 	val  []float64
@@ -30,6 +36,7 @@ func (l *RopeLine) reuse(name string, timeS []float64) {
 	n := len(timeS)
 	l.Name, l.TimeS, l.A, l.B = name, timeS, grow(l.A, n), grow(l.B, n)
 	l.lo, l.hi, l.move, l.gap, l.errM = l.lo[:0], l.hi[:0], l.move[:0], l.gap[:0], 0
+	l.blo, l.bhi, l.bgap = l.blo[:0], l.bhi[:0], l.bgap[:0]
 }
 
 // prepare finds each stretch's box and movement, once.
@@ -43,16 +50,30 @@ func (l *RopeLine) prepare(stepM float64) {
 		l.val, l.seen = make([]float64, n+1), make([]int, n+1)
 	}
 	l.val, l.seen = l.val[:n+1], l.seen[:n+1]
-	for i := range n {
-		a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-		l.lo[i] = Point3{lower(lower(a0.X, b0.X), lower(a1.X, b1.X)), lower(lower(a0.Y, b0.Y), lower(a1.Y, b1.Y)), lower(lower(a0.Z, b0.Z), lower(a1.Z, b1.Z))}
-		l.hi[i] = Point3{upper(upper(a0.X, b0.X), upper(a1.X, b1.X)), upper(upper(a0.Y, b0.Y), upper(a1.Y, b1.Y)), upper(upper(a0.Z, b0.Z), upper(a1.Z, b1.Z))}
-		m := max(dist3(a0, a1), dist3(b0, b1))
-		l.move[i] = m
-		if m/2 > l.errM {
-			l.errM = max(l.errM, m/float64(moments(m, stepM))/2)
+	// A stretch's box is lower(lower(a0.X, b0.X), lower(a1.X, b1.X)) (and
+	// so on, upper for its top corner): the inner pair is the box of one
+	// sample, found once for the two stretches that share it.
+	var a0, b0, lo0, hi0 Point3
+	for k := range n + 1 {
+		a1, b1 := l.A[k], l.B[k]
+		lo1 := Point3{lower(a1.X, b1.X), lower(a1.Y, b1.Y), lower(a1.Z, b1.Z)}
+		hi1 := Point3{upper(a1.X, b1.X), upper(a1.Y, b1.Y), upper(a1.Z, b1.Z)}
+		if k > 0 {
+			i := k - 1
+			l.lo[i] = Point3{lower(lo0.X, lo1.X), lower(lo0.Y, lo1.Y), lower(lo0.Z, lo1.Z)}
+			l.hi[i] = Point3{upper(hi0.X, hi1.X), upper(hi0.Y, hi1.Y), upper(hi0.Z, hi1.Z)}
+			// upper is max here: a distance is never a negative zero (a
+			// square root of a sum of squares), and upper keeps a NaN as
+			// max does (in wasm max is a call).
+			m := upper(dist3(a0, a1), dist3(b0, b1))
+			l.move[i] = m
+			if m/2 > l.errM {
+				l.errM = max(l.errM, m/float64(moments(m, stepM))/2)
+			}
 		}
+		a0, b0, lo0, hi0 = a1, b1, lo1, hi1
 	}
+	l.prepareBlocks()
 }
 
 // AlongLines checks the lines of a run against the obstacle: each line's
@@ -99,25 +120,26 @@ func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Close
 		return
 	}
 	if n == 1 {
-		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM)
+		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM, lo, hi)
 		return
 	}
 	l.prepare(stepM)
 	l.gen++ // a new obstacle: no sample checked against it yet
-	w := lineWatch{o: o, l: l, c: c, stepM: stepM, every: every}
+	w := lineWatch{o: o, l: l, c: c, stepM: stepM, lo: lo, hi: hi, every: every}
 	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
-	first, least := 0, math.Inf(1)
-	for i := range n - 1 {
-		b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i])
-		l.gap[i] = b
-		if b < least {
-			first, least = i, b
-		}
-	}
+	first := l.firstStretch(lo, hi, o.TopM, every)
 	w.stretch(first)
-	for i := range n - 1 {
-		if i != first && (every || l.gap[i] <= atLeast0(c.ClearanceM)) {
-			w.stretch(i)
+	for k := range l.bgap {
+		if !every && l.bgap[k] > atLeast0(c.ClearanceM) {
+			// Every stretch of the block is at least as far (see
+			// firstStretch), so none is at most the clearance.
+			continue
+		}
+		s, e := l.blockGaps(k, lo, hi, o.TopM)
+		for i := s; i < e; i++ {
+			if i != first && (every || l.gap[i] <= atLeast0(c.ClearanceM)) {
+				w.stretch(i)
+			}
 		}
 	}
 }
@@ -128,6 +150,8 @@ type lineWatch struct {
 	l     *RopeLine
 	c     *Closest
 	stepM float64
+	lo    Point2 // the outline's box (outlineBox)
+	hi    Point2
 	every bool
 }
 
@@ -135,7 +159,7 @@ type lineWatch struct {
 func (w *lineWatch) sample(i int) float64 {
 	l := w.l
 	if l.seen[i] != l.gen {
-		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM), l.gen
+		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM, w.lo, w.hi), l.gen
 	}
 	return l.val[i]
 }
@@ -166,7 +190,7 @@ func (w *lineWatch) stretch(i int) {
 		}
 		j := (j0 + j1) / 2
 		f := float64(j) / float64(k)
-		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(a0, a1, f), lerp3(b0, b1, f), w.stepM)
+		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(a0, a1, f), lerp3(b0, b1, f), w.stepM, w.lo, w.hi)
 		half(j0, j, v0, v)
 		half(j, j1, v, v1)
 	}
@@ -174,9 +198,9 @@ func (w *lineWatch) stretch(i int) {
 }
 
 // offerLine checks the line from a to b at the moment t, and returns its
-// clearance.
-func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, stepM float64) float64 {
-	v, at, strikes := o.SegmentClearance(a, b, stepM)
+// clearance (lo, hi: the outline's box).
+func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, stepM float64, lo, hi Point2) float64 {
+	v, at, strikes := o.segmentClearance(a, b, stepM, lo, hi)
 	if v < c.ClearanceM || (v == c.ClearanceM && t < c.TimeS) {
 		c.ClearanceM, c.TimeS, c.At, c.Line = v, t, at, name
 	}

@@ -1,0 +1,92 @@
+package clearance
+
+import "math"
+
+// The stretches of a line are taken lineBlock at a time: a block's box
+// holds its stretches' boxes, so its boxGap from an obstacle is at most
+// each of theirs (boxGap only grows as the box shrinks: each difference,
+// square, sum and root is rounded monotonically). A block farther than
+// what is looked for needs none of its stretches' gaps. A NaN gap (a NaN
+// end) compares as nothing does, so such a block is always opened.
+// Against a few columns, most of a run's stretches are far from each:
+// finding every stretch's gap from every obstacle was, in wasm, a fifth
+// of the lines' check (node --cpu-prof of clearance_part).
+
+// lineBlock is the number of stretches in a block (the last may hold
+// fewer).
+const lineBlock = 16
+
+// prepareBlocks finds each block's box from its stretches' (prepare).
+func (l *RopeLine) prepareBlocks() {
+	n := len(l.lo)
+	nb := (n + lineBlock - 1) / lineBlock
+	l.blo, l.bhi, l.bgap = grow(l.blo, nb), grow(l.bhi, nb), grow(l.bgap, nb)
+	if cap(l.bseen) < nb {
+		l.bseen = make([]int, nb)
+	}
+	l.bseen = l.bseen[:nb]
+	for k := range nb {
+		s, e := k*lineBlock, min((k+1)*lineBlock, n)
+		lo, hi := l.lo[s], l.hi[s]
+		for _, p := range l.lo[s+1 : e] {
+			lo = Point3{lower(lo.X, p.X), lower(lo.Y, p.Y), lower(lo.Z, p.Z)}
+		}
+		for _, p := range l.hi[s+1 : e] {
+			hi = Point3{upper(hi.X, p.X), upper(hi.Y, p.Y), upper(hi.Z, p.Z)}
+		}
+		l.blo[k], l.bhi[k] = lo, hi
+	}
+}
+
+// firstStretch is the first stretch with the least boxGap from the
+// outline's box (lo, hi) up to topM, each block's gap found on the way
+// (bgap). The block with the least gap is opened first; the least of
+// its stretches' gaps, u, is at least the least of all, so a block whose
+// gap is above u holds no stretch with the least, and the others are
+// opened in order (a tie goes to the first). every opens them all (the
+// plain form, for the test).
+func (l *RopeLine) firstStretch(lo, hi Point2, topM float64, every bool) int {
+	kb, lb := -1, math.Inf(1)
+	for k := range l.bgap {
+		g := boxGap(lo, hi, topM, l.blo[k], l.bhi[k])
+		l.bgap[k] = g
+		if g < lb {
+			kb, lb = k, g
+		}
+	}
+	u := math.Inf(1)
+	if kb >= 0 {
+		s, e := l.blockGaps(kb, lo, hi, topM)
+		for _, g := range l.gap[s:e] {
+			if g < u { // a NaN gap is passed over here, and its block opened below
+				u = g
+			}
+		}
+	}
+	first, least := 0, math.Inf(1)
+	for k, g := range l.bgap {
+		if !every && g > u {
+			continue
+		}
+		s, e := l.blockGaps(k, lo, hi, topM)
+		for i := s; i < e; i++ {
+			if l.gap[i] < least {
+				first, least = i, l.gap[i]
+			}
+		}
+	}
+	return first
+}
+
+// blockGaps finds the boxGap of each stretch of block k (gap), once per
+// obstacle, and gives the block's stretches, s to e-1.
+func (l *RopeLine) blockGaps(k int, lo, hi Point2, topM float64) (s, e int) {
+	s, e = k*lineBlock, min((k+1)*lineBlock, len(l.lo))
+	if l.bseen[k] != l.gen {
+		l.bseen[k] = l.gen
+		for i := s; i < e; i++ {
+			l.gap[i] = boxGap(lo, hi, topM, l.lo[i], l.hi[i])
+		}
+	}
+	return s, e
+}
