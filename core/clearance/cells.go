@@ -21,7 +21,7 @@ func runCellsInto(r *PlanPath, cellM float64, sc *scratch) []int {
 	sc.cover = grow(sc.cover, nx*ny)
 	covered := sc.cover
 	clear(covered)
-	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
+	r.sweepLatticeInto(cellM, i0, j0, nx, ny, covered, sc)
 	var out []int
 	pj, pi := 0, 0
 	for s := range coveredSpans(covered, nx, ny) {

@@ -20,7 +20,9 @@ type scratch struct {
 	d, low []float64
 	bound  []float64
 	cover  []bool
-	hist   []float64 // the run's time histories (sway.Options.HistoryBuffer)
+	groups []pathGroup // the sweep's groups of the path's pieces
+	inner  []int       // the sweep's inner capsules' cells, row by row
+	hist   []float64   // the run's time histories (sway.Options.HistoryBuffer)
 }
 
 var scratches = sync.Pool{New: func() any { return new(scratch) }}
