@@ -54,8 +54,10 @@ func (o *Obstacle) segmentClearance(a, b Point3, stepM float64, lo, hi Point2) (
 		d, at := o.segmentDepth(a, b, stepM)
 		return -d, at, true
 	}
-	clearM, at = o.Clearance(a, 0), a
-	if v := o.Clearance(b, 0); v < clearM {
+	// Each end's point clearance (o.Clearance(a, 0), one call less).
+	clearM, _, _ = o.ballClearancePlan(a, 0)
+	at = a
+	if v, _, _ := o.ballClearancePlan(b, 0); v < clearM {
 		clearM, at = v, b
 	}
 	low := min(min(a.Z, b.Z), o.TopM)
@@ -70,7 +72,11 @@ func (o *Obstacle) segmentClearance(a, b Point3, stepM float64, lo, hi Point2) (
 		return dx*dx + dy*dy + dz*dz
 	}
 	for i := 0; i < n; i++ {
-		c, e := o.Outline[i], o.Outline[(i+1)%n]
+		j := i + 1 // (i+1)%n, without the division
+		if j == n {
+			j = 0
+		}
+		c, e := o.Outline[i], o.Outline[j]
 		top := Point3{c.X, c.Y, o.TopM}
 		if gap2(lower(c.X, e.X), upper(c.X, e.X), lower(c.Y, e.Y), upper(c.Y, e.Y), o.TopM) < best2 {
 			if d2, p := segmentDist2(a, b, top, Point3{e.X, e.Y, o.TopM}); d2 < best2 {

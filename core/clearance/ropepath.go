@@ -153,6 +153,10 @@ type lineWatch struct {
 	lo    Point2 // the outline's box (outlineBox)
 	hi    Point2
 	every bool
+	// the stretch being checked (stretch): from sample i, its ends'
+	// movement m, its grid of k moments
+	i, k int
+	m    float64
 }
 
 // sample is the clearance at sample i, checked once.
@@ -175,26 +179,28 @@ func (w *lineWatch) sample(i int) float64 {
 // zero, for every strike), so the moments left out cannot change the
 // answer: it is that of every moment of the grid.
 func (w *lineWatch) stretch(i int) {
-	l := w.l
-	a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-	m := l.move[i]
-	k := moments(m, w.stepM)
-	t0, t1 := l.TimeS[i], l.TimeS[i+1]
-	var half func(j0, j1 int, v0, v1 float64)
-	half = func(j0, j1 int, v0, v1 float64) {
-		if j1-j0 < 2 {
-			return
-		}
+	w.i, w.m = i, w.l.move[i]
+	w.k = moments(w.m, w.stepM)
+	w.half(0, w.k, w.sample(i), w.sample(i+1))
+}
+
+// half checks the moments strictly between j0 and j1 of the grid of the
+// stretch being checked (w.i, w.m, w.k), whose clearances are v0 and v1,
+// the first half before the second (see stretch). A method, not a
+// closure: in wasm a closure's call costs more.
+func (w *lineWatch) half(j0, j1 int, v0, v1 float64) {
+	l, i, m, k := w.l, w.i, w.m, w.k
+	for j1-j0 >= 2 {
 		if !w.every && (v0+v1-m*float64(j1-j0)/float64(k))/2 > atLeast0(w.c.ClearanceM) {
 			return
 		}
 		j := (j0 + j1) / 2
 		f := float64(j) / float64(k)
-		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(a0, a1, f), lerp3(b0, b1, f), w.stepM, w.lo, w.hi)
-		half(j0, j, v0, v)
-		half(j, j1, v, v1)
+		t0, t1 := l.TimeS[i], l.TimeS[i+1]
+		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(l.A[i], l.A[i+1], f), lerp3(l.B[i], l.B[i+1], f), w.stepM, w.lo, w.hi)
+		w.half(j0, j, v0, v)
+		j0, v0 = j, v // then the second half
 	}
-	half(0, k, w.sample(i), w.sample(i+1))
 }
 
 // offerLine checks the line from a to b at the moment t, and returns its
