@@ -16,26 +16,15 @@ import "math"
 // fewer).
 const lineBlock = 16
 
-// prepareBlocks finds each block's box from its stretches' (prepare).
-func (l *RopeLine) prepareBlocks() {
-	n := len(l.lo)
+// growBlocks makes room for the blocks of n stretches (prepare finds
+// their boxes).
+func (l *RopeLine) growBlocks(n int) {
 	nb := (n + lineBlock - 1) / lineBlock
 	l.blo, l.bhi, l.bgap = grow(l.blo, nb), grow(l.bhi, nb), grow(l.bgap, nb)
 	if cap(l.bseen) < nb {
 		l.bseen = make([]int, nb)
 	}
 	l.bseen = l.bseen[:nb]
-	for k := range nb {
-		s, e := k*lineBlock, min((k+1)*lineBlock, n)
-		lo, hi := l.lo[s], l.hi[s]
-		for _, p := range l.lo[s+1 : e] {
-			lo = Point3{lower(lo.X, p.X), lower(lo.Y, p.Y), lower(lo.Z, p.Z)}
-		}
-		for _, p := range l.hi[s+1 : e] {
-			hi = Point3{upper(hi.X, p.X), upper(hi.Y, p.Y), upper(hi.Z, p.Z)}
-		}
-		l.blo[k], l.bhi[k] = lo, hi
-	}
 }
 
 // firstStretch is the first stretch with the least boxGap from the

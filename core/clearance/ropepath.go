@@ -53,27 +53,41 @@ func (l *RopeLine) prepare(stepM float64) {
 	// A stretch's box is lower(lower(a0.X, b0.X), lower(a1.X, b1.X)) (and
 	// so on, upper for its top corner): the inner pair is the box of one
 	// sample, found once for the two stretches that share it.
-	var a0, b0, lo0, hi0 Point3
+	// The blocks' boxes (see firstStretch) on the way.
+	l.growBlocks(n)
+	var a0, b0, lo0, hi0, blo, bhi Point3
 	for k := range n + 1 {
 		a1, b1 := l.A[k], l.B[k]
 		lo1 := Point3{lower(a1.X, b1.X), lower(a1.Y, b1.Y), lower(a1.Z, b1.Z)}
 		hi1 := Point3{upper(a1.X, b1.X), upper(a1.Y, b1.Y), upper(a1.Z, b1.Z)}
 		if k > 0 {
 			i := k - 1
-			l.lo[i] = Point3{lower(lo0.X, lo1.X), lower(lo0.Y, lo1.Y), lower(lo0.Z, lo1.Z)}
-			l.hi[i] = Point3{upper(hi0.X, hi1.X), upper(hi0.Y, hi1.Y), upper(hi0.Z, hi1.Z)}
+			lo := Point3{lower(lo0.X, lo1.X), lower(lo0.Y, lo1.Y), lower(lo0.Z, lo1.Z)}
+			hi := Point3{upper(hi0.X, hi1.X), upper(hi0.Y, hi1.Y), upper(hi0.Z, hi1.Z)}
+			l.lo[i], l.hi[i] = lo, hi
+			if i%lineBlock == 0 {
+				blo, bhi = lo, hi
+			} else {
+				blo = Point3{lower(blo.X, lo.X), lower(blo.Y, lo.Y), lower(blo.Z, lo.Z)}
+				bhi = Point3{upper(bhi.X, hi.X), upper(bhi.Y, hi.Y), upper(bhi.Z, hi.Z)}
+			}
+			if i%lineBlock == lineBlock-1 || i == n-1 {
+				l.blo[i/lineBlock], l.bhi[i/lineBlock] = blo, bhi
+			}
 			// upper is max here: a distance is never a negative zero (a
 			// square root of a sum of squares), and upper keeps a NaN as
 			// max does (in wasm max is a call).
 			m := upper(dist3(a0, a1), dist3(b0, b1))
 			l.move[i] = m
 			if m/2 > l.errM {
-				l.errM = max(l.errM, m/float64(moments(m, stepM))/2)
+				// upper is max here: neither is NaN (m/2 is above
+				// errM) and errM is never a negative zero (it starts
+				// at +0; a distance over a count is at least +0).
+				l.errM = upper(l.errM, m/float64(moments(m, stepM))/2)
 			}
 		}
 		a0, b0, lo0, hi0 = a1, b1, lo1, hi1
 	}
-	l.prepareBlocks()
 }
 
 // AlongLines checks the lines of a run against the obstacle: each line's
@@ -96,6 +110,7 @@ func (l *RopeLine) prepare(stepM float64) {
 // strike is found), and then only at the moments that the clearance at
 // moments already checked and the ends' movement leave in question
 // (lineWatch.stretch). The stretch with the least bound is checked first.
+// The bounds are found a block of stretches at a time (ropeblocks.go).
 // The answer (smallest clearance, the first moment with it, the first
 // strike) is that of checking every stretch (TestAlongLinesSkipsNothing).
 // Closest.Line names the line nearest, FirstStrikeLine the line of the
