@@ -71,6 +71,12 @@ func (o *Obstacle) segmentClearance(a, b Point3, stepM float64, lo, hi Point2) (
 		dx, dy, dz := beyond(ex0-x1, x0-ex1), beyond(ey0-y1, y0-ey1), beyond(z0-ez1, 0)
 		return dx*dx + dy*dy + dz*dz
 	}
+	// The outline's box holds every edge's box, so its distance is at
+	// most theirs (each rounding is monotone): when it is not below the
+	// best so far, no edge is (a NaN distance passes on to the edges).
+	if g := gap2(lo.X, hi.X, lo.Y, hi.Y, o.TopM); g >= best2 {
+		n = 0
+	}
 	for i := 0; i < n; i++ {
 		j := i + 1 // (i+1)%n, without the division
 		if j == n {
