@@ -114,16 +114,24 @@ func pointSegmentDistance(p, a, b Point2) float64 { return math.Sqrt(pointSegmen
 // pointSegmentDist2 is the squared distance from p to the segment ab.
 func pointSegmentDist2(p, a, b Point2) float64 {
 	dx, dy := b.X-a.X, b.Y-a.Y
+	return offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, dx*dx+dy*dy)
+}
+
+// offsetDist2 is the squared distance from the point (u, v) to the
+// segment from the origin to (dx, dy), l2 = dx^2 + dy^2: the body of
+// pointSegmentDist2 (u, v: the point less the segment's start), small
+// enough for Go to inline where a call costs (wasm).
+func offsetDist2(u, v, dx, dy, l2 float64) float64 {
 	t := 0.0
-	if l2 := dx*dx + dy*dy; l2 > 0 {
-		t = ((p.X-a.X)*dx + (p.Y-a.Y)*dy) / l2
+	if l2 > 0 {
+		t = (u*dx + v*dy) / l2
 		if t < 0 {
 			t = 0
 		} else if t > 1 {
 			t = 1
 		}
 	}
-	ex, ey := p.X-a.X-t*dx, p.Y-a.Y-t*dy
+	ex, ey := u-t*dx, v-t*dy
 	return ex*ex + ey*ey
 }
 
@@ -152,11 +160,11 @@ func PlanDistance(p Point2, poly []Point2) float64 {
 // the least squared distance is the least distance (the root is monotone
 // and correctly rounded); a NaN distance is kept, as math.Min keeps it
 // (TestInsideEdgeMatches: the same as an edge by edge pass of each).
-// Each edge's squared distance is pointSegmentDist2's, written out here
-// with the same expressions in the same order: in wasm the call, which
-// Go does not inline, was half of insideEdge's time (node --cpu-prof of
-// clearance_part), and a point's clearance from an obstacle is one
-// insideEdge.
+// Each edge's squared distance is pointSegmentDist2's, through the
+// offsetDist2 that Go inlines: in wasm the call to pointSegmentDist2,
+// which Go does not inline, was half of insideEdge's time (node
+// --cpu-prof of clearance_part), and a point's clearance from an
+// obstacle is one insideEdge.
 func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	on := false
 	d2 := math.Inf(1)
@@ -166,19 +174,8 @@ func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	}
 	a := poly[n-1]
 	for _, b := range poly {
-		// pointSegmentDist2(p, a, b):
 		dx, dy := b.X-a.X, b.Y-a.Y
-		t := 0.0
-		if l2 := dx*dx + dy*dy; l2 > 0 {
-			t = ((p.X-a.X)*dx + (p.Y-a.Y)*dy) / l2
-			if t < 0 {
-				t = 0
-			} else if t > 1 {
-				t = 1
-			}
-		}
-		ex, ey := p.X-a.X-t*dx, p.Y-a.Y-t*dy
-		e := ex*ex + ey*ey
+		e := offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, dx*dx+dy*dy) // pointSegmentDist2(p, a, b)
 		if e < d2 || e != e {
 			d2 = e
 		}

@@ -97,13 +97,17 @@ func sweepGroupsInto(points []Point2, reach, cellM float64, i0, j0, nx, ny int, 
 				if row[i-i0] {
 					continue
 				}
-				c := Point2{(float64(i) + 0.5) * cellM, cy}
+				cx := (float64(i) + 0.5) * cellM
 				if g.first == g.last {
-					row[i-i0] = pointSegmentDist2(c, a, a) <= reach2
+					row[i-i0] = pointSegmentDist2(Point2{cx, cy}, a, a) <= reach2
 					continue
 				}
+				// pointSegmentDist2 of each piece till one is within
+				// reach, inlined.
 				for k := g.first; k < g.last; k++ {
-					if pointSegmentDist2(c, points[k], points[k+1]) <= reach2 {
+					p, q := points[k], points[k+1]
+					dx, dy := q.X-p.X, q.Y-p.Y
+					if offsetDist2(cx-p.X, cy-p.Y, dx, dy, dx*dx+dy*dy) <= reach2 {
 						row[i-i0] = true
 						break
 					}
@@ -154,27 +158,17 @@ func pathGroupsInto(points []Point2, devM float64, out []pathGroup) []pathGroup 
 }
 
 // chordDev is the largest distance of points s to e from the segment
-// between the two: pointSegmentDist2's expressions, in the same order,
-// with what depends on the segment alone worked out once (in wasm the
-// call a point was most of chordDev's time; chordDevEvery in the tests
-// is the plain form).
+// between the two: pointSegmentDist2 with what depends on the segment
+// alone worked out once and the rest inlined (in wasm the call a point
+// was most of chordDev's time; chordDevEvery in the tests is the plain
+// form).
 func chordDev(points []Point2, s, e int) float64 {
 	a, b := points[s], points[e]
 	dx, dy := b.X-a.X, b.Y-a.Y
 	l2 := dx*dx + dy*dy
 	d2 := 0.0
 	for _, p := range points[s+1 : e] {
-		t := 0.0
-		if l2 > 0 {
-			t = ((p.X-a.X)*dx + (p.Y-a.Y)*dy) / l2
-			if t < 0 {
-				t = 0
-			} else if t > 1 {
-				t = 1
-			}
-		}
-		ex, ey := p.X-a.X-t*dx, p.Y-a.Y-t*dy
-		d2 = upper(d2, ex*ex+ey*ey)
+		d2 = upper(d2, offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, l2))
 	}
 	return math.Sqrt(d2)
 }
