@@ -70,12 +70,21 @@ func (l *RopeLine) firstStretch(lo, hi Point2, topM float64, every bool) int {
 // blockGaps finds the boxGap of each stretch of block k (gap), once per
 // obstacle, and gives the block's stretches, s to e-1.
 func (l *RopeLine) blockGaps(k int, lo, hi Point2, topM float64) (s, e int) {
-	s, e = k*lineBlock, min((k+1)*lineBlock, len(l.lo))
+	s, e = k*lineBlock, min((k+1)*lineBlock, len(l.move))
 	if l.bseen[k] != l.gen {
 		l.bseen[k] = l.gen
 		for i := s; i < e; i++ {
-			l.gap[i] = boxGap(lo, hi, topM, l.lo[i], l.hi[i])
+			slo, shi := l.stretchBox(i)
+			l.gap[i] = boxGap(lo, hi, topM, slo, shi)
 		}
 	}
 	return s, e
+}
+
+// stretchBox is the box that holds the four ends of stretch i.
+func (l *RopeLine) stretchBox(i int) (lo, hi Point3) {
+	a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
+	lo = Point3{lower(lower(a0.X, b0.X), lower(a1.X, b1.X)), lower(lower(a0.Y, b0.Y), lower(a1.Y, b1.Y)), lower(lower(a0.Z, b0.Z), lower(a1.Z, b1.Z))}
+	hi = Point3{upper(upper(a0.X, b0.X), upper(a1.X, b1.X)), upper(upper(a0.Y, b0.Y), upper(a1.Y, b1.Y)), upper(upper(a0.Z, b0.Z), upper(a1.Z, b1.Z))}
+	return lo, hi
 }

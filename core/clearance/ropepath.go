@@ -10,12 +10,11 @@ type RopeLine struct {
 	TimeS []float64
 	A, B  []Point3
 	// What every obstacle needs of each stretch between samples, found
-	// once (prepare): the box holding its four ends, how far the ends
-	// move, and the largest half movement between moments (ErrorBoundM).
-	lo, hi []Point3
-	move   []float64
-	gap    []float64 // each stretch's boxGap from the obstacle being checked
-	errM   float64
+	// once (prepare): how far the ends move, and the largest half
+	// movement between moments (ErrorBoundM).
+	move []float64
+	gap  []float64 // each stretch's boxGap from the obstacle being checked (blockGaps)
+	errM float64
 	// The box holding each block of lineBlock stretches (blo, bhi), its
 	// boxGap from the obstacle being checked (bgap), and whether its
 	// stretches' gap is found for it (bseen[k] == gen); see firstStretch.
@@ -35,7 +34,7 @@ type RopeLine struct {
 func (l *RopeLine) reuse(name string, timeS []float64) {
 	n := len(timeS)
 	l.Name, l.TimeS, l.A, l.B = name, timeS, grow(l.A, n), grow(l.B, n)
-	l.lo, l.hi, l.move, l.gap, l.errM = l.lo[:0], l.hi[:0], l.move[:0], l.gap[:0], 0
+	l.move, l.gap, l.errM = l.move[:0], l.gap[:0], 0
 	l.blo, l.bhi, l.bgap = l.blo[:0], l.bhi[:0], l.bgap[:0]
 }
 
@@ -45,35 +44,37 @@ func (l *RopeLine) prepare(stepM float64) {
 	if n < 1 || len(l.move) == n {
 		return
 	}
-	l.lo, l.hi, l.move, l.gap = grow(l.lo, n), grow(l.hi, n), grow(l.move, n), grow(l.gap, n)
+	l.move, l.gap = grow(l.move, n), grow(l.gap, n)
 	if cap(l.seen) < n+1 {
 		l.val, l.seen = make([]float64, n+1), make([]int, n+1)
 	}
 	l.val, l.seen = l.val[:n+1], l.seen[:n+1]
-	// A stretch's box is lower(lower(a0.X, b0.X), lower(a1.X, b1.X)) (and
-	// so on, upper for its top corner): the inner pair is the box of one
-	// sample, found once for the two stretches that share it.
-	// The blocks' boxes (see firstStretch) on the way.
+	// Each block's box (see firstStretch) holds the boxes of its
+	// stretches' ends: its samples and the next block's first. A
+	// stretch's own box is found only where its block is opened
+	// (blockGaps).
 	l.growBlocks(n)
-	var a0, b0, lo0, hi0, blo, bhi Point3
+	var a0, b0, blo, bhi Point3
 	for k := range n + 1 {
 		a1, b1 := l.A[k], l.B[k]
 		lo1 := Point3{lower(a1.X, b1.X), lower(a1.Y, b1.Y), lower(a1.Z, b1.Z)}
 		hi1 := Point3{upper(a1.X, b1.X), upper(a1.Y, b1.Y), upper(a1.Z, b1.Z)}
+		if k%lineBlock == 0 && k < n {
+			if k > 0 { // the last sample of the block before
+				blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
+				bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
+				l.blo[k/lineBlock-1], l.bhi[k/lineBlock-1] = blo, bhi
+			}
+			blo, bhi = lo1, hi1
+		} else {
+			blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
+			bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
+		}
+		if k == n {
+			l.blo[(n-1)/lineBlock], l.bhi[(n-1)/lineBlock] = blo, bhi
+		}
 		if k > 0 {
 			i := k - 1
-			lo := Point3{lower(lo0.X, lo1.X), lower(lo0.Y, lo1.Y), lower(lo0.Z, lo1.Z)}
-			hi := Point3{upper(hi0.X, hi1.X), upper(hi0.Y, hi1.Y), upper(hi0.Z, hi1.Z)}
-			l.lo[i], l.hi[i] = lo, hi
-			if i%lineBlock == 0 {
-				blo, bhi = lo, hi
-			} else {
-				blo = Point3{lower(blo.X, lo.X), lower(blo.Y, lo.Y), lower(blo.Z, lo.Z)}
-				bhi = Point3{upper(bhi.X, hi.X), upper(bhi.Y, hi.Y), upper(bhi.Z, hi.Z)}
-			}
-			if i%lineBlock == lineBlock-1 || i == n-1 {
-				l.blo[i/lineBlock], l.bhi[i/lineBlock] = blo, bhi
-			}
 			// upper is max here: a distance is never a negative zero (a
 			// square root of a sum of squares), and upper keeps a NaN as
 			// max does (in wasm max is a call).
@@ -86,7 +87,7 @@ func (l *RopeLine) prepare(stepM float64) {
 				l.errM = upper(l.errM, m/float64(moments(m, stepM))/2)
 			}
 		}
-		a0, b0, lo0, hi0 = a1, b1, lo1, hi1
+		a0, b0 = a1, b1
 	}
 }
 
