@@ -80,8 +80,9 @@ func measurePathInto(path []Sample, stepM float64, sc *scratch) *pathLengths {
 		}
 	}
 	sc.coarse = pl.coarse
-	sc.vs, sc.ds = grow(sc.vs, len(pl.coarse)), grow(sc.ds, len(pl.coarse))
-	pl.vs, pl.ds = sc.vs, sc.ds
+	nc := len(pl.coarse)
+	sc.vsds = grow(sc.vsds, 2*nc)
+	pl.vs, pl.ds = sc.vsds[:nc], sc.vsds[nc:]
 	return pl
 }
 

@@ -16,15 +16,14 @@ import "math"
 // fewer).
 const lineBlock = 16
 
-// growBlocks makes room for the blocks of n stretches (prepare finds
-// their boxes).
-func (l *RopeLine) growBlocks(n int) {
-	nb := (n + lineBlock - 1) / lineBlock
-	l.blo, l.bhi, l.bgap = grow(l.blo, nb), grow(l.bhi, nb), grow(l.bgap, nb)
-	if cap(l.bseen) < nb {
-		l.bseen = make([]int, nb)
-	}
-	l.bseen = l.bseen[:nb]
+// stretchBlock is a block of stretches: the box that holds them
+// (prepare), its boxGap from the obstacle being checked, and whether its
+// stretches' gaps are found for that obstacle (seen == RopeLine.gen).
+type stretchBlock struct {
+	_      [0]func() // not comparable: no equality function (page wasm size)
+	lo, hi Point3
+	gap    float64
+	seen   int
 }
 
 // firstStretch is the first stretch with the least boxGap from the
@@ -36,9 +35,10 @@ func (l *RopeLine) growBlocks(n int) {
 // plain form, for the test).
 func (l *RopeLine) firstStretch(lo, hi Point2, topM float64, every bool) int {
 	kb, lb := -1, math.Inf(1)
-	for k := range l.bgap {
-		g := boxGap(lo, hi, topM, l.blo[k], l.bhi[k])
-		l.bgap[k] = g
+	for k := range l.blocks {
+		b := &l.blocks[k]
+		g := boxGap(lo, hi, topM, b.lo, b.hi)
+		b.gap = g
 		if g < lb {
 			kb, lb = k, g
 		}
@@ -53,8 +53,8 @@ func (l *RopeLine) firstStretch(lo, hi Point2, topM float64, every bool) int {
 		}
 	}
 	first, least := 0, math.Inf(1)
-	for k, g := range l.bgap {
-		if !every && g > u {
+	for k := range l.blocks {
+		if !every && l.blocks[k].gap > u {
 			continue
 		}
 		s, e := l.blockGaps(k, lo, hi, topM)
@@ -71,8 +71,8 @@ func (l *RopeLine) firstStretch(lo, hi Point2, topM float64, every bool) int {
 // obstacle, and gives the block's stretches, s to e-1.
 func (l *RopeLine) blockGaps(k int, lo, hi Point2, topM float64) (s, e int) {
 	s, e = k*lineBlock, min((k+1)*lineBlock, len(l.move))
-	if l.bseen[k] != l.gen {
-		l.bseen[k] = l.gen
+	if l.blocks[k].seen != l.gen {
+		l.blocks[k].seen = l.gen
 		for i := s; i < e; i++ {
 			slo, shi := l.stretchBox(i)
 			l.gap[i] = boxGap(lo, hi, topM, slo, shi)
@@ -82,9 +82,14 @@ func (l *RopeLine) blockGaps(k int, lo, hi Point2, topM float64) (s, e int) {
 }
 
 // stretchBox is the box that holds the four ends of stretch i.
+// lower and upper give the least and greatest of the four, NaN when
+// one is; the order leaves only a zero's sign to choose, which boxGap
+// does not see (a difference of zeros is no gap).
 func (l *RopeLine) stretchBox(i int) (lo, hi Point3) {
-	a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-	lo = Point3{lower(lower(a0.X, b0.X), lower(a1.X, b1.X)), lower(lower(a0.Y, b0.Y), lower(a1.Y, b1.Y)), lower(lower(a0.Z, b0.Z), lower(a1.Z, b1.Z))}
-	hi = Point3{upper(upper(a0.X, b0.X), upper(a1.X, b1.X)), upper(upper(a0.Y, b0.Y), upper(a1.Y, b1.Y)), upper(upper(a0.Z, b0.Z), upper(a1.Z, b1.Z))}
+	lo, hi = l.A[i], l.A[i]
+	for _, p := range [3]Point3{l.B[i], l.A[i+1], l.B[i+1]} {
+		lo = Point3{lower(lo.X, p.X), lower(lo.Y, p.Y), lower(lo.Z, p.Z)}
+		hi = Point3{upper(hi.X, p.X), upper(hi.Y, p.Y), upper(hi.Z, p.Z)}
+	}
 	return lo, hi
 }

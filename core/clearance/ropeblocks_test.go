@@ -32,8 +32,9 @@ func wanderingLine(rng *rand.Rand, n int, x, y float64, nan bool) RopeLine {
 }
 
 // TestLinePrepareIsThePlainBoxes: each stretch's box is the box of its
-// four ends, bit for bit, its movement the larger of its ends' (max, not
-// upper), and each block's box holds its stretches' boxes.
+// four ends (the same numbers, a zero's sign aside), its movement the
+// larger of its ends' bit for bit (max, not upper), and each block's box
+// holds its stretches' boxes.
 func TestLinePrepareIsThePlainBoxes(t *testing.T) {
 	rng := rand.New(rand.NewPCG(17, 4))
 	same := func(a, b float64) bool { return a == b || (math.IsNaN(a) && math.IsNaN(b)) }
@@ -49,9 +50,10 @@ func TestLinePrepareIsThePlainBoxes(t *testing.T) {
 				t.Fatalf("trial %d stretch %d: box %v %v move %g, want %v %v %g", trial, i, slo, shi, l.move[i], lo, hi, max(dist3(a0, a1), dist3(b0, b1)))
 			}
 			k := i / lineBlock
-			if !(l.blo[k].X <= lo.X && l.blo[k].Y <= lo.Y && l.blo[k].Z <= lo.Z && l.bhi[k].X >= hi.X && l.bhi[k].Y >= hi.Y && l.bhi[k].Z >= hi.Z) &&
-				!math.IsNaN(l.blo[k].Y+l.bhi[k].Y) {
-				t.Fatalf("trial %d: block %d's box %v %v does not hold stretch %d's %v %v", trial, k, l.blo[k], l.bhi[k], i, lo, hi)
+			b := l.blocks[k]
+			if !(b.lo.X <= lo.X && b.lo.Y <= lo.Y && b.lo.Z <= lo.Z && b.hi.X >= hi.X && b.hi.Y >= hi.Y && b.hi.Z >= hi.Z) &&
+				!math.IsNaN(b.lo.Y+b.hi.Y) {
+				t.Fatalf("trial %d: block %d's box %v %v does not hold stretch %d's %v %v", trial, k, b.lo, b.hi, i, lo, hi)
 			}
 		}
 	}

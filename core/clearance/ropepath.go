@@ -15,12 +15,8 @@ type RopeLine struct {
 	move []float64
 	gap  []float64 // each stretch's boxGap from the obstacle being checked (blockGaps)
 	errM float64
-	// The box holding each block of lineBlock stretches (blo, bhi), its
-	// boxGap from the obstacle being checked (bgap), and whether its
-	// stretches' gap is found for it (bseen[k] == gen); see firstStretch.
-	blo, bhi []Point3
-	bgap     []float64
-	bseen    []int
+	// Each block of lineBlock stretches (see firstStretch).
+	blocks []stretchBlock
 	// The clearance at sample i from the obstacle being checked, val[i],
 	// is known when seen[i] == gen (gen counts the obstacles).
 	val  []float64
@@ -31,11 +27,15 @@ type RopeLine struct {
 // reuse makes l the line name over the samples at timeS in its own
 // memory: its ends (to be filled in) and what it prepares. gen goes on
 // counting, so no sample is taken as checked against the obstacle.
+// Not inlined: Go inlines it into linesInto's every line otherwise, a
+// kilobyte and a half of the page's wasm for no time to speak of.
+//
+//go:noinline
 func (l *RopeLine) reuse(name string, timeS []float64) {
 	n := len(timeS)
 	l.Name, l.TimeS, l.A, l.B = name, timeS, grow(l.A, n), grow(l.B, n)
 	l.move, l.gap, l.errM = l.move[:0], l.gap[:0], 0
-	l.blo, l.bhi, l.bgap = l.blo[:0], l.bhi[:0], l.bgap[:0]
+	l.blocks = l.blocks[:0]
 }
 
 // prepare finds each stretch's box and movement, once.
@@ -53,7 +53,7 @@ func (l *RopeLine) prepare(stepM float64) {
 	// stretches' ends: its samples and the next block's first. A
 	// stretch's own box is found only where its block is opened
 	// (blockGaps).
-	l.growBlocks(n)
+	l.blocks = grow(l.blocks, (n+lineBlock-1)/lineBlock)
 	var a0, b0, blo, bhi Point3
 	for k := range n + 1 {
 		a1, b1 := l.A[k], l.B[k]
@@ -63,7 +63,7 @@ func (l *RopeLine) prepare(stepM float64) {
 			if k > 0 { // the last sample of the block before
 				blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
 				bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
-				l.blo[k/lineBlock-1], l.bhi[k/lineBlock-1] = blo, bhi
+				l.blocks[k/lineBlock-1].lo, l.blocks[k/lineBlock-1].hi = blo, bhi
 			}
 			blo, bhi = lo1, hi1
 		} else {
@@ -71,7 +71,7 @@ func (l *RopeLine) prepare(stepM float64) {
 			bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
 		}
 		if k == n {
-			l.blo[(n-1)/lineBlock], l.bhi[(n-1)/lineBlock] = blo, bhi
+			l.blocks[(n-1)/lineBlock].lo, l.blocks[(n-1)/lineBlock].hi = blo, bhi
 		}
 		if k > 0 {
 			i := k - 1
@@ -145,8 +145,8 @@ func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Close
 	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
 	first := l.firstStretch(lo, hi, o.TopM, every)
 	w.stretch(first)
-	for k := range l.bgap {
-		if !every && l.bgap[k] > atLeast0(c.ClearanceM) {
+	for k := range l.blocks {
+		if !every && l.blocks[k].gap > atLeast0(c.ClearanceM) {
 			// Every stretch of the block is at least as far (see
 			// firstStretch), so none is at most the clearance.
 			continue

@@ -15,7 +15,7 @@ type scratch struct {
 	cum    []float64
 	plan   []float64
 	coarse []int
-	vs, ds []float64 // an obstacle's figures at the coarse samples
+	vsds   []float64 // an obstacle's figures at the coarse samples (pathLengths.vs, ds)
 	points []Point2
 	d, low []float64
 	bound  []float64

@@ -124,6 +124,7 @@ const groupPieces = 32
 // point is the next one's first) and how far they stray from the chord
 // between its ends.
 type pathGroup struct {
+	_           [0]func() // not comparable: no equality function (page wasm size)
 	first, last int
 	dev         float64
 	at          int // where its inner capsule's rows start in scratch.inner
@@ -138,7 +139,7 @@ func pathGroups(points []Point2, devM float64) []pathGroup {
 // pathGroupsInto is pathGroups appending to out.
 func pathGroupsInto(points []Point2, devM float64, out []pathGroup) []pathGroup {
 	if len(points) == 1 {
-		return append(out, pathGroup{0, 0, 0, 0})
+		return append(out, pathGroup{})
 	}
 	for s := 0; s+1 < len(points); {
 		// Groups of 2, 3, 5, 9, 17 or 33 points: the longest that keeps
