@@ -113,14 +113,10 @@ func (k *track) runSectionInto(run *Run, h, r float64, sc *scratch) (d, low []fl
 func sectionFrom(site *Site, nominal *Run, trk *track, bins map[int]runBins, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	sec := Section{PathLengthM: trk.length(), SuspensionHeightM: h, Obstacles: []SectionObstacle{}}
-	dist := func(run *Run) []float64 {
-		out := make([]float64, len(run.TimeS))
-		for i := range run.TimeS {
-			out[i] = trk.distance(run.centre(i, h).Plan())
-		}
-		return out
+	nd, s := make([]float64, len(nominal.TimeS)), -1
+	for i := range nominal.TimeS {
+		nd[i], s = trk.along(nominal.centre(i, h).Plan(), s)
 	}
-	nd := dist(nominal)
 	for i, t := range nominal.TimeS {
 		sec.Nominal = append(sec.Nominal, SectionPoint{TimeS: t, DistanceM: nd[i],
 			LowM: nominal.LowM(i, h, r), HookM: nominal.HookM(i, h)})
