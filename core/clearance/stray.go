@@ -8,10 +8,11 @@ import "math"
 // segment: that of the segment reached by walking along the polyline
 // from the previous point's, while a neighbouring segment is nearer (or
 // as near, going on: a load at rest gives segments of no length), bounds
-// it. The point of largest bound has its distance found exactly
-// (nearest.closestFrom, from the segment its walk ended at), then, in run order, each point whose bound is above
-// the largest distance found so far: a point passed over lies no farther
-// than its bound, so no farther than a point found. The answer is
+// it (walk). The point of largest bound has its distance found exactly
+// (closestFrom, begun at the segment its walk ended at), then, in run
+// order, each point whose bound is above the largest distance found so
+// far: a point passed over lies no farther than its bound, so no
+// farther than a point found. The answer is
 // strayEvery's (TestStrayMatchesEvery). No sort: ordering every point by
 // bound cost more than the few distances it saved.
 func (n *nearest) stray(run []Point2) float64 { return n.strayInto(run, new(scratch)) }
@@ -32,7 +33,6 @@ func (n *nearest) strayInto(run []Point2, sc *scratch) float64 {
 			top = i
 		}
 	}
-	// Each exact distance is searched from the segment its walk ended at.
 	worst := 0.0
 	if bound[top] > 0 {
 		worst, _ = n.closestFrom(run[top], int(seg[top]))
