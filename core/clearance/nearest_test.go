@@ -100,7 +100,8 @@ func hardPolylines(rng *rand.Rand) map[string][]Point2 {
 
 // hardPoints are points to look from: on every vertex, at the middle of
 // every segment, on the lattice near the polyline (equal distances to
-// several segments), near it at random, and far outside the grid.
+// several segments), near it at random, far outside the grid, so far
+// the squares overflow, and not finite.
 func hardPoints(poly []Point2, rng *rand.Rand) []Point2 {
 	var pts []Point2
 	for i, q := range poly {
@@ -116,7 +117,8 @@ func hardPoints(poly []Point2, rng *rand.Rand) []Point2 {
 			Point2{q.X + rng.NormFloat64()*0.5, q.Y + rng.NormFloat64()*0.5},
 			Point2{q.X + rng.NormFloat64()*1e3, q.Y + rng.NormFloat64()*1e3})
 	}
-	return append(pts, Point2{1e9, -1e9}, Point2{-1e12, 3})
+	return append(pts, Point2{1e9, -1e9}, Point2{-1e12, 3}, Point2{1e200, -1e200}, Point2{math.NaN(), 0},
+		Point2{math.Inf(1), 2}, Point2{0, math.Inf(-1)})
 }
 
 func TestSegDist2IsThePlainForm(t *testing.T) {

@@ -186,6 +186,12 @@ func (n *nearest) closestFrom(p Point2, s int) (float64, int) {
 			}
 		}
 	}
+	if !(best < math.Inf(1)) {
+		// No segment at a finite distance (p not finite, or so far off
+		// the squares overflow; then r was infinite and every bucket was
+		// searched): as trying every segment gives.
+		return math.Inf(1), 0
+	}
 	return best, seg
 }
 
