@@ -18,6 +18,7 @@ type scratch struct {
 	points []Point2
 	d, low []float64
 	bound  []float64
+	seg    []int32
 	cover  []bool
 	hist   []float64 // the run's time histories (sway.Options.HistoryBuffer)
 }
