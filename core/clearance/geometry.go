@@ -113,26 +113,28 @@ func pointSegmentDistance(p, a, b Point2) float64 { return math.Sqrt(pointSegmen
 
 // pointSegmentDist2 is the squared distance from p to the segment ab.
 func pointSegmentDist2(p, a, b Point2) float64 {
-	dx, dy := b.X-a.X, b.Y-a.Y
-	return offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, dx*dx+dy*dy)
+	return segDist2(p.X-a.X, p.Y-a.Y, b.X-a.X, b.Y-a.Y)
 }
 
-// offsetDist2 is the squared distance from the point (u, v) to the
-// segment from the origin to (dx, dy), l2 = dx^2 + dy^2: the body of
-// pointSegmentDist2 (u, v: the point less the segment's start), small
-// enough for Go to inline where a call costs (wasm).
-func offsetDist2(u, v, dx, dy, l2 float64) float64 {
-	t := 0.0
-	if l2 > 0 {
-		t = (u*dx + v*dy) / l2
+// segDist2 is the squared distance from a point to a segment, the point
+// (px, py) and the segment's far end (dx, dy) taken from its near end:
+// with t = (p.d)/|d|^2 held to [0, 1], |p - t d|^2 (Ericson 2005,
+// sec. 5.1.2); p itself when |d|^2 is zero, where t would be 0. Small
+// enough for Go to inline in the nearest-segment searches, where a call
+// per segment cost more than the arithmetic (in wasm most); comparisons,
+// not the builtin min and max, which are runtime calls in wasm.
+// TestSegDist2IsThePlainForm holds it to the form with t held first.
+func segDist2(px, py, dx, dy float64) float64 {
+	if l2 := dx*dx + dy*dy; !(l2 <= 0) {
+		t := (px*dx + py*dy) / l2
 		if t < 0 {
 			t = 0
 		} else if t > 1 {
 			t = 1
 		}
+		px, py = px-t*dx, py-t*dy
 	}
-	ex, ey := u-t*dx, v-t*dy
-	return ex*ex + ey*ey
+	return px*px + py*py
 }
 
 // EdgeDistance is the distance from p to the polygon's boundary (see
@@ -161,7 +163,7 @@ func PlanDistance(p Point2, poly []Point2) float64 {
 // and correctly rounded); a NaN distance is kept, as math.Min keeps it
 // (TestInsideEdgeMatches: the same as an edge by edge pass of each).
 // Each edge's squared distance is pointSegmentDist2's, through the
-// offsetDist2 that Go inlines: in wasm the call to pointSegmentDist2,
+// segDist2 that Go inlines: in wasm the call to pointSegmentDist2,
 // which Go does not inline, was half of insideEdge's time (node
 // --cpu-prof of clearance_part), and a point's clearance from an
 // obstacle is one insideEdge.
@@ -174,8 +176,7 @@ func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	}
 	a := poly[n-1]
 	for _, b := range poly {
-		dx, dy := b.X-a.X, b.Y-a.Y
-		e := offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, dx*dx+dy*dy) // pointSegmentDist2(p, a, b)
+		e := segDist2(p.X-a.X, p.Y-a.Y, b.X-a.X, b.Y-a.Y) // pointSegmentDist2(p, a, b)
 		if e < d2 || e != e {
 			d2 = e
 		}

@@ -19,6 +19,7 @@ type scratch struct {
 	points []Point2
 	d, low []float64
 	bound  []float64
+	seg    []int32
 	cover  []bool
 	groups []pathGroup // the sweep's groups of the path's pieces
 	inner  []int       // the sweep's inner capsules' cells, row by row

@@ -106,8 +106,7 @@ func sweepGroupsInto(points []Point2, reach, cellM float64, i0, j0, nx, ny int, 
 				// reach, inlined.
 				for k := g.first; k < g.last; k++ {
 					p, q := points[k], points[k+1]
-					dx, dy := q.X-p.X, q.Y-p.Y
-					if offsetDist2(cx-p.X, cy-p.Y, dx, dy, dx*dx+dy*dy) <= reach2 {
+					if segDist2(cx-p.X, cy-p.Y, q.X-p.X, q.Y-p.Y) <= reach2 {
 						row[i-i0] = true
 						break
 					}
@@ -159,17 +158,15 @@ func pathGroupsInto(points []Point2, devM float64, out []pathGroup) []pathGroup 
 }
 
 // chordDev is the largest distance of points s to e from the segment
-// between the two: pointSegmentDist2 with what depends on the segment
-// alone worked out once and the rest inlined (in wasm the call a point
-// was most of chordDev's time; chordDevEvery in the tests is the plain
-// form).
+// between the two: pointSegmentDist2 with the segment's run worked out
+// once and segDist2 inlined (in wasm the call a point was most of
+// chordDev's time; chordDevEvery in the tests is the plain form).
 func chordDev(points []Point2, s, e int) float64 {
 	a, b := points[s], points[e]
 	dx, dy := b.X-a.X, b.Y-a.Y
-	l2 := dx*dx + dy*dy
 	d2 := 0.0
 	for _, p := range points[s+1 : e] {
-		d2 = upper(d2, offsetDist2(p.X-a.X, p.Y-a.Y, dx, dy, l2))
+		d2 = upper(d2, segDist2(p.X-a.X, p.Y-a.Y, dx, dy))
 	}
 	return math.Sqrt(d2)
 }
