@@ -162,13 +162,21 @@ func PlanDistance(p Point2, poly []Point2) float64 {
 // the least squared distance is the least distance (the root is monotone
 // and correctly rounded); a NaN distance is kept, as math.Min keeps it
 // (TestInsideEdgeMatches: the same as an edge by edge pass of each).
+// Each edge's squared distance is pointSegmentDist2's, through the
+// segDist2 that Go inlines: in wasm the call to pointSegmentDist2,
+// which Go does not inline, was half of insideEdge's time (node
+// --cpu-prof of clearance_part), and a point's clearance from an
+// obstacle is one insideEdge.
 func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	on := false
 	d2 := math.Inf(1)
 	n := len(poly)
-	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		a, b := poly[j], poly[i]
-		e := pointSegmentDist2(p, a, b)
+	if n == 0 {
+		return false, d2
+	}
+	a := poly[n-1]
+	for _, b := range poly {
+		e := segDist2(p.X-a.X, p.Y-a.Y, b.X-a.X, b.Y-a.Y) // pointSegmentDist2(p, a, b)
 		if e < d2 || e != e {
 			d2 = e
 		}
@@ -176,6 +184,7 @@ func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 		if (a.Y > p.Y) != (b.Y > p.Y) && p.X < a.X+(p.Y-a.Y)*(b.X-a.X)/(b.Y-a.Y) {
 			in = !in
 		}
+		a = b
 	}
 	return in || on, math.Sqrt(d2)
 }
