@@ -82,10 +82,14 @@ func coveredSpans(covered []bool, nx, ny int) iter.Seq[cellSpan] {
 type cellSpan struct{ J, I0, I1 int }
 
 func decodeCells(c []int) ([]cellSpan, error) {
+	return appendCells(make([]cellSpan, 0, len(c)/3), c)
+}
+
+// appendCells appends a run's cells (RunPart.Cells) to out as spans.
+func appendCells(out []cellSpan, c []int) ([]cellSpan, error) {
 	if len(c)%3 != 0 {
 		return nil, errors.New("clearance: a run's cells are not whole spans")
 	}
-	out := make([]cellSpan, 0, len(c)/3)
 	j, i := 0, 0
 	for k := 0; k < len(c); k += 3 {
 		j, i = j+c[k], i+c[k+1]

@@ -98,7 +98,12 @@ func Evaluate(s *scenario.Scenario, runs int, seed int, variant Variant, opt Opt
 	if err != nil {
 		return nil, err
 	}
-	return c.join(runs, seed, []Part{*part})
+	// The runs go through their block of bytes as a part's do.
+	rs, err := c.decodePart(runs, *part)
+	if err != nil {
+		return nil, err
+	}
+	return c.joinRuns(seed, rs)
 }
 
 // assumptions state what the check takes for granted.

@@ -101,21 +101,26 @@ func CheckPart(s *scenario.Scenario, from, to int, opt Options) (*Part, error) {
 }
 
 // CheckJoin joins parts of the check s's site block asks for into its
-// report over the runs they hold (in any order, none twice).
+// report over the runs they hold (in any order, none twice): a Joiner
+// used once.
 func CheckJoin(s *scenario.Scenario, parts []Part, opt Options) (*Report, error) {
-	sp, err := SpecOf(s)
+	j, err := NewJoiner(s, opt)
 	if err != nil {
 		return nil, err
 	}
-	c, err := prepare(s, opt.defaults())
-	if err != nil {
-		return nil, err
+	ranges := make([]Range, len(parts))
+	for i, p := range parts {
+		for _, r := range ranges[:i] {
+			if p.From < r.To && r.From < p.To {
+				return nil, errPartRange(p.From, p.To, j.total)
+			}
+		}
+		if err := j.Add(p); err != nil {
+			return nil, err
+		}
+		ranges[i] = Range{p.From, p.To}
 	}
-	rep, err := c.join(sp.Runs, sp.Seed, parts)
-	if rep != nil {
-		rep.Spread = sp.Spread
-	}
-	return rep, err
+	return j.Report(ranges)
 }
 
 func (o Options) defaults() Options {
@@ -216,33 +221,37 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 	return &Part{From: from, To: to, Data: encodeRuns(runs)}, nil
 }
 
-// join makes the report of the runs the parts hold: every obstacle's
-// figures over them, the verdict, the envelopes and the vertical section.
-func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
-	var runs []RunPart
-	parts = append([]Part(nil), parts...)
-	sort.SliceStable(parts, func(a, b int) bool { return parts[a].From < parts[b].From })
-	next := -1
-	for _, p := range parts {
-		pr, err := decodeRuns(p.Data)
-		if err != nil {
-			return nil, err
-		}
-		if p.From < 0 || p.To > total || p.To-p.From != len(pr) || p.From < next {
-			return nil, fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", p.From, p.To, total)
-		}
-		next = p.To
-		runs = append(runs, pr...)
+// decodePart reads a part's runs and checks that they are runs From to
+// To-1 of a check of total runs, each with the site's obstacles.
+func (c *checker) decodePart(total int, p Part) ([]RunPart, error) {
+	pr, err := decodeRuns(p.Data)
+	if err != nil {
+		return nil, err
 	}
+	if p.From < 0 || p.To > total || p.To <= p.From || p.To-p.From != len(pr) {
+		return nil, errPartRange(p.From, p.To, total)
+	}
+	for i := range pr {
+		if len(pr[i].Near) != len(c.site.Obstacles) {
+			return nil, errors.New("clearance: a run's obstacles are not the site's")
+		}
+	}
+	return pr, nil
+}
+
+func errPartRange(from, to, total int) error {
+	return fmt.Errorf("clearance: a part's runs from %d to %d are not runs of this check (0 to %d), or overlap another part", from, to, total)
+}
+
+// joinRuns makes the report of runs, in run order: every obstacle's
+// figures over them, the verdict, the envelopes and the vertical section.
+func (c *checker) joinRuns(seed int, runs []RunPart) (*Report, error) {
 	if len(runs) == 0 {
 		return nil, errors.New("clearance: no runs to join")
 	}
 	near := make([][]Closest, len(runs))
 	strays := make([]float64, len(runs))
 	for i, r := range runs {
-		if len(r.Near) != len(c.site.Obstacles) {
-			return nil, errors.New("clearance: a run's obstacles are not the site's")
-		}
 		near[i] = r.Near
 		strays[i] = r.StrayM
 	}
@@ -259,13 +268,16 @@ func (c *checker) join(total, seed int, parts []Part) (*Report, error) {
 		out         *EnvelopeOut
 	}{{0.5, 0, &rep.Envelope50}, {Required, ExclusionConfidence, &rep.Envelope95}} {
 		order, n := keep(strays, e.level, e.conf)
-		var spans []cellSpan
+		count := 0
 		for _, i := range order[:n] {
-			cs, err := decodeCells(runs[i].Cells)
-			if err != nil {
+			count += len(runs[i].Cells) / 3
+		}
+		spans := make([]cellSpan, 0, count)
+		for _, i := range order[:n] {
+			var err error
+			if spans, err = appendCells(spans, runs[i].Cells); err != nil {
 				return nil, err
 			}
-			spans = append(spans, cs...)
 		}
 		out, err := unionSpans(spans, c.opt.CellM)
 		if err != nil {

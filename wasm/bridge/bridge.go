@@ -50,6 +50,9 @@ var Calls = map[string]Func{
 type Error struct {
 	Message string                `json:"message"`
 	Fields  []scenario.FieldError `json:"fields"`
+	// Resend: the call named data the engine no longer holds (a part of
+	// clearance_join); the same call with the data answers.
+	Resend bool `json:"resend,omitempty"`
 }
 
 type reply struct {
@@ -94,7 +97,7 @@ func encode(r reply) []byte {
 func toError(err error) *Error {
 	var fe scenario.Errors
 	if errors.As(err, &fe) {
-		e := &Error{Fields: []scenario.FieldError(fe)}
+		e := &Error{Fields: []scenario.FieldError(fe), Resend: errors.As(err, new(heldMissing))}
 		if len(fe) == 1 {
 			e.Message = fe[0].Error()
 		} else {

@@ -17,6 +17,7 @@ func init() {
 	Calls["clearance_figures"] = clearanceFigures
 	Calls["clearance_part"] = clearancePart
 	Calls["clearance_join"] = clearanceJoin
+	Calls["clearance_hold"] = clearanceHold
 }
 
 // kept is the last clearance check with its scenario's fingerprint: the
@@ -144,35 +145,6 @@ func clearancePart(_ *Env, input []byte) (any, error) {
 		return nil, err
 	}
 	return clearance.CheckPart(s, in.From, in.To, clearance.Options{})
-}
-
-// The input of "clearance_join" is the scenario and the parts received
-// so far: {"scenario": {...}, "parts": [...]} (read by readJoinInput).
-
-// clearanceJoin joins parts into the report over their runs: with every
-// run of the check, the report of the "clearance" call, exactly, and kept
-// (for the check sheet and clearance_figures).
-func clearanceJoin(_ *Env, input []byte) (any, error) {
-	sc, parts, err := readJoinInput(input)
-	if err != nil {
-		return nil, scenario.Errors{{Field: "(input)", Message: "not a clearance_join request: " + err.Error()}}
-	}
-	s, err := siteScenario(sc)
-	if err != nil {
-		return nil, err
-	}
-	rep, err := clearance.CheckJoin(s, parts, clearance.Options{})
-	if err != nil {
-		return nil, err
-	}
-	if sp, _ := clearance.SpecOf(s); rep.Runs == sp.Runs {
-		if fp, err := key(s); err == nil {
-			kept.Lock()
-			kept.fp, kept.rep = fp, rep
-			kept.Unlock()
-		}
-	}
-	return rep, nil
 }
 
 func siteScenario(input []byte) (*scenario.Scenario, error) {

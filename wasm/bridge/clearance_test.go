@@ -139,6 +139,18 @@ func TestClearancePartsAndSheet(t *testing.T) {
 	if string(a) != string(b) {
 		t.Error("the joined parts differ from the clearance call")
 	}
+	// As the page sends them: each part's data once, held as it arrives
+	// (clearance_hold) or with a join, the parts held named by their runs.
+	if _, err := Calls["clearance_hold"](nil, []byte(`{"scenario":`+sc+`,"parts":[`+parts[0]+`]}`)); err != nil {
+		t.Fatal(err)
+	}
+	joined, err = Calls["clearance_join"](nil, []byte(`{"scenario":`+sc+`,"parts":[{"from":10,"to":24},`+parts[1]+`]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if b, _ = json.Marshal(joined); string(a) != string(b) {
+		t.Error("the parts held and joined differ from the clearance call")
+	}
 	out, err := Calls["sheet"](nil, []byte(`{"scenario":`+sc+`,"units":{},"system":"si"}`))
 	if err != nil {
 		t.Fatal(err)

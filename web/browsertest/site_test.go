@@ -264,6 +264,14 @@ func TestClearanceSplitEqualsSingle(t *testing.T) {
 			t.Error("no refined envelope before the last part")
 		}
 	}
+	// The engine's worker restarted once a join has answered (the parts
+	// it held are gone): the next join is told so, sent again with every
+	// part's data, and the report is the same.
+	got := eval2[[]any](h, `(function(){var cut=0;return window.swaysheetSite.split(`+sent+`,60,2,function(s){if(s.report&&!s.final&&!cut){cut=1;window.swaysheet.cancel();}})
+		.then(function(r){return [JSON.stringify(r.result||r.error), cut];});})()`)
+	if got[0].(string) != single || got[1].(float64) != 1 {
+		t.Errorf("the engine restarted midway (%v): the split report differs from the single call's: %.200s", got[1], got[0])
+	}
 	var r clearance.Report
 	if err := json.Unmarshal([]byte(single), &r); err != nil || r.Runs != 60 || len(r.Envelope95.Spans) == 0 {
 		t.Errorf("single call: %v, %d runs", err, r.Runs)

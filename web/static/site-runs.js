@@ -53,9 +53,12 @@ function stopPool(msg, how) {
 
 // CLEARANCE is the split of the clearance check: the calls that run a
 // range of runs and join the parts (another split, the spread of likely
-// runs in spread-view.js, gives its own).
+// runs in spread-view.js, gives its own). hold: the engine's worker keeps
+// the parts sent to it (wasm/bridge joinheld.go): each part's data is
+// sent once, as it arrives (the hold call) or with a join, and a join
+// names the parts sent before by their runs alone ({"from","to"}).
 const CLEARANCE = {
-  part: 'clearance_part', join: 'clearance_join',
+  part: 'clearance_part', join: 'clearance_join', hold: 'clearance_hold',
   partInput: function (sent, from, to) { return '{"scenario":' + sent + ',"from":' + from + ',"to":' + to + '}'; },
   joinInput: function (sent, parts) { return '{"scenario":' + sent + ',"parts":[' + parts.join(',') + ']}'; }
 };
@@ -103,27 +106,58 @@ export function runSplit(sent, n, on, workers, kind) {
       failed = r;
       resolve(r);
     }
+    // texts are the parts for a join or hold call: with kind.hold, the
+    // parts sent before by their runs alone; the others' data, marked sent.
+    function texts(list) {
+      return list.map(function (p) {
+        if (kind.hold && p.sent) return '{"from":' + p.from + ',"to":' + p.to + '}';
+        p.sent = true;
+        return p.text;
+      });
+    }
+    // hold sends the engine's worker the parts not sent yet (kind.hold),
+    // so that the joins after name them only; a part the engine did not
+    // take is sent again with the next join.
+    function hold() {
+      var fresh = parts.filter(function (p) { return !p.sent; });
+      if (!kind.hold || !fresh.length || job !== jobSeq || failed) return;
+      call(kind.hold, kind.joinInput(sent, texts(fresh))).then(function (r) {
+        if (r.error) fresh.forEach(function (p) { p.sent = false; });
+      });
+    }
     // join asks the engine's worker for the report of the parts so far:
     // one join at a time, a refinement only when a quarter of the runs
-    // more are in (each join reads every part again), the last one over
-    // every part.
+    // more are in, the last one over every part. It says whether it
+    // asked. A join that names a part the engine no longer holds (it was
+    // restarted) is answered "resend": it is asked again with every
+    // part's data.
     var joinedRuns = 0;
     function join() {
-      if (joining || job !== jobSeq || failed) return;
-      if (parts.length === joinedCount) return;
-      if (done < n && done - joinedRuns < n / 4) return;
+      if (joining || job !== jobSeq || failed) return false;
+      if (parts.length === joinedCount) return false;
+      if (done < n && done - joinedRuns < n / 4) return false;
       joinedRuns = done;
       joining = true;
-      var count = parts.length, all = done === n;
-      call(kind.join, kind.joinInput(sent, parts)).then(function (r) {
-        joining = false;
-        joinedCount = count;
-        if (job !== jobSeq) { finish({ error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
-        if (r.error) { finish(r); return; }
-        if (all) { on({ done: done, total: n, report: r.result, final: true }); finish(r); return; }
-        on({ done: done, total: n, report: r.result, final: false });
-        join();
-      });
+      var count = parts.length, all = done === n, list = parts.slice(), resent = false;
+      function ask() {
+        call(kind.join, kind.joinInput(sent, texts(list))).then(function (r) {
+          if (r.error && r.error.resend && !resent && job === jobSeq) {
+            resent = true;
+            parts.forEach(function (p) { p.sent = false; });
+            ask();
+            return;
+          }
+          joining = false;
+          joinedCount = count;
+          if (job !== jobSeq) { finish({ error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
+          if (r.error) { finish(r); return; }
+          if (all) { on({ done: done, total: n, report: r.result, final: true }); finish(r); return; }
+          on({ done: done, total: n, report: r.result, final: false });
+          if (!join()) hold();
+        });
+      }
+      ask();
+      return true;
     }
     function feed(w) {
       if (job !== jobSeq || failed) return;
@@ -132,10 +166,10 @@ export function runSplit(sent, n, on, workers, kind) {
       partCall(w, sent, range[0], range[1], kind).then(function (r) {
         if (job !== jobSeq) { finish(r.error ? r : { error: { message: 'Replaced by newer inputs.', stopped: 'cancelled' } }); return; }
         if (r.error) { stopPool(r.error.message, 'failed'); finish(r); return; }
-        parts.push(JSON.stringify(r.result));
+        parts.push({ from: range[0], to: range[1], text: JSON.stringify(r.result), sent: false });
         done += range[1] - range[0];
         on({ done: done, total: n, report: null, final: false });
-        join();
+        if (!join()) hold();
         feed(w);
       });
     }
