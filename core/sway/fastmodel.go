@@ -20,9 +20,10 @@ type fastModel struct {
 	slewing                   bool    // the suspension point is on a slewing arm
 	hoisting                  bool    // the rope length changes
 	travel                    bool    // travel moves only: neither of the two above, no air
+	airTravel                 bool    // travel moves only, with air (airRel)
 	air                       *Air    // wind and drag; nil: none
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
-	il                        float64 // 1/l0
+	il, im                    float64 // 1/l0, 1/mass
 	mass, g                   float64
 
 	// The spans of the segment between restarts being integrated (set by
@@ -40,7 +41,7 @@ type fastModel struct {
 // air's (nil: none).
 func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64, air *Air) *fastModel {
 	r0 := at.RadiusM
-	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, mass: mass, g: units.StandardGravity, air: air,
+	m := &fastModel{r0: r0, phi0: at.SlewRad, l0: l0, il: 1 / l0, im: 1 / mass, mass: mass, g: units.StandardGravity, air: air,
 		slewing: len(ax[crane.Turn]) > 0 || len(ax[crane.Reach]) > 0 || r0 != 0, hoisting: len(ax[crane.Rope]) > 0}
 	for role, sum := range ax {
 		var tab *axisTable
@@ -68,6 +69,7 @@ func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64, ai
 		*tab = flatten(comps)
 	}
 	m.travel = !(m.slewing || m.hoisting || air != nil)
+	m.airTravel = !(m.slewing || m.hoisting) && air != nil
 	return m
 }
 
@@ -260,7 +262,13 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 		dy[5] = rz*il + cn*y[2]
 		return
 	}
-	rx, ry, rz, l, dl, _ := m.relAt(t, y)
+	var rx, ry, rz, l, dl float64
+	if m.airTravel {
+		rx, ry, rz = m.airRel(t, y)
+		l, dl = m.l0, math.Copysign(0, -1) // as relAt gives them
+	} else {
+		rx, ry, rz, l, dl, _ = m.relAt(t, y)
+	}
 	radial := rx*y[0] + ry*y[1] + rz*y[2]
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
 	il := 1 / l

@@ -172,6 +172,9 @@ type Options struct {
 	// kinSamples makes the specialised path take every history sample
 	// through kinOf, as on moves other than travel (for tests).
 	kinSamples bool
+	// kinAir makes the specialised path take travel moves with air
+	// through kinOf and rel, as other moves with air (for tests).
+	kinAir bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
