@@ -1,49 +1,41 @@
 package sway
 
-import (
-	"math"
+// The specialised path on travel moves alone with a steady air: a load
+// carried along the runway in a wind that is off or full over a segment
+// between restarts, without drag (fastModel.airTravel, fastModel.steady;
+// the clearance check's runs of a gust). The air's share of the applied
+// acceleration is then one constant of the segment, which rhs, the
+// stepper's written-out travel case (fastSolver.step) and the history
+// (fastScan.recordState) add to the suspension point's -S¨ without
+// evaluating the air: the same operations on the same values as the
+// general way through kinOf, rel and Air.Force, which TestAirTravelAsKin
+// holds them to, bit for bit.
 
-	"gonum.org/v1/gonum/spatial/r3"
-)
-
-// The specialised path on travel moves alone with air (fastModel.airTravel:
-// a gust, wind and drag on a load carried along the runway, as in the
-// clearance check's runs): the applied acceleration written out from the
-// segment's spans and the air's fields, the same operations in the same
-// order as the general way through kinOf, rel and Air.Force, which
-// TestAirTravelAsKin holds it to, bit for bit.
-
-// airRel is rel on travel moves alone with air (fastModel.airTravel),
-// in the same operations in the same order as kinOf, loadVel, rel and
-// Air.Force, read from the segment's spans: without the kin made and
-// returned and four calls for every evaluation (in wasm a call, and a
-// struct returned through memory, cost more than this arithmetic). The
-// rope is at l0 (l0 - 0) with the rate -0 (-(0)), as kinOf gives it; the
-// load's velocity is made only with drag, where Air.Force reads it.
-// TestAirTravelAsKin holds the two ways to the same bits.
-func (m *fastModel) airRel(t float64, y *[6]float64) (rx, ry, rz float64) {
-	rx, ry = m.travelRel(t)
-	a := m.air
-	sv := a.Strength(m.airTime(t))
-	c := sv * sv * a.ForceN
-	fx, fy, fz := c*a.Dir.X, c*a.Dir.Y, c*a.Dir.Z
-	if a.DragK != 0 {
-		var vx, vy float64
-		if len(m.x) > 0 {
-			_, vx, _ = m.sx.at(t)
-		}
-		if len(m.y) > 0 {
-			_, vy, _ = m.sy.at(t)
-		}
-		dl, l := math.Copysign(0, -1), m.l0
-		sa := sv * a.AirSpeed
-		r := r3.Vec{X: vx + (dl*y[0] + l*y[3]) - sa*a.Dir.X, Y: vy + (dl*y[1] + l*y[4]) - sa*a.Dir.Y,
-			Z: dl*y[2] + l*y[5] - sa*a.Dir.Z}
-		n, ss := r3.Norm(r), sv*sv*a.AirSpeed*a.AirSpeed
-		fx -= a.DragK * (n*r.X + ss*a.Dir.X)
-		fy -= a.DragK * (n*r.Y + ss*a.Dir.Y)
-		fz -= a.DragK * (n*r.Z + ss*a.Dir.Z)
+// steadyAir finds whether the air's force is the same at every time of
+// the segment [A, B] (set by segment) at which the model is evaluated,
+// and if so keeps its share of the applied acceleration, im*(s² F_w e)
+// as rel adds it to -S¨ (and -g), for times up to airTo = B + 1: the
+// solver's (its stages are at most at the segment's end, rounded) and the
+// history's (inside the last step).
+//
+// For t <= B + 1 airTime gives tc = t, A + d or B - d with
+// d = max(1e-12, 1e-12 t) <= D = 1e-12 (B + 1), each sum rounded: on a
+// segment longer than D + 1e-12 (B - D >= A + 1e-12, A + D <= B - 1e-12)
+// tc lies in [A + 1e-12, B - 1e-12] (rounding is monotone). Air.Strength
+// takes one branch of rise for each of its terms, on x = tc - start and
+// x - duration, both non-decreasing in tc: the term is 0 (x < 0) over
+// the segment when it is at its end, 1 (x >= ramp) when it is at its
+// start, and the strength is then one value over the segment.
+func (m *fastModel) steadyAir() {
+	a, lo, hi := m.air, m.segA+1e-12, m.segB-1e-12
+	m.airTo = m.segB + 1
+	d := 1e-12 * m.airTo
+	x0, x1, x2, x3 := lo-a.StartS, hi-a.StartS, lo-a.StartS-a.DurationS, hi-a.StartS-a.DurationS
+	m.steady = m.segB-d >= lo && m.segA+d <= hi && (x1 < 0 || x0 >= a.RampS) &&
+		(a.DurationS <= 0 || x3 < 0 || x2 >= a.RampS)
+	if m.steady {
+		sv := a.Strength(lo)
+		f, im := sv*sv*a.ForceN, 1/m.mass
+		m.airX, m.airY, m.rz = im*(f*a.Dir.X), im*(f*a.Dir.Y), -m.g+im*(f*a.Dir.Z)
 	}
-	im := m.im
-	return rx + im*fx, ry + im*fy, -m.g + im*fz
 }

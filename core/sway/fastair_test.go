@@ -3,7 +3,9 @@ package sway
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
 	"testing"
@@ -11,18 +13,21 @@ import (
 	"swaysheet/core/scenario"
 )
 
-// TestAirTravelAsKin: on travel moves alone with air (fastModel.airTravel)
-// the specialised path evaluates the right-hand side and writes each
-// history sample through airRel; taken through kinOf and rel instead
-// (Options.kinAir), as for every other move with air, the result is the
+// TestAirTravelAsKin: on travel moves alone with a steady air
+// (fastModel.steady: wind off or full over a segment, no drag) the
+// specialised path adds the air's share of the applied acceleration kept
+// for the segment, in rhs, in the stepper's written-out travel case and
+// in each history sample; taken through kinOf and rel instead
+// (Options.kinSamples), as for every other move with air, the result is the
 // same bits: every figure, the solver's counts and every sample of every
 // series, of the full evaluation and of the path alone (Options.PathOnly,
-// the clearance check's runs), at the default and the tight accuracy.
-// The scenarios are every example and reference scenario whose
-// specialised model has travel moves alone with air, and each of them
-// also on an overhead crane (a tower crane's radius makes it slew) and
-// with its travel moves along y: wind and drag, ramps, a gust's duration,
-// the wind's speed, no moves at all, moves along x and along y.
+// the clearance check's runs). The scenarios are every example and
+// reference scenario whose specialised model has travel moves alone with
+// wind and no drag, each also on an overhead crane (a tower crane's
+// radius makes it slew) and with its travel moves along y, at the default
+// and the tight accuracy; and runs of the bay example as its clearance
+// check draws them, with the wind also set in at the travel's corners and
+// at the start, ramped, for a while and blowing every way.
 func TestAirTravelAsKin(t *testing.T) {
 	var files []string
 	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios"} {
@@ -32,7 +37,32 @@ func TestAirTravelAsKin(t *testing.T) {
 		}
 		files = append(files, fs...)
 	}
-	checked, drag, ramp := 0, 0, 0
+	checked, ramp, steady := 0, 0, 0
+	check := func(s *scenario.Scenario, what string, accs ...string) {
+		su, err := build(s, false)
+		if err != nil || su.fast == nil || !su.fast.airTravel {
+			return
+		}
+		checked++
+		if su.fast.air.RampS > 0 {
+			ramp++
+		}
+		steady += steadySegments(su)
+		for _, acc := range accs {
+			s.Settings = &scenario.Settings{Accuracy: acc}
+			for _, pathOnly := range []bool{false, true} {
+				direct, err := EvaluateWith(s, Options{PathOnly: pathOnly})
+				if err != nil {
+					t.Fatalf("%s: %v", what, err)
+				}
+				viaKin, err := EvaluateWith(s, Options{PathOnly: pathOnly, kinSamples: true})
+				if err != nil {
+					t.Fatalf("%s: %v", what, err)
+				}
+				sameResultBits(t, fmt.Sprintf("%s (%s, path only %v)", what, acc, pathOnly), direct, viaKin)
+			}
+		}
+	}
 	for _, file := range files {
 		data, err := os.ReadFile(file)
 		if err != nil {
@@ -55,38 +85,58 @@ func TestAirTravelAsKin(t *testing.T) {
 					}
 				}
 			}
-			su, err := build(s, false)
-			if err != nil || su.fast == nil || !su.fast.airTravel {
-				continue
-			}
-			checked++
-			if su.fast.air.DragK > 0 {
-				drag++
-			}
-			if su.fast.air.RampS > 0 {
-				ramp++
-			}
-			for _, acc := range []string{"default", "tight"} {
-				s.Settings = &scenario.Settings{Accuracy: acc}
-				what := file + " (" + name + ", " + acc + ")"
-				for _, pathOnly := range []bool{false, true} {
-					direct, err := EvaluateWith(s, Options{PathOnly: pathOnly})
-					if err != nil {
-						t.Fatalf("%s: %v", what, err)
-					}
-					viaKin, err := EvaluateWith(s, Options{PathOnly: pathOnly, kinAir: true})
-					if err != nil {
-						t.Fatalf("%s: %v", what, err)
-					}
-					sameResultBits(t, what, direct, viaKin)
-				}
-			}
+			check(s, file+" ("+name+")", "default", "tight")
 		}
 	}
-	t.Logf("%d scenarios, %d with drag, %d with ramps", checked, drag, ramp)
-	if checked < 6 || drag < 2 || ramp < 1 {
-		t.Errorf("%d scenarios with travel moves alone and air (%d with drag, %d with ramps): the test checks too little", checked, drag, ramp)
+	// The clearance check's runs of the bay example: the gust's moment,
+	// strength and direction and the rope drawn (as its spread does), the
+	// wind set in at the travel's corners and at the start, ramped, for a
+	// while, blowing against the travel.
+	data, err := os.ReadFile(filepath.Join("..", "..", "testdata", "scenarios", "site-bay-columns.json"))
+	if err != nil {
+		t.Fatal(err)
 	}
+	rng := rand.New(rand.NewPCG(1, 2))
+	for i := range 60 {
+		s, err := scenario.Parse(data)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s.Plan, s.Site = nil, nil
+		w := s.Wind
+		switch {
+		case i < 4:
+			w.StartS = []float64{0, 1, 3, 50}[i] // the travel's corners: 1, 3, 49, 51 s
+		case i < 8:
+			w.RampS, w.DurationS = float64(i-3), 10
+		default:
+			w.StartS = max(0, 20+8*rng.NormFloat64())
+			f := *w.ForceN * (1 + 0.3*rng.NormFloat64())
+			w.ForceN = &f
+			rope := *s.Load.RopeLengthM + 0.15*rng.NormFloat64()
+			s.Load.RopeLengthM = &rope
+		}
+		w.TowardDeg = float64(45 * (i % 8))
+		check(s, fmt.Sprintf("site-bay-columns run %d", i), "default")
+	}
+	t.Logf("%d scenarios, %d with ramps, %d segments of steady air", checked, ramp, steady)
+	if checked < 60 || ramp < 4 || steady < 100 {
+		t.Errorf("%d scenarios with travel moves alone and wind (%d with ramps, %d segments of steady air): the test checks too little", checked, ramp, steady)
+	}
+}
+
+// steadySegments is the number of segments between restarts of su over
+// which the specialised model finds the air steady (fastModel.steadyAir).
+func steadySegments(su *setup) int {
+	n, a := 0, 0.0
+	for _, b := range restartCuts(su.breaks, su.motionEnd+30) {
+		su.fast.segment(a, b)
+		if su.fast.steady {
+			n++
+		}
+		a = b
+	}
+	return n
 }
 
 // sameResultBits fails the test unless a and b are the same bits: their

@@ -170,11 +170,9 @@ type Options struct {
 	// its next run.
 	HistoryBuffer *[]float64
 	// kinSamples makes the specialised path take every history sample
-	// through kinOf, as on moves other than travel (for tests).
+	// through kinOf, as on moves other than travel, and on travel moves
+	// with air the right-hand side too, as with other moves (for tests).
 	kinSamples bool
-	// kinAir makes the specialised path take travel moves with air
-	// through kinOf and rel, as other moves with air (for tests).
-	kinAir bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
