@@ -4,12 +4,12 @@ package sway
 // carried along the runway in a wind that is off or full over a segment
 // between restarts, without drag (fastModel.airTravel, fastModel.steady;
 // the clearance check's runs of a gust). The air's share of the applied
-// acceleration is then one constant of the segment, which rhs, the
-// stepper's written-out travel case (fastSolver.step) and the history
-// (fastScan.recordState) add to the suspension point's -S¨ without
-// evaluating the air: the same operations on the same values as the
-// general way through kinOf, rel and Air.Force, which TestAirTravelAsKin
-// holds them to, bit for bit.
+// acceleration is then one constant of the segment, which rhs and the
+// history (fastScan.recordState) add to the suspension point's -S¨
+// without evaluating the air: the same operations on the same values as
+// the general way through relAt, kinOf, rel and Air.Force (four calls for
+// every evaluation, each dear in wasm), which TestAirTravelAsKin holds
+// them to, bit for bit. Ramps and drag take the general way.
 
 // steadyAir finds whether the air's force is the same at every time of
 // the segment [A, B] (set by segment) at which the model is evaluated,

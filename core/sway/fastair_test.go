@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
-	"math"
 	"math/rand/v2"
 	"os"
 	"path/filepath"
@@ -16,10 +15,9 @@ import (
 // TestAirTravelAsKin: on travel moves alone with a steady air
 // (fastModel.steady: wind off or full over a segment, no drag) the
 // specialised path adds the air's share of the applied acceleration kept
-// for the segment, in rhs, in the stepper's written-out travel case and
-// in each history sample; taken through kinOf and rel instead
-// (Options.kinSamples), as for every other move with air, the result is the
-// same bits: every figure, the solver's counts and every sample of every
+// for the segment, in rhs and in each history sample; taken through
+// kinOf and rel instead (Options.kinSamples), as for every other move
+// with air, the result is the same bits: every figure, the solver's counts and every sample of every
 // series, of the full evaluation and of the path alone (Options.PathOnly,
 // the clearance check's runs). The scenarios are every example and
 // reference scenario whose specialised model has travel moves alone with
@@ -29,14 +27,6 @@ import (
 // check draws them, with the wind also set in at the travel's corners and
 // at the start, ramped, for a while and blowing every way.
 func TestAirTravelAsKin(t *testing.T) {
-	var files []string
-	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios"} {
-		fs, err := filepath.Glob(filepath.Join("..", "..", dir, "*.json"))
-		if err != nil {
-			t.Fatal(err)
-		}
-		files = append(files, fs...)
-	}
 	checked, ramp, steady := 0, 0, 0
 	check := func(s *scenario.Scenario, what string, accs ...string) {
 		su, err := build(s, false)
@@ -63,7 +53,7 @@ func TestAirTravelAsKin(t *testing.T) {
 			}
 		}
 	}
-	for _, file := range files {
+	for _, file := range scenarioFiles(t) {
 		data, err := os.ReadFile(file)
 		if err != nil {
 			t.Fatal(err)
@@ -105,10 +95,10 @@ func TestAirTravelAsKin(t *testing.T) {
 		s.Plan, s.Site = nil, nil
 		w := s.Wind
 		switch {
-		case i < 4:
-			w.StartS = []float64{0, 1, 3, 50}[i] // the travel's corners: 1, 3, 49, 51 s
-		case i < 8:
-			w.RampS, w.DurationS = float64(i-3), 10
+		case i < 5:
+			w.StartS = []float64{0, 1, 3, 49, 51}[i] // the start and the travel's corners
+		case i < 9:
+			w.RampS, w.DurationS = float64(i-4), 10
 		default:
 			w.StartS = max(0, 20+8*rng.NormFloat64())
 			f := *w.ForceN * (1 + 0.3*rng.NormFloat64())
@@ -139,9 +129,10 @@ func steadySegments(su *setup) int {
 	return n
 }
 
-// sameResultBits fails the test unless a and b are the same bits: their
-// JSON (which writes a negative zero as -0 and every other number so that
-// it reads back to its bits) and every sample of every history series.
+// sameResultBits fails the test unless a and b (b taken through kinOf)
+// are the same bits: their JSON (which writes a negative zero as -0 and
+// every other number so that it reads back to its bits) and every sample
+// of every history series.
 func sameResultBits(t *testing.T, what string, a, b *Result) {
 	t.Helper()
 	ja, err := json.Marshal(a)
@@ -161,16 +152,5 @@ func sameResultBits(t *testing.T, what string, a, b *Result) {
 		t.Errorf("%s: the results differ at byte %d: ...%s, through kinOf ...%s", what, i, ja[from:min(i+40, len(ja))], jb[from:min(i+40, len(jb))])
 		return
 	}
-	sa, sb := a.History.series(), b.History.series()
-	for k := range sa {
-		if len(*sa[k]) != len(*sb[k]) || len(*sa[k]) == 0 {
-			t.Fatalf("%s: series %d has %d samples, through kinOf %d", what, k, len(*sa[k]), len(*sb[k]))
-		}
-		for i, v := range *sa[k] {
-			if w := (*sb[k])[i]; math.Float64bits(v) != math.Float64bits(w) {
-				t.Errorf("%s: series %d sample %d is %v, through kinOf %v", what, k, i, v, w)
-				break
-			}
-		}
-	}
+	sameSeriesBits(t, what, &a.History, &b.History)
 }
