@@ -21,12 +21,36 @@ func runCellsInto(r *PlanPath, cellM float64, sc *scratch) []int {
 	sc.cover = grow(sc.cover, nx*ny)
 	covered := sc.cover
 	clear(covered)
-	r.sweepLattice(cellM, i0, j0, nx, ny, covered)
+	r.sweepLatticeInto(cellM, i0, j0, nx, ny, covered, sc)
+	return spanCells(covered, i0, j0, nx, ny)
+}
+
+// spanCells is the spans of coveredSpans, rows from the lowest, each row
+// from the left, as a run's cells (RunPart.Cells; nil for none), the
+// grid's lower left cell at lattice index (i0, j0). It scans each row in
+// a loop of its own rather than through coveredSpans' yield (a call a
+// span in wasm) and indexes the row, not the grid: TestSpanCells checks
+// it against the spans coveredSpans yields.
+func spanCells(covered []bool, i0, j0, nx, ny int) []int {
 	var out []int
 	pj, pi := 0, 0
-	for s := range coveredSpans(covered, nx, ny) {
-		out = append(out, j0+s.J-pj, i0+s.I0-pi, s.I1-s.I0)
-		pj, pi = j0+s.J, i0+s.I0
+	for j := 0; j < ny; j++ {
+		row := covered[j*nx : (j+1)*nx]
+		for i := 0; i < nx; {
+			if !row[i] {
+				i++
+				continue
+			}
+			start := i
+			for i < nx && row[i] {
+				i++
+			}
+			if out == nil {
+				out = make([]int, 0, 3*(ny-j)) // most rows of a run's sweep hold one span
+			}
+			out = append(out, j0+j-pj, i0+start-pi, i-start)
+			pj, pi = j0+j, i0+start
+		}
 	}
 	return out
 }

@@ -168,11 +168,17 @@ func latticeRange(lo, hi, reach, cellM float64) (int, int) {
 // sweepGroups, which marks the cells well inside at once and tests only
 // those near the edge). Outlines: see sweepOutlines.
 func (r *PlanPath) sweepLattice(cellM float64, i0, j0, nx, ny int, covered []bool) {
+	r.sweepLatticeInto(cellM, i0, j0, nx, ny, covered, new(scratch))
+}
+
+// sweepLatticeInto is sweepLattice with what the sweep needs meanwhile
+// in sc's memory.
+func (r *PlanPath) sweepLatticeInto(cellM float64, i0, j0, nx, ny int, covered []bool, sc *scratch) {
 	if r.Outlines != nil {
 		sweepOutlines(r.Outlines, cellM, i0, j0, nx, ny, covered)
 		return
 	}
-	sweepGroups(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered)
+	sweepGroupsInto(r.Points, r.RadiusM+cellM*math.Sqrt2/2, cellM, i0, j0, nx, ny, covered, sc)
 }
 
 // sweepBallCells is sweepLattice for a ball, cell by cell: the plain form

@@ -138,7 +138,11 @@ func TestShareLowerBoundClosedForms(t *testing.T) {
 func TestStrayGridAgreesWithBruteForce(t *testing.T) {
 	// The bucketed search is exact: the same distances as trying every
 	// segment, on wandering paths (a slewing arc with a wobble, and a
-	// zig-zag), for points near and far.
+	// zig-zag), for points near and far; and the stray of whole runs
+	// (walked from point to point, few points measured: nearest.stray) is
+	// the largest of every point's distance to every segment, bit for
+	// bit, on the hard cases (hardPolylines) with runs wandering about
+	// them, standing still, and through their vertices.
 	rng := rand.New(rand.NewPCG(1, 2))
 	var arc, zig []Point2
 	for i := 0; i <= 600; i++ {
@@ -156,6 +160,34 @@ func TestStrayGridAgreesWithBruteForce(t *testing.T) {
 			}
 			if got := Stray([]Point2{p}, nominal); got != brute {
 				t.Fatalf("point %v: %g, brute force %g", p, got, brute)
+			}
+		}
+	}
+	for name, nominal := range hardPolylines(rng) {
+		for trial := range 20 {
+			run := make([]Point2, 2+rng.IntN(150))
+			for i := range run {
+				q := nominal[min(i*len(nominal)/len(run), len(nominal)-1)]
+				switch trial % 4 {
+				case 0: // through the vertices
+				case 1: // standing still
+					q = run[0]
+					if i == 0 {
+						q = nominal[rng.IntN(len(nominal))]
+					}
+				default:
+					q.X += rng.NormFloat64() * 0.3 * float64(trial%4)
+					q.Y += rng.NormFloat64() * 0.3 * float64(trial%4)
+				}
+				run[i] = q
+			}
+			worst := 0.0
+			for _, p := range run {
+				d, _ := everySegment(p, nominal)
+				worst = max(worst, d)
+			}
+			if got, want := Stray(run, nominal), math.Sqrt(worst); math.Float64bits(got) != math.Float64bits(want) {
+				t.Fatalf("%s trial %d: stray %g, every point to every segment %g", name, trial, got, want)
 			}
 		}
 	}
@@ -193,11 +225,14 @@ func TestExclusionZoneIsA95By95Region(t *testing.T) {
 }
 
 func TestClosestSegmentIsTheFirstNearest(t *testing.T) {
-	// The bucketed search stops as soon as no bucket left can hold a
-	// nearer segment (nearest.wall): the distance and the first segment
-	// at it are those of trying every segment, for points near the path
-	// and far from it, on a path that comes back over itself (a trolley
-	// run out and back) and a zig-zag.
+	// The bucketed search measures only the segments whose boxes lie as
+	// near as the one its walk ends at (nearest.closestFrom): the
+	// distance and the first segment at it are those of trying every
+	// segment, bit for bit, with no cursor and from cursors anywhere, for
+	// points near the path and far from it, on a path that comes back
+	// over itself (a trolley run out and back) and a zig-zag, and on the
+	// hard cases (hardPolylines: collinear segments, segments of no
+	// length, exact ties; hardPoints: on vertices, far off the grid).
 	rng := rand.New(rand.NewPCG(3, 4))
 	var back, zig []Point2
 	for i := 0; i <= 400; i++ {
@@ -216,15 +251,13 @@ func TestClosestSegmentIsTheFirstNearest(t *testing.T) {
 			if k%4 == 0 {
 				p = Point2{rng.Float64()*40 - 10, rng.Float64()*40 - 10}
 			}
-			best, seg := math.Inf(1), 0
-			for i := 0; i+1 < len(path); i++ {
-				if d := pointSegmentDist2(p, path[i], path[i+1]); d < best {
-					best, seg = d, i
-				}
-			}
-			if d, s := n.closest(p); d != best || s != seg {
-				t.Fatalf("point %v: %g at segment %d, every segment %g at %d", p, d, s, best, seg)
-			}
+			checkNearest(t, "out and back or zig-zag", path, n, p, rng)
+		}
+	}
+	for name, poly := range hardPolylines(rng) {
+		n := newNearest(poly)
+		for _, p := range hardPoints(poly, rng) {
+			checkNearest(t, name, poly, n, p, rng)
 		}
 	}
 }

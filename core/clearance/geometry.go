@@ -113,18 +113,28 @@ func pointSegmentDistance(p, a, b Point2) float64 { return math.Sqrt(pointSegmen
 
 // pointSegmentDist2 is the squared distance from p to the segment ab.
 func pointSegmentDist2(p, a, b Point2) float64 {
-	dx, dy := b.X-a.X, b.Y-a.Y
-	t := 0.0
-	if l2 := dx*dx + dy*dy; l2 > 0 {
-		t = ((p.X-a.X)*dx + (p.Y-a.Y)*dy) / l2
+	return segDist2(p.X-a.X, p.Y-a.Y, b.X-a.X, b.Y-a.Y)
+}
+
+// segDist2 is the squared distance from a point to a segment, the point
+// (px, py) and the segment's far end (dx, dy) taken from its near end:
+// with t = (p.d)/|d|^2 held to [0, 1], |p - t d|^2 (Ericson 2005,
+// sec. 5.1.2); p itself when |d|^2 is zero, where t would be 0. Small
+// enough for Go to inline in the nearest-segment searches, where a call
+// per segment cost more than the arithmetic (in wasm most); comparisons,
+// not the builtin min and max, which are runtime calls in wasm.
+// TestSegDist2IsThePlainForm holds it to the form with t held first.
+func segDist2(px, py, dx, dy float64) float64 {
+	if l2 := dx*dx + dy*dy; !(l2 <= 0) {
+		t := (px*dx + py*dy) / l2
 		if t < 0 {
 			t = 0
 		} else if t > 1 {
 			t = 1
 		}
+		px, py = px-t*dx, py-t*dy
 	}
-	ex, ey := p.X-a.X-t*dx, p.Y-a.Y-t*dy
-	return ex*ex + ey*ey
+	return px*px + py*py
 }
 
 // EdgeDistance is the distance from p to the polygon's boundary (see
@@ -152,13 +162,21 @@ func PlanDistance(p Point2, poly []Point2) float64 {
 // the least squared distance is the least distance (the root is monotone
 // and correctly rounded); a NaN distance is kept, as math.Min keeps it
 // (TestInsideEdgeMatches: the same as an edge by edge pass of each).
+// Each edge's squared distance is pointSegmentDist2's, through the
+// segDist2 that Go inlines: in wasm the call to pointSegmentDist2,
+// which Go does not inline, was half of insideEdge's time (node
+// --cpu-prof of clearance_part), and a point's clearance from an
+// obstacle is one insideEdge.
 func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 	on := false
 	d2 := math.Inf(1)
 	n := len(poly)
-	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		a, b := poly[j], poly[i]
-		e := pointSegmentDist2(p, a, b)
+	if n == 0 {
+		return false, d2
+	}
+	a := poly[n-1]
+	for _, b := range poly {
+		e := segDist2(p.X-a.X, p.Y-a.Y, b.X-a.X, b.Y-a.Y) // pointSegmentDist2(p, a, b)
 		if e < d2 || e != e {
 			d2 = e
 		}
@@ -166,6 +184,7 @@ func insideEdge(p Point2, poly []Point2) (in bool, edgeM float64) {
 		if (a.Y > p.Y) != (b.Y > p.Y) && p.X < a.X+(p.Y-a.Y)*(b.X-a.X)/(b.Y-a.Y) {
 			in = !in
 		}
+		a = b
 	}
 	return in || on, math.Sqrt(d2)
 }

@@ -2,6 +2,7 @@ package clearance
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 )
 
@@ -158,6 +159,16 @@ func TestInsideEdgeMatches(t *testing.T) {
 		wi, wd := insideEvery(p, poly), edgeEvery(p, poly)
 		if in != wi || !(d == wd || (math.IsNaN(d) && math.IsNaN(wd))) {
 			t.Fatalf("%v: one pass (%v, %g), two passes (%v, %g)", p, in, d, wi, wd)
+		}
+	}
+	// Turned rectangles, points about them.
+	rng := rand.New(rand.NewPCG(2, 11))
+	for range 2000 {
+		poly := Rectangle(rng.Float64()*4-2, rng.Float64()*4-2, rng.Float64()*3, rng.Float64()*3, rng.Float64()*360)
+		p := Point2{rng.Float64()*8 - 4, rng.Float64()*8 - 4}
+		in, d := insideEdge(p, poly)
+		if wi, wd := insideEvery(p, poly), edgeEvery(p, poly); in != wi || d != wd {
+			t.Fatalf("%v in %v: one pass (%v, %g), two passes (%v, %g)", p, poly, in, d, wi, wd)
 		}
 	}
 }

@@ -46,6 +46,9 @@ type pathLengths struct {
 	cum, cumPlan []float64
 	coarse       []int
 	errM         float64
+	// vs, ds: memory for an obstacle's clearance and plan distance at
+	// the coarse samples (alongPathWith), one each a coarse sample.
+	vs, ds []float64
 }
 
 const coarseM = 0.25 // m between coarse samples
@@ -77,6 +80,9 @@ func measurePathInto(path []Sample, stepM float64, sc *scratch) *pathLengths {
 		}
 	}
 	sc.coarse = pl.coarse
+	nc := len(pl.coarse)
+	sc.vsds = grow(sc.vsds, 2*nc)
+	pl.vs, pl.ds = sc.vsds[:nc], sc.vsds[nc:]
 	return pl
 }
 
@@ -90,7 +96,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 	const tolM = 1e-9
 	n := len(path)
 	cum, cumPlan, coarse := pl.cum, pl.cumPlan, pl.coarse
-	vs, ds := make([]float64, len(coarse)), make([]float64, len(coarse))
+	vs, ds := pl.vs, pl.ds
 	least := math.Inf(1)
 	for m, i := range coarse {
 		vs[m], _, ds[m] = o.ballClearancePlan(path[i].At, radiusM)
@@ -100,8 +106,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 	lo, hi := outlineBox(o.Outline)
 
 	c.ErrorBoundM = pl.errM
-	offer := w.offer
-	offer(path[0].TimeS, path[0].At)
+	w.offer(path[0].TimeS, path[0].At)
 	m := 0 // coarse[m] <= i < coarse[m+1]
 	for i := 0; i+1 < n; i++ {
 		for coarse[m+1] <= i {
@@ -130,7 +135,7 @@ func (o *Obstacle) alongPathWith(path []Sample, pl *pathLengths, radiusM, stepM 
 			if upper(vs[m]-s, vs[m+1]-(span-s)) > keepV && upper(ds[m]-sp, ds[m+1]-(spanPlan-sp)) > keepD {
 				continue
 			}
-			offer(a.TimeS+f*(b.TimeS-a.TimeS), Point3{a.At.X + f*dx, a.At.Y + f*dy, a.At.Z + f*dz})
+			w.offer(a.TimeS+f*(b.TimeS-a.TimeS), Point3{a.At.X + f*dx, a.At.Y + f*dy, a.At.Z + f*dz})
 		}
 	}
 	return w.result()

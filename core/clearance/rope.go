@@ -43,12 +43,21 @@ import "math"
 // spaces the points at which the depth is taken through the obstacle.
 func (o *Obstacle) SegmentClearance(a, b Point3, stepM float64) (clearM float64, at Point3, strikes bool) {
 	lo, hi := outlineBox(o.Outline)
+	return o.segmentClearance(a, b, stepM, lo, hi)
+}
+
+// segmentClearance is SegmentClearance with the outline's box (lo, hi:
+// outlineBox) found once by the caller: a line is checked at many
+// moments against the same obstacle.
+func (o *Obstacle) segmentClearance(a, b Point3, stepM float64, lo, hi Point2) (clearM float64, at Point3, strikes bool) {
 	if o.mayStrike(a, b, lo, hi, 1e-9) && o.SegmentStrikes(a, b) {
 		d, at := o.segmentDepth(a, b, stepM)
 		return -d, at, true
 	}
-	clearM, at = o.Clearance(a, 0), a
-	if v := o.Clearance(b, 0); v < clearM {
+	// Each end's point clearance (o.Clearance(a, 0), one call less).
+	clearM, _, _ = o.ballClearancePlan(a, 0)
+	at = a
+	if v, _, _ := o.ballClearancePlan(b, 0); v < clearM {
 		clearM, at = v, b
 	}
 	low := min(min(a.Z, b.Z), o.TopM)
@@ -62,8 +71,18 @@ func (o *Obstacle) SegmentClearance(a, b Point3, stepM float64) (clearM float64,
 		dx, dy, dz := beyond(ex0-x1, x0-ex1), beyond(ey0-y1, y0-ey1), beyond(z0-ez1, 0)
 		return dx*dx + dy*dy + dz*dz
 	}
+	// The outline's box holds every edge's box, so its distance is at
+	// most theirs (each rounding is monotone): when it is not below the
+	// best so far, no edge is (a NaN distance passes on to the edges).
+	if g := gap2(lo.X, hi.X, lo.Y, hi.Y, o.TopM); g >= best2 {
+		n = 0
+	}
 	for i := 0; i < n; i++ {
-		c, e := o.Outline[i], o.Outline[(i+1)%n]
+		j := i + 1 // (i+1)%n, without the division
+		if j == n {
+			j = 0
+		}
+		c, e := o.Outline[i], o.Outline[j]
 		top := Point3{c.X, c.Y, o.TopM}
 		if gap2(lower(c.X, e.X), upper(c.X, e.X), lower(c.Y, e.Y), upper(c.Y, e.Y), o.TopM) < best2 {
 			if d2, p := segmentDist2(a, b, top, Point3{e.X, e.Y, o.TopM}); d2 < best2 {

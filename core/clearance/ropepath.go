@@ -10,12 +10,13 @@ type RopeLine struct {
 	TimeS []float64
 	A, B  []Point3
 	// What every obstacle needs of each stretch between samples, found
-	// once (prepare): the box holding its four ends, how far the ends
-	// move, and the largest half movement between moments (ErrorBoundM).
-	lo, hi []Point3
-	move   []float64
-	gap    []float64 // each stretch's boxGap from the obstacle being checked
-	errM   float64
+	// once (prepare): how far the ends move, and the largest half
+	// movement between moments (ErrorBoundM).
+	move []float64
+	gap  []float64 // each stretch's boxGap from the obstacle being checked (blockGaps)
+	errM float64
+	// Each block of lineBlock stretches (see firstStretch).
+	blocks []stretchBlock
 	// The clearance at sample i from the obstacle being checked, val[i],
 	// is known when seen[i] == gen (gen counts the obstacles).
 	val  []float64
@@ -26,10 +27,15 @@ type RopeLine struct {
 // reuse makes l the line name over the samples at timeS in its own
 // memory: its ends (to be filled in) and what it prepares. gen goes on
 // counting, so no sample is taken as checked against the obstacle.
+// Not inlined: Go inlines it into linesInto's every line otherwise, a
+// kilobyte and a half of the page's wasm for no time to speak of.
+//
+//go:noinline
 func (l *RopeLine) reuse(name string, timeS []float64) {
 	n := len(timeS)
 	l.Name, l.TimeS, l.A, l.B = name, timeS, grow(l.A, n), grow(l.B, n)
-	l.lo, l.hi, l.move, l.gap, l.errM = l.lo[:0], l.hi[:0], l.move[:0], l.gap[:0], 0
+	l.move, l.gap, l.errM = l.move[:0], l.gap[:0], 0
+	l.blocks = l.blocks[:0]
 }
 
 // prepare finds each stretch's box and movement, once.
@@ -38,20 +44,50 @@ func (l *RopeLine) prepare(stepM float64) {
 	if n < 1 || len(l.move) == n {
 		return
 	}
-	l.lo, l.hi, l.move, l.gap = grow(l.lo, n), grow(l.hi, n), grow(l.move, n), grow(l.gap, n)
+	l.move, l.gap = grow(l.move, n), grow(l.gap, n)
 	if cap(l.seen) < n+1 {
 		l.val, l.seen = make([]float64, n+1), make([]int, n+1)
 	}
 	l.val, l.seen = l.val[:n+1], l.seen[:n+1]
-	for i := range n {
-		a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-		l.lo[i] = Point3{lower(lower(a0.X, b0.X), lower(a1.X, b1.X)), lower(lower(a0.Y, b0.Y), lower(a1.Y, b1.Y)), lower(lower(a0.Z, b0.Z), lower(a1.Z, b1.Z))}
-		l.hi[i] = Point3{upper(upper(a0.X, b0.X), upper(a1.X, b1.X)), upper(upper(a0.Y, b0.Y), upper(a1.Y, b1.Y)), upper(upper(a0.Z, b0.Z), upper(a1.Z, b1.Z))}
-		m := max(dist3(a0, a1), dist3(b0, b1))
-		l.move[i] = m
-		if m/2 > l.errM {
-			l.errM = max(l.errM, m/float64(moments(m, stepM))/2)
+	// Each block's box (see firstStretch) holds the boxes of its
+	// stretches' ends: its samples and the next block's first. A
+	// stretch's own box is found only where its block is opened
+	// (blockGaps).
+	l.blocks = grow(l.blocks, (n+lineBlock-1)/lineBlock)
+	var a0, b0, blo, bhi Point3
+	for k := range n + 1 {
+		a1, b1 := l.A[k], l.B[k]
+		lo1 := Point3{lower(a1.X, b1.X), lower(a1.Y, b1.Y), lower(a1.Z, b1.Z)}
+		hi1 := Point3{upper(a1.X, b1.X), upper(a1.Y, b1.Y), upper(a1.Z, b1.Z)}
+		if k%lineBlock == 0 && k < n {
+			if k > 0 { // the last sample of the block before
+				blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
+				bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
+				l.blocks[k/lineBlock-1].lo, l.blocks[k/lineBlock-1].hi = blo, bhi
+			}
+			blo, bhi = lo1, hi1
+		} else {
+			blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
+			bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
 		}
+		if k == n {
+			l.blocks[(n-1)/lineBlock].lo, l.blocks[(n-1)/lineBlock].hi = blo, bhi
+		}
+		if k > 0 {
+			i := k - 1
+			// upper is max here: a distance is never a negative zero (a
+			// square root of a sum of squares), and upper keeps a NaN as
+			// max does (in wasm max is a call).
+			m := upper(dist3(a0, a1), dist3(b0, b1))
+			l.move[i] = m
+			if m/2 > l.errM {
+				// upper is max here: neither is NaN (m/2 is above
+				// errM) and errM is never a negative zero (it starts
+				// at +0; a distance over a count is at least +0).
+				l.errM = upper(l.errM, m/float64(moments(m, stepM))/2)
+			}
+		}
+		a0, b0 = a1, b1
 	}
 }
 
@@ -75,6 +111,7 @@ func (l *RopeLine) prepare(stepM float64) {
 // strike is found), and then only at the moments that the clearance at
 // moments already checked and the ends' movement leave in question
 // (lineWatch.stretch). The stretch with the least bound is checked first.
+// The bounds are found a block of stretches at a time (ropeblocks.go).
 // The answer (smallest clearance, the first moment with it, the first
 // strike) is that of checking every stretch (TestAlongLinesSkipsNothing).
 // Closest.Line names the line nearest, FirstStrikeLine the line of the
@@ -99,25 +136,26 @@ func (o *Obstacle) alongLine(l *RopeLine, stepM float64, lo, hi Point2, c *Close
 		return
 	}
 	if n == 1 {
-		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM)
+		o.offerLine(c, l.Name, l.TimeS[0], l.A[0], l.B[0], stepM, lo, hi)
 		return
 	}
 	l.prepare(stepM)
 	l.gen++ // a new obstacle: no sample checked against it yet
-	w := lineWatch{o: o, l: l, c: c, stepM: stepM, every: every}
+	w := lineWatch{o: o, l: l, c: c, stepM: stepM, lo: lo, hi: hi, every: every}
 	c.ErrorBoundM = max(c.ErrorBoundM, l.errM)
-	first, least := 0, math.Inf(1)
-	for i := range n - 1 {
-		b := boxGap(lo, hi, o.TopM, l.lo[i], l.hi[i])
-		l.gap[i] = b
-		if b < least {
-			first, least = i, b
-		}
-	}
+	first := l.firstStretch(lo, hi, o.TopM, every)
 	w.stretch(first)
-	for i := range n - 1 {
-		if i != first && (every || l.gap[i] <= atLeast0(c.ClearanceM)) {
-			w.stretch(i)
+	for k := range l.blocks {
+		if !every && l.blocks[k].gap > atLeast0(c.ClearanceM) {
+			// Every stretch of the block is at least as far (see
+			// firstStretch), so none is at most the clearance.
+			continue
+		}
+		s, e := l.blockGaps(k, lo, hi, o.TopM)
+		for i := s; i < e; i++ {
+			if i != first && (every || l.gap[i] <= atLeast0(c.ClearanceM)) {
+				w.stretch(i)
+			}
 		}
 	}
 }
@@ -128,14 +166,20 @@ type lineWatch struct {
 	l     *RopeLine
 	c     *Closest
 	stepM float64
+	lo    Point2 // the outline's box (outlineBox)
+	hi    Point2
 	every bool
+	// the stretch being checked (stretch): from sample i, its ends'
+	// movement m, its grid of k moments
+	i, k int
+	m    float64
 }
 
 // sample is the clearance at sample i, checked once.
 func (w *lineWatch) sample(i int) float64 {
 	l := w.l
 	if l.seen[i] != l.gen {
-		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM), l.gen
+		l.val[i], l.seen[i] = w.o.offerLine(w.c, l.Name, l.TimeS[i], l.A[i], l.B[i], w.stepM, w.lo, w.hi), l.gen
 	}
 	return l.val[i]
 }
@@ -151,32 +195,34 @@ func (w *lineWatch) sample(i int) float64 {
 // zero, for every strike), so the moments left out cannot change the
 // answer: it is that of every moment of the grid.
 func (w *lineWatch) stretch(i int) {
-	l := w.l
-	a0, b0, a1, b1 := l.A[i], l.B[i], l.A[i+1], l.B[i+1]
-	m := l.move[i]
-	k := moments(m, w.stepM)
-	t0, t1 := l.TimeS[i], l.TimeS[i+1]
-	var half func(j0, j1 int, v0, v1 float64)
-	half = func(j0, j1 int, v0, v1 float64) {
-		if j1-j0 < 2 {
-			return
-		}
+	w.i, w.m = i, w.l.move[i]
+	w.k = moments(w.m, w.stepM)
+	w.half(0, w.k, w.sample(i), w.sample(i+1))
+}
+
+// half checks the moments strictly between j0 and j1 of the grid of the
+// stretch being checked (w.i, w.m, w.k), whose clearances are v0 and v1,
+// the first half before the second (see stretch). A method, not a
+// closure: in wasm a closure's call costs more.
+func (w *lineWatch) half(j0, j1 int, v0, v1 float64) {
+	l, i, m, k := w.l, w.i, w.m, w.k
+	for j1-j0 >= 2 {
 		if !w.every && (v0+v1-m*float64(j1-j0)/float64(k))/2 > atLeast0(w.c.ClearanceM) {
 			return
 		}
 		j := (j0 + j1) / 2
 		f := float64(j) / float64(k)
-		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(a0, a1, f), lerp3(b0, b1, f), w.stepM)
-		half(j0, j, v0, v)
-		half(j, j1, v, v1)
+		t0, t1 := l.TimeS[i], l.TimeS[i+1]
+		v := w.o.offerLine(w.c, l.Name, t0+f*(t1-t0), lerp3(l.A[i], l.A[i+1], f), lerp3(l.B[i], l.B[i+1], f), w.stepM, w.lo, w.hi)
+		w.half(j0, j, v0, v)
+		j0, v0 = j, v // then the second half
 	}
-	half(0, k, w.sample(i), w.sample(i+1))
 }
 
 // offerLine checks the line from a to b at the moment t, and returns its
-// clearance.
-func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, stepM float64) float64 {
-	v, at, strikes := o.SegmentClearance(a, b, stepM)
+// clearance (lo, hi: the outline's box).
+func (o *Obstacle) offerLine(c *Closest, name string, t float64, a, b Point3, stepM float64, lo, hi Point2) float64 {
+	v, at, strikes := o.segmentClearance(a, b, stepM, lo, hi)
 	if v < c.ClearanceM || (v == c.ClearanceM && t < c.TimeS) {
 		c.ClearanceM, c.TimeS, c.At, c.Line = v, t, at, name
 	}

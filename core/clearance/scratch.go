@@ -15,11 +15,15 @@ type scratch struct {
 	cum    []float64
 	plan   []float64
 	coarse []int
+	vsds   []float64 // an obstacle's figures at the coarse samples (pathLengths.vs, ds)
 	points []Point2
 	d, low []float64
 	bound  []float64
+	seg    []int32
 	cover  []bool
-	hist   []float64 // the run's time histories (sway.Options.HistoryBuffer)
+	groups []pathGroup // the sweep's groups of the path's pieces
+	inner  []int       // the sweep's inner capsules' cells, row by row
+	hist   []float64   // the run's time histories (sway.Options.HistoryBuffer)
 }
 
 var scratches = sync.Pool{New: func() any { return new(scratch) }}

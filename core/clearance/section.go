@@ -44,10 +44,17 @@ func (k *track) length() float64 {
 // distance is how far along the track p is: the arc length to the track's
 // point nearest to p, carried on straight beyond the ends.
 func (k *track) distance(p Point2) float64 {
+	d, _ := k.along(p, -1)
+	return d
+}
+
+// along is distance with the search for the nearest segment begun at
+// segment s (see nearest.closestFrom; s < 0: none), and that segment.
+func (k *track) along(p Point2, s int) (float64, int) {
 	if len(k.pts) < 2 {
-		return 0
+		return 0, 0
 	}
-	_, s := k.near.closest(p)
+	_, s = k.near.closestFrom(p, s)
 	a, b := k.pts[s], k.pts[s+1]
 	l := k.cum[s+1] - k.cum[s]
 	u := ((p.X-a.X)*(b.X-a.X) + (p.Y-a.Y)*(b.Y-a.Y)) / l
@@ -59,7 +66,7 @@ func (k *track) distance(p Point2) float64 {
 	if s+2 < len(k.pts) && u > l {
 		u = l
 	}
-	return k.cum[s] + u
+	return k.cum[s] + u, s
 }
 
 // sectionOf builds the vertical section: the nominal run, the bands of
@@ -93,8 +100,10 @@ func (k *track) runSection(run *Run, h, r float64) (d, low []float64) {
 func (k *track) runSectionInto(run *Run, h, r float64, sc *scratch) (d, low []float64) {
 	sc.d, sc.low = grow(sc.d, len(run.TimeS)), grow(sc.low, len(run.TimeS))
 	d, low = sc.d, sc.low
+	s := -1 // the segment nearest the sample before: the next search's start
 	for i := range run.TimeS {
-		d[i], low[i] = k.distance(run.centre(i, h).Plan()), run.LowM(i, h, r)
+		d[i], s = k.along(run.centre(i, h).Plan(), s)
+		low[i] = run.LowM(i, h, r)
 	}
 	return d, low
 }
@@ -104,14 +113,10 @@ func (k *track) runSectionInto(run *Run, h, r float64, sc *scratch) (d, low []fl
 func sectionFrom(site *Site, nominal *Run, trk *track, bins map[int]runBins, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	sec := Section{PathLengthM: trk.length(), SuspensionHeightM: h, Obstacles: []SectionObstacle{}}
-	dist := func(run *Run) []float64 {
-		out := make([]float64, len(run.TimeS))
-		for i := range run.TimeS {
-			out[i] = trk.distance(run.centre(i, h).Plan())
-		}
-		return out
+	nd, s := make([]float64, len(nominal.TimeS)), -1
+	for i := range nominal.TimeS {
+		nd[i], s = trk.along(nominal.centre(i, h).Plan(), s)
 	}
-	nd := dist(nominal)
 	for i, t := range nominal.TimeS {
 		sec.Nominal = append(sec.Nominal, SectionPoint{TimeS: t, DistanceM: nd[i],
 			LowM: nominal.LowM(i, h, r), HookM: nominal.HookM(i, h)})
