@@ -34,7 +34,14 @@ func (m *fastModel) steadyAir() {
 	m.steady = m.segB-d >= lo && m.segA+d <= hi && (x1 < 0 || x0 >= a.RampS) &&
 		(a.DurationS <= 0 || x3 < 0 || x2 >= a.RampS)
 	if m.steady {
-		sv := a.Strength(lo)
+		// Air.Strength's value over the segment, from its branches there.
+		sv := 0.0
+		if x0 >= a.RampS {
+			sv = 1
+		}
+		if a.DurationS > 0 && x2 >= a.RampS {
+			sv--
+		}
 		f, im := sv*sv*a.ForceN, 1/m.mass
 		m.airX, m.airY, m.rz = im*(f*a.Dir.X), im*(f*a.Dir.Y), -m.g+im*(f*a.Dir.Z)
 	}
