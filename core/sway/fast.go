@@ -55,6 +55,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		if opt.Budget != nil && opt.Budget.Left() < 0 {
 			return nil, nil, Stats{}, &WorkError{Message: opt.Budget.message}
 		}
+		if opt.kinSamples {
+			su.fast.airTravel = false
+		}
 		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec,
 			pathOnly: opt.PathOnly && hist != nil, kinSamples: opt.kinSamples}
 		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
@@ -225,16 +228,17 @@ func (s *fastScan) emit(t0, t1 float64) {
 // square root rather than math.Hypot (Go code in wasm, where this runs
 // for every one of the 601 samples; the two differ in the last bits).
 //
-// On travel moves alone (fastModel.travel, the commonest case) the
-// suspension point's position and acceleration are read from the
-// segment's spans here, the rope length being l0 (l0 - 0) and its second
-// rate -0 (-(0)), as kinOf and rel give them: the same bits, without
-// the two calls and the whole kin made and copied for every sample
-// (fasthistory_test.go holds the two ways together).
+// On travel moves alone (fastModel.travel, the commonest case, and with
+// a steady air, fastModel.steady) the suspension point's position and
+// acceleration are read from the segment's spans here, the rope length
+// being l0 (l0 - 0) and its second rate -0 (-(0)), as kinOf and rel give
+// them, with the air's share kept by steadyAir: the same bits, without
+// the calls and the whole kin made and copied for every sample
+// (fasthistory_test.go and fastair_test.go hold the two ways together).
 func (s *fastScan) recordState(t float64, y *[6]float64) {
 	m := s.m
 	var px, py, l, ddl, rx, ry, rz float64
-	if m.travel && !s.kinSamples {
+	if (m.travel || m.steady && t <= m.airTo) && !s.kinSamples {
 		var ax, ay float64
 		if len(m.x) > 0 {
 			px, _, ax = m.sx.at(t)
@@ -244,6 +248,9 @@ func (s *fastScan) recordState(t float64, y *[6]float64) {
 		}
 		l, ddl = m.l0, math.Copysign(0, -1)
 		rx, ry, rz = -ax, -ay, -m.g
+		if m.steady {
+			rx, ry, rz = rx+m.airX, ry+m.airY, m.rz
+		}
 	} else {
 		k := m.kinOf(t, false)
 		rx, ry, rz = m.rel(t, &k, y)

@@ -16,16 +16,8 @@ import (
 // every example and reference scenario the specialised path takes with
 // travel moves only, at the default and the tight accuracy.
 func TestTravelSamplesAsKin(t *testing.T) {
-	var files []string
-	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios"} {
-		fs, err := filepath.Glob(filepath.Join("..", "..", dir, "*.json"))
-		if err != nil {
-			t.Fatal(err)
-		}
-		files = append(files, fs...)
-	}
 	travel := 0
-	for _, file := range files {
+	for _, file := range scenarioFiles(t) {
 		data, err := os.ReadFile(file)
 		if err != nil {
 			t.Fatal(err)
@@ -52,22 +44,42 @@ func TestTravelSamplesAsKin(t *testing.T) {
 			if err != nil {
 				t.Fatalf("%s: %v", file, err)
 			}
-			a, b := direct.History.series(), viaKin.History.series()
-			for k := range a {
-				if len(*a[k]) != len(*b[k]) {
-					t.Fatalf("%s (%s): series %d has %d samples, through kinOf %d", file, acc, k, len(*a[k]), len(*b[k]))
-				}
-				for i, v := range *a[k] {
-					if w := (*b[k])[i]; math.Float64bits(v) != math.Float64bits(w) {
-						t.Errorf("%s (%s): series %d sample %d is %v, through kinOf %v", file, acc, k, i, v, w)
-						break
-					}
-				}
-			}
+			sameSeriesBits(t, file+" ("+acc+")", &direct.History, &viaKin.History)
 		}
 	}
 	if travel < 3 {
 		t.Errorf("only %d scenarios with travel moves alone: the test checks too little", travel)
+	}
+}
+
+// scenarioFiles are the paths of every example and reference scenario.
+func scenarioFiles(t *testing.T) []string {
+	var files []string
+	for _, dir := range []string{"testdata/scenarios", "testdata/reference/scenarios"} {
+		fs, err := filepath.Glob(filepath.Join("..", "..", dir, "*.json"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		files = append(files, fs...)
+	}
+	return files
+}
+
+// sameSeriesBits fails the test unless every series of a and b (b taken
+// through kinOf) has the same samples, bit for bit.
+func sameSeriesBits(t *testing.T, what string, a, b *History) {
+	t.Helper()
+	sa, sb := a.series(), b.series()
+	for k := range sa {
+		if len(*sa[k]) != len(*sb[k]) || len(*sa[k]) == 0 {
+			t.Fatalf("%s: series %d has %d samples, through kinOf %d", what, k, len(*sa[k]), len(*sb[k]))
+		}
+		for i, v := range *sa[k] {
+			if w := (*sb[k])[i]; math.Float64bits(v) != math.Float64bits(w) {
+				t.Errorf("%s: series %d sample %d is %v, through kinOf %v", what, k, i, v, w)
+				break
+			}
+		}
 	}
 }
 

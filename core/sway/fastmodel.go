@@ -20,6 +20,7 @@ type fastModel struct {
 	slewing                   bool    // the suspension point is on a slewing arm
 	hoisting                  bool    // the rope length changes
 	travel                    bool    // travel moves only: neither of the two above, no air
+	airTravel                 bool    // travel moves only, with wind, no drag (steadyAir)
 	air                       *Air    // wind and drag; nil: none
 	r0, phi0, l0              float64 // radius, slew angle and rope length at rest at the start
 	il                        float64 // 1/l0
@@ -29,6 +30,10 @@ type fastModel struct {
 	// segment), and its ends.
 	sx, sy, ss, sr, sh span
 	segA, segB         float64
+	// The air's share of the applied acceleration, when it is the same
+	// over the segment (steadyAir): ax, ay and az - g, up to airTo.
+	steady                bool
+	airX, airY, rz, airTo float64
 }
 
 // newFastModel builds the specialised model from the summed profiles of
@@ -67,7 +72,10 @@ func newFastModel(ax *crane.Drives, l0 float64, at crane.Start, mass float64, ai
 		}
 		*tab = flatten(comps)
 	}
-	m.travel = !(m.slewing || m.hoisting || air != nil)
+	m.travel = !(m.slewing || m.hoisting)
+	if air != nil {
+		m.airTravel, m.travel = m.travel && air.DragK == 0, false
+	}
 	return m
 }
 
@@ -86,6 +94,9 @@ func (m *fastModel) segment(a, b float64) {
 	m.sx, m.sy = m.x.spanAt(mid), m.y.spanAt(mid)
 	m.ss, m.sr, m.sh = m.slew.spanAt(mid), m.radius.spanAt(mid), m.hoist.spanAt(mid)
 	m.segA, m.segB = a, b
+	if m.airTravel {
+		m.steadyAir()
+	}
 }
 
 // airTime is t moved a hair inside the segment, as scanner.inSegment does
@@ -260,10 +271,21 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 		dy[5] = rz*il + cn*y[2]
 		return
 	}
-	rx, ry, rz, l, dl, _ := m.relAt(t, y)
+	var rx, ry, rz, il, dl float64
+	if m.steady && t <= m.airTo {
+		// Travel moves with a steady air (steadyAir): relAt's values
+		// without the air evaluated, the rope's length l0 (1/l0 is il)
+		// and rate -0 as relAt gives them.
+		rx, ry = m.travelRel(t)
+		rx, ry, rz = rx+m.airX, ry+m.airY, m.rz
+		il, dl = m.il, math.Copysign(0, -1)
+	} else {
+		var l float64
+		rx, ry, rz, l, dl, _ = m.relAt(t, y)
+		il = 1 / l
+	}
 	radial := rx*y[0] + ry*y[1] + rz*y[2]
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
-	il := 1 / l
 	cn := -radial*il - uu
 	cu := -2 * dl * il
 	dy[0], dy[1], dy[2] = y[3], y[4], y[5]

@@ -170,7 +170,8 @@ type Options struct {
 	// its next run.
 	HistoryBuffer *[]float64
 	// kinSamples makes the specialised path take every history sample
-	// through kinOf, as on moves other than travel (for tests).
+	// through kinOf, as on moves other than travel, and on travel moves
+	// with air the right-hand side too, as with other moves (for tests).
 	kinSamples bool
 }
 
