@@ -59,19 +59,15 @@ func (l *RopeLine) prepare(stepM float64) {
 		a1, b1 := l.A[k], l.B[k]
 		lo1 := Point3{lower(a1.X, b1.X), lower(a1.Y, b1.Y), lower(a1.Z, b1.Z)}
 		hi1 := Point3{upper(a1.X, b1.X), upper(a1.Y, b1.Y), upper(a1.Z, b1.Z)}
-		if k%lineBlock == 0 && k < n {
-			if k > 0 { // the last sample of the block before
-				blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
-				bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
-				l.blocks[k/lineBlock-1].lo, l.blocks[k/lineBlock-1].hi = blo, bhi
-			}
-			blo, bhi = lo1, hi1
-		} else {
+		if k > 0 { // sample k is the last of the block before, or within it
 			blo = Point3{lower(blo.X, lo1.X), lower(blo.Y, lo1.Y), lower(blo.Z, lo1.Z)}
 			bhi = Point3{upper(bhi.X, hi1.X), upper(bhi.Y, hi1.Y), upper(bhi.Z, hi1.Z)}
 		}
-		if k == n {
-			l.blocks[(n-1)/lineBlock].lo, l.blocks[(n-1)/lineBlock].hi = blo, bhi
+		if k == n || (k > 0 && k%lineBlock == 0) { // the block before is whole
+			l.blocks[(k-1)/lineBlock].lo, l.blocks[(k-1)/lineBlock].hi = blo, bhi
+		}
+		if k%lineBlock == 0 && k < n { // a block starts at sample k
+			blo, bhi = lo1, hi1
 		}
 		if k > 0 {
 			i := k - 1

@@ -113,13 +113,10 @@ func (k *track) runSectionInto(run *Run, h, r float64, sc *scratch) (d, low []fl
 func sectionFrom(site *Site, nominal *Run, trk *track, bins map[int]runBins, e50, e95 *Envelope, reps []ObstacleReport, where []Closest) Section {
 	h, r := site.SuspensionHeightM, site.LoadRadiusM
 	sec := Section{PathLengthM: trk.length(), SuspensionHeightM: h, Obstacles: []SectionObstacle{}}
-	nd, s := make([]float64, len(nominal.TimeS)), -1
-	for i := range nominal.TimeS {
-		nd[i], s = trk.along(nominal.centre(i, h).Plan(), s)
-	}
+	nd, lows := trk.runSection(nominal, h, r)
 	for i, t := range nominal.TimeS {
 		sec.Nominal = append(sec.Nominal, SectionPoint{TimeS: t, DistanceM: nd[i],
-			LowM: nominal.LowM(i, h, r), HookM: nominal.HookM(i, h)})
+			LowM: lows[i], HookM: nominal.HookM(i, h)})
 	}
 	bin := sectionBin(sec.PathLengthM)
 	sec.Envelope50 = band(e50, bins, bin)
