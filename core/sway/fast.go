@@ -3,12 +3,10 @@ package sway
 import (
 	"errors"
 	"fmt"
-	"math"
 
 	"swaysheet/core/internal/sorts"
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
-	"swaysheet/core/units"
 )
 
 // The specialised path. A scenario with one rope (no hook block) whose
@@ -115,7 +113,7 @@ type fastScan struct {
 	v             fastSolver
 	constraintErr float64
 	pathOnly      bool // no peak search (Options.PathOnly)
-	kinSamples    bool // every history sample through kinOf (Options.kinSamples)
+	kinSamples    bool // every history sample the plain way (Options.kinSamples)
 }
 
 func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
@@ -202,79 +200,4 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		s.recordState(tEnd, &s.v.y)
 	}
 	return nil
-}
-
-// emit records the history samples that fall in (t0, t1].
-func (s *fastScan) emit(t0, t1 float64) {
-	for s.hist != nil && s.next < s.samples {
-		tt := float64(s.next) * s.sampleDt
-		if tt > t1 {
-			return
-		}
-		at := tt // in the step: a plain comparison, as the builtin max of floats is a call in wasm
-		if at < t0 {
-			at = t0
-		}
-		var y [6]float64
-		s.v.dense(at, &y)
-		project(&y)
-		s.recordState(tt, &y)
-	}
-}
-
-// recordState writes the history sample of state y at t: the fields of
-// recorder.record, computed from the state as point does, without the
-// pendulum.Point between, and the swing angle's horizontal part by a
-// square root rather than math.Hypot (Go code in wasm, where this runs
-// for every one of the 601 samples; the two differ in the last bits).
-//
-// On travel moves alone (fastModel.travel, the commonest case, and with
-// a steady air, fastModel.steady) the suspension point's position and
-// acceleration are read from the segment's spans here, the rope length
-// being l0 (l0 - 0) and its second rate -0 (-(0)), as kinOf and rel give
-// them, with the air's share kept by steadyAir: the same bits, without
-// the calls and the whole kin made and copied for every sample
-// (fasthistory_test.go and fastair_test.go hold the two ways together).
-func (s *fastScan) recordState(t float64, y *[6]float64) {
-	m := s.m
-	var px, py, l, ddl, rx, ry, rz float64
-	if (m.travel || m.steady && t <= m.airTo) && !s.kinSamples {
-		var ax, ay float64
-		if len(m.x) > 0 {
-			px, _, ax = m.sx.at(t)
-		}
-		if len(m.y) > 0 {
-			py, _, ay = m.sy.at(t)
-		}
-		l, ddl = m.l0, math.Copysign(0, -1)
-		rx, ry, rz = -ax, -ay, -m.g
-		if m.steady {
-			rx, ry, rz = rx+m.airX, ry+m.airY, m.rz
-		}
-	} else {
-		k := m.kinOf(t, false)
-		rx, ry, rz = m.rel(t, &k, y)
-		px, py, l, ddl = k.px, k.py, k.l, k.ddl
-	}
-	h, i := s.hist, s.next
-	lx, ly, lz := px+l*y[0], py+l*y[1], l*y[2]
-	dx, dy := lx-px, ly-py
-	// Written in place (the series are at full length from the start,
-	// sized): an append writes each slice's length back besides.
-	h.TimeS[i] = float64(i) * s.sampleDt
-	h.SwingDeg[i] = swingAtan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
-	h.RelXM[i], h.RelYM[i], h.RelZM[i] = dx, dy, lz
-	h.LoadXM[i], h.LoadYM[i] = lx, ly
-	h.SuspensionXM[i], h.SuspensionYM[i] = px, py
-	h.TensionN[i] = m.tension(rx, ry, rz, l, ddl, y)
-	h.RopeM[i] = l
-	s.next++
-}
-
-// sized puts every series of the history at n samples (reserve made the
-// room), for recordState to write in place.
-func (h *History) sized(n int) {
-	for _, c := range h.series() {
-		*c = (*c)[:n]
-	}
 }

@@ -5,7 +5,7 @@ package sway
 // between restarts, without drag (fastModel.airTravel, fastModel.steady;
 // the clearance check's runs of a gust). The air's share of the applied
 // acceleration is then one constant of the segment, which rhs and the
-// history (fastScan.recordState) add to the suspension point's -S¨
+// history (fastScan.emit) add to the suspension point's -S¨
 // without evaluating the air: the same operations on the same values as
 // the general way through relAt, kinOf, rel and Air.Force (four calls for
 // every evaluation, each dear in wasm), which TestAirTravelAsKin holds

@@ -38,20 +38,7 @@ func TestAirTravelAsKin(t *testing.T) {
 			ramp++
 		}
 		steady += steadySegments(su)
-		for _, acc := range accs {
-			s.Settings = &scenario.Settings{Accuracy: acc}
-			for _, pathOnly := range []bool{false, true} {
-				direct, err := EvaluateWith(s, Options{PathOnly: pathOnly})
-				if err != nil {
-					t.Fatalf("%s: %v", what, err)
-				}
-				viaKin, err := EvaluateWith(s, Options{PathOnly: pathOnly, kinSamples: true})
-				if err != nil {
-					t.Fatalf("%s: %v", what, err)
-				}
-				sameResultBits(t, fmt.Sprintf("%s (%s, path only %v)", what, acc, pathOnly), direct, viaKin)
-			}
-		}
+		sameAsPlain(t, s, what, accs...)
 	}
 	for _, file := range scenarioFiles(t) {
 		data, err := os.ReadFile(file)

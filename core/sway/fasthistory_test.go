@@ -1,22 +1,30 @@
 package sway
 
 import (
+	"fmt"
 	"math"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
 	"testing"
 
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 )
 
-// TestTravelSamplesAsKin: on travel moves alone the specialised path
-// writes each history sample from the segment's spans directly
-// (fastScan.recordState); taken through kinOf and rel instead, as for
-// every other move, every sample of every series is the same bits, on
-// every example and reference scenario the specialised path takes with
-// travel moves only, at the default and the tight accuracy.
-func TestTravelSamplesAsKin(t *testing.T) {
-	travel := 0
+// TestSamplesAsPlain: on travel moves alone the specialised path writes
+// the history samples of each step in one loop (fastScan.emit), with the
+// dense output and the projection written out and the suspension point
+// read from the segment's spans; taken the plain way instead
+// (Options.kinSamples: fastSolver.dense, project, and kinOf and rel for
+// every sample), the result is the same bits, every figure and every
+// sample of every series, of the full evaluation and of the path alone
+// (Options.PathOnly), on every example and reference scenario the
+// specialised path takes with travel moves alone, in still air and in
+// wind, at the default and the tight accuracy (TestAirTravelAsKin takes
+// the wind further: set in at other times, ramped, blowing every way).
+func TestSamplesAsPlain(t *testing.T) {
+	still, windy := 0, 0
 	for _, file := range scenarioFiles(t) {
 		data, err := os.ReadFile(file)
 		if err != nil {
@@ -30,25 +38,77 @@ func TestTravelSamplesAsKin(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: %v", file, err)
 		}
-		if su.fast == nil || !su.fast.travel {
+		switch {
+		case su.fast == nil:
 			continue
+		case su.fast.travel:
+			still++
+		case su.fast.airTravel:
+			windy++
+		default:
+			continue // slews and hoists: the plain way either way
 		}
-		travel++
-		for _, acc := range []string{"default", "tight"} {
-			s.Settings = &scenario.Settings{Accuracy: acc}
-			direct, err := EvaluateWith(s, Options{})
+		sameAsPlain(t, s, file, "default", "tight")
+	}
+	if still < 3 || windy < 1 {
+		t.Errorf("%d scenarios with travel moves alone in still air and %d in wind: the test checks too little", still, windy)
+	}
+}
+
+// sameAsPlain fails the test unless s evaluates to the same bits, every
+// figure and every sample, with its history samples (and on travel moves
+// with air the right-hand side) taken the plain way (Options.kinSamples),
+// in full and the path alone, at each accuracy setting given.
+func sameAsPlain(t *testing.T, s *scenario.Scenario, what string, accs ...string) {
+	t.Helper()
+	for _, acc := range accs {
+		s.Settings = &scenario.Settings{Accuracy: acc}
+		for _, pathOnly := range []bool{false, true} {
+			direct, err := EvaluateWith(s, Options{PathOnly: pathOnly})
 			if err != nil {
-				t.Fatalf("%s: %v", file, err)
+				t.Fatalf("%s: %v", what, err)
 			}
-			viaKin, err := EvaluateWith(s, Options{kinSamples: true})
+			plain, err := EvaluateWith(s, Options{PathOnly: pathOnly, kinSamples: true})
 			if err != nil {
-				t.Fatalf("%s: %v", file, err)
+				t.Fatalf("%s: %v", what, err)
 			}
-			sameSeriesBits(t, file+" ("+acc+")", &direct.History, &viaKin.History)
+			sameResultBits(t, fmt.Sprintf("%s (%s, path only %v)", what, acc, pathOnly), direct, plain)
 		}
 	}
-	if travel < 3 {
-		t.Errorf("only %d scenarios with travel moves alone: the test checks too little", travel)
+}
+
+// TestProjectedIsProject: projected, the projection written out on plain
+// numbers (the specialised path's), gives pendulum.Project's bits, and
+// project its constraint error, on states off the constraint by up to a
+// few per cent, near it and exactly on it.
+func TestProjectedIsProject(t *testing.T) {
+	r := rand.New(rand.NewPCG(5, 6))
+	for k := range 20000 {
+		var y [6]float64
+		for i := range y {
+			y[i] = r.NormFloat64()
+		}
+		if k%3 == 0 {
+			pendulum.Project(y[:]) // on the constraint
+		}
+		if k%3 == 1 {
+			pendulum.Project(y[:]) // near it
+			for i := range 3 {
+				y[i] *= 1 + 1e-9*r.NormFloat64()
+			}
+		}
+		want := y
+		errWant := pendulum.Project(want[:])
+		got := y
+		errGot := project(&got)
+		for i := range y {
+			if math.Float64bits(got[i]) != math.Float64bits(want[i]) {
+				t.Fatalf("state %v: component %d projected is %v, pendulum.Project %v", y, i, got[i], want[i])
+			}
+		}
+		if math.Float64bits(errGot) != math.Float64bits(errWant) {
+			t.Fatalf("state %v: constraint error %v, pendulum.Project %v", y, errGot, errWant)
+		}
 	}
 }
 
@@ -66,7 +126,7 @@ func scenarioFiles(t *testing.T) []string {
 }
 
 // sameSeriesBits fails the test unless every series of a and b (b taken
-// through kinOf) has the same samples, bit for bit.
+// the plain way, through kinOf) has the same samples, bit for bit.
 func sameSeriesBits(t *testing.T, what string, a, b *History) {
 	t.Helper()
 	sa, sb := a.series(), b.series()
@@ -88,50 +148,94 @@ func sameSeriesBits(t *testing.T, what string, a, b *History) {
 // step of a run: the peak search reads the swing and the excursion from
 // either (measureDense).
 func TestDenseBothKeepsTheState(t *testing.T) {
-	data, err := os.ReadFile(filepath.Join("..", "..", "testdata", "scenarios", "diagonal-travel.json"))
+	steps := eachStep(t, "diagonal-travel.json", func(s *fastScan) {
+		v := &s.v
+		for k := range 9 {
+			at := v.told + float64(k)/8*(v.t-v.told)
+			var a, b, bd [6]float64
+			v.dense(at, &a)
+			v.denseBoth(at, &b, &bd)
+			for i := range a {
+				if math.Float64bits(a[i]) != math.Float64bits(b[i]) {
+					t.Fatalf("at %v: component %d is %v from dense, %v from denseBoth", at, i, a[i], b[i])
+				}
+			}
+		}
+	})
+	if steps < 100 {
+		t.Errorf("only %d steps checked", steps)
+	}
+}
+
+// TestMeasureDenseAsMeasureAt: measureDense, which works out only the
+// quantity the peak search refines (the swing and the excursion from the
+// state alone), gives each quantity and its rate as measureAt gives them
+// on the projected dense output and its rate, bit for bit, at points
+// across every step of runs on travel moves alone, a slew, a hoist during
+// travel and a load hanging still in a gust, with drag.
+func TestMeasureDenseAsMeasureAt(t *testing.T) {
+	for _, file := range []string{"diagonal-travel.json", "tower-slew.json", "hoist-during-travel.json", "wind-gust.json"} {
+		steps := eachStep(t, file, func(s *fastScan) {
+			v := &s.v
+			for k := range 5 {
+				at := v.told + float64(k)/4*(v.t-v.told)
+				var y, yd [6]float64
+				v.denseBoth(at, &y, &yd)
+				project(&y)
+				var want measure
+				s.measureAt(at, &y, &yd, &want)
+				for q := range qRigAngle {
+					val, rate := s.measureDense(at, q)
+					if math.Float64bits(val) != math.Float64bits(want.v[q]) || math.Float64bits(rate) != math.Float64bits(want.g[q]) {
+						t.Fatalf("%s at %v: quantity %d is %v with rate %v, measureAt %v and %v", file, at, q, val, rate, want.v[q], want.g[q])
+					}
+				}
+			}
+		})
+		if steps < 50 {
+			t.Errorf("%s: only %d steps checked", file, steps)
+		}
+	}
+}
+
+// eachStep integrates the example scenario file on the specialised path
+// (its first 60 s, without the peak search or the histories) and calls
+// check after every step, with the scanner's solver at the step's end;
+// it returns the number of steps.
+func eachStep(t *testing.T, file string, check func(s *fastScan)) int {
+	t.Helper()
+	data, err := os.ReadFile(filepath.Join("..", "..", "testdata", "scenarios", file))
 	if err != nil {
 		t.Fatal(err)
 	}
-	s, err := scenario.Parse(data)
+	sc, err := scenario.Parse(data)
 	if err != nil {
 		t.Fatal(err)
 	}
-	su, err := build(s, false)
+	su, err := build(sc, false)
 	if err != nil || su.fast == nil {
-		t.Fatalf("no specialised model: %v", err)
+		t.Fatalf("%s: no specialised model: %v", file, err)
 	}
-	v := fastSolver{m: su.fast, relTol: DefaultRelTol, absTol: DefaultRelTol * 1e-2, maxSteps: 10000}
+	s := &fastScan{m: su.fast}
+	s.v = fastSolver{m: su.fast, relTol: DefaultRelTol, absTol: DefaultRelTol * 1e-2, maxSteps: 10000}
 	var y [6]float64
 	copy(y[:], su.y0)
-	cuts := restartCuts(su.breaks, 60)
 	t0, steps := 0.0, 0
-	for _, cut := range cuts {
+	for _, cut := range restartCuts(su.breaks, 60) {
 		su.fast.segment(t0, cut)
-		v.reset(t0, &y)
+		s.v.reset(t0, &y)
 		for {
-			done, err := v.step(cut)
+			done, err := s.v.step(cut)
 			if err != nil {
 				t.Fatal(err)
 			}
 			steps++
-			for k := range 9 {
-				at := v.told + float64(k)/8*(v.t-v.told)
-				var a, b, bd [6]float64
-				v.dense(at, &a)
-				v.denseBoth(at, &b, &bd)
-				for i := range a {
-					if math.Float64bits(a[i]) != math.Float64bits(b[i]) {
-						t.Fatalf("step %d at %v: component %d is %v from dense, %v from denseBoth", steps, at, i, a[i], b[i])
-					}
-				}
-			}
+			check(s)
 			if done {
 				break
 			}
 		}
-		y, t0 = v.y, cut
+		y, t0 = s.v.y, cut
 	}
-	if steps < 100 {
-		t.Errorf("only %d steps checked", steps)
-	}
+	return steps
 }

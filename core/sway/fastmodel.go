@@ -6,7 +6,6 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"swaysheet/core/crane"
-	"swaysheet/core/pendulum"
 	"swaysheet/core/units"
 )
 
@@ -295,14 +294,29 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 }
 
 // tension is the rope tension T = m [(a - S¨)·n - L¨ + L |u|²] from the
-// values relAt gives.
-func (m *fastModel) tension(rx, ry, rz, l, ddl float64, y *[6]float64) float64 {
-	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
-	return m.mass * (rx*y[0] + ry*y[1] + rz*y[2] - ddl + l*uu)
+// values relAt gives, the rope's direction n and uu = |u|².
+func (m *fastModel) tension(rx, ry, rz, l, ddl, nx, ny, nz, uu float64) float64 {
+	return m.mass * (rx*nx + ry*ny + rz*nz - ddl + l*uu)
 }
 
-// project puts y back onto |n| = 1, n·u = 0 (pendulum.Project).
-func project(y *[6]float64) float64 { return pendulum.Project(y[:]) }
+// project puts y back onto |n| = 1, n·u = 0 and returns ||n| - 1|, as
+// pendulum.Project does (projected).
+func project(y *[6]float64) float64 {
+	var norm float64
+	y[0], y[1], y[2], y[3], y[4], y[5], norm = projected(y[0], y[1], y[2], y[3], y[4], y[5])
+	return math.Abs(norm - 1)
+}
+
+// projected is pendulum.Project on a state of plain numbers, the same
+// operations in the same order (TestProjectedIsProject holds the two
+// together), so that it is written into its callers: n = y[0:3]/|y[0:3]|,
+// u = y[3:6] - (n·y[3:6]) n; norm is |y[0:3]|.
+func projected(y0, y1, y2, y3, y4, y5 float64) (n0, n1, n2, u0, u1, u2, norm float64) {
+	norm = math.Sqrt(y0*y0 + y1*y1 + y2*y2)
+	n0, n1, n2 = y0/norm, y1/norm, y2/norm
+	d := n0*y3 + n1*y4 + n2*y5
+	return n0, n1, n2, y3 - d*n0, y4 - d*n1, y5 - d*n2, norm
+}
 
 // strengthRate is the rate of Air.Strength at t: 1/ramp while the wind
 // rises, -1/ramp while it falls, zero otherwise (and for steps).

@@ -47,31 +47,47 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 		l, dl, ddl, dddl = k.l, k.dl, k.ddl, k.dddl
 		jx, jy, jz = md.relDot(t, &k, y, yd)
 	}
-	h2 := y[0]*y[0] + y[1]*y[1]
-	nl := math.Sqrt(h2 + y[2]*y[2])
-	if y[2] < 0 {
-		out.v[qSwing] = h2 / (nl * (nl - y[2]))
-	} else {
-		out.v[qSwing] = 1 + y[2]/nl
-	}
-	out.g[qSwing] = y[5]
-	out.v[qExcursion] = l * l * h2
-	out.g[qExcursion] = 2*l*dl*h2 + 2*l*l*(y[0]*y[3]+y[1]*y[4])
+	out.v[qSwing], out.g[qSwing] = swingMeasure(y)
+	out.v[qExcursion], out.g[qExcursion] = excursionMeasure(l, dl, y)
 	uu := y[3]*y[3] + y[4]*y[4] + y[5]*y[5]
-	tn := md.tension(rx, ry, rz, l, ddl, y)
+	tn := md.tension(rx, ry, rz, l, ddl, y[0], y[1], y[2], uu)
 	gt := md.mass * (jx*y[0] + jy*y[1] + jz*y[2] + rx*y[3] + ry*y[4] + rz*y[5] - dddl + dl*uu +
 		2*l*(y[3]*yd[3]+y[4]*yd[4]+y[5]*yd[5]))
 	out.v[qTension], out.g[qTension] = tn, gt
 	out.v[qTensionLow], out.g[qTensionLow] = -tn, -gt
 }
 
-// measureDense is measureAt on the dense output at t inside the last
-// step, for reading quantity q: the swing and the excursion with their
-// rates come from the state alone (measureAt reads the state's rate yd
-// for the tension's rate only), so for them the dense output's rate is
-// not made and the tensions' figures in out are not to be read. dense
-// and denseBoth give the state the same bits.
-func (s *fastScan) measureDense(t float64, q quantity, out *measure) {
+// swingMeasure is the swing's watched value 1 - cos theta of the unit
+// rope direction n = y[0:3] (written as (nx² + ny²)/(|n| (|n| - nz))
+// below the suspension point, which keeps its precision near the
+// vertical) and its rate u_z.
+func swingMeasure(y *[6]float64) (v, g float64) {
+	h2 := y[0]*y[0] + y[1]*y[1]
+	nl := math.Sqrt(h2 + y[2]*y[2])
+	if y[2] < 0 {
+		v = h2 / (nl * (nl - y[2]))
+	} else {
+		v = 1 + y[2]/nl
+	}
+	return v, y[5]
+}
+
+// excursionMeasure is the excursion's watched value L² (nx² + ny²) and
+// its rate, for the rope length l and its rate dl.
+func excursionMeasure(l, dl float64, y *[6]float64) (v, g float64) {
+	h2 := y[0]*y[0] + y[1]*y[1]
+	return l * l * h2, 2*l*dl*h2 + 2*l*l*(y[0]*y[3]+y[1]*y[4])
+}
+
+// measureDense is quantity q of measureAt, with its rate, on the dense
+// output at t inside the last step (the peak search's refinement). The
+// swing and the excursion with their rates come from the state alone, so
+// for them the dense output's rate is not made (dense and denseBoth give
+// the state the same bits) and only the quantity itself is worked out:
+// the swing from the state, the excursion with the rope length and its
+// rate as measureAt has them (l0 and +0 on travel moves alone, kinOf's
+// otherwise, which kinAt's are).
+func (s *fastScan) measureDense(t float64, q quantity) (v, g float64) {
 	var y, yd [6]float64
 	if q <= qExcursion {
 		s.v.dense(t, &y)
@@ -79,7 +95,21 @@ func (s *fastScan) measureDense(t float64, q quantity, out *measure) {
 		s.v.denseBoth(t, &y, &yd)
 	}
 	project(&y)
-	s.measureAt(t, &y, &yd, out)
+	switch q {
+	case qSwing:
+		return swingMeasure(&y)
+	case qExcursion:
+		md := s.m
+		l, dl := md.l0, 0.0
+		if !md.simple() {
+			k := md.kinOf(t, false)
+			l, dl = k.l, k.dl
+		}
+		return excursionMeasure(l, dl, &y)
+	}
+	var m measure
+	s.measureAt(t, &y, &yd, &m)
+	return m.v[q], m.g[q]
 }
 
 // offer gives a value of q at t to its trackers.
@@ -123,12 +153,11 @@ func (s *fastScan) stepPeaks(t0, t1 float64, a, b *measure, residual bool) {
 				continue
 			}
 			tm := t0 - B/(2*A)*h
-			var m measure
-			s.measureDense(tm, q, &m)
-			if g0 > 0 && m.g[q] < 0 {
-				s.peakIn(q, t0, v0, g0, tm, m.v[q], m.g[q], residual)
-			} else if g0 < 0 && m.g[q] > 0 {
-				s.peakIn(q, tm, m.v[q], m.g[q], t1, v1, g1, residual)
+			vm, gm := s.measureDense(tm, q)
+			if g0 > 0 && gm < 0 {
+				s.peakIn(q, t0, v0, g0, tm, vm, gm, residual)
+			} else if g0 < 0 && gm > 0 {
+				s.peakIn(q, tm, vm, gm, t1, v1, g1, residual)
 			}
 		}
 	}
@@ -165,9 +194,7 @@ func (s *fastScan) peakIn(q quantity, ta, va, ga, tb, vb, gb float64, residual b
 		return
 	}
 	x, v := rateRoot(ta, ga, tb, gb, 0, func(t float64) (float64, float64) {
-		var m measure
-		s.measureDense(t, q, &m)
-		return m.v[q], m.g[q]
+		return s.measureDense(t, q)
 	})
 	s.offer(q, v, x, residual)
 }
