@@ -112,7 +112,7 @@ serve: wasm
 # Seeds: every scenario file plus core/*/testdata/fuzz/. A failing input is
 # written to the package's testdata/fuzz/FuzzX/ and fails the run.
 FUZZTIME ?= 10s
-FUZZ_TARGETS := core/scenario:FuzzParse core/sway:FuzzEvaluate core/motion:FuzzParseCSV \
+FUZZ_TARGETS := core/scenario:FuzzParse core/scenario:FuzzKeyScan core/sway:FuzzEvaluate core/motion:FuzzParseCSV \
 	core/plan:FuzzPlan core/plan:FuzzPlanValues core/ropelength:FuzzParse
 fuzz:
 	@set -e; for t in $(FUZZ_TARGETS); do \

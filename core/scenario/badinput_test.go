@@ -63,3 +63,22 @@ func TestBadInput(t *testing.T) {
 		}
 	}
 }
+
+// TestValidateMotion: one move checked alone names its fields as Validate
+// does for the same move in a scenario (the planner's runs use it).
+func TestValidateMotion(t *testing.T) {
+	speed, accel, dist := 0.5, 0.2, 12.0
+	good := scenario.Motion{Axis: "travel_x", DistanceM: &dist, SpeedMPerS: &speed, AccelMPerS2: &accel}
+	if err := scenario.ValidateMotion(&good, "motions[0]"); err != nil {
+		t.Fatalf("a valid move: %v", err)
+	}
+	bad := good
+	fast := 99.0
+	bad.SpeedMPerS = &fast
+	bad.Steps = []scenario.SpeedStep{{AtS: 1}}
+	err := scenario.ValidateMotion(&bad, "motions[0]")
+	fe, ok := err.(scenario.Errors)
+	if !ok || len(fe) != 2 || fe[0].Field != "motions[0].steps" || fe[1].Field != "motions[0].speed_m_per_s" {
+		t.Fatalf("got %v, want errors at motions[0].steps and motions[0].speed_m_per_s", err)
+	}
+}

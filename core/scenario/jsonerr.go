@@ -1,8 +1,6 @@
 package scenario
 
 import (
-	"bytes"
-	"encoding/json"
 	"fmt"
 	"reflect"
 	"strings"
@@ -45,79 +43,16 @@ func typeMessage(t reflect.Type, found string) string {
 }
 
 // unknownFieldPath finds where in the file the unknown key name sits, as a
-// path like "load.colour" or "motions[1].colour". encoding/json reports the
-// key without its place; this walks the file against the Scenario type.
-// It returns name itself if the key cannot be placed.
+// path like "load.colour" or "motions[1].colour": the first such key in
+// the file, as encoding/json reports the first (without its place). It
+// returns name itself if the key cannot be placed.
 func unknownFieldPath(data []byte, name string) string {
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.UseNumber()
-	var v any
-	if dec.Decode(&v) != nil {
-		return name
-	}
-	if p, ok := findUnknown(v, reflect.TypeFor[Scenario](), "", name); ok {
-		return p
+	k := keyScan{data: data, endAt: -1, unknown: &name}
+	k.value(reflect.TypeFor[Scenario]())
+	if k.place != "" {
+		return k.place
 	}
 	return name
-}
-
-func findUnknown(v any, t reflect.Type, at, name string) (string, bool) {
-	for t.Kind() == reflect.Pointer {
-		t = t.Elem()
-	}
-	switch x := v.(type) {
-	case map[string]any:
-		if t.Kind() != reflect.Struct {
-			return "", false
-		}
-		for key, val := range x {
-			path := key
-			if at != "" {
-				path = at + "." + key
-			}
-			f, ok := fieldByTag(t, key)
-			if !ok {
-				if key == name {
-					return path, true
-				}
-				continue
-			}
-			if p, ok := findUnknown(val, f.Type, path, name); ok {
-				return p, true
-			}
-		}
-	case []any:
-		if t.Kind() != reflect.Slice {
-			return "", false
-		}
-		for i, val := range x {
-			if p, ok := findUnknown(val, t.Elem(), fmt.Sprintf("%s[%d]", at, i), name); ok {
-				return p, true
-			}
-		}
-	}
-	return "", false
-}
-
-// fieldByTag finds the struct field whose JSON name is key, matched as
-// encoding/json does (exactly, else ignoring case).
-func fieldByTag(t reflect.Type, key string) (reflect.StructField, bool) {
-	var fold reflect.StructField
-	found := false
-	for i := range t.NumField() {
-		f := t.Field(i)
-		tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-		if tag == "" {
-			tag = f.Name
-		}
-		if tag == key {
-			return f, true
-		}
-		if !found && strings.EqualFold(tag, key) {
-			fold, found = f, true
-		}
-	}
-	return fold, found
 }
 
 // pathAtOffset returns the path (like "motions[1].distance_m") of the JSON
@@ -125,64 +60,7 @@ func fieldByTag(t reflect.Type, key string) (reflect.StructField, bool) {
 // value of the wrong type (its own field name leaves out list indices). It
 // returns "" if no value ends there.
 func pathAtOffset(data []byte, off int64) string {
-	type frame struct {
-		array   bool
-		index   int
-		key     string
-		wantKey bool
-	}
-	var stack []frame
-	path := func() string {
-		var b strings.Builder
-		for i, f := range stack {
-			if f.array {
-				fmt.Fprintf(&b, "[%d]", f.index)
-				continue
-			}
-			if i > 0 {
-				b.WriteByte('.')
-			}
-			b.WriteString(f.key)
-		}
-		return b.String()
-	}
-	// valueDone moves the innermost frame past the value just read.
-	valueDone := func() {
-		if n := len(stack); n > 0 {
-			if stack[n-1].array {
-				stack[n-1].index++
-			} else {
-				stack[n-1].wantKey = true
-			}
-		}
-	}
-	dec := json.NewDecoder(bytes.NewReader(data))
-	for {
-		tok, err := dec.Token()
-		if err != nil {
-			return ""
-		}
-		if d, ok := tok.(json.Delim); ok {
-			switch d {
-			case '{', '[':
-				if dec.InputOffset() == off {
-					return path()
-				}
-				stack = append(stack, frame{array: d == '[', wantKey: d == '{'})
-			default:
-				stack = stack[:len(stack)-1]
-				valueDone()
-			}
-			continue
-		}
-		if n := len(stack); n > 0 && !stack[n-1].array && stack[n-1].wantKey {
-			stack[n-1].key, _ = tok.(string)
-			stack[n-1].wantKey = false
-			continue
-		}
-		if dec.InputOffset() == off {
-			return path()
-		}
-		valueDone()
-	}
+	k := keyScan{data: data, endAt: int(off)}
+	k.value(reflect.TypeFor[Scenario]())
+	return k.place
 }

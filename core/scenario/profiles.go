@@ -223,27 +223,28 @@ func (m *Motion) validateProfile(c *checker, at string) {
 			c.add(f("steps"), "has %d steps: accepted from 1 up to %d, the last one to speed 0", len(m.Steps), MaxSteps)
 			return
 		}
+		// Each step's field names are written only for a message: a plan
+		// checks its pendant moves at every run.
+		const stepsKey = "motions[].steps[]"
 		for i, st := range m.Steps {
 			g := func(name string) string { return fmt.Sprintf("%s.steps[%d].%s", at, i, name) }
-			c.value(g("at_s"), key("steps[].at_s"), st.AtS)
+			if !Ranges[stepsKey+".at_s"].fits(st.AtS) {
+				c.value(g("at_s"), stepsKey+".at_s", st.AtS)
+			}
 			if i > 0 && st.AtS < m.Steps[i-1].AtS {
 				c.add(g("at_s"), "%s s comes before step %d at %s s: steps must be in time order", num(st.AtS), i-1, num(m.Steps[i-1].AtS))
 			}
-			var v *float64
-			if met {
-				v = st.SpeedMPerS
-				c.required(g("speed_m_per_s"), key("steps[].speed_m_per_s"), st.SpeedMPerS)
-				c.forbidden(g("rate_deg_per_s"), st.RateDegPerS, "the "+m.Axis+" axis moves in metres; use speed_m_per_s")
-			} else {
-				v = st.RateDegPerS
-				c.required(g("rate_deg_per_s"), key("steps[].rate_deg_per_s"), st.RateDegPerS)
-				c.forbidden(g("speed_m_per_s"), st.SpeedMPerS, "the "+m.Axis+" axis moves in degrees; use rate_deg_per_s")
+			v, name, other, otherName, unit := st.SpeedMPerS, "speed_m_per_s", st.RateDegPerS, "rate_deg_per_s", "metres"
+			if !met {
+				v, name, other, otherName, unit = st.RateDegPerS, "rate_deg_per_s", st.SpeedMPerS, "speed_m_per_s", "degrees"
+			}
+			if v == nil || !Ranges[stepsKey+"."+name].fits(*v) {
+				c.required(g(name), stepsKey+"."+name, v)
+			}
+			if other != nil {
+				c.forbidden(g(otherName), other, "the "+m.Axis+" axis moves in "+unit+"; use "+name)
 			}
 			if i == len(m.Steps)-1 && v != nil && *v != 0 {
-				name := "speed_m_per_s"
-				if !met {
-					name = "rate_deg_per_s"
-				}
 				c.add(g(name), "is %s: the last step must be to 0, so that the move ends at rest", num(*v))
 			}
 		}
@@ -325,7 +326,7 @@ func (m *Motion) validateShaper(c *checker, at string) {
 		return
 	}
 	f := func(name string) string { return at + ".shaper." + name }
-	key := func(name string) string { return "motions[].shaper." + name }
+	in, keyAt := at+".shaper", "motions[].shaper"
 	switch sh.Kind {
 	case "zv", "zvd", "ei":
 	case "":
@@ -336,11 +337,11 @@ func (m *Motion) validateShaper(c *checker, at string) {
 	if sh.PeriodS != nil && sh.RopeLengthM != nil {
 		c.add(f("period_s"), "give either period_s or rope_length_m for the shaper's design, not both")
 	}
-	c.optional(f("period_s"), key("period_s"), sh.PeriodS)
-	c.optional(f("rope_length_m"), key("rope_length_m"), sh.RopeLengthM)
-	c.value(f("damping_ratio"), key("damping_ratio"), sh.DampingRatio)
-	c.value(f("tolerance_pct"), key("tolerance_pct"), sh.TolerancePct)
-	c.optional(f("second_period_s"), key("second_period_s"), sh.SecondPeriodS)
+	c.optionalIn(in, keyAt, "period_s", sh.PeriodS)
+	c.optionalIn(in, keyAt, "rope_length_m", sh.RopeLengthM)
+	c.valueIn(in, keyAt, "damping_ratio", sh.DampingRatio)
+	c.valueIn(in, keyAt, "tolerance_pct", sh.TolerancePct)
+	c.optionalIn(in, keyAt, "second_period_s", sh.SecondPeriodS)
 	if sh.Kind == "ei" && sh.DampingRatio != 0 {
 		c.add(f("damping_ratio"), "is %s: the EI shaper here is the undamped one; use 0, or shaper zv or zvd", num(sh.DampingRatio))
 	}

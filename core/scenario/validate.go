@@ -146,15 +146,42 @@ func (r Range) Text() string {
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 
+// fits reports whether v is in the range.
+func (r Range) fits(v float64) bool {
+	return !(math.IsNaN(v) || math.IsInf(v, 0) || v > r.Max || v < r.Min || (r.OpenMin && v == r.Min) ||
+		(v != 0 && math.Abs(v) < r.MinAbs))
+}
+
 // value checks v against the range named key and reports it under field.
 func (c *checker) value(field, key string, v float64) {
 	r, ok := Ranges[key]
 	if !ok {
 		panic("scenario: no range for " + key)
 	}
-	if math.IsNaN(v) || math.IsInf(v, 0) || v > r.Max || v < r.Min || (r.OpenMin && v == r.Min) ||
-		(v != 0 && math.Abs(v) < r.MinAbs) {
+	if !r.fits(v) {
 		c.add(field, "%s is out of range: %s", num(v), r.Text())
+	}
+}
+
+// valueIn, requiredIn and optionalIn are value, required and optional for
+// the field name of the object at the JSON path at ("motions[0]") with
+// the range keyed keyAt+"."+name ("motions[]"): the path is joined only
+// for a message, as a plan checks its moves at every run.
+func (c *checker) valueIn(at, keyAt, name string, v float64) {
+	if !Ranges[keyAt+"."+name].fits(v) {
+		c.value(at+"."+name, keyAt+"."+name, v)
+	}
+}
+
+func (c *checker) requiredIn(at, keyAt, name string, v *float64) {
+	if v == nil || !Ranges[keyAt+"."+name].fits(*v) {
+		c.required(at+"."+name, keyAt+"."+name, v)
+	}
+}
+
+func (c *checker) optionalIn(at, keyAt, name string, v *float64) {
+	if v != nil {
+		c.valueIn(at, keyAt, name, *v)
 	}
 }
 
@@ -266,9 +293,22 @@ func (s *Scenario) Validate() error {
 	return nil
 }
 
+// ValidateMotion checks one move alone as Validate checks each of a
+// scenario's motions, naming its fields under at ("motions[0]"). It is for
+// a caller that put a move of its own into a scenario validated before (the
+// planner's options, run hundreds of times a plan), so that the rest of the
+// scenario is not checked again at every run.
+func ValidateMotion(m *Motion, at string) error {
+	var c checker
+	m.validate(&c, at)
+	if len(c.errs) > 0 {
+		return c.errs
+	}
+	return nil
+}
+
 func (m *Motion) validate(c *checker, at string) {
-	f := func(name string) string { return at + "." + name }
-	key := func(name string) string { return "motions[]." + name }
+	const keyAt = "motions[]"
 	switch m.Profile {
 	case "", ProfileTrapezoid, ProfileSCurve, ProfileSineRamp:
 		m.validateProfile(c, at) // the S-curve's rounding; nothing else belongs here
@@ -277,20 +317,20 @@ func (m *Motion) validate(c *checker, at string) {
 		m.validateShaper(c, at)
 		return
 	default:
-		c.add(f("profile"), "is %q: accepted %q", m.Profile, Profiles)
+		c.add(at+".profile", "is %q: accepted %q", m.Profile, Profiles)
 		return
 	}
 	m.validateShaper(c, at)
-	c.value(f("start_s"), key("start_s"), m.StartS)
+	c.valueIn(at, keyAt, "start_s", m.StartS)
 	// The axis' kind (crane.Kind) names the fields its moves take.
 	d, known := m.Drive()
 	switch {
 	case known:
 		k := d.Axis.Kind
-		c.required(f(k.Distance), key(k.Distance), d.Distance)
-		c.required(f(k.Speed), key(k.Speed), d.Speed)
-		c.required(f(k.Accel), key(k.Accel), d.Accel)
-		c.optional(f(k.Decel), key(k.Decel), d.Decel)
+		c.requiredIn(at, keyAt, k.Distance, d.Distance)
+		c.requiredIn(at, keyAt, k.Speed, d.Speed)
+		c.requiredIn(at, keyAt, k.Accel, d.Accel)
+		c.optionalIn(at, keyAt, k.Decel, d.Decel)
 		for _, o := range crane.Kinds {
 			if o != k {
 				for _, name := range [...]string{o.Distance, o.Speed, o.Accel, o.Decel} {
@@ -298,15 +338,15 @@ func (m *Motion) validate(c *checker, at string) {
 						// The words only when needed: a scenario is validated at
 						// every evaluation, a plan's hundreds of times.
 						why := "the " + m.Axis + " axis moves in " + k.Words + "; use " + strings.Join([]string{k.Distance, k.Speed, k.Accel, k.Decel}, ", ")
-						c.forbidden(f(name), v, why)
+						c.forbidden(at+"."+name, v, why)
 					}
 				}
 			}
 		}
 	case m.Axis == "":
-		c.add(f("axis"), "is required: accepted %q", Axes)
+		c.add(at+".axis", "is required: accepted %q", Axes)
 	default:
-		c.add(f("axis"), "is %q: accepted %q", m.Axis, Axes)
+		c.add(at+".axis", "is %q: accepted %q", m.Axis, Axes)
 	}
 }
 
