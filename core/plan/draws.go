@@ -52,7 +52,7 @@ const (
 // initial swing, an axis that moves the hook straight (no slew lean), and
 // the draws' profiles at hand.
 func (rq *request) linearDraws(o *Option) bool {
-	return screening && !rq.multi() && !rq.leans() && rq.s.Wind == nil && rq.s.Initial == nil &&
+	return screening && !rq.multi() && !rq.leans() && rq.linearOK() &&
 		len(o.drawProfiles) == len(o.draws) && len(o.draws) > 0
 }
 

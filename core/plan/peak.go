@@ -75,13 +75,13 @@ func (rq *request) peakCandidate() *candidate {
 	o := rq.trapezoidOption("peak_limited", "Acceleration for the peak limit", a, rq.vmax)
 	o.add(say("First guess from g*tan(theta_lim/2) = {0} (one sudden ramp), lowered until the linear theory of the whole move keeps inside the limits; not corrected by simulation.",
 		rq.accelQ(a0)))
-	return &candidate{o: o, verify: func() (*Option, []string) { return rq.peakLimited(), nil }}
+	return &candidate{o: o, verify: func(float64) (*Option, []string) { return rq.peakLimited(), nil }}
 }
 
 // fixed is the candidate of an option simulated as it is.
 func (rq *request) fixed(o *Option) candidate {
-	return candidate{o: o, verify: func() (*Option, []string) {
-		kept, dropped := rq.verifyAll([]*Option{o}, RelTol)
+	return candidate{o: o, verify: func(tol float64) (*Option, []string) {
+		kept, dropped := rq.verifyAll([]*Option{o}, tol)
 		if len(kept) == 0 {
 			return nil, dropped
 		}

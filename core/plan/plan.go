@@ -60,7 +60,8 @@ import (
 // options that can decide the recommendation; their figures agree with the
 // SciPy reference to about 1e-4 deg (TestPlannerAgainstReference). The
 // option recommended is simulated again at CheckRelTol, the default
-// accuracy of package sway, at every checked rope length.
+// accuracy of package sway, at every checked rope length (or at once, when
+// the screen guesses it will be: atCheckTol).
 const (
 	RelTol      = 1e-5
 	CheckRelTol = sway.DefaultRelTol
@@ -118,6 +119,10 @@ type request struct {
 	// sims counts the simulations run.
 	sims atomic.Int64
 }
+
+// linearOK reports whether the linear theory of the pendulum can stand for
+// the simulation: it leaves out wind and an initial swing.
+func (rq *request) linearOK() bool { return rq.s.Wind == nil && rq.s.Initial == nil }
 
 // Make plans the move of s.Plan. s must carry a plan block; it is
 // validated first.

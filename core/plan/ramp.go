@@ -370,8 +370,8 @@ func (rq *request) rampCandidates() (out []candidate, notes []Sentence) {
 			notes = append(notes, say("Linear theory finds no single ramp time that keeps the residual swing within its screening bound from {0} to {1}; the best, {2}, covers {3} to {4}. Its option is simulated at the checked rope lengths; between them, or to be sure, narrow the rope-length range or use a shaped speed profile.",
 				qLen(lo).digits(4), qLen(hi).digits(4), qTime(rs.tr).digits(3), qLen(rs.coverLo).digits(4), qLen(rs.coverHi).digits(4)))
 			o := rq.rampOption(rs.tr, rs.r)
-			out = append(out, candidate{o: o, verify: func() (*Option, []string) {
-				kept, _ := rq.verifyAll([]*Option{o}, RelTol)
+			out = append(out, candidate{o: o, verify: func(tol float64) (*Option, []string) {
+				kept, _ := rq.verifyAll([]*Option{o}, tol)
 				if len(kept) == 0 {
 					return nil, nil
 				}
@@ -383,14 +383,14 @@ func (rq *request) rampCandidates() (out []candidate, notes []Sentence) {
 			continue
 		}
 		cs := rs.candidates
-		out = append(out, candidate{o: rq.rampOption(cs[0][0], cs[0][1]), verify: func() (*Option, []string) {
+		out = append(out, candidate{o: rq.rampOption(cs[0][0], cs[0][1]), verify: func(tol float64) (*Option, []string) {
 			var last *Option
 			for i, c := range cs {
 				if i >= 4 {
 					break
 				}
 				o := rq.rampOption(c[0], c[1])
-				if kept, _ := rq.verifyAll([]*Option{o}, RelTol); len(kept) == 0 {
+				if kept, _ := rq.verifyAll([]*Option{o}, tol); len(kept) == 0 {
 					continue
 				}
 				last = o

@@ -48,16 +48,21 @@ const (
 	preferredWhy = "the recommendation prefers a faster option within the limits, "
 )
 
+// checkAtOnce can be turned off by tests, to compare with every option
+// simulated at RelTol first and the recommended one rechecked (atCheckTol).
+var checkAtOnce = true
+
 // screening can be turned off by tests, to compare with every option
 // simulated and every drawn timing of a pendant option (verify.go decided).
 var screening = true
 
 // candidate is an option before simulation: its first form (move time and
-// profile known) and how to verify it (which may return another form, as
-// the ramp search and the peak-limited refinement do; nil when dropped).
+// profile known) and how to verify it at an integrator tolerance (which
+// may return another form, as the ramp search and the peak-limited
+// refinement do; nil when dropped; the peak-limited search keeps RelTol).
 type candidate struct {
 	o      *Option
-	verify func() (*Option, []string)
+	verify func(tol float64) (*Option, []string)
 }
 
 // screen simulates the candidates that can decide the recommendation, in
@@ -65,19 +70,26 @@ type candidate struct {
 func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) {
 	sort.SliceStable(cands, func(i, j int) bool { return cands[i].o.MoveTimeS < cands[j].o.MoveTimeS })
 	fastestWithin := math.Inf(1)
-	linearOK := rq.s.Wind == nil && rq.s.Initial == nil
 	var screened []candidate
-	for _, c := range cands {
-		est, low := rq.estimate(c.o)
+	ests := make([][2][]Verified, len(cands)) // the linear estimates: shown, low
+	for i, c := range cands {
+		ests[i][0], ests[i][1] = rq.estimate(c.o)
+	}
+	for i, c := range cands {
+		est, low := ests[i][0], ests[i][1]
 		switch {
 		case screening && c.o.MoveTimeS > windowFactor*fastestWithin+1e-9:
 			c.o.NotSimulated = fmt.Sprintf("its move time is more than %g times that of the fastest option within the limits, so it cannot change the recommendation", windowFactor)
-		case screening && linearOK && c.o.Timing == nil && rq.clearlyOutside(low):
+		case screening && rq.linearOK() && c.o.Timing == nil && rq.clearlyOutside(low):
 			c.o.NotSimulated = outsideWhy
 		case screening && !rq.canDisplace(c.o, kept):
 			c.o.NotSimulated = preferredWhy + rq.preferWhy(c.o, kept) + ", whatever this one's figures, so it cannot change the recommendation"
 		default:
-			o, d := c.verify()
+			tol := RelTol
+			if screening && checkAtOnce && rq.atCheckTol(i, cands, ests, kept, fastestWithin) {
+				tol = CheckRelTol
+			}
+			o, d := c.verify(tol)
 			dropped = append(dropped, d...)
 			if o != nil {
 				kept = append(kept, o)
@@ -99,7 +111,7 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 		// change (which, for a pendant option outside, reads that alone).
 		for _, c := range screened {
 			c.o.NotSimulated = ""
-			o, d := c.verify()
+			o, d := c.verify(RelTol)
 			dropped = append(dropped, d...)
 			if o != nil {
 				kept = append(kept, o)
@@ -109,10 +121,85 @@ func (rq *request) screen(cands []candidate) (kept []*Option, dropped []string) 
 	}
 	for _, c := range screened {
 		c.o.setVerified(c.o.estimated, rq.lim)
-		c.o.verify = c.verify
+		c.o.verify = func() (*Option, []string) { return c.verify(RelTol) }
 		kept = append(kept, c.o)
 	}
 	return kept, dropped
+}
+
+// atCheckTol reports whether candidate i (of cands, in order of move
+// time, with their linear estimates ests) is simulated at CheckRelTol at
+// once: when, should it be within the limits, the recommendation would
+// likely take it, so that the recheck at that tolerance would only repeat
+// its runs (verifyWith then marks it rechecked). Likely: choose's rules
+// would put it before the option preferred so far among the faster ones
+// (or there is none), and before every option still to come within the
+// recommendation's window that is not clearly outside (takesOver); and its
+// linear estimate is within the limits (with wind or an initial swing,
+// which that theory leaves out, no option is run so). A wrong
+// guess costs twice the work of its runs and leaves it figures more
+// accurate than RelTol's; it never changes the recommendation. Options
+// with drawn timings (a pendant) and the peak-limited search are never
+// run so.
+func (rq *request) atCheckTol(i int, cands []candidate, ests [][2][]Verified, kept []*Option, fastestWithin float64) bool {
+	o := cands[i].o
+	if !rq.linearOK() || o.Timing != nil || o.Key == "peak_limited" || rq.beyond(ests[i][1], 1, 0) {
+		return false // no estimate to go by, or it puts o outside a limit
+	}
+	res := worstResidual(ests[i][0])
+	window := windowFactor * o.MoveTimeS
+	if b := rq.current(kept, o.MoveTimeS); b != nil {
+		if !rq.takesOver(o, res, b, b.WorstResidualSwingDeg) {
+			return false
+		}
+		window = windowFactor * fastestWithin
+	}
+	for j := i + 1; j < len(cands) && cands[j].o.MoveTimeS <= window+1e-9; j++ {
+		c := cands[j].o
+		if c.Timing == nil && rq.clearlyOutside(ests[j][1]) {
+			continue
+		}
+		if rq.takesOver(c, worstResidual(ests[j][0]), o, res) {
+			return false
+		}
+	}
+	return true
+}
+
+// residualGuess: an option of the same class with its residual swing
+// (in linear theory, for one not simulated) below this times another's
+// may have half of it, so choose may prefer it (a margin of 30 % for the
+// linear theory's error).
+const residualGuess = 0.65
+
+// takesOver guesses whether choose would put a (residual swing aRes, deg)
+// before b (bRes), both within the limits: by class (prefers), or of the
+// same class by half the residual swing (residualGuess).
+func (rq *request) takesOver(a *Option, aRes float64, b *Option, bRes float64) bool {
+	return rq.prefers(a, b) || (!rq.prefers(b, a) && aRes < residualGuess*bRes)
+}
+
+// worstResidual is the largest residual swing of the figures, deg.
+func worstResidual(vs []Verified) float64 {
+	w := 0.0
+	for _, v := range vs {
+		w = math.Max(w, v.ResidualSwingDeg)
+	}
+	return w
+}
+
+// prefers reports whether choose's class rules put a before b whatever
+// their figures: a two-mode design over a single-mode one when the second
+// mode matters, then one setting of the drive over a programmed profile.
+func (rq *request) prefers(a, b *Option) bool {
+	single := func(x *Option) bool { return x.RampTimeS > 0 }
+	switch {
+	case rq.twoMode() && a.TwoMode != b.TwoMode:
+		return a.TwoMode
+	case single(a) != single(b):
+		return single(a)
+	}
+	return false
 }
 
 // unscreen simulates every screened option but those clearly outside, for
@@ -156,17 +243,7 @@ func (rq *request) current(kept []*Option, t float64) *Option {
 // profile, then half the residual swing).
 func (rq *request) canDisplace(o *Option, kept []*Option) bool {
 	b := rq.current(kept, o.MoveTimeS)
-	if b == nil {
-		return true
-	}
-	single := func(x *Option) bool { return x.RampTimeS > 0 }
-	switch {
-	case rq.twoMode() && o.TwoMode != b.TwoMode:
-		return o.TwoMode
-	case single(o) != single(b):
-		return single(o)
-	}
-	return true
+	return b == nil || !rq.prefers(b, o)
 }
 
 // preferWhy names the rule by which the faster option is preferred to o.
@@ -194,11 +271,17 @@ func finishScreened(o *Option) {
 // clearlyOutside reports whether the linear estimate is beyond a limit by
 // the screening margin.
 func (rq *request) clearlyOutside(est []Verified) bool {
+	return rq.beyond(est, screenFactor, screenAbsDeg)
+}
+
+// beyond reports whether a figure of est is beyond factor times its limit
+// plus absDeg (times the rope for an excursion).
+func (rq *request) beyond(est []Verified, factor, absDeg float64) bool {
 	for _, v := range est {
 		l := v.RopeLengthM + rq.rig
-		ang := func(x, lim float64) bool { return lim > 0 && x > screenFactor*lim+screenAbsDeg }
+		ang := func(x, lim float64) bool { return lim > 0 && x > factor*lim+absDeg }
 		exc := func(x, lim float64) bool {
-			return lim > 0 && x > screenFactor*lim+l*screenAbsDeg*units.Degree
+			return lim > 0 && x > factor*lim+l*absDeg*units.Degree
 		}
 		if ang(v.PeakSwingDeg, rq.lim.PeakSwingDeg) || ang(v.ResidualSwingDeg, rq.lim.ResidualSwingDeg) ||
 			exc(v.PeakExcursionM, rq.lim.PeakExcursionM) || exc(v.ResidualExcursionM, rq.lim.ResidualExcursionM) {

@@ -125,6 +125,10 @@ func (rq *request) verifyWith(opts []*Option, tol float64, linear bool) (kept []
 			o.Basis = "exact timing"
 		}
 		o.setVerified(vs, rq.lim)
+		// An option without drawn timings simulated at the check tolerance
+		// is what the recheck would make of it (with draws, the recheck
+		// simulates them in the seeded order instead: linear false).
+		o.rechecked = tol == CheckRelTol && (len(o.draws) == 0 || !linear)
 		kept = append(kept, o)
 	}
 	return kept, dropped
@@ -178,8 +182,8 @@ func (rq *request) decided(ds []Verified, n int) bool {
 // recheck simulates the option again at CheckRelTol at every checked rope
 // length and takes those figures (a pendant option with its draws).
 func (rq *request) recheck(o *Option) {
-	o.rechecked = true
 	if kept, _ := rq.verifyWith([]*Option{o}, CheckRelTol, false); len(kept) == 0 {
+		o.rechecked = true
 		o.Within = false
 		o.outside(plain("could not be simulated again at the default accuracy"))
 	}
@@ -213,15 +217,20 @@ func p90(vs []Verified, n int, exact Verified) Verified {
 	return out
 }
 
-// simulate runs one move at one rope length.
+// simulate runs one move at one rope length. The plan's scenario was
+// validated before planning and the rope lengths and tolerances are the
+// planner's own, within their ranges: only the move is checked each run.
 func (rq *request) simulate(m *scenario.Motion, rope, tol float64) (Verified, error) {
 	rq.sims.Add(1)
+	if err := scenario.ValidateMotion(m, "motions[0]"); err != nil {
+		return Verified{}, err
+	}
 	sc := *rq.s
 	sc.Plan = nil
 	sc.Motions = []scenario.Motion{*m}
 	sc.Load.RopeLengthM = &rope
 	sc.Settings = &scenario.Settings{RelTol: tol, SettlePeriods: 2}
-	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true, Budget: rq.budget})
+	r, err := sway.EvaluateWith(&sc, sway.Options{NoHistory: true, NoModePeriods: true, Budget: rq.budget, Validated: true, CountedChecks: true})
 	if errors.Is(err, sway.ErrStepLimit) {
 		err = &sway.WorkError{Message: budgetMessage}
 	}

@@ -169,9 +169,15 @@ type Options struct {
 	// check's) reuses it, and reads each result's histories only until
 	// its next run.
 	HistoryBuffer *[]float64
+	// CountedChecks says the limit checks' warnings are only counted: each
+	// is an empty string in Result.Warnings (and an empty sentence), not
+	// worded, for callers that read only how many there are (the
+	// planner's runs, whose drawn timings are often outside a limit).
+	CountedChecks bool
 	// kinSamples makes the specialised path take every history sample
-	// through kinOf, as on moves other than travel, and on travel moves
-	// with air the right-hand side too, as with other moves (for tests).
+	// the plain way, through fastSolver.dense, project, kinOf and rel
+	// (fasthistory.go), and on travel moves with air the right-hand side
+	// through kinOf too, as with other moves (for tests).
 	kinSamples bool
 }
 
@@ -328,7 +334,7 @@ func EvaluateWith(s *scenario.Scenario, opt Options) (*Result, error) {
 	}
 	res.Solver = stats
 
-	res.Checks = checks(s, res)
+	res.Checks = checks(s, res, !opt.CountedChecks)
 	res.markWarnings()
 	return res, nil
 }
@@ -353,7 +359,11 @@ func WindLeanRad(s *scenario.Scenario, force, rope float64) float64 {
 	return math.Atan2(x, z)
 }
 
-func checks(s *scenario.Scenario, r *Result) []Check {
+// checks compares the result's figures with the scenario's limits and
+// warns of each outside them (worded false: counted only, an empty
+// warning each; Options.CountedChecks), of a wind lean past the swing
+// limit, a slack rope and a swing past SwingValidityDeg.
+func checks(s *scenario.Scenario, r *Result, worded bool) []Check {
 	out := []Check{}
 	add := func(name, label, crew string, v float64, lim *float64, unit string) {
 		if lim == nil {
@@ -362,7 +372,11 @@ func checks(s *scenario.Scenario, r *Result) []Check {
 		c := Check{Name: name, Label: label, Value: v, Limit: *lim, Unit: unit, Within: v <= *lim}
 		out = append(out, c)
 		if !c.Within {
-			r.warn(words.Say(crew+" of {0} is outside the plan's limit of {1}.", words.Of(v, unit), words.Of(*lim, unit)))
+			var w words.Sentence // counted only (Options.CountedChecks) unless worded
+			if worded {
+				w = words.Say(crew+" of {0} is outside the plan's limit of {1}.", words.Of(v, unit), words.Of(*lim, unit))
+			}
+			r.warn(w)
 		}
 	}
 	if l := s.Limits; l != nil {

@@ -3,6 +3,7 @@ package main
 import (
 	"encoding/json"
 	"fmt"
+	"math"
 	"os"
 	"path/filepath"
 	"runtime"
@@ -68,14 +69,14 @@ func planRows(dir string, repeat int, group string) ([]Row, error) {
 type planTimes struct {
 	total, parse, key, make, encode, cpu float64 // ms, medians (cpu: mean)
 	sims, kept, checks                   int     // simulations in all; timed again: at RelTol, at CheckRelTol
-	keptMs, checkMs                      float64 // the kept and rechecked simulations timed again, ms in all
+	keptMs, checkMs                      float64 // the kept and recommended simulations timed again, ms in all
 	steps                                int     // integrator steps of the simulations timed again
 	replyBytes                           int
 	allocMB, mallocs, gcs                float64 // per plan call: heap allocated, allocations, collections
 }
 
 func (p planTimes) note(repeat int) string {
-	s := fmt.Sprintf("parse+validate %.2f, fingerprint %.2f, plan %.2f, reply JSON %.2f ms (%d kB); %d simulations: %d kept at tol %g take %.2f ms, %d rechecked at %g take %.2f ms (%d steps in all), the rest of the plan %.2f ms; median of %d",
+	s := fmt.Sprintf("parse+validate %.2f, fingerprint %.2f, plan %.2f, reply JSON %.2f ms (%d kB); %d simulations: %d of the options kept at tol %g take %.2f ms, %d of the recommended one at %g take %.2f ms (%d steps in all; each the fastest of 3 timed again), the rest of the plan %.2f ms; median of %d",
 		p.parse, p.key, p.make, p.encode, p.replyBytes/1000, p.sims, p.kept, plan.RelTol, p.keptMs, p.checks, plan.CheckRelTol, p.checkMs, p.steps,
 		p.make-p.keptMs-p.checkMs, repeat)
 	s += fmt.Sprintf("; per plan call %.2f MB allocated in %.0f allocations, %.2f collections", p.allocMB, p.mallocs, p.gcs)
@@ -148,12 +149,15 @@ func planParts(data []byte, repeat int) (planTimes, error) {
 			tol = plan.CheckRelTol
 		}
 		for _, rope := range last.CheckedRopeLengthsM {
-			t0 := time.Now()
-			steps, err := simulateOnce(lastS, o.Motion, rope, tol)
-			if err != nil {
-				return p, err
+			d, steps := math.Inf(1), 0
+			for range 3 { // the fastest of 3: one run alone is at the mercy of the machine
+				t0 := time.Now()
+				n, err := simulateOnce(lastS, o.Motion, rope, tol)
+				if err != nil {
+					return p, err
+				}
+				d, steps = math.Min(d, float64(time.Since(t0).Nanoseconds())/1e6), n
 			}
-			d := float64(time.Since(t0).Nanoseconds()) / 1e6
 			p.steps += steps
 			if i == last.Recommended {
 				p.checks++
