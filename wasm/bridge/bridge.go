@@ -86,7 +86,7 @@ func Call(env *Env, name string, input []byte) (out []byte) {
 }
 
 func encode(r reply) []byte {
-	b, err := json.Marshal(r)
+	b, err := marshalReply(r)
 	if err != nil {
 		// A result that cannot be encoded (NaN, Inf) is reported, never sent.
 		b, _ = json.Marshal(reply{Error: &Error{Message: "the result could not be encoded: " + err.Error(), Fields: []scenario.FieldError{}}})

@@ -1,0 +1,119 @@
+package sway
+
+import (
+	"encoding/json"
+	"math"
+	"strconv"
+)
+
+// The time histories are most of an evaluation's JSON (bay-travel: 6,611
+// numbers of 130 kB). encoding/json writes each number as the shortest
+// decimal that reads back the same, through reflection: about 900
+// instructions a number natively, more than the run took to compute them.
+// For the page, which draws the histories and never computes with them
+// (every figure comes from the core's own numbers), AppendJSON writes each
+// series with a fixed number of significant digits instead: a tenth of
+// the work and half the text (the evaluate call's reply, wasm/bridge).
+
+// HistoryDigits is the number of significant digits AppendJSON keeps for
+// a run at relative tolerance relTol: two more than the tolerance
+// resolves (9 at the default 1e-7, 13 at "tight"'s 1e-11), the digits
+// beyond being the integrator's error, not the motion.
+func HistoryDigits(relTol float64) int {
+	if relTol <= 0 || math.IsNaN(relTol) {
+		return 15 // no tolerance known: as many as an int64 holds
+	}
+	return min(15, max(3, int(math.Ceil(-math.Log10(relTol)))+2))
+}
+
+// historyKeys are the JSON names of History's series, in field order
+// (historySeries).
+var historyKeys = [...]string{"time_s", "swing_deg", "rel_x_m", "rel_y_m", "rel_z_m", "load_x_m", "load_y_m",
+	"suspension_x_m", "suspension_y_m", "tension_n", "rope_m"}
+
+// historySeries lists h's series sent as JSON, in the order of History's
+// fields.
+func (h *History) historySeries() [len(historyKeys)][]float64 {
+	return [...][]float64{h.TimeS, h.SwingDeg, h.RelXM, h.RelYM, h.RelZM, h.LoadXM, h.LoadYM,
+		h.SuspensionXM, h.SuspensionYM, h.TensionN, h.RopeM}
+}
+
+// AppendJSON appends h's JSON, each series with as many decimals as keep
+// digits (at least 1) significant digits in its largest number (at most
+// 15 decimals), trailing zeros dropped: each number within half a unit of
+// its last decimal. A number JSON cannot hold (NaN, infinity) gives
+// encoding/json's error.
+func (h *History) AppendJSON(b []byte, digits int) ([]byte, error) {
+	for i, xs := range h.historySeries() {
+		b = append(b, ",{"[1-min(i, 1)], '"')
+		b = append(b, historyKeys[i]...)
+		b = append(b, `":[`...)
+		if xs == nil {
+			b = append(b[:len(b)-1], "null"...)
+			continue
+		}
+		top := 0.0
+		for _, x := range xs {
+			if x-x != 0 { // NaN or infinity
+				_, err := json.Marshal(x) // encoding/json's own error
+				return nil, err
+			}
+			top = max(top, math.Abs(x))
+		}
+		dec := 0
+		if top > 0 {
+			dec = min(15, max(0, digits-1-int(math.Floor(math.Log10(top)))))
+		}
+		scale := math.Pow10(dec)
+		for _, x := range xs {
+			if top*scale >= 1e17 { // beyond an int64's exact digits
+				b = strconv.AppendFloat(b, x, 'g', digits, 64)
+			} else {
+				b = appendFixed(b, x*scale, dec)
+			}
+			b = append(b, ',')
+		}
+		if len(xs) > 0 {
+			b = b[:len(b)-1] // the last comma
+		}
+		b = append(b, ']')
+	}
+	return append(b, '}'), nil
+}
+
+// pow10s are the powers of ten an int64 holds exactly, for appendFixed.
+var pow10s = func() (p [16]int64) {
+	p[0] = 1
+	for i := 1; i < len(p); i++ {
+		p[i] = p[i-1] * 10
+	}
+	return p
+}()
+
+// appendFixed appends y/10^dec, y rounded to a whole number (dec 0 to 15,
+// |y| below 1e17), trailing zeros and a bare point dropped, zero as 0.
+func appendFixed(b []byte, y float64, dec int) []byte {
+	m := int64(math.Round(y))
+	if m == 0 {
+		return append(b, '0')
+	}
+	if m < 0 {
+		b = append(b, '-')
+		m = -m
+	}
+	p := pow10s[dec]
+	b = strconv.AppendInt(b, m/p, 10)
+	frac := m % p
+	if frac == 0 {
+		return b
+	}
+	for frac%10 == 0 {
+		frac /= 10
+		dec--
+	}
+	b = append(b, '.')
+	for q := pow10s[dec-1]; q > frac; q /= 10 { // leading zeros
+		b = append(b, '0')
+	}
+	return strconv.AppendInt(b, frac, 10)
+}
