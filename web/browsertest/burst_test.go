@@ -62,3 +62,53 @@ func TestInputBurst(t *testing.T) {
 		t.Errorf("the rope-angle chart shown after the burst differs from the one drawn again of the result:\n%.200s\n%.200s", d, again)
 	}
 }
+
+// TestHeldFiguresShownOnError: a change typed while the figures of the
+// result before it are still asked for holds those figures back
+// (results.js presentFigures: the later inputs' follow at once). When the
+// later inputs are rejected by the core, the held figures are shown: the
+// page settles with the figures, plots and sheet of the last valid
+// result, marked as for earlier inputs, and the field's message.
+func TestHeldFiguresShownOnError(t *testing.T) {
+	h := setup(t)
+	h.pasteInto("#f-load-rope_length_m", "8.3")
+	h.settle()
+	want := h.text("#figures")
+	plots := eval[string](h, `document.getElementById('charts').dataset.fingerprint`)
+	h.pasteInto("#f-load-rope_length_m", "7")
+	h.settle()
+	if h.text("#figures") == want {
+		t.Fatal("the figures for 7 m are those for 8.3 m")
+	}
+	// 8.3 again; -1 is typed once its figures are asked for.
+	eval[bool](h, `(function () {
+	  var el = document.getElementById('f-load-rope_length_m'), post = Worker.prototype.postMessage, armed = true;
+	  Worker.prototype.postMessage = function (m) {
+	    if (armed && m && m.name === 'figures') {
+	      armed = false;
+	      Worker.prototype.postMessage = post;
+	      setTimeout(function () { el.value = '-1'; el.dispatchEvent(new Event('input', { bubbles: true })); }, 0);
+	    }
+	    return post.apply(this, arguments);
+	  };
+	  el.value = '8.3';
+	  el.dispatchEvent(new Event('input', { bubbles: true }));
+	  return true;
+	})()`)
+	h.settle()
+	if v := h.value("#f-load-rope_length_m"); v != "-1" {
+		t.Fatalf("the field reads %q, want -1", v)
+	}
+	if msg := h.text("#f-load-rope_length_m-msg"); msg == "" {
+		t.Error("no message at the rope length for -1")
+	}
+	if got := h.text("#figures"); got != want {
+		t.Errorf("the figures shown are not those of the last valid result (8.3 m):\n%.300s\nwant\n%.300s", got, want)
+	}
+	if got := eval[string](h, `document.getElementById('charts').dataset.fingerprint`); got != plots {
+		t.Errorf("the plots are of %q, want %q (8.3 m)", got, plots)
+	}
+	if eval[bool](h, `document.getElementById('stale').hidden`) {
+		t.Error("the results are not marked as for earlier inputs")
+	}
+}

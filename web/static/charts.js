@@ -54,13 +54,16 @@ export function safeSVG(text) {
   var root = t.content.firstElementChild;
   if (!root || t.content.childElementCount !== 1 || root.localName !== 'svg' || root.namespaceURI !== SVG_NS) return null;
   for (var c = t.content.firstChild; c; c = c.nextSibling) if (c !== root && !(c.nodeType === 3 && !c.data.trim())) return null;
+  // (The attributes are read by name: el.attributes would make a node of
+  // each, which took as long as the parse.)
   var all = root.getElementsByTagName('*');
   for (var i = -1; i < all.length; i++) {
     var el = i < 0 ? root : all[i];
     if (el.namespaceURI !== SVG_NS || !SVG_ELEMENTS.test(el.localName)) return null;
-    for (var j = el.attributes.length - 1; j >= 0; j--) {
-      var a = el.attributes[j], n = a.name.toLowerCase();
-      if (n.indexOf('on') === 0 || n === 'style' || /href$/.test(n) || (/url\(/i.test(a.value) && !/^\s*url\(#[a-z0-9_-]+\)\s*$/i.test(a.value))) el.removeAttribute(a.name);
+    var names = el.getAttributeNames();
+    for (var j = names.length - 1; j >= 0; j--) {
+      var a = names[j], n = a.toLowerCase(), v = el.getAttribute(a);
+      if (n.indexOf('on') === 0 || n === 'style' || /href$/.test(n) || (/url\(/i.test(v) && !/^\s*url\(#[a-z0-9_-]+\)\s*$/i.test(v))) el.removeAttribute(a);
     }
   }
   return document.adoptNode(root);

@@ -6,7 +6,7 @@ import { $ } from './dom.js';
 import { call, unwanted } from './engine.js';
 import { showErrors } from './form.js';
 import { planChanged } from './plan-view.js';
-import { angleChart, keepBands, markStale, presentFigures, presenting, showEarly, unshown, updateBanner } from './results.js';
+import { angleChart, keepBands, markStale, presentFigures, presentHeld, presenting, showEarly, unshown, updateBanner } from './results.js';
 import { S } from './state.js';
 import { keepCurrent } from './storage.js';
 
@@ -58,6 +58,7 @@ export function evaluate() {
     showErrors();
     markStale(!!S.result);
     noResults();
+    presentHeld();
     return;
   }
   // While the core works: its answer is wanted only if the inputs are
@@ -73,6 +74,7 @@ export function evaluate() {
   S.lastSent = sent;
   if (busy) unwanted();
   busy = true;
+  S.evaluating = sent;
   showProgress(true);
   // The worker draws the rope-angle chart with the result and sends it
   // first: it is shown unless the inputs changed meanwhile.
@@ -82,6 +84,7 @@ export function evaluate() {
     // Overtaken by a change: the answer for it follows.
     if (my !== sentCount) return;
     busy = false;
+    S.evaluating = null;
     S.lastDone = sent;
     showProgress(false);
     document.body.dataset.state = 'ready';
@@ -99,6 +102,7 @@ export function evaluate() {
       showErrors();
       markStale(!!S.result);
       noResults();
+      presentHeld();
       return;
     }
     S.coreErrors = [];

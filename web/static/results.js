@@ -12,7 +12,7 @@ import { S } from './state.js';
 import { SHOWN_QUANTITIES, defaultsFor, fmtStep, toShown, unitOf } from './units.js';
 import { say, unitsKey } from './words.js';
 
-let figuresAsked = 0, figuresWaiting = false;
+let figuresAsked = 0, figuresWaiting = false, figuresHeld = false;
 
 // figuresInput is the "figures" call's input: the scenario of the result
 // shown (its JSON as sent to the core) and the units shown.
@@ -30,8 +30,9 @@ function figuresInput(sent) {
 // that one too, so page, plots and sheet show the same move.
 export function presentFigures() {
   if (!S.result || !S.resultSent) return Promise.resolve();
-  var n = ++figuresAsked, own = S.result;
+  var n = ++figuresAsked, own = S.result, ownSent = S.resultSent;
   figuresWaiting = true;
+  figuresHeld = false;
   // The figures are of this result itself unless the inputs are a
   // planning request without moves of their own (then of the planner's
   // recommended move): its charts are drawn now, beside the figures call,
@@ -62,12 +63,21 @@ export function presentFigures() {
     return (p.result === own ? ownWords : say(p.result.warning_sentences || [])).then(function (texts) {
       if (n !== figuresAsked) return;
       figuresWaiting = false;
+      // Typed on meanwhile: the core works on later inputs, whose figures
+      // follow at once; these are not put into the page in between (it
+      // would hold up the later inputs' chart). Should the later inputs
+      // fail, these are shown then (presentHeld).
+      if (S.evaluating && S.evaluating !== ownSent) { figuresHeld = true; return; }
       S.figures = p.figures;
       S.shown = { result: p.result, fingerprint: p.fingerprint, warnings: texts };
       renderResults();
     });
   });
 }
+
+// presentHeld presents the figures of the last result when they were
+// held back for later inputs that then were not evaluated.
+export function presentHeld() { if (figuresHeld) presentFigures(); }
 
 // presenting is true while the figures of the last result are asked for.
 export function presenting() { return figuresWaiting; }
@@ -267,8 +277,11 @@ function drawPlots(r, of, redraw, later) {
   'Dashed line: the load\u2019s weight (static pull).');
 }
 
+// updateBanner shows the example banner while the inputs are an
+// example's (changed at each keystroke: written only when it changes).
 export function updateBanner() {
-  $('example-banner').hidden = !(S.scenario && S.scenario.example);
+  var b = $('example-banner'), hide = !(S.scenario && S.scenario.example);
+  if (b.hidden !== hide) b.hidden = hide;
 }
 
 export function renderAll() {

@@ -146,7 +146,10 @@ function ropeQuestion() {
   return JSON.stringify(q);
 }
 
+// (A closed fold asks nothing: opening it asks at once, bindRopeFind. So
+// a keystroke in the load's fields sets no timer then.)
 function ropeAskSoon() {
+  if (!RF.open && !RF.timer) return;
   clearTimeout(RF.timer);
   RF.timer = setTimeout(function () { RF.timer = null; ropeAsk(); }, 120);
 }

@@ -13,6 +13,7 @@ export const S = {
   coreErrors: [],     // field errors from the core for the current inputs
   result: null,       // last valid result
   resultSent: null,   // the scenario JSON it is the result of
+  evaluating: null,   // the scenario JSON the core evaluates now (compute.js)
   figures: null,      // its figures from the core's "figures" call (or {error})
   count: 0,
   windStash: null
