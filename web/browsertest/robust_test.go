@@ -196,11 +196,16 @@ func TestWorkerEndsSilently(t *testing.T) {
 	h.checkShown(h.core())
 }
 
-// slowScenario takes the engine a few seconds: the shortest rope, the
-// longest run, the tightest tolerance, and a hook block (two masses take
-// the general path, several times slower than the single rope's).
-const slowScenario = `{"format":"swaysheet-scenario","version":1,"name":"slow","load":{"mass_kg":1000,"rope_length_m":0.3,"hook":{"mass_kg":300,"rigging_length_m":0.3}},
-"motions":[{"axis":"travel_x","distance_m":10,"speed_m_per_s":0.5,"accel_m_per_s2":0.3}],"settings":{"duration_s":3600,"rel_tol":1e-13}}`
+// slowScenario takes the engine several seconds, well past the page's one
+// second to Cancel (3.6 s natively, about three times that in the page): a rigid load on a
+// two-leg sling (the general path, many times slower a step than the
+// single rope's) over a 600 s run at the tightest tolerance, short of the
+// step limit (a hook block's run at the shortest rope, used before, reached
+// it in 0.3 s natively and, once the core had got faster, ended before the
+// page's one second to Cancel).
+const slowScenario = `{"format":"swaysheet-scenario","version":1,"name":"slow","load":{"mass_kg":7200,"rope_length_m":5,"body":{"length_m":13,"width_m":0.5,"height_m":1,"hook_mass_kg":250,
+"legs":[{"length_m":5.831,"attach_x_m":5,"attach_z_m":0.5},{"length_m":5.831,"attach_x_m":-5,"attach_z_m":0.5}]}},
+"motions":[{"axis":"travel_x","distance_m":10,"speed_m_per_s":0.5,"accel_m_per_s2":0.3}],"settings":{"duration_s":600,"rel_tol":1e-13}}`
 
 // TestCancelLongComputation: a computation over a second gets a Cancel;
 // cancelling keeps the inputs and the last valid results, marked, and says
