@@ -35,89 +35,137 @@ type Figure struct {
 	// check sheet gives it in its engineering detail, not among the
 	// crew's lines.
 	Detail bool
-	// Value reads the figure from a result; false when the result does
-	// not have it (no wind, no hook block).
-	Value func(r *sway.Result) (float64, bool)
+	// Get reads the figure from a result that has it, and When says
+	// which results have it (Value reads both). Both are plain functions
+	// and constants, so that the table is data, not code run at start.
+	Get  func(r *sway.Result) float64
+	When Presence
+}
+
+// Presence says which results have a figure.
+type Presence int
+
+const (
+	Always         Presence = iota
+	Positive                // when above zero
+	Windy                   // when the wind blows
+	Rigged                  // with a hook block and rigging modelled
+	Bodied                  // with a rigid load modelled
+	BodiedPositive          // with a rigid load modelled, when above zero
+	Slung                   // of a rigid load's sling or spreader legs (two hook ropes have their own figures)
+	TandemRope0             // of hook rope 1 of two (load.body.tandem)
+	TandemRope1             // of hook rope 2 of two
+)
+
+// Value reads the figure from a result; false when the result does not
+// have it (no wind, no hook block). The words say sling legs for Slung,
+// and Present says spreader legs under a spreader.
+func (f Figure) Value(r *sway.Result) (float64, bool) {
+	b := r.Body
+	switch f.When {
+	case Windy:
+		if !(r.WindForceN > 0) {
+			return f.Get(r), false
+		}
+	case Rigged:
+		if r.Rigging == nil {
+			return 0, false
+		}
+	case Bodied, BodiedPositive:
+		if b == nil {
+			return 0, false
+		}
+	case Slung:
+		if b == nil || b.Suspension == sway.TwoRopes {
+			return 0, false
+		}
+	case TandemRope0, TandemRope1:
+		if b == nil || b.Suspension != sway.TwoRopes || len(b.Legs) <= int(f.When-TandemRope0) {
+			return 0, false
+		}
+	}
+	v := f.Get(r)
+	return v, !(f.When == Positive || f.When == BodiedPositive) || v > 0
 }
 
 // Table is every figure, in the order people read them.
 var Table = []Figure{
 	{Key: "peak_swing_deg", Crew: "largest swing", Technical: "peak swing (rope angle from the vertical)",
-		Named: swingName("peak swing"), Unit: "deg", Limit: "peak_swing_deg", Value: always(func(r *sway.Result) float64 { return r.PeakSwingDeg })},
+		Named: peakSwingName, Unit: "deg", Limit: "peak_swing_deg", When: Always, Get: func(r *sway.Result) float64 { return r.PeakSwingDeg }},
 	{Key: "peak_swing_time_s", Crew: "largest swing comes at", Technical: "time of the peak swing",
-		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeakSwingTimeS })},
+		Unit: "s", When: Always, Get: func(r *sway.Result) float64 { return r.PeakSwingTimeS }},
 	{Key: "peak_excursion_m", Crew: "load swings out by", Technical: "peak excursion (horizontal, load from under the suspension point)",
-		Unit: "m", Limit: "peak_excursion_m", Value: always(func(r *sway.Result) float64 { return r.PeakExcursionM })},
+		Unit: "m", Limit: "peak_excursion_m", When: Always, Get: func(r *sway.Result) float64 { return r.PeakExcursionM }},
 	{Key: "residual_swing_deg", Crew: "swing left after stopping", Technical: "residual swing after the last move",
-		Named: swingName("residual swing after the last move"), Unit: "deg", Limit: "residual_swing_deg", Value: always(func(r *sway.Result) float64 { return r.ResidualSwingDeg })},
+		Named: residualSwingName, Unit: "deg", Limit: "residual_swing_deg", When: Always, Get: func(r *sway.Result) float64 { return r.ResidualSwingDeg }},
 	{Key: "residual_excursion_m", Crew: "swing-out left after stopping", Technical: "residual excursion",
-		Unit: "m", Limit: "residual_excursion_m", Value: always(func(r *sway.Result) float64 { return r.ResidualExcursionM })},
+		Unit: "m", Limit: "residual_excursion_m", When: Always, Get: func(r *sway.Result) float64 { return r.ResidualExcursionM }},
 	{Key: "period_s", Crew: "time for one full swing", Technical: pointPeriod,
-		Named: periodName, Unit: "s", Value: always(func(r *sway.Result) float64 { return r.PeriodS })},
+		Named: periodName, Unit: "s", When: Always, Get: func(r *sway.Result) float64 { return r.PeriodS }},
 	{Key: "period_amplitude_s", Crew: "full swing time at the swing left", Technical: "sway period at the residual swing's amplitude",
-		Named: amplitudeName, Unit: "s", Detail: true, Value: positive(func(r *sway.Result) float64 { return r.PeriodAmplitudeS })},
+		Named: amplitudeName, Unit: "s", Detail: true, When: Positive, Get: func(r *sway.Result) float64 { return r.PeriodAmplitudeS }},
 	{Key: "tension_factor", Crew: "rope pull increase", Technical: "tension factor (peak rope tension / static)",
-		Unit: "", Limit: "tension_factor", Value: always(func(r *sway.Result) float64 { return r.TensionFactor })},
+		Unit: "", Limit: "tension_factor", When: Always, Get: func(r *sway.Result) float64 { return r.TensionFactor }},
 	{Key: "tension_max_n", Crew: "largest rope pull", Technical: "peak rope tension",
-		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.TensionMaxN })},
+		Unit: "N", When: Always, Get: func(r *sway.Result) float64 { return r.TensionMaxN }},
 	{Key: "tension_min_n", Crew: "smallest rope pull", Technical: "lowest rope tension",
-		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.TensionMinN })},
+		Unit: "N", When: Always, Get: func(r *sway.Result) float64 { return r.TensionMinN }},
 	{Key: "static_tension_n", Crew: "rope pull hanging still", Technical: "static rope tension (weight)",
-		Unit: "N", Value: always(func(r *sway.Result) float64 { return r.StaticTensionN })},
+		Unit: "N", When: Always, Get: func(r *sway.Result) float64 { return r.StaticTensionN }},
 	{Key: "wind_force_n", Crew: "wind push on the load", Technical: "steady wind force",
-		Unit: "N", Value: positive(func(r *sway.Result) float64 { return r.WindForceN })},
+		Unit: "N", When: Positive, Get: func(r *sway.Result) float64 { return r.WindForceN }},
 	{Key: "wind_lean_deg", Crew: "rope lean in the wind", Technical: "steady wind lean",
-		Unit: "deg", Value: windy(func(r *sway.Result) float64 { return r.WindLeanDeg })},
+		Unit: "deg", When: Windy, Get: func(r *sway.Result) float64 { return r.WindLeanDeg }},
 	{Key: "wind_offset_m", Crew: "load hangs off plumb in the wind by", Technical: "steady wind offset (static, horizontal)",
-		Unit: "m", Value: windy(func(r *sway.Result) float64 { return r.WindOffsetM })},
+		Unit: "m", When: Windy, Get: func(r *sway.Result) float64 { return r.WindOffsetM }},
 	{Key: "wind_damping_ratio", Crew: "the air slows the swing by (of critical)", Technical: "damping ratio from air drag, along the wind (linearised)",
-		Unit: "", Quantity: "share", Value: positive(func(r *sway.Result) float64 { return r.WindDampingRatio })},
+		Unit: "", Quantity: "share", When: Positive, Get: func(r *sway.Result) float64 { return r.WindDampingRatio }},
 	{Key: "rigging.mode_periods_s[0]", Crew: "full swing time, slow swing", Technical: "first mode period (linear)",
-		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[0] })},
+		Unit: "s", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.ModePeriodsS[0] }},
 	{Key: "rigging.mode_periods_s[1]", Crew: "full swing time, quick swing", Technical: "second mode period (linear)",
-		Unit: "s", Value: rigged(func(g *sway.Rigging) float64 { return g.ModePeriodsS[1] })},
+		Unit: "s", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.ModePeriodsS[1] }},
 	{Key: "rigging.simulated_periods_s[0]", Crew: "slow swing, as simulated", Technical: "first mode period (simulated)",
-		Unit: "s", Detail: true, Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[0] })},
+		Unit: "s", Detail: true, When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.SimulatedPeriodsS[0] }},
 	{Key: "rigging.simulated_periods_s[1]", Crew: "quick swing, as simulated", Technical: "second mode period (simulated)",
-		Unit: "s", Detail: true, Value: rigged(func(g *sway.Rigging) float64 { return g.SimulatedPeriodsS[1] })},
+		Unit: "s", Detail: true, When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.SimulatedPeriodsS[1] }},
 	{Key: "rigging.second_mode_share", Crew: "quick swing's share", Technical: "second mode's share of the load's swing (linear theory)",
-		Unit: "", Quantity: "share", Value: rigged(func(g *sway.Rigging) float64 { return g.SecondModeShare })},
+		Unit: "", Quantity: "share", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.SecondModeShare }},
 	{Key: "rigging.peak_rope_swing_deg", Crew: "largest swing of the hook's rope", Technical: "peak rope swing (hook block)",
-		Unit: "deg", Value: rigged(func(g *sway.Rigging) float64 { return g.PeakRopeSwingDeg })},
+		Unit: "deg", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.PeakRopeSwingDeg }},
 	{Key: "rigging.peak_rigging_angle_deg", Crew: "load swings under the hook by", Technical: "peak rigging angle to the rope",
-		Unit: "deg", Value: rigged(func(g *sway.Rigging) float64 { return g.PeakRiggingAngleDeg })},
+		Unit: "deg", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.PeakRiggingAngleDeg }},
 	{Key: "rigging.rigging_tension_max_n", Crew: "largest pull in the rigging", Technical: "peak rigging tension",
-		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMaxN })},
+		Unit: "N", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.RiggingTensionMaxN }},
 	{Key: "rigging.rigging_tension_min_n", Crew: "smallest pull in the rigging", Technical: "lowest rigging tension",
-		Unit: "N", Value: rigged(func(g *sway.Rigging) float64 { return g.RiggingTensionMinN })},
+		Unit: "N", When: Rigged, Get: func(r *sway.Result) float64 { return r.Rigging.RiggingTensionMinN }},
 	{Key: "body.pitch_period_s", Crew: "time for one full pitch of the load", Technical: "pitch mode period (rigid load)",
-		Unit: "s", Value: bodied(func(b *sway.Body) float64 { return b.PitchPeriodS }, true)},
+		Unit: "s", When: BodiedPositive, Get: func(r *sway.Result) float64 { return r.Body.PitchPeriodS }},
 	{Key: "body.twist_period_s", Crew: "time for one full twist of the load", Technical: "twist mode period (rigid load; bifilar with a spreader)",
-		Unit: "s", Value: bodied(func(b *sway.Body) float64 { return b.TwistPeriodS }, true)},
+		Unit: "s", When: BodiedPositive, Get: func(r *sway.Result) float64 { return r.Body.TwistPeriodS }},
 	{Key: "body.rest_tilt_deg", Crew: "load hangs tilted by", Technical: "tilt of the load hanging still",
-		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.RestTiltDeg }, false)},
+		Unit: "deg", When: Bodied, Get: func(r *sway.Result) float64 { return r.Body.RestTiltDeg }},
 	{Key: "body.peak_tilt_deg", Crew: "largest tilt of the load", Technical: "peak tilt of the load's height axis from the vertical",
-		Unit: "deg", Limit: "peak_tilt_deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTiltDeg }, false)},
+		Unit: "deg", Limit: "peak_tilt_deg", When: Bodied, Get: func(r *sway.Result) float64 { return r.Body.PeakTiltDeg }},
 	{Key: "body.peak_twist_deg", Crew: "largest twist of the load", Technical: "peak twist about the vertical",
-		Unit: "deg", Value: bodied(func(b *sway.Body) float64 { return b.PeakTwistDeg }, false)},
+		Unit: "deg", When: Bodied, Get: func(r *sway.Result) float64 { return r.Body.PeakTwistDeg }},
 	{Key: "body.peak_corner_swing_m", Crew: "a corner swings out by", Technical: "peak corner swing (horizontal, from where it hangs still)",
-		Unit: "m", Value: bodied(func(b *sway.Body) float64 { return b.PeakCornerSwingM }, false)},
+		Unit: "m", When: Bodied, Get: func(r *sway.Result) float64 { return r.Body.PeakCornerSwingM }},
 	{Key: "body.legs[0].weight_share", Crew: sway.HookRope(0) + " holds, hanging still", Technical: "share of the load's weight on " + sway.HookRope(0) + " (load.body.tandem.ropes[0])",
-		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.WeightShare })},
+		Unit: "", Quantity: "share", Detail: true, When: TandemRope0, Get: func(r *sway.Result) float64 { return r.Body.Legs[0].WeightShare }},
 	{Key: "body.legs[1].weight_share", Crew: sway.HookRope(1) + " holds, hanging still", Technical: "share of the load's weight on " + sway.HookRope(1) + " (load.body.tandem.ropes[1])",
-		Unit: "", Quantity: "share", Detail: true, Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.WeightShare })},
+		Unit: "", Quantity: "share", Detail: true, When: TandemRope1, Get: func(r *sway.Result) float64 { return r.Body.Legs[1].WeightShare }},
 	{Key: "body.legs[0].tension_max_n", Crew: "largest pull in " + sway.HookRope(0), Technical: "peak tension of " + sway.HookRope(0),
-		Unit: "N", Value: tandemRope(0, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
+		Unit: "N", When: TandemRope0, Get: func(r *sway.Result) float64 { return r.Body.Legs[0].TensionMaxN }},
 	{Key: "body.legs[1].tension_max_n", Crew: "largest pull in " + sway.HookRope(1), Technical: "peak tension of " + sway.HookRope(1),
-		Unit: "N", Value: tandemRope(1, func(l *sway.LegLoad) float64 { return l.TensionMaxN })},
+		Unit: "N", When: TandemRope1, Get: func(r *sway.Result) float64 { return r.Body.Legs[1].TensionMaxN }},
 	{Key: "body.leg_tension_max_n", Crew: "largest pull in a sling leg", Technical: "peak leg tension",
-		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMaxN })},
+		Unit: "N", When: Slung, Get: func(r *sway.Result) float64 { return r.Body.LegTensionMaxN }},
 	{Key: "body.leg_tension_min_n", Crew: "smallest pull in a sling leg", Technical: "lowest leg tension",
-		Unit: "N", Value: slung(func(b *sway.Body) float64 { return b.LegTensionMinN })},
+		Unit: "N", When: Slung, Get: func(r *sway.Result) float64 { return r.Body.LegTensionMinN }},
 	{Key: "motion_end_s", Crew: "moves end at", Technical: "end of the last move",
-		Unit: "s", Value: always(func(r *sway.Result) float64 { return r.MotionEndS })},
+		Unit: "s", When: Always, Get: func(r *sway.Result) float64 { return r.MotionEndS }},
 	{Key: "run_s", Crew: "time simulated", Technical: "length of the simulated run",
-		Unit: "s", Detail: true, Value: always(func(r *sway.Result) float64 { return r.RunS })},
+		Unit: "s", Detail: true, When: Always, Get: func(r *sway.Result) float64 { return r.RunS }},
 }
 
 // pointPeriod is the period figure's technical name for a load given as
@@ -148,78 +196,21 @@ func amplitudeName(r *sway.Result) string {
 	return "sway period at the residual swing's amplitude"
 }
 
-// swingName names a swing angle: with a hook block or a rigid load it is
-// the line from the suspension point to the load's centre of mass, not
-// the rope.
-func swingName(what string) func(r *sway.Result) string {
-	return func(r *sway.Result) string {
-		if r.Body != nil || r.Rigging != nil {
-			return what + " (line to the load's centre of mass, from the vertical)"
-		}
-		if what == "peak swing" {
-			return "peak swing (rope angle from the vertical)"
-		}
-		return what
+// peakSwingName and residualSwingName name a swing angle: with a hook
+// block or a rigid load it is the line from the suspension point to the
+// load's centre of mass, not the rope.
+func peakSwingName(r *sway.Result) string {
+	if r.Body != nil || r.Rigging != nil {
+		return "peak swing (line to the load's centre of mass, from the vertical)"
 	}
+	return "peak swing (rope angle from the vertical)"
 }
 
-func always(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) { return f(r), true }
-}
-
-// positive: a figure that is there when it is above zero.
-func positive(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) { v := f(r); return v, v > 0 }
-}
-
-// windy: a figure that is there when the wind blows.
-func windy(f func(*sway.Result) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) { return f(r), r.WindForceN > 0 }
-}
-
-// slung: a figure of a rigid load's sling or spreader legs, there when
-// the load has them (two hook ropes have their own figures); the words
-// say sling legs, and Present says spreader legs under a spreader.
-func slung(f func(*sway.Body) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil || r.Body.Suspension == sway.TwoRopes {
-			return 0, false
-		}
-		return f(r.Body), true
+func residualSwingName(r *sway.Result) string {
+	if r.Body != nil || r.Rigging != nil {
+		return "residual swing after the last move (line to the load's centre of mass, from the vertical)"
 	}
-}
-
-// tandemRope: a figure of hook rope i of two (load.body.tandem), there
-// when the load hangs from two hook ropes.
-func tandemRope(i int, f func(*sway.LegLoad) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil || r.Body.Suspension != sway.TwoRopes || len(r.Body.Legs) <= i {
-			return 0, false
-		}
-		return f(&r.Body.Legs[i]), true
-	}
-}
-
-// rigged: a figure of the hook block and rigging, there when modelled.
-func rigged(f func(*sway.Rigging) float64) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) {
-		if r.Rigging == nil {
-			return 0, false
-		}
-		return f(r.Rigging), true
-	}
-}
-
-// bodied: a figure of a rigid load, there when modelled (and, with
-// positive, when above zero).
-func bodied(f func(*sway.Body) float64, positive bool) func(*sway.Result) (float64, bool) {
-	return func(r *sway.Result) (float64, bool) {
-		if r.Body == nil {
-			return 0, false
-		}
-		v := f(r.Body)
-		return v, !positive || v > 0
-	}
+	return "residual swing after the last move"
 }
 
 // ByKey returns the figure with the given key.

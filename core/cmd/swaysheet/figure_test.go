@@ -23,7 +23,7 @@ func TestFigureFromTableOnly(t *testing.T) {
 	defer func() { figures.Table = saved }()
 	figures.Table = append(append([]figures.Figure{}, saved...), figures.Figure{
 		Key: "rope_length_end_m", Crew: "rope length when the run ends", Technical: "rope length at the end of the run",
-		Unit: "m", Value: func(r *sway.Result) (float64, bool) { return r.RopeLengthEndM, true }})
+		Unit: "m", Get: func(r *sway.Result) float64 { return r.RopeLengthEndM }})
 
 	s := testscenario.Example(t, "hoist-during-travel")
 	u := units.Choice{System: "us"}
