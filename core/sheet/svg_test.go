@@ -2,6 +2,7 @@ package sheet
 
 import (
 	"encoding/xml"
+	"fmt"
 	"math"
 	"os"
 	"regexp"
@@ -169,5 +170,37 @@ func TestWritePlots(t *testing.T) {
 		os.WriteFile(dir+"/paper-"+name+".svg", []byte(p.SVG()), 0o644)
 		p.WidthPx = 340
 		os.WriteFile(dir+"/screen-"+name+".svg", []byte(p.SVG()), 0o644)
+	}
+}
+
+// TestPathAsFmt: a series' path is written as fmt's "%c%.2f %.2f" writes
+// each point, for every kind of coordinate the scales can give (negative
+// zero, halves that round, large, infinite, not a number).
+func TestPathAsFmt(t *testing.T) {
+	xs := []float64{0, math.Copysign(0, -1), -0.004, 0.005, 0.015, 1.005, -2.675, 123456.789, -1e300, 1e-320,
+		math.Inf(1), math.Inf(-1), math.NaN(), 640, 319.999, -0.0049999}
+	s := &PlotSeries{X: xs, Y: xs}
+	for _, f := range []func(float64) float64{
+		func(v float64) float64 { return v },
+		func(v float64) float64 { return 1e308 * v },
+		func(v float64) float64 { return -v / 3 },
+	} {
+		var want strings.Builder
+		pen := false
+		for i := range xs {
+			if !finite(xs[i]) {
+				pen = false
+				continue
+			}
+			c := 'L'
+			if !pen {
+				c = 'M'
+			}
+			fmt.Fprintf(&want, "%c%.2f %.2f", c, f(xs[i]), f(xs[i]))
+			pen = true
+		}
+		if got := s.path(f, f); got != want.String() {
+			t.Errorf("path\n got %s\nwant %s", got, want.String())
+		}
 	}
 }
