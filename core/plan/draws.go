@@ -66,7 +66,7 @@ func (rq *request) drawnBound(o *Option, rope, tol float64) (ds []Verified, ok b
 	peak := make([]float64, n)
 	res := make([]float64, n)
 	for d, p := range o.drawProfiles {
-		pk, rs := linearSwing(p, rq.k, w)
+		pk, rs := linearSwingOf(p, o.drawPieces[d], rq.k, w)
 		peak[d], res[d] = pk/units.Degree, rs/units.Degree
 	}
 	top := n - int(math.Ceil(float64(TimingPercentile)/100*float64(n))) + 1

@@ -142,8 +142,11 @@ type Option struct {
 	profile motion.Profile
 	accelSI float64
 	draws   []scenario.Motion // the move as pressed, one per drawn timing
-	// drawProfiles are the draws' speed profiles (linear estimates).
+	// drawProfiles are the draws' speed profiles (linear estimates), and
+	// drawPieces their pieces (linearPieces), made once for every rope
+	// length (verifyWith).
 	drawProfiles []motion.Profile
+	drawPieces   [][]linearPiece
 	checked      func(*Option) // adds sentences once the figures are known
 	// estimated: the linear-theory figures; rechecked: simulated at the
 	// check tolerance (CheckRelTol).

@@ -238,43 +238,51 @@ func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64)
 // choice as it was and skips most of the work for poor counts.
 func (ct *costTable) cost(counts []float64, bound float64) float64 {
 	n, nm := len(ct.g.share), ct.nm
-	idx := ct.idx
+	idx := ct.idx[:n]
 	for k := 1; k < n; k++ {
-		idx[k] = int(math.Round(counts[k] / CueStepS))
+		idx[k] = int(math.Round(counts[k]/CueStepS)) * nm
 	}
-	ct.vals = ct.vals[:0]
+	vals := ct.vals[:0]
 	total := ct.draws * len(ct.ws)
 	stop := total - int(math.Ceil(ct.tm.Percentile/100*float64(total))) + 1
 	over := 0
-	rot, sum := ct.rot, ct.sum
+	// The tables and work space as locals of one length (nm), so that the
+	// inner loop's reads need no bounds checks.
+	rot, sum, coef, turn, ws := ct.rot[:nm], ct.sum[:nm], ct.coef, ct.turn, ct.ws
+	stride := (ct.steps + 1) * nm
 	for d := range ct.draws {
+		c0 := coef[:nm]
 		for m := range rot {
-			rot[m], sum[m] = 1, ct.coef[m]
+			rot[m], sum[m] = 1, c0[m]
 		}
+		row := turn[d*n*stride:]
 		for k := 1; k < n; k++ {
-			tr := ct.turn[((d*n+k)*(ct.steps+1)+idx[k])*nm:][:nm]
-			cf := ct.coef[k*nm:][:nm]
+			tr := row[k*stride+idx[k]:][:nm]
+			cf := coef[k*nm:][:nm]
 			for m := range rot {
 				rot[m] *= tr[m]
 				sum[m] += cf[m] * rot[m]
 			}
 		}
 		m := 0
-		for _, ms := range ct.ws {
+		for j := range ws {
+			ms := &ws[j]
 			v := 0.0
 			for i := range ms.omega {
 				v += ms.share[i] * cmplx.Abs(sum[m+i])
 			}
 			m += len(ms.omega)
-			ct.vals = append(ct.vals, v)
+			vals = append(vals, v)
 			if v >= bound {
 				if over++; over >= stop {
+					ct.vals = vals
 					return math.Inf(1)
 				}
 			}
 		}
 	}
-	return percentile(ct.vals, ct.tm.Percentile)
+	ct.vals = vals
+	return percentile(vals, ct.tm.Percentile)
 }
 
 // robustGaps picks the counts of a group on the CueStepS grid (0 up to

@@ -48,9 +48,14 @@ func (rq *request) verifyWith(opts []*Option, tol float64, linear bool) (kept []
 		}
 		mu.Unlock()
 	}
-	for o := range opts {
+	for o, opt := range opts {
 		for l := range rq.checked {
 			jobs <- job{o, l}
+		}
+		if linear && rq.linearDraws(opt) && opt.drawPieces == nil { // the same at every rope length: made here, before the workers
+			for _, p := range opt.drawProfiles {
+				opt.drawPieces = append(opt.drawPieces, linearPieces(p))
+			}
 		}
 	}
 	close(jobs)
