@@ -3,6 +3,8 @@ package sway
 import (
 	"encoding/json"
 	"math"
+	"math/rand/v2"
+	"strconv"
 	"testing"
 )
 
@@ -80,4 +82,55 @@ func appendFixedOrG(x float64, digits int) []byte {
 	h := History{TimeS: []float64{x}}
 	b, _ := h.AppendJSON(nil, digits)
 	return b[len(`{"time_s":[`) : len(b)-len(`],"swing_deg":null,"rel_x_m":null,"rel_y_m":null,"rel_z_m":null,"load_x_m":null,"load_y_m":null,"suspension_x_m":null,"suspension_y_m":null,"tension_n":null,"rope_m":null}`)]
+}
+
+// TestAppendFixedAsPlain: appendFixed writes the text of the plain way
+// (strconv's integers, the fraction's trailing zeros stripped by
+// division), for numbers of every size, sign and count of decimals.
+func TestAppendFixedAsPlain(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	for range 200000 {
+		dec := r.IntN(16)
+		y := math.Round((r.Float64()*2 - 1) * math.Pow10(r.IntN(17)))
+		if r.IntN(4) == 0 { // many trailing zeros
+			y = math.Round(y/math.Pow10(dec)) * math.Pow10(dec)
+		}
+		if r.IntN(8) == 0 {
+			y += 0.5 // a half, as math.Round rounds it
+		}
+		if math.Abs(y) >= 1e17 {
+			continue
+		}
+		if got, want := string(appendFixed(nil, y, dec)), string(appendFixedPlain(nil, y, dec)); got != want {
+			t.Fatalf("%v at %d decimals: %q, want %q", y, dec, got, want)
+		}
+	}
+}
+
+// appendFixedPlain is appendFixed the plain way (its form before the
+// digits were written in one pass).
+func appendFixedPlain(b []byte, y float64, dec int) []byte {
+	m := int64(math.Round(y))
+	if m == 0 {
+		return append(b, '0')
+	}
+	if m < 0 {
+		b = append(b, '-')
+		m = -m
+	}
+	p := int64(math.Pow10(dec))
+	b = strconv.AppendInt(b, m/p, 10)
+	frac := m % p
+	if frac == 0 {
+		return b
+	}
+	for frac%10 == 0 {
+		frac /= 10
+		dec--
+	}
+	b = append(b, '.')
+	for q := int64(math.Pow10(dec - 1)); q > frac; q /= 10 { // leading zeros
+		b = append(b, '0')
+	}
+	return strconv.AppendInt(b, frac, 10)
 }
