@@ -47,11 +47,12 @@ func TestCountedChecks(t *testing.T) {
 	}
 }
 
-// tight0 is each limit at the lowest value accepted.
+// tight0 is each limit at the lowest value accepted (scenario.Ranges).
 var tight0 = func() scenario.Limits {
-	deg, m, factor, tilt := 0.01, 0.001, 1.0, 0.1
-	return scenario.Limits{PeakSwingDeg: &deg, PeakExcursionM: &m, ResidualSwingDeg: &deg, ResidualExcursionM: &m,
-		TensionFactor: &factor, PeakTiltDeg: &tilt}
+	low := func(key string) *float64 { v := scenario.Ranges["limits."+key].Min; return &v }
+	return scenario.Limits{PeakSwingDeg: low("peak_swing_deg"), PeakExcursionM: low("peak_excursion_m"),
+		ResidualSwingDeg: low("residual_swing_deg"), ResidualExcursionM: low("residual_excursion_m"),
+		TensionFactor: low("tension_factor"), PeakTiltDeg: low("peak_tilt_deg")}
 }()
 
 func countWithin(cs []Check) int {

@@ -27,16 +27,9 @@ func HistoryDigits(relTol float64) int {
 }
 
 // historyKeys are the JSON names of History's series, in field order
-// (historySeries).
+// (History.series).
 var historyKeys = [...]string{"time_s", "swing_deg", "rel_x_m", "rel_y_m", "rel_z_m", "load_x_m", "load_y_m",
 	"suspension_x_m", "suspension_y_m", "tension_n", "rope_m"}
-
-// historySeries lists h's series sent as JSON, in the order of History's
-// fields.
-func (h *History) historySeries() [len(historyKeys)][]float64 {
-	return [...][]float64{h.TimeS, h.SwingDeg, h.RelXM, h.RelYM, h.RelZM, h.LoadXM, h.LoadYM,
-		h.SuspensionXM, h.SuspensionYM, h.TensionN, h.RopeM}
-}
 
 // AppendJSON appends h's JSON, each series with as many decimals as keep
 // digits (at least 1) significant digits in its largest number (at most
@@ -44,7 +37,8 @@ func (h *History) historySeries() [len(historyKeys)][]float64 {
 // its last decimal. A number JSON cannot hold (NaN, infinity) gives
 // encoding/json's error.
 func (h *History) AppendJSON(b []byte, digits int) ([]byte, error) {
-	for i, xs := range h.historySeries() {
+	for i, p := range h.series() {
+		xs := *p
 		b = append(b, ",{"[1-min(i, 1)], '"')
 		b = append(b, historyKeys[i]...)
 		b = append(b, `":[`...)

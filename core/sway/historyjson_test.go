@@ -29,9 +29,9 @@ func TestHistoryJSON(t *testing.T) {
 		if err := json.Unmarshal(short, &back); err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
-		in, out := h.historySeries(), back.historySeries()
+		in, out := h.series(), back.series()
 		for i := range in {
-			a, b := in[i], out[i]
+			a, b := *in[i], *out[i]
 			if len(a) != len(b) {
 				t.Fatalf("%s %s: %d numbers, read back %d", name, historyKeys[i], len(a), len(b))
 			}
