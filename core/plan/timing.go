@@ -174,8 +174,8 @@ type costTable struct {
 	tm    Timing
 	steps int
 	draws int
-	// turn[((d*n+k)*(steps+1)+c)*nm+m] is press k's turn in draw d with
-	// count c, for the m-th of the nm frequencies (rope lengths, then
+	// turn[((d*(n-1)+k-1)*(steps+1)+c)*nm+m] is press k's turn (k >= 1;
+	// the first press has none) in draw d with count c, for the m-th of the nm frequencies (rope lengths, then
 	// modes, flattened); coef[k*nm+m] is C_k.
 	turn  []complex128
 	coef  []complex128
@@ -213,14 +213,37 @@ func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64)
 			ct.coef[k*nm+m] = complex(a*sinc, 0) * turnOf(w*g.tau[k]/2)
 		}
 	}
-	ct.turn = make([]complex128, len(errs)*n*(steps+1)*nm)
+	// A gap's turn exp(i*w*x), x = c*CueStepS + b with b the draw's
+	// delay and scatter, as the product of the count's turn (tabled once)
+	// and the draw's (once per press and draw): two rounded turns and a
+	// product, a few units in the last place from turnOf(w*x), for a
+	// Sincos per count and frequency instead of one per entry. A gap the
+	// scatter makes negative is 0 (no turn).
+	grid := make([]complex128, (steps+1)*nm)
+	for c := 0; c <= steps; c++ {
+		for m, w := range om {
+			grid[c*nm+m] = turnOf(w * float64(c) * CueStepS)
+		}
+	}
+	bt := make([]complex128, nm)
+	ct.turn = make([]complex128, len(errs)*(n-1)*(steps+1)*nm)
 	for d, e := range errs {
 		for k := 1; k < n; k++ {
+			b := tm.ReactionDelayS + tm.SigmaS*e[k]
+			for m, w := range om {
+				bt[m] = turnOf(w * b)
+			}
 			for c := 0; c <= steps; c++ {
-				x := math.Max(0, float64(c)*CueStepS+tm.ReactionDelayS+tm.SigmaS*e[k])
-				row := ct.turn[((d*n+k)*(steps+1)+c)*nm:][:nm]
-				for m, w := range om {
-					row[m] = turnOf(w * x)
+				row := ct.turn[((d*(n-1)+k-1)*(steps+1)+c)*nm:][:nm]
+				if float64(c)*CueStepS+b <= 0 {
+					for m := range row {
+						row[m] = 1
+					}
+					continue
+				}
+				gc := grid[c*nm:][:nm]
+				for m := range row {
+					row[m] = gc[m] * bt[m]
 				}
 			}
 		}
@@ -255,9 +278,9 @@ func (ct *costTable) cost(counts []float64, bound float64) float64 {
 		for m := range rot {
 			rot[m], sum[m] = 1, c0[m]
 		}
-		row := turn[d*n*stride:]
+		row := turn[d*(n-1)*stride:]
 		for k := 1; k < n; k++ {
-			tr := row[k*stride+idx[k]:][:nm]
+			tr := row[(k-1)*stride+idx[k]:][:nm]
 			cf := coef[k*nm:][:nm]
 			for m := range rot {
 				rot[m] *= tr[m]
