@@ -193,6 +193,13 @@ func turnOf(y float64) complex128 {
 	return complex(c, s)
 }
 
+// turns sets dst[m] to turnOf(om[m]*x).
+func turns(dst []complex128, om []float64, x float64) {
+	for m, w := range om {
+		dst[m] = turnOf(w * x)
+	}
+}
+
 func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64) *costTable {
 	ct := &costTable{g: g, ws: ws, tm: tm, steps: steps, draws: len(errs)}
 	var om []float64
@@ -219,32 +226,25 @@ func newCostTable(g group, steps int, ws []modeSet, tm Timing, errs [][]float64)
 	// product, a few units in the last place from turnOf(w*x), for a
 	// Sincos per count and frequency instead of one per entry. A gap the
 	// scatter makes negative is 0 (no turn).
-	grid := make([]complex128, (steps+1)*nm)
+	grid := make([]complex128, (steps+2)*nm) // the counts' turns, then a draw's
 	for c := 0; c <= steps; c++ {
-		for m, w := range om {
-			grid[c*nm+m] = turnOf(w * float64(c) * CueStepS)
-		}
+		turns(grid[c*nm:], om, float64(c)*CueStepS)
 	}
-	bt := make([]complex128, nm)
+	bt := grid[(steps+1)*nm:]
 	ct.turn = make([]complex128, len(errs)*(n-1)*(steps+1)*nm)
-	for d, e := range errs {
+	row := ct.turn
+	for _, e := range errs {
 		for k := 1; k < n; k++ {
 			b := tm.ReactionDelayS + tm.SigmaS*e[k]
-			for m, w := range om {
-				bt[m] = turnOf(w * b)
-			}
+			turns(bt, om, b)
 			for c := 0; c <= steps; c++ {
-				row := ct.turn[((d*(n-1)+k-1)*(steps+1)+c)*nm:][:nm]
-				if float64(c)*CueStepS+b <= 0 {
-					for m := range row {
-						row[m] = 1
+				for m := range bt {
+					row[m] = 1
+					if float64(c)*CueStepS+b > 0 {
+						row[m] = grid[c*nm+m] * bt[m]
 					}
-					continue
 				}
-				gc := grid[c*nm:][:nm]
-				for m := range row {
-					row[m] = gc[m] * bt[m]
-				}
+				row = row[nm:]
 			}
 		}
 	}
