@@ -74,8 +74,9 @@ const (
 
 // Axis is one crane axis as the scenario names it.
 type Axis struct {
-	Name  string // the scenario's "axis" value
-	Words string // as the page and the sheet name it
+	_     [0]func() // never compared: no equality code in the wasm
+	Name  string    // the scenario's "axis" value
+	Words string    // as the page and the sheet name it
 	Kind  *Kind
 	Role  Role
 	// Plannable: the planner plans a move of this axis (plan.axis).

@@ -91,6 +91,7 @@ type Figures struct {
 
 // Summary is the percentiles of each figure.
 type Summary struct {
+	_                [0]func()   // never compared: no equality code in the wasm
 	PeakSwingDeg     Percentiles `json:"peak_swing_deg"`
 	PeakExcursionM   Percentiles `json:"peak_excursion_m"`
 	ResidualSwingDeg Percentiles `json:"residual_swing_deg"`

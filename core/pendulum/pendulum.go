@@ -35,6 +35,7 @@ import (
 
 // Kinematics gives position, velocity and acceleration of a point.
 type Kinematics struct {
+	_             [0]func() // never compared: no equality code in the wasm
 	Pos, Vel, Acc r3.Vec
 }
 

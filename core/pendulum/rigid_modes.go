@@ -11,6 +11,7 @@ import (
 // RigidMode is one small-oscillation mode of a Rigid hanging from a fixed
 // suspension point.
 type RigidMode struct {
+	_ [0]func() // never compared: no equality code in the wasm
 	// PeriodS is the period, s; zero for a mode without restoring force
 	// (Free: the twist of a load on one hook).
 	PeriodS float64

@@ -90,6 +90,7 @@ func (r *Rigid) prepareTandem(geo *rigidGeometry, iLoad m3, heading quat) error 
 
 // tandemMemo is the last rest solved, the start of the next.
 type tandemMemo struct {
+	_        [0]func() // never compared: no equality code in the wasm
 	l, alpha float64
 	q        quat
 	c        r3.Vec

@@ -2,6 +2,7 @@ package plan
 
 import (
 	"math"
+	"reflect"
 	"testing"
 )
 
@@ -42,7 +43,7 @@ func TestCheckAtOnce(t *testing.T) {
 			}
 			for l := range a.Verified {
 				va, vp := a.Verified[l], p.Verified[l]
-				if i == at.Recommended && va != vp {
+				if i == at.Recommended && !reflect.DeepEqual(va, vp) {
 					t.Errorf("%s: recommended %s at %g m: %+v, rechecked %+v", name, a.Key, va.RopeLengthM, va, vp)
 				}
 				d := math.Max(math.Max(math.Abs(va.PeakSwingDeg-vp.PeakSwingDeg), math.Abs(va.ResidualSwingDeg-vp.ResidualSwingDeg)),

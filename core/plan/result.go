@@ -177,11 +177,12 @@ func (o *Option) found(s Sentence) { o.FindingSentences = append(o.FindingSenten
 
 // Verified is one simulation of an option.
 type Verified struct {
-	RopeLengthM      float64 `json:"rope_length_m"`
-	PeakSwingDeg     float64 `json:"peak_swing_deg"`
-	PeakExcursionM   float64 `json:"peak_excursion_m"`
-	ResidualSwingDeg float64 `json:"residual_swing_deg"`
-	TensionFactor    float64 `json:"tension_factor"`
+	_                [0]func() // never compared: no equality code in the wasm
+	RopeLengthM      float64   `json:"rope_length_m"`
+	PeakSwingDeg     float64   `json:"peak_swing_deg"`
+	PeakExcursionM   float64   `json:"peak_excursion_m"`
+	ResidualSwingDeg float64   `json:"residual_swing_deg"`
+	TensionFactor    float64   `json:"tension_factor"`
 	// PeakRiggingAngleDeg is the largest angle between rope and rigging,
 	// with a hook block.
 	PeakRiggingAngleDeg float64 `json:"peak_rigging_angle_deg,omitempty"`

@@ -42,13 +42,14 @@ import (
 // Timing states the model of a person's timing the pendant options were
 // checked with.
 type Timing struct {
-	SigmaS         float64 `json:"sigma_s"`
-	ReactionDelayS float64 `json:"reaction_delay_s"`
-	Draws          int     `json:"draws"`
-	Seed           uint64  `json:"seed"`
-	Percentile     float64 `json:"percentile"`
-	CueStepS       float64 `json:"cue_step_s"`
-	Source         string  `json:"source"`
+	_              [0]func() // never compared: no equality code in the wasm
+	SigmaS         float64   `json:"sigma_s"`
+	ReactionDelayS float64   `json:"reaction_delay_s"`
+	Draws          int       `json:"draws"`
+	Seed           uint64    `json:"seed"`
+	Percentile     float64   `json:"percentile"`
+	CueStepS       float64   `json:"cue_step_s"`
+	Source         string    `json:"source"`
 }
 
 // Settings of the timing model.

@@ -96,12 +96,13 @@ type Check struct {
 
 // Phase is the time span of one move, for marking plots.
 type Phase struct {
-	Motion      int     `json:"motion"`
-	Axis        string  `json:"axis"`
-	StartS      float64 `json:"start_s"`
-	AccelEndS   float64 `json:"accel_end_s"`
-	DecelStartS float64 `json:"decel_start_s"`
-	EndS        float64 `json:"end_s"`
+	_           [0]func() // never compared: no equality code in the wasm
+	Motion      int       `json:"motion"`
+	Axis        string    `json:"axis"`
+	StartS      float64   `json:"start_s"`
+	AccelEndS   float64   `json:"accel_end_s"`
+	DecelStartS float64   `json:"decel_start_s"`
+	EndS        float64   `json:"end_s"`
 }
 
 // History holds evenly sampled time series, one slice per quantity.

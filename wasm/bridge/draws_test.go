@@ -70,7 +70,7 @@ func TestDrawsJoin(t *testing.T) {
 		t.Fatalf("draws_join: %s", out)
 	}
 	j := joined.Result
-	if j.Runs != 30 || j.Summary != whole.Result.Summary || !reflect.DeepEqual(j.Figures, whole.Result.Figures) {
+	if j.Runs != 30 || !reflect.DeepEqual(j.Summary, whole.Result.Summary) || !reflect.DeepEqual(j.Figures, whole.Result.Figures) {
 		t.Fatalf("joined %+v, whole %+v", j.Summary, whole.Result.Summary)
 	}
 	if len(j.Shown.Rows) != 4 || j.Shown.Rows[1].Unit != "ft" || !strings.HasPrefix(j.Shown.Rows[0].Words, "In 95 of 100 likely runs: largest swing ") ||

@@ -30,6 +30,7 @@ type Library struct {
 }
 
 type libraryInput struct {
+	_ [0]func() // never compared: no equality code in the wasm
 	// Base overrides LibraryBase (a URL ending in "/").
 	Base string `json:"base"`
 	// File names one file of the library ("library_file").
@@ -93,9 +94,10 @@ func library(env *Env, input []byte) (any, error) {
 // object with the file and the name and description to list it by (the
 // file's own when left out).
 type indexEntry struct {
-	File        string `json:"file"`
-	Name        string `json:"name"`
-	Description string `json:"description"`
+	_           [0]func() // never compared: no equality code in the wasm
+	File        string    `json:"file"`
+	Name        string    `json:"name"`
+	Description string    `json:"description"`
 }
 
 // readIndex reads library/index.json: a JSON list whose entries are file

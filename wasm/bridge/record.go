@@ -18,9 +18,10 @@ func init() { Calls["record"] = record }
 // <axis>_deg_per_s for speeds) and the axis it is for. Axis may be empty
 // when the record has a column for one axis only.
 type RecordInput struct {
-	CSV    string  `json:"csv"`
-	Axis   string  `json:"axis"`
-	StartS float64 `json:"start_s"`
+	_      [0]func() // never compared: no equality code in the wasm
+	CSV    string    `json:"csv"`
+	Axis   string    `json:"axis"`
+	StartS float64   `json:"start_s"`
 }
 
 // RecordReply is the scenario's recorded motion made of the record (a
