@@ -46,24 +46,16 @@ func (h *History) AppendJSON(b []byte, digits int) ([]byte, error) {
 			b = append(b[:len(b)-1], "null"...)
 			continue
 		}
-		top := 0.0
-		for _, x := range xs {
-			if x-x != 0 { // NaN or infinity
-				_, err := json.Marshal(x) // encoding/json's own error
-				return nil, err
-			}
-			top = max(top, math.Abs(x))
+		dec, scale, fixed, ok := decimals(xs, digits)
+		if !ok {
+			_, err := json.Marshal(math.NaN()) // encoding/json's own error
+			return nil, err
 		}
-		dec := 0
-		if top > 0 {
-			dec = min(15, max(0, digits-1-int(math.Floor(math.Log10(top)))))
-		}
-		scale := math.Pow10(dec)
 		for _, x := range xs {
-			if top*scale >= 1e17 { // beyond an int64's exact digits
-				b = strconv.AppendFloat(b, x, 'g', digits, 64)
-			} else {
+			if fixed {
 				b = appendFixed(b, x*scale, dec)
+			} else {
+				b = strconv.AppendFloat(b, x, 'g', digits, 64)
 			}
 			b = append(b, ',')
 		}
@@ -73,6 +65,57 @@ func (h *History) AppendJSON(b []byte, digits int) ([]byte, error) {
 		b = append(b, ']')
 	}
 	return append(b, '}'), nil
+}
+
+// decimals is how AppendJSON writes series xs with digits: dec decimals
+// (scale = 10^dec) when fixed, else digits significant digits ('g', for a
+// series whose largest number times scale is beyond an int64's exact
+// digits). ok (and fixed) is false when xs holds a NaN or an infinity.
+func decimals(xs []float64, digits int) (dec int, scale float64, fixed, ok bool) {
+	top := 0.0
+	for _, x := range xs {
+		if x-x != 0 {
+			return 0, 0, false, false
+		}
+		top = max(top, math.Abs(x))
+	}
+	if top > 0 {
+		dec = min(15, max(0, digits-1-int(math.Floor(math.Log10(top)))))
+	}
+	scale = math.Pow10(dec)
+	return dec, scale, top*scale < 1e17, true // fixed false for NaN and infinity
+}
+
+// Shown is the series of JSON name key ("swing_deg") as AppendJSON writes
+// it with digits and a parser reads it back, number for number: the
+// float64 nearest each written decimal. A number is written as the whole
+// float64 r = Round(x*10^dec) over 10^dec, and 10^dec (dec at most 15) is
+// exact, so r/10^dec, one correctly rounded division, is that nearest
+// float64 (zero as +0, as written). It lets the page's worker draw a chart
+// of a kept evaluation without sending the numbers back (wasm/bridge, the
+// plot call), with the very numbers the page reads from the evaluate
+// reply. ok is false for an unknown key, a series AppendJSON cannot write
+// and one it writes with significant digits ('g': numbers beyond an
+// int64's digits).
+func (h *History) Shown(key string, digits int) (out []float64, ok bool) {
+	for i, p := range h.series() {
+		if historyKeys[i] != key {
+			continue
+		}
+		xs := *p
+		_, scale, fixed, _ := decimals(xs, digits)
+		if !fixed { // also for NaN or infinity
+			return nil, false
+		}
+		out = make([]float64, len(xs))
+		for j, x := range xs {
+			if r := math.Round(x * scale); r != 0 {
+				out[j] = r / scale
+			}
+		}
+		return out, true
+	}
+	return nil, false
 }
 
 // appendFixed appends y/10^dec, y rounded to a whole number (dec 0 to 15,

@@ -51,6 +51,63 @@ func TestHistoryJSON(t *testing.T) {
 	}
 }
 
+// TestShownAsRead: History.Shown gives, bit for bit, the numbers a parser
+// reads from AppendJSON's text (encoding/json's reading, correctly
+// rounded as a browser's JSON.parse is), on every example's series at the
+// default digits and at 3 and 15, and on series with a negative number
+// rounding to zero and large numbers with no decimals; a series AppendJSON
+// writes with significant digits ('g') is not shown.
+func TestShownAsRead(t *testing.T) {
+	var hs []*History
+	for _, s := range loadExamples(t) {
+		r, err := Evaluate(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		hs = append(hs, &r.History)
+	}
+	hs = append(hs, &History{TimeS: []float64{0, 0.5, 1}, SwingDeg: []float64{-1e-12, 3.25, -0.0}, TensionN: []float64{1, 2e300, -3e299},
+		RelXM: []float64{math.SmallestNonzeroFloat64, 1e-300, -1e-3}, RopeM: []float64{1e16, 3, 9.5e16}})
+	checked := 0
+	for _, h := range hs {
+		for _, digits := range []int{3, 9, 15} {
+			text, err := h.AppendJSON(nil, digits)
+			if err != nil {
+				t.Fatal(err)
+			}
+			var read map[string][]float64
+			if err := json.Unmarshal(text, &read); err != nil {
+				t.Fatal(err)
+			}
+			for _, key := range historyKeys {
+				got, ok := h.Shown(key, digits)
+				if !ok {
+					continue // written with significant digits: not shown (checked below)
+				}
+				if want := read[key]; len(got) != len(want) {
+					t.Fatalf("%s at %d digits: %d numbers, read %d", key, digits, len(got), len(want))
+				}
+				for j, w := range read[key] {
+					if math.Float64bits(got[j]) != math.Float64bits(w) {
+						t.Fatalf("%s[%d] at %d digits: shown %v, read %v", key, j, digits, got[j], w)
+					}
+					checked++
+				}
+			}
+		}
+	}
+	if _, ok := hs[0].Shown("no_such_series", 9); ok {
+		t.Error("an unknown series is shown")
+	}
+	if _, ok := (&History{SwingDeg: []float64{math.Inf(1)}}).Shown("swing_deg", 9); ok {
+		t.Error("a series with an infinity is shown")
+	}
+	if _, ok := hs[len(hs)-1].Shown("tension_n", 9); ok {
+		t.Error("a series beyond an int64's digits is shown")
+	}
+	t.Logf("%d numbers", checked)
+}
+
 // TestAppendFixed checks the fixed decimals' text on the edges.
 func TestAppendFixed(t *testing.T) {
 	for _, c := range []struct {

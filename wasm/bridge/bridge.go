@@ -15,6 +15,7 @@ import (
 	"fmt"
 
 	"swaysheet/core/scenario"
+	"swaysheet/core/sway"
 )
 
 // Func is one call: it reads its JSON input and returns a value to encode
@@ -109,13 +110,22 @@ func toError(err error) *Error {
 }
 
 // evaluate runs one scenario: input is the scenario JSON, the result is
-// the sway.Result JSON.
+// an evaluation.
 func evaluate(_ *Env, input []byte) (any, error) {
 	s, err := scenario.Parse(input)
 	if err != nil {
 		return nil, err
 	}
-	return evaluated(s, true)
+	r, fp, err := evaluatedKeyed(s, true)
+	return &evaluation{r, fp}, err
+}
+
+// evaluation is the evaluate call's result: the sway.Result JSON with,
+// in it, key: the memo's name for the evaluation, by which the plot call
+// draws its histories (plotInput).
+type evaluation struct {
+	*sway.Result
+	Key string `json:"key"`
 }
 
 // Validation is the result of the "validate" call.

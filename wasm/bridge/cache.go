@@ -35,9 +35,15 @@ const keptResults = 8
 // validated says s came from scenario.Parse unchanged (not validated
 // again). The result is shared: callers read it and never change it.
 func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
+	r, _, err := evaluatedKeyed(s, validated)
+	return r, err
+}
+
+// evaluatedKeyed is evaluated, with the memo's key of the result.
+func evaluatedKeyed(s *scenario.Scenario, validated bool) (*sway.Result, string, error) {
 	fp, err := key(s)
 	if err != nil {
-		return nil, err
+		return nil, "", err
 	}
 	last.mu.Lock()
 	for i, k := range last.results {
@@ -45,13 +51,13 @@ func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
 			copy(last.results[1:i+1], last.results[:i])
 			last.results[0] = k
 			last.mu.Unlock()
-			return k.result, nil
+			return k.result, fp, nil
 		}
 	}
 	last.mu.Unlock()
 	r, err := sway.EvaluateWith(s, sway.Options{Validated: validated})
 	if err != nil {
-		return nil, err
+		return nil, "", err
 	}
 	last.mu.Lock()
 	last.results = append([]keptResult{{fp: fp, result: r}}, last.results...)
@@ -60,7 +66,7 @@ func evaluated(s *scenario.Scenario, validated bool) (*sway.Result, error) {
 	}
 	last.computed++
 	last.mu.Unlock()
-	return r, nil
+	return r, fp, nil
 }
 
 type keptResult struct {
@@ -128,12 +134,18 @@ func keptResultOf(s *scenario.Scenario) *sway.Result {
 	if err != nil {
 		return nil
 	}
+	return keptByKey(fp)
+}
+
+// keptByKey is the kept evaluation of memo key fp, else nil.
+func keptByKey(fp string) (r *sway.Result) {
 	last.mu.Lock()
-	defer last.mu.Unlock()
 	for _, k := range last.results {
 		if k.fp == fp {
-			return k.result
+			r = k.result
+			break
 		}
 	}
-	return nil
+	last.mu.Unlock()
+	return r
 }

@@ -87,9 +87,47 @@ type FiguresReply struct {
 // plotCall draws a line chart with the check sheet's plotter (core/sheet
 // Plot): input the Plot JSON, result {"svg": "<svg ...>"}.
 func plotCall(_ *Env, input []byte) (any, error) {
-	var p sheet.Plot
+	var p plotInput
 	if err := json.Unmarshal(input, &p); err != nil {
 		return nil, scenario.Errors{{Field: "(input)", Message: "expected {\"title\", \"x_label\", \"y_label\", \"series\": [{\"x\": [...], \"y\": [...]}], \"lines\", \"bands\", \"circles\", \"width_px\", ...}: " + err.Error()}}
 	}
+	if p.HistoryKey != "" && !p.fromHistory() {
+		return nil, scenario.Errors{{Field: "history_key", Message: "no evaluation of this key with these series is kept: send the series' numbers"}}
+	}
 	return map[string]string{"svg": p.SVG()}, nil
+}
+
+// plotInput is the plot call's input: a chart, whose series' numbers may
+// instead be a kept evaluation's histories, named (HistoryKey and
+// SeriesOf). The page's worker draws the rope-angle chart of the
+// evaluation it has just answered that way: the numbers are those the
+// evaluate reply wrote (sway.History.Shown), bit for bit, without the
+// worker sending them back and this call reading them (about two thirds
+// of the call's work).
+type plotInput struct {
+	sheet.Plot
+	// HistoryKey is an evaluate reply's key.
+	HistoryKey string `json:"history_key"`
+	// SeriesOf[i] names series i's x and y by their JSON names in the
+	// evaluate reply's history (["time_s", "swing_deg"]).
+	SeriesOf [][2]string `json:"series_of"`
+}
+
+// fromHistory sets the series' numbers from the kept evaluation; false
+// when it is not kept or has no such series (one name pair a series).
+func (p *plotInput) fromHistory() bool {
+	r := keptByKey(p.HistoryKey)
+	if r == nil || len(p.SeriesOf) != len(p.Series) {
+		return false
+	}
+	digits := sway.HistoryDigits(r.Solver.RelTol)
+	ok := true
+	for i := range p.Series {
+		var okX, okY bool
+		s, of := &p.Series[i], p.SeriesOf[i]
+		s.X, okX = r.History.Shown(of[0], digits)
+		s.Y, okY = r.History.Shown(of[1], digits)
+		ok = ok && okX && okY
+	}
+	return ok
 }

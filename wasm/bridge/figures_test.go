@@ -116,6 +116,53 @@ func TestPlotCall(t *testing.T) {
 	}
 }
 
+// The plot call draws a kept evaluation's histories by the evaluate
+// reply's key the same, byte for byte, as from the numbers the page reads
+// from that reply; an unknown key or series name is an error on
+// history_key (the page's worker then sends the numbers).
+func TestPlotCallByKey(t *testing.T) {
+	var ev struct {
+		Result struct {
+			History map[string]json.RawMessage `json:"history"`
+			Key     string                     `json:"key"`
+		} `json:"result"`
+	}
+	if err := json.Unmarshal(Call(nil, "evaluate", readExample(t, DemoFile)), &ev); err != nil || len(ev.Result.Key) != 64 {
+		t.Fatalf("evaluate: %v, key %q", err, ev.Result.Key)
+	}
+	h, key := ev.Result.History, ev.Result.Key
+	chart := `{"id": "angle", "title": "rope angle", "x_label": "time, s", "y_label": "deg", "width_px": 420, "bands": [{"x0": 0, "x1": 2, "text": "A1"}], `
+	byNumbers := chart + `"series": [{"x": ` + string(h["time_s"]) + `, "y": ` + string(h["swing_deg"]) + `, "name": "swing"},` +
+		`{"x": ` + string(h["time_s"]) + `, "y": ` + string(h["rel_x_m"]) + `, "name": "x"}]}`
+	byKey := chart + `"series": [{"name": "swing"}, {"name": "x"}], "history_key": "` + key + `",
+		"series_of": [["time_s", "swing_deg"], ["time_s", "rel_x_m"]]}`
+	var a, b struct {
+		Result struct{ SVG string } `json:"result"`
+		Error  *Error               `json:"error"`
+	}
+	if err := json.Unmarshal(Call(nil, "plot", []byte(byNumbers)), &a); err != nil || a.Error != nil {
+		t.Fatalf("plot by numbers: %v %+v", err, a.Error)
+	}
+	if err := json.Unmarshal(Call(nil, "plot", []byte(byKey)), &b); err != nil || b.Error != nil {
+		t.Fatalf("plot by key: %v %+v", err, b.Error)
+	}
+	if a.Result.SVG != b.Result.SVG || !strings.Contains(a.Result.SVG, "<path") {
+		t.Errorf("by key:\n%.400s\nby numbers:\n%.400s", b.Result.SVG, a.Result.SVG)
+	}
+	for _, in := range []string{
+		`{"series": [{}], "history_key": "0123", "series_of": [["time_s", "swing_deg"]]}`,
+		`{"series": [{}], "history_key": "` + key + `", "series_of": [["time_s", "swing"]]}`,
+		`{"series": [{}, {}], "history_key": "` + key + `", "series_of": [["time_s", "swing_deg"]]}`,
+		`{"series": [{}], "history_key": "` + key + `", "series_of": [["time_s", "swing_deg"], ["time_s", "rope_m"]]}`,
+	} {
+		var e struct{ Error *Error }
+		json.Unmarshal(Call(nil, "plot", []byte(in)), &e)
+		if e.Error == nil || len(e.Error.Fields) != 1 || e.Error.Fields[0].Field != "history_key" {
+			t.Errorf("%s: %+v, want an error on history_key", in, e.Error)
+		}
+	}
+}
+
 // A changed reference field of the sheet computes nothing again; a
 // changed input does.
 func TestMemoKey(t *testing.T) {

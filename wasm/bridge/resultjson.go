@@ -15,11 +15,12 @@ import (
 // computes with them; every other number is as encoding/json writes it.
 // The histories come last in the result's object.
 func marshalReply(r reply) ([]byte, error) {
-	res, ok := r.Result.(*sway.Result)
-	if !ok || res == nil || res.History.TimeS == nil {
+	ev, ok := r.Result.(*evaluation)
+	if !ok || ev.Result == nil || ev.History.TimeS == nil {
 		return json.Marshal(r)
 	}
-	b, err := json.Marshal(historyLast{Result: res})
+	res := ev.Result
+	b, err := json.Marshal(&historyLast{evaluation: ev})
 	if err != nil {
 		return nil, err
 	}
@@ -31,9 +32,9 @@ func marshalReply(r reply) ([]byte, error) {
 	return append(out, '}', '}'), nil
 }
 
-// historyLast is a Result whose History encoding/json leaves out (the
-// field of the same name here, nil, hides it).
+// historyLast is an evaluation whose History encoding/json leaves out
+// (the field of the same name here, nil, hides it).
 type historyLast struct {
-	*sway.Result
+	*evaluation
 	History *struct{} `json:"history,omitempty"`
 }

@@ -15,7 +15,8 @@ import (
 // field but the histories exactly (encoding/json's shortest decimals), the
 // histories as sway.History.AppendJSON writes them at the run's digits
 // (core/sway TestHistoryJSON holds those to the numbers), on every
-// example; a history holding NaN is refused with encoding/json's error.
+// example, with the memo's key; a history holding NaN is refused with
+// encoding/json's error.
 func TestEvaluateReply(t *testing.T) {
 	files, _ := filepath.Glob("../../testdata/scenarios/*.json")
 	for _, f := range files {
@@ -23,13 +24,14 @@ func TestEvaluateReply(t *testing.T) {
 		if err != nil {
 			t.Fatal(f, err)
 		}
-		got, err := marshalReply(reply{Result: r})
+		got, err := marshalReply(reply{Result: &evaluation{r, "0a1b"}})
 		if err != nil {
 			t.Fatal(f, err)
 		}
 		var back struct{ Result sway.Result }
-		if err := json.Unmarshal(got, &back); err != nil {
-			t.Fatalf("%s: %v", filepath.Base(f), err)
+		var key struct{ Result struct{ Key string } }
+		if err := json.Unmarshal(got, &back); err != nil || json.Unmarshal(got, &key) != nil || key.Result.Key != "0a1b" {
+			t.Fatalf("%s: %v, key %q", filepath.Base(f), err, key.Result.Key)
 		}
 		hist, _ := r.History.AppendJSON(nil, sway.HistoryDigits(r.Solver.RelTol))
 		var want sway.History
@@ -49,7 +51,7 @@ func TestEvaluateReply(t *testing.T) {
 	}
 	r := &sway.Result{History: sway.History{TimeS: []float64{0, 1}, SwingDeg: []float64{math.NaN()}}, Solver: sway.Stats{RelTol: 1e-7}}
 	_, want := json.Marshal(reply{Result: r})
-	if _, err := marshalReply(reply{Result: r}); err == nil || want == nil || err.Error() != want.Error() {
+	if _, err := marshalReply(reply{Result: &evaluation{r, ""}}); err == nil || want == nil || err.Error() != want.Error() {
 		t.Errorf("NaN in a history: got %v, encoding/json %v", err, want)
 	}
 }

@@ -52,6 +52,11 @@ func TestInputBurst(t *testing.T) {
 		t.Errorf("the sheet does not print the rope length %s", last)
 	}
 	t.Logf("%d of 12 changes presented", eval[int](h, `window.swaysheet.resultCount()`)-before)
+	// Every chart the worker drew with an evaluation was drawn from the
+	// evaluation the engine keeps, none from numbers sent back.
+	if n := eval[map[string]float64](h, `window.swaysheet.chartsDrawn()`); n["byKey"] == 0 || n["byNumbers"] != 0 {
+		t.Errorf("charts drawn with an evaluation: %v, want all by key", n)
+	}
 	// The rope-angle chart the worker drew with the last change is the
 	// one the page draws of the result presented (a resize draws again).
 	d := h.plotPath("plot-angle")

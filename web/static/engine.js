@@ -6,6 +6,11 @@ import { $, notice } from './dom.js';
 
 let worker = null, nextId = 1, waiting = {}, restarts = [], inFlight = 0, held = [], pumping = false;
 
+// chartsDrawn counts the charts the worker drew with an evaluation, from
+// the evaluation the engine keeps (byKey) or from numbers sent back
+// (byNumbers, when it was no longer kept), for the browser tests.
+export const chartsDrawn = { byKey: 0, byNumbers: 0 };
+
 // DEADLINES: how long (ms) a call may go unanswered before the engine is
 // taken as stuck or gone (a worker can end without an error event). The
 // first calls wait for the engine to start; a plan simulates many moves.
@@ -23,6 +28,7 @@ export function startWorker() {
     if (m.chart !== undefined) {
       // (One no longer wanted is not read.)
       if (w) { w.bands = m.bands; if (m.chart && w.onChart && !(w.stale && w.stale())) w.onChart(JSON.parse(m.chart)); }
+      if (m.chart) chartsDrawn[m.byKey ? 'byKey' : 'byNumbers']++;
       return;
     }
     delete waiting[m.id];

@@ -8,7 +8,7 @@
 import { plotting } from './charts.js';
 import { changed, computing } from './compute.js';
 import { $, notice } from './dom.js';
-import { DEADLINES, call, cancel, engineError, startWorker } from './engine.js';
+import { DEADLINES, call, cancel, chartsDrawn, engineError, startWorker } from './engine.js';
 import { bindForm, renderForm } from './form.js';
 import { bindPlan, planLoaded, renderPlan } from './plan-view.js';
 import { sheetCurrent } from './sheet.js';
@@ -155,6 +155,7 @@ window.swaysheet = {
   units: function () { return S.chosen; },
   system: function () { return S.sys; },
   resultCount: function () { return S.count; },
+  chartsDrawn: function () { return chartsDrawn; },
   // loads counts the scenarios loaded from outside the form (links,
   // files, saved entries, examples).
   loads: function () { return S.loads || 0; },

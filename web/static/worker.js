@@ -233,11 +233,23 @@ function drawFirst(m, out, then) {
   soon(function () {
     var drop = unwanted[m.id];
     if (!c.width_px || drop) { postMessage({ id: m.id, chart: '', bands: bands }); then(); return; }
-    c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
-    c.bands = bands;
-    self.swaysheetCall('plot', JSON.stringify(c), function (svg) {
-      postMessage({ id: m.id, chart: svg, bands: bands });
+    var post = function (svg, byKey) {
+      postMessage({ id: m.id, chart: svg, bands: bands, byKey: byKey });
       then();
+    };
+    c.bands = bands;
+    // Drawn from the evaluation the engine keeps (the result's key), the
+    // series named, not sent back: the same numbers (wasm/bridge,
+    // plotInput). Should it no longer be kept: with the numbers.
+    var named = Object.assign({}, c, {
+      history_key: r.key,
+      series_of: c.series.map(function (s) { return [s.x, s.y]; }),
+      series: c.series.map(function (s) { var t = Object.assign({}, s); delete t.x; delete t.y; return t; })
+    });
+    self.swaysheetCall('plot', JSON.stringify(named), function (svg) {
+      if (r.key && svg.lastIndexOf('{"error"', 0) !== 0) { post(svg, true); return; }
+      c.series.forEach(function (s) { s.x = hs[s.x]; s.y = hs[s.y]; });
+      self.swaysheetCall('plot', JSON.stringify(c), post);
     });
   });
 }
