@@ -175,9 +175,10 @@ type costTable struct {
 	tm    Timing
 	steps int
 	draws int
-	// turn[((d*(n-1)+k-1)*(steps+1)+c)*nm+m] is press k's turn (k >= 1;
-	// the first press has none) in draw d with count c, for the m-th of the nm frequencies (rope lengths, then
-	// modes, flattened); coef[k*nm+m] is C_k.
+	// turn[((d*(n-1)+k-1)*(steps+1)+c)*nm+m] is press k's turn (k >= 1:
+	// the first press has no gap) in draw d with count c, for the m-th of
+	// the nm frequencies (rope lengths, then modes, flattened);
+	// coef[k*nm+m] is C_k.
 	turn  []complex128
 	coef  []complex128
 	nm    int

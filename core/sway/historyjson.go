@@ -47,9 +47,11 @@ func (h *History) AppendJSON(b []byte, digits int) ([]byte, error) {
 			continue
 		}
 		dec, scale, fixed, ok := decimals(xs, digits)
-		if !ok {
-			_, err := json.Marshal(math.NaN()) // encoding/json's own error
-			return nil, err
+		for i := 0; !ok; i++ { // decimals found a NaN or an infinity: encoding/json's own error
+			if x := xs[i]; x-x != 0 {
+				_, err := json.Marshal(x)
+				return nil, err
+			}
 		}
 		for _, x := range xs {
 			if fixed {
@@ -83,7 +85,7 @@ func decimals(xs []float64, digits int) (dec int, scale float64, fixed, ok bool)
 		dec = min(15, max(0, digits-1-int(math.Floor(math.Log10(top)))))
 	}
 	scale = math.Pow10(dec)
-	return dec, scale, top*scale < 1e17, true // fixed false for NaN and infinity
+	return dec, scale, top*scale < 1e17, true
 }
 
 // Shown is the series of JSON name key ("swing_deg") as AppendJSON writes

@@ -124,6 +124,12 @@ func TestAppendFixed(t *testing.T) {
 	if got := string(appendFixedOrG(3e17, 9)); got != "3e+17" {
 		t.Errorf("a series past an int64's digits: %q", got)
 	}
+	for _, bad := range []float64{math.NaN(), math.Inf(1), math.Inf(-1)} {
+		_, want := json.Marshal(bad)
+		if _, err := (&History{TimeS: []float64{0, 1}, TensionN: []float64{1, bad}}).AppendJSON(nil, 9); err == nil || want == nil || err.Error() != want.Error() {
+			t.Errorf("%v in a series: %v, want encoding/json's %v", bad, err, want)
+		}
+	}
 	empty := History{TimeS: []float64{}, SwingDeg: []float64{0}}
 	want, _ := json.Marshal(empty)
 	if got, _ := empty.AppendJSON(nil, 9); string(got) != string(want) {

@@ -85,7 +85,7 @@ type FiguresReply struct {
 }
 
 // plotCall draws a line chart with the check sheet's plotter (core/sheet
-// Plot): input the Plot JSON, result {"svg": "<svg ...>"}.
+// Plot): input a plotInput (the Plot JSON), result {"svg": "<svg ...>"}.
 func plotCall(_ *Env, input []byte) (any, error) {
 	var p plotInput
 	if err := json.Unmarshal(input, &p); err != nil {
