@@ -74,10 +74,11 @@ type SectionBand struct {
 // the 95 % runs stray from the nominal path and the margin, about the
 // nominal centre's track), and its top.
 type SectionObstacle struct {
-	Name  string  `json:"name"`
-	FromM float64 `json:"from_m"`
-	ToM   float64 `json:"to_m"`
-	TopM  float64 `json:"top_m"`
+	_     [0]func() // never compared: no equality code in the wasm
+	Name  string    `json:"name"`
+	FromM float64   `json:"from_m"`
+	ToM   float64   `json:"to_m"`
+	TopM  float64   `json:"top_m"`
 }
 
 // Vertical is the smallest height of the load's lowest point above an

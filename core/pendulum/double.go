@@ -120,6 +120,7 @@ func DoubleStateFromSwing(theta, phi, vx, vy, l1, l2 float64) []float64 {
 // Modes are the two small-swing modes of the hook-and-rigging pendulum
 // under a fixed suspension point.
 type Modes struct {
+	_ [0]func() // never compared: no equality code in the wasm
 	// Omega are the angular frequencies, rad/s, first (slower) mode first.
 	Omega [2]float64
 	// Shape are the mode shapes as (rope angle, rigging angle), scaled so

@@ -41,6 +41,7 @@ import (
 // interval, then the secant method on dE/dalpha (fourth-order central
 // differences), to about 1e-12 rad.
 type TandemRopes struct {
+	_      [0]func()  // never compared: no equality code in the wasm
 	Top    [2]float64 // the suspension points along the heading from S, m (Top[0] > Top[1])
 	Attach [2]r3.Vec  // attach points, load axes from its centre of mass, m
 	Extra  [2]float64 // rope i's length is L(t) + Extra[i], m

@@ -162,9 +162,10 @@ type HeightsAnswer struct {
 
 // TimedAnswer is the rope length from a timed swing.
 type TimedAnswer struct {
-	PeriodS           float64 `json:"period_s"`             // t/N, at the amplitude timed
-	SmallSwingPeriodS float64 `json:"small_swing_period_s"` // T0
-	AmplitudeFactor   float64 `json:"amplitude_factor"`     // T/T0 = 2K(k)/pi
+	_                 [0]func() // never compared: no equality code in the wasm
+	PeriodS           float64   `json:"period_s"`             // t/N, at the amplitude timed
+	SmallSwingPeriodS float64   `json:"small_swing_period_s"` // T0
+	AmplitudeFactor   float64   `json:"amplitude_factor"`     // T/T0 = 2K(k)/pi
 	// EffectiveLengthM is g*(T0/(2*pi))^2: the one rope with this sway
 	// period (the rope length for a single-rope scenario and for shaping).
 	EffectiveLengthM float64 `json:"effective_length_m"`

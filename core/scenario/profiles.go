@@ -55,10 +55,11 @@ type SpeedStep struct {
 // load's rope length; with a hook block, the slower mode's period at that
 // rope length to the hook), optionally with a second mode's period.
 type ShaperSpec struct {
-	Kind         string   `json:"kind"`
-	PeriodS      *float64 `json:"period_s,omitempty"`
-	RopeLengthM  *float64 `json:"rope_length_m,omitempty"`
-	DampingRatio float64  `json:"damping_ratio,omitempty"`
+	_            [0]func() // never compared: no equality code in the wasm
+	Kind         string    `json:"kind"`
+	PeriodS      *float64  `json:"period_s,omitempty"`
+	RopeLengthM  *float64  `json:"rope_length_m,omitempty"`
+	DampingRatio float64   `json:"damping_ratio,omitempty"`
 	// TolerancePct is the EI shaper's residual at its design period, %
 	// (0: 5 %).
 	TolerancePct float64 `json:"tolerance_pct,omitempty"`

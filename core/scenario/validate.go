@@ -11,6 +11,7 @@ import (
 
 // Range is the accepted interval of one field, with its unit for messages.
 type Range struct {
+	_        [0]func() // never compared: no equality code in the wasm
 	Min, Max float64
 	Unit     string
 	// OpenMin excludes Min itself (the value must be above it).

@@ -13,6 +13,7 @@ import (
 // Rigging reports the hook block and rigging when a scenario models them
 // as a second mass.
 type Rigging struct {
+	_ [0]func() // never compared: no equality code in the wasm
 	// ModePeriodsS are the two small-swing periods of the linearised
 	// two-mass pendulum at the rope length at the end of the run, slower
 	// mode first.
