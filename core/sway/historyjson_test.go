@@ -81,8 +81,11 @@ func TestShownAsRead(t *testing.T) {
 			}
 			for _, key := range historyKeys {
 				got, ok := h.Shown(key, digits)
-				if !ok {
+				if !ok && h == hs[len(hs)-1] && key == "tension_n" {
 					continue // written with significant digits: not shown (checked below)
+				}
+				if !ok {
+					t.Fatalf("%s at %d digits: not shown", key, digits)
 				}
 				if want := read[key]; len(got) != len(want) {
 					t.Fatalf("%s at %d digits: %d numbers, read %d", key, digits, len(got), len(want))
