@@ -36,20 +36,3 @@ func TestDenseRate(t *testing.T) {
 		t.Errorf("dense rate at the step's ends off its stages by %g", ends)
 	}
 }
-
-// TestStepPowersAreMathPow: the step control's powers, Exp(y*Log(x)),
-// are math.Pow(x, y) to the bit for its exponents (0.17, 0.04, both below
-// 1/2, where math.Pow computes just that) over the error norms a step can
-// have, zero and the floor 1e-4 included: the steps are those math.Pow
-// gave.
-func TestStepPowersAreMathPow(t *testing.T) {
-	for _, y := range []float64{0.2 - stepBeta*0.75, stepBeta} {
-		for x := 1e-14; x < 1e12; x *= 1.0137 {
-			for _, z := range []float64{x, 0, 1e-4, 1e10} {
-				if got, want := math.Exp(y*math.Log(z)), math.Pow(z, y); got != want {
-					t.Fatalf("%v^%v: %v, math.Pow %v", z, y, got, want)
-				}
-			}
-		}
-	}
-}

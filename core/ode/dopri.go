@@ -8,8 +8,8 @@
 //	J. R. Dormand and P. J. Prince, "A family of embedded Runge-Kutta
 //	formulae", J. Comp. Appl. Math. 6 (1980) 19-26,
 //
-// and the step-size control (with Lund stabilisation) and the dense output
-// follow
+// and the step-size control (with Lund stabilisation; its arithmetic in
+// control.go) and the dense output follow
 //
 //	E. Hairer, S. P. Norsett and G. Wanner, "Solving Ordinary Differential
 //	Equations I", 2nd ed., Springer 1993, sec. II.4-II.6 (code DOPRI5).
@@ -76,8 +76,8 @@ type Solver struct {
 	k        [7][]float64
 	tmp      []float64
 	cont     [5][]float64
-	facOld   float64
-	facPow   float64 // facOld^beta, taken when facOld is set
+	invN     float64 // 1/n
+	ctl      StepControl
 	started  bool
 	fresh    bool // k[0] holds f(t, y)
 	Accepted int  // accepted steps
@@ -102,7 +102,7 @@ func New(f Func, n int, s Settings) *Solver {
 	if s.RelTol < 0 || s.AbsTol < 0 || s.MaxStep < 0 || s.MaxSteps < 0 {
 		panic("ode: negative setting")
 	}
-	v := &Solver{f: f, n: n, set: s}
+	v := &Solver{f: f, n: n, set: s, invN: 1 / float64(n)}
 	mk := func() []float64 { return make([]float64, n) }
 	v.y, v.ynew, v.tmp = mk(), mk(), mk()
 	for i := range v.k {
@@ -124,12 +124,8 @@ func (v *Solver) Reset(t float64, y []float64) {
 	v.t, v.told = t, t
 	copy(v.y, y)
 	v.fresh = false
-	v.facOld = 1e-4
-	v.facPow = math.Exp(stepBeta * math.Log(1e-4))
+	v.ctl.Restart()
 }
-
-// stepBeta is the Lund stabilisation exponent of the step control.
-const stepBeta = 0.04
 
 // SetState replaces the current state (for instance after projecting it onto
 // a constraint) without moving in time.
@@ -156,7 +152,15 @@ func (v *Solver) eval(t float64, y, dy []float64) {
 	v.Evals++
 }
 
+// errNorm is the error norm of Hairer, Norsett & Wanner: the root mean
+// square of e over the tolerances AbsTol + RelTol·max(|y0_i|, |y1_i|).
 func (v *Solver) errNorm(y0, y1, e []float64) float64 {
+	return math.Sqrt(v.errSquare(y0, y1, e))
+}
+
+// errSquare is errNorm squared, the mean square, which the step control
+// takes without the square root.
+func (v *Solver) errSquare(y0, y1, e []float64) float64 {
 	var sum float64
 	n := v.n
 	y0, y1, e = y0[:n], y1[:n], e[:n]
@@ -171,11 +175,12 @@ func (v *Solver) errNorm(y0, y1, e []float64) float64 {
 		if b > a {
 			a = b
 		}
-		sk := v.set.AbsTol + v.set.RelTol*a
-		r := e[i] / sk
+		// A product with the scale's reciprocal: the reciprocal does not
+		// wait for e, the last thing a step computes (StepControl).
+		r := e[i] * (1 / (v.set.AbsTol + v.set.RelTol*a))
 		sum += r * r
 	}
-	return math.Sqrt(sum / float64(v.n))
+	return sum * v.invN
 }
 
 // initialStep is the starting step heuristic of Hairer, Norsett & Wanner
@@ -228,8 +233,6 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		v.h = v.initialStep(tEnd)
 		v.started = true
 	}
-	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, stepBeta
-	const expo1 = 0.2 - beta*0.75
 	span := tEnd - v.t
 	for {
 		if v.Accepted+v.Rejected >= v.set.MaxSteps {
@@ -275,24 +278,8 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 		for i := range n {
 			tmp[i] = h * (E1*k1[i] + E3*k3[i] + E4*k4[i] + E5*k5[i] + E6*k6[i] + E7*k7[i])
 		}
-		errv := v.errNorm(y, ynew, tmp)
-		if math.IsNaN(errv) || math.IsInf(errv, 0) {
-			errv = 1e10
-		}
-		// The powers as Exp(y*Log(x)): that is what math.Pow computes for
-		// 0 < y < 1/2, to the bit, after reductions that cost more than a
-		// step's arithmetic in wasm (TestStepPowersAreMathPow); facOld^beta
-		// is taken once per accepted step.
-		logErr := math.Log(errv)
-		fac11 := math.Exp(expo1 * logErr)
-		fac := fac11 / v.facPow
-		fac = math.Max(1/facMax, math.Min(1/facMin, fac/safe))
-		if errv <= 1 {
-			v.facOld = math.Max(errv, 1e-4)
-			if errv < 1e-4 {
-				logErr = math.Log(1e-4)
-			}
-			v.facPow = math.Exp(beta * logErr)
+		ratio, accept := v.ctl.Next(v.errSquare(y, ynew, tmp))
+		if accept {
 			v.Accepted++
 			for i := range n {
 				ydiff := ynew[i] - y[i]
@@ -306,11 +293,11 @@ func (v *Solver) Step(tEnd float64) (done bool, err error) {
 			copy(k1, k7) // first same as last
 			copy(y, ynew)
 			v.told, v.t = t, tn
-			v.h = h / fac
+			v.h = h * ratio
 			return last, nil
 		}
 		v.Rejected++
-		v.h = h / math.Min(1/facMin, fac11/safe)
+		v.h = h * ratio
 		if v.h < 1e-14*math.Max(1, math.Abs(t)) {
 			return false, fmt.Errorf("ode: step size underflow at t = %.6g", t)
 		}

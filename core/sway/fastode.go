@@ -9,7 +9,7 @@ import (
 
 // fastSolver is ode.Solver's Dormand-Prince 5(4) pair written for the
 // six-element state of fastModel: the same tableau, error norm, step-size
-// control (with Lund stabilisation), starting step, restarts and dense
+// control (ode.StepControl itself), starting step, restarts and dense
 // output, in the same order of operations (core/ode/dopri.go cites the
 // sources), on fixed-size arrays, with the right-hand side called
 // directly.
@@ -37,8 +37,7 @@ type fastSolver struct {
 	d1k1       [6]float64 // ode.D1*k1 of the last step
 	hLast      float64    // its step size
 	contDone   bool       // cont[4] is computed
-	facOld     float64
-	facOldPow  float64 // facOld^beta
+	ctl        ode.StepControl
 	started    bool
 	fresh      bool
 
@@ -55,13 +54,18 @@ func (v *fastSolver) reset(t float64, y *[6]float64) {
 	v.t, v.told = t, t
 	v.y = *y
 	v.fresh = false
-	v.facOld = 1e-4
-	v.facOldPow = stepExp(stepBeta * logFacFloor)
+	v.ctl.Restart()
 }
 
 // errNorm is ode's error norm, the root mean square of e over the
 // tolerances, sqrt(sum_i (e_i/(absTol + relTol max(|y0_i|, |y1_i|)))² / 6).
 func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
+	return math.Sqrt(v.errSquare(y0, y1, e))
+}
+
+// errSquare is errNorm squared, which the step control takes (ode's
+// errSquare).
+func (v *fastSolver) errSquare(y0, y1, e *[6]float64) float64 {
 	sum := 0.0
 	sum += v.errTerm(y0[0], y1[0], e[0])
 	sum += v.errTerm(y0[1], y1[1], e[1])
@@ -69,11 +73,12 @@ func (v *fastSolver) errNorm(y0, y1, e *[6]float64) float64 {
 	sum += v.errTerm(y0[3], y1[3], e[3])
 	sum += v.errTerm(y0[4], y1[4], e[4])
 	sum += v.errTerm(y0[5], y1[5], e[5])
-	return math.Sqrt(sum / 6)
+	return sum * (1.0 / 6)
 }
 
 // errTerm is one component's share of errNorm: the square of e over the
-// tolerance at the larger of |a| and |b|. Plain comparisons keep it small
+// tolerance at the larger of |a| and |b|, e times the tolerance's
+// reciprocal as ode's errSquare has it. Plain comparisons keep it small
 // enough for the compiler to write into errNorm (math.Abs counts as two
 // calls there); a zero's sign does not matter here: the larger is added
 // to absTol > 0.
@@ -87,7 +92,7 @@ func (v *fastSolver) errTerm(a, b, e float64) float64 {
 	if b > a {
 		a = b
 	}
-	r := e / (v.absTol + v.relTol*a)
+	r := e * (1 / (v.absTol + v.relTol*a))
 	return r * r
 }
 
@@ -119,12 +124,6 @@ func (v *fastSolver) initialStep(tEnd float64) float64 {
 	}
 	return math.Min(100*h0, h1)
 }
-
-// stepBeta is the Lund stabilisation exponent of ode.Solver.Step.
-const stepBeta = 0.04
-
-// logFacFloor is log(1e-4), the least facOld.
-var logFacFloor = stepLog(1e-4)
 
 // step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
 func (v *fastSolver) step(tEnd float64) (done bool, err error) {
@@ -158,8 +157,6 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		dy[4] = ry*il + cn*y[1]
 		dy[5] = rz*il + cn*y[2]
 	}
-	const safe, facMin, facMax, beta = 0.9, 0.2, 10.0, stepBeta
-	const expo1 = 0.2 - beta*0.75
 	span := tEnd - v.t
 	for {
 		if v.accepted+v.rejected >= v.maxSteps {
@@ -248,31 +245,8 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		tmp[4] = h * (ode.E1*k1[4] + ode.E3*k3[4] + ode.E4*k4[4] + ode.E5*k5[4] + ode.E6*k6[4] + ode.E7*k7[4])
 		tmp[5] = h * (ode.E1*k1[5] + ode.E3*k3[5] + ode.E4*k4[5] + ode.E5*k5[5] + ode.E6*k6[5] + ode.E7*k7[5])
 		v.evals += 6
-		errv := v.errNorm(y, ynew, tmp)
-		if math.IsNaN(errv) || math.IsInf(errv, 0) {
-			errv = 1e10
-		}
-		// errv^expo1 and facOld^beta as exponentials of one logarithm:
-		// math.Pow costs about three times as much (in wasm too), and in
-		// wasm math.Exp and math.Log cost more than stepExp and stepLog.
-		logErr := stepLog(errv)
-		fac11 := stepExp(expo1 * logErr)
-		fac := fac11 / v.facOldPow
-		// Plain comparisons in place of math.Max and math.Min (calls of
-		// their own, for NaN and signed zeros that cannot occur here).
-		fac /= safe
-		if fac > 1/facMin {
-			fac = 1 / facMin
-		}
-		if fac < 1/facMax {
-			fac = 1 / facMax
-		}
-		if errv <= 1 {
-			v.facOld = errv
-			if logErr < logFacFloor {
-				v.facOld, logErr = 1e-4, logFacFloor
-			}
-			v.facOldPow = stepExp(beta * logErr)
+		ratio, accept := v.ctl.Next(v.errSquare(y, ynew, tmp))
+		if accept {
 			v.accepted++
 			for i := range 6 {
 				ydiff := ynew[i] - y[i]
@@ -287,11 +261,11 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 			*k1 = *k7 // first same as last
 			*y = *ynew
 			v.told, v.t = t, tn
-			v.h = h / fac
+			v.h = h * ratio
 			return last, nil
 		}
 		v.rejected++
-		v.h = h / math.Min(1/facMin, fac11/safe)
+		v.h = h * ratio
 		if v.h < 1e-14*math.Max(1, math.Abs(t)) {
 			return false, fmt.Errorf("ode: step size underflow at t = %.6g", t)
 		}

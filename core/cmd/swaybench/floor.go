@@ -5,6 +5,7 @@ import (
 	"slices"
 
 	"swaysheet/core/crane"
+	"swaysheet/core/ode"
 	"swaysheet/core/scenario"
 	"swaysheet/core/sway"
 	"swaysheet/core/units"
@@ -19,7 +20,11 @@ import (
 // fixed-size arrays with the right-hand side written inline; and nothing
 // else: no peak search, no dense output, no figures, no checks. It is kept
 // apart from the core's code on purpose: a yardstick must not share the
-// code it measures.
+// code it measures. The one exception is the step-size control's
+// arithmetic (ode.StepControl), the least any stepper with this control
+// must do between two steps; a copy of it here would time the same
+// instructions, and the floor with a slower control of its own would no
+// longer be the least.
 
 // floorRun is the travel scenario reduced to what the kernel needs: the
 // acceleration of each axis between consecutive breakpoints.
@@ -127,12 +132,12 @@ func (f *floorRun) run() [6]float64 {
 			if b > a {
 				a = b
 			}
-			r := e[i] / (atol + rtol*a)
+			r := e[i] * (1 / (atol + rtol*a))
 			sum += r * r
 		}
-		return math.Sqrt(sum / 6)
+		return sum * (1.0 / 6)
 	}
-	logFloor := math.Log(1e-4)
+	var ctl ode.StepControl
 	var k [7][6]float64
 	var tmp, yn [6]float64
 	t, h := 0.0, 0.0
@@ -140,7 +145,7 @@ func (f *floorRun) run() [6]float64 {
 	for s, cut := range f.cuts {
 		ax, ay = f.acc[s][0], f.acc[s][1]
 		rhs(&y, &k[0])
-		facOldPow := math.Exp(0.04 * logFloor)
+		ctl.Restart()
 		if h == 0 {
 			h = 1e-3 // the core's starting heuristic is not the point here
 		}
@@ -177,25 +182,12 @@ func (f *floorRun) run() [6]float64 {
 			for i := range 6 {
 				tmp[i] = hh * (71.0/57600*k[0][i] - 71.0/16695*k[2][i] + 71.0/1920*k[3][i] - 17253.0/339200*k[4][i] + 22.0/525*k[5][i] - 1.0/40*k[6][i])
 			}
-			e := norm(&y, &yn, &tmp)
-			// Powers as exponentials of a logarithm, as the core does.
-			le := math.Log(e)
-			fac11 := math.Exp(0.17 * le)
-			fac := fac11 / facOldPow / 0.9
-			if fac > 5 {
-				fac = 5
-			}
-			if fac < 0.1 {
-				fac = 0.1
-			}
-			if e > 1 {
-				h = hh / min(5, fac11/0.9)
+			// The core's step control, the same arithmetic.
+			ratio, accept := ctl.Next(norm(&y, &yn, &tmp))
+			if !accept {
+				h = hh * ratio
 				continue
 			}
-			if le < logFloor {
-				le = logFloor
-			}
-			facOldPow = math.Exp(0.04 * le)
 			f.steps++
 			y = yn
 			k[0] = k[6]
@@ -209,7 +201,7 @@ func (f *floorRun) run() [6]float64 {
 			} else {
 				t += hh
 			}
-			h = hh / fac
+			h = hh * ratio
 		}
 	}
 	return y
