@@ -58,7 +58,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		}
 		fs := &fastScan{peaks: peaks{motionEnd: su.motionEnd, nq: qRigAngle}, m: su.fast, recorder: rec,
 			pathOnly: opt.PathOnly && hist != nil, kinSamples: opt.kinSamples}
-		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN}
+		fs.v = fastSolver{m: su.fast, relTol: relTol, absTol: relTol * 1e-2, maxSteps: maxN, loopedStages: opt.loopedStages}
 		err := fs.run(su.y0, su.breaks, tEnd)
 		if opt.Budget != nil && !opt.Budget.take(int64(fs.v.evals)*WorkPerEval) && err == nil {
 			err = &WorkError{Message: opt.Budget.message}

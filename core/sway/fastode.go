@@ -14,15 +14,11 @@ import (
 // sources), on fixed-size arrays, with the right-hand side called
 // directly.
 //
-// The stages' sums, the error estimate and its norm are written out
-// component by component: Go does not unroll loops, and as loops over
-// the six components the stepper took about a quarter more instructions
-// a step (index arithmetic, and each stage's coefficients and h loaded
-// again for every component; callgrind on the travel examples). The sums
-// are the same expressions, so the same bits. The dense output's
-// coefficients stay loops: written out they saved about 1.5 % of the
-// instructions of a full evaluation, for about 1 kB of the page's
-// gzipped wasm.
+// The stages' sums are written out component by component natively and
+// as loops in wasm (faststages.go); the error norm is written out. The
+// dense output's coefficients stay loops: written out they saved about
+// 1.5 % of the instructions of a full evaluation, for about 1 kB of the
+// page's gzipped wasm.
 type fastSolver struct {
 	_              [0]func() // not comparable: no equality function (see fastScan)
 	m              *fastModel
@@ -37,9 +33,12 @@ type fastSolver struct {
 	d1k1       [6]float64 // ode.D1*k1 of the last step
 	hLast      float64    // its step size
 	contDone   bool       // cont[4] is computed
-	ctl        ode.StepControl
-	started    bool
-	fresh      bool
+	// loopedStages takes the stages' sums as loops on every platform
+	// (Options.loopedStages, for tests; stagesWrittenOut).
+	loopedStages bool
+	ctl          ode.StepControl
+	started      bool
+	fresh        bool
 
 	accepted, rejected, evals int
 }
@@ -140,11 +139,8 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 		v.h = v.initialStep(tEnd)
 		v.started = true
 	}
-	// The right-hand side of each stage: fastModel.rhs, whose travel case
-	// (the commonest) is written out here, where the compiler puts it into
-	// each stage (a closure called directly has twice a function's
-	// inlining budget; the method is beyond it): in wasm a call costs more
-	// than that arithmetic. Same operations in the same order as rhs.
+	// The right-hand side as stages has it, for the sums as loops (in
+	// wasm; stagesWrittenOut).
 	m := v.m
 	travel := m.travel
 	ax, ay, jx, jy := m.sx.a, m.sy.a, m.sx.j, m.sy.j
@@ -168,82 +164,65 @@ func (v *fastSolver) step(tEnd float64) (done bool, err error) {
 			h, last = span, true
 		}
 		t := v.t
-		tmp[0] = y[0] + h*ode.A21*k1[0]
-		tmp[1] = y[1] + h*ode.A21*k1[1]
-		tmp[2] = y[2] + h*ode.A21*k1[2]
-		tmp[3] = y[3] + h*ode.A21*k1[3]
-		tmp[4] = y[4] + h*ode.A21*k1[4]
-		tmp[5] = y[5] + h*ode.A21*k1[5]
-		if travel {
-			travelRHS(t+ode.C2*h, tmp, k2)
-		} else {
-			m.rhs(t+ode.C2*h, tmp, k2)
-		}
-		tmp[0] = y[0] + h*(ode.A31*k1[0]+ode.A32*k2[0])
-		tmp[1] = y[1] + h*(ode.A31*k1[1]+ode.A32*k2[1])
-		tmp[2] = y[2] + h*(ode.A31*k1[2]+ode.A32*k2[2])
-		tmp[3] = y[3] + h*(ode.A31*k1[3]+ode.A32*k2[3])
-		tmp[4] = y[4] + h*(ode.A31*k1[4]+ode.A32*k2[4])
-		tmp[5] = y[5] + h*(ode.A31*k1[5]+ode.A32*k2[5])
-		if travel {
-			travelRHS(t+ode.C3*h, tmp, k3)
-		} else {
-			m.rhs(t+ode.C3*h, tmp, k3)
-		}
-		tmp[0] = y[0] + h*(ode.A41*k1[0]+ode.A42*k2[0]+ode.A43*k3[0])
-		tmp[1] = y[1] + h*(ode.A41*k1[1]+ode.A42*k2[1]+ode.A43*k3[1])
-		tmp[2] = y[2] + h*(ode.A41*k1[2]+ode.A42*k2[2]+ode.A43*k3[2])
-		tmp[3] = y[3] + h*(ode.A41*k1[3]+ode.A42*k2[3]+ode.A43*k3[3])
-		tmp[4] = y[4] + h*(ode.A41*k1[4]+ode.A42*k2[4]+ode.A43*k3[4])
-		tmp[5] = y[5] + h*(ode.A41*k1[5]+ode.A42*k2[5]+ode.A43*k3[5])
-		if travel {
-			travelRHS(t+ode.C4*h, tmp, k4)
-		} else {
-			m.rhs(t+ode.C4*h, tmp, k4)
-		}
-		tmp[0] = y[0] + h*(ode.A51*k1[0]+ode.A52*k2[0]+ode.A53*k3[0]+ode.A54*k4[0])
-		tmp[1] = y[1] + h*(ode.A51*k1[1]+ode.A52*k2[1]+ode.A53*k3[1]+ode.A54*k4[1])
-		tmp[2] = y[2] + h*(ode.A51*k1[2]+ode.A52*k2[2]+ode.A53*k3[2]+ode.A54*k4[2])
-		tmp[3] = y[3] + h*(ode.A51*k1[3]+ode.A52*k2[3]+ode.A53*k3[3]+ode.A54*k4[3])
-		tmp[4] = y[4] + h*(ode.A51*k1[4]+ode.A52*k2[4]+ode.A53*k3[4]+ode.A54*k4[4])
-		tmp[5] = y[5] + h*(ode.A51*k1[5]+ode.A52*k2[5]+ode.A53*k3[5]+ode.A54*k4[5])
-		if travel {
-			travelRHS(t+ode.C5*h, tmp, k5)
-		} else {
-			m.rhs(t+ode.C5*h, tmp, k5)
-		}
-		tmp[0] = y[0] + h*(ode.A61*k1[0]+ode.A62*k2[0]+ode.A63*k3[0]+ode.A64*k4[0]+ode.A65*k5[0])
-		tmp[1] = y[1] + h*(ode.A61*k1[1]+ode.A62*k2[1]+ode.A63*k3[1]+ode.A64*k4[1]+ode.A65*k5[1])
-		tmp[2] = y[2] + h*(ode.A61*k1[2]+ode.A62*k2[2]+ode.A63*k3[2]+ode.A64*k4[2]+ode.A65*k5[2])
-		tmp[3] = y[3] + h*(ode.A61*k1[3]+ode.A62*k2[3]+ode.A63*k3[3]+ode.A64*k4[3]+ode.A65*k5[3])
-		tmp[4] = y[4] + h*(ode.A61*k1[4]+ode.A62*k2[4]+ode.A63*k3[4]+ode.A64*k4[4]+ode.A65*k5[4])
-		tmp[5] = y[5] + h*(ode.A61*k1[5]+ode.A62*k2[5]+ode.A63*k3[5]+ode.A64*k4[5]+ode.A65*k5[5])
 		tn := t + h
 		if last {
 			tn = tEnd
 		}
-		if travel {
-			travelRHS(tn, tmp, k6)
+		if stagesWrittenOut && !v.loopedStages {
+			v.stages(t, h, tn)
 		} else {
-			m.rhs(tn, tmp, k6)
+			for i := range 6 {
+				tmp[i] = y[i] + h*ode.A21*k1[i]
+			}
+			if travel {
+				travelRHS(t+ode.C2*h, tmp, k2)
+			} else {
+				m.rhs(t+ode.C2*h, tmp, k2)
+			}
+			for i := range 6 {
+				tmp[i] = y[i] + h*(ode.A31*k1[i]+ode.A32*k2[i])
+			}
+			if travel {
+				travelRHS(t+ode.C3*h, tmp, k3)
+			} else {
+				m.rhs(t+ode.C3*h, tmp, k3)
+			}
+			for i := range 6 {
+				tmp[i] = y[i] + h*(ode.A41*k1[i]+ode.A42*k2[i]+ode.A43*k3[i])
+			}
+			if travel {
+				travelRHS(t+ode.C4*h, tmp, k4)
+			} else {
+				m.rhs(t+ode.C4*h, tmp, k4)
+			}
+			for i := range 6 {
+				tmp[i] = y[i] + h*(ode.A51*k1[i]+ode.A52*k2[i]+ode.A53*k3[i]+ode.A54*k4[i])
+			}
+			if travel {
+				travelRHS(t+ode.C5*h, tmp, k5)
+			} else {
+				m.rhs(t+ode.C5*h, tmp, k5)
+			}
+			for i := range 6 {
+				tmp[i] = y[i] + h*(ode.A61*k1[i]+ode.A62*k2[i]+ode.A63*k3[i]+ode.A64*k4[i]+ode.A65*k5[i])
+			}
+			if travel {
+				travelRHS(tn, tmp, k6)
+			} else {
+				m.rhs(tn, tmp, k6)
+			}
+			for i := range 6 {
+				ynew[i] = y[i] + h*(ode.A71*k1[i]+ode.A73*k3[i]+ode.A74*k4[i]+ode.A75*k5[i]+ode.A76*k6[i])
+			}
+			if travel {
+				travelRHS(tn, ynew, k7)
+			} else {
+				m.rhs(tn, ynew, k7)
+			}
+			for i := range 6 {
+				tmp[i] = h * (ode.E1*k1[i] + ode.E3*k3[i] + ode.E4*k4[i] + ode.E5*k5[i] + ode.E6*k6[i] + ode.E7*k7[i])
+			}
 		}
-		ynew[0] = y[0] + h*(ode.A71*k1[0]+ode.A73*k3[0]+ode.A74*k4[0]+ode.A75*k5[0]+ode.A76*k6[0])
-		ynew[1] = y[1] + h*(ode.A71*k1[1]+ode.A73*k3[1]+ode.A74*k4[1]+ode.A75*k5[1]+ode.A76*k6[1])
-		ynew[2] = y[2] + h*(ode.A71*k1[2]+ode.A73*k3[2]+ode.A74*k4[2]+ode.A75*k5[2]+ode.A76*k6[2])
-		ynew[3] = y[3] + h*(ode.A71*k1[3]+ode.A73*k3[3]+ode.A74*k4[3]+ode.A75*k5[3]+ode.A76*k6[3])
-		ynew[4] = y[4] + h*(ode.A71*k1[4]+ode.A73*k3[4]+ode.A74*k4[4]+ode.A75*k5[4]+ode.A76*k6[4])
-		ynew[5] = y[5] + h*(ode.A71*k1[5]+ode.A73*k3[5]+ode.A74*k4[5]+ode.A75*k5[5]+ode.A76*k6[5])
-		if travel {
-			travelRHS(tn, ynew, k7)
-		} else {
-			m.rhs(tn, ynew, k7)
-		}
-		tmp[0] = h * (ode.E1*k1[0] + ode.E3*k3[0] + ode.E4*k4[0] + ode.E5*k5[0] + ode.E6*k6[0] + ode.E7*k7[0])
-		tmp[1] = h * (ode.E1*k1[1] + ode.E3*k3[1] + ode.E4*k4[1] + ode.E5*k5[1] + ode.E6*k6[1] + ode.E7*k7[1])
-		tmp[2] = h * (ode.E1*k1[2] + ode.E3*k3[2] + ode.E4*k4[2] + ode.E5*k5[2] + ode.E6*k6[2] + ode.E7*k7[2])
-		tmp[3] = h * (ode.E1*k1[3] + ode.E3*k3[3] + ode.E4*k4[3] + ode.E5*k5[3] + ode.E6*k6[3] + ode.E7*k7[3])
-		tmp[4] = h * (ode.E1*k1[4] + ode.E3*k3[4] + ode.E4*k4[4] + ode.E5*k5[4] + ode.E6*k6[4] + ode.E7*k7[4])
-		tmp[5] = h * (ode.E1*k1[5] + ode.E3*k3[5] + ode.E4*k4[5] + ode.E5*k5[5] + ode.E6*k6[5] + ode.E7*k7[5])
 		v.evals += 6
 		ratio, accept := v.ctl.Next(v.errSquare(y, ynew, tmp))
 		if accept {

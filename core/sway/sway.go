@@ -180,6 +180,10 @@ type Options struct {
 	// (fasthistory.go), and on travel moves with air the right-hand side
 	// through kinOf too, as with other moves (for tests).
 	kinSamples bool
+	// loopedStages makes the specialised path's steps take the stages'
+	// sums as loops, as in wasm, where natively they are written out
+	// (faststages.go; for tests).
+	loopedStages bool
 }
 
 // Tolerances of the "default" and "tight" accuracy settings.
