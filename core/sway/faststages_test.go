@@ -7,11 +7,12 @@ import (
 	"swaysheet/core/scenario"
 )
 
-// TestStagesAgree: the stages' sums written out (natively) and as loops
-// (Options.loopedStages, as in wasm) give the same bits: every figure, the
-// solver's counts and every history sample, in full and the path alone,
-// for every example and reference scenario the specialised path takes, at
-// the default and the tight accuracy. In wasm both runs take the loops.
+// TestStagesAgree: the stages' and the error norm's sums written out
+// (natively) and as loops (Options.loopedStages, as in wasm) give the same
+// bits: every figure, the solver's counts and every history sample, in
+// full and the path alone, for every example and reference scenario the
+// specialised path takes, at the default and the tight accuracy. In wasm
+// both runs take the loops.
 func TestStagesAgree(t *testing.T) {
 	checked := 0
 	for _, file := range scenarioFiles(t) {
