@@ -190,7 +190,7 @@ bench: deps scipy-deps dist
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -plans testdata/scenarios -repeat 21 > $(BENCH)/plans-wasm.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -floor testdata/scenarios/diagonal-travel.json -repeat 101 > $(BENCH)/kernel-wasm.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws-wasm.json
-	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) $(BENCH_SCIPY) > $(BENCH)/scipy.json
+	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) -repeat 1001 $(BENCH_SCIPY) > $(BENCH)/scipy.json
 	SWAYSHEET_BROWSER=1 SWAYSHEET_BENCH_OUT=$(CURDIR)/$(BENCH)/browser.json $(GO) test -count=1 -run '^TestBenchPage$$' ./web/browsertest
 	@echo
 	@$(GO) run ./core/cmd/swaybench -table $(BENCH)/*.json
