@@ -116,7 +116,7 @@ func steadySegments(su *setup) int {
 	return n
 }
 
-// sameResultBits fails the test unless a and b (b taken through kinOf)
+// sameResultBits fails the test unless a and b (b taken the other way)
 // are the same bits: their JSON (which writes a negative zero as -0 and
 // every other number so that it reads back to its bits) and every sample
 // of every history series.
@@ -136,7 +136,7 @@ func sameResultBits(t *testing.T, what string, a, b *Result) {
 			i++
 		}
 		from := max(i-80, 0)
-		t.Errorf("%s: the results differ at byte %d: ...%s, through kinOf ...%s", what, i, ja[from:min(i+40, len(ja))], jb[from:min(i+40, len(jb))])
+		t.Errorf("%s: the results differ at byte %d: ...%s, the other way ...%s", what, i, ja[from:min(i+40, len(ja))], jb[from:min(i+40, len(jb))])
 		return
 	}
 	sameSeriesBits(t, what, &a.History, &b.History)

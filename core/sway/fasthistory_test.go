@@ -61,6 +61,14 @@ func TestSamplesAsPlain(t *testing.T) {
 // in full and the path alone, at each accuracy setting given.
 func sameAsPlain(t *testing.T, s *scenario.Scenario, what string, accs ...string) {
 	t.Helper()
+	sameWith(t, s, what, func(o *Options) { o.kinSamples = true }, accs...)
+}
+
+// sameWith fails the test unless s evaluates to the same bits, every
+// figure and every sample, with the options set changes as without, in
+// full and the path alone, at each accuracy setting given.
+func sameWith(t *testing.T, s *scenario.Scenario, what string, set func(*Options), accs ...string) {
+	t.Helper()
 	for _, acc := range accs {
 		s.Settings = &scenario.Settings{Accuracy: acc}
 		for _, pathOnly := range []bool{false, true} {
@@ -68,11 +76,13 @@ func sameAsPlain(t *testing.T, s *scenario.Scenario, what string, accs ...string
 			if err != nil {
 				t.Fatalf("%s: %v", what, err)
 			}
-			plain, err := EvaluateWith(s, Options{PathOnly: pathOnly, kinSamples: true})
+			o := Options{PathOnly: pathOnly}
+			set(&o)
+			other, err := EvaluateWith(s, o)
 			if err != nil {
 				t.Fatalf("%s: %v", what, err)
 			}
-			sameResultBits(t, fmt.Sprintf("%s (%s, path only %v)", what, acc, pathOnly), direct, plain)
+			sameResultBits(t, fmt.Sprintf("%s (%s, path only %v)", what, acc, pathOnly), direct, other)
 		}
 	}
 }
@@ -126,17 +136,18 @@ func scenarioFiles(t *testing.T) []string {
 }
 
 // sameSeriesBits fails the test unless every series of a and b (b taken
-// the plain way, through kinOf) has the same samples, bit for bit.
+// the other way: the plain way through kinOf, or the stages as loops) has
+// the same samples, bit for bit.
 func sameSeriesBits(t *testing.T, what string, a, b *History) {
 	t.Helper()
 	sa, sb := a.series(), b.series()
 	for k := range sa {
 		if len(*sa[k]) != len(*sb[k]) || len(*sa[k]) == 0 {
-			t.Fatalf("%s: series %d has %d samples, through kinOf %d", what, k, len(*sa[k]), len(*sb[k]))
+			t.Fatalf("%s: series %d has %d samples, the other way %d", what, k, len(*sa[k]), len(*sb[k]))
 		}
 		for i, v := range *sa[k] {
 			if w := (*sb[k])[i]; math.Float64bits(v) != math.Float64bits(w) {
-				t.Errorf("%s: series %d sample %d is %v, through kinOf %v", what, k, i, v, w)
+				t.Errorf("%s: series %d sample %d is %v, the other way %v", what, k, i, v, w)
 				break
 			}
 		}
