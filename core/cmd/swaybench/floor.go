@@ -119,7 +119,7 @@ func (f *floorRun) run() [6]float64 {
 		dy[4] = -ay*il + cn*y[1]
 		dy[5] = -g*il + cn*y[2]
 	}
-	norm := func(y0, y1, e *[6]float64) float64 {
+	meanSquare := func(y0, y1, e *[6]float64) float64 {
 		var sum float64
 		for i := range 6 {
 			a, b := y0[i], y1[i]
@@ -183,7 +183,7 @@ func (f *floorRun) run() [6]float64 {
 				tmp[i] = hh * (71.0/57600*k[0][i] - 71.0/16695*k[2][i] + 71.0/1920*k[3][i] - 17253.0/339200*k[4][i] + 22.0/525*k[5][i] - 1.0/40*k[6][i])
 			}
 			// The core's step control, the same arithmetic.
-			ratio, accept := ctl.Next(norm(&y, &yn, &tmp))
+			ratio, accept := ctl.Next(meanSquare(&y, &yn, &tmp))
 			if !accept {
 				h = hh * ratio
 				continue
