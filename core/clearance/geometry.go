@@ -203,26 +203,6 @@ func segmentsCross(a, b, c, d Point2) bool {
 		pointSegmentDistance(c, a, b) == 0 || pointSegmentDistance(d, a, b) == 0
 }
 
-// SegmentPlanDistance is the smallest distance, seen from above, between
-// the segment ab and the polygon: zero when the segment touches or enters
-// it. Two segments that do not meet are closest at an end of one of them,
-// so the distance is the least of a and b to the boundary and of the
-// polygon's corners to ab.
-func SegmentPlanDistance(a, b Point2, poly []Point2) float64 {
-	if Inside(a, poly) || Inside(b, poly) {
-		return 0
-	}
-	d := math.Min(EdgeDistance(a, poly), EdgeDistance(b, poly))
-	for i := range poly {
-		c, e := poly[i], poly[(i+1)%len(poly)]
-		if segmentsCross(a, b, c, e) {
-			return 0
-		}
-		d = math.Min(d, pointSegmentDistance(c, a, b))
-	}
-	return d
-}
-
 // Clearance is the signed clearance of a ball of radius radiusM centred
 // at q from the obstacle (see the package comment): negative when they
 // overlap.

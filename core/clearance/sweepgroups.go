@@ -129,13 +129,9 @@ type pathGroup struct {
 	at          int // where its inner capsule's rows start in scratch.inner
 }
 
-// pathGroups cuts the path into groups whose points are within devM of
-// their chords; a group of one point is a path of one point.
-func pathGroups(points []Point2, devM float64) []pathGroup {
-	return pathGroupsInto(points, devM, nil)
-}
-
-// pathGroupsInto is pathGroups appending to out.
+// pathGroupsInto cuts the path into groups whose points are within devM
+// of their chords, appended to out; a group of one point is a path of one
+// point.
 func pathGroupsInto(points []Point2, devM float64, out []pathGroup) []pathGroup {
 	if len(points) == 1 {
 		return append(out, pathGroup{})

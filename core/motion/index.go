@@ -212,8 +212,6 @@ func sumWindow(ps []Profile) (float64, bool) {
 	return start, rest
 }
 
-func (p *Piecewise) spans() int { return len(p.pieces) }
-
 func (p *Piecewise) window() (float64, bool) {
 	return p.pieces[0].T, p.pieces[0].V == 0
 }

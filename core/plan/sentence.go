@@ -63,15 +63,7 @@ func qAngle(v float64) Quantity { return Quantity{Value: v, Quantity: "angle", D
 func qSpeed(v float64) Quantity { return Quantity{Value: v, Quantity: "speed", Digits: 3} }
 
 //go:noinline
-func qAcc(v float64) Quantity { return Quantity{Value: v, Quantity: "acceleration", Digits: 3} }
-
-//go:noinline
 func qRate(v float64) Quantity { return Quantity{Value: v, Quantity: "angular_speed", Digits: 3} }
-
-//go:noinline
-func qAlpha(v float64) Quantity {
-	return Quantity{Value: v, Quantity: "angular_acceleration", Digits: 3}
-}
 
 // digits returns q with d significant digits.
 //

@@ -61,12 +61,10 @@ func Plain(text string) Sentence {
 }
 
 // Quantity constructors, SI in (angles in degrees).
-func Length(v float64) Quantity       { return Quantity{Value: v, Quantity: "length"} }
-func Time(v float64) Quantity         { return Quantity{Value: v, Quantity: "time"} }
-func Angle(v float64) Quantity        { return Quantity{Value: v, Quantity: "angle"} }
-func Speed(v float64) Quantity        { return Quantity{Value: v, Quantity: "speed"} }
-func Acceleration(v float64) Quantity { return Quantity{Value: v, Quantity: "acceleration"} }
-func Force(v float64) Quantity        { return Quantity{Value: v, Quantity: "force"} }
+func Length(v float64) Quantity { return Quantity{Value: v, Quantity: "length"} }
+func Time(v float64) Quantity   { return Quantity{Value: v, Quantity: "time"} }
+func Angle(v float64) Quantity  { return Quantity{Value: v, Quantity: "angle"} }
+func Speed(v float64) Quantity  { return Quantity{Value: v, Quantity: "speed"} }
 
 // Of is the quantity of an SI unit symbol ("m", "m/s", "deg/s"): a move's
 // fields carry their axis' unit (core/crane Kind).
