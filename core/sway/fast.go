@@ -199,5 +199,8 @@ func (s *fastScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		// The last sample falls on tEnd exactly.
 		s.recordState(tEnd, &s.v.y)
 	}
+	if h := s.hist; h != nil {
+		swingDegrees(h.SwingDeg, h.RelXM, h.RelYM, h.RelZM)
+	}
 	return nil
 }

@@ -1,10 +1,6 @@
 package sway
 
-import (
-	"math"
-
-	"swaysheet/core/units"
-)
+import "math"
 
 // The specialised path's time histories (the plots' series and the
 // clearance check's path): 601 samples by default, each a point of the
@@ -25,7 +21,8 @@ import (
 // slew's evaluation for about 0.5 kB of the page's gzipped wasm.
 // On the full evaluation of the diagonal travel example the plain way
 // takes about 200 instructions a sample more, a tenth of the evaluation
-// (callgrind, natively).
+// (callgrind, natively). Either way leaves the swing angle to the end of
+// the run (swingDegrees, from the rope's components the samples hold).
 
 // emit records the history samples that fall in (t0, t1], the last step.
 //
@@ -63,7 +60,7 @@ func (s *fastScan) emit(t0, t1 float64) {
 	// The series as local slices of one length, so that writing sample i
 	// needs one bounds check, not eleven loads of each slice's header.
 	ts := h.TimeS[:s.samples]
-	sw, rx3, ry3, rz3 := h.SwingDeg[:len(ts)], h.RelXM[:len(ts)], h.RelYM[:len(ts)], h.RelZM[:len(ts)]
+	rx3, ry3, rz3 := h.RelXM[:len(ts)], h.RelYM[:len(ts)], h.RelZM[:len(ts)]
 	lx3, ly3, sx3, sy3 := h.LoadXM[:len(ts)], h.LoadYM[:len(ts)], h.SuspensionXM[:len(ts)], h.SuspensionYM[:len(ts)]
 	tn3, rp3 := h.TensionN[:len(ts)], h.RopeM[:len(ts)]
 	for ; i < len(ts); i++ {
@@ -103,8 +100,6 @@ func (s *fastScan) emit(t0, t1 float64) {
 		sx3[i], sy3[i] = px, py
 		tn3[i] = m.tension(rx, ry, rz, l, ddl, y0, y1, y2, y3*y3+y4*y4+y5*y5)
 		rp3[i] = l
-		// Last, after the other writes: nothing else is kept across the call.
-		sw[i] = swingAtan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
 	}
 	s.next = i
 }
@@ -130,10 +125,11 @@ func (s *fastScan) emitPlain(t0, t1 float64) {
 
 // recordState writes the history sample of state y at t: the fields of
 // recorder.record, computed from the state as point does, without the
-// pendulum.Point between, and the swing angle's horizontal part by a
-// square root rather than math.Hypot (Go code in wasm; the two differ in
-// the last bits). It is emit's plain way, and takes the last sample at
-// the run's end from the end state.
+// pendulum.Point between, but for the swing angle, which swingDegrees
+// works out at the run's end (with the horizontal part by a square root
+// rather than math.Hypot: Go code in wasm; the two differ in the last
+// bits). It is emit's plain way, and takes the last sample at the run's
+// end from the end state.
 func (s *fastScan) recordState(t float64, y *[6]float64) {
 	m := s.m
 	k := m.kinOf(t, false)
@@ -145,7 +141,6 @@ func (s *fastScan) recordState(t float64, y *[6]float64) {
 	// Written in place (the series are at full length from the start,
 	// sized): an append writes each slice's length back besides.
 	h.TimeS[i] = float64(i) * s.sampleDt
-	h.SwingDeg[i] = swingAtan2(math.Sqrt(dx*dx+dy*dy), -lz) / units.Degree
 	h.RelXM[i], h.RelYM[i], h.RelZM[i] = dx, dy, lz
 	h.LoadXM[i], h.LoadYM[i] = lx, ly
 	h.SuspensionXM[i], h.SuspensionYM[i] = px, py

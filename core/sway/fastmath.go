@@ -1,31 +1,45 @@
 package sway
 
-import "math"
+import (
+	"math"
 
-// swingAtan2 is math.Atan2(y, x) written out for the history's swing
-// angle, whose arguments are both positive and finite but for a load at or
-// above the suspension point's height: Go's atan2 for them is
-// Atan(y/x), that is satan(y/x), written here in one call instead of a
-// chain of four (the same reduction and polynomial, from the Cephes
-// library's atan.c by Stephen L. Moshier, as Go's math/atan.go; on every
-// platform Go runs those sources for Atan2, so the bits are the same,
-// fastmath_test.go). Any other argument goes to package math.
-func swingAtan2(y, x float64) float64 {
+	"swaysheet/core/units"
+)
+
+// swingDegrees writes into sw the swing angle of each history sample, in
+// degrees, from the rope's components rx, ry, rz (load from suspension):
+// math.Atan2(math.Sqrt(rx²+ry²), -rz)/units.Degree, the angle the plain
+// recorder gives, to the bit. It runs once over a run's samples: in wasm a
+// call a sample cost about as much as the rest of the sample's work.
+//
+// The arguments of the arctangent, y and x, are both positive and finite
+// but for a load at or above the suspension point's height; for them Go's
+// atan2 is Atan(y/x), that is satan(y/x), written out here (the same
+// reduction and polynomial, from the Cephes library's atan.c by Stephen
+// L. Moshier, as Go's math/atan.go; on every platform Go runs those
+// sources for Atan2, so the bits are the same, fastmath_test.go). Any
+// other argument goes to package math.
+func swingDegrees(sw, rx, ry, rz []float64) {
 	const (
 		morebits = 6.123233995736765886130e-17 // pi/2 = PIO2 + morebits
 		tan3pio8 = 2.41421356237309504880      // tan(3*pi/8)
 	)
-	if !(y > 0 && x > 0 && y <= math.MaxFloat64 && x <= math.MaxFloat64) {
-		return math.Atan2(y, x)
+	rx, ry, rz = rx[:len(sw)], ry[:len(sw)], rz[:len(sw)]
+	for i := range sw {
+		y, x := math.Sqrt(rx[i]*rx[i]+ry[i]*ry[i]), -rz[i]
+		var a float64
+		switch r := y / x; {
+		case !(y > 0 && x > 0 && y <= math.MaxFloat64 && x <= math.MaxFloat64):
+			a = math.Atan2(y, x)
+		case r <= 0.66:
+			a = xatan(r)
+		case r > tan3pio8:
+			a = math.Pi/2 - xatan(1/r) + morebits
+		default:
+			a = math.Pi/4 + xatan((r-1)/(r+1)) + 0.5*morebits
+		}
+		sw[i] = a / units.Degree
 	}
-	r := y / x
-	if r <= 0.66 {
-		return xatan(r)
-	}
-	if r > tan3pio8 {
-		return math.Pi/2 - xatan(1/r) + morebits
-	}
-	return math.Pi/4 + xatan((r-1)/(r+1)) + 0.5*morebits
 }
 
 // xatan is math's xatan: atan(x) for x in [0, 0.66] by a rational
