@@ -212,6 +212,9 @@ func oldPathAtOffset(data []byte, off int64) string {
 		}
 	}
 	dec := json.NewDecoder(bytes.NewReader(data))
+	// Numbers as read, not as float64: a number beyond float64's range
+	// (1e1000) is still a value that ends somewhere, and keyScan places it.
+	dec.UseNumber()
 	for {
 		tok, err := dec.Token()
 		if err != nil {
