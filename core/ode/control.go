@@ -34,7 +34,7 @@ import "math"
 // 65 us. The ratios agree with the DOPRI5 formulas written with math.Pow
 // to 2e-15 (control_test.go), and every example takes the same steps.
 //
-// ControlLog and ControlExp are the logarithm and the exponential for
+// controlLog and controlExp are the logarithm and the exponential for
 // this use: accurate to about 2e-16 absolute and to two units in the last
 // place respectively, written for the step-to-step latency, not for
 // general use.
@@ -56,7 +56,7 @@ type StepControl struct {
 }
 
 // lnFloorSq is ln(1e-8), the logarithm of the least facOld squared.
-var lnFloorSq = ControlLog(1e-8)
+var lnFloorSq = controlLog(1e-8)
 
 // Restart forgets the earlier steps (facOld = 1e-4).
 func (c *StepControl) Restart() { c.lnOldOver = 0 }
@@ -70,12 +70,12 @@ func (c *StepControl) Next(u float64) (ratio float64, accept bool) {
 	if !(u <= math.MaxFloat64) {
 		u = 1e20
 	}
-	lu := ControlLog(u)
+	lu := controlLog(u)
 	if u <= 1 {
 		// safe·facOld^β/err^α as one exponential. Plain comparisons: the
 		// builtin min and max of floats are calls in wasm, and no NaN
 		// reaches here (u = 0 gives +Inf, which facMax bounds).
-		r := ctlSafe * ControlExp(ctlBeta/2*(lnFloorSq+c.lnOldOver)-ctlAlpha/2*lu)
+		r := ctlSafe * controlExp(ctlBeta/2*(lnFloorSq+c.lnOldOver)-ctlAlpha/2*lu)
 		if r < ctlFacMin {
 			r = ctlFacMin
 		}
@@ -88,14 +88,14 @@ func (c *StepControl) Next(u float64) (ratio float64, accept bool) {
 		}
 		return r, true
 	}
-	r := ctlSafe * ControlExp(-ctlAlpha/2*lu)
+	r := ctlSafe * controlExp(-ctlAlpha/2*lu)
 	if r < ctlFacMin {
 		r = ctlFacMin
 	}
 	return r, false
 }
 
-// logEntry is one interval of ControlLog's table: the reciprocal of the
+// logEntry is one interval of controlLog's table: the reciprocal of the
 // interval's middle c, rounded, and the logarithm of 1/inv.
 type logEntry struct{ inv, ln float64 }
 
@@ -116,14 +116,14 @@ const (
 	log2e = 1.44269504088896338700e+00
 )
 
-// ControlLog is ln x for positive normal x (anything else goes to
+// controlLog is ln x for positive normal x (anything else goes to
 // math.Log) to about 2e-16 absolute plus a unit in the last place. With
 // x = m·2^e, m in [1, 2) in the table's interval of middle c:
 // ln x = e ln 2 + ln(1/inv) + log1p(t), t = m·inv - 1, |t| < 1/64,
 // and log1p(t) by its Taylor series to t^8 (the next term is below 1e-17).
 // The rounding of m·inv, 1.1e-16, is most of the error; it is absolute,
 // which is what a power taken as an exponential of it needs.
-func ControlLog(x float64) float64 {
+func controlLog(x float64) float64 {
 	b := math.Float64bits(x)
 	e := int(b>>52) & 0x7ff
 	if e == 0 || e == 0x7ff || b>>63 != 0 {
@@ -140,12 +140,12 @@ func ControlLog(x float64) float64 {
 	return k*ln2Hi + (en.ln + (p + k*ln2Lo))
 }
 
-// ControlExp is e^x for |x| < 700 (anything else goes to math.Exp) to a
+// controlExp is e^x for |x| < 700 (anything else goes to math.Exp) to a
 // few units in the last place: x = k ln 2 + r with k the nearest integer
 // to x/ln 2 (rounded by adding 1.5·2^52) and |r| <= ln(2)/2, then e^r by
 // its Taylor series to r^13 (the next term is below 1e-17 of it), in
 // Estrin's scheme, times 2^k put into the exponent bits.
-func ControlExp(x float64) float64 {
+func controlExp(x float64) float64 {
 	if !(x > -700 && x < 700) {
 		return math.Exp(x) // NaN, infinite, or a result near the ends of the range
 	}

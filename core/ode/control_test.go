@@ -15,7 +15,7 @@ func ulps(a, b float64) int64 {
 	return d
 }
 
-// TestControlLog: ControlLog against math.Log over positive numbers from
+// TestControlLog: controlLog against math.Log over positive numbers from
 // 1e-300 to 1e10 (the mean squares a step can have) and near 1 on both
 // sides, where the error is absolute, and the special cases, which go to
 // math.Log.
@@ -23,11 +23,11 @@ func TestControlLog(t *testing.T) {
 	r := rand.New(rand.NewPCG(1, 2))
 	worst := 0.0
 	check := func(x float64) {
-		got, want := ControlLog(x), math.Log(x)
+		got, want := controlLog(x), math.Log(x)
 		d := math.Abs(got - want)
 		ulp := math.Nextafter(math.Abs(want), math.Inf(1)) - math.Abs(want)
 		if d > 2.5e-16+ulp {
-			t.Fatalf("ControlLog(%g) = %.17g, math.Log %.17g", x, got, want)
+			t.Fatalf("controlLog(%g) = %.17g, math.Log %.17g", x, got, want)
 		}
 		if d-ulp > worst {
 			worst = d - ulp
@@ -39,24 +39,24 @@ func TestControlLog(t *testing.T) {
 		check(math.Float64frombits(math.Float64bits(1) - 1 - uint64(r.IntN(1000))))
 	}
 	for _, x := range []float64{0, -1, math.Inf(1), math.NaN(), 5e-324, 2.2250738585072014e-308, 1, 2, 0.5, math.MaxFloat64} {
-		if a, b := ControlLog(x), math.Log(x); math.Abs(a-b) > 2.5e-16+1e-15*math.Abs(b) && !(math.IsNaN(a) && math.IsNaN(b)) {
-			t.Errorf("ControlLog(%g) = %g, math.Log %g", x, a, b)
+		if a, b := controlLog(x), math.Log(x); math.Abs(a-b) > 2.5e-16+1e-15*math.Abs(b) && !(math.IsNaN(a) && math.IsNaN(b)) {
+			t.Errorf("controlLog(%g) = %g, math.Log %g", x, a, b)
 		}
 	}
 	t.Logf("largest error beyond a unit in the last place: %.3g", worst)
 }
 
-// TestControlExp: ControlExp against math.Exp over [-700, 700], over the
+// TestControlExp: controlExp against math.Exp over [-700, 700], over the
 // arguments the step control gives it, and at the special cases, which
 // go to math.Exp.
 func TestControlExp(t *testing.T) {
 	r := rand.New(rand.NewPCG(3, 4))
 	worst := int64(0)
 	check := func(x float64) {
-		got, want := ControlExp(x), math.Exp(x)
+		got, want := controlExp(x), math.Exp(x)
 		d := ulps(got, want)
 		if d > 2 {
-			t.Fatalf("ControlExp(%g) = %.17g, math.Exp %.17g (%d units in the last place)", x, got, want, d)
+			t.Fatalf("controlExp(%g) = %.17g, math.Exp %.17g (%d units in the last place)", x, got, want, d)
 		}
 		worst = max(worst, d)
 	}
@@ -68,8 +68,8 @@ func TestControlExp(t *testing.T) {
 		check((r.Float64() - 0.5) * 1e-6)
 	}
 	for _, x := range []float64{0, math.Copysign(0, -1), 1e-300, -1e-10, 1e-9, 699.9, -699.9, 709, 710, -745, -746, math.Inf(1), math.Inf(-1), math.NaN()} {
-		if a, b := ControlExp(x), math.Exp(x); ulps(a, b) > 2 && !(math.IsNaN(a) && math.IsNaN(b)) {
-			t.Errorf("ControlExp(%g) = %g, math.Exp %g", x, a, b)
+		if a, b := controlExp(x), math.Exp(x); ulps(a, b) > 2 && !(math.IsNaN(a) && math.IsNaN(b)) {
+			t.Errorf("controlExp(%g) = %g, math.Exp %g", x, a, b)
 		}
 	}
 	t.Logf("largest difference: %d units in the last place", worst)

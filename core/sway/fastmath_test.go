@@ -31,6 +31,13 @@ func TestSwingDegrees(t *testing.T) {
 		mag := func() float64 { return sign() * math.Pow(10, -300+600*r.Float64()) }
 		add(mag(), mag(), mag())
 	}
+	// The reduction's boundaries: y/x at 0.66 and at tan(3π/8), on and
+	// about them.
+	for _, q := range []float64{0.66, 2.41421356237309504880} {
+		for _, d := range []float64{-1e-15, 0, 1e-15} {
+			add(q+d, 0, -1)
+		}
+	}
 	inf, nan := math.Inf(1), math.NaN()
 	special := []float64{0, math.Copysign(0, -1), 1e-320, 1, -1, 1.5, math.MaxFloat64, inf, -inf, nan}
 	for _, x := range special {
