@@ -10,6 +10,18 @@ import (
 // almost nothing more).
 const PackGap = 32
 
+// Pack is what make wasm does to a wasm file after go build: its forward
+// jumps made direct (DirectJumps), then its data segments joined
+// (PackData).
+func Pack(wasm []byte) ([]byte, JumpStats, error) {
+	out, st, err := DirectJumps(wasm)
+	if err != nil {
+		return nil, st, err
+	}
+	out, err = PackData(out, PackGap)
+	return out, st, err
+}
+
 // PackData rewrites a wasm file's data section (WebAssembly core
 // specification 1.0, section 5.5.14) with fewer segments: Go's linker
 // starts a new active segment after every run of zero bytes, about 80,000

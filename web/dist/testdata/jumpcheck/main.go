@@ -1,0 +1,196 @@
+// Command jumpcheck prints what a Go program's control flow gives: loops,
+// switches, goroutines and channels (the wasm stack unwinds and resumes),
+// deep recursion (the stack grows), panics with their lines, defers,
+// closures, maps, floats and timers. TestDirectJumpsRunTheSame runs it as
+// go build writes it and packed (web/dist.Pack): the output must be the
+// same.
+package main
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"runtime"
+	"slices"
+	"sort"
+	"strconv"
+	"strings"
+	"sync"
+	"time"
+)
+
+func collatz(n int) (steps int) {
+	for n != 1 {
+		if n%2 == 0 {
+			n /= 2
+		} else {
+			n = 3*n + 1
+		}
+		steps++
+	}
+	return steps
+}
+
+func kind(i int) string {
+	switch {
+	case i%15 == 0:
+		return "fizzbuzz"
+	case i%5 == 0:
+		return "buzz"
+	case i%3 == 0:
+		return "fizz"
+	}
+	switch i % 7 {
+	case 0, 1:
+		return "low"
+	case 2:
+		return "two"
+	case 3, 4, 5:
+		return "mid"
+	default:
+		return strconv.Itoa(i)
+	}
+}
+
+func deep(n int) float64 {
+	var pad [64]float64 // a large frame: the stack grows
+	pad[n%64] = float64(n)
+	if n == 0 {
+		return 0
+	}
+	return pad[n%64] + deep(n-1)
+}
+
+func where() string {
+	_, file, line, _ := runtime.Caller(1)
+	return file[strings.LastIndex(file, "/")+1:] + ":" + strconv.Itoa(line)
+}
+
+// panicLines names the functions and lines of the stack from the panic
+// up to main.
+func panicLines() string {
+	pc := make([]uintptr, 32)
+	fr := runtime.CallersFrames(pc[:runtime.Callers(3, pc)])
+	var out []string
+	for {
+		f, more := fr.Next()
+		if strings.HasPrefix(f.Function, "main.") {
+			out = append(out, f.Function+":"+strconv.Itoa(f.Line))
+		}
+		if !more || f.Function == "main.main" {
+			return strings.Join(out, " ")
+		}
+	}
+}
+
+func risky(i int) (err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			err = fmt.Errorf("recovered %v at %s, from %s", r, where(), panicLines())
+		}
+	}()
+	a := []int{1, 2, 3}
+	if i > 2 {
+		return errors.New("no panic: " + strconv.Itoa(a[i%3]))
+	}
+	return errors.New(strconv.Itoa(a[i+5])) // index out of range
+}
+
+func primes(n int) []int {
+	var out []int
+outer:
+	for i := 2; len(out) < n; i++ {
+		for _, p := range out {
+			if p*p > i {
+				break
+			}
+			if i%p == 0 {
+				continue outer
+			}
+		}
+		out = append(out, i)
+	}
+	return out
+}
+
+func pipeline() []int {
+	src := make(chan int)
+	sq := make(chan int, 3)
+	var wg sync.WaitGroup
+	go func() {
+		for i := range 20 {
+			src <- i
+		}
+		close(src)
+	}()
+	for range 3 {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for v := range src {
+				time.Sleep(time.Microsecond) // unwinds to the event loop
+				sq <- v * v
+			}
+		}()
+	}
+	go func() { wg.Wait(); close(sq) }()
+	var got []int
+	timeout := time.After(10 * time.Second)
+	for {
+		select {
+		case v, ok := <-sq:
+			if !ok {
+				sort.Ints(got)
+				return got
+			}
+			got = append(got, v)
+		case <-timeout:
+			return nil
+		}
+	}
+}
+
+func main() {
+	sum := 0
+	for i := 1; i < 3000; i++ {
+		sum += collatz(i)
+	}
+	fmt.Println("collatz", sum)
+	var kinds []string
+	for i := range 40 {
+		kinds = append(kinds, kind(i))
+	}
+	fmt.Println(strings.Join(kinds, " "))
+	fmt.Println("deep", deep(20000))
+	for i := range 5 {
+		fmt.Println(risky(i))
+	}
+	fmt.Println("primes", primes(30))
+	fmt.Println("pipeline", pipeline())
+	m := map[string]float64{}
+	x := 0.5
+	for i := range 200 {
+		x = 3.9 * x * (1 - x)
+		m["k"+strconv.Itoa(i%17)] += math.Sqrt(x) * math.Sin(float64(i))
+	}
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	for _, k := range keys {
+		fmt.Print(k, "=", strconv.FormatFloat(m[k], 'g', -1, 64), " ")
+	}
+	fmt.Println()
+	add := func(n int) func(int) int { return func(v int) int { return v + n } }
+	f := add(3)
+	i := 0
+loop:
+	if i < 5 {
+		i = f(i)
+		goto loop
+	}
+	fmt.Println("goto", i)
+	defer fmt.Println("deferred last")
+	fmt.Println("end")
+}
