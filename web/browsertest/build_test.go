@@ -43,7 +43,7 @@ func wasmBuild(t *testing.T) string {
 			}
 			w, err := os.ReadFile(wasmFile)
 			if err == nil {
-				w, err = dist.PackData(w, dist.PackGap)
+				w, _, err = dist.Pack(w)
 			}
 			if err == nil {
 				err = os.WriteFile(wasmFile, w, 0o644)

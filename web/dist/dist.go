@@ -64,10 +64,10 @@ var (
 // wasm_exec.js and a wasm built for it (GOOS=js GOARCH=wasm, -tags
 // nofetch: a page opened from a file has no origin to fetch from, and the
 // examples come from the copies built into the wasm). A wasm in Go's form
-// has its data segments joined first (PackData); anything else is taken
-// as it is.
+// is packed first (Pack: direct jumps, data segments joined); anything
+// else is taken as it is.
 func Single(static string, wasmExec, wasm []byte) ([]byte, error) {
-	if packed, err := PackData(wasm, PackGap); err == nil {
+	if packed, _, err := Pack(wasm); err == nil {
 		wasm = packed
 	}
 	var gz bytes.Buffer

@@ -50,7 +50,8 @@ func need(t *testing.T) {
 
 // buildWasm builds the wasm (with extra go build arguments) into dir with
 // Go's wasm_exec.js beside it, and with no extra arguments also the site
-// library's small fetch wasm (swayfetch.wasm) as make wasm does.
+// library's small fetch wasm (swayfetch.wasm) as make wasm does, each
+// packed (dist.Pack).
 func buildWasm(t *testing.T, dir string, args ...string) {
 	t.Helper()
 	builds := [][2]string{{"swaysheet.wasm", "./wasm"}}
@@ -67,6 +68,18 @@ func buildWasm(t *testing.T, dir string, args ...string) {
 		cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
 		if out, err := cmd.CombinedOutput(); err != nil {
 			t.Fatalf("building %s: %v\n%s", b[0], err, out)
+		}
+		// Packed as make wasm ships it (direct jumps, data joined).
+		f := filepath.Join(dir, b[0])
+		w, err := os.ReadFile(f)
+		if err == nil {
+			w, _, err = dist.Pack(w)
+		}
+		if err == nil {
+			err = os.WriteFile(f, w, 0o644)
+		}
+		if err != nil {
+			t.Fatal(err)
 		}
 	}
 	wexec, err := os.ReadFile(filepath.Join(goruntime(), "lib", "wasm", "wasm_exec.js"))

@@ -1,34 +1,70 @@
-// Command swaypack rewrites wasm files in place with their data segments
-// joined (web/dist.PackData): the same memory at start, about 6 % less
-// gzipped. make wasm and make single-wasm run it after go build.
+// Command swaypack rewrites wasm files in place as make wasm ships them
+// (web/dist.Pack): forward jumps made direct branches, about 10 to 20 %
+// faster under node, and data segments joined, the same memory at start;
+// together about 10 % less gzipped. make wasm, make single-wasm and make
+// bench run it after go build.
 //
 //	go run ./web/cmd/swaypack out/web/swaysheet.wasm
+//
+// With -exec it packs a test binary and then runs it with the given
+// command, for go test -exec (make test-wasm: the wasm tests run packed
+// binaries, as the page does):
+//
+//	go test -exec='swaypack -exec go_js_wasm_exec' ./core/...
 package main
 
 import (
 	"fmt"
 	"log"
 	"os"
+	"os/exec"
 
 	"swaysheet/web/dist"
 )
 
 func main() {
 	if len(os.Args) < 2 {
-		log.Fatal("usage: swaypack FILE.wasm ...")
+		log.Fatal("usage: swaypack FILE.wasm ... | swaypack -exec RUNNER FILE.wasm [ARGS...]")
+	}
+	if os.Args[1] == "-exec" {
+		if len(os.Args) < 4 {
+			log.Fatal("usage: swaypack -exec RUNNER FILE.wasm [ARGS...]")
+		}
+		if _, err := pack(os.Args[3]); err != nil {
+			log.Fatal(err)
+		}
+		cmd := exec.Command(os.Args[2], os.Args[3:]...)
+		cmd.Stdin, cmd.Stdout, cmd.Stderr = os.Stdin, os.Stdout, os.Stderr
+		if err := cmd.Run(); err != nil {
+			if e, ok := err.(*exec.ExitError); ok {
+				os.Exit(e.ExitCode())
+			}
+			log.Fatal(err)
+		}
+		return
 	}
 	for _, f := range os.Args[1:] {
-		in, err := os.ReadFile(f)
+		msg, err := pack(f)
 		if err != nil {
 			log.Fatal(err)
 		}
-		out, err := dist.PackData(in, dist.PackGap)
-		if err != nil {
-			log.Fatalf("%s: %v", f, err)
-		}
-		if err := os.WriteFile(f, out, 0o755); err != nil {
-			log.Fatal(err)
-		}
-		fmt.Printf("%s: data segments joined, %d -> %d bytes\n", f, len(in), len(out))
+		fmt.Println(msg)
 	}
+}
+
+// pack rewrites the file f in place.
+func pack(f string) (string, error) {
+	in, err := os.ReadFile(f)
+	if err != nil {
+		return "", err
+	}
+	out, st, err := dist.Pack(in)
+	if err != nil {
+		return "", fmt.Errorf("%s: %v", f, err)
+	}
+	if err := os.WriteFile(f, out, 0o755); err != nil {
+		return "", err
+	}
+	return fmt.Sprintf("%s: %d jumps direct, %d round the loop, in %d functions; data segments joined; %d -> %d bytes",
+		f, st.Direct, st.Round, st.Functions, len(in), len(out)), nil
 }

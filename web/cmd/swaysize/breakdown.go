@@ -200,10 +200,10 @@ func printBreakdown(w io.Writer, wasm []byte) error {
 
 // partRows are the largest package families of a wasm (code gzipped on
 // its own, so they add up to a little more than the whole file gzipped)
-// and its data section (segments joined, as make wasm ships it), as bench
+// and its data section (packed, as make wasm ships it), as bench
 // rows.
 func partRows(wasm []byte) ([]row, error) {
-	if packed, err := dist.PackData(wasm, dist.PackGap); err == nil {
+	if packed, _, err := dist.Pack(wasm); err == nil {
 		wasm = packed
 	}
 	pkgs, data, _, err := breakdown(wasm)
