@@ -41,14 +41,7 @@ func wasmBuild(t *testing.T) string {
 				wasmErr = fmt.Errorf("building %s: %v\n%s", b[0], err, out)
 				return
 			}
-			w, err := os.ReadFile(wasmFile)
-			if err == nil {
-				w, _, err = dist.Pack(w)
-			}
-			if err == nil {
-				err = os.WriteFile(wasmFile, w, 0o644)
-			}
-			if err != nil {
+			if _, _, _, err := dist.PackFile(wasmFile); err != nil {
 				wasmErr = err
 				return
 			}

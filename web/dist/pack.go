@@ -3,6 +3,8 @@ package dist
 import (
 	"bytes"
 	"errors"
+	"fmt"
+	"os"
 )
 
 // PackGap is the gap make dist joins segments across: 32 bytes takes the
@@ -20,6 +22,20 @@ func Pack(wasm []byte) ([]byte, JumpStats, error) {
 	}
 	out, err = PackData(out, PackGap)
 	return out, st, err
+}
+
+// PackFile packs the wasm file name in place (Pack) and returns what
+// DirectJumps did and the file's sizes before and after.
+func PackFile(name string) (st JumpStats, before, after int, err error) {
+	in, err := os.ReadFile(name)
+	if err != nil {
+		return st, 0, 0, err
+	}
+	out, st, err := Pack(in)
+	if err != nil {
+		return st, 0, 0, fmt.Errorf("%s: %v", name, err)
+	}
+	return st, len(in), len(out), os.WriteFile(name, out, 0o755)
 }
 
 // PackData rewrites a wasm file's data section (WebAssembly core

@@ -70,15 +70,7 @@ func buildWasm(t *testing.T, dir string, args ...string) {
 			t.Fatalf("building %s: %v\n%s", b[0], err, out)
 		}
 		// Packed as make wasm ships it (direct jumps, data joined).
-		f := filepath.Join(dir, b[0])
-		w, err := os.ReadFile(f)
-		if err == nil {
-			w, _, err = dist.Pack(w)
-		}
-		if err == nil {
-			err = os.WriteFile(f, w, 0o644)
-		}
-		if err != nil {
+		if _, _, _, err := dist.PackFile(filepath.Join(dir, b[0])); err != nil {
 			t.Fatal(err)
 		}
 	}

@@ -54,17 +54,10 @@ func main() {
 
 // pack rewrites the file f in place.
 func pack(f string) (string, error) {
-	in, err := os.ReadFile(f)
+	st, before, after, err := dist.PackFile(f)
 	if err != nil {
-		return "", err
-	}
-	out, st, err := dist.Pack(in)
-	if err != nil {
-		return "", fmt.Errorf("%s: %v", f, err)
-	}
-	if err := os.WriteFile(f, out, 0o755); err != nil {
 		return "", err
 	}
 	return fmt.Sprintf("%s: %d jumps direct, %d round the loop, in %d functions; data segments joined; %d -> %d bytes",
-		f, st.Direct, st.Round, st.Functions, len(in), len(out)), nil
+		f, st.Direct, st.Round, st.Functions, before, after), nil
 }
