@@ -83,7 +83,7 @@ type JumpStats struct {
 	Functions int // functions in Go's form, with a dispatch loop
 	Direct    int // jumps made direct branches
 	Round     int // jumps left going round the dispatch loop
-	Looped    int // jumps back made branches to a wasm loop
+	Looped    int // jumps made branches to a wasm loop or its body
 	Loops     int // wasm loops made
 	KeptSets  int // functions whose sets of PC_B stay (PC_B read elsewhere)
 }

@@ -1,9 +1,6 @@
 package dist
 
-import (
-	"errors"
-	"slices"
-)
+import "errors"
 
 // layout is one function in Go's form, cut into its parts: the
 // instructions before the dispatch loop, the dispatch loop's blocks and
@@ -166,18 +163,34 @@ func (l *layout) jumpsOf() [][]int {
 	return out
 }
 
-// loopRegion is a loop of resume points first to last written as a wasm
-// loop: entered at first, or (rotated) a loop of two, the body first and
-// the test after it, entered at the test (Go writes a for loop so).
+// loopRegion is a loop of resume points first to last, written as a wasm
+// loop, entered at entry: Go writes a for loop as its body first, then
+// its test, and enters it at the test. The test part (entry to last) is
+// written first, inside a block whose end leads to the body part (first
+// to entry-1); the body part runs on into the loop's head:
+//
+//	block exit; loop; block body
+//	  the test part, each resume point after the first in its block; br exit
+//	end
+//	the body part, each resume point after the first in its block; br loop
+//	end; end
+//
+// A jump to first is a branch to the body's block, a jump to entry one to
+// the loop. A loop entered at its first (entry = first) has an empty body
+// part.
 type loopRegion struct {
-	first, last int
-	rotated     bool
+	first, entry, last int
 }
 
-// regions picks the loops of resume points to write as wasm loops: for a
-// jump back from j to e, the resume points e to j and any other jump back
-// to e, when none after e is resumed at (a call's return) or jumped to from
-// outside. Loops that overlap keep the shortest.
+// regions picks the loops to write as wasm loops. A jump back from j to
+// e makes the candidate e to the last resume point jumping back to e. It
+// is kept when the code outside reaches it at one resume point only (the
+// entry: by jumps, or by running on from e-1 into e), none inside but the
+// entry is a call's return (where a goroutine's stack resumes), and its
+// own jumps go where the layout above can branch: from the test part to
+// first, to entry, forward in the test part, or out; from the body part
+// forward in the body part, to entry, or out. Of loops that overlap, the
+// shortest is kept.
 func (l *layout) regions() []loopRegion {
 	jumps := l.jumpsOf()
 	last := map[int]int{} // head -> the last resume point jumping back to it
@@ -189,45 +202,9 @@ func (l *layout) regions() []loopRegion {
 		}
 	}
 	var cands []loopRegion
-	// Rotated: the body e is entered only from the test e+1, which jumps
-	// back to it; the code before e does not run on into it.
-	for e := 1; e+1 < len(jumps); e++ {
-		c := e + 1
-		if !slices.Contains(jumps[c], e) || slices.Contains(jumps[e], e) || l.afterCall(e) || !l.endsInBranch(e-1) {
-			continue
-		}
-		ok := true
-		for j, ts := range jumps {
-			if j != c && slices.Contains(ts, e) {
-				ok = false
-			}
-		}
-		if ok {
-			cands = append(cands, loopRegion{e, c, true})
-		}
-	}
 	for e, k := range last {
-		ok := true
-		for x := e + 1; x <= k && ok; x++ {
-			ok = !l.afterCall(x)
-		}
-		for j, ts := range jumps {
-			if j >= e && j <= k {
-				for _, t := range ts {
-					if t <= j && t != e {
-						ok = false // a jump back inside, not to the head
-					}
-				}
-				continue
-			}
-			for _, t := range ts {
-				if t > e && t <= k {
-					ok = false
-				}
-			}
-		}
-		if ok {
-			cands = append(cands, loopRegion{e, k, false})
+		if g, ok := l.region(jumps, e, k); ok {
+			cands = append(cands, g)
 		}
 	}
 	// Shortest first; keep those that do not overlap a kept one.
@@ -251,14 +228,54 @@ func (l *layout) regions() []loopRegion {
 	return kept
 }
 
+// region checks the candidate loop e to k (see regions).
+func (l *layout) region(jumps [][]int, e, k int) (loopRegion, bool) {
+	g := loopRegion{first: e, entry: -1, last: k}
+	enter := func(x int) bool {
+		if g.entry >= 0 && g.entry != x {
+			return false
+		}
+		g.entry = x
+		return true
+	}
+	if e == 0 || !l.endsInBranch(e-1) {
+		enter(e)
+	}
+	for j, ts := range jumps {
+		for _, t := range ts {
+			if (j < e || j > k) && t >= e && t <= k && !enter(t) {
+				return g, false
+			}
+		}
+	}
+	if g.entry < 0 {
+		g.entry = e
+	}
+	p := g.entry
+	for x := e; x <= k; x++ {
+		if x != p && l.afterCall(x) {
+			return g, false
+		}
+	}
+	for j := e; j <= k; j++ {
+		for _, t := range jumps[j] {
+			switch {
+			case t < e || t > k, t == p:
+			case j >= p && (t == e || t > j): // the test part: to first, or forward in it
+			case j < p && t > j && t < p: // the body part: forward in it
+			default:
+				return g, false
+			}
+		}
+	}
+	return g, true
+}
+
 func less(a, b loopRegion) bool {
 	if a.last-a.first != b.last-b.first {
 		return a.last-a.first < b.last-b.first
 	}
-	if a.first != b.first {
-		return a.first < b.first
-	}
-	return a.rotated && !b.rotated
+	return a.first < b.first
 }
 
 // endsInBranch tells whether resume point j's code ends in a branch, a
@@ -275,12 +292,12 @@ func (l *layout) endsInBranch(j int) bool {
 	return false
 }
 
-// rewrite writes the function again: the loops of regions as wasm loops
-// inside their head's dispatch block, every jump that the new blocks allow
-// as a direct branch, the others round the dispatch loop; pcs of a
-// resume point inside a loop lead br_table to a trap (none is resumed at,
-// regions checks, so none is taken). dropSet leaves out the set of PC_B
-// before a direct branch.
+// rewrite writes the function again: the loops of regs as wasm loops
+// inside their entry's dispatch block, every jump that the new blocks
+// allow as a direct branch, the others round the dispatch loop; the pcs of
+// a loop's resume points but its entry lead br_table to a trap (none is
+// resumed at or jumped to from outside, regions checks, so none is
+// taken). dropSet leaves out the set of PC_B before a direct branch.
 func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte, error) {
 	n := len(l.entries)
 	region := make([]int, n)
@@ -292,12 +309,9 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 			region[x] = r
 		}
 	}
-	// isSlot: a resume point with a dispatch block of its own: outside the
-	// loops, a loop's first, a rotated loop's test.
-	isSlot := func(x int) bool {
-		r := region[x]
-		return r < 0 || (!regs[r].rotated && regs[r].first == x) || (regs[r].rotated && regs[r].last == x)
-	}
+	// A slot is a resume point with a dispatch block of its own: outside
+	// the loops, or a loop's entry.
+	isSlot := func(x int) bool { return region[x] < 0 || regs[region[x]].entry == x }
 	var slots []int
 	slotOf := make([]int, n)
 	for x := range n {
@@ -308,10 +322,7 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 	}
 	for x := range n {
 		if r := region[x]; r >= 0 {
-			slotOf[x] = slotOf[regs[r].first]
-			if regs[r].rotated {
-				slotOf[x] = slotOf[regs[r].last]
-			}
+			slotOf[x] = slotOf[regs[r].entry]
 		}
 	}
 	trap := 0
@@ -339,19 +350,41 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 		out = append(out, opEnd, 0x00) // unreachable
 	}
 	// inner is the number of blocks the rewrite opens between resume
-	// point j's code and its slot's block: a loop's and the blocks of its
-	// later resume points.
+	// point j's code and its slot's block.
 	inner := func(j int) int {
 		r := region[j]
-		switch {
-		case r < 0:
+		if r < 0 {
 			return 0
-		case regs[r].rotated && j == regs[r].last:
-			return 3 // body block, loop, exit block
-		case regs[r].rotated:
-			return 2 // loop, exit block
 		}
-		return regs[r].last - j + 1
+		if g := regs[r]; j >= g.entry {
+			return g.last - j + 3 // the test part's later blocks, the body's block, the loop, exit
+		} else {
+			return g.entry - 1 - j + 2 // the body part's later blocks, the loop, exit
+		}
+	}
+	// direct is the depth of a direct branch from j's code (at local
+	// depth 0) to resume point t, or -1.
+	direct := func(j, t int) int {
+		if r := region[j]; r >= 0 && region[t] == r {
+			g := regs[r]
+			switch {
+			case j >= g.entry && t == g.first && t != g.entry:
+				st.Looped++
+				return g.last - j // the body's block
+			case t == g.entry:
+				st.Looped++
+				return inner(j) - 2 // the loop
+			case t > j && (j >= g.entry || t < g.entry):
+				st.Direct++
+				return t - j - 1
+			}
+			return -1
+		}
+		if isSlot(t) && slotOf[t] > slotOf[j] {
+			st.Direct++
+			return inner(j) + slotOf[t] - slotOf[j] - 1
+		}
+		return -1
 	}
 	emit := func(j int) error {
 		local := 0
@@ -360,41 +393,17 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 		for k := e[0]; k < e[1]; k++ {
 			in := ins[k]
 			if label, pc, ok := l.jumpAt(k); ok && int(label) == local+n-1-j {
-				t := l.entryOf(pc)
-				r := region[j]
-				depth := -1
-				switch {
-				case r >= 0 && regs[r].rotated && j == regs[r].last && t == regs[r].first:
-					depth = local // the body's block
-					st.Looped++
-				case r >= 0 && regs[r].rotated && j == regs[r].first && t == regs[r].last:
-					depth = local // the loop
-					st.Direct++
-				case r >= 0 && regs[r].rotated:
-				case r >= 0 && t == regs[r].first:
-					depth = local + regs[r].last - j // the loop
-					st.Looped++
-				case r >= 0 && region[t] == r && t > j:
-					depth = local + t - j - 1
-					st.Direct++
-				}
-				switch {
-				case depth >= 0:
-				case isSlot(t) && slotOf[t] > slotOf[j]:
-					depth = local + inner(j) + slotOf[t] - slotOf[j] - 1
-					st.Direct++
-				}
-				if depth < 0 {
-					st.Round++
-					out = append(out, code[in.start:ins[k+1].end]...)
-					out = append(out, opBr)
-					out = appendULEB(out, uint64(toLoop()))
-				} else {
+				if d := direct(j, l.entryOf(pc)); d >= 0 {
 					if !dropSet {
 						out = append(out, code[in.start:ins[k+1].end]...)
 					}
 					out = append(out, opBr)
-					out = appendULEB(out, uint64(depth))
+					out = appendULEB(out, uint64(local+d))
+				} else {
+					st.Round++
+					out = append(out, code[in.start:ins[k+1].end]...)
+					out = append(out, opBr)
+					out = appendULEB(out, uint64(toLoop()))
 				}
 				k += 2
 				continue
@@ -418,7 +427,6 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 						o := int(d) - local - (n - 1 - j) // 0: the dispatch loop, then the blocks outside it
 						if o < 0 {
 							return errNotGoForm // a branch to a dispatch block
-
 						}
 						d = int64(toLoop() + o)
 					}
@@ -427,6 +435,22 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 				continue
 			}
 			out = append(out, code[in.start:in.end]...)
+		}
+		return nil
+	}
+	// part writes resume points from to to, each after the first in its
+	// own block.
+	part := func(from, to int) error {
+		for range to - from {
+			out = append(out, opBlock, 0x40)
+		}
+		for j := from; j <= to; j++ {
+			if err := emit(j); err != nil {
+				return err
+			}
+			if j < to {
+				out = append(out, opEnd)
+			}
 		}
 		return nil
 	}
@@ -440,29 +464,17 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 			continue
 		}
 		g := regs[r]
-		if g.rotated {
-			// block exit; loop; block body; test; br exit; end; body; br loop; end; end
-			out = append(out, opBlock, 0x40, opLoop, 0x40, opBlock, 0x40)
-			if err := emit(g.last); err != nil {
+		out = append(out, opBlock, 0x40, opLoop, 0x40, opBlock, 0x40)
+		if err := part(g.entry, g.last); err != nil {
+			return nil, err
+		}
+		out = append(out, opBr, 2, opEnd)
+		if g.entry > g.first {
+			if err := part(g.first, g.entry-1); err != nil {
 				return nil, err
 			}
-			out = append(out, opBr, 2, opEnd)
-			if err := emit(g.first); err != nil {
-				return nil, err
-			}
-			out = append(out, opBr, 0, opEnd, opEnd)
-			continue
 		}
-		out = append(out, opLoop, 0x40)
-		for range g.last - g.first {
-			out = append(out, opBlock, 0x40)
-		}
-		for j := g.first; j <= g.last; j++ {
-			if err := emit(j); err != nil {
-				return nil, err
-			}
-			out = append(out, opEnd)
-		}
+		out = append(out, opBr, 0, opEnd, opEnd)
 	}
 	return append(out, code[ins[l.loopEnd].start:]...), nil
 }
