@@ -81,6 +81,7 @@ NOINLINE := swaysheet/core/sheet swaysheet/core/scenario swaysheet/core/figures 
 WASM_GCFLAGS := $(foreach p,$(NOINLINE),-gcflags=$(p)=-l)
 wasm:
 	@mkdir -p $(OUT)/web
+	rm -f $(OUT)/web/swaysheet.wasm $(OUT)/web/swayfetch.wasm
 	GOOS=js GOARCH=wasm $(GO) build -trimpath $(WASM_GCFLAGS) -ldflags='-s -w' -o $(OUT)/web/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/web/swaysheet.wasm
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags='-s -w' -o $(OUT)/web/swayfetch.wasm ./wasm/fetch
@@ -93,8 +94,11 @@ wasm:
 # packed (swaypack, web/dist.Pack): its jumps made direct branches and its
 # for loops wasm loops (about 15 to 25 % faster under node) and its data
 # segments joined (the same memory at start, about 6 % less gzipped).
+# A packed file keeps Go's build ID, so go build would take it for up to
+# date and leave it as the last pack made it: each is removed first.
 single-wasm:
 	@mkdir -p $(OUT)/single
+	rm -f $(OUT)/single/swaysheet.wasm
 	GOOS=js GOARCH=wasm $(GO) build -trimpath -tags nofetch $(WASM_GCFLAGS) -ldflags='-s -w' -o $(OUT)/single/swaysheet.wasm ./wasm
 	$(GO) run ./web/cmd/swaypack $(OUT)/single/swaysheet.wasm
 
@@ -189,6 +193,7 @@ bench: deps scipy-deps dist
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json
+	rm -f $(BENCH)/swaybench.wasm
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	$(GO) run ./web/cmd/swaypack $(BENCH)/swaybench.wasm
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
