@@ -126,6 +126,16 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 	}
 	var rows []Row
 	for i, s := range scs {
+		// Then each scenario alone for a while: V8 compiles a hot function
+		// again, optimised, on a background thread, and a big one takes
+		// tens of milliseconds there; ten rounds alone left diagonal-travel
+		// timed in its first tier in some runs (233 us against 154 to 164
+		// in others, the same file).
+		for start := time.Now(); time.Since(start) < warmUp; {
+			if _, err := sway.EvaluateWith(s, sway.Options{Validated: true}); err != nil {
+				return nil, err
+			}
+		}
 		// As the page's bridge evaluates a scenario it has parsed (and so
 		// validated): not validated again (wasm/bridge/cache.go).
 		full, res, err := timeIt(s, repeat, sway.Options{Validated: true})
@@ -169,6 +179,9 @@ func timeScenarios(dir string, repeat int, group string) ([]Row, error) {
 	}
 	return rows, nil
 }
+
+// warmUp is how long each scenario runs before it is timed.
+const warmUp = 300 * time.Millisecond
 
 // readScenario reads and parses a scenario file.
 func readScenario(name string) (*scenario.Scenario, error) {
