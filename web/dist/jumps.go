@@ -30,14 +30,14 @@ import (
 // This is what the loop would do: enter every block again, then leave by
 // e's.
 //
-// Loops (layout.go). A run of resume points that jumps back to its first
-// (or, as Go writes a for loop, a body entered only from the test after
-// it, which jumps back to it) is written as a wasm loop inside the
-// dispatch block of its entry, when no resume point inside it but the
-// entry is a call's return (where the stack may resume) or jumped to from
-// outside. The jump back is then a branch to that loop. br_table sends
-// the pcs of those inner resume points to a trap: none is ever dispatched
-// to.
+// Loops (layout.go). Go writes a for loop as its body, then its test,
+// and enters it at the test, which jumps back to the body. Such a run of
+// resume points (or one entered at its first) is written as a wasm loop
+// inside the dispatch block of its entry, when nothing outside reaches it
+// but at the entry and no other resume point of it is a call's return
+// (where a goroutine's stack resumes). The jump back is then a branch
+// inside that loop. br_table sends the pcs of its other resume points to
+// a trap: nothing dispatches to them.
 //
 // The one state that differs is PC_B. Its set is left out of a direct
 // branch only where the function reads PC_B nowhere but at the br_table

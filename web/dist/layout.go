@@ -8,11 +8,11 @@ import "errors"
 type layout struct {
 	ins      []instr
 	code     []byte
-	loop, bt int     // the dispatch loop's instruction, the br_table's
-	pcLocal  int64   // PC_B
-	table    []int64 // br_table's labels, default last: pc -> resume point
-	entries  [][2]int
-	loopEnd  int // the loop's end instruction
+	loop, bt int      // the dispatch loop's instruction, the br_table's
+	pcLocal  int64    // PC_B
+	table    []int64  // br_table's labels, default last: pc -> resume point
+	entries  [][2]int // each resume point's code: its first instruction and the end after its last
+	loopEnd  int      // the dispatch loop's end
 }
 
 // readLayout cuts a function's instructions as Go writes them; ok is false
@@ -358,9 +358,8 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 		}
 		if g := regs[r]; j >= g.entry {
 			return g.last - j + 3 // the test part's later blocks, the body's block, the loop, exit
-		} else {
-			return g.entry - 1 - j + 2 // the body part's later blocks, the loop, exit
 		}
+		return regs[r].entry - 1 - j + 2 // the body part's later blocks, the loop, exit
 	}
 	// direct is the depth of a direct branch from j's code (at local
 	// depth 0) to resume point t, or -1.
