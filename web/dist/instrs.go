@@ -33,6 +33,14 @@ type instr struct {
 	table      []int64
 }
 
+// labels are a branch's labels: br's and br_if's one, br_table's all.
+func (in instr) labels() []int64 {
+	if in.op == opBrTable {
+		return in.table
+	}
+	return []int64{in.imm}
+}
+
 // decodeInstrs decodes a function's instructions, its locals already read.
 func decodeInstrs(code []byte) ([]instr, error) {
 	r := &WasmReader{B: code}

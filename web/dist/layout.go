@@ -125,11 +125,7 @@ func (l *layout) onlyJumpsToLoop() bool {
 			case opEnd:
 				local--
 			case opBr, opBrIf, opBrTable:
-				labels := in.table
-				if in.op != opBrTable {
-					labels = []int64{in.imm}
-				}
-				for _, d := range labels {
+				for _, d := range in.labels() {
 					if int(d) == local+n-1-j {
 						if _, _, ok := l.jumpAt(k - 2); !ok || in.op != opBr {
 							return false
@@ -413,10 +409,7 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 			case opEnd:
 				local--
 			case opBr, opBrIf, opBrTable:
-				labels := in.table
-				if in.op != opBrTable {
-					labels = []int64{in.imm}
-				}
+				labels := in.labels()
 				out = append(out, in.op)
 				if in.op == opBrTable {
 					out = appendULEB(out, uint64(len(labels)-1))
