@@ -47,8 +47,8 @@ import (
 // loop sets it first. Elsewhere the set stays.
 //
 // Under node, evaluations run about 15 to 25 % faster and the page's wasm
-// is about 70 kB (4.5 %) smaller gzipped (README, "The jumps of Go's
-// wasm"). A function not in this form (one already rewritten, say) is
+// is about 70 kB (4.5 %) smaller gzipped (README, "The jumps of Go's wasm
+// made direct"). A function not in this form (one already rewritten, say) is
 // left as it is; an instruction the decoder does not know (one Go does
 // not write today) is an error, so that a new Go's wasm is not rewritten
 // unread.
