@@ -44,7 +44,8 @@ test-go:
 	$(GO) test ./...
 
 # Each test binary is packed first, as the page's wasm is (swaypack
-# -exec: direct jumps, data joined), so the wasm tests run that code.
+# -exec: direct jumps, wasm loops, data joined), so the wasm tests run
+# that code.
 test-wasm:
 	GOOS=js GOARCH=wasm $(GO) build ./core/...
 	@mkdir -p $(OUT)

@@ -1,8 +1,8 @@
 // Command swaypack rewrites wasm files in place as make wasm ships them
 // (web/dist.Pack): jumps made direct branches and for loops wasm loops,
 // about 15 to 25 % faster under node, and data segments joined, the same
-// memory at start; together about 10 % less gzipped. make wasm, make single-wasm and make
-// bench run it after go build.
+// memory at start; together about 10 % less gzipped. make wasm, make
+// single-wasm and make bench run it after go build.
 //
 //	go run ./web/cmd/swaypack out/web/swaysheet.wasm
 //
