@@ -168,3 +168,42 @@ func TestDirectJumpsUnknown(t *testing.T) {
 		t.Fatal("no error for a file that is not wasm")
 	}
 }
+
+// A loop is not made where a jump would have no branch in its layout:
+// here the test part (2 to 4, entered at 2) jumps back from 4 to 3,
+// neither the body's first (1) nor the entry. The inner loop 3 to 4 is
+// not made either: it is reached at 3 (2 runs on into it) and at 4 (2
+// jumps there). So both jumps back go round the dispatch loop.
+func TestDirectJumpsNoLoop(t *testing.T) {
+	in := module(
+		opLoop, 0x40,
+		opBlock, 0x40, opBlock, 0x40, opBlock, 0x40, opBlock, 0x40, opBlock, 0x40,
+		opLocalGet, 0,
+		opBrTable, 4, 0, 1, 2, 3, 4,
+		opEnd,
+		// 0: to 2
+		opI32Const, 2, opLocalSet, 0, opBr, 4,
+		opEnd,
+		// 1: the body
+		opNopForTest,
+		opEnd,
+		// 2: if so, to 4; else on into 3
+		opI32Const, 1, opIf, 0x40, opI32Const, 4, opLocalSet, 0, opBr, 3, opEnd,
+		opEnd,
+		// 3
+		opNopForTest,
+		opEnd,
+		// 4: if so, back to 3; else back to 1
+		opI32Const, 1, opIf, 0x40, opI32Const, 3, opLocalSet, 0, opBr, 1, opEnd,
+		opI32Const, 1, opLocalSet, 0, opBr, 0,
+		opEnd, // the loop
+		opEnd, // the function
+	)
+	_, st, err := DirectJumps(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if st != (JumpStats{Functions: 1, Direct: 2, Round: 2}) {
+		t.Fatalf("got %+v, want two jumps direct, two round the loop and no loop made", st)
+	}
+}
