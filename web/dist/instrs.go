@@ -33,6 +33,18 @@ type instr struct {
 	table      []int64
 }
 
+// nesting is how the instruction changes the depth of open blocks: +1 for
+// block, loop and if, -1 for end.
+func (in instr) nesting() int {
+	switch in.op {
+	case opBlock, opLoop, opIf:
+		return 1
+	case opEnd:
+		return -1
+	}
+	return 0
+}
+
 // labels are a branch's labels: br's and br_if's one, br_table's all.
 func (in instr) labels() []int64 {
 	if in.op == opBrTable {

@@ -1,6 +1,10 @@
 package dist
 
-import "errors"
+import (
+	"cmp"
+	"errors"
+	"slices"
+)
 
 // layout is one function in Go's form, cut into its parts: the
 // instructions before the dispatch loop, the dispatch loop's blocks and
@@ -119,11 +123,8 @@ func (l *layout) onlyJumpsToLoop() bool {
 		local := 0
 		for k := e[0]; k < e[1]; k++ {
 			in := l.ins[k]
+			local += in.nesting()
 			switch in.op {
-			case opBlock, opLoop, opIf:
-				local++
-			case opEnd:
-				local--
 			case opBr, opBrIf, opBrTable:
 				for _, d := range in.labels() {
 					if int(d) == local+n-1-j {
@@ -145,12 +146,7 @@ func (l *layout) jumpsOf() [][]int {
 	for j, e := range l.entries {
 		depth := 0
 		for k := e[0]; k < e[1]; k++ {
-			switch l.ins[k].op {
-			case opBlock, opLoop, opIf:
-				depth++
-			case opEnd:
-				depth--
-			}
+			depth += l.ins[k].nesting()
 			if label, pc, ok := l.jumpAt(k); ok && int(label) == depth+(len(l.entries)-1-j) {
 				out[j] = append(out[j], l.entryOf(pc))
 			}
@@ -203,12 +199,11 @@ func (l *layout) regions() []loopRegion {
 			cands = append(cands, g)
 		}
 	}
-	// Shortest first; keep those that do not overlap a kept one.
-	for i := 1; i < len(cands); i++ {
-		for j := i; j > 0 && less(cands[j], cands[j-1]); j-- {
-			cands[j], cands[j-1] = cands[j-1], cands[j]
-		}
-	}
+	// Shortest first (then the earliest: one order whatever the map's);
+	// keep those that do not overlap a kept one.
+	slices.SortFunc(cands, func(a, b loopRegion) int {
+		return cmp.Or(cmp.Compare(a.last-a.first, b.last-b.first), cmp.Compare(a.first, b.first))
+	})
 	var kept []loopRegion
 	for _, c := range cands {
 		free := true
@@ -265,13 +260,6 @@ func (l *layout) region(jumps [][]int, e, k int) (loopRegion, bool) {
 		}
 	}
 	return g, true
-}
-
-func less(a, b loopRegion) bool {
-	if a.last-a.first != b.last-b.first {
-		return a.last-a.first < b.last-b.first
-	}
-	return a.first < b.first
 }
 
 // endsInBranch tells whether resume point j's code ends in a branch, a
@@ -403,11 +391,8 @@ func (l *layout) rewrite(regs []loopRegion, dropSet bool, st *JumpStats) ([]byte
 				k += 2
 				continue
 			}
+			local += in.nesting()
 			switch in.op {
-			case opBlock, opLoop, opIf:
-				local++
-			case opEnd:
-				local--
 			case opBr, opBrIf, opBrTable:
 				labels := in.labels()
 				out = append(out, in.op)
