@@ -208,7 +208,17 @@ type frame struct {
 }
 
 func (r *Rigid) frameOf(t float64, y []float64) frame {
-	f := frame{t: t}
+	var f frame
+	r.frameInto(t, y, &f)
+	return f
+}
+
+// frameInto is frameOf written into f: the evaluations of the simulation
+// take it, with kinInto, addPart and minv below, on pointers rather than
+// as copies of these arrays, which Go's wasm makes through memory one
+// word at a time.
+func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
+	*f = frame{t: t}
 	f.x = vec(y[1:])
 	f.v = vec(y[4:])
 	f.R = rotOf(y[7:11])
@@ -235,26 +245,32 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 			f.topA[i] = r3.Add(r3.Scale(a*ddpsi, et), r3.Scale(-a*dpsi*dpsi, e))
 		}
 	}
-	return f
 }
 
 // kinOf is the state of a constraint end.
-func (r *Rigid) kinOf(f *frame, e end, leg int) kin {
+func (r *Rigid) kinOf(f *frame, e end, leg int) (k kin) {
+	r.kinInto(f, &e, leg, &k)
+	return k
+}
+
+// kinInto is kinOf written into k.
+func (r *Rigid) kinInto(f *frame, e *end, leg int, k *kin) {
 	switch e.kind {
 	case onBody:
 		arm := f.R.mul(e.b)
 		wr := r3.Cross(f.w, arm)
-		return kin{p: r3.Add(f.x, arm), v: r3.Add(f.v, wr), a0: r3.Cross(f.w, wr), arm: arm, kind: onBody}
+		*k = kin{p: r3.Add(f.x, arm), v: r3.Add(f.v, wr), a0: r3.Cross(f.w, wr), arm: arm, kind: onBody}
+		return
 	case onHook:
-		return kin{p: f.P, v: f.Pv, kind: onHook}
+		*k = kin{p: f.P, v: f.Pv, kind: onHook}
+		return
 	}
-	k := kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
+	*k = kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
 	if r.geo.twoTop {
 		k.p = r3.Add(k.p, f.top[leg])
 		k.v = r3.Add(k.v, f.topV[leg])
 		k.a0 = r3.Add(k.a0, f.topA[leg])
 	}
-	return k
 }
 
 // row is one constraint's gradient in (x, rotation, P) and, for the
@@ -268,7 +284,7 @@ type row struct {
 
 // addPart adds s*dir^T A(k) to the row, A the map from z to k's
 // acceleration.
-func addPart(j *[9]float64, k kin, dir r3.Vec, s float64) {
+func addPart(j *[9]float64, k *kin, dir r3.Vec, s float64) {
 	switch k.kind {
 	case onBody:
 		c := r3.Cross(k.arm, dir)
@@ -288,16 +304,19 @@ func addPart(j *[9]float64, k kin, dir r3.Vec, s float64) {
 // rows evaluates every constraint at f.
 func (r *Rigid) rows(f *frame, out []row) []row {
 	out = out[:0]
-	for i, c := range r.geo.cons {
-		ka, kb := r.kinOf(f, c.a, i), r.kinOf(f, c.b, i)
+	for i := range r.geo.cons {
+		c := &r.geo.cons[i]
+		var ka, kb kin
+		r.kinInto(f, &c.a, i, &ka)
+		r.kinInto(f, &c.b, i, &kb)
 		var rw row
 		d := r3.Sub(ka.p, kb.p)
 		dd := r3.Sub(ka.v, kb.v)
 		da := r3.Sub(ka.a0, kb.a0)
 		if c.coord >= 0 {
 			e := unit(c.coord)
-			addPart(&rw.j, ka, e, 1)
-			addPart(&rw.j, kb, e, -1)
+			addPart(&rw.j, &ka, e, 1)
+			addPart(&rw.j, &kb, e, -1)
 			rw.kappa = r3.Dot(e, da)
 			rw.phi, rw.dphi, rw.scale = r3.Dot(e, d), r3.Dot(e, dd), 1
 			out = append(out, rw)
@@ -307,8 +326,8 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		if c.rope {
 			l, dl, ddl = f.l+c.extra, f.dl, f.ddl
 		}
-		addPart(&rw.j, ka, d, 1)
-		addPart(&rw.j, kb, d, -1)
+		addPart(&rw.j, &ka, d, 1)
+		addPart(&rw.j, &kb, d, -1)
 		rw.kappa = r3.Dot(d, da) + r3.Dot(dd, dd) - dl*dl - l*ddl
 		rw.phi = 0.5 * (r3.Dot(d, d) - l*l)
 		rw.dphi = r3.Dot(d, dd) - l*dl
@@ -348,24 +367,15 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 		tq = r3.Add(tq, r3.Cross(armL, fl))
 	}
 	fp := r3.Scale(geo.mh, g)
-	// M^-1 applied to a generalized vector.
-	minv := func(v [9]float64) (o [9]float64) {
-		a := r3.Scale(1/geo.m, r3.Vec{X: v[0], Y: v[1], Z: v[2]})
-		b := iwInv.mul(r3.Vec{X: v[3], Y: v[4], Z: v[5]})
-		o[0], o[1], o[2], o[3], o[4], o[5] = a.X, a.Y, a.Z, b.X, b.Y, b.Z
-		if geo.mh > 0 {
-			o[6], o[7], o[8] = v[6]/geo.mh, v[7]/geo.mh, v[8]/geo.mh
-		}
-		return o
-	}
 	fg := [9]float64{fx.X, fx.Y, fx.Z, tq.X, tq.Y, tq.Z, fp.X, fp.Y, fp.Z}
-	mf := minv(fg)
+	var mf [9]float64
+	geo.minv(&iwInv, &fg, &mf)
 	n := len(rws)
 	var a [3][3]float64
 	var b [3]float64
 	var mj [3][9]float64
 	for i := range n {
-		mj[i] = minv(rws[i].j)
+		geo.minv(&iwInv, &rws[i].j, &mj[i])
 	}
 	for i := range n {
 		for k := range n {
@@ -383,9 +393,24 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 	return z, lam
 }
 
+// minv writes M^-1 v into o: the generalized mass matrix's inverse
+// applied to a generalized vector, iwInv the inverse inertia in the
+// ground frame.
+func (geo *rigidGeometry) minv(iwInv *m3, v, o *[9]float64) {
+	a := r3.Scale(1/geo.m, r3.Vec{X: v[0], Y: v[1], Z: v[2]})
+	b := iwInv.mul(r3.Vec{X: v[3], Y: v[4], Z: v[5]})
+	o[0], o[1], o[2], o[3], o[4], o[5] = a.X, a.Y, a.Z, b.X, b.Y, b.Z
+	if geo.mh > 0 {
+		o[6], o[7], o[8] = v[6]/geo.mh, v[7]/geo.mh, v[8]/geo.mh
+	} else {
+		o[6], o[7], o[8] = 0, 0, 0
+	}
+}
+
 // Func implements System.
 func (r *Rigid) Func(t float64, y, dy []float64) {
-	f := r.frameOf(t, y)
+	var f frame
+	r.frameInto(t, y, &f)
 	z, _ := r.accel(&f)
 	dy[0] = 1
 	copy(dy[1:4], y[4:7])

@@ -17,8 +17,9 @@ func (r *Rigid) Project(y []float64) float64 {
 	}
 	worst := 0.0
 	var buf [3]row
+	var f frame
 	for it := range 3 {
-		f := r.frameOf(y[0], y)
+		r.frameInto(y[0], y, &f)
 		rws := r.rows(&f, buf[:0])
 		big := 0.0
 		for _, rw := range rws {
@@ -30,15 +31,15 @@ func (r *Rigid) Project(y []float64) float64 {
 		if big < 1e-15 {
 			break
 		}
-		d := r.correction(rws, func(rw row) float64 { return rw.phi })
+		d := r.correction(rws, false)
 		r.displace(y, d)
 		if big < 1e-8 {
 			break // one Newton step from there leaves rounding
 		}
 	}
-	f := r.frameOf(y[0], y)
+	r.frameInto(y[0], y, &f)
 	rws := r.rows(&f, buf[:0])
-	d := r.correction(rws, func(rw row) float64 { return rw.dphi })
+	d := r.correction(rws, true)
 	for i := range 3 {
 		y[4+i] += d[i]
 		y[11+i] += d[3+i]
@@ -49,8 +50,9 @@ func (r *Rigid) Project(y []float64) float64 {
 	return worst
 }
 
-// correction is -G^T (G G^T)^-1 v, v the value of each row.
-func (r *Rigid) correction(rws []row, v func(row) float64) (d [9]float64) {
+// correction is -G^T (G G^T)^-1 v, v each row's value phi, or its rate
+// dphi when rates is set.
+func (r *Rigid) correction(rws []row, rates bool) (d [9]float64) {
 	n := len(rws)
 	var a [3][3]float64
 	var b [3]float64
@@ -58,7 +60,11 @@ func (r *Rigid) correction(rws []row, v func(row) float64) (d [9]float64) {
 		for k := range n {
 			a[i][k] = dot9(rws[i].j, rws[k].j)
 		}
-		b[i] = -v(rws[i])
+		if rates {
+			b[i] = -rws[i].dphi
+		} else {
+			b[i] = -rws[i].phi
+		}
 	}
 	lam := solve3(a, b, n)
 	for i := range n {
@@ -92,7 +98,8 @@ func (r *Rigid) displace(y []float64, d [9]float64) {
 // Body the rest.
 func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 	geo := r.geo
-	fr := r.frameOf(t, y)
+	var fr frame
+	r.frameInto(t, y, &fr)
 	f := &fr
 	z, lam := r.accel(f)
 	bp := &r.bp
@@ -109,8 +116,9 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 		for i := range 2 {
 			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
 			p.Tension += bp.Legs[i]
-			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
-			top := r.kinOf(f, end{kind: onTop}, i)
+			var a, top kin
+			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
+			r.kinInto(f, &end{kind: onTop}, i, &top)
 			d := r3.Sub(a.p, top.p)
 			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
 			dir = r3.Add(dir, d)
@@ -126,11 +134,13 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) {
 		bp.NLegs = 2
 		for i := range 2 {
 			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
-			a := r.kinOf(f, end{kind: onBody, b: geo.attach[i]}, i)
+			var a kin
+			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
 			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
 		}
 	default:
-		k := r.kinOf(f, end{kind: onBody, b: geo.hook}, 0)
+		var k kin
+		r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
 		hook, hookV = k.p, k.v
 		var rope r3.Vec // the rope's (or pivot's) pull on the hook
 		if r.Pivot {
