@@ -271,14 +271,29 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 		return
 	}
 	var rx, ry, rz, il, dl float64
-	if m.steady && t <= m.airTo {
+	switch {
+	case m.steady && t <= m.airTo:
 		// Travel moves with a steady air (steadyAir): relAt's values
 		// without the air evaluated, the rope's length l0 (1/l0 is il)
 		// and rate -0 as relAt gives them.
 		rx, ry = m.travelRel(t)
 		rx, ry, rz = rx+m.airX, ry+m.airY, m.rz
 		il, dl = m.il, math.Copysign(0, -1)
-	} else {
+	case m.air == nil && !m.slewing:
+		// Travel and hoist moves: relAt's values written out here (a call
+		// fewer a stage, which in wasm costs more than this arithmetic).
+		l := m.l0
+		if m.hoisting {
+			h, dh, _ := m.sh.at(t)
+			l, dl = m.l0-h, -dh
+		}
+		rx, ry = m.travelRel(t)
+		rz, il = -m.g, 1/l
+	case m.air == nil:
+		// A slewing arm without air: relAt's values from kinOf directly.
+		k := m.kinOf(t, false)
+		rx, ry, rz, il, dl = -k.ax, -k.ay, -m.g, 1/k.l, k.dl
+	default:
 		var l float64
 		rx, ry, rz, l, dl, _ = m.relAt(t, y)
 		il = 1 / l
