@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
 	"swaysheet/core/units"
@@ -47,11 +48,19 @@ func modes(h *scenario.Hook, massLoad, l1 float64) pendulum.Modes {
 // modePeriod measures the period of one mode on the nonlinear model with a
 // fixed suspension point: released from rest in the mode shape at a small
 // angle, the time between up-crossings of the hook's horizontal speed.
+//
+// The model is fastDouble on a crane that does not move (no axis has a
+// move: every span is zero, the rope at l1): pendulum.Double's equations
+// in the same order, with a suspension point at rest, without a closure
+// call for the suspension point and the rope at every evaluation
+// (TestModePeriodSpecialised holds the two to the bit).
 func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float64, error) {
-	d := &pendulum.Double{M1: m1, M2: m2, L2: l2,
-		Suspension: func(float64) pendulum.Kinematics { return pendulum.Kinematics{} },
-		Rope:       func(float64) (float64, float64, float64) { return l1, 0, 0 },
-	}
+	d := newFastDouble(newFastModel(&crane.Drives{}, l1, crane.Start{}, m2, nil), m1, m2, l2, units.StandardGravity)
+	return modePeriodOf(d, shape, omega)
+}
+
+// modePeriodOf is modePeriod on the given two-mass model.
+func modePeriodOf(d pendulum.System, shape [2]float64, omega float64) (float64, error) {
 	// Scale so that the larger of the two angles is 0.05 deg.
 	a := 0.05 * units.Degree / math.Max(math.Abs(shape[0]), math.Abs(shape[1]))
 	th1, th2 := a*shape[0], a*shape[1]

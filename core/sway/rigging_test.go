@@ -5,7 +5,9 @@ import (
 	"strings"
 	"testing"
 
+	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
+	"swaysheet/core/units"
 )
 
 func withHook(s *scenario.Scenario, mHook, rigging float64) *scenario.Scenario {
@@ -101,5 +103,34 @@ func TestRiggingWindLean(t *testing.T) {
 	}
 	if single := math.Atan(2000/(3000*g)) * 180 / math.Pi; r.WindLeanDeg >= single {
 		t.Errorf("lean %.4f deg should be below the load-only lean %.4f deg", r.WindLeanDeg, single)
+	}
+}
+
+// TestModePeriodSpecialised: the mode periods measured on fastDouble at
+// rest are pendulum.Double's to the bit (the same equations in the same
+// order; the suspension point's spans are all zero). Invented hook blocks
+// and loads, demo values only.
+func TestModePeriodSpecialised(t *testing.T) {
+	for _, c := range []struct{ m1, m2, l1, l2 float64 }{
+		{1200, 800, 24, 6}, {300, 5000, 12, 2.5}, {2500, 2500, 40, 9},
+	} {
+		md := pendulum.LinearModes(c.m1, c.m2, c.l1, c.l2, units.StandardGravity)
+		for i := range 2 {
+			fast, err := modePeriod(c.m1, c.m2, c.l1, c.l2, md.Shape[i], md.Omega[i])
+			if err != nil {
+				t.Fatal(err)
+			}
+			general := &pendulum.Double{M1: c.m1, M2: c.m2, L2: c.l2,
+				Suspension: func(float64) pendulum.Kinematics { return pendulum.Kinematics{} },
+				Rope:       func(float64) (float64, float64, float64) { return c.l1, 0, 0 },
+			}
+			want, err := modePeriodOf(general, md.Shape[i], md.Omega[i])
+			if err != nil {
+				t.Fatal(err)
+			}
+			if fast != want {
+				t.Errorf("%+v mode %d: specialised %.17g s, pendulum.Double %.17g s", c, i, fast, want)
+			}
+		}
 	}
 }
