@@ -213,10 +213,10 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 	return f
 }
 
-// frameInto is frameOf written into f: the evaluations of the simulation
-// take it, with kinInto, addPart and minv below, on pointers rather than
-// as copies of these arrays, which Go's wasm makes through memory one
-// word at a time.
+// frameInto is frameOf written into f. The simulation's evaluations pass
+// the frame, the constraint ends (kinInto, addPart) and the 9-vectors
+// (minv) by pointer: a struct passed or returned by value is copied, and
+// Go's wasm copies it through memory one word at a time.
 func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
 	*f = frame{t: t}
 	f.x = vec(y[1:])
