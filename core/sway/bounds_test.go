@@ -128,7 +128,8 @@ func TestWorkBudget(t *testing.T) {
 		}
 	}
 	// A shared budget stops the runs drawing on it once spent: bay-travel
-	// needs about 2e5 units.
+	// on the general path needs about 9e4 units (the 1e6 runs out in the
+	// twelfth run).
 	shared := sway.NewBudget(1e6, "This plan needs more computing than allowed: narrow the rope-length range.")
 	bay := readScenario(t, "testdata/scenarios/bay-travel.json")
 	runs := 0
@@ -140,7 +141,7 @@ func TestWorkBudget(t *testing.T) {
 			break
 		}
 	}
-	if runs < 2 || runs > 10 {
+	if runs < 2 || runs > 20 {
 		t.Fatalf("a shared budget of 1e6 ran out after %d runs of bay-travel", runs)
 	}
 }

@@ -136,6 +136,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			}
 			s.work = 0
 			t0, t1 := s.solver.LastStep()
+			edges := stepEdges{}
 			residual := t0 >= s.motionEnd-1e-12
 			// Look at the step at evenly spaced points and refine any
 			// interior maximum that beats the best so far.
@@ -185,12 +186,8 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 						localMax = v+slack >= e.max || (r != nil && v+slack >= r.max)
 					}
 					if localMax && (j == 0 || j == interior+1) {
-						eps := 1e-6 * (t1 - t0)
-						if j == 0 {
-							localMax = s.value(q, s.at(t0+eps)) > v // rising out of the start
-						} else {
-							localMax = s.value(q, s.at(t1-eps)) > v // falling into the end
-						}
+						// rising out of the start, or falling into the end
+						localMax = edges.value(s, j/(interior+1), t0, t1)[q] > v
 					}
 					if localMax {
 						tm, vm := s.refine(q, ts[lo], vs[q][lo], ts[j], v, ts[hi], vs[q][hi])
@@ -234,6 +231,36 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		}
 	}
 	return nil
+}
+
+// stepEdges are the quantities just inside a step's two ends, each
+// evaluated when a quantity first asks for it. Whether a sample at an end
+// may top a peak depends on which way the quantity moves there; with a
+// rigid load a step asks this of up to 17 quantities, and every one of
+// them reads the same point (before, each evaluated it again: the
+// projection and the load's evaluation, 73 % of the scan's evaluations
+// on precast-beam-tandem).
+type stepEdges struct {
+	v   [2][nQuantities]float64 // 0: at t0 + eps, 1: at t1 - eps
+	set [2]bool
+}
+
+// value are the quantities just inside the start (side 0) or the end
+// (side 1) of the step from t0 to t1.
+func (e *stepEdges) value(s *scanner, side int, t0, t1 float64) *[nQuantities]float64 {
+	if !e.set[side] {
+		eps := 1e-6 * (t1 - t0)
+		t := t0 + eps
+		if side == 1 {
+			t = t1 - eps
+		}
+		p := s.at(t)
+		for q := range s.nq {
+			e.v[side][q] = s.value(q, p)
+		}
+		e.set[side] = true
+	}
+	return &e.v[side]
 }
 
 // emitSamples records the history samples that fall in (t0, t1].
