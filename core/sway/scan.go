@@ -30,6 +30,8 @@ type scanner struct {
 	y  []float64 // scratch state
 	pt pendulum.Point
 
+	watch []quantity // the quantities of this load (watched)
+
 	axes    []motion.Profile // the combined axes, for the work of a segment
 	budget  *Budget
 	segWork int64 // work of one evaluation in the current segment
@@ -109,6 +111,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	}
 	s.model.Eval(s.inSegment(0), y, &s.pt)
 	s.pt.T = 0
+	s.watch = watched(s.nq, &s.pt)
 	s.observePoint(&s.pt)
 	var ts [interior + 2]float64
 	var vs [nQuantities][interior + 2]float64
@@ -142,7 +145,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			// interior maximum that beats the best so far.
 			if carry {
 				ts[0] = t0
-				for q := range s.nq {
+				for _, q := range s.watch {
 					vs[q][0] = vs[q][interior+1]
 				}
 			}
@@ -153,11 +156,11 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 				tt := t0 + (t1-t0)*float64(j)/(interior+1)
 				p := s.at(tt)
 				ts[j] = tt
-				for q := range s.nq {
+				for _, q := range s.watch {
 					vs[q][j] = s.value(q, p)
 				}
 			}
-			for q := range s.nq {
+			for _, q := range s.watch {
 				e := &s.ext[q]
 				var r *extremum
 				if residual {
@@ -255,7 +258,7 @@ func (e *stepEdges) value(s *scanner, side int, t0, t1 float64) *[nQuantities]fl
 			t = t1 - eps
 		}
 		p := s.at(t)
-		for q := range s.nq {
+		for _, q := range s.watch {
 			e.v[side][q] = s.value(q, p)
 		}
 		e.set[side] = true

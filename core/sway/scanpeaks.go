@@ -183,13 +183,36 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 }
 
 func (s *scanner) observePoint(p *pendulum.Point) {
-	for q := range s.nq {
+	for _, q := range s.watch {
 		v := s.value(q, p)
 		s.ext[q].offer(v, p.T)
 		if r := s.residualOf(q); r != nil && p.T >= s.motionEnd-1e-12 {
 			r.offer(v, p.T)
 		}
 	}
+}
+
+// watched are the quantities below nq that the load at p has: a rigid
+// load (p.Body set) has no hook block's rigging (its angle, rope swing and
+// tensions: the rigid load's results report its legs instead) and only
+// p.Body.NLegs legs. Left unwatched, they stay unset and are not
+// reported; watched, they were constant and each asked the scan for
+// evaluations of its own (the rigging's tension, always zero, for the
+// quantities just inside 94 % of precast-beam-tandem's steps).
+func watched(nq quantity, p *pendulum.Point) []quantity {
+	var w []quantity
+	for q := range nq {
+		if b := p.Body; b != nil {
+			unused := q >= qRigAngle && q <= qRigTensionLow ||
+				q >= qLeg && q < qLegLow && int(q-qLeg) >= b.NLegs ||
+				q >= qLegLow && int(q-qLegLow) >= b.NLegs
+			if unused {
+				continue
+			}
+		}
+		w = append(w, q)
+	}
+	return w
 }
 
 // reach bounds from above every sample of a step plus the slack that run
