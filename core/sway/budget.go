@@ -22,6 +22,12 @@ const (
 	// work units (measured: 55 ns for one rope, 100 to 350 ns with a hook
 	// block, against 13 ns for a piece).
 	WorkPerEval = 16
+	// WorkPerRigidEval is the cost of one evaluation of a rigid load
+	// (pendulum.Rigid) with its share of the scan (measured 2026-12-04:
+	// 0.9 to 1.3 us natively, figures only, on the three rigid examples:
+	// 70 to 100 units). With WorkPerEval the budget let a rigid load run
+	// about eight times longer than its stated time.
+	WorkPerRigidEval = 100
 	// DefaultWork is one evaluation's budget: about 2.6 s of one core. A
 	// 0.3 m rope at rel_tol 1e-13 meets the step limit (500,000 steps)
 	// first, at about 1e8.
@@ -64,9 +70,11 @@ func (e *WorkError) Error() string { return e.Message }
 // Is makes errors.Is(err, ErrWorkLimit) true.
 func (e *WorkError) Is(target error) bool { return target == ErrWorkLimit }
 
-// segmentWork is the cost of one evaluation between two restarts.
-func segmentWork(axes []motion.Profile, t float64) int64 {
-	w := int64(WorkPerEval)
+// segmentWork is the cost of one evaluation between two restarts: the
+// model's own (WorkPerEval, or WorkPerRigidEval for a rigid load) and one
+// per moving piece.
+func segmentWork(model int64, axes []motion.Profile, t float64) int64 {
+	w := model
 	for _, p := range axes {
 		w += int64(motion.Work(p, t))
 	}

@@ -60,6 +60,14 @@ func (s *scanner) at(t float64) *pendulum.Point {
 	return p
 }
 
+// evalWork is the work of one evaluation of m itself (budget.go).
+func evalWork(m pendulum.System) int64 {
+	if _, ok := m.(*pendulum.Rigid); ok {
+		return WorkPerRigidEval
+	}
+	return WorkPerEval
+}
+
 // inSegment moves t just inside the current segment between restarts.
 // The motions' accelerations jump at the segment's ends; evaluating the
 // model a hair inside makes every evaluation of a segment, the solver's
@@ -123,7 +131,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		if sg != nil {
 			sg.segment(t, cut)
 		}
-		s.segWork = segmentWork(s.axes, 0.5*(t+cut))
+		s.segWork = segmentWork(evalWork(s.model), s.axes, 0.5*(t+cut))
 		s.solver.Reset(t, s.solver.State())
 		carry := false // the first sample of the step is the last of the one before
 		for {
