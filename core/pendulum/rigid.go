@@ -379,9 +379,9 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 	}
 	for i := range n {
 		for k := range n {
-			a[i][k] = dot9(rws[i].j, mj[k])
+			a[i][k] = dot9(&rws[i].j, &mj[k])
 		}
-		b[i] = -rws[i].kappa - dot9(rws[i].j, mf)
+		b[i] = -rws[i].kappa - dot9(&rws[i].j, &mf)
 	}
 	lam = solve3(a, b, n)
 	z = mf

@@ -107,7 +107,10 @@ func rotateTo(a, b r3.Vec) quat {
 	return quatAxis(r3.Scale(1/s, ax), math.Atan2(s, c))
 }
 
-func dot9(a, b [9]float64) float64 {
+// dot9 is the dot product of two 9-vectors, given by pointer: passed by
+// value, both were copied at every call (in wasm a copy is 9 loads and 9
+// stores each).
+func dot9(a, b *[9]float64) float64 {
 	s := 0.0
 	for i := range 9 {
 		s += a[i] * b[i]

@@ -22,8 +22,8 @@ func (r *Rigid) Project(y []float64) float64 {
 		r.frameInto(y[0], y, &f)
 		rws := r.rows(&f, buf[:0])
 		big := 0.0
-		for _, rw := range rws {
-			big = math.Max(big, math.Abs(rw.phi)/rw.scale)
+		for i := range rws {
+			big = math.Max(big, math.Abs(rws[i].phi)/rws[i].scale)
 		}
 		if it == 0 {
 			worst = big
@@ -58,7 +58,7 @@ func (r *Rigid) correction(rws []row, rates bool) (d [9]float64) {
 	var b [3]float64
 	for i := range n {
 		for k := range n {
-			a[i][k] = dot9(rws[i].j, rws[k].j)
+			a[i][k] = dot9(&rws[i].j, &rws[k].j)
 		}
 		if rates {
 			b[i] = -rws[i].dphi
