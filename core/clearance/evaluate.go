@@ -123,7 +123,8 @@ func assumptions(outline string, opt Options) []string {
 
 // CheckWork is the work budget of one clearance check, shared by all its
 // runs (see sway.Budget): about 26 s of one core. The examples' 200 runs
-// need 1e7 (a point load); a rigid load's run needs a few million.
+// need 1e7 (a point load); a rigid load's run needs 0.24 to 1.7 million
+// (the rigid examples, charged sway.WorkPerRigidEval an evaluation).
 const CheckWork = 2_000_000_000
 
 const checkBudgetMessage = "This clearance check needs more computing than allowed: use fewer runs (site.spread.runs), shorten the moves, or set a looser accuracy (settings.rel_tol)."
