@@ -244,13 +244,13 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 	return nil
 }
 
-// stepEdges are the quantities just inside a step's two ends, each
+// stepEdges are the quantities just inside a step's two ends, each side
 // evaluated when a quantity first asks for it. Whether a sample at an end
-// may top a peak depends on which way the quantity moves there; with a
-// rigid load a step asks this of up to 17 quantities, and every one of
-// them reads the same point (before, each evaluated it again: the
-// projection and the load's evaluation, 73 % of the scan's evaluations
-// on precast-beam-tandem).
+// may top a peak depends on which way the quantity moves there; a step
+// may ask this of every quantity watched (up to 15 with a rigid load),
+// and all of them read the same point (before, each evaluated it again:
+// the projection and the load's evaluation, three quarters of the scan's
+// evaluations on precast-beam-tandem).
 type stepEdges struct {
 	v   [2][nQuantities]float64 // 0: at t0 + eps, 1: at t1 - eps
 	set [2]bool
