@@ -182,6 +182,9 @@ planned:
 	$(PYTHON_REF) testdata/reference/planned.py
 
 # Speed and size, side by side, in one table (see README "Benchmarks").
+# The examples are timed in three rounds, natively and as wasm by turns:
+# the wasm/native row is the median of the rounds' ratios, so that a burst
+# of load on the host during one side of one round does not make it.
 BENCH := $(OUT)/bench
 # Scenarios timed with SciPy beside the core (those in the reference data).
 BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.json tower-slew.json \
@@ -198,6 +201,10 @@ bench: deps scipy-deps dist
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	$(GO) run ./web/cmd/swaypack $(BENCH)/swaybench.wasm
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
+	for r in 2 3; do \
+		$(GO) run ./core/cmd/swaybench -round $$r -json testdata/scenarios > $(BENCH)/native-round$$r.json && \
+		node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -round $$r -json testdata/scenarios > $(BENCH)/wasm-round$$r.json || exit 1; \
+	done
 	GOMAXPROCS=1 $(GO) run ./core/cmd/swaybench -plans testdata/scenarios -repeat 21 > $(BENCH)/plans.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -plans testdata/scenarios -repeat 21 > $(BENCH)/plans-wasm.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -floor testdata/scenarios/diagonal-travel.json -repeat 101 > $(BENCH)/kernel-wasm.json

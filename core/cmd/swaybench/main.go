@@ -10,7 +10,10 @@
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
-// by group, in the order the files give them.
+// by group, in the order the files give them. Rows of a later round
+// (-round N, N > 1: the examples timed again, natively and as wasm by
+// turns) are not printed: they give the wasm/native ratio more than one
+// pair of runs, and the table reports the median of the rounds' ratios.
 package main
 
 import (
@@ -40,6 +43,7 @@ type Row struct {
 	Value float64 `json:"value"`
 	Unit  string  `json:"unit"`
 	Note  string  `json:"note,omitempty"`
+	Round int     `json:"round,omitempty"` // a later round of the same timing (not printed)
 }
 
 func main() {
@@ -54,6 +58,7 @@ func main() {
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	cpuProfile := flag.String("cpuprofile", "", "write a CPU profile of the run to this file (native only; under node use node --cpu-prof)")
+	round := flag.Int("round", 0, "with -json: mark the rows as round N of the same timing (N > 1: used for the wasm/native ratio, not printed)")
 	flag.Parse()
 	if *cpuProfile != "" {
 		stop, err := startProfile(*cpuProfile)
@@ -77,7 +82,13 @@ func main() {
 		if g == "" {
 			g = "core " + runtime.GOOS + "/" + runtime.GOARCH
 		}
-		emit(timeScenarios(flag.Arg(0), *repeat, g))
+		rows, err := timeScenarios(flag.Arg(0), *repeat, g)
+		if *round > 1 {
+			for i := range rows {
+				rows[i].Round = *round
+			}
+		}
+		emit(rows, err)
 	case *table:
 		if err := printTable(os.Stdout, flag.Args()); err != nil {
 			fmt.Fprintln(os.Stderr, "swaybench:", err)
@@ -245,6 +256,7 @@ func printTable(w io.Writer, files []string) error {
 		f.Close()
 	}
 	rows = append(rows, ratios(rows)...)
+	rows = slices.DeleteFunc(rows, func(r Row) bool { return r.Round > 1 })
 	fmt.Fprintf(w, "swaysheet benchmarks, %s\n", time.Now().UTC().Format("2006-01-02 15:04 MST"))
 	fmt.Fprintf(w, "processor: %s (%d cores); %s\n\n", cpuName(), runtime.NumCPU(), runtime.Version())
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -266,20 +278,65 @@ func printTable(w io.Writer, files []string) error {
 }
 
 // ratios adds, for every scenario timed both natively and as wasm, the
-// ratio of the two.
+// ratio of the two: with several rounds (Row.Round), each round's wasm
+// time over the same round's native time, and their median, so that a
+// burst of load on the host during one side of one round does not make
+// the row.
 func ratios(rows []Row) []Row {
-	native := map[string]float64{}
+	type pair struct{ native, wasm float64 }
+	byRound := map[string]map[int]*pair{}
+	var names []string
 	for _, r := range rows {
-		if strings.HasPrefix(r.Group, "core ") && !strings.Contains(r.Group, "wasm") {
-			native[r.Name] = r.Value
+		wasm := r.Group == "core js/wasm"
+		native := strings.HasPrefix(r.Group, "core ") && !strings.Contains(r.Group, "wasm")
+		if !wasm && !native {
+			continue
+		}
+		if byRound[r.Name] == nil {
+			byRound[r.Name] = map[int]*pair{}
+		}
+		round := max(r.Round, 1)
+		p := byRound[r.Name][round]
+		if p == nil {
+			p = &pair{}
+			byRound[r.Name][round] = p
+		}
+		if wasm {
+			p.wasm = r.Value
+			if round == 1 {
+				names = append(names, r.Name)
+			}
+		} else {
+			p.native = r.Value
 		}
 	}
 	var out []Row
-	for _, r := range rows {
-		if r.Group == "core js/wasm" && native[r.Name] > 0 {
-			out = append(out, Row{Group: "wasm / native", Name: r.Name, Value: r.Value / native[r.Name], Unit: "x",
-				Note: "full evaluation, wasm under node over native, same machine; target at most 2.0x: " + verdict(r.Value/native[r.Name] <= 2)})
+	for _, name := range names {
+		var each []float64
+		var rounds []int
+		for k := range byRound[name] {
+			rounds = append(rounds, k)
 		}
+		sort.Ints(rounds)
+		for _, k := range rounds {
+			if p := byRound[name][k]; p.native > 0 && p.wasm > 0 {
+				each = append(each, p.wasm/p.native)
+			}
+		}
+		if len(each) == 0 {
+			continue
+		}
+		note := "full evaluation, wasm under node over native, same machine"
+		if len(each) > 1 {
+			var parts []string
+			for _, x := range each {
+				parts = append(parts, fmt.Sprintf("%.2f", x))
+			}
+			note += fmt.Sprintf("; median of %d rounds timed natively and as wasm by turns (%s)", len(each), strings.Join(parts, ", "))
+		}
+		v := Median(slices.Clone(each))
+		out = append(out, Row{Group: "wasm / native", Name: name, Value: v, Unit: "x",
+			Note: note + "; target at most 2.0x: " + verdict(v <= 2)})
 	}
 	return out
 }

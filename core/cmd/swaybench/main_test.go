@@ -1,0 +1,53 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// TestRatiosOverRounds: the wasm/native row is each round's wasm time over
+// the same round's native time, the median of the rounds, with each
+// round's ratio in the note; a later round's rows are not printed.
+func TestRatiosOverRounds(t *testing.T) {
+	rows := []Row{
+		{Group: "core linux/amd64", Name: "a", Value: 100},
+		{Group: "core js/wasm", Name: "a", Value: 250},
+		{Group: "core linux/amd64", Name: "a", Value: 150, Round: 2}, // a burst natively
+		{Group: "core js/wasm", Name: "a", Value: 200, Round: 2},
+		{Group: "core linux/amd64", Name: "a", Value: 100, Round: 3},
+		{Group: "core js/wasm", Name: "a", Value: 210, Round: 3},
+		{Group: "core linux/amd64", Name: "b", Value: 10},
+		{Group: "core js/wasm", Name: "b", Value: 15},
+	}
+	got := ratios(rows)
+	if len(got) != 2 {
+		t.Fatalf("%d ratio rows, want 2: %+v", len(got), got)
+	}
+	if a := got[0]; a.Name != "a" || a.Value != 2.1 || !strings.Contains(a.Note, "median of 3 rounds") ||
+		!strings.Contains(a.Note, "2.50, 1.33, 2.10") || !strings.Contains(a.Note, "MISSED") {
+		t.Errorf("a: %+v", a)
+	}
+	if b := got[1]; b.Name != "b" || b.Value != 1.5 || strings.Contains(b.Note, "rounds") || !strings.Contains(b.Note, "met") {
+		t.Errorf("b: %+v", b)
+	}
+
+	dir := t.TempDir()
+	f := filepath.Join(dir, "rows.json")
+	data := `{"group":"core linux/amd64","name":"a","value":100,"unit":"us"}
+{"group":"core linux/amd64","name":"a","value":150,"unit":"us","round":2}
+{"group":"core js/wasm","name":"a","value":250,"unit":"us"}
+{"group":"core js/wasm","name":"a","value":200,"unit":"us","round":2}
+`
+	if err := os.WriteFile(f, []byte(data), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var out strings.Builder
+	if err := printTable(&out, []string{f}); err != nil {
+		t.Fatal(err)
+	}
+	if strings.Contains(out.String(), "150") || strings.Contains(out.String(), "200 ") || !strings.Contains(out.String(), "median of 2 rounds") {
+		t.Errorf("table:\n%s", out.String())
+	}
+}
