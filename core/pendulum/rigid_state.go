@@ -11,16 +11,43 @@ import (
 // it removes drift at the integrator's error level). It returns the
 // largest relative length error it removed.
 func (r *Rigid) Project(y []float64) float64 {
+	var buf [3]row
+	var f frame
+	worst := r.projectPositions(y, &f, &buf)
+	r.frameInto(y[0], y, &f)
+	rws := r.rows(&f, buf[:0])
+	d := r.correction(rws, true)
+	for i := range 3 {
+		y[4+i] += d[i]
+		y[11+i] += d[3+i]
+		if r.geo.hookPoint {
+			y[17+i] += d[6+i]
+		}
+	}
+	return worst
+}
+
+// ProjectPositions is the first part of Project: |q| = 1, then the
+// positions back onto the constraints; the velocities are left as they
+// are. It returns the largest relative length error it removed.
+func (r *Rigid) ProjectPositions(y []float64) float64 {
+	var buf [3]row
+	var f frame
+	return r.projectPositions(y, &f, &buf)
+}
+
+// projectPositions is ProjectPositions in the caller's frame and rows,
+// which Project uses again for the velocities, so that it clears them
+// once (frameInto and rows overwrite what they hold).
+func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 	n := math.Sqrt(y[7]*y[7] + y[8]*y[8] + y[9]*y[9] + y[10]*y[10])
 	for i := 7; i < 11; i++ {
 		y[i] /= n
 	}
 	worst := 0.0
-	var buf [3]row
-	var f frame
 	for it := range 3 {
-		r.frameInto(y[0], y, &f)
-		rws := r.rows(&f, buf[:0])
+		r.frameInto(y[0], y, f)
+		rws := r.rows(f, buf[:0])
 		big := 0.0
 		for i := range rws {
 			big = math.Max(big, math.Abs(rws[i].phi)/rws[i].scale)
@@ -35,16 +62,6 @@ func (r *Rigid) Project(y []float64) float64 {
 		r.displace(y, d)
 		if big < 1e-8 {
 			break // one Newton step from there leaves rounding
-		}
-	}
-	r.frameInto(y[0], y, &f)
-	rws := r.rows(&f, buf[:0])
-	d := r.correction(rws, true)
-	for i := range 3 {
-		y[4+i] += d[i]
-		y[11+i] += d[3+i]
-		if r.geo.hookPoint {
-			y[17+i] += d[6+i]
 		}
 	}
 	return worst
@@ -96,86 +113,106 @@ func (r *Rigid) displace(y []float64, d [9]float64) {
 // rope's (parallel legs: both legs together), HookPos the hook,
 // RiggingDir hook to load, RiggingTension the pull of the sling set;
 // Body the rest.
-func (r *Rigid) Eval(t float64, y []float64, p *Point) {
+func (r *Rigid) Eval(t float64, y []float64, p *Point) { r.eval(t, y, p, true) }
+
+// EvalPositions is Eval of what depends on the positions alone, each
+// computed as Eval computes it: Suspension, Rope, LoadPos, LoadVel and the
+// Body's rotation, corners, corner swing, plumb line, tilt and twist. The
+// tensions, legs, directions, rates and the hook stay zero: no
+// accelerations are solved for. The scan refines the tops of the
+// positions' quantities with it.
+func (r *Rigid) EvalPositions(t float64, y []float64, p *Point) { r.eval(t, y, p, false) }
+
+// eval is Eval, with the accelerations and what needs them only when
+// forces is set.
+func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	geo := r.geo
 	var fr frame
 	r.frameInto(t, y, &fr)
 	f := &fr
-	z, lam := r.accel(f)
+	var z [9]float64
+	var lam [3]float64
+	if forces {
+		z, lam = r.accel(f)
+	}
 	bp := &r.bp
 	*bp = BodyPoint{R: f.R, Omega: f.w}
 	armL := f.R.mul(geo.loadC)
 	load := r3.Add(f.x, armL)
 	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
-	var hook, hookV, pull r3.Vec
-	switch {
-	case geo.twoTop:
-		bp.NLegs = 2
-		var dir, rate r3.Vec
-		for i := range 2 {
-			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
-			p.Tension += bp.Legs[i]
-			var a, top kin
-			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-			r.kinInto(f, &end{kind: onTop}, i, &top)
-			d := r3.Sub(a.p, top.p)
-			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
-			dir = r3.Add(dir, d)
-			rate = r3.Add(rate, r3.Sub(a.v, top.v))
-		}
-		n := r3.Norm(dir)
-		p.Dir = r3.Scale(1/n, dir)
-		p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
-		hook, hookV = f.s.Pos, f.s.Vel
-	case geo.hookPoint:
-		hook, hookV = f.P, f.Pv
-		p.Tension = -lam[0] * f.l
-		bp.NLegs = 2
-		for i := range 2 {
-			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
-			var a kin
-			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
-		}
-	default:
-		var k kin
-		r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
-		hook, hookV = k.p, k.v
-		var rope r3.Vec // the rope's (or pivot's) pull on the hook
-		if r.Pivot {
-			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
-			p.Tension = r3.Norm(rope)
-		} else {
-			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
+	if forces {
+		// The tensions, the rope's direction and rate, the hook and the
+		// legs' ends: what needs the accelerations.
+		var hook, hookV, pull r3.Vec
+		switch {
+		case geo.twoTop:
+			bp.NLegs = 2
+			var dir, rate r3.Vec
+			for i := range 2 {
+				bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
+				p.Tension += bp.Legs[i]
+				var a, top kin
+				r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
+				r.kinInto(f, &end{kind: onTop}, i, &top)
+				d := r3.Sub(a.p, top.p)
+				bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
+				dir = r3.Add(dir, d)
+				rate = r3.Add(rate, r3.Sub(a.v, top.v))
+			}
+			n := r3.Norm(dir)
+			p.Dir = r3.Scale(1/n, dir)
+			p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
+			hook, hookV = f.s.Pos, f.s.Vel
+		case geo.hookPoint:
+			hook, hookV = f.P, f.Pv
 			p.Tension = -lam[0] * f.l
+			bp.NLegs = 2
+			for i := range 2 {
+				bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
+				var a kin
+				r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
+				pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
+			}
+		default:
+			var k kin
+			r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
+			hook, hookV = k.p, k.v
+			var rope r3.Vec // the rope's (or pivot's) pull on the hook
+			if r.Pivot {
+				rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
+				p.Tension = r3.Norm(rope)
+			} else {
+				rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
+				p.Tension = -lam[0] * f.l
+			}
+			aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
+			pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
+			pb := f.R.transpose().mul(pull)
+			bp.NLegs = 4
+			for i := range 4 {
+				bp.Legs[i] = r3.Dot(geo.share[i], pb)
+			}
+			pull = r3.Scale(-1, pull)
 		}
-		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
-		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
-		pb := f.R.transpose().mul(pull)
-		bp.NLegs = 4
-		for i := range 4 {
-			bp.Legs[i] = r3.Dot(geo.share[i], pb)
+		if !geo.twoTop {
+			d := r3.Sub(hook, f.s.Pos)
+			if r.Pivot {
+				d = r3.Sub(load, f.s.Pos)
+			}
+			n := r3.Norm(d)
+			p.Dir = r3.Scale(1/n, d)
+			rel := r3.Sub(hookV, f.s.Vel)
+			p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
+			p.RiggingTension = r3.Norm(pull)
 		}
-		pull = r3.Scale(-1, pull)
-	}
-	if !geo.twoTop {
-		d := r3.Sub(hook, f.s.Pos)
-		if r.Pivot {
-			d = r3.Sub(load, f.s.Pos)
-		}
-		n := r3.Norm(d)
-		p.Dir = r3.Scale(1/n, d)
-		rel := r3.Sub(hookV, f.s.Vel)
-		p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
-		p.RiggingTension = r3.Norm(pull)
-	}
-	p.HookPos = hook
-	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
-	for i := range bp.NLegs {
-		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
-		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
-			bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+		p.HookPos = hook
+		p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+		for i := range bp.NLegs {
+			bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
+			if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
+				bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+			}
 		}
 	}
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)

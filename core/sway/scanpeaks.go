@@ -128,7 +128,7 @@ func (s *peaks) residualOf(q quantity) *extremum {
 func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, float64) {
 	if m <= a || m >= b {
 		m = 0.5 * (a + b)
-		fm = s.value(q, s.at(m))
+		fm = s.value(q, s.atFor(q, m))
 	}
 	for range 30 {
 		if fm < fa || fm < fb {
@@ -143,7 +143,7 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 				break
 			}
 			m = 0.5 * (a + b)
-			fm = s.value(q, s.at(m))
+			fm = s.value(q, s.atFor(q, m))
 			continue
 		}
 		num := (m-a)*(m-a)*(fm-fb) - (m-b)*(m-b)*(fm-fa)
@@ -155,7 +155,7 @@ func (s *scanner) refine(q quantity, a, fa, m, fm, b, fb float64) (float64, floa
 		if !(x > a && x < b) {
 			break
 		}
-		fx := s.value(q, s.at(x))
+		fx := s.value(q, s.atFor(q, x))
 		if math.Abs(x-m) <= 1e-7*(b-a) {
 			if fx > fm {
 				m, fm = x, fx
