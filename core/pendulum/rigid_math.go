@@ -13,11 +13,11 @@ import (
 type m3 [3][3]float64
 
 func (a m3) mul(v r3.Vec) r3.Vec {
-	return r3.Vec{
-		X: a[0][0]*v.X + a[0][1]*v.Y + a[0][2]*v.Z,
-		Y: a[1][0]*v.X + a[1][1]*v.Y + a[1][2]*v.Z,
-		Z: a[2][0]*v.X + a[2][1]*v.Y + a[2][2]*v.Z,
+	var o [3]float64
+	for i := range 3 {
+		o[i] = a[i][0]*v.X + a[i][1]*v.Y + a[i][2]*v.Z
 	}
+	return r3.Vec{X: o[0], Y: o[1], Z: o[2]}
 }
 
 func (a m3) mul3(b m3) (c m3) {
