@@ -66,24 +66,24 @@ type positionModel interface {
 // projection and the accelerations (bay-girder-rigid refines these for
 // about 40 % of its evaluations of the load). The value is the same.
 func (s *scanner) atFor(q quantity, t float64) *pendulum.Point {
-	if s.pos == nil || !(q == qSwing || q == qExcursion || q == qTilt || q == qTwist || q == qCorner) {
-		return s.at(t)
-	}
-	s.work += s.segWork
-	s.solver.Dense(t, s.y)
-	s.pos.ProjectPositions(s.y)
-	s.pos.EvalPositions(s.inSegment(t), s.y, &s.pt)
-	p := &s.pt
-	p.T = t
-	return p
+	positional := q == qSwing || q == qExcursion || q == qTilt || q == qTwist || q == qCorner
+	return s.evalAt(t, positional && s.pos != nil)
 }
 
 // at evaluates the load at time t inside the last step.
-func (s *scanner) at(t float64) *pendulum.Point {
+func (s *scanner) at(t float64) *pendulum.Point { return s.evalAt(t, false) }
+
+// evalAt is at, of the positions alone (s.pos) when positions is set.
+func (s *scanner) evalAt(t float64, positions bool) *pendulum.Point {
 	s.work += s.segWork
 	s.solver.Dense(t, s.y)
-	s.model.Project(s.y)
-	s.model.Eval(s.inSegment(t), s.y, &s.pt)
+	if positions {
+		s.pos.ProjectPositions(s.y)
+		s.pos.EvalPositions(s.inSegment(t), s.y, &s.pt)
+	} else {
+		s.model.Project(s.y)
+		s.model.Eval(s.inSegment(t), s.y, &s.pt)
+	}
 	p := &s.pt
 	p.T = t
 	return p
