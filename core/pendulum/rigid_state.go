@@ -123,8 +123,8 @@ func (r *Rigid) Eval(t float64, y []float64, p *Point) { r.eval(t, y, p, true) }
 // positions' quantities with it.
 func (r *Rigid) EvalPositions(t float64, y []float64, p *Point) { r.eval(t, y, p, false) }
 
-// eval is Eval, with the accelerations and what needs them only when
-// forces is set.
+// eval is Eval, with the accelerations and what needs them (evalForces)
+// only when forces is set.
 func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	geo := r.geo
 	var fr frame
@@ -142,78 +142,7 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
 	if forces {
-		// The tensions, the rope's direction and rate, the hook and the
-		// legs' ends: what needs the accelerations.
-		var hook, hookV, pull r3.Vec
-		switch {
-		case geo.twoTop:
-			bp.NLegs = 2
-			var dir, rate r3.Vec
-			for i := range 2 {
-				bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
-				p.Tension += bp.Legs[i]
-				var a, top kin
-				r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-				r.kinInto(f, &end{kind: onTop}, i, &top)
-				d := r3.Sub(a.p, top.p)
-				bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
-				dir = r3.Add(dir, d)
-				rate = r3.Add(rate, r3.Sub(a.v, top.v))
-			}
-			n := r3.Norm(dir)
-			p.Dir = r3.Scale(1/n, dir)
-			p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
-			hook, hookV = f.s.Pos, f.s.Vel
-		case geo.hookPoint:
-			hook, hookV = f.P, f.Pv
-			p.Tension = -lam[0] * f.l
-			bp.NLegs = 2
-			for i := range 2 {
-				bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
-				var a kin
-				r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-				pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
-			}
-		default:
-			var k kin
-			r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
-			hook, hookV = k.p, k.v
-			var rope r3.Vec // the rope's (or pivot's) pull on the hook
-			if r.Pivot {
-				rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
-				p.Tension = r3.Norm(rope)
-			} else {
-				rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
-				p.Tension = -lam[0] * f.l
-			}
-			aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
-			pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
-			pb := f.R.transpose().mul(pull)
-			bp.NLegs = 4
-			for i := range 4 {
-				bp.Legs[i] = r3.Dot(geo.share[i], pb)
-			}
-			pull = r3.Scale(-1, pull)
-		}
-		if !geo.twoTop {
-			d := r3.Sub(hook, f.s.Pos)
-			if r.Pivot {
-				d = r3.Sub(load, f.s.Pos)
-			}
-			n := r3.Norm(d)
-			p.Dir = r3.Scale(1/n, d)
-			rel := r3.Sub(hookV, f.s.Vel)
-			p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
-			p.RiggingTension = r3.Norm(pull)
-		}
-		p.HookPos = hook
-		p.RiggingDir = r3.Unit(r3.Sub(load, hook))
-		for i := range bp.NLegs {
-			bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
-			if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
-				bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
-			}
-		}
+		r.evalForces(f, &z, &lam, load, p)
 	}
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
 	restCorner, restHeading := &geo.restCorner, geo.restHeading
@@ -241,6 +170,83 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	ex := f.R.Col(0)
 	tw := math.Atan2(ex.Y, ex.X) - restHeading - f.psi
 	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
+}
+
+// evalForces is the part of Eval that needs the accelerations z and the
+// constraints' multipliers lam (accel): the tensions, the rope's
+// direction and rate, the hook and the legs' ends.
+func (r *Rigid) evalForces(f *frame, z *[9]float64, lam *[3]float64, load r3.Vec, p *Point) {
+	geo, bp := r.geo, p.Body
+	var hook, hookV, pull r3.Vec
+	switch {
+	case geo.twoTop:
+		bp.NLegs = 2
+		var dir, rate r3.Vec
+		for i := range 2 {
+			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
+			p.Tension += bp.Legs[i]
+			var a, top kin
+			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
+			r.kinInto(f, &end{kind: onTop}, i, &top)
+			d := r3.Sub(a.p, top.p)
+			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
+			dir = r3.Add(dir, d)
+			rate = r3.Add(rate, r3.Sub(a.v, top.v))
+		}
+		n := r3.Norm(dir)
+		p.Dir = r3.Scale(1/n, dir)
+		p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
+		hook, hookV = f.s.Pos, f.s.Vel
+	case geo.hookPoint:
+		hook, hookV = f.P, f.Pv
+		p.Tension = -lam[0] * f.l
+		bp.NLegs = 2
+		for i := range 2 {
+			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
+			var a kin
+			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
+			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
+		}
+	default:
+		var k kin
+		r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
+		hook, hookV = k.p, k.v
+		var rope r3.Vec // the rope's (or pivot's) pull on the hook
+		if r.Pivot {
+			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
+			p.Tension = r3.Norm(rope)
+		} else {
+			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
+			p.Tension = -lam[0] * f.l
+		}
+		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
+		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
+		pb := f.R.transpose().mul(pull)
+		bp.NLegs = 4
+		for i := range 4 {
+			bp.Legs[i] = r3.Dot(geo.share[i], pb)
+		}
+		pull = r3.Scale(-1, pull)
+	}
+	if !geo.twoTop {
+		d := r3.Sub(hook, f.s.Pos)
+		if r.Pivot {
+			d = r3.Sub(load, f.s.Pos)
+		}
+		n := r3.Norm(d)
+		p.Dir = r3.Scale(1/n, d)
+		rel := r3.Sub(hookV, f.s.Vel)
+		p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
+		p.RiggingTension = r3.Norm(pull)
+	}
+	p.HookPos = hook
+	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+	for i := range bp.NLegs {
+		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
+		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
+			bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+		}
+	}
 }
 
 // Rest is the state hanging still at time t with the suspension point at
