@@ -12,6 +12,9 @@ import (
 // m3 is a 3 by 3 matrix, rows first.
 type m3 [3][3]float64
 
+// mul is a v. Written as a loop over the rows (the same products and sums
+// in the same order as written out), Go inlines it: cost 53, against 83
+// written out, over the budget of 80.
 func (a m3) mul(v r3.Vec) r3.Vec {
 	var o [3]float64
 	for i := range 3 {

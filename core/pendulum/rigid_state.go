@@ -130,11 +130,6 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	var fr frame
 	r.frameInto(t, y, &fr)
 	f := &fr
-	var z [9]float64
-	var lam [3]float64
-	if forces {
-		z, lam = r.accel(f)
-	}
 	bp := &r.bp
 	*bp = BodyPoint{R: f.R, Omega: f.w}
 	armL := f.R.mul(geo.loadC)
@@ -142,7 +137,7 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
 	if forces {
-		r.evalForces(f, &z, &lam, load, p)
+		r.evalForces(f, load, p)
 	}
 	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
 	restCorner, restHeading := &geo.restCorner, geo.restHeading
@@ -175,8 +170,9 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 // evalForces is the part of Eval that needs the accelerations z and the
 // constraints' multipliers lam (accel): the tensions, the rope's
 // direction and rate, the hook and the legs' ends.
-func (r *Rigid) evalForces(f *frame, z *[9]float64, lam *[3]float64, load r3.Vec, p *Point) {
+func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	geo, bp := r.geo, p.Body
+	z, lam := r.accel(f)
 	var hook, hookV, pull r3.Vec
 	switch {
 	case geo.twoTop:

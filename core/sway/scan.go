@@ -34,22 +34,24 @@ type scanner struct {
 
 	pos positionModel // the model's evaluation of the positions alone, if it has one
 
-	axes    []motion.Profile // the combined axes, for the work of a segment
-	budget  *Budget
-	segWork int64 // work of one evaluation in the current segment
-	work    int64 // work not yet charged to the budget
+	axes     []motion.Profile // the combined axes, for the work of a segment
+	budget   *Budget
+	evalWork int64 // work of one evaluation of the model itself (budget.go)
+	segWork  int64 // work of one evaluation in the current segment
+	work     int64 // work not yet charged to the budget
 }
 
 func newScanner(m pendulum.System, motionEnd float64) *scanner {
-	nq := qRigAngle
+	nq, work := qRigAngle, int64(WorkPerEval)
 	switch m.(type) {
 	case *pendulum.Double, *fastDouble:
 		nq = qTilt
 	case *pendulum.Rigid:
-		nq = nQuantities
+		nq, work = nQuantities, WorkPerRigidEval
 	}
 	pos, _ := m.(positionModel)
-	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, pos: pos, maxSteps: maxSteps, y: make([]float64, m.Len())}
+	return &scanner{peaks: peaks{motionEnd: motionEnd, nq: nq}, model: m, pos: pos, evalWork: work,
+		maxSteps: maxSteps, y: make([]float64, m.Len())}
 }
 
 // positionModel is a model that projects and evaluates the positions
@@ -87,14 +89,6 @@ func (s *scanner) evalAt(t float64, positions bool) *pendulum.Point {
 	p := &s.pt
 	p.T = t
 	return p
-}
-
-// evalWork is the work of one evaluation of m itself (budget.go).
-func evalWork(m pendulum.System) int64 {
-	if _, ok := m.(*pendulum.Rigid); ok {
-		return WorkPerRigidEval
-	}
-	return WorkPerEval
 }
 
 // inSegment moves t just inside the current segment between restarts.
@@ -160,7 +154,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 		if sg != nil {
 			sg.segment(t, cut)
 		}
-		s.segWork = segmentWork(evalWork(s.model), s.axes, 0.5*(t+cut))
+		s.segWork = segmentWork(s.evalWork, s.axes, 0.5*(t+cut))
 		s.solver.Reset(t, s.solver.State())
 		carry := false // the first sample of the step is the last of the one before
 		for {
