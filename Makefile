@@ -196,6 +196,7 @@ bench: deps scipy-deps dist
 	$(GO) run ./web/cmd/swaysize -wasm $(OUT)/web/swaysheet.wasm -fetch-wasm $(OUT)/web/swayfetch.wasm -single-wasm $(OUT)/single/swaysheet.wasm -single dist/swaysheet.html -static dist/web -parts $(BENCH)/parts.wasm > $(BENCH)/size.json
 	$(GO) run ./core/cmd/swaybench -json testdata/scenarios > $(BENCH)/native.json
 	$(GO) run ./core/cmd/swaybench -floor testdata/scenarios/diagonal-travel.json -repeat 201 > $(BENCH)/kernel.json
+	$(GO) run ./core/cmd/swaybench -shapes > $(BENCH)/shapes.json
 	$(GO) run ./core/cmd/swaybench -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws.json
 	rm -f $(BENCH)/swaybench.wasm
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
@@ -208,6 +209,7 @@ bench: deps scipy-deps dist
 	GOMAXPROCS=1 $(GO) run ./core/cmd/swaybench -plans testdata/scenarios -repeat 21 > $(BENCH)/plans.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -plans testdata/scenarios -repeat 21 > $(BENCH)/plans-wasm.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -floor testdata/scenarios/diagonal-travel.json -repeat 101 > $(BENCH)/kernel-wasm.json
+	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -shapes > $(BENCH)/shapes-wasm.json
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -draws testdata/scenarios/bay-travel.json > $(BENCH)/draws-wasm.json
 	$(GO) run ./core/cmd/swaybench -scipy testdata/reference/results.json -python $(PYTHON_REF) -repeat 1001 $(BENCH_SCIPY) > $(BENCH)/scipy.json
 	SWAYSHEET_BROWSER=1 SWAYSHEET_BENCH_OUT=$(CURDIR)/$(BENCH)/browser.json $(GO) test -count=1 -run '^TestBenchPage$$' ./web/browsertest

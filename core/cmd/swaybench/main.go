@@ -7,6 +7,7 @@
 //	swaybench -floor FILE.json [-repeat N]   time the floor kernel beside the core
 //	swaybench -draws FILE.json               time 1,000 draws of the scenario (core/draws)
 //	swaybench -plans DIR [-repeat N]         time each plan-*.json in DIR by its parts
+//	swaybench -shapes                        time four code shapes (shapes.go)
 //	swaybench -table FILE.json ...           print the table of all rows
 //
 // A row is {"group","name","value","unit","note"}; the table prints them
@@ -58,6 +59,7 @@ func main() {
 	python := flag.String("python", "/usr/bin/python3", "the Python that has SciPy")
 	script := flag.String("script", "testdata/reference/reference.py", "the reference script")
 	cpuProfile := flag.String("cpuprofile", "", "write a CPU profile of the run to this file (native only; under node use node --cpu-prof)")
+	shapesOn := flag.Bool("shapes", false, "time four code shapes (locals, arrays, a call, a vector by value): for the wasm/native rows of code shapes")
 	round := flag.Int("round", 0, "with -json: mark the rows as round N of the same timing (N > 1: used for the wasm/native ratio, not printed)")
 	flag.Parse()
 	if *cpuProfile != "" {
@@ -75,6 +77,8 @@ func main() {
 		emit(planRows(*plansDir, *repeat, "plan parts "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *drawsFile != "":
 		emit(drawsRows(*drawsFile, "draws "+runtime.GOOS+"/"+runtime.GOARCH))
+	case *shapesOn:
+		emit(shapeRows("shapes "+runtime.GOOS+"/"+runtime.GOARCH, shapeRounds), nil)
 	case *floor != "":
 		emit(floorRows(*floor, *repeat, "kernel "+runtime.GOOS+"/"+runtime.GOARCH))
 	case *asJSON && flag.NArg() == 1:
@@ -256,6 +260,7 @@ func printTable(w io.Writer, files []string) error {
 		f.Close()
 	}
 	rows = append(rows, ratios(rows)...)
+	rows = append(rows, shapeRatios(rows)...)
 	rows = slices.DeleteFunc(rows, func(r Row) bool { return r.Round > 1 })
 	fmt.Fprintf(w, "swaysheet benchmarks, %s\n", time.Now().UTC().Format("2006-01-02 15:04 MST"))
 	fmt.Fprintf(w, "processor: %s (%d cores); %s\n\n", cpuName(), runtime.NumCPU(), runtime.Version())

@@ -51,3 +51,30 @@ func TestRatiosOverRounds(t *testing.T) {
 		t.Errorf("table:\n%s", out.String())
 	}
 }
+
+// TestShapes: the locals and arrays shapes do the same sums in the same
+// order (the same bits), and the ratio rows pair a shape's native and
+// wasm rows by name.
+func TestShapes(t *testing.T) {
+	if a, b := shapeLocals(1000), shapeArrays(1000); a != b {
+		t.Errorf("locals %v, arrays %v: not the same sums", a, b)
+	}
+	rows := shapeRows("shapes linux/amd64", 1000)
+	if len(rows) != len(shapes) {
+		t.Fatalf("%d rows, want %d", len(rows), len(shapes))
+	}
+	for _, r := range rows {
+		if !(r.Value > 0) || r.Unit != "ns" {
+			t.Errorf("%+v", r)
+		}
+	}
+	got := shapeRatios([]Row{
+		{Group: "shapes linux/amd64", Name: "call", Value: 1.5},
+		{Group: "shapes js/wasm", Name: "call", Value: 6},
+		{Group: "shapes js/wasm", Name: "arrays", Value: 20}, // no native row: no ratio
+		{Group: "core linux/amd64", Name: "arrays", Value: 10},
+	})
+	if len(got) != 1 || got[0].Name != "call" || got[0].Value != 4 || got[0].Group != "wasm / native, code shapes" {
+		t.Errorf("ratios: %+v", got)
+	}
+}
