@@ -255,17 +255,19 @@ func (r *Rigid) kinOf(f *frame, e end, leg int) (k kin) {
 
 // kinInto is kinOf written into k.
 func (r *Rigid) kinInto(f *frame, e *end, leg int, k *kin) {
+	// Field by field: a composite literal through the pointer is built
+	// aside and copied (in wasm a memory.fill and a memory.copy).
 	switch e.kind {
 	case onBody:
 		arm := f.R.mul(e.b)
 		wr := r3.Cross(f.w, arm)
-		*k = kin{p: r3.Add(f.x, arm), v: r3.Add(f.v, wr), a0: r3.Cross(f.w, wr), arm: arm, kind: onBody}
+		k.p, k.v, k.a0, k.arm, k.kind = r3.Add(f.x, arm), r3.Add(f.v, wr), r3.Cross(f.w, wr), arm, onBody
 		return
 	case onHook:
-		*k = kin{p: f.P, v: f.Pv, kind: onHook}
+		k.p, k.v, k.a0, k.arm, k.kind = f.P, f.Pv, r3.Vec{}, r3.Vec{}, onHook
 		return
 	}
-	*k = kin{p: f.s.Pos, v: f.s.Vel, a0: f.s.Acc, kind: onTop}
+	k.p, k.v, k.a0, k.arm, k.kind = f.s.Pos, f.s.Vel, f.s.Acc, r3.Vec{}, onTop
 	if r.geo.twoTop {
 		k.p = r3.Add(k.p, f.top[leg])
 		k.v = r3.Add(k.v, f.topV[leg])
@@ -309,7 +311,8 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		var ka, kb kin
 		r.kinInto(f, &c.a, i, &ka)
 		r.kinInto(f, &c.b, i, &kb)
-		var rw row
+		out = append(out, row{}) // the row written in place, not copied in
+		rw := &out[len(out)-1]
 		d := r3.Sub(ka.p, kb.p)
 		dd := r3.Sub(ka.v, kb.v)
 		da := r3.Sub(ka.a0, kb.a0)
@@ -319,7 +322,6 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 			addPart(&rw.j, &kb, e, -1)
 			rw.kappa = r3.Dot(e, da)
 			rw.phi, rw.dphi, rw.scale = r3.Dot(e, d), r3.Dot(e, dd), 1
-			out = append(out, rw)
 			continue
 		}
 		l, dl, ddl := c.l, 0.0, 0.0
@@ -332,7 +334,6 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		rw.phi = 0.5 * (r3.Dot(d, d) - l*l)
 		rw.dphi = r3.Dot(d, dd) - l*dl
 		rw.scale = l * l
-		out = append(out, rw)
 	}
 	return out
 }
@@ -349,12 +350,20 @@ func unit(i int) r3.Vec {
 
 // accel solves for z = (x”, alpha, P”) and the multipliers at f.
 func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
+	r.accelInto(f, &z, &lam)
+	return z, lam
+}
+
+// accelInto is accel written into z and lam (wholly): the evaluations'
+// way, without the copies of results returned by value.
+func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	geo := r.geo
 	var buf [3]row
 	rws := r.rows(f, buf[:0])
 	g := r3.Vec{Z: -r.g()}
-	iw := f.R.mul3(geo.ib).mul3(f.R.transpose())
-	iwInv := f.R.mul3(geo.ibInv).mul3(f.R.transpose())
+	var iw, iwInv m3
+	conjugate(&f.R, &geo.ib, &iw)
+	conjugate(&f.R, &geo.ibInv, &iwInv)
 	// Applied generalized force.
 	fx := r3.Scale(geo.m, g)
 	tq := r3.Scale(-1, r3.Cross(f.w, iw.mul(f.w)))
@@ -367,9 +376,10 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 		tq = r3.Add(tq, r3.Cross(armL, fl))
 	}
 	fp := r3.Scale(geo.mh, g)
-	fg := [9]float64{fx.X, fx.Y, fx.Z, tq.X, tq.Y, tq.Z, fp.X, fp.Y, fp.Z}
-	var mf [9]float64
-	geo.minv(&iwInv, &fg, &mf)
+	var fg [9]float64
+	fg[0], fg[1], fg[2], fg[3], fg[4], fg[5], fg[6], fg[7], fg[8] = fx.X, fx.Y, fx.Z, tq.X, tq.Y, tq.Z, fp.X, fp.Y, fp.Z
+	mf := z // M^-1 fg, to which the constraints' parts are added below
+	geo.minv(&iwInv, &fg, mf)
 	n := len(rws)
 	var a [3][3]float64
 	var b [3]float64
@@ -381,16 +391,14 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 		for k := range n {
 			a[i][k] = dot9(&rws[i].j, &mj[k])
 		}
-		b[i] = -rws[i].kappa - dot9(&rws[i].j, &mf)
+		b[i] = -rws[i].kappa - dot9(&rws[i].j, mf)
 	}
-	lam = solve3(a, b, n)
-	z = mf
+	solve3(&a, &b, n, lam)
 	for i := range n {
 		for k := range 9 {
 			z[k] += lam[i] * mj[i][k]
 		}
 	}
-	return z, lam
 }
 
 // minv writes M^-1 v into o: the generalized mass matrix's inverse
@@ -411,9 +419,11 @@ func (geo *rigidGeometry) minv(iwInv *m3, v, o *[9]float64) {
 func (r *Rigid) Func(t float64, y, dy []float64) {
 	var f frame
 	r.frameInto(t, y, &f)
-	z, _ := r.accel(&f)
+	var z [9]float64
+	var lam [3]float64
+	r.accelInto(&f, &z, &lam)
 	dy[0] = 1
-	copy(dy[1:4], y[4:7])
+	dy[1], dy[2], dy[3] = y[4], y[5], y[6] // copy would call memmove in wasm
 	dy[4], dy[5], dy[6] = z[0], z[1], z[2]
 	// q' = (0, w) * q / 2
 	qw, qx, qy, qz := y[7], y[8], y[9], y[10]
@@ -424,7 +434,7 @@ func (r *Rigid) Func(t float64, y, dy []float64) {
 	dy[10] = 0.5 * (w.Z*qw + w.X*qy - w.Y*qx)
 	dy[11], dy[12], dy[13] = z[3], z[4], z[5]
 	if r.geo.hookPoint {
-		copy(dy[14:17], y[17:20])
+		dy[14], dy[15], dy[16] = y[17], y[18], y[19]
 		dy[17], dy[18], dy[19] = z[6], z[7], z[8]
 	}
 }

@@ -150,7 +150,10 @@ func (r *Rigid) corner(i int) r3.Vec {
 }
 
 // quatRot rotates v by the unit quaternion q.
-func quatRot(q quat, v r3.Vec) r3.Vec { return rotOf(q[:]).mul(v) }
+func quatRot(q quat, v r3.Vec) r3.Vec {
+	R := rotOf(q[:])
+	return R.mul(v)
+}
 
 // addPoint adds to inertia i (about the origin) a mass m whose centre of
 // mass is at b: m (|b|^2 1 - b b^T), the parallel axis theorem.
@@ -270,9 +273,10 @@ func (geo *rigidGeometry) sharing(legs []Leg) error {
 	if !ok {
 		return &GeometryError{Leg: 0, Msg: "the four legs lie in one plane: they cannot share the load"}
 	}
+	invT := inv.transpose()
 	for i := range legs {
 		// T_i = k_i e_i . K^-1 Fs = (k_i K^-T e_i) . Fs
-		geo.share[i] = r3.Scale(ks[i], inv.transpose().mul(es[i]))
+		geo.share[i] = r3.Scale(ks[i], invT.mul(es[i]))
 	}
 	return nil
 }

@@ -14,8 +14,9 @@ type m3 [3][3]float64
 
 // mul is a v. Written as a loop over the rows (the same products and sums
 // in the same order as written out), Go inlines it: cost 53, against 83
-// written out, over the budget of 80.
-func (a m3) mul(v r3.Vec) r3.Vec {
+// written out, over the budget of 80. By pointer: a value receiver is a
+// copy of the 72-byte matrix at every call, even inlined.
+func (a *m3) mul(v r3.Vec) r3.Vec {
 	var o [3]float64
 	for i := range 3 {
 		o[i] = a[i][0]*v.X + a[i][1]*v.Y + a[i][2]*v.Z
@@ -30,6 +31,28 @@ func (a m3) mul3(b m3) (c m3) {
 		}
 	}
 	return c
+}
+
+// conjugate writes R B R^T into c, the products and sums of
+// R.mul3(B).mul3(R.transpose()) in their order, on local variables:
+// Go keeps an array in memory, and the two products through arrays took
+// about twice as long natively and four times as long in wasm
+// (swaybench -shapes: arrays against locals).
+func conjugate(R, B, c *m3) {
+	r00, r01, r02 := R[0][0], R[0][1], R[0][2]
+	r10, r11, r12 := R[1][0], R[1][1], R[1][2]
+	r20, r21, r22 := R[2][0], R[2][1], R[2][2]
+	b00, b01, b02 := B[0][0], B[0][1], B[0][2]
+	b10, b11, b12 := B[1][0], B[1][1], B[1][2]
+	b20, b21, b22 := B[2][0], B[2][1], B[2][2]
+	// T = R B
+	t00, t01, t02 := r00*b00+r01*b10+r02*b20, r00*b01+r01*b11+r02*b21, r00*b02+r01*b12+r02*b22
+	t10, t11, t12 := r10*b00+r11*b10+r12*b20, r10*b01+r11*b11+r12*b21, r10*b02+r11*b12+r12*b22
+	t20, t21, t22 := r20*b00+r21*b10+r22*b20, r20*b01+r21*b11+r22*b21, r20*b02+r21*b12+r22*b22
+	// C = T R^T: c[i][j] = t[i][0] r[j][0] + t[i][1] r[j][1] + t[i][2] r[j][2]
+	c[0] = [3]float64{t00*r00 + t01*r01 + t02*r02, t00*r10 + t01*r11 + t02*r12, t00*r20 + t01*r21 + t02*r22}
+	c[1] = [3]float64{t10*r00 + t11*r01 + t12*r02, t10*r10 + t11*r11 + t12*r12, t10*r20 + t11*r21 + t12*r22}
+	c[2] = [3]float64{t20*r00 + t21*r01 + t22*r02, t20*r10 + t21*r11 + t22*r12, t20*r20 + t21*r21 + t22*r22}
 }
 
 func (a m3) transpose() (t m3) {
@@ -122,8 +145,11 @@ func dot9(a, b *[9]float64) float64 {
 }
 
 // solve3 solves the leading n by n block of a x = b by Gaussian
-// elimination with partial pivoting (n <= 3).
-func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
+// elimination with partial pivoting (n <= 3), into x (its first n). The
+// elimination works on a and b in place: they are the caller's scratch.
+// By pointer, and rows swapped element by element: in wasm a copy of an
+// array is a memory.copy.
+func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 	for c := range n {
 		p := c
 		for i := c + 1; i < n; i++ {
@@ -131,7 +157,9 @@ func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
 				p = i
 			}
 		}
-		a[c], a[p] = a[p], a[c]
+		for k := range 3 {
+			a[c][k], a[p][k] = a[p][k], a[c][k]
+		}
 		b[c], b[p] = b[p], b[c]
 		for i := c + 1; i < n; i++ {
 			m := a[i][c] / a[c][c]
@@ -148,5 +176,4 @@ func solve3(a [3][3]float64, b [3]float64, n int) (x [3]float64) {
 		}
 		x[i] = s / a[i][i]
 	}
-	return x
 }

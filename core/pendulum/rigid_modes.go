@@ -211,7 +211,8 @@ func (r *Rigid) kindOf(s [9]float64) string {
 	geo := r.geo
 	R := rotOf(geo.rest[:])
 	dx := r3.Vec{X: s[0], Y: s[1], Z: s[2]}
-	th := R.transpose().mul(r3.Vec{X: s[3], Y: s[4], Z: s[5]})
+	Rt := R.transpose()
+	th := Rt.mul(r3.Vec{X: s[3], Y: s[4], Z: s[5]})
 	ex := R.Col(0)
 	along := r3.Dot(dx, r3.Unit(r3.Vec{X: ex.X, Y: ex.Y}))
 	across := math.Sqrt(math.Max(0, dx.X*dx.X+dx.Y*dx.Y-along*along))

@@ -56,7 +56,8 @@ func (c *Rigid) shares(out []RigidMode, y0 []float64, nb, xs, mk dense, vals []f
 		}
 	}
 	// The load's centre of mass from the body's, hanging still.
-	arm := rotOf(c.geo.rest[:]).mul(c.geo.loadC)
+	R := rotOf(c.geo.rest[:])
+	arm := R.mul(c.geo.loadC)
 	tot := 0.0
 	for j := range out {
 		m := &out[j]

@@ -83,7 +83,8 @@ func (r *Rigid) correction(rws []row, rates bool) (d [9]float64) {
 			b[i] = -rws[i].phi
 		}
 	}
-	lam := solve3(a, b, n)
+	var lam [3]float64
+	solve3(&a, &b, n, &lam)
 	for i := range n {
 		for k := range 9 {
 			d[k] += lam[i] * rws[i].j[k]
@@ -172,7 +173,9 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 // direction and rate, the hook and the legs' ends.
 func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	geo, bp := r.geo, p.Body
-	z, lam := r.accel(f)
+	var z [9]float64
+	var lam [3]float64
+	r.accelInto(f, &z, &lam)
 	var hook, hookV, pull r3.Vec
 	switch {
 	case geo.twoTop:
@@ -217,7 +220,8 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		}
 		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
 		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
-		pb := f.R.transpose().mul(pull)
+		Rt := f.R.transpose()
+		pb := Rt.mul(pull)
 		bp.NLegs = 4
 		for i := range 4 {
 			bp.Legs[i] = r3.Dot(geo.share[i], pb)
