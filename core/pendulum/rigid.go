@@ -221,7 +221,7 @@ func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
 	*f = frame{t: t}
 	f.x = vec(y[1:])
 	f.v = vec(y[4:])
-	f.R = rotOf(y[7:11])
+	rotInto(y[7:11], &f.R)
 	f.w = vec(y[11:])
 	if r.geo.hookPoint {
 		f.P, f.Pv, f.hookPresent = vec(y[14:]), vec(y[17:]), true

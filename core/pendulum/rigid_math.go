@@ -84,15 +84,20 @@ func (a m3) Col(j int) r3.Vec { return r3.Vec{X: a[0][j], Y: a[1][j], Z: a[2][j]
 
 // rotOf is the rotation matrix of the quaternion q = (w, x, y, z),
 // normalised first.
-func rotOf(q []float64) m3 {
+func rotOf(q []float64) (R m3) {
+	rotInto(q, &R)
+	return R
+}
+
+// rotInto is rotOf written into R, element by element (the evaluations'
+// frame: a matrix returned by value is copied once more).
+func rotInto(q []float64, R *m3) {
 	w, x, y, z := q[0], q[1], q[2], q[3]
 	n := 1 / math.Sqrt(w*w+x*x+y*y+z*z)
 	w, x, y, z = w*n, x*n, y*n, z*n
-	return m3{
-		{1 - 2*(y*y+z*z), 2 * (x*y - w*z), 2 * (x*z + w*y)},
-		{2 * (x*y + w*z), 1 - 2*(x*x+z*z), 2 * (y*z - w*x)},
-		{2 * (x*z - w*y), 2 * (y*z + w*x), 1 - 2*(x*x+y*y)},
-	}
+	R[0][0], R[0][1], R[0][2] = 1-2*(y*y+z*z), 2*(x*y-w*z), 2*(x*z+w*y)
+	R[1][0], R[1][1], R[1][2] = 2*(x*y+w*z), 1-2*(x*x+z*z), 2*(y*z-w*x)
+	R[2][0], R[2][1], R[2][2] = 2*(x*z-w*y), 2*(y*z+w*x), 1-2*(x*x+y*y)
 }
 
 // quat is a unit quaternion (w, x, y, z).

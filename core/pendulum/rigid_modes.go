@@ -86,7 +86,7 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 				d[i] = step * nb[i][j]
 			}
 			y := append([]float64(nil), y0...)
-			c.displace(y, d)
+			c.displace(y, &d)
 			f := c.frameOf(0, y)
 			zs[n], _ = c.accel(&f)
 		}
@@ -252,6 +252,6 @@ func (r *Rigid) Displace(y []float64, shape [9]float64, amp float64) {
 	for i, v := range shape {
 		d[i] = amp * v / big
 	}
-	r.displace(y, d)
+	r.displace(y, &d)
 	r.Project(y)
 }

@@ -16,7 +16,8 @@ func (r *Rigid) Project(y []float64) float64 {
 	worst := r.projectPositions(y, &f, &buf)
 	r.frameInto(y[0], y, &f)
 	rws := r.rows(&f, buf[:0])
-	d := r.correction(rws, true)
+	var d [9]float64
+	r.correction(rws, true, &d)
 	for i := range 3 {
 		y[4+i] += d[i]
 		y[11+i] += d[3+i]
@@ -58,8 +59,9 @@ func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 		if big < 1e-15 {
 			break
 		}
-		d := r.correction(rws, false)
-		r.displace(y, d)
+		var d [9]float64
+		r.correction(rws, false, &d)
+		r.displace(y, &d)
 		if big < 1e-8 {
 			break // one Newton step from there leaves rounding
 		}
@@ -67,9 +69,9 @@ func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 	return worst
 }
 
-// correction is -G^T (G G^T)^-1 v, v each row's value phi, or its rate
-// dphi when rates is set.
-func (r *Rigid) correction(rws []row, rates bool) (d [9]float64) {
+// correction writes -G^T (G G^T)^-1 v into d (zero before), v each row's
+// value phi, or its rate dphi when rates is set.
+func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	n := len(rws)
 	var a [3][3]float64
 	var b [3]float64
@@ -90,12 +92,11 @@ func (r *Rigid) correction(rws []row, rates bool) (d [9]float64) {
 			d[k] += lam[i] * rws[i].j[k]
 		}
 	}
-	return d
 }
 
 // displace moves the body by d = (dx, dtheta, dP): x += dx, q turned by
 // the small rotation dtheta (ground frame), P += dP.
-func (r *Rigid) displace(y []float64, d [9]float64) {
+func (r *Rigid) displace(y []float64, d *[9]float64) {
 	for i := range 3 {
 		y[1+i] += d[i]
 		if r.geo.hookPoint {
@@ -105,7 +106,7 @@ func (r *Rigid) displace(y []float64, d [9]float64) {
 	th := r3.Vec{X: d[3], Y: d[4], Z: d[5]}
 	if a := r3.Norm(th); a > 0 {
 		q := mulq(quatAxis(r3.Scale(1/a, th), a), quat{y[7], y[8], y[9], y[10]})
-		copy(y[7:11], q[:])
+		y[7], y[8], y[9], y[10] = q[0], q[1], q[2], q[3]
 	}
 }
 
