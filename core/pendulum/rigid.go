@@ -354,8 +354,9 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 	return z, lam
 }
 
-// accelInto is accel written into z and lam (wholly): the evaluations'
-// way, without the copies of results returned by value.
+// accelInto is accel written into z (wholly) and lam (its first len(rows)
+// entries; the callers pass it zero): the evaluations' way, without the
+// copies of results returned by value.
 func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	geo := r.geo
 	var buf [3]row

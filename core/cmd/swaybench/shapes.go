@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"strings"
 	"time"
 )
 
@@ -24,7 +25,8 @@ import (
 //
 // The rigid load's model is mostly the arrays and calls shapes (3-by-3
 // matrices, 9-vectors, frames passed by pointer); the specialised
-// single-rope path mostly locals.
+// single-rope path's stages and history samples the arrays shape
+// (6-element states, the dense output's coefficients).
 
 // shapeRounds is each shape's rounds per timing.
 const shapeRounds = 2_000_000
@@ -68,7 +70,7 @@ func shapeRatios(rows []Row) []Row {
 		case r.Group == "shapes js/wasm":
 			wasm[r.Name] = r.Value
 			names = append(names, r.Name)
-		case len(r.Group) > 7 && r.Group[:7] == "shapes ":
+		case strings.HasPrefix(r.Group, "shapes "):
 			native[r.Name] = r.Value
 		}
 	}
