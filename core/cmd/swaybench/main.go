@@ -23,6 +23,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"maps"
 	"os"
 	"path/filepath"
 	"runtime"
@@ -288,13 +289,35 @@ func printTable(w io.Writer, files []string) error {
 // burst of load on the host during one side of one round does not make
 // the row.
 func ratios(rows []Row) []Row {
+	names, each := wasmOverNative(rows, "core ")
+	var out []Row
+	for _, name := range names {
+		r := each[name]
+		note := "full evaluation, wasm under node over native, same machine"
+		if len(r) > 1 {
+			var parts []string
+			for _, x := range r {
+				parts = append(parts, fmt.Sprintf("%.2f", x))
+			}
+			note += fmt.Sprintf("; median of %d rounds timed natively and as wasm by turns (%s)", len(r), strings.Join(parts, ", "))
+		}
+		v := Median(r)
+		out = append(out, Row{Group: "wasm / native", Name: name, Value: v, Unit: "x",
+			Note: note + "; target at most 2.0x: " + verdict(v <= 2)})
+	}
+	return out
+}
+
+// wasmOverNative pairs the rows of the groups prefix+"js/wasm" and
+// prefix+(any native platform) by name and round (Row.Round, 0 as 1): for
+// each name timed both ways, in the wasm rows' order, each round's wasm
+// value over its native one, by round.
+func wasmOverNative(rows []Row, prefix string) (names []string, each map[string][]float64) {
 	type pair struct{ native, wasm float64 }
 	byRound := map[string]map[int]*pair{}
-	var names []string
 	for _, r := range rows {
-		wasm := r.Group == "core js/wasm"
-		native := strings.HasPrefix(r.Group, "core ") && !strings.Contains(r.Group, "wasm")
-		if !wasm && !native {
+		wasm := r.Group == prefix+"js/wasm"
+		if !wasm && (!strings.HasPrefix(r.Group, prefix) || strings.Contains(r.Group, "wasm")) {
 			continue
 		}
 		if byRound[r.Name] == nil {
@@ -306,44 +329,29 @@ func ratios(rows []Row) []Row {
 			p = &pair{}
 			byRound[r.Name][round] = p
 		}
-		if wasm {
-			p.wasm = r.Value
-			if round == 1 {
-				names = append(names, r.Name)
-			}
-		} else {
+		if !wasm {
 			p.native = r.Value
-		}
-	}
-	var out []Row
-	for _, name := range names {
-		var each []float64
-		var rounds []int
-		for k := range byRound[name] {
-			rounds = append(rounds, k)
-		}
-		sort.Ints(rounds)
-		for _, k := range rounds {
-			if p := byRound[name][k]; p.native > 0 && p.wasm > 0 {
-				each = append(each, p.wasm/p.native)
-			}
-		}
-		if len(each) == 0 {
 			continue
 		}
-		note := "full evaluation, wasm under node over native, same machine"
-		if len(each) > 1 {
-			var parts []string
-			for _, x := range each {
-				parts = append(parts, fmt.Sprintf("%.2f", x))
-			}
-			note += fmt.Sprintf("; median of %d rounds timed natively and as wasm by turns (%s)", len(each), strings.Join(parts, ", "))
+		p.wasm = r.Value
+		if round == 1 {
+			names = append(names, r.Name)
 		}
-		v := Median(slices.Clone(each))
-		out = append(out, Row{Group: "wasm / native", Name: name, Value: v, Unit: "x",
-			Note: note + "; target at most 2.0x: " + verdict(v <= 2)})
 	}
-	return out
+	each = map[string][]float64{}
+	var kept []string
+	for _, name := range names {
+		rounds := slices.Sorted(maps.Keys(byRound[name]))
+		for _, k := range rounds {
+			if p := byRound[name][k]; p.native > 0 && p.wasm > 0 {
+				each[name] = append(each[name], p.wasm/p.native)
+			}
+		}
+		if len(each[name]) > 0 {
+			kept = append(kept, name)
+		}
+	}
+	return kept, each
 }
 
 func verdict(met bool) string {

@@ -2,7 +2,6 @@ package main
 
 import (
 	"fmt"
-	"strings"
 	"time"
 )
 
@@ -63,23 +62,11 @@ func shapeRows(group string, n int) []Row {
 
 // shapeRatios pairs the shapes' native and wasm rows: wasm over native.
 func shapeRatios(rows []Row) []Row {
-	native, wasm := map[string]float64{}, map[string]float64{}
-	var names []string
-	for _, r := range rows {
-		switch {
-		case r.Group == "shapes js/wasm":
-			wasm[r.Name] = r.Value
-			names = append(names, r.Name)
-		case strings.HasPrefix(r.Group, "shapes "):
-			native[r.Name] = r.Value
-		}
-	}
+	names, each := wasmOverNative(rows, "shapes ")
 	var out []Row
 	for _, name := range names {
-		if native[name] > 0 {
-			out = append(out, Row{Group: "wasm / native, code shapes", Name: name, Value: wasm[name] / native[name], Unit: "x",
-				Note: "the same loop as wasm under node over natively (no target: what Go's wasm charges for this shape)"})
-		}
+		out = append(out, Row{Group: "wasm / native, code shapes", Name: name, Value: each[name][0], Unit: "x",
+			Note: "the same loop as wasm under node over natively (no target: what Go's wasm charges for this shape)"})
 	}
 	return out
 }
