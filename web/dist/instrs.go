@@ -21,6 +21,9 @@ const (
 	opLocalSet = 0x21
 	opLocalTee = 0x22
 	opI32Const = 0x41
+	opI64Const = 0x42
+	opI64Load  = 0x29
+	opI64Store = 0x37
 )
 
 // instr is one decoded instruction: its opcode, where it starts and ends

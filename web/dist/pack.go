@@ -13,20 +13,32 @@ import (
 const PackGap = 32
 
 // Pack is what make wasm does to a wasm file after go build: its forward
-// jumps made direct (DirectJumps), then its data segments joined
-// (PackData).
-func Pack(wasm []byte) ([]byte, JumpStats, error) {
-	out, st, err := DirectJumps(wasm)
+// jumps made direct (DirectJumps), its copies and clears of a known size
+// up to CopyLimit bytes written out (WriteOutCopies), then its data
+// segments joined (PackData).
+func Pack(wasm []byte) ([]byte, PackStats, error) {
+	var st PackStats
+	out, js, err := DirectJumps(wasm)
+	st.JumpStats = js
 	if err != nil {
+		return nil, st, err
+	}
+	if out, st.Copies, err = WriteOutCopies(out, CopyLimit); err != nil {
 		return nil, st, err
 	}
 	out, err = PackData(out, PackGap)
 	return out, st, err
 }
 
+// PackStats counts what Pack did.
+type PackStats struct {
+	JumpStats
+	Copies CopyStats
+}
+
 // PackFile packs the wasm file name in place (Pack) and returns what
-// DirectJumps did and the file's sizes before and after.
-func PackFile(name string) (st JumpStats, before, after int, err error) {
+// it did and the file's sizes before and after.
+func PackFile(name string) (st PackStats, before, after int, err error) {
 	in, err := os.ReadFile(name)
 	if err != nil {
 		return st, 0, 0, err

@@ -1,7 +1,9 @@
 // Command swaypack rewrites wasm files in place as make wasm ships them
 // (web/dist.Pack): jumps made direct branches and for loops wasm loops,
-// about 15 to 25 % faster under node, and data segments joined, the same
-// memory at start; together about 10 % less gzipped. make wasm, make
+// about 15 to 25 % faster under node; copies and clears of up to 128
+// bytes written out as word loads and stores, 3 to 10 % faster again; and
+// data segments joined, the same memory at start; together about 9 % less
+// gzipped. make wasm, make
 // single-wasm and make bench run it after go build.
 //
 //	go run ./web/cmd/swaypack out/web/swaysheet.wasm
@@ -58,6 +60,6 @@ func pack(f string) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	return fmt.Sprintf("%s: %d jumps direct, %d loops made (%d jumps back to them), %d jumps round the dispatch loop, in %d functions; data segments joined; %d -> %d bytes",
-		f, st.Direct, st.Loops, st.Looped, st.Round, st.Functions, before, after), nil
+	return fmt.Sprintf("%s: %d jumps direct, %d loops made (%d jumps back to them), %d jumps round the dispatch loop, in %d functions; %d copies and %d clears written out (%d left); data segments joined; %d -> %d bytes",
+		f, st.Direct, st.Loops, st.Looped, st.Round, st.Functions, st.Copies.Copies, st.Copies.Clears, st.Copies.Left, before, after), nil
 }

@@ -1,7 +1,8 @@
 // Command jumpcheck prints what a Go program's control flow gives: loops,
 // switches, goroutines and channels (the wasm stack unwinds and resumes),
 // deep recursion (the stack grows), panics with their lines, defers,
-// closures, maps, floats and timers. TestDirectJumpsRunTheSame runs it as
+// closures, maps, floats, timers, and copies and clears of structs and
+// arrays of several sizes (WriteOutCopies). TestDirectJumpsRunTheSame runs it as
 // go build writes it and packed (web/dist.Pack): the output must be the
 // same.
 package main
@@ -150,7 +151,66 @@ func pipeline() []int {
 	}
 }
 
+type vec3 struct{ X, Y, Z float64 }
+
+// part is 104 bytes: Go copies it with memory.copy and clears it with
+// memory.fill.
+type part struct {
+	P, V, A, Arm vec3
+	Kind         int
+}
+
+// table is 320 bytes, beyond CopyLimit: left as it is.
+type table [40]float64
+
+//go:noinline
+func swapParts(a, b *part) { *a, *b = *b, *a }
+
+//go:noinline
+func clearPart(a *part) { *a = part{} }
+
+//go:noinline
+func moveVec(dst, src *[4]vec3, i, j int) { dst[i] = src[j] }
+
+// copies moves parts, vectors and tables about and sums what they hold.
+func copies() string {
+	var ps [9]part
+	for i := range ps {
+		f := float64(i)
+		ps[i] = part{P: vec3{f, 2 * f, 3 * f}, V: vec3{-f, f / 2, 1}, A: vec3{Z: f * f}, Arm: vec3{X: 1 / (f + 1)}, Kind: i}
+	}
+	for i := range 8 {
+		swapParts(&ps[i], &ps[(i*5+3)%9])
+	}
+	clearPart(&ps[4])
+	var a, b [4]vec3
+	for i := range a {
+		a[i] = vec3{float64(i), float64(i * i), -float64(i)}
+	}
+	for i := range 4 {
+		moveVec(&b, &a, i, 3-i)
+	}
+	var t table
+	for i := range t {
+		t[i] = math.Sqrt(float64(i))
+	}
+	u := t
+	u[7] = -1
+	sum := 0.0
+	kinds := 0
+	for i, p := range ps {
+		sum += float64(i+1) * (p.P.X + p.P.Y - p.P.Z + p.V.X*p.V.Y + p.A.Z + p.Arm.X)
+		kinds = kinds*10 + p.Kind
+	}
+	for i, v := range b {
+		sum += float64(i) * (v.X + 2*v.Y + 3*v.Z)
+	}
+	sum += u[7] + t[7] + u[39]
+	return fmt.Sprintf("copies %d %s", kinds, strconv.FormatFloat(sum, 'g', -1, 64))
+}
+
 func main() {
+	fmt.Println(copies())
 	sum := 0
 	for i := 1; i < 3000; i++ {
 		sum += collatz(i)
