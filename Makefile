@@ -182,9 +182,10 @@ planned:
 	$(PYTHON_REF) testdata/reference/planned.py
 
 # Speed and size, side by side, in one table (see README "Benchmarks").
-# The examples are timed in three rounds, natively and as wasm by turns:
-# the wasm/native row is the median of the rounds' ratios, so that a burst
-# of load on the host during one side of one round does not make it.
+# The examples are timed in five rounds, natively and as wasm by turns:
+# the wasm/native row is the fastest wasm round over the fastest native
+# one, so that a slow spell of the host during one side of some rounds
+# does not make it.
 BENCH := $(OUT)/bench
 # Scenarios timed with SciPy beside the core (those in the reference data).
 BENCH_SCIPY := $(addprefix testdata/scenarios/,bay-travel.json diagonal-travel.json tower-slew.json \
@@ -202,7 +203,7 @@ bench: deps scipy-deps dist
 	GOOS=js GOARCH=wasm $(GO) build -o $(BENCH)/swaybench.wasm ./core/cmd/swaybench
 	$(GO) run ./web/cmd/swaypack $(BENCH)/swaybench.wasm
 	node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -json testdata/scenarios > $(BENCH)/wasm.json
-	for r in 2 3; do \
+	for r in 2 3 4 5; do \
 		$(GO) run ./core/cmd/swaybench -round $$r -json testdata/scenarios > $(BENCH)/native-round$$r.json && \
 		node $(GOROOT)/lib/wasm/wasm_exec_node.js $(BENCH)/swaybench.wasm -round $$r -json testdata/scenarios > $(BENCH)/wasm-round$$r.json || exit 1; \
 	done
