@@ -16,9 +16,12 @@ import "math"
 // series' writes written out on plain numbers and the suspension point
 // read from the segment's spans: the same operations in the same order,
 // so the same bits (TestSamplesAsPlain holds the two ways together;
-// Options.kinSamples selects the plain way). Slews and hoists take the
-// plain way: written out for them too, the loop saved under 2 % of a
-// slew's evaluation for about 0.5 kB of the page's gzipped wasm.
+// Options.kinSamples selects the plain way). Hoists without air take the
+// loop too (the rope's length and its second rate from the hoist's span,
+// as kinOf gives them: three lines; under node the plain way's samples
+// cost about three times their native time). Slews take the plain way:
+// written out for them too, the loop saved under 2 % of a slew's
+// evaluation for about 0.5 kB of the page's gzipped wasm.
 // On the full evaluation of the diagonal travel example the plain way
 // takes about 200 instructions a sample more, a tenth of the evaluation
 // (callgrind, natively). Either way leaves the swing angle to the end of
@@ -33,17 +36,18 @@ import "math"
 // u = y[3:6] - (n·y[3:6]) n (pendulum.Project).
 //
 // On travel moves alone the rope length is l0 (l0 - 0) and its second
-// rate -0 (-(0)), and a - S¨ is -S¨ of the segment's spans, plus the air's
-// share kept by steadyAir when the air is steady (up to airTo, beyond the
-// step's end t1), as kinOf and rel give them: the same bits without
-// their calls and the whole kin made for every sample.
+// rate -0 (-(0)), with a hoist l0 - h and -h¨ of the hoist's span; a - S¨
+// is -S¨ of the segment's spans, plus the air's share kept by steadyAir
+// when the air is steady (up to airTo, beyond the step's end t1), as
+// kinOf and rel give them: the same bits without their calls and the
+// whole kin made for every sample.
 func (s *fastScan) emit(t0, t1 float64) {
 	h := s.hist
 	if h == nil || s.next >= s.samples {
 		return
 	}
 	v, m := &s.v, s.m
-	if s.kinSamples || !(m.travel || m.steady && t1 <= m.airTo) {
+	if s.kinSamples || !(m.travel || m.steady && t1 <= m.airTo || m.air == nil && !m.slewing) {
 		s.emitPlain(t0, t1)
 		return
 	}
@@ -88,6 +92,10 @@ func (s *fastScan) emit(t0, t1 float64) {
 			py, _, ay = m.sy.at(tt)
 		}
 		l, ddl := m.l0, math.Copysign(0, -1)
+		if m.hoisting {
+			h, _, ddh := m.sh.at(tt)
+			l, ddl = m.l0-h, -ddh
+		}
 		rx, ry, rz := -ax, -ay, -m.g
 		if m.steady {
 			rx, ry, rz = rx+m.airX, ry+m.airY, m.rz
