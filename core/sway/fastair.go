@@ -1,12 +1,15 @@
 package sway
 
+import "gonum.org/v1/gonum/spatial/r3"
+
 // The specialised path on travel moves alone with a steady air: a load
 // carried along the runway in a wind that is off or full over a segment
 // between restarts, without drag (fastModel.airTravel, fastModel.steady;
 // the clearance check's runs of a gust). The air's share of the applied
-// acceleration is then one constant of the segment, which rhs and the
-// history (fastScan.emit) add to the suspension point's -S¨
-// without evaluating the air: the same operations on the same values as
+// acceleration is then one constant of the segment, which rhs, the
+// history (fastScan.emit) and the step ends' measures (fastScan.measureAt,
+// with the share of its rate) add to the suspension point's -S¨ (and its
+// jerk) without evaluating the air: the same operations on the same values as
 // the general way through relAt, kinOf, rel and Air.Force (four calls for
 // every evaluation, each dear in wasm), which TestAirTravelAsKin holds
 // them to, bit for bit. Ramps and drag take the general way.
@@ -44,5 +47,9 @@ func (m *fastModel) steadyAir() {
 		}
 		f, im := sv*sv*a.ForceN, 1/m.mass
 		m.airX, m.airY, m.rz = im*(f*a.Dir.X), im*(f*a.Dir.Y), -m.g+im*(f*a.Dir.Z)
+		// relDot's share, 2 s s' F_w e over the mass with s' zero (no ramp
+		// over the segment), in relDot's operations: zeros with their signs.
+		fd := r3.Scale(2*sv*a.strengthRate(lo)*a.ForceN, a.Dir)
+		m.dairX, m.dairY, m.dairZ = im*fd.X, im*fd.Y, im*fd.Z
 	}
 }

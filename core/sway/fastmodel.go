@@ -30,9 +30,12 @@ type fastModel struct {
 	sx, sy, ss, sr, sh span
 	segA, segB         float64
 	// The air's share of the applied acceleration, when it is the same
-	// over the segment (steadyAir): ax, ay and az - g, up to airTo.
+	// over the segment (steadyAir): ax, ay and az - g, up to airTo; and
+	// its share of that acceleration's rate (relDot's, with the strength's
+	// rate zero).
 	steady                bool
 	airX, airY, rz, airTo float64
+	dairX, dairY, dairZ   float64
 }
 
 // newFastModel builds the specialised model from the summed profiles of

@@ -43,9 +43,16 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 		jx, jy = -md.sx.j, -md.sy.j
 	} else {
 		k := md.kinAt(t)
-		rx, ry, rz = md.rel(t, &k, y)
+		if md.steady && t <= md.airTo {
+			// rel and relDot in a steady air (steadyAir): the same sums
+			// on the air's shares kept for the segment.
+			rx, ry, rz = -k.ax+md.airX, -k.ay+md.airY, md.rz
+			jx, jy, jz = -k.jx+md.dairX, -k.jy+md.dairY, md.dairZ
+		} else {
+			rx, ry, rz = md.rel(t, &k, y)
+			jx, jy, jz = md.relDot(t, &k, y, yd)
+		}
 		l, dl, ddl, dddl = k.l, k.dl, k.ddl, k.dddl
-		jx, jy, jz = md.relDot(t, &k, y, yd)
 	}
 	out.v[qSwing], out.g[qSwing] = swingMeasure(y)
 	out.v[qExcursion], out.g[qExcursion] = excursionMeasure(l, dl, y)
