@@ -34,7 +34,6 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	rec := recorder{}
 	if hist != nil {
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
-		rec.reserve(opt.HistoryBuffer)
 		switch m := su.model.(type) {
 		case *pendulum.Rigid:
 			rec.bodyHist = &BodyHistory{}
@@ -42,6 +41,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		case *pendulum.Double, *fastDouble:
 			rec.hook = true
 		}
+		rec.reserve(opt.HistoryBuffer)
 	}
 	maxN := maxSteps
 	if opt.MaxSteps > 0 {

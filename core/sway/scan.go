@@ -327,11 +327,16 @@ type recorder struct {
 }
 
 // reserve makes room for every sample at once: growing eleven slices
-// sample by sample costs more than the samples (in wasm most of all).
-// With reuse set (Options.HistoryBuffer) its memory is used when large
-// enough, else the memory made is kept there.
+// (fourteen with the hook's) sample by sample costs more than the samples
+// (in wasm most of all). With reuse set (Options.HistoryBuffer) its
+// memory is used when large enough, else the memory made is kept there.
 func (s *recorder) reserve(reuse *[]float64) {
-	cs := s.hist.series()
+	series := s.hist.series()
+	cs := series[:]
+	if s.hook {
+		h := s.hist
+		cs = append(cs, &h.HookRelXM, &h.HookRelYM, &h.HookRelZM)
+	}
 	n := s.samples
 	var buf []float64
 	if reuse != nil && cap(*reuse) >= len(cs)*n {
