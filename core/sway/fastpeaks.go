@@ -43,12 +43,19 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 		jx, jy = -md.sx.j, -md.sy.j
 	} else {
 		k := md.kinAt(t)
-		if md.steady && t <= md.airTo {
+		switch {
+		case md.air == nil && !s.kinSamples:
+			// rel and relDot without air, written out: -S¨ and -g, -S⃛ and 0
+			// (Options.kinSamples takes them through the calls, for
+			// TestSamplesAsPlain).
+			rx, ry, rz = -k.ax, -k.ay, -md.g
+			jx, jy = -k.jx, -k.jy
+		case md.steady && t <= md.airTo:
 			// rel and relDot in a steady air (steadyAir): the same sums
 			// on the air's shares kept for the segment.
 			rx, ry, rz = -k.ax+md.airX, -k.ay+md.airY, md.rz
 			jx, jy, jz = -k.jx+md.dairX, -k.jy+md.dairY, md.dairZ
-		} else {
+		default:
 			rx, ry, rz = md.rel(t, &k, y)
 			jx, jy, jz = md.relDot(t, &k, y, yd)
 		}
