@@ -126,6 +126,21 @@ func (d *fastDouble) rhs(t float64, y, dy *[12]float64) {
 	d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
 }
 
+// DirectFunc implements pendulum.DirectFunc: rhs written out in a
+// function value that calls eval directly, for the solvers of the hook
+// block's scan and of its modes' periods (the method value d.Func, or
+// sys.Func on the interface, calls a wrapper, then Func, then rhs: under
+// node the hook block examples ran about 6 % faster without them, natively
+// 0 to 2 %). TestDirectFuncIsFunc holds it to Func, bit for bit.
+func (d *fastDouble) DirectFunc() func(t float64, y, dy []float64) {
+	return func(t float64, yy, dyy []float64) {
+		y, dy := (*[12]float64)(yy), (*[12]float64)(dyy)
+		dy[0], dy[1], dy[2] = y[3], y[4], y[5]
+		dy[6], dy[7], dy[8] = y[9], y[10], y[11]
+		d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
+	}
+}
+
 // Project implements pendulum.System: both directions back onto their
 // constraints (pendulum.Double.Project).
 func (d *fastDouble) Project(y []float64) float64 {

@@ -172,7 +172,7 @@ func integrateDouble(d *fastDouble, su *setup, opt Options, rec recorder, tEnd, 
 	}
 	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d,
 		pathOnly: opt.PathOnly && rec.hist != nil}
-	s.v = ode.New(d.Func, d.Len(), ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
+	s.v = ode.New(d.DirectFunc(), d.Len(), ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
 	s.maxSteps = maxN
 	err := s.run(su.y0, su.breaks, tEnd)
 	if opt.Budget != nil && !opt.Budget.take(int64(s.v.Evals)*WorkPerEval) && err == nil {
