@@ -9,10 +9,11 @@ import "gonum.org/v1/gonum/spatial/r3"
 // acceleration is then one constant of the segment, which rhs, the
 // history (fastScan.emit) and the step ends' measures (fastScan.measureAt,
 // with the share of its rate) add to the suspension point's -S¨ (and its
-// jerk) without evaluating the air: the same operations on the same values as
-// the general way through relAt, kinOf, rel and Air.Force (four calls for
-// every evaluation, each dear in wasm), which TestAirTravelAsKin holds
-// them to, bit for bit. Ramps and drag take the general way.
+// jerk) without evaluating the air: the same operations on the same
+// values as the general way through relAt, kinOf, rel, relDot and
+// Air.Force (four calls for every evaluation, each dear in wasm), which
+// TestAirTravelAsKin holds them to, bit for bit. Ramps and drag take the
+// general way.
 
 // steadyAir finds whether the air's force is the same at every time of
 // the segment [A, B] (set by segment) at which the model is evaluated,
