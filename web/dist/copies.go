@@ -51,24 +51,8 @@ func WriteOutCopies(wasm []byte, maxBytes int) ([]byte, CopyStats, error) {
 	if err != nil {
 		return nil, st, err
 	}
-	out := append([]byte(nil), wasm[:8]...)
-	r := &WasmReader{B: wasm[8:]}
-	for len(r.B) > 0 {
-		id := r.Bytes(1)
-		body := r.Bytes(r.ULEB())
-		if r.Err != nil {
-			return nil, st, r.Err
-		}
-		if id[0] == 10 {
-			if body, err = copiesCode(body, params, maxBytes, &st); err != nil {
-				return nil, st, err
-			}
-		}
-		out = append(out, id[0])
-		out = appendULEB(out, uint64(len(body)))
-		out = append(out, body...)
-	}
-	return out, st, nil
+	out, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) { return copiesCode(sec, params, maxBytes, &st) })
+	return out, st, err
 }
 
 // CopyStats counts what WriteOutCopies did.
@@ -117,28 +101,12 @@ func funcParams(wasm []byte) ([]int, error) {
 // copiesCode rewrites the code section: each function body is its
 // locals, then its instructions.
 func copiesCode(sec []byte, params []int, maxBytes int, st *CopyStats) ([]byte, error) {
-	r := &WasmReader{B: sec}
-	n := r.ULEB()
-	if n != len(params) {
+	if n := (&WasmReader{B: sec}).ULEB(); n != len(params) {
 		return nil, fmt.Errorf("copies: %d function bodies for %d functions", n, len(params))
 	}
-	out := appendULEB(nil, uint64(n))
-	for i := 0; i < n; i++ {
-		body := r.Bytes(r.ULEB())
-		if r.Err != nil {
-			return nil, r.Err
-		}
-		fn, err := copiesFunc(body, params[i], maxBytes, st)
-		if err != nil {
-			return nil, fmt.Errorf("copies: function %d: %v", i, err)
-		}
-		out = appendULEB(out, uint64(len(fn)))
-		out = append(out, fn...)
-	}
-	if len(r.B) != 0 {
-		return nil, errors.New("copies: bytes after the last function")
-	}
-	return out, nil
+	return eachBody(sec, "copies", func(i int, body []byte) ([]byte, error) {
+		return copiesFunc(body, params[i], maxBytes, st)
+	})
 }
 
 // copiesFunc rewrites one function body, its locals declared first.

@@ -1,9 +1,6 @@
 package dist
 
-import (
-	"errors"
-	"fmt"
-)
+import "errors"
 
 // DirectJumps rewrites the jumps between basic blocks of a wasm file's
 // functions, in the form Go's compiler writes them, as direct branches,
@@ -57,25 +54,8 @@ func DirectJumps(wasm []byte) ([]byte, JumpStats, error) {
 	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
 		return nil, st, errors.New("jumps: not a wasm file")
 	}
-	out := append([]byte(nil), wasm[:8]...)
-	r := &WasmReader{B: wasm[8:]}
-	for len(r.B) > 0 {
-		id := r.Bytes(1)
-		body := r.Bytes(r.ULEB())
-		if r.Err != nil {
-			return nil, st, r.Err
-		}
-		if id[0] == 10 {
-			var err error
-			if body, err = directCode(body, &st); err != nil {
-				return nil, st, err
-			}
-		}
-		out = append(out, id[0])
-		out = appendULEB(out, uint64(len(body)))
-		out = append(out, body...)
-	}
-	return out, st, nil
+	out, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) { return directCode(sec, &st) })
+	return out, st, err
 }
 
 // JumpStats counts what DirectJumps did.
@@ -92,35 +72,22 @@ type JumpStats struct {
 // section 5.5.13): each function body is its locals, then its
 // instructions.
 func directCode(sec []byte, st *JumpStats) ([]byte, error) {
-	r := &WasmReader{B: sec}
-	n := r.ULEB()
-	out := appendULEB(nil, uint64(n))
-	for i := 0; i < n; i++ {
-		body := r.Bytes(r.ULEB())
-		if r.Err != nil {
-			return nil, r.Err
-		}
+	return eachBody(sec, "jumps", func(_ int, body []byte) ([]byte, error) {
 		br := &WasmReader{B: body}
 		for range br.ULEB() {
 			br.ULEB()   // count
 			br.Bytes(1) // type
 		}
 		if br.Err != nil {
-			return nil, fmt.Errorf("jumps: function %d: %v", i, br.Err)
+			return nil, br.Err
 		}
 		head := body[:len(body)-len(br.B)]
 		code, err := directFunc(br.B, st)
 		if err != nil {
-			return nil, fmt.Errorf("jumps: function %d: %v", i, err)
+			return nil, err
 		}
-		out = appendULEB(out, uint64(len(head)+len(code)))
-		out = append(out, head...)
-		out = append(out, code...)
-	}
-	if len(r.B) != 0 {
-		return nil, errors.New("jumps: bytes after the last function")
-	}
-	return out, nil
+		return append(head[:len(head):len(head)], code...), nil
+	})
 }
 
 // directFunc rewrites one function's instructions.
