@@ -6,11 +6,11 @@ import (
 )
 
 // CopyLimit is the largest copy or clear Pack writes out, in bytes: under
-// node the examples ran as fast with 128 as with 256 (and 1,024), and 3
-// to 10 % slower with 64 (the 72-byte rotation matrices and the 104-byte
-// constraint ends of the rigid load stay bulk copies); the page's wasm
-// grows about 11, 21 and 33 kB gzipped with 64, 128 and 256 (README,
-// "Copies written out").
+// node the examples ran as fast with 128 as with 256 (and 1,024), and the
+// rigid loads and the hook block 4 to 10 % slower with 64 (the 72-byte
+// rotation matrices and the 104-byte constraint ends of the rigid load
+// stay bulk copies); the page's wasm grows about 11, 21 and 33 kB gzipped
+// with 64, 128 and 256 (README, "Copies written out").
 const CopyLimit = 128
 
 // WriteOutCopies writes Go's copies and clears of a known size, up to
