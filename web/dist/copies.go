@@ -32,9 +32,9 @@ const CopyLimit = 128
 //	local.set s; local.set d; (local.get d; local.get s; i64.load k; i64.store k) for k = 0, 8, ...
 //
 // and a clear, the two constants left out, `local.set d; (local.get d;
-// i64.const 0; i64.store k)` over its words. Word by word from the start is what memory.copy does
-// when the two do not overlap or are the same place, and Go's copies are
-// one or the other: a copy whose ends may overlap in part (an array
+// i64.const 0; i64.store k)` over its words. Word by word from the start
+// is what memory.copy does when the two do not overlap or are the same
+// place, and Go's copies are one or the other: a copy whose ends may overlap in part (an array
 // through a slice converted to an array pointer) Go makes a call of
 // runtime.memmove on wasm (cmd/compile/internal/ssagen/ssa.go,
 // moveWhichMayOverlap, with ssa.IsInlinableMemmove false on wasm).
@@ -62,9 +62,10 @@ type CopyStats struct {
 }
 
 // funcParams is the number of parameters of each function the code
-// section defines, in its order (the type, import and function sections:
-// specification 1.0, sections 5.5.4 to 5.5.6). A new local's index comes
-// after the parameters and the declared locals.
+// section defines, in its order (the type and function sections:
+// specification 1.0, sections 5.5.4 and 5.5.6; an imported function has
+// no body). A new local's index comes after the parameters and the
+// declared locals.
 func funcParams(wasm []byte) ([]int, error) {
 	var types, params []int
 	r := &WasmReader{B: wasm[8:]}
