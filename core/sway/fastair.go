@@ -11,9 +11,9 @@ import "gonum.org/v1/gonum/spatial/r3"
 // with the share of its rate) add to the suspension point's -S¨ (and its
 // jerk) without evaluating the air: the same operations on the same
 // values as the general way through relAt, kinOf, rel, relDot and
-// Air.Force (four calls for every evaluation, each dear in wasm), which
-// TestAirTravelAsKin holds them to, bit for bit. Ramps and drag take the
-// general way.
+// Air.Force (calls at every evaluation and step end, each dear in wasm),
+// which TestAirTravelAsKin holds them to, bit for bit. Ramps and drag
+// take the general way.
 
 // steadyAir finds whether the air's force is the same at every time of
 // the segment [A, B] (set by segment) at which the model is evaluated,
