@@ -155,6 +155,12 @@ func dot9(a, b *[9]float64) float64 {
 // By pointer, and rows swapped element by element: in wasm a copy of an
 // array is a memory.copy.
 func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
+	if n == 1 {
+		// One constraint (four legs on one rope): what the elimination
+		// below comes to for n = 1, without its row swaps and loops.
+		x[0] = b[0] / a[0][0]
+		return
+	}
 	for c := range n {
 		p := c
 		for i := c + 1; i < n; i++ {
