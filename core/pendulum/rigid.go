@@ -216,20 +216,17 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 // frameInto is frameOf written into f. The simulation's evaluations pass
 // the frame, the constraint ends (kinInto, addPart) and the 9-vectors
 // (minv) by pointer: a struct passed or returned by value is copied, and
-// Go's wasm copies it through memory one word at a time.
+// Go's wasm copies it through memory one word at a time. Every field is
+// written (the frame is not cleared first: in wasm a clear of its 456
+// bytes is a memory.fill, a call out of the wasm code).
 func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
-	*f = frame{t: t}
-	f.x = vec(y[1:])
-	f.v = vec(y[4:])
-	rotInto(y[7:11], &f.R)
-	f.w = vec(y[11:])
-	if r.geo.hookPoint {
-		f.P, f.Pv, f.hookPresent = vec(y[14:]), vec(y[17:]), true
-	}
+	f.t = t
 	f.s = r.Suspension(t)
+	f.l, f.dl, f.ddl = 0, 0, 0
 	if r.Rope != nil {
 		f.l, f.dl, f.ddl = r.Rope(t)
 	}
+	f.psi = 0
 	if r.geo.twoTop {
 		var dpsi, ddpsi float64
 		if r.Yaw != nil {
@@ -244,6 +241,25 @@ func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
 			f.topV[i] = r3.Scale(a*dpsi, et)
 			f.topA[i] = r3.Add(r3.Scale(a*ddpsi, et), r3.Scale(-a*dpsi*dpsi, e))
 		}
+	} else {
+		f.top, f.topV, f.topA = [2]r3.Vec{}, [2]r3.Vec{}, [2]r3.Vec{}
+	}
+	r.stateInto(y, f)
+}
+
+// stateInto writes into f the part of the frame that comes from the state
+// y, leaving the part that comes from the time (the suspension point, the
+// rope, the slew) as it is: Project's frames after the first, at the same
+// time y[0], take it from there without asking the motions again.
+func (r *Rigid) stateInto(y []float64, f *frame) {
+	f.x = vec(y[1:])
+	f.v = vec(y[4:])
+	rotInto(y[7:11], &f.R)
+	f.w = vec(y[11:])
+	if r.geo.hookPoint {
+		f.P, f.Pv, f.hookPresent = vec(y[14:]), vec(y[17:]), true
+	} else {
+		f.P, f.Pv, f.hookPresent = r3.Vec{}, r3.Vec{}, false
 	}
 }
 
@@ -303,39 +319,123 @@ func addPart(j *[9]float64, k *kin, dir r3.Vec, s float64) {
 	}
 }
 
-// rows evaluates every constraint at f.
+// rows evaluates every constraint at f: rowOf's sums, for the kinds of
+// ends the arrangements have (end a on the body or the hook, end b at a
+// top point or on the body), written out on local variables. rowOf's kin
+// lives in memory and its kinInto and addPart are calls, which cost most
+// in wasm; the other kinds of ends take rowOf. TestRowsAsRowOf holds the
+// two to the same bits.
 func (r *Rigid) rows(f *frame, out []row) []row {
 	out = out[:0]
 	for i := range r.geo.cons {
 		c := &r.geo.cons[i]
-		var ka, kb kin
-		r.kinInto(f, &c.a, i, &ka)
-		r.kinInto(f, &c.b, i, &kb)
 		out = append(out, row{}) // the row written in place, not copied in
 		rw := &out[len(out)-1]
-		d := r3.Sub(ka.p, kb.p)
-		dd := r3.Sub(ka.v, kb.v)
-		da := r3.Sub(ka.a0, kb.a0)
+		aBody, bBody := c.a.kind == onBody, c.b.kind == onBody
+		if !aBody && c.a.kind != onHook || !bBody && c.b.kind != onTop {
+			r.rowOf(f, c, i, rw)
+			continue
+		}
+		// The ends as kinInto has them: position, velocity, the
+		// acceleration's part without z, and the body arm.
+		var pa, va, a0a, arma r3.Vec
+		if aBody {
+			arma = f.R.mul(c.a.b)
+			wr := r3.Cross(f.w, arma)
+			pa, va, a0a = r3.Add(f.x, arma), r3.Add(f.v, wr), r3.Cross(f.w, wr)
+		} else {
+			pa, va = f.P, f.Pv
+		}
+		var pb, vb, a0b, armb r3.Vec
+		if bBody {
+			armb = f.R.mul(c.b.b)
+			wr := r3.Cross(f.w, armb)
+			pb, vb, a0b = r3.Add(f.x, armb), r3.Add(f.v, wr), r3.Cross(f.w, wr)
+		} else {
+			pb, vb, a0b = f.s.Pos, f.s.Vel, f.s.Acc
+			if r.geo.twoTop {
+				pb = r3.Add(pb, f.top[i])
+				vb = r3.Add(vb, f.topV[i])
+				a0b = r3.Add(a0b, f.topA[i])
+			}
+		}
+		d := r3.Sub(pa, pb)
+		dd := r3.Sub(va, vb)
+		da := r3.Sub(a0a, a0b)
+		dir := d
 		if c.coord >= 0 {
-			e := unit(c.coord)
-			addPart(&rw.j, &ka, e, 1)
-			addPart(&rw.j, &kb, e, -1)
-			rw.kappa = r3.Dot(e, da)
-			rw.phi, rw.dphi, rw.scale = r3.Dot(e, d), r3.Dot(e, dd), 1
+			dir = unit(c.coord)
+		}
+		// addPart(j, a, dir, 1), then addPart(j, b, dir, -1), from zero.
+		var j0, j1, j2, j3, j4, j5, j6, j7, j8 float64
+		if aBody {
+			cr := r3.Cross(arma, dir)
+			j0 += dir.X
+			j1 += dir.Y
+			j2 += dir.Z
+			j3 += cr.X
+			j4 += cr.Y
+			j5 += cr.Z
+		} else {
+			j6 += dir.X
+			j7 += dir.Y
+			j8 += dir.Z
+		}
+		if bBody {
+			cr := r3.Cross(armb, dir)
+			j0 += -1 * dir.X
+			j1 += -1 * dir.Y
+			j2 += -1 * dir.Z
+			j3 += -1 * cr.X
+			j4 += -1 * cr.Y
+			j5 += -1 * cr.Z
+		}
+		rw.j[0], rw.j[1], rw.j[2], rw.j[3], rw.j[4], rw.j[5], rw.j[6], rw.j[7], rw.j[8] = j0, j1, j2, j3, j4, j5, j6, j7, j8
+		if c.coord >= 0 {
+			rw.kappa = r3.Dot(dir, da)
+			rw.phi, rw.dphi, rw.scale = r3.Dot(dir, d), r3.Dot(dir, dd), 1
 			continue
 		}
 		l, dl, ddl := c.l, 0.0, 0.0
 		if c.rope {
 			l, dl, ddl = f.l+c.extra, f.dl, f.ddl
 		}
-		addPart(&rw.j, &ka, d, 1)
-		addPart(&rw.j, &kb, d, -1)
 		rw.kappa = r3.Dot(d, da) + r3.Dot(dd, dd) - dl*dl - l*ddl
 		rw.phi = 0.5 * (r3.Dot(d, d) - l*l)
 		rw.dphi = r3.Dot(d, dd) - l*dl
 		rw.scale = l * l
 	}
 	return out
+}
+
+// rowOf writes constraint c (number i) at f into rw (zero before): its
+// ends' states by kinInto and their parts of the gradient by addPart, for
+// ends of any kind.
+func (r *Rigid) rowOf(f *frame, c *constraint, i int, rw *row) {
+	var ka, kb kin
+	r.kinInto(f, &c.a, i, &ka)
+	r.kinInto(f, &c.b, i, &kb)
+	d := r3.Sub(ka.p, kb.p)
+	dd := r3.Sub(ka.v, kb.v)
+	da := r3.Sub(ka.a0, kb.a0)
+	if c.coord >= 0 {
+		e := unit(c.coord)
+		addPart(&rw.j, &ka, e, 1)
+		addPart(&rw.j, &kb, e, -1)
+		rw.kappa = r3.Dot(e, da)
+		rw.phi, rw.dphi, rw.scale = r3.Dot(e, d), r3.Dot(e, dd), 1
+		return
+	}
+	l, dl, ddl := c.l, 0.0, 0.0
+	if c.rope {
+		l, dl, ddl = f.l+c.extra, f.dl, f.ddl
+	}
+	addPart(&rw.j, &ka, d, 1)
+	addPart(&rw.j, &kb, d, -1)
+	rw.kappa = r3.Dot(d, da) + r3.Dot(dd, dd) - dl*dl - l*ddl
+	rw.phi = 0.5 * (r3.Dot(d, d) - l*l)
+	rw.dphi = r3.Dot(d, dd) - l*dl
+	rw.scale = l * l
 }
 
 func unit(i int) r3.Vec {

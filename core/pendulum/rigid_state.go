@@ -14,7 +14,7 @@ func (r *Rigid) Project(y []float64) float64 {
 	var buf [3]row
 	var f frame
 	worst := r.projectPositions(y, &f, &buf)
-	r.frameInto(y[0], y, &f)
+	r.stateInto(y, &f) // f's time part is y[0]'s
 	rws := r.rows(&f, buf[:0])
 	var d [9]float64
 	r.correction(rws, true, &d)
@@ -39,7 +39,9 @@ func (r *Rigid) ProjectPositions(y []float64) float64 {
 
 // projectPositions is ProjectPositions in the caller's frame and rows,
 // which Project uses again for the velocities, so that it clears them
-// once (frameInto and rows overwrite what they hold).
+// once (frameInto and rows overwrite what they hold). It leaves in f the
+// time part of the frame at y[0] (the state part is of the last
+// iteration's y).
 func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 	n := math.Sqrt(y[7]*y[7] + y[8]*y[8] + y[9]*y[9] + y[10]*y[10])
 	for i := 7; i < 11; i++ {
@@ -47,7 +49,11 @@ func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 	}
 	worst := 0.0
 	for it := range 3 {
-		r.frameInto(y[0], y, f)
+		if it == 0 {
+			r.frameInto(y[0], y, f)
+		} else {
+			r.stateInto(y, f) // the same time: displace moves the state alone
+		}
 		rws := r.rows(f, buf[:0])
 		big := 0.0
 		for i := range rws {
