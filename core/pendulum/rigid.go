@@ -215,7 +215,7 @@ func (r *Rigid) frameOf(t float64, y []float64) frame {
 
 // frameInto is frameOf written into f. The simulation's evaluations pass
 // the frame, the constraint ends (kinInto, addPart) and the 9-vectors
-// (minv) by pointer: a struct passed or returned by value is copied, and
+// by pointer: a struct passed or returned by value is copied, and
 // Go's wasm copies it through memory one word at a time. Every field is
 // written (the frame is not cleared first: in wasm a clear of its 456
 // bytes is a memory.fill, a call out of the wasm code).
@@ -456,7 +456,11 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 
 // accelInto is accel written into z (wholly) and lam (its first len(rows)
 // entries; the callers pass it zero): the evaluations' way, without the
-// copies of results returned by value.
+// copies of results returned by value. M^-1 (minv) is written out on the
+// inverse inertia's elements as locals, and one constraint (four legs)
+// is solved by one division: minv's and solve3's calls and the arrays
+// they read cost most in wasm. accelByParts (tests) is the same with the
+// calls, held to the same bits by TestAccelAsByParts.
 func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	geo := r.geo
 	var buf [3]row
@@ -477,17 +481,42 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 		tq = r3.Add(tq, r3.Cross(armL, fl))
 	}
 	fp := r3.Scale(geo.mh, g)
-	var fg [9]float64
-	fg[0], fg[1], fg[2], fg[3], fg[4], fg[5], fg[6], fg[7], fg[8] = fx.X, fx.Y, fx.Z, tq.X, tq.Y, tq.Z, fp.X, fp.Y, fp.Z
+	// minv's sums: (1/m) v, iwInv v by rows, v / m_h.
+	im, mh := 1/geo.m, geo.mh
+	k00, k01, k02 := iwInv[0][0], iwInv[0][1], iwInv[0][2]
+	k10, k11, k12 := iwInv[1][0], iwInv[1][1], iwInv[1][2]
+	k20, k21, k22 := iwInv[2][0], iwInv[2][1], iwInv[2][2]
 	mf := z // M^-1 fg, to which the constraints' parts are added below
-	geo.minv(&iwInv, &fg, mf)
+	mf[0], mf[1], mf[2] = im*fx.X, im*fx.Y, im*fx.Z
+	mf[3] = k00*tq.X + k01*tq.Y + k02*tq.Z
+	mf[4] = k10*tq.X + k11*tq.Y + k12*tq.Z
+	mf[5] = k20*tq.X + k21*tq.Y + k22*tq.Z
+	mf[6], mf[7], mf[8] = 0, 0, 0
+	if mh > 0 {
+		mf[6], mf[7], mf[8] = fp.X/mh, fp.Y/mh, fp.Z/mh
+	}
 	n := len(rws)
-	var a [3][3]float64
-	var b [3]float64
 	var mj [3][9]float64
 	for i := range n {
-		geo.minv(&iwInv, &rws[i].j, &mj[i])
+		v, o := &rws[i].j, &mj[i]
+		o[0], o[1], o[2] = im*v[0], im*v[1], im*v[2]
+		o[3] = k00*v[3] + k01*v[4] + k02*v[5]
+		o[4] = k10*v[3] + k11*v[4] + k12*v[5]
+		o[5] = k20*v[3] + k21*v[4] + k22*v[5]
+		if mh > 0 {
+			o[6], o[7], o[8] = v[6]/mh, v[7]/mh, v[8]/mh
+		}
 	}
+	if n == 1 {
+		// solve3 for n = 1.
+		lam[0] = (-rws[0].kappa - dot9(&rws[0].j, mf)) / dot9(&rws[0].j, &mj[0])
+		for k := range 9 {
+			z[k] += lam[0] * mj[0][k]
+		}
+		return
+	}
+	var a [3][3]float64
+	var b [3]float64
 	for i := range n {
 		for k := range n {
 			a[i][k] = dot9(&rws[i].j, &mj[k])
@@ -499,20 +528,6 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 		for k := range 9 {
 			z[k] += lam[i] * mj[i][k]
 		}
-	}
-}
-
-// minv writes M^-1 v into o: the generalized mass matrix's inverse
-// applied to a generalized vector, iwInv the inverse inertia in the
-// ground frame.
-func (geo *rigidGeometry) minv(iwInv *m3, v, o *[9]float64) {
-	a := r3.Scale(1/geo.m, r3.Vec{X: v[0], Y: v[1], Z: v[2]})
-	b := iwInv.mul(r3.Vec{X: v[3], Y: v[4], Z: v[5]})
-	o[0], o[1], o[2], o[3], o[4], o[5] = a.X, a.Y, a.Z, b.X, b.Y, b.Z
-	if geo.mh > 0 {
-		o[6], o[7], o[8] = v[6]/geo.mh, v[7]/geo.mh, v[8]/geo.mh
-	} else {
-		o[6], o[7], o[8] = 0, 0, 0
 	}
 }
 

@@ -7,10 +7,9 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
-// rows (the ends written out) and rowOf (kinInto and addPart) give the
-// same bits, for every arrangement, off the constraints and moving: the
+// movingArrangements are the girder in every arrangement, moving: the
 // suspension point accelerating, the rope paying out, the crane slewing.
-func TestRowsAsRowOf(t *testing.T) {
+func movingArrangements() map[string]*Rigid {
 	moving := func(r *Rigid) *Rigid {
 		r.HookMass = 300
 		r.Suspension = func(t float64) Kinematics {
@@ -35,14 +34,25 @@ func TestRowsAsRowOf(t *testing.T) {
 	cases["spreader"] = moving(spread)
 	tandem := tandemGirder(5, [2]float64{0.3, -0.2})
 	cases["tandem"] = moving(tandem)
-	for name, r := range cases {
+	return cases
+}
+
+// offRest is r's rest state moved off the rest and off the constraints:
+// every term of the rows in play, none of them zero by symmetry.
+func offRest(r *Rigid) []float64 {
+	y := r.Rest(0)
+	for i := 1; i < len(y); i++ {
+		y[i] += 0.01 * math.Sin(float64(3*i+1))
+	}
+	return y
+}
+
+// rows (the ends written out) and rowOf (kinInto and addPart) give the
+// same bits, for every arrangement, off the constraints and moving.
+func TestRowsAsRowOf(t *testing.T) {
+	for name, r := range movingArrangements() {
 		mustPrepare(t, r)
-		y := r.Rest(0)
-		// Off the rest and off the constraints: every term of the rows
-		// in play, none of them zero by symmetry.
-		for i := 1; i < len(y); i++ {
-			y[i] += 0.01 * math.Sin(float64(3*i+1))
-		}
+		y := offRest(r)
 		for _, tm := range []float64{0.7, 2.3} {
 			f := r.frameOf(tm, y)
 			var buf [3]row
