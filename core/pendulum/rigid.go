@@ -326,16 +326,31 @@ func addPart(j *[9]float64, k *kin, dir r3.Vec, s float64) {
 // in wasm; the other kinds of ends take rowOf. TestRowsAsRowOf holds the
 // two to the same bits.
 func (r *Rigid) rows(f *frame, out []row) []row {
-	out = out[:0]
-	for i := range r.geo.cons {
-		c := &r.geo.cons[i]
-		out = append(out, row{}) // the row written in place, not copied in
-		rw := &out[len(out)-1]
+	n := len(r.geo.cons)
+	if cap(out) < n {
+		out = make([]row, n)
+	}
+	out = out[:n]
+	if r.geo.plainEnds {
+		plainRows(f, r.geo.cons, r.geo.twoTop, out)
+		return out
+	}
+	for i := range out {
+		out[i] = row{}
+		r.rowOf(f, &r.geo.cons[i], i, &out[i])
+	}
+	return out
+}
+
+// plainRows is rows for constraints whose ends are all of the kinds it
+// writes out (rigidGeometry.plainEnds), into out (as long as cons): every
+// field of each row. It calls nothing.
+func plainRows(f *frame, cons []constraint, twoTop bool, out []row) {
+	out = out[:len(cons)]
+	for i := range cons {
+		c := &cons[i]
+		rw := &out[i]
 		aBody, bBody := c.a.kind == onBody, c.b.kind == onBody
-		if !aBody && c.a.kind != onHook || !bBody && c.b.kind != onTop {
-			r.rowOf(f, c, i, rw)
-			continue
-		}
 		// The ends as kinInto has them: position, velocity, the
 		// acceleration's part without z, and the body arm.
 		var pa, va, a0a, arma r3.Vec
@@ -353,7 +368,7 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 			pb, vb, a0b = r3.Add(f.x, armb), r3.Add(f.v, wr), r3.Cross(f.w, wr)
 		} else {
 			pb, vb, a0b = f.s.Pos, f.s.Vel, f.s.Acc
-			if r.geo.twoTop {
+			if twoTop {
 				pb = r3.Add(pb, f.top[i])
 				vb = r3.Add(vb, f.topV[i])
 				a0b = r3.Add(a0b, f.topA[i])
@@ -405,7 +420,6 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 		rw.dphi = r3.Dot(d, dd) - l*dl
 		rw.scale = l * l
 	}
-	return out
 }
 
 // rowOf writes constraint c (number i) at f into rw (zero before): its

@@ -21,7 +21,10 @@ type rigidGeometry struct {
 	hook       r3.Vec  // the hook from the body's centre of mass (single hook)
 	attach     []r3.Vec
 	cons       []constraint
-	rest       quat // orientation hanging still
+	// plainEnds: every constraint's end a is on the body or the hook and
+	// its end b at a top point or on the body (plainRows).
+	plainEnds bool
+	rest      quat // orientation hanging still
 	// Four legs: the stiffness sharing, T_i = share_i . Fs.
 	share [4]r3.Vec
 	// restCorner are the corners' horizontal offsets from the suspension
@@ -110,6 +113,12 @@ func (r *Rigid) Prepare() error {
 		}
 		for c := range 3 {
 			geo.cons = append(geo.cons, constraint{a: end{kind: onBody, b: geo.hook}, b: end{kind: onTop}, coord: c})
+		}
+	}
+	geo.plainEnds = true
+	for _, c := range geo.cons {
+		if c.a.kind != onBody && c.a.kind != onHook || c.b.kind != onTop && c.b.kind != onBody {
+			geo.plainEnds = false
 		}
 	}
 	inv, ok := geo.ib.inverse()
