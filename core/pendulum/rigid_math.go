@@ -151,16 +151,40 @@ func dot9(a, b *[9]float64) float64 {
 
 // solve3 solves the leading n by n block of a x = b by Gaussian
 // elimination with partial pivoting (n <= 3), into x (its first n). The
-// elimination works on a and b in place: they are the caller's scratch.
+// elimination works on a and b in place (for n = 3, eliminate): they are
+// the caller's scratch.
 // By pointer, and rows swapped element by element: in wasm a copy of an
 // array is a memory.copy.
 func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
-	if n == 1 {
+	switch n {
+	case 1:
 		// One constraint (four legs on one rope): what the elimination
 		// below comes to for n = 1, without its row swaps and loops.
 		x[0] = b[0] / a[0][0]
 		return
+	case 2:
+		// Two (parallel legs, two hook ropes): the same operations on
+		// local variables (the elimination's update of a[1][0] is never
+		// read); a and b are left as they were.
+		a00, a01, a10, a11, b0, b1 := a[0][0], a[0][1], a[1][0], a[1][1], b[0], b[1]
+		if math.Abs(a10) > math.Abs(a00) {
+			a00, a01, a10, a11, b0, b1 = a10, a11, a00, a01, b1, b0
+		}
+		m := a10 / a00
+		a11 -= m * a01
+		b1 -= m * b0
+		x1 := b1 / a11
+		x[0], x[1] = (b0-a01*x1)/a00, x1
+		return
 	}
+	eliminate(a, b, n, x)
+}
+
+// eliminate is solve3's general form, for any n <= 3: Gaussian
+// elimination with partial pivoting in place on a and b, then back
+// substitution. TestSolve3AsEliminate holds solve3's cases for one and
+// two constraints to it bit for bit.
+func eliminate(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 	for c := range n {
 		p := c
 		for i := c + 1; i < n; i++ {
