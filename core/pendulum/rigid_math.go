@@ -150,16 +150,16 @@ func dot9(a, b *[9]float64) float64 {
 }
 
 // solve3 solves the leading n by n block of a x = b by Gaussian
-// elimination with partial pivoting (n <= 3), into x (its first n). The
-// elimination works on a and b in place (for n = 3, eliminate): they are
-// the caller's scratch.
-// By pointer, and rows swapped element by element: in wasm a copy of an
-// array is a memory.copy.
+// elimination with partial pivoting (n <= 3), into x (its first n):
+// eliminate's operations, for each n written out on local variables (in
+// wasm the arrays' elements are loads and stores, each index checked).
+// a and b are left as they were. By pointer: in wasm a copy of an array
+// is a memory.copy.
 func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 	switch n {
 	case 1:
 		// One constraint (four legs on one rope): what the elimination
-		// below comes to for n = 1, without its row swaps and loops.
+		// comes to for n = 1, without its row swaps and loops.
 		x[0] = b[0] / a[0][0]
 		return
 	case 2:
@@ -176,14 +176,49 @@ func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 		x1 := b1 / a11
 		x[0], x[1] = (b0-a01*x1)/a00, x1
 		return
+	case 3:
+		// Three (two legs and the hook block): likewise; the updates of
+		// the eliminated column are never read, and the rows' swaps
+		// swap what is read after them.
+		a00, a01, a02 := a[0][0], a[0][1], a[0][2]
+		a10, a11, a12 := a[1][0], a[1][1], a[1][2]
+		a20, a21, a22 := a[2][0], a[2][1], a[2][2]
+		b0, b1, b2 := b[0], b[1], b[2]
+		if math.Abs(a10) > math.Abs(a00) {
+			if math.Abs(a20) > math.Abs(a10) {
+				a00, a01, a02, b0, a20, a21, a22, b2 = a20, a21, a22, b2, a00, a01, a02, b0
+			} else {
+				a00, a01, a02, b0, a10, a11, a12, b1 = a10, a11, a12, b1, a00, a01, a02, b0
+			}
+		} else if math.Abs(a20) > math.Abs(a00) {
+			a00, a01, a02, b0, a20, a21, a22, b2 = a20, a21, a22, b2, a00, a01, a02, b0
+		}
+		m1 := a10 / a00
+		a11 -= m1 * a01
+		a12 -= m1 * a02
+		b1 -= m1 * b0
+		m2 := a20 / a00
+		a21 -= m2 * a01
+		a22 -= m2 * a02
+		b2 -= m2 * b0
+		if math.Abs(a21) > math.Abs(a11) {
+			a11, a12, b1, a21, a22, b2 = a21, a22, b2, a11, a12, b1
+		}
+		m := a21 / a11
+		a22 -= m * a12
+		b2 -= m * b1
+		x2 := b2 / a22
+		x1 := (b1 - a12*x2) / a11
+		x[0], x[1], x[2] = (b0-a01*x1-a02*x2)/a00, x1, x2
+		return
 	}
 	eliminate(a, b, n, x)
 }
 
 // eliminate is solve3's general form, for any n <= 3: Gaussian
-// elimination with partial pivoting in place on a and b, then back
-// substitution. TestSolve3AsEliminate holds solve3's cases for one and
-// two constraints to it bit for bit.
+// elimination with partial pivoting in place on a and b (rows swapped
+// element by element), then back substitution. TestSolve3AsEliminate
+// holds solve3's written-out cases to it bit for bit.
 func eliminate(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 	for c := range n {
 		p := c
