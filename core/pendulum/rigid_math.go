@@ -247,3 +247,98 @@ func eliminate(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 		x[i] = s / a[i][i]
 	}
 }
+
+// hypot is math.Hypot(p, q): the same operations and special cases (+Inf
+// if either is infinite, else NaN if either is NaN, 0 for two zeros),
+// written with comparisons; a NaN it returns may differ in its payload.
+// In wasm math.Hypot is Go code, a call, where amd64 has it in assembly.
+func hypot(p, q float64) float64 {
+	if p < 0 {
+		p = -p
+	}
+	if q < 0 {
+		q = -q
+	}
+	if p < q {
+		p, q = q, p
+	}
+	if p > math.MaxFloat64 || q > math.MaxFloat64 {
+		return math.Inf(1)
+	}
+	if p == 0 {
+		return q * q // +0, or NaN
+	}
+	q = q / p
+	return p * math.Sqrt(1+q*q)
+}
+
+// norm is r3.Norm(v), hypot(v.X, hypot(v.Y, v.Z)), in one call: in wasm
+// r3.Norm is three.
+func norm(v r3.Vec) float64 {
+	// hypot(v.Y, v.Z)
+	p, q := v.Y, v.Z
+	if p < 0 {
+		p = -p
+	}
+	if q < 0 {
+		q = -q
+	}
+	if p < q {
+		p, q = q, p
+	}
+	var yz float64
+	switch {
+	case p > math.MaxFloat64 || q > math.MaxFloat64:
+		yz = math.Inf(1)
+	case p == 0:
+		yz = q * q
+	default:
+		q = q / p
+		yz = p * math.Sqrt(1+q*q)
+	}
+	// hypot(v.X, yz); yz is not negative.
+	p, q = v.X, yz
+	if p < 0 {
+		p = -p
+	}
+	if p < q {
+		p, q = q, p
+	}
+	if p > math.MaxFloat64 || q > math.MaxFloat64 {
+		return math.Inf(1)
+	}
+	if p == 0 {
+		return q * q
+	}
+	q = q / p
+	return p * math.Sqrt(1+q*q)
+}
+
+// maxOf is math.Max(x, y): +Inf if either is, else NaN if either is
+// NaN, +0 for +0 and -0, else the larger. Go inlines it (cost 78); in
+// wasm math.Max is a call (amd64 has it in assembly), and the built-in
+// max calls the runtime.
+func maxOf(x, y float64) float64 {
+	switch {
+	case x > y:
+		return x
+	case y > x:
+		return y
+	case x == y:
+		if math.Signbit(x) {
+			return y
+		}
+		return x
+	case x > math.MaxFloat64 || y > math.MaxFloat64:
+		return math.Inf(1)
+	}
+	return math.NaN()
+}
+
+// unitOf is r3.Unit(v) with norm: v scaled to length 1, NaN for zero.
+func unitOf(v r3.Vec) r3.Vec {
+	if v.X == 0 && v.Y == 0 && v.Z == 0 {
+		return r3.Vec{X: math.NaN(), Y: math.NaN(), Z: math.NaN()}
+	}
+	return r3.Scale(1/norm(v), v)
+}

@@ -3,6 +3,8 @@ package pendulum
 import (
 	"math"
 	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
 )
 
 // solve3's written-out cases for one, two and three constraints give
@@ -19,6 +21,36 @@ func TestSolve3AsEliminate(t *testing.T) {
 			eliminate(&a2, &b2, n, &want)
 			if got != want {
 				t.Errorf("seed %d, n = %d: solve3 %v, eliminate %v", seed, n, got, want)
+			}
+		}
+	}
+}
+
+// hypot, norm, unitOf and maxOf give math.Hypot's, r3.Norm's, r3.Unit's
+// and math.Max's bits (NaN for NaN) on every pairing of special and
+// ordinary values.
+func TestHypotNormMaxAsMath(t *testing.T) {
+	vals := []float64{0, math.Copysign(0, -1), 1, -1, 3, -4, 1e-310, -2.5e-308, 1e300, -1e300,
+		math.MaxFloat64, math.Inf(1), math.Inf(-1), math.NaN(), 0.1, -7.25}
+	same := func(a, b float64) bool {
+		return math.Float64bits(a) == math.Float64bits(b) || math.IsNaN(a) && math.IsNaN(b)
+	}
+	for _, x := range vals {
+		for _, y := range vals {
+			if got, want := hypot(x, y), math.Hypot(x, y); !same(got, want) {
+				t.Errorf("hypot(%g, %g) = %g, math.Hypot %g", x, y, got, want)
+			}
+			if got, want := maxOf(x, y), math.Max(x, y); !same(got, want) {
+				t.Errorf("maxOf(%g, %g) = %g, math.Max %g", x, y, got, want)
+			}
+			for _, z := range vals {
+				v := r3.Vec{X: x, Y: y, Z: z}
+				if got, want := norm(v), r3.Norm(v); !same(got, want) {
+					t.Errorf("norm(%v) = %g, r3.Norm %g", v, got, want)
+				}
+				if got, want := unitOf(v), r3.Unit(v); !same(got.X, want.X) || !same(got.Y, want.Y) || !same(got.Z, want.Z) {
+					t.Errorf("unitOf(%v) = %v, r3.Unit %v", v, got, want)
+				}
 			}
 		}
 	}

@@ -57,7 +57,7 @@ func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 		rws := r.rows(f, buf[:0])
 		big := 0.0
 		for i := range rws {
-			big = math.Max(big, math.Abs(rws[i].phi)/rws[i].scale)
+			big = maxOf(big, math.Abs(rws[i].phi)/rws[i].scale)
 		}
 		if it == 0 {
 			worst = big
@@ -110,7 +110,7 @@ func (r *Rigid) displace(y []float64, d *[9]float64) {
 		}
 	}
 	th := r3.Vec{X: d[3], Y: d[4], Z: d[5]}
-	if a := r3.Norm(th); a > 0 {
+	if a := norm(th); a > 0 {
 		q := mulq(quatAxis(r3.Scale(1/a, th), a), quat{y[7], y[8], y[9], y[10]})
 		y[7], y[8], y[9], y[10] = q[0], q[1], q[2], q[3]
 	}
@@ -166,10 +166,10 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 		rc := restCorner[i]
 		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
 		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
-		bp.CornerSwing2 = math.Max(bp.CornerSwing2, dx*dx+dy*dy)
+		bp.CornerSwing2 = maxOf(bp.CornerSwing2, dx*dx+dy*dy)
 	}
 	ez := f.R.Col(2)
-	bp.TiltRad = math.Atan2(math.Hypot(ez.X, ez.Y), ez.Z)
+	bp.TiltRad = math.Atan2(hypot(ez.X, ez.Y), ez.Z)
 	ex := f.R.Col(0)
 	tw := math.Atan2(ex.Y, ex.X) - restHeading - f.psi
 	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
@@ -195,11 +195,11 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
 			r.kinInto(f, &end{kind: onTop}, i, &top)
 			d := r3.Sub(a.p, top.p)
-			bp.LegsUp[i] = -bp.Legs[i] * d.Z / r3.Norm(d)
+			bp.LegsUp[i] = -bp.Legs[i] * d.Z / norm(d)
 			dir = r3.Add(dir, d)
 			rate = r3.Add(rate, r3.Sub(a.v, top.v))
 		}
-		n := r3.Norm(dir)
+		n := norm(dir)
 		p.Dir = r3.Scale(1/n, dir)
 		p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
 		hook, hookV = f.s.Pos, f.s.Vel
@@ -220,7 +220,7 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		var rope r3.Vec // the rope's (or pivot's) pull on the hook
 		if r.Pivot {
 			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
-			p.Tension = r3.Norm(rope)
+			p.Tension = norm(rope)
 		} else {
 			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
 			p.Tension = -lam[0] * f.l
@@ -240,14 +240,14 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		if r.Pivot {
 			d = r3.Sub(load, f.s.Pos)
 		}
-		n := r3.Norm(d)
+		n := norm(d)
 		p.Dir = r3.Scale(1/n, d)
 		rel := r3.Sub(hookV, f.s.Vel)
 		p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
-		p.RiggingTension = r3.Norm(pull)
+		p.RiggingTension = norm(pull)
 	}
 	p.HookPos = hook
-	p.RiggingDir = r3.Unit(r3.Sub(load, hook))
+	p.RiggingDir = unitOf(r3.Sub(load, hook))
 	for i := range bp.NLegs {
 		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
 		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
