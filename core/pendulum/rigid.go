@@ -510,6 +510,9 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 		mf[6], mf[7], mf[8] = fp.X/mh, fp.Y/mh, fp.Z/mh
 	}
 	n := len(rws)
+	if n > 3 {
+		panic("pendulum: more than three constraints") // Prepare makes at most three; the check lets Go drop the loops' index checks
+	}
 	var mj [3][9]float64
 	for i := range n {
 		v, o := &rws[i].j, &mj[i]

@@ -79,6 +79,9 @@ func (r *Rigid) projectPositions(y []float64, f *frame, buf *[3]row) float64 {
 // value phi, or its rate dphi when rates is set.
 func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	n := len(rws)
+	if n > 3 {
+		panic("pendulum: more than three constraints") // Prepare makes at most three; the check lets Go drop the loops' index checks
+	}
 	var a [3][3]float64
 	var b [3]float64
 	for i := range n {
