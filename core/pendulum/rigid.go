@@ -263,6 +263,12 @@ func (r *Rigid) stateInto(y []float64, f *frame) {
 	}
 }
 
+// topPoint is the position and velocity of parallel leg i's top point
+// (twoTop), as kinInto has them.
+func (f *frame) topPoint(i int) (p, v r3.Vec) {
+	return r3.Add(f.s.Pos, f.top[i]), r3.Add(f.s.Vel, f.topV[i])
+}
+
 // kinOf is the state of a constraint end.
 func (r *Rigid) kinOf(f *frame, e end, leg int) (k kin) {
 	r.kinInto(f, &e, leg, &k)

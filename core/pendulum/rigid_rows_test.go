@@ -70,3 +70,64 @@ func TestRowsAsRowOf(t *testing.T) {
 		}
 	}
 }
+
+// Eval's hook and legs' ends (written out in evalForces) are kinInto's,
+// bit for bit, for every arrangement, moving; with one hook on the body,
+// so are the rope's rate and the rigging's pull that come from the hook's
+// velocity and acceleration.
+func TestEvalEndsAsKin(t *testing.T) {
+	for name, r := range movingArrangements() {
+		mustPrepare(t, r)
+		y := offRest(r)
+		for _, tm := range []float64{0.7, 2.3} {
+			var p Point
+			r.Eval(tm, y, &p)
+			f := r.frameOf(tm, y)
+			geo := r.geo
+			var hook r3.Vec
+			switch {
+			case geo.twoTop:
+				hook = f.s.Pos
+			case geo.hookPoint:
+				hook = f.P
+			default:
+				hook = r.kinOf(&f, end{kind: onBody, b: geo.hook}, 0).p
+			}
+			if p.HookPos != hook {
+				t.Errorf("%s, t = %g s: hook %v, kinInto %v", name, tm, p.HookPos, hook)
+			}
+			for i := range p.Body.NLegs {
+				top, foot := hook, r.kinOf(&f, end{kind: onBody, b: geo.attach[i]}, i).p
+				if geo.twoTop {
+					top = r.kinOf(&f, end{kind: onTop}, i).p
+				}
+				if p.Body.LegTop[i] != top || p.Body.LegEnd[i] != foot {
+					t.Errorf("%s, t = %g s, leg %d: ends %v %v, kinInto %v %v", name, tm, i, p.Body.LegTop[i], p.Body.LegEnd[i], top, foot)
+				}
+			}
+			if geo.twoTop || geo.hookPoint {
+				continue
+			}
+			// One hook on the body: the rope's rate from the hook's
+			// velocity, the rigging's pull from its acceleration.
+			k := r.kinOf(&f, end{kind: onBody, b: geo.hook}, 0)
+			d := r3.Sub(k.p, f.s.Pos)
+			if r.Pivot {
+				d = r3.Sub(p.LoadPos, f.s.Pos)
+			}
+			dir := r3.Scale(1/r3.Norm(d), d)
+			rel := r3.Sub(k.v, f.s.Vel)
+			rate := r3.Scale(1/r3.Norm(d), r3.Sub(rel, r3.Scale(r3.Dot(rel, dir), dir)))
+			z, lam := r.accel(&f)
+			rope := r3.Scale(lam[0], r3.Sub(k.p, f.s.Pos))
+			if r.Pivot {
+				rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
+			}
+			aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
+			pull := r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
+			if p.Rate != rate || p.RiggingTension != r3.Norm(pull) {
+				t.Errorf("%s, t = %g s: rate %v, rigging %v; from kinInto %v, %v", name, tm, p.Rate, p.RiggingTension, rate, r3.Norm(pull))
+			}
+		}
+	}
+}

@@ -180,7 +180,8 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 
 // evalForces is the part of Eval that needs the accelerations z and the
 // constraints' multipliers lam (accel): the tensions, the rope's
-// direction and rate, the hook and the legs' ends.
+// direction and rate, the hook and the legs' ends. The hook's and the
+// legs' ends are kinInto's sums, written out without its kin and calls.
 func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	geo, bp := r.geo, p.Body
 	var z [9]float64
@@ -194,13 +195,13 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		for i := range 2 {
 			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
 			p.Tension += bp.Legs[i]
-			var a, top kin
-			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-			r.kinInto(f, &end{kind: onTop}, i, &top)
-			d := r3.Sub(a.p, top.p)
+			arm := f.R.mul(geo.attach[i])
+			ap, av := r3.Add(f.x, arm), r3.Add(f.v, r3.Cross(f.w, arm))
+			tp, tv := f.topPoint(i)
+			d := r3.Sub(ap, tp)
 			bp.LegsUp[i] = -bp.Legs[i] * d.Z / norm(d)
 			dir = r3.Add(dir, d)
-			rate = r3.Add(rate, r3.Sub(a.v, top.v))
+			rate = r3.Add(rate, r3.Sub(av, tv))
 		}
 		n := norm(dir)
 		p.Dir = r3.Scale(1/n, dir)
@@ -212,14 +213,13 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		bp.NLegs = 2
 		for i := range 2 {
 			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
-			var a kin
-			r.kinInto(f, &end{kind: onBody, b: geo.attach[i]}, i, &a)
-			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(a.p, hook)))
+			ap := r3.Add(f.x, f.R.mul(geo.attach[i]))
+			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(ap, hook)))
 		}
 	default:
-		var k kin
-		r.kinInto(f, &end{kind: onBody, b: geo.hook}, 0, &k)
-		hook, hookV = k.p, k.v
+		arm := f.R.mul(geo.hook)
+		wr := r3.Cross(f.w, arm)
+		hook, hookV = r3.Add(f.x, arm), r3.Add(f.v, wr)
 		var rope r3.Vec // the rope's (or pivot's) pull on the hook
 		if r.Pivot {
 			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
@@ -228,7 +228,7 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
 			p.Tension = -lam[0] * f.l
 		}
-		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
+		aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, arm)), r3.Cross(f.w, wr))
 		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
 		Rt := f.R.transpose()
 		pb := Rt.mul(pull)
@@ -254,7 +254,7 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	for i := range bp.NLegs {
 		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
 		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
-			bp.LegTop[i] = r.kinOf(f, end{kind: onTop}, i).p
+			bp.LegTop[i], _ = f.topPoint(i)
 		}
 	}
 }
