@@ -379,7 +379,7 @@ func (s *recorder) record(p *pendulum.Point) {
 		h.HookRelZM = append(h.HookRelZM, hk.Z)
 	}
 	if s.bodyHist != nil {
-		s.bodyHist.add(p)
+		s.bodyHist.add(p, s.samples)
 	}
 	s.next++
 }
