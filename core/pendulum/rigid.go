@@ -252,11 +252,13 @@ func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
 // rope, the slew) as it is: Project's frames after the first, at the same
 // time y[0], take it from there without asking the motions again.
 func (r *Rigid) stateInto(y []float64, f *frame) {
+	_ = y[RigidLen-1] // one length check for the reads below
 	f.x = vec(y[1:])
 	f.v = vec(y[4:])
 	rotInto(y[7:11], &f.R)
 	f.w = vec(y[11:])
 	if r.geo.hookPoint {
+		_ = y[RigidHookLen-1]
 		f.P, f.Pv, f.hookPresent = vec(y[14:]), vec(y[17:]), true
 	} else {
 		f.P, f.Pv, f.hookPresent = r3.Vec{}, r3.Vec{}, false

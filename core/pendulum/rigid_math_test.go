@@ -55,3 +55,17 @@ func TestHypotNormMaxAsMath(t *testing.T) {
 		}
 	}
 }
+
+// twistRemainder gives math.Remainder(tw, 2 pi)'s bits, at and around
+// the ends of its shortcut and far from them.
+func TestTwistRemainderAsMath(t *testing.T) {
+	pi := math.Pi
+	vals := []float64{0, math.Copysign(0, -1), 1e-300, 0.3, -2.9, pi, -pi, math.Nextafter(pi, 4), math.Nextafter(-pi, -4),
+		math.Nextafter(pi, 0), 3 * pi, -3 * pi, 2 * pi, 5.5, -7.1, 1e6, math.Inf(1), math.NaN()}
+	for _, tw := range vals {
+		got, want := twistRemainder(tw), math.Remainder(tw, 2*pi)
+		if math.Float64bits(got) != math.Float64bits(want) && !(math.IsNaN(got) && math.IsNaN(want)) {
+			t.Errorf("twistRemainder(%g) = %g, math.Remainder %g", tw, got, want)
+		}
+	}
+}

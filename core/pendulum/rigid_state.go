@@ -85,8 +85,11 @@ func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	var a [3][3]float64
 	var b [3]float64
 	for i := range n {
-		for k := range n {
+		// G G^T is symmetric to the bit (the same products, summed in
+		// the same order): each pair's dot product once.
+		for k := i; k < n; k++ {
 			a[i][k] = dot9(&rws[i].j, &rws[k].j)
+			a[k][i] = a[i][k]
 		}
 		if rates {
 			b[i] = -rws[i].dphi
@@ -175,7 +178,7 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	bp.TiltRad = math.Atan2(hypot(ez.X, ez.Y), ez.Z)
 	ex := f.R.Col(0)
 	tw := math.Atan2(ex.Y, ex.X) - restHeading - f.psi
-	bp.TwistRad = math.Remainder(tw, 2*math.Pi)
+	bp.TwistRad = twistRemainder(tw)
 }
 
 // evalForces is the part of Eval that needs the accelerations z and the
@@ -341,4 +344,15 @@ func (r *Rigid) Initial(theta, phi, vx, vy float64) []float64 {
 	}
 	r.Project(y)
 	return y
+}
+
+// twistRemainder is math.Remainder(tw, 2 pi): tw itself when |tw| <= pi
+// (the quotient rounds to zero, a half to even), without the library's
+// reduction (in wasm a chain of calls through Mod and Frexp); the
+// library's otherwise.
+func twistRemainder(tw float64) float64 {
+	if math.Abs(tw) <= math.Pi {
+		return tw
+	}
+	return math.Remainder(tw, 2*math.Pi)
 }
