@@ -267,7 +267,7 @@ func (s *doubleScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		s.v.Dense(max(tt, t0), y[:])
+		s.v.Dense(maxf(tt, t0), y[:])
 		s.d.Project(y[:])
 		s.d.Eval(tt, y[:], &s.pt)
 		s.pt.T = tt
@@ -329,9 +329,9 @@ func hiddenTurn(h, v0, v1, g0, g1 float64) (float64, bool) {
 // ga > 0 to gb < 0, if it may beat the best so far (bounded by the
 // tangents at both ends, with the same again as a margin), and offers it.
 func (s *doubleScan) top(q quantity, ta, va, ga, tb, vb, gb float64, residual bool) {
-	tx := min(max((vb-va+ga*ta-gb*tb)/(ga-gb), ta), tb)
-	top := max(va+ga*(tx-ta), va, vb)
-	bound := top + (top - max(va, vb)) + 1e-12*math.Abs(top)
+	tx := minf(maxf((vb-va+ga*ta-gb*tb)/(ga-gb), ta), tb)
+	top := maxf(maxf(va+ga*(tx-ta), va), vb)
+	bound := top + (top - maxf(va, vb)) + 1e-12*math.Abs(top)
 	e := &s.ext[q]
 	var r *extremum
 	if residual {

@@ -62,3 +62,28 @@ func xatan(x float64) float64 {
 	z = x*z + x
 	return z
 }
+
+// maxf and minf are Go's built-in max and min of two float64s (NaN if
+// either is NaN; max(-0, +0) = +0, min(-0, +0) = -0), which Go's wasm
+// compiles to calls of the runtime's fmax64 and fmin64 (amd64 to
+// instructions); Go inlines these. fastmath_test.go holds them to the
+// built-ins' bits.
+func maxf(x, y float64) float64 {
+	if y != y || y > x {
+		return y
+	}
+	if x != x || x > y || x != 0 || !math.Signbit(x) {
+		return x
+	}
+	return y // x is -0: y, +0 or -0
+}
+
+func minf(x, y float64) float64 {
+	if y != y || y < x {
+		return y
+	}
+	if x != x || x < y || x != 0 || math.Signbit(x) {
+		return x
+	}
+	return y // x is +0: y, +0 or -0
+}

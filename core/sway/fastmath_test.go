@@ -56,3 +56,22 @@ func TestSwingDegrees(t *testing.T) {
 		}
 	}
 }
+
+// maxf and minf give the built-in max's and min's bits on every pairing
+// of special and ordinary values (NaN for NaN).
+func TestMaxfMinfAsBuiltIn(t *testing.T) {
+	vals := []float64{0, math.Copysign(0, -1), 1, -1, 2.5, -1e-310, math.MaxFloat64, math.Inf(1), math.Inf(-1), math.NaN()}
+	same := func(a, b float64) bool {
+		return math.Float64bits(a) == math.Float64bits(b) || math.IsNaN(a) && math.IsNaN(b)
+	}
+	for _, x := range vals {
+		for _, y := range vals {
+			if got, want := maxf(x, y), max(x, y); !same(got, want) {
+				t.Errorf("maxf(%g, %g) = %g, max %g", x, y, got, want)
+			}
+			if got, want := minf(x, y), min(x, y); !same(got, want) {
+				t.Errorf("minf(%g, %g) = %g, min %g", x, y, got, want)
+			}
+		}
+	}
+}
