@@ -103,3 +103,37 @@ func TestPlannerGeometry(t *testing.T) {
 		}
 	}
 }
+
+// An axis without moves is not asked (Suspension, RopeLength): the
+// closures give the general sum's bits, signed zeros included, with the
+// travel on x alone, on y alone, on both, and without hoisting.
+func TestIdleAxesAsGeneral(t *testing.T) {
+	bits := func(v float64) uint64 { return math.Float64bits(v) }
+	move := motion.Sum{motion.NewTrapezoid(0.5, 10, 1, 0.5, 0.3)}
+	hoist, _ := Of("hoist")
+	for _, axes := range [][]string{{"travel_x"}, {"travel_y"}, {"travel_x", "travel_y"}, {}} {
+		var d Drives
+		for _, name := range axes {
+			a, _ := Of(name)
+			*d.Of(a) = move
+		}
+		susp, rope := d.Suspension(Start{}), d.RopeLength(8)
+		x, y, h := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...), motion.Combine(d[hoist.Role]...)
+		for _, tm := range []float64{0, 0.7, 3, 9.9, 12} {
+			k := susp(tm)
+			a, b, hh := x.At(tm), y.At(tm), h.At(tm)
+			got := [9]float64{k.Pos.X, k.Pos.Y, k.Pos.Z, k.Vel.X, k.Vel.Y, k.Vel.Z, k.Acc.X, k.Acc.Y, k.Acc.Z}
+			want := [9]float64{a.Pos, b.Pos, 0, a.Vel, b.Vel, 0, a.Acc, b.Acc, 0}
+			for i := range got {
+				if bits(got[i]) != bits(want[i]) {
+					t.Errorf("axes %v, t = %g s: suspension %v, general %v", axes, tm, got, want)
+					break
+				}
+			}
+			l, dl, ddl := rope(tm)
+			if bits(l) != bits(8-hh.Pos) || bits(dl) != bits(-hh.Vel) || bits(ddl) != bits(-hh.Acc) {
+				t.Errorf("axes %v, t = %g s: rope %v %v %v, general %v %v %v", axes, tm, l, dl, ddl, 8-hh.Pos, -hh.Vel, -hh.Acc)
+			}
+		}
+	}
+}

@@ -39,6 +39,20 @@ func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
 	x, y, turn, reach := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...),
 		motion.Combine(d[Turn]...), motion.Combine(d[Reach]...)
 	if len(d[Turn]) == 0 && len(d[Reach]) == 0 && r0 == 0 {
+		// An axis without moves is at zero (+0, as its Combined gives):
+		// not asked, the evaluation is one call fewer.
+		if len(d[AlongY]) == 0 {
+			return func(t float64) pendulum.Kinematics {
+				a := x.At(t)
+				return pendulum.Kinematics{Pos: r3.Vec{X: a.Pos}, Vel: r3.Vec{X: a.Vel}, Acc: r3.Vec{X: a.Acc}}
+			}
+		}
+		if len(d[AlongX]) == 0 {
+			return func(t float64) pendulum.Kinematics {
+				b := y.At(t)
+				return pendulum.Kinematics{Pos: r3.Vec{Y: b.Pos}, Vel: r3.Vec{Y: b.Vel}, Acc: r3.Vec{Y: b.Acc}}
+			}
+		}
 		return func(t float64) pendulum.Kinematics {
 			a, b := x.At(t), y.At(t)
 			return pendulum.Kinematics{
@@ -68,6 +82,12 @@ func (d *Drives) Suspension(at Start) func(float64) pendulum.Kinematics {
 // start: the hoist shortens it (rope length, its rate, its acceleration).
 func (d *Drives) RopeLength(l0 float64) func(float64) (float64, float64, float64) {
 	hoist := motion.Combine(d[Rope]...)
+	if len(d[Rope]) == 0 {
+		// No hoist: what the closure below gives for a hoist at rest
+		// (the negated zeros are -0), without asking it.
+		negZero := math.Copysign(0, -1)
+		return func(float64) (float64, float64, float64) { return l0, negZero, negZero }
+	}
 	return func(t float64) (float64, float64, float64) {
 		h := hoist.At(t)
 		return l0 - h.Pos, -h.Vel, -h.Acc
