@@ -229,11 +229,12 @@ func (r *Rigid) frameInto(t float64, y []float64, f *frame) {
 	f.psi = 0
 	if r.geo.twoTop {
 		var dpsi, ddpsi float64
+		c, s := r.geo.headCos, r.geo.headSin // of r.Heading + 0, without a slew
 		if r.Yaw != nil {
 			f.psi, dpsi, ddpsi = r.Yaw(t)
+			h := r.Heading + f.psi
+			c, s = math.Cos(h), math.Sin(h)
 		}
-		h := r.Heading + f.psi
-		c, s := math.Cos(h), math.Sin(h)
 		e := r3.Vec{X: c, Y: s}
 		et := r3.Vec{X: -s, Y: c}
 		for i, a := range r.geo.top {

@@ -36,6 +36,9 @@ type rigidGeometry struct {
 	// restOffset is a tandem load's centre of mass from the suspension
 	// point hanging still, horizontal part.
 	restOffset r3.Vec
+	// headCos and headSin are the cosine and sine of Heading + 0: the
+	// parallel legs' direction without a slew (frameInto).
+	headCos, headSin float64
 }
 
 // GeometryError is a hanging arrangement the model cannot take; Leg is
@@ -126,6 +129,8 @@ func (r *Rigid) Prepare() error {
 		return &GeometryError{Leg: -1, Msg: "the load's inertia is singular: give radii of gyration above 0"}
 	}
 	geo.ibInv = inv
+	h := r.Heading + 0 // as frameInto adds a slew of zero
+	geo.headCos, geo.headSin = math.Cos(h), math.Sin(h)
 	r.geo = geo
 	R := rotOf(geo.rest[:])
 	geo.restHeading = math.Atan2(R[1][0], R[0][0])

@@ -131,3 +131,34 @@ func TestEvalEndsAsKin(t *testing.T) {
 		}
 	}
 }
+
+// Without a slew the parallel legs' top points come from the cosine and
+// sine of the heading kept by Prepare: the bits of the sums with the
+// functions asked at every frame, for headings of +0, -0 and 0.4 rad.
+func TestFrameWithoutSlew(t *testing.T) {
+	for _, heading := range []float64{0, math.Copysign(0, -1), 0.4} {
+		for name, r := range movingArrangements() {
+			r.Yaw, r.Heading = nil, heading
+			mustPrepare(t, r)
+			if !r.geo.twoTop {
+				continue
+			}
+			f := r.frameOf(1.3, offRest(r))
+			h := r.Heading + 0.0
+			c, s := math.Cos(h), math.Sin(h)
+			e, et := r3.Vec{X: c, Y: s}, r3.Vec{X: -s, Y: c}
+			for i, a := range r.geo.top {
+				top, topV, topA := r3.Scale(a, e), r3.Scale(a*0, et), r3.Add(r3.Scale(a*0, et), r3.Scale(-a*0*0, e))
+				if !sameBits(f.top[i], top) || !sameBits(f.topV[i], topV) || !sameBits(f.topA[i], topA) {
+					t.Errorf("%s, heading %g: top %d %v %v %v, from the functions %v %v %v", name, heading, i, f.top[i], f.topV[i], f.topA[i], top, topV, topA)
+				}
+			}
+		}
+	}
+}
+
+// sameBits: a and b are the same to the bit (signed zeros told apart).
+func sameBits(a, b r3.Vec) bool {
+	return math.Float64bits(a.X) == math.Float64bits(b.X) && math.Float64bits(a.Y) == math.Float64bits(b.Y) &&
+		math.Float64bits(a.Z) == math.Float64bits(b.Z)
+}

@@ -153,7 +153,10 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	if forces {
 		r.evalForces(f, load, p)
 	}
-	cs, sn := math.Cos(f.psi), math.Sin(f.psi)
+	cs, sn := 1.0, 0.0 // math.Cos(+0) and math.Sin(+0): no slew
+	if math.Float64bits(f.psi) != 0 {
+		cs, sn = math.Cos(f.psi), math.Sin(f.psi)
+	}
 	restCorner, restHeading := &geo.restCorner, geo.restHeading
 	if r.Tandem != nil {
 		// Hanging still at the present rope length.
