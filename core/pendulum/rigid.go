@@ -364,7 +364,8 @@ func plainRows(f *frame, cons []constraint, twoTop bool, out []row) {
 		// acceleration's part without z, and the body arm.
 		var pa, va, a0a, arma r3.Vec
 		if aBody {
-			arma = f.R.mul(c.a.b)
+			b := c.a.b
+			arma = r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 			wr := r3.Cross(f.w, arma)
 			pa, va, a0a = r3.Add(f.x, arma), r3.Add(f.v, wr), r3.Cross(f.w, wr)
 		} else {
@@ -372,7 +373,8 @@ func plainRows(f *frame, cons []constraint, twoTop bool, out []row) {
 		}
 		var pb, vb, a0b, armb r3.Vec
 		if bBody {
-			armb = f.R.mul(c.b.b)
+			b := c.b.b
+			armb = r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 			wr := r3.Cross(f.w, armb)
 			pb, vb, a0b = r3.Add(f.x, armb), r3.Add(f.v, wr), r3.Cross(f.w, wr)
 		} else {
@@ -494,9 +496,11 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	conjugate(&f.R, &geo.ibInv, &iwInv)
 	// Applied generalized force.
 	fx := r3.Scale(geo.m, g)
-	tq := r3.Scale(-1, r3.Cross(f.w, iw.mul(f.w)))
+	iww := r3.Vec{X: rowDot(&iw[0], f.w), Y: rowDot(&iw[1], f.w), Z: rowDot(&iw[2], f.w)} // iw.mul(f.w)
+	tq := r3.Scale(-1, r3.Cross(f.w, iww))
 	if r.Force != nil {
-		armL := f.R.mul(geo.loadC)
+		b := geo.loadC
+		armL := r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 		pos := r3.Add(f.x, armL)
 		vel := r3.Add(f.v, r3.Cross(f.w, armL))
 		fl := r.Force(f.t, pos, vel)

@@ -146,7 +146,8 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	f := &fr
 	bp := &r.bp
 	*bp = BodyPoint{R: f.R, Omega: f.w}
-	armL := f.R.mul(geo.loadC)
+	b := geo.loadC
+	armL := r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 	load := r3.Add(f.x, armL)
 	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
 	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
@@ -171,7 +172,8 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 		bp.Plumb = r3.Vec{X: cs*c.X - sn*c.Y, Y: sn*c.X + cs*c.Y}
 	}
 	for i := range 8 {
-		bp.Corners[i] = r3.Add(f.x, f.R.mul(r3.Add(geo.loadC, r.corner(i))))
+		b := r3.Add(geo.loadC, r.corner(i))
+		bp.Corners[i] = r3.Add(f.x, r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)}) // f.R.mul(b)
 		rc := restCorner[i]
 		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)
 		dy := bp.Corners[i].Y - f.s.Pos.Y - (sn*rc.X + cs*rc.Y)
@@ -201,7 +203,8 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		for i := range 2 {
 			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
 			p.Tension += bp.Legs[i]
-			arm := f.R.mul(geo.attach[i])
+			b := geo.attach[i]
+			arm := r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 			ap, av := r3.Add(f.x, arm), r3.Add(f.v, r3.Cross(f.w, arm))
 			tp, tv := f.topPoint(i)
 			d := r3.Sub(ap, tp)
@@ -219,11 +222,13 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		bp.NLegs = 2
 		for i := range 2 {
 			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
-			ap := r3.Add(f.x, f.R.mul(geo.attach[i]))
+			b := geo.attach[i]
+			ap := r3.Add(f.x, r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)})
 			pull = r3.Add(pull, r3.Scale(bp.Legs[i]/r.Legs[i].Length, r3.Sub(ap, hook)))
 		}
 	default:
-		arm := f.R.mul(geo.hook)
+		b := geo.hook
+		arm := r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 		wr := r3.Cross(f.w, arm)
 		hook, hookV = r3.Add(f.x, arm), r3.Add(f.v, wr)
 		var rope r3.Vec // the rope's (or pivot's) pull on the hook
@@ -258,7 +263,8 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	p.HookPos = hook
 	p.RiggingDir = unitOf(r3.Sub(load, hook))
 	for i := range bp.NLegs {
-		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, f.R.mul(geo.attach[i]))
+		b := geo.attach[i]
+		bp.LegTop[i], bp.LegEnd[i] = hook, r3.Add(f.x, r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)})
 		if geo.twoTop { // parallel legs from a spreader, or two hook ropes: from their top points
 			bp.LegTop[i], _ = f.topPoint(i)
 		}
