@@ -104,6 +104,21 @@ type Rigid struct {
 	geo   *rigidGeometry // set by Prepare
 	bp    BodyPoint      // scratch for Eval
 	tmemo tandemMemo     // the last tandem rest solved
+	sc    rigidScratch   // the evaluations' working memory
+}
+
+// rigidScratch is the working memory of Func, Project and Eval, kept
+// between calls: as local variables the frame (456 bytes), the rows (312)
+// and M^-1 J^T (216) were cleared at every call, each in wasm a
+// memory.fill, a call out of the wasm code. frameInto and rows write
+// every field, and accelInto every element it reads. Those methods do not
+// call one another while they hold it (Eval's evalForces, which calls
+// accelInto, uses the frame and not the rows).
+type rigidScratch struct {
+	_    [0]func() // not comparable: no equality function
+	f    frame
+	rows [3]row
+	mj   [3][9]float64
 }
 
 // Leg is one sling leg: where it attaches on the load (from the load's
@@ -488,8 +503,7 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 // calls, held to the same bits by TestAccelAsByParts.
 func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	geo := r.geo
-	var buf [3]row
-	rws := r.rows(f, buf[:0])
+	rws := r.rows(f, r.sc.rows[:0])
 	g := r3.Vec{Z: -r.g()}
 	var iw, iwInv m3
 	conjugate(&f.R, &geo.ib, &iw)
@@ -526,13 +540,14 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	if n > 3 {
 		panic("pendulum: more than three constraints") // Prepare makes at most three; the check lets Go drop the loops' index checks
 	}
-	var mj [3][9]float64
+	mj := &r.sc.mj
 	for i := range n {
 		v, o := &rws[i].j, &mj[i]
 		o[0], o[1], o[2] = im*v[0], im*v[1], im*v[2]
 		o[3] = k00*v[3] + k01*v[4] + k02*v[5]
 		o[4] = k10*v[3] + k11*v[4] + k12*v[5]
 		o[5] = k20*v[3] + k21*v[4] + k22*v[5]
+		o[6], o[7], o[8] = 0, 0, 0
 		if mh > 0 {
 			o[6], o[7], o[8] = v[6]/mh, v[7]/mh, v[8]/mh
 		}
@@ -563,11 +578,11 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 
 // Func implements System.
 func (r *Rigid) Func(t float64, y, dy []float64) {
-	var f frame
-	r.frameInto(t, y, &f)
+	f := &r.sc.f
+	r.frameInto(t, y, f)
 	var z [9]float64
 	var lam [3]float64
-	r.accelInto(&f, &z, &lam)
+	r.accelInto(f, &z, &lam)
 	dy[0] = 1
 	dy[1], dy[2], dy[3] = y[4], y[5], y[6] // copy would call memmove in wasm
 	dy[4], dy[5], dy[6] = z[0], z[1], z[2]

@@ -11,11 +11,10 @@ import (
 // it removes drift at the integrator's error level). It returns the
 // largest relative length error it removed.
 func (r *Rigid) Project(y []float64) float64 {
-	var buf [3]row
-	var f frame
-	worst := r.projectPositions(y, &f, &buf)
-	r.stateInto(y, &f) // f's time part is y[0]'s
-	rws := r.rows(&f, buf[:0])
+	f, buf := &r.sc.f, &r.sc.rows
+	worst := r.projectPositions(y, f, buf)
+	r.stateInto(y, f) // f's time part is y[0]'s
+	rws := r.rows(f, buf[:0])
 	var d [9]float64
 	r.correction(rws, true, &d)
 	for i := range 3 {
@@ -32,9 +31,7 @@ func (r *Rigid) Project(y []float64) float64 {
 // positions back onto the constraints; the velocities are left as they
 // are. It returns the largest relative length error it removed.
 func (r *Rigid) ProjectPositions(y []float64) float64 {
-	var buf [3]row
-	var f frame
-	return r.projectPositions(y, &f, &buf)
+	return r.projectPositions(y, &r.sc.f, &r.sc.rows)
 }
 
 // projectPositions is ProjectPositions in the caller's frame and rows,
@@ -141,16 +138,23 @@ func (r *Rigid) EvalPositions(t float64, y []float64, p *Point) { r.eval(t, y, p
 // only when forces is set.
 func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	geo := r.geo
-	var fr frame
-	r.frameInto(t, y, &fr)
-	f := &fr
+	f := &r.sc.f
+	r.frameInto(t, y, f)
+	// The body point and the point field by field (the corners, tilt and
+	// twist below): a composite literal through a pointer is built aside
+	// and copied, in wasm a memory.fill and a memory.copy of 584 and 256
+	// bytes, each a call out of the wasm code.
 	bp := &r.bp
-	*bp = BodyPoint{R: f.R, Omega: f.w}
+	bp.R, bp.Omega = f.R, f.w
+	bp.Legs, bp.LegsUp, bp.NLegs, bp.CornerSwing2 = [4]float64{}, [2]float64{}, 0, 0
+	bp.LegTop, bp.LegEnd, bp.Plumb = [4]r3.Vec{}, [4]r3.Vec{}, r3.Vec{}
 	b := geo.loadC
 	armL := r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)} // f.R.mul(b)
 	load := r3.Add(f.x, armL)
 	loadV := r3.Add(f.v, r3.Cross(f.w, armL))
-	*p = Point{T: t, Rope: f.l, Suspension: f.s, LoadPos: load, LoadVel: loadV, Body: bp}
+	p.T, p.Rope, p.Suspension, p.LoadPos, p.LoadVel, p.Body = t, f.l, f.s, load, loadV, bp
+	p.Dir, p.Rate, p.Tension = r3.Vec{}, r3.Vec{}, 0
+	p.HookPos, p.RiggingDir, p.RiggingTension = r3.Vec{}, r3.Vec{}, 0
 	if forces {
 		r.evalForces(f, load, p)
 	}
