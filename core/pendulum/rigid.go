@@ -343,12 +343,13 @@ func addPart(j *[9]float64, k *kin, dir r3.Vec, s float64) {
 	}
 }
 
-// rows evaluates every constraint at f: rowOf's sums, for the kinds of
-// ends the arrangements have (end a on the body or the hook, end b at a
-// top point or on the body), written out on local variables. rowOf's kin
-// lives in memory and its kinInto and addPart are calls, which cost most
-// in wasm; the other kinds of ends take rowOf. TestRowsAsRowOf holds the
-// two to the same bits.
+// rows evaluates every constraint at f into out (made anew when its
+// capacity is short): by plainRows when every end is of the kinds the
+// arrangements have (end a on the body or the hook, end b at a top point
+// or on the body: rigidGeometry.plainEnds), rowOf's sums written out on
+// local variables; else by rowOf, row by row. rowOf's kin lives in memory
+// and its kinInto and addPart are calls, which cost most in wasm.
+// TestRowsAsRowOf holds the two to the same bits.
 func (r *Rigid) rows(f *frame, out []row) []row {
 	n := len(r.geo.cons)
 	if cap(out) < n {
