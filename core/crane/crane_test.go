@@ -110,7 +110,6 @@ func TestPlannerGeometry(t *testing.T) {
 func TestIdleAxesAsGeneral(t *testing.T) {
 	bits := func(v float64) uint64 { return math.Float64bits(v) }
 	move := motion.Sum{motion.NewTrapezoid(0.5, 10, 1, 0.5, 0.3)}
-	hoist, _ := Of("hoist")
 	for _, axes := range [][]string{{"travel_x"}, {"travel_y"}, {"travel_x", "travel_y"}, {}} {
 		var d Drives
 		for _, name := range axes {
@@ -118,7 +117,7 @@ func TestIdleAxesAsGeneral(t *testing.T) {
 			*d.Of(a) = move
 		}
 		susp, rope := d.Suspension(Start{}), d.RopeLength(8)
-		x, y, h := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...), motion.Combine(d[hoist.Role]...)
+		x, y, h := motion.Combine(d[AlongX]...), motion.Combine(d[AlongY]...), motion.Combine(d[Rope]...)
 		for _, tm := range []float64{0, 0.7, 3, 9.9, 12} {
 			k := susp(tm)
 			a, b, hh := x.At(tm), y.At(tm), h.At(tm)

@@ -127,10 +127,7 @@ func (h *BodyHistory) add(p *pendulum.Point, samples int) {
 			series = append(series, &h.CornerXM[i], &h.CornerYM[i], &h.CornerZM[i])
 		}
 		n := max(samples, 1)
-		buf := make([]float64, len(series)*n)
-		for k, c := range series {
-			*c = buf[k*n : k*n : (k+1)*n]
-		}
+		carve(make([]float64, len(series)*n), series, n)
 	}
 	h.TiltDeg = append(h.TiltDeg, b.TiltRad/units.Degree)
 	h.TwistDeg = append(h.TwistDeg, b.TwistRad/units.Degree)

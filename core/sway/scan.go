@@ -347,6 +347,12 @@ func (s *recorder) reserve(reuse *[]float64) {
 			*reuse = buf
 		}
 	}
+	carve(buf, cs, n)
+}
+
+// carve makes each series of cs an empty slice of buf with room for n
+// samples, series k on buf[k*n:(k+1)*n] (buf holds len(cs)*n).
+func carve(buf []float64, cs []*[]float64, n int) {
 	for k, c := range cs {
 		*c = buf[k*n : k*n : (k+1)*n]
 	}
