@@ -64,6 +64,25 @@ const (
 	D5, D6, D7 = 701980252875.0 / 199316789632, -1453857185.0 / 822651844, 69997945.0 / 29380423
 )
 
+// Filled returns s with its zeros replaced by the defaults (RelTol 1e-8,
+// AbsTol 1e-10, MaxSteps 1e6), as New takes it. A negative setting is a
+// programmer's mistake: it panics.
+func (s Settings) Filled() Settings {
+	if s.RelTol == 0 {
+		s.RelTol = 1e-8
+	}
+	if s.AbsTol == 0 {
+		s.AbsTol = 1e-10
+	}
+	if s.MaxSteps == 0 {
+		s.MaxSteps = 1_000_000
+	}
+	if s.RelTol < 0 || s.AbsTol < 0 || s.MaxStep < 0 || s.MaxSteps < 0 {
+		panic("ode: negative setting")
+	}
+	return s
+}
+
 // Solver holds the state and workspace of one integration. Create it with
 // New, start it with Reset, then call Step until it reports the end.
 type Solver struct {
@@ -90,18 +109,7 @@ func New(f Func, n int, s Settings) *Solver {
 	if n <= 0 {
 		panic("ode: dimension must be positive")
 	}
-	if s.RelTol == 0 {
-		s.RelTol = 1e-8
-	}
-	if s.AbsTol == 0 {
-		s.AbsTol = 1e-10
-	}
-	if s.MaxSteps == 0 {
-		s.MaxSteps = 1_000_000
-	}
-	if s.RelTol < 0 || s.AbsTol < 0 || s.MaxStep < 0 || s.MaxSteps < 0 {
-		panic("ode: negative setting")
-	}
+	s = s.Filled()
 	v := &Solver{f: f, n: n, set: s, invN: 1 / float64(n)}
 	mk := func() []float64 { return make([]float64, n) }
 	v.y, v.ynew, v.tmp = mk(), mk(), mk()

@@ -6,22 +6,39 @@ import (
 	"swaysheet/core/ode"
 )
 
-// CrossingPeriod integrates sys from y0 at t = 0 (tolerance 1e-10,
+// PeriodSettings are the solver settings of CrossingPeriod: tolerance
+// 1e-10 (absolute 1e-12), at most 200,000 steps.
+var PeriodSettings = ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000}
+
+// CrossingPeriod integrates sys from y0 at t = 0 (PeriodSettings,
 // projecting after every step) and returns the mean time between the
 // first `crossings` times where component i of the state crosses zero from
 // below, each located by bisection on the dense output; the run stops at
 // tEnd. For a free oscillation released from rest, with i a rate, that is
-// its period. A sys that is a DirectFunc gives the solver its
-// DirectFunc.
+// its period.
 func CrossingPeriod(sys System, y0 []float64, i, crossings int, tEnd float64) (float64, error) {
-	f := sys.Func
-	if d, ok := sys.(DirectFunc); ok {
-		f = d.DirectFunc()
-	}
-	v := ode.New(f, sys.Len(), ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000})
+	v := ode.New(sys.Func, sys.Len(), PeriodSettings)
 	v.Reset(0, y0)
+	return CrossingPeriodOn(v, sys.Project, i, crossings, tEnd)
+}
+
+// Stepper is the part of ode.Solver that CrossingPeriodOn drives; a
+// solver written for one model may stand in for it (core/sway's
+// doubleSolver for the hook block).
+type Stepper interface {
+	Step(tEnd float64) (done bool, err error)
+	LastStep() (t0, t1 float64)
+	Dense(t float64, out []float64)
+	State() []float64
+	SetState(y []float64)
+}
+
+// CrossingPeriodOn is CrossingPeriod on a stepper already placed at its
+// start (Reset at t = 0, with PeriodSettings for CrossingPeriod's
+// numbers), which project puts back onto the constraint after every step.
+func CrossingPeriodOn(v Stepper, project func([]float64) float64, i, crossings int, tEnd float64) (float64, error) {
 	var ups []float64
-	buf := make([]float64, sys.Len())
+	buf := make([]float64, len(v.State()))
 	for len(ups) < crossings {
 		done, err := v.Step(tEnd)
 		if err != nil {
@@ -43,7 +60,7 @@ func CrossingPeriod(sys System, y0 []float64, i, crossings int, tEnd float64) (f
 			ups = append(ups, 0.5*(a+b))
 		}
 		y := v.State()
-		sys.Project(y)
+		project(y)
 		v.SetState(y)
 		if done {
 			break
@@ -53,12 +70,4 @@ func CrossingPeriod(sys System, y0 []float64, i, crossings int, tEnd float64) (f
 		return 0, errors.New("pendulum: no full cycle found")
 	}
 	return (ups[len(ups)-1] - ups[0]) / float64(len(ups)-1), nil
-}
-
-// DirectFunc is a System whose right-hand side comes as a function that
-// calls the model directly (the method value sys.Func goes through a
-// wrapper and the interface's method first: in wasm two calls more for
-// every evaluation). It computes what Func computes.
-type DirectFunc interface {
-	DirectFunc() func(t float64, y, dy []float64)
 }

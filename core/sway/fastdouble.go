@@ -43,10 +43,9 @@ func (d *fastDouble) Len() int { return pendulum.DoubleStateLen }
 
 func (d *fastDouble) segment(a, b float64) { d.k.segment(a, b) }
 
-// eval is pendulum.Double's eval: it writes n1¨ into a1 and n2¨ into a2
-// and fills p when it is not nil.
-func (d *fastDouble) eval(t float64, y []float64, a1, a2 *[3]float64, p *pendulum.Point) {
-	y = y[:12]
+// eval is pendulum.Double's eval: it writes the rate of y into dy (n1',
+// u1 = n1¨, n2', u2 = n2¨) and fills p when it is not nil.
+func (d *fastDouble) eval(t float64, y, dy *[12]float64, p *pendulum.Point) {
 	var k kin
 	if m := d.k; !m.slewing && !m.hoisting {
 		// Travel alone: the two axes' spans, the rope at its length.
@@ -95,14 +94,16 @@ func (d *fastDouble) eval(t float64, y []float64, a1, a2 *[3]float64, p *pendulu
 	t2 := (im1*b2 + c*im1*b1) / det
 	hx, hy, hz := im1*(t2*n2x-t1*n1x), im1*(t2*n2y-t1*n1y), im1*(t2*n2z-t1*n1z)
 	il1 := 1 / l1
-	a1[0] = il1 * ((r1x + hx) - (ddl1*n1x + 2*dl1*u1x))
-	a1[1] = il1 * ((r1y + hy) - (ddl1*n1y + 2*dl1*u1y))
-	a1[2] = il1 * ((r1z + hz) - (ddl1*n1z + 2*dl1*u1z))
+	dy[0], dy[1], dy[2] = u1x, u1y, u1z
+	dy[6], dy[7], dy[8] = u2x, u2y, u2z
+	dy[3] = il1 * ((r1x + hx) - (ddl1*n1x + 2*dl1*u1x))
+	dy[4] = il1 * ((r1y + hy) - (ddl1*n1y + 2*dl1*u1y))
+	dy[5] = il1 * ((r1z + hz) - (ddl1*n1z + 2*dl1*u1z))
 	t2m := t2 * im2
 	il2 := d.il2
-	a2[0] = il2 * ((dax - t2m*n2x) - hx)
-	a2[1] = il2 * ((day - t2m*n2y) - hy)
-	a2[2] = il2 * ((daz - t2m*n2z) - hz)
+	dy[9] = il2 * ((dax - t2m*n2x) - hx)
+	dy[10] = il2 * ((day - t2m*n2y) - hy)
+	dy[11] = il2 * ((daz - t2m*n2z) - hz)
 	if p != nil {
 		p.Tension, p.RiggingTension = t1, t2
 	}
@@ -110,8 +111,8 @@ func (d *fastDouble) eval(t float64, y []float64, a1, a2 *[3]float64, p *pendulu
 
 // Eval implements pendulum.System.
 func (d *fastDouble) Eval(t float64, y []float64, p *pendulum.Point) {
-	var a1, a2 [3]float64
-	d.eval(t, y, &a1, &a2, p)
+	var dy [12]float64
+	d.eval(t, (*[12]float64)(y), &dy, p)
 }
 
 // Func implements pendulum.System.
@@ -120,26 +121,7 @@ func (d *fastDouble) Func(t float64, y, dy []float64) {
 }
 
 // rhs is the right-hand side y' = f(t, y) on the state's array.
-func (d *fastDouble) rhs(t float64, y, dy *[12]float64) {
-	dy[0], dy[1], dy[2] = y[3], y[4], y[5]
-	dy[6], dy[7], dy[8] = y[9], y[10], y[11]
-	d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
-}
-
-// DirectFunc implements pendulum.DirectFunc: rhs written out in a
-// function value that calls eval directly, for the solvers of the hook
-// block's scan and of its modes' periods (the method value d.Func, or
-// sys.Func on the interface, calls a wrapper, then Func, then rhs: under
-// node the hook block examples ran about 6 % faster without them, natively
-// 0 to 2 %). TestDirectFuncIsFunc holds it to Func, bit for bit.
-func (d *fastDouble) DirectFunc() func(t float64, y, dy []float64) {
-	return func(t float64, yy, dyy []float64) {
-		y, dy := (*[12]float64)(yy), (*[12]float64)(dyy)
-		dy[0], dy[1], dy[2] = y[3], y[4], y[5]
-		dy[6], dy[7], dy[8] = y[9], y[10], y[11]
-		d.eval(t, y[:], (*[3]float64)(dy[3:6]), (*[3]float64)(dy[9:12]), nil)
-	}
-}
+func (d *fastDouble) rhs(t float64, y, dy *[12]float64) { d.eval(t, y, dy, nil) }
 
 // Project implements pendulum.System: both directions back onto their
 // constraints (pendulum.Double.Project).

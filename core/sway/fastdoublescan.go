@@ -11,7 +11,7 @@ import (
 
 // The hook block's own scan (issue 16: the peak scanner was about a third
 // of the two-mode plan). A run of fastDouble without air is integrated by
-// ode.Solver with the model's right-hand side called directly, and its
+// doubleSolver (ode.Solver on the twelve numbers, fastdoubleode.go), and its
 // peaks are found from the rates as on the single-rope path
 // (fastpeaks.go): each watched quantity of the two masses (swing and
 // excursion of the line from the suspension point to the load, the rope
@@ -37,7 +37,7 @@ type doubleScan struct {
 	peaks
 	recorder
 	d             *fastDouble
-	v             *ode.Solver
+	v             doubleSolver
 	constraintErr float64
 	pathOnly      bool
 	maxSteps      int
@@ -147,7 +147,7 @@ func oneMinusCosDown(h2, z, l float64) float64 {
 func (s *doubleScan) probe(q quantity, t float64) (v, g float64) {
 	var y, yd [12]float64
 	var m dmeasure
-	s.v.Dense(t, y[:])
+	s.v.dense(t, &y)
 	s.d.Project(y[:])
 	switch q {
 	case qSwing, qExcursion:
@@ -157,7 +157,7 @@ func (s *doubleScan) probe(q quantity, t float64) (v, g float64) {
 		ropeAngles(&y, &m)
 	default:
 		k := s.d.k.kinAt(t)
-		s.v.DenseRate(t, yd[:])
+		s.v.denseRate(t, &yd)
 		s.tensions(&k, &y, &yd, &m)
 	}
 	return m.v[q], m.g[q]
@@ -172,17 +172,17 @@ func integrateDouble(d *fastDouble, su *setup, opt Options, rec recorder, tEnd, 
 	}
 	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d,
 		pathOnly: opt.PathOnly && rec.hist != nil}
-	s.v = ode.New(d.DirectFunc(), d.Len(), ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
+	s.v = *newDoubleSolver(d, ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
 	s.maxSteps = maxN
 	err := s.run(su.y0, su.breaks, tEnd)
-	if opt.Budget != nil && !opt.Budget.take(int64(s.v.Evals)*WorkPerEval) && err == nil {
+	if opt.Budget != nil && !opt.Budget.take(int64(s.v.evals)*WorkPerEval) && err == nil {
 		err = &WorkError{Message: opt.Budget.message}
 	}
 	if err != nil {
 		return nil, nil, Stats{}, err
 	}
-	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.Accepted, Rejected: s.v.Rejected,
-		Evals: s.v.Evals, ConstraintError: s.constraintErr}, nil
+	return &s.peaks, nil, Stats{RelTol: relTol, Steps: s.v.accepted, Rejected: s.v.rejected,
+		Evals: s.v.evals, ConstraintError: s.constraintErr}, nil
 }
 
 func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
@@ -192,7 +192,7 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	copy(y[:], y0)
 	t := 0.0
 	d.segment(0, cuts[0])
-	s.v.Reset(0, y[:])
+	s.v.reset(0, &y)
 	var a, b dmeasure
 	d.rhs(0, &y, &rate)
 	s.measureAt(0, &y, &rate, &a)
@@ -204,24 +204,24 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			continue
 		}
 		d.segment(t, cut)
-		s.v.Reset(t, s.v.State())
+		s.v.reset(t, s.v.state())
 		carry := false // the start of the step is the end of the one before
 		for {
-			done, err := s.v.Step(cut)
+			done, err := s.v.step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
-					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.v.T(), tEnd)
+					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.v.t, tEnd)
 				}
 				return err
 			}
-			t0, t1 := s.v.LastStep()
+			t0, t1 := s.v.lastStep()
 			residual := t0 >= s.motionEnd-1e-12
 			if !s.pathOnly && !carry {
 				// A new segment: the suspension point's acceleration may
 				// have jumped, so the start is measured afresh.
-				s.v.Dense(t0, y[:])
+				s.v.dense(t0, &y)
 				d.Project(y[:])
-				s.v.DenseRate(t0, rate[:])
+				s.v.denseRate(t0, &rate)
 				s.measureAt(t0, &y, &rate, &a)
 				for q := range qTilt {
 					s.watch(q, a.v[q], t0, residual)
@@ -229,13 +229,13 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 			}
 			// Back onto the constraint for the next step, keeping the slope
 			// at the step's end (as scanner.run does).
-			if e := d.Project(s.v.State()); e > s.constraintErr {
+			if e := d.Project(s.v.state()[:]); e > s.constraintErr {
 				s.constraintErr = e
 			}
 			if !s.pathOnly {
 				// The rate at the step's end is the last stage, f(t1, y1),
 				// kept as the next step's first.
-				s.measureAt(t1, (*[12]float64)(s.v.State()), (*[12]float64)(s.v.Rate()), &b)
+				s.measureAt(t1, s.v.state(), s.v.rate(), &b)
 				for q := range qTilt {
 					s.watch(q, b.v[q], t1, residual)
 				}
@@ -252,7 +252,7 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 	}
 	for s.hist != nil && s.next < s.samples {
 		// The last sample falls on tEnd exactly.
-		d.Eval(tEnd, s.v.State(), &s.pt)
+		d.Eval(tEnd, s.v.state()[:], &s.pt)
 		s.pt.T = tEnd
 		s.record(&s.pt)
 	}
@@ -267,7 +267,7 @@ func (s *doubleScan) emit(t0, t1 float64) {
 		if tt > t1 {
 			return
 		}
-		s.v.Dense(maxf(tt, t0), y[:])
+		s.v.dense(maxf(tt, t0), &y)
 		s.d.Project(y[:])
 		s.d.Eval(tt, y[:], &s.pt)
 		s.pt.T = tt

@@ -53,13 +53,15 @@ func modes(h *scenario.Hook, massLoad, l1 float64) pendulum.Modes {
 // move: every span is zero, the rope at l1): pendulum.Double's equations
 // in the same order, with a suspension point at rest, without a closure
 // call for the suspension point and the rope at every evaluation
-// (TestModePeriodSpecialised holds the two to the bit).
+// (TestModePeriodSpecialised holds the two to the bit), integrated by
+// doubleSolver in place of ode.Solver.
 func modePeriod(m1, m2, l1, l2 float64, shape [2]float64, omega float64) (float64, error) {
 	d := newFastDouble(newFastModel(&crane.Drives{}, l1, crane.Start{}, m2, nil), m1, m2, l2, units.StandardGravity)
 	return modePeriodOf(d, shape, omega)
 }
 
-// modePeriodOf is modePeriod on the given two-mass model.
+// modePeriodOf is modePeriod on the given two-mass model: fastDouble on
+// doubleSolver, any other on pendulum.CrossingPeriod's ode.Solver.
 func modePeriodOf(d pendulum.System, shape [2]float64, omega float64) (float64, error) {
 	// Scale so that the larger of the two angles is 0.05 deg.
 	a := 0.05 * units.Degree / math.Max(math.Abs(shape[0]), math.Abs(shape[1]))
@@ -67,7 +69,16 @@ func modePeriodOf(d pendulum.System, shape [2]float64, omega float64) (float64, 
 	y := []float64{math.Sin(th1), 0, -math.Cos(th1), 0, 0, 0, math.Sin(th2), 0, -math.Cos(th2), 0, 0, 0}
 	// The rope's rate u1x crosses zero from below at the far turning point
 	// of each cycle.
-	p, err := pendulum.CrossingPeriod(d, y, 3, 3, 20*2*math.Pi/omega)
+	tEnd := 20 * 2 * math.Pi / omega
+	var p float64
+	var err error
+	if fd, ok := d.(*fastDouble); ok {
+		v := newDoubleSolver(fd, pendulum.PeriodSettings)
+		v.reset(0, (*[12]float64)(y))
+		p, err = pendulum.CrossingPeriodOn(v, fd.Project, 3, 3, tEnd)
+	} else {
+		p, err = pendulum.CrossingPeriod(d, y, 3, 3, tEnd)
+	}
 	if err != nil {
 		return 0, fmt.Errorf("sway: the mode's period: %w", err)
 	}
