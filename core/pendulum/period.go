@@ -8,7 +8,9 @@ import (
 
 // PeriodSettings are the solver settings of CrossingPeriod: tolerance
 // 1e-10 (absolute 1e-12), at most 200,000 steps.
-var PeriodSettings = ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000}
+func PeriodSettings() ode.Settings {
+	return ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000}
+}
 
 // CrossingPeriod integrates sys from y0 at t = 0 (PeriodSettings,
 // projecting after every step) and returns the mean time between the
@@ -17,7 +19,7 @@ var PeriodSettings = ode.Settings{RelTol: 1e-10, AbsTol: 1e-12, MaxSteps: 200000
 // tEnd. For a free oscillation released from rest, with i a rate, that is
 // its period.
 func CrossingPeriod(sys System, y0 []float64, i, crossings int, tEnd float64) (float64, error) {
-	v := ode.New(sys.Func, sys.Len(), PeriodSettings)
+	v := ode.New(sys.Func, sys.Len(), PeriodSettings())
 	v.Reset(0, y0)
 	return CrossingPeriodOn(v, sys.Project, i, crossings, tEnd)
 }
