@@ -191,27 +191,37 @@ func (v *Solver) errSquare(y0, y1, e []float64) float64 {
 	return sum * v.invN
 }
 
-// initialStep is the starting step heuristic of Hairer, Norsett & Wanner
-// (sec. II.4, "Starting step size").
+// initialStep is the starting step heuristic (InitialStep).
 func (v *Solver) initialStep(tEnd float64) float64 {
-	f0 := v.k[0]
-	d0 := v.errNorm(v.y, v.y, v.y)
-	d1 := v.errNorm(v.y, v.y, f0)
+	return InitialStep(v.t, tEnd, v.y, v.k[0], v.tmp, v.k[1], v.ynew, v.errNorm, v.eval)
+}
+
+// InitialStep is the starting step heuristic of Hairer, Norsett & Wanner
+// (sec. II.4, "Starting step size") for a solver at (t, y) with rate
+// f0 = f(t, y), integrating toward tEnd; errNorm is its error norm and
+// eval its right-hand side, called once, at t + h0, writing into k2. tmp,
+// k2 and diff are scratch of y's length. Solver and the steppers written
+// for one model (core/sway's fastSolver and doubleSolver) share it, so
+// that they start with the same step to the bit.
+func InitialStep(t, tEnd float64, y, f0, tmp, k2, diff []float64,
+	errNorm func(y0, y1, e []float64) float64, eval func(t float64, y, dy []float64)) float64 {
+	d0 := errNorm(y, y, y)
+	d1 := errNorm(y, y, f0)
 	var h0 float64
 	if d0 < 1e-5 || d1 < 1e-5 {
 		h0 = 1e-6
 	} else {
 		h0 = 0.01 * d0 / d1
 	}
-	h0 = math.Min(h0, tEnd-v.t)
-	for i := range v.n {
-		v.tmp[i] = v.y[i] + h0*f0[i]
+	h0 = math.Min(h0, tEnd-t)
+	for i := range y {
+		tmp[i] = y[i] + h0*f0[i]
 	}
-	v.eval(v.t+h0, v.tmp, v.k[1])
-	for i := range v.n {
-		v.ynew[i] = v.k[1][i] - f0[i]
+	eval(t+h0, tmp, k2)
+	for i := range y {
+		diff[i] = k2[i] - f0[i]
 	}
-	d2 := v.errNorm(v.y, v.y, v.ynew) / h0
+	d2 := errNorm(y, y, diff) / h0
 	var h1 float64
 	if m := math.Max(d1, d2); m <= 1e-15 {
 		h1 = math.Max(1e-6, h0*1e-3)

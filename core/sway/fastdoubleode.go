@@ -101,33 +101,13 @@ func (v *doubleSolver) errSquare(y0, y1, e *[12]float64) float64 {
 	return sum * (1.0 / 12)
 }
 
-// initialStep is ode's starting step heuristic (ode.Solver.initialStep).
+// initialStep is ode's starting step heuristic (ode.InitialStep).
 func (v *doubleSolver) initialStep(tEnd float64) float64 {
-	f0 := &v.k[0]
-	d0 := v.errNorm(&v.y, &v.y, &v.y)
-	d1 := v.errNorm(&v.y, &v.y, f0)
-	var h0 float64
-	if d0 < 1e-5 || d1 < 1e-5 {
-		h0 = 1e-6
-	} else {
-		h0 = 0.01 * d0 / d1
-	}
-	h0 = math.Min(h0, tEnd-v.t)
-	for i := range 12 {
-		v.tmp[i] = v.y[i] + h0*f0[i]
-	}
-	v.eval(v.t+h0, &v.tmp, &v.k[1])
-	for i := range 12 {
-		v.ynew[i] = v.k[1][i] - f0[i]
-	}
-	d2 := v.errNorm(&v.y, &v.y, &v.ynew) / h0
-	var h1 float64
-	if m := math.Max(d1, d2); m <= 1e-15 {
-		h1 = math.Max(1e-6, h0*1e-3)
-	} else {
-		h1 = math.Pow(0.01/m, 0.2)
-	}
-	return math.Min(100*h0, h1)
+	return ode.InitialStep(v.t, tEnd, v.y[:], v.k[0][:], v.tmp[:], v.k[1][:], v.ynew[:],
+		func(y0, y1, e []float64) float64 {
+			return v.errNorm((*[12]float64)(y0), (*[12]float64)(y1), (*[12]float64)(e))
+		},
+		func(t float64, y, dy []float64) { v.eval(t, (*[12]float64)(y), (*[12]float64)(dy)) })
 }
 
 // step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
