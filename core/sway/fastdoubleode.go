@@ -39,15 +39,16 @@ type doubleSolver struct {
 	accepted, rejected, evals int
 }
 
-// newDoubleSolver is ode.New's counterpart (its defaults, Settings.Filled).
-// set.MaxStep must be zero: doubleSolver has no bound on the step (a
-// programmer's mistake, it panics).
-func newDoubleSolver(d *fastDouble, set ode.Settings) *doubleSolver {
+// newDoubleSolver is ode.New's counterpart (its defaults, Settings.Filled),
+// as a value for its owner to hold. set.MaxStep must be zero:
+// doubleSolver has no bound on the step (a programmer's mistake, it
+// panics).
+func newDoubleSolver(d *fastDouble, set ode.Settings) doubleSolver {
 	if set.MaxStep != 0 {
 		panic("sway: doubleSolver takes no MaxStep")
 	}
 	set = set.Filled()
-	return &doubleSolver{d: d, relTol: set.RelTol, absTol: set.AbsTol, maxSteps: set.MaxSteps}
+	return doubleSolver{d: d, relTol: set.RelTol, absTol: set.AbsTol, maxSteps: set.MaxSteps}
 }
 
 func (v *doubleSolver) eval(t float64, y, dy *[12]float64) {
@@ -71,9 +72,6 @@ func (v *doubleSolver) state() *[12]float64 { return &v.y }
 // rate is f(t1, y1) at the end of the last accepted step
 // (ode.Solver.Rate).
 func (v *doubleSolver) rate() *[12]float64 { return &v.k[0] }
-
-// lastStep is the last accepted step's interval (ode.Solver.LastStep).
-func (v *doubleSolver) lastStep() (t0, t1 float64) { return v.told, v.t }
 
 // errNorm is ode's error norm (ode.Solver.errNorm).
 func (v *doubleSolver) errNorm(y0, y1, e *[12]float64) float64 {
@@ -110,8 +108,8 @@ func (v *doubleSolver) initialStep(tEnd float64) float64 {
 		func(t float64, y, dy []float64) { v.eval(t, (*[12]float64)(y), (*[12]float64)(dy)) })
 }
 
-// step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
-func (v *doubleSolver) step(tEnd float64) (done bool, err error) {
+// Step advances by one accepted step, never beyond tEnd (ode.Solver.Step).
+func (v *doubleSolver) Step(tEnd float64) (done bool, err error) {
 	if tEnd <= v.t {
 		return true, nil
 	}
@@ -233,10 +231,7 @@ func (v *doubleSolver) denseRate(t float64, out *[12]float64) {
 // Step, LastStep, Dense, State and SetState make doubleSolver a
 // pendulum.Stepper, for the hook block's mode periods (modePeriodOf).
 
-// Step is step.
-func (v *doubleSolver) Step(tEnd float64) (bool, error) { return v.step(tEnd) }
-
-// LastStep is lastStep.
+// LastStep is the last accepted step's interval (ode.Solver.LastStep).
 func (v *doubleSolver) LastStep() (t0, t1 float64) { return v.told, v.t }
 
 // Dense is dense on a slice of twelve.

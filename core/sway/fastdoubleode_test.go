@@ -44,12 +44,12 @@ func TestDoubleSolverAsOde(t *testing.T) {
 				fast.reset(at, fast.state())
 				for {
 					dg, eg := gen.Step(cut)
-					df, ef := fast.step(cut)
+					df, ef := fast.Step(cut)
 					if eg != nil || ef != nil || dg != df {
 						t.Fatalf("%s: ode.Solver (%v, %v), doubleSolver (%v, %v)", name, dg, eg, df, ef)
 					}
 					g0, g1 := gen.LastStep()
-					f0, f1 := fast.lastStep()
+					f0, f1 := fast.LastStep()
 					if g0 != f0 || g1 != f1 {
 						t.Fatalf("%s: step [%v, %v], doubleSolver's [%v, %v]", name, g0, g1, f0, f1)
 					}

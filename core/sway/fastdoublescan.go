@@ -172,7 +172,7 @@ func integrateDouble(d *fastDouble, su *setup, opt Options, rec recorder, tEnd, 
 	}
 	s := &doubleScan{peaks: peaks{motionEnd: su.motionEnd, nq: qTilt}, recorder: rec, d: d,
 		pathOnly: opt.PathOnly && rec.hist != nil}
-	s.v = *newDoubleSolver(d, ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
+	s.v = newDoubleSolver(d, ode.Settings{RelTol: relTol, AbsTol: relTol * 1e-2, MaxSteps: maxN})
 	s.maxSteps = maxN
 	err := s.run(su.y0, su.breaks, tEnd)
 	if opt.Budget != nil && !opt.Budget.take(int64(s.v.evals)*WorkPerEval) && err == nil {
@@ -207,14 +207,14 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		s.v.reset(t, s.v.state())
 		carry := false // the start of the step is the end of the one before
 		for {
-			done, err := s.v.step(cut)
+			done, err := s.v.Step(cut)
 			if err != nil {
 				if errors.Is(err, ode.ErrTooManySteps) {
 					return fmt.Errorf("%w (%d steps by t = %.4g s of %.4g s)", ErrStepLimit, s.maxSteps, s.v.t, tEnd)
 				}
 				return err
 			}
-			t0, t1 := s.v.lastStep()
+			t0, t1 := s.v.LastStep()
 			residual := t0 >= s.motionEnd-1e-12
 			if !s.pathOnly && !carry {
 				// A new segment: the suspension point's acceleration may

@@ -17,7 +17,7 @@ func TestBrentMax(t *testing.T) {
 		name       string
 		f          func(float64) float64
 		a, m, b    float64
-		top        float64 // where the top is
+		top        float64 // where the top is: f's derivative is zero there (by hand)
 		tolV       float64
 		maxEvals   int
 		wantFlat   bool

@@ -75,7 +75,7 @@ func modePeriodOf(d pendulum.System, shape [2]float64, omega float64) (float64, 
 	if fd, ok := d.(*fastDouble); ok {
 		v := newDoubleSolver(fd, pendulum.PeriodSettings())
 		v.reset(0, (*[12]float64)(y))
-		p, err = pendulum.CrossingPeriodOn(v, fd.Project, 3, 3, tEnd)
+		p, err = pendulum.CrossingPeriodOn(&v, fd.Project, 3, 3, tEnd)
 	} else {
 		p, err = pendulum.CrossingPeriod(d, y, 3, 3, tEnd)
 	}
