@@ -101,14 +101,22 @@ type BodyHistory struct {
 	// clearance check's lines (core/clearance), not sent as JSON.
 	LegTopXM, LegTopYM, LegTopZM [][]float64 `json:"-"`
 	LegEndXM, LegEndYM, LegEndZM [][]float64 `json:"-"`
+
+	flat []float64 // every series' samples, one after another (add)
 }
 
-// add appends the sample p; the first one makes room for samples of them
-// in every series, in one allocation (as recorder.reserve): grown sample
-// by sample, the copies and the collector made bay-girder-rigid's full
-// evaluation about 12 % slower as wasm, 4 % natively.
-func (h *BodyHistory) add(p *pendulum.Point, samples int) {
+// add writes the sample p as sample k of samples. The first one makes
+// room for all of them in every series, in one allocation: series j is
+// flat[j*samples:(j+1)*samples], full length from the start (a run that
+// ends without error records every sample), and each sample is written in
+// place, a store apart by samples. Grown sample by sample, the copies and
+// the collector made bay-girder-rigid's full evaluation about 12 % slower
+// as wasm, 4 % natively; appended into the 54 series of a rigid load's
+// [leg][sample] and [corner][sample] slices, each sample loaded and
+// stored every slice's header (about 5x native under node).
+func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {
 	b := p.Body
+	n := max(samples, 1)
 	if h.LegTensionN == nil {
 		h.LegTensionN = make([][]float64, b.NLegs)
 		h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
@@ -116,6 +124,7 @@ func (h *BodyHistory) add(p *pendulum.Point, samples int) {
 		for _, a := range legs {
 			*a = make([][]float64, b.NLegs)
 		}
+		// The order add writes them in.
 		series := []*[]float64{&h.TiltDeg, &h.TwistDeg}
 		for i := range b.NLegs {
 			series = append(series, &h.LegTensionN[i])
@@ -126,21 +135,29 @@ func (h *BodyHistory) add(p *pendulum.Point, samples int) {
 		for i := range 8 {
 			series = append(series, &h.CornerXM[i], &h.CornerYM[i], &h.CornerZM[i])
 		}
-		n := max(samples, 1)
-		carve(make([]float64, len(series)*n), series, n)
+		h.flat = make([]float64, len(series)*n)
+		for j, c := range series {
+			*c = h.flat[j*n : (j+1)*n]
+		}
 	}
-	h.TiltDeg = append(h.TiltDeg, b.TiltRad/units.Degree)
-	h.TwistDeg = append(h.TwistDeg, b.TwistRad/units.Degree)
+	f, o := h.flat, k
+	f[o] = b.TiltRad / units.Degree
+	o += n
+	f[o] = b.TwistRad / units.Degree
 	for i := range b.NLegs {
-		h.LegTensionN[i] = append(h.LegTensionN[i], b.Legs[i])
 		t, e := b.LegTop[i], b.LegEnd[i]
-		h.LegTopXM[i], h.LegTopYM[i], h.LegTopZM[i] = append(h.LegTopXM[i], t.X), append(h.LegTopYM[i], t.Y), append(h.LegTopZM[i], t.Z)
-		h.LegEndXM[i], h.LegEndYM[i], h.LegEndZM[i] = append(h.LegEndXM[i], e.X), append(h.LegEndYM[i], e.Y), append(h.LegEndZM[i], e.Z)
+		for _, v := range [7]float64{b.Legs[i], t.X, t.Y, t.Z, e.X, e.Y, e.Z} {
+			o += n
+			f[o] = v
+		}
 	}
-	for i, c := range b.Corners {
-		h.CornerXM[i] = append(h.CornerXM[i], c.X)
-		h.CornerYM[i] = append(h.CornerYM[i], c.Y)
-		h.CornerZM[i] = append(h.CornerZM[i], c.Z)
+	for _, c := range b.Corners {
+		o += n
+		f[o] = c.X
+		o += n
+		f[o] = c.Y
+		o += n
+		f[o] = c.Z
 	}
 }
 

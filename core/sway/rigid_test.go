@@ -245,3 +245,68 @@ func TestRigidSteadyWind(t *testing.T) {
 		}
 	}
 }
+
+// BodyHistory.add writes each sample in place, one series after another
+// in one buffer: every series holds every sample, and each is the series
+// it is named for. Geometry checks that a mix-up would break: a sling
+// leg's two ends stay its length apart (an inextensible leg, held by the
+// projection to about 1e-9 of it), and corners 0 and 1 (bit 0: the
+// length) stay the box's length apart, 0 and 2 its width, 0 and 4 its
+// height (a rigid body), their middle near the load's centre of mass
+// (within the box's size: the centre of mass need not be the box's
+// middle). The ropes of a spreader or tandem lift change
+// length with the hoist, so there only the corners are checked.
+func TestBodyHistorySeries(t *testing.T) {
+	ex := loadExamples(t)
+	for _, name := range []string{"bay-girder-rigid", "precast-beam-tandem", "precast-panel-spreader"} {
+		s := ex[name]
+		r := mustEval(t, s)
+		n := len(r.History.TimeS)
+		h := r.Body.History
+		all := [][]float64{h.TiltDeg, h.TwistDeg}
+		for _, ss := range [][][]float64{h.LegTensionN, h.CornerXM, h.CornerYM, h.CornerZM,
+			h.LegTopXM, h.LegTopYM, h.LegTopZM, h.LegEndXM, h.LegEndYM, h.LegEndZM} {
+			all = append(all, ss...)
+		}
+		for i, c := range all {
+			if len(c) != n {
+				t.Fatalf("%s: series %d has %d samples, want %d", name, i, len(c), n)
+			}
+		}
+		b := s.Load.Body
+		dist := func(x, y, z [][]float64, i, j, k int) float64 {
+			return math.Sqrt((x[i][k]-x[j][k])*(x[i][k]-x[j][k]) + (y[i][k]-y[j][k])*(y[i][k]-y[j][k]) + (z[i][k]-z[j][k])*(z[i][k]-z[j][k]))
+		}
+		for k := range n {
+			for _, c := range []struct {
+				j    int
+				want float64
+			}{{1, *b.LengthM}, {2, *b.WidthM}, {4, *b.HeightM}} {
+				if d := dist(h.CornerXM, h.CornerYM, h.CornerZM, 0, c.j, k); math.Abs(d-c.want) > 1e-9*c.want {
+					t.Fatalf("%s, sample %d: corners 0 and %d %.12g m apart, want %g", name, k, c.j, d, c.want)
+				}
+			}
+			// The corners' middle within the box of the load's centre
+			// of mass (the history's LoadXM, LoadYM): the loads travel
+			// metres, so axes mixed up are far apart.
+			var cx, cy float64
+			for i := range 8 {
+				cx, cy = cx+h.CornerXM[i][k]/8, cy+h.CornerYM[i][k]/8
+			}
+			if math.Hypot(cx-r.History.LoadXM[k], cy-r.History.LoadYM[k]) > *b.LengthM+*b.WidthM+*b.HeightM {
+				t.Fatalf("%s, sample %d: corners' middle (%g, %g) m, load at (%g, %g) m", name, k, cx, cy, r.History.LoadXM[k], r.History.LoadYM[k])
+			}
+			if r.Body.Suspension == Spreader || r.Body.Suspension == TwoRopes {
+				continue
+			}
+			for i := range h.LegTopXM {
+				top := [][]float64{h.LegTopXM[i], h.LegEndXM[i]}
+				d := dist(top, [][]float64{h.LegTopYM[i], h.LegEndYM[i]}, [][]float64{h.LegTopZM[i], h.LegEndZM[i]}, 0, 1, k)
+				d0 := dist(top, [][]float64{h.LegTopYM[i], h.LegEndYM[i]}, [][]float64{h.LegTopZM[i], h.LegEndZM[i]}, 0, 1, 0)
+				if math.Abs(d-d0) > 1e-9*d0 {
+					t.Fatalf("%s, sample %d: leg %d's ends %.12g m apart, %.12g m at the start", name, k, i, d, d0)
+				}
+			}
+		}
+	}
+}

@@ -385,7 +385,7 @@ func (s *recorder) record(p *pendulum.Point) {
 		h.HookRelZM = append(h.HookRelZM, hk.Z)
 	}
 	if s.bodyHist != nil {
-		s.bodyHist.add(p, s.samples)
+		s.bodyHist.add(p, s.next, s.samples)
 	}
 	s.next++
 }
