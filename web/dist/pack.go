@@ -14,8 +14,9 @@ const PackGap = 32
 
 // Pack is what make wasm does to a wasm file after go build: its forward
 // jumps made direct (DirectJumps), its copies and clears of a known size
-// up to CopyLimit bytes written out (WriteOutCopies), then its data
-// segments joined (PackData).
+// up to CopyLimit bytes written out (WriteOutCopies), the constant parts
+// of addresses moved into the loads' and stores' offsets (FoldOffsets),
+// then its data segments joined (PackData).
 func Pack(wasm []byte) ([]byte, PackStats, error) {
 	var st PackStats
 	out, js, err := DirectJumps(wasm)
@@ -26,6 +27,9 @@ func Pack(wasm []byte) ([]byte, PackStats, error) {
 	if out, st.Copies, err = WriteOutCopies(out, CopyLimit); err != nil {
 		return nil, st, err
 	}
+	if out, st.Offsets, err = FoldOffsets(out); err != nil {
+		return nil, st, err
+	}
 	out, err = PackData(out, PackGap)
 	return out, st, err
 }
@@ -33,7 +37,8 @@ func Pack(wasm []byte) ([]byte, PackStats, error) {
 // PackStats counts what Pack did.
 type PackStats struct {
 	JumpStats
-	Copies CopyStats
+	Copies  CopyStats
+	Offsets FoldStats
 }
 
 // PackFile packs the wasm file name in place (Pack) and returns what
