@@ -56,3 +56,24 @@ func TestBrentMax(t *testing.T) {
 		t.Logf("%s: %d evaluations", c.name, n)
 	}
 }
+
+// spreadWithin written with comparisons answers as its definition with
+// math.Max and math.Min does, for every triple of a set of values that
+// holds zeros of both signs, infinities, NaN and values 1e-14 apart.
+func TestSpreadWithin(t *testing.T) {
+	vals := []float64{0, math.Copysign(0, -1), 1, 1 + 1e-14, 1 - 2e-14, -1, 1e300, -1e-300,
+		math.Inf(1), math.Inf(-1), math.NaN(), 5e-324}
+	for _, x := range vals {
+		for _, y := range vals {
+			for _, z := range vals {
+				for _, floor := range []float64{0, 1e-28, 1e-9} {
+					hi, lo := math.Max(x, math.Max(y, z)), math.Min(x, math.Min(y, z))
+					want := hi-lo <= 1e-14*math.Abs(hi)+floor
+					if got := spreadWithin(x, y, z, floor); got != want {
+						t.Errorf("spreadWithin(%g, %g, %g, %g) = %v, want %v", x, y, z, floor, got, want)
+					}
+				}
+			}
+		}
+	}
+}

@@ -186,9 +186,32 @@ func valueFloor(q quantity) float64 {
 }
 
 // spreadWithin reports whether three values of a quantity lie within
-// 1e-14 of the largest (relative) plus floor of each other.
+// 1e-14 of the largest (relative) plus floor of each other: hi - lo <=
+// 1e-14*|hi| + floor with hi and lo math.Max's and math.Min's of the
+// three, written with comparisons (math.Max and math.Min are calls in
+// wasm, four each probe of a refinement). Without a NaN the comparisons
+// give hi and lo but for the sign of a zero, which changes neither side;
+// with one, math.Max and Min give NaN (false) unless a +Inf and a -Inf
+// make the spread +Inf <= +Inf. TestSpreadWithin holds the two to the
+// same answers.
 func spreadWithin(x, y, z, floor float64) bool {
-	hi, lo := math.Max(x, math.Max(y, z)), math.Min(x, math.Min(y, z))
+	if x != x || y != y || z != z {
+		return (x > math.MaxFloat64 || y > math.MaxFloat64 || z > math.MaxFloat64) &&
+			(x < -math.MaxFloat64 || y < -math.MaxFloat64 || z < -math.MaxFloat64)
+	}
+	hi, lo := x, x
+	if y > hi {
+		hi = y
+	}
+	if z > hi {
+		hi = z
+	}
+	if y < lo {
+		lo = y
+	}
+	if z < lo {
+		lo = z
+	}
 	return hi-lo <= 1e-14*math.Abs(hi)+floor
 }
 
