@@ -115,10 +115,11 @@ type Rigid struct {
 // call one another while they hold it (Eval's evalForces, which calls
 // accelInto, uses the frame and not the rows).
 type rigidScratch struct {
-	_    [0]func() // not comparable: no equality function
-	f    frame
-	rows [3]row
-	mj   [3][9]float64
+	_       [0]func() // not comparable: no equality function
+	f       frame
+	rows    [3]row
+	mj      [3][9]float64
+	corners [8]r3.Vec // tandemCorners' when the rest is not kept
 }
 
 // Leg is one sling leg: where it attaches on the load (from the load's

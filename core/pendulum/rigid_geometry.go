@@ -30,6 +30,9 @@ type rigidGeometry struct {
 	// restCorner are the corners' horizontal offsets from the suspension
 	// point hanging still (with a spreader, before any slew).
 	restCorner [8]r3.Vec
+	// cornerArm are the corners from the body's centre of mass, body
+	// frame: loadC + corner(i), each evaluation's sums made once.
+	cornerArm [8]r3.Vec
 	// restHeading is the direction of the load's length axis hanging
 	// still, rad from +x toward +y.
 	restHeading float64
@@ -135,6 +138,7 @@ func (r *Rigid) Prepare() error {
 	R := rotOf(geo.rest[:])
 	geo.restHeading = math.Atan2(R[1][0], R[0][0])
 	for i := range 8 {
+		geo.cornerArm[i] = r3.Add(geo.loadC, r.corner(i))
 		c := r3.Sub(r3.Add(geo.loadC, r.corner(i)), geo.hook)
 		if geo.twoTop {
 			c = r.corner(i)

@@ -165,18 +165,12 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	restCorner, restHeading := &geo.restCorner, geo.restHeading
 	if r.Tandem != nil {
 		// Hanging still at the present rope length.
-		var rc [8]r3.Vec
-		q, c := r.tandemRest(f.l)
-		R := rotOf(q[:])
-		for i := range 8 {
-			rc[i] = r3.Add(R.mul(r.corner(i)), c)
-			rc[i].Z = 0
-		}
-		restCorner, restHeading = &rc, math.Atan2(R[1][0], R[0][0])
+		var c r3.Vec
+		restCorner, restHeading, c = r.tandemCorners(f.l)
 		bp.Plumb = r3.Vec{X: cs*c.X - sn*c.Y, Y: sn*c.X + cs*c.Y}
 	}
 	for i := range 8 {
-		b := r3.Add(geo.loadC, r.corner(i))
+		b := geo.cornerArm[i]
 		bp.Corners[i] = r3.Add(f.x, r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)}) // f.R.mul(b)
 		rc := restCorner[i]
 		dx := bp.Corners[i].X - f.s.Pos.X - (cs*rc.X - sn*rc.Y)

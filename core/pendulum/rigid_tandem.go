@@ -96,6 +96,44 @@ type tandemMemo struct {
 	q        quat
 	c        r3.Vec
 	ok       bool
+	// The corners' horizontal offsets hanging still and the heading at
+	// l (tandemCorners), once cornersSet.
+	corners    [8]r3.Vec
+	heading    float64
+	cornersSet bool
+}
+
+// tandemCorners are the corners' horizontal offsets from the suspension
+// point and the load's heading hanging still at rope length l, and its
+// centre of mass there (tandemRest): the evaluation's corner swing and
+// twist measure from them. Kept with the rest they come from (they
+// change with l alone: on a run without a hoist every evaluation asked
+// for the same ones); when the rest is not kept (its solve failed) they
+// are made into the scratch.
+func (r *Rigid) tandemCorners(l float64) (*[8]r3.Vec, float64, r3.Vec) {
+	q, c := r.tandemRest(l)
+	m := &r.tmemo
+	if m.ok && m.l == l {
+		if !m.cornersSet {
+			m.heading = r.restCornersInto(q, c, &m.corners)
+			m.cornersSet = true
+		}
+		return &m.corners, m.heading, c
+	}
+	h := r.restCornersInto(q, c, &r.sc.corners)
+	return &r.sc.corners, h, c
+}
+
+// restCornersInto writes into rc the corners' horizontal offsets from
+// the suspension point of the load at orientation q with its centre of
+// mass at c from it, and returns the heading of its length axis.
+func (r *Rigid) restCornersInto(q quat, c r3.Vec, rc *[8]r3.Vec) float64 {
+	R := rotOf(q[:])
+	for i := range 8 {
+		rc[i] = r3.Add(R.mul(r.corner(i)), c)
+		rc[i].Z = 0
+	}
+	return math.Atan2(R[1][0], R[0][0])
 }
 
 // tandemRest is the orientation and the centre of mass (from a still
