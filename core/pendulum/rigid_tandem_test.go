@@ -2,6 +2,7 @@ package pendulum
 
 import (
 	"math"
+	"reflect"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -147,4 +148,31 @@ func TestTandemUnequalRest(t *testing.T) {
 		t.Errorf("ropes hold %.10g N up, weight %.10g N", up, w)
 	}
 	t.Logf("tilt %.4g deg, ropes %.6g N and %.6g N", p.Body.TiltRad*180/math.Pi, p.Body.Legs[0], p.Body.Legs[1])
+}
+
+// tandemCorners keeps the corners and heading of the rest it comes from:
+// asked at one rope length, another, and the first again, each answer is
+// the one made afresh from that length's rest, bit for bit; and an
+// evaluation after the corners were kept (the second at a length) gives
+// the body point of the one that made them.
+func TestTandemCornersKept(t *testing.T) {
+	r := tandemGirder(5, [2]float64{0.6, -0.2})
+	mustPrepare(t, r)
+	y := r.Rest(0)
+	for _, l := range []float64{5, 6.5, 5, 5} {
+		rc, h, c := r.tandemCorners(l)
+		q, c0 := r.tandemRest(l)
+		var want [8]r3.Vec
+		h0 := r.restCornersInto(q, c0, &want)
+		if *rc != want || h != h0 || c != c0 {
+			t.Errorf("l = %g m: corners %v, heading %g, centre %v; made afresh %v, %g, %v", l, *rc, h, c, want, h0, c0)
+		}
+		var first, again Point
+		r.Eval(0.3, y, &first) // at the load's own rope length, 5 m
+		b := *first.Body
+		r.Eval(0.3, y, &again)
+		if !reflect.DeepEqual(*again.Body, b) {
+			t.Errorf("after l = %g m: body point %+v, then %+v", l, b, *again.Body)
+		}
+	}
 }
