@@ -499,10 +499,12 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 // accelInto is accel written into z (wholly) and lam (its first len(rows)
 // entries; the callers pass it zero): the evaluations' way, without the
 // copies of results returned by value. M^-1 (minv) is written out on the
-// inverse inertia's elements as locals, and one constraint (four legs)
-// is solved by one division: minv's and solve3's calls and the arrays
-// they read cost most in wasm. accelByParts (tests) is the same with the
-// calls, held to the same bits by TestAccelAsByParts.
+// inverse inertia's elements as locals, one constraint (four legs) is
+// solved by one division and two (parallel legs, two hook ropes) by
+// solve3's case 2 on locals: minv's and solve3's calls and the arrays
+// they read cost most in wasm (three, two legs with the hook block, go to
+// constrained). accelByParts (tests) is the same with the calls, held to
+// the same bits by TestAccelAsByParts.
 func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 	geo := r.geo
 	rws := r.rows(f, r.sc.rows[:0])
@@ -562,6 +564,42 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 		}
 		return
 	}
+	if n == 2 {
+		// Two constraints (parallel legs, two hook ropes): the loops
+		// below for n = 2 with solve3's case 2, written out (no loop
+		// inside another: Go's wasm makes only the innermost of nested
+		// loops a wasm loop). The same operations in the same order.
+		j0, j1 := &rws[0].j, &rws[1].j
+		a00, a01 := dot9(j0, &mj[0]), dot9(j0, &mj[1])
+		b0 := -rws[0].kappa - dot9(j0, mf)
+		a10, a11 := dot9(j1, &mj[0]), dot9(j1, &mj[1])
+		b1 := -rws[1].kappa - dot9(j1, mf)
+		if math.Abs(a10) > math.Abs(a00) {
+			a00, a01, a10, a11, b0, b1 = a10, a11, a00, a01, b1, b0
+		}
+		m := a10 / a00
+		a11 -= m * a01
+		b1 -= m * b0
+		x1 := b1 / a11
+		lam[0], lam[1] = (b0-a01*x1)/a00, x1
+		for k := range 9 {
+			z[k] += lam[0] * mj[0][k]
+		}
+		for k := range 9 {
+			z[k] += lam[1] * mj[1][k]
+		}
+		return
+	}
+	constrained(rws, mj, z, lam)
+}
+
+// constrained adds the constraints' parts to z = M^-1 f (mj their
+// M^-1 J^T rows) for any number of constraints up to three, and writes
+// their multipliers into lam: accelInto's general case, in a function of
+// its own so that accelInto has no loop inside another.
+func constrained(rws []row, mj *[3][9]float64, z *[9]float64, lam *[3]float64) {
+	n := min(len(rws), 3)
+	mf := z
 	var a [3][3]float64
 	var b [3]float64
 	for i := range n {
