@@ -594,25 +594,40 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 }
 
 // constrained adds the constraints' parts to z = M^-1 f (mj their
-// M^-1 J^T rows) for any number of constraints up to three, and writes
-// their multipliers into lam: accelInto's general case, in a function of
-// its own so that accelInto has no loop inside another.
+// M^-1 J^T rows) and writes their multipliers into lam: accelInto's case
+// of three constraints (two legs and the hook block; fewer work too, the
+// products beyond them unused).
 func constrained(rws []row, mj *[3][9]float64, z *[9]float64, lam *[3]float64) {
 	n := min(len(rws), 3)
 	mf := z
+	// The rows one by one and the sums written out, as in correction.
 	var a [3][3]float64
 	var b [3]float64
-	for i := range n {
-		for k := range n {
-			a[i][k] = dot9(&rws[i].j, &mj[k])
-		}
-		b[i] = -rws[i].kappa - dot9(&rws[i].j, mf)
+	j0 := &rws[0].j
+	a[0][0], a[0][1], a[0][2] = dot9(j0, &mj[0]), dot9(j0, &mj[1]), dot9(j0, &mj[2])
+	b[0] = -rws[0].kappa - dot9(j0, mf)
+	if n > 1 {
+		j1 := &rws[1].j
+		a[1][0], a[1][1], a[1][2] = dot9(j1, &mj[0]), dot9(j1, &mj[1]), dot9(j1, &mj[2])
+		b[1] = -rws[1].kappa - dot9(j1, mf)
+	}
+	if n > 2 {
+		j2 := &rws[2].j
+		a[2][0], a[2][1], a[2][2] = dot9(j2, &mj[0]), dot9(j2, &mj[1]), dot9(j2, &mj[2])
+		b[2] = -rws[2].kappa - dot9(j2, mf)
 	}
 	solve3(&a, &b, n, lam)
 	for i := range n {
-		for k := range 9 {
-			z[k] += lam[i] * mj[i][k]
-		}
+		l, m := lam[i], &mj[i]
+		z[0] += l * m[0]
+		z[1] += l * m[1]
+		z[2] += l * m[2]
+		z[3] += l * m[3]
+		z[4] += l * m[4]
+		z[5] += l * m[5]
+		z[6] += l * m[6]
+		z[7] += l * m[7]
+		z[8] += l * m[8]
 	}
 }
 

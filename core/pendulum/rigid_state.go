@@ -79,15 +79,35 @@ func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	if n > 3 {
 		panic("pendulum: more than three constraints") // Prepare makes at most three; the check lets Go drop the loops' index checks
 	}
+	// G G^T is symmetric to the bit (the same products, summed in the
+	// same order): each pair's dot product once. The pairs and the
+	// corrections' sums written out, no loop inside another (dot9 is a
+	// loop): the rigid loads 3 to 5 % faster natively and as wasm than
+	// with the loops over the constraints nested.
+	if n == 0 {
+		return
+	}
 	var a [3][3]float64
 	var b [3]float64
-	for i := range n {
-		// G G^T is symmetric to the bit (the same products, summed in
-		// the same order): each pair's dot product once.
-		for k := i; k < n; k++ {
-			a[i][k] = dot9(&rws[i].j, &rws[k].j)
-			a[k][i] = a[i][k]
+	j0 := &rws[0].j
+	a[0][0] = dot9(j0, j0)
+	if n > 1 {
+		j1 := &rws[1].j
+		a[0][1] = dot9(j0, j1)
+		a[1][0] = a[0][1]
+		if n > 2 {
+			j2 := &rws[2].j
+			a[0][2] = dot9(j0, j2)
+			a[2][0] = a[0][2]
+			a[1][1] = dot9(j1, j1)
+			a[1][2] = dot9(j1, j2)
+			a[2][1] = a[1][2]
+			a[2][2] = dot9(j2, j2)
+		} else {
+			a[1][1] = dot9(j1, j1)
 		}
+	}
+	for i := range n {
 		if rates {
 			b[i] = -rws[i].dphi
 		} else {
@@ -97,9 +117,16 @@ func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	var lam [3]float64
 	solve3(&a, &b, n, &lam)
 	for i := range n {
-		for k := range 9 {
-			d[k] += lam[i] * rws[i].j[k]
-		}
+		l, j := lam[i], &rws[i].j
+		d[0] += l * j[0]
+		d[1] += l * j[1]
+		d[2] += l * j[2]
+		d[3] += l * j[3]
+		d[4] += l * j[4]
+		d[5] += l * j[5]
+		d[6] += l * j[6]
+		d[7] += l * j[7]
+		d[8] += l * j[8]
 	}
 }
 
