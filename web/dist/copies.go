@@ -112,18 +112,11 @@ func copiesCode(sec []byte, params []int, maxBytes int, st *CopyStats) ([]byte, 
 
 // copiesFunc rewrites one function body, its locals declared first.
 func copiesFunc(body []byte, nParams, maxBytes int, st *CopyStats) ([]byte, error) {
-	br := &WasmReader{B: body}
-	groups := br.ULEB()
-	count := len(body) - len(br.B) // the groups' count, as written
-	locals := 0
-	for range groups {
-		locals += br.ULEB()
-		br.Bytes(1) // type
+	fb, err := readBody(body)
+	if err != nil {
+		return nil, err
 	}
-	if br.Err != nil {
-		return nil, br.Err
-	}
-	decls, code := body[:len(body)-len(br.B)], br.B
+	groups, count, locals, decls, code := fb.groups, fb.countLen, fb.locals, fb.decls, fb.code
 	ins, err := decodeInstrs(code)
 	if err != nil {
 		return nil, err

@@ -73,20 +73,15 @@ type JumpStats struct {
 // instructions.
 func directCode(sec []byte, st *JumpStats) ([]byte, error) {
 	return eachBody(sec, "jumps", func(_ int, body []byte) ([]byte, error) {
-		br := &WasmReader{B: body}
-		for range br.ULEB() {
-			br.ULEB()   // count
-			br.Bytes(1) // type
-		}
-		if br.Err != nil {
-			return nil, br.Err
-		}
-		head := body[:len(body)-len(br.B)]
-		code, err := directFunc(br.B, st)
+		fb, err := readBody(body)
 		if err != nil {
 			return nil, err
 		}
-		return append(head[:len(head):len(head)], code...), nil
+		code, err := directFunc(fb.code, st)
+		if err != nil {
+			return nil, err
+		}
+		return append(fb.decls[:len(fb.decls):len(fb.decls)], code...), nil
 	})
 }
 

@@ -62,15 +62,11 @@ const (
 
 // foldFunc rewrites one function body, its locals declared first.
 func foldFunc(body []byte, st *FoldStats) ([]byte, error) {
-	br := &WasmReader{B: body}
-	for range br.ULEB() {
-		br.ULEB()
-		br.Bytes(1)
+	fb, err := readBody(body)
+	if err != nil {
+		return nil, err
 	}
-	if br.Err != nil {
-		return nil, br.Err
-	}
-	decls, code := body[:len(body)-len(br.B)], br.B
+	decls, code := fb.decls, fb.code
 	ins, err := decodeInstrs(code)
 	if err != nil {
 		return nil, err

@@ -56,3 +56,31 @@ func eachBody(sec []byte, pass string, f func(i int, body []byte) ([]byte, error
 	}
 	return out, nil
 }
+
+// funcBody is a function body of the code section cut in two: its local
+// declarations (the groups' count, then each group's count and type) and
+// its instructions.
+type funcBody struct {
+	decls, code []byte
+	groups      int // local groups declared
+	countLen    int // bytes of the groups' count at the start of decls
+	locals      int // locals declared
+}
+
+// readBody cuts a function body (section 5.5.13) in its declarations and
+// its instructions.
+func readBody(body []byte) (funcBody, error) {
+	br := &WasmReader{B: body}
+	var fb funcBody
+	fb.groups = br.ULEB()
+	fb.countLen = len(body) - len(br.B)
+	for range fb.groups {
+		fb.locals += br.ULEB()
+		br.Bytes(1) // type
+	}
+	if br.Err != nil {
+		return fb, br.Err
+	}
+	fb.decls, fb.code = body[:len(body)-len(br.B)], br.B
+	return fb, nil
+}
