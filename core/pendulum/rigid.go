@@ -595,8 +595,8 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 
 // constrained adds the constraints' parts to z = M^-1 f (mj their
 // M^-1 J^T rows) and writes their multipliers into lam: accelInto's case
-// of three constraints (two legs and the hook block; fewer work too, the
-// products beyond them unused).
+// of three constraints (two legs and the hook block). It takes fewer too,
+// leaving the products beyond them unused.
 func constrained(rws []row, mj *[3][9]float64, z *[9]float64, lam *[3]float64) {
 	n := min(len(rws), 3)
 	mf := z
