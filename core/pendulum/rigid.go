@@ -501,7 +501,7 @@ func (r *Rigid) accel(f *frame) (z [9]float64, lam [3]float64) {
 // copies of results returned by value. M^-1 (minv) is written out on the
 // inverse inertia's elements as locals, one constraint (four legs) is
 // solved by one division and two (parallel legs, two hook ropes) by
-// solve3's case 2 on locals: minv's and solve3's calls and the arrays
+// solve2 on locals: minv's and solve3's calls and the arrays
 // they read cost most in wasm (three, two legs with the hook block, go to
 // constrained). accelByParts (tests) is the same with the calls, held to
 // the same bits by TestAccelAsByParts.
@@ -565,23 +565,15 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 		return
 	}
 	if n == 2 {
-		// Two constraints (parallel legs, two hook ropes): the loops
-		// below for n = 2 with solve3's case 2, written out (no loop
-		// inside another: Go's wasm makes only the innermost of nested
-		// loops a wasm loop). The same operations in the same order.
+		// Two constraints (parallel legs, two hook ropes): constrained's
+		// sums for n = 2 and solve3's case 2 (solve2) on locals, no
+		// loop inside another. The same operations in the same order.
 		j0, j1 := &rws[0].j, &rws[1].j
 		a00, a01 := dot9(j0, &mj[0]), dot9(j0, &mj[1])
 		b0 := -rws[0].kappa - dot9(j0, mf)
 		a10, a11 := dot9(j1, &mj[0]), dot9(j1, &mj[1])
 		b1 := -rws[1].kappa - dot9(j1, mf)
-		if math.Abs(a10) > math.Abs(a00) {
-			a00, a01, a10, a11, b0, b1 = a10, a11, a00, a01, b1, b0
-		}
-		m := a10 / a00
-		a11 -= m * a01
-		b1 -= m * b0
-		x1 := b1 / a11
-		lam[0], lam[1] = (b0-a01*x1)/a00, x1
+		lam[0], lam[1] = solve2(a00, a01, a10, a11, b0, b1)
 		for k := range 9 {
 			z[k] += lam[0] * mj[0][k]
 		}

@@ -160,6 +160,20 @@ func dot9(a, b *[9]float64) float64 {
 	return s
 }
 
+// solve2 solves [a00 a01; a10 a11] x = (b0, b1) as eliminate does
+// (partial pivoting; its update of a10 is never read), on local
+// variables: solve3's case 2, and accelInto's for two constraints.
+func solve2(a00, a01, a10, a11, b0, b1 float64) (x0, x1 float64) {
+	if math.Abs(a10) > math.Abs(a00) {
+		a00, a01, a10, a11, b0, b1 = a10, a11, a00, a01, b1, b0
+	}
+	m := a10 / a00
+	a11 -= m * a01
+	b1 -= m * b0
+	x1 = b1 / a11
+	return (b0 - a01*x1) / a00, x1
+}
+
 // solve3 solves the leading n by n block of a x = b by Gaussian
 // elimination with partial pivoting (n <= 3), into x (its first n):
 // eliminate's operations, for each n written out on local variables (in
@@ -174,18 +188,9 @@ func solve3(a *[3][3]float64, b *[3]float64, n int, x *[3]float64) {
 		x[0] = b[0] / a[0][0]
 		return
 	case 2:
-		// Two (parallel legs, two hook ropes): the same operations on
-		// local variables (the elimination's update of a[1][0] is never
-		// read); a and b are left as they were.
-		a00, a01, a10, a11, b0, b1 := a[0][0], a[0][1], a[1][0], a[1][1], b[0], b[1]
-		if math.Abs(a10) > math.Abs(a00) {
-			a00, a01, a10, a11, b0, b1 = a10, a11, a00, a01, b1, b0
-		}
-		m := a10 / a00
-		a11 -= m * a01
-		b1 -= m * b0
-		x1 := b1 / a11
-		x[0], x[1] = (b0-a01*x1)/a00, x1
+		// Two (parallel legs, two hook ropes): solve2, on local
+		// variables; a and b are left as they were.
+		x[0], x[1] = solve2(a[0][0], a[0][1], a[1][0], a[1][1], b[0], b[1])
 		return
 	case 3:
 		// Three (two legs and the hook block): likewise; the updates of
