@@ -16,7 +16,8 @@ const PackGap = 32
 // jumps made direct (DirectJumps), its copies and clears of a known size
 // up to CopyLimit bytes written out (WriteOutCopies), the constant parts
 // of addresses moved into the loads' and stores' offsets (FoldOffsets),
-// then its data segments joined (PackData).
+// the frame's slots that never wait across a call kept in locals
+// (LocalSpills), then its data segments joined (PackData).
 func Pack(wasm []byte) ([]byte, PackStats, error) {
 	var st PackStats
 	out, js, err := DirectJumps(wasm)
@@ -30,6 +31,9 @@ func Pack(wasm []byte) ([]byte, PackStats, error) {
 	if out, st.Offsets, err = FoldOffsets(out); err != nil {
 		return nil, st, err
 	}
+	if out, st.Spills, err = LocalSpills(out); err != nil {
+		return nil, st, err
+	}
 	out, err = PackData(out, PackGap)
 	return out, st, err
 }
@@ -39,6 +43,7 @@ type PackStats struct {
 	JumpStats
 	Copies  CopyStats
 	Offsets FoldStats
+	Spills  SpillStats
 }
 
 // PackFile packs the wasm file name in place (Pack) and returns what

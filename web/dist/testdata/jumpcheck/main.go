@@ -1,8 +1,9 @@
 // Command jumpcheck prints what a Go program's control flow gives: loops,
 // switches, goroutines and channels (the wasm stack unwinds and resumes),
 // deep recursion (the stack grows), panics with their lines, defers,
-// closures, maps, floats, timers, and copies and clears of structs and
-// arrays of several sizes (WriteOutCopies). TestDirectJumpsRunTheSame runs it as
+// closures, maps, floats, timers, copies and clears of structs and
+// arrays of several sizes (WriteOutCopies), and floats beyond the
+// registers on both sides of a goroutine switch (LocalSpills). TestDirectJumpsRunTheSame runs it as
 // go build writes it and packed (web/dist.Pack): the output must be the
 // same.
 package main
@@ -209,8 +210,50 @@ func copies() string {
 	return fmt.Sprintf("copies %d %s", kinds, strconv.FormatFloat(sum, 'g', -1, 64))
 }
 
+// tangle keeps more floats live than Go's 16 float registers hold, so
+// some wait in the frame between uses, with no call in between
+// (LocalSpills keeps those in locals).
+func tangle(v *[24]float64) float64 {
+	a0, a1, a2, a3, a4, a5 := v[0]*v[1], v[2]*v[3], v[4]*v[5], v[6]*v[7], v[8]*v[9], v[10]*v[11]
+	b0, b1, b2, b3, b4, b5 := v[12]+v[13], v[14]+v[15], v[16]+v[17], v[18]+v[19], v[20]+v[21], v[22]+v[23]
+	c0, c1, c2, c3, c4, c5 := a0-b5, a1-b4, a2-b3, a3-b2, a4-b1, a5-b0
+	// All eighteen are live here, and used again in the other order.
+	s := a0 + a1 + a2 + a3 + a4 + a5 + b0 + b1 + b2 + b3 + b4 + b5 + c0 + c1 + c2 + c3 + c4 + c5
+	return s + c5*a0 + c4*a1 + c3*a2 + c2*a3 + c1*a4 + c0*a5 + b5*b0 + b4*b1 + b3*b2
+}
+
+// pressure keeps floats live across calls; with yield set a goroutine
+// switch and a stack growth come between their uses, so they must stay
+// in the frame.
+func pressure(seed float64, yield bool) float64 {
+	var v [24]float64
+	for i := range v {
+		v[i] = math.Sqrt(seed + float64(i))
+	}
+	t := tangle(&v)
+	s0, s1, s2, s3, s4, s5, s6, s7 := v[0]*t, v[1]*t, v[2]*t, v[3]*t, v[4]-t, v[5]-t, v[6]-t, v[7]-t
+	if yield {
+		runtime.Gosched()
+		s0 += deep(3000)
+	}
+	v[0] += s0
+	return s0*s1 + s2*s3 + s4*s5 + s6*s7 + tangle(&v)
+}
+
 func main() {
 	fmt.Println(copies())
+	var press []string
+	done := make(chan bool)
+	for g := range 3 {
+		go func() {
+			for i := range 4 {
+				press = append(press, strconv.FormatFloat(pressure(float64(g*10+i), i%2 == 1), 'g', -1, 64))
+			}
+			done <- true
+		}()
+		<-done
+	}
+	fmt.Println("pressure", press)
 	sum := 0
 	for i := 1; i < 3000; i++ {
 		sum += collatz(i)
