@@ -237,7 +237,7 @@ func (r *Rigid) Fixed(l float64) *Rigid {
 	c := *r
 	c.Suspension = func(float64) Kinematics { return Kinematics{} }
 	c.Rope = func(float64) (float64, float64, float64) { return l, 0, 0 }
-	c.Force, c.Yaw = nil, nil
+	c.Force, c.Yaw, c.Travel = nil, nil, nil
 	return &c
 }
 

@@ -159,6 +159,7 @@ func build(s *scenario.Scenario, validate bool) (*setup, error) {
 		if err != nil {
 			return nil, err
 		}
+		r.Travel = travelOf(&ax, l0, s.Crane.Start())
 		su.model, su.y0, su.breaks = r, y0, breaks
 		return su, nil
 	}

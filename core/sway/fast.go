@@ -75,6 +75,9 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 	if _, concrete := su.model.(*fastDouble); su.model == nil || (concrete && opt.General) {
 		su.model = su.general()
 	}
+	if r, ok := su.model.(*pendulum.Rigid); ok && opt.General {
+		r.Travel = nil // the closures over the combined profiles
+	}
 	sc := newScanner(su.model, su.motionEnd)
 	sc.maxSteps = maxN
 	sc.recorder = rec

@@ -7,27 +7,12 @@ import (
 
 	"swaysheet/core/internal/sorts"
 	"swaysheet/core/motion"
+	"swaysheet/core/pendulum"
 )
 
-// span is one piece of an axis' flattened motion: from start on (up to the
-// next span's start) the axis is at
-//
-//	pos = p + v*u + a*u²/2 + j*u³/6,  vel = v + a*u + j*u²/2,
-//	acc = a + j*u,  jerk = j,  with u = t - origin.
-//
-// The first span of a table starts at -Inf and has its origin at the
-// first breakpoint (a profile before its first span moves steadily).
-type span struct {
-	_             [0]func() // not comparable: no equality function (see fastScan)
-	start, origin float64
-	p, v, a, j    float64
-}
-
-// at evaluates the span at t (Horner form).
-func (s *span) at(t float64) (pos, vel, acc float64) {
-	u := t - s.origin
-	return s.p + u*(s.v+u*(0.5*s.a+u*s.j*(1.0/6))), s.v + u*(s.a+u*0.5*s.j), s.a + u*s.j
-}
+// span is one piece of an axis' flattened motion (pendulum.Span: the
+// rigid loads' path evaluates the same tables).
+type span = pendulum.Span
 
 // axisTable is the sum of every profile on one axis, flattened into a
 // single table of constant-jerk spans (one polynomial per interval between
@@ -43,7 +28,7 @@ func (a axisTable) spanAt(t float64) span {
 	if len(a) == 0 {
 		return span{}
 	}
-	i := sort.Search(len(a), func(i int) bool { return a[i].start > t }) - 1
+	i := sort.Search(len(a), func(i int) bool { return a[i].Start > t }) - 1
 	return a[max(i, 0)]
 }
 
@@ -129,30 +114,30 @@ func flatten(comps [][]motion.Piece) axisTable {
 	ts = slices.Compact(ts)
 	tab := make(axisTable, 0, len(ts)+1)
 	// Before the first breakpoint every component moves steadily.
-	first := span{start: math.Inf(-1), origin: ts[0]}
+	first := span{Start: math.Inf(-1), Origin: ts[0]}
 	for _, c := range comps {
 		p0 := c[0]
-		first.p += p0.P + p0.V*(ts[0]-p0.T)
-		first.v += p0.V
+		first.P += p0.P + p0.V*(ts[0]-p0.T)
+		first.V += p0.V
 	}
 	tab = append(tab, first)
 	for _, t := range ts {
-		s := span{start: t, origin: t}
+		s := span{Start: t, Origin: t}
 		for _, c := range comps {
 			i := sort.Search(len(c), func(i int) bool { return c[i].T > t }) - 1
 			if i < 0 {
 				p0 := c[0]
-				s.p += p0.P + p0.V*(t-p0.T)
-				s.v += p0.V
+				s.P += p0.P + p0.V*(t-p0.T)
+				s.V += p0.V
 				continue
 			}
 			q := c[i]
 			// The piece's polynomial re-expanded about t.
 			u := t - q.T
-			s.p += q.P + u*(q.V+u*(0.5*q.A+u*q.J*(1.0/6)))
-			s.v += q.V + u*(q.A+u*0.5*q.J)
-			s.a += q.A + u*q.J
-			s.j += q.J
+			s.P += q.P + u*(q.V+u*(0.5*q.A+u*q.J*(1.0/6)))
+			s.V += q.V + u*(q.A+u*0.5*q.J)
+			s.A += q.A + u*q.J
+			s.J += q.J
 		}
 		tab = append(tab, s)
 	}

@@ -49,8 +49,8 @@ func (d *fastDouble) eval(t float64, y, dy *[12]float64, p *pendulum.Point) {
 	var k kin
 	if m := d.k; !m.slewing && !m.hoisting {
 		// Travel alone: the two axes' spans, the rope at its length.
-		k.px, k.vx, k.ax = m.sx.at(t)
-		k.py, k.vy, k.ay = m.sy.at(t)
+		k.px, k.vx, k.ax = m.sx.At(t)
+		k.py, k.vy, k.ay = m.sy.At(t)
 		k.l = m.l0
 	} else {
 		k = m.kinAt(t)

@@ -86,14 +86,14 @@ func (s *fastScan) emit(t0, t1 float64) {
 		y0, y1, y2, y3, y4, y5, _ = projected(y0, y1, y2, y3, y4, y5)
 		var px, py, ax, ay float64
 		if hasX {
-			px, _, ax = m.sx.at(tt)
+			px, _, ax = m.sx.At(tt)
 		}
 		if hasY {
-			py, _, ay = m.sy.at(tt)
+			py, _, ay = m.sy.At(tt)
 		}
 		l, ddl := m.l0, math.Copysign(0, -1)
 		if m.hoisting {
-			h, _, ddh := m.sh.at(tt)
+			h, _, ddh := m.sh.At(tt)
 			l, ddl = m.l0-h, -ddh
 		}
 		rx, ry, rz := -ax, -ay, -m.g

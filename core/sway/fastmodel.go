@@ -135,24 +135,24 @@ func (m *fastModel) kinAt(t float64) kin { return m.kinOf(t, true) }
 // polynomial gives +0 for every t >= 0, as the zero values do.
 func (m *fastModel) kinOf(t float64, jerk bool) (k kin) {
 	if len(m.x) > 0 {
-		k.px, k.vx, k.ax = m.sx.at(t)
+		k.px, k.vx, k.ax = m.sx.At(t)
 	}
 	if len(m.y) > 0 {
-		k.py, k.vy, k.ay = m.sy.at(t)
+		k.py, k.vy, k.ay = m.sy.At(t)
 	}
-	k.jx, k.jy = m.sx.j, m.sy.j
+	k.jx, k.jy = m.sx.J, m.sy.J
 	var h, dh, ddh float64
 	if m.hoisting {
-		h, dh, ddh = m.sh.at(t)
+		h, dh, ddh = m.sh.At(t)
 	}
-	k.l, k.dl, k.ddl, k.dddl = m.l0-h, -dh, -ddh, -m.sh.j
+	k.l, k.dl, k.ddl, k.dddl = m.l0-h, -dh, -ddh, -m.sh.J
 	if m.slewing {
 		var p, w, al, q, rd, rdd float64
 		if len(m.slew) > 0 {
-			p, w, al = m.ss.at(t)
+			p, w, al = m.ss.At(t)
 		}
 		if len(m.radius) > 0 {
-			q, rd, rdd = m.sr.at(t)
+			q, rd, rdd = m.sr.At(t)
 		}
 		phi, r := m.phi0+p, m.r0+q
 		// One argument reduction for both (Sin and Cos are written in Go, in
@@ -170,8 +170,8 @@ func (m *fastModel) kinOf(t float64, jerk bool) (k kin) {
 			return k
 		}
 		// The jerk: the rates of ar and at, and the turning of the arm.
-		dar := m.sr.j - rd*w*w - 2*r*w*al
-		dat := r*m.ss.j + 3*rd*al + 2*rdd*w
+		dar := m.sr.J - rd*w*w - 2*r*w*al
+		dat := r*m.ss.J + 3*rd*al + 2*rdd*w
 		jr, jt := dar-at*w, dat+ar*w
 		k.jx += jr*c - jt*s
 		k.jy += jr*s + jt*c
@@ -242,7 +242,7 @@ func (m *fastModel) relAt(t float64, y *[6]float64) (rx, ry, rz, l, dl, ddl floa
 	}
 	l = m.l0
 	if m.hoisting {
-		h, dh, ddh := m.sh.at(t)
+		h, dh, ddh := m.sh.At(t)
 		l, dl, ddl = m.l0-h, -dh, -ddh
 	}
 	rx, ry = m.travelRel(t)
@@ -255,7 +255,7 @@ func (m *fastModel) simple() bool { return m.travel }
 
 // travelRel is -S¨ of a suspension point on travel moves alone.
 func (m *fastModel) travelRel(t float64) (rx, ry float64) {
-	return -(m.sx.a + (t-m.sx.origin)*m.sx.j), -(m.sy.a + (t-m.sy.origin)*m.sy.j)
+	return -(m.sx.A + (t-m.sx.Origin)*m.sx.J), -(m.sy.A + (t-m.sy.Origin)*m.sy.J)
 }
 
 // rhs is the right-hand side y' = f(t, y): n' = u and
@@ -287,7 +287,7 @@ func (m *fastModel) rhs(t float64, y, dy *[6]float64) {
 		// fewer a stage, which in wasm costs more than this arithmetic).
 		l := m.l0
 		if m.hoisting {
-			h, dh, _ := m.sh.at(t)
+			h, dh, _ := m.sh.At(t)
 			l, dl = m.l0-h, -dh
 		}
 		rx, ry = m.travelRel(t)

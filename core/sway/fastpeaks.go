@@ -40,7 +40,7 @@ func (s *fastScan) measureAt(t float64, y, yd *[6]float64, out *measure) {
 	if md.simple() {
 		rx, ry = md.travelRel(t)
 		rz, l = -md.g, md.l0
-		jx, jy = -md.sx.j, -md.sy.j
+		jx, jy = -md.sx.J, -md.sy.J
 	} else {
 		k := md.kinAt(t)
 		switch {

@@ -35,8 +35,8 @@ func (v *fastSolver) stages(t, h, tn float64) {
 	k1, k2, k3, k4, k5, k6, k7 := &v.k[0], &v.k[1], &v.k[2], &v.k[3], &v.k[4], &v.k[5], &v.k[6]
 	m := v.m
 	travel := m.travel
-	ax, ay, jx, jy := m.sx.a, m.sy.a, m.sx.j, m.sy.j
-	ox, oy, il, rz := m.sx.origin, m.sy.origin, m.il, -m.g
+	ax, ay, jx, jy := m.sx.A, m.sy.A, m.sx.J, m.sy.J
+	ox, oy, il, rz := m.sx.Origin, m.sy.Origin, m.il, -m.g
 	travelRHS := func(t float64, y, dy *[6]float64) {
 		rx, ry := -(ax + (t-ox)*jx), -(ay + (t-oy)*jy)
 		cn := -(rx*y[0]+ry*y[1]+rz*y[2])*il - (y[3]*y[3] + y[4]*y[4] + y[5]*y[5])

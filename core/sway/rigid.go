@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"swaysheet/core/crane"
 	"swaysheet/core/motion"
 	"swaysheet/core/pendulum"
 	"swaysheet/core/scenario"
@@ -180,6 +181,18 @@ func bodyValue(q quantity, b *pendulum.BodyPoint) float64 {
 // gets the warning that its twist is not restrained (tag lines for long
 // loads: common practice).
 const LongLoadM = 3.0
+
+// travelOf is a rigid load's suspension point and rope as the span tables
+// of the specialised path (pendulum.Travel) when the crane has no slewing
+// arm and every profile flattens; nil otherwise, for the closures over the
+// combined profiles. Options.General leaves it out (integrate).
+func travelOf(ax *crane.Drives, l0 float64, at crane.Start) *pendulum.Travel {
+	k := newFastModel(ax, l0, at, 0, nil)
+	if k == nil || k.slewing {
+		return nil
+	}
+	return pendulum.NewTravel(k.x, k.y, k.hoist, l0)
+}
 
 // rigidModel is the rigid-load model of a validated scenario with
 // load.body, and its initial state.
