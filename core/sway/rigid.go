@@ -145,12 +145,13 @@ func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {
 	f[o] = b.TiltRad / units.Degree
 	o += n
 	f[o] = b.TwistRad / units.Degree
+	// Written out, not a loop over the seven inside the loop over the
+	// legs (a loop inside another goes round wasm's dispatch loop).
 	for i := range b.NLegs {
-		t, e := b.LegTop[i], b.LegEnd[i]
-		for _, v := range [7]float64{b.Legs[i], t.X, t.Y, t.Z, e.X, e.Y, e.Z} {
-			o += n
-			f[o] = v
-		}
+		t, e := &b.LegTop[i], &b.LegEnd[i]
+		f[o+n], f[o+2*n], f[o+3*n], f[o+4*n] = b.Legs[i], t.X, t.Y, t.Z
+		f[o+5*n], f[o+6*n], f[o+7*n] = e.X, e.Y, e.Z
+		o += 7 * n
 	}
 	for _, c := range b.Corners {
 		o += n
