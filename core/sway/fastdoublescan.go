@@ -256,6 +256,9 @@ func (s *doubleScan) run(y0 []float64, breaks []float64, tEnd float64) error {
 		s.pt.T = tEnd
 		s.record(&s.pt)
 	}
+	if s.hist != nil {
+		s.swings()
+	}
 	return nil
 }
 

@@ -10,7 +10,6 @@ import (
 	"swaysheet/core/motion"
 	"swaysheet/core/ode"
 	"swaysheet/core/pendulum"
-	"swaysheet/core/units"
 )
 
 // scanner integrates the model and watches every step for extremes,
@@ -263,6 +262,7 @@ func (s *scanner) run(y0 []float64, breaks []float64, tEnd, relTol float64) erro
 			s.pt.T = tEnd
 			s.record(&s.pt)
 		}
+		s.swings()
 	}
 	return nil
 }
@@ -364,11 +364,20 @@ func (h *History) series() [11]*[]float64 {
 		&h.LoadYM, &h.SuspensionXM, &h.SuspensionYM, &h.TensionN, &h.RopeM}
 }
 
+// swings writes the samples' swing angles at the end of a run, from their
+// rope components, as the single-rope path does (swingDegrees): not two
+// calls of package math's per sample (Atan2 and Hypot, each a call of its
+// own in wasm). record leaves them out.
+func (s *recorder) swings() {
+	h := s.hist
+	h.SwingDeg = h.SwingDeg[:len(h.TimeS)]
+	swingDegrees(h.SwingDeg, h.RelXM, h.RelYM, h.RelZM)
+}
+
 func (s *recorder) record(p *pendulum.Point) {
 	h := s.hist
 	rel := p.Rel()
 	h.TimeS = append(h.TimeS, float64(s.next)*s.sampleDt)
-	h.SwingDeg = append(h.SwingDeg, p.SwingRad()/units.Degree)
 	h.RelXM = append(h.RelXM, rel.X)
 	h.RelYM = append(h.RelYM, rel.Y)
 	h.RelZM = append(h.RelZM, rel.Z)
