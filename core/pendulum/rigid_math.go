@@ -288,6 +288,14 @@ func hypot(p, q float64) float64 {
 	return p * math.Sqrt(1+q*q)
 }
 
+// length is |v| as the square root of v.v: the hardware square root (one
+// instruction in wasm too), inlined, where norm is two scaled hypotenuses
+// in a call. For the vectors of a load's evaluation (legs and ropes in
+// metres, pulls in newtons: far from overflow and underflow) the two agree
+// to rounding (TestLengthAsNorm); evalForces asks it four to six times an
+// evaluation.
+func length(v r3.Vec) float64 { return math.Sqrt(v.X*v.X + v.Y*v.Y + v.Z*v.Z) }
+
 // norm is r3.Norm(v), hypot(v.X, hypot(v.Y, v.Z)), in one call: in wasm
 // r3.Norm is three.
 func norm(v r3.Vec) float64 {

@@ -115,9 +115,9 @@ func TestEvalEndsAsKin(t *testing.T) {
 			if r.Pivot {
 				d = r3.Sub(p.LoadPos, f.s.Pos)
 			}
-			dir := r3.Scale(1/r3.Norm(d), d)
+			dir := r3.Scale(1/length(d), d)
 			rel := r3.Sub(k.v, f.s.Vel)
-			rate := r3.Scale(1/r3.Norm(d), r3.Sub(rel, r3.Scale(r3.Dot(rel, dir), dir)))
+			rate := r3.Scale(1/length(d), r3.Sub(rel, r3.Scale(r3.Dot(rel, dir), dir)))
 			z, lam := r.accel(&f)
 			rope := r3.Scale(lam[0], r3.Sub(k.p, f.s.Pos))
 			if r.Pivot {
@@ -125,8 +125,8 @@ func TestEvalEndsAsKin(t *testing.T) {
 			}
 			aH := r3.Add(r3.Add(r3.Vec{X: z[0], Y: z[1], Z: z[2]}, r3.Cross(r3.Vec{X: z[3], Y: z[4], Z: z[5]}, k.arm)), k.a0)
 			pull := r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
-			if p.Rate != rate || p.RiggingTension != r3.Norm(pull) {
-				t.Errorf("%s, t = %g s: rate %v, rigging %v; from kinInto %v, %v", name, tm, p.Rate, p.RiggingTension, rate, r3.Norm(pull))
+			if p.Rate != rate || p.RiggingTension != length(pull) {
+				t.Errorf("%s, t = %g s: rate %v, rigging %v; from kinInto %v, %v", name, tm, p.Rate, p.RiggingTension, rate, length(pull))
 			}
 		}
 	}

@@ -233,11 +233,11 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 			ap, av := r3.Add(f.x, arm), r3.Add(f.v, r3.Cross(f.w, arm))
 			tp, tv := f.topPoint(i)
 			d := r3.Sub(ap, tp)
-			bp.LegsUp[i] = -bp.Legs[i] * d.Z / norm(d)
+			bp.LegsUp[i] = -bp.Legs[i] * d.Z / length(d)
 			dir = r3.Add(dir, d)
 			rate = r3.Add(rate, r3.Sub(av, tv))
 		}
-		n := norm(dir)
+		n := length(dir)
 		p.Dir = r3.Scale(1/n, dir)
 		p.Rate = r3.Scale(1/n, r3.Sub(rate, r3.Scale(r3.Dot(rate, p.Dir), p.Dir)))
 		hook, hookV = f.s.Pos, f.s.Vel
@@ -259,7 +259,7 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		var rope r3.Vec // the rope's (or pivot's) pull on the hook
 		if r.Pivot {
 			rope = r3.Vec{X: lam[0], Y: lam[1], Z: lam[2]}
-			p.Tension = norm(rope)
+			p.Tension = length(rope)
 		} else {
 			rope = r3.Scale(lam[0], r3.Sub(hook, f.s.Pos))
 			p.Tension = -lam[0] * f.l
@@ -279,11 +279,11 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		if r.Pivot {
 			d = r3.Sub(load, f.s.Pos)
 		}
-		n := norm(d)
+		n := length(d)
 		p.Dir = r3.Scale(1/n, d)
 		rel := r3.Sub(hookV, f.s.Vel)
 		p.Rate = r3.Scale(1/n, r3.Sub(rel, r3.Scale(r3.Dot(rel, p.Dir), p.Dir)))
-		p.RiggingTension = norm(pull)
+		p.RiggingTension = length(pull)
 	}
 	p.HookPos = hook
 	p.RiggingDir = unitOf(r3.Sub(load, hook))
