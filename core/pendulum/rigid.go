@@ -291,7 +291,15 @@ func (r *Rigid) stateInto(y []float64, f *frame) {
 	_ = y[RigidLen-1] // one length check for the reads below
 	f.x = vec(y[1:])
 	f.v = vec(y[4:])
-	rotInto(y[7:11], &f.R)
+	// rotInto written out (TestStateIntoAsRotInto): as a call, the rigid
+	// loads' evaluations took longer as wasm.
+	w, x, yq, z := y[7], y[8], y[9], y[10]
+	n := 1 / math.Sqrt(w*w+x*x+yq*yq+z*z)
+	w, x, yq, z = w*n, x*n, yq*n, z*n
+	R := &f.R
+	R[0][0], R[0][1], R[0][2] = 1-2*(yq*yq+z*z), 2*(x*yq-w*z), 2*(x*z+w*yq)
+	R[1][0], R[1][1], R[1][2] = 2*(x*yq+w*z), 1-2*(x*x+z*z), 2*(yq*z-w*x)
+	R[2][0], R[2][1], R[2][2] = 2*(x*z-w*yq), 2*(yq*z+w*x), 1-2*(x*x+yq*yq)
 	f.w = vec(y[11:])
 	if r.geo.hookPoint {
 		_ = y[RigidHookLen-1]

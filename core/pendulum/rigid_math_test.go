@@ -90,3 +90,29 @@ func TestTwistRemainderAsMath(t *testing.T) {
 		}
 	}
 }
+
+// stateInto writes rotInto out: the frame's rotation is rotInto's, bit for
+// bit, for quaternions of any length and sign.
+func TestStateIntoAsRotInto(t *testing.T) {
+	r := girder()
+	r.Legs = fourLegs(8, 0.5, 1, 5)
+	mustPrepare(t, fixedRigid(r, 6))
+	rnd := rand.New(rand.NewPCG(3, 5))
+	y := r.Rest(0)
+	for range 1000 {
+		for i := 7; i < 11; i++ {
+			y[i] = rnd.NormFloat64() * math.Pow(10, rnd.Float64()*4-2)
+		}
+		var f frame
+		r.stateInto(y, &f)
+		var want m3
+		rotInto(y[7:11], &want)
+		for i := range 3 {
+			for j := range 3 {
+				if math.Float64bits(f.R[i][j]) != math.Float64bits(want[i][j]) {
+					t.Fatalf("q %v: stateInto's R %v, rotInto's %v", y[7:11], f.R, want)
+				}
+			}
+		}
+	}
+}
