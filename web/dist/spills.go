@@ -22,8 +22,8 @@ import (
 // Between calls it is not: under V8 a local is a register or a slot of
 // its own frame, while a store and a load of linear memory stay two
 // memory accesses the compiler cannot see through. The rigid loads'
-// largest functions keep a score of floats in their frames this way (3 to
-// 5 % of their evaluations under node, README).
+// largest functions keep a score of floats in their frames this way (2.5
+// to 4.5 % of their evaluations under node, README).
 //
 // A slot at offset K (from the frame's start) becomes a local when:
 //   - the function is in Go's form and every use of SP is understood: a
