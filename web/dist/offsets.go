@@ -131,22 +131,40 @@ func memOffset(code []byte, in instr) int {
 // value) that takes the address, and returns its index; -1 when another
 // instruction takes it or one it does not follow comes first.
 func accessOf(code []byte, ins []instr, k int) int {
-	depth := 1 // values on the stack from the address up
-	for a := k + 1; a < len(ins); a++ {
-		op := ins[a].op
-		switch {
-		case op >= 0x28 && op <= 0x35 && depth == 1: // a load of the address
-			return a
-		case op >= 0x36 && op <= 0x3e && depth == 2: // a store to it
-			return a
+	a, depth := consumer(code, ins, k)
+	switch {
+	case a < 0:
+		return -1
+	case ins[a].op >= 0x28 && ins[a].op <= 0x35 && depth == 1, // a load of the address
+		ins[a].op >= 0x36 && ins[a].op <= 0x3e && depth == 2: // a store to it (its value above)
+		return a
+	}
+	return -1
+}
+
+// consumer follows the operand stack from instruction k, whose result is
+// on top of it, to the instruction that takes that value, and returns its
+// index and the value's depth there (1: on top); -1 when an instruction
+// stackEffect does not know (a store but the one taking it) comes first.
+func consumer(code []byte, ins []instr, k int) (a, depth int) {
+	depth = 1 // values on the stack from k's up
+	for a = k + 1; a < len(ins); a++ {
+		if op := ins[a].op; op >= 0x36 && op <= 0x3e { // a store takes two
+			if depth <= 2 {
+				return a, depth
+			}
+			return -1, 0
 		}
 		pop, push, ok := stackEffect(code, ins[a])
-		if !ok || pop >= depth {
-			return -1
+		if !ok {
+			return -1, 0
+		}
+		if pop >= depth {
+			return a, depth
 		}
 		depth += push - pop
 	}
-	return -1
+	return -1, 0
 }
 
 // stackEffect is how many values instruction in takes from the operand

@@ -56,7 +56,11 @@ func LocalSpills(wasm []byte) ([]byte, SpillStats, error) {
 	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
 		return nil, st, errors.New("spills: not a wasm file")
 	}
-	imports, err := funcImports(wasm)
+	imports, err := FuncImports(wasm)
+	if err != nil {
+		return nil, st, err
+	}
+	params, err := funcParams(wasm)
 	if err != nil {
 		return nil, st, err
 	}
@@ -87,7 +91,10 @@ func LocalSpills(wasm []byte) ([]byte, SpillStats, error) {
 	}
 	out, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
 		return eachBody(sec, "spills", func(i int, body []byte) ([]byte, error) {
-			return spillFunc(body, frames[i], frameOf, &st)
+			if i >= len(params) {
+				return nil, errors.New("more bodies than functions")
+			}
+			return spillFunc(body, params[i], frames[i], frameOf, &st)
 		})
 	})
 	return out, st, err
@@ -200,7 +207,7 @@ func pushed(code []byte, ins []instr, k int, sp int64) bool {
 // isMove tells whether ins[k:] is local.get SP; i32.const c; op (i32.sub
 // 0x6b or i32.add 0x6a); local.tee SP or local.set SP.
 func isMove(ins []instr, k int, sp int64, op byte) bool {
-	return ins[k].op == opLocalGet && ins[k].imm == sp && ins[k+1].op == opI32Const && ins[k+2].op == op &&
+	return k+3 < len(ins) && ins[k].op == opLocalGet && ins[k].imm == sp && ins[k+1].op == opI32Const && ins[k+2].op == op &&
 		(ins[k+3].op == opLocalTee || ins[k+3].op == opLocalSet) && ins[k+3].imm == sp
 }
 
@@ -245,7 +252,7 @@ func spUses(code []byte, ins []instr, sp, size int64) (uses []spUse, escapes []i
 			continue
 		}
 		// global.set SP, or the stack check's comparison.
-		if ins[k+1].op == 0x24 || consumedBy(code, ins, k, func(op byte) bool { return op >= 0x46 && op <= 0x4f }) {
+		if c, _ := consumer(code, ins, k); k+1 < len(ins) && ins[k+1].op == 0x24 || c >= 0 && ins[c].op >= 0x46 && ins[c].op <= 0x4f {
 			uses = append(uses, spUse{k, -1, 0})
 			continue
 		}
@@ -260,23 +267,6 @@ func spUses(code []byte, ins []instr, sp, size int64) (uses []spUse, escapes []i
 		return uses, escapes, false
 	}
 	return uses, escapes, true
-}
-
-// consumedBy follows the operand stack from k (a value on top) to the
-// instruction that takes it, and tells whether ok says yes to its opcode.
-func consumedBy(code []byte, ins []instr, k int, ok func(byte) bool) bool {
-	depth := 1
-	for a := k + 1; a < len(ins); a++ {
-		pop, push, known := stackEffect(code, ins[a])
-		if !known {
-			return false
-		}
-		if pop >= depth {
-			return ok(ins[a].op)
-		}
-		depth += push - pop
-	}
-	return false
 }
 
 // accessSize is the bytes a load or store reaches.
@@ -298,10 +288,8 @@ const (
 )
 
 // spillFunc rewrites one function body (see LocalSpills).
-func spillFunc(body []byte, fr frameInfo, frameOf func(int64) *frameInfo, st *SpillStats) ([]byte, error) {
-	// Go's functions take one parameter (PC_B, local 0) and keep SP in
-	// local 1, their first declared one.
-	if fr.sp != 1 || !fr.known || fr.size <= 8 {
+func spillFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frameInfo, st *SpillStats) ([]byte, error) {
+	if fr.sp < 0 || !fr.known || fr.size <= 8 {
 		return body, nil
 	}
 	fb, err := readBody(body)
@@ -362,8 +350,11 @@ func spillFunc(body []byte, fr frameInfo, frameOf func(int64) *frameInfo, st *Sp
 	// last call that returns is taken as its argument: Go writes a call's
 	// arguments after the calls before it.
 	returns := func(in instr) bool {
+		if in.op == 0x11 {
+			return true
+		}
 		c := frameOf(callee(code, in))
-		return in.op == 0x11 || c == nil || !c.noReturn
+		return c == nil || !c.noReturn
 	}
 	alloc := 0
 	for k := 0; k+4 < len(ins); k++ {
@@ -396,7 +387,8 @@ func spillFunc(body []byte, fr frameInfo, frameOf func(int64) *frameInfo, st *Sp
 		}
 	}
 	// The candidates: inside the frame, above the callees' arguments,
-	// every access an f64 one at the slot's start.
+	// every access a whole f64 (or every one a whole i64) at the slot's
+	// start.
 	var cands []int64
 	for k := range slots {
 		if !bad[k] && k >= int64(low) && k+8 <= min(fr.size, fr.lowest) {
@@ -442,15 +434,15 @@ func spillFunc(body []byte, fr frameInfo, frameOf func(int64) *frameInfo, st *Sp
 	if len(keep) == 0 {
 		return body, nil
 	}
-	// The rewrite: the new locals after the declared ones, the f64 ones
-	// first.
+	// The rewrite: the new locals after the parameters and the declared
+	// ones, the f64 ones first.
 	slices.SortFunc(keep, func(a, b int64) int {
 		return cmp.Or(cmp.Compare(slots[a].typ, slots[b].typ), cmp.Compare(a, b))
 	})
 	local := map[int64]int{}
 	nf := 0
 	for j, k := range keep {
-		local[k] = 1 + fb.locals + j
+		local[k] = params + fb.locals + j
 		if slots[k].typ == 0x7c {
 			nf++
 		}
@@ -522,9 +514,9 @@ func callee(code []byte, in instr) int64 {
 	return int64(r.ULEB())
 }
 
-// funcImports counts the functions a wasm file imports (the import
+// FuncImports counts the functions a wasm file imports (the import
 // section, 5.5.5): the defined functions' indices come after them.
-func funcImports(wasm []byte) (int, error) {
+func FuncImports(wasm []byte) (int, error) {
 	n := 0
 	r := &WasmReader{B: wasm[8:]}
 	for len(r.B) > 0 {
@@ -565,7 +557,7 @@ func funcImports(wasm []byte) (int, error) {
 }
 
 func readLimits(r *WasmReader) {
-	if flag := r.Bytes(1); len(flag) == 1 && flag[0] == 1 {
+	if flag := r.Bytes(1); len(flag) == 1 && flag[0]&1 == 1 { // a maximum follows
 		r.ULEB()
 	}
 	r.ULEB()

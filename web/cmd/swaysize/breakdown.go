@@ -33,8 +33,12 @@ func breakdown(wasm []byte) (pkgs []pkgSize, data []byte, other int, err error) 
 	if len(wasm) < 8 || !bytes.Equal(wasm[:4], []byte("\x00asm")) {
 		return nil, nil, 0, errors.New("not a wasm file")
 	}
+	// Imported functions come first in the index space.
+	imported, err := dist.FuncImports(wasm)
+	if err != nil {
+		return nil, nil, 0, err
+	}
 	r := &dist.WasmReader{B: wasm[8:]}
-	imported := 0
 	var bodies [][]byte
 	names := map[int]string{}
 	for len(r.B) > 0 && r.Err == nil {
@@ -44,29 +48,6 @@ func breakdown(wasm []byte) (pkgs []pkgSize, data []byte, other int, err error) 
 		}
 		sec := &dist.WasmReader{B: r.Bytes(r.ULEB())}
 		switch id[0] {
-		case 2: // imports: imported functions come first in the index space
-			for n := sec.ULEB(); n > 0 && sec.Err == nil; n-- {
-				sec.Bytes(sec.ULEB()) // module
-				sec.Bytes(sec.ULEB()) // name
-				switch kind := sec.Bytes(1); kind[0] {
-				case 0:
-					sec.ULEB()
-					imported++
-				case 1: // table: reftype, limits
-					sec.Bytes(1)
-					if f := sec.Bytes(1); f[0]&1 == 1 {
-						sec.ULEB()
-					}
-					sec.ULEB()
-				case 2: // memory: limits
-					if f := sec.Bytes(1); f[0]&1 == 1 {
-						sec.ULEB()
-					}
-					sec.ULEB()
-				case 3: // global: valtype, mutability
-					sec.Bytes(2)
-				}
-			}
 		case 10:
 			for n := sec.ULEB(); n > 0 && sec.Err == nil; n-- {
 				bodies = append(bodies, sec.Bytes(sec.ULEB()))
