@@ -111,13 +111,21 @@ func New(f Func, n int, s Settings) *Solver {
 	}
 	s = s.Filled()
 	v := &Solver{f: f, n: n, set: s, invN: 1 / float64(n)}
-	mk := func() []float64 { return make([]float64, n) }
-	v.y, v.ynew, v.tmp = mk(), mk(), mk()
+	// The fifteen vectors on one array, each its own part: one allocation
+	// where there were fifteen (the planner makes thousands of solvers,
+	// and in wasm each allocation is a call into the runtime).
+	work := make([]float64, 15*n)
+	part := func() []float64 {
+		p := work[:n:n]
+		work = work[n:]
+		return p
+	}
+	v.y, v.ynew, v.tmp = part(), part(), part()
 	for i := range v.k {
-		v.k[i] = mk()
+		v.k[i] = part()
 	}
 	for i := range v.cont {
-		v.cont[i] = mk()
+		v.cont[i] = part()
 	}
 	return v
 }

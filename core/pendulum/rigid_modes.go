@@ -3,7 +3,6 @@ package pendulum
 import (
 	"errors"
 	"math"
-	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
 )
@@ -78,6 +77,7 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 	// that scale.
 	h := 1e-3 * math.Min(1, math.Min(c.Gyration.X, math.Min(c.Gyration.Y, c.Gyration.Z)))
 	dz := newDense(nd, k)
+	y := make([]float64, len(y0)) // each displaced state, made afresh from y0
 	for j := range k {
 		var zs [4][9]float64
 		for n, step := range [4]float64{-2 * h, -h, h, 2 * h} {
@@ -85,7 +85,7 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 			for i := range nd {
 				d[i] = step * nb[i][j]
 			}
-			y := append([]float64(nil), y0...)
+			copy(y, y0)
 			c.displace(y, &d)
 			f := c.frameOf(0, y)
 			zs[n], _ = c.accel(&f)
@@ -186,13 +186,26 @@ func (r *Rigid) modes(l float64, dir *r3.Vec) ([]RigidMode, error) {
 	if dir != nil {
 		c.shares(out, y0, nb, xs, mk, vals, *dir)
 	}
-	sort.SliceStable(out, func(a, b int) bool {
-		if out[a].Free != out[b].Free {
-			return !out[a].Free
-		}
-		return out[a].PeriodS > out[b].PeriodS
-	})
+	sortModes(out)
 	return out, nil
+}
+
+// sortModes sorts modes slowest first, free modes last, keeping the order
+// of equal ones: an insertion sort, for the nine modes at most
+// (sort.SliceStable's swapper is made by reflection, an allocation and
+// calls that in wasm cost more than the sort).
+func sortModes(ms []RigidMode) {
+	before := func(a, b *RigidMode) bool {
+		if a.Free != b.Free {
+			return !a.Free
+		}
+		return a.PeriodS > b.PeriodS
+	}
+	for i := 1; i < len(ms); i++ {
+		for j := i; j > 0 && before(&ms[j], &ms[j-1]); j-- {
+			ms[j], ms[j-1] = ms[j-1], ms[j]
+		}
+	}
 }
 
 // shapeOf is N x_j, the j-th column of xs in the constraints' tangent

@@ -2,6 +2,8 @@ package pendulum
 
 import (
 	"math"
+	"sort"
+	"strconv"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -161,4 +163,32 @@ func TestFrameWithoutSlew(t *testing.T) {
 func sameBits(a, b r3.Vec) bool {
 	return math.Float64bits(a.X) == math.Float64bits(b.X) && math.Float64bits(a.Y) == math.Float64bits(b.Y) &&
 		math.Float64bits(a.Z) == math.Float64bits(b.Z)
+}
+
+// sortModes orders modes as sort.SliceStable did with the same
+// comparison: slowest first, free modes last, equal ones in their order.
+func TestSortModesAsStable(t *testing.T) {
+	periods := []float64{3, 0, 5.5, 3, 1e-3, 0, 5.5, 12, 3}
+	for n := range len(periods) + 1 {
+		for shift := range n + 1 {
+			ms := make([]RigidMode, n)
+			for i := range ms {
+				p := periods[(i+shift)%len(periods)]
+				ms[i] = RigidMode{PeriodS: p, Free: p == 0, Kind: strconv.Itoa(i)}
+			}
+			want := append([]RigidMode(nil), ms...)
+			sort.SliceStable(want, func(a, b int) bool {
+				if want[a].Free != want[b].Free {
+					return !want[a].Free
+				}
+				return want[a].PeriodS > want[b].PeriodS
+			})
+			sortModes(ms)
+			for i := range ms {
+				if ms[i].Kind != want[i].Kind {
+					t.Fatalf("%d modes, shift %d: %v, want %v", n, shift, ms, want)
+				}
+			}
+		}
+	}
 }

@@ -14,8 +14,9 @@ type dense [][]float64
 
 func newDense(r, c int) dense {
 	m := make(dense, r)
+	buf := make([]float64, r*c) // the rows on one array: two allocations, not r+1
 	for i := range m {
-		m[i] = make([]float64, c)
+		m[i] = buf[i*c : (i+1)*c : (i+1)*c]
 	}
 	return m
 }
