@@ -47,7 +47,7 @@ func BenchmarkObstaclesPerRun(b *testing.B) {
 			const n = 20
 			runs := make([]Run, n)
 			for i := range runs {
-				r, err := sway.EvaluateWith(sp.Variant(i), sway.Options{})
+				r, err := sway.EvaluateWith(sp.Variant(i), sway.Options{LegEnds: true})
 				if err != nil {
 					b.Fatal(err)
 				}

@@ -22,7 +22,7 @@ func restingGirder(t *testing.T) *scenario.Scenario {
 
 func TestRigidLoadAtRestCornersAreTheBox(t *testing.T) {
 	s := restingGirder(t)
-	res, err := sway.Evaluate(s)
+	res, err := sway.EvaluateWith(s, sway.Options{LegEnds: true})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -34,7 +34,7 @@ func TestNoSpreadEnvelopeIsTheRun(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	res, _ := sway.Evaluate(s)
+	res, _ := sway.EvaluateWith(s, sway.Options{LegEnds: true})
 	run := RunOf(res)
 	var pts []Point2
 	for _, p := range run.Path(12) {
@@ -78,7 +78,7 @@ func TestRopeSpreadEnvelopeMatchesTheRangeEnds(t *testing.T) {
 	// Extent along x of each run's path plus the radius.
 	farthest, nearest := math.Inf(-1), math.Inf(1)
 	for i := range lengths {
-		res, err := sway.Evaluate(variant(i))
+		res, err := sway.EvaluateWith(variant(i), sway.Options{LegEnds: true})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -182,7 +182,7 @@ func TestEmergencyStopSpreadInTheCheck(t *testing.T) {
 		at := draws.StopAtS(d)
 		st := base.At(at)
 		want := st.Pos + st.Vel*1 + st.Vel*st.Vel/(2*0.25)
-		res, err := sway.Evaluate(d)
+		res, err := sway.EvaluateWith(d, sway.Options{LegEnds: true})
 		if err != nil {
 			t.Fatal(err)
 		}

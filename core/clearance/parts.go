@@ -156,7 +156,7 @@ func prepare(s *scenario.Scenario, opt Options) (*checker, error) {
 			return nil, fmt.Errorf("obstacle %d (%s): %w", i+1, c.site.Obstacles[i].Name, err)
 		}
 	}
-	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget, PathOnly: true})
+	res, err := sway.EvaluateWith(s, sway.Options{Validated: true, Budget: opt.Budget, PathOnly: true, LegEnds: true})
 	if err != nil {
 		return nil, err
 	}
@@ -194,7 +194,7 @@ func (c *checker) part(s *scenario.Scenario, from, to int, variant Variant) (*Pa
 		v.Plan = nil
 		sc := scratches.Get().(*scratch)
 		defer scratches.Put(sc)
-		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true, HistoryBuffer: &sc.hist})
+		r, err := sway.EvaluateWith(&v, sway.Options{Budget: c.opt.Budget, PathOnly: true, HistoryBuffer: &sc.hist, LegEnds: true})
 		if err != nil {
 			return fmt.Errorf("run %d: %w", i, err)
 		}

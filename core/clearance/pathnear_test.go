@@ -24,7 +24,7 @@ func TestAlongPathNearMatchesEvery(t *testing.T) {
 	// over), and random wandering paths by a random obstacle.
 	for _, name := range []string{"site-bay-columns", "site-tower-hoarding"} {
 		s := testscenario.Example(t, name)
-		res, err := sway.Evaluate(s)
+		res, err := sway.EvaluateWith(s, sway.Options{LegEnds: true})
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -99,7 +99,7 @@ func TestAlongLinesMatchesEvery(t *testing.T) {
 	}
 	for _, name := range []string{"site-bay-columns", "site-tower-rope-mast"} {
 		s := testscenario.Example(t, name)
-		res, err := sway.EvaluateWith(s, sway.Options{})
+		res, err := sway.EvaluateWith(s, sway.Options{LegEnds: true})
 		if err != nil {
 			t.Fatal(err)
 		}

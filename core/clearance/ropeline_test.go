@@ -33,7 +33,7 @@ func TestRunLines(t *testing.T) {
 	}
 	for _, c := range cases {
 		s := testscenario.Example(t, c.example)
-		res, err := sway.EvaluateWith(s, sway.Options{})
+		res, err := sway.EvaluateWith(s, sway.Options{LegEnds: true})
 		if err != nil {
 			t.Fatal(err)
 		}

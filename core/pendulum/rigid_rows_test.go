@@ -165,6 +165,20 @@ func sameBits(a, b r3.Vec) bool {
 		math.Float64bits(a.Z) == math.Float64bits(b.Z)
 }
 
+// LegCount is the number of leg tensions Eval reports, for every
+// arrangement (the recorder sizes a rigid load's history by it before
+// the first sample).
+func TestLegCountAsEval(t *testing.T) {
+	for name, r := range movingArrangements() {
+		mustPrepare(t, r)
+		var p Point
+		r.Eval(0.7, offRest(r), &p)
+		if got := r.LegCount(); got != p.Body.NLegs {
+			t.Errorf("%s: LegCount %d, Eval reports %d legs", name, got, p.Body.NLegs)
+		}
+	}
+}
+
 // sortModes orders modes as sort.SliceStable did with the same
 // comparison: slowest first, free modes last, equal ones in their order.
 func TestSortModesAsStable(t *testing.T) {

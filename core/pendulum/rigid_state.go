@@ -211,6 +211,17 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 	bp.TwistRad = twistRemainder(tw)
 }
 
+// LegCount is how many leg tensions Eval reports (BodyPoint.NLegs): two
+// for two hook ropes (or a tandem lift's two hooks) and for two legs under
+// a hook block, four otherwise (a spreader's or a hook's legs, unused ones
+// zero). Call it after Prepare.
+func (r *Rigid) LegCount() int {
+	if r.geo.twoTop || r.geo.hookPoint {
+		return 2
+	}
+	return 4
+}
+
 // evalForces is the part of Eval that needs the accelerations z and the
 // constraints' multipliers lam (accel): the tensions, the rope's
 // direction and rate, the hook and the legs' ends. The hook's and the
@@ -221,9 +232,9 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	var lam [3]float64
 	r.accelInto(f, &z, &lam)
 	var hook, hookV, pull r3.Vec
+	bp.NLegs = r.LegCount()
 	switch {
 	case geo.twoTop:
-		bp.NLegs = 2
 		var dir, rate r3.Vec
 		for i := range 2 {
 			bp.Legs[i] = -lam[i] * (f.l + geo.extra[i])
@@ -244,7 +255,6 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	case geo.hookPoint:
 		hook, hookV = f.P, f.Pv
 		p.Tension = -lam[0] * f.l
-		bp.NLegs = 2
 		for i := range 2 {
 			bp.Legs[i] = -lam[i+1] * r.Legs[i].Length
 			b := geo.attach[i]
@@ -268,7 +278,6 @@ func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 		pull = r3.Sub(r3.Scale(r.HookMass, r3.Add(aH, r3.Vec{Z: r.g()})), rope)
 		Rt := f.R.transpose()
 		pb := Rt.mul(pull)
-		bp.NLegs = 4
 		for i := range 4 {
 			bp.Legs[i] = r3.Dot(geo.share[i], pb)
 		}

@@ -36,7 +36,7 @@ func integrate(su *setup, opt Options, hist *History, tEnd, relTol float64, samp
 		rec = recorder{hist: hist, sampleDt: tEnd / float64(samples-1), samples: samples}
 		switch m := su.model.(type) {
 		case *pendulum.Rigid:
-			rec.bodyHist = &BodyHistory{}
+			rec.bodyHist, rec.bodyLegs = &BodyHistory{legEnds: opt.LegEnds}, m.LegCount()
 			rec.hook = m.Spreader == 0
 		case *pendulum.Double, *fastDouble:
 			rec.hook = true

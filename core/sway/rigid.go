@@ -99,47 +99,73 @@ type BodyHistory struct {
 	CornerZM [][]float64 `json:"corner_z_m"`
 	// LegTopXM ... LegEndZM are each sling leg's ends on the ground frame,
 	// [leg][sample] (pendulum.BodyPoint's LegTop, LegEnd): for the
-	// clearance check's lines (core/clearance), not sent as JSON.
+	// clearance check's lines (core/clearance), not sent as JSON; only
+	// with Options.LegEnds, nil otherwise.
 	LegTopXM, LegTopYM, LegTopZM [][]float64 `json:"-"`
 	LegEndXM, LegEndYM, LegEndZM [][]float64 `json:"-"`
 
-	flat []float64 // every series' samples, one after another (add)
+	flat    []float64 // every series' samples, one after another (carve)
+	legEnds bool      // the legs' ends are recorded (Options.LegEnds)
 }
 
-// add writes the sample p as sample k of samples. The first one makes
-// room for all of them in every series, in one allocation: series j is
-// flat[j*samples:(j+1)*samples], full length from the start (a run that
-// ends without error records every sample), and each sample is written in
-// place, a store apart by samples. Grown sample by sample, the copies and
+// bodySeries is how many series a rigid load's body history has with
+// nLegs legs: its tilt and twist, each leg's tension (with legEnds also
+// the three coordinates of each of the leg's two ends) and the three
+// coordinates of each of the eight corners.
+func bodySeries(nLegs int, legEnds bool) int {
+	perLeg := 1
+	if legEnds {
+		perLeg = 7
+	}
+	return 2 + nLegs*perLeg + 3*8
+}
+
+// carve makes every series of h a part of flat, which holds
+// bodySeries(nLegs, legEnds)*n: series j, in the order add writes them,
+// is flat[j*n:(j+1)*n], full length from the start (a run that ends
+// without error records every sample; one that fails returns no
+// history).
+func (h *BodyHistory) carve(flat []float64, nLegs, n int, legEnds bool) {
+	h.LegTensionN = make([][]float64, nLegs)
+	h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
+	var legs []*[][]float64
+	if legEnds {
+		legs = []*[][]float64{&h.LegTopXM, &h.LegTopYM, &h.LegTopZM, &h.LegEndXM, &h.LegEndYM, &h.LegEndZM}
+		for _, a := range legs {
+			*a = make([][]float64, nLegs)
+		}
+	}
+	series := []*[]float64{&h.TiltDeg, &h.TwistDeg}
+	for i := range nLegs {
+		series = append(series, &h.LegTensionN[i])
+		for _, a := range legs {
+			series = append(series, &(*a)[i])
+		}
+	}
+	for i := range 8 {
+		series = append(series, &h.CornerXM[i], &h.CornerYM[i], &h.CornerZM[i])
+	}
+	for j, c := range series {
+		*c = flat[j*n : (j+1)*n : (j+1)*n]
+	}
+	h.flat, h.legEnds = flat, legEnds
+}
+
+// add writes the sample p as sample k of samples, each value in place in
+// its series, a store apart by samples (the recorder's reserve carves the
+// series beforehand, in the same allocation as the History's; without it
+// the first sample makes them). Grown sample by sample, the copies and
 // the collector made bay-girder-rigid's full evaluation about 12 % slower
 // as wasm, 4 % natively; appended into the 54 series of a rigid load's
 // [leg][sample] and [corner][sample] slices, each sample loaded and
-// stored every slice's header (about 5x native under node).
+// stored every slice's header (about 5x native under node). The legs
+// written are the series' (len(LegTensionN)); Eval reports as many
+// (pendulum.Rigid.LegCount).
 func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {
 	b := p.Body
 	n := max(samples, 1)
-	if h.LegTensionN == nil {
-		h.LegTensionN = make([][]float64, b.NLegs)
-		h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
-		legs := []*[][]float64{&h.LegTopXM, &h.LegTopYM, &h.LegTopZM, &h.LegEndXM, &h.LegEndYM, &h.LegEndZM}
-		for _, a := range legs {
-			*a = make([][]float64, b.NLegs)
-		}
-		// The order add writes them in.
-		series := []*[]float64{&h.TiltDeg, &h.TwistDeg}
-		for i := range b.NLegs {
-			series = append(series, &h.LegTensionN[i])
-			for _, a := range legs {
-				series = append(series, &(*a)[i])
-			}
-		}
-		for i := range 8 {
-			series = append(series, &h.CornerXM[i], &h.CornerYM[i], &h.CornerZM[i])
-		}
-		h.flat = make([]float64, len(series)*n)
-		for j, c := range series {
-			*c = h.flat[j*n : (j+1)*n]
-		}
+	if h.flat == nil {
+		h.carve(make([]float64, bodySeries(b.NLegs, h.legEnds)*n), b.NLegs, n, h.legEnds)
 	}
 	f, o := h.flat, k
 	f[o] = b.TiltRad / units.Degree
@@ -147,11 +173,18 @@ func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {
 	f[o] = b.TwistRad / units.Degree
 	// Written out, not a loop over the seven inside the loop over the
 	// legs (a loop inside another goes round wasm's dispatch loop).
-	for i := range b.NLegs {
-		t, e := &b.LegTop[i], &b.LegEnd[i]
-		f[o+n], f[o+2*n], f[o+3*n], f[o+4*n] = b.Legs[i], t.X, t.Y, t.Z
-		f[o+5*n], f[o+6*n], f[o+7*n] = e.X, e.Y, e.Z
-		o += 7 * n
+	if h.legEnds {
+		for i := range len(h.LegTensionN) {
+			t, e := &b.LegTop[i], &b.LegEnd[i]
+			f[o+n], f[o+2*n], f[o+3*n], f[o+4*n] = b.Legs[i], t.X, t.Y, t.Z
+			f[o+5*n], f[o+6*n], f[o+7*n] = e.X, e.Y, e.Z
+			o += 7 * n
+		}
+	} else {
+		for i := range len(h.LegTensionN) {
+			o += n
+			f[o] = b.Legs[i]
+		}
 	}
 	for _, c := range b.Corners {
 		o += n

@@ -3,6 +3,7 @@ package sway
 import (
 	"errors"
 	"math"
+	"reflect"
 	"strings"
 	"swaysheet/core/internal/testscenario"
 	"testing"
@@ -255,14 +256,34 @@ func TestRigidSteadyWind(t *testing.T) {
 // height (a rigid body), their middle near the load's centre of mass
 // (within the box's size: the centre of mass need not be the box's
 // middle). The ropes of a spreader or tandem lift change
-// length with the hoist, so there only the corners are checked.
+// length with the hoist, so there only the corners are checked. The legs'
+// ends are there with Options.LegEnds (and then as many as the leg
+// tensions); without it they are nil and every other series the same to
+// the bit.
 func TestBodyHistorySeries(t *testing.T) {
 	ex := loadExamples(t)
 	for _, name := range []string{"bay-girder-rigid", "precast-beam-tandem", "precast-panel-spreader"} {
 		s := ex[name]
-		r := mustEval(t, s)
+		r, err := EvaluateWith(s, Options{LegEnds: true})
+		if err != nil {
+			t.Fatal(err)
+		}
 		n := len(r.History.TimeS)
 		h := r.Body.History
+		if len(h.LegTopXM) != len(h.LegTensionN) || len(h.LegEndZM) != len(h.LegTensionN) || len(h.LegTensionN) == 0 {
+			t.Fatalf("%s: %d legs' tops and %d ends for %d leg tensions", name, len(h.LegTopXM), len(h.LegEndZM), len(h.LegTensionN))
+		}
+		plain := mustEval(t, s).Body.History
+		if plain.LegTopXM != nil || plain.LegEndZM != nil {
+			t.Errorf("%s: legs' ends recorded without Options.LegEnds", name)
+		}
+		same := [][2][][]float64{{{h.TiltDeg, h.TwistDeg}, {plain.TiltDeg, plain.TwistDeg}},
+			{h.LegTensionN, plain.LegTensionN}, {h.CornerXM, plain.CornerXM}, {h.CornerYM, plain.CornerYM}, {h.CornerZM, plain.CornerZM}}
+		for _, sm := range same {
+			if !reflect.DeepEqual(sm[0], sm[1]) {
+				t.Errorf("%s: the body history differs with and without the legs' ends", name)
+			}
+		}
 		all := [][]float64{h.TiltDeg, h.TwistDeg}
 		for _, ss := range [][][]float64{h.LegTensionN, h.CornerXM, h.CornerYM, h.CornerZM,
 			h.LegTopXM, h.LegTopYM, h.LegTopZM, h.LegEndXM, h.LegEndYM, h.LegEndZM} {

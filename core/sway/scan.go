@@ -320,6 +320,7 @@ type recorder struct {
 	_        [0]func()    // not comparable: no equality function (see fastScan)
 	hist     *History     // nil: no history
 	bodyHist *BodyHistory // with a rigid load's history
+	bodyLegs int          // its legs (pendulum.Rigid.LegCount)
 	sampleDt float64
 	samples  int
 	next     int  // index of the next history sample
@@ -328,8 +329,10 @@ type recorder struct {
 
 // reserve makes room for every sample at once: growing eleven slices
 // (fourteen with the hook's) sample by sample costs more than the samples
-// (in wasm most of all). With reuse set (Options.HistoryBuffer) its
-// memory is used when large enough, else the memory made is kept there.
+// (in wasm most of all). A rigid load's body history takes its series
+// from the same memory (BodyHistory.carve). With reuse set
+// (Options.HistoryBuffer) its memory is used when large enough, else the
+// memory made is kept there.
 func (s *recorder) reserve(reuse *[]float64) {
 	series := s.hist.series()
 	cs := series[:]
@@ -338,16 +341,28 @@ func (s *recorder) reserve(reuse *[]float64) {
 		cs = append(cs, &h.HookRelXM, &h.HookRelYM, &h.HookRelZM)
 	}
 	n := s.samples
+	size := len(cs) * n
+	if s.bodyHist != nil {
+		size += bodySeries(s.bodyLegs, s.bodyHist.legEnds) * n
+	}
 	var buf []float64
-	if reuse != nil && cap(*reuse) >= len(cs)*n {
-		buf = (*reuse)[:len(cs)*n]
+	if reuse != nil && cap(*reuse) >= size {
+		buf = (*reuse)[:size]
 	} else {
-		buf = make([]float64, len(cs)*n) // one allocation, each series its own part
+		// One allocation, each series its own part, a rigid load's body
+		// history's too (bay-girder-rigid's 187 kB, where its body history
+		// was an allocation of its own): an allocation this large is
+		// zeroed memory and collector work, as wasm all of it on the one
+		// thread.
+		buf = make([]float64, size)
 		if reuse != nil {
 			*reuse = buf
 		}
 	}
 	carve(buf, cs, n)
+	if s.bodyHist != nil {
+		s.bodyHist.carve(buf[len(cs)*n:], s.bodyLegs, n, s.bodyHist.legEnds)
+	}
 }
 
 // carve makes each series of cs an empty slice of buf with room for n

@@ -164,12 +164,17 @@ type Options struct {
 	// the result's peak and residual figures are not to be read. The
 	// general path ignores it.
 	PathOnly bool
-	// HistoryBuffer, when set, is memory for the time histories' series,
-	// used when large enough and replaced by the larger one made when
+	// HistoryBuffer, when set, is memory for the time histories' series
+	// (a rigid load's body history's too), used when large enough and replaced by the larger one made when
 	// not: a caller making many runs one after another (the clearance
 	// check's) reuses it, and reads each result's histories only until
 	// its next run.
 	HistoryBuffer *[]float64
+	// LegEnds records a rigid load's sling legs' (or hook ropes') ends in
+	// its body history (BodyHistory.LegTopXM to LegEndZM), for the
+	// clearance check's lines; without it they stay nil, and a run of a
+	// load on two legs writes 28 series a sample, not 40.
+	LegEnds bool
 	// CountedChecks says the limit checks' warnings are only counted: each
 	// is an empty string in Result.Warnings (and an empty sentence), not
 	// worded, for callers that read only how many there are (the
