@@ -351,9 +351,8 @@ func (s *recorder) reserve(reuse *[]float64) {
 	} else {
 		// One allocation, each series its own part, a rigid load's body
 		// history's too (bay-girder-rigid's 187 kB, where its body history
-		// was an allocation of its own): an allocation this large is
-		// zeroed memory and collector work, as wasm all of it on the one
-		// thread.
+		// was an allocation of its own): each large allocation is memory
+		// to zero and work for the collector.
 		buf = make([]float64, size)
 		if reuse != nil {
 			*reuse = buf

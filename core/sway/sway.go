@@ -165,10 +165,10 @@ type Options struct {
 	// general path ignores it.
 	PathOnly bool
 	// HistoryBuffer, when set, is memory for the time histories' series
-	// (a rigid load's body history's too), used when large enough and replaced by the larger one made when
-	// not: a caller making many runs one after another (the clearance
-	// check's) reuses it, and reads each result's histories only until
-	// its next run.
+	// (a rigid load's body history's too), used when large enough and
+	// replaced by the larger one made when not: a caller making many runs
+	// one after another (the clearance check's) reuses it, and reads each
+	// result's histories only until its next run.
 	HistoryBuffer *[]float64
 	// LegEnds records a rigid load's sling legs' (or hook ropes') ends in
 	// its body history (BodyHistory.LegTopXM to LegEndZM), for the
