@@ -212,9 +212,9 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 }
 
 // LegCount is how many leg tensions Eval reports (BodyPoint.NLegs): two
-// for two hook ropes (or a tandem lift's two hooks) and for two legs under
-// a hook block, four otherwise (a spreader's or a hook's legs, unused ones
-// zero). Call it after Prepare.
+// for a spreader's two legs and for a tandem lift's two hook ropes, two
+// for two sling legs under a hook block, four for four sling legs. Call it
+// after Prepare.
 func (r *Rigid) LegCount() int {
 	if r.geo.twoTop || r.geo.hookPoint {
 		return 2

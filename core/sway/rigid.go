@@ -121,15 +121,15 @@ func bodySeries(nLegs int, legEnds bool) int {
 }
 
 // carve makes every series of h a part of flat, which holds
-// bodySeries(nLegs, legEnds)*n: series j, in the order add writes them,
+// bodySeries(nLegs, h.legEnds)*n: series j, in the order add writes them,
 // is flat[j*n:(j+1)*n], full length from the start (a run that ends
 // without error records every sample; one that fails returns no
 // history).
-func (h *BodyHistory) carve(flat []float64, nLegs, n int, legEnds bool) {
+func (h *BodyHistory) carve(flat []float64, nLegs, n int) {
 	h.LegTensionN = make([][]float64, nLegs)
 	h.CornerXM, h.CornerYM, h.CornerZM = make([][]float64, 8), make([][]float64, 8), make([][]float64, 8)
 	var legs []*[][]float64
-	if legEnds {
+	if h.legEnds {
 		legs = []*[][]float64{&h.LegTopXM, &h.LegTopYM, &h.LegTopZM, &h.LegEndXM, &h.LegEndYM, &h.LegEndZM}
 		for _, a := range legs {
 			*a = make([][]float64, nLegs)
@@ -148,15 +148,14 @@ func (h *BodyHistory) carve(flat []float64, nLegs, n int, legEnds bool) {
 	for j, c := range series {
 		*c = flat[j*n : (j+1)*n : (j+1)*n]
 	}
-	h.flat, h.legEnds = flat, legEnds
+	h.flat = flat
 }
 
 // add writes the sample p as sample k of samples, each value in place in
 // its series, a store apart by samples (the recorder's reserve carves the
-// series beforehand, in the same allocation as the History's; without it
-// the first sample makes them). Grown sample by sample, the copies and
-// the collector made bay-girder-rigid's full evaluation about 12 % slower
-// as wasm, 4 % natively; appended into the 54 series of a rigid load's
+// series beforehand, in the same allocation as the History's). Grown
+// sample by sample, the copies and the collector made bay-girder-rigid's
+// full evaluation about 12 % slower as wasm, 4 % natively; appended into the 54 series of a rigid load's
 // [leg][sample] and [corner][sample] slices, each sample loaded and
 // stored every slice's header (about 5x native under node). The legs
 // written are the series' (len(LegTensionN)); Eval reports as many
@@ -164,9 +163,6 @@ func (h *BodyHistory) carve(flat []float64, nLegs, n int, legEnds bool) {
 func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {
 	b := p.Body
 	n := max(samples, 1)
-	if h.flat == nil {
-		h.carve(make([]float64, bodySeries(b.NLegs, h.legEnds)*n), b.NLegs, n, h.legEnds)
-	}
 	f, o := h.flat, k
 	f[o] = b.TiltRad / units.Degree
 	o += n

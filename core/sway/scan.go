@@ -360,7 +360,7 @@ func (s *recorder) reserve(reuse *[]float64) {
 	}
 	carve(buf, cs, n)
 	if s.bodyHist != nil {
-		s.bodyHist.carve(buf[len(cs)*n:], s.bodyLegs, n, s.bodyHist.legEnds)
+		s.bodyHist.carve(buf[len(cs)*n:], s.bodyLegs, n)
 	}
 }
 
