@@ -400,6 +400,7 @@ func (r *Rigid) rows(f *frame, out []row) []row {
 // field of each row. It calls nothing.
 func plainRows(f *frame, cons []constraint, twoTop bool, out []row) {
 	out = out[:len(cons)]
+	_ = f.t // f's nil check once, not in the loop (see dot9)
 	for i := range cons {
 		c := &cons[i]
 		rw := &out[i]
@@ -618,6 +619,7 @@ func (r *Rigid) accelInto(f *frame, z *[9]float64, lam *[3]float64) {
 // leaving the products beyond them unused.
 func constrained(rws []row, mj *[3][9]float64, z *[9]float64, lam *[3]float64) {
 	n := min(len(rws), 3)
+	_ = lam[2] // its nil check once, not in the last loop (see dot9)
 	mf := z
 	// The rows one by one and the sums written out, as in correction.
 	var a [3][3]float64

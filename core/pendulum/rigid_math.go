@@ -152,7 +152,17 @@ func rotateTo(a, b r3.Vec) quat {
 // dot9 is the dot product of two 9-vectors, given by pointer: passed by
 // value, both were copied at every call (in wasm a copy is 9 loads and 9
 // stores each).
+//
+// The first line checks both pointers for nil before the loop. Go checks
+// a pointer where it is first used on each way through the code, so
+// without it the check sits in the loop: natively a free memory fault, in
+// Go's wasm a test and a call to runtime.sigpanic on every round, which
+// keeps the loop's values in memory across it. The same one-line checks
+// (or a field read once before a loop) in plainRows, constrained,
+// correction, displace, Project, eval and evalForces; -gcflags=-d=nil
+// lists where Go checks.
 func dot9(a, b *[9]float64) float64 {
+	_, _ = a[8], b[8] // the nil checks once, before the loop
 	s := 0.0
 	for i := range 9 {
 		s += a[i] * b[i]

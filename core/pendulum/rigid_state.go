@@ -17,10 +17,11 @@ func (r *Rigid) Project(y []float64) float64 {
 	rws := r.rows(f, buf[:0])
 	var d [9]float64
 	r.correction(rws, true, &d)
+	hook := r.geo.hookPoint
 	for i := range 3 {
 		y[4+i] += d[i]
 		y[11+i] += d[3+i]
-		if r.geo.hookPoint {
+		if hook {
 			y[17+i] += d[6+i]
 		}
 	}
@@ -87,6 +88,7 @@ func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 	if n == 0 {
 		return
 	}
+	_ = d[8] // its nil check once, not in the loop below (see dot9)
 	var a [3][3]float64
 	var b [3]float64
 	j0 := &rws[0].j
@@ -133,9 +135,10 @@ func (r *Rigid) correction(rws []row, rates bool, d *[9]float64) {
 // displace moves the body by d = (dx, dtheta, dP): x += dx, q turned by
 // the small rotation dtheta (ground frame), P += dP.
 func (r *Rigid) displace(y []float64, d *[9]float64) {
+	_, hook := d[8], r.geo.hookPoint // the nil checks once, not in the loop (see dot9)
 	for i := range 3 {
 		y[1+i] += d[i]
-		if r.geo.hookPoint {
+		if hook {
 			y[14+i] += d[6+i]
 		}
 	}
@@ -196,6 +199,7 @@ func (r *Rigid) eval(t float64, y []float64, p *Point, forces bool) {
 		restCorner, restHeading, c = r.tandemCorners(f.l)
 		bp.Plumb = r3.Vec{X: cs*c.X - sn*c.Y, Y: sn*c.X + cs*c.Y}
 	}
+	_ = restCorner[7] // its nil check here, once, not in the loop
 	for i := range 8 {
 		b := geo.cornerArm[i]
 		bp.Corners[i] = r3.Add(f.x, r3.Vec{X: rowDot(&f.R[0], b), Y: rowDot(&f.R[1], b), Z: rowDot(&f.R[2], b)}) // f.R.mul(b)
@@ -228,6 +232,7 @@ func (r *Rigid) LegCount() int {
 // legs' ends are kinInto's sums, written out without its kin and calls.
 func (r *Rigid) evalForces(f *frame, load r3.Vec, p *Point) {
 	geo, bp := r.geo, p.Body
+	_ = f.t // f's nil check once, not in each case and the legs' loop (see dot9)
 	var z [9]float64
 	var lam [3]float64
 	r.accelInto(f, &z, &lam)
