@@ -17,7 +17,8 @@ const PackGap = 32
 // up to CopyLimit bytes written out (WriteOutCopies), the constant parts
 // of addresses moved into the loads' and stores' offsets (FoldOffsets),
 // the frame's slots that never wait across a call kept in locals
-// (LocalSpills), then its data segments joined (PackData).
+// (LocalSpills), its arguments read into locals once on each way through
+// (LocalArgs), then its data segments joined (PackData).
 func Pack(wasm []byte) ([]byte, PackStats, error) {
 	var st PackStats
 	out, js, err := DirectJumps(wasm)
@@ -34,6 +35,9 @@ func Pack(wasm []byte) ([]byte, PackStats, error) {
 	if out, st.Spills, err = LocalSpills(out); err != nil {
 		return nil, st, err
 	}
+	if out, st.Args, err = LocalArgs(out); err != nil {
+		return nil, st, err
+	}
 	out, err = PackData(out, PackGap)
 	return out, st, err
 }
@@ -44,6 +48,7 @@ type PackStats struct {
 	Copies  CopyStats
 	Offsets FoldStats
 	Spills  SpillStats
+	Args    ArgStats
 }
 
 // PackFile packs the wasm file name in place (Pack) and returns what

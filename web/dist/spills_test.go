@@ -12,7 +12,11 @@ import (
 // pointer (at 2048, above the memory sameMemoryAfterRun compares), each
 // function of type (i32) -> i32, f exported with the memory. bodies are
 // the functions' bodies (locals, then code), f first.
-func goFormModule(bodies ...[]byte) []byte {
+func goFormModule(bodies ...[]byte) []byte { return goFormModuleAt(2048, bodies...) }
+
+// goFormModuleAt is goFormModule with the stack pointer at sp (below 1024:
+// f's arguments lie in the memory sameMemoryAfterRun fills and compares).
+func goFormModuleAt(sp uint64, bodies ...[]byte) []byte {
 	sec := func(out []byte, id byte, body []byte) []byte {
 		out = append(out, id)
 		out = appendULEB(out, uint64(len(body)))
@@ -25,9 +29,9 @@ func goFormModule(bodies ...[]byte) []byte {
 		funcs = append(funcs, 0)
 	}
 	out = sec(out, 3, funcs)
-	out = sec(out, 5, []byte{1, 0, 1})                                  // memory: min 1 page
-	out = sec(out, 6, []byte{1, 0x7f, 1, opI32Const, 0x80, 0x10, 0x0b}) // global 0: mutable i32 2048
-	out = sec(out, 7, []byte{2, 1, 'f', 0, 0, 3, 'm', 'e', 'm', 2, 0})  // export f, mem
+	out = sec(out, 5, []byte{1, 0, 1})                                              // memory: min 1 page
+	out = sec(out, 6, append(appendULEB([]byte{1, 0x7f, 1, opI32Const}, sp), 0x0b)) // global 0: mutable i32 sp
+	out = sec(out, 7, []byte{2, 1, 'f', 0, 0, 3, 'm', 'e', 'm', 2, 0})              // export f, mem
 	code := []byte{byte(len(bodies))}
 	for _, b := range bodies {
 		code = appendULEB(code, uint64(len(b)))

@@ -60,7 +60,8 @@ func pack(f string) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	return fmt.Sprintf("%s: %d jumps direct, %d loops made (%d jumps back to them), %d jumps round the dispatch loop, in %d functions; %d copies and %d clears written out (%d left); %d loads' and %d stores' addresses folded into their offsets; %d frame slots kept in locals (%d accesses, %d functions); data segments joined; %d -> %d bytes",
+	return fmt.Sprintf("%s: %d jumps direct, %d loops made (%d jumps back to them), %d jumps round the dispatch loop, in %d functions; %d copies and %d clears written out (%d left); %d loads' and %d stores' addresses folded into their offsets; %d frame slots kept in locals (%d accesses, %d functions); %d argument slots read from locals (%d reads, %d first reads that set them, %d functions); data segments joined; %d -> %d bytes",
 		f, st.Direct, st.Loops, st.Looped, st.Round, st.Functions, st.Copies.Copies, st.Copies.Clears, st.Copies.Left,
-		st.Offsets.Loads, st.Offsets.Stores, st.Spills.Slots, st.Spills.Accesses, st.Spills.Functions, before, after), nil
+		st.Offsets.Loads, st.Offsets.Stores, st.Spills.Slots, st.Spills.Accesses, st.Spills.Functions,
+		st.Args.Slots, st.Args.Reads, st.Args.Tees, st.Args.Functions, before, after), nil
 }
