@@ -2,7 +2,6 @@ package dist
 
 import (
 	"cmp"
-	"errors"
 	"slices"
 )
 
@@ -41,47 +40,8 @@ import (
 // goes on with its locals as they were.
 func LocalArgs(wasm []byte) ([]byte, ArgStats, error) {
 	var st ArgStats
-	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
-		return nil, st, errors.New("args: not a wasm file")
-	}
-	imports, err := FuncImports(wasm)
-	if err != nil {
-		return nil, st, err
-	}
-	params, err := funcParams(wasm)
-	if err != nil {
-		return nil, st, err
-	}
-	var frames []frameInfo
-	if _, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
-		return eachBody(sec, "args", func(_ int, body []byte) ([]byte, error) {
-			fb, err := readBody(body)
-			if err != nil {
-				return nil, err
-			}
-			ins, err := decodeInstrs(fb.code)
-			if err != nil {
-				return nil, err
-			}
-			frames = append(frames, readFrame(fb.code, ins))
-			return body, nil
-		})
-	}); err != nil {
-		return nil, st, err
-	}
-	frameOf := func(fn int64) *frameInfo {
-		if fn < int64(imports) || fn-int64(imports) >= int64(len(frames)) {
-			return nil
-		}
-		return &frames[fn-int64(imports)]
-	}
-	out, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
-		return eachBody(sec, "args", func(i int, body []byte) ([]byte, error) {
-			if i >= len(params) {
-				return nil, errors.New("more bodies than functions")
-			}
-			return argsFunc(body, params[i], frames[i], frameOf, &st)
-		})
+	out, err := rewriteFrames(wasm, "args", func(body []byte, params int, fr frameInfo, frameOf func(int64) *frameInfo) ([]byte, error) {
+		return argsFunc(body, params, fr, frameOf, &st)
 	})
 	return out, st, err
 }
@@ -317,22 +277,7 @@ func argsFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frameI
 	}
 	st.Functions++
 	st.Slots += nl
-	groups := fb.groups
-	for _, c := range []int{nf, nl - nf} {
-		if c > 0 {
-			groups++
-		}
-	}
-	out := appendULEB(nil, uint64(groups))
-	out = append(out, fb.decls[fb.countLen:]...)
-	if nf > 0 {
-		out = appendULEB(out, uint64(nf))
-		out = append(out, 0x7c)
-	}
-	if c := nl - nf; c > 0 {
-		out = appendULEB(out, uint64(c))
-		out = append(out, 0x7e)
-	}
+	out := declareLocals(fb, nf, nl-nf)
 	for k, in := range ins {
 		switch j, ok := read[k]; {
 		case drop[k]:

@@ -13,30 +13,11 @@ import (
 // memory. Both modules leave the same memory after a run.
 func TestLocalArgsByHand(t *testing.T) {
 	const (
-		sp                    = 1 // SP's local
-		getSP, setSP, teeSP   = opLocalGet, opLocalSet, opLocalTee
-		sub, add, globalGet   = 0x6b, 0x6a, 0x23
-		globalSet, call, drop = 0x24, 0x10, 0x1a
-		i64load, i64store     = opI64Load, 0x37
+		sp                = byHandSP
+		getSP, teeSP      = opLocalGet, opLocalTee
+		i64load, i64store = opI64Load, 0x37
 	)
-	cat := func(parts ...[]byte) (out []byte) {
-		for _, p := range parts {
-			out = append(out, p...)
-		}
-		return out
-	}
-	enter := []byte{globalGet, 0, setSP, sp, getSP, sp, opI32Const, 48, sub, teeSP, sp, globalSet, 0}
-	leave := []byte{getSP, sp, opI32Const, 48, add, teeSP, sp, globalSet, 0, opI32Const, 0, opReturn, opEnd}
-	callG := []byte{
-		getSP, sp, opI32Const, 8, sub, teeSP, sp, globalSet, 0,
-		getSP, sp, opI64Const, 7, opI64Store, 3, 0,
-		opI32Const, 0, call, 1, drop,
-		globalGet, 0, setSP, sp,
-	}
-	// result copies what load reads at SP+k to address 896+at.
-	result := func(at byte, load, store, k byte) []byte {
-		return []byte{opI32Const, 0x80 | at, 0x07, getSP, sp, load, 3, k, store, 3, 0}
-	}
+	enter, leave, callG, result := enterFrame(48), leaveFrame(48), callOne, copyTo
 	// read is result's copy with the slot's local read instead.
 	read := func(at byte, l byte) []byte {
 		return []byte{opI32Const, 0x80 | at, 0x07, getSP, l, i64store, 3, 0}
@@ -53,7 +34,7 @@ func TestLocalArgsByHand(t *testing.T) {
 			result(0x2c, opF64Load, opF64Store, 72),           // 940
 			leave)
 	}
-	g := []byte{1, 1, 0x7f, globalGet, 0, setSP, sp, getSP, sp, opI32Const, 8, add, teeSP, sp, globalSet, 0, opI32Const, 0, opReturn, opEnd}
+	g := calleeOne
 	const l56 = 2 // the new local, after the parameter and SP
 	in := goFormModuleAt(512, cat([]byte{1, 1, 0x7f}, f(
 		result(0x04, i64load, i64store, 56),

@@ -53,22 +53,33 @@ import (
 // wrote them.
 func LocalSpills(wasm []byte) ([]byte, SpillStats, error) {
 	var st SpillStats
+	out, err := rewriteFrames(wasm, "spills", func(body []byte, params int, fr frameInfo, frameOf func(int64) *frameInfo) ([]byte, error) {
+		return spillFunc(body, params, fr, frameOf, &st)
+	})
+	return out, st, err
+}
+
+// rewriteFrames is LocalSpills' and LocalArgs' way through a wasm file:
+// a first reading of each defined function's frame (readFrame: how far
+// above its frame it reads and writes, its arguments and results), then
+// f on each body with its count of parameters, its frame and frameOf,
+// the frame of a function by its index (nil for an import). pass names
+// the pass in errors.
+func rewriteFrames(wasm []byte, pass string, f func(body []byte, params int, fr frameInfo, frameOf func(int64) *frameInfo) ([]byte, error)) ([]byte, error) {
 	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
-		return nil, st, errors.New("spills: not a wasm file")
+		return nil, errors.New(pass + ": not a wasm file")
 	}
 	imports, err := FuncImports(wasm)
 	if err != nil {
-		return nil, st, err
+		return nil, err
 	}
 	params, err := funcParams(wasm)
 	if err != nil {
-		return nil, st, err
+		return nil, err
 	}
-	// The first reading: each function's frame, and how far above its
-	// frame it reads and writes (its arguments and results).
 	var frames []frameInfo
 	if _, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
-		return eachBody(sec, "spills", func(_ int, body []byte) ([]byte, error) {
+		return eachBody(sec, pass, func(_ int, body []byte) ([]byte, error) {
 			fb, err := readBody(body)
 			if err != nil {
 				return nil, err
@@ -81,7 +92,7 @@ func LocalSpills(wasm []byte) ([]byte, SpillStats, error) {
 			return body, nil
 		})
 	}); err != nil {
-		return nil, st, err
+		return nil, err
 	}
 	frameOf := func(fn int64) *frameInfo {
 		if fn < int64(imports) || fn-int64(imports) >= int64(len(frames)) {
@@ -89,15 +100,36 @@ func LocalSpills(wasm []byte) ([]byte, SpillStats, error) {
 		}
 		return &frames[fn-int64(imports)]
 	}
-	out, err := rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
-		return eachBody(sec, "spills", func(i int, body []byte) ([]byte, error) {
+	return rewriteSection(wasm, 10, func(sec []byte) ([]byte, error) {
+		return eachBody(sec, pass, func(i int, body []byte) ([]byte, error) {
 			if i >= len(params) {
 				return nil, errors.New("more bodies than functions")
 			}
-			return spillFunc(body, params[i], frames[i], frameOf, &st)
+			return f(body, params[i], frames[i], frameOf)
 		})
 	})
-	return out, st, err
+}
+
+// declareLocals is a body's local declarations with nf new f64 locals
+// and ni new i64 ones added after the declared ones (fb's).
+func declareLocals(fb funcBody, nf, ni int) []byte {
+	groups := fb.groups
+	for _, n := range []int{nf, ni} {
+		if n > 0 {
+			groups++
+		}
+	}
+	out := appendULEB(nil, uint64(groups))
+	out = append(out, fb.decls[fb.countLen:]...)
+	if nf > 0 {
+		out = appendULEB(out, uint64(nf))
+		out = append(out, 0x7c)
+	}
+	if ni > 0 {
+		out = appendULEB(out, uint64(ni))
+		out = append(out, 0x7e)
+	}
+	return out
 }
 
 // SpillStats counts what LocalSpills did.
@@ -461,22 +493,7 @@ func spillFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frame
 	}
 	st.Functions++
 	st.Slots += len(keep)
-	groups := fb.groups
-	for _, n := range []int{nf, len(keep) - nf} {
-		if n > 0 {
-			groups++
-		}
-	}
-	out := appendULEB(nil, uint64(groups))
-	out = append(out, fb.decls[fb.countLen:]...)
-	if nf > 0 {
-		out = appendULEB(out, uint64(nf))
-		out = append(out, 0x7c)
-	}
-	if n := len(keep) - nf; n > 0 {
-		out = appendULEB(out, uint64(n))
-		out = append(out, 0x7e)
-	}
+	out := declareLocals(fb, nf, len(keep)-nf)
 	for k, in := range ins {
 		if drop[k] {
 			continue

@@ -40,6 +40,41 @@ func goFormModuleAt(sp uint64, bodies ...[]byte) []byte {
 	return sec(out, 10, code)
 }
 
+// The pieces of a function in Go's form for the tests by hand, SP in
+// local 1: the frame made and given back (frame bytes), a call to
+// function 1 as Go writes one (the return address pushed, SP read back),
+// and copyTo, which copies what load reads at SP+k to address 896+at.
+const byHandSP = 1
+
+func cat(parts ...[]byte) (out []byte) {
+	for _, p := range parts {
+		out = append(out, p...)
+	}
+	return out
+}
+
+func enterFrame(size byte) []byte {
+	return []byte{0x23, 0, opLocalSet, byHandSP, opLocalGet, byHandSP, opI32Const, size, 0x6b, opLocalTee, byHandSP, 0x24, 0}
+}
+
+func leaveFrame(size byte) []byte {
+	return []byte{opLocalGet, byHandSP, opI32Const, size, 0x6a, opLocalTee, byHandSP, 0x24, 0, opI32Const, 0, opReturn, opEnd}
+}
+
+var callOne = []byte{
+	opLocalGet, byHandSP, opI32Const, 8, 0x6b, opLocalTee, byHandSP, 0x24, 0,
+	opLocalGet, byHandSP, opI64Const, 7, opI64Store, 3, 0,
+	opI32Const, 0, 0x10, 1, 0x1a,
+	0x23, 0, opLocalSet, byHandSP,
+}
+
+func copyTo(at byte, load, store, k byte) []byte {
+	return []byte{opI32Const, 0x80 | at, 0x07, opLocalGet, byHandSP, load, 3, k, store, 3, 0} // at + 896
+}
+
+// calleeOne is function 1 of the tests by hand: it returns at once.
+var calleeOne = []byte{1, 1, 0x7f, 0x23, 0, opLocalSet, byHandSP, opLocalGet, byHandSP, opI32Const, 8, 0x6a, opLocalTee, byHandSP, 0x24, 0, opI32Const, 0, opReturn, opEnd}
+
 func f64const(v float64) []byte {
 	return binary.LittleEndian.AppendUint64([]byte{0x44}, math.Float64bits(v))
 }
@@ -52,31 +87,11 @@ func f64const(v float64) []byte {
 // the same memory below the stack after a run.
 func TestLocalSpillsByHand(t *testing.T) {
 	const (
-		sp                    = 1 // SP's local
-		getSP, setSP, teeSP   = opLocalGet, opLocalSet, opLocalTee
-		f64load, f64store     = opF64Load, opF64Store
-		sub, add, globalGet   = 0x6b, 0x6a, 0x23
-		globalSet, call, drop = 0x24, 0x10, 0x1a
+		sp                = byHandSP
+		getSP, setSP      = opLocalGet, opLocalSet
+		f64load, f64store = opF64Load, opF64Store
 	)
-	cat := func(parts ...[]byte) (out []byte) {
-		for _, p := range parts {
-			out = append(out, p...)
-		}
-		return out
-	}
-	enter := []byte{globalGet, 0, setSP, sp, getSP, sp, opI32Const, 48, sub, teeSP, sp, globalSet, 0}
-	leave := []byte{getSP, sp, opI32Const, 48, add, teeSP, sp, globalSet, 0, opI32Const, 0, opReturn, opEnd}
-	// A call as Go writes one: the return address pushed, SP read back.
-	callG := []byte{
-		getSP, sp, opI32Const, 8, sub, teeSP, sp, globalSet, 0,
-		getSP, sp, opI64Const, 7, opI64Store, 3, 0,
-		opI32Const, 0, call, 1, drop,
-		globalGet, 0, setSP, sp,
-	}
-	// result copies the f64 (or i64) at SP+k to address 896+at.
-	result := func(at byte, load, store, k byte) []byte {
-		return []byte{opI32Const, 0x80 | at, 0x07, getSP, sp, load, 3, k, store, 3, 0} // at + 896
-	}
+	enter, leave, callG, result := enterFrame(48), leaveFrame(48), callOne, copyTo
 	head := []byte{1, 1, 0x7f} // one i32 local: SP
 	f := func(slot16, slot8 []byte) []byte {
 		return cat(head, enter,
@@ -91,7 +106,7 @@ func TestLocalSpillsByHand(t *testing.T) {
 			slot8,
 			leave)
 	}
-	g := []byte{1, 1, 0x7f, globalGet, 0, setSP, sp, getSP, sp, opI32Const, 8, add, teeSP, sp, globalSet, 0, opI32Const, 0, opReturn, opEnd}
+	g := calleeOne
 	const l16, l8 = 2, 3 // the new locals: the f64 ones, then the i64 ones
 	in := goFormModule(
 		f(cat([]byte{getSP, sp}, f64const(1.5), []byte{f64store, 3, 16},
