@@ -6,10 +6,10 @@ import (
 )
 
 // LocalArgs keeps a function's arguments in WebAssembly locals once read:
-// the first read of an argument's slot on each way through the function
-// stays a load from linear memory and also sets a new local (local.tee);
-// every read where that local is set on every way there from the
-// function's entry reads the local instead.
+// every read of an argument's slot where a read of it has been met on
+// every way there from the function's entry reads a new local instead,
+// and the reads that stay loads from linear memory set that local too
+// (local.tee) where such a read follows.
 //
 // Go's compiler reads an argument from its slot above the function's
 // frame (SP + frame size + 8 and up: the caller wrote it there) at every
@@ -178,8 +178,11 @@ func argsFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frameI
 			preds[s] = append(preds[s], k)
 		}
 	}
-	// The entry's way in: instruction 0 has no predecessor but may be a
-	// loop's head reached again; it meets the empty set all the same.
+	if len(preds[0]) > 0 {
+		return body, nil // the entry a loop's head: not Go's form
+	}
+	// A load sets its slot's local on the way out (as a read of the
+	// local, or as a load that sets it).
 	outOf := func(k int, dst []uint64) {
 		copy(dst, set[k])
 		if j, ok := loadOf[k]; ok {
@@ -210,9 +213,6 @@ func argsFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frameI
 				}
 			}
 		}
-	}
-	if len(preds[0]) > 0 {
-		return body, nil // the entry inside a loop: not Go's form
 	}
 	// The loads that become reads of the local, and of the others those
 	// that must set it: the ones from which a read is reached before

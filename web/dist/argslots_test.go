@@ -26,8 +26,8 @@ func TestLocalArgsByHand(t *testing.T) {
 		return cat(enter,
 			first, // 900
 			callG,
-			second,                                             // 908
-			[]byte{getSP, 0, opIf, 0x40}, third, []byte{opEnd}, // 916, when the argument is not 0
+			second,                                                   // 908
+			[]byte{getSP, 0, 0x45, opIf, 0x40}, third, []byte{opEnd}, // 916, when the argument is 0 (sameMemoryAfterRun's call)
 			[]byte{getSP, sp, opI64Const, 5, i64store, 3, 64}, // slot 64: a result
 			result(0x1c, i64load, i64store, 64),               // 924
 			result(0x24, i64load, i64store, 72),               // 932
