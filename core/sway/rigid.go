@@ -155,9 +155,10 @@ func (h *BodyHistory) carve(flat []float64, nLegs, n int) {
 // its series, a store apart by samples (the recorder's reserve carves the
 // series beforehand, in the same allocation as the History's). Grown
 // sample by sample, the copies and the collector made bay-girder-rigid's
-// full evaluation about 12 % slower as wasm, 4 % natively; appended into the 54 series of a rigid load's
-// [leg][sample] and [corner][sample] slices, each sample loaded and
-// stored every slice's header (about 5x native under node). The legs
+// full evaluation about 12 % slower as wasm, 4 % natively; appended into
+// the 54 series of a rigid load's [leg][sample] and [corner][sample]
+// slices, each sample loaded and stored every slice's header (about 5x
+// native under node). The legs
 // written are the series' (len(LegTensionN)); Eval reports as many
 // (pendulum.Rigid.LegCount).
 func (h *BodyHistory) add(p *pendulum.Point, k, samples int) {

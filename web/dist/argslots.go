@@ -139,80 +139,28 @@ func argsFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frameI
 	slices.SortFunc(keep, func(a, b int64) int {
 		return cmp.Or(cmp.Compare(slots[a].typ, slots[b].typ), cmp.Compare(a, b))
 	})
-	returns := func(in instr) bool {
-		if in.op == 0x11 {
-			return true
-		}
-		c := frameOf(callee(code, in))
-		return c == nil || !c.noReturn
-	}
-	g, err := readFlow(ins, returns)
+	g, err := readFlow(ins, mayReturn(code, frameOf))
 	if err != nil {
 		return nil, err
 	}
-	// set[k]: the slots whose locals are set on every way from the
-	// function's entry to where instruction k starts (a forward "must"
-	// analysis: the meet of the predecessors', from all set but at the
-	// entry).
+	// Where a load of each slot has been met on every way from the entry:
+	// each load sets its slot's local on the way out (as a read of the
+	// local, or as a load that sets it).
 	n := len(ins)
-	words := (len(keep) + 63) / 64
 	loadOf := map[int]int{} // load -> index in keep
 	for j, k := range keep {
 		for _, a := range slots[k].loads {
 			loadOf[a] = j
 		}
 	}
-	set := make([][]uint64, n)
-	buf := make([]uint64, n*words)
-	for k := range set {
-		set[k] = buf[k*words : (k+1)*words]
-		if k > 0 {
-			for w := range set[k] {
-				set[k][w] = ^uint64(0)
-			}
-		}
-	}
-	preds := make([][]int, n)
-	for k, ss := range g.succ {
-		for _, s := range ss {
-			preds[s] = append(preds[s], k)
-		}
-	}
-	if len(preds[0]) > 0 {
-		return body, nil // the entry a loop's head: not Go's form
-	}
-	// A load sets its slot's local on the way out (as a read of the
-	// local, or as a load that sets it).
-	outOf := func(k int, dst []uint64) {
-		copy(dst, set[k])
+	set, ok := g.setOnEveryWay(len(keep), func(k int) int {
 		if j, ok := loadOf[k]; ok {
-			dst[j/64] |= 1 << (j % 64)
+			return j
 		}
-	}
-	tmp := make([]uint64, words)
-	acc := make([]uint64, words)
-	for changed := true; changed; {
-		changed = false
-		for k := 1; k < n; k++ {
-			for w := range acc {
-				acc[w] = ^uint64(0)
-			}
-			if len(preds[k]) == 0 {
-				clear(acc) // unreachable from the entry: taken as not set
-			}
-			for _, p := range preds[k] {
-				outOf(p, tmp)
-				for w := range acc {
-					acc[w] &= tmp[w]
-				}
-			}
-			for w := range acc {
-				if acc[w] != set[k][w] {
-					set[k][w] = acc[w]
-					changed = true
-				}
-			}
-		}
+		return -1
+	})
+	if !ok {
+		return body, nil // the entry a loop's head: not Go's form
 	}
 	// The loads that become reads of the local, and of the others those
 	// that must set it: the ones from which a read is reached before

@@ -161,3 +161,67 @@ func (g *flow) liveAtEntryOrCall(live [][]uint64, j int) bool {
 	}
 	return false
 }
+
+// setOnEveryWay gives, for each instruction, the slots (a bit set of n)
+// set on every way from the function's entry to where it starts: a
+// forward "must" analysis, each instruction's set the meet of its
+// predecessors' on their way out, from all set but at the entry, to a
+// fixed point. def tells which slot an instruction sets (-1 for none).
+// An instruction no way reaches has none set. ok is false when the
+// entry is itself a branch's target (not Go's form).
+func (g *flow) setOnEveryWay(n int, def func(k int) int) (set [][]uint64, ok bool) {
+	m := len(g.succ)
+	words := (n + 63) / 64
+	preds := make([][]int, m)
+	for k, ss := range g.succ {
+		for _, s := range ss {
+			preds[s] = append(preds[s], k)
+		}
+	}
+	if m == 0 || len(preds[0]) > 0 {
+		return nil, false
+	}
+	defs := make([]int, m)
+	for k := range defs {
+		defs[k] = def(k)
+	}
+	set = make([][]uint64, m)
+	buf := make([]uint64, m*words)
+	for k := range set {
+		set[k] = buf[k*words : (k+1)*words]
+		if k > 0 {
+			for w := range set[k] {
+				set[k][w] = ^uint64(0)
+			}
+		}
+	}
+	acc := make([]uint64, words)
+	for changed := true; changed; {
+		changed = false
+		for k := 1; k < m; k++ {
+			for w := range acc {
+				acc[w] = ^uint64(0)
+			}
+			if len(preds[k]) == 0 {
+				clear(acc)
+			}
+			for _, p := range preds[k] {
+				d := defs[p]
+				for w := range acc {
+					out := set[p][w]
+					if d >= 0 && d/64 == w {
+						out |= 1 << (d % 64)
+					}
+					acc[w] &= out
+				}
+			}
+			for w := range acc {
+				if acc[w] != set[k][w] {
+					set[k][w] = acc[w]
+					changed = true
+				}
+			}
+		}
+	}
+	return set, true
+}

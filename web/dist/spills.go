@@ -381,13 +381,7 @@ func spillFunc(body []byte, params int, fr frameInfo, frameOf func(int64) *frame
 	// import, one in the assembler's form) every slot written since the
 	// last call that returns is taken as its argument: Go writes a call's
 	// arguments after the calls before it.
-	returns := func(in instr) bool {
-		if in.op == 0x11 {
-			return true
-		}
-		c := frameOf(callee(code, in))
-		return c == nil || !c.noReturn
-	}
+	returns := mayReturn(code, frameOf)
 	alloc := 0
 	for k := 0; k+4 < len(ins); k++ {
 		if isMove(ins, k, fr.sp, 0x6b) && ins[k+1].imm == fr.size {
@@ -523,6 +517,19 @@ func slotType(op byte) byte {
 		return 0x7e
 	}
 	return 0
+}
+
+// mayReturn tells of a call in code whether it may return: always
+// through a table (call_indirect), else unless the callee is in Go's form
+// with no return (a panic's way; frameOf gives the callee's frame).
+func mayReturn(code []byte, frameOf func(int64) *frameInfo) func(instr) bool {
+	return func(in instr) bool {
+		if in.op == 0x11 {
+			return true
+		}
+		c := frameOf(callee(code, in))
+		return c == nil || !c.noReturn
+	}
 }
 
 // callee is the function a call instruction calls.
